@@ -1,0 +1,22 @@
+import { Redirect, Slot } from 'expo-router';
+import { useMeQuery } from '@/features/auth/api/get-me';
+import { ActiveClubProvider } from '@/features/session/active-club';
+import { AppShell } from '@/features/shell/components/app-shell';
+import { FullScreenMessage } from '@/features/shell/components/full-screen-message';
+
+export default function ClubLayout() {
+  const me = useMeQuery();
+  if (me.isPending) return <FullScreenMessage busy />;
+  if (me.error) return <FullScreenMessage message={me.error.message} />;
+  if (!me.data) return <Redirect href="/sign-in" />;
+  if (me.data.memberships.length === 0) {
+    return <FullScreenMessage message="Your account is not part of any club yet. Ask your club admin for an invitation." />;
+  }
+  return (
+    <ActiveClubProvider me={me.data}>
+      <AppShell>
+        <Slot />
+      </AppShell>
+    </ActiveClubProvider>
+  );
+}

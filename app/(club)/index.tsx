@@ -1,0 +1,10 @@
+import { RoleHome } from '@/features/home/components/role-home';
+import { Page } from '@/features/ui/components/page';
+
+export default function HomeScreen() {
+  return (
+    <Page>
+      <RoleHome />
+    </Page>
+  );
+}

@@ -1,0 +1,21 @@
+import { drizzle, type NodePgDatabase } from 'drizzle-orm/node-postgres';
+import { migrate } from 'drizzle-orm/node-postgres/migrator';
+import path from 'node:path';
+import { Pool } from 'pg';
+import * as schema from './schema';
+
+export type Db = NodePgDatabase<typeof schema>;
+export type DbHandle = { db: Db; pool: Pool; close(): Promise<void> };
+
+export const MIGRATIONS_DIR = path.join(__dirname, '..', 'migrations');
+
+export function connect(url: string, max = 10): DbHandle {
+  const pool = new Pool({ connectionString: url, max });
+  const db = drizzle(pool, { schema });
+  return { db, pool, close: () => pool.end() };
+}
+
+/** Applies committed migrations; safe to run again. */
+export async function runMigrations(db: Db): Promise<void> {
+  await migrate(db, { migrationsFolder: MIGRATIONS_DIR });
+}

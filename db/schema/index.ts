@@ -1,0 +1,3 @@
+export * from './auth';
+export * from './clubs';
+export * from './athletes';

@@ -1,0 +1,18 @@
+/** Age in decimal years on a given day (both ISO dates), as the maturity equations expect. */
+export function decimalAge(dateOfBirth: string, onDate: string): number {
+  const birth = Date.parse(`${dateOfBirth}T00:00:00Z`);
+  const day = Date.parse(`${onDate}T00:00:00Z`);
+  if (Number.isNaN(birth) || Number.isNaN(day)) throw new Error('Dates must be written as YYYY-MM-DD.');
+  if (day < birth) throw new Error('The date is before the date of birth.');
+  // 365.25-day years: the convention of decimal-age tables (common practice, no source).
+  return (day - birth) / (365.25 * 24 * 3600 * 1000);
+}
+
+/** Whole years, as people say their age. */
+export function ageInYears(dateOfBirth: string, onDate: string): number {
+  const [by, bm, bd] = dateOfBirth.split('-').map(Number) as [number, number, number];
+  const [y, m, d] = onDate.split('-').map(Number) as [number, number, number];
+  return y - by - (m < bm || (m === bm && d < bd) ? 1 : 0);
+}
+
+export const todayIso = () => new Date().toISOString().slice(0, 10);

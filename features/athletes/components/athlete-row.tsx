@@ -1,0 +1,40 @@
+import { Link } from 'expo-router';
+import { StyleSheet, View } from 'react-native';
+import { ageInYears, todayIso } from '@/features/athletes/age';
+import { Text } from '@/features/ui/components/text';
+import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import type { Athlete } from '../api/types';
+
+export function AthleteRow({ athlete }: { athlete: Athlete }) {
+  const noPhotos = athlete.consents.photos?.granted !== true;
+  return (
+    <Link href={`/athletes/${athlete.id}`} style={styles.row} testID={`athlete-${athlete.id}`}>
+      <View style={styles.inner}>
+        <View style={styles.main}>
+          <Text variant="label">
+            {athlete.firstName} {athlete.lastName}
+          </Text>
+          <Text variant="small">
+            {ageInYears(athlete.dateOfBirth, todayIso())} y · {athlete.sex === 'female' ? 'F' : 'M'} · racket {athlete.racketHand}
+            {athlete.squadName ? ` · ${athlete.squadName}` : ''}
+          </Text>
+        </View>
+        {noPhotos ? (
+          <View style={styles.tag}>
+            <Text variant="small" style={styles.tagText}>
+              No photo consent
+            </Text>
+          </View>
+        ) : null}
+      </View>
+    </Link>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: { minHeight: TOUCH_MIN + 8, borderBottomWidth: 1, borderBottomColor: colors.line, paddingVertical: space.sm },
+  inner: { flexDirection: 'row', alignItems: 'center', gap: space.md, width: '100%' },
+  main: { flex: 1, gap: 2 },
+  tag: { backgroundColor: colors.amberSoft, borderRadius: radius.sm, paddingHorizontal: space.sm, paddingVertical: 2 },
+  tagText: { color: colors.amber },
+});

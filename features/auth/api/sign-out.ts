@@ -1,0 +1,17 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '@/features/api/client';
+import { authKeys } from './keys';
+
+export const signOut = () => api<void>('/auth/sign-out', { method: 'POST' });
+
+export function useSignOutMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: signOut,
+    onSuccess: () => {
+      // Nothing of the previous person may stay in memory on a shared phone.
+      qc.clear();
+      qc.setQueryData(authKeys.me(), null);
+    },
+  });
+}

@@ -1,0 +1,123 @@
+import { useRouter } from 'expo-router';
+import { Formik } from 'formik';
+import { StyleSheet, View } from 'react-native';
+import { ApiError } from '@/features/api/client';
+import { useAcceptInvitationMutation, useInvitationQuery, useRequestResetMutation, useResetPasswordMutation } from '@/features/auth/api/invitations';
+import { acceptInvitationSchema, requestResetSchema, resetPasswordSchema, PASSWORD_MIN, ROLE_LABELS, type RoleValue } from '@/features/auth/schemas';
+import { Button } from '@/features/ui/components/button';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { TextField } from '@/features/ui/components/text-field';
+import { space } from '@/features/ui/theme';
+
+const fieldsFrom = (error: unknown) => (error instanceof ApiError && error.fields ? error.fields : {});
+
+export function ForgotPasswordForm() {
+  const request = useRequestResetMutation();
+  if (request.isSuccess) {
+    return <Notice>If an account uses that address, an e-mail with a reset link is on its way. The link works for one hour.</Notice>;
+  }
+  return (
+    <Formik
+      initialValues={{ email: '' }}
+      validationSchema={requestResetSchema}
+      onSubmit={async (values, helpers) => {
+        try {
+          await request.mutateAsync(requestResetSchema.cast(values));
+        } catch (error) {
+          helpers.setErrors(fieldsFrom(error));
+        }
+      }}
+    >
+      {({ handleChange, handleBlur, handleSubmit, values, errors, touched, isSubmitting }) => (
+        <View style={styles.form}>
+          {request.error ? <Notice tone="error">{request.error.message}</Notice> : null}
+          <TextField label="E-mail" value={values.email} onChangeText={handleChange('email')} onBlur={handleBlur('email')} autoCapitalize="none" inputMode="email" error={touched.email && errors.email} />
+          <Button label="Send reset link" busy={isSubmitting} onPress={() => handleSubmit()} />
+        </View>
+      )}
+    </Formik>
+  );
+}
+
+export function ResetPasswordForm({ token }: { token: string }) {
+  const router = useRouter();
+  const reset = useResetPasswordMutation();
+  if (reset.isSuccess) {
+    return (
+      <View style={styles.form}>
+        <Notice>Your password is changed. Sign in with the new one.</Notice>
+        <Button label="Go to sign-in" onPress={() => router.replace('/sign-in')} />
+      </View>
+    );
+  }
+  return (
+    <Formik
+      initialValues={{ token, password: '' }}
+      validationSchema={resetPasswordSchema}
+      onSubmit={async (values, helpers) => {
+        try {
+          await reset.mutateAsync(values);
+        } catch (error) {
+          helpers.setErrors(fieldsFrom(error));
+        }
+      }}
+    >
+      {({ handleChange, handleBlur, handleSubmit, values, errors, touched, isSubmitting }) => (
+        <View style={styles.form}>
+          {reset.error ? <Notice tone="error">{reset.error.message}</Notice> : null}
+          <TextField label="New password" hint={`At least ${PASSWORD_MIN} characters.`} secureTextEntry autoComplete="new-password" value={values.password} onChangeText={handleChange('password')} onBlur={handleBlur('password')} error={touched.password && errors.password} />
+          <Button label="Save new password" busy={isSubmitting} onPress={() => handleSubmit()} />
+        </View>
+      )}
+    </Formik>
+  );
+}
+
+export function AcceptInvitationForm({ token }: { token: string }) {
+  const router = useRouter();
+  const invitation = useInvitationQuery(token);
+  const accept = useAcceptInvitationMutation();
+  if (invitation.isPending) return <Text>Checking your invitation…</Text>;
+  if (invitation.error) return <Notice tone="error">{invitation.error.message}</Notice>;
+  const { email, clubName, role, hasAccount } = invitation.data;
+  return (
+    <Formik
+      initialValues={{ token, displayName: hasAccount ? 'existing account' : '', password: '' }}
+      validationSchema={acceptInvitationSchema}
+      onSubmit={async (values, helpers) => {
+        try {
+          await accept.mutateAsync(values);
+          router.replace('/');
+        } catch (error) {
+          helpers.setErrors(fieldsFrom(error));
+        }
+      }}
+    >
+      {({ handleChange, handleBlur, handleSubmit, values, errors, touched, isSubmitting }) => (
+        <View style={styles.form}>
+          <Notice>
+            {`${clubName} invites ${email} to join as ${ROLE_LABELS[role as RoleValue] ?? role}.`}
+          </Notice>
+          {accept.error && !(accept.error instanceof ApiError && accept.error.fields) ? <Notice tone="error">{accept.error.message}</Notice> : null}
+          {hasAccount ? null : (
+            <TextField label="Your name" value={values.displayName} onChangeText={handleChange('displayName')} onBlur={handleBlur('displayName')} autoComplete="name" error={touched.displayName && errors.displayName} />
+          )}
+          <TextField
+            label={hasAccount ? 'Your existing password' : 'Choose a password'}
+            hint={hasAccount ? undefined : `At least ${PASSWORD_MIN} characters.`}
+            secureTextEntry
+            autoComplete={hasAccount ? 'current-password' : 'new-password'}
+            value={values.password}
+            onChangeText={handleChange('password')}
+            onBlur={handleBlur('password')}
+            error={touched.password && errors.password}
+          />
+          <Button label="Join the club" busy={isSubmitting} onPress={() => handleSubmit()} />
+        </View>
+      )}
+    </Formik>
+  );
+}
+
+const styles = StyleSheet.create({ form: { gap: space.lg } });

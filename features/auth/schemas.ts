@@ -1,0 +1,50 @@
+import { object, string, type InferType } from 'yup';
+
+// One schema per input, used by the form on the client and by the server's validation middleware.
+
+export const ROLE_VALUES = ['admin', 'head_coach', 'tester', 'physio', 'parent'] as const;
+export type RoleValue = (typeof ROLE_VALUES)[number];
+
+export const ROLE_LABELS: Record<RoleValue, string> = {
+  admin: 'Club admin',
+  head_coach: 'Head coach',
+  tester: 'Tester',
+  physio: 'Physiotherapist',
+  parent: 'Parent or guardian',
+};
+
+const email = string().trim().lowercase().email('Enter a valid e-mail address.').required('Enter your e-mail address.');
+
+export const PASSWORD_MIN = 10;
+const newPassword = string()
+  .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)
+  .max(200, 'Use at most 200 characters.')
+  .required('Choose a password.');
+
+export const signInSchema = object({
+  email,
+  password: string().required('Enter your password.'),
+});
+export type SignInInput = InferType<typeof signInSchema>;
+
+export const inviteSchema = object({
+  email,
+  role: string().oneOf([...ROLE_VALUES], 'Choose a role.').required('Choose a role.'),
+});
+export type InviteInput = InferType<typeof inviteSchema>;
+
+export const acceptInvitationSchema = object({
+  token: string().required('This link is incomplete.'),
+  displayName: string().trim().min(2, 'Enter your name.').max(80).required('Enter your name.'),
+  password: newPassword,
+});
+export type AcceptInvitationInput = InferType<typeof acceptInvitationSchema>;
+
+export const requestResetSchema = object({ email });
+export type RequestResetInput = InferType<typeof requestResetSchema>;
+
+export const resetPasswordSchema = object({
+  token: string().required('This link is incomplete.'),
+  password: newPassword,
+});
+export type ResetPasswordInput = InferType<typeof resetPasswordSchema>;

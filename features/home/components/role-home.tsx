@@ -1,0 +1,79 @@
+import { Link } from 'expo-router';
+import { StyleSheet, View } from 'react-native';
+import { ageInYears, todayIso } from '@/features/athletes/age';
+import { useAthletesQuery } from '@/features/athletes/api/get-athletes';
+import { ROLE_LABELS } from '@/features/auth/schemas';
+import { useActiveClub } from '@/features/session/active-club';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { space } from '@/features/ui/theme';
+import { SquadCards } from './squad-cards';
+
+const INTRO: Record<string, { title: string; text: string }> = {
+  admin: { title: 'Club set-up', text: 'Squads, people and consent records for the club.' },
+  head_coach: { title: 'Squad overview', text: 'Your squads at a glance.' },
+  tester: { title: 'Courtside', text: 'Pick a squad, then screen one athlete after another.' },
+  physio: { title: 'Athlete review', text: 'Athletes of the club, with their screening results and your notes.' },
+  parent: { title: 'Your family', text: 'What your child does in screening and training, and why.' },
+};
+
+export function RoleHome() {
+  const { membership, me } = useActiveClub();
+  const intro = INTRO[membership.role]!;
+  return (
+    <View style={styles.wrap} testID={`home-${membership.role}`}>
+      <View style={styles.head}>
+        <Text variant="small">
+          {membership.clubName} · {ROLE_LABELS[membership.role]}
+        </Text>
+        <Text variant="title" accessibilityRole="header">
+          {intro.title}
+        </Text>
+        <Text>{`Hello ${me.user.displayName.split(' ')[0]}. ${intro.text}`}</Text>
+      </View>
+      {membership.role === 'parent' ? <ParentChildren /> : <SquadCards />}
+      {membership.role !== 'parent' ? (
+        <Link href="/athletes" style={styles.link}>
+          <Text variant="label">See all athletes →</Text>
+        </Link>
+      ) : null}
+    </View>
+  );
+}
+
+function ParentChildren() {
+  const athletes = useAthletesQuery();
+  if (athletes.error) return <Notice tone="error">{athletes.error.message}</Notice>;
+  if (athletes.isPending) return <Text>Loading…</Text>;
+  return (
+    <View style={styles.wrap}>
+      {athletes.data.athletes.map((a) => (
+        <Card key={a.id} testID="child-card">
+          <Text variant="heading">
+            {a.firstName} {a.lastName}
+          </Text>
+          <Text variant="small">
+            {ageInYears(a.dateOfBirth, todayIso())} years · {a.squadName ?? 'No squad'}
+          </Text>
+          <Text>
+            Photos: {a.consents.photos?.granted ? 'you agreed that screening photos may be taken' : 'no photos are taken'}
+          </Text>
+          <Link href={`/athletes/${a.id}`} style={styles.link}>
+            <Text variant="label">Details →</Text>
+          </Link>
+        </Card>
+      ))}
+      <Notice title="About screening">
+        Coaches watch a few simple movements (squats, landings, balance) to spot habits such as knees that
+        fall inward. Screening is not a medical diagnosis: if your child has pain, please see a physiotherapist or doctor.
+      </Notice>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  head: { gap: space.xs },
+  link: { minHeight: 48, paddingVertical: space.md },
+});

@@ -1,0 +1,106 @@
+import { Formik } from 'formik';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { ApiError } from '@/features/api/client';
+import { inviteSchema, ROLE_LABELS, ROLE_VALUES, type InviteInput } from '@/features/auth/schemas';
+import { useActiveClub } from '@/features/session/active-club';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Button } from '@/features/ui/components/button';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { TextField } from '@/features/ui/components/text-field';
+import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { useInviteMutation, useMembersQuery } from '../api/members';
+
+export function PeoplePanel() {
+  const { membership } = useActiveClub();
+  const { isWide } = useBreakpoints();
+  const members = useMembersQuery(membership.clubId);
+  return (
+    <View style={[styles.cols, isWide && styles.colsWide]}>
+      <Card style={isWide ? styles.col : undefined}>
+        <Text variant="heading">Members</Text>
+        {members.error ? <Notice tone="error">{members.error.message}</Notice> : null}
+        {members.data?.members.map((m) => (
+          <View key={m.userId} style={styles.row}>
+            <Text variant="label">{m.displayName}</Text>
+            <Text variant="small">
+              {ROLE_LABELS[m.role]} · {m.email}
+            </Text>
+          </View>
+        ))}
+        {members.data && members.data.pending.length > 0 ? (
+          <>
+            <Text variant="heading">Invited, not joined yet</Text>
+            {members.data.pending.map((p) => (
+              <View key={p.email} style={styles.row}>
+                <Text variant="label">{p.email}</Text>
+                <Text variant="small">{ROLE_LABELS[p.role]}</Text>
+              </View>
+            ))}
+          </>
+        ) : null}
+      </Card>
+      {membership.role === 'admin' ? (
+        <Card style={isWide ? styles.col : undefined}>
+          <Text variant="heading">Invite someone</Text>
+          <InviteForm clubId={membership.clubId} />
+        </Card>
+      ) : null}
+    </View>
+  );
+}
+
+function InviteForm({ clubId }: { clubId: string }) {
+  const invite = useInviteMutation(clubId);
+  return (
+    <Formik<InviteInput>
+      initialValues={{ email: '', role: 'tester' }}
+      validationSchema={inviteSchema}
+      onSubmit={async (values, helpers) => {
+        try {
+          await invite.mutateAsync(inviteSchema.cast(values));
+          helpers.resetForm();
+        } catch (error) {
+          if (error instanceof ApiError && error.fields) helpers.setErrors(error.fields);
+        }
+      }}
+    >
+      {({ handleChange, handleBlur, handleSubmit, setFieldValue, values, errors, touched, isSubmitting }) => (
+        <View style={styles.form}>
+          {invite.isSuccess ? <Notice>Invitation sent. The link works once, for 7 days.</Notice> : null}
+          {invite.error && !(invite.error instanceof ApiError && invite.error.fields) ? <Notice tone="error">{invite.error.message}</Notice> : null}
+          <TextField label="E-mail" testID="invite-email" value={values.email} onChangeText={handleChange('email')} onBlur={handleBlur('email')} autoCapitalize="none" inputMode="email" error={touched.email && errors.email} />
+          <Text variant="label">Role</Text>
+          <View style={styles.choices} accessibilityRole="radiogroup">
+            {ROLE_VALUES.map((r) => (
+              <Pressable
+                key={r}
+                accessibilityRole="radio"
+                accessibilityState={{ checked: values.role === r }}
+                onPress={() => setFieldValue('role', r)}
+                style={[styles.choice, values.role === r && styles.choiceOn]}
+              >
+                <Text style={values.role === r ? styles.choiceTextOn : undefined}>{ROLE_LABELS[r]}</Text>
+              </Pressable>
+            ))}
+          </View>
+          {errors.role ? <Text style={{ color: colors.brick }}>{errors.role}</Text> : null}
+          <Button label="Send invitation" testID="invite-submit" busy={isSubmitting} onPress={() => handleSubmit()} />
+        </View>
+      )}
+    </Formik>
+  );
+}
+
+const styles = StyleSheet.create({
+  cols: { gap: space.lg },
+  colsWide: { flexDirection: 'row', alignItems: 'flex-start' },
+  col: { flex: 1 },
+  row: { gap: 2, paddingVertical: space.xs, borderBottomWidth: 1, borderBottomColor: colors.line },
+  form: { gap: space.md },
+  choices: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  choice: { minHeight: TOUCH_MIN, justifyContent: 'center', paddingHorizontal: space.md, borderRadius: radius.md, borderWidth: 2, borderColor: colors.line, backgroundColor: colors.surface },
+  choiceOn: { borderColor: colors.pine, backgroundColor: colors.pine },
+  choiceTextOn: { color: '#fff' },
+});

@@ -1,0 +1,142 @@
+import { Link, usePathname, useRouter } from 'expo-router';
+import { useState, type ReactNode } from 'react';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { useSignOutMutation } from '@/features/auth/api/sign-out';
+import { ROLE_LABELS } from '@/features/auth/schemas';
+import { useMetaQuery } from '@/features/meta/get-meta';
+import { useActiveClub } from '@/features/session/active-club';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Button } from '@/features/ui/components/button';
+import { Text } from '@/features/ui/components/text';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { navFor } from '../nav';
+
+export function AppShell({ children }: { children: ReactNode }) {
+  const { isWide } = useBreakpoints();
+  const [menuOpen, setMenuOpen] = useState(false);
+  if (isWide) {
+    return (
+      <View style={styles.wideRoot}>
+        <View style={styles.side} role="navigation">
+          <Brand />
+          <NavList onNavigate={() => undefined} />
+          <View style={styles.grow} />
+          <AccountBox />
+        </View>
+        <View style={styles.main}>{children}</View>
+      </View>
+    );
+  }
+  return (
+    <View style={styles.phoneRoot}>
+      <View style={styles.topBar}>
+        <Brand />
+        <Pressable
+          accessibilityRole="button"
+          accessibilityLabel={menuOpen ? 'Close menu' : 'Open menu'}
+          testID="menu-button"
+          onPress={() => setMenuOpen((o) => !o)}
+          style={styles.menuButton}
+        >
+          <Text style={styles.menuText}>{menuOpen ? 'Close' : 'Menu'}</Text>
+        </Pressable>
+      </View>
+      {menuOpen ? (
+        <View style={styles.sheet} role="navigation">
+          <NavList onNavigate={() => setMenuOpen(false)} />
+          <AccountBox />
+        </View>
+      ) : (
+        <View style={styles.main}>{children}</View>
+      )}
+    </View>
+  );
+}
+
+function Brand() {
+  return (
+    <View style={styles.brand}>
+      <View style={styles.mark} />
+      <Text style={styles.word}>Squadline</Text>
+    </View>
+  );
+}
+
+function NavList({ onNavigate }: { onNavigate: () => void }) {
+  const { membership } = useActiveClub();
+  const meta = useMetaQuery();
+  const path = usePathname();
+  const items = navFor(membership.role, { mailbox: meta.data?.mailbox ?? false });
+  return (
+    <View style={styles.nav}>
+      {items.map((item) => {
+        const active = item.href === '/' ? path === '/' : path.startsWith(item.href);
+        return (
+          <Link key={item.href} href={item.href as never} onPress={onNavigate} style={[styles.navItem, active && styles.navActive]}>
+            <Text style={[styles.navLabel, active && styles.navLabelActive]}>{item.label}</Text>
+          </Link>
+        );
+      })}
+    </View>
+  );
+}
+
+function AccountBox() {
+  const { me, membership, choose } = useActiveClub();
+  const signOut = useSignOutMutation();
+  const router = useRouter();
+  return (
+    <View style={styles.account}>
+      <Text variant="label" testID="signed-in-name">
+        {me.user.displayName}
+      </Text>
+      <Text variant="small">
+        {ROLE_LABELS[membership.role]} · {membership.clubName}
+      </Text>
+      {me.memberships.length > 1
+        ? me.memberships
+            .filter((m) => m.clubId !== membership.clubId)
+            .map((m) => (
+              <Button key={m.clubId} tone="quiet" label={`Switch to ${m.clubName}`} onPress={() => choose(m.clubId)} />
+            ))
+        : null}
+      <Button
+        tone="secondary"
+        label="Sign out"
+        testID="sign-out"
+        busy={signOut.isPending}
+        onPress={() => signOut.mutate(undefined, { onSettled: () => router.replace('/sign-in') })}
+      />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wideRoot: { flex: 1, flexDirection: 'row', backgroundColor: colors.paper },
+  side: { width: 248, backgroundColor: colors.surface, borderRightWidth: 1, borderRightColor: colors.line, padding: space.lg, gap: space.xl },
+  grow: { flex: 1 },
+  main: { flex: 1 },
+  phoneRoot: { flex: 1, backgroundColor: colors.paper },
+  topBar: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    justifyContent: 'space-between',
+    paddingHorizontal: space.lg,
+    paddingVertical: space.xs,
+    backgroundColor: colors.surface,
+    borderBottomWidth: 1,
+    borderBottomColor: colors.line,
+  },
+  menuButton: { minHeight: TOUCH_MIN, minWidth: 72, alignItems: 'center', justifyContent: 'center', borderRadius: radius.md, borderWidth: 2, borderColor: colors.pine },
+  menuText: { fontFamily: fonts.bold, color: colors.pine, fontSize: 17 },
+  sheet: { padding: space.lg, gap: space.xl, flex: 1 },
+  brand: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  mark: { width: 18, height: 18, borderRadius: 3, backgroundColor: colors.pine, transform: [{ rotate: '45deg' }] },
+  word: { fontFamily: fonts.bold, fontSize: 21, color: colors.pineDark },
+  nav: { gap: space.xs },
+  navItem: { minHeight: TOUCH_MIN, paddingHorizontal: space.md, paddingVertical: space.md, borderRadius: radius.md },
+  navActive: { backgroundColor: colors.pineSoft },
+  navLabel: { fontFamily: fonts.bold, fontSize: 18, color: colors.ink },
+  navLabelActive: { color: colors.pineDark },
+  account: { gap: space.sm, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.lg },
+});

@@ -1,0 +1,12 @@
+import type { RoleValue } from '@/features/auth/schemas';
+
+export type NavItem = { href: string; label: string };
+
+/** What each role finds in the navigation. Routes still check roles on the server. */
+export function navFor(role: RoleValue, options: { mailbox: boolean }): NavItem[] {
+  const items: NavItem[] = [{ href: '/', label: 'Home' }];
+  if (role !== 'parent') items.push({ href: '/athletes', label: 'Athletes' });
+  if (role === 'admin' || role === 'head_coach') items.push({ href: '/people', label: 'People' });
+  if (role === 'admin' && options.mailbox) items.push({ href: '/dev/mailbox', label: 'Mailbox (local)' });
+  return items;
+}

@@ -1,0 +1,80 @@
+import { and, eq, inArray } from 'drizzle-orm';
+import type { Request, RequestHandler } from 'express';
+import type { Db } from '@/db/client';
+import { clubs, guardianLinks, memberships, type Role } from '@/db/schema';
+import { badRequest, forbidden, unauthorized } from '@/server/http/errors';
+
+export type MembershipView = { clubId: string; clubName: string; role: Role };
+
+/**
+ * What the caller may reach in one club. Repositories are built from a scope, so every query they run
+ * filters by the club and, for a parent, by the athletes linked to them.
+ */
+export type ClubScope = {
+  userId: string;
+  clubId: string;
+  role: Role;
+  /** null: every athlete of the club; otherwise only these (parents). */
+  athleteIds: string[] | null;
+};
+
+export const requireSignedIn: RequestHandler = (req, _res, next) => {
+  next(req.user ? undefined : unauthorized());
+};
+
+export function signedInUserId(req: Request): string {
+  if (!req.user) throw unauthorized();
+  return req.user.id;
+}
+
+export async function membershipsOf(db: Db, userId: string): Promise<MembershipView[]> {
+  return db
+    .select({ clubId: memberships.clubId, clubName: clubs.name, role: memberships.role })
+    .from(memberships)
+    .innerJoin(clubs, eq(clubs.id, memberships.clubId))
+    .where(eq(memberships.userId, userId))
+    .orderBy(clubs.name);
+}
+
+/** The caller's scope in `clubId`, or 403 when they are not a member with one of `roles`. */
+export async function scopeForClub(db: Db, req: Request, clubId: string, roles: readonly Role[]): Promise<ClubScope> {
+  const userId = signedInUserId(req);
+  const [membership] = await db
+    .select({ role: memberships.role })
+    .from(memberships)
+    .where(and(eq(memberships.userId, userId), eq(memberships.clubId, clubId)));
+  if (!membership || !roles.includes(membership.role)) throw forbidden();
+  let athleteIds: string[] | null = null;
+  if (membership.role === 'parent') {
+    const links = await db
+      .select({ athleteId: guardianLinks.athleteId })
+      .from(guardianLinks)
+      .where(eq(guardianLinks.userId, userId));
+    athleteIds = links.map((l) => l.athleteId);
+  }
+  return { userId, clubId, role: membership.role, athleteIds };
+}
+
+/**
+ * For routes without a club in the path: the club named by the `X-Club-Id` header, or the caller's
+ * only club. A person in several clubs must say which one.
+ */
+export async function scopeForCallerClub(db: Db, req: Request, roles: readonly Role[]): Promise<ClubScope> {
+  const userId = signedInUserId(req);
+  const header = req.get('x-club-id');
+  if (header) return scopeForClub(db, req, header, roles);
+  const mine = await membershipsOf(db, userId);
+  if (mine.length === 0) throw forbidden('You are not a member of any club.');
+  if (mine.length > 1) throw badRequest('You belong to several clubs: choose one (X-Club-Id header).');
+  return scopeForClub(db, req, mine[0]!.clubId, roles);
+}
+
+/** Restricts a query on athletes to the scope's athletes (parents); a no-op for club staff. */
+export function athleteFilter<T>(scope: ClubScope, column: T) {
+  if (scope.athleteIds === null) return undefined;
+  // An empty list must match nothing, not everything.
+  return inArray(column as never, scope.athleteIds.length > 0 ? scope.athleteIds : ['00000000-0000-0000-0000-000000000000']);
+}
+
+export const STAFF: readonly Role[] = ['admin', 'head_coach', 'tester', 'physio'];
+export const ALL_ROLES: readonly Role[] = ['admin', 'head_coach', 'tester', 'physio', 'parent'];

@@ -1,0 +1,95 @@
+import express, { type RequestHandler } from 'express';
+import helmet from 'helmet';
+import fs from 'node:fs';
+import path from 'node:path';
+import type { Logger } from 'pino';
+import { pinoHttp } from 'pino-http';
+import type { Db } from '@/db/client';
+import { requireSignedIn } from './access/scope';
+import { athletesRouter } from './athletes/athletes.router';
+import { authRouter, DEFAULT_SIGN_IN_LIMITS, type SignInLimits } from './auth/auth.router';
+import { createAuthService } from './auth/auth.service';
+import { createLucia } from './auth/lucia';
+import { sameOriginMiddleware, sessionMiddleware } from './auth/session-middleware';
+import { clubsRouter } from './clubs/clubs.router';
+import { errorMiddleware } from './http/error-middleware';
+import { notFound } from './http/errors';
+import type { Outbox } from './mail/outbox';
+import { meRouter } from './me/me.router';
+import { metaRouter, type Mailbox } from './meta/meta.router';
+import type { PhotoStorage } from './storage/storage';
+
+export type AppConfig = {
+  /** Base of links in e-mails, e.g. http://127.0.0.1:8080 */
+  publicUrl: string;
+  secureCookies: boolean;
+  /** The web export to serve (dist/); omitted in API tests. */
+  webDir?: string;
+  signInLimits?: SignInLimits;
+};
+
+export type AppDeps = {
+  db: Db;
+  storage: PhotoStorage;
+  outbox: Outbox;
+  /** The local e-mail fake's inbox, or null when real SMTP is used. */
+  mailbox: Mailbox | null;
+  logger: Logger;
+  config: AppConfig;
+};
+
+export function createApp(deps: AppDeps) {
+  const { db, outbox, mailbox, logger, config } = deps;
+  const auth = createLucia(db, config.secureCookies);
+  const authService = createAuthService({ db, auth, outbox, publicUrl: config.publicUrl });
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'script-src': ["'self'"],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'font-src': ["'self'", 'data:'],
+          'upgrade-insecure-requests': config.secureCookies ? [] : null,
+        },
+      },
+      hsts: config.secureCookies,
+    }),
+  );
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.use(sameOriginMiddleware);
+  api.use(sessionMiddleware(auth));
+  api.use(metaRouter(db, mailbox));
+  api.use('/auth', authRouter(authService, auth, config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS));
+  // Everything below needs a signed-in user: deny by default.
+  api.use(requireSignedIn);
+  api.use(meRouter(db));
+  api.use(clubsRouter(db, authService));
+  api.use(athletesRouter(db));
+  api.use((() => {
+    throw notFound('This API route');
+  }) as RequestHandler);
+  app.use('/api', api);
+
+  if (config.webDir && fs.existsSync(path.join(config.webDir, 'index.html'))) {
+    const webDir = config.webDir;
+    // Hashed bundles never change; everything else is revalidated.
+    app.use('/_expo', express.static(path.join(webDir, '_expo'), { immutable: true, maxAge: '365d' }));
+    app.use('/assets', express.static(path.join(webDir, 'assets'), { immutable: true, maxAge: '365d' }));
+    app.use(express.static(webDir, { index: false }));
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(webDir, 'index.html'));
+    });
+  }
+
+  app.use(errorMiddleware);
+  return app;
+}

@@ -1,0 +1,17 @@
+import { expect, type Page } from '@playwright/test';
+
+export const DEMO_PASSWORD = 'squadline-demo';
+
+export async function signIn(page: Page, email: string, password = DEMO_PASSWORD) {
+  await page.goto('/sign-in');
+  await page.getByTestId('email').fill(email);
+  await page.getByTestId('password').fill(password);
+  await page.getByTestId('sign-in-submit').click();
+}
+
+/** Opens the navigation on a phone (it is always visible on a wide screen). */
+export async function openNav(page: Page) {
+  const menu = page.getByTestId('menu-button');
+  if (await menu.isVisible()) await menu.click();
+  await expect(page.getByRole('navigation')).toBeVisible();
+}

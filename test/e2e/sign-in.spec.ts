@@ -1,0 +1,88 @@
+import { expect, test } from '@playwright/test';
+import { openNav, signIn } from './helpers';
+
+const ROLES = [
+  { email: 'admin@squadline.test', role: 'admin', heading: 'Club set-up' },
+  { email: 'coach@squadline.test', role: 'head_coach', heading: 'Squad overview' },
+  { email: 'tester@squadline.test', role: 'tester', heading: 'Courtside' },
+  { email: 'physio@squadline.test', role: 'physio', heading: 'Athlete review' },
+  { email: 'parent@squadline.test', role: 'parent', heading: 'Your family' },
+] as const;
+
+for (const { email, role, heading } of ROLES) {
+  test(`${role} signs in and sees their home`, async ({ page }) => {
+    await signIn(page, email);
+    await expect(page.getByTestId(`home-${role}`)).toBeVisible();
+    await expect(page.getByRole('heading', { name: heading })).toBeVisible();
+    if (role === 'parent') {
+      await expect(page.getByTestId('child-card')).toHaveCount(2);
+      await expect(page.getByText('Maya Okafor')).toBeVisible();
+    } else {
+      await expect(page.getByText('Under-13 mixed')).toBeVisible();
+    }
+    // Signing out returns to sign-in, and the home is then out of reach.
+    await openNav(page);
+    await page.getByTestId('sign-out').click();
+    await expect(page).toHaveURL(/\/sign-in$/);
+    await page.goto('/');
+    await expect(page).toHaveURL(/\/sign-in$/);
+  });
+}
+
+test('a wrong password shows a clear error and stays on sign-in', async ({ page }) => {
+  await signIn(page, 'tester@squadline.test', 'not-the-password');
+  await expect(page.getByTestId('sign-in-error')).toContainText('do not match');
+  await expect(page).toHaveURL(/\/sign-in$/);
+});
+
+test('empty fields are named beside the fields', async ({ page }) => {
+  await page.goto('/sign-in');
+  await page.getByTestId('sign-in-submit').click();
+  await expect(page.getByText('Enter your e-mail address.')).toBeVisible();
+  await expect(page.getByText('Enter your password.')).toBeVisible();
+});
+
+test('signed-out visits to signed-in pages redirect to sign-in', async ({ page }) => {
+  for (const path of ['/', '/athletes', '/people', '/dev/mailbox']) {
+    await page.goto(path);
+    await expect(page).toHaveURL(/\/sign-in$/);
+  }
+});
+
+test('a parent cannot open another family\'s athlete', async ({ page, request }) => {
+  // Find another family's athlete as staff, then try it as the parent.
+  await request.post('/api/auth/sign-in', { data: { email: 'coach@squadline.test', password: 'squadline-demo' } });
+  const list = await (await request.get('/api/athletes')).json();
+  const stranger = list.athletes.find((a: { lastName: string }) => a.lastName !== 'Okafor');
+  await signIn(page, 'parent@squadline.test');
+  await expect(page.getByTestId('home-parent')).toBeVisible();
+  await page.goto(`/athletes/${stranger.id}`);
+  await expect(page.getByText('You can only see the athletes linked to you.')).toBeVisible();
+});
+
+test('an admin invites someone and the e-mail arrives in the local mailbox', async ({ page }) => {
+  await signIn(page, 'admin@squadline.test');
+  await expect(page.getByTestId('home-admin')).toBeVisible();
+  await openNav(page);
+  await page.getByRole('link', { name: 'People' }).click();
+  const email = `new-tester-${Date.now()}@squadline.test`;
+  await page.getByTestId('invite-email').fill(email);
+  await page.getByTestId('invite-submit').click();
+  await expect(page.getByText('Invitation sent.')).toBeVisible();
+  await openNav(page);
+  await page.getByRole('link', { name: 'Mailbox (local)' }).click();
+  const message = page.getByTestId('mail-message').filter({ hasText: email });
+  await expect(message).toBeVisible({ timeout: 20_000 });
+  const text = await message.innerText();
+  const link = /(http\S+accept-invite\?token=\S+)/.exec(text)![1]!;
+
+  // The invitee opens the link in a fresh browser and joins.
+  const invitee = await page.context().browser()!.newContext({ viewport: page.viewportSize()! });
+  const p2 = await invitee.newPage();
+  await p2.goto(new URL(link).pathname + new URL(link).search);
+  await p2.getByLabel('Your name').fill('Nia Newcomer');
+  await p2.getByLabel('Choose a password').fill('a-very-long-password');
+  await p2.getByRole('button', { name: 'Join the club' }).click();
+  await expect(p2.getByTestId('home-tester')).toBeVisible();
+  await invitee.close();
+});

@@ -1,0 +1,28 @@
+import { defineConfig } from '@playwright/test';
+
+// Debian's Chromium, never a downloaded browser. `npm test` starts the server and sets BASE_URL.
+const chromiumArgs = [
+  '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+  '--disable-background-networking', '--disable-component-update', '--disable-sync',
+];
+
+export default defineConfig({
+  testDir: 'e2e',
+  outputDir: '../test-results',
+  timeout: 60_000,
+  expect: { timeout: 15_000 },
+  workers: 2,
+  retries: process.env.CI ? 1 : 0,
+  reporter: [['list']],
+  use: {
+    baseURL: process.env.BASE_URL ?? 'http://127.0.0.1:8080',
+    browserName: 'chromium',
+    launchOptions: { executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: chromiumArgs },
+    trace: 'off',
+    screenshot: 'only-on-failure',
+  },
+  projects: [
+    { name: 'phone', use: { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true } },
+    { name: 'wide', use: { viewport: { width: 1440, height: 900 } } },
+  ],
+});
