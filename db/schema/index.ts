@@ -1,3 +1,4 @@
 export * from './auth';
 export * from './clubs';
 export * from './athletes';
+export * from './screening';

@@ -202,15 +202,18 @@ function webSourceHash() {
   return hash.digest('hex');
 }
 
+/** Where the web export goes; SQUADLINE_DIST lets parallel checkouts of work keep their own. */
+export const DIST_DIR = path.resolve(ROOT, process.env.SQUADLINE_DIST ?? 'dist');
+
 export function ensureWebBuild() {
-  const dist = path.join(ROOT, 'dist');
+  const dist = DIST_DIR;
   const stamp = path.join(dist, '.source-hash');
   const want = webSourceHash();
   if (fs.existsSync(stamp) && fs.readFileSync(stamp, 'utf8').trim() === want) return;
   log('Building the web app (expo export, about a minute)...');
   const tmp = path.join(ROOT, '.tmp');
   fs.mkdirSync(tmp, { recursive: true });
-  run('npx', ['expo', 'export', '--platform', 'web', '--output-dir', 'dist'], {
+  run('npx', ['expo', 'export', '--platform', 'web', '--output-dir', path.relative(ROOT, dist)], {
     env: { ...process.env, CI: '1', TMPDIR: tmp, EXPO_NO_TELEMETRY: '1' },
   });
   fs.writeFileSync(stamp, want);

@@ -4,7 +4,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import {
-  DATA_DIR, ROOT, clusterLayout, databaseUrl, ensureDatabase, ensureNodeModules, ensurePostgres,
+  DATA_DIR, DIST_DIR, ROOT, clusterLayout, databaseUrl, ensureDatabase, ensureNodeModules, ensurePostgres,
   ensureWebBuild, fail, freePort, initCluster, isClusterRunning, log, makeClusterRoot, newPassword,
   startCluster, stopCluster, tsx, tsxSync,
 } from './bootstrap.mjs';
@@ -59,7 +59,7 @@ try {
   const server = tsx(['server/index.ts'], {
     ...env,
     PORT: String(webPort),
-    WEB_DIR: path.join(ROOT, 'dist'),
+    WEB_DIR: DIST_DIR,
     DEMO_BANNER: '1',
   });
   const shutdown = () => server.kill('SIGTERM');

@@ -5,7 +5,7 @@ import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import {
-  ROOT, clusterLayout, databaseUrl, ensureChromium, ensureDatabase, ensureNodeModules, ensurePostgres,
+  DIST_DIR, ROOT, clusterLayout, databaseUrl, ensureChromium, ensureDatabase, ensureNodeModules, ensurePostgres,
   ensureWebBuild, freePort, initCluster, log, makeClusterRoot, newPassword, startCluster, stopCluster,
   tsx, tsxSync,
 } from './bootstrap.mjs';
@@ -58,7 +58,7 @@ try {
     server = tsx(['server/index.ts'], {
       ...dbEnv,
       PORT: String(webPort),
-      WEB_DIR: path.join(ROOT, 'dist'),
+      WEB_DIR: DIST_DIR,
       LOCAL_UPLOADS_DIR: uploads,
       LOG_LEVEL: 'warn',
     });
