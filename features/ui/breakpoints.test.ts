@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { getBreakpoints } from './breakpoints';
+import { getBreakpoints } from './breakpoints.shared';
 
 describe('getBreakpoints', () => {
   it.each([

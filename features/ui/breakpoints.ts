@@ -1,20 +1,7 @@
 import { useWindowDimensions } from 'react-native';
+import { getBreakpoints, type Breakpoints } from './breakpoints.shared';
 
-// The one breakpoint table. Screens branch on these names, never on pixel widths.
-export const BREAKPOINTS = { tablet: 700, wide: 1024 } as const;
-
-/** Widest reading column; wide screens put panels side by side instead of stretching text. */
-export const CONTENT_MAX_WIDTH = 1180;
-
-export type Breakpoints = { isPhone: boolean; isTabletUp: boolean; isWide: boolean };
-
-export function getBreakpoints(width: number): Breakpoints {
-  return {
-    isPhone: width < BREAKPOINTS.tablet,
-    isTabletUp: width >= BREAKPOINTS.tablet,
-    isWide: width >= BREAKPOINTS.wide,
-  };
-}
+export { BREAKPOINTS, CONTENT_MAX_WIDTH, getBreakpoints, type Breakpoints } from './breakpoints.shared';
 
 export function useBreakpoints(): Breakpoints {
   const { width } = useWindowDimensions();
