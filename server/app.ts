@@ -10,7 +10,7 @@ import { athletesRouter } from './athletes/athletes.router';
 import { authRouter, DEFAULT_SIGN_IN_LIMITS, type SignInLimits } from './auth/auth.router';
 import { createAuthService } from './auth/auth.service';
 import { createLucia } from './auth/lucia';
-import { sameOriginMiddleware, sessionMiddleware } from './auth/session-middleware';
+import { devCorsMiddleware, sameOriginMiddleware, sessionMiddleware } from './auth/session-middleware';
 import { clubsRouter } from './clubs/clubs.router';
 import { errorMiddleware } from './http/error-middleware';
 import { notFound } from './http/errors';
@@ -26,6 +26,8 @@ export type AppConfig = {
   /** The web export to serve (dist/); omitted in API tests. */
   webDir?: string;
   signInLimits?: SignInLimits;
+  /** The Expo dev server's origin under `npm run dev`; unset in production. */
+  devWebOrigin?: string;
 };
 
 export type AppDeps = {
@@ -63,8 +65,9 @@ export function createApp(deps: AppDeps) {
   );
 
   const api = express.Router();
+  if (config.devWebOrigin) api.use(devCorsMiddleware(config.devWebOrigin));
   api.use(express.json({ limit: '1mb' }));
-  api.use(sameOriginMiddleware);
+  api.use(sameOriginMiddleware(config.devWebOrigin));
   api.use(sessionMiddleware(auth));
   api.use(metaRouter(db, mailbox));
   api.use('/auth', authRouter(authService, auth, config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS));

@@ -37,6 +37,7 @@ async function main() {
       publicUrl,
       secureCookies: publicUrl.startsWith('https://'),
       webDir: process.env.WEB_DIR,
+      devWebOrigin: process.env.DEV_WEB_ORIGIN,
     },
   });
   const server = app.listen(port, host, () => {

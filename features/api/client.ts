@@ -7,6 +7,8 @@ export class ApiError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: Record<string, string>,
+    /** The whole response body, for errors that carry data (a 409 with the server's current state). */
+    readonly body?: unknown,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -28,7 +30,18 @@ export function setActiveClub(id: string | null): void {
   clubId = id;
 }
 
+// Empty in production (same origin); `npm run dev` points it at the API server.
+const API_BASE = process.env.EXPO_PUBLIC_API_URL ?? '';
+
 const OFFLINE_MESSAGE = 'No connection to Squadline. Check the network and try again; nothing you typed is lost.';
+
+type ErrorPayload = { error?: { code: string; message: string; fields?: Record<string, string> } } | null;
+
+function toApiError(status: number, payload: ErrorPayload): ApiError {
+  if (status === 401) unauthorizedListeners.forEach((l) => l());
+  const err = payload?.error;
+  return new ApiError(status, err?.code ?? 'http_error', err?.message ?? `The server answered ${status}.`, err?.fields, payload ?? undefined);
+}
 
 export async function api<T>(path: string, init: RequestInit & { json?: unknown } = {}): Promise<T> {
   const headers = new Headers(init.headers);
@@ -46,13 +59,43 @@ export async function api<T>(path: string, init: RequestInit & { json?: unknown 
     throw new ApiError(0, 'offline', OFFLINE_MESSAGE);
   }
   if (res.status === 204) return undefined as T;
-  const payload = (await res.json().catch(() => null)) as
-    | { error?: { code: string; message: string; fields?: Record<string, string> } }
-    | null;
-  if (!res.ok) {
-    if (res.status === 401) unauthorizedListeners.forEach((l) => l());
-    const err = payload?.error;
-    throw new ApiError(res.status, err?.code ?? 'http_error', err?.message ?? `The server answered ${res.status}.`, err?.fields);
-  }
+  const payload = (await res.json().catch(() => null)) as ErrorPayload;
+  if (!res.ok) throw toApiError(res.status, payload);
   return payload as T;
+}
+
+/**
+ * A multipart upload with progress (fetch cannot report upload progress). Same conventions as `api`:
+ * cookies included, the active club sent, the same typed errors.
+ */
+export function upload<T>(
+  path: string,
+  form: FormData,
+  options: { onProgress?: (fraction: number) => void; signal?: AbortSignal } = {},
+): Promise<T> {
+  return new Promise<T>((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open('POST', `/api${path}`);
+    xhr.withCredentials = true;
+    xhr.setRequestHeader('Accept', 'application/json');
+    if (clubId) xhr.setRequestHeader('X-Club-Id', clubId);
+    xhr.upload.onprogress = (e) => {
+      if (e.lengthComputable && e.total > 0) options.onProgress?.(e.loaded / e.total);
+    };
+    xhr.onload = () => {
+      let payload: unknown = null;
+      try {
+        payload = xhr.responseText ? JSON.parse(xhr.responseText) : null;
+      } catch {
+        payload = null;
+      }
+      if (xhr.status >= 200 && xhr.status < 300) resolve(payload as T);
+      else reject(toApiError(xhr.status, payload as ErrorPayload));
+    };
+    xhr.onerror = () => reject(new ApiError(0, 'offline', OFFLINE_MESSAGE));
+    xhr.ontimeout = () => reject(new ApiError(0, 'offline', OFFLINE_MESSAGE));
+    xhr.onabort = () => reject(new ApiError(0, 'aborted', 'The upload was stopped.'));
+    options.signal?.addEventListener('abort', () => xhr.abort());
+    xhr.send(form);
+  });
 }

@@ -43,21 +43,41 @@ export function sessionMiddleware(auth: Auth): RequestHandler {
 
 /**
  * Cookies are SameSite=Lax; on top of that, a state-changing request whose Origin names another host
- * is refused, so a form on another site cannot act for a signed-in user.
+ * is refused, so a form on another site cannot act for a signed-in user. `allowedOrigin` is the Expo
+ * dev server's origin under `npm run dev`, and nothing in production.
  */
-export const sameOriginMiddleware: RequestHandler = (req, _res, next) => {
-  if (req.method === 'GET' || req.method === 'HEAD' || req.method === 'OPTIONS') return next();
-  const origin = req.headers.origin;
-  if (!origin) return next();
-  let originHost: string;
-  try {
-    originHost = new URL(origin).host;
-  } catch {
-    originHost = '';
-  }
-  if (originHost !== req.headers.host) {
-    next(Object.assign(new Error('cross-origin'), { status: 403 }));
-    return;
-  }
-  next();
-};
+export function sameOriginMiddleware(allowedOrigin?: string): RequestHandler {
+  return (req, _res, next) => {
+    if (req.method === 'GET' || req.method === 'HEAD' || req.method === 'OPTIONS') return next();
+    const origin = req.headers.origin;
+    if (!origin || origin === allowedOrigin) return next();
+    let originHost: string;
+    try {
+      originHost = new URL(origin).host;
+    } catch {
+      originHost = '';
+    }
+    if (originHost !== req.headers.host) {
+      next(Object.assign(new Error('cross-origin'), { status: 403 }));
+      return;
+    }
+    next();
+  };
+}
+
+/** Lets the Expo dev server's origin call the API with cookies (`npm run dev` only). */
+export function devCorsMiddleware(origin: string): RequestHandler {
+  return (req, res, next) => {
+    if (req.headers.origin !== origin) return next();
+    res.setHeader('Access-Control-Allow-Origin', origin);
+    res.setHeader('Access-Control-Allow-Credentials', 'true');
+    res.setHeader('Vary', 'Origin');
+    if (req.method === 'OPTIONS') {
+      res.setHeader('Access-Control-Allow-Methods', 'GET,POST,PUT,PATCH,DELETE');
+      res.setHeader('Access-Control-Allow-Headers', 'Content-Type,X-Club-Id,Accept');
+      res.status(204).end();
+      return;
+    }
+    next();
+  };
+}

@@ -230,3 +230,40 @@ export function tsx(args, env, stdio = 'inherit') {
 export function tsxSync(args, env) {
   run(path.join(ROOT, 'node_modules', '.bin', 'tsx'), args, { env: { ...process.env, ...env } });
 }
+
+/**
+ * The persistent cluster of `npm start` and `npm run dev`: created on first run under a git-ignored
+ * folder (or /var/tmp as root), started if not running. Returns its URL and a stop function that stops
+ * it only if this call started it.
+ */
+export async function startDevCluster(bin, dbName) {
+  fs.mkdirSync(DATA_DIR, { recursive: true, mode: 0o700 });
+  const stateFile = path.join(DATA_DIR, 'postgres.json');
+  let state = fs.existsSync(stateFile) ? JSON.parse(fs.readFileSync(stateFile, 'utf8')) : null;
+  if (state && !fs.existsSync(path.join(state.root, 'data', 'PG_VERSION'))) state = null;
+  if (!state) {
+    log('Creating a private PostgreSQL cluster (first run)...');
+    const root = makeClusterRoot('squadline-pg-');
+    const password = newPassword();
+    initCluster(bin, clusterLayout(root), password);
+    state = { root, password, port: 0 };
+  }
+  const layout = clusterLayout(state.root);
+  let started = false;
+  if (!isClusterRunning(bin, layout)) {
+    state.port = await freePort();
+    startCluster(bin, layout, state.port);
+    started = true;
+  }
+  fs.writeFileSync(stateFile, JSON.stringify(state, null, 2), { mode: 0o600 });
+  ensureDatabase(bin, layout, state.port, dbName);
+  return {
+    url: databaseUrl(state.port, state.password, dbName),
+    stop() {
+      if (started) {
+        stopCluster(bin, layout);
+        started = false;
+      }
+    },
+  };
+}

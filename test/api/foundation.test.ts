@@ -115,6 +115,22 @@ describe('sign-in, /api/me and sign-out', () => {
     expect(res.status).toBe(403);
   });
 
+  it('lets only the configured dev origin call with credentials', async () => {
+    const { app: devApp } = makeTestApp(testDb.db, { config: { devWebOrigin: 'http://localhost:8081' } });
+    const preflight = await supertest(devApp).options('/api/auth/sign-in').set('Origin', 'http://localhost:8081');
+    expect(preflight.status).toBe(204);
+    expect(preflight.headers['access-control-allow-credentials']).toBe('true');
+    const allowed = await supertest(devApp)
+      .post('/api/auth/sign-in')
+      .set('Origin', 'http://localhost:8081')
+      .send({ email: 'tester@riverside.test', password: TEST_PASSWORD });
+    expect(allowed.status).toBe(200);
+    expect(allowed.headers['access-control-allow-origin']).toBe('http://localhost:8081');
+    const other = await supertest(devApp).post('/api/auth/sign-in').set('Origin', 'http://localhost:9999').send({});
+    expect(other.status).toBe(403);
+    expect(other.headers['access-control-allow-origin']).toBeUndefined();
+  });
+
   it('answers 401 to signed-out API calls and 404 JSON to unknown routes', async () => {
     expect((await supertest(app).get('/api/squads')).status).toBe(401);
     const agent = await signedInAgent(app, 'tester@riverside.test');
