@@ -1,0 +1,326 @@
+/**
+ * Corrective exercise library: our own selection and wording. Each exercise
+ * names the patterns it addresses; every pattern has at least one exercise
+ * (checked by a test). Prescriptions follow youth resistance-training guidance
+ * (Faigenbaum 2009; Lloyd 2014): light loads first, 2-3 non-consecutive days a
+ * week for strength work, about a minute of rest for most children.
+ */
+import { STRENGTH_ENDURANCE } from './strength';
+import type { ExerciseSpec, PatternId, Phase } from './types';
+
+/** Session order: mobility first, strength last. */
+export const PHASE_ORDER: readonly Phase[] = ['mobility', 'activation', 'control', 'landing', 'strength'];
+
+export const EXERCISES: readonly ExerciseSpec[] = [
+  {
+    id: 'wall-ankle-rocks',
+    name: 'Wall ankle rocks',
+    purpose: 'Gain forward knee travel over the foot (ankle dorsiflexion) with the heel down.',
+    howTo: [
+      'Half-kneel facing a wall, front foot a hand-width from it.',
+      'Keeping the heel flat, drive the knee forward towards the wall over the second toe.',
+      'Hold, come back, and edge the foot back as the range improves.',
+    ],
+    cue: 'Heel heavy, knee over the second toe.',
+    commonFault: 'The heel lifts or the knee drops inwards to reach the wall.',
+    progression: 'Hold a light plate on the front knee to add gentle pressure.',
+    regression: 'Start closer to the wall and hold each rock for longer.',
+    phase: 'mobility',
+    isJump: false,
+    addresses: ['limited-ankle-dorsiflexion', 'heels-lifting'],
+    prescription: {
+      sets: { min: 2, max: 2 },
+      dose: { kind: 'reps', min: 10, max: 12, perSide: true, toNearFatigue: false },
+      tempo: '2 s forward, 2 s hold, 1 s back',
+      load: { kind: 'bodyweight' },
+      restSeconds: 30,
+      perWeek: 5,
+    },
+  },
+  {
+    id: 'slow-heel-drops',
+    name: 'Slow heel drops on a step',
+    purpose: 'Strengthen the calf through its full length so the ankle can bend under load.',
+    howTo: [
+      'Stand on the edge of a step on the balls of both feet, holding a rail.',
+      'Rise on both feet, shift onto one foot, and lower that heel slowly below the step.',
+      'Return on both feet and repeat.',
+    ],
+    cue: 'Lower slowly, all the way down.',
+    commonFault: 'Dropping fast and bouncing at the bottom.',
+    progression: 'Rise on one foot too, then hold a light dumbbell.',
+    regression: 'Lower on both feet.',
+    phase: 'activation',
+    isJump: false,
+    addresses: ['limited-ankle-dorsiflexion', 'heels-lifting'],
+    prescription: {
+      sets: { min: 2, max: 3 },
+      dose: { kind: 'reps', min: 8, max: 12, perSide: true, toNearFatigue: false },
+      tempo: '1 s up, 3 s down, 1 s at the bottom',
+      load: { kind: 'bodyweight' },
+      restSeconds: 60,
+      perWeek: 3,
+    },
+  },
+  {
+    id: 'side-lying-hip-abduction',
+    name: 'Side-lying leg raise',
+    purpose: 'Wake up and strengthen the muscles at the side of the hip that hold the pelvis level and the knee in line.',
+    howTo: [
+      'Lie on one side, bottom knee bent, top leg straight and slightly behind the body.',
+      'Lift the top leg with the toes pointing forward, pause, and lower.',
+    ],
+    cue: 'Lead with the heel, toes forward.',
+    commonFault: 'Rolling the hips backwards and lifting with the front of the thigh.',
+    progression: 'Add a light band around the ankles.',
+    regression: 'Shorter range, or with the back against a wall to stay aligned.',
+    phase: 'activation',
+    isJump: false,
+    addresses: ['contralateral-pelvic-drop', 'dynamic-knee-valgus'],
+    prescription: {
+      sets: { min: 2, max: 3 },
+      dose: { kind: 'reps', min: 10, max: 15, perSide: true, toNearFatigue: false },
+      tempo: '2 s up, 1 s hold, 2 s down',
+      load: { kind: 'bodyweight' },
+      restSeconds: 45,
+      perWeek: 3,
+    },
+  },
+  {
+    id: 'banded-lateral-walk',
+    name: 'Banded side steps',
+    purpose: 'Train the side-hip muscles while standing, as they work in footwork.',
+    howTo: [
+      'Mini-band just above the knees, feet hip width, in a quarter squat.',
+      'Step sideways, keeping tension in the band, for the set count, then back the other way.',
+    ],
+    cue: 'Knees push out against the band; stay low and level.',
+    commonFault: 'Letting the knees cave or rocking the upper body with each step.',
+    progression: 'Move the band to the ankles, or use a medium band.',
+    regression: 'No band, shorter steps.',
+    phase: 'activation',
+    isJump: false,
+    addresses: ['contralateral-pelvic-drop', 'dynamic-knee-valgus'],
+    prescription: {
+      sets: { min: 2, max: 3 },
+      dose: { kind: 'reps', min: 10, max: 12, perSide: true, toNearFatigue: false },
+      tempo: 'slow, about 1 s per step',
+      load: { kind: 'band', resistance: 'light', placement: 'mini-band just above the knees' },
+      restSeconds: 45,
+      perWeek: 3,
+    },
+  },
+  {
+    id: 'single-leg-glute-bridge',
+    name: 'Single-leg bridge',
+    purpose: 'Build hip strength one side at a time and even out left and right.',
+    howTo: [
+      'Lie on the back, one knee bent with the foot flat, the other leg held straight.',
+      'Push through the heel to lift the hips until knee, hip and shoulder line up; pause and lower.',
+    ],
+    cue: 'Keep both hip points level at the top.',
+    commonFault: 'The pelvis twists or sags on the lifted-leg side.',
+    progression: 'Shoulders on a bench.',
+    regression: 'Both feet down, or the free foot resting lightly on the floor.',
+    phase: 'activation',
+    isJump: false,
+    addresses: ['contralateral-pelvic-drop', 'left-right-asymmetry'],
+    prescription: {
+      sets: { min: 2, max: 3 },
+      dose: { kind: 'reps', min: 8, max: 12, perSide: true, toNearFatigue: false },
+      tempo: '2 s up, 2 s hold, 3 s down',
+      load: { kind: 'bodyweight' },
+      restSeconds: 60,
+      perWeek: 3,
+    },
+  },
+  {
+    id: 'side-plank-from-knees',
+    name: 'Side plank',
+    purpose: 'Teach the trunk and side-hip to hold a straight line against gravity.',
+    howTo: [
+      'Lie on one side, elbow under the shoulder, knees bent.',
+      'Lift the hips so knees, hips and shoulders form a straight line, and hold.',
+    ],
+    cue: 'Long line, hips pushed forward.',
+    commonFault: 'Hips sag or pike backwards.',
+    progression: 'Straight legs, then lift the top leg.',
+    regression: 'Shorter holds, more sets.',
+    phase: 'control',
+    isJump: false,
+    addresses: ['excessive-trunk-lean', 'contralateral-pelvic-drop'],
+    prescription: {
+      sets: { min: 2, max: 3 },
+      dose: { kind: 'seconds', min: 15, max: 30, perSide: true },
+      tempo: 'steady hold',
+      load: { kind: 'bodyweight' },
+      restSeconds: 30,
+      perWeek: 3,
+    },
+  },
+  {
+    id: 'dowel-hip-hinge',
+    name: 'Stick hip hinge',
+    purpose: 'Learn to bend at the hips with a long, stable back.',
+    howTo: [
+      'Hold a stick along the spine touching the head, upper back and tailbone.',
+      'Push the hips back with soft knees until a stretch is felt behind the thighs, then stand tall.',
+    ],
+    cue: 'Three points stay on the stick.',
+    commonFault: 'The head or upper back leaves the stick as the chest drops.',
+    progression: 'Single-leg version holding the stick.',
+    regression: 'Hinge back to touch the hips on a wall behind.',
+    phase: 'control',
+    isJump: false,
+    addresses: ['excessive-trunk-lean'],
+    prescription: {
+      sets: { min: 2, max: 2 },
+      dose: { kind: 'reps', min: 8, max: 10, perSide: false, toNearFatigue: false },
+      tempo: '3 s down, 1 s pause, 2 s up',
+      load: { kind: 'bodyweight' },
+      restSeconds: 30,
+      perWeek: 3,
+    },
+  },
+  {
+    id: 'single-leg-reach',
+    name: 'Single-leg balance reach',
+    purpose: 'Control the pelvis and knee on one leg while the body moves, as in court movement.',
+    howTo: [
+      'Stand on one leg with a soft knee.',
+      'Reach the free foot forward, to the side and behind, lightly tapping the floor each time without putting weight on it.',
+    ],
+    cue: 'Pelvis level, knee over the second toe.',
+    commonFault: 'Leaning the upper body to reach further.',
+    progression: 'Reach further, or stand on a folded mat.',
+    regression: 'Shorter reaches with a fingertip on a wall.',
+    phase: 'control',
+    isJump: false,
+    addresses: ['contralateral-pelvic-drop', 'left-right-asymmetry', 'growth-spurt-window'],
+    prescription: {
+      sets: { min: 2, max: 2 },
+      dose: { kind: 'reps', min: 6, max: 8, perSide: true, toNearFatigue: false },
+      tempo: '2 s out, light tap, 2 s back',
+      load: { kind: 'bodyweight' },
+      restSeconds: 30,
+      perWeek: 3,
+    },
+  },
+  {
+    id: 'snap-down-and-stick',
+    name: 'Snap-down and stick',
+    purpose: 'Rehearse a soft, aligned landing without the load of a jump.',
+    howTo: [
+      'Stand tall on the balls of the feet, arms up.',
+      'Swing the arms down and drop quickly into a half squat, landing on flat feet.',
+      'Freeze the landing for two seconds.',
+    ],
+    cue: 'Quiet feet, knees over toes, chest proud.',
+    commonFault: 'Knees collapsing inwards or landing stiff-legged.',
+    progression: 'Small hop forward, then a hop onto one leg.',
+    regression: 'Slow lowering into the landing position without the drop.',
+    phase: 'landing',
+    isJump: true,
+    addresses: ['dynamic-knee-valgus', 'growth-spurt-window'],
+    prescription: {
+      sets: { min: 2, max: 3 },
+      dose: { kind: 'reps', min: 5, max: 6, perSide: false, toNearFatigue: false },
+      tempo: 'drop fast, hold 2 s',
+      load: { kind: 'bodyweight' },
+      restSeconds: 60,
+      perWeek: 2,
+    },
+  },
+  {
+    id: 'mini-band-squat',
+    name: 'Banded squat',
+    purpose: 'Groove a squat with the knees tracking over the feet.',
+    howTo: [
+      'Mini-band just above the knees, feet shoulder width.',
+      'Squat to a comfortable depth while pressing the knees out into the band, pause, and stand.',
+    ],
+    cue: 'Knees follow the toes; push the band apart.',
+    commonFault: 'Knees drifting in as the athlete stands up.',
+    progression: 'Deeper squat, then a medium band.',
+    regression: 'Squat to a box.',
+    phase: 'strength',
+    isJump: false,
+    addresses: ['dynamic-knee-valgus', 'squat-depth-not-reached'],
+    prescription: {
+      sets: { min: 2, max: 3 },
+      dose: { kind: 'reps', min: 8, max: 12, perSide: false, toNearFatigue: false },
+      tempo: '3 s down, 1 s pause, 2 s up',
+      load: { kind: 'band', resistance: 'light', placement: 'mini-band just above the knees' },
+      restSeconds: 60,
+      perWeek: 2,
+    },
+  },
+  {
+    id: 'counterbalance-box-squat',
+    name: 'Counterbalance squat to a box',
+    purpose: 'Reach full depth with the chest up, using a light weight held forward as a counterbalance.',
+    howTo: [
+      'Stand in front of a box or bench, holding a light plate (2.5-5 kg) at arm\'s length in front.',
+      'Sit back and down to touch the box, pause without relaxing, and stand up.',
+      'Lower the box as depth improves.',
+    ],
+    cue: 'Chest up, heels down, touch and go.',
+    commonFault: 'Flopping onto the box or the heels lifting.',
+    progression: 'Lower box, then no box.',
+    regression: 'Higher box.',
+    phase: 'strength',
+    isJump: false,
+    addresses: ['squat-depth-not-reached', 'excessive-trunk-lean', 'heels-lifting'],
+    prescription: {
+      sets: { min: 2, max: 3 },
+      dose: { kind: 'reps', min: 8, max: 10, perSide: false, toNearFatigue: false },
+      tempo: '3 s down, 1 s touch, 2 s up',
+      load: { kind: 'bodyweight', note: 'a light plate held forward as a counterbalance' },
+      restSeconds: 60,
+      perWeek: 2,
+    },
+  },
+  {
+    id: 'split-squat-endurance',
+    name: 'Split squat, strength endurance',
+    purpose: 'Build strength endurance one leg at a time, the pattern of the badminton lunge.',
+    howTo: [
+      'Long split stance, front foot flat, back heel up.',
+      'Lower straight down until the back knee nearly touches the floor, then push up through the front foot.',
+      'Finish all repetitions on one side before switching.',
+    ],
+    cue: 'Straight down, front knee over the second toe.',
+    commonFault: 'Short range, or the front knee drifting inwards as fatigue builds.',
+    progression: 'Rear foot raised on a low step.',
+    regression: 'Bodyweight with a hand on a wall.',
+    phase: 'strength',
+    isJump: false,
+    addresses: ['left-right-asymmetry', 'dynamic-knee-valgus'],
+    prescription: {
+      sets: { ...STRENGTH_ENDURANCE.sets },
+      dose: { kind: 'reps', min: 12, max: 20, perSide: true, toNearFatigue: true },
+      tempo: STRENGTH_ENDURANCE.tempo,
+      load: {
+        kind: 'percent-1rm',
+        minPercent: STRENGTH_ENDURANCE.minPercent,
+        maxPercent: STRENGTH_ENDURANCE.maxPercent,
+        kg: null,
+        note: `${STRENGTH_ENDURANCE.reps}; ${STRENGTH_ENDURANCE.rangeOfMotion}.`,
+      },
+      restSeconds: 60,
+      perWeek: 2,
+    },
+  },
+];
+
+const BY_ID = new Map<string, ExerciseSpec>(EXERCISES.map((e) => [e.id, e]));
+
+export function getExercise(id: string): ExerciseSpec {
+  const e = BY_ID.get(id);
+  if (!e) throw new Error(`unknown exercise ${id}`);
+  return e;
+}
+
+export function exercisesFor(pattern: PatternId): ExerciseSpec[] {
+  return EXERCISES.filter((e) => e.addresses.includes(pattern));
+}
