@@ -17,6 +17,7 @@ import { notFound } from './http/errors';
 import type { Outbox } from './mail/outbox';
 import { meRouter } from './me/me.router';
 import { metaRouter, type Mailbox } from './meta/meta.router';
+import { screeningRouter } from './screening/screening.router';
 import type { PhotoStorage } from './storage/storage';
 
 export type AppConfig = {
@@ -76,6 +77,7 @@ export function createApp(deps: AppDeps) {
   api.use(meRouter(db));
   api.use(clubsRouter(db, authService));
   api.use(athletesRouter(db));
+  api.use(screeningRouter({ db, storage: deps.storage }));
   api.use((() => {
     throw notFound('This API route');
   }) as RequestHandler);

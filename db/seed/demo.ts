@@ -2,6 +2,7 @@ import type { Db } from '@/db/client';
 import { athletes, clubs, consents, guardianLinks, memberships, squads, users } from '@/db/schema';
 import { hashPassword } from '@/server/auth/password';
 import { DEMO_CLUB_NAME, DEMO_PASSWORD, DEMO_USERS, OTHER_CLUB_NAME, OTHER_CLUB_USERS } from './demo-accounts';
+import { seedDemoScreening } from './demo-screening';
 
 // Invented names only. Deterministic, so every fresh demo looks the same.
 const FIRST_F = ['Maya', 'Aiko', 'Freya', 'Lucia', 'Nadia', 'Orla', 'Priyanka', 'Saskia', 'Tove', 'Yara', 'Zofia', 'Elin'];
@@ -88,5 +89,8 @@ export async function seedDemo(db: Db): Promise<DemoIds> {
       .returning();
     await tx.insert(guardianLinks).values({ athleteId: northgateKid!.id, userId: userIds['parent@northgate.test']! });
     return { clubId: club!.id, otherClubId: other!.id, squadIds: squadRows.map((s) => s.id), athleteIds };
+  }).then(async (ids) => {
+    await seedDemoScreening(db, ids);
+    return ids;
   });
 }

@@ -1,0 +1,92 @@
+import { array, mixed, number, object, string, ValidationError } from 'yup';
+import type { PlanAdjustmentInput } from '@/features/screening/contract';
+import { EXERCISES, type PatternId, type PlannedExercise, type Prescription } from '@/features/screening/engine';
+import { badRequest } from '@/server/http/errors';
+import { fieldErrors } from '@/server/http/validate';
+
+const LIBRARY = new Map(EXERCISES.map((e) => [e.id, e]));
+
+const range = (min: number, max: number, what: string, integer = true) => {
+  const n = number().typeError(`${what} must be a number.`).required(`${what} is required.`).min(min, `${what} must be at least ${min}.`).max(max, `${what} must be at most ${max}.`);
+  return integer ? n.integer(`${what} must be a whole number.`) : n;
+};
+const minMax = (min: number, max: number, what: string, integer = true) =>
+  object({ min: range(min, max, `${what} (from)`, integer), max: range(min, max, `${what} (to)`, integer) })
+    .required()
+    .test('ordered', `${what}: "from" must not be more than "to".`, (v) => !v || v.min <= v.max);
+
+// What the tester may change: which exercises, their order, and each one's dose and load. The
+// exercise's words (how-to, cues) always come from the library, so a stored plan cannot carry
+// text nobody wrote for it.
+const prescriptionSchema = object({
+  sets: minMax(1, 10, 'Sets'),
+  dose: mixed()
+    .required()
+    .test('dose', 'Dose must be repetitions or seconds, with a range.', (v) => {
+      if (typeof v !== 'object' || v === null) return false;
+      const d = v as Record<string, unknown>;
+      const ok = (lo: number, hi: number) =>
+        Number.isInteger(d.min) && Number.isInteger(d.max) && (d.min as number) >= lo && (d.max as number) <= hi && (d.min as number) <= (d.max as number);
+      if (d.kind === 'reps') return ok(1, 100) && typeof d.perSide === 'boolean' && typeof d.toNearFatigue === 'boolean';
+      if (d.kind === 'seconds') return ok(1, 600) && typeof d.perSide === 'boolean';
+      return false;
+    }),
+  tempo: string().max(200).default(''),
+  load: mixed()
+    .required()
+    .test('load', 'Load must be bodyweight, a band, or a percentage of 1RM.', (v) => {
+      if (typeof v !== 'object' || v === null) return false;
+      const l = v as Record<string, unknown>;
+      if (l.kind === 'bodyweight') return l.note === undefined || typeof l.note === 'string';
+      if (l.kind === 'band') return (l.resistance === 'light' || l.resistance === 'medium') && typeof l.placement === 'string';
+      if (l.kind === 'percent-1rm') {
+        const pct = (n: unknown) => typeof n === 'number' && n > 0 && n <= 100;
+        const kg = l.kg as Record<string, unknown> | null | undefined;
+        const kgOk =
+          kg === null ||
+          (typeof kg === 'object' && kg !== undefined && [kg.min, kg.max, kg.incrementKg].every((n) => typeof n === 'number' && n >= 0 && n <= 500));
+        return pct(l.minPercent) && pct(l.maxPercent) && (l.minPercent as number) <= (l.maxPercent as number) && kgOk && typeof l.note === 'string';
+      }
+      return false;
+    }),
+  restSeconds: range(0, 600, 'Rest (s)'),
+  perWeek: range(1, 7, 'Sessions per week'),
+});
+
+const exerciseSchema = object({
+  id: string()
+    .required('Choose an exercise.')
+    .test('library', 'Not an exercise of the library.', (id) => id !== undefined && LIBRARY.has(id)),
+  prescription: prescriptionSchema,
+  flagIds: array(string().required()).default([]),
+  patterns: array(string().required()).default([]),
+  adjustments: array(string().max(300).required()).default([]),
+});
+
+/** The adjusted plan as stored: library words, the tester's order and doses. */
+export function normaliseAdjustment(input: PlanAdjustmentInput): PlannedExercise[] {
+  const out: PlannedExercise[] = [];
+  const fields: Record<string, string> = {};
+  input.exercises.forEach((raw, i) => {
+    try {
+      const e = exerciseSchema.validateSync(raw, { abortEarly: false, stripUnknown: true });
+      const { addresses: _addresses, prescription: _library, ...words } = LIBRARY.get(e.id)!;
+      out.push({
+        ...words,
+        order: i + 1,
+        prescription: e.prescription as Prescription,
+        flagIds: e.flagIds,
+        patterns: e.patterns as PatternId[],
+        adjustments: e.adjustments,
+      });
+    } catch (error) {
+      if (!(error instanceof ValidationError)) throw error;
+      for (const [field, message] of Object.entries(fieldErrors(error))) fields[`exercises[${i}].${field}`] = message;
+    }
+  });
+  const ids = out.map((e) => e.id);
+  const repeated = ids.find((id, i) => ids.indexOf(id) !== i);
+  if (repeated) fields.exercises = `"${LIBRARY.get(repeated)!.name}" is in the plan twice.`;
+  if (Object.keys(fields).length > 0) throw badRequest('Some fields need attention.', fields);
+  return out;
+}

@@ -1,0 +1,331 @@
+import { and, asc, desc, eq, isNull, ne, sql, type SQL } from 'drizzle-orm';
+import type { NodePgQueryResultHKT } from 'drizzle-orm/node-postgres';
+import type { PgDatabase } from 'drizzle-orm/pg-core';
+import * as schema from '@/db/schema';
+import {
+  assessmentResults,
+  assessments,
+  athletes,
+    photos,
+  planAdjustments,
+  rounds,
+  squads,
+  users,
+} from '@/db/schema';
+import type { AssessmentDraft, AssessmentStatus } from '@/features/screening/contract';
+import type { AssessmentInput, AssessmentResult, PlannedExercise } from '@/features/screening/engine';
+import type { ClubScope } from '@/server/access/scope';
+
+/** The database or a transaction: the repository works inside either. */
+export type Executor = PgDatabase<NodePgQueryResultHKT, typeof schema>;
+
+/**
+ * The newest `photos` consent decision of the athlete in the current row; false when none was recorded.
+ * Written with qualified names: drizzle leaves columns unqualified in a single-table query, where a bare
+ * "id" inside the subquery would mean consents.id.
+ */
+const photoConsentSql = sql<boolean>`coalesce((
+  select c.granted from consents c
+  where c.athlete_id = "athletes"."id" and c.kind = 'photos'
+  order by c.created_at desc limit 1
+), false)`;
+
+/**
+ * Every query filters by the scope's club. Screening is staff-only, so the scope never carries a
+ * parent's athlete list here; the router refuses parents before a repository is built.
+ */
+export function screeningRepo(db: Executor, scope: ClubScope) {
+  const clubId = scope.clubId;
+
+  const roundColumns = {
+    id: rounds.id,
+    squadId: rounds.squadId,
+    squadName: squads.name,
+    name: rounds.name,
+    screenedOn: rounds.screenedOn,
+    notStarted: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'not_started')::int`,
+    inProgress: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'in_progress')::int`,
+    submitted: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'submitted')::int`,
+  };
+
+  function roundSummaries(where: SQL | undefined) {
+    return db
+      .select(roundColumns)
+      .from(rounds)
+      .innerJoin(squads, eq(squads.id, rounds.squadId))
+      .leftJoin(assessments, eq(assessments.roundId, rounds.id))
+      .where(and(eq(rounds.clubId, clubId), where))
+      .groupBy(rounds.id, squads.name)
+      .orderBy(desc(rounds.screenedOn), desc(rounds.createdAt));
+  }
+
+  const assessmentColumns = {
+    id: assessments.id,
+    roundId: assessments.roundId,
+    athleteId: assessments.athleteId,
+    status: assessments.status,
+    draft: assessments.draft,
+    draftVersion: assessments.draftVersion,
+    submittedAt: assessments.submittedAt,
+    roundName: rounds.name,
+    screenedOn: rounds.screenedOn,
+    firstName: athletes.firstName,
+    lastName: athletes.lastName,
+    sex: athletes.sex,
+    dateOfBirth: athletes.dateOfBirth,
+    racketHand: athletes.racketHand,
+    takeOffLeg: athletes.takeOffLeg,
+    photoConsent: photoConsentSql,
+  };
+
+  const resultColumns = {
+    id: assessmentResults.id,
+    version: assessmentResults.version,
+    isCurrent: assessmentResults.isCurrent,
+    engineVersion: assessmentResults.engineVersion,
+    result: assessmentResults.result,
+    createdAt: assessmentResults.createdAt,
+    createdByName: users.displayName,
+  };
+
+  return {
+    async squad(id: string) {
+      const [row] = await db
+        .select({ id: squads.id, name: squads.name, archivedAt: squads.archivedAt })
+        .from(squads)
+        .where(and(eq(squads.clubId, clubId), eq(squads.id, id)));
+      return row ?? null;
+    },
+
+    listRounds(options: { squadId?: string } = {}) {
+      return roundSummaries(options.squadId ? eq(rounds.squadId, options.squadId) : undefined);
+    },
+
+    async round(id: string) {
+      const [row] = await roundSummaries(eq(rounds.id, id));
+      return row ?? null;
+    },
+
+    roundAthletes(roundId: string) {
+      return db
+        .select({
+          assessmentId: assessments.id,
+          athleteId: athletes.id,
+          firstName: athletes.firstName,
+          lastName: athletes.lastName,
+          status: assessments.status,
+          photoConsent: photoConsentSql,
+          flagCount: sql<number | null>`jsonb_array_length(${assessmentResults.result} -> 'flags')`,
+        })
+        .from(assessments)
+        .innerJoin(athletes, eq(athletes.id, assessments.athleteId))
+        .leftJoin(assessmentResults, and(eq(assessmentResults.assessmentId, assessments.id), eq(assessmentResults.isCurrent, true)))
+        .where(and(eq(assessments.clubId, clubId), eq(assessments.roundId, roundId)))
+        .orderBy(asc(athletes.lastName), asc(athletes.firstName), asc(athletes.id));
+    },
+
+    /** Creates the round with one not-started assessment per athlete of the squad still on the roster. */
+    async createRound(values: { squadId: string; name: string; screenedOn: string }) {
+      const [round] = await db
+        .insert(rounds)
+        .values({ clubId, squadId: values.squadId, name: values.name, screenedOn: values.screenedOn, createdBy: scope.userId })
+        .returning({ id: rounds.id });
+      const roster = await db
+        .select({ id: athletes.id })
+        .from(athletes)
+        .where(and(eq(athletes.clubId, clubId), eq(athletes.squadId, values.squadId), isNull(athletes.archivedAt)));
+      if (roster.length > 0) {
+        await db.insert(assessments).values(roster.map((a) => ({ clubId, roundId: round!.id, athleteId: a.id })));
+      }
+      return round!.id;
+    },
+
+    async assessment(id: string) {
+      const [row] = await db
+        .select(assessmentColumns)
+        .from(assessments)
+        .innerJoin(rounds, eq(rounds.id, assessments.roundId))
+        .innerJoin(athletes, eq(athletes.id, assessments.athleteId))
+        .where(and(eq(assessments.clubId, clubId), eq(assessments.id, id)));
+      return row ?? null;
+    },
+
+    /** Locks the assessment row until the transaction ends: one submission or photo swap at a time. */
+    async lockAssessment(id: string) {
+      const [row] = await db
+        .select({ id: assessments.id, athleteId: assessments.athleteId, status: assessments.status })
+        .from(assessments)
+        .where(and(eq(assessments.clubId, clubId), eq(assessments.id, id)))
+        .for('update');
+      return row ?? null;
+    },
+
+    /**
+     * Saves the draft only if nobody saved since `expectedVersion` (optimistic locking in one
+     * statement). A submitted assessment goes back to in progress until it is submitted again.
+     */
+    async saveDraft(id: string, expectedVersion: number, draft: AssessmentDraft) {
+      const [row] = await db
+        .update(assessments)
+        .set({ draft, draftVersion: sql`${assessments.draftVersion} + 1`, status: 'in_progress' })
+        .where(and(eq(assessments.clubId, clubId), eq(assessments.id, id), eq(assessments.draftVersion, expectedVersion)))
+        .returning({ draftVersion: assessments.draftVersion, status: assessments.status });
+      return row ?? null;
+    },
+
+    async currentDraft(id: string) {
+      const [row] = await db
+        .select({ draft: assessments.draft, draftVersion: assessments.draftVersion, status: assessments.status })
+        .from(assessments)
+        .where(and(eq(assessments.clubId, clubId), eq(assessments.id, id)));
+      return row ?? null;
+    },
+
+    async markSubmitted(id: string, at: Date) {
+      await db
+        .update(assessments)
+        .set({ status: 'submitted', submittedAt: at, submittedBy: scope.userId })
+        .where(and(eq(assessments.clubId, clubId), eq(assessments.id, id)));
+    },
+
+    async photoConsent(athleteId: string) {
+      const [row] = await db
+        .select({ granted: photoConsentSql })
+        .from(athletes)
+        .where(and(eq(athletes.clubId, clubId), eq(athletes.id, athleteId)));
+      return row?.granted ?? false;
+    },
+
+    /** The photos in use: the newest of each task and view. */
+    currentPhotos(assessmentId: string) {
+      return db
+        .select()
+        .from(photos)
+        .where(and(eq(photos.clubId, clubId), eq(photos.assessmentId, assessmentId), isNull(photos.replacedAt)))
+        .orderBy(asc(photos.createdAt));
+    },
+
+    async photo(id: string) {
+      const [row] = await db.select().from(photos).where(and(eq(photos.clubId, clubId), eq(photos.id, id)));
+      return row ?? null;
+    },
+
+    /** Adds the photo and retires the one it replaces (same task and view). */
+    async addPhoto(values: Omit<typeof photos.$inferInsert, 'clubId' | 'uploadedBy'> & { id: string }, at: Date) {
+      await db
+        .update(photos)
+        .set({ replacedAt: at })
+        .where(
+          and(
+            eq(photos.clubId, clubId),
+            eq(photos.assessmentId, values.assessmentId),
+            eq(photos.taskId, values.taskId),
+            eq(photos.view, values.view),
+            isNull(photos.replacedAt),
+          ),
+        );
+      const [row] = await db
+        .insert(photos)
+        .values({ ...values, clubId, uploadedBy: scope.userId, createdAt: at })
+        .returning();
+      return row!;
+    },
+
+    async currentResult(assessmentId: string) {
+      const [row] = await db
+        .select(resultColumns)
+        .from(assessmentResults)
+        .leftJoin(users, eq(users.id, assessmentResults.createdBy))
+        .where(and(eq(assessmentResults.clubId, clubId), eq(assessmentResults.assessmentId, assessmentId), eq(assessmentResults.isCurrent, true)));
+      return row ?? null;
+    },
+
+    /** Versions other than `exceptId`, newest first. */
+    earlierResults(assessmentId: string, exceptId: string) {
+      return db
+        .select({
+          id: assessmentResults.id,
+          version: assessmentResults.version,
+          engineVersion: assessmentResults.engineVersion,
+          createdAt: assessmentResults.createdAt,
+        })
+        .from(assessmentResults)
+        .where(and(eq(assessmentResults.clubId, clubId), eq(assessmentResults.assessmentId, assessmentId), ne(assessmentResults.id, exceptId)))
+        .orderBy(desc(assessmentResults.version));
+    },
+
+    async latestAdjustment(resultId: string) {
+      const [row] = await db
+        .select({
+          exercises: planAdjustments.exercises,
+          note: planAdjustments.note,
+          createdAt: planAdjustments.createdAt,
+          createdByName: users.displayName,
+        })
+        .from(planAdjustments)
+        .innerJoin(assessmentResults, eq(assessmentResults.id, planAdjustments.resultId))
+        .leftJoin(users, eq(users.id, planAdjustments.createdBy))
+        .where(and(eq(assessmentResults.clubId, clubId), eq(planAdjustments.resultId, resultId)))
+        .orderBy(desc(planAdjustments.createdAt), desc(planAdjustments.id))
+        .limit(1);
+      return row ?? null;
+    },
+
+    /** Adds a result version and makes it the only current one. Call inside a transaction holding the assessment lock. */
+    async addResult(values: { assessmentId: string; athleteId: string; engineVersion: string; input: AssessmentInput; result: AssessmentResult }, at: Date) {
+      await db
+        .update(assessmentResults)
+        .set({ isCurrent: false })
+        .where(and(eq(assessmentResults.clubId, clubId), eq(assessmentResults.assessmentId, values.assessmentId), eq(assessmentResults.isCurrent, true)));
+      const [max] = await db
+        .select({ version: sql<number>`coalesce(max(${assessmentResults.version}), 0)::int` })
+        .from(assessmentResults)
+        .where(and(eq(assessmentResults.clubId, clubId), eq(assessmentResults.assessmentId, values.assessmentId)));
+      const [row] = await db
+        .insert(assessmentResults)
+        .values({ ...values, clubId, version: (max?.version ?? 0) + 1, isCurrent: true, createdBy: scope.userId, createdAt: at })
+        .returning({ id: assessmentResults.id });
+      return row!.id;
+    },
+
+    async addPlanAdjustment(resultId: string, exercises: PlannedExercise[], note: string) {
+      await db.insert(planAdjustments).values({ resultId, exercises, note, createdBy: scope.userId });
+    },
+
+    athleteAssessments(athleteId: string) {
+      return db
+        .select({
+          assessmentId: assessments.id,
+          roundId: rounds.id,
+          roundName: rounds.name,
+          screenedOn: rounds.screenedOn,
+          status: assessments.status,
+          submittedAt: assessments.submittedAt,
+          resultId: assessmentResults.id,
+          resultVersion: assessmentResults.version,
+          engineVersion: assessmentResults.engineVersion,
+          result: assessmentResults.result,
+        })
+        .from(assessments)
+        .innerJoin(rounds, eq(rounds.id, assessments.roundId))
+        .leftJoin(assessmentResults, and(eq(assessmentResults.assessmentId, assessments.id), eq(assessmentResults.isCurrent, true)))
+        .where(and(eq(assessments.clubId, clubId), eq(assessments.athleteId, athleteId)))
+        .orderBy(desc(rounds.screenedOn), desc(rounds.createdAt), desc(assessments.createdAt));
+    },
+  };
+}
+
+export type ScreeningRepo = ReturnType<typeof screeningRepo>;
+export type AssessmentRow = NonNullable<Awaited<ReturnType<ScreeningRepo['assessment']>>>;
+export type RoundRow = NonNullable<Awaited<ReturnType<ScreeningRepo['round']>>>;
+export type StatusCounts = Record<AssessmentStatus, number>;
+
+/**
+ * The club a record belongs to, looked up before the caller's scope is known, so that a record of
+ * another club answers 403 and a missing one 404.
+ */
+export async function clubOf(db: Executor, kind: 'squad' | 'round' | 'assessment' | 'photo' | 'athlete', id: string): Promise<string | null> {
+  const table = { squad: squads, round: rounds, assessment: assessments, photo: photos, athlete: athletes }[kind];
+  const [row] = await db.select({ clubId: table.clubId }).from(table).where(eq(table.id, id));
+  return row?.clubId ?? null;
+}

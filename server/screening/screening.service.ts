@@ -1,0 +1,312 @@
+import { randomUUID } from 'node:crypto';
+import type { Db } from '@/db/client';
+import type { Photo } from '@/db/schema';
+import { decimalAge } from '@/features/athletes/age';
+import type {
+  AssessmentDetail,
+  AssessmentDraft,
+  AssessmentStatus,
+  AthleteAssessmentItem,
+  CreateRoundInput,
+  PhotoView,
+  PlanAdjustmentInput,
+  ResultView,
+  RoundDetail,
+  RoundSummary,
+  SaveDraftInput,
+} from '@/features/screening/contract';
+import { draftToInput, hasTaskData } from '@/features/screening/draft-to-input';
+import {
+  ENGINE_VERSION,
+  EngineInputError,
+  evaluateAssessment,
+  getTask,
+  TASK_IDS,
+  type AssessmentInput,
+  type AssessmentResult,
+  type TaskId,
+  type View,
+} from '@/features/screening/engine';
+import type { ClubScope } from '@/server/access/scope';
+import { AppError, badRequest, conflict, notFound } from '@/server/http/errors';
+import type { PhotoStorage } from '@/server/storage/storage';
+import { validateDraft } from './draft-validation';
+import { processPhoto } from './photo-processing';
+import { normaliseAdjustment } from './plan-adjustment';
+import { screeningRepo, type Executor, type RoundRow, type ScreeningRepo } from './screening.repo';
+
+export type Evaluate = (input: AssessmentInput) => AssessmentResult;
+
+export type ScreeningDeps = {
+  db: Db;
+  storage: PhotoStorage;
+  /** The engine; injectable so a test can make a submission fail halfway. */
+  evaluate?: Evaluate;
+};
+
+/** 409 on a stale draftVersion, carrying the server's draft so the client can merge and retry. */
+export class DraftConflictError extends AppError {
+  constructor(readonly current: { draft: AssessmentDraft; draftVersion: number; status: AssessmentStatus }) {
+    super(
+      409,
+      'draft_conflict',
+      'This assessment was changed on another device since you opened it. Your changes were not saved: review the latest version and save again.',
+    );
+  }
+}
+
+const iso = (d: Date) => d.toISOString();
+
+function roundSummary(row: RoundRow): RoundSummary {
+  return {
+    id: row.id,
+    squadId: row.squadId,
+    squadName: row.squadName,
+    name: row.name,
+    screenedOn: row.screenedOn,
+    counts: { not_started: row.notStarted, in_progress: row.inProgress, submitted: row.submitted },
+  };
+}
+
+export function photoView(p: Photo): PhotoView {
+  return {
+    id: p.id,
+    taskId: p.taskId as TaskId,
+    view: p.view,
+    width: p.width,
+    height: p.height,
+    url: `/api/photos/${p.id}?size=full`,
+    thumbUrl: `/api/photos/${p.id}?size=thumb`,
+    createdAt: iso(p.createdAt),
+  };
+}
+
+async function resultView(repo: ScreeningRepo, assessmentId: string): Promise<ResultView | null> {
+  const current = await repo.currentResult(assessmentId);
+  if (!current) return null;
+  const [earlier, adjustment] = await Promise.all([repo.earlierResults(assessmentId, current.id), repo.latestAdjustment(current.id)]);
+  return {
+    id: current.id,
+    version: current.version,
+    engineVersion: current.engineVersion,
+    createdAt: iso(current.createdAt),
+    createdByName: current.createdByName,
+    result: current.result,
+    adjustment: adjustment
+      ? { exercises: adjustment.exercises, note: adjustment.note, createdAt: iso(adjustment.createdAt), createdByName: adjustment.createdByName }
+      : null,
+    history: earlier.map((r) => ({ id: r.id, version: r.version, engineVersion: r.engineVersion, createdAt: iso(r.createdAt) })),
+  };
+}
+
+/** Points the engine's field (a path into its input) at the draft field the tester typed. */
+export function draftFieldOf(engineField: string): string {
+  const body = /^athlete\.(statureCm|sittingHeightCm|massKg)$/.exec(engineField);
+  if (body) return `draft.body.${body[1]}`;
+  const photo = /^tasks\.([^.]+)\.photos\.(front|side)(?:\.landmarks)?(.*)$/.exec(engineField);
+  if (photo) return `draft.tasks.${photo[1]}.landmarks.${photo[2]}${photo[3]}`;
+  if (engineField.startsWith('tasks.') || engineField === 'oneRepMaxKg') return `draft.${engineField}`;
+  return engineField;
+}
+
+/**
+ * Runs the engine on the saved draft and stores the result as the assessment's new current version,
+ * all in one transaction holding the assessment's row lock: either everything is stored (new version,
+ * earlier ones no longer current, status submitted) or nothing changes. Used by the API and by the
+ * demo seed, so demo results are made exactly as real ones.
+ */
+export async function submitAssessment(
+  db: Executor,
+  scope: ClubScope,
+  assessmentId: string,
+  options: { evaluate?: Evaluate; at?: Date } = {},
+): Promise<ResultView> {
+  const evaluate = options.evaluate ?? evaluateAssessment;
+  const at = options.at ?? new Date();
+  await db.transaction(async (tx) => {
+    const repo = screeningRepo(tx, scope);
+    if (!(await repo.lockAssessment(assessmentId))) throw notFound('The assessment');
+    // Read after taking the lock: this is the draft that gets evaluated.
+    const a = (await repo.assessment(assessmentId))!;
+    if (!hasTaskData(a.draft)) {
+      throw badRequest('There is nothing to submit yet: record at least one task (skipped tasks do not count).', { 'draft.tasks': 'Record at least one task.' });
+    }
+    let ageYears: number;
+    try {
+      ageYears = decimalAge(a.dateOfBirth, a.screenedOn);
+    } catch {
+      throw badRequest(`The round's date (${a.screenedOn}) is before the athlete's date of birth (${a.dateOfBirth}): check both.`);
+    }
+    const input = draftToInput({ athlete: { sex: a.sex, ageYears, racketHand: a.racketHand }, draft: a.draft, screenedOn: a.screenedOn });
+    let result: AssessmentResult;
+    try {
+      result = evaluate(input);
+    } catch (error) {
+      if (error instanceof EngineInputError) throw badRequest(error.message, { [draftFieldOf(error.field)]: error.reason });
+      throw error;
+    }
+    await repo.addResult({ assessmentId, athleteId: a.athleteId, engineVersion: result.engineVersion ?? ENGINE_VERSION, input, result }, at);
+    await repo.markSubmitted(assessmentId, at);
+  });
+  return (await resultView(screeningRepo(db, scope), assessmentId))!;
+}
+
+export function screeningService(deps: ScreeningDeps) {
+  const { db, storage } = deps;
+  const repoFor = (scope: ClubScope, executor: Executor = db) => screeningRepo(executor, scope);
+
+  async function roundDetail(scope: ClubScope, id: string): Promise<RoundDetail> {
+    const repo = repoFor(scope);
+    const round = await repo.round(id);
+    if (!round) throw notFound('The round');
+    return { round: roundSummary(round), athletes: await repo.roundAthletes(id) };
+  }
+
+  return {
+    async listRounds(scope: ClubScope, squadId?: string): Promise<{ rounds: RoundSummary[] }> {
+      const rows = await repoFor(scope).listRounds({ squadId });
+      return { rounds: rows.map(roundSummary) };
+    },
+
+    async createRound(scope: ClubScope, input: CreateRoundInput): Promise<RoundDetail> {
+      if (Number.isNaN(Date.parse(`${input.screenedOn}T00:00:00Z`)) || new Date(`${input.screenedOn}T00:00:00Z`).toISOString().slice(0, 10) !== input.screenedOn) {
+        throw badRequest('Some fields need attention.', { screenedOn: `${input.screenedOn} is not a calendar date.` });
+      }
+      const id = await db.transaction(async (tx) => {
+        const repo = repoFor(scope, tx);
+        const squad = await repo.squad(input.squadId);
+        if (!squad) throw notFound('The squad');
+        if (squad.archivedAt) throw badRequest('Some fields need attention.', { squadId: 'This squad is archived.' });
+        return repo.createRound({ squadId: squad.id, name: input.name, screenedOn: input.screenedOn });
+      });
+      return roundDetail(scope, id);
+    },
+
+    roundDetail,
+
+    async assessmentDetail(scope: ClubScope, id: string): Promise<AssessmentDetail> {
+      const repo = repoFor(scope);
+      const a = await repo.assessment(id);
+      if (!a) throw notFound('The assessment');
+      const [photos, result] = await Promise.all([repo.currentPhotos(id), resultView(repo, id)]);
+      return {
+        id: a.id,
+        roundId: a.roundId,
+        roundName: a.roundName,
+        screenedOn: a.screenedOn,
+        status: a.status,
+        draft: a.draft,
+        draftVersion: a.draftVersion,
+        athlete: {
+          id: a.athleteId,
+          firstName: a.firstName,
+          lastName: a.lastName,
+          sex: a.sex,
+          dateOfBirth: a.dateOfBirth,
+          racketHand: a.racketHand,
+          takeOffLeg: a.takeOffLeg,
+          photoConsent: a.photoConsent,
+        },
+        photos: photos.map(photoView),
+        result,
+      };
+    },
+
+    async saveDraft(scope: ClubScope, id: string, input: SaveDraftInput): Promise<{ draftVersion: number; status: AssessmentStatus }> {
+      const repo = repoFor(scope);
+      const draft = validateDraft(input.draft);
+      const saved = await repo.saveDraft(id, input.draftVersion, draft);
+      if (saved) return saved;
+      const current = await repo.currentDraft(id);
+      if (!current) throw notFound('The assessment');
+      throw new DraftConflictError(current);
+    },
+
+    async uploadPhoto(scope: ClubScope, assessmentId: string, upload: { buffer: Buffer | undefined; task: unknown; view: unknown }): Promise<PhotoView> {
+      const repo = repoFor(scope);
+      const a = await repo.assessment(assessmentId);
+      if (!a) throw notFound('The assessment');
+
+      const fields: Record<string, string> = {};
+      if (!upload.buffer || upload.buffer.length === 0) fields.photo = 'Choose a photo to upload (field "photo").';
+      const task = typeof upload.task === 'string' && (TASK_IDS as readonly string[]).includes(upload.task) ? (upload.task as TaskId) : null;
+      if (!task) fields.task = 'Name the task the photo belongs to.';
+      const view = upload.view === 'front' || upload.view === 'side' ? (upload.view as View) : null;
+      if (!view) fields.view = 'The view must be "front" or "side".';
+      else if (task && !getTask(task).views.some((v) => v.view === view)) fields.view = `"${getTask(task).title}" has no ${view} photo.`;
+      if (Object.keys(fields).length > 0) throw badRequest('Some fields need attention.', fields);
+
+      if (!(await repo.photoConsent(a.athleteId))) {
+        throw new AppError(
+          403,
+          'no_photo_consent',
+          `${a.firstName} ${a.lastName}'s family has not agreed to photos, so no photo can be taken or stored. Screen without photos, or record the family's consent on the athlete's page first.`,
+        );
+      }
+
+      const processed = await processPhoto(upload.buffer!);
+      const id = randomUUID();
+      const storageKey = `${scope.clubId}/${assessmentId}/${id}.jpg`;
+      const thumbKey = `${scope.clubId}/${assessmentId}/${id}-thumb.jpg`;
+      await storage.put(storageKey, processed.full, 'image/jpeg');
+      await storage.put(thumbKey, processed.thumb, 'image/jpeg');
+      try {
+        const row = await db.transaction(async (tx) => {
+          const r = repoFor(scope, tx);
+          if (!(await r.lockAssessment(assessmentId))) throw notFound('The assessment');
+          return r.addPhoto({ id, assessmentId, taskId: task!, view: view!, storageKey, thumbKey, width: processed.width, height: processed.height }, new Date());
+        });
+        return photoView(row);
+      } catch (error) {
+        // No row points at the files: remove them rather than leave orphans.
+        await Promise.allSettled([storage.delete(storageKey), storage.delete(thumbKey)]);
+        throw error;
+      }
+    },
+
+    async photoBytes(scope: ClubScope, id: string, size: 'full' | 'thumb'): Promise<Buffer> {
+      const photo = await repoFor(scope).photo(id);
+      if (!photo) throw notFound('The photo');
+      const stored = await storage.get(size === 'thumb' ? photo.thumbKey : photo.storageKey);
+      if (!stored) throw notFound('The photo file');
+      return stored.data;
+    },
+
+    submit(scope: ClubScope, id: string): Promise<ResultView> {
+      return submitAssessment(db, scope, id, { evaluate: deps.evaluate });
+    },
+
+    async adjustPlan(scope: ClubScope, id: string, input: PlanAdjustmentInput): Promise<ResultView> {
+      const exercises = normaliseAdjustment(input);
+      await db.transaction(async (tx) => {
+        const repo = repoFor(scope, tx);
+        // Locked so a re-submission cannot slip in between: the adjustment is for the result shown.
+        if (!(await repo.lockAssessment(id))) throw notFound('The assessment');
+        const current = await repo.currentResult(id);
+        if (!current) throw conflict('This assessment has no result yet: submit it before adjusting the plan.');
+        await repo.addPlanAdjustment(current.id, exercises, input.note ?? '');
+      });
+      return (await resultView(repoFor(scope), id))!;
+    },
+
+    async athleteAssessments(scope: ClubScope, athleteId: string): Promise<{ assessments: AthleteAssessmentItem[] }> {
+      const rows = await repoFor(scope).athleteAssessments(athleteId);
+      return {
+        assessments: rows.map((r) => ({
+          assessmentId: r.assessmentId,
+          roundId: r.roundId,
+          roundName: r.roundName,
+          screenedOn: r.screenedOn,
+          status: r.status,
+          submittedAt: r.submittedAt ? iso(r.submittedAt) : null,
+          result:
+            r.resultId && r.result
+              ? { id: r.resultId, version: r.resultVersion!, engineVersion: r.engineVersion!, flags: r.result.flags }
+              : null,
+        })),
+      };
+    },
+  };
+}
+
+export type ScreeningService = ReturnType<typeof screeningService>;

@@ -1,0 +1,122 @@
+import { spawnSync } from 'node:child_process';
+import path from 'node:path';
+import { and, asc, eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { assessmentResults, assessments, athletes, clubs, rounds, squads } from '@/db/schema';
+import { DEMO_CLUB_NAME, DEMO_PASSWORD } from '@/db/seed/demo-accounts';
+import { DEMO_OPEN_ROUND } from '@/db/seed/demo-screening';
+import type { AthleteAssessmentItem, RoundDetail, RoundSummary } from '@/features/screening/contract';
+import { makeTestApp, signedInAgent } from '../fixtures/builders';
+import { createTestDb, type TestDb } from '../fixtures/test-db';
+
+// The demo is loaded the way `npm run db:reset` loads it: `tsx db/cli.ts reset` in its own process
+// (CommonJS under tsx), against a throw-away database.
+let testDb: TestDb;
+let seconds = 0;
+
+beforeAll(async () => {
+  testDb = await createTestDb();
+  const started = Date.now();
+  const root = path.resolve(__dirname, '..', '..');
+  const run = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['db/cli.ts', 'reset'], {
+    cwd: root,
+    env: { ...process.env, DATABASE_URL: testDb.url },
+    encoding: 'utf8',
+  });
+  seconds = (Date.now() - started) / 1000;
+  if (run.status !== 0) throw new Error(`db/cli.ts reset failed: ${run.stderr}`);
+}, 60_000);
+
+afterAll(async () => {
+  await testDb.drop();
+});
+
+async function demoRounds() {
+  const [club] = await testDb.db.select().from(clubs).where(eq(clubs.name, DEMO_CLUB_NAME));
+  return testDb.db
+    .select({ id: rounds.id, name: rounds.name, screenedOn: rounds.screenedOn, squad: squads.name })
+    .from(rounds)
+    .innerJoin(squads, eq(squads.id, rounds.squadId))
+    .where(eq(rounds.clubId, club!.id))
+    .orderBy(asc(squads.name), asc(rounds.screenedOn));
+}
+
+describe('demo screening data', () => {
+  it('loads quickly, whole demo included', () => {
+    // Migrations, the demo club and about 60 submissions through the engine, plus tsx start-up.
+    expect(seconds).toBeLessThan(15);
+  });
+
+  it('has three past rounds per squad and an open winter round for the under-13s', async () => {
+    const all = await demoRounds();
+    expect(all.map((r) => [r.squad, r.name, r.screenedOn])).toEqual([
+      ['Under-13 mixed', 'Pre-season', '2026-03-09'],
+      ['Under-13 mixed', 'Mid-season', '2026-06-08'],
+      ['Under-13 mixed', 'Autumn check', '2026-09-14'],
+      ['Under-13 mixed', DEMO_OPEN_ROUND.name, DEMO_OPEN_ROUND.screenedOn],
+      ['Under-15 mixed', 'Pre-season', '2026-03-11'],
+      ['Under-15 mixed', 'Mid-season', '2026-06-10'],
+      ['Under-15 mixed', 'Autumn check', '2026-09-16'],
+    ]);
+  });
+
+  it('leaves work to do: the newest past rounds are partly done, the winter round not started', async () => {
+    const { app } = makeTestApp(testDb.db);
+    const tester = await signedInAgent(app, 'tester@squadline.test', DEMO_PASSWORD);
+    const list = (await tester.get('/api/rounds')).body.rounds as RoundSummary[];
+    expect(list[0]).toMatchObject({ name: DEMO_OPEN_ROUND.name, counts: { not_started: 12, in_progress: 0, submitted: 0 } });
+    const autumn = list.filter((r) => r.name === 'Autumn check');
+    expect(autumn.map((r) => r.counts)).toEqual([
+      { not_started: 3, in_progress: 1, submitted: 8 },
+      { not_started: 3, in_progress: 1, submitted: 8 },
+    ]);
+    for (const r of list.filter((x) => x.name !== 'Autumn check' && x.name !== DEMO_OPEN_ROUND.name)) {
+      expect(r.counts).toEqual({ not_started: 0, in_progress: 0, submitted: 12 });
+    }
+    const detail = (await tester.get(`/api/rounds/${autumn[0]!.id}`)).body as RoundDetail;
+    const submitted = detail.athletes.filter((a) => a.status === 'submitted');
+    expect(submitted.every((a) => typeof a.flagCount === 'number')).toBe(true);
+    // Not everyone is flagged, not everyone is clean.
+    expect(submitted.some((a) => a.flagCount! >= 2)).toBe(true);
+  });
+
+  it('shows patterns that clear and patterns that persist across the season', async () => {
+    const { app } = makeTestApp(testDb.db);
+    const coach = await signedInAgent(app, 'coach@squadline.test', DEMO_PASSWORD);
+    const roster = await testDb.db.select({ id: athletes.id, firstName: athletes.firstName }).from(athletes).innerJoin(squads, eq(squads.id, athletes.squadId)).where(eq(squads.name, 'Under-13 mixed'));
+    const valgusByRound = new Map<string, boolean[]>();
+    const patternsSeen = new Set<string>();
+    for (const a of roster) {
+      const res = await coach.get(`/api/athletes/${a.id}/assessments`);
+      expect(res.status).toBe(200);
+      const done = (res.body.assessments as AthleteAssessmentItem[]).filter((x) => x.result).reverse(); // oldest first
+      for (const item of done) for (const f of item.result!.flags) patternsSeen.add(f.pattern);
+      valgusByRound.set(a.firstName, done.map((x) => x.result!.flags.some((f) => f.pattern === 'dynamic-knee-valgus')));
+    }
+    const histories = [...valgusByRound.values()].filter((h) => h.length === 3);
+    expect(histories).toContainEqual([true, true, false]); // improved by the autumn
+    expect(histories).toContainEqual([true, true, true]); // persisting
+    expect(histories).toContainEqual([false, false, false]); // never flagged
+    for (const pattern of ['dynamic-knee-valgus', 'contralateral-pelvic-drop', 'limited-ankle-dorsiflexion', 'left-right-asymmetry', 'excessive-trunk-lean']) {
+      expect(patternsSeen).toContain(pattern);
+    }
+  });
+
+  it('stores results made by the real engine, with plans and the round date', async () => {
+    const rows = await testDb.db
+      .select({ result: assessmentResults.result, input: assessmentResults.input, submittedAt: assessments.submittedAt, screenedOn: rounds.screenedOn })
+      .from(assessmentResults)
+      .innerJoin(assessments, eq(assessments.id, assessmentResults.assessmentId))
+      .innerJoin(rounds, eq(rounds.id, assessments.roundId))
+      .where(and(eq(assessmentResults.isCurrent, true)));
+    expect(rows.length).toBe(2 * (12 + 12 + 8));
+    for (const r of rows) {
+      expect(r.input.options?.today).toBe(r.screenedOn);
+      expect(r.submittedAt!.toISOString().slice(0, 10)).toBe(r.screenedOn);
+      expect(r.result.plan.rescreenDate).not.toBeNull();
+    }
+    expect(rows.some((r) => r.result.plan.exercises.length > 0)).toBe(true);
+    // Athletes without photo consent have no landmarks: nobody placed points on a photo never taken.
+    expect(rows.some((r) => Object.values(r.input.tasks).every((t) => !t?.photos))).toBe(true);
+  });
+});
