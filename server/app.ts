@@ -91,7 +91,8 @@ export function createApp(deps: AppDeps) {
     app.use(express.static(webDir, { index: false }));
     app.get('/{*splat}', (_req, res) => {
       res.setHeader('Cache-Control', 'no-cache');
-      res.sendFile(path.join(webDir, 'index.html'));
+      // `root` keeps send's dot-folder check off the export's own location (it may live under .tmp/).
+      res.sendFile('index.html', { root: webDir });
     });
   }
 

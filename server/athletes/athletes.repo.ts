@@ -1,7 +1,14 @@
-import { and, asc, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { randomUUID } from 'node:crypto';
+import { and, asc, desc, eq, inArray, isNull, ne, sql, type SQL } from 'drizzle-orm';
+import type { NodePgQueryResultHKT } from 'drizzle-orm/node-postgres';
+import type { PgDatabase } from 'drizzle-orm/pg-core';
 import type { Db } from '@/db/client';
-import { athletes, consents, squads } from '@/db/schema';
+import * as schema from '@/db/schema';
+import { athletes, consents, guardianLinks, memberships, squads, users, type Role } from '@/db/schema';
 import { athleteFilter, type ClubScope } from '@/server/access/scope';
+
+/** The database or a transaction: repositories work inside either. */
+export type Executor = PgDatabase<NodePgQueryResultHKT, typeof schema>;
 
 export type ConsentView = { granted: boolean; decidedOn: string } | null;
 export type AthleteView = {
@@ -18,11 +25,27 @@ export type AthleteView = {
   archived: boolean;
   consents: { photos: ConsentView; emailSummaries: ConsentView };
 };
+export type GuardianView = { userId: string; displayName: string; email: string };
+export type ConsentRecordView = {
+  id: string;
+  kind: 'photos' | 'email_summaries';
+  granted: boolean;
+  decidedOn: string;
+  recordedBy: string | null;
+  recordedAt: Date;
+};
+export type AthleteValues = Pick<
+  typeof athletes.$inferInsert,
+  'firstName' | 'lastName' | 'dateOfBirth' | 'sex' | 'racketHand' | 'takeOffLeg' | 'squadId'
+>;
+
+/** Same person: names compared without case or surrounding spaces, plus the date of birth. */
+export const identityKey = (firstName: string, lastName: string, dateOfBirth: string) =>
+  `${firstName.trim().toLowerCase()}|${lastName.trim().toLowerCase()}|${dateOfBirth}`;
 
 /** Every query here filters by the scope's club and, for parents, by their athletes. */
-export function athletesRepo(db: Db, scope: ClubScope) {
-  const inScope = (...extra: (ReturnType<typeof eq> | undefined)[]) =>
-    and(eq(athletes.clubId, scope.clubId), athleteFilter(scope, athletes.id), ...extra);
+export function athletesRepo(db: Executor | Db, scope: ClubScope) {
+  const inScope = (...extra: (SQL | undefined)[]) => and(eq(athletes.clubId, scope.clubId), athleteFilter(scope, athletes.id), ...extra);
 
   async function withConsents(rows: Omit<AthleteView, 'consents'>[]): Promise<AthleteView[]> {
     if (rows.length === 0) return [];
@@ -59,6 +82,8 @@ export function athletesRepo(db: Db, scope: ClubScope) {
     archived: sql<boolean>`${athletes.archivedAt} is not null`,
   };
 
+  const squadOfClub = (...extra: (SQL | undefined)[]) => and(eq(squads.clubId, scope.clubId), ...extra);
+
   return {
     async list(options: { squadId?: string; includeArchived?: boolean } = {}) {
       const rows = await db
@@ -68,7 +93,7 @@ export function athletesRepo(db: Db, scope: ClubScope) {
         .where(
           inScope(
             options.squadId ? eq(athletes.squadId, options.squadId) : undefined,
-            options.includeArchived ? undefined : (isNull(athletes.archivedAt) as ReturnType<typeof eq>),
+            options.includeArchived ? undefined : isNull(athletes.archivedAt),
           ),
         )
         .orderBy(asc(athletes.lastName), asc(athletes.firstName));
@@ -82,21 +107,165 @@ export function athletesRepo(db: Db, scope: ClubScope) {
         .where(inScope(eq(athletes.id, id)));
       return (await withConsents(rows))[0] ?? null;
     },
+    async create(values: AthleteValues): Promise<string> {
+      const [row] = await db
+        .insert(athletes)
+        .values({ ...values, clubId: scope.clubId })
+        .returning({ id: athletes.id });
+      return row!.id;
+    },
+    async createMany(values: AthleteValues[]): Promise<string[]> {
+      if (values.length === 0) return [];
+      // Ids chosen here, so that the caller can pair them with its rows without relying on RETURNING's order.
+      const ids = values.map(() => randomUUID());
+      await db.insert(athletes).values(values.map((v, i) => ({ ...v, id: ids[i]!, clubId: scope.clubId })));
+      return ids;
+    },
+    async update(id: string, values: Partial<AthleteValues>) {
+      await db.update(athletes).set(values).where(inScope(eq(athletes.id, id)));
+    },
+    async setArchived(id: string, archived: boolean) {
+      await db
+        .update(athletes)
+        .set({ archivedAt: archived ? new Date() : null })
+        .where(inScope(eq(athletes.id, id)));
+    },
+    /** Athletes of the club (archived too) with this name and date of birth, except `exceptId`. */
+    async sameIdentity(firstName: string, lastName: string, dateOfBirth: string, exceptId?: string) {
+      return db
+        .select({ id: athletes.id, archived: columns.archived })
+        .from(athletes)
+        .where(
+          inScope(
+            sql`lower(trim(${athletes.firstName})) = ${firstName.trim().toLowerCase()}`,
+            sql`lower(trim(${athletes.lastName})) = ${lastName.trim().toLowerCase()}`,
+            eq(athletes.dateOfBirth, dateOfBirth),
+            exceptId ? ne(athletes.id, exceptId) : undefined,
+          ),
+        );
+    },
+    /** identityKey → archived?, for every athlete of the club: the import checks a whole file against it. */
+    async identities(): Promise<Map<string, boolean>> {
+      const rows = await db
+        .select({ firstName: athletes.firstName, lastName: athletes.lastName, dateOfBirth: athletes.dateOfBirth, archived: columns.archived })
+        .from(athletes)
+        .where(inScope());
+      return new Map(rows.map((r) => [identityKey(r.firstName, r.lastName, r.dateOfBirth), r.archived]));
+    },
+    /** Serialises roster writes of one club, so that two imports cannot both add the same child. */
+    async lockRoster() {
+      await db.execute(sql`select pg_advisory_xact_lock(hashtext(${`roster:${scope.clubId}`}))`);
+    },
+
+    // --- consents ---------------------------------------------------------------------------------
+    async consentHistory(athleteId: string): Promise<ConsentRecordView[]> {
+      return db
+        .select({
+          id: consents.id,
+          kind: consents.kind,
+          granted: consents.granted,
+          decidedOn: consents.decidedOn,
+          recordedBy: users.displayName,
+          recordedAt: consents.createdAt,
+        })
+        .from(consents)
+        .innerJoin(athletes, eq(athletes.id, consents.athleteId))
+        .leftJoin(users, eq(users.id, consents.recordedBy))
+        .where(inScope(eq(consents.athleteId, athleteId)))
+        .orderBy(desc(consents.createdAt), desc(consents.id));
+    },
+    async recordConsents(rows: { athleteId: string; kind: 'photos' | 'email_summaries'; granted: boolean; decidedOn: string }[]) {
+      if (rows.length === 0) return;
+      await db.insert(consents).values(rows.map((r) => ({ ...r, recordedBy: scope.userId })));
+    },
+
+    // --- guardians --------------------------------------------------------------------------------
+    async guardians(athleteId: string): Promise<GuardianView[]> {
+      return db
+        .select({ userId: users.id, displayName: users.displayName, email: users.email })
+        .from(guardianLinks)
+        .innerJoin(users, eq(users.id, guardianLinks.userId))
+        .innerJoin(athletes, eq(athletes.id, guardianLinks.athleteId))
+        .where(inScope(eq(guardianLinks.athleteId, athleteId)))
+        .orderBy(asc(users.displayName));
+    },
+    /** Members of this club by e-mail (lower-cased), with their role. */
+    async membersByEmail(emails: string[]): Promise<Map<string, { userId: string; role: Role; displayName: string }>> {
+      if (emails.length === 0) return new Map();
+      const rows = await db
+        .select({ email: users.email, userId: users.id, role: memberships.role, displayName: users.displayName })
+        .from(memberships)
+        .innerJoin(users, eq(users.id, memberships.userId))
+        .where(and(eq(memberships.clubId, scope.clubId), inArray(users.email, emails)));
+      return new Map(rows.map((r) => [r.email, { userId: r.userId, role: r.role, displayName: r.displayName }]));
+    },
+    async linkGuardians(links: { athleteId: string; userId: string }[]) {
+      if (links.length === 0) return;
+      await db.insert(guardianLinks).values(links).onConflictDoNothing();
+    },
+    async unlinkGuardian(athleteId: string, userId: string): Promise<boolean> {
+      // The athlete id was checked to be in scope by the caller; the link table has no club column.
+      const removed = await db
+        .delete(guardianLinks)
+        .where(and(eq(guardianLinks.athleteId, athleteId), eq(guardianLinks.userId, userId)))
+        .returning({ userId: guardianLinks.userId });
+      return removed.length > 0;
+    },
+
+    // --- squads -----------------------------------------------------------------------------------
     async squads() {
       return db
         .select({ id: squads.id, name: squads.name, athleteCount: sql<number>`count(${athletes.id})::int` })
         .from(squads)
         .leftJoin(athletes, and(eq(athletes.squadId, squads.id), isNull(athletes.archivedAt)))
-        .where(and(eq(squads.clubId, scope.clubId), isNull(squads.archivedAt)))
+        .where(squadOfClub(isNull(squads.archivedAt)))
         .groupBy(squads.id)
         .orderBy(asc(squads.name));
     },
     async squad(id: string) {
-      const [row] = await db.select().from(squads).where(and(eq(squads.clubId, scope.clubId), eq(squads.id, id)));
+      const [row] = await db.select().from(squads).where(squadOfClub(eq(squads.id, id)));
       return row ?? null;
+    },
+    /** Active squads whose name matches without case or surrounding spaces. */
+    async activeSquadsNamed(name: string, exceptId?: string) {
+      return db
+        .select({ id: squads.id, name: squads.name })
+        .from(squads)
+        .where(
+          squadOfClub(
+            isNull(squads.archivedAt),
+            sql`lower(trim(${squads.name})) = ${name.trim().toLowerCase()}`,
+            exceptId ? ne(squads.id, exceptId) : undefined,
+          ),
+        );
+    },
+    async activeSquadsByName(): Promise<Map<string, string>> {
+      const rows = await db.select({ id: squads.id, name: squads.name }).from(squads).where(squadOfClub(isNull(squads.archivedAt)));
+      return new Map(rows.map((r) => [r.name.trim().toLowerCase(), r.id]));
+    },
+    async createSquad(name: string) {
+      const [row] = await db.insert(squads).values({ clubId: scope.clubId, name }).returning();
+      return row!;
+    },
+    async renameSquad(id: string, name: string) {
+      const [row] = await db.update(squads).set({ name }).where(squadOfClub(eq(squads.id, id))).returning();
+      return row ?? null;
+    },
+    async archiveSquad(id: string) {
+      const [row] = await db.update(squads).set({ archivedAt: new Date() }).where(squadOfClub(eq(squads.id, id))).returning();
+      return row ?? null;
+    },
+    async activeAthleteCount(squadId: string): Promise<number> {
+      const [row] = await db
+        .select({ n: sql<number>`count(*)::int` })
+        .from(athletes)
+        .where(inScope(eq(athletes.squadId, squadId), isNull(athletes.archivedAt)));
+      return row?.n ?? 0;
     },
   };
 }
+
+export type AthletesRepo = ReturnType<typeof athletesRepo>;
 
 /** The club an athlete belongs to, looked up before the caller's scope is known. */
 export async function clubOfAthlete(db: Db, athleteId: string): Promise<string | null> {

@@ -1,28 +1,31 @@
 import { Router } from 'express';
 import type { Db } from '@/db/client';
-import { ALL_ROLES, STAFF, scopeForCallerClub, scopeForClub } from '@/server/access/scope';
-import { badRequest, forbidden, notFound } from '@/server/http/errors';
-import { athletesRepo, clubOfAthlete, clubOfSquad } from './athletes.repo';
+import { athletePatchSchema, athleteSchema, consentSchema, guardianSchema } from '@/features/athletes/schemas';
+import { ALL_ROLES, STAFF } from '@/server/access/scope';
+import { badRequest, notFound } from '@/server/http/errors';
+import { validateBody } from '@/server/http/validate';
+import { athletesRepo } from './athletes.repo';
+import { athletesService, ROSTER_MANAGERS } from './athletes.service';
+import { requireUuid } from './ids';
+import { rosterImportRouter } from './roster-import.router';
+import { athleteScope, callerClubScope, scoped, squadScope } from './scope-middleware';
+import { squadsRouter } from './squads.router';
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-export function requireUuid(value: string, what: string): string {
-  if (!UUID.test(value)) throw notFound(what);
-  return value;
-}
+export { requireUuid } from './ids';
 
+/**
+ * Squads, athletes, consent decisions, guardian links and the CSV roster import. Admins and head
+ * coaches change the roster; other staff read it; parents read their own children only.
+ */
 export function athletesRouter(db: Db) {
   const router = Router();
+  const service = (res: Parameters<typeof scoped>[0]) => athletesService(db, scoped(res).scope);
 
-  router.get('/squads', async (req, res) => {
-    const scope = await scopeForCallerClub(db, req, STAFF);
-    res.json({ squads: await athletesRepo(db, scope).squads() });
-  });
+  router.use(squadsRouter(db));
+  router.use(rosterImportRouter(db));
 
-  router.get('/squads/:id/athletes', async (req, res) => {
-    const id = requireUuid(req.params.id, 'The squad');
-    const clubId = await clubOfSquad(db, id);
-    if (!clubId) throw notFound('The squad');
-    const scope = await scopeForClub(db, req, clubId, STAFF);
+  router.get('/squads/:id/athletes', squadScope(db, STAFF), async (_req, res) => {
+    const { scope, id } = scoped(res);
     const repo = athletesRepo(db, scope);
     const squad = await repo.squad(id);
     if (!squad) throw notFound('The squad');
@@ -30,22 +33,46 @@ export function athletesRouter(db: Db) {
   });
 
   // Parents get their own children here; club staff get the whole club.
-  router.get('/athletes', async (req, res) => {
-    const scope = await scopeForCallerClub(db, req, ALL_ROLES);
+  router.get('/athletes', callerClubScope(db, ALL_ROLES), async (req, res) => {
+    const { scope } = scoped(res);
     const includeArchived = req.query.archived === 'include';
     if (includeArchived && scope.role === 'parent') throw badRequest('Archived athletes are not listed for parents.');
     res.json({ athletes: await athletesRepo(db, scope).list({ includeArchived }) });
   });
 
-  router.get('/athletes/:id', async (req, res) => {
-    const id = requireUuid(req.params.id, 'The athlete');
-    const clubId = await clubOfAthlete(db, id);
-    if (!clubId) throw notFound('The athlete');
-    const scope = await scopeForClub(db, req, clubId, ALL_ROLES);
-    const athlete = await athletesRepo(db, scope).get(id);
-    // The athlete exists in this club but is outside the caller's scope (another family's child).
-    if (!athlete) throw forbidden('You can only see the athletes linked to you.');
-    res.json({ athlete });
+  router.post('/athletes', callerClubScope(db, ROSTER_MANAGERS), validateBody(athleteSchema), async (req, res) => {
+    res.status(201).json({ athlete: await service(res).create(req.body) });
+  });
+
+  router.get('/athletes/:id', athleteScope(db, ALL_ROLES), async (_req, res) => {
+    res.json({ athlete: await service(res).detail(scoped(res).id) });
+  });
+
+  router.patch('/athletes/:id', athleteScope(db, ROSTER_MANAGERS), validateBody(athletePatchSchema), async (req, res) => {
+    res.json({ athlete: await service(res).update(scoped(res).id, req.body) });
+  });
+
+  // Athletes are never deleted (their results point at them): archived, and restored when they return.
+  router.post('/athletes/:id/archive', athleteScope(db, ROSTER_MANAGERS), async (_req, res) => {
+    res.json({ athlete: await service(res).setArchived(scoped(res).id, true) });
+  });
+  router.post('/athletes/:id/restore', athleteScope(db, ROSTER_MANAGERS), async (_req, res) => {
+    res.json({ athlete: await service(res).setArchived(scoped(res).id, false) });
+  });
+
+  router.get('/athletes/:id/consents', athleteScope(db, ALL_ROLES), async (_req, res) => {
+    res.json({ consents: await service(res).consentHistory(scoped(res).id) });
+  });
+  router.post('/athletes/:id/consents', athleteScope(db, ROSTER_MANAGERS), validateBody(consentSchema), async (req, res) => {
+    res.status(201).json(await service(res).recordConsent(scoped(res).id, req.body));
+  });
+
+  router.post('/athletes/:id/guardians', athleteScope(db, ROSTER_MANAGERS), validateBody(guardianSchema), async (req, res) => {
+    res.status(201).json({ athlete: await service(res).linkGuardian(scoped(res).id, req.body) });
+  });
+  router.delete('/athletes/:id/guardians/:userId', athleteScope(db, ROSTER_MANAGERS), async (req, res) => {
+    const userId = requireUuid(String(req.params.userId), 'This guardian link');
+    res.json({ athlete: await service(res).unlinkGuardian(scoped(res).id, userId) });
   });
 
   return router;

@@ -1,12 +1,15 @@
 import { useLocalSearchParams } from 'expo-router';
 import { AthleteProfile } from '@/features/athletes/components/athlete-profile';
+import { AthleteRecords } from '@/features/athletes/components/athlete-records';
 import { Page } from '@/features/ui/components/page';
 
 export default function AthleteScreen() {
   const { id } = useLocalSearchParams<{ id: string }>();
+  const athleteId = String(id);
   return (
     <Page>
-      <AthleteProfile id={String(id)} />
+      <AthleteProfile id={athleteId} />
+      <AthleteRecords id={athleteId} />
     </Page>
   );
 }

@@ -4,12 +4,17 @@ import { useActiveClub } from '@/features/session/active-club';
 import { athleteKeys, ROSTER_STALE_MS } from './keys';
 import type { Athlete } from './types';
 
-export const getAthletes = () => api<{ athletes: Athlete[] }>('/athletes');
+export const getAthletes = (includeArchived = false) =>
+  api<{ athletes: Athlete[] }>(includeArchived ? '/athletes?archived=include' : '/athletes');
 
-export const athletesQueryOptions = (clubId: string) =>
-  queryOptions({ queryKey: athleteKeys.list(clubId), queryFn: getAthletes, staleTime: ROSTER_STALE_MS });
+export const athletesQueryOptions = (clubId: string, options: { includeArchived?: boolean } = {}) =>
+  queryOptions({
+    queryKey: athleteKeys.list(clubId, options),
+    queryFn: () => getAthletes(options.includeArchived),
+    staleTime: ROSTER_STALE_MS,
+  });
 
-export function useAthletesQuery() {
+export function useAthletesQuery(options: { includeArchived?: boolean } = {}) {
   const { membership } = useActiveClub();
-  return useQuery(athletesQueryOptions(membership.clubId));
+  return useQuery(athletesQueryOptions(membership.clubId, options));
 }

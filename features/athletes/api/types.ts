@@ -1,4 +1,7 @@
+import type { ConsentKind, RosterColumn } from '../schemas';
+
 export type ConsentView = { granted: boolean; decidedOn: string } | null;
+export type Guardian = { userId: string; displayName: string; email: string };
 export type Athlete = {
   id: string;
   clubId: string;
@@ -12,5 +15,24 @@ export type Athlete = {
   takeOffLeg: 'left' | 'right';
   archived: boolean;
   consents: { photos: ConsentView; emailSummaries: ConsentView };
+  /** Club staff only; parents do not see the other adults linked to a child. */
+  guardians?: Guardian[];
 };
 export type SquadSummary = { id: string; name: string; athleteCount: number };
+export type Squad = { id: string; name: string; archived: boolean };
+export type ConsentRecord = {
+  id: string;
+  kind: ConsentKind;
+  granted: boolean;
+  decidedOn: string;
+  recordedBy: string | null;
+  recordedAt: string;
+};
+export type ImportReportRow = {
+  line: number;
+  ok: boolean;
+  /** Keyed by CSV column, or `row` for the line as a whole. */
+  errors: Partial<Record<RosterColumn | 'row', string>>;
+  values: Partial<Record<RosterColumn, string>>;
+};
+export type ImportReport = { rows: ImportReportRow[]; okCount: number; errorCount: number; created?: number };

@@ -1,20 +1,25 @@
+import { Link } from 'expo-router';
 import { useMemo, useState } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { useActiveClub } from '@/features/session/active-club';
+import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
-import { useBreakpoints } from '@/features/ui/breakpoints';
-import { space } from '@/features/ui/theme';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { useAthletesQuery } from '../api/get-athletes';
 import type { Athlete } from '../api/types';
+import { canManageRoster } from '../roles';
 import { AthleteRow } from './athlete-row';
 
 /** Every athlete of the club, grouped by squad, with a name filter. Side by side on wide screens. */
 export function AthleteList() {
-  const athletes = useAthletesQuery();
+  const { membership } = useActiveClub();
+  const [showArchived, setShowArchived] = useState(false);
+  const athletes = useAthletesQuery({ includeArchived: showArchived });
   const [filter, setFilter] = useState('');
-  const { isWide } = useBreakpoints();
+  const { isWide, isTabletUp } = useBreakpoints();
   const groups = useMemo(() => {
     const needle = filter.trim().toLowerCase();
     const map = new Map<string, Athlete[]>();
@@ -26,12 +31,35 @@ export function AthleteList() {
     return [...map.entries()].sort(([a], [b]) => a.localeCompare(b));
   }, [athletes.data, filter]);
 
-  if (athletes.error) return <Notice tone="error">{athletes.error.message}</Notice>;
   return (
     <View style={styles.wrap}>
-      <TextField label="Find an athlete" placeholder="Type a name" value={filter} onChangeText={setFilter} autoCorrect={false} />
+      {canManageRoster(membership.role) ? (
+        <View style={[styles.actions, isTabletUp && styles.actionsWide]}>
+          <ActionLink href="/athletes/new" label="Add athlete" testID="add-athlete" primary />
+          <ActionLink href="/athletes/import" label="Import from CSV" testID="import-csv" />
+          <ActionLink href="/squads" label="Manage squads" testID="manage-squads" />
+        </View>
+      ) : null}
+      <View style={[styles.tools, isTabletUp && styles.toolsWide]}>
+        <View style={styles.search}>
+          <TextField label="Find an athlete" placeholder="Type a name" value={filter} onChangeText={setFilter} autoCorrect={false} />
+        </View>
+        <Pressable
+          accessibilityRole="checkbox"
+          accessibilityState={{ checked: showArchived }}
+          testID="show-archived"
+          onPress={() => setShowArchived((v) => !v)}
+          style={styles.toggle}
+        >
+          <View style={[styles.box, showArchived && styles.boxOn]}>{showArchived ? <Text style={styles.tick}>✓</Text> : null}</View>
+          <Text>Show archived athletes</Text>
+        </Pressable>
+      </View>
+      {athletes.error ? <Notice tone="error">{athletes.error.message}</Notice> : null}
       {athletes.isPending ? <Text>Loading athletes…</Text> : null}
-      {!athletes.isPending && groups.length === 0 ? <Text>No athlete matches “{filter}”.</Text> : null}
+      {athletes.data && groups.length === 0 ? (
+        <Text>{filter ? `No athlete matches “${filter}”.` : 'No athletes yet.'}</Text>
+      ) : null}
       <View style={[styles.groups, isWide && styles.groupsWide]}>
         {groups.map(([squad, list]) => (
           <Card key={squad} style={isWide ? styles.groupWide : undefined}>
@@ -50,9 +78,38 @@ export function AthleteList() {
   );
 }
 
+function ActionLink({ href, label, testID, primary = false }: { href: string; label: string; testID: string; primary?: boolean }) {
+  return (
+    <Link href={href as never} testID={testID} style={[styles.action, primary ? styles.actionPrimary : styles.actionSecondary]}>
+      <Text style={[styles.actionText, primary && styles.actionTextPrimary]}>{label}</Text>
+    </Link>
+  );
+}
+
 const styles = StyleSheet.create({
   wrap: { gap: space.lg },
+  actions: { gap: space.sm },
+  actionsWide: { flexDirection: 'row', flexWrap: 'wrap' },
+  action: {
+    minHeight: TOUCH_MIN,
+    paddingHorizontal: space.lg,
+    paddingVertical: space.md,
+    borderRadius: radius.md,
+    borderWidth: 2,
+    textAlign: 'center',
+  },
+  actionPrimary: { backgroundColor: colors.pine, borderColor: colors.pine },
+  actionSecondary: { backgroundColor: colors.surface, borderColor: colors.pine },
+  actionText: { fontFamily: fonts.bold, fontSize: 17, color: colors.pine },
+  actionTextPrimary: { color: '#fff' },
+  tools: { gap: space.md },
+  toolsWide: { flexDirection: 'row', alignItems: 'flex-end' },
+  search: { flexGrow: 1, flexShrink: 1, minWidth: 0 },
+  toggle: { minHeight: TOUCH_MIN, flexDirection: 'row', alignItems: 'center', gap: space.sm, paddingHorizontal: space.xs },
+  box: { width: 26, height: 26, borderRadius: radius.sm, borderWidth: 2, borderColor: colors.pine, alignItems: 'center', justifyContent: 'center', backgroundColor: colors.surface },
+  boxOn: { backgroundColor: colors.pine },
+  tick: { color: '#fff', fontFamily: fonts.bold, fontSize: 16, lineHeight: 18 },
   groups: { gap: space.lg },
-  groupsWide: { flexDirection: 'row', alignItems: 'flex-start' },
-  groupWide: { flex: 1 },
+  groupsWide: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-start' },
+  groupWide: { flexGrow: 1, flexBasis: 320 },
 });

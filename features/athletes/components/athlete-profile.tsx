@@ -1,39 +1,93 @@
+import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
-import { ageInYears, todayIso } from '@/features/athletes/age';
+import { useActiveClub } from '@/features/session/active-club';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
-import { space } from '@/features/ui/theme';
+import { colors, fonts, radius, space } from '@/features/ui/theme';
+import { ageInYears, todayIso } from '../age';
 import { useAthleteQuery } from '../api/get-athlete';
-import type { ConsentView } from '../api/types';
+import type { Athlete } from '../api/types';
+import { useUpdateAthleteMutation } from '../api/update-athlete';
+import { canManageRoster } from '../roles';
+import { SEX_LABELS, SIDE_LABELS } from '../schemas';
+import { ArchiveControl } from './archive-control';
+import { AthleteForm } from './athlete-form';
+import { MoveSquad } from './move-squad';
 
-function consentText(c: ConsentView, yes: string, no: string) {
-  if (!c) return 'Not recorded yet';
-  return `${c.granted ? yes : no} (recorded ${c.decidedOn})`;
-}
-
+/** Who the athlete is, and (for admins and head coaches) editing, moving and archiving. */
 export function AthleteProfile({ id }: { id: string }) {
   const query = useAthleteQuery(id);
+  const { membership } = useActiveClub();
+  const { isTabletUp } = useBreakpoints();
+  const [editing, setEditing] = useState(false);
   if (query.isPending) return <Text>Loading…</Text>;
   if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
   const a = query.data.athlete;
+  const manage = canManageRoster(membership.role);
   return (
     <View style={styles.wrap}>
-      <Text variant="title" accessibilityRole="header">
-        {a.firstName} {a.lastName}
-      </Text>
-      <Card>
-        <Fact label="Squad" value={a.squadName ?? 'No squad'} />
-        <Fact label="Age" value={`${ageInYears(a.dateOfBirth, todayIso())} years (born ${a.dateOfBirth})`} />
-        <Fact label="Sex" value={a.sex === 'female' ? 'Female' : 'Male'} />
-        <Fact label="Racket hand" value={a.racketHand === 'left' ? 'Left' : 'Right'} />
-        <Fact label="Take-off leg" value={a.takeOffLeg === 'left' ? 'Left' : 'Right'} />
-      </Card>
-      <Card>
-        <Text variant="heading">Consent</Text>
-        <Fact label="Photos" value={consentText(a.consents.photos, 'Photos may be taken', 'No photos')} />
-        <Fact label="E-mail summaries" value={consentText(a.consents.emailSummaries, 'Summaries may be e-mailed', 'No e-mails')} />
-      </Card>
+      <View style={styles.head}>
+        <Text variant="title" accessibilityRole="header">
+          {a.firstName} {a.lastName}
+        </Text>
+        <View style={styles.tags}>
+          <Text variant="small">{a.squadName ?? 'No squad'}</Text>
+          {a.archived ? (
+            <View style={styles.archivedTag} testID="archived-tag">
+              <Text variant="small" style={styles.archivedText}>
+                Archived
+              </Text>
+            </View>
+          ) : null}
+        </View>
+      </View>
+      <View style={[styles.cols, isTabletUp && styles.colsWide]}>
+        <Card style={isTabletUp ? [styles.col, styles.colMain] : undefined}>
+          <View style={styles.cardHead}>
+            <Text variant="heading">{editing ? 'Edit details' : 'Details'}</Text>
+            {manage && !editing && !a.archived ? (
+              <Button label="Edit" tone="secondary" testID="athlete-edit" onPress={() => setEditing(true)} />
+            ) : null}
+          </View>
+          {editing ? <EditDetails athlete={a} onDone={() => setEditing(false)} /> : <Facts athlete={a} />}
+        </Card>
+        {manage ? (
+          <Card style={isTabletUp ? styles.col : undefined}>
+            <Text variant="heading">Squad and status</Text>
+            {!a.archived ? <MoveSquad athlete={a} /> : null}
+            <ArchiveControl athlete={a} />
+          </Card>
+        ) : null}
+      </View>
+    </View>
+  );
+}
+
+function EditDetails({ athlete, onDone }: { athlete: Athlete; onDone: () => void }) {
+  const update = useUpdateAthleteMutation(athlete.id);
+  return (
+    <AthleteForm
+      athlete={athlete}
+      submitLabel="Save changes"
+      onCancel={onDone}
+      onSubmit={async (values) => {
+        await update.mutateAsync(values);
+        onDone();
+      }}
+    />
+  );
+}
+
+function Facts({ athlete: a }: { athlete: Athlete }) {
+  return (
+    <View style={styles.facts}>
+      <Fact label="Age" value={`${ageInYears(a.dateOfBirth, todayIso())} years (born ${a.dateOfBirth})`} />
+      <Fact label="Sex" value={SEX_LABELS[a.sex]} />
+      <Fact label="Racket hand" value={SIDE_LABELS[a.racketHand]} />
+      <Fact label="Take-off leg" value={SIDE_LABELS[a.takeOffLeg]} />
     </View>
   );
 }
@@ -47,4 +101,17 @@ function Fact({ label, value }: { label: string; value: string }) {
   );
 }
 
-const styles = StyleSheet.create({ wrap: { gap: space.lg }, fact: { gap: 2 } });
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  head: { gap: space.xs },
+  tags: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' },
+  archivedTag: { backgroundColor: colors.amberSoft, borderRadius: radius.sm, paddingHorizontal: space.sm, paddingVertical: 2 },
+  archivedText: { color: colors.amber, fontFamily: fonts.bold },
+  cols: { gap: space.lg },
+  colsWide: { flexDirection: 'row', alignItems: 'flex-start' },
+  col: { flexGrow: 1, flexBasis: 0, minWidth: 0 },
+  colMain: { flexGrow: 2 },
+  cardHead: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.md, flexWrap: 'wrap' },
+  facts: { gap: space.md },
+  fact: { gap: 2 },
+});

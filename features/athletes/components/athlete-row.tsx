@@ -19,7 +19,11 @@ export function AthleteRow({ athlete }: { athlete: Athlete }) {
             {athlete.squadName ? ` · ${athlete.squadName}` : ''}
           </Text>
         </View>
-        {noPhotos ? (
+        {athlete.archived ? (
+          <View style={[styles.tag, styles.archivedTag]}>
+            <Text variant="small">Archived</Text>
+          </View>
+        ) : noPhotos ? (
           <View style={styles.tag}>
             <Text variant="small" style={styles.tagText}>
               No photo consent
@@ -37,4 +41,5 @@ const styles = StyleSheet.create({
   main: { flex: 1, gap: 2 },
   tag: { backgroundColor: colors.amberSoft, borderRadius: radius.sm, paddingHorizontal: space.sm, paddingVertical: 2 },
   tagText: { color: colors.amber },
+  archivedTag: { backgroundColor: colors.line },
 });

@@ -1,0 +1,139 @@
+import { Formik } from 'formik';
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { ApiError } from '@/features/api/client';
+import { useActiveClub } from '@/features/session/active-club';
+import { Button } from '@/features/ui/components/button';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { TextField } from '@/features/ui/components/text-field';
+import { colors, fonts, space } from '@/features/ui/theme';
+import { todayIso } from '../age';
+import { useConsentsQuery } from '../api/get-consents';
+import { useRecordConsentMutation } from '../api/record-consent';
+import type { Athlete, ConsentView } from '../api/types';
+import { canManageRoster } from '../roles';
+import { CONSENT_KINDS, CONSENT_LABELS, consentSchema, type ConsentInput, type ConsentKind } from '../schemas';
+import { ChoiceGroup } from './choice-group';
+
+const kindOptions = CONSENT_KINDS.map((k) => ({ value: k, label: CONSENT_LABELS[k].title }));
+const answerOptions = [
+  { value: 'yes', label: 'Yes' },
+  { value: 'no', label: 'No' },
+] as const;
+
+function inForce(c: ConsentView, kind: ConsentKind) {
+  if (!c) return 'Not recorded yet';
+  return `${c.granted ? CONSENT_LABELS[kind].yes : CONSENT_LABELS[kind].no} (decided ${c.decidedOn})`;
+}
+
+/** The decisions in force, their history (newest first), and recording a new decision. */
+export function ConsentPanel({ athlete }: { athlete: Athlete }) {
+  const { membership } = useActiveClub();
+  const history = useConsentsQuery(athlete.id);
+  const [recording, setRecording] = useState(false);
+  const manage = canManageRoster(membership.role);
+  return (
+    <Card testID="consent-panel">
+      <Text variant="heading">Consent</Text>
+      <View style={styles.current}>
+        <Current label={CONSENT_LABELS.photos.title} value={inForce(athlete.consents.photos, 'photos')} warn={athlete.consents.photos?.granted !== true} testID="consent-photos" />
+        <Current label={CONSENT_LABELS.email_summaries.title} value={inForce(athlete.consents.emailSummaries, 'email_summaries')} testID="consent-email" />
+      </View>
+      {manage && !recording ? (
+        <Button label="Record a decision" tone="secondary" testID="consent-record" onPress={() => setRecording(true)} />
+      ) : null}
+      {manage && recording ? <RecordDecision athleteId={athlete.id} onDone={() => setRecording(false)} /> : null}
+      <Text variant="label">History</Text>
+      {history.error ? <Notice tone="error">{history.error.message}</Notice> : null}
+      {history.data?.consents.length === 0 ? <Text variant="small">No decision recorded yet.</Text> : null}
+      <View testID="consent-history">
+        {history.data?.consents.map((c) => (
+          <View key={c.id} style={styles.entry}>
+            <Text>
+              {CONSENT_LABELS[c.kind].title}: <Text style={styles.bold}>{c.granted ? 'yes' : 'no'}</Text>, decided {c.decidedOn}
+            </Text>
+            <Text variant="small">Recorded {c.recordedBy ? `by ${c.recordedBy}` : 'at set-up'} on {c.recordedAt.slice(0, 10)}</Text>
+          </View>
+        ))}
+      </View>
+    </Card>
+  );
+}
+
+function Current({ label, value, warn = false, testID }: { label: string; value: string; warn?: boolean; testID?: string }) {
+  return (
+    <View style={styles.fact} testID={testID}>
+      <Text variant="small">{label}</Text>
+      <Text style={warn ? styles.warn : undefined}>{value}</Text>
+    </View>
+  );
+}
+
+type Values = { kind: ConsentKind | ''; granted: 'yes' | 'no' | ''; decidedOn: string };
+
+function RecordDecision({ athleteId, onDone }: { athleteId: string; onDone: () => void }) {
+  const record = useRecordConsentMutation(athleteId);
+  const [failure, setFailure] = useState<string | null>(null);
+  const toInput = (v: Values) => ({ kind: v.kind, granted: v.granted === '' ? undefined : v.granted === 'yes', decidedOn: v.decidedOn });
+  return (
+    <Formik<Values>
+      initialValues={{ kind: '', granted: '', decidedOn: todayIso() }}
+      validate={async (values) => {
+        try {
+          await consentSchema.validate(toInput(values), { abortEarly: false });
+          return {};
+        } catch (error) {
+          const fields: Record<string, string> = {};
+          for (const e of (error as { inner?: { path?: string; message: string }[] }).inner ?? []) {
+            if (e.path && !fields[e.path]) fields[e.path] = e.message;
+          }
+          return fields;
+        }
+      }}
+      onSubmit={async (values, helpers) => {
+        setFailure(null);
+        try {
+          await record.mutateAsync(consentSchema.cast(toInput(values)) as ConsentInput);
+          onDone();
+        } catch (error) {
+          if (error instanceof ApiError && error.fields) helpers.setErrors(error.fields);
+          else setFailure(error instanceof Error ? error.message : String(error));
+        }
+      }}
+    >
+      {({ values, errors, submitCount, touched, setFieldValue, handleChange, handleBlur, handleSubmit, isSubmitting }) => (
+        <View style={styles.form}>
+          {failure ? <Notice tone="error">{failure}</Notice> : null}
+          <ChoiceGroup label="Decision about" name="consent-kind" options={kindOptions} value={values.kind} onChange={(v) => setFieldValue('kind', v)} error={submitCount > 0 && errors.kind} />
+          <ChoiceGroup label="Answer" name="consent-answer" options={answerOptions} value={values.granted} onChange={(v) => setFieldValue('granted', v)} error={submitCount > 0 && errors.granted} />
+          <TextField
+            label="Decided on"
+            testID="consent-date"
+            placeholder="YYYY-MM-DD"
+            hint="The day the family gave or withdrew consent."
+            value={values.decidedOn}
+            onChangeText={handleChange('decidedOn')}
+            onBlur={handleBlur('decidedOn')}
+            error={(touched.decidedOn || submitCount > 0) && errors.decidedOn}
+          />
+          <View style={styles.actions}>
+            <Button label="Save decision" testID="consent-save" busy={isSubmitting} onPress={() => handleSubmit()} />
+            <Button label="Cancel" tone="secondary" onPress={onDone} disabled={isSubmitting} />
+          </View>
+        </View>
+      )}
+    </Formik>
+  );
+}
+
+const styles = StyleSheet.create({
+  current: { gap: space.md },
+  fact: { gap: 2 },
+  warn: { color: colors.amber, fontFamily: fonts.bold },
+  bold: { fontFamily: fonts.bold },
+  entry: { gap: 2, paddingVertical: space.sm, borderBottomWidth: 1, borderBottomColor: colors.line },
+  form: { gap: space.md },
+  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+});

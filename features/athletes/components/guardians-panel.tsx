@@ -1,0 +1,94 @@
+import { Formik } from 'formik';
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { ApiError } from '@/features/api/client';
+import { useActiveClub } from '@/features/session/active-club';
+import { Button } from '@/features/ui/components/button';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { TextField } from '@/features/ui/components/text-field';
+import { colors, space } from '@/features/ui/theme';
+import { useLinkGuardianMutation } from '../api/link-guardian';
+import type { Athlete } from '../api/types';
+import { useUnlinkGuardianMutation } from '../api/unlink-guardian';
+import { canManageRoster } from '../roles';
+import { guardianSchema, type GuardianInput } from '../schemas';
+
+/** The parents and guardians who see this athlete in their account. Staff only. */
+export function GuardiansPanel({ athlete }: { athlete: Athlete }) {
+  const { membership } = useActiveClub();
+  const manage = canManageRoster(membership.role);
+  const unlink = useUnlinkGuardianMutation(athlete.id);
+  const guardians = athlete.guardians ?? [];
+  return (
+    <Card testID="guardians-panel">
+      <Text variant="heading">Parents and guardians</Text>
+      {guardians.length === 0 ? <Text variant="small">No parent or guardian is linked yet.</Text> : null}
+      {unlink.error ? <Notice tone="error">{unlink.error.message}</Notice> : null}
+      {guardians.map((g) => (
+        <View key={g.userId} style={styles.row}>
+          <View style={styles.who}>
+            <Text variant="label">{g.displayName}</Text>
+            <Text variant="small">{g.email}</Text>
+          </View>
+          {manage ? (
+            <Button
+              label="Unlink"
+              tone="secondary"
+              accessibilityLabel={`Unlink ${g.displayName}`}
+              busy={unlink.isPending && unlink.variables === g.userId}
+              onPress={() => unlink.mutate(g.userId)}
+            />
+          ) : null}
+        </View>
+      ))}
+      {manage ? <LinkGuardian athleteId={athlete.id} /> : null}
+    </Card>
+  );
+}
+
+function LinkGuardian({ athleteId }: { athleteId: string }) {
+  const link = useLinkGuardianMutation(athleteId);
+  const [failure, setFailure] = useState<string | null>(null);
+  return (
+    <Formik<GuardianInput>
+      initialValues={{ email: '' }}
+      validationSchema={guardianSchema}
+      onSubmit={async (values, helpers) => {
+        setFailure(null);
+        try {
+          await link.mutateAsync(guardianSchema.cast(values));
+          helpers.resetForm();
+        } catch (error) {
+          if (error instanceof ApiError && error.fields) helpers.setErrors(error.fields);
+          else setFailure(error instanceof Error ? error.message : String(error));
+        }
+      }}
+    >
+      {({ values, errors, touched, handleChange, handleBlur, handleSubmit, isSubmitting }) => (
+        <View style={styles.form}>
+          {failure ? <Notice tone="error">{failure}</Notice> : null}
+          <TextField
+            label="Link a parent by e-mail"
+            testID="guardian-email"
+            hint="They need a parent account in the club: an admin invites them from People first."
+            autoCapitalize="none"
+            inputMode="email"
+            value={values.email}
+            onChangeText={handleChange('email')}
+            onBlur={handleBlur('email')}
+            error={touched.email && errors.email}
+          />
+          <Button label="Link parent" tone="secondary" testID="guardian-link" busy={isSubmitting} onPress={() => handleSubmit()} />
+        </View>
+      )}
+    </Formik>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: { flexDirection: 'row', alignItems: 'center', gap: space.md, paddingVertical: space.sm, borderBottomWidth: 1, borderBottomColor: colors.line },
+  who: { flex: 1, gap: 2, minWidth: 0 },
+  form: { gap: space.md },
+});

@@ -1,0 +1,29 @@
+import { useRouter } from 'expo-router';
+import { useActiveClub } from '@/features/session/active-club';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { useCreateAthleteMutation } from '../api/create-athlete';
+import { canManageRoster } from '../roles';
+import { AthleteForm } from './athlete-form';
+
+/** Adds one athlete, then opens their page (where consent and parents are recorded). */
+export function NewAthlete() {
+  const { membership } = useActiveClub();
+  const create = useCreateAthleteMutation();
+  const router = useRouter();
+  if (!canManageRoster(membership.role)) {
+    return <Notice>Only the club admin and head coaches add athletes.</Notice>;
+  }
+  return (
+    <Card>
+      <AthleteForm
+        submitLabel="Add athlete"
+        onCancel={() => router.back()}
+        onSubmit={async (values) => {
+          const { athlete } = await create.mutateAsync(values);
+          router.replace(`/athletes/${athlete.id}`);
+        }}
+      />
+    </Card>
+  );
+}

@@ -1,0 +1,198 @@
+import { Link } from 'expo-router';
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { ApiError } from '@/features/api/client';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Button } from '@/features/ui/components/button';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { useSquadsQuery } from '../api/get-squads';
+import { useCheckRosterMutation, useImportRosterMutation, type RosterFile } from '../api/import-roster';
+import type { ImportReport, ImportReportRow } from '../api/types';
+import { ROSTER_COLUMN_LABELS, ROSTER_HEADER_LINE, type RosterColumn } from '../schemas';
+import { ExampleDownload, RosterFilePicker } from './file-picker';
+
+const READY_SHOWN = 30;
+
+/** Choose a CSV, read the per-line report, then import every line at once (only when all are fine). */
+export function RosterImport() {
+  const { isWide } = useBreakpoints();
+  const [file, setFile] = useState<RosterFile | null>(null);
+  const check = useCheckRosterMutation();
+  const commit = useImportRosterMutation();
+
+  const pick = (picked: RosterFile) => {
+    setFile(picked);
+    commit.reset();
+    check.mutate(picked);
+  };
+  const runImport = () => {
+    if (!file) return;
+    commit.mutate(file, {
+      // Someone changed the roster since the check: show the fresh report.
+      onError: (error) => {
+        if (error instanceof ApiError && error.code === 'import_has_errors') check.mutate(file);
+      },
+    });
+  };
+  const report = check.data;
+  const done = commit.data;
+
+  return (
+    <View style={[styles.cols, isWide && styles.colsWide]}>
+      <Card style={isWide ? styles.mainCol : undefined}>
+        <Text variant="heading">Check and import</Text>
+        {done ? (
+          <Notice title={`${done.created ?? done.okCount} athletes imported`} testID="import-done">
+            <Text>They are in their squads now, with their consent answers recorded as of today.</Text>
+            <Link href="/athletes" style={styles.link}>
+              <Text variant="label">See the athletes →</Text>
+            </Link>
+          </Notice>
+        ) : (
+          <Text>Choose the file: every line is checked first, and nothing is saved until you confirm.</Text>
+        )}
+        <RosterFilePicker label={file ? 'Choose another file' : 'Choose a CSV file'} onPick={pick} disabled={check.isPending || commit.isPending} />
+        {file ? (
+          <Text variant="small" testID="roster-file-name">
+            {file.name} · {Math.max(1, Math.round(file.size / 1024))} KB
+          </Text>
+        ) : null}
+        {check.isPending ? <Text>Checking every line…</Text> : null}
+        {check.error ? <Notice tone="error" title="This file cannot be imported" testID="import-file-error">{check.error.message}</Notice> : null}
+        {commit.error ? <Notice tone="error">{commit.error.message}</Notice> : null}
+        {report && !check.isPending && !done ? <Report report={report} /> : null}
+        {report && !check.isPending && !done && report.errorCount === 0 ? (
+          <Button
+            label={`Import ${report.okCount} athlete${report.okCount === 1 ? '' : 's'}`}
+            testID="import-commit"
+            busy={commit.isPending}
+            onPress={runImport}
+          />
+        ) : null}
+      </Card>
+      <View style={isWide ? styles.sideCol : undefined}>
+        <FileFormat />
+      </View>
+    </View>
+  );
+}
+
+function Report({ report }: { report: ImportReport }) {
+  const bad = report.rows.filter((r) => !r.ok);
+  const ready = report.rows.filter((r) => r.ok);
+  const total = report.rows.length;
+  return (
+    <View style={styles.report} testID="import-report">
+      {report.errorCount > 0 ? (
+        <Notice tone="caution" title={`${report.errorCount} of ${total} lines need attention`} testID="import-summary">
+          Nothing has been imported. Correct these lines in the spreadsheet, save it as CSV again, and choose the file again.
+        </Notice>
+      ) : (
+        <Notice title={`All ${total} lines are ready`} testID="import-summary">
+          Check the names below, then import.
+        </Notice>
+      )}
+      {bad.map((row) => (
+        <ProblemLine key={row.line} row={row} />
+      ))}
+      {ready.length > 0 ? (
+        <View style={styles.readyBox}>
+          <Text variant="label">Ready ({ready.length})</Text>
+          {ready.slice(0, READY_SHOWN).map((row) => (
+            <Text key={row.line} variant="small" testID="import-ready-line">
+              Line {row.line}: {personOf(row)}
+              {row.values.squad ? ` · ${row.values.squad}` : ''}
+            </Text>
+          ))}
+          {ready.length > READY_SHOWN ? <Text variant="small">…and {ready.length - READY_SHOWN} more.</Text> : null}
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
+function ProblemLine({ row }: { row: ImportReportRow }) {
+  return (
+    <View style={styles.problem} testID="import-problem-line">
+      <Text variant="label">
+        Line {row.line}: {personOf(row)}
+      </Text>
+      {Object.entries(row.errors).map(([field, message]) => (
+        <Text key={field} style={styles.problemText}>
+          <Text style={styles.problemField}>{ROSTER_COLUMN_LABELS[field as RosterColumn] ?? field}:</Text> {message}
+        </Text>
+      ))}
+    </View>
+  );
+}
+
+const personOf = (row: ImportReportRow) => `${row.values.first_name ?? ''} ${row.values.last_name ?? ''}`.trim() || '(no name)';
+
+function FileFormat() {
+  const squads = useSquadsQuery();
+  const squadNames = squads.data?.squads.map((s) => s.name).join(', ');
+  return (
+    <Card>
+      <Text variant="heading">The file</Text>
+      <Text>
+        One athlete per line, in a CSV file saved from a spreadsheet (“CSV UTF-8”), at most 1 MB. The first line names the
+        columns, in any order:
+      </Text>
+      <Text style={styles.code} selectable testID="roster-header-example">
+        {ROSTER_HEADER_LINE}
+      </Text>
+      <ExampleDownload />
+      <View style={styles.columns}>
+        <Column name="first_name, last_name" text="The athlete’s names." />
+        <Column name="date_of_birth" text="Year-month-day, e.g. 2014-03-09." />
+        <Column name="sex" text="F or M (female or male)." />
+        <Column name="racket_hand, take_off_leg" text="L or R (left or right)." />
+        <Column name="squad" text={squadNames ? `One of: ${squadNames}.` : 'The name of one of the club’s squads.'} />
+        <Column name="photo_consent, email_summaries_consent" text="yes or no (y/n also work). Recorded as decided today." />
+        <Column name="guardian_email" text="Optional: the e-mail of a parent account already in the club, to link." />
+      </View>
+      <Text variant="small">A child already in the club (same name and date of birth), or listed twice, is pointed out and not imported.</Text>
+    </Card>
+  );
+}
+
+function Column({ name, text }: { name: string; text: string }) {
+  return (
+    <View style={styles.column}>
+      <Text style={styles.columnName}>{name}</Text>
+      <Text variant="small">{text}</Text>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  cols: { gap: space.lg },
+  colsWide: { flexDirection: 'row', alignItems: 'flex-start' },
+  sideCol: { flexGrow: 2, flexBasis: 0, minWidth: 0 },
+  mainCol: { flexGrow: 3, flexBasis: 0, minWidth: 0 },
+  link: { minHeight: TOUCH_MIN, paddingVertical: space.md },
+  code: {
+    fontFamily: 'monospace',
+    fontSize: 14,
+    lineHeight: 20,
+    color: colors.ink,
+    backgroundColor: colors.paper,
+    borderWidth: 1,
+    borderColor: colors.line,
+    borderRadius: radius.sm,
+    padding: space.sm,
+    // The header has no spaces: let it wrap anywhere rather than run off a phone's screen.
+    wordBreak: 'break-all',
+  } as never,
+  columns: { gap: space.sm },
+  column: { gap: 0 },
+  columnName: { fontFamily: 'monospace', fontSize: 14, color: colors.pineDark },
+  report: { gap: space.md },
+  readyBox: { gap: space.xs, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.sm },
+  problem: { gap: space.xs, padding: space.md, borderRadius: radius.md, borderWidth: 2, borderColor: colors.brick, backgroundColor: colors.brickSoft },
+  problemText: { fontFamily: fonts.regular, fontSize: 16, lineHeight: 22, color: colors.ink },
+  problemField: { fontFamily: fonts.bold },
+});

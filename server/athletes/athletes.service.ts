@@ -1,0 +1,176 @@
+import type { Db } from '@/db/client';
+import { ROLE_LABELS } from '@/features/auth/schemas';
+import type { AthleteInput, AthletePatchInput, ConsentInput, GuardianInput, SquadInput } from '@/features/athletes/schemas';
+import type { ClubScope } from '@/server/access/scope';
+import { AppError, badRequest, conflict, forbidden, notFound } from '@/server/http/errors';
+import { athletesRepo, type AthleteValues, type AthletesRepo, type AthleteView, type GuardianView } from './athletes.repo';
+
+/** The roles that change the roster; everyone else reads it. */
+export const ROSTER_MANAGERS = ['admin', 'head_coach'] as const;
+
+export const DUPLICATE_MESSAGE = 'An athlete with this name and date of birth is already in the club.';
+const DUPLICATE_ARCHIVED_MESSAGE = 'An archived athlete with this name and date of birth is in the club: restore them instead.';
+
+export type AthleteDetail = AthleteView & { guardians?: GuardianView[] };
+
+/** Rules of the roster, on top of a repository built from the caller's scope. */
+export function athletesService(db: Db, scope: ClubScope) {
+  const repo = athletesRepo(db, scope);
+
+  async function mustGet(id: string): Promise<AthleteView> {
+    const athlete = await repo.get(id);
+    // The athlete exists in this club (the router looked its club up) but is outside the caller's scope.
+    if (!athlete) throw forbidden('You can only see the athletes linked to you.');
+    return athlete;
+  }
+
+  async function detail(id: string): Promise<AthleteDetail> {
+    const athlete = await mustGet(id);
+    // Parents see their child, not the other adults linked to them.
+    if (scope.role === 'parent') return athlete;
+    return { ...athlete, guardians: await repo.guardians(id) };
+  }
+
+  async function activeSquadOrFail(r: AthletesRepo, squadId: string) {
+    const squad = await r.squad(squadId);
+    if (!squad || squad.archivedAt) throw badRequest('Choose one of the club’s squads.', { squadId: 'Choose one of the club’s squads.' });
+    return squad;
+  }
+
+  async function refuseDuplicate(r: AthletesRepo, v: Pick<AthleteValues, 'firstName' | 'lastName' | 'dateOfBirth'>, exceptId?: string) {
+    const same = await r.sameIdentity(v.firstName, v.lastName, v.dateOfBirth, exceptId);
+    if (same.length > 0) {
+      const message = same.every((s) => s.archived) ? DUPLICATE_ARCHIVED_MESSAGE : DUPLICATE_MESSAGE;
+      throw new AppError(409, 'duplicate', message, { firstName: message });
+    }
+  }
+
+  return {
+    detail,
+
+    async create(input: AthleteInput): Promise<AthleteDetail> {
+      const id = await db.transaction(async (tx) => {
+        const r = athletesRepo(tx, scope);
+        await r.lockRoster();
+        await activeSquadOrFail(r, input.squadId);
+        await refuseDuplicate(r, input);
+        return r.create(input);
+      });
+      return detail(id);
+    },
+
+    async update(id: string, patch: AthletePatchInput): Promise<AthleteDetail> {
+      const current = await mustGet(id);
+      if (current.archived) throw conflict('This athlete is archived: restore them before editing.');
+      await db.transaction(async (tx) => {
+        const r = athletesRepo(tx, scope);
+        await r.lockRoster();
+        if (patch.squadId !== undefined && patch.squadId !== current.squadId) await activeSquadOrFail(r, patch.squadId);
+        const merged = { ...current, ...definedOnly(patch) };
+        if (patch.firstName !== undefined || patch.lastName !== undefined || patch.dateOfBirth !== undefined) {
+          await refuseDuplicate(r, merged, id);
+        }
+        await r.update(id, definedOnly(patch));
+      });
+      return detail(id);
+    },
+
+    async setArchived(id: string, archived: boolean): Promise<AthleteDetail> {
+      const current = await mustGet(id);
+      if (current.archived === archived) return detail(id);
+      await db.transaction(async (tx) => {
+        const r = athletesRepo(tx, scope);
+        await r.setArchived(id, archived);
+        // Squads are archived only when empty, so a restored athlete may come back to an archived squad:
+        // they return without a squad, to be placed by the coach.
+        if (!archived && current.squadId) {
+          const squad = await r.squad(current.squadId);
+          if (!squad || squad.archivedAt) await r.update(id, { squadId: null });
+        }
+      });
+      return detail(id);
+    },
+
+    async consentHistory(id: string) {
+      await mustGet(id);
+      return repo.consentHistory(id);
+    },
+
+    async recordConsent(id: string, input: ConsentInput) {
+      await mustGet(id);
+      await repo.recordConsents([{ athleteId: id, kind: input.kind, granted: input.granted, decidedOn: input.decidedOn }]);
+      return { athlete: await detail(id), consents: await repo.consentHistory(id) };
+    },
+
+    async linkGuardian(id: string, input: GuardianInput) {
+      await mustGet(id);
+      const member = (await repo.membersByEmail([input.email])).get(input.email);
+      if (!member) {
+        const message = 'No one with this e-mail is in the club yet. Invite them from People as a parent or guardian first, then link them here.';
+        throw new AppError(400, 'not_a_member', message, { email: message });
+      }
+      if (member.role !== 'parent') {
+        const message = `This e-mail belongs to the club’s ${ROLE_LABELS[member.role].toLowerCase()}; only parent or guardian accounts can be linked to a child.`;
+        throw new AppError(400, 'not_a_parent', message, { email: message });
+      }
+      await repo.linkGuardians([{ athleteId: id, userId: member.userId }]);
+      return detail(id);
+    },
+
+    async unlinkGuardian(id: string, userId: string) {
+      await mustGet(id);
+      if (!(await repo.unlinkGuardian(id, userId))) throw notFound('This guardian link');
+      return detail(id);
+    },
+
+    // --- squads -----------------------------------------------------------------------------------
+    async createSquad(input: SquadInput) {
+      return db.transaction(async (tx) => {
+        const r = athletesRepo(tx, scope);
+        await r.lockRoster();
+        await refuseSquadName(r, input.name);
+        return r.createSquad(input.name);
+      });
+    },
+
+    async renameSquad(id: string, input: SquadInput) {
+      return db.transaction(async (tx) => {
+        const r = athletesRepo(tx, scope);
+        await r.lockRoster();
+        const squad = await r.squad(id);
+        if (!squad) throw notFound('The squad');
+        if (squad.archivedAt) throw conflict('This squad is archived.');
+        await refuseSquadName(r, input.name, id);
+        return (await r.renameSquad(id, input.name))!;
+      });
+    },
+
+    async archiveSquad(id: string) {
+      return db.transaction(async (tx) => {
+        const r = athletesRepo(tx, scope);
+        await r.lockRoster();
+        const squad = await r.squad(id);
+        if (!squad) throw notFound('The squad');
+        if (squad.archivedAt) return squad;
+        const count = await r.activeAthleteCount(id);
+        if (count > 0) {
+          throw conflict(`${squad.name} still has ${count} athlete${count === 1 ? '' : 's'}: move or archive them first.`);
+        }
+        return (await r.archiveSquad(id))!;
+      });
+    },
+  };
+}
+
+async function refuseSquadName(r: AthletesRepo, name: string, exceptId?: string) {
+  if ((await r.activeSquadsNamed(name, exceptId)).length > 0) {
+    const message = 'The club already has a squad with this name.';
+    throw new AppError(409, 'duplicate', message, { name: message });
+  }
+}
+
+function definedOnly<T extends object>(value: T): { [K in keyof T]?: Exclude<T[K], undefined> } {
+  return Object.fromEntries(Object.entries(value).filter(([, v]) => v !== undefined)) as never;
+}
+
+export type AthletesService = ReturnType<typeof athletesService>;

@@ -1,0 +1,183 @@
+import { parse } from 'csv-parse/sync';
+import { ValidationError } from 'yup';
+import type { Db } from '@/db/client';
+import { todayIso } from '@/features/athletes/age';
+import { ROLE_LABELS } from '@/features/auth/schemas';
+import {
+  OPTIONAL_ROSTER_COLUMNS,
+  ROSTER_COLUMNS,
+  ROSTER_HEADER_LINE,
+  rosterRowSchema,
+  type RosterColumn,
+  type RosterRow,
+} from '@/features/athletes/schemas';
+import type { ClubScope } from '@/server/access/scope';
+import { badRequest } from '@/server/http/errors';
+import { fieldErrors } from '@/server/http/validate';
+import { athletesRepo, identityKey, type AthletesRepo } from './athletes.repo';
+
+export const MAX_IMPORT_BYTES = 1024 * 1024;
+export const MAX_IMPORT_ROWS = 1000;
+
+export type RawRow = { line: number; values: Partial<Record<RosterColumn, string>>; extraCells: number };
+export type ReportRow = { line: number; ok: boolean; errors: Record<string, string>; values: Partial<Record<RosterColumn, string>> };
+export type ImportReport = { rows: ReportRow[]; okCount: number; errorCount: number };
+
+const HEADER_HINT = `The first line must name the columns: ${ROSTER_HEADER_LINE}`;
+
+/**
+ * Reads an uploaded file as a roster CSV: UTF-8 text, a header naming the expected columns (any case,
+ * any order), one athlete per line. Throws a 400 that says what is wrong with the file as a whole;
+ * problems of single lines are left to the per-row report.
+ */
+export function readRosterCsv(bytes: Buffer): RawRow[] {
+  let text: string;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    throw badRequest('This file is not a CSV text file (it is not UTF-8 text). In a spreadsheet, use “Save as CSV UTF-8”.');
+  }
+  if (text.includes('\u0000')) throw badRequest('This file is not a CSV text file. In a spreadsheet, use “Save as CSV UTF-8”.');
+  let records: { record: string[]; info: { lines: number } }[];
+  try {
+    records = parse(text, { bom: true, trim: true, skip_empty_lines: true, relax_column_count: true, info: true }) as never;
+  } catch (error) {
+    const line = (error as { lines?: number }).lines;
+    throw badRequest(`This file could not be read as CSV${line ? ` (near line ${line})` : ''}: check for an unclosed quote mark.`);
+  }
+  const [header, ...body] = records;
+  if (!header) throw badRequest(`The file is empty. ${HEADER_HINT}`);
+
+  const names = header.record.map((h) => h.trim().toLowerCase().replace(/[\s-]+/g, '_'));
+  const unknown = names.filter((n) => n !== '' && !(ROSTER_COLUMNS as readonly string[]).includes(n));
+  const missing = ROSTER_COLUMNS.filter((c) => !names.includes(c) && !OPTIONAL_ROSTER_COLUMNS.includes(c));
+  const repeated = names.filter((n, i) => n !== '' && names.indexOf(n) !== i);
+  if (missing.length > 0 || unknown.length > 0 || repeated.length > 0) {
+    const parts = [
+      missing.length ? `missing column${missing.length > 1 ? 's' : ''}: ${missing.join(', ')}` : '',
+      unknown.length ? `unknown column${unknown.length > 1 ? 's' : ''}: ${unknown.join(', ')}` : '',
+      repeated.length ? `repeated column${repeated.length > 1 ? 's' : ''}: ${repeated.join(', ')}` : '',
+    ].filter(Boolean);
+    throw badRequest(`The header line does not match (${parts.join('; ')}). ${HEADER_HINT}`);
+  }
+  if (body.length === 0) throw badRequest('The file has a header line but no athletes.');
+  if (body.length > MAX_IMPORT_ROWS) throw badRequest(`The file has ${body.length} athletes; import at most ${MAX_IMPORT_ROWS} at a time.`);
+
+  return body.map(({ record, info }) => {
+    const values: Partial<Record<RosterColumn, string>> = {};
+    names.forEach((n, i) => {
+      if ((ROSTER_COLUMNS as readonly string[]).includes(n)) values[n as RosterColumn] = record[i] ?? '';
+    });
+    return { line: info.lines, values, extraCells: Math.max(0, record.length - names.length) };
+  });
+}
+
+type CheckedRow = ReportRow & { row?: RosterRow; squadId?: string; guardianUserId?: string };
+
+/** Checks each line against the form's rules and the club's data; writes nothing. */
+async function checkRows(repo: AthletesRepo, raw: RawRow[]): Promise<CheckedRow[]> {
+  const squadsByName = await repo.activeSquadsByName();
+  const known = await repo.identities();
+  const emails = raw.map((r) => r.values.guardian_email?.trim().toLowerCase()).filter((e): e is string => !!e);
+  const members = await repo.membersByEmail([...new Set(emails)]);
+  const seen = new Map<string, number>();
+
+  const checked: CheckedRow[] = [];
+  for (const { line, values, extraCells } of raw) {
+    const errors: Record<string, string> = {};
+    let row: RosterRow | undefined;
+    try {
+      row = await rosterRowSchema.validate(values, { abortEarly: false, stripUnknown: true });
+    } catch (error) {
+      if (!(error instanceof ValidationError)) throw error;
+      Object.assign(errors, fieldErrors(error));
+    }
+    if (extraCells > 0) errors.row = `This line has ${extraCells} cell${extraCells > 1 ? 's' : ''} more than the header: check for a stray comma.`;
+
+    const squadName = values.squad?.trim();
+    const squadId = squadName ? squadsByName.get(squadName.toLowerCase()) : undefined;
+    if (squadName && !squadId && !errors.squad) errors.squad = `The club has no squad called “${squadName}”. Create it first or correct the name.`;
+
+    // Checked even when other cells of the line are wrong, so that one pass shows every problem.
+    const email = errors.guardian_email ? undefined : values.guardian_email?.trim().toLowerCase() || undefined;
+    const member = email ? members.get(email) : undefined;
+    if (email && !errors.guardian_email) {
+      if (!member) errors.guardian_email = 'No one with this e-mail is in the club yet: invite them from People first, or leave the cell empty.';
+      else if (member.role !== 'parent') errors.guardian_email = `This e-mail belongs to the club’s ${ROLE_LABELS[member.role].toLowerCase()}, not a parent account.`;
+    }
+
+    if (row) {
+      const key = identityKey(row.first_name, row.last_name, row.date_of_birth);
+      const earlier = seen.get(key);
+      if (earlier !== undefined) errors.row = `Same name and date of birth as line ${earlier}.`;
+      else if (known.has(key)) {
+        errors.row = known.get(key)
+          ? 'An archived athlete with this name and date of birth is in the club: restore them instead.'
+          : 'This athlete is already in the club (same name and date of birth).';
+      }
+      if (earlier === undefined) seen.set(key, line);
+    }
+
+    const ok = Object.keys(errors).length === 0;
+    checked.push({ line, ok, errors: inColumnOrder(errors), values, ...(ok ? { row, squadId, guardianUserId: member?.userId } : {}) });
+  }
+  return checked;
+}
+
+/** Errors listed in the order of the columns, the line as a whole last: the order people read the line in. */
+function inColumnOrder(errors: Record<string, string>): Record<string, string> {
+  const order = [...ROSTER_COLUMNS, 'row'] as readonly string[];
+  return Object.fromEntries(Object.entries(errors).sort(([a], [b]) => order.indexOf(a) - order.indexOf(b)));
+}
+
+function toReport(checked: CheckedRow[]): ImportReport {
+  const rows = checked.map(({ line, ok, errors, values }) => ({ line, ok, errors, values }));
+  const okCount = rows.filter((r) => r.ok).length;
+  return { rows, okCount, errorCount: rows.length - okCount };
+}
+
+export function rosterImport(db: Db, scope: ClubScope) {
+  return {
+    /** The per-row report, nothing written. */
+    async check(raw: RawRow[]): Promise<ImportReport> {
+      return toReport(await checkRows(athletesRepo(db, scope), raw));
+    },
+
+    /**
+     * Writes every line in one transaction, only when no line has an error; otherwise writes nothing
+     * and returns the report. The check runs again inside the transaction, under the roster lock.
+     */
+    async commit(raw: RawRow[]): Promise<{ report: ImportReport; created: string[] }> {
+      return db.transaction(async (tx) => {
+        const repo = athletesRepo(tx, scope);
+        await repo.lockRoster();
+        const checked = await checkRows(repo, raw);
+        const report = toReport(checked);
+        if (report.errorCount > 0) return { report, created: [] };
+        const ready = checked as (CheckedRow & { row: RosterRow; squadId: string })[];
+        const ids = await repo.createMany(
+          ready.map(({ row, squadId }) => ({
+            firstName: row.first_name,
+            lastName: row.last_name,
+            dateOfBirth: row.date_of_birth,
+            sex: row.sex,
+            racketHand: row.racket_hand,
+            takeOffLeg: row.take_off_leg,
+            squadId,
+          })),
+        );
+        const decidedOn = todayIso();
+        await repo.recordConsents(
+          ready.flatMap(({ row }, i) => [
+            { athleteId: ids[i]!, kind: 'photos' as const, granted: row.photo_consent, decidedOn },
+            { athleteId: ids[i]!, kind: 'email_summaries' as const, granted: row.email_summaries_consent, decidedOn },
+          ]),
+        );
+        await repo.linkGuardians(
+          ready.flatMap(({ guardianUserId }, i) => (guardianUserId ? [{ athleteId: ids[i]!, userId: guardianUserId }] : [])),
+        );
+        return { report, created: ids };
+      });
+    },
+  };
+}

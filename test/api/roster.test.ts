@@ -1,0 +1,457 @@
+import { count, eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { athletes, consents, guardianLinks } from '@/db/schema';
+import { ROSTER_HEADER_LINE } from '@/features/athletes/schemas';
+import { makeAthlete, makeClub, makeSquad, makeTestApp, makeUser, signedInAgent } from '../fixtures/builders';
+import { bornYearsAgo, makeRosterCsv } from '../fixtures/roster';
+import { createTestDb, type TestDb } from '../fixtures/test-db';
+
+let testDb: TestDb;
+let app: ReturnType<typeof makeTestApp>['app'];
+const ids: Record<string, string> = {};
+
+type Agent = Awaited<ReturnType<typeof signedInAgent>>;
+const as: Record<'admin' | 'coach' | 'tester' | 'physio' | 'parent' | 'otherAdmin', Agent> = {} as never;
+
+const newAthlete = (overrides: Record<string, unknown> = {}) => ({
+  firstName: 'Lotte',
+  lastName: 'Varga',
+  dateOfBirth: bornYearsAgo(11),
+  sex: 'female',
+  racketHand: 'left',
+  takeOffLeg: 'right',
+  squadId: ids.u13,
+  ...overrides,
+});
+
+async function athleteCount(clubId: string) {
+  const [row] = await testDb.db.select({ n: count() }).from(athletes).where(eq(athletes.clubId, clubId));
+  return row!.n;
+}
+
+beforeAll(async () => {
+  testDb = await createTestDb();
+  ({ app } = makeTestApp(testDb.db));
+  const db = testDb.db;
+  const club = await makeClub(db, 'Riverside');
+  const other = await makeClub(db, 'Hillside');
+  ids.club = club.id;
+  ids.other = other.id;
+  ids.u13 = (await makeSquad(db, club.id, 'Under-13')).id;
+  ids.u15 = (await makeSquad(db, club.id, 'Under-15')).id;
+  ids.hillsideSquad = (await makeSquad(db, other.id, 'Juniors')).id;
+  await makeUser(db, { email: 'admin@riverside.test', clubId: club.id, role: 'admin', displayName: 'Ada Admin' });
+  await makeUser(db, { email: 'coach@riverside.test', clubId: club.id, role: 'head_coach', displayName: 'Cole Coach' });
+  await makeUser(db, { email: 'tester@riverside.test', clubId: club.id, role: 'tester' });
+  await makeUser(db, { email: 'physio@riverside.test', clubId: club.id, role: 'physio' });
+  const parent = await makeUser(db, { email: 'parent@riverside.test', clubId: club.id, role: 'parent', displayName: 'Pia Parent' });
+  ids.secondParent = (await makeUser(db, { email: 'second.parent@riverside.test', clubId: club.id, role: 'parent', displayName: 'Sol Parent' })).id;
+  await makeUser(db, { email: 'admin@hillside.test', clubId: other.id, role: 'admin' });
+  ids.child = (await makeAthlete(db, { clubId: club.id, squadId: ids.u13, firstName: 'Kit', lastName: 'Parentson', guardianUserId: parent.id })).id;
+  ids.hillsideAthlete = (await makeAthlete(db, { clubId: other.id, squadId: ids.hillsideSquad })).id;
+
+  as.admin = await signedInAgent(app, 'admin@riverside.test');
+  as.coach = await signedInAgent(app, 'coach@riverside.test');
+  as.tester = await signedInAgent(app, 'tester@riverside.test');
+  as.physio = await signedInAgent(app, 'physio@riverside.test');
+  as.parent = await signedInAgent(app, 'parent@riverside.test');
+  as.otherAdmin = await signedInAgent(app, 'admin@hillside.test');
+});
+
+afterAll(async () => {
+  await testDb.drop();
+});
+
+describe('squads', () => {
+  it('are created and renamed by a head coach; names are unique in the club', async () => {
+    const created = await as.coach.post('/api/squads').send({ name: '  Development  ' });
+    expect(created.status).toBe(201);
+    expect(created.body.squad).toEqual({ id: expect.any(String), name: 'Development', archived: false });
+
+    const twin = await as.admin.post('/api/squads').send({ name: 'development' });
+    expect(twin.status).toBe(409);
+    expect(twin.body.error.fields.name).toMatch(/already has a squad/);
+
+    const renamed = await as.coach.patch(`/api/squads/${created.body.squad.id}`).send({ name: 'Development group' });
+    expect(renamed.status).toBe(200);
+    expect(renamed.body.squad.name).toBe('Development group');
+
+    const empty = await as.coach.post('/api/squads').send({ name: ' ' });
+    expect(empty.status).toBe(400);
+    expect(empty.body.error.fields.name).toBe('Name the squad.');
+  });
+
+  it('are archived only when no athlete is left in them', async () => {
+    const full = await as.admin.post(`/api/squads/${ids.u13}/archive`);
+    expect(full.status).toBe(409);
+    expect(full.body.error.message).toMatch(/still has \d+ athlete/);
+
+    const { body } = await as.admin.post('/api/squads').send({ name: 'Summer camp' });
+    const archived = await as.admin.post(`/api/squads/${body.squad.id}/archive`);
+    expect(archived.status).toBe(200);
+    expect(archived.body.squad.archived).toBe(true);
+    const list = await as.admin.get('/api/squads');
+    expect(list.body.squads.map((s: { name: string }) => s.name)).not.toContain('Summer camp');
+    // An archived squad cannot receive athletes.
+    const into = await as.admin.post('/api/athletes').send(newAthlete({ firstName: 'Into', squadId: body.squad.id }));
+    expect(into.status).toBe(400);
+    expect(into.body.error.fields.squadId).toBeDefined();
+  });
+
+  it.each([
+    ['tester', 'post', '/api/squads'],
+    ['physio', 'post', '/api/squads'],
+    ['parent', 'post', '/api/squads'],
+  ] as const)('refuses a %s creating a squad', async (who, _method, url) => {
+    expect((await as[who].post(url).send({ name: `By ${who}` })).status).toBe(403);
+  });
+
+  it('refuses another club renaming or archiving a squad', async () => {
+    expect((await as.otherAdmin.patch(`/api/squads/${ids.u13}`).send({ name: 'Taken over' })).status).toBe(403);
+    expect((await as.otherAdmin.post(`/api/squads/${ids.u13}/archive`)).status).toBe(403);
+    expect((await as.otherAdmin.post('/api/squads').set('X-Club-Id', ids.club!).send({ name: 'Sneaky' })).status).toBe(403);
+  });
+});
+
+describe('athletes: create, edit, move, archive', () => {
+  it('creates an athlete with every field, as a head coach', async () => {
+    const res = await as.coach.post('/api/athletes').send(newAthlete({ firstName: ' Lotte ' }));
+    expect(res.status).toBe(201);
+    expect(res.body.athlete).toMatchObject({
+      firstName: 'Lotte',
+      lastName: 'Varga',
+      sex: 'female',
+      racketHand: 'left',
+      takeOffLeg: 'right',
+      squadId: ids.u13,
+      squadName: 'Under-13',
+      archived: false,
+      guardians: [],
+      consents: { photos: null, emailSummaries: null },
+    });
+    ids.lotte = res.body.athlete.id;
+  });
+
+  it.each([
+    ['a 4-year-old', bornYearsAgo(4), /age of 4 today; athletes here are 6 to 19/],
+    ['a 25-year-old', bornYearsAgo(25), /age of 25 today/],
+    ['a day that does not exist', '2014-02-30', /does not exist/],
+    ['a day/month/year date', '09/03/2014', /YYYY-MM-DD/],
+    ['a future date', '2999-01-01', /in the future/],
+  ])('refuses %s as date of birth, beside the field', async (_what, dateOfBirth, message) => {
+    const res = await as.admin.post('/api/athletes').send(newAthlete({ firstName: 'Dot', dateOfBirth }));
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.dateOfBirth).toMatch(message);
+  });
+
+  it('names every missing field', async () => {
+    const res = await as.admin.post('/api/athletes').send({});
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(
+      ['dateOfBirth', 'firstName', 'lastName', 'racketHand', 'sex', 'squadId', 'takeOffLeg'].sort(),
+    );
+  });
+
+  it('refuses a squad of another club', async () => {
+    const res = await as.admin.post('/api/athletes').send(newAthlete({ firstName: 'Cross', squadId: ids.hillsideSquad }));
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.squadId).toMatch(/club’s squads/);
+  });
+
+  it('refuses the same name and date of birth twice', async () => {
+    const res = await as.admin.post('/api/athletes').send(newAthlete({ firstName: 'LOTTE', lastName: 'varga ' }));
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toMatch(/already in the club/);
+  });
+
+  it('edits fields and moves the athlete to another squad of the club', async () => {
+    const edit = await as.admin.patch(`/api/athletes/${ids.lotte}`).send({ lastName: 'Varga-Holm', racketHand: 'right' });
+    expect(edit.status).toBe(200);
+    expect(edit.body.athlete).toMatchObject({ lastName: 'Varga-Holm', racketHand: 'right', takeOffLeg: 'right' });
+
+    const move = await as.coach.patch(`/api/athletes/${ids.lotte}`).send({ squadId: ids.u15 });
+    expect(move.status).toBe(200);
+    expect(move.body.athlete).toMatchObject({ squadId: ids.u15, squadName: 'Under-15' });
+
+    const away = await as.coach.patch(`/api/athletes/${ids.lotte}`).send({ squadId: ids.hillsideSquad });
+    expect(away.status).toBe(400);
+    const nothing = await as.coach.patch(`/api/athletes/${ids.lotte}`).send({});
+    expect(nothing.status).toBe(400);
+  });
+
+  it('archives without deleting, hides from the roster, refuses edits, and restores', async () => {
+    const archived = await as.coach.post(`/api/athletes/${ids.lotte}/archive`);
+    expect(archived.status).toBe(200);
+    expect(archived.body.athlete.archived).toBe(true);
+    const [row] = await testDb.db.select().from(athletes).where(eq(athletes.id, ids.lotte!));
+    expect(row?.archivedAt).toBeInstanceOf(Date);
+
+    const list = await as.coach.get('/api/athletes');
+    expect(list.body.athletes.map((a: { id: string }) => a.id)).not.toContain(ids.lotte);
+    const all = await as.coach.get('/api/athletes?archived=include');
+    expect(all.body.athletes.find((a: { id: string }) => a.id === ids.lotte)?.archived).toBe(true);
+
+    const edit = await as.coach.patch(`/api/athletes/${ids.lotte}`).send({ firstName: 'Lola' });
+    expect(edit.status).toBe(409);
+    // A new athlete with the same identity is refused, pointing at the archived one.
+    const again = await as.coach.post('/api/athletes').send(newAthlete({ lastName: 'Varga-Holm' }));
+    expect(again.status).toBe(409);
+    expect(again.body.error.message).toMatch(/restore them instead/);
+
+    const restored = await as.coach.post(`/api/athletes/${ids.lotte}/restore`);
+    expect(restored.status).toBe(200);
+    expect(restored.body.athlete).toMatchObject({ archived: false, squadId: ids.u15 });
+  });
+
+  it('has no delete route for athletes', async () => {
+    const res = await as.admin.delete(`/api/athletes/${ids.lotte}`);
+    expect(res.status).toBe(404);
+    expect(await athleteCount(ids.club!)).toBeGreaterThan(0);
+  });
+
+  it.each(['tester', 'physio', 'parent'] as const)('refuses every roster change from a %s', async (who) => {
+    const agent = as[who];
+    expect((await agent.post('/api/athletes').send(newAthlete({ firstName: `By${who}` }))).status).toBe(403);
+    expect((await agent.patch(`/api/athletes/${ids.child}`).send({ firstName: 'Renamed' })).status).toBe(403);
+    expect((await agent.post(`/api/athletes/${ids.child}/archive`)).status).toBe(403);
+    expect((await agent.post(`/api/athletes/${ids.child}/restore`)).status).toBe(403);
+    expect((await agent.post(`/api/athletes/${ids.child}/consents`).send({ kind: 'photos', granted: false, decidedOn: '2026-01-05' })).status).toBe(403);
+    expect((await agent.post(`/api/athletes/${ids.child}/guardians`).send({ email: 'second.parent@riverside.test' })).status).toBe(403);
+    expect((await agent.post('/api/athletes/import').attach('file', Buffer.from(makeRosterCsv([{}])), 'roster.csv')).status).toBe(403);
+    const [row] = await testDb.db.select().from(athletes).where(eq(athletes.id, ids.child!));
+    expect(row).toMatchObject({ firstName: 'Kit', archivedAt: null });
+  });
+
+  it('refuses an admin of another club', async () => {
+    expect((await as.otherAdmin.get(`/api/athletes/${ids.child}`)).status).toBe(403);
+    expect((await as.otherAdmin.patch(`/api/athletes/${ids.child}`).send({ firstName: 'Stolen' })).status).toBe(403);
+    expect((await as.otherAdmin.post(`/api/athletes/${ids.child}/archive`)).status).toBe(403);
+    expect((await as.otherAdmin.get(`/api/athletes/${ids.child}/consents`)).status).toBe(403);
+    expect((await as.otherAdmin.post('/api/athletes').set('X-Club-Id', ids.club!).send(newAthlete({ firstName: 'Stray' }))).status).toBe(403);
+  });
+
+  it('answers 404 for an unknown athlete', async () => {
+    expect((await as.admin.patch('/api/athletes/00000000-0000-4000-8000-000000000000').send({ firstName: 'X' })).status).toBe(404);
+    expect((await as.admin.post('/api/athletes/not-an-id/archive')).status).toBe(404);
+  });
+});
+
+describe('consent decisions', () => {
+  it('keeps every decision; the newest is in force and names who recorded it', async () => {
+    const no = await as.coach.post(`/api/athletes/${ids.child}/consents`).send({ kind: 'photos', granted: false, decidedOn: '2026-10-02' });
+    expect(no.status).toBe(201);
+    expect(no.body.athlete.consents.photos).toEqual({ granted: false, decidedOn: '2026-10-02' });
+    const yes = await as.admin.post(`/api/athletes/${ids.child}/consents`).send({ kind: 'photos', granted: true, decidedOn: '2026-11-20' });
+    expect(yes.body.athlete.consents.photos).toEqual({ granted: true, decidedOn: '2026-11-20' });
+    await as.admin.post(`/api/athletes/${ids.child}/consents`).send({ kind: 'email_summaries', granted: false, decidedOn: '2026-11-20' });
+
+    const history = await as.physio.get(`/api/athletes/${ids.child}/consents`);
+    expect(history.status).toBe(200);
+    const photos = history.body.consents.filter((c: { kind: string }) => c.kind === 'photos');
+    // The fixture's decision, then the coach's "no", then the admin's "yes": newest first.
+    expect(photos.map((c: { granted: boolean; recordedBy: string | null }) => [c.granted, c.recordedBy])).toEqual([
+      [true, 'Ada Admin'],
+      [false, 'Cole Coach'],
+      [true, null],
+    ]);
+    const rows = await testDb.db.select().from(consents).where(eq(consents.athleteId, ids.child!));
+    expect(rows).toHaveLength(4);
+  });
+
+  it('lets a parent read their child’s decisions, not change them', async () => {
+    const res = await as.parent.get(`/api/athletes/${ids.child}/consents`);
+    expect(res.status).toBe(200);
+    expect(res.body.consents.length).toBeGreaterThan(0);
+  });
+
+  it.each([
+    [{ kind: 'videos', granted: true, decidedOn: '2026-11-01' }, 'kind'],
+    [{ kind: 'photos', decidedOn: '2026-11-01' }, 'granted'],
+    [{ kind: 'photos', granted: true, decidedOn: '2999-11-01' }, 'decidedOn'],
+    [{ kind: 'photos', granted: true }, 'decidedOn'],
+  ])('refuses %j beside the field %s', async (body, field) => {
+    const res = await as.admin.post(`/api/athletes/${ids.child}/consents`).send(body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields[field]).toEqual(expect.any(String));
+  });
+});
+
+describe('guardians', () => {
+  it('links a parent member, who then sees the child; unlinking takes it away', async () => {
+    const second = await signedInAgent(app, 'second.parent@riverside.test');
+    expect((await second.get(`/api/athletes/${ids.child}`)).status).toBe(403);
+
+    const linked = await as.coach.post(`/api/athletes/${ids.child}/guardians`).send({ email: ' Second.Parent@Riverside.test ' });
+    expect(linked.status).toBe(201);
+    expect(linked.body.athlete.guardians.map((g: { displayName: string }) => g.displayName)).toEqual(['Pia Parent', 'Sol Parent']);
+    const seen = await second.get(`/api/athletes/${ids.child}`);
+    expect(seen.status).toBe(200);
+    // Parents do not see the other adults linked to the child.
+    expect(seen.body.athlete.guardians).toBeUndefined();
+
+    const unlinked = await as.coach.delete(`/api/athletes/${ids.child}/guardians/${ids.secondParent}`);
+    expect(unlinked.status).toBe(200);
+    expect(unlinked.body.athlete.guardians).toHaveLength(1);
+    expect((await second.get(`/api/athletes/${ids.child}`)).status).toBe(403);
+    expect((await as.coach.delete(`/api/athletes/${ids.child}/guardians/${ids.secondParent}`)).status).toBe(404);
+  });
+
+  it('asks for an invitation first when the e-mail is not a club member', async () => {
+    const res = await as.admin.post(`/api/athletes/${ids.child}/guardians`).send({ email: 'stranger@example.test' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('not_a_member');
+    expect(res.body.error.fields.email).toMatch(/Invite them from People/);
+  });
+
+  it('links only parent accounts', async () => {
+    const res = await as.admin.post(`/api/athletes/${ids.child}/guardians`).send({ email: 'tester@riverside.test' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('not_a_parent');
+    const links = await testDb.db.select().from(guardianLinks).where(eq(guardianLinks.athleteId, ids.child!));
+    expect(links).toHaveLength(1);
+  });
+});
+
+describe('CSV roster import', () => {
+  const upload = (agent: Agent, csv: string | Buffer, commit?: boolean) => {
+    const req = agent.post(`/api/athletes/import${commit === undefined ? '' : `?commit=${commit}`}`);
+    return req.attach('file', Buffer.isBuffer(csv) ? csv : Buffer.from(csv, 'utf8'), { filename: 'roster.csv', contentType: 'text/csv' });
+  };
+
+  it('reports every line on a dry run and writes nothing', async () => {
+    const before = await athleteCount(ids.club!);
+    const csv = makeRosterCsv([
+      { first_name: 'Ada', last_name: 'Brook' },
+      { first_name: 'Ben', last_name: 'Brook', sex: 'male', racket_hand: 'left', take_off_leg: 'right', photo_consent: 'N' },
+      { first_name: '', last_name: 'Brook', sex: 'x', date_of_birth: '2014/03/09', squad: 'Seniors', photo_consent: 'maybe' },
+    ]);
+    const res = await upload(as.coach, csv);
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ okCount: 2, errorCount: 1 });
+    expect(res.body.rows[0]).toEqual({ line: 2, ok: true, errors: {}, values: expect.objectContaining({ first_name: 'Ada', sex: 'F' }) });
+    expect(res.body.rows[2]).toMatchObject({
+      line: 4,
+      ok: false,
+      errors: {
+        first_name: 'Enter the first name.',
+        sex: expect.stringMatching(/F or M/),
+        date_of_birth: expect.stringMatching(/YYYY-MM-DD/),
+        squad: expect.stringMatching(/no squad called “Seniors”/),
+        photo_consent: expect.stringMatching(/yes or no/),
+      },
+    });
+    expect(await athleteCount(ids.club!)).toBe(before);
+  });
+
+  it('refuses to commit a file with errors and writes nothing', async () => {
+    const before = await athleteCount(ids.club!);
+    const csv = makeRosterCsv([{ first_name: 'Cleo', last_name: 'Fenn' }, { first_name: 'Dev', last_name: 'Fenn', date_of_birth: bornYearsAgo(3) }]);
+    const res = await upload(as.admin, csv, true);
+    expect(res.status).toBe(400);
+    expect(res.body.error).toMatchObject({ code: 'import_has_errors', message: '1 line needs attention; nothing was imported.' });
+    expect(res.body).toMatchObject({ okCount: 1, errorCount: 1 });
+    expect(res.body.rows[1].errors.date_of_birth).toMatch(/age of 3/);
+    expect(await athleteCount(ids.club!)).toBe(before);
+  });
+
+  it('commits a clean file in one go: athletes, consents and guardian links', async () => {
+    const before = await athleteCount(ids.club!);
+    const csv = makeRosterCsv(
+      [
+        { first_name: 'Elin', last_name: 'Grove', sex: 'female', racket_hand: 'right', take_off_leg: 'left', squad: 'under-13', photo_consent: 'Y', email_summaries_consent: 'true', guardian_email: 'Second.Parent@riverside.test' },
+        { first_name: 'Finn', last_name: 'Grove', sex: 'M', racket_hand: 'L', take_off_leg: 'R', squad: 'Under-15', photo_consent: 'no', email_summaries_consent: 'n' },
+      ],
+      ROSTER_HEADER_LINE.toUpperCase().replace('SQUAD', ' Squad '),
+    );
+    const res = await upload(as.coach, csv, true);
+    expect(res.status).toBe(201);
+    expect(res.body).toMatchObject({ okCount: 2, errorCount: 0, created: 2 });
+    expect(await athleteCount(ids.club!)).toBe(before + 2);
+
+    const list = await as.coach.get('/api/athletes');
+    const elin = list.body.athletes.find((a: { firstName: string }) => a.firstName === 'Elin');
+    const finn = list.body.athletes.find((a: { firstName: string }) => a.firstName === 'Finn');
+    expect(elin).toMatchObject({ squadName: 'Under-13', sex: 'female', consents: { photos: { granted: true }, emailSummaries: { granted: true } } });
+    expect(finn).toMatchObject({ squadName: 'Under-15', sex: 'male', racketHand: 'left', takeOffLeg: 'right', consents: { photos: { granted: false }, emailSummaries: { granted: false } } });
+    const second = await signedInAgent(app, 'second.parent@riverside.test');
+    expect((await second.get(`/api/athletes/${elin.id}`)).status).toBe(200);
+    const history = await as.coach.get(`/api/athletes/${elin.id}/consents`);
+    expect(history.body.consents.every((c: { recordedBy: string }) => c.recordedBy === 'Cole Coach')).toBe(true);
+  });
+
+  it('catches duplicates within the file and against the club', async () => {
+    const csv = makeRosterCsv([
+      { first_name: 'Gus', last_name: 'Hale' },
+      { first_name: 'gus ', last_name: 'HALE' },
+      { first_name: 'Elin', last_name: 'Grove' }, // imported by the previous test
+      { first_name: 'Kit', last_name: 'Parentson', date_of_birth: '2013-05-14' }, // created by the fixture
+    ]);
+    const res = await upload(as.coach, csv);
+    expect(res.status).toBe(200);
+    expect(res.body.rows.map((r: { ok: boolean }) => r.ok)).toEqual([true, false, false, false]);
+    expect(res.body.rows[1].errors.row).toBe('Same name and date of birth as line 2.');
+    expect(res.body.rows[2].errors.row).toMatch(/already in the club/);
+    const commit = await upload(as.coach, csv, true);
+    expect(commit.status).toBe(400);
+  });
+
+  it('checks guardian e-mails against the club’s parent accounts', async () => {
+    const csv = makeRosterCsv([
+      // Checked even when another cell of the line is wrong, so one pass shows every problem.
+      { first_name: 'Hana', sex: 'x', guardian_email: 'nobody@example.test' },
+      { first_name: 'Ivo', guardian_email: 'physio@riverside.test' },
+      { first_name: 'Jun', guardian_email: 'not-an-email' },
+    ]);
+    const res = await upload(as.coach, csv);
+    expect(res.body.rows.map((r: { errors: { guardian_email?: string } }) => r.errors.guardian_email)).toEqual([
+      expect.stringMatching(/invite them from People/),
+      expect.stringMatching(/physiotherapist, not a parent/),
+      'Enter a valid e-mail address.',
+    ]);
+    // Errors come in the order of the columns.
+    expect(Object.keys(res.body.rows[0].errors)).toEqual(['sex', 'guardian_email']);
+  });
+
+  it.each([
+    ['a missing column', 'first_name,last_name,date_of_birth,sex,racket_hand,take_off_leg,photo_consent,email_summaries_consent\n', /missing column: squad/],
+    ['an unknown column', `${ROSTER_HEADER_LINE},shoe_size\nA,B\n`, /unknown column: shoe_size/],
+    ['a header only', `${ROSTER_HEADER_LINE}\n`, /no athletes/],
+    ['an empty file', ' ', /empty|CSV/],
+    ['an unclosed quote', `${ROSTER_HEADER_LINE}\n"Ada,Brook\n`, /unclosed quote/],
+  ])('refuses %s as a whole, with a clear message', async (_what, csv, message) => {
+    const res = await upload(as.admin, csv);
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(message);
+  });
+
+  it('refuses a file that is not UTF-8 text, whatever its name', async () => {
+    const png = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0xff, 0xfe, 0x00, 0x00]);
+    const res = await upload(as.admin, png);
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/not a CSV text file/);
+    const latin1 = Buffer.from(`${ROSTER_HEADER_LINE}\nJos\xe9,Brook,2014-01-01,M,R,L,Under-13,yes,no,\n`, 'latin1');
+    expect((await upload(as.admin, latin1)).body.error.message).toMatch(/UTF-8/);
+  });
+
+  it('accepts a byte-order mark and Windows line ends', async () => {
+    const csv = '\ufeff' + makeRosterCsv([{ first_name: 'Kaia', last_name: 'Lind' }]).replace(/\n/g, '\r\n');
+    const res = await upload(as.admin, csv);
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ okCount: 1, errorCount: 0 });
+  });
+
+  it('refuses a file over 1 MB with 413', async () => {
+    const big = makeRosterCsv([{}]) + 'x'.repeat(1024 * 1024 + 10);
+    const res = await upload(as.admin, big);
+    expect(res.status).toBe(413);
+    expect(res.body.error.message).toMatch(/larger than 1 MB/);
+  });
+
+  it('asks for a file when none is sent, and for the right field', async () => {
+    expect((await as.admin.post('/api/athletes/import').send({})).body.error.message).toBe('Choose a CSV file to import.');
+    const wrongField = await as.admin.post('/api/athletes/import').attach('roster', Buffer.from(makeRosterCsv([{}])), 'roster.csv');
+    expect(wrongField.status).toBe(400);
+    expect(wrongField.body.error.message).toMatch(/“file” field/);
+    expect((await upload(as.admin, makeRosterCsv([{}])).query({ commit: 'yes' })).status).toBe(400);
+  });
+});

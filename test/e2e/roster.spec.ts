@@ -1,0 +1,125 @@
+import { expect, test, type Page } from '@playwright/test';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { signIn } from './helpers';
+
+// Both projects (phone and wide) run at once against one demo database: every name made here is unique.
+function uniqueSurname(project: string): string {
+  const letters = (n: number) => n.toString(26).replace(/./g, (c) => String.fromCharCode(97 + parseInt(c, 26)));
+  const tag = letters(Date.now() % 26 ** 6) + letters(Math.floor(Math.random() * 26 ** 3));
+  return `Rost${project === 'phone' ? 'p' : 'w'}${tag}`;
+}
+
+/** A date of birth that makes an athlete `years` (or `years` + 1) old today. */
+function bornYearsAgo(years: number): string {
+  return `${new Date().getUTCFullYear() - years - 1}-11-15`;
+}
+
+async function signInAsCoach(page: Page) {
+  await signIn(page, 'coach@squadline.test');
+  await expect(page.getByTestId('home-head_coach')).toBeVisible();
+}
+
+test('a head coach adds an athlete, records a photo consent and archives them', async ({ page }, testInfo) => {
+  const lastName = uniqueSurname(testInfo.project.name);
+  await signInAsCoach(page);
+  await page.goto('/athletes');
+  await page.getByTestId('add-athlete').click();
+  await expect(page.getByRole('heading', { name: 'Add an athlete' })).toBeVisible();
+
+  // Saving an empty form names each missing field beside it.
+  await page.getByTestId('athlete-save').click();
+  await expect(page.getByText('Enter the first name.')).toBeVisible();
+  await expect(page.getByText('Choose a squad.')).toBeVisible();
+
+  await page.getByTestId('athlete-first-name').fill('Runa');
+  await page.getByTestId('athlete-last-name').fill(lastName);
+  await page.getByTestId('athlete-date-of-birth').fill('2024-01-01');
+  await page.getByTestId('athlete-date-of-birth').blur();
+  await expect(page.getByText(/athletes here are 6 to 19 years old/)).toBeVisible();
+  await page.getByTestId('athlete-date-of-birth').fill(bornYearsAgo(11));
+  await page.getByTestId('sex-female').click();
+  await page.getByTestId('racketHand-left').click();
+  await page.getByTestId('takeOffLeg-right').click();
+  await page.getByRole('radio', { name: 'Under-13 mixed' }).click();
+  await page.getByTestId('athlete-save').click();
+
+  await expect(page).toHaveURL(/\/athletes\/[0-9a-f-]{36}$/);
+  await expect(page.getByRole('heading', { name: `Runa ${lastName}` })).toBeVisible();
+  await expect(page.getByTestId('consent-photos')).toContainText('Not recorded yet');
+
+  await page.getByTestId('consent-record').click();
+  await page.getByTestId('consent-kind-photos').click();
+  await page.getByTestId('consent-answer-yes').click();
+  await page.getByTestId('consent-save').click();
+  await expect(page.getByTestId('consent-photos')).toContainText('Photos may be taken');
+  await expect(page.getByTestId('consent-history')).toContainText('Photos: yes');
+  await expect(page.getByTestId('consent-history')).toContainText('Recorded by Dan Mercer');
+
+  await page.getByTestId('athlete-archive').click();
+  await expect(page.getByText(`Archive Runa?`)).toBeVisible();
+  await page.getByTestId('athlete-archive-confirm').click();
+  await expect(page.getByTestId('archived-tag')).toBeVisible();
+  await expect(page.getByTestId('athlete-restore')).toBeVisible();
+
+  // Gone from the roster, still there with "Show archived".
+  await page.goto('/athletes');
+  await expect(page.getByText('Maya Okafor')).toBeVisible();
+  await expect(page.getByText(`Runa ${lastName}`)).toHaveCount(0);
+  await page.getByTestId('show-archived').click();
+  await expect(page.getByText(`Runa ${lastName}`)).toBeVisible();
+});
+
+test('a head coach imports a CSV: a line with an error first, then a clean file', async ({ page }, testInfo) => {
+  const lastName = uniqueSurname(testInfo.project.name);
+  const squadName = `Import check ${lastName}`;
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'squadline-roster-'));
+  const header = 'First_Name,Last_Name,Date_Of_Birth,Sex,Racket_Hand,Take_Off_Leg,Squad,Photo_Consent,Email_Summaries_Consent';
+  const good = (dob: string) =>
+    [header, `Alva,${lastName},${bornYearsAgo(12)},F,R,L,${squadName},yes,no`, `Bo,${lastName},${dob},m,left,right,${squadName},n,y`].join('\n');
+  const withError = path.join(dir, 'roster-with-error.csv');
+  const clean = path.join(dir, 'roster.csv');
+  fs.writeFileSync(withError, good('09/03/2014'));
+  fs.writeFileSync(clean, good(bornYearsAgo(10)));
+
+  await signInAsCoach(page);
+  // A squad of its own, so that the demo squads stay as they are.
+  await page.goto('/athletes');
+  await page.getByTestId('manage-squads').click();
+  await page.getByTestId('squad-new-name').fill(squadName);
+  await page.getByTestId('squad-new-save').click();
+  await expect(page.getByTestId(`squad-row-${squadName}`)).toBeVisible();
+
+  await page.goto('/athletes');
+  await page.getByTestId('import-csv').click();
+  await expect(page.getByTestId('roster-header-example')).toContainText('first_name,last_name,date_of_birth');
+
+  await page.getByTestId('roster-file-input').setInputFiles(withError);
+  await expect(page.getByTestId('import-summary')).toContainText('1 of 2 lines need attention');
+  const problem = page.getByTestId('import-problem-line');
+  await expect(problem).toHaveCount(1);
+  await expect(problem).toContainText(`Line 3: Bo ${lastName}`);
+  await expect(problem).toContainText('Date of birth: Write the date as YYYY-MM-DD');
+  await expect(page.getByTestId('import-commit')).toHaveCount(0);
+
+  await page.getByTestId('roster-file-input').setInputFiles(clean);
+  await expect(page.getByTestId('import-summary')).toContainText('All 2 lines are ready');
+  await expect(page.getByTestId('import-problem-line')).toHaveCount(0);
+  await page.getByTestId('import-commit').click();
+  await expect(page.getByTestId('import-done')).toContainText('2 athletes imported');
+
+  await page.goto('/athletes');
+  await expect(page.getByText(`Alva ${lastName}`)).toBeVisible();
+  await expect(page.getByText(`Bo ${lastName}`)).toBeVisible();
+
+  // Leave the demo club as it was: archive what this test added.
+  const list = await (await page.request.get('/api/athletes')).json();
+  for (const a of list.athletes.filter((x: { lastName: string }) => x.lastName === lastName)) {
+    expect((await page.request.post(`/api/athletes/${a.id}/archive`)).status()).toBe(200);
+  }
+  const squads = await (await page.request.get('/api/squads')).json();
+  const squad = squads.squads.find((s: { name: string }) => s.name === squadName);
+  expect((await page.request.post(`/api/squads/${squad.id}/archive`)).status()).toBe(200);
+  fs.rmSync(dir, { recursive: true, force: true });
+});
