@@ -11,6 +11,9 @@ export const MIGRATIONS_DIR = path.join(__dirname, '..', 'migrations');
 
 export function connect(url: string, max = 10): DbHandle {
   const pool = new Pool({ connectionString: url, max });
+  // An idle client losing its connection (the database restarting or stopping) must not crash the
+  // process; the next query reconnects or fails with its own error.
+  pool.on('error', (err) => process.stderr.write(`database connection lost: ${err.message}\n`));
   const db = drizzle(pool, { schema });
   return { db, pool, close: () => pool.end() };
 }

@@ -75,7 +75,7 @@ export function upload<T>(
 ): Promise<T> {
   return new Promise<T>((resolve, reject) => {
     const xhr = new XMLHttpRequest();
-    xhr.open('POST', `/api${path}`);
+    xhr.open('POST', `${API_BASE}/api${path}`);
     xhr.withCredentials = true;
     xhr.setRequestHeader('Accept', 'application/json');
     if (clubId) xhr.setRequestHeader('X-Club-Id', clubId);

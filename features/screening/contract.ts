@@ -45,7 +45,7 @@ export const BODY_LIMITS = {
   statureCm: [100, 220],
   sittingHeightCm: [50, 120],
   massKg: [15, 150],
-  distanceCm: [0, 25],
+  distanceCm: [0, 30],
   oneRepMaxKg: [1, 300],
 } as const;
 

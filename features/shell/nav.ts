@@ -6,6 +6,7 @@ export type NavItem = { href: string; label: string };
 export function navFor(role: RoleValue, options: { mailbox: boolean }): NavItem[] {
   const items: NavItem[] = [{ href: '/', label: 'Home' }];
   if (role !== 'parent') items.push({ href: '/athletes', label: 'Athletes' });
+  if (role !== 'parent') items.push({ href: '/screening', label: 'Screening' });
   if (role === 'admin' || role === 'head_coach') items.push({ href: '/people', label: 'People' });
   if (role === 'admin' && options.mailbox) items.push({ href: '/dev/mailbox', label: 'Mailbox (local)' });
   return items;

@@ -1,6 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
 import { AthleteProfile } from '@/features/athletes/components/athlete-profile';
 import { AthleteRecords } from '@/features/athletes/components/athlete-records';
+import { AthleteAssessments } from '@/features/screening/components/athlete-assessments';
 import { Page } from '@/features/ui/components/page';
 
 export default function AthleteScreen() {
@@ -10,6 +11,7 @@ export default function AthleteScreen() {
     <Page>
       <AthleteProfile id={athleteId} />
       <AthleteRecords id={athleteId} />
+      <AthleteAssessments athleteId={athleteId} />
     </Page>
   );
 }

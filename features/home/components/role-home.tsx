@@ -3,6 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import { ageInYears, todayIso } from '@/features/athletes/age';
 import { useAthletesQuery } from '@/features/athletes/api/get-athletes';
 import { ROLE_LABELS } from '@/features/auth/schemas';
+import { OpenRounds } from '@/features/screening/components/open-rounds';
 import { useActiveClub } from '@/features/session/active-club';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
@@ -32,7 +33,14 @@ export function RoleHome() {
         </Text>
         <Text>{`Hello ${me.user.displayName.split(' ')[0]}. ${intro.text}`}</Text>
       </View>
-      {membership.role === 'parent' ? <ParentChildren /> : <SquadCards />}
+      {membership.role === 'parent' ? (
+        <ParentChildren />
+      ) : membership.role === 'tester' || membership.role === 'head_coach' ? (
+        // The squads with their open screening rounds and a way straight back in.
+        <OpenRounds />
+      ) : (
+        <SquadCards />
+      )}
       {membership.role !== 'parent' ? (
         <Link href="/athletes" style={styles.link}>
           <Text variant="label">See all athletes →</Text>

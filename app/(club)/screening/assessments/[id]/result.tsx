@@ -1,0 +1,12 @@
+import { useLocalSearchParams } from 'expo-router';
+import { LazyResultScreen } from '@/features/screening/components/result/lazy-result-screen';
+import { Page } from '@/features/ui/components/page';
+
+export default function ResultRoute() {
+  const { id } = useLocalSearchParams<{ id: string }>();
+  return (
+    <Page>
+      <LazyResultScreen assessmentId={String(id)} />
+    </Page>
+  );
+}

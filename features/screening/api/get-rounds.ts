@@ -1,0 +1,37 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '@/features/api/client';
+import { useSquadsQuery } from '@/features/athletes/api/get-squads';
+import type { SquadSummary } from '@/features/athletes/api/types';
+import { useActiveClub } from '@/features/session/active-club';
+import type { RoundSummary } from '@/features/screening/contract';
+import { ROUNDS_STALE_MS, screeningKeys } from './keys';
+
+/** Every round of the active club (GET /api/rounds without a squad). */
+export const getRounds = () => api<{ rounds: RoundSummary[] }>('/rounds');
+
+export const roundsQueryOptions = (clubId: string) =>
+  queryOptions({ queryKey: screeningKeys.rounds(clubId), queryFn: getRounds, staleTime: ROUNDS_STALE_MS });
+
+export function useRoundsQuery() {
+  const { membership } = useActiveClub();
+  return useQuery(roundsQueryOptions(membership.clubId));
+}
+
+export type SquadWithRounds = { squad: SquadSummary; rounds: RoundSummary[] };
+
+/** Every squad of the club with its rounds, newest first. */
+export function useClubRoundsQuery() {
+  const squads = useSquadsQuery();
+  const rounds = useRoundsQuery();
+  const all = rounds.data?.rounds ?? [];
+  const bySquad: SquadWithRounds[] = (squads.data?.squads ?? []).map((squad) => ({
+    squad,
+    rounds: all.filter((r) => r.squadId === squad.id).sort((a, b) => b.screenedOn.localeCompare(a.screenedOn)),
+  }));
+  return { squads, rounds, bySquad, isPending: squads.isPending || rounds.isPending, error: squads.error ?? rounds.error };
+}
+
+/** A round is open while some of its athletes are not submitted yet. */
+export function isOpenRound(round: RoundSummary): boolean {
+  return round.counts.not_started + round.counts.in_progress > 0;
+}

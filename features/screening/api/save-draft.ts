@@ -1,0 +1,48 @@
+import { api, ApiError } from '@/features/api/client';
+import type { AssessmentDraft } from '@/features/screening/contract';
+
+export type ServerDraft = { draft: AssessmentDraft; draftVersion: number };
+
+/** PUT the whole draft, naming the version it was based on. Resolves with the new version. */
+export async function saveDraft(
+  id: string,
+  draftVersion: number,
+  draft: AssessmentDraft,
+  options: { keepalive?: boolean } = {},
+): Promise<{ draftVersion: number }> {
+  const json = { draftVersion, draft };
+  // keepalive lets a save finish while the page is hidden, but browsers cap its body at 64 KB.
+  const keepalive = options.keepalive === true && JSON.stringify(json).length < 60_000;
+  const res = await api<{ draftVersion?: number; assessment?: { draftVersion?: number } } | undefined>(
+    `/assessments/${encodeURIComponent(id)}`,
+    { method: 'PUT', json, keepalive },
+  );
+  const next = res?.draftVersion ?? res?.assessment?.draftVersion;
+  // A server that answers without the version still accepted the save: the next version is ours + 1.
+  return { draftVersion: typeof next === 'number' ? next : draftVersion + 1 };
+}
+
+function asServerDraft(v: unknown): ServerDraft | null {
+  if (typeof v !== 'object' || v === null) return null;
+  const o = v as Record<string, unknown>;
+  if (typeof o.draftVersion === 'number' && typeof o.draft === 'object' && o.draft !== null) {
+    return { draft: o.draft as AssessmentDraft, draftVersion: o.draftVersion };
+  }
+  return null;
+}
+
+/** The server's current draft from a 409 body, wherever the server put it; null when it is not there. */
+export function serverDraftFromConflict(error: ApiError): ServerDraft | null {
+  const body = error.body as Record<string, unknown> | undefined;
+  if (!body) return null;
+  const err = body.error as Record<string, unknown> | undefined;
+  return (
+    asServerDraft(body) ??
+    asServerDraft(body.current) ??
+    asServerDraft(body.assessment) ??
+    asServerDraft(err) ??
+    asServerDraft(err?.current) ??
+    asServerDraft(err?.details) ??
+    null
+  );
+}

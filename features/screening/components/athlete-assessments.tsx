@@ -1,0 +1,112 @@
+import { Link } from 'expo-router';
+import { StyleSheet, View } from 'react-native';
+import { useAthleteAssessmentsQuery } from '@/features/screening/api/get-athlete-assessments';
+import type { AthleteAssessmentItem } from '@/features/screening/contract';
+import type { Flag } from '@/features/screening/engine';
+import { canReadScreening, canScreen } from '@/features/screening/roles';
+import { useActiveClub } from '@/features/session/active-club';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { assessmentHref } from './round-screen';
+import { SeverityTag, StatusTag } from './status-tag';
+
+type FlagGroup = { key: string; flag: Flag; sides: Set<string>; count: number };
+
+/** One line per pattern and severity: the same pattern seen in several tasks is one finding here. */
+export function groupFlags(flags: Flag[]): FlagGroup[] {
+  const groups = new Map<string, FlagGroup>();
+  for (const f of flags) {
+    const key = `${f.pattern}|${f.severity}`;
+    const g = groups.get(key) ?? { key, flag: f, sides: new Set<string>(), count: 0 };
+    if (f.side === 'both') {
+      g.sides.add('left');
+      g.sides.add('right');
+    } else if (f.side) g.sides.add(f.side);
+    g.count += 1;
+    groups.set(key, g);
+  }
+  return [...groups.values()].sort((a, b) => (a.flag.severity === b.flag.severity ? 0 : a.flag.severity === 'concern' ? -1 : 1));
+}
+
+function sidesText(sides: Set<string>): string {
+  if (sides.size === 2) return 'both sides';
+  if (sides.size === 1) return `${[...sides][0]} side`;
+  return '';
+}
+
+const newestFirst = (a: AthleteAssessmentItem, b: AthleteAssessmentItem) =>
+  b.screenedOn.localeCompare(a.screenedOn) || (b.submittedAt ?? '').localeCompare(a.submittedAt ?? '');
+
+/** Every screening of the athlete, newest first, each with its flags. */
+export function AthleteAssessments({ athleteId }: { athleteId: string }) {
+  const { membership } = useActiveClub();
+  if (!canReadScreening(membership.role)) return null;
+  return <AssessmentList athleteId={athleteId} screens={canScreen(membership.role)} />;
+}
+
+function AssessmentList({ athleteId, screens }: { athleteId: string; screens: boolean }) {
+  const query = useAthleteAssessmentsQuery(athleteId);
+  return (
+    <Card testID="athlete-assessments">
+      <Text variant="heading" accessibilityRole="header">
+        Screenings
+      </Text>
+      {query.isPending ? <Text>Loading screenings…</Text> : null}
+      {query.error ? <Notice tone="error">{query.error.message}</Notice> : null}
+      {query.data?.assessments.length === 0 ? <Text>No screening yet.</Text> : null}
+      {query.data?.assessments
+        .slice()
+        .sort(newestFirst)
+        .map((a) => {
+          const inner = (
+            <View style={styles.inner}>
+              <View style={styles.head}>
+                <Text variant="label" style={styles.title}>
+                  {a.roundName}
+                </Text>
+                <Text variant="small">{a.screenedOn}</Text>
+              </View>
+              <StatusTag status={a.status} />
+              {a.result ? (
+                a.result.flags.length === 0 ? (
+                  <Text variant="small">No flags.</Text>
+                ) : (
+                  <View style={styles.flags}>
+                    {groupFlags(a.result.flags).map((g) => (
+                      <View key={g.key} style={styles.flag}>
+                        <SeverityTag severity={g.flag.severity} />
+                        <Text variant="small" style={styles.flagText}>
+                          <Text variant="small" style={styles.flagTitle}>
+                            {g.flag.title}
+                          </Text>
+                          {[sidesText(g.sides), g.count > 1 ? `${g.count} findings` : ''].filter(Boolean).map((t) => ` · ${t}`).join('')}
+                        </Text>
+                      </View>
+                    ))}
+                  </View>
+                )
+              ) : null}
+            </View>
+          );
+          return (
+            <Link key={a.assessmentId} href={assessmentHref(a, screens)} style={styles.row} testID={`athlete-assessment-${a.assessmentId}`}>
+              {inner}
+            </Link>
+          );
+        })}
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: { minHeight: TOUCH_MIN, borderTopWidth: 1, borderTopColor: colors.line, paddingVertical: space.md, borderRadius: radius.sm },
+  inner: { gap: space.xs, width: '100%' },
+  head: { flexDirection: 'row', alignItems: 'baseline', gap: space.sm, flexWrap: 'wrap' },
+  title: { flexShrink: 1 },
+  flags: { gap: space.xs },
+  flag: { flexDirection: 'row', alignItems: 'flex-start', gap: space.sm },
+  flagText: { flex: 1, color: colors.ink },
+  flagTitle: { color: colors.ink, fontFamily: fonts.bold },
+});

@@ -1,0 +1,72 @@
+import { StyleSheet, View } from 'react-native';
+import { ValidationError } from 'yup';
+import { BODY_LIMITS, bodySchema, saveDraftSchema, type AssessmentDraft } from '@/features/screening/contract';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { space } from '@/features/ui/theme';
+import { NumberField } from './number-field';
+
+type BodyKey = 'statureCm' | 'sittingHeightCm' | 'massKg';
+
+function check(fn: () => void): string | null {
+  try {
+    fn();
+    return null;
+  } catch (e) {
+    return e instanceof ValidationError ? e.message : 'Check this value.';
+  }
+}
+
+/** Standing height, sitting height and body mass, checked with the contract's bodySchema as they are typed. */
+export function BodyStep({ draft, update }: { draft: AssessmentDraft; update(change: (d: AssessmentDraft) => AssessmentDraft): void }) {
+  const { isTabletUp } = useBreakpoints();
+  const body = draft.body ?? {};
+  const field = (key: BodyKey, label: string, hint: string, testID: string) => (
+    <NumberField
+      label={label}
+      hint={hint}
+      testID={testID}
+      value={body[key]}
+      validate={(n) => check(() => bodySchema.validateSyncAt(key, { ...body, [key]: n }))}
+      onCommit={(n) => update((d) => ({ ...d, body: { ...d.body, [key]: n } }))}
+    />
+  );
+  return (
+    <View style={styles.wrap}>
+      <Notice title="Measure first">
+        Shoes off. Measure twice and type the mean. Sitting height is from the seat to the top of the head. These values
+        estimate where the athlete is in their growth spurt.
+      </Notice>
+      <Card style={isTabletUp ? styles.grid : undefined}>
+        <View style={isTabletUp ? styles.cell : undefined}>
+          {field('statureCm', 'Standing height (cm)', `Between ${BODY_LIMITS.statureCm[0]} and ${BODY_LIMITS.statureCm[1]} cm.`, 'body-stature')}
+        </View>
+        <View style={isTabletUp ? styles.cell : undefined}>
+          {field('sittingHeightCm', 'Sitting height (cm)', 'Seat to the top of the head.', 'body-sitting')}
+        </View>
+        <View style={isTabletUp ? styles.cell : undefined}>
+          {field('massKg', 'Body mass (kg)', `Between ${BODY_LIMITS.massKg[0]} and ${BODY_LIMITS.massKg[1]} kg.`, 'body-mass')}
+        </View>
+      </Card>
+      <Card>
+        <Text variant="label">Split-squat 1RM, if known</Text>
+        <NumberField
+          label="1RM (kg)"
+          hint="Only from a submaximal test under qualified supervision. Leave empty if unknown: the plan then uses bodyweight."
+          testID="body-one-rep-max"
+          value={draft.oneRepMaxKg}
+          validate={(n) => check(() => saveDraftSchema.validateSyncAt('draft.oneRepMaxKg', { draftVersion: 0, draft: { oneRepMaxKg: n } }))}
+          onCommit={(n) => update((d) => ({ ...d, oneRepMaxKg: n }))}
+        />
+      </Card>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  grid: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg },
+  cell: { flexBasis: 220, flexGrow: 1 },
+});

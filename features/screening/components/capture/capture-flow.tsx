@@ -1,0 +1,269 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { Link, Redirect, useRouter } from 'expo-router';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { ScrollView, StyleSheet, View } from 'react-native';
+import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
+import { screeningKeys } from '@/features/screening/api/keys';
+import { useSubmitAssessmentMutation } from '@/features/screening/api/submit-assessment';
+import type { AssessmentDetail, LandmarkSet, PhotoView, TaskDraft } from '@/features/screening/contract';
+import { BATTERY, getTask, type TaskId, type View as PhotoSide } from '@/features/screening/engine';
+import { useAssessmentDraft } from '@/features/screening/hooks/use-assessment-draft';
+import { useUnfinishedUploads } from '@/features/screening/hooks/use-upload';
+import { canScreen } from '@/features/screening/roles';
+import { useActiveClub } from '@/features/session/active-club';
+import { CONTENT_MAX_WIDTH, useBreakpoints } from '@/features/ui/breakpoints';
+import { Button } from '@/features/ui/components/button';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { colors, space, TOUCH_MIN } from '@/features/ui/theme';
+import { LazyLandmarkEditor } from '../landmarks/lazy-landmark-editor';
+import { ProgressBar } from '../progress-bar';
+import { PlainTag } from '../status-tag';
+import { BodyStep } from './body-step';
+import { ReviewStep } from './review-step';
+import { SaveStatusBadge } from './save-status';
+import { TaskStep } from './task-step';
+
+const STEPS: readonly string[] = ['body', ...BATTERY.map((t) => t.id), 'review'];
+const TASK_COUNT = BATTERY.length;
+
+/** The newest photo of each task and view. */
+function photoIndex(photos: PhotoView[]): Map<string, PhotoView> {
+  const map = new Map<string, PhotoView>();
+  for (const p of photos) {
+    const key = `${p.taskId}:${p.view}`;
+    const known = map.get(key);
+    if (!known || known.createdAt < p.createdAt) map.set(key, p);
+  }
+  return map;
+}
+
+/**
+ * Screening one athlete, one step per screen: body measurements, each task of the battery in order, then
+ * review and submit. Back and Next sit at the bottom, within thumb reach; every edit is autosaved.
+ */
+export function CaptureFlow({ id }: { id: string }) {
+  const { membership } = useActiveClub();
+  if (!canScreen(membership.role)) return <Redirect href={`/screening/assessments/${id}/result`} />;
+  return <CaptureLoader id={id} />;
+}
+
+function CaptureLoader({ id }: { id: string }) {
+  const query = useAssessmentQuery(id);
+  const draftState = useAssessmentDraft(query.data, id);
+  if (query.error && !draftState.ready) return <Centered><Notice tone="error">{query.error.message}</Notice></Centered>;
+  if (!query.data || !draftState.ready) return <Centered><Text>Loading the assessment…</Text></Centered>;
+  return <Capture detail={query.data} draftState={draftState} />;
+}
+
+function Centered({ children }: { children: React.ReactNode }) {
+  return <View style={styles.centered}>{children}</View>;
+}
+
+function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState: ReturnType<typeof useAssessmentDraft> }) {
+  const { draft, status, update, flush, mergedFromServer } = draftState;
+  const { isTabletUp } = useBreakpoints();
+  const router = useRouter();
+  const qc = useQueryClient();
+  const { membership } = useActiveClub();
+  const submit = useSubmitAssessmentMutation(detail.id);
+  const scroll = useRef<ScrollView>(null);
+  const [stepIndex, setStepIndex] = useState(() => Math.max(0, STEPS.indexOf(draft.step ?? 'body')));
+  const [editing, setEditing] = useState<{ taskId: TaskId; view: PhotoSide } | null>(null);
+  const [submitError, setSubmitError] = useState<string | null>(null);
+  const photos = useMemo(() => photoIndex(detail.photos), [detail.photos]);
+  const unfinishedUploads = useUnfinishedUploads(detail.id);
+  const step = STEPS[stepIndex] ?? 'body';
+  const task = step !== 'body' && step !== 'review' ? getTask(step as TaskId) : null;
+  const athleteName = `${detail.athlete.firstName} ${detail.athlete.lastName}`;
+
+  useEffect(() => {
+    scroll.current?.scrollTo({ y: 0, animated: false });
+  }, [stepIndex, editing]);
+
+  const goTo = (target: string) => {
+    const i = STEPS.indexOf(target);
+    if (i < 0) return;
+    setEditing(null);
+    setStepIndex(i);
+    // The step is saved to resume on another phone; a submitted assessment is only browsed.
+    if (detail.status !== 'submitted') update((d) => (d.step === target ? d : { ...d, step: target }));
+  };
+
+  const updateTask = (taskId: TaskId, change: (t: TaskDraft) => TaskDraft) =>
+    update((d) => ({ ...d, tasks: { ...d.tasks, [taskId]: change(d.tasks[taskId] ?? { criteria: [] }) } }));
+
+  const next = () => {
+    // Moving on from a task means it was done, even with nothing ticked ("nothing seen"). A submitted
+    // assessment is only browsed: any save would put it back in progress.
+    if (task && !draft.tasks[task.id] && detail.status !== 'submitted') updateTask(task.id, (t) => t);
+    goTo(STEPS[stepIndex + 1] ?? 'review');
+  };
+
+  const onUploaded = (photo: PhotoView) => {
+    qc.setQueryData<AssessmentDetail>(screeningKeys.assessment(membership.clubId, detail.id), (old) =>
+      old ? { ...old, photos: [...old.photos.filter((p) => !(p.taskId === photo.taskId && p.view === photo.view)), photo] } : old,
+    );
+    void qc.invalidateQueries({ queryKey: screeningKeys.assessment(membership.clubId, detail.id) });
+    // Points belong to the photo they were placed on: a new photo starts without them.
+    updateTask(photo.taskId, (t) => {
+      if (!t.landmarks?.[photo.view]) return t;
+      const { [photo.view]: _old, ...rest } = t.landmarks;
+      return { ...t, landmarks: rest };
+    });
+  };
+
+  const onSubmit = async () => {
+    setSubmitError(null);
+    try {
+      await flush();
+      await submit.mutateAsync();
+      router.replace(`/screening/assessments/${detail.id}/result`);
+    } catch (e) {
+      setSubmitError(e instanceof Error ? e.message : String(e));
+    }
+  };
+
+  const photoFor = (taskId: TaskId, view: PhotoSide) => photos.get(`${taskId}:${view}`);
+  const title = editing
+    ? `${getTask(editing.taskId).title}: ${editing.view} landmarks`
+    : step === 'body'
+      ? 'Body measurements'
+      : step === 'review'
+        ? 'Review and submit'
+        : task!.title;
+  const counter = task ? `Task ${stepIndex} of ${TASK_COUNT}` : step === 'body' ? 'Before the tasks' : `All ${TASK_COUNT} tasks`;
+  const editingPhoto = editing ? photoFor(editing.taskId, editing.view) : undefined;
+
+  return (
+    <View style={styles.root}>
+      <View style={styles.header}>
+        <View style={[styles.column, styles.headerInner]}>
+          <View style={styles.headerTop}>
+            <Link href={`/screening/rounds/${detail.roundId}`} style={styles.roundLink}>
+              <Text variant="small" style={styles.roundLinkText}>
+                ← {detail.roundName}
+              </Text>
+            </Link>
+            <SaveStatusBadge status={status} />
+          </View>
+          <Text variant="heading" accessibilityRole="header" testID="step-title">
+            {title}
+          </Text>
+          <View style={styles.who}>
+            <Text variant="label" testID="capture-athlete">
+              {athleteName}
+            </Text>
+            <Text variant="small" testID="step-counter">
+              {counter}
+            </Text>
+            {!detail.athlete.photoConsent ? <PlainTag label="No photo consent" /> : null}
+          </View>
+          <ProgressBar fraction={stepIndex / (STEPS.length - 1)} label={counter} />
+        </View>
+      </View>
+      <ScrollView ref={scroll} style={styles.scroll} contentContainerStyle={[styles.content, isTabletUp && styles.contentWide]} keyboardShouldPersistTaps="handled">
+        <View style={[styles.column, styles.body]}>
+          {mergedFromServer ? (
+            <Notice title="Merged with a newer save">
+              This assessment was also saved on another phone. Both are kept: where the same field was changed, your edits on this phone win.
+            </Notice>
+          ) : null}
+          {status.kind === 'refused' ? (
+            <Notice tone="error" title="Not saved" testID="save-refused">
+              {`${status.message} What you typed is kept on this phone.`}
+            </Notice>
+          ) : null}
+          {editing && editingPhoto ? (
+            <LazyLandmarkEditor
+              key={`${editing.taskId}:${editing.view}:${editingPhoto.id}`}
+              task={getTask(editing.taskId)}
+              view={editing.view}
+              photo={editingPhoto}
+              value={draft.tasks[editing.taskId]?.landmarks?.[editing.view] ?? {}}
+              racketHand={detail.athlete.racketHand}
+              onChange={(next: LandmarkSet) =>
+                updateTask(editing.taskId, (t) => ({ ...t, landmarks: { ...t.landmarks, [editing.view]: next } }))
+              }
+            />
+          ) : step === 'body' ? (
+            <BodyStep draft={draft} update={update} />
+          ) : step === 'review' ? (
+            <ReviewStep detail={detail} draft={draft} photoFor={photoFor} goTo={goTo} />
+          ) : task ? (
+            <TaskStep
+              key={task.id}
+              task={task}
+              value={draft.tasks[task.id]}
+              onChange={(change) => updateTask(task.id, change)}
+              detail={detail}
+              photos={{ front: photoFor(task.id, 'front'), side: photoFor(task.id, 'side') }}
+              onUploaded={onUploaded}
+              onPlaceLandmarks={(view) => setEditing({ taskId: task.id, view })}
+            />
+          ) : null}
+          {unfinishedUploads > 0 && step === 'review' && !editing ? (
+            <Notice tone="caution" title="A photo is not uploaded yet" testID="uploads-unfinished">
+              {`${unfinishedUploads === 1 ? 'One photo is' : `${unfinishedUploads} photos are`} still uploading or waiting for a retry. Submit once ${unfinishedUploads === 1 ? 'it is' : 'they are'} on the server, or discard ${unfinishedUploads === 1 ? 'it' : 'them'}.`}
+            </Notice>
+          ) : null}
+          {submitError && step === 'review' ? (
+            <Notice tone="error" title="Not submitted" testID="submit-error">
+              {submitError}
+            </Notice>
+          ) : null}
+        </View>
+      </ScrollView>
+      <View style={styles.bar}>
+        <View style={[styles.column, styles.barInner]}>
+          {editing ? (
+            <Button label="Done: back to the task" testID="landmarks-done" onPress={() => setEditing(null)} style={styles.barButton} />
+          ) : (
+            <>
+              <Button
+                tone="secondary"
+                label="Back"
+                testID="step-back"
+                disabled={stepIndex === 0}
+                onPress={() => goTo(STEPS[stepIndex - 1] ?? 'body')}
+                style={styles.barButton}
+              />
+              {step === 'review' ? (
+                <Button
+                  label={detail.status === 'submitted' ? 'Submit again' : 'Submit'}
+                  testID="submit-assessment"
+                  busy={submit.isPending}
+                  disabled={unfinishedUploads > 0}
+                  onPress={() => void onSubmit()}
+                  style={[styles.barButton, styles.barPrimary]}
+                />
+              ) : (
+                <Button label="Next" testID="step-next" onPress={next} style={[styles.barButton, styles.barPrimary]} />
+              )}
+            </>
+          )}
+        </View>
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  root: { flex: 1, backgroundColor: colors.paper },
+  centered: { flex: 1, alignItems: 'center', justifyContent: 'center', padding: space.xl },
+  column: { width: '100%', maxWidth: CONTENT_MAX_WIDTH, alignSelf: 'center' },
+  header: { backgroundColor: colors.surface, borderBottomWidth: 1, borderBottomColor: colors.line, paddingHorizontal: space.lg, paddingVertical: space.sm },
+  headerInner: { gap: 2 },
+  who: { flexDirection: 'row', alignItems: 'center', flexWrap: 'wrap', columnGap: space.sm, marginBottom: space.xs },
+  headerTop: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
+  roundLink: { minHeight: 36, justifyContent: 'center', flexShrink: 1 },
+  roundLinkText: { color: colors.pine },
+  scroll: { flex: 1 },
+  content: { padding: space.lg, paddingBottom: space.xxl },
+  contentWide: { paddingHorizontal: space.xxl },
+  body: { gap: space.lg },
+  bar: { backgroundColor: colors.surface, borderTopWidth: 1, borderTopColor: colors.line, paddingHorizontal: space.lg, paddingVertical: space.sm },
+  barInner: { flexDirection: 'row', gap: space.md },
+  barButton: { flex: 1, minHeight: TOUCH_MIN + 8 },
+  barPrimary: { flex: 2 },
+});

@@ -1,0 +1,49 @@
+import { useEffect, useState } from 'react';
+import { TextField } from '@/features/ui/components/text-field';
+
+type Props = {
+  label: string;
+  value: number | null | undefined;
+  /** Checks a candidate value; returns the message to show beside the field, or null. */
+  validate(value: number | null): string | null;
+  /** Called with every valid value (null when emptied); invalid text stays in the field with its error. */
+  onCommit(value: number | null): void;
+  hint?: string;
+  testID?: string;
+  placeholder?: string;
+};
+
+function parse(raw: string): number | null {
+  const t = raw.trim().replace(',', '.');
+  if (t === '') return null;
+  return /^-?\d+(\.\d+)?$/.test(t) ? Number(t) : Number.NaN;
+}
+
+/** A decimal input that writes to the draft only what is valid, and accepts a decimal comma. */
+export function NumberField({ label, value, validate, onCommit, hint, testID, placeholder }: Props) {
+  const [raw, setRaw] = useState(value == null ? '' : String(value));
+  const [error, setError] = useState<string | null>(null);
+  // A newer value from elsewhere (a merge with another phone's save) replaces the text.
+  useEffect(() => {
+    setRaw((current) => (parse(current) === (value ?? null) ? current : value == null ? '' : String(value)));
+  }, [value]);
+  return (
+    <TextField
+      label={label}
+      testID={testID}
+      value={raw}
+      hint={hint}
+      placeholder={placeholder}
+      inputMode="decimal"
+      keyboardType="decimal-pad"
+      error={error ?? undefined}
+      onChangeText={(text) => {
+        setRaw(text);
+        const n = parse(text);
+        const message = Number.isNaN(n) ? `${label} must be a number.` : validate(n);
+        setError(message);
+        if (!message) onCommit(n);
+      }}
+    />
+  );
+}

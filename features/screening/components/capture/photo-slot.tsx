@@ -1,0 +1,142 @@
+import { useState } from 'react';
+import { Image, StyleSheet, View } from 'react-native';
+import type { PhotoView } from '@/features/screening/contract';
+import type { TaskId, ViewSpec } from '@/features/screening/engine';
+import { useUploadItem } from '@/features/screening/hooks/use-upload';
+import { pickPhoto } from '@/features/screening/photos/pick-photo';
+import { scalePhoto } from '@/features/screening/photos/scale-photo';
+import { slotOf } from '@/features/screening/photos/upload-queue';
+import { uploadQueue } from '@/features/screening/photos/upload-registry';
+import { Button } from '@/features/ui/components/button';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { colors, radius, space } from '@/features/ui/theme';
+import { ProgressBar } from '../progress-bar';
+
+type Props = {
+  assessmentId: string;
+  taskId: TaskId;
+  spec: ViewSpec;
+  photo: PhotoView | undefined;
+  placed: number;
+  onUploaded(photo: PhotoView): void;
+  onPlaceLandmarks(): void;
+};
+
+const VIEW_WORD = { front: 'Front', side: 'Side' } as const;
+
+/** One photo of a task: take or choose it, see it upload, retry, then place its landmarks. */
+export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploaded, onPlaceLandmarks }: Props) {
+  const slot = slotOf(taskId, spec.view);
+  const item = useUploadItem(assessmentId, slot);
+  const [preparing, setPreparing] = useState(false);
+  const [pickError, setPickError] = useState<string | null>(null);
+  const title = `${VIEW_WORD[spec.view]} photo${spec.required ? '' : ' (optional)'}`;
+  const testID = `photo-${spec.view}`;
+
+  // The server refuses a photo without consent (a consent withdrawn since the page loaded): its message,
+  // and no photo control.
+  if (item?.error?.code === 'no_photo_consent') {
+    return (
+      <Notice tone="error" title={`${title}: no photo consent`} testID={`${testID}-no-consent`}>
+        {item.error.message}
+      </Notice>
+    );
+  }
+
+  const choose = async (source: 'camera' | 'library') => {
+    setPickError(null);
+    try {
+      const picked = await pickPhoto(source);
+      if (!picked) return;
+      setPreparing(true);
+      const scaled = await scalePhoto(picked);
+      setPreparing(false);
+      void uploadQueue.start({ assessmentId, taskId, view: spec.view, ...scaled }, onUploaded);
+    } catch (e) {
+      setPreparing(false);
+      setPickError(e instanceof Error ? e.message : String(e));
+    }
+  };
+
+  const uploading = item?.state === 'uploading';
+  const failed = item?.state === 'failed';
+  // A lost connection or a server hiccup is worth retrying; a refused file (too large, not a photo) is not.
+  const retryable = !!item?.error && (item.error.status === 0 || item.error.status === 408 || item.error.status === 429 || item.error.status >= 500);
+  const shown = item ? { uri: item.previewUri, w: item.width, h: item.height } : photo ? { uri: photo.thumbUrl, w: photo.width, h: photo.height } : null;
+
+  return (
+    <View style={styles.slot} testID={testID}>
+      <Text variant="label">{title}</Text>
+      <Text variant="small">{spec.capture}</Text>
+      {shown ? (
+        <Image
+          source={{ uri: shown.uri }}
+          style={[styles.preview, { aspectRatio: shown.w / Math.max(shown.h, 1) }, (uploading || failed) && styles.previewPending]}
+          resizeMode="contain"
+          accessibilityLabel={`${title} of the task`}
+        />
+      ) : null}
+      {uploading ? (
+        <View style={styles.progress} testID={`${testID}-uploading`}>
+          <Text variant="small">Uploading… {Math.round((item.progress ?? 0) * 100)}%</Text>
+          <ProgressBar fraction={item.progress} label="Upload progress" />
+        </View>
+      ) : null}
+      {failed && item.error ? (
+        <View style={styles.actions}>
+          <Notice tone="error" title={retryable ? 'The photo is not uploaded yet' : 'This photo was refused'} testID={`${testID}-upload-error`}>
+            {retryable ? `${item.error.message} The photo is kept on this phone: try again.` : `${item.error.message} Take or choose another photo.`}
+          </Notice>
+          {retryable ? (
+            <Button label="Retry upload" testID={`${testID}-retry`} onPress={() => uploadQueue.retry(assessmentId, slot, onUploaded)} />
+          ) : null}
+          <Button tone={retryable ? 'quiet' : 'secondary'} label="Discard this photo" testID={`${testID}-discard`} onPress={() => uploadQueue.discard(assessmentId, slot)} />
+        </View>
+      ) : null}
+      {preparing ? <Text variant="small">Preparing the photo…</Text> : null}
+      {pickError ? <Notice tone="error">{pickError}</Notice> : null}
+      {photo && !item ? (
+        <View style={styles.actions}>
+          <Text variant="small" testID={`${testID}-placed`}>
+            {placed === 0 ? 'No landmarks placed yet.' : `${placed} of ${spec.landmarks.length} landmarks placed.`}
+          </Text>
+          <Button label={placed === 0 ? 'Place landmarks' : 'Adjust landmarks'} testID={`${testID}-landmarks`} onPress={onPlaceLandmarks} />
+        </View>
+      ) : null}
+      {!uploading && !failed ? (
+        <View style={styles.pickRow}>
+          <Button
+            tone={photo ? 'secondary' : 'primary'}
+            label={photo ? 'Retake' : 'Take photo'}
+            testID={`${testID}-camera`}
+            disabled={preparing}
+            onPress={() => void choose('camera')}
+            style={styles.pick}
+          />
+          <Button
+            tone="secondary"
+            label={photo ? 'Choose another' : 'Choose photo'}
+            testID={`${testID}-library`}
+            disabled={preparing}
+            onPress={() => void choose('library')}
+            style={styles.pick}
+          />
+        </View>
+      ) : null}
+      {photo && placed > 0 && !uploading && !failed ? (
+        <Text variant="small">A new photo clears the landmarks placed on this one.</Text>
+      ) : null}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  slot: { gap: space.sm, padding: space.md, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, backgroundColor: colors.surface },
+  preview: { width: '100%', maxHeight: 320, borderRadius: radius.sm, backgroundColor: '#222' },
+  previewPending: { opacity: 0.6 },
+  progress: { gap: space.xs },
+  actions: { gap: space.sm },
+  pickRow: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
+  pick: { flexGrow: 1, flexBasis: 140 },
+});

@@ -1,0 +1,117 @@
+import { Pressable, StyleSheet, View } from 'react-native';
+import type { AssessmentDetail, AssessmentDraft, PhotoView } from '@/features/screening/contract';
+import { BATTERY, type TaskId, type View as PhotoSide } from '@/features/screening/engine';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+
+type Props = {
+  detail: AssessmentDetail;
+  draft: AssessmentDraft;
+  photoFor(taskId: TaskId, view: PhotoSide): PhotoView | undefined;
+  goTo(step: string): void;
+};
+
+function bodySummary(draft: AssessmentDraft): string {
+  const b = draft.body ?? {};
+  const parts = [
+    b.statureCm != null ? `standing ${b.statureCm} cm` : null,
+    b.sittingHeightCm != null ? `sitting ${b.sittingHeightCm} cm` : null,
+    b.massKg != null ? `${b.massKg} kg` : null,
+  ].filter(Boolean);
+  return parts.length ? parts.join(' · ') : 'Not measured';
+}
+
+/** What was captured, what is missing, then submit (the button is in the bottom bar). */
+export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
+  const missing: string[] = [];
+  const rows = BATTERY.map((task, i) => {
+    const t = draft.tasks[task.id];
+    const lines: string[] = [];
+    let state: 'todo' | 'done' | 'skipped' = 'todo';
+    if (t?.skipped) {
+      state = 'skipped';
+      lines.push(`Skipped${t.skipReason ? `: ${t.skipReason}` : ''}`);
+    } else if (t) {
+      state = 'done';
+      lines.push(t.criteria.length === 0 ? 'Nothing ticked' : `${t.criteria.length} ticked`);
+      if (task.distance) lines.push(t.distanceCm != null ? `${t.distanceCm} cm` : 'no distance');
+      for (const v of task.views) {
+        if (!detail.athlete.photoConsent) continue;
+        const photo = photoFor(task.id, v.view);
+        const placed = Object.values(t.landmarks?.[v.view] ?? {}).filter(Boolean).length;
+        if (photo) lines.push(`${v.view} photo, ${placed}/${v.landmarks.length} points`);
+        else if (v.required) {
+          lines.push(`no ${v.view} photo`);
+          missing.push(`${task.title}: ${v.view} photo`);
+        }
+      }
+      if (t.painReported) lines.push('PAIN REPORTED');
+    } else {
+      missing.push(`${task.title}: not done`);
+    }
+    return { task, i, state, lines };
+  });
+  const painTasks = rows.filter((r) => draft.tasks[r.task.id]?.painReported && !draft.tasks[r.task.id]?.skipped);
+
+  return (
+    <View style={styles.wrap}>
+      <Pressable accessibilityRole="button" onPress={() => goTo('body')} style={styles.row}>
+        <Text style={styles.mark}>{bodySummary(draft) === 'Not measured' ? '○' : '✓'}</Text>
+        <View style={styles.rowText}>
+          <Text variant="label">Body measurements</Text>
+          <Text variant="small">{bodySummary(draft)}</Text>
+        </View>
+      </Pressable>
+      {rows.map(({ task, i, state, lines }) => (
+        <Pressable key={task.id} accessibilityRole="button" onPress={() => goTo(task.id)} style={styles.row} testID={`review-${task.id}`}>
+          <Text style={styles.mark}>{state === 'done' ? '✓' : state === 'skipped' ? '–' : '○'}</Text>
+          <View style={styles.rowText}>
+            <Text variant="label">
+              {i + 1}. {task.title}
+            </Text>
+            <Text variant="small">{state === 'todo' ? 'Not done yet' : lines.join(' · ')}</Text>
+          </View>
+        </Pressable>
+      ))}
+      {missing.length > 0 ? (
+        <Notice tone="caution" title="Not everything is captured">
+          <View style={styles.list}>
+            <Text>You can still submit: what is missing is left out of the result.</Text>
+            {missing.map((m) => (
+              <Text key={m}>• {m}</Text>
+            ))}
+          </View>
+        </Notice>
+      ) : null}
+      {painTasks.length > 0 ? (
+        <Notice tone="error" title="Pain was reported">
+          {`During: ${painTasks.map((r) => r.task.title).join(', ')}. The plan will ask for clearance by a physiotherapist or doctor before it starts.`}
+        </Notice>
+      ) : null}
+      <Notice>
+        {detail.status === 'submitted'
+          ? 'This assessment was submitted before. Submitting again replaces its result; the earlier one stays in its history.'
+          : 'Submitting computes the flags and the corrective plan. You can still edit and submit again later.'}
+      </Notice>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.sm },
+  row: {
+    minHeight: TOUCH_MIN + 8,
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    padding: space.md,
+    borderRadius: radius.md,
+    backgroundColor: colors.surface,
+    borderWidth: 1,
+    borderColor: colors.line,
+  },
+  mark: { fontFamily: fonts.bold, fontSize: 20, width: 24, textAlign: 'center', color: colors.pine },
+  rowText: { flex: 1, gap: 2 },
+  list: { gap: space.xs },
+});

@@ -1,0 +1,172 @@
+import { useState } from 'react';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { ValidationError } from 'yup';
+import type { AssessmentDetail, PhotoView, TaskDraft } from '@/features/screening/contract';
+import { taskDraftSchema } from '@/features/screening/contract';
+import type { TaskSpec, View as PhotoSide } from '@/features/screening/engine';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { TextField } from '@/features/ui/components/text-field';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { TickBox } from '../tick-box';
+import { NumberField } from './number-field';
+import { PhotoSlot } from './photo-slot';
+
+type Props = {
+  task: TaskSpec;
+  value: TaskDraft | undefined;
+  onChange(change: (t: TaskDraft) => TaskDraft): void;
+  detail: AssessmentDetail;
+  photos: Partial<Record<PhotoSide, PhotoView>>;
+  onUploaded(photo: PhotoView): void;
+  onPlaceLandmarks(view: PhotoSide): void;
+};
+
+function distanceError(n: number | null): string | null {
+  try {
+    taskDraftSchema.validateSyncAt('distanceCm', { distanceCm: n });
+    return null;
+  } catch (e) {
+    return e instanceof ValidationError ? e.message : 'Check this value.';
+  }
+}
+
+/** One task of the battery: safety first, what to watch, tick what was seen, photos, distance, pain, notes. */
+export function TaskStep({ task, value, onChange, detail, photos, onUploaded, onPlaceLandmarks }: Props) {
+  const { isWide } = useBreakpoints();
+  const [showHow, setShowHow] = useState(false);
+  const t: TaskDraft = value ?? { criteria: [] };
+  const ticked = new Set(t.criteria);
+  const skipped = t.skipped === true;
+  const toggle = (id: string, on: boolean) =>
+    onChange((d) => ({ ...d, criteria: on ? [...d.criteria.filter((c) => c !== id), id] : d.criteria.filter((c) => c !== id) }));
+
+  const photoPanel =
+    task.views.length > 0 && !skipped && !detail.athlete.photoConsent ? (
+      <Notice tone="caution" title="No photo consent" testID="photos-no-consent">
+        {`No photo consent is recorded for ${detail.athlete.firstName}, so no photo is taken. Tick what you see; the angles are left out.`}
+      </Notice>
+    ) : task.views.length > 0 && !skipped ? (
+      <View style={styles.section}>
+        {task.views.map((v) => (
+          <PhotoSlot
+            key={v.view}
+            assessmentId={detail.id}
+            taskId={task.id}
+            spec={v}
+            photo={photos[v.view]}
+            placed={Object.values(t.landmarks?.[v.view] ?? {}).filter(Boolean).length}
+            onUploaded={onUploaded}
+            onPlaceLandmarks={() => onPlaceLandmarks(v.view)}
+          />
+        ))}
+      </View>
+    ) : null;
+
+  return (
+    <View style={styles.wrap}>
+      <Notice tone="caution" title="Safety" testID="task-safety">
+        <View style={styles.bullets}>
+          {task.safety.map((s) => (
+            <Text key={s}>• {s}</Text>
+          ))}
+        </View>
+      </Notice>
+      <View style={styles.look}>
+        <Text variant="label">What to look at</Text>
+        <Text>{task.lookFor}</Text>
+        <Pressable
+          accessibilityRole="button"
+          aria-expanded={showHow}
+          onPress={() => setShowHow((s) => !s)}
+          style={styles.howToggle}
+        >
+          <Text style={styles.howToggleText}>{showHow ? 'Hide how to run it ▲' : 'How to run it ▼'}</Text>
+        </Pressable>
+        {showHow ? <Text>{task.instructions}</Text> : null}
+      </View>
+
+      <View style={[styles.columns, isWide && styles.columnsWide]}>
+        {isWide && photoPanel ? <View style={styles.wideLeft}>{photoPanel}</View> : null}
+        <View style={[styles.section, isWide && styles.wideRight]}>
+          {task.distance && !skipped ? (
+            <NumberField
+              label={task.distance.label}
+              hint={task.distance.hint}
+              testID="task-distance"
+              value={t.distanceCm}
+              validate={distanceError}
+              onCommit={(n) => onChange((d) => ({ ...d, distanceCm: n }))}
+            />
+          ) : null}
+          {skipped ? null : (
+            <View style={styles.section} accessibilityRole="list">
+              <Text variant="label">Tick what you saw</Text>
+              <Text variant="small">Leave a box empty when you did not see it.</Text>
+              {task.criteria.map((c) => (
+                <TickBox key={c.id} label={c.text} checked={ticked.has(c.id)} onChange={(on) => toggle(c.id, on)} testID={`criterion-${c.id}`} />
+              ))}
+            </View>
+          )}
+          {!isWide && photoPanel}
+          {!skipped ? (
+            <TickBox
+              tone="caution"
+              label="Pain reported during this task"
+              hint="Stop the task. The plan will then ask for clearance by a physiotherapist or doctor before it starts."
+              checked={t.painReported === true}
+              onChange={(on) => onChange((d) => ({ ...d, painReported: on }))}
+              testID="task-pain"
+            />
+          ) : null}
+          <TextField
+            label="Notes"
+            testID="task-notes"
+            multiline
+            numberOfLines={3}
+            style={styles.notes}
+            placeholder="Anything worth remembering"
+            value={t.notes ?? ''}
+            onChangeText={(text) => onChange((d) => ({ ...d, notes: text.slice(0, 2000) }))}
+          />
+          <TickBox
+            label="Skip this task"
+            hint={
+              t.painReported
+                ? 'Pain was reported: keep the task (not skipped) so the plan asks for clearance.'
+                : 'Refused, no time, no equipment… the reason is kept.'
+            }
+            checked={skipped}
+            disabled={t.painReported === true && !skipped}
+            onChange={(on) => onChange((d) => ({ ...d, skipped: on }))}
+            testID="task-skip"
+          />
+          {skipped ? (
+            <TextField
+              label="Why was it skipped?"
+              testID="task-skip-reason"
+              value={t.skipReason ?? ''}
+              onChangeText={(text) => onChange((d) => ({ ...d, skipReason: text.slice(0, 500) }))}
+              error={(t.skipReason ?? '').trim() === '' ? 'Say why, for the record.' : undefined}
+            />
+          ) : null}
+        </View>
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  bullets: { gap: space.xs },
+  look: { gap: space.xs },
+  howToggle: { minHeight: TOUCH_MIN, justifyContent: 'center', alignSelf: 'flex-start', borderRadius: radius.sm },
+  howToggleText: { fontFamily: fonts.bold, color: colors.pine, fontSize: 16 },
+  columns: { gap: space.lg },
+  columnsWide: { flexDirection: 'row', alignItems: 'flex-start' },
+  wideLeft: { flex: 1 },
+  wideRight: { flex: 1 },
+  section: { gap: space.sm },
+  notes: { minHeight: 88, paddingVertical: space.sm, textAlignVertical: 'top' },
+});

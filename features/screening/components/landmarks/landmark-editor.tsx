@@ -1,0 +1,355 @@
+import { useMemo, useRef, useState } from 'react';
+import { Pressable, StyleSheet, useWindowDimensions, View, type GestureResponderEvent, type LayoutChangeEvent } from 'react-native';
+import type { LandmarkSet, PhotoView } from '@/features/screening/contract';
+import { getLandmark, type LandmarkId, type Point, type Side, type TaskSpec, type View as PhotoSide } from '@/features/screening/engine';
+import { overlayFor } from '@/features/screening/overlay/overlay';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Button } from '@/features/ui/components/button';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { PhotoOverlay, type ViewBox } from './photo-overlay';
+
+type Props = {
+  task: TaskSpec;
+  view: PhotoSide;
+  photo: PhotoView;
+  value: LandmarkSet;
+  racketHand?: Side;
+  onChange(next: LandmarkSet): void;
+};
+
+const ZOOMS = [1, 2, 3] as const;
+type Zoom = (typeof ZOOMS)[number];
+/** Screen pixels: a press this close to a point grabs it; a move this far turns a tap into a pan. */
+const GRAB_RADIUS = 26;
+const TAP_SLOP = 8;
+
+type Gesture = {
+  start: Point;
+  origin: Point | null;
+  mode: 'pending' | 'drag' | 'pan';
+  dragId: LandmarkId | null;
+  startCenter: Point;
+  before: LandmarkSet;
+};
+
+const clamp = (v: number, min: number, max: number) => Math.min(max, Math.max(min, v));
+
+/**
+ * Place the task's landmarks on a photo: tap places the next one, drag moves a point, 1x/2x/3x zoom with
+ * panning for precision, undo and clear. Points are stored in the photo's pixels; the angles are the
+ * engine's, live. Loaded lazily: only testers placing landmarks download it.
+ */
+export default function LandmarkEditor({ task, view, photo, value, racketHand, onChange }: Props) {
+  const { isWide } = useBreakpoints();
+  const window = useWindowDimensions();
+  const needed = task.views.find((v) => v.view === view)?.landmarks ?? [];
+  const [marks, setMarks] = useState<LandmarkSet>(value);
+  const [history, setHistory] = useState<LandmarkSet[]>([]);
+  const [selected, setSelected] = useState<LandmarkId | null>(null);
+  const [zoom, setZoom] = useState<Zoom>(1);
+  const [center, setCenter] = useState<Point>({ x: photo.width / 2, y: photo.height / 2 });
+  const [columnWidth, setColumnWidth] = useState(0);
+  const surface = useRef<View>(null);
+  const gesture = useRef<Gesture | null>(null);
+
+  const active: LandmarkId | null = selected ?? needed.find((id) => !marks[id]) ?? null;
+  const placedCount = needed.filter((id) => marks[id]).length;
+  const overlay = useMemo(() => overlayFor(task, view, marks, racketHand), [task, view, marks, racketHand]);
+
+  // Fit the photo to the column, and keep a tall photo within what the header and the bottom bar leave.
+  const maxHeight = window.height * (isWide ? 0.64 : 0.52);
+  const displayWidth = Math.max(1, Math.min(columnWidth, (maxHeight * photo.width) / photo.height));
+  const displayHeight = (displayWidth * photo.height) / photo.width;
+  const vb: ViewBox = useMemo(() => {
+    const width = photo.width / zoom;
+    const height = photo.height / zoom;
+    return {
+      x: clamp(center.x - width / 2, 0, photo.width - width),
+      y: clamp(center.y - height / 2, 0, photo.height - height),
+      width,
+      height,
+    };
+  }, [center, zoom, photo.width, photo.height]);
+  const unit = vb.width / displayWidth;
+
+  const commit = (next: LandmarkSet, before: LandmarkSet = marks) => {
+    setHistory((h) => [...h.slice(-49), before]);
+    setMarks(next);
+    onChange(next);
+  };
+
+  const toPhoto = (g: Gesture, pageX: number, pageY: number): Point => ({
+    x: clamp(vb.x + (pageX - g.origin!.x) * unit, 0, photo.width),
+    y: clamp(vb.y + (pageY - g.origin!.y) * unit, 0, photo.height),
+  });
+
+  const measureOrigin = (g: Gesture) =>
+    new Promise<void>((resolve) => {
+      if (!surface.current) return resolve();
+      surface.current.measureInWindow((x, y) => {
+        g.origin = { x, y };
+        resolve();
+      });
+    });
+
+  // A tap always places the point named above; a press that moves starts dragging the nearest point
+  // (or, zoomed in, pans the photo when no point is near).
+  const onGrant = (e: GestureResponderEvent) => {
+    const { pageX, pageY } = e.nativeEvent;
+    const g: Gesture = { start: { x: pageX, y: pageY }, origin: null, mode: 'pending', dragId: null, startCenter: center, before: marks };
+    gesture.current = g;
+    void measureOrigin(g).then(() => {
+      if (!g.origin) return;
+      const p = toPhoto(g, pageX, pageY);
+      let best: { id: LandmarkId; d: number } | null = null;
+      for (const id of needed) {
+        const q = marks[id];
+        if (!q) continue;
+        const d = Math.hypot(q.x - p.x, q.y - p.y) / unit;
+        if (d <= GRAB_RADIUS && (!best || d < best.d)) best = { id, d };
+      }
+      g.dragId = best?.id ?? null;
+    });
+  };
+
+  const onMove = (e: GestureResponderEvent) => {
+    const g = gesture.current;
+    if (!g?.origin) return;
+    const { pageX, pageY } = e.nativeEvent;
+    const dx = pageX - g.start.x;
+    const dy = pageY - g.start.y;
+    if (g.mode === 'pending' && Math.hypot(dx, dy) > TAP_SLOP) {
+      if (g.dragId) g.mode = 'drag';
+      else if (zoom > 1) g.mode = 'pan';
+    }
+    if (g.mode === 'drag' && g.dragId) {
+      const id = g.dragId;
+      setMarks((m) => ({ ...m, [id]: toPhoto(g, pageX, pageY) }));
+    } else if (g.mode === 'pan') {
+      setCenter({ x: g.startCenter.x - dx * unit, y: g.startCenter.y - dy * unit });
+    }
+  };
+
+  const onRelease = (e: GestureResponderEvent) => {
+    const g = gesture.current;
+    gesture.current = null;
+    if (!g) return;
+    const { pageX, pageY } = e.nativeEvent;
+    void measureOrigin(g).then(() => {
+      if (!g.origin) return;
+      if (g.mode === 'drag' && g.dragId) {
+        commit({ ...g.before, [g.dragId]: toPhoto(g, pageX, pageY) }, g.before);
+        return;
+      }
+      if (g.mode !== 'pending' || Math.hypot(pageX - g.start.x, pageY - g.start.y) > TAP_SLOP) return;
+      if (!active) return;
+      commit({ ...marks, [active]: toPhoto(g, pageX, pageY) });
+      setSelected(null);
+    });
+  };
+
+  const setZoomAround = (z: Zoom) => {
+    const focus = (active && marks[active]) ?? [...needed].reverse().map((id) => marks[id]).find(Boolean);
+    if (z > zoom && focus) setCenter(focus);
+    if (z === 1) setCenter({ x: photo.width / 2, y: photo.height / 2 });
+    setZoom(z);
+  };
+
+  const undo = () => {
+    const previous = history[history.length - 1];
+    if (!previous) return;
+    setHistory((h) => h.slice(0, -1));
+    setMarks(previous);
+    onChange(previous);
+  };
+
+  const activeSpec = active ? getLandmark(active) : null;
+
+  return (
+    <View style={styles.wrap} testID="landmark-editor">
+      <View style={[styles.columns, isWide && styles.columnsWide]}>
+        <View style={[styles.photoColumn, isWide && styles.photoColumnWide]} onLayout={(e: LayoutChangeEvent) => setColumnWidth(e.nativeEvent.layout.width)}>
+          <View style={styles.prompt} testID="landmark-next" accessibilityLiveRegion="polite">
+            {activeSpec ? (
+              <>
+                <Text variant="label">
+                  {selected ? 'Place again: ' : `Tap ${placedCount + 1} of ${needed.length}: `}
+                  {activeSpec.label}
+                </Text>
+                <Text variant="small">{activeSpec.hint}</Text>
+              </>
+            ) : (
+              <>
+                <Text variant="label">All {needed.length} points placed</Text>
+                <Text variant="small">Drag a point to adjust it, or pick one in the list to place it again.</Text>
+              </>
+            )}
+            <Text variant="small" style={styles.orientation}>
+              {view === 'front'
+                ? "The athlete faces the camera: their right side is on the photo's left."
+                : 'Side photo: the points of the side nearest the camera.'}
+            </Text>
+          </View>
+          {columnWidth > 0 ? (
+            <View
+              ref={surface}
+              testID="landmark-surface"
+              style={[styles.surface, { width: displayWidth, height: displayHeight }]}
+              onStartShouldSetResponder={() => true}
+              onMoveShouldSetResponder={() => true}
+              onResponderTerminationRequest={() => false}
+              onResponderGrant={onGrant}
+              onResponderMove={onMove}
+              onResponderRelease={onRelease}
+            >
+              <PhotoOverlay
+                href={photo.url}
+                photoWidth={photo.width}
+                photoHeight={photo.height}
+                displayWidth={displayWidth}
+                displayHeight={displayHeight}
+                viewBox={vb}
+                marks={marks}
+                overlay={overlay}
+                activeId={gesture.current?.mode === 'drag' ? gesture.current.dragId : active}
+              />
+            </View>
+          ) : null}
+          <View style={styles.controls}>
+            <View style={styles.segment} accessibilityRole="radiogroup" accessibilityLabel="Zoom">
+              {ZOOMS.map((z) => (
+                <Pressable
+                  key={z}
+                  accessibilityRole="radio"
+                  aria-checked={zoom === z}
+                  accessibilityLabel={`Zoom ${z} times`}
+                  testID={`zoom-${z}`}
+                  onPress={() => setZoomAround(z)}
+                  style={[styles.segmentItem, zoom === z && styles.segmentOn]}
+                >
+                  <Text style={[styles.segmentText, zoom === z && styles.segmentTextOn]}>{z}x</Text>
+                </Pressable>
+              ))}
+            </View>
+            <Button tone="secondary" label="Undo" testID="landmarks-undo" disabled={history.length === 0} onPress={undo} style={styles.grow} />
+            <Button
+              tone="quiet"
+              label="Clear all"
+              testID="landmarks-clear"
+              disabled={placedCount === 0}
+              onPress={() => {
+                commit({});
+                setSelected(null);
+              }}
+            />
+          </View>
+          <Text variant="small">
+            Tap the photo to place the point named above. Drag a point to move it.{zoom > 1 ? ' Drag the photo to move around.' : ''}
+          </Text>
+        </View>
+        <View style={[styles.listColumn, isWide && styles.listColumnWide]}>
+          <View style={styles.angles} testID="live-angles" accessibilityLiveRegion="polite">
+            <Text variant="label">Angles</Text>
+            {overlay.angles.length === 0 ? (
+              <Text variant="small">Angles appear here as soon as the points they need are placed.</Text>
+            ) : (
+              overlay.angles.map((a) => (
+                <View key={a.id} style={styles.angle}>
+                  <Text variant="small">{a.label}</Text>
+                  <Text style={styles.angleValue}>{a.text}</Text>
+                </View>
+              ))
+            )}
+            {overlay.problems.map((p) => (
+              <Notice key={p} tone="error">
+                {`Check the points. ${p}`}
+              </Notice>
+            ))}
+          </View>
+          <View style={styles.list}>
+            <Text variant="label">
+              Points ({placedCount} of {needed.length} placed)
+            </Text>
+            {needed.map((id, i) => {
+              const spec = getLandmark(id);
+              const placed = !!marks[id];
+              const isActive = id === active;
+              return (
+                <Pressable
+                  key={id}
+                  accessibilityRole="button"
+                  aria-selected={isActive}
+                  accessibilityLabel={`${spec.label}: ${placed ? 'placed' : 'not placed'}. ${placed ? 'Tap to place again.' : ''}`}
+                  testID={`landmark-item-${id}`}
+                  onPress={() => setSelected(id === selected ? null : id)}
+                  style={[styles.item, isActive && styles.itemActive]}
+                >
+                  <View style={[styles.badge, placed && styles.badgePlaced]}>
+                    <Text style={[styles.badgeText, placed && styles.badgeTextPlaced]}>{placed ? '✓' : String(i + 1)}</Text>
+                  </View>
+                  <View style={styles.itemText}>
+                    <Text variant="label">{spec.label}</Text>
+                    {isActive ? <Text variant="small">{spec.hint}</Text> : null}
+                  </View>
+                </Pressable>
+              );
+            })}
+          </View>
+        </View>
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.md },
+  columns: { gap: space.lg },
+  columnsWide: { flexDirection: 'row', alignItems: 'flex-start' },
+  photoColumn: { gap: space.sm, alignItems: 'center', width: '100%' },
+  photoColumnWide: { flex: 3 },
+  prompt: {
+    alignSelf: 'stretch',
+    backgroundColor: colors.surface,
+    borderRadius: radius.md,
+    borderLeftWidth: 6,
+    borderLeftColor: '#FF7A1A',
+    paddingHorizontal: space.md,
+    paddingVertical: space.sm,
+    gap: 2,
+  },
+  orientation: { color: colors.pineDark },
+  // Web-only style keys: the browser must not scroll or select text while a finger places a point.
+  surface: { backgroundColor: '#222', overflow: 'hidden', borderRadius: radius.sm, touchAction: 'none', userSelect: 'none' } as object,
+  controls: { flexDirection: 'row', alignItems: 'center', gap: space.sm, alignSelf: 'stretch', flexWrap: 'wrap' },
+  segment: { flexDirection: 'row', borderWidth: 2, borderColor: colors.pine, borderRadius: radius.md, overflow: 'hidden' },
+  segmentItem: { minWidth: TOUCH_MIN, minHeight: TOUCH_MIN, alignItems: 'center', justifyContent: 'center', backgroundColor: colors.surface },
+  segmentOn: { backgroundColor: colors.pine },
+  segmentText: { fontFamily: fonts.bold, fontSize: 17, color: colors.pine },
+  segmentTextOn: { color: '#fff' },
+  grow: { flexGrow: 1 },
+  listColumn: { gap: space.lg },
+  listColumnWide: { flex: 2 },
+  angles: { gap: space.sm, backgroundColor: colors.surface, borderRadius: radius.md, padding: space.md, borderWidth: 1, borderColor: colors.line },
+  angle: { gap: 0 },
+  angleValue: { fontFamily: fonts.bold, fontSize: 18 },
+  list: { gap: space.xs },
+  item: {
+    minHeight: TOUCH_MIN,
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    paddingHorizontal: space.sm,
+    paddingVertical: space.xs,
+    borderRadius: radius.md,
+    borderWidth: 2,
+    borderColor: 'transparent',
+  },
+  itemActive: { borderColor: '#FF7A1A', backgroundColor: colors.surface },
+  badge: { width: 30, height: 30, borderRadius: 15, borderWidth: 2, borderColor: colors.inkMuted, alignItems: 'center', justifyContent: 'center' },
+  badgePlaced: { backgroundColor: colors.pine, borderColor: colors.pine },
+  badgeText: { fontFamily: fonts.bold, fontSize: 14, color: colors.inkMuted },
+  badgeTextPlaced: { color: '#fff' },
+  itemText: { flex: 1 },
+});

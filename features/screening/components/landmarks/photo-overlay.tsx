@@ -1,0 +1,103 @@
+import Svg, { Circle, G, Image as SvgImage, Line, Rect, Text as SvgText } from 'react-native-svg';
+import type { LandmarkSet } from '@/features/screening/contract';
+import type { LandmarkId } from '@/features/screening/engine';
+import type { Overlay } from '@/features/screening/overlay/overlay';
+import { fonts } from '@/features/ui/theme';
+import { LANDMARK_SHORT } from './landmark-short';
+
+export type ViewBox = { x: number; y: number; width: number; height: number };
+
+type Props = {
+  href: string;
+  photoWidth: number;
+  photoHeight: number;
+  /** Size on screen, in screen pixels. */
+  displayWidth: number;
+  displayHeight: number;
+  viewBox?: ViewBox;
+  marks: LandmarkSet;
+  overlay: Overlay;
+  /** The point the next tap places or the one being dragged. */
+  activeId?: LandmarkId | null;
+  testID?: string;
+};
+
+// Bright lines over a dark outline stay visible on any photo.
+const LINE = '#FFD23F';
+const OUTLINE = 'rgba(0,0,0,0.75)';
+const POINT = '#19A47A';
+const ACTIVE = '#FF7A1A';
+
+/** The athlete's right side is on the image's left: its names go on the outer (left) side of the points. */
+const labelOnLeft = (id: LandmarkId) => id.startsWith('right-');
+
+/** A photo with its landmarks, the lines between them and the angles, drawn in the photo's own pixels. */
+export function PhotoOverlay({ href, photoWidth, photoHeight, displayWidth, displayHeight, viewBox, marks, overlay, activeId, testID }: Props) {
+  const vb = viewBox ?? { x: 0, y: 0, width: photoWidth, height: photoHeight };
+  // Photo pixels per screen pixel: strokes, points and text keep their size on screen at any zoom.
+  const u = vb.width / Math.max(displayWidth, 1);
+  const fontSize = 14 * u;
+  return (
+    <Svg
+      width={displayWidth}
+      height={displayHeight}
+      viewBox={`${vb.x} ${vb.y} ${vb.width} ${vb.height}`}
+      testID={testID}
+      accessibilityLabel="Photo with landmarks"
+    >
+      <SvgImage href={href} x={0} y={0} width={photoWidth} height={photoHeight} preserveAspectRatio="none" />
+      {overlay.lines.map((l) => (
+        <G key={l.id}>
+          <Line x1={l.from.x} y1={l.from.y} x2={l.to.x} y2={l.to.y} stroke={OUTLINE} strokeWidth={5 * u} strokeLinecap="round" />
+          <Line
+            x1={l.from.x}
+            y1={l.from.y}
+            x2={l.to.x}
+            y2={l.to.y}
+            stroke={l.style === 'limb' ? LINE : '#FFFFFF'}
+            strokeWidth={(l.style === 'limb' ? 3 : 2) * u}
+            strokeDasharray={l.style === 'reference' ? `${8 * u} ${6 * u}` : undefined}
+            strokeLinecap="round"
+          />
+        </G>
+      ))}
+      {(Object.entries(marks) as [LandmarkId, { x: number; y: number } | undefined][]).map(([id, p]) =>
+        p ? (
+          <G key={id}>
+            <Circle cx={p.x} cy={p.y} r={(id === activeId ? 11 : 8) * u} fill={id === activeId ? ACTIVE : POINT} stroke="#fff" strokeWidth={2.5 * u} />
+            {[true, false].map((outline) => (
+              <SvgText
+                key={outline ? 'outline' : 'fill'}
+                x={labelOnLeft(id) ? p.x - 13 * u : p.x + 13 * u}
+                y={p.y + 4.5 * u}
+                fontSize={12 * u}
+                fontFamily={fonts.bold}
+                fontWeight="700"
+                fill={outline ? OUTLINE : '#fff'}
+                stroke={outline ? OUTLINE : undefined}
+                strokeWidth={outline ? 3.5 * u : undefined}
+                textAnchor={labelOnLeft(id) ? 'end' : 'start'}
+              >
+                {LANDMARK_SHORT[id]}
+              </SvgText>
+            ))}
+          </G>
+        ) : null,
+      )}
+      {overlay.angles.map((a) => {
+        const width = (a.short.length * 0.58 + 1) * fontSize;
+        // Above the point's own name, on the outer side.
+        const x = a.placement === 'left' ? a.anchor.x - 10 * u - width : a.anchor.x + 10 * u;
+        const y = a.anchor.y - 32 * u;
+        return (
+          <G key={a.id}>
+            <Rect x={x} y={y} width={width} height={fontSize * 1.5} rx={4 * u} fill="rgba(23,33,43,0.88)" />
+            <SvgText x={x + fontSize * 0.5} y={y + fontSize * 1.08} fontSize={fontSize} fontFamily={fonts.bold} fontWeight="700" fill="#FFD23F">
+              {a.short}
+            </SvgText>
+          </G>
+        );
+      })}
+    </Svg>
+  );
+}

@@ -1,0 +1,76 @@
+import { Link } from 'expo-router';
+import { StyleSheet, View } from 'react-native';
+import { isOpenRound, useClubRoundsQuery } from '@/features/screening/api/get-rounds';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { RoundProgress } from './round-progress';
+
+const SHOWN_PER_SQUAD = 2;
+
+/**
+ * For the home of testers and head coaches: each squad with its open screening rounds (newest first)
+ * and a big way back into each.
+ */
+export function OpenRounds() {
+  const { bySquad, squads, error } = useClubRoundsQuery();
+  const { isTabletUp } = useBreakpoints();
+  if (error) return <Notice tone="error">{error.message}</Notice>;
+  if (squads.isPending) return <Text>Loading squads…</Text>;
+  return (
+    <View style={[styles.grid, isTabletUp && styles.gridWide]} testID="open-rounds">
+      {bySquad.map(({ squad, rounds }) => {
+        const open = rounds.filter(isOpenRound);
+        return (
+          <Card key={squad.id} style={isTabletUp ? styles.cardWide : undefined}>
+            <Text variant="heading">{squad.name}</Text>
+            <Text variant="small">{squad.athleteCount} athletes</Text>
+            {open.length === 0 ? (
+              <Link href="/screening" style={styles.secondary}>
+                <Text style={styles.secondaryText}>No open round. Open one →</Text>
+              </Link>
+            ) : (
+              open.slice(0, SHOWN_PER_SQUAD).map((r) => (
+                <View key={r.id} style={styles.round}>
+                  <Text variant="label">
+                    {r.name} · {r.screenedOn}
+                  </Text>
+                  <RoundProgress round={r} />
+                  <Link href={`/screening/rounds/${r.id}`} style={styles.primary} testID={`continue-round-${r.id}`}>
+                    <Text style={styles.primaryText}>Continue screening</Text>
+                  </Link>
+                </View>
+              ))
+            )}
+            {open.length > SHOWN_PER_SQUAD ? (
+              <Link href="/screening" style={styles.secondary}>
+                <Text style={styles.secondaryText}>All {open.length} open rounds →</Text>
+              </Link>
+            ) : null}
+          </Card>
+        );
+      })}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  grid: { gap: space.md },
+  gridWide: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-start' },
+  cardWide: { flexBasis: 320, flexGrow: 1 },
+  round: { gap: space.xs, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.md },
+  primary: {
+    minHeight: TOUCH_MIN + 8,
+    backgroundColor: colors.pine,
+    borderRadius: radius.md,
+    paddingVertical: space.md,
+    paddingHorizontal: space.lg,
+    marginTop: space.xs,
+    textAlign: 'center',
+  },
+  primaryText: { color: '#fff', fontFamily: fonts.bold, fontSize: 18 },
+  secondary: { minHeight: TOUCH_MIN, paddingVertical: space.md },
+  secondaryText: { color: colors.pine, fontFamily: fonts.bold },
+});

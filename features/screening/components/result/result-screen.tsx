@@ -1,0 +1,138 @@
+import { Link } from 'expo-router';
+import { StyleSheet, View } from 'react-native';
+import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
+import type { AssessmentDetail, ResultView } from '@/features/screening/contract';
+import type { Flag } from '@/features/screening/engine';
+import { canScreen } from '@/features/screening/roles';
+import { useActiveClub } from '@/features/session/active-club';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { FlagCard } from './flag-card';
+import { PlanSection } from './plan-section';
+import { ResultPhotos } from './result-photos';
+
+const SEVERITY_ORDER = { concern: 0, watch: 1 } as const;
+
+/** The result of a submitted assessment: flags, photos with their lines, the plan and its cautions. */
+export default function ResultScreen({ assessmentId }: { assessmentId: string }) {
+  const query = useAssessmentQuery(assessmentId);
+  const { membership } = useActiveClub();
+  const { isWide } = useBreakpoints();
+  if (query.isPending) return <Text>Loading the result…</Text>;
+  if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
+  const detail = query.data;
+  const result = detail.result;
+  const name = `${detail.athlete.firstName} ${detail.athlete.lastName}`;
+  if (!result) {
+    return (
+      <View style={styles.wrap}>
+        <Text variant="title">{name}</Text>
+        <Notice title="Not submitted yet">This assessment has no result yet.</Notice>
+        {canScreen(membership.role) ? (
+          <Link href={`/screening/assessments/${detail.id}`} style={styles.action}>
+            <Text style={styles.actionText}>Continue screening →</Text>
+          </Link>
+        ) : null}
+      </View>
+    );
+  }
+  const canAdjust = canScreen(membership.role);
+  return (
+    <View style={styles.wrap} testID="result">
+      <Header detail={detail} result={result} name={name} canEdit={canAdjust} />
+      <View style={[styles.columns, isWide && styles.columnsWide]}>
+        <View style={[styles.column, isWide && styles.columnWide]}>
+          <Flags flags={result.result.flags} />
+          <ResultPhotos detail={detail} />
+        </View>
+        <View style={[styles.column, isWide && styles.columnWide]}>
+          <PlanSection assessmentId={detail.id} result={result} oneRepMaxKg={detail.draft.oneRepMaxKg} canAdjust={canAdjust} />
+          {result.history.length > 0 ? (
+            <View style={styles.history}>
+              <Text variant="label">Earlier results</Text>
+              {result.history.map((h) => (
+                <Text key={h.id} variant="small">
+                  Version {h.version} · {h.createdAt.slice(0, 10)} · engine {h.engineVersion}
+                </Text>
+              ))}
+            </View>
+          ) : null}
+        </View>
+      </View>
+    </View>
+  );
+}
+
+function Header({ detail, result, name, canEdit }: { detail: AssessmentDetail; result: ResultView; name: string; canEdit: boolean }) {
+  return (
+    <View style={styles.head}>
+      <Link href={`/screening/rounds/${detail.roundId}`} style={styles.back}>
+        <Text variant="label" style={styles.backText}>
+          ← {detail.roundName}
+        </Text>
+      </Link>
+      <Text variant="small">
+        Result · {detail.screenedOn}
+      </Text>
+      <Text variant="title" accessibilityRole="header">
+        {name}
+      </Text>
+      <Text variant="small">
+        Submitted {result.createdAt.slice(0, 10)}
+        {result.createdByName ? ` by ${result.createdByName}` : ''} · version {result.version} · engine {result.engineVersion}
+      </Text>
+      {canEdit ? (
+        <Link href={`/screening/assessments/${detail.id}`} style={styles.action} testID="edit-assessment">
+          <Text style={styles.actionText}>Edit the screen and submit again</Text>
+        </Link>
+      ) : null}
+      <Notice>These results describe how the athlete moved on the day. They are not a diagnosis.</Notice>
+    </View>
+  );
+}
+
+function Flags({ flags }: { flags: Flag[] }) {
+  const sorted = flags.slice().sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity]);
+  const concerns = flags.filter((f) => f.severity === 'concern').length;
+  return (
+    <View style={styles.flags} testID="flags">
+      <Text variant="heading" accessibilityRole="header">
+        Flags
+      </Text>
+      <Text variant="small">
+        {flags.length === 0
+          ? 'No flags: nothing seen or measured crossed a threshold.'
+          : `${flags.length} ${flags.length === 1 ? 'flag' : 'flags'}${concerns ? `, ${concerns} of concern` : ''}. “Watch” means keep an eye on it; “Concern” means work on it now.`}
+      </Text>
+      {sorted.map((f) => (
+        <FlagCard key={f.id} flag={f} />
+      ))}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  head: { gap: space.xs },
+  back: { minHeight: TOUCH_MIN, justifyContent: 'center' },
+  backText: { color: colors.pine },
+  action: {
+    minHeight: TOUCH_MIN,
+    paddingHorizontal: space.lg,
+    paddingVertical: space.md,
+    borderRadius: radius.md,
+    borderWidth: 2,
+    borderColor: colors.pine,
+    alignSelf: 'flex-start',
+    marginVertical: space.sm,
+  },
+  actionText: { fontFamily: fonts.bold, color: colors.pine, fontSize: 17 },
+  columns: { gap: space.xl },
+  columnsWide: { flexDirection: 'row', alignItems: 'flex-start' },
+  column: { gap: space.xl },
+  columnWide: { flex: 1 },
+  flags: { gap: space.md },
+  history: { gap: space.xs },
+});

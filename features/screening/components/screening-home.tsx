@@ -1,0 +1,104 @@
+import { Link } from 'expo-router';
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { isOpenRound, useClubRoundsQuery } from '@/features/screening/api/get-rounds';
+import { canScreen } from '@/features/screening/roles';
+import { useActiveClub } from '@/features/session/active-club';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Button } from '@/features/ui/components/button';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { OpenRoundForm } from './open-round-form';
+import { RoundProgress } from './round-progress';
+import { PlainTag } from './status-tag';
+
+/** The club's squads with their screening rounds, and the form to open a new round. */
+export function ScreeningHome() {
+  const { membership } = useActiveClub();
+  const { isWide } = useBreakpoints();
+  const { squads, rounds: roundsQuery, bySquad, error } = useClubRoundsQuery();
+  const canOpen = canScreen(membership.role);
+  // On a phone the form waits behind one button at the top; a wide screen shows it beside the rounds.
+  const [formOpen, setFormOpen] = useState(false);
+  const form =
+    canOpen && squads.data ? (
+      <Card>
+        <Text variant="heading" accessibilityRole="header">
+          Open a round
+        </Text>
+        <OpenRoundForm squads={squads.data.squads} />
+        {!isWide ? <Button tone="quiet" label="Cancel" onPress={() => setFormOpen(false)} /> : null}
+      </Card>
+    ) : null;
+
+  if (error) return <Notice tone="error">{error.message}</Notice>;
+  return (
+    <View style={styles.wrap}>
+      <View style={styles.head}>
+        <Text variant="title" accessibilityRole="header">
+          Screening
+        </Text>
+        <Text>Rounds by squad. Open a round, then screen one athlete after another.</Text>
+      </View>
+      {squads.isPending ? <Text>Loading squads…</Text> : null}
+      {!isWide && canOpen && squads.data ? (
+        formOpen ? (
+          form
+        ) : (
+          <Button label="Open a round" testID="open-round-start" onPress={() => setFormOpen(true)} />
+        )
+      ) : null}
+      <View style={[styles.columns, isWide && styles.columnsWide]}>
+        <View style={[styles.main, isWide && styles.mainWide]}>
+          {bySquad.map(({ squad, rounds }) => (
+            <Card key={squad.id} testID={`squad-rounds-${squad.id}`}>
+              <Text variant="heading">{squad.name}</Text>
+              <Text variant="small">{squad.athleteCount} athletes</Text>
+              {roundsQuery.isPending ? <Text variant="small">Loading rounds…</Text> : null}
+              {!roundsQuery.isPending && rounds.length === 0 ? <Text variant="small">No rounds yet.</Text> : null}
+              <View>
+                {rounds.map((r) => (
+                  <Link key={r.id} href={`/screening/rounds/${r.id}`} style={styles.round} testID={`round-${r.id}`}>
+                    <View style={styles.roundInner}>
+                      <View style={styles.roundHead}>
+                        <Text variant="label" style={styles.roundName}>
+                          {r.name}
+                        </Text>
+                        {isOpenRound(r) ? <PlainTag label="Open" tone="info" /> : <PlainTag label="Complete" tone="info" />}
+                      </View>
+                      <Text variant="small">{r.screenedOn}</Text>
+                      <RoundProgress round={r} />
+                    </View>
+                  </Link>
+                ))}
+              </View>
+            </Card>
+          ))}
+        </View>
+        {isWide && form ? <View style={styles.side}>{form}</View> : null}
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  head: { gap: space.xs },
+  columns: { gap: space.lg },
+  columnsWide: { flexDirection: 'row', alignItems: 'flex-start' },
+  main: { gap: space.lg },
+  mainWide: { flex: 3 },
+  side: { flex: 2 },
+  round: {
+    minHeight: TOUCH_MIN + 16,
+    borderTopWidth: 1,
+    borderTopColor: colors.line,
+    paddingVertical: space.md,
+    borderRadius: radius.sm,
+  },
+  roundInner: { gap: space.xs, width: '100%' },
+  roundHead: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  roundName: { flex: 1 },
+});

@@ -1,0 +1,33 @@
+import { describe, expect, it } from 'vitest';
+import { doseText, loadText, restText, setsText, thresholdText, valueText } from './labels';
+
+describe('labels', () => {
+  it.each([
+    [12.345, 'deg', '12.3°'],
+    [8, 'cm', '8 cm'],
+    [1, 'criteria', '1 ticked criterion'],
+    [2, 'grades', '2 grades'],
+  ] as const)('valueText(%s, %s)', (v, unit, expected) => {
+    expect(valueText(v, unit)).toBe(expected);
+  });
+
+  it('thresholds read as plain words', () => {
+    expect(thresholdText({ rowId: 'x', comparison: 'greater-than', value: 13, unit: 'deg', severity: 'watch', source: 's' })).toBe(
+      'Flagged at more than 13°',
+    );
+    expect(thresholdText({ rowId: 'x', comparison: 'within', value: -1, upperValue: 1, unit: 'years', severity: 'watch', source: 's' })).toBe(
+      'Flagged between -1 years and 1 years',
+    );
+  });
+
+  it('prescriptions read as plain words', () => {
+    expect(setsText({ min: 2, max: 3 })).toBe('2-3 sets');
+    expect(doseText({ kind: 'reps', min: 8, max: 12, perSide: true, toNearFatigue: true })).toBe('8-12 reps per side, close to fatigue');
+    expect(doseText({ kind: 'seconds', min: 30, max: 30, perSide: false })).toBe('30 s');
+    expect(loadText({ kind: 'percent-1rm', minPercent: 50, maxPercent: 65, kg: { min: 20, max: 25, incrementKg: 2.5 }, note: 'Slow.' })).toBe(
+      '50-65% of 1RM: 20-25 kg (in 2.5 kg steps). Slow.',
+    );
+    expect(restText(60)).toBe('60 s rest');
+    expect(restText(120)).toBe('2 min rest');
+  });
+});

@@ -1,0 +1,91 @@
+// Plain words for statuses, severities, sides, thresholds and prescriptions. Pure.
+import type { AssessmentStatus } from './contract';
+import type { Comparison, Dose, FlagSide, LoadRule, Prescription, Severity, ThresholdRef, Unit } from './engine';
+
+export const STATUS_LABELS: Record<AssessmentStatus, string> = {
+  not_started: 'Not started',
+  in_progress: 'In progress',
+  submitted: 'Submitted',
+};
+
+export const SEVERITY_LABELS: Record<Severity, string> = { watch: 'Watch', concern: 'Concern' };
+
+export function sideLabel(side: FlagSide): string | null {
+  if (side === 'left') return 'Left side';
+  if (side === 'right') return 'Right side';
+  if (side === 'both') return 'Both sides';
+  return null;
+}
+
+export function valueText(value: number, unit: Unit): string {
+  const n = Number.isInteger(value) ? String(value) : value.toFixed(1);
+  switch (unit) {
+    case 'deg':
+      return `${n}°`;
+    case 'cm':
+      return `${n} cm`;
+    case 'percent':
+      return `${n}%`;
+    case 'years':
+      return `${n} years`;
+    case 'grades':
+      return `${n} ${value === 1 ? 'grade' : 'grades'}`;
+    case 'criteria':
+      return `${n} ticked ${value === 1 ? 'criterion' : 'criteria'}`;
+  }
+}
+
+const COMPARISON_WORDS: Record<Exclude<Comparison, 'within'>, string> = {
+  'greater-than': 'more than',
+  'less-than': 'less than',
+  'at-least': 'at least',
+  'at-most': 'at most',
+};
+
+/** "Flagged at more than 13°" */
+export function thresholdText(t: ThresholdRef): string {
+  if (t.comparison === 'within') {
+    return `Flagged between ${valueText(t.value, t.unit)} and ${valueText(t.upperValue ?? t.value, t.unit)}`;
+  }
+  return `Flagged at ${COMPARISON_WORDS[t.comparison]} ${valueText(t.value, t.unit)}`;
+}
+
+const range = (min: number, max: number) => (min === max ? String(min) : `${min}-${max}`);
+
+export function setsText(sets: Prescription['sets']): string {
+  return `${range(sets.min, sets.max)} ${sets.max === 1 ? 'set' : 'sets'}`;
+}
+
+export function doseText(dose: Dose): string {
+  const perSide = dose.perSide ? ' per side' : '';
+  if (dose.kind === 'seconds') return `${range(dose.min, dose.max)} s${perSide}`;
+  return `${range(dose.min, dose.max)} reps${perSide}${dose.toNearFatigue ? ', close to fatigue' : ''}`;
+}
+
+export function loadText(load: LoadRule): string {
+  switch (load.kind) {
+    case 'bodyweight':
+      return load.note ? `Bodyweight. ${load.note}` : 'Bodyweight';
+    case 'band':
+      return `${load.resistance === 'light' ? 'Light' : 'Medium'} band, ${load.placement}`;
+    case 'percent-1rm': {
+      const pct = `${load.minPercent}-${load.maxPercent}% of 1RM`;
+      return load.kg
+        ? `${pct}: ${range(load.kg.min, load.kg.max)} kg (in ${load.kg.incrementKg} kg steps). ${load.note}`
+        : `${pct}. ${load.note}`;
+    }
+  }
+}
+
+export function restText(seconds: number): string {
+  return seconds >= 120 && seconds % 60 === 0 ? `${seconds / 60} min rest` : `${seconds} s rest`;
+}
+
+export function perWeekText(n: number): string {
+  return n === 1 ? 'once a week' : `${n} times a week`;
+}
+
+export function todayIsoLocal(now = new Date()): string {
+  const p = (n: number) => String(n).padStart(2, '0');
+  return `${now.getFullYear()}-${p(now.getMonth() + 1)}-${p(now.getDate())}`;
+}
