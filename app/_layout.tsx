@@ -1,9 +1,9 @@
-import { useFonts } from 'expo-font';
 import { Slot } from 'expo-router';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { onUnauthorized } from '@/features/api/client';
 import { authKeys } from '@/features/auth/api/keys';
+import { useAppFonts } from '@/features/ui/use-app-fonts';
 
 export default function RootLayout() {
   const [client] = useState(
@@ -11,11 +11,8 @@ export default function RootLayout() {
   );
   // A 401 anywhere means the session is gone: forget the signed-in person, the guards redirect.
   useEffect(() => onUnauthorized(() => client.setQueryData(authKeys.me(), null)), [client]);
-  const [fontsLoaded, fontError] = useFonts({
-    SourceSans3_400Regular: require('@/fonts/SourceSans3_400Regular.ttf'),
-    SourceSans3_700Bold: require('@/fonts/SourceSans3_700Bold.ttf'),
-  });
-  if (!fontsLoaded && !fontError) return null;
+  const fontsReady = useAppFonts();
+  if (!fontsReady) return null;
   return (
     <QueryClientProvider client={client}>
       <Slot />

@@ -1,3 +1,4 @@
+import compression from 'compression';
 import express, { type RequestHandler } from 'express';
 import helmet from 'helmet';
 import fs from 'node:fs';
@@ -49,6 +50,8 @@ export function createApp(deps: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  // gzip for JSON, scripts and fonts; JPEG photos are already compressed and are skipped by type.
+  app.use(compression());
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
   app.use(
     helmet({

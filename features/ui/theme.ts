@@ -1,3 +1,5 @@
+import { FONT_FAMILY } from './font-family';
+
 // Squadline's own palette: a deep pine for action, warm paper for surfaces, amber and brick for
 // "watch" and "concern". High contrast for a bright sports hall.
 export const colors = {
@@ -16,10 +18,7 @@ export const colors = {
   focus: '#2F6FDE',
 } as const;
 
-export const fonts = {
-  regular: 'SourceSans3_400Regular',
-  bold: 'SourceSans3_700Bold',
-} as const;
+export const fonts = FONT_FAMILY;
 
 export const space = { xs: 4, sm: 8, md: 12, lg: 16, xl: 24, xxl: 32 } as const;
 export const radius = { sm: 6, md: 10, lg: 16 } as const;
