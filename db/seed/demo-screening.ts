@@ -16,6 +16,7 @@ import { screeningRepo, type Executor } from '@/server/screening/screening.repo'
 import { submitAssessment } from '@/server/screening/screening.service';
 import type { DemoIds } from './demo';
 import { DEMO_USERS } from './demo-accounts';
+import { seededRandom } from './random';
 
 const PAST_ROUNDS = [
   { name: 'Pre-season', dates: ['2026-03-09', '2026-03-11'] },
@@ -53,15 +54,6 @@ const TENDENCIES: readonly Tendency[] = [
   'clean',
 ];
 
-function mulberry32(seed: number) {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ (t + Math.imul(t ^ (t >>> 14), 71 | t));
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 type Rand = () => number;
 
 const DEG = Math.PI / 180;
@@ -273,7 +265,7 @@ function partOf(draft: AssessmentDraft): AssessmentDraft {
  * submissions go through the screening repository and service, so they follow the same rules as the API.
  */
 export async function seedDemoScreening(db: Db, ids: Pick<DemoIds, 'clubId' | 'squadIds' | 'athleteIds'>): Promise<void> {
-  const rand = mulberry32(20260309);
+  const rand = seededRandom(20260309);
   await db.transaction(async (tx) => {
     const staff = await tx
       .select({ id: users.id, email: users.email })

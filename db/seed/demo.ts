@@ -3,26 +3,18 @@ import { athletes, clubs, consents, guardianLinks, memberships, squads, users } 
 import { hashPassword } from '@/server/auth/password';
 import { DEMO_CLUB_NAME, DEMO_PASSWORD, DEMO_USERS, OTHER_CLUB_NAME, OTHER_CLUB_USERS } from './demo-accounts';
 import { seedDemoScreening } from './demo-screening';
+import { seededRandom } from './random';
 
 // Invented names only. Deterministic, so every fresh demo looks the same.
 const FIRST_F = ['Maya', 'Aiko', 'Freya', 'Lucia', 'Nadia', 'Orla', 'Priyanka', 'Saskia', 'Tove', 'Yara', 'Zofia', 'Elin'];
 const FIRST_M = ['Theo', 'Arjun', 'Bruno', 'Casper', 'Dario', 'Emil', 'Felix', 'Hugo', 'Idris', 'Jonas', 'Kai', 'Leon'];
 const LAST = ['Quarrie', 'Brennan', 'Castell', 'Dahl', 'Eskola', 'Ferreira', 'Gallo', 'Haddad', 'Ishii', 'Jansen', 'Kowal', 'Lund', 'Marsh', 'Novak'];
 
-function mulberry32(seed: number) {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ (t + Math.imul(t ^ (t >>> 14), 71 | t));
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 export type DemoIds = { clubId: string; otherClubId: string; squadIds: string[]; athleteIds: string[] };
 
 export async function seedDemo(db: Db): Promise<DemoIds> {
-  const rand = mulberry32(20260901);
+  const rand = seededRandom(20260901);
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   return db.transaction(async (tx) => {
     const [club] = await tx.insert(clubs).values({ name: DEMO_CLUB_NAME }).returning();

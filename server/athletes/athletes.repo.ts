@@ -6,25 +6,14 @@ import type { Db } from '@/db/client';
 import * as schema from '@/db/schema';
 import { athletes, consents, guardianLinks, memberships, squads, users, type Role } from '@/db/schema';
 import { athleteFilter, type ClubScope } from '@/server/access/scope';
+import type { Athlete, ConsentView } from '@/features/athletes/api/types';
 
 /** The database or a transaction: repositories work inside either. */
 export type Executor = PgDatabase<NodePgQueryResultHKT, typeof schema>;
 
-export type ConsentView = { granted: boolean; decidedOn: string } | null;
-export type AthleteView = {
-  id: string;
-  clubId: string;
-  squadId: string | null;
-  squadName: string | null;
-  firstName: string;
-  lastName: string;
-  dateOfBirth: string;
-  sex: 'female' | 'male';
-  racketHand: 'left' | 'right';
-  takeOffLeg: 'left' | 'right';
-  archived: boolean;
-  consents: { photos: ConsentView; emailSummaries: ConsentView };
-};
+// The response shape is shared with the client (features/athletes/api/types.ts); guardians are added by the service.
+export type { ConsentView };
+export type AthleteView = Omit<Athlete, 'guardians'>;
 export type GuardianView = { userId: string; displayName: string; email: string };
 export type ConsentRecordView = {
   id: string;

@@ -42,7 +42,7 @@ test('a head coach adds an athlete, records a photo consent and archives them', 
   await page.getByTestId('sex-female').click();
   await page.getByTestId('racketHand-left').click();
   await page.getByTestId('takeOffLeg-right').click();
-  await page.getByRole('radio', { name: 'Under-13 mixed' }).click();
+  await page.getByRole('radio', { name: 'Under-15 mixed' }).click();
   await page.getByTestId('athlete-save').click();
 
   await expect(page).toHaveURL(/\/athletes\/[0-9a-f-]{36}$/);

@@ -65,7 +65,7 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   await expect(page.getByTestId('home-tester')).toBeVisible();
   await expect(page.getByTestId('open-rounds')).toContainText('Continue screening');
 
-  // Open a round for the under-13 squad.
+  // Open a round for the under-13 squad (the roster test adds its athletes elsewhere, so the counts hold).
   await openNav(page);
   await page.getByRole('link', { name: 'Screening', exact: true }).click();
   await expect(page.getByRole('heading', { name: 'Screening' })).toBeVisible();
