@@ -5,6 +5,7 @@ import { useAthletesQuery } from '@/features/athletes/api/get-athletes';
 import { ROLE_LABELS } from '@/features/auth/schemas';
 import { OpenRounds } from '@/features/screening/components/open-rounds';
 import { useActiveClub } from '@/features/session/active-club';
+import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
@@ -52,26 +53,29 @@ export function RoleHome() {
 
 function ParentChildren() {
   const athletes = useAthletesQuery();
+  const { isTabletUp } = useBreakpoints();
   if (athletes.error) return <Notice tone="error">{athletes.error.message}</Notice>;
   if (athletes.isPending) return <Text>Loading…</Text>;
   return (
     <View style={styles.wrap}>
-      {athletes.data.athletes.map((a) => (
-        <Card key={a.id} testID="child-card">
-          <Text variant="heading">
-            {a.firstName} {a.lastName}
-          </Text>
-          <Text variant="small">
-            {ageInYears(a.dateOfBirth, todayIso())} years · {a.squadName ?? 'No squad'}
-          </Text>
-          <Text>
-            Photos: {a.consents.photos?.granted ? 'you agreed that screening photos may be taken' : 'no photos are taken'}
-          </Text>
-          <Link href={`/athletes/${a.id}`} style={styles.link}>
-            <Text variant="label">Details →</Text>
-          </Link>
-        </Card>
-      ))}
+      <View style={[styles.wrap, isTabletUp && styles.row]}>
+        {athletes.data.athletes.map((a) => (
+          <Card key={a.id} testID="child-card" style={isTabletUp ? styles.childWide : undefined}>
+            <Text variant="heading">
+              {a.firstName} {a.lastName}
+            </Text>
+            <Text variant="small">
+              {ageInYears(a.dateOfBirth, todayIso())} years · {a.squadName ?? 'No squad'}
+            </Text>
+            <Text>
+              Photos: {a.consents.photos?.granted ? 'you agreed that screening photos may be taken' : 'no photos are taken'}
+            </Text>
+            <Link href={`/athletes/${a.id}`} style={styles.link}>
+              <Text variant="label">Details →</Text>
+            </Link>
+          </Card>
+        ))}
+      </View>
       <Notice title="About screening">
         Coaches watch a few simple movements (squats, landings, balance) to spot habits such as knees that
         fall inward. Screening is not a medical diagnosis: if your child has pain, please see a physiotherapist or doctor.
@@ -84,4 +88,6 @@ const styles = StyleSheet.create({
   wrap: { gap: space.lg },
   head: { gap: space.xs },
   link: { minHeight: 48, paddingVertical: space.md },
+  row: { flexDirection: 'row', flexWrap: 'wrap' },
+  childWide: { flexBasis: 320, flexGrow: 1, maxWidth: 560 },
 });
