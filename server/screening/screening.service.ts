@@ -207,7 +207,8 @@ export function screeningService(deps: ScreeningDeps) {
           takeOffLeg: a.takeOffLeg,
           photoConsent: a.photoConsent,
         },
-        photos: photos.map(photoView),
+        // Withdrawn consent hides the photos already taken; landmarks and results stay.
+        photos: a.photoConsent ? photos.map(photoView) : [],
         result,
       };
     },
@@ -265,8 +266,13 @@ export function screeningService(deps: ScreeningDeps) {
     },
 
     async photoBytes(scope: ClubScope, id: string, size: 'full' | 'thumb'): Promise<Buffer> {
-      const photo = await repoFor(scope).photo(id);
+      const repo = repoFor(scope);
+      const photo = await repo.photo(id);
       if (!photo) throw notFound('The photo');
+      const owner = await repo.assessment(photo.assessmentId);
+      if (!owner?.photoConsent) {
+        throw new AppError(403, 'no_photo_consent', 'The family has not agreed to photos, or has withdrawn it: this photo is hidden.');
+      }
       const stored = await storage.get(size === 'thumb' ? photo.thumbKey : photo.storageKey);
       if (!stored) throw notFound('The photo file');
       return stored.data;

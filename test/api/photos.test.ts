@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { photos } from '@/db/schema';
+import { consents, photos } from '@/db/schema';
 import type { AssessmentDetail, PhotoView, RoundDetail } from '@/features/screening/contract';
 import { makeAthlete, makeClub, makeSquad, makeTestApp, makeUser, signedInAgent } from '../fixtures/builders';
 import { exifTags, GPS_IFD_POINTER, memoryStorage, NOT_AN_IMAGE, phonePhotoWithExif, pngWithAlpha, TOO_LARGE } from '../fixtures/photos';
@@ -192,5 +192,26 @@ describe('stored photos', () => {
     expect(lunge.map((p) => p.id)).toEqual([second.id]);
     // The replaced photo can still be opened from the history.
     expect((await tester.get(first.url)).status).toBe(200);
+  });
+
+  it('hides the photos already taken once the family withdraws consent, and shows them again if it is given back', async () => {
+    const before = (await tester.get(`/api/assessments/${withConsent}`)).body as AssessmentDetail;
+    expect(before.photos.length).toBeGreaterThan(0);
+    const shown = before.photos[0]!;
+    const athleteId = before.athlete.id;
+
+    await testDb.db.insert(consents).values({ athleteId, kind: 'photos', granted: false, decidedOn: '2026-11-30', createdAt: new Date('2030-01-01T00:00:00Z') });
+    const hidden = await tester.get(shown.url);
+    expect(hidden.status).toBe(403);
+    expect(hidden.body.error.code).toBe('no_photo_consent');
+    expect((await tester.get(shown.thumbUrl)).status).toBe(403);
+    const after = (await tester.get(`/api/assessments/${withConsent}`)).body as AssessmentDetail;
+    expect(after.athlete.photoConsent).toBe(false);
+    expect(after.photos).toEqual([]);
+    // The landmarks and results are numbers, not images: they stay.
+    expect(after.draft).toEqual(before.draft);
+
+    await testDb.db.insert(consents).values({ athleteId, kind: 'photos', granted: true, decidedOn: '2026-12-01', createdAt: new Date('2030-01-02T00:00:00Z') });
+    expect((await tester.get(shown.url)).status).toBe(200);
   });
 });
