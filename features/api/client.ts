@@ -99,3 +99,13 @@ export function upload<T>(
     xhr.send(form);
   });
 }
+
+/** The per-field messages a 400 carries, for a form to show beside its fields; null for any other error. */
+export function fieldErrorsOf(error: unknown): Record<string, string> | null {
+  return error instanceof ApiError && error.fields ? error.fields : null;
+}
+
+/** A message fit to show a person, whatever was thrown. */
+export function messageOf(error: unknown): string {
+  return error instanceof Error ? error.message : String(error);
+}

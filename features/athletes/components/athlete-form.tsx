@@ -1,7 +1,7 @@
 import { Formik } from 'formik';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
-import { ApiError } from '@/features/api/client';
+import { fieldErrorsOf, messageOf } from '@/features/api/client';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
@@ -59,8 +59,9 @@ export function AthleteForm({
         try {
           await onSubmit(athleteSchema.cast(values) as AthleteInput);
         } catch (error) {
-          if (error instanceof ApiError && error.fields) helpers.setErrors(error.fields);
-          else setFailure(error instanceof Error ? error.message : String(error));
+          const fields = fieldErrorsOf(error);
+          if (fields) helpers.setErrors(fields);
+          else setFailure(messageOf(error));
         }
       }}
     >

@@ -1,7 +1,7 @@
 import { Formik } from 'formik';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
-import { ApiError } from '@/features/api/client';
+import { fieldErrorsOf, messageOf } from '@/features/api/client';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
@@ -90,8 +90,9 @@ function SquadNameForm({ squad, submitLabel, testID, onDone }: { squad?: SquadSu
           helpers.resetForm();
           onDone?.();
         } catch (error) {
-          if (error instanceof ApiError && error.fields) helpers.setErrors(error.fields);
-          else setFailure(error instanceof Error ? error.message : String(error));
+          const fields = fieldErrorsOf(error);
+          if (fields) helpers.setErrors(fields);
+          else setFailure(messageOf(error));
         }
       }}
     >

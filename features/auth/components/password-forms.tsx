@@ -1,7 +1,7 @@
 import { useRouter } from 'expo-router';
 import { Formik } from 'formik';
 import { StyleSheet, View } from 'react-native';
-import { ApiError } from '@/features/api/client';
+import { ApiError, fieldErrorsOf } from '@/features/api/client';
 import { useAcceptInvitationMutation, useInvitationQuery, useRequestResetMutation, useResetPasswordMutation } from '@/features/auth/api/invitations';
 import { acceptInvitationSchema, requestResetSchema, resetPasswordSchema, PASSWORD_MIN, ROLE_LABELS, type RoleValue } from '@/features/auth/schemas';
 import { Button } from '@/features/ui/components/button';
@@ -10,7 +10,7 @@ import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
 import { space } from '@/features/ui/theme';
 
-const fieldsFrom = (error: unknown) => (error instanceof ApiError && error.fields ? error.fields : {});
+const fieldsFrom = (error: unknown) => fieldErrorsOf(error) ?? {};
 
 export function ForgotPasswordForm() {
   const request = useRequestResetMutation();

@@ -1,7 +1,7 @@
 import { useRouter } from 'expo-router';
 import { Formik } from 'formik';
 import { StyleSheet, View } from 'react-native';
-import { ApiError } from '@/features/api/client';
+import { fieldErrorsOf } from '@/features/api/client';
 import { useSignInMutation } from '@/features/auth/api/sign-in';
 import { signInSchema, type SignInInput } from '@/features/auth/schemas';
 import { Button } from '@/features/ui/components/button';
@@ -21,7 +21,8 @@ export function SignInForm() {
           await signIn.mutateAsync(signInSchema.cast(values));
           router.replace('/');
         } catch (error) {
-          if (error instanceof ApiError && error.fields) helpers.setErrors(error.fields);
+          const fields = fieldErrorsOf(error);
+          if (fields) helpers.setErrors(fields);
         }
       }}
     >

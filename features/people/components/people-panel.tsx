@@ -1,6 +1,6 @@
 import { Formik } from 'formik';
 import { Pressable, StyleSheet, View } from 'react-native';
-import { ApiError } from '@/features/api/client';
+import { ApiError, fieldErrorsOf } from '@/features/api/client';
 import { inviteSchema, ROLE_LABELS, ROLE_VALUES, type InviteInput } from '@/features/auth/schemas';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
@@ -62,7 +62,8 @@ function InviteForm({ clubId }: { clubId: string }) {
           await invite.mutateAsync(inviteSchema.cast(values));
           helpers.resetForm();
         } catch (error) {
-          if (error instanceof ApiError && error.fields) helpers.setErrors(error.fields);
+          const fields = fieldErrorsOf(error);
+          if (fields) helpers.setErrors(fields);
         }
       }}
     >

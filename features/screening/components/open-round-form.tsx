@@ -1,7 +1,7 @@
 import { useRouter } from 'expo-router';
 import { Formik } from 'formik';
 import { Pressable, StyleSheet, View } from 'react-native';
-import { ApiError } from '@/features/api/client';
+import { fieldErrorsOf } from '@/features/api/client';
 import type { SquadSummary } from '@/features/athletes/api/types';
 import { useCreateRoundMutation } from '@/features/screening/api/create-round';
 import { createRoundSchema, type CreateRoundInput } from '@/features/screening/contract';
@@ -25,7 +25,8 @@ export function OpenRoundForm({ squads, initialSquadId }: { squads: SquadSummary
           const res = await create.mutateAsync(createRoundSchema.cast(values));
           router.push(`/screening/rounds/${res.round.id}`);
         } catch (error) {
-          if (error instanceof ApiError && error.fields) helpers.setErrors(error.fields);
+          const fields = fieldErrorsOf(error);
+          if (fields) helpers.setErrors(fields);
         }
       }}
     >
