@@ -2,8 +2,9 @@ import { pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/
 import { users } from './auth';
 import { timestamps } from './columns';
 
-export const ROLES = ['admin', 'head_coach', 'tester', 'physio', 'parent'] as const;
-export type Role = (typeof ROLES)[number];
+import { ROLES, type Role } from '../../features/access/permissions';
+
+export { ROLES, type Role };
 export const roleEnum = pgEnum('role', ROLES);
 
 export const clubs = pgTable('clubs', {

@@ -2,16 +2,12 @@ import { object, string, type InferType } from 'yup';
 
 // One schema per input, used by the form on the client and by the server's validation middleware.
 
-export const ROLE_VALUES = ['admin', 'head_coach', 'tester', 'physio', 'parent'] as const;
-export type RoleValue = (typeof ROLE_VALUES)[number];
+import { ROLE_LABELS, ROLES, type Role } from '@/features/access/permissions';
 
-export const ROLE_LABELS: Record<RoleValue, string> = {
-  admin: 'Club admin',
-  head_coach: 'Head coach',
-  tester: 'Tester',
-  physio: 'Physiotherapist',
-  parent: 'Parent or guardian',
-};
+// The roles come from the access model; these names are kept for the forms that use them.
+export const ROLE_VALUES = ROLES;
+export type RoleValue = Role;
+export { ROLE_LABELS };
 
 const email = string().trim().lowercase().email('Enter a valid e-mail address.').required('Enter your e-mail address.');
 

@@ -1,0 +1,131 @@
+import { eq } from 'drizzle-orm';
+import type { Request, RequestHandler } from 'express';
+import type { Db } from '@/db/client';
+import type { Executor } from '@/server/screening/screening.repo';
+import { assessments, athletes, photos, rounds, squads } from '@/db/schema';
+import { OWN_CHILDREN_ONLY, rolesFor, type Action } from '@/features/access/permissions';
+import { forbidden, notFound } from '@/server/http/errors';
+import { requireUuid } from '@/server/http/ids';
+import { scopeForCallerClub, scopeForClub, type ClubScope } from './scope';
+
+/**
+ * The one way a route checks access: `guard(action, target)` runs before anything else (validation
+ * included). It resolves the record the route touches to its club (and athlete), checks the caller's
+ * role there against `PERMISSIONS`, limits parents to their own children, and leaves the caller's scope
+ * in `res.locals.scope` for the service and its repositories.
+ *
+ * Answers: 401 signed out; 404 malformed or unknown id; 403 a club where the caller has no role holding
+ * the action, or a parent reaching an athlete who is not theirs.
+ */
+
+/** Where a record lives: its club, and the athlete it belongs to when it belongs to one. */
+export type RecordHome = { clubId: string; athleteId: string | null };
+export type RecordResolver = (db: Executor, id: string) => Promise<RecordHome | null>;
+
+const resolvers = new Map<string, { what: string; resolve: RecordResolver }>();
+
+/**
+ * Registers a kind of record a route can name in its path (`guard('x.read', on('note'))`). Each feature
+ * registers its own kinds next to its router, so this file does not grow with every capability.
+ */
+export function registerRecord(kind: string, what: string, resolve: RecordResolver) {
+  resolvers.set(kind, { what, resolve });
+}
+
+/** A record of a whole club or squad: it belongs to no single athlete. */
+function clubRecord(table: typeof squads | typeof rounds): RecordResolver {
+  return async (db, id) => {
+    const [row] = await db.select({ clubId: table.clubId }).from(table).where(eq(table.id, id));
+    return row ? { clubId: row.clubId, athleteId: null } : null;
+  };
+}
+
+registerRecord('athlete', 'The athlete', async (db, id) => {
+  const [row] = await db.select({ clubId: athletes.clubId }).from(athletes).where(eq(athletes.id, id));
+  return row ? { clubId: row.clubId, athleteId: id } : null;
+});
+registerRecord('squad', 'The squad', clubRecord(squads));
+registerRecord('round', 'The round', clubRecord(rounds));
+registerRecord('assessment', 'The assessment', async (db, id) => {
+  const [row] = await db
+    .select({ clubId: assessments.clubId, athleteId: assessments.athleteId })
+    .from(assessments)
+    .where(eq(assessments.id, id));
+  return row ?? null;
+});
+registerRecord('photo', 'The photo', async (db, id) => {
+  const [row] = await db
+    .select({ clubId: photos.clubId, athleteId: assessments.athleteId })
+    .from(photos)
+    .innerJoin(assessments, eq(assessments.id, photos.assessmentId))
+    .where(eq(photos.id, id));
+  return row ?? null;
+});
+
+/** What a route touches: the caller's club (no record in the path), a club id, or a record. */
+export type Target =
+  | { kind: 'caller-club' }
+  | { kind: 'club'; param: string }
+  | { kind: 'record'; record: string; param: string; from: 'params' | 'body' }
+  | { kind: 'public' };
+
+/** The caller's own club (X-Club-Id header, or their only club). */
+export const callerClub: Target = { kind: 'caller-club' };
+/** A club named by a path parameter. */
+export const clubParam = (param = 'clubId'): Target => ({ kind: 'club', param });
+/** A record named by a path parameter (default `:id`), or by a body field with `from: 'body'`. */
+export const on = (record: string, param = 'id', from: 'params' | 'body' = 'params'): Target => ({ kind: 'record', record, param, from });
+
+/** What the route-table test reads from each route's guard. */
+export type AccessMeta = { action: Action | null; target: Target };
+export type Guard = RequestHandler & { access: AccessMeta };
+
+export type Locals = { scope: ClubScope; id?: string; home?: RecordHome };
+
+/** The scope `guard()` left for the handler. */
+export function scopeOf(res: { locals: object }): ClubScope {
+  const scope = (res.locals as Partial<Locals>).scope;
+  if (!scope) throw new Error('Route without guard(): no scope in res.locals.');
+  return scope;
+}
+
+export function accessGuards(db: Db) {
+  async function check(req: Request, action: Action, target: Target): Promise<Locals> {
+    const roles = rolesFor(action);
+    if (target.kind === 'caller-club') return { scope: await scopeForCallerClub(db, req, roles) };
+    if (target.kind === 'club') {
+      const clubId = requireUuid(String(req.params[target.param] ?? ''), 'The club');
+      return { scope: await scopeForClub(db, req, clubId, roles) };
+    }
+    if (target.kind === 'public') throw new Error('public targets are not checked');
+    const entry = resolvers.get(target.record);
+    if (!entry) throw new Error(`No resolver registered for record kind "${target.record}".`);
+    const source = target.from === 'body' ? (req.body as Record<string, unknown> | undefined) : req.params;
+    const id = requireUuid(String(source?.[target.param] ?? ''), entry.what);
+    const home = await entry.resolve(db, id);
+    if (!home) throw notFound(entry.what);
+    const scope = await scopeForClub(db, req, home.clubId, roles);
+    // A parent reaches only records of their own children; a squad or a round belongs to no one child.
+    if (OWN_CHILDREN_ONLY.includes(scope.role) && (!home.athleteId || !scope.athleteIds?.includes(home.athleteId))) {
+      throw forbidden();
+    }
+    return { scope, id, home };
+  }
+
+  /** Checks `action` on `target` before anything else in the route. */
+  function guard(action: Action, target: Target): Guard {
+    const handler: RequestHandler = async (req, res, next) => {
+      Object.assign(res.locals, await check(req, action, target));
+      next();
+    };
+    return Object.assign(handler, { access: { action, target } });
+  }
+
+  return { guard };
+}
+
+/** Marks a route open to anyone (sign-in, health, invitation links): stated, so the route-table test sees it. */
+export function publicRoute(): Guard {
+  const handler: RequestHandler = (_req, _res, next) => next();
+  return Object.assign(handler, { access: { action: null, target: { kind: 'public' } as Target } });
+}
