@@ -24,7 +24,7 @@ export type Executor = PgDatabase<NodePgQueryResultHKT, typeof schema>;
  * Written with qualified names: drizzle leaves columns unqualified in a single-table query, where a bare
  * "id" inside the subquery would mean consents.id.
  */
-const photoConsentSql = sql<boolean>`coalesce((
+export const photoConsentSql = sql<boolean>`coalesce((
   select c.granted from consents c
   where c.athlete_id = "athletes"."id" and c.kind = 'photos'
   order by c.created_at desc limit 1
