@@ -1,6 +1,6 @@
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
-import { isOpenRound, useClubRoundsQuery } from '@/features/screening/api/get-rounds';
+import { isOpenRound, isUntouchedRound, useClubRoundsQuery } from '@/features/screening/api/get-rounds';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
@@ -39,7 +39,7 @@ export function OpenRounds() {
                   </Text>
                   <RoundProgress round={r} />
                   <Link href={`/screening/rounds/${r.id}`} style={styles.primary} testID={`continue-round-${r.id}`}>
-                    <Text style={styles.primaryText}>Continue screening</Text>
+                    <Text style={styles.primaryText}>{isUntouchedRound(r) ? 'Start screening' : 'Continue screening'}</Text>
                   </Link>
                 </View>
               ))

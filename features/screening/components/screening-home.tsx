@@ -66,7 +66,7 @@ export function ScreeningHome() {
                         <Text variant="label" style={styles.roundName}>
                           {r.name}
                         </Text>
-                        {isOpenRound(r) ? <PlainTag label="Open" tone="info" /> : <PlainTag label="Complete" tone="info" />}
+                        {r.closedAt ? <PlainTag label="Closed" /> : isOpenRound(r) ? <PlainTag label="Open" tone="info" /> : <PlainTag label="Complete" tone="info" />}
                       </View>
                       <Text variant="small">{r.screenedOn}</Text>
                       <RoundProgress round={r} />

@@ -53,6 +53,8 @@ function CaptureLoader({ id }: { id: string }) {
   const draftState = useAssessmentDraft(query.data, id);
   if (query.error && !draftState.ready) return <Centered><Notice tone="error">{query.error.message}</Notice></Centered>;
   if (!query.data || !draftState.ready) return <Centered><Text>Loading the assessment…</Text></Centered>;
+  // A closed round's screens are read, not changed: straight to the result (or its absence).
+  if (query.data.roundClosedAt) return <Redirect href={`/screening/assessments/${id}/result`} />;
   return <Capture detail={query.data} draftState={draftState} />;
 }
 
