@@ -5,7 +5,7 @@ import { Page } from '@/features/ui/components/page';
 export default function MeasuringScreen() {
   const { roundId } = useLocalSearchParams<{ roundId?: string }>();
   return (
-    <Page>
+    <Page title="To measure">
       <MeasuringDesk roundId={typeof roundId === 'string' && roundId !== '' ? roundId : undefined} />
     </Page>
   );

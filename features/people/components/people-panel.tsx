@@ -121,7 +121,11 @@ function ChildPicker({ selected, onChange, error }: { selected: string[]; onChan
   const matches = words
     ? all.filter((a) => !selected.includes(a.id) && `${a.firstName} ${a.lastName}`.toLowerCase().includes(words)).slice(0, CHILDREN_SHOWN)
     : [];
-  const toggle = (id: string) => onChange(selected.includes(id) ? selected.filter((x) => x !== id) : [...selected, id]);
+  const toggle = (id: string) => {
+    onChange(selected.includes(id) ? selected.filter((x) => x !== id) : [...selected, id]);
+    // Picked: the list of matches closes, ready for a brother or sister's name.
+    if (!selected.includes(id)) setFilter('');
+  };
   return (
     <View style={styles.form} testID="invite-children">
       <Text variant="label">Their children</Text>

@@ -7,6 +7,7 @@ import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { RoundProgress } from './round-progress';
+import { formatDate } from '@/features/ui/format-date';
 
 const SHOWN_PER_SQUAD = 2;
 
@@ -35,7 +36,7 @@ export function OpenRounds() {
               open.slice(0, SHOWN_PER_SQUAD).map((r) => (
                 <View key={r.id} style={styles.round}>
                   <Text variant="label">
-                    {r.name} · {r.screenedOn}
+                    {r.name} · {formatDate(r.screenedOn)}
                   </Text>
                   <RoundProgress round={r} />
                   <Link href={`/screening/rounds/${r.id}`} style={styles.primary} testID={`continue-round-${r.id}`}>

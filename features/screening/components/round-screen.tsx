@@ -8,6 +8,7 @@ import { useActiveClub } from '@/features/session/active-club';
 import type { RoundAthlete, RoundAthleteFlag } from '@/features/screening/contract';
 import { messageOf } from '@/features/api/client';
 import { Button } from '@/features/ui/components/button';
+import { usePageTitle } from '@/features/ui/page-title';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
@@ -15,6 +16,7 @@ import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { RoundProgress } from './round-progress';
 import { PlainTag, SeverityTag, StatusTag } from './status-tag';
+import { formatDate } from '@/features/ui/format-date';
 
 const byName = (a: RoundAthlete, b: RoundAthlete) =>
   a.lastName.localeCompare(b.lastName) || a.firstName.localeCompare(b.firstName);
@@ -82,6 +84,7 @@ export function RoundScreen({ id }: { id: string }) {
   const round = useRoundQuery(id);
   const { isTabletUp } = useBreakpoints();
   const screensInClub = canScreen(useActiveClub().membership.role);
+  usePageTitle(round.data ? round.data.round.name : 'Round');
   if (round.isPending) return <Text>Loading the round…</Text>;
   if (round.error) return <Notice tone="error">{round.error.message}</Notice>;
   const { round: r, athletes } = round.data;
@@ -99,7 +102,7 @@ export function RoundScreen({ id }: { id: string }) {
       </Link>
       <View style={styles.head}>
         <Text variant="small">
-          {r.squadName} · {r.screenedOn}
+          {r.squadName} · {formatDate(r.screenedOn)}
         </Text>
         <Text variant="title" accessibilityRole="header">
           {r.name}
@@ -108,7 +111,7 @@ export function RoundScreen({ id }: { id: string }) {
       </View>
       {closed ? (
         <Notice title="This round is closed" testID="round-closed">
-          {`Closed on ${r.closedAt!.slice(0, 10)}${r.closedByName ? ` by ${r.closedByName}` : ''}. Its screens can be read; a head coach can reopen it.`}
+          {`Closed on ${formatDate(r.closedAt!)}${r.closedByName ? ` by ${r.closedByName}` : ''}. Its screens can be read; a head coach can reopen it.`}
         </Notice>
       ) : null}
       {screensInClub ? (

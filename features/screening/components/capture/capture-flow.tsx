@@ -11,6 +11,7 @@ import { useAssessmentDraft } from '@/features/screening/hooks/use-assessment-dr
 import { useUnfinishedUploads } from '@/features/screening/hooks/use-upload';
 import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
+import { usePageTitle } from '@/features/ui/page-title';
 import { CONTENT_MAX_WIDTH, useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
@@ -78,6 +79,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
   const step = STEPS[stepIndex] ?? 'body';
   const task = step !== 'body' && step !== 'review' ? getTask(step as TaskId) : null;
   const athleteName = `${detail.athlete.firstName} ${detail.athlete.lastName}`;
+  usePageTitle(`Screening ${athleteName}`);
 
   useEffect(() => {
     scroll.current?.scrollTo({ y: 0, animated: false });
