@@ -44,6 +44,10 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   await expect(page.getByText('Name the round.')).toBeVisible();
   await page.getByRole('radio', { name: /Under-13 mixed/ }).click();
   await page.getByTestId('round-name').fill(roundName);
+  // The date is the browser's date input (a picker on a phone), today by default.
+  await expect(page.getByTestId('round-date')).toHaveAttribute('type', 'date');
+  await expect(page.getByTestId('round-date')).toHaveValue(/^\d{4}-\d{2}-\d{2}$/);
+  await page.screenshot({ path: testInfo.outputPath('open-round-form.png') });
   await page.getByTestId('open-round-submit').click();
   await expect(page.getByRole('heading', { name: roundName })).toBeVisible();
   await expect(page.getByText('0 of 12 submitted')).toBeVisible();

@@ -10,7 +10,18 @@ import { Text } from './text';
  */
 export function DateField({ label, value, onChange, onBlur, error, hint, testID, min, max }: DateFieldProps) {
   const [focused, setFocused] = useState(false);
-  const flat = StyleSheet.flatten([styles.input, focused && styles.focused, error ? styles.invalid : null]);
+  // A DOM element takes CSS, not React Native style keys (no paddingHorizontal there).
+  const css: React.CSSProperties = {
+    minHeight: TOUCH_MIN,
+    boxSizing: 'border-box',
+    border: `2px solid ${error ? colors.brick : focused ? colors.focus : colors.line}`,
+    borderRadius: radius.md,
+    padding: `0 ${space.md}px`,
+    fontFamily: fonts.regular,
+    fontSize: 18,
+    color: colors.ink,
+    backgroundColor: colors.surface,
+  };
   return (
     <View style={styles.wrap}>
       <Text variant="label">{label}</Text>
@@ -28,7 +39,7 @@ export function DateField({ label, value, onChange, onBlur, error, hint, testID,
           setFocused(false);
           onBlur?.();
         }}
-        style={flat as React.CSSProperties}
+        style={css}
       />
       {error ? (
         <Text variant="small" style={styles.error} accessibilityRole="alert">
@@ -43,19 +54,5 @@ export function DateField({ label, value, onChange, onBlur, error, hint, testID,
 
 const styles = StyleSheet.create({
   wrap: { gap: space.xs },
-  input: {
-    minHeight: TOUCH_MIN,
-    borderWidth: 2,
-    borderStyle: 'solid',
-    borderColor: colors.line,
-    borderRadius: radius.md,
-    paddingHorizontal: space.md,
-    fontFamily: fonts.regular,
-    fontSize: 18,
-    color: colors.ink,
-    backgroundColor: colors.surface,
-  },
-  focused: { borderColor: colors.focus },
-  invalid: { borderColor: colors.brick },
   error: { color: colors.brick, fontFamily: fonts.bold },
 });
