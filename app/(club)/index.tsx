@@ -3,7 +3,7 @@ import { Page } from '@/features/ui/components/page';
 
 export default function HomeScreen() {
   return (
-    <Page>
+    <Page title="Home">
       <RoleHome />
     </Page>
   );

@@ -4,7 +4,7 @@ import { Text } from '@/features/ui/components/text';
 
 export default function PeopleScreen() {
   return (
-    <Page>
+    <Page title="People">
       <Text variant="title" accessibilityRole="header">
         People
       </Text>

@@ -23,6 +23,9 @@ export const rounds = pgTable(
     name: text('name').notNull(),
     screenedOn: date('screened_on', { mode: 'string' }).notNull(),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+    /** Set when the round is closed: no more screening in it until a head coach reopens it. */
+    closedAt: timestamp('closed_at', { withTimezone: true, mode: 'date' }),
+    closedBy: uuid('closed_by').references(() => users.id, { onDelete: 'set null' }),
     ...timestamps,
   },
   (t) => [index('rounds_club_idx').on(t.clubId, t.screenedOn)],

@@ -1,4 +1,4 @@
-import { object, string, type InferType } from 'yup';
+import { array, object, string, type InferType } from 'yup';
 
 // One schema per input, used by the form on the client and by the server's validation middleware.
 
@@ -23,9 +23,18 @@ export const signInSchema = object({
 });
 export type SignInInput = InferType<typeof signInSchema>;
 
+export const MAX_INVITED_CHILDREN = 6;
+
 export const inviteSchema = object({
   email,
   role: string().oneOf([...ROLE_VALUES], 'Choose a role.').required('Choose a role.'),
+  /** A parent's invitation names the children it links when accepted. */
+  athleteIds: array(string().uuid('Choose children of the club.').required())
+    .max(MAX_INVITED_CHILDREN, `Link at most ${MAX_INVITED_CHILDREN} children in one invitation.`)
+    .default([])
+    .test('parents-only', 'Only a parent or guardian is linked to children.', function onlyParents(ids) {
+      return !ids || ids.length === 0 || this.parent.role === 'parent';
+    }),
 });
 export type InviteInput = InferType<typeof inviteSchema>;
 

@@ -5,6 +5,7 @@ import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { space } from '@/features/ui/theme';
+import { formatDateTime } from '@/features/ui/format-date';
 
 type Message = { id: string; from: string; to: string[]; subject: string; text: string; receivedAt: string };
 
@@ -29,7 +30,7 @@ export function Mailbox() {
         <Card key={m.id} testID="mail-message">
           <Text variant="label">{m.subject}</Text>
           <Text variant="small">
-            To {m.to.join(', ')} · {new Date(m.receivedAt).toLocaleString()}
+            To {m.to.join(', ')} · {formatDateTime(m.receivedAt)}
           </Text>
           <Text selectable>{m.text}</Text>
         </Card>

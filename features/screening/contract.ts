@@ -123,6 +123,9 @@ export type RoundSummary = {
   name: string;
   screenedOn: string;
   counts: Record<AssessmentStatus, number>;
+  /** Set while the round is closed: nothing can be screened in it until a head coach reopens it. */
+  closedAt: string | null;
+  closedByName: string | null;
 };
 
 export type RoundAthlete = {
@@ -133,7 +136,11 @@ export type RoundAthlete = {
   status: AssessmentStatus;
   photoConsent: boolean;
   flagCount: number | null;
+  /** The current result's flags, most severe first (concern, then watch): what a coach scans the list for. */
+  flags: RoundAthleteFlag[];
 };
+
+export type RoundAthleteFlag = { severity: Flag['severity']; title: string; side: Flag['side'] };
 
 export type RoundDetail = { round: RoundSummary; athletes: RoundAthlete[] };
 
@@ -168,6 +175,8 @@ export type AssessmentDetail = {
   roundId: string;
   roundName: string;
   screenedOn: string;
+  /** The round is closed: the assessment can be read, not changed. */
+  roundClosedAt: string | null;
   status: AssessmentStatus;
   draft: AssessmentDraft;
   draftVersion: number;

@@ -3,10 +3,10 @@ import { navFor } from './nav';
 
 describe('navFor', () => {
   it.each([
-    ['admin', true, ['/', '/athletes', '/screening', '/people', '/dev/mailbox']],
-    ['admin', false, ['/', '/athletes', '/screening', '/people']],
-    ['head_coach', true, ['/', '/athletes', '/screening', '/people']],
-    ['tester', true, ['/', '/athletes', '/screening']],
+    ['admin', true, ['/', '/athletes', '/screening', '/measuring', '/people', '/dev/mailbox']],
+    ['admin', false, ['/', '/athletes', '/screening', '/measuring', '/people']],
+    ['head_coach', true, ['/', '/athletes', '/screening', '/measuring', '/people']],
+    ['tester', true, ['/', '/athletes', '/screening', '/measuring']],
     ['physio', true, ['/', '/athletes', '/screening']],
     ['parent', true, ['/']],
   ] as const)('%s (mailbox %s)', (role, mailbox, hrefs) => {

@@ -7,6 +7,8 @@ export function navFor(role: RoleValue, options: { mailbox: boolean }): NavItem[
   const items: NavItem[] = [{ href: '/', label: 'Home' }];
   if (role !== 'parent') items.push({ href: '/athletes', label: 'Athletes' });
   if (role !== 'parent') items.push({ href: '/screening', label: 'Screening' });
+  // The roles that screen also place the points of photos taken courtside.
+  if (role === 'admin' || role === 'head_coach' || role === 'tester') items.push({ href: '/measuring', label: 'To measure' });
   if (role === 'admin' || role === 'head_coach') items.push({ href: '/people', label: 'People' });
   if (role === 'admin' && options.mailbox) items.push({ href: '/dev/mailbox', label: 'Mailbox (local)' });
   return items;

@@ -133,14 +133,6 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
           ),
         );
     },
-    /** identityKey → archived?, for every athlete of the club: the import checks a whole file against it. */
-    async identities(): Promise<Map<string, boolean>> {
-      const rows = await db
-        .select({ firstName: athletes.firstName, lastName: athletes.lastName, dateOfBirth: athletes.dateOfBirth, archived: columns.archived })
-        .from(athletes)
-        .where(inScope());
-      return new Map(rows.map((r) => [identityKey(r.firstName, r.lastName, r.dateOfBirth), r.archived]));
-    },
     /** Serialises roster writes of one club, so that two imports cannot both add the same child. */
     async lockRoster() {
       await db.execute(sql`select pg_advisory_xact_lock(hashtext(${`roster:${scope.clubId}`}))`);

@@ -45,7 +45,7 @@ export function rosterImportRouter(db: Db) {
       res.json(await roster.check(raw));
       return;
     }
-    const { report, created } = await roster.commit(raw);
+    const { report, created, updated } = await roster.commit(raw);
     if (report.errorCount > 0) {
       const n = report.errorCount;
       res.status(400).json({
@@ -54,7 +54,7 @@ export function rosterImportRouter(db: Db) {
       });
       return;
     }
-    res.status(201).json({ ...report, created: created.length });
+    res.status(201).json({ ...report, created: created.length, updated: updated.length });
   });
 
   return router;

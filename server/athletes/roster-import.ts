@@ -14,14 +14,23 @@ import {
 import type { ClubScope } from '@/server/access/scope';
 import { badRequest } from '@/server/http/errors';
 import { fieldErrors } from '@/server/http/validate';
-import { athletesRepo, identityKey, type AthletesRepo } from './athletes.repo';
+import { athletesRepo, identityKey, type AthletesRepo, type AthleteView } from './athletes.repo';
 
 export const MAX_IMPORT_BYTES = 1024 * 1024;
 export const MAX_IMPORT_ROWS = 1000;
 
 export type RawRow = { line: number; values: Partial<Record<RosterColumn, string>>; extraCells: number };
-export type ReportRow = { line: number; ok: boolean; errors: Record<string, string>; values: Partial<Record<RosterColumn, string>> };
-export type ImportReport = { rows: ReportRow[]; okCount: number; errorCount: number };
+export type ReportRow = {
+  line: number;
+  ok: boolean;
+  errors: Record<string, string>;
+  values: Partial<Record<RosterColumn, string>>;
+  /** For a line without errors: a new athlete, or one already in the club (same name and date of birth). */
+  action?: 'create' | 'update';
+  /** For an update: what the import changes, in plain words (empty: nothing differs). */
+  changes?: string[];
+};
+export type ImportReport = { rows: ReportRow[]; okCount: number; errorCount: number; createCount: number; updateCount: number };
 
 const HEADER_HINT = `The first line must name the columns: ${ROSTER_HEADER_LINE}`;
 
@@ -72,12 +81,31 @@ export function readRosterCsv(bytes: Buffer): RawRow[] {
   });
 }
 
-type CheckedRow = ReportRow & { row?: RosterRow; squadId?: string; guardianUserId?: string };
+type CheckedRow = ReportRow & { row?: RosterRow; squadId?: string; guardianUserId?: string; existing?: AthleteView };
+
+const yesNo = (v: boolean | null | undefined) => (v === true ? 'yes' : v === false ? 'no' : 'not recorded');
+
+/** What importing `row` over `current` changes, in the words of the report. */
+function changesOf(current: AthleteView, row: RosterRow, squadName: string, guardianEmail: string | undefined): string[] {
+  const out: string[] = [];
+  if (current.squadName?.toLowerCase() !== squadName.toLowerCase()) out.push(`squad: ${current.squadName ?? 'none'} → ${squadName}`);
+  if (current.sex !== row.sex) out.push(`sex: ${current.sex} → ${row.sex}`);
+  if (current.racketHand !== row.racket_hand) out.push(`racket hand: ${current.racketHand} → ${row.racket_hand}`);
+  if (current.takeOffLeg !== row.take_off_leg) out.push(`take-off leg: ${current.takeOffLeg} → ${row.take_off_leg}`);
+  if (current.consents.photos?.granted !== row.photo_consent) {
+    out.push(`photo consent: ${yesNo(current.consents.photos?.granted)} → ${yesNo(row.photo_consent)}`);
+  }
+  if (current.consents.emailSummaries?.granted !== row.email_summaries_consent) {
+    out.push(`e-mail summaries consent: ${yesNo(current.consents.emailSummaries?.granted)} → ${yesNo(row.email_summaries_consent)}`);
+  }
+  if (guardianEmail) out.push(`parent account linked: ${guardianEmail}`);
+  return out;
+}
 
 /** Checks each line against the form's rules and the club's data; writes nothing. */
 async function checkRows(repo: AthletesRepo, raw: RawRow[]): Promise<CheckedRow[]> {
   const squadsByName = await repo.activeSquadsByName();
-  const known = await repo.identities();
+  const known = new Map((await repo.list({ includeArchived: true })).map((a) => [identityKey(a.firstName, a.lastName, a.dateOfBirth), a]));
   const emails = raw.map((r) => r.values.guardian_email?.trim().toLowerCase()).filter((e): e is string => !!e);
   const members = await repo.membersByEmail([...new Set(emails)]);
   const seen = new Map<string, number>();
@@ -106,20 +134,35 @@ async function checkRows(repo: AthletesRepo, raw: RawRow[]): Promise<CheckedRow[
       else if (member.role !== 'parent') errors.guardian_email = `This e-mail belongs to the club’s ${ROLE_LABELS[member.role].toLowerCase()}, not a parent account.`;
     }
 
+    // A child already in the club (same name and date of birth) is updated from the line, not refused.
+    let existing: AthleteView | undefined;
     if (row) {
       const key = identityKey(row.first_name, row.last_name, row.date_of_birth);
       const earlier = seen.get(key);
       if (earlier !== undefined) errors.row = `Same name and date of birth as line ${earlier}.`;
-      else if (known.has(key)) {
-        errors.row = known.get(key)
-          ? 'An archived athlete with this name and date of birth is in the club: restore them instead.'
-          : 'This athlete is already in the club (same name and date of birth).';
-      }
+      else if (known.get(key)?.archived) {
+        errors.row = 'An archived athlete with this name and date of birth is in the club: restore them first, then import again.';
+      } else existing = known.get(key);
       if (earlier === undefined) seen.set(key, line);
     }
 
     const ok = Object.keys(errors).length === 0;
-    checked.push({ line, ok, errors: inColumnOrder(errors), values, ...(ok ? { row, squadId, guardianUserId: member?.userId } : {}) });
+    checked.push({
+      line,
+      ok,
+      errors: inColumnOrder(errors),
+      values,
+      ...(ok
+        ? {
+            row,
+            squadId,
+            guardianUserId: member?.userId,
+            existing,
+            action: existing ? ('update' as const) : ('create' as const),
+            ...(existing ? { changes: changesOf(existing, row!, squadName!, email) } : {}),
+          }
+        : {}),
+    });
   }
   return checked;
 }
@@ -131,9 +174,17 @@ function inColumnOrder(errors: Record<string, string>): Record<string, string> {
 }
 
 function toReport(checked: CheckedRow[]): ImportReport {
-  const rows = checked.map(({ line, ok, errors, values }) => ({ line, ok, errors, values }));
+  const rows: ReportRow[] = checked.map(({ line, ok, errors, values, action, changes }) => ({
+    line,
+    ok,
+    errors,
+    values,
+    ...(action ? { action } : {}),
+    ...(changes ? { changes } : {}),
+  }));
   const okCount = rows.filter((r) => r.ok).length;
-  return { rows, okCount, errorCount: rows.length - okCount };
+  const updateCount = rows.filter((r) => r.action === 'update').length;
+  return { rows, okCount, errorCount: rows.length - okCount, createCount: okCount - updateCount, updateCount };
 }
 
 export function rosterImport(db: Db, scope: ClubScope) {
@@ -147,14 +198,37 @@ export function rosterImport(db: Db, scope: ClubScope) {
      * Writes every line in one transaction, only when no line has an error; otherwise writes nothing
      * and returns the report. The check runs again inside the transaction, under the roster lock.
      */
-    async commit(raw: RawRow[]): Promise<{ report: ImportReport; created: string[] }> {
+    async commit(raw: RawRow[]): Promise<{ report: ImportReport; created: string[]; updated: string[] }> {
       return db.transaction(async (tx) => {
         const repo = athletesRepo(tx, scope);
         await repo.lockRoster();
         const checked = await checkRows(repo, raw);
         const report = toReport(checked);
-        if (report.errorCount > 0) return { report, created: [] };
-        const ready = checked as (CheckedRow & { row: RosterRow; squadId: string })[];
+        if (report.errorCount > 0) return { report, created: [], updated: [] };
+        const all = checked as (CheckedRow & { row: RosterRow; squadId: string })[];
+        const decidedOn = todayIso();
+
+        // Athletes already in the club: their record follows the line; a consent answer that differs
+        // from the one in force is recorded as a new decision (the history keeps the old one).
+        const updates = all.filter((c) => c.existing);
+        for (const { existing, row, squadId } of updates) {
+          await repo.update(existing!.id, { sex: row.sex, racketHand: row.racket_hand, takeOffLeg: row.take_off_leg, squadId });
+        }
+        await repo.recordConsents(
+          updates.flatMap(({ existing, row }) => [
+            ...(existing!.consents.photos?.granted !== row.photo_consent
+              ? [{ athleteId: existing!.id, kind: 'photos' as const, granted: row.photo_consent, decidedOn }]
+              : []),
+            ...(existing!.consents.emailSummaries?.granted !== row.email_summaries_consent
+              ? [{ athleteId: existing!.id, kind: 'email_summaries' as const, granted: row.email_summaries_consent, decidedOn }]
+              : []),
+          ]),
+        );
+        await repo.linkGuardians(
+          updates.flatMap(({ existing, guardianUserId }) => (guardianUserId ? [{ athleteId: existing!.id, userId: guardianUserId }] : [])),
+        );
+
+        const ready = all.filter((c) => !c.existing);
         const ids = await repo.createMany(
           ready.map(({ row, squadId }) => ({
             firstName: row.first_name,
@@ -166,7 +240,6 @@ export function rosterImport(db: Db, scope: ClubScope) {
             squadId,
           })),
         );
-        const decidedOn = todayIso();
         await repo.recordConsents(
           ready.flatMap(({ row }, i) => [
             { athleteId: ids[i]!, kind: 'photos' as const, granted: row.photo_consent, decidedOn },
@@ -176,7 +249,7 @@ export function rosterImport(db: Db, scope: ClubScope) {
         await repo.linkGuardians(
           ready.flatMap(({ guardianUserId }, i) => (guardianUserId ? [{ athleteId: ids[i]!, userId: guardianUserId }] : [])),
         );
-        return { report, created: ids };
+        return { report, created: ids, updated: updates.map((u) => u.existing!.id) };
       });
     },
   };

@@ -1,10 +1,16 @@
-import { and, eq, gt, isNull } from 'drizzle-orm';
+import { and, asc, eq, gt, inArray, isNull } from 'drizzle-orm';
 import type { Db } from '@/db/client';
-import { clubs, invitations, memberships, passwordResets, sessions, users, type Role } from '@/db/schema';
+import { athletes, clubs, guardianLinks, invitationAthletes, invitations, memberships, passwordResets, sessions, users, type Role } from '@/db/schema';
 import type { Outbox } from '@/server/mail/outbox';
 import { AppError, badRequest, conflict, notFound, unauthorized } from '@/server/http/errors';
 import { type Auth, newToken, sessionIdFromToken } from './lucia';
 import { hashPassword, verifyDecoy, verifyPassword } from './password';
+
+/** "Maya", "Maya and Theo", "Maya, Theo and Ava". */
+function listNames(names: string[]): string {
+  if (names.length <= 1) return names[0] ?? '';
+  return `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
+}
 
 export const INVITATION_TTL_MS = 7 * 24 * 3600 * 1000;
 export const RESET_TTL_MS = 60 * 60 * 1000;
@@ -35,9 +41,35 @@ export function createAuthService({ db, auth, outbox, publicUrl }: AuthDeps) {
     await auth.invalidateSession(sessionId);
   }
 
-  async function invite(input: { clubId: string; email: string; role: Role; invitedBy: string }) {
+  /** The children an invitation links, by name (first name first), in name order. */
+  async function invitedChildren(tokenHash: string): Promise<{ id: string; name: string }[]> {
+    const rows = await db
+      .select({ id: athletes.id, firstName: athletes.firstName, lastName: athletes.lastName })
+      .from(invitationAthletes)
+      .innerJoin(athletes, eq(athletes.id, invitationAthletes.athleteId))
+      .where(eq(invitationAthletes.tokenHash, tokenHash))
+      .orderBy(asc(athletes.firstName), asc(athletes.lastName));
+    return rows.map((r) => ({ id: r.id, name: `${r.firstName} ${r.lastName}` }));
+  }
+
+  async function invite(input: { clubId: string; email: string; role: Role; invitedBy: string; athleteIds?: string[] }) {
     const [club] = await db.select().from(clubs).where(eq(clubs.id, input.clubId));
     if (!club) throw notFound('The club');
+    const athleteIds = [...new Set(input.athleteIds ?? [])];
+    if (athleteIds.length > 0 && input.role !== 'parent') {
+      throw badRequest('Some fields need attention.', { athleteIds: 'Only a parent or guardian is linked to children.' });
+    }
+    const children =
+      athleteIds.length === 0
+        ? []
+        : await db
+            .select({ id: athletes.id, firstName: athletes.firstName, lastName: athletes.lastName })
+            .from(athletes)
+            .where(and(eq(athletes.clubId, input.clubId), inArray(athletes.id, athleteIds), isNull(athletes.archivedAt)))
+            .orderBy(asc(athletes.firstName));
+    if (children.length !== athleteIds.length) {
+      throw badRequest('Some fields need attention.', { athleteIds: 'Choose children who are on the club’s roster.' });
+    }
     const [existing] = await db
       .select({ role: memberships.role })
       .from(memberships)
@@ -45,20 +77,27 @@ export function createAuthService({ db, auth, outbox, publicUrl }: AuthDeps) {
       .where(and(eq(users.email, input.email), eq(memberships.clubId, input.clubId)));
     if (existing) throw conflict('This person is already a member of the club.');
     const token = newToken();
-    await db.insert(invitations).values({
-      tokenHash: await sessionIdFromToken(token),
-      clubId: input.clubId,
-      email: input.email,
-      role: input.role,
-      invitedBy: input.invitedBy,
-      expiresAt: new Date(Date.now() + INVITATION_TTL_MS),
+    const tokenHash = await sessionIdFromToken(token);
+    await db.transaction(async (tx) => {
+      await tx.insert(invitations).values({
+        tokenHash,
+        clubId: input.clubId,
+        email: input.email,
+        role: input.role,
+        invitedBy: input.invitedBy,
+        expiresAt: new Date(Date.now() + INVITATION_TTL_MS),
+      });
+      if (children.length > 0) await tx.insert(invitationAthletes).values(children.map((c) => ({ tokenHash, athleteId: c.id })));
     });
     const link = `${publicUrl}/accept-invite?token=${encodeURIComponent(token)}`;
+    const names = listNames(children.map((c) => `${c.firstName} ${c.lastName}`));
     await outbox.enqueue({
       to: input.email,
-      subject: `You are invited to ${club.name} on Squadline`,
+      subject: children.length > 0 ? `Follow ${names} at ${club.name} on Squadline` : `You are invited to ${club.name} on Squadline`,
       text:
-        `Hello,\n\nYou have been invited to join ${club.name} on Squadline.\n\n` +
+        (children.length > 0
+          ? `Hello,\n\n${club.name} invites you to follow ${names} on Squadline: what they do in screening and training, and why.\n\n`
+          : `Hello,\n\nYou have been invited to join ${club.name} on Squadline.\n\n`) +
         `Open this link to choose your password (it works once, for 7 days):\n${link}\n\n` +
         `If you did not expect this e-mail, you can ignore it.\n`,
     });
@@ -84,7 +123,8 @@ export function createAuthService({ db, auth, outbox, publicUrl }: AuthDeps) {
   async function describeInvitation(token: string) {
     const { invitation, clubName } = await findOpenInvitation(token);
     const [user] = await db.select({ hasPassword: users.passwordHash }).from(users).where(eq(users.email, invitation.email));
-    return { email: invitation.email, role: invitation.role, clubName, hasAccount: Boolean(user?.hasPassword) };
+    const children = (await invitedChildren(invitation.tokenHash)).map((c) => c.name);
+    return { email: invitation.email, role: invitation.role, clubName, hasAccount: Boolean(user?.hasPassword), children };
   }
 
   async function acceptInvitation(input: { token: string; displayName: string; password: string }) {
@@ -117,6 +157,15 @@ export function createAuthService({ db, auth, outbox, publicUrl }: AuthDeps) {
         .insert(memberships)
         .values({ userId: id, clubId: invitation.clubId, role: invitation.role })
         .onConflictDoNothing();
+      if (invitation.role === 'parent') {
+        const children = await tx
+          .select({ athleteId: invitationAthletes.athleteId })
+          .from(invitationAthletes)
+          .where(eq(invitationAthletes.tokenHash, invitation.tokenHash));
+        if (children.length > 0) {
+          await tx.insert(guardianLinks).values(children.map((c) => ({ athleteId: c.athleteId, userId: id }))).onConflictDoNothing();
+        }
+      }
       const accepted = await tx
         .update(invitations)
         .set({ acceptedAt: new Date() })
@@ -164,7 +213,7 @@ export function createAuthService({ db, auth, outbox, publicUrl }: AuthDeps) {
     });
   }
 
-  return { signIn, signOut, invite, describeInvitation, acceptInvitation, requestPasswordReset, resetPassword };
+  return { signIn, signOut, invite, invitedChildren, describeInvitation, acceptInvitation, requestPasswordReset, resetPassword };
 }
 
 export type AuthService = ReturnType<typeof createAuthService>;

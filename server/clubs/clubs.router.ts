@@ -20,20 +20,24 @@ export function clubsRouter(db: Db, authService: AuthService) {
       .innerJoin(users, eq(users.id, memberships.userId))
       .where(eq(memberships.clubId, clubId))
       .orderBy(asc(users.displayName));
-    const pending = await db
-      .select({ email: invitations.email, role: invitations.role, expiresAt: invitations.expiresAt })
+    const open = await db
+      .select({ tokenHash: invitations.tokenHash, email: invitations.email, role: invitations.role, expiresAt: invitations.expiresAt })
       .from(invitations)
       .where(and(eq(invitations.clubId, clubId), isNull(invitations.acceptedAt), gt(invitations.expiresAt, new Date())))
       .orderBy(asc(invitations.email));
+    // The token hash stays on the server; the children a parent's invitation links are named.
+    const pending = await Promise.all(
+      open.map(async ({ tokenHash, ...p }) => ({ ...p, children: (await authService.invitedChildren(tokenHash)).map((c) => c.name) })),
+    );
     res.json({ members, pending });
   });
 
   router.post('/clubs/:clubId/invitations', validateBody(inviteSchema), async (req, res) => {
     const clubId = requireUuid(String(req.params.clubId), 'The club');
     const scope = await scopeForClub(db, req, clubId, ['admin']);
-    const { email, role } = req.body as InviteInput;
-    await authService.invite({ clubId, email, role: role as Role, invitedBy: scope.userId });
-    res.status(201).json({ ok: true, email, role });
+    const { email, role, athleteIds } = req.body as InviteInput;
+    await authService.invite({ clubId, email, role: role as Role, invitedBy: scope.userId, athleteIds });
+    res.status(201).json({ ok: true, email, role, athleteIds });
   });
 
   return router;

@@ -6,7 +6,7 @@ import {
   assessmentResults,
   assessments,
   athletes,
-    photos,
+  photos,
   planAdjustments,
   rounds,
   squads,
@@ -24,7 +24,7 @@ export type Executor = PgDatabase<NodePgQueryResultHKT, typeof schema>;
  * Written with qualified names: drizzle leaves columns unqualified in a single-table query, where a bare
  * "id" inside the subquery would mean consents.id.
  */
-const photoConsentSql = sql<boolean>`coalesce((
+export const photoConsentSql = sql<boolean>`coalesce((
   select c.granted from consents c
   where c.athlete_id = "athletes"."id" and c.kind = 'photos'
   order by c.created_at desc limit 1
@@ -43,6 +43,8 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
     squadName: squads.name,
     name: rounds.name,
     screenedOn: rounds.screenedOn,
+    closedAt: rounds.closedAt,
+    closedByName: sql<string | null>`(select u.display_name from users u where u.id = ${rounds.closedBy})`,
     notStarted: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'not_started')::int`,
     inProgress: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'in_progress')::int`,
     submitted: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'submitted')::int`,
@@ -69,6 +71,7 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
     submittedAt: assessments.submittedAt,
     roundName: rounds.name,
     screenedOn: rounds.screenedOn,
+    roundClosedAt: rounds.closedAt,
     firstName: athletes.firstName,
     lastName: athletes.lastName,
     sex: athletes.sex,
@@ -116,6 +119,10 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
           status: assessments.status,
           photoConsent: photoConsentSql,
           flagCount: sql<number | null>`jsonb_array_length(${assessmentResults.result} -> 'flags')`,
+          flags: sql<{ severity: 'watch' | 'concern'; title: string; side: string }[] | null>`(
+            select jsonb_agg(jsonb_build_object('severity', f ->> 'severity', 'title', f ->> 'title', 'side', f ->> 'side'))
+            from jsonb_array_elements(${assessmentResults.result} -> 'flags') f
+          )`,
         })
         .from(assessments)
         .innerJoin(athletes, eq(athletes.id, assessments.athleteId))
@@ -179,6 +186,26 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
         .from(assessments)
         .where(and(eq(assessments.clubId, clubId), eq(assessments.id, id)));
       return row ?? null;
+    },
+
+    /** Closes (a date) or reopens (null) the round; returns false for an unknown round. */
+    async setRoundClosed(id: string, closedAt: Date | null) {
+      const rows = await db
+        .update(rounds)
+        .set({ closedAt, closedBy: closedAt ? scope.userId : null })
+        .where(and(eq(rounds.clubId, clubId), eq(rounds.id, id)))
+        .returning({ id: rounds.id });
+      return rows.length > 0;
+    },
+
+    /** When the assessment's round was closed, or null while it is open (or unknown). */
+    async roundClosedAtOf(assessmentId: string) {
+      const [row] = await db
+        .select({ closedAt: rounds.closedAt })
+        .from(assessments)
+        .innerJoin(rounds, eq(rounds.id, assessments.roundId))
+        .where(and(eq(assessments.clubId, clubId), eq(assessments.id, assessmentId)));
+      return row?.closedAt ?? null;
     },
 
     async markSubmitted(id: string, at: Date) {

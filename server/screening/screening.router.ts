@@ -13,6 +13,8 @@ import { DraftConflictError, screeningService, type ScreeningDeps } from './scre
 export const SCREENING_READ: readonly Role[] = STAFF;
 /** Who may open rounds, screen, upload photos, submit and adjust plans. */
 export const SCREENING_WRITE: readonly Role[] = ['admin', 'head_coach', 'tester'];
+/** Who may reopen a closed round: the head coach, who owns the season's screening (our choice). */
+export const ROUND_REOPEN: readonly Role[] = ['head_coach'];
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const WHAT = { squad: 'The squad', round: 'The round', assessment: 'The assessment', photo: 'The photo', athlete: 'The athlete' } as const;
@@ -48,6 +50,16 @@ export function screeningRouter(deps: ScreeningDeps) {
   router.get('/rounds/:id', async (req, res) => {
     const scope = await scopeFor(req, 'round', String(req.params.id), SCREENING_READ);
     res.json(await service.roundDetail(scope, String(req.params.id)));
+  });
+
+  router.post('/rounds/:id/close', async (req, res) => {
+    const scope = await scopeFor(req, 'round', String(req.params.id), SCREENING_WRITE);
+    res.json(await service.setRoundClosed(scope, String(req.params.id), true));
+  });
+
+  router.post('/rounds/:id/reopen', async (req, res) => {
+    const scope = await scopeFor(req, 'round', String(req.params.id), ROUND_REOPEN);
+    res.json(await service.setRoundClosed(scope, String(req.params.id), false));
   });
 
   router.get('/assessments/:id', async (req, res) => {

@@ -11,6 +11,7 @@ import type {
   PhotoView,
   PlanAdjustmentInput,
   ResultView,
+  RoundAthleteFlag,
   RoundDetail,
   RoundSummary,
   SaveDraftInput,
@@ -65,7 +66,24 @@ function roundSummary(row: RoundRow): RoundSummary {
     name: row.name,
     screenedOn: row.screenedOn,
     counts: { not_started: row.notStarted, in_progress: row.inProgress, submitted: row.submitted },
+    closedAt: row.closedAt ? iso(row.closedAt) : null,
+    closedByName: row.closedAt ? row.closedByName : null,
   };
+}
+
+const SEVERITY_ORDER: Record<string, number> = { concern: 0, watch: 1 };
+
+/** Most severe first; within a severity, the engine's order. */
+function bySeverity(flags: RoundAthleteFlag[] | null): RoundAthleteFlag[] {
+  return (flags ?? [])
+    .map((f, i) => ({ f, i }))
+    .sort((a, b) => (SEVERITY_ORDER[a.f.severity] ?? 9) - (SEVERITY_ORDER[b.f.severity] ?? 9) || a.i - b.i)
+    .map(({ f }) => f);
+}
+
+/** 409 for a change to an assessment of a closed round: reading stays possible. */
+function roundClosed(): AppError {
+  return new AppError(409, 'round_closed', 'This round is closed, so its screens cannot be changed. A head coach can reopen it.');
 }
 
 export function photoView(p: Photo): PhotoView {
@@ -159,7 +177,11 @@ export function screeningService(deps: ScreeningDeps) {
     const repo = repoFor(scope);
     const round = await repo.round(id);
     if (!round) throw notFound('The round');
-    return { round: roundSummary(round), athletes: await repo.roundAthletes(id) };
+    const athletes = await repo.roundAthletes(id);
+    return {
+      round: roundSummary(round),
+      athletes: athletes.map((a) => ({ ...a, flags: bySeverity(a.flags as RoundAthleteFlag[] | null) })),
+    };
   }
 
   return {
@@ -194,6 +216,7 @@ export function screeningService(deps: ScreeningDeps) {
         roundId: a.roundId,
         roundName: a.roundName,
         screenedOn: a.screenedOn,
+        roundClosedAt: a.roundClosedAt ? iso(a.roundClosedAt) : null,
         status: a.status,
         draft: a.draft,
         draftVersion: a.draftVersion,
@@ -216,6 +239,7 @@ export function screeningService(deps: ScreeningDeps) {
     async saveDraft(scope: ClubScope, id: string, input: SaveDraftInput): Promise<{ draftVersion: number; status: AssessmentStatus }> {
       const repo = repoFor(scope);
       const draft = validateDraft(input.draft);
+      if (await repo.roundClosedAtOf(id)) throw roundClosed();
       const saved = await repo.saveDraft(id, input.draftVersion, draft);
       if (saved) return saved;
       const current = await repo.currentDraft(id);
@@ -227,6 +251,7 @@ export function screeningService(deps: ScreeningDeps) {
       const repo = repoFor(scope);
       const a = await repo.assessment(assessmentId);
       if (!a) throw notFound('The assessment');
+      if (a.roundClosedAt) throw roundClosed();
 
       const fields: Record<string, string> = {};
       if (!upload.buffer || upload.buffer.length === 0) fields.photo = 'Choose a photo to upload (field "photo").';
@@ -278,8 +303,15 @@ export function screeningService(deps: ScreeningDeps) {
       return stored.data;
     },
 
-    submit(scope: ClubScope, id: string): Promise<ResultView> {
+    async submit(scope: ClubScope, id: string): Promise<ResultView> {
+      if (await repoFor(scope).roundClosedAtOf(id)) throw roundClosed();
       return submitAssessment(db, scope, id, { evaluate: deps.evaluate });
+    },
+
+    /** Closing ends the session's screening; reopening (head coach, checked by the router) allows it again. */
+    async setRoundClosed(scope: ClubScope, id: string, closed: boolean): Promise<RoundDetail> {
+      if (!(await repoFor(scope).setRoundClosed(id, closed ? new Date() : null))) throw notFound('The round');
+      return roundDetail(scope, id);
     },
 
     async adjustPlan(scope: ClubScope, id: string, input: PlanAdjustmentInput): Promise<ResultView> {

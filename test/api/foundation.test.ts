@@ -211,6 +211,40 @@ describe('invitations and password reset', () => {
     expect(again.body.error.code).toBe('link_expired');
   });
 
+  it('invites a parent naming the children it links; accepting links them, and nothing else', async () => {
+    const admin = await signedInAgent(app, 'admin@riverside.test');
+    const res = await admin
+      .post(`/api/clubs/${ids.club}/invitations`)
+      .send({ email: 'new.parent@riverside.test', role: 'parent', athleteIds: [ids.otherFamily] });
+    expect(res.status).toBe(201);
+    const mail = outbox.sent.at(-1)!;
+    expect(mail.subject).toBe('Follow Other Example at Riverside on Squadline');
+    expect(mail.text).toContain('invites you to follow Other Example');
+    const token = decodeURIComponent(/token=([^\s]+)/.exec(mail.text)![1]!);
+    expect((await supertest(app).get(`/api/auth/invitations/${token}`)).body).toMatchObject({ role: 'parent', children: ['Other Example'] });
+    const members = await admin.get(`/api/clubs/${ids.club}/members`);
+    expect(members.body.pending.find((p: { email: string }) => p.email === 'new.parent@riverside.test')).toMatchObject({ children: ['Other Example'] });
+
+    const invitee = supertest.agent(app);
+    expect((await invitee.post('/api/auth/invitations/accept').send({ token, displayName: 'Nia Parent', password: 'a-long-password' })).status).toBe(201);
+    const mine = await invitee.get('/api/athletes');
+    expect(mine.body.athletes.map((a: { id: string }) => a.id)).toEqual([ids.otherFamily]);
+  });
+
+  it.each([
+    ['children for a role that is not a parent', { email: 'c1@riverside.test', role: 'tester', athleteIds: ['00000000-0000-4000-8000-000000000001'] }],
+    ['a child of another club', { email: 'c2@riverside.test', role: 'parent', athleteIds: ['HILLSIDE'] }],
+    ['something that is not an id', { email: 'c3@riverside.test', role: 'parent', athleteIds: ['nope'] }],
+  ])('refuses an invitation with %s (400 on athleteIds), sending nothing', async (_what, body) => {
+    const admin = await signedInAgent(app, 'admin@riverside.test');
+    const before = outbox.sent.length;
+    const sent = { ...body, athleteIds: body.athleteIds.map((id) => (id === 'HILLSIDE' ? ids.hillsideAthlete! : id)) };
+    const res = await admin.post(`/api/clubs/${ids.club}/invitations`).send(sent);
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields).some((f) => f.startsWith('athleteIds'))).toBe(true);
+    expect(outbox.sent.length).toBe(before);
+  });
+
   it('only lets admins invite', async () => {
     const tester = await signedInAgent(app, 'tester@riverside.test');
     const res = await tester.post(`/api/clubs/${ids.club}/invitations`).send({ email: 'x@riverside.test', role: 'admin' });

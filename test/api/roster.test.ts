@@ -328,7 +328,7 @@ describe('CSV roster import', () => {
     const res = await upload(as.coach, csv);
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ okCount: 2, errorCount: 1 });
-    expect(res.body.rows[0]).toEqual({ line: 2, ok: true, errors: {}, values: expect.objectContaining({ first_name: 'Ada', sex: 'F' }) });
+    expect(res.body.rows[0]).toEqual({ line: 2, ok: true, action: 'create', errors: {}, values: expect.objectContaining({ first_name: 'Ada', sex: 'F' }) });
     expect(res.body.rows[2]).toMatchObject({
       line: 4,
       ok: false,
@@ -379,20 +379,50 @@ describe('CSV roster import', () => {
     expect(history.body.consents.every((c: { recordedBy: string }) => c.recordedBy === 'Cole Coach')).toBe(true);
   });
 
-  it('catches duplicates within the file and against the club', async () => {
+  it('catches duplicates within the file; a child already in the club is an update, listed with its changes', async () => {
     const csv = makeRosterCsv([
       { first_name: 'Gus', last_name: 'Hale' },
       { first_name: 'gus ', last_name: 'HALE' },
-      { first_name: 'Elin', last_name: 'Grove' }, // imported by the previous test
+      { first_name: 'Elin', last_name: 'Grove', email_summaries_consent: 'no', squad: 'Under-15' }, // imported by the previous test
       { first_name: 'Kit', last_name: 'Parentson', date_of_birth: '2013-05-14' }, // created by the fixture
     ]);
     const res = await upload(as.coach, csv);
     expect(res.status).toBe(200);
-    expect(res.body.rows.map((r: { ok: boolean }) => r.ok)).toEqual([true, false, false, false]);
+    expect(res.body.rows.map((r: { ok: boolean; action?: string }) => [r.ok, r.action ?? null])).toEqual([
+      [true, 'create'],
+      [false, null],
+      [true, 'update'],
+      [true, 'update'],
+    ]);
+    expect(res.body).toMatchObject({ okCount: 3, errorCount: 1, createCount: 1, updateCount: 2 });
     expect(res.body.rows[1].errors.row).toBe('Same name and date of birth as line 2.');
-    expect(res.body.rows[2].errors.row).toMatch(/already in the club/);
-    const commit = await upload(as.coach, csv, true);
-    expect(commit.status).toBe(400);
+    expect(res.body.rows[2].changes).toEqual(['squad: Under-13 → Under-15', 'e-mail summaries consent: yes → no']);
+    // Kit's line matches what earlier tests left: an update that changes nothing.
+    expect(res.body.rows[3].changes).toEqual([]);
+    // The duplicate line keeps the whole file out.
+    expect((await upload(as.coach, csv, true)).status).toBe(400);
+  });
+
+  it('updates athletes already in the club on commit: their record, a new consent decision, nothing duplicated', async () => {
+    const before = await athleteCount(ids.club!);
+    const csv = makeRosterCsv([
+      { first_name: 'ELIN', last_name: 'grove', email_summaries_consent: 'no', squad: 'Under-15', racket_hand: 'L' },
+      { first_name: 'Lena', last_name: 'Moss' },
+    ]);
+    const res = await upload(as.coach, csv, true);
+    expect(res.status).toBe(201);
+    expect(res.body).toMatchObject({ created: 1, updated: 1, createCount: 1, updateCount: 1 });
+    expect(await athleteCount(ids.club!)).toBe(before + 1);
+    const list = await as.coach.get('/api/athletes');
+    const elins = list.body.athletes.filter((a: { firstName: string }) => a.firstName === 'Elin');
+    expect(elins).toHaveLength(1);
+    expect(elins[0]).toMatchObject({ lastName: 'Grove', squadName: 'Under-15', racketHand: 'left', consents: { emailSummaries: { granted: false } } });
+    const history = await as.coach.get(`/api/athletes/${elins[0].id}/consents`);
+    // The earlier decision stays in the history; the new one is in force.
+    expect(history.body.consents.filter((c: { kind: string }) => c.kind === 'email_summaries').map((c: { granted: boolean }) => c.granted)).toEqual([false, true]);
+    // Importing the same file again changes nothing more and records no new decision.
+    const again = await upload(as.coach, makeRosterCsv([{ first_name: 'Elin', last_name: 'Grove', email_summaries_consent: 'no', squad: 'Under-15', racket_hand: 'L' }]));
+    expect(again.body.rows[0]).toMatchObject({ action: 'update', changes: [] });
   });
 
   it('checks guardian e-mails against the club’s parent accounts', async () => {

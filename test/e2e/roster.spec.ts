@@ -82,6 +82,9 @@ test('a head coach imports a CSV: a line with an error first, then a clean file'
   const clean = path.join(dir, 'roster.csv');
   fs.writeFileSync(withError, good('09/03/2014'));
   fs.writeFileSync(clean, good(bornYearsAgo(10)));
+  // Later in the season: Alva's family withdrew photo consent, and a new athlete joined.
+  const update = path.join(dir, 'roster-update.csv');
+  fs.writeFileSync(update, [header, `Alva,${lastName},${bornYearsAgo(12)},F,R,L,${squadName},no,no`, `Cy,${lastName},${bornYearsAgo(11)},M,R,R,${squadName},yes,yes`].join('\n'));
 
   await signInAsCoach(page);
   // A squad of its own, so that the demo squads stay as they are.
@@ -108,6 +111,24 @@ test('a head coach imports a CSV: a line with an error first, then a clean file'
   await expect(page.getByTestId('import-problem-line')).toHaveCount(0);
   await page.getByTestId('import-commit').click();
   await expect(page.getByTestId('import-done')).toContainText('2 athletes imported');
+
+  // The same child again is an update, shown with what changes before anything is written.
+  await page.getByTestId('roster-file-input').setInputFiles(update);
+  await expect(page.getByTestId('import-summary')).toContainText('All 2 lines are ready');
+  const updates = page.getByTestId('import-update-line');
+  await expect(updates).toHaveCount(1);
+  await expect(updates).toContainText(`Line 2: Alva ${lastName}`);
+  await expect(updates).toContainText('photo consent: yes → no');
+  await expect(page.getByTestId('import-commit')).toHaveText('Import 1 new, update 1');
+  await page.screenshot({ path: testInfo.outputPath('import-update-report.png'), fullPage: true });
+  const before = await (await page.request.get('/api/athletes')).json();
+  expect(before.athletes.filter((x: { lastName: string }) => x.lastName === lastName)).toHaveLength(2);
+  await page.getByTestId('import-commit').click();
+  await expect(page.getByTestId('import-done')).toContainText('1 new athlete imported, 1 updated');
+  const after = await (await page.request.get('/api/athletes')).json();
+  const ours = after.athletes.filter((x: { lastName: string }) => x.lastName === lastName);
+  expect(ours).toHaveLength(3);
+  expect(ours.find((x: { firstName: string }) => x.firstName === 'Alva').consents.photos.granted).toBe(false);
 
   await page.goto('/athletes');
   await expect(page.getByText(`Alva ${lastName}`)).toBeVisible();

@@ -1,5 +1,5 @@
 import { expect, test, type Locator, type Page } from '@playwright/test';
-import sharp from 'sharp';
+import { FIGURE, figureJpeg, type Mark } from './figure';
 import { openNav, signIn } from './helpers';
 
 // A whole screening as the demo tester: open a round, screen an athlete with photo consent through every
@@ -9,39 +9,6 @@ import { openNav, signIn } from './helpers';
 
 // A stuck step fails in half a minute rather than at the end of the whole test's time.
 test.use({ actionTimeout: 30_000 });
-
-/** Joint positions of the generated figure, as fractions of the image (never a photo of a person). */
-const FIGURE = {
-  'right-hip': [0.43, 0.48],
-  'right-knee': [0.465, 0.66],
-  'right-ankle': [0.41, 0.86],
-  'left-hip': [0.57, 0.48],
-  'left-knee': [0.55, 0.66],
-  'left-ankle': [0.59, 0.86],
-  'right-asis': [0.44, 0.45],
-  'left-asis': [0.56, 0.455],
-  'mid-shoulder': [0.5, 0.22],
-  'mid-hip': [0.5, 0.48],
-} as const;
-type Mark = keyof typeof FIGURE;
-
-/** A 1800x2400 JPEG of a stick figure: big enough that the client has to scale it down. */
-async function figureJpeg(): Promise<Buffer> {
-  const W = 1800;
-  const H = 2400;
-  const p = (m: Mark) => `${FIGURE[m][0] * W},${FIGURE[m][1] * H}`;
-  const line = (a: Mark, b: Mark) => `<polyline points="${p(a)} ${p(b)}" stroke="#2b4a6f" stroke-width="60" stroke-linecap="round"/>`;
-  const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}">
-    <rect width="100%" height="100%" fill="#dfe6e9"/>
-    <circle cx="${0.5 * W}" cy="${0.12 * H}" r="130" fill="#2b4a6f"/>
-    <polyline points="${0.38 * W},${0.22 * H} ${0.62 * W},${0.22 * H}" stroke="#2b4a6f" stroke-width="60" stroke-linecap="round"/>
-    ${line('mid-shoulder', 'mid-hip')}
-    ${line('right-hip', 'left-hip')}
-    ${line('right-hip', 'right-knee')}${line('right-knee', 'right-ankle')}
-    ${line('left-hip', 'left-knee')}${line('left-knee', 'left-ankle')}
-  </svg>`;
-  return sharp(Buffer.from(svg)).jpeg({ quality: 80 }).toBuffer();
-}
 
 /** Clicks a point of the photo; Playwright scrolls it into view and checks nothing covers it. */
 async function clickAt(surface: Locator, [fx, fy]: readonly [number, number]) {
@@ -77,6 +44,10 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   await expect(page.getByText('Name the round.')).toBeVisible();
   await page.getByRole('radio', { name: /Under-13 mixed/ }).click();
   await page.getByTestId('round-name').fill(roundName);
+  // The date is the browser's date input (a picker on a phone), today by default.
+  await expect(page.getByTestId('round-date')).toHaveAttribute('type', 'date');
+  await expect(page.getByTestId('round-date')).toHaveValue(/^\d{4}-\d{2}-\d{2}$/);
+  await page.screenshot({ path: testInfo.outputPath('open-round-form.png') });
   await page.getByTestId('open-round-submit').click();
   await expect(page.getByRole('heading', { name: roundName })).toBeVisible();
   await expect(page.getByText('0 of 12 submitted')).toBeVisible();

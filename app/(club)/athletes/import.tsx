@@ -4,7 +4,7 @@ import { Text } from '@/features/ui/components/text';
 
 export default function ImportRosterScreen() {
   return (
-    <Page>
+    <Page title="Import athletes">
       <Text variant="title" accessibilityRole="header">
         Import athletes from a CSV file
       </Text>

@@ -4,7 +4,7 @@ import { Text } from '@/features/ui/components/text';
 
 export default function AthletesScreen() {
   return (
-    <Page>
+    <Page title="Athletes">
       <Text variant="title" accessibilityRole="header">
         Athletes
       </Text>

@@ -4,7 +4,7 @@ import { Text } from '@/features/ui/components/text';
 
 export default function NewAthleteScreen() {
   return (
-    <Page>
+    <Page title="Add an athlete">
       <Text variant="title" accessibilityRole="header">
         Add an athlete
       </Text>

@@ -4,7 +4,7 @@ import { Text } from '@/features/ui/components/text';
 
 export default function MailboxScreen() {
   return (
-    <Page>
+    <Page title="Local mailbox">
       <Text variant="title" accessibilityRole="header">
         Local mailbox
       </Text>

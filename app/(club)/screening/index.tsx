@@ -3,7 +3,7 @@ import { Page } from '@/features/ui/components/page';
 
 export default function ScreeningScreen() {
   return (
-    <Page>
+    <Page title="Screening">
       <ScreeningHome />
     </Page>
   );

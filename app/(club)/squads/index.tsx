@@ -4,7 +4,7 @@ import { Text } from '@/features/ui/components/text';
 
 export default function SquadsScreen() {
   return (
-    <Page>
+    <Page title="Squads">
       <Text variant="title" accessibilityRole="header">
         Squads
       </Text>

@@ -34,5 +34,17 @@ export type ImportReportRow = {
   /** Keyed by CSV column, or `row` for the line as a whole. */
   errors: Partial<Record<RosterColumn | 'row', string>>;
   values: Partial<Record<RosterColumn, string>>;
+  /** For a line without errors: a new athlete, or one already in the club (same name and date of birth) to update. */
+  action?: 'create' | 'update';
+  /** For an update: what the import changes, in plain words. */
+  changes?: string[];
 };
-export type ImportReport = { rows: ImportReportRow[]; okCount: number; errorCount: number; created?: number };
+export type ImportReport = {
+  rows: ImportReportRow[];
+  okCount: number;
+  errorCount: number;
+  createCount: number;
+  updateCount: number;
+  created?: number;
+  updated?: number;
+};

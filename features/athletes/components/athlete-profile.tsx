@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useActiveClub } from '@/features/session/active-club';
+import { usePageTitle } from '@/features/ui/page-title';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
@@ -16,6 +17,7 @@ import { SEX_LABELS, SIDE_LABELS } from '../schemas';
 import { ArchiveControl } from './archive-control';
 import { AthleteForm } from './athlete-form';
 import { MoveSquad } from './move-squad';
+import { formatDate } from '@/features/ui/format-date';
 
 /** Who the athlete is, and (for admins and head coaches) editing, moving and archiving. */
 export function AthleteProfile({ id }: { id: string }) {
@@ -23,6 +25,7 @@ export function AthleteProfile({ id }: { id: string }) {
   const { membership } = useActiveClub();
   const { isTabletUp } = useBreakpoints();
   const [editing, setEditing] = useState(false);
+  usePageTitle(query.data ? `${query.data.athlete.firstName} ${query.data.athlete.lastName}` : 'Athlete');
   if (query.isPending) return <Text>Loading…</Text>;
   if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
   const a = query.data.athlete;
@@ -84,7 +87,7 @@ function EditDetails({ athlete, onDone }: { athlete: Athlete; onDone: () => void
 function Facts({ athlete: a }: { athlete: Athlete }) {
   return (
     <View style={styles.facts}>
-      <Fact label="Age" value={`${ageInYears(a.dateOfBirth, todayIso())} years (born ${a.dateOfBirth})`} />
+      <Fact label="Age" value={`${ageInYears(a.dateOfBirth, todayIso())} years (born ${formatDate(a.dateOfBirth)})`} />
       <Fact label="Sex" value={SEX_LABELS[a.sex]} />
       <Fact label="Racket hand" value={SIDE_LABELS[a.racketHand]} />
       <Fact label="Take-off leg" value={SIDE_LABELS[a.takeOffLeg]} />

@@ -16,6 +16,7 @@ import type { Athlete, ConsentView } from '../api/types';
 import { canManageRoster } from '../roles';
 import { CONSENT_KINDS, CONSENT_LABELS, consentSchema, type ConsentInput, type ConsentKind } from '../schemas';
 import { ChoiceGroup } from './choice-group';
+import { formatDate } from '@/features/ui/format-date';
 
 const kindOptions = CONSENT_KINDS.map((k) => ({ value: k, label: CONSENT_LABELS[k].title }));
 const answerOptions = [
@@ -25,7 +26,7 @@ const answerOptions = [
 
 function inForce(c: ConsentView, kind: ConsentKind) {
   if (!c) return 'Not recorded yet';
-  return `${c.granted ? CONSENT_LABELS[kind].yes : CONSENT_LABELS[kind].no} (decided ${c.decidedOn})`;
+  return `${c.granted ? CONSENT_LABELS[kind].yes : CONSENT_LABELS[kind].no} (decided ${formatDate(c.decidedOn)})`;
 }
 
 /** The decisions in force, their history (newest first), and recording a new decision. */
@@ -52,9 +53,9 @@ export function ConsentPanel({ athlete }: { athlete: Athlete }) {
         {history.data?.consents.map((c) => (
           <View key={c.id} style={styles.entry}>
             <Text>
-              {CONSENT_LABELS[c.kind].title}: <Text style={styles.bold}>{c.granted ? 'yes' : 'no'}</Text>, decided {c.decidedOn}
+              {CONSENT_LABELS[c.kind].title}: <Text style={styles.bold}>{c.granted ? 'yes' : 'no'}</Text>, decided {formatDate(c.decidedOn)}
             </Text>
-            <Text variant="small">Recorded {c.recordedBy ? `by ${c.recordedBy}` : 'at set-up'} on {c.recordedAt.slice(0, 10)}</Text>
+            <Text variant="small">Recorded {c.recordedBy ? `by ${c.recordedBy}` : 'at set-up'} on {formatDate(c.recordedAt)}</Text>
           </View>
         ))}
       </View>

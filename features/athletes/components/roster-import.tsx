@@ -45,8 +45,8 @@ export function RosterImport() {
       <Card style={isWide ? styles.mainCol : undefined}>
         <Text variant="heading">Check and import</Text>
         {done ? (
-          <Notice title={`${done.created ?? done.okCount} athletes imported`} testID="import-done">
-            <Text>They are in their squads now, with their consent answers recorded as of today.</Text>
+          <Notice title={importedTitle(done)} testID="import-done">
+            <Text>They are in their squads now, with their consent answers recorded as of today (a changed answer is added to the athlete's consent history).</Text>
             <Link href="/athletes" style={styles.link}>
               <Text variant="label">See the athletes →</Text>
             </Link>
@@ -66,7 +66,7 @@ export function RosterImport() {
         {report && !check.isPending && !done ? <Report report={report} /> : null}
         {report && !check.isPending && !done && report.errorCount === 0 ? (
           <Button
-            label={`Import ${report.okCount} athlete${report.okCount === 1 ? '' : 's'}`}
+            label={importLabel(report)}
             testID="import-commit"
             busy={commit.isPending}
             onPress={runImport}
@@ -80,9 +80,27 @@ export function RosterImport() {
   );
 }
 
+const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+
+function importLabel(r: ImportReport): string {
+  const updates = r.updateCount ?? 0;
+  const creates = r.createCount ?? r.okCount - updates;
+  if (updates === 0) return `Import ${plural(creates, 'athlete', 'athletes')}`;
+  if (creates === 0) return `Update ${plural(updates, 'athlete', 'athletes')}`;
+  return `Import ${creates} new, update ${updates}`;
+}
+
+function importedTitle(r: ImportReport): string {
+  const created = r.created ?? r.createCount ?? r.okCount;
+  const updated = r.updated ?? 0;
+  if (updated === 0) return `${plural(created, 'athlete', 'athletes')} imported`;
+  return `${plural(created, 'new athlete', 'new athletes')} imported, ${updated} updated`;
+}
+
 function Report({ report }: { report: ImportReport }) {
   const bad = report.rows.filter((r) => !r.ok);
-  const ready = report.rows.filter((r) => r.ok);
+  const ready = report.rows.filter((r) => r.ok && r.action !== 'update');
+  const updates = report.rows.filter((r) => r.ok && r.action === 'update');
   const total = report.rows.length;
   return (
     <View style={styles.report} testID="import-report">
@@ -98,9 +116,22 @@ function Report({ report }: { report: ImportReport }) {
       {bad.map((row) => (
         <ProblemLine key={row.line} row={row} />
       ))}
+      {updates.length > 0 ? (
+        <View style={styles.readyBox} testID="import-updates">
+          <Text variant="label">Already in the club: updated from the file ({updates.length})</Text>
+          {updates.map((row) => (
+            <View key={row.line} testID="import-update-line">
+              <Text variant="small" style={styles.updateName}>
+                Line {row.line}: {personOf(row)}
+              </Text>
+              <Text variant="small">{row.changes && row.changes.length > 0 ? row.changes.join(' · ') : 'Nothing changes.'}</Text>
+            </View>
+          ))}
+        </View>
+      ) : null}
       {ready.length > 0 ? (
         <View style={styles.readyBox}>
-          <Text variant="label">Ready ({ready.length})</Text>
+          <Text variant="label">New ({ready.length})</Text>
           {ready.slice(0, READY_SHOWN).map((row) => (
             <Text key={row.line} variant="small" testID="import-ready-line">
               Line {row.line}: {personOf(row)}
@@ -154,7 +185,10 @@ function FileFormat() {
         <Column name="photo_consent, email_summaries_consent" text="yes or no (y/n also work). Recorded as decided today." />
         <Column name="guardian_email" text="Optional: the e-mail of a parent account already in the club, to link." />
       </View>
-      <Text variant="small">A child already in the club (same name and date of birth), or listed twice, is pointed out and not imported.</Text>
+      <Text variant="small">
+        A child already in the club (same name and date of birth) is updated from the line: the report lists what changes
+        before anything is saved. A child listed twice, or archived, is pointed out and not imported.
+      </Text>
     </Card>
   );
 }
@@ -192,6 +226,7 @@ const styles = StyleSheet.create({
   columnName: { fontFamily: 'monospace', fontSize: 14, color: colors.pineDark },
   report: { gap: space.md },
   readyBox: { gap: space.xs, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.sm },
+  updateName: { fontFamily: fonts.bold },
   problem: { gap: space.xs, padding: space.md, borderRadius: radius.md, borderWidth: 2, borderColor: colors.brick, backgroundColor: colors.brickSoft },
   problemText: { fontFamily: fonts.regular, fontSize: 16, lineHeight: 22, color: colors.ink },
   problemField: { fontFamily: fonts.bold },

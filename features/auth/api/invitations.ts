@@ -3,7 +3,8 @@ import { api } from '@/features/api/client';
 import type { AcceptInvitationInput, RequestResetInput, ResetPasswordInput } from '@/features/auth/schemas';
 import { authKeys } from './keys';
 
-export type InvitationView = { email: string; role: string; clubName: string; hasAccount: boolean };
+/** `children`: whom a parent's invitation links when accepted (names). */
+export type InvitationView = { email: string; role: string; clubName: string; hasAccount: boolean; children: string[] };
 
 export const invitationQueryOptions = (token: string) =>
   queryOptions({

@@ -80,7 +80,7 @@ export function AcceptInvitationForm({ token }: { token: string }) {
   const accept = useAcceptInvitationMutation();
   if (invitation.isPending) return <Text>Checking your invitation…</Text>;
   if (invitation.error) return <Notice tone="error">{invitation.error.message}</Notice>;
-  const { email, clubName, role, hasAccount } = invitation.data;
+  const { email, clubName, role, hasAccount, children = [] } = invitation.data;
   return (
     <Formik
       initialValues={{ token, displayName: hasAccount ? 'existing account' : '', password: '' }}
@@ -97,7 +97,9 @@ export function AcceptInvitationForm({ token }: { token: string }) {
       {({ handleChange, handleBlur, handleSubmit, values, errors, touched, isSubmitting }) => (
         <View style={styles.form}>
           <Notice>
-            {`${clubName} invites ${email} to join as ${ROLE_LABELS[role as RoleValue] ?? role}.`}
+            {children.length > 0
+              ? `${clubName} invites ${email} to follow ${children.join(' and ')} as their parent or guardian.`
+              : `${clubName} invites ${email} to join as ${ROLE_LABELS[role as RoleValue] ?? role}.`}
           </Notice>
           {accept.error && !(accept.error instanceof ApiError && accept.error.fields) ? <Notice tone="error">{accept.error.message}</Notice> : null}
           {hasAccount ? null : (

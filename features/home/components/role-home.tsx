@@ -56,6 +56,17 @@ function ParentChildren() {
   const { isTabletUp } = useBreakpoints();
   if (athletes.error) return <Notice tone="error">{athletes.error.message}</Notice>;
   if (athletes.isPending) return <Text>Loading…</Text>;
+  if (athletes.data.athletes.length === 0) {
+    return (
+      <Notice title="No child is linked to your account yet" testID="parent-no-child">
+        <Text>
+          Your account is ready, but the club has not linked it to your child yet. Ask the club's admin or your child's
+          coach to link you: they open your child's page in Squadline and add you under "Parents and guardians", using
+          the e-mail address you signed in with. Your child then appears here.
+        </Text>
+      </Notice>
+    );
+  }
   return (
     <View style={styles.wrap}>
       <View style={[styles.wrap, isTabletUp && styles.row]}>

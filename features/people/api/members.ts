@@ -3,7 +3,8 @@ import { api } from '@/features/api/client';
 import type { InviteInput, RoleValue } from '@/features/auth/schemas';
 
 export type Member = { userId: string; displayName: string; email: string; role: RoleValue };
-export type PendingInvite = { email: string; role: RoleValue; expiresAt: string };
+/** `children`: whom a parent's invitation links when accepted (names). */
+export type PendingInvite = { email: string; role: RoleValue; expiresAt: string; children: string[] };
 
 export const peopleKeys = { members: (clubId: string) => ['people', clubId, 'members'] as const };
 export const MEMBERS_STALE_MS = 30 * 1000;

@@ -1,7 +1,9 @@
 import { Formik } from 'formik';
+import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
+import { useAthletesQuery } from '@/features/athletes/api/get-athletes';
 import { ApiError, fieldErrorsOf } from '@/features/api/client';
-import { inviteSchema, ROLE_LABELS, ROLE_VALUES, type InviteInput } from '@/features/auth/schemas';
+import { inviteSchema, MAX_INVITED_CHILDREN, ROLE_LABELS, ROLE_VALUES, type InviteInput } from '@/features/auth/schemas';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
@@ -33,9 +35,12 @@ export function PeoplePanel() {
           <>
             <Text variant="heading">Invited, not joined yet</Text>
             {members.data.pending.map((p) => (
-              <View key={p.email} style={styles.row}>
+              <View key={p.email} style={styles.row} testID="pending-invite">
                 <Text variant="label">{p.email}</Text>
-                <Text variant="small">{ROLE_LABELS[p.role]}</Text>
+                <Text variant="small">
+                  {ROLE_LABELS[p.role]}
+                  {p.children.length > 0 ? ` of ${p.children.join(', ')}` : ''}
+                </Text>
               </View>
             ))}
           </>
@@ -55,7 +60,7 @@ function InviteForm({ clubId }: { clubId: string }) {
   const invite = useInviteMutation(clubId);
   return (
     <Formik<InviteInput>
-      initialValues={{ email: '', role: 'tester' }}
+      initialValues={{ email: '', role: 'tester', athleteIds: [] }}
       validationSchema={inviteSchema}
       onSubmit={async (values, helpers) => {
         try {
@@ -79,7 +84,10 @@ function InviteForm({ clubId }: { clubId: string }) {
                 key={r}
                 accessibilityRole="radio"
                 accessibilityState={{ checked: values.role === r }}
-                onPress={() => setFieldValue('role', r)}
+                onPress={() => {
+                  setFieldValue('role', r);
+                  if (r !== 'parent') setFieldValue('athleteIds', []);
+                }}
                 style={[styles.choice, values.role === r && styles.choiceOn]}
               >
                 <Text style={values.role === r ? styles.choiceTextOn : undefined}>{ROLE_LABELS[r]}</Text>
@@ -87,10 +95,55 @@ function InviteForm({ clubId }: { clubId: string }) {
             ))}
           </View>
           {errors.role ? <Text style={{ color: colors.brick }}>{errors.role}</Text> : null}
+          {values.role === 'parent' ? (
+            <ChildPicker
+              selected={values.athleteIds}
+              onChange={(ids) => setFieldValue('athleteIds', ids)}
+              error={typeof errors.athleteIds === 'string' ? errors.athleteIds : undefined}
+            />
+          ) : null}
           <Button label="Send invitation" testID="invite-submit" busy={isSubmitting} onPress={() => handleSubmit()} />
         </View>
       )}
     </Formik>
+  );
+}
+
+const CHILDREN_SHOWN = 8;
+
+/** Which children a parent's invitation links: a name filter over the club's roster, ticked names on top. */
+function ChildPicker({ selected, onChange, error }: { selected: string[]; onChange(ids: string[]): void; error?: string }) {
+  const athletes = useAthletesQuery();
+  const [filter, setFilter] = useState('');
+  const all = athletes.data?.athletes ?? [];
+  const words = filter.trim().toLowerCase();
+  const chosen = all.filter((a) => selected.includes(a.id));
+  const matches = words
+    ? all.filter((a) => !selected.includes(a.id) && `${a.firstName} ${a.lastName}`.toLowerCase().includes(words)).slice(0, CHILDREN_SHOWN)
+    : [];
+  const toggle = (id: string) => {
+    onChange(selected.includes(id) ? selected.filter((x) => x !== id) : [...selected, id]);
+    // Picked: the list of matches closes, ready for a brother or sister's name.
+    if (!selected.includes(id)) setFilter('');
+  };
+  return (
+    <View style={styles.form} testID="invite-children">
+      <Text variant="label">Their children</Text>
+      <Text variant="small">{`The invitation names them, and links them to the parent's account when it is accepted (at most ${MAX_INVITED_CHILDREN}).`}</Text>
+      {chosen.map((a) => (
+        <Pressable key={a.id} accessibilityRole="checkbox" aria-checked onPress={() => toggle(a.id)} style={[styles.choice, styles.choiceOn]} testID={`invite-child-${a.id}`}>
+          <Text style={styles.choiceTextOn}>{`✓ ${a.firstName} ${a.lastName}`}</Text>
+        </Pressable>
+      ))}
+      <TextField label="Find a child by name" testID="invite-child-filter" value={filter} onChangeText={setFilter} />
+      {matches.map((a) => (
+        <Pressable key={a.id} accessibilityRole="checkbox" aria-checked={false} onPress={() => toggle(a.id)} style={styles.choice} testID={`invite-child-${a.id}`}>
+          <Text>{`${a.firstName} ${a.lastName}${a.squadName ? ` · ${a.squadName}` : ''}`}</Text>
+        </Pressable>
+      ))}
+      {words && matches.length === 0 ? <Text variant="small">No child of the club matches.</Text> : null}
+      {error ? <Text style={{ color: colors.brick }}>{error}</Text> : null}
+    </View>
   );
 }
 

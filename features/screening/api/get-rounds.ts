@@ -31,7 +31,12 @@ export function useClubRoundsQuery() {
   return { squads, rounds, bySquad, isPending: squads.isPending || rounds.isPending, error: squads.error ?? rounds.error };
 }
 
-/** A round is open while some of its athletes are not submitted yet. */
+/** A round is open while it is not closed and some of its athletes are not submitted yet. */
 export function isOpenRound(round: RoundSummary): boolean {
-  return round.counts.not_started + round.counts.in_progress > 0;
+  return !round.closedAt && round.counts.not_started + round.counts.in_progress > 0;
+}
+
+/** Nothing done yet in the round: the home page offers to start it rather than to continue. */
+export function isUntouchedRound(round: RoundSummary): boolean {
+  return round.counts.in_progress + round.counts.submitted === 0;
 }

@@ -11,6 +11,7 @@ import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { assessmentHref } from './round-screen';
 import { SeverityTag, StatusTag } from './status-tag';
+import { formatDate } from '@/features/ui/format-date';
 
 type FlagGroup = { key: string; flag: Flag; sides: Set<string>; count: number };
 
@@ -50,7 +51,7 @@ function AssessmentList({ athleteId, screens }: { athleteId: string; screens: bo
   const query = useAthleteAssessmentsQuery(athleteId);
   return (
     <Card testID="athlete-assessments">
-      <Text variant="heading" accessibilityRole="header">
+      <Text variant="heading" accessibilityRole="header" aria-level={2}>
         Screenings
       </Text>
       {query.isPending ? <Text>Loading screenings…</Text> : null}
@@ -66,7 +67,7 @@ function AssessmentList({ athleteId, screens }: { athleteId: string; screens: bo
                 <Text variant="label" style={styles.title}>
                   {a.roundName}
                 </Text>
-                <Text variant="small">{a.screenedOn}</Text>
+                <Text variant="small">{formatDate(a.screenedOn)}</Text>
               </View>
               <StatusTag status={a.status} />
               {a.result ? (

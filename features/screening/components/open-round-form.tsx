@@ -9,6 +9,7 @@ import { todayIsoLocal } from '@/features/screening/labels';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
+import { DateField } from '@/features/ui/components/date-field';
 import { TextField } from '@/features/ui/components/text-field';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 
@@ -74,14 +75,13 @@ export function OpenRoundForm({ squads, initialSquadId }: { squads: SquadSummary
             onBlur={handleBlur('name')}
             error={touched.name && errors.name}
           />
-          <TextField
+          <DateField
             label="Screening date"
             testID="round-date"
-            hint="Year-month-day, for example 2026-09-14."
+            hint="The day the squad is screened."
             value={values.screenedOn}
-            onChangeText={handleChange('screenedOn')}
-            onBlur={handleBlur('screenedOn')}
-            inputMode="numeric"
+            onChange={handleChange('screenedOn')}
+            onBlur={() => handleBlur('screenedOn')({ target: { name: 'screenedOn' } })}
             error={touched.screenedOn && errors.screenedOn}
           />
           <Button label="Open the round" testID="open-round-submit" busy={isSubmitting} onPress={() => handleSubmit()} />

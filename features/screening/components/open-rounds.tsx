@@ -1,12 +1,13 @@
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
-import { isOpenRound, useClubRoundsQuery } from '@/features/screening/api/get-rounds';
+import { isOpenRound, isUntouchedRound, useClubRoundsQuery } from '@/features/screening/api/get-rounds';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { RoundProgress } from './round-progress';
+import { formatDate } from '@/features/ui/format-date';
 
 const SHOWN_PER_SQUAD = 2;
 
@@ -35,11 +36,11 @@ export function OpenRounds() {
               open.slice(0, SHOWN_PER_SQUAD).map((r) => (
                 <View key={r.id} style={styles.round}>
                   <Text variant="label">
-                    {r.name} · {r.screenedOn}
+                    {r.name} · {formatDate(r.screenedOn)}
                   </Text>
                   <RoundProgress round={r} />
                   <Link href={`/screening/rounds/${r.id}`} style={styles.primary} testID={`continue-round-${r.id}`}>
-                    <Text style={styles.primaryText}>Continue screening</Text>
+                    <Text style={styles.primaryText}>{isUntouchedRound(r) ? 'Start screening' : 'Continue screening'}</Text>
                   </Link>
                 </View>
               ))

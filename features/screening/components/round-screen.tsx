@@ -1,16 +1,22 @@
 import { Link } from 'expo-router';
+import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { useSetRoundClosedMutation } from '@/features/screening/api/close-round';
 import { useRoundQuery } from '@/features/screening/api/get-round';
 import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
-import type { RoundAthlete } from '@/features/screening/contract';
+import type { RoundAthlete, RoundAthleteFlag } from '@/features/screening/contract';
+import { messageOf } from '@/features/api/client';
+import { Button } from '@/features/ui/components/button';
+import { usePageTitle } from '@/features/ui/page-title';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { RoundProgress } from './round-progress';
-import { PlainTag, StatusTag } from './status-tag';
+import { PlainTag, SeverityTag, StatusTag } from './status-tag';
+import { formatDate } from '@/features/ui/format-date';
 
 const byName = (a: RoundAthlete, b: RoundAthlete) =>
   a.lastName.localeCompare(b.lastName) || a.firstName.localeCompare(b.firstName);
@@ -22,14 +28,69 @@ export function assessmentHref(a: Pick<RoundAthlete, 'assessmentId' | 'status'>,
     : `/screening/assessments/${a.assessmentId}`;
 }
 
+/** An athlete's flags at a glance: how many of each severity, then their names, most severe first. */
+function AthleteFlags({ flags, testID }: { flags: RoundAthleteFlag[]; testID: string }) {
+  if (flags.length === 0) return <PlainTag tone="info" label="No flags" />;
+  const concern = flags.filter((f) => f.severity === 'concern');
+  const watch = flags.filter((f) => f.severity === 'watch');
+  const names = flags.map((f) => (f.side === 'left' || f.side === 'right' ? `${f.title} (${f.side})` : f.side === 'both' ? `${f.title} (both sides)` : f.title));
+  const shown = [...new Set(names)];
+  return (
+    <View style={styles.flags} testID={testID}>
+      <View style={styles.tags}>
+        {concern.length > 0 ? <SeverityTag severity="concern" count={concern.length} /> : null}
+        {watch.length > 0 ? <SeverityTag severity="watch" count={watch.length} /> : null}
+      </View>
+      <Text variant="small" numberOfLines={2}>
+        {shown.slice(0, 3).join(' · ')}
+        {shown.length > 3 ? ` · and ${shown.length - 3} more` : ''}
+      </Text>
+    </View>
+  );
+}
+
+/** Close (the roles that screen) or reopen (the head coach). */
+function RoundClosing({ id, closed }: { id: string; closed: boolean }) {
+  const { role } = useActiveClub().membership;
+  const mutation = useSetRoundClosedMutation(id);
+  const [confirming, setConfirming] = useState(false);
+  if (closed && role !== 'head_coach') return null;
+  if (!closed && !canScreen(role)) return null;
+  if (!closed && !confirming) {
+    return <Button tone="secondary" label="Close this round" testID="round-close" onPress={() => setConfirming(true)} style={styles.closeButton} />;
+  }
+  return (
+    <View style={styles.closing}>
+      {!closed ? (
+        <Text>Close the round? Its screens can then be read but not changed, until a head coach reopens it.</Text>
+      ) : null}
+      <View style={styles.closingButtons}>
+        <Button
+          tone={closed ? 'secondary' : 'danger'}
+          label={closed ? 'Reopen this round' : 'Yes, close it'}
+          testID={closed ? 'round-reopen' : 'round-close-confirm'}
+          busy={mutation.isPending}
+          onPress={() => mutation.mutate(!closed, { onSuccess: () => setConfirming(false) })}
+        />
+        {!closed ? <Button tone="quiet" label="Keep it open" onPress={() => setConfirming(false)} /> : null}
+      </View>
+      {mutation.error ? <Notice tone="error">{messageOf(mutation.error)}</Notice> : null}
+    </View>
+  );
+}
+
 /** One round: its athletes with their progress, big rows to tap, and the next athlete to screen. */
 export function RoundScreen({ id }: { id: string }) {
   const round = useRoundQuery(id);
   const { isTabletUp } = useBreakpoints();
-  const screens = canScreen(useActiveClub().membership.role);
+  const screensInClub = canScreen(useActiveClub().membership.role);
+  usePageTitle(round.data ? round.data.round.name : 'Round');
   if (round.isPending) return <Text>Loading the round…</Text>;
   if (round.error) return <Notice tone="error">{round.error.message}</Notice>;
   const { round: r, athletes } = round.data;
+  const closed = r.closedAt !== null;
+  // A closed round is read: every row opens the result.
+  const screens = screensInClub && !closed;
   const sorted = athletes.slice().sort(byName);
   const next = screens ? (sorted.find((a) => a.status === 'in_progress') ?? sorted.find((a) => a.status === 'not_started')) : undefined;
   return (
@@ -41,14 +102,26 @@ export function RoundScreen({ id }: { id: string }) {
       </Link>
       <View style={styles.head}>
         <Text variant="small">
-          {r.squadName} · {r.screenedOn}
+          {r.squadName} · {formatDate(r.screenedOn)}
         </Text>
         <Text variant="title" accessibilityRole="header">
           {r.name}
         </Text>
         <RoundProgress round={r} />
       </View>
-      {next ? (
+      {closed ? (
+        <Notice title="This round is closed" testID="round-closed">
+          {`Closed on ${formatDate(r.closedAt!)}${r.closedByName ? ` by ${r.closedByName}` : ''}. Its screens can be read; a head coach can reopen it.`}
+        </Notice>
+      ) : null}
+      {screensInClub ? (
+        <Link href={`/measuring?roundId=${r.id}`} style={styles.back} testID="round-measure">
+          <Text variant="label" style={styles.backText}>
+            Place the points of this round's photos →
+          </Text>
+        </Link>
+      ) : null}
+      {closed ? null : next ? (
         <Link href={assessmentHref(next)} style={styles.next} testID="screen-next">
           <View style={styles.nextInner}>
             <Text style={styles.nextLabel}>{next.status === 'in_progress' ? 'Continue screening' : 'Screen next'}</Text>
@@ -57,7 +130,7 @@ export function RoundScreen({ id }: { id: string }) {
             </Text>
           </View>
         </Link>
-      ) : screens || round.data.round.counts.submitted === athletes.length ? (
+      ) : round.data.round.counts.submitted === athletes.length || screens ? (
         <Notice title="Everyone is screened">Every athlete of this round has been submitted.</Notice>
       ) : null}
       <Card style={styles.list}>
@@ -78,11 +151,9 @@ export function RoundScreen({ id }: { id: string }) {
                   </Text>
                   <View style={styles.tags}>
                     <StatusTag status={a.status} />
-                    {a.status === 'submitted' && a.flagCount !== null ? (
-                      <PlainTag tone="info" label={a.flagCount === 0 ? 'No flags' : `${a.flagCount} ${a.flagCount === 1 ? 'flag' : 'flags'}`} />
-                    ) : null}
                     {!a.photoConsent ? <PlainTag label="No photo consent" /> : null}
                   </View>
+                  {a.status === 'submitted' ? <AthleteFlags flags={a.flags} testID={`round-flags-${a.athleteId}`} /> : null}
                 </View>
                 <Text style={styles.chevron}>›</Text>
               </View>
@@ -90,6 +161,7 @@ export function RoundScreen({ id }: { id: string }) {
           ))}
         </View>
       </Card>
+      <RoundClosing id={r.id} closed={closed} />
     </View>
   );
 }
@@ -111,5 +183,9 @@ const styles = StyleSheet.create({
   rowMain: { flex: 1, gap: space.xs },
   name: { fontSize: 18 },
   tags: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  flags: { gap: 2 },
+  closing: { gap: space.sm },
+  closeButton: { alignSelf: 'flex-start' },
+  closingButtons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   chevron: { fontFamily: fonts.bold, fontSize: 28, color: colors.inkMuted },
 });

@@ -13,6 +13,7 @@ import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { OpenRoundForm } from './open-round-form';
 import { RoundProgress } from './round-progress';
 import { PlainTag } from './status-tag';
+import { formatDate } from '@/features/ui/format-date';
 
 /** The club's squads with their screening rounds, and the form to open a new round. */
 export function ScreeningHome() {
@@ -25,7 +26,7 @@ export function ScreeningHome() {
   const form =
     canOpen && squads.data ? (
       <Card>
-        <Text variant="heading" accessibilityRole="header">
+        <Text variant="heading" accessibilityRole="header" aria-level={2}>
           Open a round
         </Text>
         <OpenRoundForm squads={squads.data.squads} />
@@ -66,9 +67,9 @@ export function ScreeningHome() {
                         <Text variant="label" style={styles.roundName}>
                           {r.name}
                         </Text>
-                        {isOpenRound(r) ? <PlainTag label="Open" tone="info" /> : <PlainTag label="Complete" tone="info" />}
+                        {r.closedAt ? <PlainTag label="Closed" /> : isOpenRound(r) ? <PlainTag label="Open" tone="info" /> : <PlainTag label="Complete" tone="info" />}
                       </View>
-                      <Text variant="small">{r.screenedOn}</Text>
+                      <Text variant="small">{formatDate(r.screenedOn)}</Text>
                       <RoundProgress round={r} />
                     </View>
                   </Link>

@@ -18,11 +18,11 @@ export function StatusTag({ status }: { status: AssessmentStatus }) {
   );
 }
 
-export function SeverityTag({ severity }: { severity: Severity }) {
+export function SeverityTag({ severity, count }: { severity: Severity; count?: number }) {
   return (
     <View style={[styles.tag, severity === 'concern' ? styles.concern : styles.watch]}>
       <Text style={[styles.text, styles.textOnDark]}>
-        {severity === 'concern' ? '▲▲' : '▲'} {SEVERITY_LABELS[severity]}
+        {severity === 'concern' ? '▲▲' : '▲'} {count !== undefined ? `${count} ` : ''}{SEVERITY_LABELS[severity]}
       </Text>
     </View>
   );

@@ -85,6 +85,22 @@ describe('DraftStore', () => {
     expect(store.getSnapshot().status.kind).toBe('saved');
   });
 
+  it('a closed round (409 round_closed) is a refusal, not a conflict: nothing is merged, the edits stay', async () => {
+    const save = vi.fn(async () => {
+      throw new ApiError(409, 'round_closed', 'This round is closed.');
+    });
+    const serverDraftAfterConflict = vi.fn(async () => ({ draft: draft('server'), draftVersion: 9 }));
+    const { store, storage } = makeStore({ save, serverDraftAfterConflict });
+    store.init({ draft: draft(''), draftVersion: 2 });
+    store.update(() => draft('late edit'));
+    await vi.advanceTimersByTimeAsync(SAVE_DEBOUNCE_MS);
+    await vi.advanceTimersByTimeAsync(60_000);
+    expect(save).toHaveBeenCalledTimes(1);
+    expect(serverDraftAfterConflict).not.toHaveBeenCalled();
+    expect(store.getSnapshot().status).toMatchObject({ kind: 'refused', message: 'This round is closed.' });
+    expect(storage.read('a1')?.draft).toEqual(draft('late edit'));
+  });
+
   it('resumes a copy left on the phone (the page was closed before the save)', async () => {
     const storage = memoryStorage();
     storage.write('a1', { base: draft(''), baseVersion: 4, draft: draft('typed offline'), savedAt: '' });

@@ -197,7 +197,8 @@ export class DraftStore {
       }
     } catch (e) {
       const error = e instanceof ApiError ? e : new ApiError(0, 'offline', e instanceof Error ? e.message : String(e));
-      if (error.status === 409) {
+      // A closed round is a 409 too, but nothing newer to merge: it is refused like any other refusal.
+      if (error.status === 409 && error.code !== 'round_closed') {
         await this.mergeConflict(error);
         return;
       }

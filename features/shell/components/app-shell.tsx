@@ -23,7 +23,9 @@ export function AppShell({ children }: { children: ReactNode }) {
           <View style={styles.grow} />
           <AccountBox />
         </View>
-        <View style={styles.main}>{children}</View>
+        <View style={styles.main} role="main">
+          {children}
+        </View>
       </View>
     );
   }
@@ -47,7 +49,9 @@ export function AppShell({ children }: { children: ReactNode }) {
           <AccountBox />
         </View>
       ) : (
-        <View style={styles.main}>{children}</View>
+        <View style={styles.main} role="main">
+          {children}
+        </View>
       )}
     </View>
   );

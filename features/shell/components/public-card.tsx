@@ -8,12 +8,12 @@ import { colors, fonts, space } from '@/features/ui/theme';
 /** The frame of the signed-out screens: the wordmark, then one card. */
 export function PublicCard({ title, subtitle, children }: { title: string; subtitle?: string; children: ReactNode }) {
   return (
-    <Page narrow contentContainerStyle={styles.page}>
+    <Page narrow title={title} contentContainerStyle={styles.page}>
       <View style={styles.brand}>
         <View style={styles.mark} />
         <Text style={styles.word}>Squadline</Text>
       </View>
-      <Card>
+      <Card role="main">
         <Text variant="title" accessibilityRole="header">
           {title}
         </Text>

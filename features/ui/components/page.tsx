@@ -1,10 +1,15 @@
 import { ScrollView, StyleSheet, View, type ScrollViewProps } from 'react-native';
 import { CONTENT_MAX_WIDTH, useBreakpoints } from '../breakpoints';
+import { usePageTitle } from '../page-title';
 import { colors, space } from '../theme';
 
-/** A scrolling page whose content is centred and capped in width on wide screens. */
-export function Page({ children, narrow = false, contentContainerStyle, ...rest }: ScrollViewProps & { narrow?: boolean }) {
+/**
+ * A scrolling page whose content is centred and capped in width on wide screens. `title` names the
+ * browser tab; screens whose title comes from data (a round, an athlete) set it with usePageTitle.
+ */
+export function Page({ children, narrow = false, title, contentContainerStyle, ...rest }: ScrollViewProps & { narrow?: boolean; title?: string }) {
   const { isTabletUp } = useBreakpoints();
+  usePageTitle(title);
   return (
     <ScrollView
       {...rest}

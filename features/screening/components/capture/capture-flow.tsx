@@ -11,6 +11,7 @@ import { useAssessmentDraft } from '@/features/screening/hooks/use-assessment-dr
 import { useUnfinishedUploads } from '@/features/screening/hooks/use-upload';
 import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
+import { usePageTitle } from '@/features/ui/page-title';
 import { CONTENT_MAX_WIDTH, useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
@@ -53,6 +54,8 @@ function CaptureLoader({ id }: { id: string }) {
   const draftState = useAssessmentDraft(query.data, id);
   if (query.error && !draftState.ready) return <Centered><Notice tone="error">{query.error.message}</Notice></Centered>;
   if (!query.data || !draftState.ready) return <Centered><Text>Loading the assessment…</Text></Centered>;
+  // A closed round's screens are read, not changed: straight to the result (or its absence).
+  if (query.data.roundClosedAt) return <Redirect href={`/screening/assessments/${id}/result`} />;
   return <Capture detail={query.data} draftState={draftState} />;
 }
 
@@ -76,6 +79,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
   const step = STEPS[stepIndex] ?? 'body';
   const task = step !== 'body' && step !== 'review' ? getTask(step as TaskId) : null;
   const athleteName = `${detail.athlete.firstName} ${detail.athlete.lastName}`;
+  usePageTitle(`Screening ${athleteName}`);
 
   useEffect(() => {
     scroll.current?.scrollTo({ y: 0, animated: false });

@@ -1,5 +1,5 @@
-import { useState } from 'react';
-import { Image, StyleSheet, View } from 'react-native';
+import { useEffect, useRef, useState } from 'react';
+import { Image, Platform, StyleSheet, View } from 'react-native';
 import type { PhotoView } from '@/features/screening/contract';
 import type { TaskId, ViewSpec } from '@/features/screening/engine';
 import { useUploadItem } from '@/features/screening/hooks/use-upload';
@@ -21,18 +21,62 @@ type Props = {
   placed: number;
   onUploaded(photo: PhotoView): void;
   onPlaceLandmarks(): void;
+  /** The previous slot of the task was just filled: this one opens its camera by itself (burst). */
+  armed?: boolean;
+  /** A photo was picked for this slot (it may still be uploading). */
+  onPicked?(): void;
 };
+
+/**
+ * Whether the camera may be opened without a new tap. Native pickers may; a browser opens a file
+ * chooser only while the tap that started the previous photo still counts as the user's gesture.
+ */
+function mayOpenByItself(): boolean {
+  if (Platform.OS !== 'web') return true;
+  const activation = (globalThis.navigator as (Navigator & { userActivation?: { isActive: boolean } }) | undefined)?.userActivation;
+  return activation?.isActive === true;
+}
 
 const VIEW_WORD = { front: 'Front', side: 'Side' } as const;
 
 /** One photo of a task: take or choose it, see it upload, retry, then place its landmarks. */
-export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploaded, onPlaceLandmarks }: Props) {
+export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploaded, onPlaceLandmarks, armed = false, onPicked }: Props) {
   const slot = slotOf(taskId, spec.view);
   const item = useUploadItem(assessmentId, slot);
   const [preparing, setPreparing] = useState(false);
   const [pickError, setPickError] = useState<string | null>(null);
+  const root = useRef<View>(null);
   const title = `${VIEW_WORD[spec.view]} photo${spec.required ? '' : ' (optional)'}`;
   const testID = `photo-${spec.view}`;
+
+  const choose = async (source: 'camera' | 'library') => {
+    setPickError(null);
+    try {
+      const picked = await pickPhoto(source);
+      if (!picked) return;
+      setPreparing(true);
+      onPicked?.();
+      const scaled = await scalePhoto(picked);
+      setPreparing(false);
+      void uploadQueue.start({ assessmentId, taskId, view: spec.view, ...scaled }, onUploaded);
+    } catch (e) {
+      setPreparing(false);
+      setPickError(e instanceof Error ? e.message : String(e));
+    }
+  };
+
+  // Burst: the next empty slot opens the camera by itself when it may, and otherwise comes into view.
+  const empty = !photo && !item;
+  useEffect(() => {
+    if (!armed || !empty) return;
+    if (mayOpenByItself()) {
+      void choose('camera');
+      return;
+    }
+    const node = root.current as unknown as { scrollIntoView?: (o: object) => void } | null;
+    node?.scrollIntoView?.({ block: 'center', behavior: 'smooth' });
+    // Only when armed changes: a cancelled camera must not reopen.
+  }, [armed]);
 
   // The server refuses a photo without consent (a consent withdrawn since the page loaded): its message,
   // and no photo control.
@@ -44,21 +88,6 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploade
     );
   }
 
-  const choose = async (source: 'camera' | 'library') => {
-    setPickError(null);
-    try {
-      const picked = await pickPhoto(source);
-      if (!picked) return;
-      setPreparing(true);
-      const scaled = await scalePhoto(picked);
-      setPreparing(false);
-      void uploadQueue.start({ assessmentId, taskId, view: spec.view, ...scaled }, onUploaded);
-    } catch (e) {
-      setPreparing(false);
-      setPickError(e instanceof Error ? e.message : String(e));
-    }
-  };
-
   const uploading = item?.state === 'uploading';
   const failed = item?.state === 'failed';
   // A lost connection or a server hiccup is worth retrying; a refused file (too large, not a photo) is not.
@@ -66,7 +95,7 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploade
   const shown = item ? { uri: item.previewUri, w: item.width, h: item.height } : photo ? { uri: photo.thumbUrl, w: photo.width, h: photo.height } : null;
 
   return (
-    <View style={styles.slot} testID={testID}>
+    <View ref={root} style={[styles.slot, armed && empty && styles.slotArmed]} testID={testID}>
       <Text variant="label">{title}</Text>
       <Text variant="small">{spec.capture}</Text>
       {shown ? (
@@ -99,9 +128,16 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploade
       {photo && !item ? (
         <View style={styles.actions}>
           <Text variant="small" testID={`${testID}-placed`}>
-            {placed === 0 ? 'No landmarks placed yet.' : `${placed} of ${spec.landmarks.length} landmarks placed.`}
+            {placed === 0
+              ? 'No landmarks placed yet: they can wait for the "To measure" list at a desk.'
+              : `${placed} of ${spec.landmarks.length} landmarks placed.`}
           </Text>
-          <Button label={placed === 0 ? 'Place landmarks' : 'Adjust landmarks'} testID={`${testID}-landmarks`} onPress={onPlaceLandmarks} />
+          <Button
+            tone={placed === 0 ? 'quiet' : 'secondary'}
+            label={placed === 0 ? 'Place landmarks now' : 'Adjust landmarks'}
+            testID={`${testID}-landmarks`}
+            onPress={onPlaceLandmarks}
+          />
         </View>
       ) : null}
       {!uploading && !failed ? (
@@ -133,6 +169,7 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploade
 
 const styles = StyleSheet.create({
   slot: { gap: space.sm, padding: space.md, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, backgroundColor: colors.surface },
+  slotArmed: { borderWidth: 3, borderColor: colors.pine },
   preview: { width: '100%', maxHeight: 320, borderRadius: radius.sm, backgroundColor: '#222' },
   previewPending: { opacity: 0.6 },
   progress: { gap: space.xs },

@@ -25,6 +25,7 @@ function bodySummary(draft: AssessmentDraft): string {
 /** What was captured, what is missing, then submit (the button is in the bottom bar). */
 export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
   const missing: string[] = [];
+  let toMeasure = 0;
   const rows = BATTERY.map((task, i) => {
     const t = draft.tasks[task.id];
     const lines: string[] = [];
@@ -40,7 +41,8 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
         if (!detail.athlete.photoConsent) continue;
         const photo = photoFor(task.id, v.view);
         const placed = Object.values(t.landmarks?.[v.view] ?? {}).filter(Boolean).length;
-        if (photo) lines.push(`${v.view} photo, ${placed}/${v.landmarks.length} points`);
+        if (photo && placed === 0) toMeasure += 1;
+        if (photo) lines.push(placed === 0 ? `${v.view} photo, landmarks later` : `${v.view} photo, ${placed}/${v.landmarks.length} points`);
         else if (v.required) {
           lines.push(`no ${v.view} photo`);
           missing.push(`${task.title}: ${v.view} photo`);
@@ -82,6 +84,11 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
               <Text key={m}>• {m}</Text>
             ))}
           </View>
+        </Notice>
+      ) : null}
+      {toMeasure > 0 ? (
+        <Notice title="Landmarks can wait" testID="review-to-measure">
+          {`${toMeasure === 1 ? 'One photo has' : `${toMeasure} photos have`} no landmarks yet. Submit now: the result uses what you ticked and typed. The photos wait in the "To measure" list; once their points are placed there, the result is worked out again as a new version.`}
         </Notice>
       ) : null}
       {painTasks.length > 0 ? (

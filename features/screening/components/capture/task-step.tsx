@@ -36,6 +36,13 @@ function distanceError(n: number | null): string | null {
 export function TaskStep({ task, value, onChange, detail, photos, onUploaded, onPlaceLandmarks }: Props) {
   const { isWide } = useBreakpoints();
   const [showHow, setShowHow] = useState(false);
+  // Burst: once a photo is picked, the task's next slot without a photo opens by itself.
+  const [armed, setArmed] = useState<PhotoSide | null>(null);
+  const armAfter = (view: PhotoSide) => {
+    const i = task.views.findIndex((v) => v.view === view);
+    const following = task.views.slice(i + 1).find((v) => v.required && !photos[v.view]);
+    setArmed(following?.view ?? null);
+  };
   const t: TaskDraft = value ?? { criteria: [] };
   const ticked = new Set(t.criteria);
   const skipped = t.skipped === true;
@@ -59,6 +66,8 @@ export function TaskStep({ task, value, onChange, detail, photos, onUploaded, on
             placed={Object.values(t.landmarks?.[v.view] ?? {}).filter(Boolean).length}
             onUploaded={onUploaded}
             onPlaceLandmarks={() => onPlaceLandmarks(v.view)}
+            armed={armed === v.view}
+            onPicked={() => armAfter(v.view)}
           />
         ))}
       </View>

@@ -1,5 +1,5 @@
-import { useMemo, useRef, useState } from 'react';
-import { Pressable, StyleSheet, useWindowDimensions, View, type GestureResponderEvent, type LayoutChangeEvent } from 'react-native';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { Platform, Pressable, StyleSheet, useWindowDimensions, View, type GestureResponderEvent, type LayoutChangeEvent } from 'react-native';
 import type { LandmarkSet, PhotoView } from '@/features/screening/contract';
 import { getLandmark, type LandmarkId, type Point, type Side, type TaskSpec, type View as PhotoSide } from '@/features/screening/engine';
 import { overlayFor } from '@/features/screening/overlay/overlay';
@@ -17,7 +17,23 @@ type Props = {
   value: LandmarkSet;
   racketHand?: Side;
   onChange(next: LandmarkSet): void;
+  /** Keyboard shortcuts on the web (a desk with a keyboard): N/P next/previous point, Z undo, 1-3 zoom. */
+  shortcuts?: boolean;
 };
+
+/** Keys the editor answers to when `shortcuts` is on; the desk adds its own for moving between photos. */
+export const EDITOR_SHORTCUTS: readonly { keys: string; what: string }[] = [
+  { keys: 'N', what: 'next point' },
+  { keys: 'P', what: 'previous point' },
+  { keys: 'Z or Ctrl+Z', what: 'undo' },
+  { keys: '1 2 3', what: 'zoom' },
+];
+
+/** True when a key press is meant for a text field, not for the editor. */
+function typingInField(target: EventTarget | null): boolean {
+  const el = target as { tagName?: string; isContentEditable?: boolean } | null;
+  return !!el && (el.tagName === 'INPUT' || el.tagName === 'TEXTAREA' || el.tagName === 'SELECT' || el.isContentEditable === true);
+}
 
 const ZOOMS = [1, 2, 3] as const;
 type Zoom = (typeof ZOOMS)[number];
@@ -41,7 +57,7 @@ const clamp = (v: number, min: number, max: number) => Math.min(max, Math.max(mi
  * panning for precision, undo and clear. Points are stored in the photo's pixels; the angles are the
  * engine's, live. Loaded lazily: only testers placing landmarks download it.
  */
-export default function LandmarkEditor({ task, view, photo, value, racketHand, onChange }: Props) {
+export default function LandmarkEditor({ task, view, photo, value, racketHand, onChange, shortcuts = false }: Props) {
   const { isWide } = useBreakpoints();
   const window = useWindowDimensions();
   const needed = task.views.find((v) => v.view === view)?.landmarks ?? [];
@@ -167,6 +183,32 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
 
   const activeSpec = active ? getLandmark(active) : null;
 
+  // Keyboard: the handler reads the latest state through a ref, so the listener is added once.
+  const step = (by: 1 | -1) => {
+    if (needed.length === 0) return;
+    const from = active ? needed.indexOf(active) : by === 1 ? -1 : needed.length;
+    setSelected(needed[(from + by + needed.length) % needed.length] ?? null);
+  };
+  const keyHandler = useRef<(e: KeyboardEvent) => void>(() => undefined);
+  keyHandler.current = (e: KeyboardEvent) => {
+    if (typingInField(e.target) || e.altKey) return;
+    const key = e.key.toLowerCase();
+    if (key === 'z' && !e.shiftKey) undo();
+    else if (e.ctrlKey || e.metaKey) return;
+    else if (key === 'n') step(1);
+    else if (key === 'p') step(-1);
+    else if (key === '1' || key === '2' || key === '3') setZoomAround(Number(key) as Zoom);
+    else return;
+    e.preventDefault();
+  };
+  useEffect(() => {
+    const target = globalThis as unknown as Partial<Pick<Window, 'addEventListener' | 'removeEventListener'>>;
+    if (!shortcuts || Platform.OS !== 'web' || !target.addEventListener) return;
+    const listener = (e: KeyboardEvent) => keyHandler.current(e);
+    target.addEventListener('keydown', listener);
+    return () => target.removeEventListener?.('keydown', listener);
+  }, [shortcuts]);
+
   return (
     <View style={styles.wrap} testID="landmark-editor">
       <View style={[styles.columns, isWide && styles.columnsWide]}>
@@ -248,6 +290,11 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
           <Text variant="small">
             Tap the photo to place the point named above. Drag a point to move it.{zoom > 1 ? ' Drag the photo to move around.' : ''}
           </Text>
+          {shortcuts ? (
+            <Text variant="small" testID="editor-shortcuts">
+              {`Keys: ${EDITOR_SHORTCUTS.map((k) => `${k.keys} ${k.what}`).join(' · ')}`}
+            </Text>
+          ) : null}
         </View>
         <View style={[styles.listColumn, isWide && styles.listColumnWide]}>
           <View style={styles.angles} testID="live-angles" accessibilityLiveRegion="polite">

@@ -1,0 +1,235 @@
+import { Link, Redirect } from 'expo-router';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { Platform, Pressable, StyleSheet, View } from 'react-native';
+import { messageOf } from '@/features/api/client';
+import { useMeasureQueueQuery } from '@/features/measuring/api/get-queue';
+import { useSaveLandmarksMutation } from '@/features/measuring/api/save-landmarks';
+import type { MeasureItem } from '@/features/measuring/contract';
+import { LazyLandmarkEditor } from '@/features/screening/components/landmarks/lazy-landmark-editor';
+import type { LandmarkSet } from '@/features/screening/contract';
+import { getTask } from '@/features/screening/engine';
+import { canScreen } from '@/features/screening/roles';
+import { useActiveClub } from '@/features/session/active-club';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Button } from '@/features/ui/components/button';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+
+const VIEW_WORD = { front: 'front', side: 'side' } as const;
+
+function itemTitle(i: MeasureItem): string {
+  return `${getTask(i.taskId).title}, ${VIEW_WORD[i.view]} photo`;
+}
+
+/**
+ * The desk side of a screening: every photo taken courtside whose points are not all placed yet, one
+ * after another. On a wide screen with a keyboard: N/P move between points, Z undoes, 1-3 zoom, Enter
+ * saves and opens the next photo, the arrow keys move between photos without saving.
+ */
+export function MeasuringDesk({ roundId }: { roundId?: string }) {
+  const { membership } = useActiveClub();
+  if (!canScreen(membership.role)) return <Redirect href="/" />;
+  return <Desk roundId={roundId} />;
+}
+
+function Desk({ roundId }: { roundId?: string }) {
+  const { isWide } = useBreakpoints();
+  const query = useMeasureQueueQuery({ roundId });
+  const save = useSaveLandmarksMutation();
+  const items = useMemo(() => query.data?.items ?? [], [query.data]);
+  const [currentId, setCurrentId] = useState<string | null>(null);
+  const [marks, setMarks] = useState<LandmarkSet>({});
+  const [error, setError] = useState<string | null>(null);
+  const [saved, setSaved] = useState<string | null>(null);
+  // Photos moved past in this visit (skipped, or saved with points still missing): the list goes on after them.
+  const passed = useRef(new Set<string>());
+
+  const index = Math.max(0, items.findIndex((i) => i.photo.id === currentId));
+  const current: MeasureItem | undefined = items[index];
+
+  // Start on the first photo, and keep the points in step with the photo shown.
+  useEffect(() => {
+    if (!current) return;
+    if (current.photo.id !== currentId) setCurrentId(current.photo.id);
+  }, [current, currentId]);
+  const shownId = current?.photo.id;
+  useEffect(() => {
+    setMarks(current?.landmarks ?? {});
+    setError(null);
+    // Only when another photo is shown: a refetch must not wipe points being placed.
+  }, [shownId]);
+
+  const goTo = (i: number) => {
+    const target = items[(i + items.length) % Math.max(items.length, 1)];
+    if (target) setCurrentId(target.photo.id);
+  };
+
+  const followingOf = (id: string): string | null => {
+    const at = items.findIndex((i) => i.photo.id === id);
+    const rest = [...items.slice(at + 1), ...items.slice(0, at)];
+    return rest.find((i) => !passed.current.has(i.photo.id))?.photo.id ?? null;
+  };
+
+  const saveAndNext = async () => {
+    if (!current || save.isPending) return;
+    const id = current.photo.id;
+    setError(null);
+    try {
+      if (Object.keys(marks).length > 0) {
+        const res = await save.mutateAsync({ photoId: id, landmarks: marks });
+        setSaved(
+          res.resultVersion
+            ? `Saved. ${current.athlete.firstName}'s result was worked out again (version ${res.resultVersion}).`
+            : `Saved for ${current.athlete.firstName}.`,
+        );
+      }
+      passed.current.add(id);
+      setCurrentId(followingOf(id));
+    } catch (e) {
+      setError(messageOf(e));
+    }
+  };
+
+  const skip = (by: 1 | -1) => {
+    if (!current) return;
+    passed.current.add(current.photo.id);
+    goTo(index + by);
+  };
+
+  // Desk keys: Enter saves and moves on; arrows move between photos. The editor handles its own keys.
+  const deskKeys = useRef<(e: KeyboardEvent) => void>(() => undefined);
+  deskKeys.current = (e: KeyboardEvent) => {
+    const el = e.target as { tagName?: string } | null;
+    if (el?.tagName === 'INPUT' || el?.tagName === 'TEXTAREA' || e.altKey || e.ctrlKey || e.metaKey) return;
+    if (e.key === 'Enter' && el?.tagName !== 'BUTTON' && (el as { getAttribute?: (n: string) => string | null })?.getAttribute?.('role') !== 'button') {
+      e.preventDefault();
+      void saveAndNext();
+    } else if (e.key === 'ArrowRight') {
+      e.preventDefault();
+      skip(1);
+    } else if (e.key === 'ArrowLeft') {
+      e.preventDefault();
+      skip(-1);
+    }
+  };
+  useEffect(() => {
+    const target = globalThis as unknown as Partial<Pick<Window, 'addEventListener' | 'removeEventListener'>>;
+    if (Platform.OS !== 'web' || !target.addEventListener) return;
+    const listener = (e: KeyboardEvent) => deskKeys.current(e);
+    target.addEventListener('keydown', listener);
+    return () => target.removeEventListener?.('keydown', listener);
+  }, []);
+
+  if (query.error) return <Notice tone="error">{messageOf(query.error)}</Notice>;
+  if (!query.data) return <Text>Loading the photos to measure…</Text>;
+
+  const header = (
+    <View style={styles.header}>
+      <Text variant="title" accessibilityRole="header">
+        To measure
+      </Text>
+      <Text testID="measure-count">
+        {items.length === 0
+          ? 'Every photo has its points.'
+          : `${items.length} ${items.length === 1 ? 'photo is' : 'photos are'} waiting for their points${roundId ? ' in this round' : ' across the club'}.`}
+      </Text>
+    </View>
+  );
+
+  if (!current) {
+    return (
+      <View style={styles.wrap}>
+        {header}
+        {saved ? <Notice testID="measure-saved">{saved}</Notice> : null}
+        <Notice title="Nothing left to measure" testID="measure-empty">
+          Photos taken courtside without points appear here. Once their points are placed, submitted results are worked out again.
+        </Notice>
+        <Link href="/screening" style={styles.link}>
+          <Text style={styles.linkText}>← Screening rounds</Text>
+        </Link>
+      </View>
+    );
+  }
+
+  const list = (
+    <View style={styles.list} accessibilityRole="list" testID="measure-list">
+      {items.map((i, n) => {
+        const on = i.photo.id === current.photo.id;
+        return (
+          <Pressable
+            key={i.photo.id}
+            accessibilityRole="button"
+            aria-current={on}
+            testID={`measure-item-${i.photo.id}`}
+            onPress={() => goTo(n)}
+            style={[styles.item, on && styles.itemOn]}
+          >
+            <Text variant="label">{`${i.athlete.firstName} ${i.athlete.lastName}`}</Text>
+            <Text variant="small">{`${itemTitle(i)} · ${i.placed} of ${i.needed} points`}</Text>
+          </Pressable>
+        );
+      })}
+    </View>
+  );
+
+  return (
+    <View style={styles.wrap}>
+      {header}
+      <View style={[styles.columns, isWide && styles.columnsWide]}>
+        {isWide ? <View style={styles.side}>{list}</View> : null}
+        <View style={styles.main}>
+          <View style={styles.current} testID="measure-current">
+            <Text variant="heading">{`${current.athlete.firstName} ${current.athlete.lastName}`}</Text>
+            <Text>{`${itemTitle(current)} · ${current.round.name} (${current.round.squadName})`}</Text>
+            <Text variant="small" testID="measure-position">{`Photo ${index + 1} of ${items.length}`}</Text>
+            {isWide ? <Text variant="small">Enter saves and opens the next photo · ← → move between photos without saving</Text> : null}
+          </View>
+          {saved ? <Notice testID="measure-saved">{saved}</Notice> : null}
+          {error ? (
+            <Notice tone="error" title="Not saved" testID="measure-error">
+              {`${error} The points are kept here: adjust them and save again.`}
+            </Notice>
+          ) : null}
+          <LazyLandmarkEditor
+            key={current.photo.id}
+            task={getTask(current.taskId)}
+            view={current.view}
+            photo={current.photo}
+            value={current.landmarks}
+            racketHand={current.athlete.racketHand}
+            onChange={setMarks}
+            shortcuts={isWide}
+          />
+          <View style={styles.actions}>
+            <Button
+              label={isWide ? 'Save, next photo (Enter)' : 'Save, next photo'}
+              testID="measure-save-next"
+              busy={save.isPending}
+              onPress={() => void saveAndNext()}
+              style={styles.primary}
+            />
+            <Button tone="secondary" label={isWide ? 'Skip (→)' : 'Skip'} testID="measure-skip" onPress={() => skip(1)} />
+          </View>
+        </View>
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  header: { gap: space.xs },
+  columns: { gap: space.lg },
+  columnsWide: { flexDirection: 'row', alignItems: 'flex-start' },
+  side: { width: 260, maxHeight: 760, overflow: 'scroll' as 'hidden' },
+  main: { flex: 1, gap: space.md },
+  current: { gap: 2 },
+  list: { gap: space.xs },
+  item: { minHeight: TOUCH_MIN, padding: space.sm, borderRadius: radius.md, borderWidth: 2, borderColor: colors.line, backgroundColor: colors.surface, gap: 2 },
+  itemOn: { borderColor: colors.pine, backgroundColor: colors.pineSoft },
+  actions: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
+  primary: { flexGrow: 1 },
+  link: { minHeight: TOUCH_MIN, justifyContent: 'center' },
+  linkText: { color: colors.pine },
+});

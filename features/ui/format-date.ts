@@ -1,0 +1,34 @@
+// The one way Squadline writes a date on screen: as the user's locale writes it (the browser's or the
+// phone's language), never as the stored YYYY-MM-DD. Pure: the locale can be passed for tests.
+
+const DATE_ONLY = /^\d{4}-\d{2}-\d{2}$/;
+
+/**
+ * A calendar date (`2026-09-14`) or a timestamp (`2026-09-14T08:30:00Z`) in the user's locale, for
+ * example "14 Sept 2026" (en-GB), "Sep 14, 2026" (en-US), "14.09.2026" (de-DE, numeric). A calendar date
+ * is a day, not an instant: it is shown as that day whatever the time zone. Unreadable input is returned
+ * as it is rather than hidden.
+ */
+export function formatDate(value: string, options: { locale?: string; numeric?: boolean } = {}): string {
+  const dateOnly = DATE_ONLY.test(value);
+  const d = new Date(dateOnly ? `${value}T00:00:00Z` : value);
+  if (Number.isNaN(d.getTime())) return value;
+  return new Intl.DateTimeFormat(options.locale, {
+    ...(options.numeric ? { day: '2-digit', month: '2-digit', year: 'numeric' } : { day: 'numeric', month: 'short', year: 'numeric' }),
+    ...(dateOnly ? { timeZone: 'UTC' } : {}),
+  }).format(d);
+}
+
+/** A timestamp with its time of day, in the user's locale and time zone. */
+export function formatDateTime(value: string, options: { locale?: string; timeZone?: string } = {}): string {
+  const d = new Date(value);
+  if (Number.isNaN(d.getTime())) return value;
+  return new Intl.DateTimeFormat(options.locale, {
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+    hour: '2-digit',
+    minute: '2-digit',
+    ...(options.timeZone ? { timeZone: options.timeZone } : {}),
+  }).format(d);
+}

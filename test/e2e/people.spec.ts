@@ -1,0 +1,97 @@
+import { expect, test, type Browser, type Page } from '@playwright/test';
+import { openNav, signIn } from './helpers';
+
+// Parents: an invitation that names the children it links, and a parent with no linked child told what
+// to do next. Then every main screen: one main landmark, one top-level heading, a title of its own.
+
+test.use({ actionTimeout: 30_000 });
+
+async function linkFromMailbox(page: Page, email: string): Promise<string> {
+  let link: string | undefined;
+  await expect(async () => {
+    const mail = (await (await page.request.get('/api/dev/mailbox')).json()) as { messages: { to: string[]; subject: string; text: string }[] };
+    const message = mail.messages.find((m) => m.to.includes(email));
+    link = message ? /(http\S+accept-invite\?token=\S+)/.exec(message.text)?.[1] : undefined;
+    expect(link).toBeTruthy();
+  }).toPass({ timeout: 20_000 });
+  return link!;
+}
+
+async function join(browser: Browser, page: Page, link: string, name: string) {
+  const context = await browser.newContext({ viewport: page.viewportSize()! });
+  const p2 = await context.newPage();
+  await p2.goto(new URL(link).pathname + new URL(link).search);
+  return { context, p2, joinWith: async () => {
+    await p2.getByLabel('Your name').fill(name);
+    await p2.getByLabel('Choose a password').fill('a-very-long-password');
+    await p2.getByRole('button', { name: 'Join the club' }).click();
+  } };
+}
+
+test('an invitation names the children it links; a parent without a linked child is told what to do', async ({ page, browser }, testInfo) => {
+  test.setTimeout(120_000);
+  await signIn(page, 'admin@squadline.test');
+  await expect(page.getByTestId('home-admin')).toBeVisible();
+
+  // With a child: chosen by name on the People page.
+  await openNav(page);
+  await page.getByRole('link', { name: 'People' }).click();
+  const withChild = `parent-${testInfo.project.name}-${Date.now()}@squadline.test`;
+  await page.getByTestId('invite-email').fill(withChild);
+  await page.getByRole('radio', { name: 'Parent or guardian' }).click();
+  await page.getByTestId('invite-child-filter').fill('Maya');
+  await page.getByTestId('invite-children').getByText(/Maya Okafor/).click();
+  await expect(page.getByTestId('invite-children')).toContainText('✓ Maya Okafor');
+  await page.screenshot({ path: testInfo.outputPath('invite-parent.png'), fullPage: true });
+  await page.getByTestId('invite-submit').click();
+  await expect(page.getByText('Invitation sent.')).toBeVisible();
+  await expect(page.getByTestId('pending-invite').filter({ hasText: withChild })).toContainText('Parent or guardian of Maya Okafor');
+  const link = await linkFromMailbox(page, withChild);
+  const first = await join(browser, page, link, 'Ola Parent');
+  await expect(first.p2.getByText('to follow Maya Okafor as their parent or guardian')).toBeVisible();
+  await first.joinWith();
+  await expect(first.p2.getByTestId('home-parent')).toBeVisible();
+  await expect(first.p2.getByTestId('child-card')).toHaveCount(1);
+  await expect(first.p2.getByTestId('child-card')).toContainText('Maya Okafor');
+  await first.context.close();
+
+  // Without a child: the home page says what to do next.
+  const me = (await (await page.request.get('/api/me')).json()) as { memberships: { clubId: string; clubName: string }[] };
+  const club = me.memberships.find((m) => m.clubName === 'Harbourside Shuttle Club')!;
+  const alone = `parent-alone-${testInfo.project.name}-${Date.now()}@squadline.test`;
+  expect((await page.request.post(`/api/clubs/${club.clubId}/invitations`, { data: { email: alone, role: 'parent' } })).status()).toBe(201);
+  const second = await join(browser, page, await linkFromMailbox(page, alone), 'Sam Waiting');
+  await second.joinWith();
+  await expect(second.p2.getByTestId('parent-no-child')).toContainText('Ask the club');
+  await second.p2.screenshot({ path: testInfo.outputPath('parent-no-child.png'), fullPage: true });
+  await second.context.close();
+});
+
+test('every main screen has one main landmark, one top-level heading and its own title', async ({ page }) => {
+  test.setTimeout(120_000);
+  await signIn(page, 'coach@squadline.test');
+  await expect(page.getByTestId('home-head_coach')).toBeVisible();
+  const rounds = (await (await page.request.get('/api/rounds')).json()) as { rounds: { id: string; name: string }[] };
+  const athletes = (await (await page.request.get('/api/athletes')).json()) as { athletes: { id: string; firstName: string; lastName: string }[] };
+  const pages: [string, string][] = [
+    ['/', 'Home · Squadline'],
+    ['/athletes', 'Athletes · Squadline'],
+    ['/screening', 'Screening · Squadline'],
+    ['/measuring', 'To measure · Squadline'],
+    ['/people', 'People · Squadline'],
+    ['/squads', 'Squads · Squadline'],
+    [`/screening/rounds/${rounds.rounds[0]!.id}`, `${rounds.rounds[0]!.name} · Squadline`],
+    [`/athletes/${athletes.athletes[0]!.id}`, `${athletes.athletes[0]!.firstName} ${athletes.athletes[0]!.lastName} · Squadline`],
+  ];
+  for (const [path, title] of pages) {
+    await page.goto(path);
+    await expect(page).toHaveTitle(title);
+    await expect(page.getByRole('main'), path).toHaveCount(1);
+    await expect(page.locator('h1'), path).toHaveCount(1);
+  }
+  await page.context().clearCookies();
+  await page.goto('/sign-in');
+  await expect(page).toHaveTitle(/Squadline/);
+  await expect(page.getByRole('main')).toHaveCount(1);
+  await expect(page.locator('h1')).toHaveCount(1);
+});

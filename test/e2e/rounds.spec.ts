@@ -1,0 +1,65 @@
+import { expect, test } from '@playwright/test';
+import { signIn } from './helpers';
+
+// A head coach's round: "Start" on the home page while nothing is done, the athletes' flags by severity
+// once someone is submitted, then closing the round and reopening it.
+
+test.use({ actionTimeout: 30_000 });
+
+test('a round offers to start, lists flags by severity, and can be closed and reopened by the head coach', async ({ page }, testInfo) => {
+  test.setTimeout(120_000);
+  await signIn(page, 'coach@squadline.test');
+  await expect(page.getByTestId('home-head_coach')).toBeVisible();
+  const squads = (await (await page.request.get('/api/squads')).json()) as { squads: { id: string; name: string }[] };
+  const squad = squads.squads.find((s) => s.name === 'Under-15 mixed')!;
+  // Dated after the demo's rounds, so the home page shows it among the newest.
+  const name = `Spring ${testInfo.project.name} ${Date.now()}`;
+  const created = await page.request.post('/api/rounds', { data: { squadId: squad.id, name, screenedOn: '2027-03-01' } });
+  expect(created.status()).toBe(201);
+  const round = (await created.json()) as { round: { id: string }; athletes: { assessmentId: string; athleteId: string }[] };
+
+  await page.reload();
+  await expect(page.getByTestId(`continue-round-${round.round.id}`)).toHaveText('Start screening');
+
+  // One athlete screened: a knee well inside the hip-ankle line on the right, a sideways lean on the left.
+  const a = round.athletes[0]!;
+  const draft = {
+    body: {},
+    tasks: {
+      'two-leg-squat': {
+        criteria: ['squat-right-knee-in'],
+        landmarks: {
+          front: {
+            'right-hip': { x: 400, y: 700 }, 'right-knee': { x: 460, y: 900 }, 'right-ankle': { x: 410, y: 1120 },
+            'left-hip': { x: 560, y: 700 }, 'left-knee': { x: 560, y: 900 }, 'left-ankle': { x: 560, y: 1120 },
+          },
+        },
+      },
+      'single-leg-stance-left': { criteria: ['stance-trunk-shift'] },
+    },
+  };
+  expect((await page.request.put(`/api/assessments/${a.assessmentId}`, { data: { draftVersion: 0, draft } })).ok()).toBe(true);
+  expect((await page.request.post(`/api/assessments/${a.assessmentId}/submit`)).ok()).toBe(true);
+  await page.reload();
+  await expect(page.getByTestId(`continue-round-${round.round.id}`)).toHaveText('Continue screening');
+
+  await page.goto(`/screening/rounds/${round.round.id}`);
+  await expect(page.getByRole('heading', { name })).toBeVisible();
+  const flags = page.getByTestId(`round-flags-${a.athleteId}`);
+  await expect(flags).toContainText('▲▲ 1 Concern');
+  await expect(flags).toContainText('Watch');
+  await expect(flags).toContainText('(right)');
+  await page.screenshot({ path: testInfo.outputPath('round-flags.png'), fullPage: true });
+
+  // Close it: screening stops, the rows open results; then the head coach reopens it.
+  await page.getByTestId('round-close').click();
+  await page.getByTestId('round-close-confirm').click();
+  await expect(page.getByTestId('round-closed')).toContainText('Dan Mercer');
+  await expect(page.getByTestId('screen-next')).toHaveCount(0);
+  const api = await page.request.put(`/api/assessments/${round.athletes[1]!.assessmentId}`, { data: { draftVersion: 0, draft: { body: {}, tasks: {} } } });
+  expect(api.status()).toBe(409);
+  await page.screenshot({ path: testInfo.outputPath('round-closed.png'), fullPage: true });
+  await page.getByTestId('round-reopen').click();
+  await expect(page.getByTestId('round-closed')).toHaveCount(0);
+  await expect(page.getByTestId('screen-next')).toBeVisible();
+});
