@@ -1,6 +1,6 @@
 // Plain words for statuses, severities, sides, thresholds and prescriptions. Pure.
 import type { AssessmentStatus } from './contract';
-import type { Comparison, Dose, FlagSide, LoadRule, Prescription, Severity, ThresholdRef, Unit } from './engine';
+import type { Certainty, Comparison, Dose, FlagSide, LoadRule, MaturityStage, Prescription, Severity, SourceKind, ThresholdRef, Unit } from './engine';
 
 export const STATUS_LABELS: Record<AssessmentStatus, string> = {
   not_started: 'Not started',
@@ -89,3 +89,33 @@ export function todayIsoLocal(now = new Date()): string {
   const p = (n: number) => String(n).padStart(2, '0');
   return `${now.getFullYear()}-${p(now.getMonth() + 1)}-${p(now.getDate())}`;
 }
+
+/** What kind of basis a threshold has, as the result screen says it. */
+export const SOURCE_KIND_LABELS: Record<SourceKind, string> = {
+  published: 'Published value',
+  'published-other-population': 'Published value, from another population',
+  'common-practice': 'Common practice',
+  'our-choice': "Squadline's own choice",
+  derived: 'Derived by Squadline from published values',
+};
+
+/** How sure we are of a threshold. */
+export const CERTAINTY_LABELS: Record<Certainty, string> = {
+  checked: 'checked in the source',
+  secondary: 'read in a text quoting the source',
+  'from memory': 'from memory, not checked',
+  'no source': 'no published source',
+};
+
+/** "Published value, from another population · checked in the source"; tolerates results stored before these fields. */
+export function basisText(t: Pick<ThresholdRef, 'sourceKind' | 'certainty'>): string {
+  if (!t.sourceKind) return 'Kind of source not recorded (older result)';
+  return `${SOURCE_KIND_LABELS[t.sourceKind]} · certainty: ${CERTAINTY_LABELS[t.certainty]}`;
+}
+
+export const STAGE_LABELS: Record<MaturityStage, string> = {
+  pre: 'Before the growth spurt',
+  circa: 'In the growth-spurt window',
+  post: 'After the growth spurt',
+  unknown: 'Growth stage unknown',
+};

@@ -1,6 +1,6 @@
 /**
  * Somatic maturity: years from peak height velocity (PHV) from anthropometry.
- * Coefficients are copied from /work/shared/REFERENCES.md section 1
+ * Coefficients are copied from the project's checked reference notes (maturity offset section)
  * (secondary for the coefficients, see there).
  */
 import { EngineInputError, requireFinite } from './errors';
