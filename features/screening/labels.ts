@@ -1,6 +1,6 @@
 // Plain words for statuses, severities, sides, thresholds and prescriptions. Pure.
 import type { AssessmentStatus } from './contract';
-import type { Certainty, Comparison, Dose, FlagSide, LoadRule, MaturityStage, Prescription, Severity, SourceKind, ThresholdRef, Unit } from './engine';
+import type { Certainty, Dose, FlagSide, LoadRule, MaturityStage, Prescription, Severity, SourceKind, ThresholdRef, Unit } from './engine';
 
 export const STATUS_LABELS: Record<AssessmentStatus, string> = {
   not_started: 'Not started',
@@ -35,19 +35,21 @@ export function valueText(value: number, unit: Unit): string {
   }
 }
 
-const COMPARISON_WORDS: Record<Exclude<Comparison, 'within'>, string> = {
-  'greater-than': 'more than',
-  'less-than': 'less than',
-  'at-least': 'at least',
-  'at-most': 'at most',
-};
-
-/** "Flagged at more than 13°" */
+/** "Flagged above 13°", "Flagged at 2 cm or more": never "at at least". */
 export function thresholdText(t: ThresholdRef): string {
-  if (t.comparison === 'within') {
-    return `Flagged between ${valueText(t.value, t.unit)} and ${valueText(t.upperValue ?? t.value, t.unit)}`;
+  const v = valueText(t.value, t.unit);
+  switch (t.comparison) {
+    case 'within':
+      return `Flagged between ${v} and ${valueText(t.upperValue ?? t.value, t.unit)}`;
+    case 'greater-than':
+      return `Flagged above ${v}`;
+    case 'less-than':
+      return `Flagged below ${v}`;
+    case 'at-least':
+      return `Flagged at ${v} or more`;
+    case 'at-most':
+      return `Flagged at ${v} or less`;
   }
-  return `Flagged at ${COMPARISON_WORDS[t.comparison]} ${valueText(t.value, t.unit)}`;
 }
 
 const range = (min: number, max: number) => (min === max ? String(min) : `${min}-${max}`);

@@ -59,7 +59,7 @@ function ThresholdLine({ threshold: t }: { threshold: ThresholdRef }) {
   return (
     <View style={styles.threshold} testID="flag-threshold">
       <Text variant="small" style={styles.thresholdMain}>
-        {thresholdText(t)} ({t.severity} level) · {shortSource(t.source)}
+        {thresholdText(t)} ({t.severity} level){citationsIn(t.source).length > 0 ? ` · ${shortSource(t.source)}` : ''}
       </Text>
       <Text variant="small" testID="flag-basis">
         {basisText(t)}
