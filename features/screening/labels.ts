@@ -17,8 +17,9 @@ export function sideLabel(side: FlagSide): string | null {
   return null;
 }
 
-export function valueText(value: number, unit: Unit): string {
-  const n = Number.isInteger(value) ? String(value) : value.toFixed(1);
+/** A value in words; `decimals` 2 for thresholds (18.33°), 1 for measurements (34.5°). */
+export function valueText(value: number, unit: Unit, decimals: 1 | 2 = 1): string {
+  const n = Number.isInteger(value) ? String(value) : decimals === 2 ? String(Math.round(value * 100) / 100) : value.toFixed(1);
   switch (unit) {
     case 'deg':
       return `${n}°`;
@@ -37,10 +38,10 @@ export function valueText(value: number, unit: Unit): string {
 
 /** "Flagged above 13°", "Flagged at 2 cm or more": never "at at least". */
 export function thresholdText(t: ThresholdRef): string {
-  const v = valueText(t.value, t.unit);
+  const v = valueText(t.value, t.unit, 2);
   switch (t.comparison) {
     case 'within':
-      return `Flagged between ${v} and ${valueText(t.upperValue ?? t.value, t.unit)}`;
+      return `Flagged between ${v} and ${valueText(t.upperValue ?? t.value, t.unit, 2)}`;
     case 'greater-than':
       return `Flagged above ${v}`;
     case 'less-than':

@@ -35,14 +35,22 @@ export function FlagCard({ group }: { group: FlagGroup }) {
           </View>
         ))}
       </View>
-      {group.thresholds.map((t) => (
-        <ThresholdLine key={t.rowId} threshold={t} />
+      {group.thresholds.map((t, i) => (
+        // The same population note on several thresholds of one card is said once, on the first.
+        <ThresholdLine key={t.rowId} threshold={t} showPopulation={!group.thresholds.slice(0, i).some((x) => x.populationNote === t.populationNote)} />
       ))}
       <Pressable accessibilityRole="button" aria-expanded={open} onPress={() => setOpen((o) => !o)} style={styles.more} testID="flag-sources-toggle">
         <Text style={styles.moreText}>{open ? 'Hide sources ▲' : 'Sources ▼'}</Text>
       </Pressable>
       {open ? (
         <View style={styles.sources} testID="flag-sources">
+          {group.thresholds
+            .filter((t) => t.derivation)
+            .map((t) => (
+              <Text key={t.rowId} variant="small">
+                How {thresholdText(t).replace('Flagged ', '')} is derived: {t.derivation}.
+              </Text>
+            ))}
           {references.length === 0 ? <Text variant="small">No published source: these thresholds are common practice or Squadline&apos;s own choice.</Text> : null}
           {references.map((r) => (
             <Text key={r} variant="small">
@@ -55,7 +63,7 @@ export function FlagCard({ group }: { group: FlagGroup }) {
   );
 }
 
-function ThresholdLine({ threshold: t }: { threshold: ThresholdRef }) {
+function ThresholdLine({ threshold: t, showPopulation }: { threshold: ThresholdRef; showPopulation: boolean }) {
   return (
     <View style={styles.threshold} testID="flag-threshold">
       <Text variant="small" style={styles.thresholdMain}>
@@ -64,8 +72,7 @@ function ThresholdLine({ threshold: t }: { threshold: ThresholdRef }) {
       <Text variant="small" testID="flag-basis">
         {basisText(t)}
       </Text>
-      {t.derivation ? <Text variant="small">How it is derived: {t.derivation}.</Text> : null}
-      {t.populationNote ? (
+      {t.populationNote && showPopulation ? (
         <Text variant="small" style={styles.population} testID="flag-population">
           ⚠ {t.populationNote}
         </Text>
