@@ -248,17 +248,11 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   expect(items.findIndex((t) => t.includes(roundName))).toBeLessThan(items.findIndex((t) => t.includes('Autumn check')));
 });
 
-// A child with no body measures: the result groups the flags by pattern and side (the tasks as evidence in
-// one card), says what kind of source each threshold has and how sure it is, and the plan says the growth
-// stage is unknown and applies the cautious limits. The draft goes in through the API (the capture flow is
-// covered above); screenshots of the result are kept in test-results for review.
-test('a result groups flags by pattern and side and shows the caution for an unknown growth stage', async ({ page }, testInfo) => {
-  test.setTimeout(120_000);
-  await signIn(page, 'tester@squadline.test');
-  await expect(page.getByTestId('home-tester')).toBeVisible();
+/** Opens a round for the under-13s through the API and submits one athlete's screen with no body measures. */
+async function submitWithoutBodyMeasures(page: Page, roundPrefix: string): Promise<string> {
   const rounds = (await (await page.request.get('/api/rounds')).json()) as { rounds: { squadId: string; squadName: string }[] };
   const squadId = rounds.rounds.find((r) => r.squadName.startsWith('Under-13'))!.squadId;
-  const created = await page.request.post('/api/rounds', { data: { squadId, name: `Growth unknown ${testInfo.project.name} ${Date.now()}`, screenedOn: '2026-11-30' } });
+  const created = await page.request.post('/api/rounds', { data: { squadId, name: `${roundPrefix} ${Date.now()}`, screenedOn: '2026-11-30' } });
   expect(created.status()).toBe(201);
   const round = (await created.json()) as { athletes: { assessmentId: string; photoConsent: boolean }[] };
   const id = round.athletes.find((a) => a.photoConsent)!.assessmentId;
@@ -287,6 +281,18 @@ test('a result groups flags by pattern and side and shows the caution for an unk
   expect((await page.request.put(`/api/assessments/${id}`, { data: { draftVersion: 0, draft } })).status()).toBe(200);
   expect((await page.request.post(`/api/assessments/${id}/submit`)).status()).toBe(200);
 
+  return id;
+}
+
+// A child with no body measures: the result groups the flags by pattern and side (the tasks as evidence in
+// one card), says what kind of source each threshold has and how sure it is, and the plan says the growth
+// stage is unknown and applies the cautious limits. The draft goes in through the API (the capture flow is
+// covered above); screenshots of the result are kept in test-results for review.
+test('a result groups flags by pattern and side and shows the caution for an unknown growth stage', async ({ page }, testInfo) => {
+  test.setTimeout(120_000);
+  await signIn(page, 'tester@squadline.test');
+  await expect(page.getByTestId('home-tester')).toBeVisible();
+  const id = await submitWithoutBodyMeasures(page, `Growth unknown ${testInfo.project.name}`);
   await page.goto(`/screening/assessments/${id}/result`);
   const flags = page.getByTestId('flags');
   await expect(flags).toBeVisible();
@@ -320,4 +326,29 @@ test('a result groups flags by pattern and side and shows the caution for an unk
   const firstMore = page.locator('[data-testid^="more-sets-"]').first();
   for (let i = 0; i < 4; i += 1) await firstMore.click();
   await expect(page.getByTestId('plan-editor-error')).toContainText('Only a head coach or a physiotherapist');
+});
+
+// A head coach may go past a limit, giving a reason: the plan then shows a caution and keeps it in its history.
+test('a head coach goes past a youth limit with a reason, shown as a caution on the plan', async ({ page }, testInfo) => {
+  test.setTimeout(120_000);
+  await signIn(page, 'coach@squadline.test');
+  await expect(page.getByRole('navigation').or(page.getByTestId('menu-button')).first()).toBeVisible();
+  const id = await submitWithoutBodyMeasures(page, `Override ${testInfo.project.name}`);
+  await page.goto(`/screening/assessments/${id}/result`);
+  await page.getByTestId('plan-adjust').click();
+  const first = page.locator('[data-testid^="edit-exercise-"]').first();
+  const exerciseId = (await first.getAttribute('data-testid'))!.replace('edit-exercise-', '');
+  const more = page.getByTestId(`more-sets-${exerciseId}`);
+  // Up to the youth limit of 3 sets, then one more.
+  for (let i = 0; i < 3; i += 1) await more.click();
+  await expect(page.getByTestId(`breach-${exerciseId}-sets`)).toContainText('more than the 3 allowed');
+  await page.getByTestId('plan-save').click();
+  await expect(page.getByTestId('plan-editor-error')).toContainText('Give a reason');
+  await page.getByTestId(`override-reason-${exerciseId}-sets`).fill('Physiotherapist asked for a fourth set after review');
+  await page.getByTestId('plan-save').click();
+  await expect(page.getByTestId('plan-overrides')).toContainText('Physiotherapist asked for a fourth set after review');
+  await expect(page.getByTestId('plan-overrides')).toContainText('head coach');
+  await expect(page.getByTestId('plan-history')).toContainText('1 limit passed on purpose');
+  await page.getByTestId('plan-overrides').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath(`plan-override-${testInfo.project.name}.png`) });
 });

@@ -48,7 +48,7 @@ export function FlagCard({ group }: { group: FlagGroup }) {
             .filter((t) => t.derivation)
             .map((t) => (
               <Text key={t.rowId} variant="small">
-                How {thresholdText(t).replace('Flagged ', '')} is derived: {t.derivation}.
+                How the {valueText(t.value, t.unit, 2)} threshold is derived: {t.derivation}.
               </Text>
             ))}
           {references.length === 0 ? <Text variant="small">No published source: these thresholds are common practice or Squadline&apos;s own choice.</Text> : null}
