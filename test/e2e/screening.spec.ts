@@ -249,7 +249,7 @@ test('a tester screens an athlete from a new round to the result, and it all sur
 });
 
 /** Opens a round for the under-13s through the API and submits one athlete's screen with no body measures. */
-async function submitWithoutBodyMeasures(page: Page, roundPrefix: string): Promise<string> {
+async function submitWithoutBodyMeasures(page: Page, roundPrefix: string, painReported = false): Promise<string> {
   const rounds = (await (await page.request.get('/api/rounds')).json()) as { rounds: { squadId: string; squadName: string }[] };
   const squadId = rounds.rounds.find((r) => r.squadName.startsWith('Under-13'))!.squadId;
   const created = await page.request.post('/api/rounds', { data: { squadId, name: `${roundPrefix} ${Date.now()}`, screenedOn: '2026-11-30' } });
@@ -260,7 +260,8 @@ async function submitWithoutBodyMeasures(page: Page, roundPrefix: string): Promi
     body: {},
     tasks: {
       'two-leg-squat': {
-        criteria: ['squat-right-knee-in'],
+        criteria: ['squat-right-knee-in', 'squat-not-deep'],
+        painReported,
         landmarks: {
           front: {
             'right-hip': { x: 400, y: 700 },
@@ -351,4 +352,21 @@ test('a head coach goes past a youth limit with a reason, shown as a caution on 
   await expect(page.getByTestId('plan-history')).toContainText('1 limit passed on purpose');
   await page.getByTestId('plan-overrides').scrollIntoViewIfNeeded();
   await page.screenshot({ path: testInfo.outputPath(`plan-override-${testInfo.project.name}.png`) });
+});
+
+// Pain at the screen: no loaded strength or landing work until a physiotherapist clears the athlete, and the
+// plan says what the athlete may still do.
+test('pain reported: the plan holds back loaded work and lists what the athlete may still do', async ({ page }, testInfo) => {
+  test.setTimeout(120_000);
+  await signIn(page, 'tester@squadline.test');
+  await expect(page.getByTestId('home-tester')).toBeVisible();
+  const id = await submitWithoutBodyMeasures(page, `Pain ${testInfo.project.name}`, true);
+  await page.goto(`/screening/assessments/${id}/result`);
+  const clearance = page.getByTestId('plan-clearance');
+  await expect(clearance).toContainText('No loaded strength work');
+  await expect(clearance).toContainText('may still do');
+  await expect(clearance).toContainText('Held back until then');
+  await expect(page.locator('[data-testid="exercise-split-squat-endurance"]')).toHaveCount(0);
+  await clearance.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath(`plan-pain-${testInfo.project.name}.png`) });
 });
