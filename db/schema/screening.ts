@@ -1,5 +1,5 @@
 import { boolean, date, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
-import type { AssessmentDraft } from '@/features/screening/contract';
+import type { AssessmentDraft, PlanOverrideView } from '@/features/screening/contract';
 import type { AssessmentInput, AssessmentResult, PlannedExercise } from '@/features/screening/engine';
 import { users } from './auth';
 import { athletes, squads } from './athletes';
@@ -95,6 +95,8 @@ export const planAdjustments = pgTable(
       .references(() => assessmentResults.id, { onDelete: 'cascade' }),
     exercises: jsonb('exercises').$type<PlannedExercise[]>().notNull(),
     note: text('note').notNull().default(''),
+    /** Limits passed on purpose by a head coach or physiotherapist, each with its reason. */
+    overrides: jsonb('overrides').$type<PlanOverrideView[]>().notNull().default([]),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
   },

@@ -1,7 +1,7 @@
 // The contract between the capture screens and the server for screening: request schemas (yup, used by
 // the forms and by the server's validation middleware) and response shapes. Pure: no React, no server.
 import { array, boolean, mixed, number, object, string, type InferType } from 'yup';
-import type { AssessmentResult, Flag, LandmarkId, PlannedExercise, Point, TaskId } from './engine';
+import type { AssessmentResult, Flag, LandmarkId, LimitId, PlannedExercise, Point, TaskId } from './engine';
 
 // ---------------------------------------------------------------------------------------------------
 // The tester's draft, saved to the server as they go (PUT /api/assessments/:id)
@@ -103,10 +103,21 @@ export const createRoundSchema = object({
 });
 export type CreateRoundInput = InferType<typeof createRoundSchema>;
 
+export const LIMIT_IDS: readonly LimitId[] = ['sets', 'reps', 'near-fatigue', 'load', 'per-week', 'withheld'];
+
+/** Going past one limit of one exercise: only a head coach or a physiotherapist, always with a reason. */
+export const limitOverrideSchema = object({
+  exerciseId: string().required(),
+  limit: mixed<LimitId>().oneOf([...LIMIT_IDS], 'Unknown limit.').required(),
+  reason: string().trim().min(5, 'Say why the limit is passed (at least a few words).').max(500).required('Say why the limit is passed.'),
+});
+
 export const planAdjustmentSchema = object({
   /** The full adjusted list, in order; exercises may be dropped, added from the library, or re-dosed. */
   exercises: array(mixed<PlannedExercise>().required()).min(1, 'Keep at least one exercise.').max(12).required(),
   note: string().max(1000).default(''),
+  /** One per limit passed; checked on the server against the same limits the engine applies. */
+  overrides: array(limitOverrideSchema).max(60).default([]),
 });
 export type PlanAdjustmentInput = InferType<typeof planAdjustmentSchema>;
 
@@ -156,7 +167,24 @@ export type PhotoView = {
   createdAt: string;
 };
 
-export type PlanAdjustmentView = { exercises: PlannedExercise[]; note: string; createdAt: string; createdByName: string | null };
+/** A limit passed on purpose, as kept in the plan's history. */
+export type PlanOverrideView = {
+  exerciseId: string;
+  limit: LimitId;
+  reason: string;
+  /** The limit as the checker worded it at the time. */
+  message: string;
+  /** Role of the person who passed it (head_coach or physio). */
+  role: string;
+};
+
+export type PlanAdjustmentView = {
+  exercises: PlannedExercise[];
+  note: string;
+  overrides: PlanOverrideView[];
+  createdAt: string;
+  createdByName: string | null;
+};
 
 export type ResultView = {
   id: string;
@@ -166,6 +194,8 @@ export type ResultView = {
   createdByName: string | null;
   result: AssessmentResult;
   adjustment: PlanAdjustmentView | null;
+  /** Every adjustment of this result, newest first (the first is `adjustment`). */
+  adjustmentHistory: PlanAdjustmentView[];
   /** Earlier versions of this assessment's result, newest first. */
   history: { id: string; version: number; engineVersion: string; createdAt: string }[];
 };

@@ -1,6 +1,6 @@
 // Plain words for statuses, severities, sides, thresholds and prescriptions. Pure.
 import type { AssessmentStatus } from './contract';
-import type { Comparison, Dose, FlagSide, LoadRule, Prescription, Severity, ThresholdRef, Unit } from './engine';
+import type { Certainty, Dose, FlagSide, LoadRule, MaturityStage, Prescription, Severity, SourceKind, ThresholdRef, Unit } from './engine';
 
 export const STATUS_LABELS: Record<AssessmentStatus, string> = {
   not_started: 'Not started',
@@ -17,8 +17,9 @@ export function sideLabel(side: FlagSide): string | null {
   return null;
 }
 
-export function valueText(value: number, unit: Unit): string {
-  const n = Number.isInteger(value) ? String(value) : value.toFixed(1);
+/** A value in words; `decimals` 2 for thresholds (18.33°), 1 for measurements (34.5°). */
+export function valueText(value: number, unit: Unit, decimals: 1 | 2 = 1): string {
+  const n = Number.isInteger(value) ? String(value) : decimals === 2 ? String(Math.round(value * 100) / 100) : value.toFixed(1);
   switch (unit) {
     case 'deg':
       return `${n}°`;
@@ -35,19 +36,21 @@ export function valueText(value: number, unit: Unit): string {
   }
 }
 
-const COMPARISON_WORDS: Record<Exclude<Comparison, 'within'>, string> = {
-  'greater-than': 'more than',
-  'less-than': 'less than',
-  'at-least': 'at least',
-  'at-most': 'at most',
-};
-
-/** "Flagged at more than 13°" */
+/** "Flagged above 13°", "Flagged at 2 cm or more": never "at at least". */
 export function thresholdText(t: ThresholdRef): string {
-  if (t.comparison === 'within') {
-    return `Flagged between ${valueText(t.value, t.unit)} and ${valueText(t.upperValue ?? t.value, t.unit)}`;
+  const v = valueText(t.value, t.unit, 2);
+  switch (t.comparison) {
+    case 'within':
+      return `Flagged between ${v} and ${valueText(t.upperValue ?? t.value, t.unit, 2)}`;
+    case 'greater-than':
+      return `Flagged above ${v}`;
+    case 'less-than':
+      return `Flagged below ${v}`;
+    case 'at-least':
+      return `Flagged at ${v} or more`;
+    case 'at-most':
+      return `Flagged at ${v} or less`;
   }
-  return `Flagged at ${COMPARISON_WORDS[t.comparison]} ${valueText(t.value, t.unit)}`;
 }
 
 const range = (min: number, max: number) => (min === max ? String(min) : `${min}-${max}`);
@@ -89,3 +92,33 @@ export function todayIsoLocal(now = new Date()): string {
   const p = (n: number) => String(n).padStart(2, '0');
   return `${now.getFullYear()}-${p(now.getMonth() + 1)}-${p(now.getDate())}`;
 }
+
+/** What kind of basis a threshold has, as the result screen says it. */
+export const SOURCE_KIND_LABELS: Record<SourceKind, string> = {
+  published: 'Published value',
+  'published-other-population': 'Published value, from another population',
+  'common-practice': 'Common practice',
+  'our-choice': "Squadline's own choice",
+  derived: 'Derived by Squadline from published values',
+};
+
+/** How sure we are of a threshold. */
+export const CERTAINTY_LABELS: Record<Certainty, string> = {
+  checked: 'checked in the source',
+  secondary: 'read in a text quoting the source',
+  'from memory': 'from memory, not checked',
+  'no source': 'no published source',
+};
+
+/** "Published value, from another population · checked in the source"; tolerates results stored before these fields. */
+export function basisText(t: Pick<ThresholdRef, 'sourceKind' | 'certainty'>): string {
+  if (!t.sourceKind) return 'Kind of source not recorded (older result)';
+  return `${SOURCE_KIND_LABELS[t.sourceKind]} · certainty: ${CERTAINTY_LABELS[t.certainty]}`;
+}
+
+export const STAGE_LABELS: Record<MaturityStage, string> = {
+  pre: 'Before the growth spurt',
+  circa: 'In the growth-spurt window',
+  post: 'After the growth spurt',
+  unknown: 'Growth stage unknown',
+};

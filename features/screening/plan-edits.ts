@@ -1,36 +1,24 @@
-// The tester's changes to the engine's plan: drop, add back from the library, re-dose. Pure.
+// The tester's changes to the engine's plan: drop, add back from the library, re-dose. Pure. The limits
+// come from the engine's `limits.ts`, the same functions the server runs on the saved plan.
 import {
-  DEFAULT_LOAD_INCREMENT_KG,
-  strengthEnduranceLoad,
+  checkExercise,
+  plannedFromLibrary,
   type ExerciseSpec,
+  type LimitBreach,
+  type LoadingContext,
   type PlannedExercise,
   type Prescription,
 } from './engine';
 import { loadText, setsText } from './labels';
 
+/** Hard ceiling of the editor's buttons; the youth limits (3 sets) apply well before it. */
 export const MAX_SETS = 6;
 export const TESTER_MARK = 'Changed by the tester:';
 
-/** An exercise from the library as a planned one, with kg loads when a 1RM is known. */
-export function fromLibrary(spec: ExerciseSpec, oneRepMaxKg: number | null | undefined, order: number): PlannedExercise {
-  const { prescription, addresses, ...rest } = spec;
-  let load = prescription.load;
-  if (load.kind === 'percent-1rm') {
-    if (oneRepMaxKg != null && oneRepMaxKg > DEFAULT_LOAD_INCREMENT_KG) {
-      const range = strengthEnduranceLoad(oneRepMaxKg, DEFAULT_LOAD_INCREMENT_KG);
-      load = { ...load, kg: { min: range.minKg, max: range.maxKg, incrementKg: DEFAULT_LOAD_INCREMENT_KG } };
-    } else {
-      load = { ...load, kg: null };
-    }
-  }
-  return {
-    ...rest,
-    order,
-    prescription: { ...prescription, load },
-    flagIds: [],
-    patterns: [...addresses],
-    adjustments: ['Added by the tester from the exercise library.'],
-  };
+/** An exercise from the library as the engine would plan it for this athlete: the same limits, the same loads. */
+export function fromLibrary(spec: ExerciseSpec, ctx: LoadingContext, order: number): PlannedExercise {
+  const planned = plannedFromLibrary(spec, ctx, order);
+  return { ...planned, adjustments: [...planned.adjustments, 'Added by the tester from the exercise library.'] };
 }
 
 export function shiftSets(ex: PlannedExercise, delta: number): PlannedExercise {
@@ -46,7 +34,8 @@ export function shiftLoad(ex: PlannedExercise, delta: 1 | -1): PlannedExercise {
   if (load.kind === 'percent-1rm' && load.kg) {
     const step = load.kg.incrementKg * delta;
     if (load.kg.min + step < load.kg.incrementKg) return ex;
-    next = { ...load, kg: { ...load.kg, min: load.kg.min + step, max: load.kg.max + step } };
+    const kg = (n: number) => Math.round(n * 1e6) / 1e6;
+    next = { ...load, kg: { ...load.kg, min: kg(load.kg.min + step), max: kg(load.kg.max + step) } };
   } else if (load.kind === 'band') {
     const resistance = delta > 0 ? 'medium' : 'light';
     if (resistance === load.resistance) return ex;
@@ -60,6 +49,20 @@ export function shiftLoad(ex: PlannedExercise, delta: 1 | -1): PlannedExercise {
 export function canShiftLoad(ex: PlannedExercise): boolean {
   const load = ex.prescription.load;
   return (load.kind === 'percent-1rm' && load.kg !== null) || load.kind === 'band';
+}
+
+/**
+ * What a change would break, for the editor to refuse it (a tester) or to ask for a reason (a head coach
+ * or physiotherapist). Empty when the change stays within the limits.
+ */
+export function breachesOf(ex: PlannedExercise, ctx: LoadingContext): LimitBreach[] {
+  return checkExercise(ex, ctx);
+}
+
+/** True when `next` breaks a limit that `current` did not: the change goes past a limit. */
+export function goesPastLimit(current: PlannedExercise, next: PlannedExercise, ctx: LoadingContext): boolean {
+  const before = new Set(checkExercise(current, ctx).map((b) => b.limit));
+  return checkExercise(next, ctx).some((b) => !before.has(b.limit));
 }
 
 /** The list as it will be saved: in order, with the tester's changes to each exercise written out. */

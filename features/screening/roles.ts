@@ -6,3 +6,11 @@ export const SCREENING_WRITERS: readonly RoleValue[] = ['admin', 'head_coach', '
 
 export const canScreen = (role: RoleValue) => SCREENING_WRITERS.includes(role);
 export const canReadScreening = (role: RoleValue) => role !== 'parent';
+
+/** Who may adjust a plan within the limits: the screeners, and the physiotherapist. */
+export const PLAN_ADJUSTERS: readonly RoleValue[] = ['admin', 'head_coach', 'tester', 'physio'];
+/** Who may go past a youth or growth-spurt limit (always with a reason): a head coach or a physiotherapist. */
+export const PLAN_OVERRIDERS: readonly RoleValue[] = ['head_coach', 'physio'];
+
+export const canAdjustPlan = (role: RoleValue) => PLAN_ADJUSTERS.includes(role);
+export const canOverrideLimits = (role: RoleValue) => PLAN_OVERRIDERS.includes(role);

@@ -1,7 +1,18 @@
 import { array, mixed, number, object, string, ValidationError } from 'yup';
-import type { PlanAdjustmentInput } from '@/features/screening/contract';
-import { EXERCISES, type PatternId, type PlannedExercise, type Prescription } from '@/features/screening/engine';
-import { badRequest } from '@/server/http/errors';
+import type { PlanAdjustmentInput, PlanOverrideView } from '@/features/screening/contract';
+import {
+  checkPlan,
+  EXERCISES,
+  librarySpec,
+  loadRuleText,
+  type LoadingContext,
+  type PatternId,
+  type PlannedExercise,
+  type Prescription,
+} from '@/features/screening/engine';
+import { canOverrideLimits } from '@/features/screening/roles';
+import type { Role } from '@/db/schema';
+import { badRequest, forbidden } from '@/server/http/errors';
 import { fieldErrors } from '@/server/http/validate';
 
 const LIBRARY = new Map(EXERCISES.map((e) => [e.id, e]));
@@ -78,6 +89,7 @@ export function normaliseAdjustment(input: PlanAdjustmentInput): PlannedExercise
         flagIds: e.flagIds,
         patterns: e.patterns as PatternId[],
         adjustments: e.adjustments,
+        loadRule: loadRuleText(librarySpec(e.id)!, e.prescription as Prescription),
       });
     } catch (error) {
       if (!(error instanceof ValidationError)) throw error;
@@ -89,4 +101,34 @@ export function normaliseAdjustment(input: PlanAdjustmentInput): PlannedExercise
   if (repeated) fields.exercises = `"${LIBRARY.get(repeated)!.name}" is in the plan twice.`;
   if (Object.keys(fields).length > 0) throw badRequest('Some fields need attention.', fields);
   return out;
+}
+
+const OVERRIDE_NEEDED = 'Going past it needs an override by a head coach or physiotherapist, with a reason.';
+
+/**
+ * The same youth and growth-spurt limits the engine applied to its own plan (engine `limits.ts`), on the
+ * adjusted plan: every limit passed needs an override with a reason, and only a head coach or a
+ * physiotherapist may give one. Overrides for limits that are not passed are dropped. Returns the
+ * overrides as kept in the plan's history.
+ */
+export function enforceLimits(exercises: PlannedExercise[], input: PlanAdjustmentInput, ctx: LoadingContext, role: Role): PlanOverrideView[] {
+  const overrides = input.overrides ?? [];
+  const { breaches, uncovered } = checkPlan(exercises, ctx, overrides);
+  if (uncovered.length > 0) {
+    const fields: Record<string, string> = {};
+    for (const b of uncovered) {
+      const i = exercises.findIndex((e) => e.id === b.exerciseId);
+      const key = b.field === 'id' ? `exercises[${i}]` : `exercises[${i}].${b.field}`;
+      fields[key] = fields[key] ? `${fields[key]} ${b.message}` : `${b.message} ${OVERRIDE_NEEDED}`;
+    }
+    throw badRequest('The plan goes past a limit for this athlete.', fields);
+  }
+  const used = breaches.map((b) => {
+    const o = overrides.find((x) => x.exerciseId === b.exerciseId && x.limit === b.limit)!;
+    return { exerciseId: b.exerciseId, limit: b.limit, reason: o.reason.trim(), message: b.message, role };
+  });
+  if (used.length > 0 && !canOverrideLimits(role)) {
+    throw forbidden('Only a head coach or a physiotherapist may go past a youth or growth-spurt limit.');
+  }
+  return used;
 }

@@ -12,7 +12,7 @@ import {
   squads,
   users,
 } from '@/db/schema';
-import type { AssessmentDraft, AssessmentStatus } from '@/features/screening/contract';
+import type { AssessmentDraft, AssessmentStatus, PlanOverrideView } from '@/features/screening/contract';
 import type { AssessmentInput, AssessmentResult, PlannedExercise } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
 
@@ -260,7 +260,7 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
 
     async currentResult(assessmentId: string) {
       const [row] = await db
-        .select(resultColumns)
+        .select({ ...resultColumns, input: assessmentResults.input })
         .from(assessmentResults)
         .leftJoin(users, eq(users.id, assessmentResults.createdBy))
         .where(and(eq(assessmentResults.clubId, clubId), eq(assessmentResults.assessmentId, assessmentId), eq(assessmentResults.isCurrent, true)));
@@ -281,11 +281,13 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
         .orderBy(desc(assessmentResults.version));
     },
 
-    async latestAdjustment(resultId: string) {
-      const [row] = await db
+    /** Every adjustment of a result, newest first: the plan's history. */
+    adjustments(resultId: string) {
+      return db
         .select({
           exercises: planAdjustments.exercises,
           note: planAdjustments.note,
+          overrides: planAdjustments.overrides,
           createdAt: planAdjustments.createdAt,
           createdByName: users.displayName,
         })
@@ -293,9 +295,7 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
         .innerJoin(assessmentResults, eq(assessmentResults.id, planAdjustments.resultId))
         .leftJoin(users, eq(users.id, planAdjustments.createdBy))
         .where(and(eq(assessmentResults.clubId, clubId), eq(planAdjustments.resultId, resultId)))
-        .orderBy(desc(planAdjustments.createdAt), desc(planAdjustments.id))
-        .limit(1);
-      return row ?? null;
+        .orderBy(desc(planAdjustments.createdAt), desc(planAdjustments.id));
     },
 
     /** Adds a result version and makes it the only current one. Call inside a transaction holding the assessment lock. */
@@ -315,8 +315,8 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
       return row!.id;
     },
 
-    async addPlanAdjustment(resultId: string, exercises: PlannedExercise[], note: string) {
-      await db.insert(planAdjustments).values({ resultId, exercises, note, createdBy: scope.userId });
+    async addPlanAdjustment(resultId: string, exercises: PlannedExercise[], note: string, overrides: PlanOverrideView[]) {
+      await db.insert(planAdjustments).values({ resultId, exercises, note, overrides, createdBy: scope.userId });
     },
 
     athleteAssessments(athleteId: string) {

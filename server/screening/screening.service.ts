@@ -22,6 +22,7 @@ import {
   EngineInputError,
   evaluateAssessment,
   getTask,
+  loadingContextOf,
   TASK_IDS,
   type AssessmentInput,
   type AssessmentResult,
@@ -33,7 +34,7 @@ import { AppError, badRequest, conflict, notFound } from '@/server/http/errors';
 import type { PhotoStorage } from '@/server/storage/storage';
 import { validateDraft } from './draft-validation';
 import { processPhoto } from './photo-processing';
-import { normaliseAdjustment } from './plan-adjustment';
+import { enforceLimits, normaliseAdjustment } from './plan-adjustment';
 import { screeningRepo, type Executor, type RoundRow, type ScreeningRepo } from './screening.repo';
 
 export type Evaluate = (input: AssessmentInput) => AssessmentResult;
@@ -102,7 +103,14 @@ export function photoView(p: Photo): PhotoView {
 async function resultView(repo: ScreeningRepo, assessmentId: string): Promise<ResultView | null> {
   const current = await repo.currentResult(assessmentId);
   if (!current) return null;
-  const [earlier, adjustment] = await Promise.all([repo.earlierResults(assessmentId, current.id), repo.latestAdjustment(current.id)]);
+  const [earlier, adjustments] = await Promise.all([repo.earlierResults(assessmentId, current.id), repo.adjustments(current.id)]);
+  const history = adjustments.map((a) => ({
+    exercises: a.exercises,
+    note: a.note,
+    overrides: a.overrides,
+    createdAt: iso(a.createdAt),
+    createdByName: a.createdByName,
+  }));
   return {
     id: current.id,
     version: current.version,
@@ -110,9 +118,8 @@ async function resultView(repo: ScreeningRepo, assessmentId: string): Promise<Re
     createdAt: iso(current.createdAt),
     createdByName: current.createdByName,
     result: current.result,
-    adjustment: adjustment
-      ? { exercises: adjustment.exercises, note: adjustment.note, createdAt: iso(adjustment.createdAt), createdByName: adjustment.createdByName }
-      : null,
+    adjustment: history[0] ?? null,
+    adjustmentHistory: history,
     history: earlier.map((r) => ({ id: r.id, version: r.version, engineVersion: r.engineVersion, createdAt: iso(r.createdAt) })),
   };
 }
@@ -322,7 +329,10 @@ export function screeningService(deps: ScreeningDeps) {
         if (!(await repo.lockAssessment(id))) throw notFound('The assessment');
         const current = await repo.currentResult(id);
         if (!current) throw conflict('This assessment has no result yet: submit it before adjusting the plan.');
-        await repo.addPlanAdjustment(current.id, exercises, input.note ?? '');
+        // The limits the engine applied to this result, from what it stored (older results: rebuilt).
+        const ctx = loadingContextOf(current.result, current.input.oneRepMaxKg, current.input.options?.loadIncrementKg);
+        const overrides = enforceLimits(exercises, input, ctx, scope.role);
+        await repo.addPlanAdjustment(current.id, exercises, input.note ?? '', overrides);
       });
       return (await resultView(repoFor(scope), id))!;
     },

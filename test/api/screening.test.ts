@@ -3,7 +3,7 @@ import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessmentResults, assessments, athletes } from '@/db/schema';
 import type { AssessmentDetail, AthleteAssessmentItem, ResultView, RoundDetail } from '@/features/screening/contract';
-import { EngineInputError, evaluateAssessment, EXERCISES, type AssessmentResult } from '@/features/screening/engine';
+import { EngineInputError, evaluateAssessment, EXERCISES, loadingContextOf, plannedFromLibrary, type AssessmentResult } from '@/features/screening/engine';
 import { makeAthlete, makeClub, makeSquad, makeTestApp, makeUser, signedInAgent } from '../fixtures/builders';
 import { memoryStorage, phonePhotoWithExif } from '../fixtures/photos';
 import { makeDraft, screeningAppWith, sessionCookie, valgusSquat } from '../fixtures/screening';
@@ -139,9 +139,11 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     const result = (await tester.post(`/api/assessments/${id}/submit`)).body as ResultView;
     const [keep] = result.result.plan.exercises;
     const extra = EXERCISES.find((e) => !result.result.plan.exercises.some((p) => p.id === e.id))!;
+    // An exercise added from the library takes the limits the engine applied to this athlete.
+    const added = plannedFromLibrary(extra, loadingContextOf(result.result), 2);
     const exercises = [
       { ...keep!, prescription: { ...keep!.prescription, sets: { min: 3, max: 3 } } },
-      { id: extra.id, prescription: extra.prescription },
+      { id: extra.id, prescription: added.prescription },
     ];
     const res = await tester.put(`/api/assessments/${id}/plan`).send({ exercises, note: 'Only two this block' });
     expect(res.status).toBe(200);
@@ -149,7 +151,7 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     expect(view.adjustment).toMatchObject({ note: 'Only two this block', createdByName: 'Tess Tester' });
     expect(view.adjustment!.exercises.map((e) => [e.id, e.order, e.prescription.sets.min])).toEqual([
       [keep!.id, 1, 3],
-      [extra.id, 2, extra.prescription.sets.min],
+      [extra.id, 2, added.prescription.sets.min],
     ]);
     // The words come from the library, not from the request.
     expect(view.adjustment!.exercises[1]!.name).toBe(extra.name);
@@ -160,6 +162,49 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['exercises[0].id']));
     const none = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: [] });
     expect(none.status).toBe(400);
+  });
+
+  it('enforces the youth limits on an adjusted plan: past a limit only a head coach or physiotherapist, with a reason, kept in the history', async () => {
+    const round = await openRound('Limits check', '2026-09-22');
+    const id = assessmentOf(round, ids.ava);
+    await saveDraft(id, 0);
+    const result = (await tester.post(`/api/assessments/${id}/submit`)).body as ResultView;
+    // Every plan carries the stop-on-pain rule.
+    expect(result.result.plan.cautions[0]?.id).toBe('stop-on-pain');
+    const body = result.result.plan.exercises.find((e) => e.prescription.load.kind !== 'percent-1rm')!;
+    // Four sets is past the youth limit of 3 sets (Faigenbaum et al. 2009) at every stage for a bodyweight or band exercise.
+    const fourSets = [{ ...body, prescription: { ...body.prescription, sets: { min: 4, max: 4 } } }];
+
+    const refused = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: fourSets });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.fields['exercises[0].prescription.sets']).toMatch(/more than the 3 allowed.*head coach or physiotherapist/);
+
+    const override = { exerciseId: body.id, limit: 'sets', reason: 'Physio asked for extra sets this block' };
+    const notAllowed = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: fourSets, overrides: [override] });
+    expect(notAllowed.status).toBe(403);
+
+    const noReason = await signedInAgent(app, 'coach@riverside.test');
+    const blank = await noReason.put(`/api/assessments/${id}/plan`).send({ exercises: fourSets, overrides: [{ ...override, reason: ' ' }] });
+    expect(blank.status).toBe(400);
+
+    const coach = noReason;
+    const kept = await coach.put(`/api/assessments/${id}/plan`).send({ exercises: fourSets, overrides: [override], note: 'Extra sets' });
+    expect(kept.status).toBe(200);
+    const view = kept.body as ResultView;
+    expect(view.adjustment!.overrides).toEqual([
+      { exerciseId: body.id, limit: 'sets', reason: override.reason, role: 'head_coach', message: expect.stringMatching(/4 sets is more than the 3 allowed/) },
+    ]);
+
+    // The physiotherapist may adjust plans, and go back within the limits; the history keeps both.
+    const physio = await signedInAgent(app, 'physio@riverside.test');
+    const back = await physio.put(`/api/assessments/${id}/plan`).send({ exercises: [body], note: 'Back to the proposal' });
+    expect(back.status).toBe(200);
+    const latest = back.body as ResultView;
+    expect(latest.adjustment!.overrides).toEqual([]);
+    expect(latest.adjustmentHistory.map((a) => a.note)).toEqual(['Back to the proposal', 'Extra sets']);
+    expect(latest.adjustmentHistory[1]!.overrides[0]!.reason).toBe(override.reason);
+    // The engine's proposal is never changed.
+    expect(latest.result.plan).toEqual(result.result.plan);
   });
 
   it('refuses a plan adjustment before there is a result', async () => {
@@ -343,10 +388,13 @@ describe('who may do what', () => {
     }
   });
 
-  it('lets a physio read but not write', async () => {
+  it('lets a physio read and adjust a plan, but not screen', async () => {
     const physio = await signedInAgent(app, 'physio@riverside.test');
     for (const route of reads()) expect([route[1], (await call(physio, route)).status]).toEqual([route[1], 200]);
-    for (const route of writes()) expect([route[1], (await call(physio, route)).status]).toEqual([route[1], 403]);
+    const [plan, ...screening] = [...writes()].reverse();
+    for (const route of screening) expect([route[1], (await call(physio, route)).status]).toEqual([route[1], 403]);
+    // The physiotherapist may adjust the plan (and go past a limit with a reason, like a head coach).
+    expect((await call(physio, plan!)).status).not.toBe(403);
   });
 
   it('lets a head coach open rounds and screen', async () => {

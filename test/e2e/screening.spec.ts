@@ -170,7 +170,10 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   const checkResult = async () => {
     await expect(page.getByTestId('flags')).toContainText(/Concern|Watch/);
     await expect(page.getByTestId('flags')).toContainText('Right side');
-    await expect(page.getByTestId('flags')).toContainText('Source:');
+    // Each threshold says what kind of source it has and how sure it is; the full references sit behind "Sources".
+    await expect(page.getByTestId('flags')).toContainText('certainty:');
+    await expect(page.getByTestId('flag-sources-toggle').first()).toBeVisible();
+    await expect(page.getByTestId('plan-cautions')).toContainText('Stop on pain');
     await expect(page.locator('[data-testid^="exercise-"]').first()).toBeVisible();
     await expect(page.getByTestId('plan')).toContainText(/sets ×/);
     await expect(page.getByTestId('plan-cautions')).toContainText('not a diagnosis');
@@ -192,6 +195,13 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   await expect(page.getByTestId('plan-source')).toContainText('Adjusted by');
   await expect(page.getByTestId('plan-source')).toContainText('Short session this week.');
 
+  // Straight on to the next athlete still to be screened in this round, and back to the round.
+  await expect(page.getByTestId('next-athlete')).toContainText('Next athlete:');
+  await page.getByTestId('next-athlete').click();
+  await expect(page.getByTestId('step-title')).toHaveText('Body measurements');
+  await page.goBack();
+  await expect(page.getByTestId('back-to-round')).toBeVisible();
+
   // The round counts the submission; the athlete's page lists it with its flags.
   await page.getByRole('link', { name: `← ${roundName}` }).click();
   await expect(page.getByText('1 of 12 submitted')).toBeVisible();
@@ -207,4 +217,127 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   await expect(history).toContainText('Autumn check');
   const items = await history.locator('[data-testid^="athlete-assessment-"]').allInnerTexts();
   expect(items.findIndex((t) => t.includes(roundName))).toBeLessThan(items.findIndex((t) => t.includes('Autumn check')));
+});
+
+/** Opens a round for the under-13s through the API and submits one athlete's screen with no body measures. */
+async function submitWithoutBodyMeasures(page: Page, roundPrefix: string, painReported = false): Promise<string> {
+  const rounds = (await (await page.request.get('/api/rounds')).json()) as { rounds: { squadId: string; squadName: string }[] };
+  const squadId = rounds.rounds.find((r) => r.squadName.startsWith('Under-13'))!.squadId;
+  const created = await page.request.post('/api/rounds', { data: { squadId, name: `${roundPrefix} ${Date.now()}`, screenedOn: '2026-11-30' } });
+  expect(created.status()).toBe(201);
+  const round = (await created.json()) as { athletes: { assessmentId: string; photoConsent: boolean }[] };
+  const id = round.athletes.find((a) => a.photoConsent)!.assessmentId;
+  const draft = {
+    body: {},
+    tasks: {
+      'two-leg-squat': {
+        criteria: ['squat-right-knee-in', 'squat-not-deep'],
+        painReported,
+        landmarks: {
+          front: {
+            'right-hip': { x: 400, y: 700 },
+            'right-knee': { x: 470, y: 900 },
+            'right-ankle': { x: 410, y: 1120 },
+            'left-hip': { x: 560, y: 700 },
+            'left-knee': { x: 560, y: 900 },
+            'left-ankle': { x: 560, y: 1120 },
+          },
+        },
+      },
+      'drop-landing': { criteria: ['landing-right-knee-in'] },
+      'single-leg-squat-right': { criteria: ['sls-knee-in'] },
+      'knee-to-wall-left': { criteria: [], distanceCm: 11 },
+      'knee-to-wall-right': { criteria: [], distanceCm: 7.5 },
+    },
+  };
+  expect((await page.request.put(`/api/assessments/${id}`, { data: { draftVersion: 0, draft } })).status()).toBe(200);
+  expect((await page.request.post(`/api/assessments/${id}/submit`)).status()).toBe(200);
+
+  return id;
+}
+
+// A child with no body measures: the result groups the flags by pattern and side (the tasks as evidence in
+// one card), says what kind of source each threshold has and how sure it is, and the plan says the growth
+// stage is unknown and applies the cautious limits. The draft goes in through the API (the capture flow is
+// covered above); screenshots of the result are kept in test-results for review.
+test('a result groups flags by pattern and side and shows the caution for an unknown growth stage', async ({ page }, testInfo) => {
+  test.setTimeout(120_000);
+  await signIn(page, 'tester@squadline.test');
+  await expect(page.getByTestId('home-tester')).toBeVisible();
+  const id = await submitWithoutBodyMeasures(page, `Growth unknown ${testInfo.project.name}`);
+  await page.goto(`/screening/assessments/${id}/result`);
+  const flags = page.getByTestId('flags');
+  await expect(flags).toBeVisible();
+  // One card for the right knee, with the three tasks that showed it inside.
+  const rightKnee = page.getByTestId('flag-group-dynamic-knee-valgus-right');
+  await expect(rightKnee).toHaveCount(1);
+  await expect(rightKnee).toContainText('Seen in 3 tasks');
+  for (const task of ['Two-leg full squat', 'Drop landing from a low box', 'Single-leg squat, right leg']) await expect(rightKnee).toContainText(task);
+  const titles = await flags.locator('[data-testid^="flag-group-"]').evaluateAll((cards) => cards.map((c) => c.getAttribute('data-testid')));
+  expect(new Set(titles).size).toBe(titles.length);
+  // The measured knee angle: an adult norm applied to a junior, said beside the flag, with kind and certainty.
+  await expect(rightKnee).toContainText('Published value, from another population');
+  await expect(rightKnee).toContainText('certainty: checked in the source');
+  await expect(rightKnee.getByTestId('flag-population').first()).toContainText('Adult norms');
+  await rightKnee.getByTestId('flag-sources-toggle').click();
+  await expect(rightKnee.getByTestId('flag-sources')).toContainText('Phys Ther Sport. 2010');
+  // The plan: growth stage unknown, the cautious limits, stop on pain.
+  await expect(page.getByTestId('plan-stage')).toContainText('Growth stage unknown');
+  await expect(page.getByTestId('plan-stage')).toContainText('body measures missing');
+  await expect(page.getByTestId('plan-cautions')).toContainText('Growth stage unknown');
+  await expect(page.getByTestId('plan-cautions')).toContainText('Stop on pain');
+
+  await rightKnee.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath(`result-flags-${testInfo.project.name}.png`), fullPage: false });
+  await page.getByTestId('plan-stage').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath(`result-plan-${testInfo.project.name}.png`), fullPage: false });
+  await page.screenshot({ path: testInfo.outputPath(`result-full-${testInfo.project.name}.png`), fullPage: true });
+
+  // A tester cannot go past a limit in the plan editor: four sets is refused with the reason.
+  await page.getByTestId('plan-adjust').click();
+  const firstMore = page.locator('[data-testid^="more-sets-"]').first();
+  for (let i = 0; i < 4; i += 1) await firstMore.click();
+  await expect(page.getByTestId('plan-editor-error')).toContainText('Only a head coach or a physiotherapist');
+});
+
+// A head coach may go past a limit, giving a reason: the plan then shows a caution and keeps it in its history.
+test('a head coach goes past a youth limit with a reason, shown as a caution on the plan', async ({ page }, testInfo) => {
+  test.setTimeout(120_000);
+  await signIn(page, 'coach@squadline.test');
+  await expect(page.getByRole('navigation').or(page.getByTestId('menu-button')).first()).toBeVisible();
+  const id = await submitWithoutBodyMeasures(page, `Override ${testInfo.project.name}`);
+  await page.goto(`/screening/assessments/${id}/result`);
+  await page.getByTestId('plan-adjust').click();
+  const first = page.locator('[data-testid^="edit-exercise-"]').first();
+  const exerciseId = (await first.getAttribute('data-testid'))!.replace('edit-exercise-', '');
+  const more = page.getByTestId(`more-sets-${exerciseId}`);
+  // Up to the youth limit of 3 sets, then one more.
+  for (let i = 0; i < 3; i += 1) await more.click();
+  await expect(page.getByTestId(`breach-${exerciseId}-sets`)).toContainText('more than the 3 allowed');
+  await page.getByTestId('plan-save').click();
+  await expect(page.getByTestId('plan-editor-error')).toContainText('Give a reason');
+  await page.getByTestId(`override-reason-${exerciseId}-sets`).fill('Physiotherapist asked for a fourth set after review');
+  await page.getByTestId('plan-save').click();
+  await expect(page.getByTestId('plan-overrides')).toContainText('Physiotherapist asked for a fourth set after review');
+  await expect(page.getByTestId('plan-overrides')).toContainText('head coach');
+  await expect(page.getByTestId('plan-history')).toContainText('1 limit passed on purpose');
+  await page.getByTestId('plan-overrides').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath(`plan-override-${testInfo.project.name}.png`) });
+});
+
+// Pain at the screen: no loaded strength or landing work until a physiotherapist clears the athlete, and the
+// plan says what the athlete may still do.
+test('pain reported: the plan holds back loaded work and lists what the athlete may still do', async ({ page }, testInfo) => {
+  test.setTimeout(120_000);
+  await signIn(page, 'tester@squadline.test');
+  await expect(page.getByTestId('home-tester')).toBeVisible();
+  const id = await submitWithoutBodyMeasures(page, `Pain ${testInfo.project.name}`, true);
+  await page.goto(`/screening/assessments/${id}/result`);
+  const clearance = page.getByTestId('plan-clearance');
+  await expect(clearance).toContainText('No loaded strength work');
+  await expect(clearance).toContainText('may still do');
+  await expect(clearance).toContainText('Held back until then');
+  await expect(page.locator('[data-testid="exercise-split-squat-endurance"]')).toHaveCount(0);
+  await clearance.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: testInfo.outputPath(`plan-pain-${testInfo.project.name}.png`) });
 });

@@ -37,7 +37,8 @@ describe('evaluateAssessment: shape', () => {
     expect(r.flags).toEqual([]);
     expect(r.plan.exercises).toEqual([]);
     expect(r.plan.status).toBe('ready');
-    expect(r.plan.cautions.map((c) => c.id)).toEqual(['not-a-diagnosis', 'youth-resistance-training']);
+    // No body measures: the growth stage is unknown and the plan says so.
+    expect(r.plan.cautions.map((c) => c.id)).toEqual(['stop-on-pain', 'not-a-diagnosis', 'youth-resistance-training', 'growth-stage-unknown']);
     expect(r.plan.rescreenWeeks).toBe(6);
     expect(r.plan.rescreenDate).toBeNull();
   });
@@ -338,8 +339,8 @@ describe('evaluateAssessment: maturity and the growth-spurt window', () => {
 
     const split = circa.plan.exercises.find((e) => e.id === 'split-squat-endurance');
     expect(split?.prescription.load).toMatchObject({ kind: 'percent-1rm', minPercent: 50, maxPercent: 55 });
-    // 40 kg and 44 kg -> 44 / 2.5 = 17.6 -> 18 steps -> 45 kg
-    expect(split?.prescription.load.kind === 'percent-1rm' && split.prescription.load.kg).toEqual({ min: 40, max: 45, incrementKg: 2.5 });
+    // 40 kg and 44 kg -> 44 / 2.5 = 17.6 -> rounded down to 17 steps -> 42.5 kg (45 kg would be 56.25%)
+    expect(split?.prescription.load.kind === 'percent-1rm' && split.prescription.load.kg).toEqual({ min: 40, max: 42.5, incrementKg: 2.5 });
     expect(split?.prescription.sets).toEqual({ min: 3, max: 3 });
 
     const snap = circa.plan.exercises.find((e) => e.id === 'snap-down-and-stick');
@@ -350,9 +351,12 @@ describe('evaluateAssessment: maturity and the growth-spurt window', () => {
   it('outside the window the split squat keeps 50-65% of 1RM and 3-4 sets (common practice, no source)', () => {
     const post = evaluateAssessment({ athlete: postPhvBoy, tasks: asymmetricAnkles, oneRepMaxKg: 80 });
     const split = post.plan.exercises.find((e) => e.id === 'split-squat-endurance');
-    expect(split?.prescription.load).toMatchObject({ kind: 'percent-1rm', minPercent: 50, maxPercent: 65, kg: { min: 40, max: 52.5 } });
+    // 52 kg rounded down to 50 kg: 52.5 kg would be 65.6% of 1RM.
+    expect(split?.prescription.load).toMatchObject({ kind: 'percent-1rm', minPercent: 50, maxPercent: 65, kg: { min: 40, max: 50 } });
     expect(split?.prescription.sets).toEqual({ min: 3, max: 4 });
-    expect(split?.adjustments).toEqual([]);
+    // The only change: the volume beyond youth guidance is labelled.
+    expect(split?.adjustments).toHaveLength(1);
+    expect(split?.adjustments[0]).toMatch(/beyond the youth position statement/);
   });
 
   it('without a 1RM the loaded exercise says to start with bodyweight', () => {
@@ -365,7 +369,8 @@ describe('evaluateAssessment: maturity and the growth-spurt window', () => {
   it('uses the load increment from the options', () => {
     const r = evaluateAssessment({ athlete: postPhvBoy, tasks: asymmetricAnkles, oneRepMaxKg: 37, options: { loadIncrementKg: 2 } });
     const split = r.plan.exercises.find((e) => e.id === 'split-squat-endurance');
-    expect(split?.prescription.load.kind === 'percent-1rm' && split.prescription.load.kg).toEqual({ min: 18, max: 24, incrementKg: 2 });
+    // 18.5 kg rounded up to 20 kg, 24.05 kg down to 24 kg.
+    expect(split?.prescription.load.kind === 'percent-1rm' && split.prescription.load.kg).toEqual({ min: 20, max: 24, incrementKg: 2 });
   });
 });
 
@@ -449,7 +454,8 @@ describe('evaluateAssessment: impossible input', () => {
     ['age 0', makeAssessment({ athlete: { sex: 'male', ageYears: 0 } }), 'athlete.ageYears'],
     ['unknown sex', makeAssessment({ athlete: { sex: 'x' as 'male', ageYears: 12 } }), 'athlete.sex'],
     ['sitting height above stature', makeAssessment({ athlete: { sex: 'male', ageYears: 12, statureCm: 120, sittingHeightCm: 125 } }), 'athlete.sittingHeightCm'],
-    ['1RM below the increment', makeAssessment({ oneRepMaxKg: 1 }), 'oneRepMaxKg'],
+    ['zero 1RM', makeAssessment({ oneRepMaxKg: 0 }), 'oneRepMaxKg'],
+    ['pain clearance not a yes/no', makeAssessment({ options: { painCleared: 'yes' as unknown as boolean } }), 'options.painCleared'],
     ['impossible date', makeAssessment({ options: { today: '2025-02-30' } }), 'options.today'],
     ['zero re-screen weeks', makeAssessment({ options: { rescreenWeeks: 0 } }), 'options.rescreenWeeks'],
   ])('%s', (_n, input, field) => {

@@ -1,9 +1,9 @@
 import { withField } from './errors';
 import { detectFlags, observationsOf } from './flags';
-import { maturityInputsNeeded, maturityOffset } from './maturity';
+import { MATURITY_AGE_RANGE, maturityInputsNeeded, maturityOffset } from './maturity';
 import { measureTasks, rateTasks } from './measurements';
 import { buildPlan } from './plan';
-import type { AssessmentInput, AssessmentResult, Measurement, MaturityResult } from './types';
+import type { AssessmentInput, AssessmentResult, GrowthUnknownReason, MaturityBand, MaturityMethod, Measurement, MaturityResult } from './types';
 import { validateAssessment, type NormalizedAssessment } from './validate';
 import { ENGINE_VERSION } from './version';
 
@@ -20,6 +20,26 @@ function maturityOf(n: NormalizedAssessment): MaturityResult | null {
   return withField('athlete', () => maturityOffset(a, method));
 }
 
+/** Why there is no growth estimate, in the plan's terms. */
+function unknownReasonOf(n: NormalizedAssessment): GrowthUnknownReason {
+  const a = n.athlete;
+  const range = MATURITY_AGE_RANGE[a.sex];
+  if (a.ageYears < range.min || a.ageYears > range.max) return 'age-outside-range';
+  if (n.maturityMethod === 'none') return 'not-estimated';
+  return 'measures-missing';
+}
+
+/** The equation's name as a coach reads it (never its internal key). */
+export const METHOD_WORDS: Record<MaturityMethod, string> = {
+  moore2015: 'Moore et al. 2015 equation',
+  mirwald2002: 'Mirwald et al. 2002 equation',
+};
+const BAND_WORDS: Record<MaturityBand, string> = {
+  pre: 'before the growth spurt',
+  circa: 'in the growth-spurt window',
+  post: 'after the growth spurt',
+};
+
 function maturityMeasurements(m: MaturityResult): Measurement[] {
   return [
     {
@@ -29,7 +49,7 @@ function maturityMeasurements(m: MaturityResult): Measurement[] {
       side: null,
       value: m.offsetYears,
       unit: 'years',
-      label: `Years from peak height velocity (${m.method}), band ${m.band}`,
+      label: `Years from peak height velocity (${METHOD_WORDS[m.method]}): ${BAND_WORDS[m.band]}`,
     },
     {
       id: 'athlete/age-at-phv',
@@ -38,7 +58,7 @@ function maturityMeasurements(m: MaturityResult): Measurement[] {
       side: null,
       value: m.ageAtPhvYears,
       unit: 'years',
-      label: `Predicted age at peak height velocity (${m.method})`,
+      label: `Predicted age at peak height velocity (${METHOD_WORDS[m.method]})`,
     },
   ];
 }
@@ -59,6 +79,8 @@ export function evaluateAssessment(input: AssessmentInput): AssessmentResult {
     oneRepMaxKg: n.oneRepMaxKg,
     loadIncrementKg: n.loadIncrementKg,
     painTaskTitles,
+    painCleared: n.painCleared,
+    unknownReason: maturity ? null : unknownReasonOf(n),
     rescreenWeeks: n.rescreenWeeks,
     todayDay: n.todayDay,
     maturity,

@@ -4,7 +4,7 @@
  * rows are met the most severe sets the severity and all are listed.
  */
 import { criterionSide, getTask } from './battery';
-import { meetsThreshold, rowApplies, THRESHOLDS, type Scope, type ThresholdRow } from './thresholds';
+import { derivationText, meetsThreshold, rowApplies, THRESHOLDS, type Scope, type ThresholdRow } from './thresholds';
 import type { Evidence, Flag, FlagSide, Measurement, PatternId, Severity, Sex, TaskId, ThresholdRef } from './types';
 import type { NormalizedAssessment } from './validate';
 
@@ -87,8 +87,13 @@ function makeRef(row: ThresholdRow): ThresholdRef {
     unit: row.unit,
     severity: row.severity,
     source: row.source,
+    sourceKind: row.sourceKind,
+    certainty: row.certainty,
   };
   if (row.upperValue !== undefined) ref.upperValue = row.upperValue;
+  const derivation = derivationText(row);
+  if (derivation !== undefined) ref.derivation = derivation;
+  if (row.populationNote !== undefined) ref.populationNote = row.populationNote;
   return Object.freeze(ref);
 }
 

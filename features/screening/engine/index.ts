@@ -18,6 +18,10 @@ export { maturityOffset, maturityBand, MATURITY_AGE_RANGE } from './maturity';
 export {
   estimateOneRepMax,
   strengthEnduranceLoad,
+  loadRangeKg,
+  withinPercentOfOneRepMax,
+  progressionStepKg,
+  LOAD_PROGRESSION,
   ONE_REP_MAX_REPS,
   STRENGTH_ENDURANCE,
   type OneRepMaxFormula,
@@ -27,7 +31,28 @@ export { evaluateAssessment } from './evaluate';
 
 export { BATTERY, TASK_IDS, getTask, type TaskSpec, type ViewSpec, type CriterionSpec } from './battery';
 export { LANDMARKS, getLandmark, type LandmarkSpec } from './landmarks';
-export { THRESHOLDS, type ThresholdRow } from './thresholds';
+export { THRESHOLDS, derivationText, type ThresholdRow, type DerivedPart } from './thresholds';
+export {
+  STAGE_LIMITS,
+  YOUTH_VOLUME,
+  STRENGTH_ENDURANCE_DEVIATION,
+  exerciseLimits,
+  applyLimits,
+  checkExercise,
+  checkPlan,
+  plannedFromLibrary,
+  loadingContextOf,
+  loadRuleText,
+  librarySpec,
+  isLoadedStrengthWork,
+  type ExerciseLimits,
+  type LimitBreach,
+  type LimitId,
+  type LimitOverride,
+  type StageLimits,
+  type LimitBasis,
+} from './limits';
+export { citationsIn, shortSource, SHORT_CITATIONS } from './sources';
 export { EXERCISES } from './exercises';
 export { PATTERN_TITLES } from './flags';
 export { MAX_EXERCISES, GROWTH_SPURT_ADJUSTMENT } from './plan';

@@ -3,7 +3,7 @@ import { EngineInputError, MATURITY_AGE_RANGE, maturityBand, maturityOffset } fr
 import type { MaturityInput, MaturityMethod } from './types';
 
 // Worked examples computed by hand from the published coefficients (no source
-// prints one). Coefficients: REFERENCES.md section 1, secondary.
+// prints one). Coefficients: read where other texts restate the two papers below (secondary).
 const MIRWALD =
   'Mirwald RL, Baxter-Jones ADG, Bailey DA, Beunen GP. An assessment of maturity from anthropometric measurements. Med Sci Sports Exerc. 2002;34(4):689-694 (coefficients secondary)';
 const MOORE =

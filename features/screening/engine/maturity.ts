@@ -1,7 +1,7 @@
 /**
  * Somatic maturity: years from peak height velocity (PHV) from anthropometry.
- * Coefficients are copied from /work/shared/REFERENCES.md section 1
- * (secondary for the coefficients, see there).
+ * Coefficients from Mirwald et al. 2002 and Moore et al. 2015 (see sources.ts), read where other
+ * texts restate the papers (secondary for the coefficients).
  */
 import { EngineInputError, requireFinite } from './errors';
 import type { MaturityBand, MaturityInput, MaturityMethod, MaturityResult, Sex } from './types';

@@ -5,28 +5,41 @@
  * changes are our design.
  */
 import { EXERCISES, PHASE_ORDER } from './exercises';
-import { loadRangeKg, strengthEnduranceLoad } from './strength';
+import { applyLimits, exerciseLimits, loadRuleText, STAGE_LIMITS, YOUTH_VOLUME } from './limits';
 import {
   COMMON_PRACTICE,
   FAIGENBAUM_2009,
+  OUR_CHOICE,
   HERRINGTON_MUNRO_2010,
   LLOYD_2014,
   MIRWALD_2002,
   MOORE_2015,
   MUNRO_HERRINGTON_CAROLAN_2012,
 } from './sources';
-import type { Caution, ExerciseSpec, Flag, MaturityResult, PatternId, Plan, PlannedExercise, Prescription, Severity } from './types';
+import type {
+  Caution,
+  ExerciseSpec,
+  Flag,
+  GrowthUnknownReason,
+  LoadingContext,
+  MaturityResult,
+  PatternId,
+  Plan,
+  PlannedExercise,
+  Severity,
+  WithheldExercise,
+} from './types';
 import { formatIsoDay } from './validate';
 
 /** Longest session we prescribe: enough to address every pattern, short enough for a junior's attention. */
 export const MAX_EXERCISES = 6;
 
-/** Growth-spurt window changes (our design): lower loading, less jumping. */
+/** Growth-spurt window changes (our choice), as applied by `limits.ts`: lower loading, less jumping. */
 export const GROWTH_SPURT_ADJUSTMENT = {
-  maxPercentOneRepMax: 55,
-  maxSetsLoaded: 3,
-  jumpVolumeFactor: 0.5,
-  maxSetsJump: 2,
+  maxPercentOneRepMax: STAGE_LIMITS.circa.maxPercentOneRepMax,
+  maxSetsLoaded: YOUTH_VOLUME.maxSets,
+  jumpVolumeFactor: STAGE_LIMITS.circa.jumpVolumeFactor,
+  maxSetsJump: STAGE_LIMITS.circa.maxSetsJump,
 } as const;
 
 const SEVERITY_WEIGHT: Record<Severity, number> = { watch: 1, concern: 2 };
@@ -35,9 +48,13 @@ export interface PlanContext {
   oneRepMaxKg: number | undefined;
   loadIncrementKg: number;
   painTaskTitles: readonly string[];
+  /** A physiotherapist has cleared the athlete after the reported pain. */
+  painCleared?: boolean;
   rescreenWeeks: number;
   todayDay: number | null;
   maturity: MaturityResult | null;
+  /** Why there is no maturity estimate (null when there is one). */
+  unknownReason?: GrowthUnknownReason | null;
 }
 
 interface Candidate {
@@ -52,9 +69,10 @@ interface Candidate {
  * still-uncovered severity weight), then fill up to the cap with the
  * highest-scoring exercises left.
  */
-export function selectExercises(flags: readonly Flag[], cap = MAX_EXERCISES): Candidate[] {
+export function selectExercises(flags: readonly Flag[], cap = MAX_EXERCISES, excluded: ReadonlySet<string> = new Set()): Candidate[] {
   const candidates: Candidate[] = [];
   EXERCISES.forEach((spec, index) => {
+    if (excluded.has(spec.id)) return;
     const hit = flags.filter((f) => spec.addresses.includes(f.pattern));
     if (hit.length === 0) return;
     candidates.push({ spec, index, flags: hit, score: hit.reduce((s, f) => s + SEVERITY_WEIGHT[f.severity], 0) });
@@ -91,54 +109,19 @@ export function selectExercises(flags: readonly Flag[], cap = MAX_EXERCISES): Ca
   );
 }
 
-function resolvePrescription(
-  spec: ExerciseSpec,
-  ctx: PlanContext,
-  growthSpurt: boolean,
-): { prescription: Prescription; adjustments: string[] } {
-  const base = spec.prescription;
-  const adjustments: string[] = [];
-  let sets = { ...base.sets };
-  let dose = { ...base.dose };
-  let load = base.load;
+const UNKNOWN_WORDS: Record<GrowthUnknownReason, string> = {
+  'measures-missing': 'the body measures the estimate needs (standing and sitting height, or body mass) were not entered',
+  'age-outside-range': 'the athlete\'s age is outside the range the maturity equations were made for (about 8-16 years for girls, 9-18 for boys)',
+  'not-estimated': 'no growth estimate was made for this screen',
+};
 
-  if (load.kind === 'percent-1rm') {
-    let maxPercent = load.maxPercent;
-    if (growthSpurt) {
-      maxPercent = Math.min(maxPercent, GROWTH_SPURT_ADJUSTMENT.maxPercentOneRepMax);
-      sets = { min: Math.min(sets.min, GROWTH_SPURT_ADJUSTMENT.maxSetsLoaded), max: Math.min(sets.max, GROWTH_SPURT_ADJUSTMENT.maxSetsLoaded) };
-      adjustments.push(
-        `Growth-spurt window: load capped at ${maxPercent}% of 1RM and ${GROWTH_SPURT_ADJUSTMENT.maxSetsLoaded} sets (our design).`,
-      );
-    }
-    if (ctx.oneRepMaxKg !== undefined) {
-      const range =
-        maxPercent === load.maxPercent
-          ? strengthEnduranceLoad(ctx.oneRepMaxKg, ctx.loadIncrementKg)
-          : loadRangeKg(ctx.oneRepMaxKg, ctx.loadIncrementKg, load.minPercent, maxPercent);
-      load = { ...load, maxPercent, kg: { min: range.minKg, max: range.maxKg, incrementKg: ctx.loadIncrementKg } };
-    } else {
-      load = {
-        ...load,
-        maxPercent,
-        kg: null,
-        note: `${load.note} No 1RM recorded: use bodyweight until a 1RM has been estimated from a submaximal set under qualified supervision.`,
-      };
-    }
-  }
-
-  if (growthSpurt && spec.isJump) {
-    const f = GROWTH_SPURT_ADJUSTMENT.jumpVolumeFactor;
-    dose = { ...dose, min: Math.max(1, Math.ceil(dose.min * f)), max: Math.max(1, Math.ceil(dose.max * f)) };
-    sets = { min: Math.min(sets.min, GROWTH_SPURT_ADJUSTMENT.maxSetsJump), max: Math.min(sets.max, GROWTH_SPURT_ADJUSTMENT.maxSetsJump) };
-    adjustments.push('Growth-spurt window: landing volume halved and at most 2 sets (our design).');
-  }
-
-  return { prescription: { ...base, sets, dose, load }, adjustments };
-}
-
-function cautionsFor(flags: readonly Flag[], ctx: PlanContext, growthSpurt: boolean): Caution[] {
+function cautionsFor(flags: readonly Flag[], ctx: PlanContext, loading: LoadingContext, growthSpurt: boolean): Caution[] {
   const out: Caution[] = [
+    {
+      id: 'stop-on-pain',
+      text: 'Stop on pain: if any exercise hurts, during the session or afterwards, stop it, tell the coach, and see a physiotherapist before doing it again.',
+      source: COMMON_PRACTICE,
+    },
     {
       id: 'not-a-diagnosis',
       text: 'These results describe how the athlete moved on the day of the screen. They are not a diagnosis and do not rule out injury.',
@@ -153,14 +136,29 @@ function cautionsFor(flags: readonly Flag[], ctx: PlanContext, growthSpurt: bool
   if (ctx.painTaskTitles.length > 0) {
     out.push({
       id: 'pain-reported',
-      text: `Pain was reported during: ${ctx.painTaskTitles.join(', ')}. Stop those tasks and refer the athlete to a physiotherapist or doctor; start this plan only once they have cleared it, and follow their advice over this plan.`,
+      text: loading.painUncleared
+        ? `Pain was reported during: ${ctx.painTaskTitles.join(', ')}. Refer the athlete to a physiotherapist or doctor. Until a physiotherapist clears the athlete, no loaded strength work and no landing work: only the exercises listed here, and only where they are pain-free. Follow their advice over this plan.`
+        : `Pain was reported during: ${ctx.painTaskTitles.join(', ')}. A physiotherapist has cleared the athlete; follow their advice over this plan.`,
       source: null,
+    });
+  }
+  if (loading.stage === 'unknown') {
+    out.push({
+      id: 'growth-stage-unknown',
+      text: `Growth stage unknown: ${UNKNOWN_WORDS[loading.unknownReason ?? 'not-estimated']}. The plan applies the cautious limits of the growth-spurt window (at most ${STAGE_LIMITS.unknown.maxPercentOneRepMax}% of 1RM, at most ${YOUTH_VOLUME.maxSets} sets, no sets to fatigue, landing volume halved) until a growth estimate is made (our choice).`,
+      source: OUR_CHOICE,
+    });
+  } else if (loading.stage === 'pre') {
+    out.push({
+      id: 'youth-volume',
+      text: `Before the growth spurt: youth volume only (at most ${YOUTH_VOLUME.maxSets} sets of ${YOUTH_VOLUME.minReps}-${YOUTH_VOLUME.maxReps} repetitions, no sets to fatigue, at most ${STAGE_LIMITS.pre.maxPercentOneRepMax}% of 1RM).`,
+      source: FAIGENBAUM_2009,
     });
   }
   if (growthSpurt && ctx.maturity) {
     out.push({
       id: 'growth-spurt-window',
-      text: `The athlete appears to be in the growth-spurt window (${ctx.maturity.offsetYears.toFixed(1)} years from peak height velocity). Loads are lowered and jump and landing volume is cut (our design). Watch the knees: pain at the front of the knee, below the kneecap or at the heel is a reason to stop and refer.`,
+      text: `The athlete appears to be in the growth-spurt window (${ctx.maturity.offsetYears.toFixed(1)} years from peak height velocity). Loads are lowered and jump and landing volume is cut (our choice). Watch the knees: pain at the front of the knee, below the kneecap or at the heel is a reason to stop and refer.`,
       source: COMMON_PRACTICE,
     });
   }
@@ -174,17 +172,36 @@ function cautionsFor(flags: readonly Flag[], ctx: PlanContext, growthSpurt: bool
   if (flags.some((f) => f.thresholdsMet.some((t) => t.rowId.startsWith('fppa-')))) {
     out.push({
       id: 'adult-knee-norms',
-      text: 'Knee-angle thresholds come from adult norms and are applied to juniors for want of junior norms. A change between two screens smaller than about 8 degrees may be measurement error.',
+      text: 'Knee-angle thresholds come from adult norms and are applied to juniors for want of junior norms. A change between two screens smaller than about 7.5 degrees (the smallest detectable difference) may be measurement error.',
       source: `${HERRINGTON_MUNRO_2010}; ${MUNRO_HERRINGTON_CAROLAN_2012}`,
     });
   }
   return out;
 }
 
+export function loadingContextFor(ctx: PlanContext): LoadingContext {
+  return {
+    stage: ctx.maturity?.band ?? 'unknown',
+    unknownReason: ctx.maturity ? null : (ctx.unknownReason ?? 'not-estimated'),
+    painUncleared: ctx.painTaskTitles.length > 0 && ctx.painCleared !== true,
+    oneRepMaxKg: ctx.oneRepMaxKg ?? null,
+    loadIncrementKg: ctx.loadIncrementKg,
+  };
+}
+
 export function buildPlan(flags: readonly Flag[], ctx: PlanContext): Plan {
   const growthSpurt = flags.some((f) => f.pattern === 'growth-spurt-window');
-  const exercises: PlannedExercise[] = selectExercises(flags).map((c, i) => {
-    const { prescription, adjustments } = resolvePrescription(c.spec, ctx, growthSpurt);
+  const loading = loadingContextFor(ctx);
+  // What would have been planned, then without what the limits hold back (pain not cleared).
+  const held = new Set(EXERCISES.filter((spec) => exerciseLimits(spec, loading).withheld !== null).map((spec) => spec.id));
+  const withheld: WithheldExercise[] =
+    held.size === 0
+      ? []
+      : selectExercises(flags)
+          .filter((c) => held.has(c.spec.id))
+          .map((c) => ({ id: c.spec.id, name: c.spec.name, reason: exerciseLimits(c.spec, loading).withheld ?? '' }));
+  const exercises: PlannedExercise[] = selectExercises(flags, MAX_EXERCISES, held).map((c, i) => {
+    const { prescription, adjustments } = applyLimits(c.spec, loading);
     const patterns = [...new Set<PatternId>(c.flags.map((f) => f.pattern))];
     const s = c.spec;
     // Fields copied one by one: object rest/spread of the spec was the benchmark's hottest line.
@@ -204,16 +221,18 @@ export function buildPlan(flags: readonly Flag[], ctx: PlanContext): Plan {
       flagIds: c.flags.map((f) => f.id),
       patterns,
       adjustments,
+      loadRule: loadRuleText(s, prescription),
     };
   });
   return {
-    status: ctx.painTaskTitles.length > 0 ? 'clearance-needed' : 'ready',
+    status: ctx.painTaskTitles.length > 0 && loading.painUncleared ? 'clearance-needed' : 'ready',
     exercises,
     maxExercises: MAX_EXERCISES,
     growthSpurtAdjusted: growthSpurt,
     rescreenWeeks: ctx.rescreenWeeks,
     rescreenDate: ctx.todayDay === null ? null : formatIsoDay(ctx.todayDay + ctx.rescreenWeeks * 7),
-    cautions: cautionsFor(flags, ctx, growthSpurt),
+    cautions: cautionsFor(flags, ctx, loading, growthSpurt),
+    loading,
+    withheld,
   };
 }
-

@@ -3,6 +3,8 @@ import { describe, expect, it } from 'vitest';
 import { PATTERN_ORDER } from './flags';
 import {
   EngineInputError,
+  EXERCISES,
+  exerciseLimits,
   evaluateAssessment,
   frontalPlaneProjectionAngle,
   kneeFlexion,
@@ -33,8 +35,13 @@ function checkResult(result: AssessmentResult): void {
   const planned = result.plan.exercises;
   expect(planned.length).toBeLessThanOrEqual(MAX_EXERCISES);
   expect(new Set(planned.map((e) => e.id)).size).toBe(planned.length);
+  const held = new Set((result.plan.withheld ?? []).map((w) => w.id));
   for (const f of result.flags) {
-    expect(planned.some((e) => e.flagIds.includes(f.id)), `flag ${f.id} has no exercise`).toBe(true);
+    if (planned.some((e) => e.flagIds.includes(f.id))) continue;
+    // Only pain not yet cleared may leave a flag without an exercise: everything for it is held back.
+    expect(result.plan.loading?.painUncleared, `flag ${f.id} has no exercise`).toBe(true);
+    expect(EXERCISES.filter((e) => e.addresses.includes(f.pattern)).every((e) => exerciseLimits(e, result.plan.loading!).withheld !== null), `flag ${f.id} has no exercise`).toBe(true);
+    expect(held.size).toBeGreaterThan(0);
   }
   expect(new Set(result.flags.map((f) => f.id)).size).toBe(result.flags.length);
   expect(new Set(result.measurements.map((m) => m.id)).size).toBe(result.measurements.length);
@@ -103,7 +110,7 @@ describe('properties: plan selection', () => {
           side: f.side,
           severity: f.severity,
           evidence: [],
-          threshold: { rowId: 'x', comparison: 'greater-than', value: 0, unit: 'deg', severity: f.severity, source: 'test' },
+          threshold: { rowId: 'x', comparison: 'greater-than', value: 0, unit: 'deg', severity: f.severity, source: 'test', sourceKind: 'our-choice', certainty: 'no source' },
           source: 'test',
           thresholdsMet: [],
         }),
@@ -200,13 +207,19 @@ describe('properties: geometry', () => {
         fc.double({ min: 5, max: 300, noNaN: true }),
         fc.constantFrom(0.5, 1, 1.25, 2, 2.5, 5),
         (orm, inc) => {
-          fc.pre(inc <= orm);
           const r = strengthEnduranceLoad(orm, inc);
+          if (r.minKg === null || r.maxKg === null) {
+            // Nothing fits only when the range is narrower than one step.
+            expect(orm * 0.15).toBeLessThan(inc);
+            return;
+          }
           expect(r.minKg).toBeLessThanOrEqual(r.maxKg);
-          expect(Math.abs(r.minKg - orm * 0.5)).toBeLessThanOrEqual(inc / 2 + 1e-9);
-          expect(Math.abs(r.maxKg - orm * 0.65)).toBeLessThanOrEqual(inc / 2 + 1e-9);
-          const steps = r.maxKg / inc;
-          expect(Math.abs(steps - Math.round(steps))).toBeLessThan(1e-6);
+          expect(r.minKg - orm * 0.5).toBeLessThan(inc + 1e-9);
+          expect(orm * 0.65 - r.maxKg).toBeLessThan(inc + 1e-9);
+          for (const kg of [r.minKg, r.maxKg]) {
+            const steps = kg / inc;
+            expect(Math.abs(steps - Math.round(steps))).toBeLessThan(1e-6);
+          }
         },
       ),
     );

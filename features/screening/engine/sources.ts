@@ -1,12 +1,14 @@
 /**
  * Published sources the engine relies on, named in full once so thresholds,
- * cautions and tests quote them identically. Certainty follows
- * /work/shared/REFERENCES.md: "checked" (read in the source or its abstract),
- * "secondary" (read in a text restating it), "from memory".
+ * cautions and tests quote them identically. Certainty: "checked" (read in
+ * the source or its abstract), "secondary" (read in a text restating it),
+ * "from memory" (recalled, not verified), "no source".
  */
 
 export const COMMON_PRACTICE = 'common practice, no source';
 export const FROM_MEMORY = 'from memory';
+/** A rule Squadline's authors designed: not common practice, and not a published value. */
+export const OUR_CHOICE = 'our choice, no source';
 
 export const HERRINGTON_MUNRO_2010 =
   'Herrington L, Munro A. Drop jump landing knee valgus angle; normative data in a physically active population. Phys Ther Sport. 2010;11(2):56-59. doi:10.1016/j.ptsp.2009.11.004';
@@ -43,3 +45,39 @@ export const LLOYD_2014 =
 
 export const CROSSLEY_2011 =
   'Crossley KM, Zhang WJ, Schache AG, Bryant A, Cowan SM. Performance on the single-leg squat task indicates hip abductor muscle function. Am J Sports Med. 2011;39(4):866-873.';
+
+export const ACSM_2009 =
+  'American College of Sports Medicine. Progression models in resistance training for healthy adults. Med Sci Sports Exerc. 2009;41(3):687-708.';
+
+/** Short names for the screen ("Herrington & Munro 2010"); the full reference sits behind a "sources" disclosure. */
+export const SHORT_CITATIONS: ReadonlyArray<{ short: string; full: string }> = [
+  { short: 'Herrington & Munro 2010', full: HERRINGTON_MUNRO_2010 },
+  { short: 'Munro, Herrington & Carolan 2012', full: MUNRO_HERRINGTON_CAROLAN_2012 },
+  { short: 'Backman & Danielson 2011', full: BACKMAN_DANIELSON_2011 },
+  { short: 'Bennell et al. 1998', full: BENNELL_1998 },
+  { short: 'Powden, Hoch & Hoch 2015', full: POWDEN_2015 },
+  { short: 'Mirwald et al. 2002', full: MIRWALD_2002 },
+  { short: 'Moore et al. 2015', full: MOORE_2015 },
+  { short: 'Epley 1985', full: EPLEY_1985 },
+  { short: 'Brzycki 1993', full: BRZYCKI_1993 },
+  { short: 'Faigenbaum et al. 2009', full: FAIGENBAUM_2009 },
+  { short: 'Lloyd et al. 2014', full: LLOYD_2014 },
+  { short: 'Crossley et al. 2011', full: CROSSLEY_2011 },
+  { short: 'ACSM 2009', full: ACSM_2009 },
+];
+
+/**
+ * The published works a source text cites, as short and full references, in the order they appear.
+ * "common practice, no source" and other text without a known reference give an empty list.
+ */
+export function citationsIn(source: string | null | undefined): Array<{ short: string; full: string }> {
+  if (!source) return [];
+  return SHORT_CITATIONS.filter((c) => source.includes(c.full)).sort((a, b) => source.indexOf(a.full) - source.indexOf(b.full));
+}
+
+/** "Herrington & Munro 2010; Munro, Herrington & Carolan 2012", or the text itself when it cites no known work. */
+export function shortSource(source: string | null | undefined): string {
+  const cited = citationsIn(source);
+  if (cited.length > 0) return cited.map((c) => c.short).join('; ');
+  return source ?? '';
+}

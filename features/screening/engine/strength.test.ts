@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { asymmetry, EngineInputError, estimateOneRepMax, limbSymmetryIndex, strengthEnduranceLoad } from './index';
+import { asymmetry, EngineInputError, estimateOneRepMax, limbSymmetryIndex, loadRangeKg, progressionStepKg, strengthEnduranceLoad } from './index';
 import type { OneRepMaxFormula } from './index';
 
 const EPLEY = 'Epley B. Poundage Chart. Boyd Epley Workout. Lincoln, NE: Body Enterprises; 1985 (secondary)';
@@ -62,18 +62,27 @@ describe('estimateOneRepMax', () => {
   });
 });
 
-describe(`strengthEnduranceLoad: 50-65% of 1RM, 3-4 sets (${COMMON})`, () => {
-  it.each<[number, number, number, number, string]>([
+describe(`strengthEnduranceLoad: 50-65% of 1RM, 3-4 sets (${COMMON}); top rounded down, bottom up (our choice)`, () => {
+  it.each<[number, number, number | null, number | null, string]>([
+    // 50 and 65 kg are whole steps of 1.25 kg.
     [100, 1.25, 50, 65, COMMON],
-    // 40 and 52 kg; 52 / 2.5 = 20.8 steps -> 21 -> 52.5
-    [80, 2.5, 40, 52.5, COMMON],
-    // 18.5 / 2 = 9.25 -> 9 -> 18; 24.05 / 2 = 12.025 -> 12 -> 24
-    [37, 2, 18, 24, COMMON],
-    // 30.5 exactly; 39.65 / 0.5 = 79.3 -> 79 -> 39.5
+    // 40 kg; 52 / 2.5 = 20.8 steps -> down to 20 -> 50 kg (rounding to the nearest gave 52.5 kg = 65.6%).
+    [80, 2.5, 40, 50, COMMON],
+    // 18.5 / 2 = 9.25 -> up to 10 -> 20 kg; 24.05 / 2 = 12.025 -> down to 12 -> 24 kg.
+    [37, 2, 20, 24, COMMON],
+    // 30.5 exactly; 39.65 / 0.5 = 79.3 -> 79 -> 39.5.
     [61, 0.5, 30.5, 39.5, COMMON],
-    // 0.1 kg steps must not produce binary noise: 3.3 / 0.1 = 33 -> 3.3
-    [6.6, 0.1, 3.3, 4.3, COMMON],
-  ])('1RM %f kg, step %f kg -> %f to %f kg (%s)', (orm, inc, min, max) => {
+    // 0.1 kg steps must not produce binary noise: 3.3 / 0.1 = 33 -> 3.3; 4.29 -> 42 -> 4.2.
+    [6.6, 0.1, 3.3, 4.2, COMMON],
+    // A small 1RM with the usual 2.5 kg step: 5 to 6.5 kg -> only 5 kg fits (50%); rounding to the nearest gave 7.5 kg = 75%.
+    [10, 2.5, 5, 5, COMMON],
+    // 3 to 3.9 kg: no multiple of 2.5 kg fits (2.5 kg = 42%, 5 kg = 83%): no load, bodyweight instead.
+    [6, 2.5, null, null, COMMON],
+    // A coarse step: 2.5 to 3.25 kg with 5 kg plates; rounding to the nearest gave 5 kg = 100% of 1RM.
+    [5, 5, null, null, COMMON],
+    // The step is coarser than the 1RM itself: nothing fits.
+    [4, 5, null, null, COMMON],
+  ])('1RM %f kg, step %f kg -> %s to %s kg (%s)', (orm, inc, min, max) => {
     const r = strengthEnduranceLoad(orm, inc);
     expect(r.minKg).toBe(min);
     expect(r.maxKg).toBe(max);
@@ -85,14 +94,34 @@ describe(`strengthEnduranceLoad: 50-65% of 1RM, 3-4 sets (${COMMON})`, () => {
     expect(r.rangeOfMotion).toMatch(/full range/);
   });
 
+  it('a growth-spurt cap: 50-55% of an 80 kg 1RM in 2.5 kg steps is 40-42.5 kg (44 kg rounded down)', () => {
+    expect(loadRangeKg(80, 2.5, 50, 55)).toEqual({ minKg: 40, maxKg: 42.5 });
+  });
+
   it.each<[string, number, number, string]>([
     ['zero 1RM', 0, 2.5, 'oneRepMaxKg'],
     ['negative 1RM', -50, 2.5, 'oneRepMaxKg'],
     ['zero increment', 80, 0, 'incrementKg'],
-    ['increment coarser than the 1RM', 4, 5, 'incrementKg'],
     ['NaN increment', 80, Number.NaN, 'incrementKg'],
   ])('refuses %s', (_n, orm, inc, field) => {
     expect(() => strengthEnduranceLoad(orm, inc)).toThrow(expect.objectContaining({ name: 'EngineInputError', field }));
+  });
+});
+
+const LOAD_STEPS = 'Faigenbaum et al. 2009, J Strength Cond Res 23(5 Suppl):S60-S79: load increases of about 5-10% (from memory)';
+
+describe(`progressionStepKg: the largest step of at most 10% (${LOAD_STEPS})`, () => {
+  it.each<[number, number, number | null]>([
+    // 10% of 40 kg = 4 kg -> one 2.5 kg step (6.25%).
+    [40, 2.5, 2.5],
+    // 10% of 50 kg = 5 kg -> four 1.25 kg steps (10%).
+    [50, 1.25, 5],
+    // 10% of 20 kg = 2 kg: one 2.5 kg step would be 12.5%: add repetitions first.
+    [20, 2.5, null],
+    // 10% of 100 kg = 10 kg -> five 2 kg steps.
+    [100, 2, 10],
+  ])('working load %f kg, step %f kg -> %s kg', (kg, inc, expected) => {
+    expect(progressionStepKg(kg, inc)).toBe(expected);
   });
 });
 

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { BATTERY, pairTasks } from './battery';
 import { detectFlags, PATTERN_ORDER, type Observation } from './flags';
 import * as SOURCES from './sources';
-import { THRESHOLDS, type ThresholdRow } from './thresholds';
+import { derivationText, FPPA_SINGLE_MEASUREMENT_MARGIN_DEG, THRESHOLDS, type ThresholdRow } from './thresholds';
 import type { Measurement, PairId, Sex, TaskId } from './types';
 
 const HM2010 =
@@ -23,13 +23,13 @@ const EXPECTED: ReadonlyArray<
   [rowId: string, value: number, unit: string, atFlags: boolean, belowFlags: boolean, aboveFlags: boolean, step: number, source: string, bound?: Bound]
 > = [
   ['fppa-bilateral-female-watch', 13, 'deg', false, false, true, 0.01, `${HM2010}: drop jump, females 7-13 deg, upper end (adult norms)`],
-  ['fppa-bilateral-female-concern', 20.54, 'deg', false, false, true, 0.01, `${HM2010} 13 deg + ${MUNRO2012} SDD 7.54 deg`],
+  ['fppa-bilateral-female-concern', 18.33, 'deg', false, false, true, 0.01, `${HM2010} 13 deg + 1.96 x ${MUNRO2012} SEM 2.72 deg (5.33)`],
   ['fppa-bilateral-male-watch', 8, 'deg', false, false, true, 0.01, `${HM2010}: drop jump, males 3-8 deg, upper end (adult norms)`],
-  ['fppa-bilateral-male-concern', 15.54, 'deg', false, false, true, 0.01, `${HM2010} 8 deg + ${MUNRO2012} SDD 7.54 deg`],
+  ['fppa-bilateral-male-concern', 13.33, 'deg', false, false, true, 0.01, `${HM2010} 8 deg + 1.96 x ${MUNRO2012} SEM 2.72 deg (5.33)`],
   ['fppa-single-leg-female-watch', 12, 'deg', false, false, true, 0.01, `${HM2010}: step landing, females 5-12 deg, upper end (adult norms)`],
-  ['fppa-single-leg-female-concern', 19.54, 'deg', false, false, true, 0.01, `${HM2010} 12 deg + ${MUNRO2012} SDD 7.54 deg`],
+  ['fppa-single-leg-female-concern', 17.33, 'deg', false, false, true, 0.01, `${HM2010} 12 deg + 1.96 x ${MUNRO2012} SEM 2.72 deg (5.33)`],
   ['fppa-single-leg-male-watch', 9, 'deg', false, false, true, 0.01, `${HM2010}: step landing, males 1-9 deg, upper end (adult norms)`],
-  ['fppa-single-leg-male-concern', 16.54, 'deg', false, false, true, 0.01, `${HM2010} 9 deg + ${MUNRO2012} SDD 7.54 deg`],
+  ['fppa-single-leg-male-concern', 14.33, 'deg', false, false, true, 0.01, `${HM2010} 9 deg + 1.96 x ${MUNRO2012} SEM 2.72 deg (5.33)`],
   ['knee-valgus-observed', 1, 'criteria', true, false, true, 1, COMMON],
   ['pelvic-drop-watch', 5, 'deg', false, false, true, 0.01, COMMON],
   ['pelvic-drop-concern', 10, 'deg', false, false, true, 0.01, COMMON],
@@ -128,16 +128,15 @@ describe('threshold table', () => {
     for (const p of PATTERN_ORDER) expect(THRESHOLDS.some((r) => r.pattern === p)).toBe(true);
   });
 
-  it('every row names a known source in full, common practice, or from memory', () => {
-    const citations = new Set<string>(
-      Object.values(SOURCES).filter((s) => s !== SOURCES.COMMON_PRACTICE && s !== SOURCES.FROM_MEMORY),
-    );
+  it('every row names a known source in full, common practice, or our choice, with a kind and a certainty', () => {
+    const citations = new Set<string>(SOURCES.SHORT_CITATIONS.map((c) => c.full));
     for (const r of THRESHOLDS) {
       if (r.sourceKind === 'common-practice') {
         expect(r.source, r.id).toBe(SOURCES.COMMON_PRACTICE);
-        expect(r.certainty, r.id).toBeNull();
-      } else if (r.sourceKind === 'from-memory') {
-        expect(r.source, r.id).toMatch(/from memory/);
+        expect(r.certainty, r.id).toBe('no source');
+      } else if (r.sourceKind === 'our-choice') {
+        expect(r.source, r.id).toBe(SOURCES.OUR_CHOICE);
+        expect(r.certainty, r.id).toBe('no source');
       } else {
         // Titles contain semicolons, so strip the known citations rather than split.
         let rest = r.source;
@@ -148,10 +147,54 @@ describe('threshold table', () => {
         }
         expect(found, r.id).toBeGreaterThan(0);
         expect(rest.replace(/[;\s]/g, ''), `${r.id}: unknown text in source`).toBe('');
-        expect(r.certainty, r.id).not.toBeNull();
+        expect(['checked', 'secondary', 'from memory'], r.id).toContain(r.certainty);
       }
       expect(r.note.length, r.id).toBeGreaterThan(10);
     }
+  });
+
+  it('a derived value names its published parts, and they add up to it', () => {
+    const derived = THRESHOLDS.filter((r) => r.sourceKind === 'derived');
+    expect(derived.length).toBeGreaterThan(0);
+    for (const r of derived) {
+      expect(r.derivedFrom?.length, r.id).toBeGreaterThan(0);
+      const sum = r.derivedFrom!.reduce((s, p) => s + p.value, 0);
+      expect(sum, r.id).toBeCloseTo(r.value, 9);
+      for (const p of r.derivedFrom!) expect(SOURCES.citationsIn(p.source).length, `${r.id}: ${p.what}`).toBeGreaterThan(0);
+      expect(derivationText(r), r.id).toBeDefined();
+    }
+    for (const r of THRESHOLDS.filter((x) => x.sourceKind !== 'derived')) expect(r.derivedFrom, r.id).toBeUndefined();
+  });
+
+  it('a single measurement against a cut-off uses 1.96 x SEM; a left-right difference uses the smallest detectable difference', () => {
+    // Munro, Herrington, Carolan 2012 (checked): SEM 2.72-3.01 deg, SDD 7.54-8.93 deg. 1.96 x 2.72 = 5.3312.
+    expect(FPPA_SINGLE_MEASUREMENT_MARGIN_DEG).toBe(5.33);
+    for (const r of THRESHOLDS.filter((x) => x.id.startsWith('fppa-') && x.id.endsWith('-concern'))) {
+      expect(r.derivedFrom?.[1]).toMatchObject({ value: 5.33, formula: '1.96 x 2.72' });
+    }
+    expect(row('fppa-difference').derivedFrom?.[0]?.value).toBe(7.54);
+    // SDD = 1.96 x sqrt(2) x SEM: 1.96 x 1.4142 x 2.72 = 7.54 (the published lower ends agree).
+    expect(1.96 * Math.SQRT2 * 2.72).toBeCloseTo(7.54, 2);
+  });
+
+  it('a value from another population says who beside the flag', () => {
+    for (const r of THRESHOLDS.filter((x) => x.sourceKind === 'published-other-population')) {
+      expect(r.populationNote, r.id).toMatch(/applied to/);
+    }
+    for (const r of THRESHOLDS.filter((x) => x.population.ageGroup.includes('adult'))) {
+      expect(r.populationNote, r.id).toMatch(/[Aa]dult/);
+    }
+  });
+
+  it('flags carry the kind, the certainty and the population note into the result', () => {
+    const flags = detectFlags(
+      [{ id: 'drop-landing/fppa/left', metric: 'fppa', taskId: 'drop-landing', side: 'left', value: 30, unit: 'deg', label: 'test' }],
+      [],
+      'female',
+    );
+    expect(flags[0]?.threshold).toMatchObject({ sourceKind: 'derived', certainty: 'checked' });
+    expect(flags[0]?.threshold.derivation).toMatch(/13° .*Herrington & Munro 2010.* \+ 5\.33° .*1\.96 x the standard error.* = 18\.33°/);
+    expect(flags[0]?.threshold.populationNote).toMatch(/Adult norms/);
   });
 
   it('knee valgus rows are sex-specific and say they are adult norms (Herrington & Munro 2010)', () => {
@@ -187,8 +230,8 @@ describe('sex-specific knee valgus thresholds (Herrington & Munro 2010, adult no
   it.each<[TaskId, number, Sex, 'watch' | 'concern' | null, string]>([
     ['drop-landing', 10, 'female', null, `${HM2010}: 10 deg is inside the female drop-jump range 7-13`],
     ['drop-landing', 10, 'male', 'watch', `${HM2010}: 10 deg is above the male drop-jump range 3-8`],
-    ['drop-landing', 16, 'male', 'concern', `${HM2010} + ${MUNRO2012}: above 8 + 7.54`],
-    ['drop-landing', 16, 'female', 'watch', `${HM2010}: above 13, below 13 + 7.54`],
+    ['drop-landing', 16, 'male', 'concern', `${HM2010} + ${MUNRO2012}: above 8 + 1.96 x 2.72`],
+    ['drop-landing', 16, 'female', 'watch', `${HM2010}: above 13, below 13 + 1.96 x 2.72`],
     ['single-leg-squat-left', 12.5, 'female', 'watch', `${HM2010}: above the female step-landing range 5-12`],
     ['single-leg-squat-left', 8.5, 'male', null, `${HM2010}: inside the male step-landing range 1-9`],
     ['knee-to-wall-left', 40, 'female', null, 'FPPA is not measured in the knee-to-wall task: no row applies'],

@@ -2,11 +2,16 @@
  * THE threshold table: every number that turns a measurement or a ticked
  * criterion into a flag. Nothing else in the engine holds a cut-off.
  *
- * Each row names its source in full (a published study from
- * /work/shared/REFERENCES.md), or says `common practice, no source`, or
- * `from memory`. `note` says how we use the source and which part is our own
- * choice. `population` describes who the source's numbers come from, which is
- * not always who we apply them to (juniors).
+ * Each row names its source in full (author, year, title, journal; see
+ * sources.ts), or says `common practice, no source` or `our choice, no source`.
+ * `sourceKind` says what kind of basis the value has, `certainty` how sure we
+ * are of it, `note` how we use the source. `population` describes who the
+ * source's numbers come from, which is not always who we apply them to
+ * (juniors); `populationNote` says so beside the flag. A derived value names
+ * its published parts in `derivedFrom`, and they add up to the value (tested).
+ *
+ * The engine README's threshold table is generated from this table
+ * (`npm run docs:thresholds`); a test fails when the two disagree.
  */
 import {
   BACKMAN_DANIELSON_2011,
@@ -15,9 +20,11 @@ import {
   CROSSLEY_2011,
   HERRINGTON_MUNRO_2010,
   MUNRO_HERRINGTON_CAROLAN_2012,
+  OUR_CHOICE,
   POWDEN_2015,
+  shortSource,
 } from './sources';
-import type { Comparison, MetricId, PairId, PatternId, Severity, Sex, TaskId, Unit } from './types';
+import type { Certainty, Comparison, MetricId, PairId, PatternId, Severity, Sex, SourceKind, TaskId, Unit } from './types';
 
 export type Scope = TaskId | PairId;
 
@@ -35,21 +42,43 @@ export interface ThresholdRow {
   /** Tasks or pairs the row applies to; 'all' for observed criteria and athlete-level values. */
   appliesTo: readonly Scope[] | 'all';
   source: string;
-  sourceKind: 'published' | 'common-practice' | 'from-memory';
-  /** How sure we are of the published value (REFERENCES.md); null when there is no source. */
-  certainty: 'checked' | 'secondary' | 'from memory' | null;
+  sourceKind: SourceKind;
+  /** How sure we are of the value: 'no source' for common practice and our choices. */
+  certainty: Certainty;
+  /** Only for sourceKind 'derived': the published parts, which add up to `value`. */
+  derivedFrom?: readonly DerivedPart[];
+  /** Shown beside the flag when the source's people differ from ours. */
+  populationNote?: string;
   note: string;
+}
+
+export interface DerivedPart {
+  what: string;
+  value: number;
+  /** How the part was computed from the published figure, when it was (e.g. "1.96 x 2.72"). */
+  formula?: string;
+  source: string;
+  certainty: Certainty;
 }
 
 /** Smallest detectable difference for 2D FPPA, lower end of 7.54-8.93 deg (Munro, Herrington, Carolan 2012, checked). */
 export const FPPA_SMALLEST_DETECTABLE_DIFFERENCE_DEG = 7.54;
+/** Standard error of measurement for 2D FPPA, lower end of 2.72-3.01 deg (Munro, Herrington, Carolan 2012, checked). */
+export const FPPA_SEM_DEG = 2.72;
+/**
+ * 95% margin for ONE measurement against a cut-off: 1.96 x SEM = 5.33 deg (rounded to 0.01). A change
+ * between two screens uses the smallest detectable difference instead (1.96 x sqrt(2) x SEM).
+ */
+export const FPPA_SINGLE_MEASUREMENT_MARGIN_DEG = Math.round(1.96 * FPPA_SEM_DEG * 100) / 100;
+
+const ADULT_POPULATION_NOTE = 'Adult norms (100 physically active adults), applied to a junior: no junior norms were found.';
 
 const BILATERAL_FPPA_TASKS: readonly Scope[] = ['two-leg-squat', 'drop-landing'];
 const SINGLE_LEG_FPPA_TASKS: readonly Scope[] = ['single-leg-squat-left', 'single-leg-squat-right', 'racket-side-lunge'];
 const ADULT_NORMS_NOTE =
   'Adult norms (100 physically active adults), applied to juniors for want of junior norms. Using the upper end of the normal range as the cut-off is our choice: no validated cut-off exists.';
 const CONCERN_FPPA_NOTE =
-  'Concern = upper end of the adult normal range plus the smallest detectable difference (7.54 deg, lower end of 7.54-8.93), i.e. beyond normal by more than measurement error: our choice.';
+  'Concern = upper end of the adult normal range plus the 95% measurement-error margin of one measurement (1.96 x SEM, SEM 2.72 deg = lower end of 2.72-3.01), i.e. beyond normal by more than measurement error. Derived by us; no published cut-off.';
 const OBSERVED_NOTE =
   'One ticked criterion that describes the pattern raises a watch flag: our design.';
 
@@ -68,9 +97,10 @@ function fppaRows(
     unit: 'deg' as const,
     population: { sex, ageGroup: 'adults (physically active)' },
     appliesTo,
-    sourceKind: 'published' as const,
     certainty: 'checked' as const,
+    populationNote: ADULT_POPULATION_NOTE,
   };
+  const who = sex === 'female' ? 'females' : 'males';
   return [
     {
       ...base,
@@ -78,16 +108,28 @@ function fppaRows(
       value: upperNormal,
       severity: 'watch',
       source: HERRINGTON_MUNRO_2010,
-      note: `${task} normal range, ${sex === 'female' ? 'females' : 'males'} ${normalRange} deg; we use the upper end. ${ADULT_NORMS_NOTE}`,
+      sourceKind: 'published-other-population',
+      note: `${task} normal range, ${who} ${normalRange} deg; we use the upper end. ${ADULT_NORMS_NOTE}`,
     },
     {
       ...base,
       id: `fppa-${kind}-${sex}-concern`,
       // Written as a sum so the origin of the number stays visible.
-      value: Math.round((upperNormal + FPPA_SMALLEST_DETECTABLE_DIFFERENCE_DEG) * 100) / 100,
+      value: Math.round((upperNormal + FPPA_SINGLE_MEASUREMENT_MARGIN_DEG) * 100) / 100,
       severity: 'concern',
       source: `${HERRINGTON_MUNRO_2010}; ${MUNRO_HERRINGTON_CAROLAN_2012}`,
-      note: `${upperNormal} + 7.54 deg. ${CONCERN_FPPA_NOTE} ${ADULT_NORMS_NOTE}`,
+      sourceKind: 'derived',
+      derivedFrom: [
+        { what: `upper end of the adult normal range, ${task.toLowerCase()}, ${who}`, value: upperNormal, source: HERRINGTON_MUNRO_2010, certainty: 'checked' },
+        {
+          what: '95% margin of one measurement, 1.96 x the standard error of measurement of 2.72 deg (lower end of 2.72-3.01)',
+          value: FPPA_SINGLE_MEASUREMENT_MARGIN_DEG,
+          formula: '1.96 x 2.72',
+          source: MUNRO_HERRINGTON_CAROLAN_2012,
+          certainty: 'checked',
+        },
+      ],
+      note: `${upperNormal} + 1.96 x 2.72 deg. ${CONCERN_FPPA_NOTE} ${ADULT_NORMS_NOTE}`,
     },
   ];
 }
@@ -110,9 +152,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     severity: 'watch',
     population: { sex: 'any', ageGroup: 'not specified' },
     appliesTo: 'all',
-    source: COMMON_PRACTICE,
-    sourceKind: 'common-practice',
-    certainty: null,
+    source: OUR_CHOICE,
+    sourceKind: 'our-choice',
+    certainty: 'no source',
     note: `${OBSERVED_NOTE} The single-leg squat criteria follow the areas of ${CROSSLEY_2011}`,
   },
 
@@ -127,9 +169,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     severity: 'watch',
     population: { sex: 'any', ageGroup: 'not specified' },
     appliesTo: ['single-leg-squat-left', 'single-leg-squat-right', 'single-leg-stance-left', 'single-leg-stance-right'],
-    source: COMMON_PRACTICE,
-    sourceKind: 'common-practice',
-    certainty: null,
+    source: OUR_CHOICE,
+    sourceKind: 'our-choice',
+    certainty: 'no source',
     note: 'No normative degree threshold for 2D pelvic drop was found; the value is our choice.',
   },
   {
@@ -142,9 +184,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     severity: 'concern',
     population: { sex: 'any', ageGroup: 'not specified' },
     appliesTo: ['single-leg-squat-left', 'single-leg-squat-right', 'single-leg-stance-left', 'single-leg-stance-right'],
-    source: COMMON_PRACTICE,
-    sourceKind: 'common-practice',
-    certainty: null,
+    source: OUR_CHOICE,
+    sourceKind: 'our-choice',
+    certainty: 'no source',
     note: 'No normative degree threshold for 2D pelvic drop was found; the value is our choice.',
   },
   {
@@ -157,9 +199,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     severity: 'watch',
     population: { sex: 'any', ageGroup: 'not specified' },
     appliesTo: 'all',
-    source: COMMON_PRACTICE,
-    sourceKind: 'common-practice',
-    certainty: null,
+    source: OUR_CHOICE,
+    sourceKind: 'our-choice',
+    certainty: 'no source',
     note: OBSERVED_NOTE,
   },
 
@@ -176,7 +218,7 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     appliesTo: ['knee-to-wall-left', 'knee-to-wall-right'],
     source: COMMON_PRACTICE,
     sourceKind: 'common-practice',
-    certainty: null,
+    certainty: 'no source',
     note: '"Under about 10 cm is restricted". At about 3.6 deg per cm (secondary, Bennell 1998) 10 cm is close to the 36.5 deg junior threshold below.',
   },
   {
@@ -190,8 +232,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     population: { sex: 'any', ageGroup: 'junior elite basketball players' },
     appliesTo: ['knee-to-wall-left', 'knee-to-wall-right'],
     source: BACKMAN_DANIELSON_2011,
-    sourceKind: 'published',
+    sourceKind: 'published-other-population',
     certainty: 'checked',
+    populationNote: 'Published for junior elite basketball players, applied to junior badminton players.',
     note: `Dorsiflexion below 36.5 deg carried a much higher risk of patellar tendinopathy (18.5-29.4% vs 1.8-2.1%). Junior-specific. We read the shin angle from vertical on the optional side photo as the weight-bearing lunge angle (as in the inclinometer version of ${BENNELL_1998}); that this matches the source's measuring method is from memory.`,
   },
 
@@ -208,7 +251,7 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     appliesTo: ['knee-to-wall'],
     source: COMMON_PRACTICE,
     sourceKind: 'common-practice',
-    certainty: null,
+    certainty: 'no source',
     note: `"A side difference of 2 cm or more". It sits just above the minimal detectable change of 1.6-1.9 cm reported by ${POWDEN_2015}`,
   },
   {
@@ -222,9 +265,18 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     population: { sex: 'any', ageGroup: 'not specified in our notes' },
     appliesTo: ['single-leg-squat', 'two-leg-squat', 'drop-landing'],
     source: `${MUNRO_HERRINGTON_CAROLAN_2012}; ${HERRINGTON_MUNRO_2010}`,
-    sourceKind: 'published',
+    sourceKind: 'derived',
     certainty: 'checked',
-    note: 'Herrington & Munro 2010: values should be symmetrical. A left-right gap larger than the smallest detectable difference (7.54 deg, lower end) is unlikely to be measurement error; using it as the asymmetry cut-off is our choice.',
+    derivedFrom: [
+      {
+        what: 'smallest detectable difference of 2D knee angles, 1.96 x sqrt(2) x SEM, lower end of 7.54-8.93 deg: the statistic for a difference between two measurements',
+        value: FPPA_SMALLEST_DETECTABLE_DIFFERENCE_DEG,
+        source: MUNRO_HERRINGTON_CAROLAN_2012,
+        certainty: 'checked',
+      },
+    ],
+    populationNote: 'Measurement error from adults, applied to a junior.',
+    note: 'Herrington & Munro 2010: values should be symmetrical. A left-right gap compares two measurements, so the smallest detectable difference (7.54 deg, lower end), not 1.96 x SEM, is the margin; a larger gap is unlikely to be measurement error. Using it as the asymmetry cut-off is our choice.',
   },
   {
     id: 'squat-pelvic-tilt',
@@ -236,9 +288,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     severity: 'watch',
     population: { sex: 'any', ageGroup: 'not specified' },
     appliesTo: ['two-leg-squat'],
-    source: COMMON_PRACTICE,
-    sourceKind: 'common-practice',
-    certainty: null,
+    source: OUR_CHOICE,
+    sourceKind: 'our-choice',
+    certainty: 'no source',
     note: 'Pelvis not level at the bottom of a two-leg squat; the value is our choice, the same as for pelvic drop.',
   },
   {
@@ -251,9 +303,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     severity: 'watch',
     population: { sex: 'any', ageGroup: 'not specified' },
     appliesTo: ['single-leg-squat'],
-    source: COMMON_PRACTICE,
-    sourceKind: 'common-practice',
-    certainty: null,
+    source: OUR_CHOICE,
+    sourceKind: 'our-choice',
+    certainty: 'no source',
     note: 'One side rated good and the other poor (good/fair/poor, two grades apart). The rating and this rule are our design.',
   },
   {
@@ -266,9 +318,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     severity: 'watch',
     population: { sex: 'any', ageGroup: 'not specified' },
     appliesTo: 'all',
-    source: COMMON_PRACTICE,
-    sourceKind: 'common-practice',
-    certainty: null,
+    source: OUR_CHOICE,
+    sourceKind: 'our-choice',
+    certainty: 'no source',
     note: OBSERVED_NOTE,
   },
 
@@ -283,9 +335,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     severity: 'watch',
     population: { sex: 'any', ageGroup: 'not specified' },
     appliesTo: 'all',
-    source: COMMON_PRACTICE,
-    sourceKind: 'common-practice',
-    certainty: null,
+    source: OUR_CHOICE,
+    sourceKind: 'our-choice',
+    certainty: 'no source',
     note: `${OBSERVED_NOTE} Heels are observed only; no landmark measures them.`,
   },
 
@@ -302,7 +354,7 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     appliesTo: ['two-leg-squat'],
     source: COMMON_PRACTICE,
     sourceKind: 'common-practice',
-    certainty: null,
+    certainty: 'no source',
     note: 'A full squat brings the thigh at least level (hip not above knee) at the lowest point.',
   },
   {
@@ -315,9 +367,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     severity: 'watch',
     population: { sex: 'any', ageGroup: 'not specified' },
     appliesTo: 'all',
-    source: COMMON_PRACTICE,
-    sourceKind: 'common-practice',
-    certainty: null,
+    source: OUR_CHOICE,
+    sourceKind: 'our-choice',
+    certainty: 'no source',
     note: OBSERVED_NOTE,
   },
 
@@ -339,9 +391,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
       'single-leg-stance-right',
       'racket-side-lunge',
     ],
-    source: COMMON_PRACTICE,
-    sourceKind: 'common-practice',
-    certainty: null,
+    source: OUR_CHOICE,
+    sourceKind: 'our-choice',
+    certainty: 'no source',
     note: 'Sideways lean of the shoulders over the hips in a front view; the value is our choice.',
   },
   {
@@ -354,9 +406,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     severity: 'watch',
     population: { sex: 'any', ageGroup: 'not specified' },
     appliesTo: ['two-leg-squat'],
-    source: COMMON_PRACTICE,
-    sourceKind: 'common-practice',
-    certainty: null,
+    source: OUR_CHOICE,
+    sourceKind: 'our-choice',
+    certainty: 'no source',
     note: 'Coaching rule that the trunk stays roughly parallel to the shin in a full squat; the 15 deg allowance is our choice.',
   },
   {
@@ -369,9 +421,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     severity: 'watch',
     population: { sex: 'any', ageGroup: 'not specified' },
     appliesTo: ['racket-side-lunge'],
-    source: COMMON_PRACTICE,
-    sourceKind: 'common-practice',
-    certainty: null,
+    source: OUR_CHOICE,
+    sourceKind: 'our-choice',
+    certainty: 'no source',
     note: 'Upper body folding forward over the front thigh in the lunge; the value is our choice.',
   },
   {
@@ -384,9 +436,9 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     severity: 'watch',
     population: { sex: 'any', ageGroup: 'not specified' },
     appliesTo: 'all',
-    source: COMMON_PRACTICE,
-    sourceKind: 'common-practice',
-    certainty: null,
+    source: OUR_CHOICE,
+    sourceKind: 'our-choice',
+    certainty: 'no source',
     note: OBSERVED_NOTE,
   },
 
@@ -404,10 +456,24 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     appliesTo: 'all',
     source: COMMON_PRACTICE,
     sourceKind: 'common-practice',
-    certainty: null,
+    certainty: 'no source',
     note: 'Band "circa" PHV: -1 to +1 years from peak height velocity, inclusive. Not a fault: it lowers loading and jump volume in the plan. The offset comes from Mirwald 2002 or Moore 2015.',
   },
 ];
+
+const UNIT_WORDS: Record<Unit, string> = { deg: '°', cm: ' cm', percent: '%', years: ' years', grades: ' grades', criteria: ' criteria' };
+
+/**
+ * A derived value in words, its published parts named:
+ * "13° (upper end of ..., Herrington & Munro 2010) + 5.33° (1.96 x 2.72 ...; Munro, Herrington & Carolan 2012) = 18.33°".
+ * Undefined for a row that is not derived.
+ */
+export function derivationText(row: ThresholdRow): string | undefined {
+  if (!row.derivedFrom || row.derivedFrom.length === 0) return undefined;
+  const u = UNIT_WORDS[row.unit];
+  const parts = row.derivedFrom.map((p) => `${p.value}${u} (${p.what}; ${shortSource(p.source)})`);
+  return row.derivedFrom.length === 1 ? `${parts[0]}` : `${parts.join(' + ')} = ${row.value}${u}`;
+}
 
 /** Whether `measured` meets the row's condition. */
 export function meetsThreshold(row: ThresholdRow, measured: number): boolean {

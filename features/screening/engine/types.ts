@@ -153,6 +153,11 @@ export interface AssessmentOptions {
   maturityMethod?: MaturityMethod | 'none';
   /** Smallest load step for the percent-of-1RM exercise. Default 2.5 kg (a pair of 1.25 kg plates). */
   loadIncrementKg?: number;
+  /**
+   * A physiotherapist has cleared the athlete after the pain reported at this screen. Until then the
+   * plan holds back loaded strength and landing work. Default false.
+   */
+  painCleared?: boolean;
 }
 
 export interface AssessmentInput {
@@ -183,6 +188,20 @@ export interface Measurement {
 
 export type Comparison = 'greater-than' | 'less-than' | 'at-least' | 'at-most' | 'within';
 
+/**
+ * What kind of basis a number has:
+ * - published: a value printed in a source, used for the population it was measured in;
+ * - published-other-population: a published value applied to people unlike the source's (adult norms
+ *   applied to juniors, basketball players' values applied to badminton players);
+ * - common-practice: a rule of the trade without a source we could name;
+ * - our-choice: a rule Squadline's authors designed;
+ * - derived: computed by us from published parts (a mean plus a measurement-error margin), parts named.
+ */
+export type SourceKind = 'published' | 'published-other-population' | 'common-practice' | 'our-choice' | 'derived';
+
+/** How sure we are of the value: read in the source, read where another text restates it, recalled, or no source at all. */
+export type Certainty = 'checked' | 'secondary' | 'from memory' | 'no source';
+
 export interface ThresholdRef {
   rowId: string;
   comparison: Comparison;
@@ -192,6 +211,12 @@ export interface ThresholdRef {
   unit: Unit;
   severity: Severity;
   source: string;
+  sourceKind: SourceKind;
+  certainty: Certainty;
+  /** For a derived value: how it was computed from its published parts, in words and numbers. */
+  derivation?: string;
+  /** When the source's people differ from ours: who they were, said beside the flag. */
+  populationNote?: string;
 }
 
 export type Evidence =
@@ -286,12 +311,40 @@ export interface PlannedExercise extends Omit<ExerciseSpec, 'prescription' | 'ad
   patterns: PatternId[];
   /** Changes made to the library prescription, in plain words. */
   adjustments: string[];
+  /** How to move to the harder or easier variation and how the load changes (see `progressionRule`). */
+  loadRule?: string;
 }
 
 export interface Caution {
   id: string;
   text: string;
   source: string | null;
+}
+
+/**
+ * Where the athlete stands for loading purposes: the maturity band, or 'unknown' when there is no
+ * growth estimate (body measures missing, age outside the equations' range, estimate turned off).
+ */
+export type MaturityStage = MaturityBand | 'unknown';
+
+export type GrowthUnknownReason = 'measures-missing' | 'age-outside-range' | 'not-estimated';
+
+/** Everything the loading limits depend on; stored with the plan so the editor and the server apply the same limits. */
+export interface LoadingContext {
+  stage: MaturityStage;
+  /** Why the stage is unknown; null when it is known. */
+  unknownReason: GrowthUnknownReason | null;
+  /** Pain was reported at the screen and no physiotherapist has cleared the athlete since. */
+  painUncleared: boolean;
+  oneRepMaxKg: number | null;
+  loadIncrementKg: number;
+}
+
+/** An exercise the plan holds back, with the reason in plain words. */
+export interface WithheldExercise {
+  id: string;
+  name: string;
+  reason: string;
 }
 
 export interface Plan {
@@ -304,6 +357,10 @@ export interface Plan {
   /** YYYY-MM-DD, or null when options.today was not given. */
   rescreenDate: string | null;
   cautions: Caution[];
+  /** What the limits were computed from (absent in results stored before engine 1.1.0). */
+  loading?: LoadingContext;
+  /** Exercises held back (loaded strength and landing work while pain is not cleared). */
+  withheld?: WithheldExercise[];
 }
 
 export interface AssessmentResult {

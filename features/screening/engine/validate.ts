@@ -43,6 +43,7 @@ export interface NormalizedAssessment {
   todayDay: number | null;
   maturityMethod: MaturityMethod | 'none';
   loadIncrementKg: number;
+  painCleared: boolean;
 }
 
 const MS_PER_DAY = 86_400_000;
@@ -233,14 +234,17 @@ export function validateAssessment(input: AssessmentInput): NormalizedAssessment
   let oneRepMaxKg: number | undefined;
   if (input.oneRepMaxKg !== undefined) {
     const orm = requireFinite('oneRepMaxKg', input.oneRepMaxKg);
-    if (orm < loadIncrementKg || orm > 500) {
-      throw new EngineInputError(
-        'oneRepMaxKg',
-        `must be between the load increment (${loadIncrementKg} kg) and 500 kg, got ${orm}`,
-      );
+    // A 1RM smaller than the load step is allowed: the plan then says no step fits and prescribes bodyweight.
+    if (orm <= 0 || orm > 500) {
+      throw new EngineInputError('oneRepMaxKg', `must be more than 0 and at most 500 kg, got ${orm}`);
     }
     oneRepMaxKg = orm;
   }
 
-  return { athlete, tasks, oneRepMaxKg, rescreenWeeks, todayDay, maturityMethod: method, loadIncrementKg };
+  const painCleared = options['painCleared'] ?? false;
+  if (typeof painCleared !== 'boolean') {
+    throw new EngineInputError('options.painCleared', `must be true or false, got ${String(painCleared)}`);
+  }
+
+  return { athlete, tasks, oneRepMaxKg, rescreenWeeks, todayDay, maturityMethod: method, loadIncrementKg, painCleared };
 }

@@ -48,6 +48,7 @@ export function ExerciseCard({ exercise, index, children }: { exercise: PlannedE
           <Text variant="small">Watch for: {exercise.commonFault}</Text>
           <Text variant="small">Harder: {exercise.progression}</Text>
           <Text variant="small">Easier: {exercise.regression}</Text>
+          {exercise.loadRule ? <Text variant="small">Moving on: {exercise.loadRule}</Text> : null}
         </View>
       ) : null}
     </View>

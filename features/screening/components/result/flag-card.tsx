@@ -1,39 +1,90 @@
-import { StyleSheet, View } from 'react-native';
-import { getTask, type Flag } from '@/features/screening/engine';
-import { sideLabel, thresholdText, valueText } from '@/features/screening/labels';
+import { useState } from 'react';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { citationsIn, shortSource, type ThresholdRef } from '@/features/screening/engine';
+import type { FlagGroup } from '@/features/screening/flag-groups';
+import { basisText, sideLabel, thresholdText, valueText } from '@/features/screening/labels';
 import { Text } from '@/features/ui/components/text';
-import { colors, radius, space } from '@/features/ui/theme';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { SeverityTag } from '../status-tag';
 
-export function flagScope(flag: Flag): string {
-  if (flag.taskId) return getTask(flag.taskId).title;
-  if (flag.comparesTasks) return `${getTask(flag.comparesTasks[0]).title} compared with the ${flag.comparesTasks[1].endsWith('right') ? 'right' : 'other'} side`;
-  return 'Whole assessment';
-}
-
-/** A flag in plain words: what, where, how serious, the evidence, the threshold and its source. */
-export function FlagCard({ flag }: { flag: Flag }) {
-  const side = sideLabel(flag.side);
+/**
+ * One pattern on one side, in plain words: how serious, the tasks that showed it with their evidence,
+ * each threshold with the kind of source and how sure it is, and the full references behind "Sources".
+ */
+export function FlagCard({ group }: { group: FlagGroup }) {
+  const side = sideLabel(group.side);
+  const [open, setOpen] = useState(false);
+  const references = uniqueCitations(group.thresholds);
   return (
-    <View style={[styles.card, flag.severity === 'concern' ? styles.concern : styles.watch]} testID={`flag-${flag.id}`}>
+    <View style={[styles.card, group.severity === 'concern' ? styles.concern : styles.watch]} testID={`flag-group-${group.key.replace('/', '-')}`}>
       <View style={styles.head}>
-        <SeverityTag severity={flag.severity} />
+        <SeverityTag severity={group.severity} />
         {side ? <Text variant="label">{side}</Text> : null}
       </View>
-      <Text variant="heading">{flag.title}</Text>
-      <Text variant="small">{flagScope(flag)}</Text>
-      <View style={styles.evidence}>
-        {flag.evidence.map((e) => (
-          <Text key={e.kind === 'measurement' ? e.measurementId : e.criterionId}>
-            {e.kind === 'measurement' ? `• ${e.label}: ${valueText(e.value, e.unit)}` : `• Seen: ${e.label}`}
-          </Text>
+      <Text variant="heading">{group.title}</Text>
+      <Text variant="small">{group.tasks.length === 1 ? 'Seen in 1 task' : `Seen in ${group.tasks.length} tasks`}</Text>
+      <View style={styles.tasks} testID="flag-evidence">
+        {group.tasks.map((t) => (
+          <View key={t.flagId} style={styles.task}>
+            <Text style={styles.taskTitle}>{t.where}</Text>
+            {t.evidence.map((e) => (
+              <Text key={e.kind === 'measurement' ? e.measurementId : `${e.taskId}:${e.criterionId}`}>
+                {e.kind === 'measurement' ? `• ${e.label}: ${valueText(e.value, e.unit)}` : `• Seen: ${e.label}`}
+              </Text>
+            ))}
+          </View>
         ))}
       </View>
-      <Text variant="small">
-        {thresholdText(flag.threshold)} ({flag.threshold.severity === 'concern' ? 'concern' : 'watch'} level). Source: {flag.source}
-      </Text>
+      {group.thresholds.map((t, i) => (
+        // The same population note on several thresholds of one card is said once, on the first.
+        <ThresholdLine key={t.rowId} threshold={t} showPopulation={!group.thresholds.slice(0, i).some((x) => x.populationNote === t.populationNote)} />
+      ))}
+      <Pressable accessibilityRole="button" aria-expanded={open} onPress={() => setOpen((o) => !o)} style={styles.more} testID="flag-sources-toggle">
+        <Text style={styles.moreText}>{open ? 'Hide sources ▲' : 'Sources ▼'}</Text>
+      </Pressable>
+      {open ? (
+        <View style={styles.sources} testID="flag-sources">
+          {group.thresholds
+            .filter((t) => t.derivation)
+            .map((t) => (
+              <Text key={t.rowId} variant="small">
+                How the {valueText(t.value, t.unit, 2)} threshold is derived: {t.derivation}.
+              </Text>
+            ))}
+          {references.length === 0 ? <Text variant="small">No published source: these thresholds are common practice or Squadline&apos;s own choice.</Text> : null}
+          {references.map((r) => (
+            <Text key={r} variant="small">
+              {r}
+            </Text>
+          ))}
+        </View>
+      ) : null}
     </View>
   );
+}
+
+function ThresholdLine({ threshold: t, showPopulation }: { threshold: ThresholdRef; showPopulation: boolean }) {
+  return (
+    <View style={styles.threshold} testID="flag-threshold">
+      <Text variant="small" style={styles.thresholdMain}>
+        {thresholdText(t)} ({t.severity} level){citationsIn(t.source).length > 0 ? ` · ${shortSource(t.source)}` : ''}
+      </Text>
+      <Text variant="small" testID="flag-basis">
+        {basisText(t)}
+      </Text>
+      {t.populationNote && showPopulation ? (
+        <Text variant="small" style={styles.population} testID="flag-population">
+          ⚠ {t.populationNote}
+        </Text>
+      ) : null}
+    </View>
+  );
+}
+
+function uniqueCitations(thresholds: readonly ThresholdRef[]): string[] {
+  const out: string[] = [];
+  for (const t of thresholds) for (const c of citationsIn(t.source)) if (!out.includes(c.full)) out.push(c.full);
+  return out;
 }
 
 const styles = StyleSheet.create({
@@ -41,5 +92,13 @@ const styles = StyleSheet.create({
   watch: { borderLeftColor: colors.amber },
   concern: { borderLeftColor: colors.brick },
   head: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' },
-  evidence: { gap: 2, paddingVertical: space.xs },
+  tasks: { gap: space.sm, paddingVertical: space.xs },
+  task: { gap: 2 },
+  taskTitle: { fontFamily: fonts.bold },
+  threshold: { gap: 2, paddingTop: space.xs, borderTopWidth: 1, borderTopColor: colors.line },
+  thresholdMain: { fontFamily: fonts.bold, color: colors.ink },
+  population: { color: colors.amber, fontFamily: fonts.bold },
+  more: { minHeight: TOUCH_MIN, justifyContent: 'center', alignSelf: 'flex-start' },
+  moreText: { fontFamily: fonts.bold, color: colors.pine },
+  sources: { gap: space.xs },
 });

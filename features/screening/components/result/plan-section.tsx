@@ -1,7 +1,8 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
-import type { ResultView } from '@/features/screening/contract';
-import type { PlannedExercise } from '@/features/screening/engine';
+import type { PlanAdjustmentView, ResultView } from '@/features/screening/contract';
+import { loadingContextOf, shortSource, STAGE_LIMITS, type PlannedExercise } from '@/features/screening/engine';
+import { STAGE_LABELS } from '@/features/screening/labels';
 import { TESTER_MARK } from '@/features/screening/plan-edits';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
@@ -28,9 +29,23 @@ function changeSummary(adjusted: PlannedExercise[], proposal: PlannedExercise[])
 }
 
 /** The corrective plan: the tester's adjustment when there is one, beside the engine's proposal. */
-export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust }: { assessmentId: string; result: ResultView; oneRepMaxKg: number | null | undefined; canAdjust: boolean }) {
+const ROLE_WORDS: Record<string, string> = { head_coach: 'head coach', physio: 'physiotherapist' };
+
+type Props = {
+  assessmentId: string;
+  result: ResultView;
+  oneRepMaxKg: number | null | undefined;
+  canAdjust: boolean;
+  /** A head coach or physiotherapist: may go past a limit with a reason. */
+  canOverride: boolean;
+};
+
+export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canOverride }: Props) {
   const plan = result.result.plan;
   const adjustment = result.adjustment;
+  const loading = loadingContextOf(result.result, oneRepMaxKg);
+  const withheld = plan.withheld ?? [];
+  const history = result.adjustmentHistory ?? (adjustment ? [adjustment] : []);
   const [showProposal, setShowProposal] = useState(false);
   const [editing, setEditing] = useState(false);
   const shown = adjustment && !showProposal ? adjustment.exercises : plan.exercises;
@@ -42,9 +57,23 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust }: { 
       </Text>
       {plan.status === 'clearance-needed' ? (
         <Notice tone="error" title="Clearance needed first" testID="plan-clearance">
-          Pain was reported. Start this plan only after a physiotherapist or doctor has seen the athlete, and follow their advice over this plan.
+          <Text>
+            Pain was reported. No loaded strength work and no landing work until a physiotherapist has cleared the athlete. Follow their advice over this plan.
+          </Text>
+          <Text>
+            {plan.exercises.length > 0
+              ? `Meanwhile the athlete may still do, only where pain-free: ${plan.exercises.map((e) => e.name).join(', ')}.`
+              : 'Meanwhile: no exercises from this plan.'}
+          </Text>
+          {withheld.length > 0 ? <Text variant="small">Held back until then: {withheld.map((w) => w.name).join(', ')}.</Text> : null}
         </Notice>
       ) : null}
+      <Notice tone={loading.stage === 'unknown' ? 'caution' : 'info'} title={`${STAGE_LABELS[loading.stage]}: loading limits`} testID="plan-stage">
+        {loading.stage === 'unknown'
+          ? `No growth estimate (${loading.unknownReason === 'age-outside-range' ? 'age outside the range of the maturity equations' : loading.unknownReason === 'measures-missing' ? 'body measures missing' : 'not estimated'}): the plan applies the cautious limits of the growth-spurt window, at most ${STAGE_LIMITS.unknown.maxPercentOneRepMax}% of 1RM, no sets to fatigue, landing volume halved.`
+          : `At most ${STAGE_LIMITS[loading.stage].maxPercentOneRepMax}% of 1RM${STAGE_LIMITS[loading.stage].toNearFatigue ? '' : ', no sets to fatigue'}${STAGE_LIMITS[loading.stage].jumpVolumeFactor < 1 ? ', landing volume halved' : ''}. The plan editor keeps to the same limits.`}
+      </Notice>
+      {adjustment && !showProposal && adjustment.overrides?.length ? <Overrides adjustment={adjustment} /> : null}
       <View style={styles.source} testID="plan-source">
         {adjustment ? (
           <>
@@ -71,8 +100,10 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust }: { 
           assessmentId={assessmentId}
           start={adjustment?.exercises ?? plan.exercises}
           startNote={adjustment?.note ?? ''}
+          startOverrides={adjustment?.overrides ?? []}
           proposal={plan.exercises}
-          oneRepMaxKg={oneRepMaxKg}
+          loading={loading}
+          canOverride={canOverride}
           onClose={() => setEditing(false)}
         />
       ) : (
@@ -84,6 +115,20 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust }: { 
           {canAdjust ? <Button tone="secondary" label="Adjust the plan" testID="plan-adjust" onPress={() => { setShowProposal(false); setEditing(true); }} /> : null}
         </>
       )}
+      {history.length > 0 ? (
+        <View style={styles.rescreen} testID="plan-history">
+          <Text variant="label">Plan history</Text>
+          {history.map((h, i) => (
+            <Text key={`${h.createdAt}-${i}`} variant="small">
+              {day(h.createdAt)} · {h.createdByName ?? 'a club member'}
+              {i === 0 ? ' (current)' : ''}: {h.exercises.length} exercises
+              {h.overrides?.length ? `, ${h.overrides.length} ${h.overrides.length === 1 ? 'limit' : 'limits'} passed on purpose` : ''}
+              {h.note ? `. “${h.note}”` : ''}
+            </Text>
+          ))}
+          <Text variant="small">The engine&apos;s proposal is kept unchanged beside every adjustment.</Text>
+        </View>
+      ) : null}
       <View style={styles.rescreen} testID="plan-rescreen">
         <Text variant="label">Re-screen</Text>
         <Text>
@@ -97,7 +142,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust }: { 
           {plan.cautions.map((c) => (
             <View key={c.id} style={styles.caution}>
               <Text>{c.text}</Text>
-              {c.source ? <Text variant="small">Source: {c.source}</Text> : null}
+              {c.source ? <Text variant="small">Source: {shortSource(c.source)}</Text> : null}
             </View>
           ))}
           <Text variant="small">
@@ -106,6 +151,22 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust }: { 
         </View>
       </Notice>
     </View>
+  );
+}
+
+/** The limits a head coach or physiotherapist passed on purpose, each with its reason: a caution on the plan. */
+function Overrides({ adjustment }: { adjustment: PlanAdjustmentView }) {
+  return (
+    <Notice tone="caution" title="Caution: limits passed on purpose" testID="plan-overrides">
+      {adjustment.overrides.map((o) => (
+        <View key={`${o.exerciseId}-${o.limit}`} style={styles.caution}>
+          <Text>{o.message}</Text>
+          <Text variant="small">
+            Reason given by {adjustment.createdByName ?? 'a club member'} ({ROLE_WORDS[o.role] ?? o.role}): “{o.reason}”
+          </Text>
+        </View>
+      ))}
+    </Notice>
   );
 }
 

@@ -1,9 +1,12 @@
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
+import { useRoundQuery } from '@/features/screening/api/get-round';
 import type { AssessmentDetail, ResultView } from '@/features/screening/contract';
 import type { Flag } from '@/features/screening/engine';
-import { canScreen } from '@/features/screening/roles';
+import { groupFlags } from '@/features/screening/flag-groups';
+import { nextUnscreened } from '@/features/screening/round-order';
+import { canAdjustPlan, canOverrideLimits, canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Notice } from '@/features/ui/components/notice';
@@ -12,8 +15,6 @@ import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { FlagCard } from './flag-card';
 import { PlanSection } from './plan-section';
 import { ResultPhotos } from './result-photos';
-
-const SEVERITY_ORDER = { concern: 0, watch: 1 } as const;
 
 /** The result of a submitted assessment: flags, photos with their lines, the plan and its cautions. */
 export default function ResultScreen({ assessmentId }: { assessmentId: string }) {
@@ -38,17 +39,23 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
       </View>
     );
   }
-  const canAdjust = canScreen(membership.role);
+  const canEdit = canScreen(membership.role);
   return (
     <View style={styles.wrap} testID="result">
-      <Header detail={detail} result={result} name={name} canEdit={canAdjust} />
+      <Header detail={detail} result={result} name={name} canEdit={canEdit} />
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         <View style={[styles.column, isWide && styles.columnWide]}>
           <Flags flags={result.result.flags} />
           <ResultPhotos detail={detail} />
         </View>
         <View style={[styles.column, isWide && styles.columnWide]}>
-          <PlanSection assessmentId={detail.id} result={result} oneRepMaxKg={detail.draft.oneRepMaxKg} canAdjust={canAdjust} />
+          <PlanSection
+            assessmentId={detail.id}
+            result={result}
+            oneRepMaxKg={detail.draft.oneRepMaxKg}
+            canAdjust={canAdjustPlan(membership.role)}
+            canOverride={canOverrideLimits(membership.role)}
+          />
           {result.history.length > 0 ? (
             <View style={styles.history}>
               <Text variant="label">Earlier results</Text>
@@ -61,6 +68,29 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
           ) : null}
         </View>
       </View>
+      {canEdit ? <RoundNavigation detail={detail} /> : null}
+    </View>
+  );
+}
+
+/** Straight on to the next athlete still to be screened in this round, or back to the round. */
+function RoundNavigation({ detail }: { detail: AssessmentDetail }) {
+  const round = useRoundQuery(detail.roundId);
+  const next = round.data ? nextUnscreened(round.data.athletes, detail.id) : null;
+  return (
+    <View style={styles.nav} testID="round-navigation">
+      {next ? (
+        <Link href={`/screening/assessments/${next.assessmentId}`} style={styles.primary} testID="next-athlete">
+          <Text style={styles.primaryText}>
+            Next athlete: {next.firstName} {next.lastName} →
+          </Text>
+        </Link>
+      ) : round.data ? (
+        <Text testID="round-done">Everyone else in this round has been screened.</Text>
+      ) : null}
+      <Link href={`/screening/rounds/${detail.roundId}`} style={styles.action} testID="back-to-round">
+        <Text style={styles.actionText}>← Back to {detail.roundName}</Text>
+      </Link>
     </View>
   );
 }
@@ -94,20 +124,20 @@ function Header({ detail, result, name, canEdit }: { detail: AssessmentDetail; r
 }
 
 function Flags({ flags }: { flags: Flag[] }) {
-  const sorted = flags.slice().sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity]);
-  const concerns = flags.filter((f) => f.severity === 'concern').length;
+  const groups = groupFlags(flags);
+  const concerns = groups.filter((g) => g.severity === 'concern').length;
   return (
     <View style={styles.flags} testID="flags">
       <Text variant="heading" accessibilityRole="header">
         Flags
       </Text>
       <Text variant="small">
-        {flags.length === 0
+        {groups.length === 0
           ? 'No flags: nothing seen or measured crossed a threshold.'
-          : `${flags.length} ${flags.length === 1 ? 'flag' : 'flags'}${concerns ? `, ${concerns} of concern` : ''}. “Watch” means keep an eye on it; “Concern” means work on it now.`}
+          : `${groups.length} ${groups.length === 1 ? 'flag' : 'flags'}${concerns ? `, ${concerns} of concern` : ''}. “Watch” means keep an eye on it; “Concern” means work on it now. Each flag lists the tasks that showed it.`}
       </Text>
-      {sorted.map((f) => (
-        <FlagCard key={f.id} flag={f} />
+      {groups.map((g) => (
+        <FlagCard key={g.key} group={g} />
       ))}
     </View>
   );
@@ -129,6 +159,16 @@ const styles = StyleSheet.create({
     marginVertical: space.sm,
   },
   actionText: { fontFamily: fonts.bold, color: colors.pine, fontSize: 17 },
+  primary: {
+    minHeight: TOUCH_MIN,
+    paddingHorizontal: space.lg,
+    paddingVertical: space.md,
+    borderRadius: radius.md,
+    backgroundColor: colors.pine,
+    alignSelf: 'flex-start',
+  },
+  primaryText: { fontFamily: fonts.bold, color: '#fff', fontSize: 17 },
+  nav: { gap: space.sm, paddingTop: space.md, borderTopWidth: 1, borderTopColor: colors.line },
   columns: { gap: space.xl },
   columnsWide: { flexDirection: 'row', alignItems: 'flex-start' },
   column: { gap: space.xl },

@@ -1,0 +1,1 @@
+ALTER TABLE "plan_adjustments" ADD COLUMN "overrides" jsonb DEFAULT '[]'::jsonb NOT NULL;
