@@ -88,6 +88,7 @@ describe('next athlete of the round', () => {
     status,
     photoConsent: true,
     flagCount: null,
+    flags: [],
   });
 
   it.each([
