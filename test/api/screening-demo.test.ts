@@ -12,18 +12,16 @@ import { createTestDb, type TestDb } from '../fixtures/test-db';
 // The demo is loaded the way `npm run db:reset` loads it: `tsx db/cli.ts reset` in its own process
 // (CommonJS under tsx), against a throw-away database.
 let testDb: TestDb;
-let seconds = 0;
 
 beforeAll(async () => {
   testDb = await createTestDb();
-  const started = Date.now();
   const root = path.resolve(__dirname, '..', '..');
   const run = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['db/cli.ts', 'reset'], {
     cwd: root,
     env: { ...process.env, DATABASE_URL: testDb.url },
     encoding: 'utf8',
   });
-  seconds = (Date.now() - started) / 1000;
+  // How long this takes is printed by the bootstrap, not asserted: speed is measured by benchmarks.
   if (run.status !== 0) throw new Error(`db/cli.ts reset failed: ${run.stderr}`);
 }, 60_000);
 
@@ -42,11 +40,6 @@ async function demoRounds() {
 }
 
 describe('demo screening data', () => {
-  it('loads quickly, whole demo included', () => {
-    // Migrations, the demo club and about 60 submissions through the engine, plus tsx start-up.
-    expect(seconds).toBeLessThan(15);
-  });
-
   it('has three past rounds per squad and an open winter round for the under-13s', async () => {
     const all = await demoRounds();
     expect(all.map((r) => [r.squad, r.name, r.screenedOn])).toEqual([
