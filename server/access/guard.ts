@@ -107,7 +107,7 @@ export function accessGuards(db: Db) {
     const scope = await scopeForClub(db, req, home.clubId, roles);
     // A parent reaches only records of their own children; a squad or a round belongs to no one child.
     if (OWN_CHILDREN_ONLY.includes(scope.role) && (!home.athleteId || !scope.athleteIds?.includes(home.athleteId))) {
-      throw forbidden();
+      throw forbidden('You can only see the athletes linked to you.');
     }
     return { scope, id, home };
   }
