@@ -18,6 +18,7 @@ import { notFound } from './http/errors';
 import type { Outbox } from './mail/outbox';
 import { meRouter } from './me/me.router';
 import { metaRouter, type Mailbox } from './meta/meta.router';
+import { progressRouter } from './progress/progress.router';
 import { screeningRouter } from './screening/screening.router';
 import type { PhotoStorage } from './storage/storage';
 
@@ -81,6 +82,7 @@ export function createApp(deps: AppDeps) {
   api.use(clubsRouter(db, authService));
   api.use(athletesRouter(db));
   api.use(screeningRouter({ db, storage: deps.storage }));
+  api.use(progressRouter(db));
   api.use((() => {
     throw notFound('This API route');
   }) as RequestHandler);

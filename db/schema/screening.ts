@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { boolean, date, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import type { AssessmentDraft } from '@/features/screening/contract';
 import type { AssessmentInput, AssessmentResult, PlannedExercise } from '@/features/screening/engine';
@@ -25,7 +26,11 @@ export const rounds = pgTable(
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
     ...timestamps,
   },
-  (t) => [index('rounds_club_idx').on(t.clubId, t.screenedOn)],
+  (t) => [
+    index('rounds_club_idx').on(t.clubId, t.screenedOn),
+    // Progress: a squad's rounds in date order (squad trends).
+    index('rounds_squad_idx').on(t.squadId, t.screenedOn),
+  ],
 );
 
 /** One athlete in one round: the tester's draft, then the submitted state. */
@@ -75,10 +80,31 @@ export const assessmentResults = pgTable(
     result: jsonb('result').$type<AssessmentResult>().notNull(),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+    // Progress: small copies of what squad trends read, kept by PostgreSQL from `result` on every write,
+    // so a squad's season is read without unpacking each full result (measurements, flags and plan).
+    /** The flags' ids ('pattern/scope/side'), in the result's order. */
+    flagIds: jsonb('flag_ids')
+      .$type<string[]>()
+      .generatedAlwaysAs(sql`jsonb_path_query_array(result, '$.flags[*].id')`),
+    /** The flags' sides, parallel to flagIds (null for unsided flags). */
+    flagSides: jsonb('flag_sides')
+      .$type<(string | null)[]>()
+      .generatedAlwaysAs(sql`jsonb_path_query_array(result, '$.flags[*].side')`),
+    /** Knee angles from the front (FPPA): measurement ids and values, parallel arrays. */
+    fppaIds: jsonb('fppa_ids')
+      .$type<string[]>()
+      .generatedAlwaysAs(sql`jsonb_path_query_array(result, '$.measurements[*] ? (@.metric == "fppa").id')`),
+    fppaValues: jsonb('fppa_values')
+      .$type<number[]>()
+      .generatedAlwaysAs(sql`jsonb_path_query_array(result, '$.measurements[*] ? (@.metric == "fppa").value')`),
+    maturityBand: text('maturity_band').generatedAlwaysAs(sql`result #>> '{maturity,band}'`),
+    rescreenDate: text('rescreen_date').generatedAlwaysAs(sql`result #>> '{plan,rescreenDate}'`),
   },
   (t) => [
     uniqueIndex('assessment_results_version_uq').on(t.assessmentId, t.version),
     index('assessment_results_athlete_idx').on(t.athleteId, t.createdAt),
+    // Progress: the current result of an assessment, without scanning its older versions.
+    index('assessment_results_current_idx').on(t.assessmentId).where(sql`is_current`),
   ],
 );
 
