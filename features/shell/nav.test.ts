@@ -3,11 +3,11 @@ import { navFor } from './nav';
 
 describe('navFor', () => {
   it.each([
-    ['admin', true, ['/', '/athletes', '/screening', '/people', '/dev/mailbox']],
-    ['admin', false, ['/', '/athletes', '/screening', '/people']],
-    ['head_coach', true, ['/', '/athletes', '/screening', '/people']],
-    ['tester', true, ['/', '/athletes', '/screening']],
-    ['physio', true, ['/', '/athletes', '/screening']],
+    ['admin', true, ['/', '/athletes', '/screening', '/trends', '/people', '/dev/mailbox']],
+    ['admin', false, ['/', '/athletes', '/screening', '/trends', '/people']],
+    ['head_coach', true, ['/', '/athletes', '/screening', '/trends', '/people']],
+    ['tester', true, ['/', '/athletes', '/screening', '/trends']],
+    ['physio', true, ['/', '/athletes', '/screening', '/trends']],
     ['parent', true, ['/']],
   ] as const)('%s (mailbox %s)', (role, mailbox, hrefs) => {
     expect(navFor(role, { mailbox }).map((i) => i.href)).toEqual(hrefs);
