@@ -1,8 +1,9 @@
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useActiveClub } from '@/features/session/active-club';
 import { can } from '@/features/access/permissions';
 import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
@@ -68,6 +69,7 @@ function Comparison({ progress }: { progress: ProgressResponse }) {
   const earlier = progress.screens.find((s) => s.assessmentId === c.earlierAssessmentId);
   const later = progress.screens.find((s) => s.assessmentId === c.laterAssessmentId);
   const summary = coachSummary(c);
+  const [showWithin, setShowWithin] = useState(false);
   return (
     <Card testID="progress-comparison">
       <Text variant="label">
@@ -83,11 +85,20 @@ function Comparison({ progress }: { progress: ProgressResponse }) {
           • {l}
         </Text>
       ))}
-      {summary.withinError.map((l) => (
-        <Text key={l} variant="small">
-          • {l}
-        </Text>
-      ))}
+      {summary.withinError.length ? (
+        <Button
+          tone="quiet"
+          label={showWithin ? 'Hide the changes within measuring error' : `Show the ${summary.withinError.length} changes within measuring error`}
+          onPress={() => setShowWithin((v) => !v)}
+        />
+      ) : null}
+      {showWithin
+        ? summary.withinError.map((l) => (
+            <Text key={l} variant="small">
+              • {l}
+            </Text>
+          ))
+        : null}
     </Card>
   );
 }

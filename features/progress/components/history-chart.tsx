@@ -7,6 +7,9 @@ import type { HistorySeries } from '../history';
 import { NumbersTable } from './numbers-table';
 
 const round1 = (n: number) => Math.round(n * 10) / 10;
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+/** '2026-03-09' -> 'Mar 26': short enough for a phone's axis. */
+export const shortDate = (iso: string) => `${MONTHS[Number(iso.slice(5, 7)) - 1] ?? ''} ${iso.slice(2, 4)}`;
 export const AXIS_STYLE = {
   axis: { stroke: colors.line },
   tickLabels: { fontFamily: fonts.regular, fontSize: 11, fill: colors.inkMuted, padding: 4 },
@@ -24,7 +27,7 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
   if (series.band) ys.push(series.band.low, series.band.high);
   const pad = Math.max(1, (Math.max(...ys) - Math.min(...ys)) * 0.1);
   const domainY: [number, number] = [Math.min(...ys) - pad, Math.max(...ys) + pad];
-  const dateOf = new Map(series.points.map((p) => [p.index, p.screenedOn.slice(2)]));
+  const dateOf = new Map(series.points.map((p) => [p.index, shortDate(p.screenedOn)]));
   const summary = series.points.map((p) => `${p.roundName} ${round1(p.value)}${series.unit === '°' ? '°' : ` ${series.unit}`}`).join(', ');
 
   return (
@@ -37,8 +40,9 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
       >
         {width > 0 ? (
           <VictoryChart width={width} height={170} padding={{ top: 10, bottom: 28, left: 40, right: 12 }} domain={{ x: [minX, maxX], y: domainY }}>
-            <VictoryAxis tickValues={xs} tickFormat={(x: number) => dateOf.get(x) ?? ''} style={AXIS_STYLE} />
-            <VictoryAxis dependentAxis style={AXIS_STYLE} tickCount={4} />
+            {/* Axes at the chart's edges (not where the other value is zero), so the band never covers them. */}
+            <VictoryAxis crossAxis={false} tickValues={xs} tickFormat={(x: number) => dateOf.get(x) ?? ''} style={AXIS_STYLE} />
+            <VictoryAxis dependentAxis crossAxis={false} style={AXIS_STYLE} tickCount={4} />
             {series.band ? (
               <VictoryArea
                 data={[
