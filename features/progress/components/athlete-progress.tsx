@@ -58,6 +58,7 @@ function ProgressBody({ progress }: { progress: ProgressResponse }) {
 }
 
 function Comparison({ progress }: { progress: ProgressResponse }) {
+  const [showWithin, setShowWithin] = useState(false);
   const c = progress.comparison;
   if (!c) {
     return (
@@ -69,7 +70,6 @@ function Comparison({ progress }: { progress: ProgressResponse }) {
   const earlier = progress.screens.find((s) => s.assessmentId === c.earlierAssessmentId);
   const later = progress.screens.find((s) => s.assessmentId === c.laterAssessmentId);
   const summary = coachSummary(c);
-  const [showWithin, setShowWithin] = useState(false);
   return (
     <Card testID="progress-comparison">
       <Text variant="label">
