@@ -82,6 +82,11 @@ try {
     const check = await fetch(t.url, { headers: t.headers });
     if (!check.ok) throw new Error(`${t.name} answered ${check.status} before the run.`);
   }
+  if (process.argv.includes('--hold')) {
+    // For looking at query plans: keep the seeded database and server until Ctrl-C.
+    console.log(JSON.stringify({ databaseUrl: databaseUrl(port, password, 'squadline_bench'), base, ...ready }));
+    await new Promise(() => {});
+  }
   const rows = [];
   for (const t of targets) {
     log(`${t.name}: warm-up 3 s, then ${DURATION} s with ${CONNECTIONS} connections...`);

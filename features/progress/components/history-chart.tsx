@@ -40,9 +40,6 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
       >
         {width > 0 ? (
           <VictoryChart width={width} height={170} padding={{ top: 10, bottom: 28, left: 40, right: 12 }} domain={{ x: [minX, maxX], y: domainY }}>
-            {/* Axes at the chart's edges (not where the other value is zero), so the band never covers them. */}
-            <VictoryAxis crossAxis={false} tickValues={xs} tickFormat={(x: number) => dateOf.get(x) ?? ''} style={AXIS_STYLE} />
-            <VictoryAxis dependentAxis crossAxis={false} style={AXIS_STYLE} tickCount={4} />
             {series.band ? (
               <VictoryArea
                 data={[
@@ -63,6 +60,9 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
             ) : null}
             <VictoryLine data={series.points.map((p) => ({ x: p.index, y: p.value }))} style={{ data: { stroke: colors.ink, strokeWidth: 2 } }} />
             <VictoryScatter data={series.points.map((p) => ({ x: p.index, y: p.value }))} size={4} style={{ data: { fill: colors.pine } }} />
+            {/* Axes last and pinned to the chart's edges (not where the other value is zero), so the band never covers them. */}
+            <VictoryAxis offsetY={28} tickValues={xs} tickFormat={(x: number) => dateOf.get(x) ?? ''} style={AXIS_STYLE} />
+            <VictoryAxis dependentAxis offsetX={40} style={AXIS_STYLE} tickCount={4} />
           </VictoryChart>
         ) : null}
       </View>

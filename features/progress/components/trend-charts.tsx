@@ -55,8 +55,8 @@ export function FlagShareChart({ rounds, title, testID }: { rounds: TrendRound[]
         ) : (
           <View>
             <VictoryChart width={width} height={190} padding={{ top: 10, bottom: 30, left: 42, right: 12 }} domain={{ x: [-0.3, Math.max(1, rounds.length - 1) + 0.3], y: [0, 1] }}>
-              <VictoryAxis crossAxis={false} tickValues={rounds.map((_, i) => i)} tickFormat={(i: number) => rounds[i]?.name.slice(0, 12) ?? ''} style={AXIS_STYLE} />
-              <VictoryAxis dependentAxis crossAxis={false} tickValues={[0, 0.25, 0.5, 0.75, 1]} tickFormat={(v: number) => `${v * 100}%`} style={AXIS_STYLE} />
+              <VictoryAxis offsetY={30} tickValues={rounds.map((_, i) => i)} tickFormat={(i: number) => rounds[i]?.name.slice(0, 12) ?? ''} style={AXIS_STYLE} />
+              <VictoryAxis dependentAxis offsetX={42} tickValues={[0, 0.25, 0.5, 0.75, 1]} tickFormat={(v: number) => `${v * 100}%`} style={AXIS_STYLE} />
               {patterns.map((p) => {
                 const data = rounds.map((r, i) => ({ x: i, y: shareOf(r, p) })).filter((d): d is { x: number; y: number } => d.y !== null);
                 return <VictoryLine key={p} data={data} style={{ data: { stroke: PATTERN_COLOURS[p], strokeWidth: 2 } }} />;
@@ -116,8 +116,8 @@ export function KneeDistributionChart({ rounds, measurementId, name }: { rounds:
           <Text variant="small">No knee angle of this task yet.</Text>
         ) : (
           <VictoryChart width={width} height={190} padding={{ top: 10, bottom: 30, left: 42, right: 12 }} domain={{ x: [-0.5, Math.max(1, rounds.length - 1) + 0.5] }}>
-            <VictoryAxis crossAxis={false} tickValues={rounds.map((_, i) => i)} tickFormat={(i: number) => rounds[i]?.name.slice(0, 12) ?? ''} style={AXIS_STYLE} />
-            <VictoryAxis dependentAxis crossAxis={false} tickFormat={(v: number) => `${v}°`} style={AXIS_STYLE} />
+            <VictoryAxis offsetY={30} tickValues={rounds.map((_, i) => i)} tickFormat={(i: number) => rounds[i]?.name.slice(0, 12) ?? ''} style={AXIS_STYLE} />
+            <VictoryAxis dependentAxis offsetX={42} tickFormat={(v: number) => `${v}°`} style={AXIS_STYLE} />
             <VictoryScatter data={points} size={3} style={{ data: { fill: colors.pine, opacity: 0.55 } }} />
             <VictoryScatter data={medians} symbol="minus" size={6} style={{ data: { fill: colors.ink, stroke: colors.ink, strokeWidth: 3 } }} />
           </VictoryChart>
@@ -168,7 +168,7 @@ export function ChangeChart({ athletes, from, to, measurementId, name }: { athle
             />
             {/* Names at the left edge, not where the change is zero (the bars would cover them). */}
             <VictoryAxis tickValues={rows.map((_, i) => i + 1)} tickFormat={(i: number) => rows[i - 1]?.name ?? ''} offsetX={80} style={AXIS_STYLE} />
-            <VictoryAxis dependentAxis crossAxis={false} tickFormat={(v: number) => `${v}°`} style={AXIS_STYLE} />
+            <VictoryAxis dependentAxis offsetY={30} tickFormat={(v: number) => `${v}°`} style={AXIS_STYLE} />
             <VictoryBar
               data={rows.map((r, i) => ({ x: i + 1, y: r.change, verdict: r.verdict }))}
               barWidth={12}
