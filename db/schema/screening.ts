@@ -56,7 +56,14 @@ export const assessments = pgTable(
     submittedBy: uuid('submitted_by').references(() => users.id, { onDelete: 'set null' }),
     ...timestamps,
   },
-  (t) => [uniqueIndex('assessments_round_athlete_uq').on(t.roundId, t.athleteId), index('assessments_athlete_idx').on(t.athleteId)],
+  (t) => [
+    uniqueIndex('assessments_round_athlete_uq').on(t.roundId, t.athleteId),
+    index('assessments_athlete_idx').on(t.athleteId),
+    // Progress: submitted screens by round and by athlete, holding every column trends join on, so a
+    // squad's season is read by index-only scans instead of a pass over every assessment of the club.
+    index('assessments_round_submitted_idx').on(t.roundId, t.athleteId, t.id).where(sql`status = 'submitted'`),
+    index('assessments_athlete_submitted_idx').on(t.athleteId, t.roundId, t.id).where(sql`status = 'submitted'`),
+  ],
 );
 
 /** The engine's output for a submission. Re-submitting adds a version; the newest is current. */

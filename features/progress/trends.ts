@@ -14,7 +14,7 @@ export type TrendRound = {
   screened: number;
   /** Per pattern: how many of the screened athletes had that flag (an athlete with it on both sides counts once). */
   flagged: Partial<Record<PatternId, number>>;
-  /** Knee angles from the front (FPPA) of everyone screened, by measurement id (e.g. 'single-leg-squat-left/fppa/left'). */
+  /** Knee angles from the front (FPPA, degrees, 0.1 precision) of everyone screened, by measurement id (e.g. 'single-leg-squat-left/fppa/left'), sorted. */
   kneeAngles: Record<string, number[]>;
 };
 
@@ -36,8 +36,11 @@ export type TrendAthlete = {
   rescreenDate: string | null;
   rescreenDue: boolean;
   latestFlags: SidedPatterns;
-  /** Knee angles from the front per round of this squad: roundId -> measurement id -> degrees. */
-  kneeAngles: Record<string, Record<string, number>>;
+  /**
+   * Knee angles from the front (degrees, 0.1 precision) by measurement id, one value per round of the
+   * response's `rounds` (same order), null where not measured.
+   */
+  kneeAngles: Record<string, (number | null)[]>;
 };
 
 export type TrendsResponse = {

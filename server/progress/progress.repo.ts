@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, isNull, sql } from 'drizzle-orm';
 import type { PgColumn } from 'drizzle-orm/pg-core';
 import { assessmentResults, assessments, athletes, rounds, squads } from '@/db/schema';
 import type { ClubScope } from '@/server/access/scope';
@@ -64,6 +64,8 @@ export function progressRepo(db: Executor, scope: ClubScope) {
 
     /** The current result summary of every submitted screen in the squad's rounds. */
     squadResults(squadId: string) {
+      // rounds -> assessments as a join (not `round_id in (...)`): the planner then walks the partial
+      // index of submitted screens per round instead of scanning every assessment of the club.
       return db
         .select({
           roundId: assessments.roundId,
@@ -72,18 +74,10 @@ export function progressRepo(db: Executor, scope: ClubScope) {
           fppaIds: assessmentResults.fppaIds,
           fppaValues: assessmentResults.fppaValues,
         })
-        .from(assessments)
+        .from(rounds)
+        .innerJoin(assessments, and(eq(assessments.roundId, rounds.id), eq(assessments.status, 'submitted')))
         .innerJoin(assessmentResults, current)
-        .where(
-          and(
-            eq(assessments.clubId, clubId),
-            eq(assessments.status, 'submitted'),
-            inArray(
-              assessments.roundId,
-              db.select({ id: rounds.id }).from(rounds).where(and(eq(rounds.squadId, squadId), eq(rounds.clubId, clubId))),
-            ),
-          ),
-        );
+        .where(and(eq(rounds.squadId, squadId), eq(rounds.clubId, clubId)));
     },
 
     squadAthletes(squadId: string) {
@@ -113,22 +107,11 @@ export function progressRepo(db: Executor, scope: ClubScope) {
           maturityBand: assessmentResults.maturityBand,
           rescreenDate: assessmentResults.rescreenDate,
         })
-        .from(assessments)
+        .from(athletes)
+        .innerJoin(assessments, and(eq(assessments.athleteId, athletes.id), eq(assessments.status, 'submitted')))
         .innerJoin(rounds, eq(rounds.id, assessments.roundId))
         .innerJoin(assessmentResults, current)
-        .where(
-          and(
-            eq(assessments.clubId, clubId),
-            eq(assessments.status, 'submitted'),
-            inArray(
-              assessments.athleteId,
-              db
-                .select({ id: athletes.id })
-                .from(athletes)
-                .where(and(eq(athletes.squadId, squadId), eq(athletes.clubId, clubId), isNull(athletes.archivedAt))),
-            ),
-          ),
-        )
+        .where(and(eq(athletes.squadId, squadId), eq(athletes.clubId, clubId), isNull(athletes.archivedAt)))
         .orderBy(assessments.athleteId, desc(rounds.screenedOn), desc(assessmentResults.createdAt));
     },
   };

@@ -66,10 +66,12 @@ export function progressService(db: Executor, scope: ClubScope) {
       const rounds = new Map<string, TrendRound>(
         roundRows.map((r) => [r.id, { id: r.id, name: r.name, screenedOn: r.screenedOn, screened: 0, flagged: {}, kneeAngles: {} }]),
       );
-      const anglesByAthlete = new Map<string, Record<string, Record<string, number>>>();
+      const roundIndex = new Map(roundRows.map((r, i) => [r.id, i]));
+      const anglesByAthlete = new Map<string, Record<string, (number | null)[]>>();
       for (const r of results) {
         const round = rounds.get(r.roundId);
-        if (!round) continue;
+        const index = roundIndex.get(r.roundId);
+        if (!round || index === undefined) continue;
         round.screened += 1;
         // One count per athlete and pattern, however many tasks or sides show it.
         const patterns = new Set((r.flagIds ?? []).map((id) => id.split('/')[0] as PatternId));
@@ -77,14 +79,13 @@ export function progressService(db: Executor, scope: ClubScope) {
         const ids = r.fppaIds ?? [];
         const values = r.fppaValues ?? [];
         const mine = anglesByAthlete.get(r.athleteId) ?? {};
-        const inRound: Record<string, number> = {};
         ids.forEach((id, i) => {
           const v = values[i];
           if (typeof v !== 'number') return;
-          (round.kneeAngles[id] ??= []).push(v);
-          inRound[id] = v;
+          const angle = Math.round(v * 10) / 10;
+          (round.kneeAngles[id] ??= []).push(angle);
+          (mine[id] ??= roundRows.map(() => null))[index] = angle;
         });
-        mine[r.roundId] = inRound;
         anglesByAthlete.set(r.athleteId, mine);
       }
       // Distributions are read sorted (quartiles, strip plots).

@@ -185,7 +185,7 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
                 <Chips label="From round" value={fromId} onChange={setFromId} options={screenedRounds.map((r) => ({ value: r.id, label: r.name }))} />
                 <Chips label="To round" value={toId} onChange={setToId} options={screenedRounds.map((r) => ({ value: r.id, label: r.name }))} />
               </View>
-              {from && to && from.id !== to.id ? <ChangeChart athletes={rows} from={from} to={to} measurementId={kneeId} name={kneeAngleName(kneeId)} /> : null}
+              {from && to && from.id !== to.id ? <ChangeChart athletes={rows} rounds={data.rounds} from={from} to={to} measurementId={kneeId} name={kneeAngleName(kneeId)} /> : null}
             </>
           ) : null}
         </>

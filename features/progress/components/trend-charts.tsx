@@ -128,13 +128,16 @@ export function KneeDistributionChart({ rounds, measurementId, name }: { rounds:
 }
 
 /** Change in one knee angle per athlete between two rounds, against the published error band. */
-export function ChangeChart({ athletes, from, to, measurementId, name }: { athletes: TrendAthlete[]; from: TrendRound; to: TrendRound; measurementId: string; name: string }) {
+export function ChangeChart({ athletes, rounds, from, to, measurementId, name }: { athletes: TrendAthlete[]; rounds: TrendRound[]; from: TrendRound; to: TrendRound; measurementId: string; name: string }) {
   const margin = ERROR_MARGINS.fppa!;
+  const fromIndex = rounds.indexOf(from);
+  const toIndex = rounds.indexOf(to);
   const rows = athletes
     .map((a) => {
-      const before = a.kneeAngles[from.id]?.[measurementId];
-      const after = a.kneeAngles[to.id]?.[measurementId];
-      if (before === undefined || after === undefined) return null;
+      const series = a.kneeAngles[measurementId];
+      const before = series?.[fromIndex];
+      const after = series?.[toIndex];
+      if (before === undefined || before === null || after === undefined || after === null) return null;
       const change = Math.round((after - before) * 100) / 100;
       return { name: `${a.firstName} ${a.lastName.slice(0, 1)}.`, before, after, change, verdict: verdictFor(change, margin.value) };
     })
