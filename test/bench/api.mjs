@@ -62,7 +62,7 @@ function run(url, headers, duration) {
 
 let status = 0;
 try {
-  log('Seeding 2,000 athletes x 8 rounds (16,000 screens through the engine; a minute or two)...');
+  log('Seeding 2,000 athletes x 8 rounds (16,000 screens through the engine; several minutes on 2 busy cores)...');
   server = tsx(['test/bench/api-server.ts'], { DATABASE_URL: databaseUrl(port, password, 'squadline_bench') }, ['ignore', 'pipe', 'inherit']);
   const ready = await new Promise((resolve, reject) => {
     const lines = readline.createInterface({ input: server.stdout });
