@@ -7,7 +7,7 @@ import { colors, radius, space } from '@/features/ui/theme';
 import { ERROR_MARGINS, verdictFor } from '../compare';
 import { PATTERN_COLOURS, PATTERN_SHORT } from '../labels';
 import { shareOf, type TrendAthlete, type TrendRound } from '../trends';
-import { AXIS_STYLE } from './history-chart';
+import { AXIS_STYLE, shortDate } from './history-chart';
 import { NumbersTable } from './numbers-table';
 
 const pct = (n: number | null) => (n === null ? '–' : `${Math.round(n * 100)}%`);
@@ -55,7 +55,7 @@ export function FlagShareChart({ rounds, title, testID }: { rounds: TrendRound[]
         ) : (
           <View>
             <VictoryChart width={width} height={190} padding={{ top: 10, bottom: 30, left: 42, right: 12 }} domain={{ x: [-0.3, Math.max(1, rounds.length - 1) + 0.3], y: [0, 1] }}>
-              <VictoryAxis offsetY={30} tickValues={rounds.map((_, i) => i)} tickFormat={(i: number) => rounds[i]?.name.slice(0, 12) ?? ''} style={AXIS_STYLE} />
+              <VictoryAxis offsetY={30} tickValues={rounds.map((_, i) => i)} tickFormat={(i: number) => (rounds[i] ? shortDate(rounds[i].screenedOn) : '')} style={AXIS_STYLE} />
               <VictoryAxis dependentAxis offsetX={42} tickValues={[0, 0.25, 0.5, 0.75, 1]} tickFormat={(v: number) => `${v * 100}%`} style={AXIS_STYLE} />
               {patterns.map((p) => {
                 const data = rounds.map((r, i) => ({ x: i, y: shareOf(r, p) })).filter((d): d is { x: number; y: number } => d.y !== null);
@@ -116,7 +116,7 @@ export function KneeDistributionChart({ rounds, measurementId, name }: { rounds:
           <Text variant="small">No knee angle of this task yet.</Text>
         ) : (
           <VictoryChart width={width} height={190} padding={{ top: 10, bottom: 30, left: 42, right: 12 }} domain={{ x: [-0.5, Math.max(1, rounds.length - 1) + 0.5] }}>
-            <VictoryAxis offsetY={30} tickValues={rounds.map((_, i) => i)} tickFormat={(i: number) => rounds[i]?.name.slice(0, 12) ?? ''} style={AXIS_STYLE} />
+            <VictoryAxis offsetY={30} tickValues={rounds.map((_, i) => i)} tickFormat={(i: number) => (rounds[i] ? shortDate(rounds[i].screenedOn) : '')} style={AXIS_STYLE} />
             <VictoryAxis dependentAxis offsetX={42} tickFormat={(v: number) => `${v}°`} style={AXIS_STYLE} />
             <VictoryScatter data={points} size={3} style={{ data: { fill: colors.pine, opacity: 0.55 } }} />
             <VictoryScatter data={medians} symbol="minus" size={6} style={{ data: { fill: colors.ink, stroke: colors.ink, strokeWidth: 3 } }} />
