@@ -19,6 +19,8 @@ async function shownCount(page: Page): Promise<number> {
 }
 
 test('squad trends: load, filter, sort, CSV, charts', async ({ page }, info) => {
+  // Many steps and four screenshots: give it the time of three ordinary tests on a busy machine.
+  test.slow();
   await signIn(page, 'coach@squadline.test');
   await page.getByTestId('home-trends-link').click();
   await expect(page.getByTestId('squad-trends')).toBeVisible();
