@@ -19,6 +19,7 @@ import type { Outbox } from './mail/outbox';
 import { meRouter } from './me/me.router';
 import { metaRouter, type Mailbox } from './meta/meta.router';
 import { measuringRouter } from './measuring/measuring.router';
+import { progressRouter } from './progress/progress.router';
 import { screeningRouter } from './screening/screening.router';
 import type { PhotoStorage } from './storage/storage';
 
@@ -83,6 +84,7 @@ export function createApp(deps: AppDeps) {
   api.use(athletesRouter(db));
   api.use(screeningRouter({ db, storage: deps.storage }));
   api.use(measuringRouter({ db }));
+  api.use(progressRouter(db));
   api.use((() => {
     throw notFound('This API route');
   }) as RequestHandler);

@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { boolean, date, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import type { AssessmentDraft, PlanOverrideView } from '@/features/screening/contract';
 import type { AssessmentInput, AssessmentResult, PlannedExercise } from '@/features/screening/engine';
@@ -28,7 +29,11 @@ export const rounds = pgTable(
     closedBy: uuid('closed_by').references(() => users.id, { onDelete: 'set null' }),
     ...timestamps,
   },
-  (t) => [index('rounds_club_idx').on(t.clubId, t.screenedOn)],
+  (t) => [
+    index('rounds_club_idx').on(t.clubId, t.screenedOn),
+    // Progress: a squad's rounds in date order (squad trends).
+    index('rounds_squad_idx').on(t.squadId, t.screenedOn),
+  ],
 );
 
 /** One athlete in one round: the tester's draft, then the submitted state. */
@@ -54,7 +59,14 @@ export const assessments = pgTable(
     submittedBy: uuid('submitted_by').references(() => users.id, { onDelete: 'set null' }),
     ...timestamps,
   },
-  (t) => [uniqueIndex('assessments_round_athlete_uq').on(t.roundId, t.athleteId), index('assessments_athlete_idx').on(t.athleteId)],
+  (t) => [
+    uniqueIndex('assessments_round_athlete_uq').on(t.roundId, t.athleteId),
+    index('assessments_athlete_idx').on(t.athleteId),
+    // Progress: submitted screens by round and by athlete, holding every column trends join on, so a
+    // squad's season is read by index-only scans instead of a pass over every assessment of the club.
+    index('assessments_round_submitted_idx').on(t.roundId, t.athleteId, t.id).where(sql`status = 'submitted'`),
+    index('assessments_athlete_submitted_idx').on(t.athleteId, t.roundId, t.id).where(sql`status = 'submitted'`),
+  ],
 );
 
 /** The engine's output for a submission. Re-submitting adds a version; the newest is current. */
@@ -78,10 +90,31 @@ export const assessmentResults = pgTable(
     result: jsonb('result').$type<AssessmentResult>().notNull(),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+    // Progress: small copies of what squad trends read, kept by PostgreSQL from `result` on every write,
+    // so a squad's season is read without unpacking each full result (measurements, flags and plan).
+    /** The flags' ids ('pattern/scope/side'), in the result's order. */
+    flagIds: jsonb('flag_ids')
+      .$type<string[]>()
+      .generatedAlwaysAs(sql`jsonb_path_query_array(result, '$.flags[*].id')`),
+    /** The flags' sides, parallel to flagIds (null for unsided flags). */
+    flagSides: jsonb('flag_sides')
+      .$type<(string | null)[]>()
+      .generatedAlwaysAs(sql`jsonb_path_query_array(result, '$.flags[*].side')`),
+    /** Knee angles from the front (FPPA): measurement ids and values, parallel arrays. */
+    fppaIds: jsonb('fppa_ids')
+      .$type<string[]>()
+      .generatedAlwaysAs(sql`jsonb_path_query_array(result, '$.measurements[*] ? (@.metric == "fppa").id')`),
+    fppaValues: jsonb('fppa_values')
+      .$type<number[]>()
+      .generatedAlwaysAs(sql`jsonb_path_query_array(result, '$.measurements[*] ? (@.metric == "fppa").value')`),
+    maturityBand: text('maturity_band').generatedAlwaysAs(sql`result #>> '{maturity,band}'`),
+    rescreenDate: text('rescreen_date').generatedAlwaysAs(sql`result #>> '{plan,rescreenDate}'`),
   },
   (t) => [
     uniqueIndex('assessment_results_version_uq').on(t.assessmentId, t.version),
     index('assessment_results_athlete_idx').on(t.athleteId, t.createdAt),
+    // Progress: the current result of an assessment, without scanning its older versions.
+    index('assessment_results_current_idx').on(t.assessmentId).where(sql`is_current`),
   ],
 );
 

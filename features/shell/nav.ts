@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import type { RoleValue } from '@/features/auth/schemas';
 
 export type NavItem = { href: string; label: string };
@@ -9,6 +10,7 @@ export function navFor(role: RoleValue, options: { mailbox: boolean }): NavItem[
   if (role !== 'parent') items.push({ href: '/screening', label: 'Screening' });
   // The roles that screen also place the points of photos taken courtside.
   if (role === 'admin' || role === 'head_coach' || role === 'tester') items.push({ href: '/measuring', label: 'To measure' });
+  if (can(role, 'trends.read')) items.push({ href: '/trends', label: 'Squad trends' });
   if (role === 'admin' || role === 'head_coach') items.push({ href: '/people', label: 'People' });
   if (role === 'admin' && options.mailbox) items.push({ href: '/dev/mailbox', label: 'Mailbox (local)' });
   return items;

@@ -42,6 +42,11 @@ export function RoleHome() {
       ) : (
         <SquadCards />
       )}
+      {membership.role === 'head_coach' ? (
+        <Link href="/trends" style={styles.link} testID="home-trends-link">
+          <Text variant="label">Squad trends over the season →</Text>
+        </Link>
+      ) : null}
       {membership.role !== 'parent' ? (
         <Link href="/athletes" style={styles.link}>
           <Text variant="label">See all athletes →</Text>

@@ -1,0 +1,105 @@
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { VictoryArea, VictoryAxis, VictoryChart, VictoryLine, VictoryScatter } from 'victory-native';
+import { Text } from '@/features/ui/components/text';
+import { colors, fonts, radius, space } from '@/features/ui/theme';
+import type { HistorySeries } from '../history';
+import { NumbersTable } from './numbers-table';
+
+const round1 = (n: number) => Math.round(n * 10) / 10;
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+/** '2026-03-09' -> 'Mar 26': short enough for a phone's axis. */
+export const shortDate = (iso: string) => `${MONTHS[Number(iso.slice(5, 7)) - 1] ?? ''} ${iso.slice(2, 4)}`;
+export const AXIS_STYLE = {
+  axis: { stroke: colors.line },
+  tickLabels: { fontFamily: fonts.regular, fontSize: 11, fill: colors.inkMuted, padding: 4 },
+  grid: { stroke: 'transparent' },
+};
+
+/** One measurement over time: the athlete's values, the flag threshold (dashed) and the error band (shaded). */
+export function HistoryChart({ series }: { series: HistorySeries }) {
+  const [width, setWidth] = useState(0);
+  const xs = series.points.map((p) => p.index);
+  const minX = Math.min(...xs) - 0.4;
+  const maxX = Math.max(...xs) + 0.4;
+  const ys = series.points.map((p) => p.value);
+  if (series.threshold) ys.push(series.threshold.value);
+  if (series.band) ys.push(series.band.low, series.band.high);
+  const pad = Math.max(1, (Math.max(...ys) - Math.min(...ys)) * 0.1);
+  const domainY: [number, number] = [Math.min(...ys) - pad, Math.max(...ys) + pad];
+  const dateOf = new Map(series.points.map((p) => [p.index, shortDate(p.screenedOn)]));
+  const summary = series.points.map((p) => `${p.roundName} ${round1(p.value)}${series.unit === '°' ? '°' : ` ${series.unit}`}`).join(', ');
+
+  return (
+    <View style={styles.wrap} testID="history-chart">
+      <Text variant="label">{series.title}</Text>
+      <View
+        onLayout={(e) => setWidth(Math.round(e.nativeEvent.layout.width))}
+        accessibilityLabel={`Chart: ${series.title}. ${summary}.`}
+        style={styles.chart}
+      >
+        {width > 0 ? (
+          <VictoryChart width={width} height={170} padding={{ top: 10, bottom: 28, left: 40, right: 12 }} domain={{ x: [minX, maxX], y: domainY }}>
+            {series.band ? (
+              <VictoryArea
+                data={[
+                  { x: minX, y: series.band.high, y0: series.band.low },
+                  { x: maxX, y: series.band.high, y0: series.band.low },
+                ]}
+                style={{ data: { fill: colors.pineSoft, stroke: 'none' } }}
+              />
+            ) : null}
+            {series.threshold ? (
+              <VictoryLine
+                data={[
+                  { x: minX, y: series.threshold.value },
+                  { x: maxX, y: series.threshold.value },
+                ]}
+                style={{ data: { stroke: colors.brick, strokeDasharray: '5,4', strokeWidth: 1.5 } }}
+              />
+            ) : null}
+            <VictoryLine data={series.points.map((p) => ({ x: p.index, y: p.value }))} style={{ data: { stroke: colors.ink, strokeWidth: 2 } }} />
+            <VictoryScatter data={series.points.map((p) => ({ x: p.index, y: p.value }))} size={4} style={{ data: { fill: colors.pine } }} />
+            {/* Axes last and pinned to the chart's edges (not where the other value is zero), so the band never covers them. */}
+            <VictoryAxis offsetY={28} tickValues={xs} tickFormat={(x: number) => dateOf.get(x) ?? ''} style={AXIS_STYLE} />
+            <VictoryAxis dependentAxis offsetX={40} style={AXIS_STYLE} tickCount={4} />
+          </VictoryChart>
+        ) : null}
+      </View>
+      <View style={styles.legend}>
+        {series.threshold ? (
+          <Text variant="small">
+            <Text variant="small" style={{ color: colors.brick }}>
+              - - -
+            </Text>{' '}
+            flagged {series.threshold.flagWhen} {series.threshold.value}
+            {series.unit === '°' ? '°' : ` ${series.unit}`}
+          </Text>
+        ) : null}
+        {series.band ? (
+          <Text variant="small">
+            <Text variant="small" style={styles.bandKey}>
+              {'   '}
+            </Text>{' '}
+            ±{series.band.margin}
+            {series.unit === '°' ? '°' : ` ${series.unit}`} measuring error around {round1(series.band.around)}: a later point inside it is not a change
+          </Text>
+        ) : (
+          <Text variant="small">No published measuring error: changes are shown, not judged.</Text>
+        )}
+      </View>
+      <NumbersTable
+        caption={`${series.title}: values per screen`}
+        columns={['Screen', 'Date', `Value (${series.unit})`]}
+        rows={series.points.map((p) => [p.roundName, p.screenedOn, round1(p.value)])}
+      />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.xs, padding: space.md, borderWidth: 1, borderColor: colors.line, borderRadius: radius.md, backgroundColor: colors.surface },
+  chart: { width: '100%', minHeight: 170 },
+  legend: { gap: 2 },
+  bandKey: { backgroundColor: colors.pineSoft },
+});

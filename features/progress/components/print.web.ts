@@ -1,0 +1,44 @@
+import { useEffect } from 'react';
+
+export const PRINT_HIDE = { dataSet: { print: 'hide' } } as object;
+export const PRINT_ROOT = { dataSet: { printRoot: 'true' } } as object;
+
+/**
+ * The printable one-page squad report: only the region marked PRINT_ROOT is printed, controls marked
+ * PRINT_HIDE are left out, scrolling containers are unrolled, on one A4 landscape page.
+ */
+const CSS = `
+@media print {
+  @page { size: A4 landscape; margin: 10mm; }
+  html, body, #root, #root * { overflow: visible !important; }
+  body * { visibility: hidden; }
+  [data-print-root], [data-print-root] * { visibility: visible; }
+  [data-print-root] { position: absolute; left: 0; top: 0; width: 100%; }
+  [data-print="hide"] { display: none !important; }
+  [data-print-root] { font-size: 11px; }
+}`;
+
+export function usePrintStyles(): void {
+  useEffect(() => {
+    if (document.getElementById('squadline-print-css')) return;
+    const style = document.createElement('style');
+    style.id = 'squadline-print-css';
+    style.textContent = CSS;
+    document.head.appendChild(style);
+  }, []);
+}
+
+export function printPage(): void {
+  window.print();
+}
+export const canPrint = true;
+
+/** Downloads a file through a link with `download`, so the page stays where it is. */
+export function downloadFile(url: string): void {
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = '';
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+}

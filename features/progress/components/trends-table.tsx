@@ -1,0 +1,121 @@
+import { Link } from 'expo-router';
+import { Pressable, StyleSheet, View } from 'react-native';
+import type { PatternId } from '@/features/screening/engine';
+import { Text } from '@/features/ui/components/text';
+import { colors, fonts, radius, space } from '@/features/ui/theme';
+import { BAND_LABELS, BAND_SHORT, PATTERN_SHORT } from '../labels';
+import type { SortKey, TrendAthlete } from '../trends';
+
+const list = (p: PatternId[]) => (p.length ? p.map((x) => PATTERN_SHORT[x]).join(', ') : '–');
+
+type Col = { key: SortKey | null; label: string; flex: number; cell: (a: TrendAthlete) => string };
+const COLUMNS: Col[] = [
+  { key: 'name', label: 'Athlete', flex: 1.6, cell: (a) => `${a.lastName}, ${a.firstName}` },
+  { key: 'ageGroup', label: 'Age', flex: 0.6, cell: (a) => `${a.ageGroup} · ${a.sex === 'female' ? 'F' : 'M'}` },
+  { key: 'maturityBand', label: 'Maturity', flex: 0.9, cell: (a) => BAND_SHORT[a.maturityBand ?? 'unknown'] },
+  { key: 'flags', label: 'Flags left', flex: 1.2, cell: (a) => list(a.latestFlags.left) },
+  { key: null, label: 'Flags right', flex: 1.2, cell: (a) => list(a.latestFlags.right) },
+  { key: null, label: 'Other flags', flex: 1.2, cell: (a) => list([...a.latestFlags.both, ...a.latestFlags.unsided]) },
+  { key: 'clearance', label: 'Clearance', flex: 1.1, cell: (a) => a.clearance ?? '–' },
+  { key: 'daysSinceLastScreen', label: 'Last screen', flex: 0.9, cell: (a) => (a.daysSinceLastScreen === null ? 'Never' : `${a.daysSinceLastScreen} days ago`) },
+  { key: 'rescreenDue', label: 'Re-screen', flex: 0.9, cell: (a) => (a.rescreenDue ? 'Due' : `from ${a.rescreenDate}`) },
+];
+
+type Props = { rows: TrendAthlete[]; sort: SortKey; descending: boolean; onSort: (key: SortKey) => void };
+
+/** Wide screens: one row per athlete, every column sortable from its header. */
+export function TrendsTable({ rows, sort, descending, onSort }: Props) {
+  return (
+    <View role="table" aria-label="Squad table" style={styles.table} testID="trends-table">
+      <View role="row" style={[styles.row, styles.headRow]}>
+        {COLUMNS.map((c) =>
+          c.key ? (
+            <Pressable
+              key={c.label}
+              role="columnheader"
+              aria-sort={sort === c.key ? (descending ? 'descending' : 'ascending') : 'none'}
+              onPress={() => onSort(c.key!)}
+              style={[styles.cell, { flex: c.flex }]}
+              testID={`sort-${c.key}`}
+            >
+              <Text variant="label" style={styles.head}>
+                {c.label}
+                {sort === c.key ? (descending ? ' ▼' : ' ▲') : ''}
+              </Text>
+            </Pressable>
+          ) : (
+            <View key={c.label} role="columnheader" style={[styles.cell, { flex: c.flex }]}>
+              <Text variant="label" style={styles.head}>
+                {c.label}
+              </Text>
+            </View>
+          ),
+        )}
+      </View>
+      {rows.map((a) => (
+        <View key={a.id} role="row" style={styles.row} testID="trends-row">
+          {COLUMNS.map((c, i) => (
+            <View key={c.label} role="cell" style={[styles.cell, { flex: c.flex }]}>
+              {i === 0 ? (
+                <Link href={`/athletes/${a.id}`}>
+                  <Text variant="small" style={styles.name}>
+                    {c.cell(a)}
+                  </Text>
+                </Link>
+              ) : (
+                <Text variant="small" style={c.key === 'rescreenDue' && a.rescreenDue ? styles.due : styles.value}>
+                  {c.cell(a)}
+                </Text>
+              )}
+            </View>
+          ))}
+        </View>
+      ))}
+    </View>
+  );
+}
+
+/** Phones: one card per athlete, the flags per side first. */
+export function TrendsCards({ rows }: { rows: TrendAthlete[] }) {
+  return (
+    <View style={styles.cards}>
+      {rows.map((a) => (
+        <View key={a.id} style={styles.card} testID="trends-row">
+          <View style={styles.cardHead}>
+            <Link href={`/athletes/${a.id}`}>
+              <Text variant="label" style={styles.name}>
+                {a.firstName} {a.lastName}
+              </Text>
+            </Link>
+            <Text variant="small" style={a.rescreenDue ? styles.due : undefined}>
+              {a.rescreenDue ? 'Re-screen due' : `Re-screen from ${a.rescreenDate}`}
+            </Text>
+          </View>
+          <Text variant="small">
+            {a.ageGroup} · {a.sex} · {BAND_LABELS[a.maturityBand ?? 'unknown']} · clearance: {a.clearance ?? 'not recorded'}
+          </Text>
+          <Text variant="small">Left: {list(a.latestFlags.left)}</Text>
+          <Text variant="small">Right: {list(a.latestFlags.right)}</Text>
+          {a.latestFlags.both.length + a.latestFlags.unsided.length ? (
+            <Text variant="small">Other: {list([...a.latestFlags.both, ...a.latestFlags.unsided])}</Text>
+          ) : null}
+          <Text variant="small">{a.daysSinceLastScreen === null ? 'Never screened' : `Last screened ${a.daysSinceLastScreen} days ago`}</Text>
+        </View>
+      ))}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  table: { borderWidth: 1, borderColor: colors.line, borderRadius: radius.md, backgroundColor: colors.surface },
+  row: { flexDirection: 'row', borderBottomWidth: 1, borderColor: colors.line, minHeight: 40, alignItems: 'center' },
+  headRow: { backgroundColor: colors.paper },
+  cell: { paddingHorizontal: space.xs, paddingVertical: space.xs, minWidth: 0 },
+  head: { fontSize: 13 },
+  name: { color: colors.pine, fontFamily: fonts.bold },
+  value: { color: colors.ink },
+  due: { color: colors.brick, fontFamily: fonts.bold },
+  cards: { gap: space.sm },
+  card: { gap: 2, padding: space.md, borderWidth: 1, borderColor: colors.line, borderRadius: radius.md, backgroundColor: colors.surface },
+  cardHead: { flexDirection: 'row', justifyContent: 'space-between', flexWrap: 'wrap', gap: space.sm },
+});

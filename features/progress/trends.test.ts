@@ -1,0 +1,105 @@
+import { describe, expect, it } from 'vitest';
+import { addDays, ageGroupOf, csvRows, filterAthletes, rescreenOf, shareOf, sidedPatterns, sortAthletes, type TrendAthlete } from './trends';
+
+function athlete(overrides: Partial<TrendAthlete>): TrendAthlete {
+  return {
+    id: overrides.firstName ?? 'x',
+    firstName: 'X',
+    lastName: 'Y',
+    sex: 'female',
+    dateOfBirth: '2014-01-01',
+    ageGroup: 'U13',
+    maturityBand: null,
+    clearance: null,
+    latestAssessmentId: null,
+    lastScreenedOn: null,
+    daysSinceLastScreen: null,
+    rescreenDate: null,
+    rescreenDue: true,
+    latestFlags: { left: [], right: [], both: [], unsided: [] },
+    kneeAngles: {},
+    ...overrides,
+  };
+}
+
+describe('age groups (our choice: under-11 to under-19 by whole years on the day)', () => {
+  it.each([
+    [9, 'U11'],
+    [10, 'U11'],
+    [11, 'U13'],
+    [12, 'U13'],
+    [14, 'U15'],
+    [16, 'U17'],
+    [18, 'U19'],
+    [19, 'Open'],
+  ])('%i years: %s', (age, group) => expect(ageGroupOf(age)).toBe(group));
+});
+
+describe('re-screen due', () => {
+  it.each([
+    // [last screen, plan date, today, expected date, due]
+    ['2026-09-14', '2026-10-26', '2026-10-25', '2026-10-26', false], // the plan date, one day ahead
+    ['2026-09-14', '2026-10-26', '2026-10-26', '2026-10-26', true], // due on the day
+    ['2026-09-14', null, '2026-10-25', '2026-10-26', false], // no plan date: 6 weeks (the engine default) = 42 days
+    [null, null, '2026-10-25', null, true], // never screened
+  ] as const)('%s / %s on %s', (last, plan, today, date, due) => {
+    expect(rescreenOf(last, plan, today)).toEqual({ date, due });
+  });
+
+  it('adds days across a month end', () => expect(addDays('2026-01-30', 3)).toBe('2026-02-02'));
+});
+
+describe('flags per side from the flag ids', () => {
+  it('groups patterns by side, once each', () => {
+    expect(
+      sidedPatterns(
+        ['dynamic-knee-valgus/two-leg-squat/left', 'dynamic-knee-valgus/drop-landing/left', 'contralateral-pelvic-drop/single-leg-stance-right/right', 'heels-lifting/two-leg-squat/both', 'growth-spurt-window'],
+        ['left', 'left', 'right', 'both', null],
+      ),
+    ).toEqual({ left: ['dynamic-knee-valgus'], right: ['contralateral-pelvic-drop'], both: ['heels-lifting'], unsided: ['growth-spurt-window'] });
+  });
+});
+
+describe('filters, sorting and the CSV rows agree', () => {
+  const rows = [
+    athlete({ firstName: 'Ana', lastName: 'Abbott', sex: 'female', maturityBand: 'circa', latestFlags: { left: ['dynamic-knee-valgus'], right: [], both: [], unsided: [] }, daysSinceLastScreen: 20 }),
+    athlete({ firstName: 'Ben', lastName: 'Brook', sex: 'male', ageGroup: 'U15', maturityBand: 'post', daysSinceLastScreen: 80 }),
+    athlete({ firstName: 'Cai', lastName: 'Cole', sex: 'female', maturityBand: null, daysSinceLastScreen: null }),
+  ];
+  it.each([
+    [{ sex: 'female' as const }, ['Ana', 'Cai']],
+    [{ ageGroup: 'U15' }, ['Ben']],
+    [{ maturityBand: 'unknown' as const }, ['Cai']],
+    [{ flag: 'any' as const }, ['Ana']],
+    [{ flag: 'none' as const }, ['Ben', 'Cai']],
+    [{ flag: 'dynamic-knee-valgus' as const }, ['Ana']],
+    [{ sex: 'female' as const, flag: 'none' as const }, ['Cai']],
+  ])('%o', (filters, names) => {
+    expect(filterAthletes(rows, filters).map((a) => a.firstName)).toEqual(names);
+  });
+
+  it('sorts, never-screened last by days', () => {
+    expect(sortAthletes(rows, 'daysSinceLastScreen').map((a) => a.firstName)).toEqual(['Ana', 'Ben', 'Cai']);
+    expect(sortAthletes(rows, 'name', true).map((a) => a.firstName)).toEqual(['Cai', 'Ben', 'Ana']);
+    expect(sortAthletes(rows, 'flags', true)[0]!.firstName).toBe('Ana');
+  });
+
+  it('writes one CSV row per athlete after the header', () => {
+    const csv = csvRows(filterAthletes(rows, { flag: 'any' }));
+    expect(csv).toHaveLength(2);
+    expect(csv[1]!.slice(0, 7)).toEqual(['Abbott', 'Ana', 'female', 'U13', 'circa', '', 'dynamic-knee-valgus']);
+  });
+});
+
+describe('share of a round with a flag', () => {
+  it.each([
+    [3, 2, 2 / 3],
+    [2, 1, 0.5],
+    [4, 0, 0],
+  ])('%i screened, %i flagged', (screened, flagged, share) => {
+    expect(shareOf({ id: 'r', name: 'r', screenedOn: '2026-01-01', screened, flagged: { 'dynamic-knee-valgus': flagged }, kneeAngles: {} }, 'dynamic-knee-valgus')).toBeCloseTo(share, 10);
+  });
+  it('is null for a round nobody was screened in', () => {
+    expect(shareOf({ id: 'r', name: 'r', screenedOn: '2026-01-01', screened: 0, flagged: {}, kneeAngles: {} }, 'heels-lifting')).toBeNull();
+  });
+});

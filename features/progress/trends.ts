@@ -1,0 +1,194 @@
+/**
+ * Squad trends: the response shape of `GET /api/squads/:id/trends`, and the pure rules both the server
+ * and the screen use (age groups, re-screen due, filters, sorting, the CSV table), so the table on screen
+ * and the CSV download can never disagree.
+ */
+import { DEFAULT_RESCREEN_WEEKS, type MaturityBand, type PatternId, type Sex } from '@/features/screening/engine';
+import { daysBetween } from './compare';
+
+export type TrendRound = {
+  id: string;
+  name: string;
+  screenedOn: string;
+  /** Athletes with a submitted screen in the round. */
+  screened: number;
+  /** Per pattern: how many of the screened athletes had that flag (an athlete with it on both sides counts once). */
+  flagged: Partial<Record<PatternId, number>>;
+  /** Knee angles from the front (FPPA, degrees, 0.1 precision) of everyone screened, by measurement id (e.g. 'single-leg-squat-left/fppa/left'), sorted. */
+  kneeAngles: Record<string, number[]>;
+};
+
+export type SidedPatterns = { left: PatternId[]; right: PatternId[]; both: PatternId[]; unsided: PatternId[] };
+
+export type TrendAthlete = {
+  id: string;
+  firstName: string;
+  lastName: string;
+  sex: Sex;
+  dateOfBirth: string;
+  ageGroup: string;
+  maturityBand: MaturityBand | null;
+  /** The care team's clearance, where the club records one; null otherwise. */
+  clearance: string | null;
+  latestAssessmentId: string | null;
+  lastScreenedOn: string | null;
+  daysSinceLastScreen: number | null;
+  rescreenDate: string | null;
+  rescreenDue: boolean;
+  latestFlags: SidedPatterns;
+  /**
+   * Knee angles from the front (degrees, 0.1 precision) by measurement id, one value per round of the
+   * response's `rounds` (same order), null where not measured.
+   */
+  kneeAngles: Record<string, (number | null)[]>;
+};
+
+export type TrendsResponse = {
+  squad: { id: string; name: string };
+  /** The day "days since" and "re-screen due" were counted on. */
+  today: string;
+  rounds: TrendRound[];
+  athletes: TrendAthlete[];
+};
+
+/** Age groups by whole years on the day: under-11, -13, -15, -17, -19 (our choice; clubs' own cut-off dates differ). */
+const AGE_GROUP_LIMITS = [11, 13, 15, 17, 19] as const;
+export function ageGroupOf(ageYears: number): string {
+  const limit = AGE_GROUP_LIMITS.find((n) => ageYears < n);
+  return limit ? `U${limit}` : 'Open';
+}
+export const AGE_GROUPS = [...AGE_GROUP_LIMITS.map((n) => `U${n}`), 'Open'] as const;
+
+export function addDays(iso: string, days: number): string {
+  const d = new Date(Date.UTC(+iso.slice(0, 4), +iso.slice(5, 7) - 1, +iso.slice(8, 10) + days));
+  return d.toISOString().slice(0, 10);
+}
+
+/**
+ * The re-screen date: the one the engine set with the plan, or (a result without one) the last screen plus
+ * the engine's default interval. Due from that day on.
+ */
+export function rescreenOf(lastScreenedOn: string | null, planDate: string | null, today: string): { date: string | null; due: boolean } {
+  if (!lastScreenedOn) return { date: null, due: true };
+  const date = planDate ?? addDays(lastScreenedOn, DEFAULT_RESCREEN_WEEKS * 7);
+  return { date, due: daysBetween(date, today) >= 0 };
+}
+
+/** Sorts flags into sides from the flags' ids and sides. */
+export function sidedPatterns(flagIds: readonly string[], flagSides: readonly (string | null)[]): SidedPatterns {
+  const out: SidedPatterns = { left: [], right: [], both: [], unsided: [] };
+  flagIds.forEach((id, i) => {
+    // Flag ids start with the pattern ('pattern/scope/side'): stable identifiers of the engine.
+    const pattern = id.split('/')[0] as PatternId;
+    const side = flagSides[i];
+    const list = side === 'left' ? out.left : side === 'right' ? out.right : side === 'both' ? out.both : out.unsided;
+    if (!list.includes(pattern)) list.push(pattern);
+  });
+  return out;
+}
+
+export function allPatterns(f: SidedPatterns): PatternId[] {
+  return [...new Set([...f.left, ...f.right, ...f.both, ...f.unsided])];
+}
+
+export type TrendFilters = {
+  sex?: Sex | '';
+  ageGroup?: string;
+  maturityBand?: MaturityBand | 'unknown' | '';
+  flag?: PatternId | 'any' | 'none' | '';
+};
+export const FILTER_KEYS = ['sex', 'ageGroup', 'maturityBand', 'flag'] as const;
+
+export function filterAthletes(rows: readonly TrendAthlete[], f: TrendFilters): TrendAthlete[] {
+  return rows.filter((a) => {
+    if (f.sex && a.sex !== f.sex) return false;
+    if (f.ageGroup && a.ageGroup !== f.ageGroup) return false;
+    if (f.maturityBand && (a.maturityBand ?? 'unknown') !== f.maturityBand) return false;
+    if (f.flag) {
+      const patterns = allPatterns(a.latestFlags);
+      if (f.flag === 'any' && patterns.length === 0) return false;
+      if (f.flag === 'none' && patterns.length > 0) return false;
+      if (f.flag !== 'any' && f.flag !== 'none' && !patterns.includes(f.flag)) return false;
+    }
+    return true;
+  });
+}
+
+export type SortKey = 'name' | 'ageGroup' | 'maturityBand' | 'flags' | 'daysSinceLastScreen' | 'rescreenDue' | 'clearance';
+export const SORT_KEYS: readonly SortKey[] = ['name', 'ageGroup', 'maturityBand', 'flags', 'daysSinceLastScreen', 'rescreenDue', 'clearance'];
+
+const BAND_ORDER: Record<string, number> = { pre: 0, circa: 1, post: 2 };
+
+function sortValue(a: TrendAthlete, key: SortKey): string | number {
+  switch (key) {
+    case 'name':
+      return `${a.lastName} ${a.firstName}`.toLowerCase();
+    case 'ageGroup':
+      return AGE_GROUPS.indexOf(a.ageGroup as (typeof AGE_GROUPS)[number]);
+    case 'maturityBand':
+      return a.maturityBand ? BAND_ORDER[a.maturityBand]! : 9;
+    case 'flags':
+      return allPatterns(a.latestFlags).length;
+    case 'daysSinceLastScreen':
+      return a.daysSinceLastScreen ?? Number.MAX_SAFE_INTEGER;
+    case 'rescreenDue':
+      return a.rescreenDue ? 0 : 1;
+    case 'clearance':
+      return a.clearance ?? '~';
+  }
+}
+
+export function sortAthletes(rows: readonly TrendAthlete[], key: SortKey, descending = false): TrendAthlete[] {
+  const dir = descending ? -1 : 1;
+  return [...rows].sort((x, y) => {
+    const a = sortValue(x, key);
+    const b = sortValue(y, key);
+    if (a < b) return -dir;
+    if (a > b) return dir;
+    return `${x.lastName} ${x.firstName}`.localeCompare(`${y.lastName} ${y.firstName}`);
+  });
+}
+
+export const CSV_HEADER = [
+  'last_name',
+  'first_name',
+  'sex',
+  'age_group',
+  'maturity_band',
+  'clearance',
+  'flags_left',
+  'flags_right',
+  'flags_both_or_unsided',
+  'last_screened_on',
+  'days_since_last_screen',
+  'rescreen_date',
+  'rescreen_due',
+] as const;
+
+/** The table as CSV rows (header first); values only, the CSV writer does the quoting. */
+export function csvRows(rows: readonly TrendAthlete[]): string[][] {
+  return [
+    [...CSV_HEADER],
+    ...rows.map((a) => [
+      a.lastName,
+      a.firstName,
+      a.sex,
+      a.ageGroup,
+      a.maturityBand ?? '',
+      a.clearance ?? '',
+      a.latestFlags.left.join('; '),
+      a.latestFlags.right.join('; '),
+      [...a.latestFlags.both, ...a.latestFlags.unsided].join('; '),
+      a.lastScreenedOn ?? '',
+      a.daysSinceLastScreen === null ? '' : String(a.daysSinceLastScreen),
+      a.rescreenDate ?? '',
+      a.rescreenDue ? 'yes' : 'no',
+    ]),
+  ];
+}
+
+/** Share of the screened athletes with a pattern, 0-1; null when nobody was screened. */
+export function shareOf(round: TrendRound, pattern: PatternId): number | null {
+  if (round.screened === 0) return null;
+  return (round.flagged[pattern] ?? 0) / round.screened;
+}

@@ -1,0 +1,116 @@
+/**
+ * The comparison of two screens in words: one version for staff (with numbers and the error they are
+ * judged against) and one for families (no angles, no distances, no jargon). Pure.
+ */
+import { getTask, type FlagSide, type PatternId, type TaskId } from '@/features/screening/engine';
+import type { FlagRef, MeasurementChange, ScreenComparison } from './compare';
+
+const UNIT: Record<MeasurementChange['unit'], string> = { deg: '°', cm: ' cm', percent: ' %', years: ' y', grades: ' grades' };
+
+export function formatValue(value: number, unit: MeasurementChange['unit']): string {
+  return `${Math.round(value * 100) / 100}${UNIT[unit]}`;
+}
+
+function taskName(taskId: TaskId | null): string | null {
+  if (!taskId) return null;
+  try {
+    return getTask(taskId).title.toLowerCase();
+  } catch {
+    return taskId;
+  }
+}
+
+function sideWords(side: FlagSide): string {
+  if (side === 'left' || side === 'right') return `${side} side`;
+  if (side === 'both') return 'both sides';
+  return '';
+}
+
+function flagWords(f: FlagRef): string {
+  const parts = [taskName(f.taskId), sideWords(f.side)].filter(Boolean);
+  return parts.length ? `${f.title} (${parts.join(', ')})` : f.title;
+}
+
+/** How long the plan had, in the coach's words. */
+export function planTimeSentence(c: ScreenComparison): string {
+  const t = c.planTime;
+  const weeks = Math.floor(t.days / 7);
+  if (t.noPlanNeeded) return `${t.days} days between the screens; the earlier screen raised no flag, so no corrective plan was needed.`;
+  const clearance = t.waitedForClearance ? ' The earlier plan waited for a clinician first (pain was reported), so it may have started later.' : '';
+  return t.longEnough
+    ? `The plan had ${weeks} weeks (${t.days} days), at least the ${t.neededWeeks} weeks it asks for: long enough to expect a change.${clearance}`
+    : `The plan had only ${weeks} weeks (${t.days} days) of the ${t.neededWeeks} weeks it asks for: too soon to expect a change, so an unchanged result says little.${clearance}`;
+}
+
+function changeSentence(m: MeasurementChange): string {
+  const span = `${formatValue(m.earlier, m.unit)} → ${formatValue(m.later, m.unit)}`;
+  if (m.verdict === 'real-change') {
+    return `${m.label}: ${span}, ${m.direction} ${formatValue(Math.abs(m.change), m.unit)}, more than the ${formatValue(m.errorMargin!, m.unit)} a re-test can differ by: a real change.`;
+  }
+  if (m.verdict === 'within-error') {
+    return `${m.label}: ${span}, within the ${formatValue(m.errorMargin!, m.unit)} a re-test can differ by: not a change we can tell from measuring error.`;
+  }
+  return `${m.label}: ${span}; no published measurement error, so the change is not judged.`;
+}
+
+/** The staff comparison: flags first (what the coach acts on), then the measurements with a figure. */
+export function coachSummary(c: ScreenComparison): { headline: string; lines: string[]; realChanges: string[]; withinError: string[] } {
+  const lines: string[] = [];
+  const f = c.flags;
+  if (f.cleared.length) lines.push(`No longer flagged: ${f.cleared.map(flagWords).join('; ')}.`);
+  if (f.persisting.length) lines.push(`Still flagged: ${f.persisting.map(flagWords).join('; ')}.`);
+  if (f.new.length) lines.push(`Newly flagged: ${f.new.map(flagWords).join('; ')}.`);
+  if (f.notRetested.length) lines.push(`Not re-tested (task not done again): ${f.notRetested.map(flagWords).join('; ')}.`);
+  if (!f.cleared.length && !f.persisting.length && !f.new.length) lines.push('No flags at either screen.');
+  const judged = c.measurements.filter((m) => m.verdict !== 'no-published-figure');
+  const realChanges = judged.filter((m) => m.verdict === 'real-change').map(changeSentence);
+  const withinError = judged.filter((m) => m.verdict === 'within-error').map(changeSentence);
+  const unjudged = c.measurements.length - judged.length;
+  const headline =
+    `${realChanges.length} of ${judged.length} measurements with a published error changed by more than it` +
+    (unjudged ? `; ${unjudged} more have no published figure and are not judged.` : '.');
+  return { headline, lines, realChanges, withinError };
+}
+
+/** Family names of the patterns: no trade terms, no numbers. */
+export const FAMILY_PATTERN_WORDS: Record<PatternId, string> = {
+  'dynamic-knee-valgus': 'knees turning inward when bending or landing',
+  'contralateral-pelvic-drop': 'the hip dipping on the side of the lifted leg',
+  'limited-ankle-dorsiflexion': 'stiff ankles (the knee does not travel far forward over the foot)',
+  'left-right-asymmetry': 'a difference between the left and right side',
+  'heels-lifting': 'heels lifting in the deep squat',
+  'squat-depth-not-reached': 'not yet reaching a full deep squat',
+  'excessive-trunk-lean': 'leaning the upper body a lot to keep balance',
+  'growth-spurt-window': 'a growth spurt, when training is adjusted',
+};
+
+function familyList(flags: FlagRef[]): string {
+  // One mention per pattern: a family does not need every task and side.
+  const words = [...new Set(flags.map((f) => FAMILY_PATTERN_WORDS[f.pattern]))];
+  return words.join('; ');
+}
+
+/**
+ * The comparison in family wording: what the coach no longer sees, still sees or newly sees, whether the
+ * exercises had long enough, and that small differences mean nothing. No angles, distances or percentages.
+ */
+export function familySummary(c: ScreenComparison): string[] {
+  const out: string[] = [];
+  const f = c.flags;
+  const weeks = Math.floor(c.planTime.days / 7);
+  if (f.cleared.length) out.push(`Good news: at the latest check we no longer saw ${familyList(f.cleared)}.`);
+  if (f.persisting.length) out.push(`We still saw ${familyList(f.persisting)}. The exercises keep working on this.`);
+  if (f.new.length) out.push(`This time we also noticed ${familyList(f.new)}. The coach has added exercises for it.`);
+  if (!f.cleared.length && !f.persisting.length && !f.new.length) out.push('Neither check showed anything we needed to work on.');
+  if (!c.planTime.noPlanNeeded) {
+    out.push(
+      c.planTime.longEnough
+        ? `The exercises had about ${weeks} weeks between the two checks, which is usually enough time to see a difference.`
+        : `There were only about ${weeks} weeks between the two checks, which is usually too soon to see a difference.`,
+    );
+  }
+  const withinError = c.measurements.filter((m) => m.verdict === 'within-error').length;
+  if (withinError) out.push('Small differences between two checks are normal when measuring by eye and photo, so we do not read anything into them.');
+  out.push('Screening is not a medical diagnosis. If your child has pain, please see a physiotherapist or doctor.');
+  return out;
+}

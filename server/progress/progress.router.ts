@@ -1,0 +1,63 @@
+import { stringify } from 'csv-stringify/sync';
+import { Router } from 'express';
+import type { Db } from '@/db/client';
+import { todayIso } from '@/features/athletes/age';
+import { csvRows, FILTER_KEYS, type TrendFilters } from '@/features/progress/trends';
+import { PATTERN_TITLES } from '@/features/screening/engine';
+import { accessGuards, on, scopeOf, type Locals } from '@/server/access/guard';
+import { badRequest } from '@/server/http/errors';
+import { progressService } from './progress.service';
+
+const ALLOWED: Record<(typeof FILTER_KEYS)[number], readonly string[]> = {
+  sex: ['female', 'male'],
+  ageGroup: ['U11', 'U13', 'U15', 'U17', 'U19', 'Open'],
+  maturityBand: ['pre', 'circa', 'post', 'unknown'],
+  flag: ['any', 'none', ...Object.keys(PATTERN_TITLES)],
+};
+
+/** The table filters from the query string; an unknown value is a 400 naming the field, not an empty table. */
+function filtersOf(query: Record<string, unknown>): TrendFilters {
+  const out: Record<string, string> = {};
+  const fields: Record<string, string> = {};
+  for (const key of FILTER_KEYS) {
+    const value = query[key];
+    if (value === undefined || value === '') continue;
+    if (typeof value !== 'string' || !ALLOWED[key].includes(value)) {
+      fields[key] = `Choose one of: ${ALLOWED[key].join(', ')}.`;
+      continue;
+    }
+    out[key] = value;
+  }
+  if (Object.keys(fields).length) throw badRequest('Some filters are not recognised.', fields);
+  return out as TrendFilters;
+}
+
+/**
+ * An athlete's screens over time with the last two compared, and a squad's season. Staff only
+ * ('progress.read', 'trends.read'): parents will get the family wording through the care-team views.
+ */
+export function progressRouter(db: Db) {
+  const router = Router();
+  const { guard } = accessGuards(db);
+  const idOf = (res: { locals: object }) => (res.locals as Locals).id!;
+
+  router.get('/athletes/:id/progress', guard('progress.read', on('athlete')), async (_req, res) => {
+    res.json(await progressService(db, scopeOf(res)).athleteProgress(idOf(res)));
+  });
+
+  router.get('/squads/:id/trends', guard('trends.read', on('squad')), async (req, res) => {
+    const format = req.query.format ?? 'json';
+    if (format !== 'json' && format !== 'csv') throw badRequest('Unknown format.', { format: 'Choose json or csv.' });
+    const trends = await progressService(db, scopeOf(res)).squadTrends(idOf(res), todayIso(), filtersOf(req.query));
+    if (format === 'csv') {
+      const name = trends.squad.name.replace(/[^A-Za-z0-9-]+/g, '-').replace(/^-|-$/g, '') || 'squad';
+      res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+      res.setHeader('Content-Disposition', `attachment; filename="${name}-trends-${trends.today}.csv"`);
+      res.send(stringify(csvRows(trends.athletes)));
+      return;
+    }
+    res.json(trends);
+  });
+
+  return router;
+}

@@ -1,0 +1,119 @@
+// `npm run bench:api`: a throw-away PostgreSQL, the seeded benchmark server (test/bench/api-server.ts),
+// then autocannon (50 connections) against squad trends (a 40-athlete squad, 8 rounds), one athlete's
+// history (8 screens) and a bare `SELECT 1` route of the same server, in the same run. Prints requests
+// per second, p50/p95/p99 latency and errors per route, and each route's throughput as a ratio of the
+// bare route's. Figures, not assertions: speed targets are read from this output.
+//
+//   npm run bench:api [-- --duration 15 --connections 50]
+import autocannon from 'autocannon';
+import readline from 'node:readline';
+import fs from 'node:fs';
+import {
+  clusterLayout, databaseUrl, ensureDatabase, ensureNodeModules, ensurePostgres, freePort, initCluster, log,
+  makeClusterRoot, newPassword, startCluster, stopCluster, tsx,
+} from '../../server/dev/bootstrap.mjs';
+
+const arg = (name, fallback) => {
+  const i = process.argv.indexOf(`--${name}`);
+  return i > 0 ? Number(process.argv[i + 1]) : fallback;
+};
+const DURATION = arg('duration', 15);
+const CONNECTIONS = arg('connections', 50);
+
+ensureNodeModules();
+const bin = ensurePostgres();
+const root = makeClusterRoot('squadline-bench-');
+const layout = clusterLayout(root);
+const password = newPassword();
+const port = await freePort();
+log(`Starting a throw-away PostgreSQL on 127.0.0.1:${port}...`);
+initCluster(bin, layout, password);
+startCluster(bin, layout, port);
+ensureDatabase(bin, layout, port, 'squadline_bench');
+
+let server = null;
+const cleanup = () => {
+  if (server && server.exitCode === null) server.kill('SIGTERM');
+  stopCluster(bin, layout);
+  fs.rmSync(root, { recursive: true, force: true });
+};
+process.on('SIGINT', () => {
+  cleanup();
+  process.exit(130);
+});
+
+function percentile(sorted, p) {
+  if (!sorted.length) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+}
+
+/** One autocannon run; latencies are recorded per response so p95 can be read (autocannon reports p97.5). */
+function run(url, headers, duration) {
+  return new Promise((resolve, reject) => {
+    const latencies = [];
+    const instance = autocannon({ url, connections: CONNECTIONS, duration, headers }, (err, result) => {
+      if (err) return reject(err);
+      latencies.sort((a, b) => a - b);
+      resolve({ result, latencies });
+    });
+    instance.on('response', (_client, _status, _bytes, responseTime) => latencies.push(responseTime));
+  });
+}
+
+let status = 0;
+try {
+  log('Seeding 2,000 athletes x 8 rounds (16,000 screens through the engine; several minutes on 2 busy cores)...');
+  server = tsx(['test/bench/api-server.ts'], { DATABASE_URL: databaseUrl(port, password, 'squadline_bench') }, ['ignore', 'pipe', 'inherit']);
+  const ready = await new Promise((resolve, reject) => {
+    const lines = readline.createInterface({ input: server.stdout });
+    lines.on('line', (line) => {
+      if (line.startsWith('READY ')) resolve(JSON.parse(line.slice(6)));
+    });
+    server.on('exit', (code) => reject(new Error(`The benchmark server exited (${code}).`)));
+  });
+  const base = `http://127.0.0.1:${ready.port}`;
+  const auth = { cookie: ready.cookie };
+  const targets = [
+    { name: 'SELECT 1 (bare baseline)', url: `${base}/bench/select-1`, headers: {} },
+    { name: 'GET /api/squads/:id/trends (40 athletes, 8 rounds)', url: `${base}/api/squads/${ready.squadId}/trends`, headers: auth },
+    { name: 'GET /api/athletes/:id/progress (8 screens)', url: `${base}/api/athletes/${ready.athleteId}/progress`, headers: auth },
+  ];
+  for (const t of targets) {
+    const check = await fetch(t.url, { headers: t.headers });
+    if (!check.ok) throw new Error(`${t.name} answered ${check.status} before the run.`);
+  }
+  if (process.argv.includes('--hold')) {
+    // For looking at query plans: keep the seeded database and server until Ctrl-C.
+    console.log(JSON.stringify({ databaseUrl: databaseUrl(port, password, 'squadline_bench'), base, ...ready }));
+    await new Promise(() => {});
+  }
+  const rows = [];
+  for (const t of targets) {
+    log(`${t.name}: warm-up 3 s, then ${DURATION} s with ${CONNECTIONS} connections...`);
+    await run(t.url, t.headers, 3);
+    const { result, latencies } = await run(t.url, t.headers, DURATION);
+    rows.push({
+      route: t.name,
+      rps: result.requests.average,
+      p50: percentile(latencies, 50),
+      p95: percentile(latencies, 95),
+      p99: percentile(latencies, 99),
+      errors: result.errors + result.timeouts + result.non2xx,
+      requests: result.requests.total,
+    });
+  }
+  const baseline = rows[0].rps;
+  console.log('');
+  console.log(`API benchmark, ${new Date().toISOString().slice(0, 10)}, ${CONNECTIONS} connections, ${DURATION} s per route`);
+  console.log('| route | req/s | ratio to SELECT 1 | p50 ms | p95 ms | p99 ms | errors | requests |');
+  console.log('| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: |');
+  for (const r of rows) {
+    console.log(`| ${r.route} | ${r.rps.toFixed(0)} | ${(r.rps / baseline).toFixed(2)} | ${r.p50} | ${r.p95} | ${r.p99} | ${r.errors} | ${r.requests} |`);
+  }
+} catch (error) {
+  console.error(error);
+  status = 1;
+} finally {
+  cleanup();
+}
+process.exit(status);

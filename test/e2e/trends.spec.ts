@@ -1,0 +1,103 @@
+import fs from 'node:fs';
+import { expect, test, type Page } from '@playwright/test';
+import { openNav, signIn } from './helpers';
+
+// Squad trends as the demo head coach (three past rounds per squad in the demo), and one athlete's
+// history: loads, filters, sorts, downloads the filtered table as CSV, and draws charts with data.
+
+async function names(page: Page): Promise<string[]> {
+  const rows = page.getByTestId('trends-row');
+  const n = await rows.count();
+  const out: string[] = [];
+  for (let i = 0; i < n; i++) out.push(((await rows.nth(i).locator('a').first().textContent()) ?? '').trim());
+  return out;
+}
+
+async function shownCount(page: Page): Promise<number> {
+  const text = (await page.getByTestId('row-count').textContent()) ?? '';
+  return Number(text.split(' ')[0]);
+}
+
+test('squad trends: load, filter, sort, CSV, charts', async ({ page }, info) => {
+  // Many steps and four screenshots: give it the time of three ordinary tests on a busy machine.
+  test.slow();
+  await signIn(page, 'coach@squadline.test');
+  await page.getByTestId('home-trends-link').click();
+  await expect(page.getByTestId('squad-trends')).toBeVisible();
+  await expect(page.getByTestId('trends-row').first()).toBeVisible();
+  const all = await shownCount(page);
+  expect(all).toBeGreaterThan(3);
+  expect(await page.getByTestId('trends-row').count()).toBe(all);
+
+  // A chart with data: the flag-share lines are drawn (SVG paths), and its numbers table has rows per round.
+  const share = page.getByTestId('flag-share-chart');
+  await expect(share.locator('svg path').first()).toBeAttached();
+  expect(await share.locator('svg path').count()).toBeGreaterThan(3);
+  await expect(share.getByRole('table')).toBeAttached();
+  expect(await share.getByRole('row').count()).toBeGreaterThanOrEqual(4); // header + 3 demo rounds
+  await expect(page.getByTestId('knee-distribution-chart').locator('svg circle, svg path').first()).toBeAttached();
+
+  // Filter: only athletes whose latest screen raised any flag (on a phone the filters fold away).
+  if (info.project.name === 'phone') await page.getByTestId('toggle-filters').click();
+  await page.getByTestId('filter-flag-any').click();
+  const flagged = await shownCount(page);
+  expect(flagged).toBeLessThan(all);
+  expect(flagged).toBeGreaterThan(0);
+  expect(await page.getByTestId('trends-row').count()).toBe(flagged);
+
+  // Sort by name, then the other way.
+  const ascending = await names(page);
+  if (info.project.name === 'wide') await page.getByTestId('sort-name').click();
+  else await page.getByTestId('sort-choice-name').click();
+  const descending = await names(page);
+  expect(descending).toEqual([...ascending].reverse());
+  expect(descending).not.toEqual(ascending);
+
+  // CSV of the filtered table: the same athletes, one line each after the header.
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('download-csv').click()]);
+  expect(download.suggestedFilename()).toMatch(/-trends-\d{4}-\d{2}-\d{2}\.csv$/);
+  const csv = fs.readFileSync((await download.path())!, 'utf8').trim().split('\n');
+  expect(csv[0]).toMatch(/^last_name,first_name,sex,age_group/);
+  expect(csv).toHaveLength(flagged + 1);
+  const csvNames = csv.slice(1).map((line) => {
+    const [last, first] = line.split(',');
+    return `${first} ${last}`;
+  });
+  const shown = ascending.map((n) => (n.includes(',') ? n.split(', ').reverse().join(' ') : n));
+  expect(csvNames.sort()).toEqual(shown.sort());
+
+  await page.getByTestId('filter-flag-all').click();
+  if (info.project.name === 'phone') await page.getByTestId('toggle-filters').click();
+  await page.screenshot({ path: `test-results/trends-${info.project.name}.png`, fullPage: true });
+  await share.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: `test-results/trends-charts-${info.project.name}.png` });
+  await page.getByTestId('change-chart').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: `test-results/trends-change-${info.project.name}.png` });
+  await page.emulateMedia({ media: 'print' });
+  await page.screenshot({ path: `test-results/trends-print-${info.project.name}.png`, fullPage: true });
+  await page.emulateMedia({ media: 'screen' });
+
+  // The navigation leads here too.
+  await openNav(page);
+  await expect(page.getByRole('link', { name: 'Squad trends' })).toBeVisible();
+});
+
+test('athlete history: charts with threshold and error band, and the last two screens compared', async ({ page }, info) => {
+  await signIn(page, 'coach@squadline.test');
+  await page.getByTestId('home-trends-link').click();
+  // An athlete whose screens raised flags, so a plan was in place between them.
+  if (info.project.name === 'phone') await page.getByTestId('toggle-filters').click();
+  await page.getByTestId('filter-flag-any').click();
+  await page.getByTestId('trends-row').first().locator('a').first().click();
+  const section = page.getByTestId('athlete-progress');
+  await expect(section).toBeVisible();
+  await expect(page.getByTestId('progress-comparison')).toBeVisible();
+  await expect(page.getByTestId('plan-time')).toContainText(/weeks/);
+  const chart = page.getByTestId('history-chart').first();
+  await expect(chart.locator('svg path').first()).toBeAttached();
+  await expect(chart.getByRole('table')).toBeAttached();
+  await section.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: `test-results/athlete-history-${info.project.name}.png` });
+  await chart.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: `test-results/athlete-chart-${info.project.name}.png` });
+});
