@@ -1,11 +1,6 @@
 // The tester's changes to the engine's plan: drop, add back from the library, re-dose. Pure.
-import {
-  DEFAULT_LOAD_INCREMENT_KG,
-  strengthEnduranceLoad,
-  type ExerciseSpec,
-  type PlannedExercise,
-  type Prescription,
-} from './engine';
+import { DEFAULT_LOAD_INCREMENT_KG, strengthEnduranceLoad } from './engine/for-screens';
+import type { ExerciseSpec, PlannedExercise, Prescription } from './engine';
 import { loadText, setsText } from './labels';
 
 export const MAX_SETS = 6;

@@ -1,5 +1,6 @@
 import { StyleSheet, View } from 'react-native';
-import { getTask, type Flag } from '@/features/screening/engine';
+import { getTask } from '@/features/screening/engine/for-screens';
+import type { Flag } from '@/features/screening/engine';
 import { sideLabel, thresholdText, valueText } from '@/features/screening/labels';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
