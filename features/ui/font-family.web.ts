@@ -3,5 +3,6 @@
 const FALLBACK = 'system-ui, -apple-system, "Segoe UI", Roboto, "Helvetica Neue", Arial, sans-serif';
 export const FONT_FAMILY = {
   regular: `SquadlineSans_400Regular, ${FALLBACK}`,
-  bold: `SquadlineSans_700Bold, ${FALLBACK}`,
+  // "Squadline Bold Fallback" maps to the bold cut of a common system face (declared in app/+html.tsx).
+  bold: `SquadlineSans_700Bold, "Squadline Bold Fallback", ${FALLBACK}`,
 } as const;
