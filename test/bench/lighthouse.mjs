@@ -139,7 +139,7 @@ function lighthouse(url, cookie, label) {
   const r = JSON.parse(fs.readFileSync(out, 'utf8'));
   if (r.runtimeError) throw new Error(`Lighthouse could not load ${url}: ${r.runtimeError.message}`);
   const a = r.audits;
-  return {
+  const result = {
     score: Math.round(r.categories.performance.score * 100),
     fcp: a['first-contentful-paint'].numericValue,
     lcp: a['largest-contentful-paint'].numericValue,
@@ -147,6 +147,9 @@ function lighthouse(url, cookie, label) {
     cls: a['cumulative-layout-shift'].numericValue,
     bytes: a['total-byte-weight'].numericValue,
   };
+  // Each run as it ends, so a long session that is stopped still leaves its figures.
+  console.log(`    score ${result.score}, FCP ${(result.fcp / 1000).toFixed(2)} s, LCP ${(result.lcp / 1000).toFixed(2)} s, TBT ${Math.round(result.tbt)} ms, CLS ${result.cls.toFixed(3)}`);
+  return result;
 }
 
 // Alternate: in each round the empty app, then every Squadline page, so drift in the machine's load
