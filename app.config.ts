@@ -8,7 +8,7 @@ const config = {
   userInterfaceStyle: 'light',
   web: {
     bundler: 'metro',
-    output: 'single',
+    output: 'static',
     name: 'Squadline',
     shortName: 'Squadline',
     themeColor: '#0E5A45',

@@ -1,8 +1,6 @@
 import compression from 'compression';
 import express, { type RequestHandler } from 'express';
 import helmet from 'helmet';
-import fs from 'node:fs';
-import path from 'node:path';
 import type { Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
 import type { Db } from '@/db/client';
@@ -22,6 +20,7 @@ import { measuringRouter } from './measuring/measuring.router';
 import { progressRouter } from './progress/progress.router';
 import { screeningRouter } from './screening/screening.router';
 import type { PhotoStorage } from './storage/storage';
+import { webExport } from './web/serve-export';
 
 export type AppConfig = {
   /** Base of links in e-mails, e.g. http://127.0.0.1:8080 */
@@ -49,6 +48,8 @@ export function createApp(deps: AppDeps) {
   const auth = createLucia(db, config.secureCookies);
   const authService = createAuthService({ db, auth, outbox, publicUrl: config.publicUrl });
 
+  const web = config.webDir ? webExport(config.webDir) : null;
+
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -60,7 +61,7 @@ export function createApp(deps: AppDeps) {
       contentSecurityPolicy: {
         directives: {
           'img-src': ["'self'", 'data:', 'blob:'],
-          'script-src': ["'self'"],
+          'script-src': ["'self'", ...(web?.inlineScriptHashes ?? [])],
           'style-src': ["'self'", "'unsafe-inline'"],
           'font-src': ["'self'", 'data:'],
           'upgrade-insecure-requests': config.secureCookies ? [] : null,
@@ -90,18 +91,8 @@ export function createApp(deps: AppDeps) {
   }) as RequestHandler);
   app.use('/api', api);
 
-  if (config.webDir && fs.existsSync(path.join(config.webDir, 'index.html'))) {
-    const webDir = config.webDir;
-    // Hashed bundles never change; everything else is revalidated.
-    app.use('/_expo', express.static(path.join(webDir, '_expo'), { immutable: true, maxAge: '365d' }));
-    app.use('/assets', express.static(path.join(webDir, 'assets'), { immutable: true, maxAge: '365d' }));
-    app.use(express.static(webDir, { index: false }));
-    app.get('/{*splat}', (_req, res) => {
-      res.setHeader('Cache-Control', 'no-cache');
-      // `root` keeps send's dot-folder check off the export's own location (it may live under .tmp/).
-      res.sendFile('index.html', { root: webDir });
-    });
-  }
+  // The web export: pre-rendered pages by path, hashed bundles cached for a year (server/web/).
+  if (web) app.use(web.handler);
 
   app.use(errorMiddleware);
   return app;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ApiError, fieldErrorsOf, messageOf } from './client';
+import { ApiError, apiAssetUrl, apiUrl, fieldErrorsOf, messageOf } from './client';
 
 describe('fieldErrorsOf', () => {
   it('returns the per-field messages of a validation error', () => {
@@ -18,5 +18,18 @@ describe('messageOf', () => {
   it('uses the message of an error, or the thrown value as text', () => {
     expect(messageOf(new ApiError(0, 'offline', 'No connection to Squadline.'))).toBe('No connection to Squadline.');
     expect(messageOf('plain text')).toBe('plain text');
+  });
+});
+
+describe('API addresses', () => {
+  it('sends JSON calls and uploads to the same base: same origin in production, the API server under npm run dev', () => {
+    expect(apiUrl('/me', '')).toBe('/api/me');
+    expect(apiUrl('/assessments/1/photos', 'http://localhost:8080')).toBe('http://localhost:8080/api/assessments/1/photos');
+    expect(apiUrl('/me', 'http://localhost:8080/')).toBe('http://localhost:8080/api/me');
+  });
+  it('points photo addresses from the server at the API server, and leaves other addresses alone', () => {
+    expect(apiAssetUrl('/api/photos/9?size=thumb', 'http://localhost:8080')).toBe('http://localhost:8080/api/photos/9?size=thumb');
+    expect(apiAssetUrl('/api/photos/9?size=thumb', '')).toBe('/api/photos/9?size=thumb');
+    expect(apiAssetUrl('blob:http://localhost:8081/abc', 'http://localhost:8080')).toBe('blob:http://localhost:8081/abc');
   });
 });

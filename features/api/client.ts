@@ -30,8 +30,19 @@ export function setActiveClub(id: string | null): void {
   clubId = id;
 }
 
-// Empty in production (same origin); `npm run dev` points it at the API server.
+// Empty in production (same origin); `npm run dev` points it at the API server. Every request, JSON
+// or upload, is built by `apiUrl` so the two can never go to different servers again.
 const API_BASE = process.env.EXPO_PUBLIC_API_URL ?? '';
+
+/** The full address of an API path (`/me` gives `<base>/api/me`). */
+export function apiUrl(path: string, base: string = API_BASE): string {
+  return `${base.replace(/\/+$/, '')}/api${path}`;
+}
+
+/** An address the server handed out (`/api/photos/...`), made to reach the API server too. */
+export function apiAssetUrl(url: string, base: string = API_BASE): string {
+  return url.startsWith('/api/') ? `${base.replace(/\/+$/, '')}${url}` : url;
+}
 
 const OFFLINE_MESSAGE = 'No connection to Squadline. Check the network and try again; nothing you typed is lost.';
 
@@ -54,7 +65,7 @@ export async function api<T>(path: string, init: RequestInit & { json?: unknown 
   }
   let res: Response;
   try {
-    res = await fetch(`/api${path}`, { ...init, headers, body, credentials: 'include' });
+    res = await fetch(apiUrl(path), { ...init, headers, body, credentials: 'include' });
   } catch {
     throw new ApiError(0, 'offline', OFFLINE_MESSAGE);
   }
@@ -75,7 +86,7 @@ export function upload<T>(
 ): Promise<T> {
   return new Promise<T>((resolve, reject) => {
     const xhr = new XMLHttpRequest();
-    xhr.open('POST', `${API_BASE}/api${path}`);
+    xhr.open('POST', apiUrl(path));
     xhr.withCredentials = true;
     xhr.setRequestHeader('Accept', 'application/json');
     if (clubId) xhr.setRequestHeader('X-Club-Id', clubId);

@@ -1,18 +1,8 @@
 // Turns the tester's saved draft into the engine's input. Pure: the server calls it on submit, and a
 // capture screen may call it to show live results from the same numbers.
 import type { AssessmentDraft, LandmarkSet, TaskDraft } from '@/features/screening/contract';
-import {
-  MATURITY_AGE_RANGE,
-  type AssessmentInput,
-  type AthleteInput,
-  type LandmarkId,
-  type PhotoInput,
-  type Point,
-  type Sex,
-  type Side,
-  type TaskId,
-  type TaskResultInput,
-} from '@/features/screening/engine';
+import { MATURITY_AGE_RANGE } from '@/features/screening/engine/for-screens';
+import type { AssessmentInput, AthleteInput, LandmarkId, PhotoInput, Point, Sex, Side, TaskId, TaskResultInput } from '@/features/screening/engine';
 
 export type DraftToInputArgs = {
   athlete: { sex: Sex; ageYears: number; racketHand?: Side };

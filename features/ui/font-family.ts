@@ -1,2 +1,2 @@
 // Native: the names under which the fonts are registered.
-export const FONT_FAMILY = { regular: 'SourceSans3_400Regular', bold: 'SourceSans3_700Bold' } as const;
+export const FONT_FAMILY = { regular: 'SquadlineSans_400Regular', bold: 'SquadlineSans_700Bold' } as const;

@@ -1,5 +1,6 @@
-// Only the weights the app uses, shipped in fonts/ (SIL Open Font License, fonts/OFL.txt).
+// Only the weights the app uses: a Latin subset of Source Sans 3, renamed Squadline Sans (fonts/README.md,
+// SIL Open Font License, fonts/OFL.txt).
 export const FONT_SOURCES = {
-  SourceSans3_400Regular: require('@/fonts/SourceSans3_400Regular.ttf'),
-  SourceSans3_700Bold: require('@/fonts/SourceSans3_700Bold.ttf'),
+  SquadlineSans_400Regular: require('@/fonts/SquadlineSans-Regular.ttf'),
+  SquadlineSans_700Bold: require('@/fonts/SquadlineSans-Bold.ttf'),
 } as const;

@@ -68,6 +68,9 @@ export function sameOriginMiddleware(allowedOrigin?: string): RequestHandler {
 /** Lets the Expo dev server's origin call the API with cookies (`npm run dev` only). */
 export function devCorsMiddleware(origin: string): RequestHandler {
   return (req, res, next) => {
+    // Photos are <img> loads from the dev server's page (same site, another port): no Origin header, and
+    // helmet's default `same-origin` resource policy would block them.
+    res.setHeader('Cross-Origin-Resource-Policy', 'same-site');
     if (req.headers.origin !== origin) return next();
     res.setHeader('Access-Control-Allow-Origin', origin);
     res.setHeader('Access-Control-Allow-Credentials', 'true');

@@ -7,6 +7,7 @@ import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { precompressExport } from './precompress.mjs';
 
 export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 export const DATA_DIR = path.join(ROOT, '.data');
@@ -216,6 +217,7 @@ export function ensureWebBuild() {
   run('npx', ['expo', 'export', '--platform', 'web', '--output-dir', path.relative(ROOT, dist)], {
     env: { ...process.env, CI: '1', TMPDIR: tmp, EXPO_NO_TELEMETRY: '1' },
   });
+  precompressExport(dist);
   fs.writeFileSync(stamp, want);
 }
 

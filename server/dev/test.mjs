@@ -40,6 +40,10 @@ let status = 0;
 try {
   const env = { ...process.env, TEST_DATABASE_ADMIN_URL: databaseUrl(port, password, 'postgres') };
   if (only !== 'e2e') {
+    // The first-chunk budget test reads the web export: build it first (skipped when the sources are
+    // unchanged, or when the vitest filters given leave that test out).
+    const filters = passThrough.filter((a) => !a.startsWith('-'));
+    if (filters.length === 0 || filters.some((f) => 'test/api/first-chunk-budget.test.ts'.includes(f))) ensureWebBuild();
     log('Unit and API tests (vitest)...');
     const vitest = spawnSync(
       path.join(ROOT, 'node_modules', '.bin', 'vitest'),

@@ -1,43 +1,198 @@
-// Lighthouse's mobile performance run against a running Squadline (default: the sign-in page of
-// `npm start`). Prints the median of several runs. Lighthouse is installed on first use into
-// .tmp/lighthouse (pinned; it is not a dependency of the app or of `npm test`).
-// Usage: npm run bench:web [-- URL [RUNS]]
-import { execFileSync } from 'node:child_process';
+// `npm run bench:web`: Lighthouse's mobile performance run (simulated slow 4G, 4x slower CPU) on
+// Squadline's first screens and, in the same run and alternating with them, on an empty two-route Expo
+// Router app built from the same node_modules and served the same way (test/bench/baseline-app.mjs).
+// Prints the medians of both, their ratio, and the size of each route's JavaScript.
+//
+// Needs a running `npm start` (the demo data signs in as each role). Lighthouse is an npm package,
+// installed on first use into .tmp/lighthouse (pinned; not a dependency of the app or of `npm test`).
+// Usage: npm run bench:web [-- --runs 3] [--url http://127.0.0.1:8080] [--pages sign-in,home-tester,...]
+import { execFileSync, spawn } from 'node:child_process';
 import fs from 'node:fs';
+import net from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { DIST_DIR } from '../../server/dev/bootstrap.mjs';
+import { buildBaselineApp } from './baseline-app.mjs';
+import { firstChunk, kb, readmeBudgetKb, routeSizes } from './bundle-sizes.mjs';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
-const url = process.argv[2] ?? 'http://127.0.0.1:8080/sign-in';
-const runs = Number(process.argv[3] ?? 3);
+const LIGHTHOUSE = 'lighthouse@12.8.2';
+const DEMO_PASSWORD = 'squadline-demo';
+
+const args = process.argv.slice(2);
+const opt = (name, fallback) => {
+  const i = args.indexOf(`--${name}`);
+  return i >= 0 && args[i + 1] ? args[i + 1] : fallback;
+};
+const runs = Number(opt('runs', '3'));
+const base = opt('url', 'http://127.0.0.1:8080').replace(/\/$/, '');
+const only = opt('pages', '').split(',').filter(Boolean);
+
+// ---------------------------------------------------------------------------------------------------
+// Bundle sizes first: they need no server and are the quickest to read.
+// ---------------------------------------------------------------------------------------------------
+function printSizes(title, dist) {
+  console.log(`\n${title} (${path.relative(ROOT, dist) || dist}): JavaScript each page loads before it responds`);
+  console.log(`  ${'route'.padEnd(42)} ${'raw'.padStart(10)} ${'gzip -9'.padStart(10)}  scripts`);
+  for (const r of routeSizes(dist)) {
+    console.log(`  ${r.route.padEnd(42)} ${kb(r.bytes).padStart(10)} ${kb(r.gzip).padStart(10)}  ${r.scripts.length}`);
+  }
+}
+
+if (!fs.existsSync(path.join(DIST_DIR, 'index.html')) && !fs.existsSync(path.join(DIST_DIR, 'sign-in.html'))) {
+  console.error(`No web export in ${DIST_DIR}: run \`npm start\` (it builds the app) first.`);
+  process.exit(1);
+}
+const baselineDist = await buildBaselineApp(ROOT);
+printSizes('Squadline', DIST_DIR);
+printSizes('Empty Expo Router app', baselineDist);
+const first = firstChunk(DIST_DIR);
+const budget = readmeBudgetKb(fs.readFileSync(path.join(ROOT, 'README.md'), 'utf8'));
+console.log(`\nFirst chunk (the scripts of ${first.html}): ${kb(first.gzip)} gzip -9, budget ${budget} KB (README).`);
+console.log(`Empty app's first page: ${kb(firstChunk(baselineDist).gzip)} gzip -9.`);
+
+// ---------------------------------------------------------------------------------------------------
+// Lighthouse
+// ---------------------------------------------------------------------------------------------------
 const toolDir = path.join(ROOT, '.tmp', 'lighthouse');
 const cli = path.join(toolDir, 'node_modules', 'lighthouse', 'cli', 'index.js');
 if (!fs.existsSync(cli)) {
   fs.mkdirSync(toolDir, { recursive: true });
-  console.log('Installing lighthouse@12.8.2 into .tmp/lighthouse (first run only)...');
-  execFileSync('npm', ['install', '--prefix', toolDir, '--no-audit', '--no-fund', 'lighthouse@12.8.2'], { stdio: 'inherit' });
+  console.log(`Installing ${LIGHTHOUSE} into .tmp/lighthouse (first run only)...`);
+  execFileSync('npm', ['install', '--prefix', toolDir, '--no-audit', '--no-fund', '--save-exact', LIGHTHOUSE], { stdio: 'inherit' });
 }
-const flags = '--headless --no-sandbox --disable-gpu --disable-quic --no-first-run --disable-background-networking --disable-component-update --disable-sync';
-const results = [];
-for (let i = 0; i < runs; i++) {
-  const out = path.join(toolDir, `report-${i}.json`);
-  execFileSync(process.execPath, [cli, url, '--only-categories=performance', '--output=json', `--output-path=${out}`, `--chrome-flags=${flags}`, '--quiet'], {
-    stdio: 'inherit',
-    env: { ...process.env, CHROME_PATH: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium' },
+
+try {
+  const health = await fetch(`${base}/api/health`);
+  if (!health.ok) throw new Error(String(health.status));
+} catch {
+  console.error(`\nSquadline does not answer at ${base}: start it with \`npm start\` in another terminal, then run this again.`);
+  process.exit(1);
+}
+
+async function signIn(email) {
+  const res = await fetch(`${base}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json', Origin: base },
+    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
   });
+  if (!res.ok) throw new Error(`Signing in as ${email} failed (${res.status}): is the demo data loaded?`);
+  const cookie = res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  return cookie;
+}
+
+async function getJson(urlPath, cookie) {
+  const res = await fetch(`${base}/api${urlPath}`, { headers: { Cookie: cookie, Accept: 'application/json' } });
+  if (!res.ok) throw new Error(`GET /api${urlPath} answered ${res.status}`);
+  return res.json();
+}
+
+const cookies = {};
+for (const role of ['tester', 'coach', 'physio', 'parent', 'admin']) cookies[role] = await signIn(`${role}@squadline.test`);
+// A round with athletes, and an assessment in it, for the round and capture screens.
+const rounds = await getJson('/rounds', cookies.tester);
+const roundList = Array.isArray(rounds) ? rounds : rounds.rounds;
+let roundId = null;
+let assessmentId = null;
+for (const r of roundList ?? []) {
+  const detail = await getJson(`/rounds/${r.id}`, cookies.tester);
+  const a = detail.athletes.find((x) => x.status !== 'submitted') ?? detail.athletes[0];
+  if (a) {
+    roundId = r.id;
+    assessmentId = a.assessmentId;
+    break;
+  }
+}
+
+const pages = [
+  { name: 'sign-in', path: '/sign-in', cookie: null },
+  { name: 'home-tester', path: '/', cookie: cookies.tester },
+  { name: 'home-coach', path: '/', cookie: cookies.coach },
+  { name: 'home-physio', path: '/', cookie: cookies.physio },
+  { name: 'home-parent', path: '/', cookie: cookies.parent },
+  { name: 'home-admin', path: '/', cookie: cookies.admin },
+  { name: 'rounds', path: '/screening', cookie: cookies.tester },
+  ...(roundId ? [{ name: 'round', path: `/screening/rounds/${roundId}`, cookie: cookies.tester }] : []),
+  ...(assessmentId ? [{ name: 'capture', path: `/screening/assessments/${assessmentId}`, cookie: cookies.tester }] : []),
+].filter((p) => only.length === 0 || only.includes(p.name));
+if (!roundId) console.warn('No screening round in the demo data: the round and capture screens are left out.');
+
+const baselinePort = await freePort();
+const baselineServer = spawn(path.join(ROOT, 'node_modules', '.bin', 'tsx'), ['test/bench/serve-export.ts', baselineDist, String(baselinePort)], {
+  cwd: ROOT,
+  stdio: ['ignore', 'pipe', 'inherit'],
+});
+await new Promise((resolve, reject) => {
+  baselineServer.stdout.on('data', (d) => String(d).includes('ready') && resolve());
+  baselineServer.on('exit', (code) => reject(new Error(`The comparison server exited (${code}).`)));
+});
+const stopBaseline = () => baselineServer.exitCode === null && baselineServer.kill('SIGTERM');
+process.on('exit', stopBaseline);
+process.on('SIGINT', () => process.exit(130));
+
+const flags = '--headless --no-sandbox --disable-gpu --disable-quic --no-first-run --disable-background-networking --disable-component-update --disable-sync';
+function lighthouse(url, cookie, label) {
+  const out = path.join(toolDir, `report-${label}.json`);
+  const argv = [cli, url, '--only-categories=performance', '--output=json', `--output-path=${out}`, `--chrome-flags=${flags}`, '--quiet'];
+  if (cookie) argv.push(`--extra-headers=${JSON.stringify({ Cookie: cookie })}`);
+  execFileSync(process.execPath, argv, { stdio: 'inherit', env: { ...process.env, CHROME_PATH: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium' } });
   const r = JSON.parse(fs.readFileSync(out, 'utf8'));
+  if (r.runtimeError) throw new Error(`Lighthouse could not load ${url}: ${r.runtimeError.message}`);
   const a = r.audits;
-  results.push({
+  const result = {
     score: Math.round(r.categories.performance.score * 100),
     fcp: a['first-contentful-paint'].numericValue,
     lcp: a['largest-contentful-paint'].numericValue,
     tbt: a['total-blocking-time'].numericValue,
     cls: a['cumulative-layout-shift'].numericValue,
     bytes: a['total-byte-weight'].numericValue,
+  };
+  // Each run as it ends, so a long session that is stopped still leaves its figures.
+  console.log(`    score ${result.score}, FCP ${(result.fcp / 1000).toFixed(2)} s, LCP ${(result.lcp / 1000).toFixed(2)} s, TBT ${Math.round(result.tbt)} ms, CLS ${result.cls.toFixed(3)}`);
+  return result;
+}
+
+// Alternate: in each round the empty app, then every Squadline page, so drift in the machine's load
+// (other builds on the shared cores) touches both sides alike.
+const results = { baseline: [] };
+for (const p of pages) results[p.name] = [];
+const total = runs * (pages.length + 1);
+let n = 0;
+for (let round = 0; round < runs; round++) {
+  n++;
+  process.stdout.write(`\n[${n}/${total}] empty app /\n`);
+  results.baseline.push(lighthouse(`http://127.0.0.1:${baselinePort}/`, null, `baseline-${round}`));
+  for (const p of pages) {
+    n++;
+    process.stdout.write(`[${n}/${total}] Squadline ${p.name} ${p.path}\n`);
+    results[p.name].push(lighthouse(`${base}${p.path}`, p.cookie, `${p.name}-${round}`));
+  }
+}
+stopBaseline();
+
+const median = (list, k) => [...list.map((r) => r[k])].sort((x, y) => x - y)[Math.floor(list.length / 2)];
+const row = (name, list) => {
+  const m = (k) => median(list, k);
+  return `  ${name.padEnd(14)} ${String(m('score')).padStart(5)} ${(m('fcp') / 1000).toFixed(2).padStart(7)} ${(m('lcp') / 1000).toFixed(2).padStart(7)} ${String(Math.round(m('tbt'))).padStart(7)} ${m('cls').toFixed(3).padStart(7)} ${String(Math.round(m('bytes') / 1024)).padStart(8)}`;
+};
+const b = { score: median(results.baseline, 'score'), lcp: median(results.baseline, 'lcp') };
+console.log(`\nLighthouse mobile (simulated slow 4G, 4x CPU), median of ${runs}, ${new Date().toISOString().slice(0, 10)}:`);
+console.log(`  ${'page'.padEnd(14)} ${'score'.padStart(5)} ${'FCP s'.padStart(7)} ${'LCP s'.padStart(7)} ${'TBT ms'.padStart(7)} ${'CLS'.padStart(7)} ${'KB sent'.padStart(8)}   score ratio  LCP ratio`);
+console.log(row('empty app', results.baseline));
+for (const p of pages) {
+  const s = median(results[p.name], 'score');
+  const l = median(results[p.name], 'lcp');
+  console.log(`${row(p.name, results[p.name])}   ${(s / b.score).toFixed(2).padStart(11)}  ${(l / b.lcp).toFixed(2).padStart(9)}`);
+}
+console.log('\nscore ratio = Squadline / empty app (1.00 or more: at least as good); LCP ratio = Squadline / empty app (1.00 or less: at least as fast).');
+
+function freePort() {
+  return new Promise((resolve, reject) => {
+    const server = net.createServer();
+    server.on('error', reject);
+    server.listen(0, '127.0.0.1', () => {
+      const { port } = server.address();
+      server.close(() => resolve(port));
+    });
   });
 }
-const median = (k) => [...results.map((r) => r[k])].sort((x, y) => x - y)[Math.floor(results.length / 2)];
-console.log(`\nLighthouse mobile, ${url}, median of ${runs}:`);
-console.log(`  performance score ${median('score')}`);
-console.log(`  FCP ${(median('fcp') / 1000).toFixed(1)} s, LCP ${(median('lcp') / 1000).toFixed(1)} s, TBT ${Math.round(median('tbt'))} ms, CLS ${median('cls').toFixed(2)}`);
-console.log(`  transferred ${Math.round(median('bytes') / 1024)} KB`);

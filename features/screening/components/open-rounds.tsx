@@ -16,10 +16,12 @@ const SHOWN_PER_SQUAD = 2;
  * and a big way back into each.
  */
 export function OpenRounds() {
-  const { bySquad, squads, error } = useClubRoundsQuery();
+  const { bySquad, isPending, error } = useClubRoundsQuery();
   const { isTabletUp } = useBreakpoints();
   if (error) return <Notice tone="error">{error.message}</Notice>;
-  if (squads.isPending) return <Text>Loading squads…</Text>;
+  // Squads and rounds together: a squad card drawn before its rounds arrive would say "No open round"
+  // and then grow, pushing everything below it.
+  if (isPending) return <Text>Loading squads…</Text>;
   return (
     <View style={[styles.grid, isTabletUp && styles.gridWide]} testID="open-rounds">
       {bySquad.map(({ squad, rounds }) => {

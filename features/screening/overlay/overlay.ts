@@ -1,18 +1,8 @@
 // What to draw over a photo for a task and view: the limb and trunk lines between placed landmarks and
 // the live angles from the engine's own geometry. Pure: the editor and the result screen both draw it.
 import type { LandmarkSet } from '@/features/screening/contract';
-import {
-  frontalPlaneProjectionAngle,
-  kneeFlexion,
-  pelvicObliquity,
-  tibialInclination,
-  trunkLean,
-  type LandmarkId,
-  type Point,
-  type Side,
-  type TaskSpec,
-  type View,
-} from '@/features/screening/engine';
+import { frontalPlaneProjectionAngle, kneeFlexion, pelvicObliquity, tibialInclination, trunkLean } from '@/features/screening/engine/for-screens';
+import type { LandmarkId, Point, Side, TaskSpec, View } from '@/features/screening/engine';
 
 export type OverlayLine = { id: string; from: Point; to: Point; style: 'limb' | 'reference' };
 export type OverlayAngle = {

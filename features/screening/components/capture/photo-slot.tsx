@@ -1,5 +1,6 @@
 import { useEffect, useRef, useState } from 'react';
 import { Image, Platform, StyleSheet, View } from 'react-native';
+import { apiAssetUrl } from '@/features/api/client';
 import type { PhotoView } from '@/features/screening/contract';
 import type { TaskId, ViewSpec } from '@/features/screening/engine';
 import { useUploadItem } from '@/features/screening/hooks/use-upload';
@@ -92,7 +93,7 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploade
   const failed = item?.state === 'failed';
   // A lost connection or a server hiccup is worth retrying; a refused file (too large, not a photo) is not.
   const retryable = !!item?.error && (item.error.status === 0 || item.error.status === 408 || item.error.status === 429 || item.error.status >= 500);
-  const shown = item ? { uri: item.previewUri, w: item.width, h: item.height } : photo ? { uri: photo.thumbUrl, w: photo.width, h: photo.height } : null;
+  const shown = item ? { uri: item.previewUri, w: item.width, h: item.height } : photo ? { uri: apiAssetUrl(photo.thumbUrl), w: photo.width, h: photo.height } : null;
 
   return (
     <View ref={root} style={[styles.slot, armed && empty && styles.slotArmed]} testID={testID}>

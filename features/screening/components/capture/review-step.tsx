@@ -1,6 +1,7 @@
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { AssessmentDetail, AssessmentDraft, PhotoView } from '@/features/screening/contract';
-import { BATTERY, type TaskId, type View as PhotoSide } from '@/features/screening/engine';
+import { BATTERY } from '@/features/screening/engine/for-screens';
+import type { TaskId, View as PhotoSide } from '@/features/screening/engine';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';

@@ -1,14 +1,17 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { Platform, Pressable, StyleSheet, useWindowDimensions, View, type GestureResponderEvent, type LayoutChangeEvent } from 'react-native';
+import { apiAssetUrl } from '@/features/api/client';
 import type { LandmarkSet, PhotoView } from '@/features/screening/contract';
-import { getLandmark, type LandmarkId, type Point, type Side, type TaskSpec, type View as PhotoSide } from '@/features/screening/engine';
+import { getLandmark } from '@/features/screening/engine/for-screens';
+import type { LandmarkId, Point, Side, TaskSpec, View as PhotoSide } from '@/features/screening/engine';
 import { overlayFor } from '@/features/screening/overlay/overlay';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
-import { PhotoOverlay, type ViewBox } from './photo-overlay';
+import { LazyPhotoOverlay } from './lazy-photo-overlay';
+import type { ViewBox } from './photo-overlay';
 
 type Props = {
   task: TaskSpec;
@@ -246,8 +249,8 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
               onResponderMove={onMove}
               onResponderRelease={onRelease}
             >
-              <PhotoOverlay
-                href={photo.url}
+              <LazyPhotoOverlay
+                href={apiAssetUrl(photo.url)}
                 photoWidth={photo.width}
                 photoHeight={photo.height}
                 displayWidth={displayWidth}

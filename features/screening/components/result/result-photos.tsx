@@ -1,12 +1,13 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { apiAssetUrl } from '@/features/api/client';
 import type { AssessmentDetail, PhotoView } from '@/features/screening/contract';
-import { BATTERY, getTask } from '@/features/screening/engine';
+import { BATTERY, getTask } from '@/features/screening/engine/for-screens';
 import { overlayFor } from '@/features/screening/overlay/overlay';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
-import { PhotoOverlay } from '../landmarks/photo-overlay';
+import { LazyPhotoOverlay } from '../landmarks/lazy-photo-overlay';
 
 function current(photos: PhotoView[]): PhotoView[] {
   const map = new Map<string, PhotoView>();
@@ -50,8 +51,8 @@ function ResultPhoto({ photo, detail, wide }: { photo: PhotoView; detail: Assess
         {task.title}, {photo.view} view
       </Text>
       {displayWidth > 0 ? (
-        <PhotoOverlay
-          href={photo.url}
+        <LazyPhotoOverlay
+          href={apiAssetUrl(photo.url)}
           photoWidth={photo.width}
           photoHeight={photo.height}
           displayWidth={displayWidth}

@@ -1,0 +1,27 @@
+import { ScrollViewStyleReset } from 'expo-router/html';
+import type { PropsWithChildren } from 'react';
+import { colors } from '@/features/ui/theme';
+
+// The HTML frame of every pre-rendered page (web only; runs in Node at build time, never in the browser).
+// Beside Expo's defaults: the paper colour from the first byte (no white flash), and bold system faces
+// for the bold family's fallback, so headings and buttons stay bold on a first visit where the font
+// files came too late to be used (font-display: optional, see features/ui/use-app-fonts.web.ts).
+const FALLBACK_FACES = `
+@font-face{font-family:"Squadline Bold Fallback";font-weight:400;src:local("Arial Bold"),local("Arial-BoldMT"),local("Helvetica Bold"),local("Helvetica-Bold"),local("Roboto Bold"),local("Roboto-Bold"),local("Segoe UI Bold"),local("SegoeUI-Bold"),local("Liberation Sans Bold"),local("LiberationSans-Bold"),local("DejaVu Sans Bold"),local("DejaVuSans-Bold")}
+html,body{background-color:${colors.paper}}`;
+
+export default function Root({ children }: PropsWithChildren) {
+  return (
+    <html lang="en">
+      <head>
+        <meta charSet="utf-8" />
+        <meta httpEquiv="X-UA-Compatible" content="IE=edge" />
+        <meta name="viewport" content="width=device-width, initial-scale=1, shrink-to-fit=no" />
+        <meta name="theme-color" content={colors.pine} />
+        <ScrollViewStyleReset />
+        <style dangerouslySetInnerHTML={{ __html: FALLBACK_FACES }} />
+      </head>
+      <body>{children}</body>
+    </html>
+  );
+}
