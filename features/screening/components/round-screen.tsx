@@ -1,6 +1,9 @@
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
+import { useSyncExternalStore } from 'react';
+import { outbox } from '@/features/offline/device';
 import { useRoundQuery } from '@/features/screening/api/get-round';
+import { useKeepRoundOnDevice } from '@/features/screening/hooks/use-keep-round';
 import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import type { RoundAthlete } from '@/features/screening/contract';
@@ -27,10 +30,16 @@ export function RoundScreen({ id }: { id: string }) {
   const round = useRoundQuery(id);
   const { isTabletUp } = useBreakpoints();
   const screens = canScreen(useActiveClub().membership.role);
+  useKeepRoundOnDevice(round.data);
+  // Submits made on this phone and not sent yet: the athlete is done here, the server has not heard.
+  const queue = useSyncExternalStore(outbox.subscribe, outbox.getState, outbox.getState);
+  const waitingSubmit = new Set(queue.entries.filter((e) => e.kind === 'submit').map((e) => e.assessmentId));
   if (round.isPending) return <Text>Loading the round…</Text>;
   if (round.error) return <Notice tone="error">{round.error.message}</Notice>;
   const { round: r, athletes } = round.data;
-  const sorted = athletes.slice().sort(byName);
+  const sorted = athletes
+    .map((a) => (waitingSubmit.has(a.assessmentId) && a.status !== 'submitted' ? { ...a, status: 'submitted' as const, waiting: true } : { ...a, waiting: false }))
+    .sort(byName);
   const next = screens ? (sorted.find((a) => a.status === 'in_progress') ?? sorted.find((a) => a.status === 'not_started')) : undefined;
   return (
     <View style={styles.wrap}>
@@ -66,7 +75,7 @@ export function RoundScreen({ id }: { id: string }) {
           {sorted.map((a) => (
             <Link
               key={a.assessmentId}
-              href={assessmentHref(a, screens)}
+              href={assessmentHref(a.waiting ? { ...a, status: 'in_progress' } : a, screens)}
               style={[styles.row, isTabletUp && styles.rowGrid]}
               testID={`round-athlete-${a.athleteId}`}
               accessibilityLabel={`${a.firstName} ${a.lastName}, ${a.status.replace('_', ' ')}${a.photoConsent ? '' : ', no photo consent'}`}
@@ -77,8 +86,8 @@ export function RoundScreen({ id }: { id: string }) {
                     {a.firstName} {a.lastName}
                   </Text>
                   <View style={styles.tags}>
-                    <StatusTag status={a.status} />
-                    {a.status === 'submitted' && a.flagCount !== null ? (
+                    {a.waiting ? <PlainTag tone="info" label="Submitted on this phone · waiting to send" /> : <StatusTag status={a.status} />}
+                    {a.status === 'submitted' && !a.waiting && a.flagCount !== null ? (
                       <PlainTag tone="info" label={a.flagCount === 0 ? 'No flags' : `${a.flagCount} ${a.flagCount === 1 ? 'flag' : 'flags'}`} />
                     ) : null}
                     {!a.photoConsent ? <PlainTag label="No photo consent" /> : null}

@@ -1,0 +1,96 @@
+import { useState } from 'react';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { Button } from '@/features/ui/components/button';
+import { Text } from '@/features/ui/components/text';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { budgetText } from '../budget';
+import { outbox } from '../device';
+import { usePhotoBytesOnDevice, useSyncStatus } from '../hooks';
+import { syncStatusDetail, syncStatusText, type SyncStatus } from '../sync-status';
+
+const TONE: Record<SyncStatus['kind'], 'ok' | 'busy' | 'off' | 'bad'> = {
+  saved: 'ok',
+  syncing: 'busy',
+  online: 'busy',
+  offline: 'off',
+  attention: 'bad',
+};
+
+/**
+ * On every screen: online, offline with N changes waiting, syncing, or all saved. Tapping it says what
+ * that means, how much of the photo budget is used, and offers to send now.
+ */
+export function SyncStatusPill() {
+  const status = useSyncStatus();
+  const [open, setOpen] = useState(false);
+  const tone = TONE[status.kind];
+  return (
+    <View style={styles.wrap}>
+      <Pressable
+        accessibilityRole="button"
+        accessibilityLabel={`${syncStatusText(status)}. ${open ? 'Hide details' : 'Show details'}`}
+        accessibilityLiveRegion="polite"
+        onPress={() => setOpen((o) => !o)}
+        style={[styles.pill, styles[tone]]}
+        testID="sync-status"
+      >
+        <View style={[styles.dot, styles[`${tone}Dot`]]} />
+        <Text style={[styles.text, tone === 'bad' && styles.badText]} numberOfLines={1} testID="sync-status-text">
+          {syncStatusText(status)}
+        </Text>
+      </Pressable>
+      {open ? <Details status={status} onClose={() => setOpen(false)} /> : null}
+    </View>
+  );
+}
+
+function Details({ status, onClose }: { status: SyncStatus; onClose(): void }) {
+  const bytes = usePhotoBytesOnDevice();
+  return (
+    <View style={styles.panel} testID="sync-status-details">
+      <Text>{syncStatusDetail(status)}</Text>
+      <Text variant="small">Photos kept on this phone: {budgetText(bytes)}.</Text>
+      <View style={styles.row}>
+        {status.kind === 'online' ? <Button tone="secondary" label="Send now" onPress={() => outbox.kick()} style={styles.grow} /> : null}
+        <Button tone="quiet" label="Close" onPress={onClose} style={styles.grow} />
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { position: 'relative', flexShrink: 1 },
+  pill: {
+    minHeight: TOUCH_MIN - 8,
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.xs,
+    paddingHorizontal: space.sm,
+    borderRadius: radius.lg,
+    borderWidth: 1,
+    alignSelf: 'flex-start',
+  },
+  ok: { borderColor: colors.pine, backgroundColor: colors.pineSoft },
+  busy: { borderColor: colors.line, backgroundColor: colors.surface },
+  off: { borderColor: colors.amber, backgroundColor: colors.amberSoft },
+  bad: { borderColor: colors.brick, backgroundColor: colors.brickSoft },
+  dot: { width: 10, height: 10, borderRadius: 5 },
+  okDot: { backgroundColor: colors.pine },
+  busyDot: { backgroundColor: colors.focus },
+  offDot: { backgroundColor: colors.amber },
+  badDot: { backgroundColor: colors.brick },
+  text: { fontFamily: fonts.bold, fontSize: 15, lineHeight: 20, color: colors.ink, flexShrink: 1 },
+  badText: { color: colors.brick },
+  panel: {
+    marginTop: space.xs,
+    padding: space.md,
+    gap: space.sm,
+    borderRadius: radius.md,
+    borderWidth: 1,
+    borderColor: colors.line,
+    backgroundColor: colors.surface,
+    maxWidth: 360,
+  },
+  row: { flexDirection: 'row', gap: space.sm },
+  grow: { flexGrow: 1 },
+});
