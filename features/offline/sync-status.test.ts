@@ -11,11 +11,11 @@ describe('sync status', () => {
   it.each([
     [true, st([]), 'All saved'],
     [false, st([]), 'Offline'],
-    [false, st([entry(1), entry(2), entry(3)]), 'Offline · 3 changes waiting'],
-    [false, st([entry(1)]), 'Offline · 1 change waiting'],
+    [false, st([entry(1), entry(2), entry(3)]), 'Offline · 3 waiting'],
+    [false, st([entry(1)]), 'Offline · 1 waiting'],
     [true, st([entry(1), entry(2)], 1), 'Syncing · 2 left'],
-    [true, st([entry(1)], null, { status: 0, code: 'offline', message: 'x' }), 'Online · 1 change waiting, retrying'],
-    [true, st([entry(1, 'refused'), entry(2)]), '1 change refused'],
+    [true, st([entry(1)], null, { status: 0, code: 'offline', message: 'x' }), 'Retrying · 1 waiting'],
+    [true, st([entry(1, 'refused'), entry(2)]), '1 refused'],
   ])('online %s with %j reads "%s"', (online, state, text) => {
     expect(syncStatusText(syncStatusOf(online, state))).toBe(text);
   });

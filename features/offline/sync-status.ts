@@ -20,19 +20,19 @@ export function syncStatusOf(online: boolean, outbox: OutboxState): SyncStatus {
 
 const changes = (n: number) => (n === 1 ? '1 change' : `${n} changes`);
 
-/** Short words for the status pill. */
+/** Short words for the status pill (it shares a phone's top bar with the menu). */
 export function syncStatusText(s: SyncStatus): string {
   switch (s.kind) {
     case 'saved':
       return 'All saved';
     case 'offline':
-      return s.waiting === 0 ? 'Offline' : `Offline · ${changes(s.waiting)} waiting`;
+      return s.waiting === 0 ? 'Offline' : `Offline · ${s.waiting} waiting`;
     case 'syncing':
       return `Syncing · ${s.waiting} left`;
     case 'online':
-      return s.retrying ? `Online · ${changes(s.waiting)} waiting, retrying` : `Online · ${changes(s.waiting)} waiting`;
+      return s.retrying ? `Retrying · ${s.waiting} waiting` : `Online · ${s.waiting} waiting`;
     case 'attention':
-      return `${changes(s.refused)} refused`;
+      return `${s.refused} refused`;
   }
 }
 

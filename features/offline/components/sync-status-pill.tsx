@@ -20,7 +20,7 @@ const TONE: Record<SyncStatus['kind'], 'ok' | 'busy' | 'off' | 'bad'> = {
  * On every screen: online, offline with N changes waiting, syncing, or all saved. Tapping it says what
  * that means, how much of the photo budget is used, and offers to send now.
  */
-export function SyncStatusPill() {
+export function SyncStatusPill({ align = 'left' }: { align?: 'left' | 'right' }) {
   const status = useSyncStatus();
   const [open, setOpen] = useState(false);
   const tone = TONE[status.kind];
@@ -39,15 +39,15 @@ export function SyncStatusPill() {
           {syncStatusText(status)}
         </Text>
       </Pressable>
-      {open ? <Details status={status} onClose={() => setOpen(false)} /> : null}
+      {open ? <Details status={status} align={align} onClose={() => setOpen(false)} /> : null}
     </View>
   );
 }
 
-function Details({ status, onClose }: { status: SyncStatus; onClose(): void }) {
+function Details({ status, align, onClose }: { status: SyncStatus; align: 'left' | 'right'; onClose(): void }) {
   const bytes = usePhotoBytesOnDevice();
   return (
-    <View style={styles.panel} testID="sync-status-details">
+    <View style={[styles.panel, align === 'right' ? styles.panelRight : styles.panelLeft]} testID="sync-status-details">
       <Text>{syncStatusDetail(status)}</Text>
       <Text variant="small">Photos kept on this phone: {budgetText(bytes)}.</Text>
       <View style={styles.row}>
@@ -59,7 +59,7 @@ function Details({ status, onClose }: { status: SyncStatus; onClose(): void }) {
 }
 
 const styles = StyleSheet.create({
-  wrap: { position: 'relative', flexShrink: 1 },
+  wrap: { position: 'relative', flexShrink: 1, zIndex: 20 },
   pill: {
     minHeight: TOUCH_MIN - 8,
     flexDirection: 'row',
@@ -81,7 +81,16 @@ const styles = StyleSheet.create({
   badDot: { backgroundColor: colors.brick },
   text: { fontFamily: fonts.bold, fontSize: 15, lineHeight: 20, color: colors.ink, flexShrink: 1 },
   badText: { color: colors.brick },
+  // Floats over the screen below instead of pushing it down.
   panel: {
+    position: 'absolute',
+    top: '100%',
+    width: 300,
+    zIndex: 30,
+    shadowColor: '#000',
+    shadowOpacity: 0.18,
+    shadowRadius: 12,
+    shadowOffset: { width: 0, height: 4 },
     marginTop: space.xs,
     padding: space.md,
     gap: space.sm,
@@ -89,8 +98,9 @@ const styles = StyleSheet.create({
     borderWidth: 1,
     borderColor: colors.line,
     backgroundColor: colors.surface,
-    maxWidth: 360,
   },
+  panelLeft: { left: 0 },
+  panelRight: { right: 0 },
   row: { flexDirection: 'row', gap: space.sm },
   grow: { flexGrow: 1 },
 });

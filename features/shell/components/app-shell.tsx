@@ -36,7 +36,7 @@ export function AppShell({ children }: { children: ReactNode }) {
       <View style={styles.topBar}>
         <Brand />
         <View style={styles.topStatus}>
-          <SyncStatusPill />
+          <SyncStatusPill align="right" />
         </View>
         <Pressable
           accessibilityRole="button"
@@ -115,11 +115,12 @@ function AccountBox() {
 
 const styles = StyleSheet.create({
   wideRoot: { flex: 1, flexDirection: 'row', backgroundColor: colors.paper },
-  side: { width: 248, backgroundColor: colors.surface, borderRightWidth: 1, borderRightColor: colors.line, padding: space.lg, gap: space.xl },
+  side: { zIndex: 10, width: 248, backgroundColor: colors.surface, borderRightWidth: 1, borderRightColor: colors.line, padding: space.lg, gap: space.xl },
   grow: { flex: 1 },
   main: { flex: 1 },
   phoneRoot: { flex: 1, backgroundColor: colors.paper },
   topBar: {
+    zIndex: 10,
     flexDirection: 'row',
     alignItems: 'center',
     justifyContent: 'space-between',
@@ -129,7 +130,7 @@ const styles = StyleSheet.create({
     borderBottomWidth: 1,
     borderBottomColor: colors.line,
   },
-  topStatus: { flex: 1, alignItems: 'flex-end', marginHorizontal: space.sm },
+  topStatus: { flex: 1, alignItems: 'flex-end', marginHorizontal: space.sm, zIndex: 20 },
   menuButton: { minHeight: TOUCH_MIN, minWidth: 72, alignItems: 'center', justifyContent: 'center', borderRadius: radius.md, borderWidth: 2, borderColor: colors.pine },
   menuText: { fontFamily: fonts.bold, color: colors.pine, fontSize: 17 },
   sheet: { padding: space.lg, gap: space.xl, flex: 1 },
