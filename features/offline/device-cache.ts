@@ -46,3 +46,15 @@ export async function readKept<T>(key: string, scope: string): Promise<T | null>
   const kept = await deviceCache.get(key).catch(() => undefined);
   return kept && kept.scope === scope ? (kept.data as T) : null;
 }
+
+/** Every kept answer under a key prefix, in one club (the rounds kept on this phone). */
+export async function keptWithPrefix<T>(prefix: string, scope: string): Promise<T[]> {
+  if (!hasIndexedDb()) return [];
+  try {
+    const keys = (await deviceCache.keys()).map(String).filter((k) => k.startsWith(prefix));
+    const items = await Promise.all(keys.map((k) => deviceCache.get(k)));
+    return items.filter((i) => i && i.scope === scope).map((i) => i!.data as T);
+  } catch {
+    return [];
+  }
+}

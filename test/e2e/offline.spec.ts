@@ -144,6 +144,8 @@ test('a whole round screened with no connection syncs once, in order, without du
   await expect(page.getByTestId('sync-status-details')).toContainText('Photos kept on this phone');
   await page.screenshot({ path: `${SHOTS}/offline-status-phone.png` });
   await page.getByTestId('sync-status').click();
+  await expect(page.getByTestId('sync-status-details')).toHaveCount(0);
+  await expect(page).toHaveURL(new RegExp(`/screening/assessments/${second!.assessmentId}$`));
 
   // Signing out now would delete the waiting changes: the app says so and lets the tester stay.
   await page.getByTestId('menu-button').click();
@@ -152,6 +154,8 @@ test('a whole round screened with no connection syncs once, in order, without du
   await page.screenshot({ path: `${SHOTS}/sign-out-warning-phone.png` });
   await page.getByTestId('sign-out-cancel').click();
   await page.getByTestId('menu-button').click();
+  await expect(page).toHaveURL(new RegExp(`/screening/assessments/${second!.assessmentId}$`));
+  await expect(page.getByTestId('step-title')).toHaveText('Body measurements');
 
   // Signal again: everything goes out in order and the status settles on "All saved".
   await context.setOffline(false);

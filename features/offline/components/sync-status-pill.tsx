@@ -85,7 +85,7 @@ const styles = StyleSheet.create({
   panel: {
     position: 'absolute',
     top: '100%',
-    width: 300,
+    width: 280,
     zIndex: 30,
     shadowColor: '#000',
     shadowOpacity: 0.18,
