@@ -9,7 +9,7 @@ import { signIn } from './helpers';
 // served from http://127.0.0.1, which browsers treat as a secure context.
 
 test.use({ serviceWorkers: 'allow', actionTimeout: 30_000 });
-test.skip(({ viewport }) => (viewport?.width ?? 0) > 500, 'courtside work is done on a phone: the phone project runs this');
+const phoneOnly = 'courtside work is done on a phone: the phone project runs this';
 
 const SHOTS = 'test-results/offline';
 
@@ -79,6 +79,7 @@ async function addPhoto(page: Page, view: 'front' | 'side', photo: Buffer) {
 }
 
 test('a whole round screened with no connection syncs once, in order, without duplicates', async ({ page, context }, testInfo) => {
+  test.skip(testInfo.project.name !== 'phone', phoneOnly);
   test.setTimeout(240_000);
   await signIn(page, 'tester@squadline.test');
   await expect(page.getByTestId('home-tester')).toBeVisible();
@@ -183,6 +184,7 @@ test('a whole round screened with no connection syncs once, in order, without du
 });
 
 test('the same draft edited on two phones, one of them offline, is merged when it comes back', async ({ browser, page }, testInfo) => {
+  test.skip(testInfo.project.name !== 'phone', phoneOnly);
   test.setTimeout(180_000);
   await signIn(page, 'tester@squadline.test');
   await expect(page.getByTestId('home-tester')).toBeVisible();
@@ -228,4 +230,28 @@ test('the same draft edited on two phones, one of them offline, is merged when i
   expect(server.draft.body).toMatchObject({ statureCm: 149, sittingHeightCm: 77, massKg: 44 });
   expect([...server.draft.tasks['two-leg-squat'].criteria].sort()).toEqual(['squat-left-knee-in', 'squat-right-knee-in']);
   await other.close();
+});
+
+test('without a connection the screening page offers the rounds kept on this device', async ({ page, context }, testInfo) => {
+  test.setTimeout(120_000);
+  await signIn(page, 'tester@squadline.test');
+  await expect(page.getByTestId('home-tester')).toBeVisible();
+  const name = `Kept ${testInfo.project.name} ${Date.now()}`;
+  const round = await openRoundByApi(page.request, name);
+  await page.goto(`/screening/rounds/${round.round.id}`);
+  await expect(page.getByRole('heading', { name })).toBeVisible();
+  await readyForCourtside(page, round.athletes.length);
+
+  await goOffline(context, page);
+  await page.goto('/screening');
+  await expect(page.getByTestId('kept-rounds')).toContainText('The rounds you opened on this phone are kept here');
+  await page.getByTestId('sync-status').click();
+  await expect(page.getByTestId('sync-status-details')).toContainText('No connection');
+  await page.screenshot({ path: `${SHOTS}/kept-rounds-${testInfo.project.name}.png` });
+  await page.getByTestId('sync-status').click();
+  await page.getByRole('link', { name: new RegExp(name) }).click();
+  await expect(page.getByRole('heading', { name })).toBeVisible();
+  await expect(page.getByTestId('sync-status-text')).toHaveText('Offline');
+  await context.setOffline(false);
+  await expect(page.getByTestId('sync-status-text')).toHaveText('All saved');
 });

@@ -53,9 +53,10 @@ export function AppShell({ children }: { children: ReactNode }) {
           <NavList onNavigate={() => setMenuOpen(false)} />
           <AccountBox />
         </View>
-      ) : (
-        <View style={styles.main}>{children}</View>
-      )}
+      ) : null}
+      {/* Hidden, not unmounted, under the menu: unmounting the screens resets the router to the home
+          route, and a tester who opened the menu mid-screening would lose their place. */}
+      <View style={[styles.main, menuOpen && styles.hidden]}>{children}</View>
     </View>
   );
 }
@@ -118,6 +119,7 @@ const styles = StyleSheet.create({
   side: { zIndex: 10, width: 248, backgroundColor: colors.surface, borderRightWidth: 1, borderRightColor: colors.line, padding: space.lg, gap: space.xl },
   grow: { flex: 1 },
   main: { flex: 1 },
+  hidden: { display: 'none' },
   phoneRoot: { flex: 1, backgroundColor: colors.paper },
   topBar: {
     zIndex: 10,
