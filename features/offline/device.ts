@@ -53,6 +53,11 @@ connectivity.subscribe(() => {
   if (connectivity.isOnline()) outbox.kick();
 });
 
+// A photo discarded from the queue leaves the device with it.
+outbox.onEvent((e) => {
+  if (e.type === 'discarded' && e.entry.photo) void forgetPhoto(e.entry.photo.blobId).catch(() => undefined);
+});
+
 /** Local copies of drafts (see features/screening/draft), kept on the device. */
 export const draftCopies = new JsonCopies<unknown>(keep ? deviceDrafts : null);
 

@@ -102,6 +102,7 @@ describe('Outbox', () => {
 
   it.each([
     [0, true],
+    [401, true],
     [408, true],
     [429, true],
     [500, true],

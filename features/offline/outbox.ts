@@ -71,11 +71,11 @@ export type OutboxDeps = {
 export const RETRY_DELAYS_MS = [2_000, 4_000, 8_000, 15_000, 30_000, 60_000] as const;
 
 /**
- * A lost connection, a timeout, rate limiting or a server error: worth sending again later (so is a 409
- * `request_in_progress`: the server is still running the first try of the same key).
+ * A lost connection, a timeout, rate limiting or a server error: worth sending again later. So is 401:
+ * the session ran out, and the change waits until the same person signs in again.
  */
 export function isRetryable(status: number): boolean {
-  return status === 0 || status === 408 || status === 429 || status >= 500;
+  return status === 0 || status === 401 || status === 408 || status === 429 || status >= 500;
 }
 
 export type OutboxState = {
@@ -254,6 +254,7 @@ export class Outbox {
         } catch (e) {
           this.sending = null;
           const error = toOutboxError(e);
+          // A 409 `request_in_progress`: the server is still running the first try of the same key.
           if (isRetryable(error.status) || error.code === 'request_in_progress') {
             this.lastError = error;
             this.publish();

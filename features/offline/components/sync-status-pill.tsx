@@ -5,7 +5,10 @@ import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { budgetText } from '../budget';
 import { outbox } from '../device';
-import { usePhotoBytesOnDevice, useSyncStatus } from '../hooks';
+import { useOutboxState, usePhotoBytesOnDevice, useSyncStatus } from '../hooks';
+import type { OutboxKind } from '../outbox';
+
+const KIND_WORD: Record<OutboxKind, string> = { draft: 'Draft save', photo: 'Photo', submit: 'Submit' };
 import { syncStatusDetail, syncStatusText, type SyncStatus } from '../sync-status';
 
 const TONE: Record<SyncStatus['kind'], 'ok' | 'busy' | 'off' | 'bad'> = {
@@ -46,10 +49,21 @@ export function SyncStatusPill({ align = 'left' }: { align?: 'left' | 'right' })
 
 function Details({ status, align, onClose }: { status: SyncStatus; align: 'left' | 'right'; onClose(): void }) {
   const bytes = usePhotoBytesOnDevice();
+  const refused = useOutboxState().entries.filter((e) => e.state === 'refused');
   return (
     <View style={[styles.panel, align === 'right' ? styles.panelRight : styles.panelLeft]} testID="sync-status-details">
       <Text>{syncStatusDetail(status)}</Text>
       <Text variant="small">Photos kept on this phone: {budgetText(bytes)}.</Text>
+      {refused.map((e) => (
+        <View key={e.seq} style={styles.refused} testID={`refused-${e.seq}`}>
+          <Text variant="label">{KIND_WORD[e.kind]} refused</Text>
+          <Text variant="small">{e.error?.message}</Text>
+          <View style={styles.row}>
+            <Button tone="secondary" label="Send again" onPress={() => void outbox.sendAgain(e.seq)} style={styles.grow} />
+            <Button tone="quiet" label="Discard" onPress={() => void outbox.discard(e.seq)} style={styles.grow} />
+          </View>
+        </View>
+      ))}
       <View style={styles.row}>
         {status.kind === 'online' ? <Button tone="secondary" label="Send now" onPress={() => outbox.kick()} style={styles.grow} /> : null}
         <Button tone="quiet" label="Close" onPress={onClose} style={styles.grow} />
@@ -102,5 +116,6 @@ const styles = StyleSheet.create({
   panelLeft: { left: 0 },
   panelRight: { right: 0 },
   row: { flexDirection: 'row', gap: space.sm },
+  refused: { gap: space.xs, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.sm },
   grow: { flexGrow: 1 },
 });

@@ -33,7 +33,7 @@ export function ScreeningHome() {
       </Card>
     ) : null;
 
-  if (error) return <RoundsUnavailable error={error} />;
+  if (error) return <RoundsUnavailable error={error} withTitle />;
   return (
     <View style={styles.wrap}>
       <View style={styles.head}>

@@ -4,7 +4,7 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
 import { screeningKeys } from '@/features/screening/api/keys';
-import { outbox } from '@/features/offline/device';
+import { connectivity, outbox } from '@/features/offline/device';
 import { queueSubmit } from '@/features/screening/api/submit-assessment';
 import { queueDraftSave } from '@/features/screening/draft/registry';
 import type { AssessmentDetail, LandmarkSet, PhotoView, TaskDraft } from '@/features/screening/contract';
@@ -123,7 +123,18 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
         router.replace(`/screening/rounds/${detail.roundId}`);
         return;
       }
-      await outbox.whenDone(entry.seq);
+      // The connection may drop while it goes out: then it waits on the phone like an offline submit.
+      let unsubscribe: (() => void) | undefined;
+      const wentOffline = new Promise<'offline'>((resolve) => {
+        unsubscribe = connectivity.subscribe(() => {
+          if (!connectivity.isOnline()) resolve('offline');
+        });
+      });
+      const outcome = await Promise.race([outbox.whenDone(entry.seq).then(() => 'sent' as const), wentOffline]).finally(() => unsubscribe?.());
+      if (outcome === 'offline') {
+        router.replace(`/screening/rounds/${detail.roundId}`);
+        return;
+      }
       void qc.invalidateQueries({ queryKey: screeningKeys.club(membership.clubId) });
       router.replace(`/screening/assessments/${detail.id}/result`);
     } catch (e) {
