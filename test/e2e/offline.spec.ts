@@ -112,6 +112,15 @@ test('a whole round screened with no connection syncs once, in order, without du
   await addPhoto(page, 'front', await cardJpeg('A front'));
   await expect(page.getByTestId('photo-front-waiting')).toContainText('Kept on this phone');
   await expect(page.getByTestId('sync-status-text')).toHaveText(/^Offline · [2-9] waiting$/);
+  // Landmarks go on the photo kept on the phone, in its own pixels (the size the server stores).
+  await page.getByTestId('photo-front-landmarks').click();
+  const surface = page.getByTestId('landmark-surface');
+  await expect(surface).toBeVisible();
+  const box = (await surface.boundingBox())!;
+  await surface.click({ position: { x: 0.43 * box.width, y: 0.48 * box.height } });
+  await surface.click({ position: { x: 0.46 * box.width, y: 0.66 * box.height } });
+  await page.getByTestId('landmarks-done').click();
+  await expect(page.getByTestId('photo-front-placed')).toHaveText('2 of 10 landmarks placed.');
   await page.screenshot({ path: `${SHOTS}/offline-capture-phone.png` });
   for (let task = 2; task <= 9; task += 1) await nextStep(page, `Task ${task} of 9`);
   await nextStep(page, 'All 9 tasks');
@@ -171,6 +180,8 @@ test('a whole round screened with no connection syncs once, in order, without du
   expect(a.draft.body).toMatchObject({ statureCm: 151, sittingHeightCm: 78, massKg: 40 });
   expect(a.draft.tasks['two-leg-squat'].criteria).toContain('squat-right-knee-in');
   expect(a.photos).toHaveLength(1);
+  expect(Object.keys(a.draft.tasks['two-leg-squat'].landmarks.front)).toHaveLength(2);
+  expect(a.photos[0]).toMatchObject({ width: 1200, height: 1600 });
   expect(a.result.version).toBe(1);
   expect(a.result.history).toEqual([]);
   const b = await (await page.request.get(`/api/assessments/${second!.assessmentId}`)).json();

@@ -1,6 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, Redirect, useRouter } from 'expo-router';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
 import { screeningKeys } from '@/features/screening/api/keys';
@@ -11,6 +11,8 @@ import type { AssessmentDetail, LandmarkSet, PhotoView, TaskDraft } from '@/feat
 import { BATTERY, getTask, type TaskId, type View as PhotoSide } from '@/features/screening/engine';
 import { useAssessmentDraft } from '@/features/screening/hooks/use-assessment-draft';
 import { useUnfinishedUploads } from '@/features/screening/hooks/use-upload';
+import { slotOf } from '@/features/screening/photos/upload-queue';
+import { uploadQueue } from '@/features/screening/photos/upload-registry';
 import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import { CONTENT_MAX_WIDTH, useBreakpoints } from '@/features/ui/breakpoints';
@@ -75,6 +77,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
   const [submitError, setSubmitError] = useState<string | null>(null);
   const photos = useMemo(() => photoIndex(detail.photos), [detail.photos]);
   const unfinishedUploads = useUnfinishedUploads(detail.id);
+  useSyncExternalStore(uploadQueue.subscribe, uploadQueue.getVersion, uploadQueue.getVersion);
   const step = STEPS[stepIndex] ?? 'body';
   const task = step !== 'body' && step !== 'review' ? getTask(step as TaskId) : null;
   const athleteName = `${detail.athlete.firstName} ${detail.athlete.lastName}`;
@@ -144,7 +147,24 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
     }
   };
 
-  const photoFor = (taskId: TaskId, view: PhotoSide) => photos.get(`${taskId}:${view}`);
+  // A photo waiting on the phone (taken offline) stands in for the stored one: landmarks are placed on
+  // it in its own pixels, which the server keeps (it is already scaled to the stored size).
+  const photoFor = (taskId: TaskId, view: PhotoSide): PhotoView | undefined => {
+    const waiting = uploadQueue.get(detail.id, slotOf(taskId, view));
+    if (waiting && waiting.state !== 'failed' && waiting.previewUri) {
+      return {
+        id: `on-device-${waiting.seq}`,
+        taskId,
+        view,
+        width: waiting.width,
+        height: waiting.height,
+        url: waiting.previewUri,
+        thumbUrl: waiting.previewUri,
+        createdAt: new Date().toISOString(),
+      };
+    }
+    return photos.get(`${taskId}:${view}`);
+  };
   const title = editing
     ? `${getTask(editing.taskId).title}: ${editing.view} landmarks`
     : step === 'body'

@@ -66,7 +66,7 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onNewPhot
   const failed = item?.state === 'failed';
   // A lost connection or a server hiccup is worth retrying; a refused file (too large, not a photo) is not.
   const retryable = !!item?.error && (item.error.status === 0 || item.error.status === 408 || item.error.status === 429 || item.error.status >= 500);
-  const shown = item && item.previewUri ? { uri: item.previewUri, w: item.width, h: item.height } : photo ? { uri: photo.thumbUrl, w: photo.width, h: photo.height } : null;
+  const shown = item?.previewUri ? { uri: item.previewUri, w: item.width, h: item.height } : photo ? { uri: photo.thumbUrl, w: photo.width, h: photo.height } : null;
 
   return (
     <View style={styles.slot} testID={testID}>
@@ -107,7 +107,7 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onNewPhot
       ) : null}
       {preparing ? <Text variant="small">Preparing the photo…</Text> : null}
       {pickError ? <Notice tone="error">{pickError}</Notice> : null}
-      {photo && !item ? (
+      {photo && (!item || (waiting && item.previewUri)) ? (
         <View style={styles.actions}>
           <Text variant="small" testID={`${testID}-placed`}>
             {placed === 0 ? 'No landmarks placed yet.' : `${placed} of ${spec.landmarks.length} landmarks placed.`}
