@@ -1,15 +1,15 @@
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from '@playwright/test';
 import sharp from 'sharp';
-import { signIn } from './helpers';
+import { openNav, signIn } from './helpers';
 
-// Courtside without signal, on a phone (390x844): the app is opened once online, then the network is
-// switched off in the browser. The service worker answers the page loads, the device's store answers
-// the data, and changes wait in the outbox until the connection is back; then the server holds each
-// change exactly once. Needs the production web build (the worker is not registered in `npm run dev`)
-// served from http://127.0.0.1, which browsers treat as a secure context.
+// Courtside without signal, at both widths (courtside it is the phone, 390x844): the app is opened
+// once online, then the network is switched off in the browser. The service worker answers the page
+// loads, the device's store answers the data, and changes wait in the outbox until the connection is
+// back; then the server holds each change exactly once. Needs the production web build (the worker is
+// not registered in `npm run dev`) served from http://127.0.0.1, which browsers treat as a secure
+// context.
 
 test.use({ serviceWorkers: 'allow', actionTimeout: 30_000 });
-const phoneOnly = 'courtside work is done on a phone: the phone project runs this';
 
 const SHOTS = 'test-results/offline';
 
@@ -79,7 +79,6 @@ async function addPhoto(page: Page, view: 'front' | 'side', photo: Buffer) {
 }
 
 test('a whole round screened with no connection syncs once, in order, without duplicates', async ({ page, context }, testInfo) => {
-  test.skip(testInfo.project.name !== 'phone', phoneOnly);
   test.setTimeout(240_000);
   await signIn(page, 'tester@squadline.test');
   await expect(page.getByTestId('home-tester')).toBeVisible();
@@ -121,7 +120,7 @@ test('a whole round screened with no connection syncs once, in order, without du
   await surface.click({ position: { x: 0.46 * box.width, y: 0.66 * box.height } });
   await page.getByTestId('landmarks-done').click();
   await expect(page.getByTestId('photo-front-placed')).toHaveText('2 of 10 landmarks placed.');
-  await page.screenshot({ path: `${SHOTS}/offline-capture-phone.png` });
+  await page.screenshot({ path: `${SHOTS}/offline-capture-${testInfo.project.name}.png` });
   for (let task = 2; task <= 9; task += 1) await nextStep(page, `Task ${task} of 9`);
   await nextStep(page, 'All 9 tasks');
   await expect(page.getByTestId('submit-offline')).toBeVisible();
@@ -152,25 +151,25 @@ test('a whole round screened with no connection syncs once, in order, without du
   await expect(page.getByTestId('body-stature')).toHaveValue('158');
   await page.getByTestId('sync-status').click();
   await expect(page.getByTestId('sync-status-details')).toContainText('Photos kept on this phone');
-  await page.screenshot({ path: `${SHOTS}/offline-status-phone.png` });
+  await page.screenshot({ path: `${SHOTS}/offline-status-${testInfo.project.name}.png` });
   await page.getByTestId('sync-status').click();
   await expect(page.getByTestId('sync-status-details')).toHaveCount(0);
   await expect(page).toHaveURL(new RegExp(`/screening/assessments/${second!.assessmentId}$`));
 
   // Signing out now would delete the waiting changes: the app says so and lets the tester stay.
-  await page.getByTestId('menu-button').click();
+  await openNav(page);
   await page.getByTestId('sign-out').click();
   await expect(page.getByTestId('sign-out-warning')).toContainText('not on the server yet');
-  await page.screenshot({ path: `${SHOTS}/sign-out-warning-phone.png` });
+  await page.screenshot({ path: `${SHOTS}/sign-out-warning-${testInfo.project.name}.png` });
   await page.getByTestId('sign-out-cancel').click();
-  await page.getByTestId('menu-button').click();
+  if (await page.getByTestId('menu-button').isVisible()) await page.getByTestId('menu-button').click();
   await expect(page).toHaveURL(new RegExp(`/screening/assessments/${second!.assessmentId}$`));
   await expect(page.getByTestId('step-title')).toHaveText('Body measurements');
 
   // Signal again: everything goes out in order and the status settles on "All saved".
   await context.setOffline(false);
   await page.waitForTimeout(150);
-  await page.screenshot({ path: `${SHOTS}/syncing-phone.png` });
+  await page.screenshot({ path: `${SHOTS}/syncing-${testInfo.project.name}.png` });
   await expect(page.getByTestId('sync-status-text')).toHaveText('All saved', { timeout: 60_000 });
   await expect(page.getByTestId('save-status')).toHaveText('✓ Saved');
 
@@ -191,11 +190,10 @@ test('a whole round screened with no connection syncs once, in order, without du
   expect(b.result).toBeNull();
   const after = (await (await page.request.get(`/api/rounds/${round.round.id}`)).json()) as RoundDetail;
   expect(after.athletes.filter((x) => x.status === 'submitted').map((x) => x.assessmentId)).toEqual([first!.assessmentId]);
-  await page.screenshot({ path: `${SHOTS}/all-saved-phone.png` });
+  await page.screenshot({ path: `${SHOTS}/all-saved-${testInfo.project.name}.png` });
 });
 
 test('the same draft edited on two phones, one of them offline, is merged when it comes back', async ({ browser, page }, testInfo) => {
-  test.skip(testInfo.project.name !== 'phone', phoneOnly);
   test.setTimeout(180_000);
   await signIn(page, 'tester@squadline.test');
   await expect(page.getByTestId('home-tester')).toBeVisible();
@@ -236,7 +234,7 @@ test('the same draft edited on two phones, one of them offline, is merged when i
   await expect(phone2.getByTestId('sync-status-text')).toHaveText('All saved');
   await expect(phone2.getByTestId('criterion-squat-left-knee-in')).toHaveAttribute('aria-checked', 'true');
   await expect(phone2.getByTestId('criterion-squat-right-knee-in')).toHaveAttribute('aria-checked', 'true');
-  await phone2.screenshot({ path: `${SHOTS}/merged-phone.png` });
+  await phone2.screenshot({ path: `${SHOTS}/merged-${testInfo.project.name}.png` });
   const server = await (await page.request.get(`/api/assessments/${athlete.assessmentId}`)).json();
   expect(server.draft.body).toMatchObject({ statureCm: 149, sittingHeightCm: 77, massKg: 44 });
   expect([...server.draft.tasks['two-leg-squat'].criteria].sort()).toEqual(['squat-left-knee-in', 'squat-right-knee-in']);

@@ -26,7 +26,7 @@ export function SignOutButton({ busy, onSignOut }: { busy: boolean; onSignOut():
           <Text>{`${what} not on the server yet. Signing out deletes ${waiting === 1 ? 'it' : 'them'} from this phone. Stay signed in and connect to send ${waiting === 1 ? 'it' : 'them'} first.`}</Text>
         </Notice>
         <Button label="Stay signed in" testID="sign-out-cancel" onPress={() => setAsking(false)} />
-        <Button tone="secondary" label={`Sign out and delete ${waiting === 1 ? 'it' : 'them'}`} testID="sign-out-confirm" busy={busy} onPress={signOut} />
+        <Button tone="secondary" label="Delete and sign out" testID="sign-out-confirm" busy={busy} onPress={signOut} />
       </View>
     );
   }
