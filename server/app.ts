@@ -13,6 +13,7 @@ import { devCorsMiddleware, sameOriginMiddleware, sessionMiddleware } from './au
 import { clubsRouter } from './clubs/clubs.router';
 import { errorMiddleware } from './http/error-middleware';
 import { notFound } from './http/errors';
+import { idempotencyMiddleware } from './http/idempotency';
 import type { Outbox } from './mail/outbox';
 import { meRouter } from './me/me.router';
 import { metaRouter, type Mailbox } from './meta/meta.router';
@@ -80,6 +81,7 @@ export function createApp(deps: AppDeps) {
   api.use('/auth', authRouter(authService, auth, config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS));
   // Everything below needs a signed-in user: deny by default.
   api.use(requireSignedIn);
+  api.use(idempotencyMiddleware(db));
   api.use(meRouter(db));
   api.use(clubsRouter(db, authService));
   api.use(athletesRouter(db));

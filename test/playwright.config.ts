@@ -19,6 +19,8 @@ export default defineConfig({
     browserName: 'chromium',
     launchOptions: { executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: chromiumArgs },
     trace: 'off',
+    // The offline worker would answer page loads from its cache; only the offline tests want it.
+    serviceWorkers: 'block',
     screenshot: 'only-on-failure',
   },
   projects: [

@@ -1,5 +1,7 @@
 import { Redirect, Slot } from 'expo-router';
 import { useMeQuery } from '@/features/auth/api/get-me';
+import { DeviceGate } from '@/features/offline/components/device-gate';
+import { ScreeningSync } from '@/features/screening/components/screening-sync';
 import { ActiveClubProvider } from '@/features/session/active-club';
 import { AppShell } from '@/features/shell/components/app-shell';
 import { FullScreenMessage } from '@/features/shell/components/full-screen-message';
@@ -14,9 +16,12 @@ export default function ClubLayout() {
   }
   return (
     <ActiveClubProvider me={me.data}>
-      <AppShell>
-        <Slot />
-      </AppShell>
+      <DeviceGate>
+        <ScreeningSync />
+        <AppShell>
+          <Slot />
+        </AppShell>
+      </DeviceGate>
     </ActiveClubProvider>
   );
 }

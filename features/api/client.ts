@@ -57,7 +57,8 @@ function toApiError(status: number, payload: ErrorPayload): ApiError {
 export async function api<T>(path: string, init: RequestInit & { json?: unknown } = {}): Promise<T> {
   const headers = new Headers(init.headers);
   headers.set('Accept', 'application/json');
-  if (clubId) headers.set('X-Club-Id', clubId);
+  // A change queued on this device carries the club it was made in.
+  if (clubId && !headers.has('X-Club-Id')) headers.set('X-Club-Id', clubId);
   let body = init.body;
   if (init.json !== undefined) {
     headers.set('Content-Type', 'application/json');
@@ -82,14 +83,16 @@ export async function api<T>(path: string, init: RequestInit & { json?: unknown 
 export function upload<T>(
   path: string,
   form: FormData,
-  options: { onProgress?: (fraction: number) => void; signal?: AbortSignal } = {},
+  options: { onProgress?: (fraction: number) => void; signal?: AbortSignal; headers?: Record<string, string> } = {},
 ): Promise<T> {
   return new Promise<T>((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open('POST', apiUrl(path));
     xhr.withCredentials = true;
     xhr.setRequestHeader('Accept', 'application/json');
-    if (clubId) xhr.setRequestHeader('X-Club-Id', clubId);
+    const extra = options.headers ?? {};
+    if (clubId && !('X-Club-Id' in extra)) xhr.setRequestHeader('X-Club-Id', clubId);
+    for (const [name, value] of Object.entries(extra)) xhr.setRequestHeader(name, value);
     xhr.upload.onprogress = (e) => {
       if (e.lengthComputable && e.total > 0) options.onProgress?.(e.loaded / e.total);
     };

@@ -217,6 +217,7 @@ export function ensureWebBuild() {
   run('npx', ['expo', 'export', '--platform', 'web', '--output-dir', path.relative(ROOT, dist)], {
     env: { ...process.env, CI: '1', TMPDIR: tmp, EXPO_NO_TELEMETRY: '1' },
   });
+  run(process.execPath, [path.join(ROOT, 'server', 'dev', 'service-worker.mjs'), dist]); // manifest, icons, offline worker
   precompressExport(dist);
   fs.writeFileSync(stamp, want);
 }

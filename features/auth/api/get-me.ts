@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api, ApiError } from '@/features/api/client';
 import type { RoleValue } from '@/features/auth/schemas';
+import { deviceBacked } from '@/features/offline/device-cache';
 import { authKeys } from './keys';
 
 export type Membership = { clubId: string; clubName: string; role: RoleValue };
@@ -18,7 +19,13 @@ export async function getMe(): Promise<Me | null> {
   }
 }
 
+/** Kept on the device (until sign-out) so the app opens with no connection for work kept there. */
 export const meQueryOptions = () =>
-  queryOptions({ queryKey: authKeys.me(), queryFn: getMe, staleTime: ME_STALE_MS, retry: 1 });
+  queryOptions({
+    queryKey: authKeys.me(),
+    queryFn: () => deviceBacked('auth.me', 'me', getMe, (me) => (me ? { roundId: null } : null)),
+    staleTime: ME_STALE_MS,
+    retry: 1,
+  });
 
 export const useMeQuery = () => useQuery(meQueryOptions());

@@ -1,19 +1,23 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/features/api/client';
+import { deviceBacked } from '@/features/offline/device-cache';
 import { useActiveClub } from '@/features/session/active-club';
 import type { AssessmentDetail } from '@/features/screening/contract';
-import { ASSESSMENT_STALE_MS, screeningKeys } from './keys';
+import { canScreen } from '@/features/screening/roles';
+import { ASSESSMENT_STALE_MS, assessmentKeptKey, screeningKeys } from './keys';
 
 export const getAssessment = (id: string) => api<AssessmentDetail>(`/assessments/${encodeURIComponent(id)}`);
 
-export const assessmentQueryOptions = (clubId: string, id: string) =>
+/** An open draft a tester works on is kept on the device under its round (see get-round.ts). */
+export const assessmentQueryOptions = (clubId: string, id: string, keep = false) =>
   queryOptions({
     queryKey: screeningKeys.assessment(clubId, id),
-    queryFn: () => getAssessment(id),
+    queryFn: () =>
+      deviceBacked(assessmentKeptKey(id), clubId, () => getAssessment(id), (d) => (keep ? { roundId: d.roundId } : null)),
     staleTime: ASSESSMENT_STALE_MS,
   });
 
 export function useAssessmentQuery(id: string) {
   const { membership } = useActiveClub();
-  return useQuery(assessmentQueryOptions(membership.clubId, id));
+  return useQuery(assessmentQueryOptions(membership.clubId, id, canScreen(membership.role)));
 }

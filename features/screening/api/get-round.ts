@@ -1,15 +1,25 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/features/api/client';
+import { deviceBacked } from '@/features/offline/device-cache';
 import { useActiveClub } from '@/features/session/active-club';
 import type { RoundDetail } from '@/features/screening/contract';
-import { ROUNDS_STALE_MS, screeningKeys } from './keys';
+import { canScreen } from '@/features/screening/roles';
+import { ROUNDS_STALE_MS, roundKeptKey, screeningKeys } from './keys';
 
 export const getRound = (id: string) => api<RoundDetail>(`/rounds/${encodeURIComponent(id)}`);
 
-export const roundQueryOptions = (clubId: string, id: string) =>
-  queryOptions({ queryKey: screeningKeys.round(clubId, id), queryFn: () => getRound(id), staleTime: ROUNDS_STALE_MS });
+/**
+ * A round a tester opens is kept on the device (with its athletes), so it opens again with no
+ * connection; `keep` is false for those who do not screen: nothing of theirs is kept.
+ */
+export const roundQueryOptions = (clubId: string, id: string, keep = false) =>
+  queryOptions({
+    queryKey: screeningKeys.round(clubId, id),
+    queryFn: () => deviceBacked(roundKeptKey(id), clubId, () => getRound(id), () => (keep ? { roundId: id } : null)),
+    staleTime: ROUNDS_STALE_MS,
+  });
 
 export function useRoundQuery(id: string) {
   const { membership } = useActiveClub();
-  return useQuery(roundQueryOptions(membership.clubId, id));
+  return useQuery(roundQueryOptions(membership.clubId, id, canScreen(membership.role)));
 }

@@ -13,3 +13,8 @@ export const ROUNDS_STALE_MS = 15 * 1000;
 /** An assessment's draft lives in the draft store once loaded; the query only seeds it. */
 export const ASSESSMENT_STALE_MS = 30 * 1000;
 export const ATHLETE_ASSESSMENTS_STALE_MS = 60 * 1000;
+
+/** Keys of the answers kept on the device for offline use (features/offline/device-cache). */
+export const ROUND_KEPT_PREFIX = 'screening.round.';
+export const roundKeptKey = (roundId: string) => `${ROUND_KEPT_PREFIX}${roundId}`;
+export const assessmentKeptKey = (assessmentId: string) => `screening.assessment.${assessmentId}`;

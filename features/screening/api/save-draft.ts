@@ -1,6 +1,14 @@
 import { api, ApiError } from '@/features/api/client';
 import type { AssessmentDraft } from '@/features/screening/contract';
 
+/** Headers of a change sent from the device's outbox: its idempotency key and its club. */
+export function sentFromDevice(options: { idempotencyKey?: string; clubId?: string }): Record<string, string> {
+  const headers: Record<string, string> = {};
+  if (options.idempotencyKey) headers['Idempotency-Key'] = options.idempotencyKey;
+  if (options.clubId) headers['X-Club-Id'] = options.clubId;
+  return headers;
+}
+
 export type ServerDraft = { draft: AssessmentDraft; draftVersion: number };
 
 /** PUT the whole draft, naming the version it was based on. Resolves with the new version. */
@@ -8,14 +16,14 @@ export async function saveDraft(
   id: string,
   draftVersion: number,
   draft: AssessmentDraft,
-  options: { keepalive?: boolean } = {},
+  options: { keepalive?: boolean; idempotencyKey?: string; clubId?: string } = {},
 ): Promise<{ draftVersion: number }> {
   const json = { draftVersion, draft };
   // keepalive lets a save finish while the page is hidden, but browsers cap its body at 64 KB.
   const keepalive = options.keepalive === true && JSON.stringify(json).length < 60_000;
   const res = await api<{ draftVersion?: number; assessment?: { draftVersion?: number } } | undefined>(
     `/assessments/${encodeURIComponent(id)}`,
-    { method: 'PUT', json, keepalive },
+    { method: 'PUT', json, keepalive, headers: sentFromDevice(options) },
   );
   const next = res?.draftVersion ?? res?.assessment?.draftVersion;
   // A server that answers without the version still accepted the save: the next version is ours + 1.

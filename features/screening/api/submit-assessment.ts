@@ -1,18 +1,16 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/features/api/client';
-import { useActiveClub } from '@/features/session/active-club';
+import { deviceSession, outbox } from '@/features/offline/device';
 import type { ResultView } from '@/features/screening/contract';
-import { screeningKeys } from './keys';
+import { sentFromDevice } from './save-draft';
 
-export const submitAssessment = (id: string) =>
-  api<ResultView>(`/assessments/${encodeURIComponent(id)}/submit`, { method: 'POST' });
+export const submitAssessment = (id: string, device: { idempotencyKey?: string; clubId?: string } = {}) =>
+  api<ResultView>(`/assessments/${encodeURIComponent(id)}/submit`, { method: 'POST', headers: sentFromDevice(device) });
 
-export function useSubmitAssessmentMutation(id: string) {
-  const qc = useQueryClient();
-  const { membership } = useActiveClub();
-  return useMutation({
-    mutationFn: () => submitAssessment(id),
-    // The round's counts, the athlete's history and the assessment itself all change.
-    onSuccess: () => qc.invalidateQueries({ queryKey: screeningKeys.club(membership.clubId) }),
-  });
+/**
+ * Queues the submit on the device, behind the draft and photos of the assessment: it goes out in order
+ * when there is a connection, with its idempotency key, so a retry never makes a second result.
+ */
+export async function queueSubmit(assessmentId: string) {
+  const { userId, clubId } = deviceSession();
+  return outbox.add({ kind: 'submit', assessmentId, userId, clubId });
 }

@@ -1,6 +1,7 @@
 import { upload } from '@/features/api/client';
 import type { PhotoView } from '@/features/screening/contract';
 import type { TaskId, View } from '@/features/screening/engine';
+import { sentFromDevice } from './save-draft';
 
 export type PhotoFile = { blob: Blob; name: string } | { uri: string; name: string; type: string };
 
@@ -9,6 +10,7 @@ export async function uploadPhoto(
   assessmentId: string,
   input: { taskId: TaskId; view: View; file: PhotoFile },
   onProgress?: (fraction: number) => void,
+  device: { idempotencyKey?: string; clubId?: string } = {},
 ): Promise<PhotoView> {
   const form = new FormData();
   form.append('task', input.taskId);
@@ -19,7 +21,7 @@ export async function uploadPhoto(
   const res = await upload<PhotoView | { photo: PhotoView }>(
     `/assessments/${encodeURIComponent(assessmentId)}/photos`,
     form,
-    { onProgress },
+    { onProgress, headers: sentFromDevice(device) },
   );
   return 'photo' in res ? res.photo : res;
 }

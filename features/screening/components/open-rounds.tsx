@@ -3,9 +3,9 @@ import { StyleSheet, View } from 'react-native';
 import { isOpenRound, isUntouchedRound, useClubRoundsQuery } from '@/features/screening/api/get-rounds';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
-import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { RoundsUnavailable } from './kept-rounds';
 import { RoundProgress } from './round-progress';
 import { formatDate } from '@/features/ui/format-date';
 
@@ -18,7 +18,7 @@ const SHOWN_PER_SQUAD = 2;
 export function OpenRounds() {
   const { bySquad, isPending, error } = useClubRoundsQuery();
   const { isTabletUp } = useBreakpoints();
-  if (error) return <Notice tone="error">{error.message}</Notice>;
+  if (error) return <RoundsUnavailable error={error} />;
   // Squads and rounds together: a squad card drawn before its rounds arrive would say "No open round"
   // and then grow, pushing everything below it.
   if (isPending) return <Text>Loading squads…</Text>;

@@ -1,8 +1,10 @@
 import { Link } from 'expo-router';
-import { useState } from 'react';
+import { useState, useSyncExternalStore } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useSetRoundClosedMutation } from '@/features/screening/api/close-round';
+import { outbox } from '@/features/offline/device';
 import { useRoundQuery } from '@/features/screening/api/get-round';
+import { useKeepRoundOnDevice } from '@/features/screening/hooks/use-keep-round';
 import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import type { RoundAthlete, RoundAthleteFlag } from '@/features/screening/contract';
@@ -85,13 +87,19 @@ export function RoundScreen({ id }: { id: string }) {
   const { isTabletUp } = useBreakpoints();
   const screensInClub = canScreen(useActiveClub().membership.role);
   usePageTitle(round.data ? round.data.round.name : 'Round');
+  useKeepRoundOnDevice(round.data);
+  // Submits made on this phone and not sent yet: the athlete is done here, the server has not heard.
+  const queue = useSyncExternalStore(outbox.subscribe, outbox.getState, outbox.getState);
+  const waitingSubmit = new Set(queue.entries.filter((e) => e.kind === 'submit').map((e) => e.assessmentId));
   if (round.isPending) return <Text>Loading the round…</Text>;
   if (round.error) return <Notice tone="error">{round.error.message}</Notice>;
   const { round: r, athletes } = round.data;
   const closed = r.closedAt !== null;
   // A closed round is read: every row opens the result.
   const screens = screensInClub && !closed;
-  const sorted = athletes.slice().sort(byName);
+  const sorted = athletes
+    .map((a) => (waitingSubmit.has(a.assessmentId) && a.status !== 'submitted' ? { ...a, status: 'submitted' as const, waiting: true } : { ...a, waiting: false }))
+    .sort(byName);
   const next = screens ? (sorted.find((a) => a.status === 'in_progress') ?? sorted.find((a) => a.status === 'not_started')) : undefined;
   return (
     <View style={styles.wrap}>
@@ -139,7 +147,7 @@ export function RoundScreen({ id }: { id: string }) {
           {sorted.map((a) => (
             <Link
               key={a.assessmentId}
-              href={assessmentHref(a, screens)}
+              href={assessmentHref(a.waiting ? { ...a, status: 'in_progress' } : a, screens)}
               style={[styles.row, isTabletUp && styles.rowGrid]}
               testID={`round-athlete-${a.athleteId}`}
               accessibilityLabel={`${a.firstName} ${a.lastName}, ${a.status.replace('_', ' ')}${a.photoConsent ? '' : ', no photo consent'}`}
@@ -150,7 +158,7 @@ export function RoundScreen({ id }: { id: string }) {
                     {a.firstName} {a.lastName}
                   </Text>
                   <View style={styles.tags}>
-                    <StatusTag status={a.status} />
+                    {a.waiting ? <PlainTag tone="info" label="Submitted on this phone · waiting to send" /> : <StatusTag status={a.status} />}
                     {!a.photoConsent ? <PlainTag label="No photo consent" /> : null}
                   </View>
                   {a.status === 'submitted' ? <AthleteFlags flags={a.flags} testID={`round-flags-${a.athleteId}`} /> : null}

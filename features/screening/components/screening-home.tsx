@@ -7,10 +7,10 @@ import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
-import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { OpenRoundForm } from './open-round-form';
+import { RoundsUnavailable } from './kept-rounds';
 import { RoundProgress } from './round-progress';
 import { PlainTag } from './status-tag';
 import { formatDate } from '@/features/ui/format-date';
@@ -34,7 +34,7 @@ export function ScreeningHome() {
       </Card>
     ) : null;
 
-  if (error) return <Notice tone="error">{error.message}</Notice>;
+  if (error) return <RoundsUnavailable error={error} withTitle />;
   return (
     <View style={styles.wrap}>
       <View style={styles.head}>

@@ -8,6 +8,11 @@ export type LocalCopy = {
   /** The tester's working draft, with edits the server has not confirmed yet. */
   draft: AssessmentDraft;
   savedAt: string;
+  /**
+   * The save on its way: exactly what was sent, on which version, under which idempotency key. A retry
+   * sends the same again, so a save that reached the server before the connection dropped is not redone.
+   */
+  inflight?: { key: string; baseVersion: number; draft: AssessmentDraft };
 };
 
 export interface LocalCopyStorage {
@@ -16,35 +21,8 @@ export interface LocalCopyStorage {
   remove(id: string): void;
 }
 
-const PREFIX = 'squadline.screening.draft.';
-
-/**
- * localStorage on the web target. Where there is none (native without a storage module, private mode
- * with storage blocked) it does nothing: drafts are then only as safe as the server saves.
- */
-export const browserLocalCopy: LocalCopyStorage = {
-  read(id) {
-    try {
-      const raw = globalThis.localStorage?.getItem(PREFIX + id);
-      if (!raw) return null;
-      const copy = JSON.parse(raw) as LocalCopy;
-      return typeof copy.baseVersion === 'number' && copy.draft && copy.base ? copy : null;
-    } catch {
-      return null;
-    }
-  },
-  write(id, copy) {
-    try {
-      globalThis.localStorage?.setItem(PREFIX + id, JSON.stringify(copy));
-    } catch {
-      // storage full or blocked: the server save still runs
-    }
-  },
-  remove(id) {
-    try {
-      globalThis.localStorage?.removeItem(PREFIX + id);
-    } catch {
-      // nothing to do
-    }
-  },
-};
+/** Keeps only well-formed copies (a copy from an older version of the app is ignored). */
+export function asLocalCopy(value: unknown): LocalCopy | null {
+  const copy = value as LocalCopy | null;
+  return copy && typeof copy.baseVersion === 'number' && copy.draft && copy.base ? copy : null;
+}

@@ -1,5 +1,5 @@
-import { uploadPhoto } from '@/features/screening/api/upload-photo';
+import { deviceSession, forgetPhoto, keepPhoto, outbox, photoUrl } from '@/features/offline/device';
 import { UploadQueue } from './upload-queue';
 
-/** The page's one upload queue: uploads continue while the tester moves between steps. */
-export const uploadQueue = new UploadQueue(uploadPhoto);
+/** The page's one view of the photos waiting on the device; uploads continue between steps and reloads. */
+export const uploadQueue = new UploadQueue({ outbox, keepPhoto, forgetPhoto, photoUrl, session: deviceSession });

@@ -4,6 +4,8 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import { useSignOutMutation } from '@/features/auth/api/sign-out';
 import { ROLE_LABELS } from '@/features/auth/schemas';
 import { useMetaQuery } from '@/features/meta/get-meta';
+import { SignOutButton } from '@/features/offline/components/sign-out-guard';
+import { SyncStatusPill } from '@/features/offline/components/sync-status-pill';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
@@ -19,6 +21,8 @@ export function AppShell({ children }: { children: ReactNode }) {
       <View style={styles.wideRoot}>
         <View style={styles.side} role="navigation">
           <Brand />
+          {/* Integration point with features/offline: the device's sync status on every screen. */}
+          <SyncStatusPill />
           <NavList onNavigate={() => undefined} />
           <View style={styles.grow} />
           <AccountBox />
@@ -33,6 +37,9 @@ export function AppShell({ children }: { children: ReactNode }) {
     <View style={styles.phoneRoot}>
       <View style={styles.topBar}>
         <Brand />
+        <View style={styles.topStatus}>
+          <SyncStatusPill align="right" />
+        </View>
         <Pressable
           accessibilityRole="button"
           accessibilityLabel={menuOpen ? 'Close menu' : 'Open menu'}
@@ -48,11 +55,10 @@ export function AppShell({ children }: { children: ReactNode }) {
           <NavList onNavigate={() => setMenuOpen(false)} />
           <AccountBox />
         </View>
-      ) : (
-        <View style={styles.main} role="main">
-          {children}
-        </View>
-      )}
+      ) : null}
+      {/* Hidden, not unmounted, under the menu: unmounting the screens resets the router to the home
+          route, and a tester who opened the menu mid-screening would lose their place. */}
+      <View style={[styles.main, menuOpen && styles.hidden]} role="main">{children}</View>
     </View>
   );
 }
@@ -104,24 +110,21 @@ function AccountBox() {
               <Button key={m.clubId} tone="quiet" label={`Switch to ${m.clubName}`} onPress={() => choose(m.clubId)} />
             ))
         : null}
-      <Button
-        tone="secondary"
-        label="Sign out"
-        testID="sign-out"
-        busy={signOut.isPending}
-        onPress={() => signOut.mutate(undefined, { onSettled: () => router.replace('/sign-in') })}
-      />
+      {/* Integration point with features/offline: warns when changes still wait on this phone. */}
+      <SignOutButton busy={signOut.isPending} onSignOut={() => signOut.mutate(undefined, { onSettled: () => router.replace('/sign-in') })} />
     </View>
   );
 }
 
 const styles = StyleSheet.create({
   wideRoot: { flex: 1, flexDirection: 'row', backgroundColor: colors.paper },
-  side: { width: 248, backgroundColor: colors.surface, borderRightWidth: 1, borderRightColor: colors.line, padding: space.lg, gap: space.xl },
+  side: { zIndex: 10, width: 248, backgroundColor: colors.surface, borderRightWidth: 1, borderRightColor: colors.line, padding: space.lg, gap: space.xl },
   grow: { flex: 1 },
   main: { flex: 1 },
+  hidden: { display: 'none' },
   phoneRoot: { flex: 1, backgroundColor: colors.paper },
   topBar: {
+    zIndex: 10,
     flexDirection: 'row',
     alignItems: 'center',
     justifyContent: 'space-between',
@@ -131,6 +134,7 @@ const styles = StyleSheet.create({
     borderBottomWidth: 1,
     borderBottomColor: colors.line,
   },
+  topStatus: { flex: 1, alignItems: 'flex-end', marginHorizontal: space.sm, zIndex: 20 },
   menuButton: { minHeight: TOUCH_MIN, minWidth: 72, alignItems: 'center', justifyContent: 'center', borderRadius: radius.md, borderWidth: 2, borderColor: colors.pine },
   menuText: { fontFamily: fonts.bold, color: colors.pine, fontSize: 17 },
   sheet: { padding: space.lg, gap: space.xl, flex: 1 },

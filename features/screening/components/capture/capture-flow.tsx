@@ -1,15 +1,19 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, Redirect, useRouter } from 'expo-router';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
 import { screeningKeys } from '@/features/screening/api/keys';
-import { useSubmitAssessmentMutation } from '@/features/screening/api/submit-assessment';
+import { connectivity, outbox } from '@/features/offline/device';
+import { queueSubmit } from '@/features/screening/api/submit-assessment';
+import { queueDraftSave } from '@/features/screening/draft/registry';
 import type { AssessmentDetail, LandmarkSet, PhotoView, TaskDraft } from '@/features/screening/contract';
 import { BATTERY, getTask } from '@/features/screening/engine/for-screens';
 import type { TaskId, View as PhotoSide } from '@/features/screening/engine';
 import { useAssessmentDraft } from '@/features/screening/hooks/use-assessment-draft';
 import { useUnfinishedUploads } from '@/features/screening/hooks/use-upload';
+import { slotOf } from '@/features/screening/photos/upload-queue';
+import { uploadQueue } from '@/features/screening/photos/upload-registry';
 import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import { usePageTitle } from '@/features/ui/page-title';
@@ -65,18 +69,19 @@ function Centered({ children }: { children: React.ReactNode }) {
 }
 
 function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState: ReturnType<typeof useAssessmentDraft> }) {
-  const { draft, status, update, flush, mergedFromServer } = draftState;
+  const { draft, status, update, flushSoon, mergedFromServer, online } = draftState;
   const { isTabletUp } = useBreakpoints();
   const router = useRouter();
   const qc = useQueryClient();
   const { membership } = useActiveClub();
-  const submit = useSubmitAssessmentMutation(detail.id);
+  const [submitting, setSubmitting] = useState(false);
   const scroll = useRef<ScrollView>(null);
   const [stepIndex, setStepIndex] = useState(() => Math.max(0, STEPS.indexOf(draft.step ?? 'body')));
   const [editing, setEditing] = useState<{ taskId: TaskId; view: PhotoSide } | null>(null);
   const [submitError, setSubmitError] = useState<string | null>(null);
   const photos = useMemo(() => photoIndex(detail.photos), [detail.photos]);
   const unfinishedUploads = useUnfinishedUploads(detail.id);
+  useSyncExternalStore(uploadQueue.subscribe, uploadQueue.getVersion, uploadQueue.getVersion);
   const step = STEPS[stepIndex] ?? 'body';
   const task = step !== 'body' && step !== 'review' ? getTask(step as TaskId) : null;
   const athleteName = `${detail.athlete.firstName} ${detail.athlete.lastName}`;
@@ -105,31 +110,66 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
     goTo(STEPS[stepIndex + 1] ?? 'review');
   };
 
-  const onUploaded = (photo: PhotoView) => {
-    qc.setQueryData<AssessmentDetail>(screeningKeys.assessment(membership.clubId, detail.id), (old) =>
-      old ? { ...old, photos: [...old.photos.filter((p) => !(p.taskId === photo.taskId && p.view === photo.view)), photo] } : old,
-    );
-    void qc.invalidateQueries({ queryKey: screeningKeys.assessment(membership.clubId, detail.id) });
-    // Points belong to the photo they were placed on: a new photo starts without them.
-    updateTask(photo.taskId, (t) => {
-      if (!t.landmarks?.[photo.view]) return t;
-      const { [photo.view]: _old, ...rest } = t.landmarks;
+  // Points belong to the photo they were placed on: a new photo starts without them.
+  const onNewPhoto = (taskId: TaskId, view: PhotoSide) =>
+    updateTask(taskId, (t) => {
+      if (!t.landmarks?.[view]) return t;
+      const { [view]: _old, ...rest } = t.landmarks;
       return { ...t, landmarks: rest };
     });
-  };
 
+  // The submit is queued behind the draft and the photos of this assessment (integration point with
+  // features/offline): online it goes out at once and the result opens; offline it waits on the phone.
   const onSubmit = async () => {
     setSubmitError(null);
+    setSubmitting(true);
     try {
-      await flush();
-      await submit.mutateAsync();
+      flushSoon();
+      await queueDraftSave(detail.id);
+      const entry = await queueSubmit(detail.id);
+      if (!online) {
+        router.replace(`/screening/rounds/${detail.roundId}`);
+        return;
+      }
+      // The connection may drop while it goes out: then it waits on the phone like an offline submit.
+      let unsubscribe: (() => void) | undefined;
+      const wentOffline = new Promise<'offline'>((resolve) => {
+        unsubscribe = connectivity.subscribe(() => {
+          if (!connectivity.isOnline()) resolve('offline');
+        });
+      });
+      const outcome = await Promise.race([outbox.whenDone(entry.seq).then(() => 'sent' as const), wentOffline]).finally(() => unsubscribe?.());
+      if (outcome === 'offline') {
+        router.replace(`/screening/rounds/${detail.roundId}`);
+        return;
+      }
+      void qc.invalidateQueries({ queryKey: screeningKeys.club(membership.clubId) });
       router.replace(`/screening/assessments/${detail.id}/result`);
     } catch (e) {
-      setSubmitError(e instanceof Error ? e.message : String(e));
+      setSubmitError(e instanceof Error ? e.message : typeof e === 'object' && e && 'message' in e ? String(e.message) : String(e));
+    } finally {
+      setSubmitting(false);
     }
   };
 
-  const photoFor = (taskId: TaskId, view: PhotoSide) => photos.get(`${taskId}:${view}`);
+  // A photo waiting on the phone (taken offline) stands in for the stored one: landmarks are placed on
+  // it in its own pixels, which the server keeps (it is already scaled to the stored size).
+  const photoFor = (taskId: TaskId, view: PhotoSide): PhotoView | undefined => {
+    const waiting = uploadQueue.get(detail.id, slotOf(taskId, view));
+    if (waiting && waiting.state !== 'failed' && waiting.previewUri) {
+      return {
+        id: `on-device-${waiting.seq}`,
+        taskId,
+        view,
+        width: waiting.width,
+        height: waiting.height,
+        url: waiting.previewUri,
+        thumbUrl: waiting.previewUri,
+        createdAt: new Date().toISOString(),
+      };
+    }
+    return photos.get(`${taskId}:${view}`);
+  };
   const title = editing
     ? `${getTask(editing.taskId).title}: ${editing.view} landmarks`
     : step === 'body'
@@ -203,13 +243,18 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
               onChange={(change) => updateTask(task.id, change)}
               detail={detail}
               photos={{ front: photoFor(task.id, 'front'), side: photoFor(task.id, 'side') }}
-              onUploaded={onUploaded}
+              onNewPhoto={(view) => onNewPhoto(task.id, view)}
               onPlaceLandmarks={(view) => setEditing({ taskId: task.id, view })}
             />
           ) : null}
           {unfinishedUploads > 0 && step === 'review' && !editing ? (
             <Notice tone="caution" title="A photo is not uploaded yet" testID="uploads-unfinished">
-              {`${unfinishedUploads === 1 ? 'One photo is' : `${unfinishedUploads} photos are`} still uploading or waiting for a retry. Submit once ${unfinishedUploads === 1 ? 'it is' : 'they are'} on the server, or discard ${unfinishedUploads === 1 ? 'it' : 'them'}.`}
+              {`${unfinishedUploads === 1 ? 'One photo is' : `${unfinishedUploads} photos are`} kept on this phone and not on the server yet. A submit waits for ${unfinishedUploads === 1 ? 'it' : 'them'}: they are sent first, in order.`}
+            </Notice>
+          ) : null}
+          {!online && step === 'review' && !editing ? (
+            <Notice title="No connection" testID="submit-offline">
+              Submitting now keeps the submit on this phone. It is sent after the draft and photos when the connection is back; the result appears then.
             </Notice>
           ) : null}
           {submitError && step === 'review' ? (
@@ -237,8 +282,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
                 <Button
                   label={detail.status === 'submitted' ? 'Submit again' : 'Submit'}
                   testID="submit-assessment"
-                  busy={submit.isPending}
-                  disabled={unfinishedUploads > 0}
+                  busy={submitting}
                   onPress={() => void onSubmit()}
                   style={[styles.barButton, styles.barPrimary]}
                 />

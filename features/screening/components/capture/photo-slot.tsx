@@ -20,7 +20,7 @@ type Props = {
   spec: ViewSpec;
   photo: PhotoView | undefined;
   placed: number;
-  onUploaded(photo: PhotoView): void;
+  onNewPhoto(): void;
   onPlaceLandmarks(): void;
   /** The previous slot of the task was just filled: this one opens its camera by itself (burst). */
   armed?: boolean;
@@ -41,7 +41,7 @@ function mayOpenByItself(): boolean {
 const VIEW_WORD = { front: 'Front', side: 'Side' } as const;
 
 /** One photo of a task: take or choose it, see it upload, retry, then place its landmarks. */
-export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploaded, onPlaceLandmarks, armed = false, onPicked }: Props) {
+export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onNewPhoto, onPlaceLandmarks, armed = false, onPicked }: Props) {
   const slot = slotOf(taskId, spec.view);
   const item = useUploadItem(assessmentId, slot);
   const [preparing, setPreparing] = useState(false);
@@ -58,8 +58,10 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploade
       setPreparing(true);
       onPicked?.();
       const scaled = await scalePhoto(picked);
+      // Kept on the phone (within its photo budget) and queued: it uploads now, or when the connection is back.
+      await uploadQueue.start({ assessmentId, taskId, view: spec.view, ...scaled });
       setPreparing(false);
-      void uploadQueue.start({ assessmentId, taskId, view: spec.view, ...scaled }, onUploaded);
+      onNewPhoto();
     } catch (e) {
       setPreparing(false);
       setPickError(e instanceof Error ? e.message : String(e));
@@ -90,10 +92,11 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploade
   }
 
   const uploading = item?.state === 'uploading';
+  const waiting = item?.state === 'waiting';
   const failed = item?.state === 'failed';
   // A lost connection or a server hiccup is worth retrying; a refused file (too large, not a photo) is not.
   const retryable = !!item?.error && (item.error.status === 0 || item.error.status === 408 || item.error.status === 429 || item.error.status >= 500);
-  const shown = item ? { uri: item.previewUri, w: item.width, h: item.height } : photo ? { uri: apiAssetUrl(photo.thumbUrl), w: photo.width, h: photo.height } : null;
+  const shown = item?.previewUri ? { uri: item.previewUri, w: item.width, h: item.height } : photo ? { uri: apiAssetUrl(photo.thumbUrl), w: photo.width, h: photo.height } : null;
 
   return (
     <View ref={root} style={[styles.slot, armed && empty && styles.slotArmed]} testID={testID}>
@@ -102,7 +105,7 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploade
       {shown ? (
         <Image
           source={{ uri: shown.uri }}
-          style={[styles.preview, { aspectRatio: shown.w / Math.max(shown.h, 1) }, (uploading || failed) && styles.previewPending]}
+          style={[styles.preview, { aspectRatio: shown.w / Math.max(shown.h, 1) }, (uploading || waiting || failed) && styles.previewPending]}
           resizeMode="contain"
           accessibilityLabel={`${title} of the task`}
         />
@@ -113,20 +116,28 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploade
           <ProgressBar fraction={item.progress} label="Upload progress" />
         </View>
       ) : null}
+      {waiting ? (
+        <View style={styles.progress} testID={`${testID}-waiting`}>
+          <Text variant="small">
+            {item.error ? 'Kept on this phone: the upload did not get through and is tried again shortly.' : 'Kept on this phone: uploads when there is a connection.'}
+          </Text>
+          <Button tone="quiet" label="Discard this photo" testID={`${testID}-discard`} onPress={() => uploadQueue.discard(assessmentId, slot)} />
+        </View>
+      ) : null}
       {failed && item.error ? (
         <View style={styles.actions}>
           <Notice tone="error" title={retryable ? 'The photo is not uploaded yet' : 'This photo was refused'} testID={`${testID}-upload-error`}>
             {retryable ? `${item.error.message} The photo is kept on this phone: try again.` : `${item.error.message} Take or choose another photo.`}
           </Notice>
           {retryable ? (
-            <Button label="Retry upload" testID={`${testID}-retry`} onPress={() => uploadQueue.retry(assessmentId, slot, onUploaded)} />
+            <Button label="Retry upload" testID={`${testID}-retry`} onPress={() => uploadQueue.retry(assessmentId, slot)} />
           ) : null}
           <Button tone={retryable ? 'quiet' : 'secondary'} label="Discard this photo" testID={`${testID}-discard`} onPress={() => uploadQueue.discard(assessmentId, slot)} />
         </View>
       ) : null}
       {preparing ? <Text variant="small">Preparing the photo…</Text> : null}
       {pickError ? <Notice tone="error">{pickError}</Notice> : null}
-      {photo && !item ? (
+      {photo && (!item || (waiting && item.previewUri)) ? (
         <View style={styles.actions}>
           <Text variant="small" testID={`${testID}-placed`}>
             {placed === 0
@@ -144,8 +155,8 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploade
       {!uploading && !failed ? (
         <View style={styles.pickRow}>
           <Button
-            tone={photo ? 'secondary' : 'primary'}
-            label={photo ? 'Retake' : 'Take photo'}
+            tone={photo || item ? 'secondary' : 'primary'}
+            label={photo || item ? 'Retake' : 'Take photo'}
             testID={`${testID}-camera`}
             disabled={preparing}
             onPress={() => void choose('camera')}
@@ -153,7 +164,7 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onUploade
           />
           <Button
             tone="secondary"
-            label={photo ? 'Choose another' : 'Choose photo'}
+            label={photo || item ? 'Choose another' : 'Choose photo'}
             testID={`${testID}-library`}
             disabled={preparing}
             onPress={() => void choose('library')}

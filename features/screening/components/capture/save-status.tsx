@@ -10,6 +10,8 @@ export function saveStatusText(status: SaveStatus): string {
     case 'pending':
     case 'saving':
       return 'Saving…';
+    case 'kept':
+      return 'Kept on this phone';
     case 'retrying':
       return 'Not saved — retrying';
     case 'refused':

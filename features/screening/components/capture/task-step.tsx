@@ -19,7 +19,8 @@ type Props = {
   onChange(change: (t: TaskDraft) => TaskDraft): void;
   detail: AssessmentDetail;
   photos: Partial<Record<PhotoSide, PhotoView>>;
-  onUploaded(photo: PhotoView): void;
+  /** A new photo was taken for a view: the points placed on the old one no longer apply. */
+  onNewPhoto(view: PhotoSide): void;
   onPlaceLandmarks(view: PhotoSide): void;
 };
 
@@ -33,7 +34,7 @@ function distanceError(n: number | null): string | null {
 }
 
 /** One task of the battery: safety first, what to watch, tick what was seen, photos, distance, pain, notes. */
-export function TaskStep({ task, value, onChange, detail, photos, onUploaded, onPlaceLandmarks }: Props) {
+export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, onPlaceLandmarks }: Props) {
   const { isWide } = useBreakpoints();
   const [showHow, setShowHow] = useState(false);
   // Burst: once a photo is picked, the task's next slot without a photo opens by itself.
@@ -64,7 +65,7 @@ export function TaskStep({ task, value, onChange, detail, photos, onUploaded, on
             spec={v}
             photo={photos[v.view]}
             placed={Object.values(t.landmarks?.[v.view] ?? {}).filter(Boolean).length}
-            onUploaded={onUploaded}
+            onNewPhoto={() => onNewPhoto(v.view)}
             onPlaceLandmarks={() => onPlaceLandmarks(v.view)}
             armed={armed === v.view}
             onPicked={() => armAfter(v.view)}

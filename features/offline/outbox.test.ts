@@ -1,0 +1,208 @@
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { Outbox, RETRY_DELAYS_MS, type OutboxEntry, type OutboxStorage } from './outbox';
+
+function memoryStorage(initial: OutboxEntry[] = []): OutboxStorage & { rows: Map<number, OutboxEntry> } {
+  const rows = new Map<number, OutboxEntry>(initial.map((e) => [e.seq, e]));
+  let seq = Math.max(0, ...initial.map((e) => e.seq));
+  return {
+    rows,
+    all: async () => [...rows.values()].map((e) => structuredClone(e)),
+    add: async (e) => {
+      seq += 1;
+      const stored = { ...e, seq };
+      rows.set(seq, structuredClone(stored));
+      return stored;
+    },
+    put: async (e) => void rows.set(e.seq, structuredClone(e)),
+    remove: async (s) => void rows.delete(s),
+  };
+}
+
+const fail = (status: number, code = 'x') => Object.assign(new Error(`HTTP ${status}`), { status, code });
+const base = { clubId: 'c1', userId: 'u1' };
+
+function setup(opts: { online?: () => boolean; send?: (e: OutboxEntry) => Promise<void>; storage?: ReturnType<typeof memoryStorage> } = {}) {
+  const storage = opts.storage ?? memoryStorage();
+  const sent: { seq: number; kind: string; assessmentId: string; key: string }[] = [];
+  let n = 0;
+  const send = vi.fn(
+    opts.send ??
+      (async (e: OutboxEntry) => {
+        sent.push({ seq: e.seq, kind: e.kind, assessmentId: e.assessmentId, key: e.key });
+      }),
+  );
+  const outbox = new Outbox({ storage, send, isOnline: opts.online ?? (() => true), newKey: () => `key-${++n}` });
+  outbox.setUser('u1');
+  return { outbox, storage, send, sent };
+}
+
+async function settle() {
+  for (let i = 0; i < 20; i += 1) await Promise.resolve();
+}
+
+describe('Outbox', () => {
+  beforeEach(() => vi.useFakeTimers());
+  afterEach(() => vi.useRealTimers());
+
+  it('sends changes oldest first, one at a time, each with its own idempotency key', async () => {
+    let online = false;
+    const { outbox, sent } = setup({ online: () => online });
+    await outbox.addDraft({ ...base, assessmentId: 'a1' });
+    await outbox.add({ ...base, kind: 'photo', assessmentId: 'a1' });
+    await outbox.add({ ...base, kind: 'submit', assessmentId: 'a1' });
+    await outbox.addDraft({ ...base, assessmentId: 'a2' });
+    expect(sent).toEqual([]);
+    online = true;
+    outbox.kick();
+    await vi.runAllTimersAsync();
+    expect(sent.map((s) => `${s.kind}:${s.assessmentId}`)).toEqual(['draft:a1', 'photo:a1', 'submit:a1', 'draft:a2']);
+    expect(new Set(sent.map((s) => s.key)).size).toBe(4);
+    expect(outbox.getState().entries).toEqual([]);
+  });
+
+  it('one draft entry carries every edit: a second save request joins the waiting one', async () => {
+    const { outbox, storage } = setup({ online: () => false });
+    const a = await outbox.addDraft({ ...base, assessmentId: 'a1' });
+    const b = await outbox.addDraft({ ...base, assessmentId: 'a1' });
+    expect(b.seq).toBe(a.seq);
+    // ...but not across a submit: the edits after it need their own save.
+    await outbox.add({ ...base, kind: 'submit', assessmentId: 'a1' });
+    const c = await outbox.addDraft({ ...base, assessmentId: 'a1' });
+    expect(c.seq).not.toBe(a.seq);
+    expect(storage.rows.size).toBe(3);
+  });
+
+  it('retries a lost connection with back-off, keeping the same key, and never skips ahead', async () => {
+    let calls = 0;
+    const keys: string[] = [];
+    const order: string[] = [];
+    const { outbox } = setup({
+      send: async (e) => {
+        calls += 1;
+        keys.push(e.key);
+        order.push(e.kind);
+        if (calls <= 2) throw fail(0, 'offline');
+      },
+    });
+    await outbox.add({ ...base, kind: 'photo', assessmentId: 'a1' });
+    await outbox.add({ ...base, kind: 'submit', assessmentId: 'a1' });
+    await settle();
+    expect(order).toEqual(['photo']);
+    expect(outbox.getState().lastError).toMatchObject({ status: 0 });
+    await vi.advanceTimersByTimeAsync(RETRY_DELAYS_MS[0] - 1);
+    expect(calls).toBe(1);
+    await vi.advanceTimersByTimeAsync(1);
+    expect(calls).toBe(2);
+    await vi.advanceTimersByTimeAsync(RETRY_DELAYS_MS[1]);
+    expect(order).toEqual(['photo', 'photo', 'photo', 'submit']);
+    expect(keys[0]).toBe(keys[1]);
+    expect(keys[1]).toBe(keys[2]);
+    expect(outbox.getState().entries).toEqual([]);
+  });
+
+  it.each([
+    [0, true],
+    [401, true],
+    [408, true],
+    [429, true],
+    [500, true],
+    [503, true],
+    [400, false],
+    [403, false],
+    [404, false],
+    [413, false],
+  ])('an answer of %i is retried: %s', async (status, retried) => {
+    let calls = 0;
+    const { outbox } = setup({
+      send: async () => {
+        calls += 1;
+        if (calls === 1) throw fail(status);
+      },
+    });
+    await outbox.add({ ...base, kind: 'photo', assessmentId: 'a1' });
+    await vi.advanceTimersByTimeAsync(RETRY_DELAYS_MS[0]);
+    expect(calls).toBe(retried ? 2 : 1);
+    expect(outbox.getState().entries.map((e) => e.state)).toEqual(retried ? [] : ['refused']);
+  });
+
+  it('a refused draft holds back the submit of the same assessment, not the others', async () => {
+    const { outbox, sent } = setup({
+      send: async (e) => {
+        if (e.kind === 'draft' && e.assessmentId === 'a1') throw fail(400, 'invalid_input');
+        sent.push({ seq: e.seq, kind: e.kind, assessmentId: e.assessmentId, key: e.key });
+      },
+    });
+    await outbox.addDraft({ ...base, assessmentId: 'a1' });
+    await outbox.add({ ...base, kind: 'submit', assessmentId: 'a1' });
+    await outbox.add({ ...base, kind: 'submit', assessmentId: 'a2' });
+    await vi.runAllTimersAsync();
+    expect(sent.map((s) => `${s.kind}:${s.assessmentId}`)).toEqual(['submit:a2']);
+    expect(outbox.getState().entries.map((e) => `${e.kind}:${e.state}`)).toEqual(['draft:refused', 'submit:waiting']);
+  });
+
+  it('a refused photo does not hold back the submit, and can be sent again with a new key', async () => {
+    let refuse = true;
+    const { outbox, sent } = setup({
+      send: async (e) => {
+        if (e.kind === 'photo' && refuse) throw fail(413, 'too_large');
+        sent.push({ seq: e.seq, kind: e.kind, assessmentId: e.assessmentId, key: e.key });
+      },
+    });
+    const photo = await outbox.add({ ...base, kind: 'photo', assessmentId: 'a1' });
+    await outbox.add({ ...base, kind: 'submit', assessmentId: 'a1' });
+    await vi.runAllTimersAsync();
+    expect(sent.map((s) => s.kind)).toEqual(['submit']);
+    refuse = false;
+    await outbox.sendAgain(photo.seq);
+    await vi.runAllTimersAsync();
+    expect(sent.map((s) => s.kind)).toEqual(['submit', 'photo']);
+    expect(sent[1]!.key).not.toBe(photo.key);
+  });
+
+  it('survives a reload: the queue is read back from the device, attempts and keys included', async () => {
+    const storage = memoryStorage();
+    const first = setup({ storage, send: async () => Promise.reject(fail(0)) });
+    await first.outbox.add({ ...base, kind: 'photo', assessmentId: 'a1' });
+    await first.outbox.add({ ...base, kind: 'submit', assessmentId: 'a1' });
+    await settle();
+    const [photo] = [...storage.rows.values()];
+    expect(photo).toMatchObject({ attempts: 1, key: 'key-1' });
+    first.outbox.reset();
+
+    const second = setup({ storage });
+    await second.outbox.load();
+    second.outbox.kick();
+    await vi.runAllTimersAsync();
+    expect(second.sent.map((s) => `${s.kind}:${s.key}`)).toEqual(['photo:key-1', 'submit:key-2']);
+    expect(storage.rows.size).toBe(0);
+  });
+
+  it("sends only the signed-in person's changes", async () => {
+    const { outbox, sent } = setup();
+    outbox.setUser('someone-else');
+    await outbox.add({ ...base, kind: 'submit', assessmentId: 'a1' });
+    await vi.runAllTimersAsync();
+    expect(sent).toEqual([]);
+    outbox.setUser('u1');
+    await vi.runAllTimersAsync();
+    expect(sent).toHaveLength(1);
+  });
+
+  it('whenDone resolves when the entry is on the server and rejects when it is refused', async () => {
+    const { outbox } = setup({
+      send: async (e) => {
+        if (e.kind === 'photo') throw fail(415, 'not_a_photo');
+      },
+    });
+    const submit = await outbox.add({ ...base, kind: 'submit', assessmentId: 'a2' });
+    const photo = await outbox.add({ ...base, kind: 'photo', assessmentId: 'a1' });
+    const done = outbox.whenDone(submit.seq);
+    const refused = outbox.whenDone(photo.seq).then(
+      () => 'sent',
+      (e: unknown) => e,
+    );
+    await vi.runAllTimersAsync();
+    await expect(done).resolves.toBeUndefined();
+    expect(await refused).toMatchObject({ status: 415 });
+  });
+});

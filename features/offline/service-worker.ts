@@ -1,0 +1,2 @@
+/** Native apps have no service worker: nothing to register. */
+export function registerServiceWorker(): void {}

@@ -1,0 +1,22 @@
+import { describe, expect, it } from 'vitest';
+import type { OutboxEntry, OutboxState } from './outbox';
+import { syncStatusOf, syncStatusText } from './sync-status';
+
+const entry = (seq: number, state: OutboxEntry['state'] = 'waiting'): OutboxEntry => ({
+  seq, key: `k${seq}`, kind: 'draft', assessmentId: 'a', clubId: 'c', userId: 'u', createdAt: '', attempts: 0, state,
+});
+const st = (entries: OutboxEntry[], sending: number | null = null, lastError: OutboxState['lastError'] = null): OutboxState => ({ entries, sending, lastError });
+
+describe('sync status', () => {
+  it.each([
+    [true, st([]), 'All saved'],
+    [false, st([]), 'Offline'],
+    [false, st([entry(1), entry(2), entry(3)]), 'Offline · 3 waiting'],
+    [false, st([entry(1)]), 'Offline · 1 waiting'],
+    [true, st([entry(1), entry(2)], 1), 'Syncing · 2 left'],
+    [true, st([entry(1)], null, { status: 0, code: 'offline', message: 'x' }), 'Retrying · 1 waiting'],
+    [true, st([entry(1, 'refused'), entry(2)]), '1 refused'],
+  ])('online %s with %j reads "%s"', (online, state, text) => {
+    expect(syncStatusText(syncStatusOf(online, state))).toBe(text);
+  });
+});

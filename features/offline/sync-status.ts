@@ -1,0 +1,57 @@
+// The one status shown on every screen: is this device online, and is everything on the server? Pure.
+import type { OutboxState } from './outbox';
+
+export type SyncStatus =
+  | { kind: 'saved' }
+  | { kind: 'offline'; waiting: number }
+  | { kind: 'syncing'; waiting: number }
+  | { kind: 'online'; waiting: number; retrying: boolean }
+  | { kind: 'attention'; refused: number; waiting: number };
+
+export function syncStatusOf(online: boolean, outbox: OutboxState): SyncStatus {
+  const refused = outbox.entries.filter((e) => e.state === 'refused').length;
+  const waiting = outbox.entries.length - refused;
+  if (!online) return { kind: 'offline', waiting: outbox.entries.length };
+  if (refused > 0) return { kind: 'attention', refused, waiting };
+  if (outbox.sending !== null) return { kind: 'syncing', waiting };
+  if (waiting > 0) return { kind: 'online', waiting, retrying: outbox.lastError !== null };
+  return { kind: 'saved' };
+}
+
+const changes = (n: number) => (n === 1 ? '1 change' : `${n} changes`);
+
+/** Short words for the status pill (it shares a phone's top bar with the menu). */
+export function syncStatusText(s: SyncStatus): string {
+  switch (s.kind) {
+    case 'saved':
+      return 'All saved';
+    case 'offline':
+      return s.waiting === 0 ? 'Offline' : `Offline · ${s.waiting} waiting`;
+    case 'syncing':
+      return `Syncing · ${s.waiting} left`;
+    case 'online':
+      return s.retrying ? `Retrying · ${s.waiting} waiting` : `Online · ${s.waiting} waiting`;
+    case 'attention':
+      return `${s.refused} refused`;
+  }
+}
+
+/** The sentence under the pill when it is opened. */
+export function syncStatusDetail(s: SyncStatus): string {
+  switch (s.kind) {
+    case 'saved':
+      return 'The server has everything done on this phone.';
+    case 'offline':
+      return s.waiting === 0
+        ? 'No connection. You can keep screening: changes are kept on this phone and sent when the connection is back.'
+        : `No connection. ${changes(s.waiting)} ${s.waiting === 1 ? 'is' : 'are'} kept on this phone and will be sent in order when the connection is back.`;
+    case 'syncing':
+      return 'Sending what was done on this phone, oldest first.';
+    case 'online':
+      return s.retrying
+        ? 'The last try did not get through. Trying again shortly.'
+        : 'Waiting to send.';
+    case 'attention':
+      return 'The server refused some changes. They are kept on this phone: open them to see why.';
+  }
+}
