@@ -3,11 +3,11 @@ import { navFor } from './nav';
 
 describe('navFor', () => {
   it.each([
-    ['admin', true, ['/', '/athletes', '/screening', '/people', '/dev/mailbox']],
-    ['admin', false, ['/', '/athletes', '/screening', '/people']],
-    ['head_coach', true, ['/', '/athletes', '/screening', '/people']],
+    ['admin', true, ['/', '/athletes', '/screening', '/people', '/audit', '/dev/mailbox']],
+    ['admin', false, ['/', '/athletes', '/screening', '/people', '/audit']],
+    ['head_coach', true, ['/', '/athletes', '/screening', '/reviews', '/people']],
     ['tester', true, ['/', '/athletes', '/screening']],
-    ['physio', true, ['/', '/athletes', '/screening']],
+    ['physio', true, ['/', '/athletes', '/screening', '/reviews']],
     ['parent', true, ['/']],
   ] as const)('%s (mailbox %s)', (role, mailbox, hrefs) => {
     expect(navFor(role, { mailbox }).map((i) => i.href)).toEqual(hrefs);

@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import type { RoleValue } from '@/features/auth/schemas';
 
 export type NavItem = { href: string; label: string };
@@ -7,7 +8,9 @@ export function navFor(role: RoleValue, options: { mailbox: boolean }): NavItem[
   const items: NavItem[] = [{ href: '/', label: 'Home' }];
   if (role !== 'parent') items.push({ href: '/athletes', label: 'Athletes' });
   if (role !== 'parent') items.push({ href: '/screening', label: 'Screening' });
+  if (can(role, 'review.read')) items.push({ href: '/reviews', label: 'Reviews' });
   if (role === 'admin' || role === 'head_coach') items.push({ href: '/people', label: 'People' });
+  if (can(role, 'audit.read')) items.push({ href: '/audit', label: 'Audit trail' });
   if (role === 'admin' && options.mailbox) items.push({ href: '/dev/mailbox', label: 'Mailbox (local)' });
   return items;
 }

@@ -1,6 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
 import { AthleteProfile } from '@/features/athletes/components/athlete-profile';
 import { AthleteRecords } from '@/features/athletes/components/athlete-records';
+import { AthleteCare } from '@/features/care/components/athlete-care';
 import { AthleteAssessments } from '@/features/screening/components/athlete-assessments';
 import { Page } from '@/features/ui/components/page';
 
@@ -11,6 +12,7 @@ export default function AthleteScreen() {
     <Page>
       <AthleteProfile id={athleteId} />
       <AthleteRecords id={athleteId} />
+      <AthleteCare athleteId={athleteId} />
       <AthleteAssessments athleteId={athleteId} />
     </Page>
   );

@@ -1,3 +1,4 @@
+import { AthleteClearanceBadge } from '@/features/care/components/clearance-badge';
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { useRoundQuery } from '@/features/screening/api/get-round';
@@ -82,6 +83,7 @@ export function RoundScreen({ id }: { id: string }) {
                       <PlainTag tone="info" label={a.flagCount === 0 ? 'No flags' : `${a.flagCount} ${a.flagCount === 1 ? 'flag' : 'flags'}`} />
                     ) : null}
                     {!a.photoConsent ? <PlainTag label="No photo consent" /> : null}
+                    <AthleteClearanceBadge athleteId={a.athleteId} />
                   </View>
                 </View>
                 <Text style={styles.chevron}>›</Text>
