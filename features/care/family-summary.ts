@@ -84,7 +84,7 @@ export function buildFamilySummary(input: {
     seen,
     exercises,
     onHold,
-    howOften: exercises.length === 0 ? 'No exercises for now.' : `Up to ${perWeekText(maxPerWeek)}; each exercise says how often.`,
+    howOften: exercises.length === 0 ? `Nothing extra to work on for now: ${firstName} keeps training as usual.` : `Up to ${perWeekText(maxPerWeek)}; each exercise says how often.`,
     recheckDate: result.plan.rescreenDate,
     contact: input.contactName
       ? `Questions? Speak to ${input.contactName} or the coaches at ${input.clubName}.`
