@@ -2,7 +2,18 @@ import type { RequestHandler } from 'express';
 import type { Db } from '@/db/client';
 import type { AuditSubject } from '@/features/care/schemas';
 import type { Locals } from '@/server/access/guard';
+import { eq } from 'drizzle-orm';
+import { assessments, athletes } from '@/db/schema';
 import { recordAudit } from './audit.repo';
+
+async function assessmentHome(db: Db, id: string) {
+  const [row] = await db.select({ clubId: assessments.clubId, athleteId: assessments.athleteId }).from(assessments).where(eq(assessments.id, id));
+  return row ?? null;
+}
+async function athleteHome(db: Db, id: string) {
+  const [row] = await db.select({ clubId: athletes.clubId, athleteId: athletes.id }).from(athletes).where(eq(athletes.id, id));
+  return row ?? null;
+}
 
 type Rule = { method: string; pattern: RegExp; subject: AuditSubject; action: string };
 
@@ -33,18 +44,15 @@ export function auditTrailMiddleware(db: Db): RequestHandler {
     if (!rule) return next();
     const id = rule.pattern.exec(req.path)![1]!;
     res.on('finish', () => {
+      if (res.statusCode >= 300 || !req.user) return;
+      const actorId = req.user.id;
       const scope = (res.locals as Partial<Locals>).scope;
-      const home = (res.locals as Partial<Locals>).home;
-      if (res.statusCode >= 300 || !scope) return;
-      const athleteId = rule.subject === 'assessment' ? (home?.athleteId ?? null) : id;
-      recordAudit(db, {
-        clubId: scope.clubId,
-        actorId: scope.userId,
-        action: rule.action,
-        subjectKind: rule.subject,
-        subjectId: id,
-        athleteId,
-      }).catch((err: unknown) => req.log?.error({ err }, 'audit record failed'));
+      void (async () => {
+        // Routes not yet on guard() leave no scope: the record's own club is looked up instead.
+        const home = rule.subject === 'assessment' ? await assessmentHome(db, id) : await athleteHome(db, id);
+        if (!home) return;
+        await recordAudit(db, { clubId: scope?.clubId ?? home.clubId, actorId, action: rule.action, subjectKind: rule.subject, subjectId: id, athleteId: home.athleteId });
+      })().catch((err: unknown) => req.log?.error({ err }, 'audit record failed'));
     });
     next();
   };

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import type { Db } from '@/db/client';
 import type { Outbox } from '@/server/mail/outbox';
 import type { PhotoStorage } from '@/server/storage/storage';
+import { auditTrailMiddleware } from './audit-middleware';
 import { auditRouter } from './audit.router';
 import { clearanceRouter } from './clearance.router';
 import { notesRouter } from './notes.router';
@@ -16,6 +17,8 @@ import { summaryRouter } from './summary.router';
  */
 export function careRouter(deps: { db: Db; storage: PhotoStorage; outbox: Outbox; publicUrl: string }) {
   const router = Router();
+  // Views and changes of athletes, assessments and consents made through other capabilities' routes.
+  router.use(auditTrailMiddleware(deps.db));
   router.use(reviewsRouter(deps.db));
   router.use(notesRouter(deps.db));
   router.use(clearanceRouter(deps.db));
