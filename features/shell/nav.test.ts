@@ -3,8 +3,8 @@ import { navFor } from './nav';
 
 describe('navFor', () => {
   it.each([
-    ['admin', true, ['/', '/athletes', '/screening', '/people', '/audit', '/dev/mailbox']],
-    ['admin', false, ['/', '/athletes', '/screening', '/people', '/audit']],
+    ['admin', true, ['/', '/athletes', '/screening', '/people', '/audit', '/care-settings', '/dev/mailbox']],
+    ['admin', false, ['/', '/athletes', '/screening', '/people', '/audit', '/care-settings']],
     ['head_coach', true, ['/', '/athletes', '/screening', '/reviews', '/people']],
     ['tester', true, ['/', '/athletes', '/screening']],
     ['physio', true, ['/', '/athletes', '/screening', '/reviews']],
