@@ -10,15 +10,20 @@ import { releaseSummary } from '@/server/care/summary.service';
 import type { Outbox } from '@/server/mail/outbox';
 import type { DemoIds } from './demo';
 
-// Seeded summaries are history: nothing is e-mailed for them.
+// Seeded summaries are history: nothing is e-mailed for them (and no e-mail is rendered or recorded).
 const silentOutbox: Outbox = { enqueue: async () => undefined, stop: async () => undefined };
 
 /**
- * The care team's demo: earlier rounds reviewed and released (the Okafor children's newest screens
- * too, so the demo parent has a current summary and earlier ones), the newest round waiting for the
- * physiotherapist, a few clearances and notes.
+ * The care team's demo: the Okafor children's screens reviewed and released (a current summary and
+ * earlier ones for the demo parent), everyone else's newest screen waiting for the physiotherapist,
+ * a few clearances and notes.
  */
 export async function seedDemoCare(db: Db, ids: Pick<DemoIds, 'clubId' | 'athleteIds'>, publicUrl = 'http://127.0.0.1:8080') {
+  // One transaction: one commit instead of one per release keeps the demo quick to load.
+  await db.transaction(async (tx) => seedIn(tx as unknown as Db, ids, publicUrl));
+}
+
+async function seedIn(db: Db, ids: Pick<DemoIds, 'clubId' | 'athleteIds'>, publicUrl: string) {
   const [physio] = await db.select({ id: users.id }).from(users).where(eq(users.email, 'physio@squadline.test'));
   const scope: ClubScope = { userId: physio!.id, clubId: ids.clubId, role: 'physio', athleteIds: null };
   const screens = await db
@@ -28,16 +33,13 @@ export async function seedDemoCare(db: Db, ids: Pick<DemoIds, 'clubId' | 'athlet
     .innerJoin(athletes, eq(athletes.id, assessments.athleteId))
     .where(and(eq(assessments.clubId, ids.clubId), eq(assessments.status, 'submitted')))
     .orderBy(asc(rounds.screenedOn));
-  const newestBySquad = new Map<string, string>();
-  for (const s of screens) if (s.squadId && (newestBySquad.get(s.squadId) ?? '') < s.screenedOn) newestBySquad.set(s.squadId, s.screenedOn);
-
-  for (const s of screens) {
-    const newest = newestBySquad.get(s.squadId) === s.screenedOn;
-    if (newest && s.lastName !== 'Okafor') continue; // the physiotherapist's to-do list
+  // The Okafor children's screens, oldest first: the newest is their current summary, the others earlier
+  // ones. Everyone else's newest screen waits in the physiotherapist's list (older ones are superseded).
+  for (const s of screens.filter((x) => x.lastName === 'Okafor')) {
     await reviewsRepo(db, scope).markReviewed(s.id, (await reviewsRepo(db, scope).state(s.id))!.resultId);
     const at = new Date(`${s.screenedOn}T18:00:00Z`);
     at.setUTCDate(at.getUTCDate() + 3);
-    await releaseSummary({ db, outbox: silentOutbox, publicUrl }, scope, s.id, { releasedBy: physio!.id, at });
+    await releaseSummary({ db, outbox: silentOutbox, publicUrl }, scope, s.id, { releasedBy: physio!.id, at, notify: false });
   }
 
   const okafor = await db

@@ -8,7 +8,10 @@ export function reviewsRepo(db: Executor, scope: ClubScope) {
   const reviewedAt = sql<Date | null>`(select max(${assessmentReviews.createdAt}) from ${assessmentReviews} where ${assessmentReviews.resultId} = ${assessmentResults.id})`;
   const releasedAt = sql<Date | null>`(select max(${summaryReleases.createdAt}) from ${summaryReleases} where ${summaryReleases.resultId} = ${assessmentResults.id})`;
   return {
-    /** Every submitted screen whose current result is not yet released (reviewed or not), of athletes still on the roster. */
+    /**
+     * Each athlete's newest submitted screen whose current result is not yet released (reviewed or not),
+     * of athletes still on the roster. An older screen superseded by a newer one leaves the list.
+     */
     async openScreens() {
       const rows = await db
         .select({
@@ -34,7 +37,12 @@ export function reviewsRepo(db: Executor, scope: ClubScope) {
         .innerJoin(assessmentResults, and(eq(assessmentResults.assessmentId, assessments.id), eq(assessmentResults.isCurrent, true)))
         .where(and(eq(assessments.clubId, scope.clubId), eq(assessments.status, 'submitted'), isNull(athletes.archivedAt)))
         .orderBy(asc(assessments.submittedAt));
-      return rows.filter((r) => r.releasedAt === null);
+      const newest = new Map<string, (typeof rows)[number]>();
+      for (const r of rows) {
+        const seen = newest.get(r.athleteId);
+        if (!seen || r.screenedOn >= seen.screenedOn) newest.set(r.athleteId, r);
+      }
+      return [...newest.values()].filter((r) => r.releasedAt === null);
     },
 
     /** Review and release state of the current result of one assessment. */

@@ -68,7 +68,13 @@ async function recipientsOf(db: Executor, scope: ClubScope, athleteId: string) {
  * The release, the e-mail records and the audit rows are written in one transaction; the e-mails are
  * handed to the queue after it commits (the queue retries sends until they go through).
  */
-export async function releaseSummary(deps: SummaryDeps, scope: ClubScope, assessmentId: string, options: { releasedBy: string | null; at?: Date }) {
+export async function releaseSummary(
+  deps: SummaryDeps,
+  scope: ClubScope,
+  assessmentId: string,
+  /** `notify: false` releases without e-mails (the demo seed's history). */
+  options: { releasedBy: string | null; at?: Date; notify?: boolean },
+) {
   const { db, outbox, publicUrl } = deps;
   const mails: OutgoingMail[] = [];
   const release = await db.transaction(async (tx) => {
@@ -82,7 +88,7 @@ export async function releaseSummary(deps: SummaryDeps, scope: ClubScope, assess
     const audit = [
       { clubId: scope.clubId, actorId: options.releasedBy, action: 'release', subjectKind: 'assessment' as const, subjectId: assessmentId, athleteId: a.athleteId, detail: { releaseId: row.id, automatic: options.releasedBy === null } },
     ];
-    const { recipients } = await recipientsOf(tx, scope, a.athleteId);
+    const { recipients } = options.notify === false ? { recipients: [] as Recipient[] } : await recipientsOf(tx, scope, a.athleteId);
     for (const r of recipients) {
       const token = randomBytes(24).toString('base64url');
       const emailId = await repo.addEmail({ releaseId: row.id, athleteId: a.athleteId, userId: r.userId, email: r.email, tokenHash: hashToken(token) });
