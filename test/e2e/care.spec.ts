@@ -8,6 +8,7 @@ const shots = (name: string, project: string) => path.join(__dirname, '..', '..'
 test('a physiotherapist reviews a screen, adds a note, previews the family e-mail and releases it', async ({ page }, testInfo) => {
   await signIn(page, 'physio@squadline.test');
   await expect(page.getByTestId('home-physio')).toBeVisible();
+  await page.getByTestId('open-reviews').click();
   const rows = page.getByTestId('review-list').locator('a');
   await expect(rows.first()).toBeVisible();
   const before = await rows.count();

@@ -3,7 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import { ageInYears, todayIso } from '@/features/athletes/age';
 import { useAthletesQuery } from '@/features/athletes/api/get-athletes';
 import { ROLE_LABELS } from '@/features/auth/schemas';
-import { ReviewList } from '@/features/care/components/review-list';
+import { ReviewsTeaser } from '@/features/care/components/reviews-teaser';
 import { OpenRounds } from '@/features/screening/components/open-rounds';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
@@ -38,7 +38,10 @@ export function RoleHome() {
       {membership.role === 'parent' ? (
         <ParentChildren />
       ) : membership.role === 'physio' ? (
-        <ReviewList />
+        <>
+          <ReviewsTeaser />
+          <SquadCards />
+        </>
       ) : membership.role === 'tester' || membership.role === 'head_coach' ? (
         // The squads with their open screening rounds and a way straight back in.
         <OpenRounds />
