@@ -6,6 +6,7 @@ import { pinoHttp } from 'pino-http';
 import type { Db } from '@/db/client';
 import { requireSignedIn } from './access/scope';
 import { athletesRouter } from './athletes/athletes.router';
+import { careRouter } from './care/care.router';
 import { authRouter, DEFAULT_SIGN_IN_LIMITS, type SignInLimits } from './auth/auth.router';
 import { createAuthService } from './auth/auth.service';
 import { createLucia } from './auth/lucia';
@@ -79,6 +80,7 @@ export function createApp(deps: AppDeps) {
   api.use(sessionMiddleware(auth));
   api.use(metaRouter(db, mailbox));
   api.use('/auth', authRouter(authService, auth, config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS));
+  api.use(careRouter({ db, storage: deps.storage, outbox, publicUrl: config.publicUrl }));
   // Everything below needs a signed-in user: deny by default.
   api.use(requireSignedIn);
   api.use(idempotencyMiddleware(db));

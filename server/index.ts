@@ -4,6 +4,7 @@ import pino from 'pino';
 import { connect } from '@/db/client';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed/demo-accounts';
 import { createApp } from './app';
+import { startCareJobs } from './care/jobs';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 import { mailerFromEnv } from './mail/mailer';
 import { startQueuedOutbox } from './mail/outbox';
@@ -26,6 +27,9 @@ async function main() {
   if (!process.env.SMTP_URL) fakeSmtp = await startFakeSmtp();
   const mailer = mailerFromEnv(process.env, fakeSmtp ? { host: fakeSmtp.host, port: fakeSmtp.port, secure: false } : undefined);
   const outbox = await startQueuedOutbox({ connectionString: databaseUrl, sender: mailer, logger });
+
+  // Photo retention (nightly) and automatic family-summary releases (hourly) on pg-boss's cron.
+  const careJobs = await startCareJobs({ connectionString: databaseUrl, db: handle.db, storage, outbox, publicUrl, logger });
 
   const app = createApp({
     db: handle.db,
@@ -63,6 +67,7 @@ async function main() {
     closing = true;
     server.close();
     server.closeAllConnections();
+    await careJobs.stop().catch(() => undefined);
     await outbox.stop().catch(() => undefined);
     mailer.close();
     await fakeSmtp?.close().catch(() => undefined);

@@ -4,3 +4,4 @@ export * from './athletes';
 export * from './screening';
 export * from './invitation-athletes';
 export * from './idempotency';
+export * from './care';

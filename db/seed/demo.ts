@@ -2,6 +2,7 @@ import type { Db } from '@/db/client';
 import { athletes, clubs, consents, guardianLinks, memberships, squads, users } from '@/db/schema';
 import { hashPassword } from '@/server/auth/password';
 import { DEMO_CLUB_NAME, DEMO_PASSWORD, DEMO_USERS, OTHER_CLUB_NAME, OTHER_CLUB_USERS } from './demo-accounts';
+import { seedDemoCare } from './demo-care';
 import { seedDemoScreening } from './demo-screening';
 import { seededRandom } from './random';
 
@@ -83,6 +84,7 @@ export async function seedDemo(db: Db): Promise<DemoIds> {
     return { clubId: club!.id, otherClubId: other!.id, squadIds: squadRows.map((s) => s.id), athleteIds };
   }).then(async (ids) => {
     await seedDemoScreening(db, ids);
+    await seedDemoCare(db, ids);
     return ids;
   });
 }

@@ -11,7 +11,10 @@ export function navFor(role: RoleValue, options: { mailbox: boolean }): NavItem[
   // The roles that screen also place the points of photos taken courtside.
   if (role === 'admin' || role === 'head_coach' || role === 'tester') items.push({ href: '/measuring', label: 'To measure' });
   if (can(role, 'trends.read')) items.push({ href: '/trends', label: 'Squad trends' });
+  if (can(role, 'review.read')) items.push({ href: '/reviews', label: 'Reviews' });
   if (role === 'admin' || role === 'head_coach') items.push({ href: '/people', label: 'People' });
+  if (can(role, 'audit.read')) items.push({ href: '/audit', label: 'Audit trail' });
+  if (can(role, 'club.settings')) items.push({ href: '/care-settings', label: 'Care settings' });
   if (role === 'admin' && options.mailbox) items.push({ href: '/dev/mailbox', label: 'Mailbox (local)' });
   return items;
 }

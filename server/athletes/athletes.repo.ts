@@ -7,6 +7,7 @@ import * as schema from '@/db/schema';
 import { athletes, consents, guardianLinks, memberships, squads, users, type Role } from '@/db/schema';
 import { athleteFilter, type ClubScope } from '@/server/access/scope';
 import type { Athlete, ConsentView } from '@/features/athletes/api/types';
+import { latestClearances } from '@/server/care/clearance.repo';
 
 /** The database or a transaction: repositories work inside either. */
 export type Executor = PgDatabase<NodePgQueryResultHKT, typeof schema>;
@@ -36,7 +37,7 @@ export const identityKey = (firstName: string, lastName: string, dateOfBirth: st
 export function athletesRepo(db: Executor | Db, scope: ClubScope) {
   const inScope = (...extra: (SQL | undefined)[]) => and(eq(athletes.clubId, scope.clubId), athleteFilter(scope, athletes.id), ...extra);
 
-  async function withConsents(rows: Omit<AthleteView, 'consents'>[]): Promise<AthleteView[]> {
+  async function withConsents(rows: Omit<AthleteView, 'consents' | 'clearance'>[]): Promise<AthleteView[]> {
     if (rows.length === 0) return [];
     const latest = await db
       .selectDistinctOn([consents.athleteId, consents.kind], {
@@ -48,12 +49,13 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
       .from(consents)
       .where(inArray(consents.athleteId, rows.map((r) => r.id)))
       .orderBy(consents.athleteId, consents.kind, desc(consents.createdAt));
+    const clearance = await latestClearances(db, rows.map((r) => r.id));
     return rows.map((row) => {
       const find = (kind: 'photos' | 'email_summaries'): ConsentView => {
         const c = latest.find((l) => l.athleteId === row.id && l.kind === kind);
         return c ? { granted: c.granted, decidedOn: c.decidedOn } : null;
       };
-      return { ...row, consents: { photos: find('photos'), emailSummaries: find('email_summaries') } };
+      return { ...row, consents: { photos: find('photos'), emailSummaries: find('email_summaries') }, clearance: clearance.get(row.id) ?? null };
     });
   }
 

@@ -17,6 +17,10 @@ export interface StoredMessage {
   messageId: string | null;
   /** ISO 8601 */
   receivedAt: string;
+  /** Every header, names lower-cased, values as written (structured ones as mailparser's line). */
+  headers: Record<string, string>;
+  /** MIME types of every part and attachment, e.g. ['text/plain', 'text/html']. */
+  attachments: string[];
 }
 
 export interface FakeSmtp {
@@ -109,6 +113,8 @@ export async function startFakeSmtp({
             html: parsed.html === false || parsed.html === undefined ? null : parsed.html,
             messageId: parsed.messageId ?? null,
             receivedAt: new Date().toISOString(),
+            headers: Object.fromEntries(parsed.headerLines.map((h) => [h.key.toLowerCase(), h.line.slice(h.line.indexOf(':') + 1).trim()])),
+            attachments: parsed.attachments.map((a) => a.contentType),
           });
           callback();
         })

@@ -22,6 +22,8 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html?: string;
+  /** Extra headers, e.g. List-Unsubscribe. */
+  headers?: Record<string, string>;
 }
 
 export interface Mailer {
@@ -48,8 +50,15 @@ export function createMailer({ transport, from }: MailerOptions): Mailer {
   );
 
   return {
-    async send({ to, subject, text, html }) {
-      const info = await transporter.sendMail({ from, to, subject, text, ...(html === undefined ? {} : { html }) });
+    async send({ to, subject, text, html, headers }) {
+      const info = await transporter.sendMail({
+        from,
+        to,
+        subject,
+        text,
+        ...(html === undefined ? {} : { html }),
+        ...(headers === undefined ? {} : { headers }),
+      });
       return { messageId: info.messageId };
     },
 

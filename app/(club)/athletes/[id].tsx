@@ -2,6 +2,7 @@ import { useLocalSearchParams } from 'expo-router';
 import { AthleteProfile } from '@/features/athletes/components/athlete-profile';
 import { AthleteRecords } from '@/features/athletes/components/athlete-records';
 import { LazyAthleteProgress } from '@/features/progress/components/lazy-athlete-progress';
+import { AthleteCare } from '@/features/care/components/athlete-care';
 import { AthleteAssessments } from '@/features/screening/components/athlete-assessments';
 import { Page } from '@/features/ui/components/page';
 
@@ -13,6 +14,7 @@ export default function AthleteScreen() {
       <AthleteProfile id={athleteId} />
       <AthleteRecords id={athleteId} />
       <LazyAthleteProgress athleteId={athleteId} />
+      <AthleteCare athleteId={athleteId} />
       <AthleteAssessments athleteId={athleteId} />
     </Page>
   );

@@ -15,6 +15,8 @@ export type Athlete = {
   takeOffLeg: 'left' | 'right';
   archived: boolean;
   consents: { photos: ConsentView; emailSummaries: ConsentView };
+  /** The physiotherapist's clearance in force (newest decision), or null when none was recorded. */
+  clearance: { status: 'cleared' | 'modified' | 'referred'; detail: string; setByName: string | null; setAt: string } | null;
   /** Club staff only; parents do not see the other adults linked to a child. */
   guardians?: Guardian[];
 };

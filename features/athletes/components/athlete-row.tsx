@@ -1,6 +1,7 @@
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { ageInYears, todayIso } from '@/features/athletes/age';
+import { ClearanceBadge } from '@/features/care/components/clearance-badge';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import type { Athlete } from '../api/types';
@@ -18,6 +19,7 @@ export function AthleteRow({ athlete }: { athlete: Athlete }) {
             {ageInYears(athlete.dateOfBirth, todayIso())} y · {athlete.sex === 'female' ? 'F' : 'M'} · racket {athlete.racketHand}
             {athlete.squadName ? ` · ${athlete.squadName}` : ''}
           </Text>
+          <ClearanceBadge clearance={athlete.clearance} />
         </View>
         {athlete.archived ? (
           <View style={[styles.tag, styles.archivedTag]}>

@@ -3,6 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import { ageInYears, todayIso } from '@/features/athletes/age';
 import { useAthletesQuery } from '@/features/athletes/api/get-athletes';
 import { ROLE_LABELS } from '@/features/auth/schemas';
+import { ReviewsTeaser } from '@/features/care/components/reviews-teaser';
 import { OpenRounds } from '@/features/screening/components/open-rounds';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
@@ -16,7 +17,7 @@ const INTRO: Record<string, { title: string; text: string }> = {
   admin: { title: 'Club set-up', text: 'Squads, people and consent records for the club.' },
   head_coach: { title: 'Squad overview', text: 'Your squads at a glance.' },
   tester: { title: 'Courtside', text: 'Pick a squad, then screen one athlete after another.' },
-  physio: { title: 'Athlete review', text: 'Athletes of the club, with their screening results and your notes.' },
+  physio: { title: 'Athlete review', text: 'Screens waiting for your review, and athletes of the club.' },
   parent: { title: 'Your family', text: 'What your child does in screening and training, and why.' },
 };
 
@@ -36,6 +37,11 @@ export function RoleHome() {
       </View>
       {membership.role === 'parent' ? (
         <ParentChildren />
+      ) : membership.role === 'physio' ? (
+        <>
+          <ReviewsTeaser />
+          <SquadCards />
+        </>
       ) : membership.role === 'tester' || membership.role === 'head_coach' ? (
         // The squads with their open screening rounds and a way straight back in.
         <OpenRounds />
@@ -86,6 +92,9 @@ function ParentChildren() {
             <Text>
               Photos: {a.consents.photos?.granted ? 'you agreed that screening photos may be taken' : 'no photos are taken'}
             </Text>
+            <Link href={`/family/${a.id}`} style={styles.link} testID="child-summary-link">
+              <Text variant="label">{`${a.firstName}'s screen summary and exercises →`}</Text>
+            </Link>
             <Link href={`/athletes/${a.id}`} style={styles.link}>
               <Text variant="label">Details →</Text>
             </Link>

@@ -1,3 +1,4 @@
+import { AthleteClearanceBadge } from '@/features/care/components/clearance-badge';
 import { Link } from 'expo-router';
 import { useState, useSyncExternalStore } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -160,6 +161,7 @@ export function RoundScreen({ id }: { id: string }) {
                   <View style={styles.tags}>
                     {a.waiting ? <PlainTag tone="info" label="Submitted on this phone · waiting to send" /> : <StatusTag status={a.status} />}
                     {!a.photoConsent ? <PlainTag label="No photo consent" /> : null}
+                    <AthleteClearanceBadge athleteId={a.athleteId} />
                   </View>
                   {a.status === 'submitted' ? <AthleteFlags flags={a.flags} testID={`round-flags-${a.athleteId}`} /> : null}
                 </View>

@@ -1,3 +1,4 @@
+import { AthleteClearanceBadge } from '@/features/care/components/clearance-badge';
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, Redirect, useRouter } from 'expo-router';
 import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
@@ -203,6 +204,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
               {counter}
             </Text>
             {!detail.athlete.photoConsent ? <PlainTag label="No photo consent" /> : null}
+            <AthleteClearanceBadge athleteId={detail.athlete.id} />
           </View>
           <ProgressBar fraction={stepIndex / (STEPS.length - 1)} label={counter} />
         </View>

@@ -1,3 +1,5 @@
+import { AthleteClearanceBadge } from '@/features/care/components/clearance-badge';
+import { ResultCarePanel } from '@/features/care/components/result-care-panel';
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
@@ -56,6 +58,7 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
             canAdjust={canAdjustPlan(membership.role)}
             canOverride={canOverrideLimits(membership.role)}
           />
+          <ResultCarePanel assessmentId={detail.id} athleteId={detail.athlete.id} />
           {result.history.length > 0 ? (
             <View style={styles.history}>
               <Text variant="label">Earlier results</Text>
@@ -109,6 +112,7 @@ function Header({ detail, result, name, canEdit }: { detail: AssessmentDetail; r
       <Text variant="title" accessibilityRole="header">
         {name}
       </Text>
+      <AthleteClearanceBadge athleteId={detail.athlete.id} />
       <Text variant="small">
         Submitted {result.createdAt.slice(0, 10)}
         {result.createdByName ? ` by ${result.createdByName}` : ''} · version {result.version} · engine {result.engineVersion}

@@ -1,0 +1,10 @@
+import { AuditTrail } from '@/features/care/components/audit-trail';
+import { Page } from '@/features/ui/components/page';
+
+export default function AuditScreen() {
+  return (
+    <Page>
+      <AuditTrail />
+    </Page>
+  );
+}

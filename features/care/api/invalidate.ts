@@ -1,0 +1,14 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useActiveClub } from '@/features/session/active-club';
+import { careKeys } from './keys';
+
+/** After any care change: reviews, clearances, notes and summaries of the club are read again. Athlete lists carry the clearance too. */
+export function useCareChanged() {
+  const client = useQueryClient();
+  const { membership } = useActiveClub();
+  return () => {
+    void client.invalidateQueries({ queryKey: careKeys.club(membership.clubId) });
+    // Athlete responses carry `clearance`: the roster's root key covers them.
+    void client.invalidateQueries({ queryKey: ['athletes'] });
+  };
+}

@@ -1,0 +1,28 @@
+import { Link } from 'expo-router';
+import { StyleSheet } from 'react-native';
+import { isStaff } from '@/features/access/permissions';
+import { useActiveClub } from '@/features/session/active-club';
+import { Text } from '@/features/ui/components/text';
+import { space } from '@/features/ui/theme';
+import { ClearancePanel } from './clearance-panel';
+import { NotesPanel } from './notes-panel';
+
+/** On an athlete's page: clearance and notes for staff; for a parent, the way to the family summary. */
+export function AthleteCare({ athleteId }: { athleteId: string }) {
+  const { membership } = useActiveClub();
+  if (!isStaff(membership.role)) {
+    return (
+      <Link href={`/family/${athleteId}`} style={styles.link}>
+        <Text variant="label">Screen summary, exercises and notes →</Text>
+      </Link>
+    );
+  }
+  return (
+    <>
+      <ClearancePanel athleteId={athleteId} />
+      <NotesPanel athleteId={athleteId} />
+    </>
+  );
+}
+
+const styles = StyleSheet.create({ link: { minHeight: 48, paddingVertical: space.md } });

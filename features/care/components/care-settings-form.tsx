@@ -1,0 +1,104 @@
+import { useFormik } from 'formik';
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { ValidationError } from 'yup';
+import { fieldErrorsOf, messageOf } from '@/features/api/client';
+import { Button } from '@/features/ui/components/button';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { TextField } from '@/features/ui/components/text-field';
+import { space } from '@/features/ui/theme';
+import { useCareSettingsQuery, useRetentionDryRunQuery, useSaveCareSettingsMutation } from '../api/care-settings';
+import { careSettingsSchema } from '../schemas';
+import type { CareSettingsView } from '../types';
+import { ChoiceChips } from './choice-chips';
+
+const YES_NO = [
+  { value: 'yes', label: 'Yes' },
+  { value: 'no', label: 'No' },
+] as const;
+
+/** The club's care settings (automatic release, photo retention, family photos, testers and team notes) and the retention dry run. */
+export function CareSettingsForm() {
+  const query = useCareSettingsQuery();
+  if (query.isPending) return <Text>Loading…</Text>;
+  if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
+  return (
+    <View style={styles.wrap}>
+      <Form settings={query.data.settings} />
+      <DryRun />
+    </View>
+  );
+}
+
+function Form({ settings }: { settings: CareSettingsView }) {
+  const save = useSaveCareSettingsMutation();
+  const form = useFormik({
+    initialValues: {
+      autoReleaseDays: settings.autoReleaseDays === null ? '' : String(settings.autoReleaseDays),
+      photoGraceDays: String(settings.photoGraceDays),
+      photoRetentionMonths: String(settings.photoRetentionMonths),
+      familyPhotos: settings.familyPhotos ? 'yes' : 'no',
+      testersReadTeamNotes: settings.testersReadTeamNotes ? 'yes' : 'no',
+    },
+    onSubmit: async (values, helpers) => {
+      try {
+        const input = await careSettingsSchema.validate(
+          {
+            autoReleaseDays: values.autoReleaseDays.trim() === '' ? null : Number(values.autoReleaseDays),
+            photoGraceDays: Number(values.photoGraceDays),
+            photoRetentionMonths: Number(values.photoRetentionMonths),
+            familyPhotos: values.familyPhotos === 'yes',
+            testersReadTeamNotes: values.testersReadTeamNotes === 'yes',
+          },
+          { abortEarly: false },
+        );
+        await save.mutateAsync(input);
+        helpers.setStatus('Saved.');
+      } catch (error) {
+        const fields = error instanceof ValidationError ? Object.fromEntries(error.inner.map((e) => [e.path ?? '_', e.message])) : fieldErrorsOf(error);
+        if (fields) helpers.setErrors(fields);
+        else helpers.setStatus(messageOf(error));
+      }
+    },
+  });
+  return (
+    <Card testID="care-settings">
+      <Text variant="heading">Care settings</Text>
+      <TextField label="Send family summaries automatically after (days)" hint="Only reviewed screens go out by themselves. Leave empty to release by hand only." keyboardType="number-pad" value={form.values.autoReleaseDays} onChangeText={form.handleChange('autoReleaseDays')} error={form.errors.autoReleaseDays} />
+      <TextField label="Delete photos after photo consent is withdrawn (days)" keyboardType="number-pad" value={form.values.photoGraceDays} onChangeText={form.handleChange('photoGraceDays')} error={form.errors.photoGraceDays} />
+      <TextField label="Keep photos for (months)" keyboardType="number-pad" value={form.values.photoRetentionMonths} onChangeText={form.handleChange('photoRetentionMonths')} error={form.errors.photoRetentionMonths} />
+      <ChoiceChips label="Parents may see their own child's screening photos" options={YES_NO} value={form.values.familyPhotos as 'yes' | 'no'} onChange={(v) => form.setFieldValue('familyPhotos', v)} />
+      <ChoiceChips label="Testers may read team-only notes" options={YES_NO} value={form.values.testersReadTeamNotes as 'yes' | 'no'} onChange={(v) => form.setFieldValue('testersReadTeamNotes', v)} />
+      {form.status ? <Text>{String(form.status)}</Text> : null}
+      <Button label="Save settings" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="care-settings-save" />
+    </Card>
+  );
+}
+
+function DryRun() {
+  const [asked, setAsked] = useState(false);
+  const query = useRetentionDryRunQuery(asked);
+  return (
+    <Card>
+      <Text variant="heading">Photo retention</Text>
+      <Text variant="small">A job deletes due photos every night and records each deletion in the audit trail. See what it would delete now:</Text>
+      <Button label="Show what would be deleted" tone="secondary" onPress={() => setAsked(true)} />
+      {query.error ? <Notice tone="error">{query.error.message}</Notice> : null}
+      {query.data ? (
+        query.data.candidates.length === 0 ? (
+          <Text>Nothing is due for deletion.</Text>
+        ) : (
+          query.data.candidates.map((c) => (
+            <Text key={c.photoId} variant="small">
+              {c.athleteName} · photo of {c.takenAt.slice(0, 10)} · {c.reason === 'consent-withdrawn' ? 'photo consent withdrawn' : 'retention period over'}
+            </Text>
+          ))
+        )
+      ) : null}
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({ wrap: { gap: space.lg } });

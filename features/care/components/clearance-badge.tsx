@@ -1,0 +1,40 @@
+import { StyleSheet, View } from 'react-native';
+import { Text } from '@/features/ui/components/text';
+import { colors, radius, space } from '@/features/ui/theme';
+import { useClearanceOf } from '../api/get-clearances';
+import { CLEARANCE_LABELS } from '../schemas';
+import type { ClearanceView } from '../types';
+
+const TONE = { cleared: 'ok', modified: 'caution', referred: 'stop' } as const;
+
+/** The physiotherapist's clearance beside an athlete's name. Nothing when none was recorded. */
+export function ClearanceBadge({ clearance }: { clearance: ClearanceView }) {
+  if (!clearance) return null;
+  const tone = TONE[clearance.status];
+  const label = CLEARANCE_LABELS[clearance.status];
+  return (
+    <View
+      style={[styles.tag, styles[tone]]}
+      testID="clearance-badge"
+      accessibilityLabel={`Clearance: ${label}${clearance.detail ? `, ${clearance.detail}` : ''}`}
+    >
+      <Text variant="small" style={styles.text} numberOfLines={1}>
+        {tone === 'stop' ? '⛔ ' : tone === 'caution' ? '⚠ ' : '✓ '}
+        {label}
+      </Text>
+    </View>
+  );
+}
+
+/** The badge for screens that list athletes without their clearance (rounds, capture, result). */
+export function AthleteClearanceBadge({ athleteId }: { athleteId: string }) {
+  return <ClearanceBadge clearance={useClearanceOf(athleteId)} />;
+}
+
+const styles = StyleSheet.create({
+  tag: { alignSelf: 'flex-start', borderRadius: radius.sm, paddingHorizontal: space.sm, paddingVertical: 2, borderWidth: 1 },
+  text: { color: colors.ink, fontWeight: '700' },
+  ok: { backgroundColor: colors.pineSoft, borderColor: colors.pine },
+  caution: { backgroundColor: colors.amberSoft, borderColor: colors.amber },
+  stop: { backgroundColor: colors.brickSoft, borderColor: colors.brick },
+});

@@ -1,0 +1,80 @@
+import { useFormik } from 'formik';
+import { StyleSheet, View } from 'react-native';
+import { can } from '@/features/access/permissions';
+import { fieldErrorsOf, messageOf } from '@/features/api/client';
+import { useActiveClub } from '@/features/session/active-club';
+import { Button } from '@/features/ui/components/button';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { TextField } from '@/features/ui/components/text-field';
+import { colors, space } from '@/features/ui/theme';
+import { useClearanceOf } from '../api/get-clearances';
+import { useSetClearanceMutation } from '../api/set-clearance';
+import { CLEARANCE_LABELS, CLEARANCE_STATUSES, clearanceSchema, type ClearanceStatus } from '../schemas';
+import { ClearanceBadge } from './clearance-badge';
+import { ChoiceChips } from './choice-chips';
+
+const OPTIONS = CLEARANCE_STATUSES.map((s) => ({ value: s, label: CLEARANCE_LABELS[s] }));
+const DETAIL_LABEL: Record<ClearanceStatus, string> = { cleared: 'Remarks (optional)', modified: 'What to change', referred: 'Referred to whom' };
+
+/** The clearance in force, and for a physiotherapist the form to record a new decision. */
+export function ClearancePanel({ athleteId }: { athleteId: string }) {
+  const { membership } = useActiveClub();
+  const clearance = useClearanceOf(athleteId);
+  const set = useSetClearanceMutation(athleteId);
+  const canSet = can(membership.role, 'clearance.set');
+  const form = useFormik({
+    initialValues: { status: '' as ClearanceStatus | '', detail: '' },
+    validationSchema: clearanceSchema,
+    onSubmit: async (values, helpers) => {
+      try {
+        await set.mutateAsync(await clearanceSchema.validate(values));
+        helpers.resetForm();
+      } catch (error) {
+        const fields = fieldErrorsOf(error);
+        if (fields) helpers.setErrors(fields);
+        else helpers.setStatus(messageOf(error));
+      }
+    },
+  });
+  return (
+    <Card testID="clearance-panel">
+      <Text variant="heading" accessibilityRole="header">Clearance</Text>
+      {clearance ? (
+        <View style={styles.current}>
+          <ClearanceBadge clearance={clearance} />
+          {clearance.detail ? <Text>{clearance.detail}</Text> : null}
+          <Text variant="small">
+            {clearance.setByName ?? 'Former member'} · {clearance.setAt.slice(0, 10)}
+          </Text>
+        </View>
+      ) : (
+        <Text variant="small">No clearance recorded.</Text>
+      )}
+      {canSet ? (
+        <View style={styles.form}>
+          <ChoiceChips label="New decision" options={OPTIONS} value={form.values.status} onChange={(v) => form.setFieldValue('status', v)} testID="clearance-status" />
+          {form.submitCount > 0 && form.errors.status ? <Text style={styles.error}>{form.errors.status}</Text> : null}
+          {form.values.status ? (
+            <TextField
+              label={DETAIL_LABEL[form.values.status]}
+              testID="clearance-detail"
+              value={form.values.detail}
+              onChangeText={form.handleChange('detail')}
+              error={form.submitCount > 0 && form.errors.detail}
+            />
+          ) : null}
+          {form.status ? <Notice tone="error">{String(form.status)}</Notice> : null}
+          <Button label="Record clearance" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="clearance-save" />
+        </View>
+      ) : null}
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  current: { gap: space.xs },
+  form: { gap: space.md },
+  error: { color: colors.brick },
+});

@@ -1,0 +1,145 @@
+import { Image, StyleSheet, View } from 'react-native';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { colors, radius, space } from '@/features/ui/theme';
+import { useFamilyViewQuery } from '../api/get-family-view';
+import type { FamilySummary, SummaryRelease } from '../types';
+
+/** A parent's page for one child: the latest released summary in plain words, the plan with how-to, family notes, earlier summaries. */
+export function FamilyView({ athleteId }: { athleteId: string }) {
+  const query = useFamilyViewQuery(athleteId);
+  const { isWide } = useBreakpoints();
+  if (query.isPending) return <Text>Loading…</Text>;
+  if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
+  const { athlete, latest, earlier, notes, photos } = query.data;
+  return (
+    <View style={styles.wrap} testID="family-view">
+      <Text variant="title" accessibilityRole="header">
+        {athlete.firstName} {athlete.lastName}
+      </Text>
+      {!latest ? (
+        <Notice title="No summary yet">{`When ${athlete.firstName}'s next screen has been reviewed, its summary appears here.`}</Notice>
+      ) : (
+        <View style={[styles.wrap, isWide && styles.columns]}>
+          <View style={[styles.wrap, isWide && styles.column]}>
+            <Summary summary={latest.summary} releasedAt={latest.releasedAt} />
+          </View>
+          <View style={[styles.wrap, isWide && styles.column]}>
+            <Plan summary={latest.summary} />
+          </View>
+        </View>
+      )}
+      {photos.length > 0 ? (
+        <Card>
+          <Text variant="heading">Photos from the screen</Text>
+          <View style={styles.photos}>
+            {photos.map((p) => (
+              <Image key={p.id} source={{ uri: p.thumbUrl }} accessibilityLabel={p.taskTitle} style={styles.photo} />
+            ))}
+          </View>
+        </Card>
+      ) : null}
+      <Card testID="family-notes">
+        <Text variant="heading">Notes from the care team</Text>
+        {notes.length === 0 ? <Text variant="small">No notes for you yet.</Text> : null}
+        {notes.map((n) => (
+          <View key={n.id} style={styles.note}>
+            <Text variant="small">
+              {n.authorName ?? 'The club'} · {n.createdAt.slice(0, 10)}
+            </Text>
+            <Text>{n.text}</Text>
+          </View>
+        ))}
+      </Card>
+      {earlier.length > 0 ? <Earlier releases={earlier} /> : null}
+    </View>
+  );
+}
+
+function Summary({ summary, releasedAt }: { summary: FamilySummary; releasedAt: string }) {
+  return (
+    <Card testID="family-summary">
+      <Text variant="small">
+        Screen of {summary.screenedOn} · sent {releasedAt.slice(0, 10)}
+      </Text>
+      <Section title="What was checked" items={summary.checked} />
+      <Section title="What we saw" items={summary.seen} />
+      <Text variant="label">When is the next check?</Text>
+      <Text>{summary.recheckDate ? `Around ${summary.recheckDate}.` : 'The coaches will tell you.'}</Text>
+      <Text variant="label">Who to ask</Text>
+      <Text>{summary.contact}</Text>
+      <Notice tone="caution" title="Please note">
+        <View style={styles.list}>
+          {summary.cautions.map((c) => (
+            <Text key={c}>{c}</Text>
+          ))}
+        </View>
+      </Notice>
+    </Card>
+  );
+}
+
+function Plan({ summary }: { summary: FamilySummary }) {
+  return (
+    <Card testID="family-plan">
+      <Text variant="heading">{`What ${summary.athleteFirstName} will work on`}</Text>
+      <Text>{summary.howOften}</Text>
+      {summary.onHold ? <Notice tone="error" title="On hold for now">{summary.onHold}</Notice> : null}
+      {summary.exercises.map((e) => (
+        <View key={e.name} style={styles.exercise} testID="family-exercise">
+          <Text variant="label">{e.name}</Text>
+          <Text variant="small">
+            {e.howMuch} · {e.howOften}
+          </Text>
+          <Text>{e.purpose}</Text>
+          <View style={styles.list}>
+            {e.howTo.map((step, i) => (
+              <Text key={step}>{`${i + 1}. ${step}`}</Text>
+            ))}
+          </View>
+          <Text variant="small">Tip: {e.cue}</Text>
+        </View>
+      ))}
+    </Card>
+  );
+}
+
+function Section({ title, items }: { title: string; items: string[] }) {
+  return (
+    <View style={styles.list}>
+      <Text variant="label">{title}</Text>
+      {items.map((i) => (
+        <Text key={i}>• {i}</Text>
+      ))}
+    </View>
+  );
+}
+
+function Earlier({ releases }: { releases: SummaryRelease[] }) {
+  return (
+    <Card testID="family-earlier">
+      <Text variant="heading">Earlier summaries</Text>
+      {releases.map((r) => (
+        <View key={r.id} style={styles.list}>
+          <Text variant="label">Screen of {r.summary.screenedOn}</Text>
+          {r.summary.seen.map((s) => (
+            <Text key={s} variant="small">• {s}</Text>
+          ))}
+        </View>
+      ))}
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  columns: { flexDirection: 'row', alignItems: 'flex-start' },
+  column: { flex: 1 },
+  list: { gap: space.xs },
+  exercise: { gap: space.xs, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.md },
+  note: { gap: 2, borderLeftWidth: 4, borderLeftColor: colors.pine, paddingLeft: space.md },
+  photos: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  photo: { width: 120, height: 160, borderRadius: radius.sm, backgroundColor: colors.line },
+});

@@ -1,0 +1,106 @@
+import { useFormik } from 'formik';
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { can } from '@/features/access/permissions';
+import { fieldErrorsOf, messageOf } from '@/features/api/client';
+import { useActiveClub } from '@/features/session/active-club';
+import { Button } from '@/features/ui/components/button';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { TextField } from '@/features/ui/components/text-field';
+import { colors, space } from '@/features/ui/theme';
+import { useAddNoteMutation, useEditNoteMutation, useNotesQuery } from '../api/notes';
+import { NOTE_EDIT_WINDOW_MINUTES, NOTE_VISIBILITY_LABELS, noteSchema, type NoteVisibility } from '../schemas';
+import type { NoteView } from '../types';
+import { ChoiceChips } from './choice-chips';
+
+const VISIBILITY_OPTIONS = (['team', 'family'] as const).map((v) => ({ value: v, label: NOTE_VISIBILITY_LABELS[v] }));
+
+/** Notes on an athlete (optionally tied to one screen): the list the caller may read, and a form for those who write. */
+export function NotesPanel({ athleteId, assessmentId }: { athleteId: string; assessmentId?: string }) {
+  const { membership } = useActiveClub();
+  const notes = useNotesQuery(athleteId);
+  const canWrite = can(membership.role, 'note.write');
+  return (
+    <Card testID="notes-panel">
+      <Text variant="heading" accessibilityRole="header">Notes</Text>
+      {notes.error ? <Notice tone="error">{notes.error.message}</Notice> : null}
+      {notes.data?.notes.length === 0 ? <Text variant="small">No notes yet.</Text> : null}
+      {notes.data?.notes.map((n) => <NoteItem key={n.id} note={n} />)}
+      {canWrite ? <NoteForm athleteId={athleteId} assessmentId={assessmentId} /> : null}
+    </Card>
+  );
+}
+
+function NoteItem({ note }: { note: NoteView }) {
+  const [editing, setEditing] = useState(false);
+  const [text, setText] = useState(note.text);
+  const edit = useEditNoteMutation();
+  return (
+    <View style={[styles.note, note.visibility === 'family' ? styles.family : styles.team]} testID="note">
+      <Text variant="small">
+        {NOTE_VISIBILITY_LABELS[note.visibility]} · {note.authorName ?? 'Former member'} · {note.createdAt.slice(0, 16).replace('T', ' ')}
+        {note.updatedAt !== note.createdAt ? ' · corrected' : ''}
+      </Text>
+      {editing ? (
+        <View style={styles.form}>
+          <TextField label="Correct the note" value={text} onChangeText={setText} multiline error={edit.error ? messageOf(edit.error) : undefined} />
+          <View style={styles.row}>
+            <Button label="Save correction" busy={edit.isPending} onPress={() => edit.mutate({ id: note.id, text }, { onSuccess: () => setEditing(false) })} />
+            <Button label="Cancel" tone="quiet" onPress={() => setEditing(false)} />
+          </View>
+        </View>
+      ) : (
+        <Text>{note.text}</Text>
+      )}
+      {note.canEdit && !editing ? (
+        <Button label={`Correct (until ${note.editableUntil.slice(11, 16)})`} tone="quiet" onPress={() => setEditing(true)} />
+      ) : null}
+    </View>
+  );
+}
+
+function NoteForm({ athleteId, assessmentId }: { athleteId: string; assessmentId?: string }) {
+  const add = useAddNoteMutation(athleteId);
+  const form = useFormik({
+    initialValues: { text: '', visibility: '' as NoteVisibility | '', assessmentId },
+    validationSchema: noteSchema,
+    onSubmit: async (values, helpers) => {
+      try {
+        await add.mutateAsync(await noteSchema.validate(values));
+        helpers.resetForm();
+      } catch (error) {
+        const fields = fieldErrorsOf(error);
+        if (fields) helpers.setErrors(fields);
+        else helpers.setStatus(messageOf(error));
+      }
+    },
+  });
+  return (
+    <View style={styles.form}>
+      <TextField
+        label="New note"
+        testID="note-text"
+        multiline
+        value={form.values.text}
+        onChangeText={form.handleChange('text')}
+        error={form.submitCount > 0 && form.errors.text}
+        hint={`You can correct it for ${NOTE_EDIT_WINDOW_MINUTES} minutes; after that it is kept as written.`}
+      />
+      <ChoiceChips label="Who may read it" options={VISIBILITY_OPTIONS} value={form.values.visibility} onChange={(v) => form.setFieldValue('visibility', v)} testID="note-visibility" />
+      {form.submitCount > 0 && form.errors.visibility ? <Text style={styles.error}>{form.errors.visibility}</Text> : null}
+      {form.status ? <Notice tone="error">{String(form.status)}</Notice> : null}
+      <Button label="Add note" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="note-add" />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  note: { gap: space.xs, paddingLeft: space.md, borderLeftWidth: 4, paddingVertical: space.xs },
+  team: { borderLeftColor: colors.inkMuted },
+  family: { borderLeftColor: colors.pine },
+  form: { gap: space.md },
+  row: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
+  error: { color: colors.brick },
+});

@@ -1,0 +1,103 @@
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { can } from '@/features/access/permissions';
+import { messageOf } from '@/features/api/client';
+import { useActiveClub } from '@/features/session/active-club';
+import { Button } from '@/features/ui/components/button';
+import { Card } from '@/features/ui/components/card';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { colors, radius, space } from '@/features/ui/theme';
+import { useAssessmentCareQuery, useMarkReviewedMutation, useReleaseMutation, useReleasePreviewQuery } from '../api/assessment-care';
+import { ClearancePanel } from './clearance-panel';
+import { NotesPanel } from './notes-panel';
+
+/**
+ * The care team's part of a result: the strength-work hold, the review mark, release to the family
+ * with a preview of the e-mail, the clearance and the notes.
+ */
+export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: string; athleteId: string }) {
+  const { membership } = useActiveClub();
+  const care = useAssessmentCareQuery(assessmentId);
+  if (care.isPending) return null;
+  if (care.error) return <Notice tone="error">{care.error.message}</Notice>;
+  const c = care.data.care;
+  return (
+    <View style={styles.wrap} testID="result-care">
+      <StrengthHold words={c.block.blocked ? c.block.words : null} />
+      <Card>
+        <Text variant="heading" accessibilityRole="header">Review and family summary</Text>
+        <Text testID="review-state">
+          {c.reviewedAt ? `Reviewed by ${c.reviewedByName ?? 'a former member'} on ${c.reviewedAt.slice(0, 10)}.` : 'Not reviewed yet.'}{' '}
+          {c.releasedAt ? `Sent to the family on ${c.releasedAt.slice(0, 10)}.` : 'Not sent to the family yet.'}
+        </Text>
+        {!c.reviewedAt && can(membership.role, 'review.mark') ? <MarkReviewed assessmentId={assessmentId} /> : null}
+        {c.reviewedAt && !c.releasedAt && can(membership.role, 'summary.release') ? <Release assessmentId={assessmentId} /> : null}
+      </Card>
+      <ClearancePanel athleteId={athleteId} />
+      <NotesPanel athleteId={athleteId} assessmentId={assessmentId} />
+    </View>
+  );
+}
+
+/** Shown on the plan wherever staff read it: the hook point for the plan display. */
+export function StrengthHold({ words }: { words: string | null }) {
+  if (!words) return null;
+  return (
+    <Notice tone="error" title="Loaded strength work on hold" testID="strength-hold">
+      {words}
+    </Notice>
+  );
+}
+
+function MarkReviewed({ assessmentId }: { assessmentId: string }) {
+  const mark = useMarkReviewedMutation(assessmentId);
+  return (
+    <View style={styles.actions}>
+      {mark.error ? <Notice tone="error">{messageOf(mark.error)}</Notice> : null}
+      <Button label="Mark as reviewed" busy={mark.isPending} onPress={() => mark.mutate()} testID="mark-reviewed" />
+      <Text variant="small">To change the plan, use the plan section first: changes go into the plan history with their reason.</Text>
+    </View>
+  );
+}
+
+function Release({ assessmentId }: { assessmentId: string }) {
+  const [previewing, setPreviewing] = useState(false);
+  const preview = useReleasePreviewQuery(assessmentId, previewing);
+  const release = useReleaseMutation(assessmentId);
+  if (!previewing) return <Button label="Preview the family summary" tone="secondary" onPress={() => setPreviewing(true)} testID="release-preview" />;
+  if (preview.isPending) return <Text>Preparing the preview…</Text>;
+  if (preview.error) return <Notice tone="error">{preview.error.message}</Notice>;
+  const p = preview.data.preview;
+  return (
+    <View style={styles.actions} testID="release-panel">
+      <Text variant="label">{p.recipients.length === 0 ? 'No parent will get an e-mail.' : `E-mail to: ${p.recipients.map((r) => `${r.displayName} <${r.email}>`).join(', ')}`}</Text>
+      {p.skipped.map((s) => (
+        <Text key={s.displayName} variant="small">
+          {s.displayName}: {s.reason}
+        </Text>
+      ))}
+      <Text variant="small">Subject: {p.subject}</Text>
+      <View style={styles.preview} testID="email-preview">
+        <Text style={styles.previewText}>{p.text}</Text>
+      </View>
+      {release.error ? <Notice tone="error">{messageOf(release.error)}</Notice> : null}
+      {release.isSuccess ? (
+        <Notice title="Sent">{`The summary is in the family view${release.data.release.recipients ? ` and ${release.data.release.recipients} e-mail(s) are on their way` : ''}.`}</Notice>
+      ) : (
+        <View style={styles.row}>
+          <Button label="Release to the family" busy={release.isPending} onPress={() => release.mutate()} testID="release-confirm" />
+          <Button label="Not now" tone="quiet" onPress={() => setPreviewing(false)} />
+        </View>
+      )}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  actions: { gap: space.sm },
+  row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  preview: { borderWidth: 1, borderColor: colors.line, borderRadius: radius.md, padding: space.md, backgroundColor: colors.paper, maxHeight: 420, overflow: 'scroll' },
+  previewText: { fontSize: 15, lineHeight: 21 },
+});

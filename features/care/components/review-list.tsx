@@ -1,0 +1,85 @@
+import { Link } from 'expo-router';
+import { StyleSheet, View } from 'react-native';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { useReviewsQuery } from '../api/get-reviews';
+import type { ReviewItem } from '../types';
+import { ClearanceBadge } from './clearance-badge';
+
+/** The physiotherapist's list: screens to review (pain or "clearance needed" first), then those awaiting release. */
+export function ReviewList() {
+  const query = useReviewsQuery();
+  if (query.isPending) return <Text>Loading the review list…</Text>;
+  if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
+  const { reviews, awaitingRelease } = query.data;
+  return (
+    <View style={styles.wrap}>
+      <View style={styles.head}>
+        <Text variant="title" accessibilityRole="header">To review</Text>
+        <Text variant="small">{reviews.length === 0 ? 'Nothing waiting. Well done.' : `${reviews.length} submitted ${reviews.length === 1 ? 'screen' : 'screens'}, most urgent first.`}</Text>
+      </View>
+      <View style={styles.list} testID="review-list">
+        {reviews.map((r) => <ReviewRow key={r.assessmentId} item={r} />)}
+      </View>
+      {awaitingRelease.length > 0 ? (
+        <>
+          <Text variant="heading" accessibilityRole="header">Reviewed, not yet sent to the family</Text>
+          <View style={styles.list} testID="release-list">
+            {awaitingRelease.map((r) => <ReviewRow key={r.assessmentId} item={r} />)}
+          </View>
+        </>
+      ) : null}
+    </View>
+  );
+}
+
+function ReviewRow({ item }: { item: ReviewItem }) {
+  const urgent = item.painReported || item.clearanceNeeded;
+  return (
+    <Link href={`/screening/assessments/${item.assessmentId}/result`} style={[styles.row, urgent && styles.urgent]} testID={`review-${item.athleteId}`}>
+      <View style={styles.rowInner}>
+        <View style={styles.main}>
+          <Text variant="label">
+            {item.firstName} {item.lastName}
+          </Text>
+          <Text variant="small">
+            {item.squadName ?? 'No squad'} · {item.roundName} · {item.screenedOn}
+          </Text>
+          <View style={styles.tags}>
+            {item.painReported ? <Tag tone="stop" label="Pain reported" /> : null}
+            {item.clearanceNeeded && !item.painReported ? <Tag tone="stop" label="Clearance needed" /> : null}
+            <Tag tone={item.concernCount > 0 ? 'caution' : 'info'} label={item.flagCount === 0 ? 'No flags' : `${item.flagCount} ${item.flagCount === 1 ? 'flag' : 'flags'}${item.concernCount ? `, ${item.concernCount} concern` : ''}`} />
+            <ClearanceBadge clearance={item.clearance} />
+          </View>
+        </View>
+        <Text style={styles.chevron}>›</Text>
+      </View>
+    </Link>
+  );
+}
+
+function Tag({ label, tone }: { label: string; tone: 'stop' | 'caution' | 'info' }) {
+  return (
+    <View style={[styles.tag, tone === 'stop' ? styles.stop : tone === 'caution' ? styles.caution : styles.info]}>
+      <Text variant="small" style={styles.tagText}>{label}</Text>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  head: { gap: space.xs },
+  list: { gap: space.sm },
+  row: { minHeight: TOUCH_MIN + 24, backgroundColor: colors.surface, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, padding: space.md },
+  urgent: { borderLeftWidth: 6, borderLeftColor: colors.brick },
+  rowInner: { flexDirection: 'row', alignItems: 'center', gap: space.md, width: '100%' },
+  main: { flex: 1, gap: space.xs },
+  tags: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
+  chevron: { fontSize: 28, color: colors.inkMuted },
+  tag: { borderRadius: 6, paddingHorizontal: space.sm, paddingVertical: 2 },
+  tagText: { color: colors.ink, fontWeight: '700' },
+  stop: { backgroundColor: colors.brickSoft },
+  caution: { backgroundColor: colors.amberSoft },
+  info: { backgroundColor: colors.pineSoft },
+});

@@ -1,0 +1,24 @@
+import { Link } from 'expo-router';
+import { StyleSheet } from 'react-native';
+import { Card } from '@/features/ui/components/card';
+import { Text } from '@/features/ui/components/text';
+import { space } from '@/features/ui/theme';
+import { useReviewsQuery } from '../api/get-reviews';
+
+/** On the physiotherapist's home: how many screens wait, and the way to the review list. */
+export function ReviewsTeaser() {
+  const query = useReviewsQuery();
+  const waiting = query.data?.reviews.length ?? null;
+  const urgent = query.data?.reviews.filter((r) => r.painReported || r.clearanceNeeded).length ?? 0;
+  return (
+    <Card testID="reviews-teaser">
+      <Text variant="heading">{waiting === null ? 'Reviews' : waiting === 0 ? 'Nothing to review' : `${waiting} ${waiting === 1 ? 'screen' : 'screens'} to review`}</Text>
+      {urgent > 0 ? <Text>{`${urgent} with pain reported or clearance needed.`}</Text> : null}
+      <Link href="/reviews" style={styles.link} testID="open-reviews">
+        <Text variant="label">Open the review list →</Text>
+      </Link>
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({ link: { minHeight: 48, paddingVertical: space.md } });

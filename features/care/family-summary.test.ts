@@ -1,0 +1,67 @@
+import { describe, expect, it } from 'vitest';
+import { evaluateAssessment, type AssessmentInput } from '@/features/screening/engine';
+import { buildFamilySummary, PATTERN_FAMILY_WORDS } from './family-summary';
+import { strengthBlock } from './strength-block';
+
+// A girl of 12 whose right knee caves in during the two-leg squat (frontal-plane projection angle about
+// 29.5 deg on these landmarks) and who reported pain in it.
+const input: AssessmentInput = {
+  athlete: { sex: 'female', ageYears: 12.4, statureCm: 152, sittingHeightCm: 79, massKg: 41, racketHand: 'right' },
+  tasks: {
+    'two-leg-squat': {
+      criteria: ['squat-right-knee-in'],
+      painReported: true,
+      photos: {
+        front: {
+          landmarks: {
+            'right-hip': { x: 400, y: 700 },
+            'right-knee': { x: 460, y: 900 },
+            'right-ankle': { x: 410, y: 1120 },
+            'left-hip': { x: 560, y: 700 },
+            'left-knee': { x: 560, y: 900 },
+            'left-ankle': { x: 560, y: 1120 },
+          },
+        },
+      },
+    },
+  },
+  oneRepMaxKg: 30,
+  options: { today: '2026-09-14' },
+};
+
+describe('buildFamilySummary', () => {
+  const result = evaluateAssessment(input);
+  const summary = buildFamilySummary({
+    firstName: 'Kit',
+    clubName: 'Riverside',
+    screenedOn: '2026-09-14',
+    result,
+    exercises: result.plan.exercises,
+    taskIds: Object.keys(input.tasks),
+    block: strengthBlock(result.plan, null, '2026-09-14T17:00:00.000Z'),
+    contactName: 'Phil Physio',
+  });
+
+  it('says what was checked and seen in plain words, without numbers of angles or trade terms', () => {
+    expect(summary.checked).toEqual(['Two-leg full squat']);
+    expect(summary.seen).toContain('The knee moved inward during the movement (right side).');
+    const all = JSON.stringify(summary);
+    expect(all).not.toMatch(/°|valgus|fppa|diagnos(?!is\.)/i);
+  });
+
+  it('holds back loaded strength work while clearance is needed, and says so', () => {
+    expect(result.plan.status).toBe('clearance-needed');
+    expect(summary.exercises.every((e) => !/1RM/.test(e.howMuch))).toBe(true);
+    expect(summary.onHold).toMatch(/until a physiotherapist clears Kit/);
+  });
+
+  it('carries the re-check date, a contact and the usual cautions', () => {
+    expect(summary.recheckDate).toBe(result.plan.rescreenDate);
+    expect(summary.contact).toBe('Questions? Speak to Phil Physio or the coaches at Riverside.');
+    expect(summary.cautions[0]).toMatch(/not a diagnosis/);
+  });
+
+  it('has family words for every pattern the engine can flag', () => {
+    for (const words of Object.values(PATTERN_FAMILY_WORDS)) expect(words).not.toMatch(/valgus|dorsiflexion|pelvic drop/i);
+  });
+});

@@ -1,0 +1,94 @@
+// Builds the plain-words family summary of a screen from the engine's result. Pure.
+// No angles, no measurements, no diagnosis words: what was checked, what was seen, what to work on.
+import { getTask, type AssessmentResult, type FlagSide, type PatternId, type PlannedExercise } from '@/features/screening/engine';
+import { doseText, perWeekText, setsText } from '@/features/screening/labels';
+import type { FamilySummary } from './types';
+import { splitByBlock, type StrengthBlock } from './strength-block';
+
+/** What a parent reads for each pattern (our wording). */
+export const PATTERN_FAMILY_WORDS: Record<PatternId, string> = {
+  'dynamic-knee-valgus': 'the knee moved inward during the movement',
+  'contralateral-pelvic-drop': 'the hips dipped to one side when standing on one leg',
+  'limited-ankle-dorsiflexion': 'the ankle did not bend forward as far as we would like',
+  'left-right-asymmetry': 'one side moved differently from the other',
+  'heels-lifting': 'the heels came up in the deep squat',
+  'squat-depth-not-reached': 'the deep squat did not go all the way down',
+  'excessive-trunk-lean': 'the upper body leaned more than we would like',
+  'growth-spurt-window': 'a fast-growing phase seems to be under way, so training is kept lighter for now',
+};
+
+const SIDE_WORDS: Record<Exclude<FlagSide, null>, string> = { left: ' (left side)', right: ' (right side)', both: ' (both sides)' };
+
+export const FAMILY_CAUTIONS = (name: string) => [
+  `This summary describes how ${name} moved on the day of the screen. It is not a diagnosis.`,
+  `If ${name} has pain, swelling, or a change in how they move, stop the exercises and see a physiotherapist or doctor.`,
+  'Follow the advice of your own health professionals over this plan, and the rules of your sport and country.',
+];
+
+const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
+export function buildFamilySummary(input: {
+  firstName: string;
+  clubName: string;
+  screenedOn: string;
+  result: AssessmentResult;
+  /** The plan as it stands (a coach's or physio's change replaces the engine's). */
+  exercises: readonly PlannedExercise[];
+  taskIds: readonly string[];
+  block: StrengthBlock;
+  contactName: string | null;
+}): FamilySummary {
+  const { firstName, result } = input;
+  const checked = [...new Set(input.taskIds.map((id) => {
+    try {
+      return getTask(id as never).title;
+    } catch {
+      return null;
+    }
+  }).filter((t): t is string => t !== null))];
+
+  const seenKeys = new Set<string>();
+  const seen: string[] = [];
+  for (const flag of result.flags) {
+    const words = capitalise(PATTERN_FAMILY_WORDS[flag.pattern]) + (flag.side && flag.pattern !== 'growth-spurt-window' ? SIDE_WORDS[flag.side] : '');
+    if (seenKeys.has(words)) continue;
+    seenKeys.add(words);
+    seen.push(`${words}.`);
+  }
+  if (seen.length === 0) seen.push('Nothing that needs extra work was seen on the day.');
+
+  const { now, held } = splitByBlock(input.exercises, input.block);
+  const exercises = [...now]
+    .sort((a, b) => a.order - b.order)
+    .map((e) => ({
+      name: e.name,
+      purpose: e.purpose,
+      howTo: [...e.howTo],
+      cue: e.cue,
+      howMuch: `${setsText(e.prescription.sets)} of ${doseText(e.prescription.dose)}`,
+      howOften: perWeekText(e.prescription.perWeek),
+    }));
+  const maxPerWeek = Math.max(0, ...now.map((e) => e.prescription.perWeek));
+  const onHold =
+    input.block.blocked && held.length > 0
+      ? `${held.map((e) => e.name).join(', ')}: on hold until a physiotherapist clears ${firstName} for loaded strength work.`
+      : input.block.blocked
+        ? `Loaded strength work is on hold until a physiotherapist clears ${firstName}.`
+        : null;
+
+  return {
+    athleteFirstName: firstName,
+    clubName: input.clubName,
+    screenedOn: input.screenedOn,
+    checked,
+    seen,
+    exercises,
+    onHold,
+    howOften: exercises.length === 0 ? `Nothing extra to work on for now: ${firstName} keeps training as usual.` : `Up to ${perWeekText(maxPerWeek)}; each exercise says how often.`,
+    recheckDate: result.plan.rescreenDate,
+    contact: input.contactName
+      ? `Questions? Speak to ${input.contactName} or the coaches at ${input.clubName}.`
+      : `Questions? Speak to the coaches at ${input.clubName}.`,
+    cautions: FAMILY_CAUTIONS(firstName),
+  };
+}

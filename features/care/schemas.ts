@@ -1,0 +1,83 @@
+import { boolean, mixed, number, object, string, type InferType } from 'yup';
+
+// One schema per care-team input, used by the forms and by `validateBody` on the server. Pure.
+
+export const NOTE_VISIBILITIES = ['team', 'family'] as const;
+export type NoteVisibility = (typeof NOTE_VISIBILITIES)[number];
+export const NOTE_VISIBILITY_LABELS: Record<NoteVisibility, string> = { team: 'Team only', family: 'Shared with family' };
+
+export const CLEARANCE_STATUSES = ['cleared', 'modified', 'referred'] as const;
+export type ClearanceStatus = (typeof CLEARANCE_STATUSES)[number];
+export const CLEARANCE_LABELS: Record<ClearanceStatus, string> = {
+  cleared: 'Train as normal',
+  modified: 'Train with changes',
+  referred: 'Refer on',
+};
+
+/** How long an author may still correct a note; afterwards it is kept as written (our choice). */
+export const NOTE_EDIT_WINDOW_MINUTES = 15;
+export const NOTE_MAX_LENGTH = 4000;
+
+const noteText = string()
+  .trim()
+  .required('Write the note.')
+  .max(NOTE_MAX_LENGTH, `Keep the note under ${NOTE_MAX_LENGTH} characters.`);
+
+export const noteSchema = object({
+  text: noteText,
+  visibility: string()
+    .oneOf([...NOTE_VISIBILITIES], 'Choose "team only" or "shared with family".')
+    .required('Choose "team only" or "shared with family".'),
+  assessmentId: string().trim().uuid('This is not an assessment of this athlete.').optional(),
+});
+export type NoteInput = InferType<typeof noteSchema>;
+
+export const noteEditSchema = object({ text: noteText });
+export type NoteEditInput = InferType<typeof noteEditSchema>;
+
+export const clearanceSchema = object({
+  status: string()
+    .oneOf([...CLEARANCE_STATUSES], 'Choose train as normal, train with changes or refer on.')
+    .required('Choose train as normal, train with changes or refer on.'),
+  detail: string()
+    .trim()
+    .max(1000, 'Keep this under 1000 characters.')
+    .default('')
+    .when('status', {
+      is: 'modified',
+      then: (s) => s.required('Say what to change.'),
+    })
+    .when('status', {
+      is: 'referred',
+      then: (s) => s.required('Say to whom the athlete is referred.'),
+    }),
+});
+export type ClearanceInput = InferType<typeof clearanceSchema>;
+
+export const careSettingsSchema = object({
+  autoReleaseDays: number()
+    .integer('Whole days only.')
+    .min(1, 'At least 1 day, or leave empty to release by hand only.')
+    .max(90, 'At most 90 days.')
+    .nullable()
+    .default(null),
+  photoGraceDays: number().integer('Whole days only.').min(0, 'Zero or more days.').max(365, 'At most 365 days.').required('Enter a number of days.'),
+  photoRetentionMonths: number().integer('Whole months only.').min(1, 'At least 1 month.').max(120, 'At most 120 months.').required('Enter a number of months.'),
+  familyPhotos: boolean().required(),
+  testersReadTeamNotes: boolean().required(),
+});
+export type CareSettingsInput = InferType<typeof careSettingsSchema>;
+
+export const AUDIT_SUBJECTS = ['athlete', 'assessment', 'note', 'clearance', 'consent', 'email', 'photo', 'settings'] as const;
+export type AuditSubject = (typeof AUDIT_SUBJECTS)[number];
+
+/** Filters of the audit trail (query string). */
+export const auditQuerySchema = object({
+  subject: mixed<AuditSubject>().oneOf([...AUDIT_SUBJECTS, undefined], 'Unknown kind of record.').optional(),
+  actorId: string().uuid('Unknown person.').optional(),
+  athleteId: string().uuid('Unknown athlete.').optional(),
+  from: string().matches(/^\d{4}-\d{2}-\d{2}$/, 'Write the date as YYYY-MM-DD.').optional(),
+  to: string().matches(/^\d{4}-\d{2}-\d{2}$/, 'Write the date as YYYY-MM-DD.').optional(),
+  format: string().oneOf(['json', 'csv'], 'Format is json or csv.').optional(),
+});
+export type AuditQuery = InferType<typeof auditQuerySchema>;

@@ -1,0 +1,40 @@
+import { describe, expect, it } from 'vitest';
+import { isLoadedStrength, splitByBlock, strengthBlock } from './strength-block';
+
+const RESULT_AT = '2026-09-14T16:30:00.000Z';
+const ready = { status: 'ready' as const };
+const needsClearance = { status: 'clearance-needed' as const };
+
+describe('strengthBlock (our choice: refer on, or clearance needed without a later clearance, holds loaded strength work)', () => {
+  it.each([
+    ['no clearance, ready plan', ready, null, false, null],
+    ['referred, ready plan', ready, { status: 'referred' as const, setAt: '2026-09-15T00:00:00.000Z' }, true, 'referred'],
+    ['clearance needed, none recorded', needsClearance, null, true, 'clearance-needed'],
+    ['clearance needed, cleared before the result', needsClearance, { status: 'cleared' as const, setAt: '2026-09-01T00:00:00.000Z' }, true, 'clearance-needed'],
+    ['clearance needed, cleared after the result', needsClearance, { status: 'cleared' as const, setAt: '2026-09-20T00:00:00.000Z' }, false, null],
+    ['clearance needed, modified after the result', needsClearance, { status: 'modified' as const, setAt: '2026-09-20T00:00:00.000Z' }, false, null],
+    ['clearance needed, referred after the result', needsClearance, { status: 'referred' as const, setAt: '2026-09-20T00:00:00.000Z' }, true, 'referred'],
+  ])('%s', (_name, plan, clearance, blocked, reason) => {
+    const block = strengthBlock(plan, clearance, RESULT_AT);
+    expect(block.blocked).toBe(blocked);
+    if (block.blocked) expect(block.reason).toBe(reason);
+  });
+});
+
+describe('splitByBlock', () => {
+  const bodyweight = { name: 'bridge', phase: 'activation', prescription: { load: { kind: 'bodyweight' } } };
+  const loaded = { name: 'split squat', phase: 'control', prescription: { load: { kind: 'percent-1rm' } } };
+  const strengthPhase = { name: 'step-up', phase: 'strength', prescription: { load: { kind: 'bodyweight' } } };
+
+  it('marks 1RM-based and strength-phase work as loaded strength work', () => {
+    expect([bodyweight, loaded, strengthPhase].map(isLoadedStrength)).toEqual([false, true, true]);
+  });
+
+  it('holds back only loaded strength work when blocked, and nothing otherwise', () => {
+    const all = [bodyweight, loaded, strengthPhase];
+    expect(splitByBlock(all, { blocked: false })).toEqual({ now: all, held: [] });
+    const split = splitByBlock(all, strengthBlock(needsClearance, null, RESULT_AT));
+    expect(split.now.map((e) => e.name)).toEqual(['bridge']);
+    expect(split.held.map((e) => e.name)).toEqual(['split squat', 'step-up']);
+  });
+});

@@ -1,0 +1,128 @@
+// Response shapes of the care-team API, shared by the server and the screens. Pure.
+import type { ClearanceStatus, NoteVisibility } from './schemas';
+
+export type ClearanceView = {
+  status: ClearanceStatus;
+  detail: string;
+  setByName: string | null;
+  setAt: string;
+} | null;
+
+export type NoteView = {
+  id: string;
+  athleteId: string;
+  assessmentId: string | null;
+  visibility: NoteVisibility;
+  text: string;
+  authorId: string | null;
+  authorName: string | null;
+  createdAt: string;
+  updatedAt: string;
+  /** Until when the author may still correct it (ISO); afterwards it is kept as written. */
+  editableUntil: string;
+  /** The caller wrote it and the edit window is still open. */
+  canEdit: boolean;
+};
+
+export type ReviewItem = {
+  assessmentId: string;
+  athleteId: string;
+  firstName: string;
+  lastName: string;
+  squadName: string | null;
+  roundName: string;
+  screenedOn: string;
+  submittedAt: string;
+  painReported: boolean;
+  clearanceNeeded: boolean;
+  flagCount: number;
+  concernCount: number;
+  clearance: ClearanceView;
+  /** Reviewed (of the current result version) but not yet released to the family. */
+  reviewedAt: string | null;
+  releasedAt: string | null;
+};
+
+export type ReviewState = {
+  reviewedAt: string | null;
+  reviewedByName: string | null;
+  releasedAt: string | null;
+  releasedByName: string | null;
+};
+
+export type FamilyExercise = {
+  name: string;
+  purpose: string;
+  howTo: string[];
+  cue: string;
+  howMuch: string;
+  howOften: string;
+};
+
+/** The plain-words family summary of one screen. No angles, no diagnosis words. */
+export type FamilySummary = {
+  athleteFirstName: string;
+  clubName: string;
+  screenedOn: string;
+  checked: string[];
+  seen: string[];
+  exercises: FamilyExercise[];
+  /** Loaded strength work held back until a physiotherapist clears it, in plain words; null when nothing is held back. */
+  onHold: string | null;
+  howOften: string;
+  recheckDate: string | null;
+  contact: string;
+  cautions: string[];
+};
+
+export type SummaryRelease = { id: string; assessmentId: string; releasedAt: string; summary: FamilySummary };
+
+export type FamilyPhoto = { id: string; thumbUrl: string; url: string; taskTitle: string };
+
+export type FamilyView = {
+  athlete: { id: string; firstName: string; lastName: string };
+  latest: SummaryRelease | null;
+  earlier: SummaryRelease[];
+  notes: NoteView[];
+  /** Empty unless the club lets parents see their own child's photos and photo consent is in force. */
+  photos: FamilyPhoto[];
+  photosAllowed: boolean;
+};
+
+export type ReleasePreview = {
+  subject: string;
+  html: string;
+  text: string;
+  recipients: { displayName: string; email: string }[];
+  /** Parents linked to the athlete who will not get it, and why. */
+  skipped: { displayName: string; reason: string }[];
+};
+
+export type AuditRow = {
+  id: string;
+  at: string;
+  actorId: string | null;
+  actorName: string | null;
+  action: string;
+  subjectKind: string;
+  subjectId: string | null;
+  athleteId: string | null;
+  athleteName: string | null;
+  detail: Record<string, unknown>;
+};
+
+export type CareSettingsView = {
+  autoReleaseDays: number | null;
+  photoGraceDays: number;
+  photoRetentionMonths: number;
+  familyPhotos: boolean;
+  testersReadTeamNotes: boolean;
+};
+
+export type RetentionCandidate = {
+  photoId: string;
+  athleteId: string;
+  athleteName: string;
+  takenAt: string;
+  reason: 'consent-withdrawn' | 'retention-expired';
+};

@@ -1,0 +1,42 @@
+import { stringify } from 'csv-stringify/sync';
+import { Router } from 'express';
+import { ValidationError } from 'yup';
+import type { Db } from '@/db/client';
+import { auditQuerySchema, type AuditQuery } from '@/features/care/schemas';
+import { accessGuards, callerClub, scopeOf } from '@/server/access/guard';
+import { badRequest } from '@/server/http/errors';
+import { fieldErrors } from '@/server/http/validate';
+import { listAudit } from './audit.repo';
+
+export const AUDIT_CSV_COLUMNS = ['time', 'person', 'action', 'record', 'record id', 'athlete', 'details'] as const;
+
+/** The audit trail for admins: filters in the query string, `?format=csv` for the export. */
+export function auditRouter(db: Db) {
+  const router = Router();
+  const { guard } = accessGuards(db);
+
+  router.get('/audit', guard('audit.read', callerClub), async (req, res) => {
+    let query: AuditQuery;
+    try {
+      query = await auditQuerySchema.validate(req.query, { abortEarly: false, stripUnknown: true });
+    } catch (error) {
+      if (error instanceof ValidationError) throw badRequest('Some filters need attention.', fieldErrors(error));
+      throw error;
+    }
+    const scope = scopeOf(res);
+    const csv = query.format === 'csv';
+    const rows = await listAudit(db, scope.clubId, query, csv ? 50_000 : undefined);
+    if (!csv) {
+      res.json({ events: rows });
+      return;
+    }
+    const body = stringify(
+      rows.map((r) => [r.at, r.actorName ?? 'system', r.action, r.subjectKind, r.subjectId ?? '', r.athleteName ?? '', JSON.stringify(r.detail)]),
+      { header: true, columns: [...AUDIT_CSV_COLUMNS] },
+    );
+    res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': 'attachment; filename="squadline-audit.csv"' });
+    res.send(body);
+  });
+
+  return router;
+}

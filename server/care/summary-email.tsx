@@ -1,0 +1,83 @@
+import { Body, Container, Head, Heading, Hr, Html, Link, Preview, render, Section, Text } from '@react-email/components';
+import type { FamilySummary } from '@/features/care/types';
+
+/**
+ * The family-summary e-mail: one React Email template rendered to its HTML part and, through the same
+ * renderer's plain-text mode, to its text part. No images (nothing to block, nothing that tracks).
+ */
+type Props = { summary: FamilySummary; viewUrl: string; unsubscribeUrl: string; recipientName: string };
+
+const styles = {
+  body: { backgroundColor: '#f4f6f5', fontFamily: 'Helvetica, Arial, sans-serif', color: '#1d2a24', margin: 0, padding: '16px 0' },
+  container: { backgroundColor: '#ffffff', maxWidth: '560px', margin: '0 auto', padding: '24px', borderRadius: '8px' },
+  h1: { fontSize: '22px', lineHeight: '28px', margin: '0 0 12px' },
+  h2: { fontSize: '17px', lineHeight: '24px', margin: '20px 0 6px' },
+  text: { fontSize: '16px', lineHeight: '24px', margin: '0 0 8px' },
+  small: { fontSize: '13px', lineHeight: '20px', color: '#4a5a52', margin: '0 0 6px' },
+  link: { color: '#0b6b4f', textDecoration: 'underline' },
+};
+
+export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName }: Props) {
+  const name = summary.athleteFirstName;
+  return (
+    <Html lang="en">
+      <Head />
+      <Preview>{`${name}'s movement screen at ${summary.clubName}: what was seen and what to work on`}</Preview>
+      <Body style={styles.body}>
+        <Container style={styles.container}>
+          <Heading as="h1" style={styles.h1}>{`${name}'s movement screen`}</Heading>
+          <Text style={styles.text}>{`Hello ${recipientName},`}</Text>
+          <Text style={styles.text}>
+            {`${name} took part in a movement screen at ${summary.clubName} on ${summary.screenedOn}. Here is what it means in plain words.`}
+          </Text>
+          <Section>
+            <Heading as="h2" style={styles.h2}>What was checked</Heading>
+            {summary.checked.map((c) => (
+              <Text key={c} style={styles.text}>{`• ${c}`}</Text>
+            ))}
+          </Section>
+          <Section>
+            <Heading as="h2" style={styles.h2}>What we saw</Heading>
+            {summary.seen.map((s) => (
+              <Text key={s} style={styles.text}>{`• ${s}`}</Text>
+            ))}
+          </Section>
+          <Section>
+            <Heading as="h2" style={styles.h2}>{`What ${name} will work on`}</Heading>
+            {summary.exercises.map((e) => (
+              <Text key={e.name} style={styles.text}>{`• ${e.name}: ${e.howMuch}, ${e.howOften}. ${e.purpose}`}</Text>
+            ))}
+            {summary.onHold ? <Text style={styles.text}>{summary.onHold}</Text> : null}
+            <Text style={styles.text}>{summary.howOften}</Text>
+            {summary.recheckDate ? <Text style={styles.text}>{`Next check: around ${summary.recheckDate}.`}</Text> : null}
+          </Section>
+          <Section>
+            <Heading as="h2" style={styles.h2}>See how to do each exercise</Heading>
+            <Text style={styles.text}>
+              <Link href={viewUrl} style={styles.link}>{`Open ${name}'s page in Squadline`}</Link>
+            </Text>
+            <Text style={styles.text}>{summary.contact}</Text>
+          </Section>
+          <Hr />
+          {summary.cautions.map((c) => (
+            <Text key={c} style={styles.small}>{c}</Text>
+          ))}
+          <Text style={styles.small}>
+            {'You receive this because your club recorded your agreement to e-mailed summaries. '}
+            <Link href={unsubscribeUrl} style={styles.link}>Stop these e-mails</Link>
+          </Text>
+        </Container>
+      </Body>
+    </Html>
+  );
+}
+
+export function summarySubject(summary: FamilySummary): string {
+  return `${summary.athleteFirstName}'s movement screen at ${summary.clubName}`;
+}
+
+export async function renderSummaryEmail(props: Props): Promise<{ subject: string; html: string; text: string }> {
+  const element = <SummaryEmail {...props} />;
+  const [html, text] = await Promise.all([render(element), render(element, { plainText: true })]);
+  return { subject: summarySubject(props.summary), html, text };
+}

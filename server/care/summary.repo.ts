@@ -1,0 +1,71 @@
+import { and, asc, desc, eq, isNull } from 'drizzle-orm';
+import { athletes, consents, guardianLinks, memberships, photos, summaryEmails, summaryReleases, users } from '@/db/schema';
+import type { FamilySummary, SummaryRelease } from '@/features/care/types';
+import type { ClubScope } from '@/server/access/scope';
+import type { Executor } from '@/server/screening/screening.repo';
+
+export type Recipient = { userId: string; displayName: string; email: string };
+
+export function summaryRepo(db: Executor, scope: ClubScope) {
+  return {
+    /** Parents of the club linked to the athlete, with whether the family's e-mail consent is in force. */
+    async guardians(athleteId: string): Promise<{ guardians: Recipient[]; emailConsent: boolean }> {
+      const guardians = await db
+        .select({ userId: users.id, displayName: users.displayName, email: users.email })
+        .from(guardianLinks)
+        .innerJoin(users, eq(users.id, guardianLinks.userId))
+        .innerJoin(athletes, eq(athletes.id, guardianLinks.athleteId))
+        .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.clubId, athletes.clubId), eq(memberships.role, 'parent')))
+        .where(and(eq(athletes.clubId, scope.clubId), eq(guardianLinks.athleteId, athleteId)))
+        .orderBy(asc(users.displayName));
+      const [consent] = await db
+        .select({ granted: consents.granted })
+        .from(consents)
+        .where(and(eq(consents.athleteId, athleteId), eq(consents.kind, 'email_summaries')))
+        .orderBy(desc(consents.createdAt), desc(consents.id))
+        .limit(1);
+      return { guardians, emailConsent: consent?.granted === true };
+    },
+
+    async addRelease(values: { assessmentId: string; athleteId: string; resultId: string; releasedBy: string | null; summary: FamilySummary; at?: Date }) {
+      const [row] = await db
+        .insert(summaryReleases)
+        .values({
+          clubId: scope.clubId,
+          assessmentId: values.assessmentId,
+          athleteId: values.athleteId,
+          resultId: values.resultId,
+          releasedBy: values.releasedBy,
+          summary: values.summary,
+          ...(values.at ? { createdAt: values.at } : {}),
+        })
+        .returning({ id: summaryReleases.id, createdAt: summaryReleases.createdAt });
+      return row!;
+    },
+
+    async addEmail(values: { releaseId: string; athleteId: string; userId: string; email: string; tokenHash: string }) {
+      const [row] = await db
+        .insert(summaryEmails)
+        .values({ clubId: scope.clubId, releaseId: values.releaseId, athleteId: values.athleteId, userId: values.userId, email: values.email, unsubscribeTokenHash: values.tokenHash })
+        .returning({ id: summaryEmails.id });
+      return row!.id;
+    },
+
+    async releases(athleteId: string): Promise<SummaryRelease[]> {
+      const rows = await db
+        .select({ id: summaryReleases.id, assessmentId: summaryReleases.assessmentId, createdAt: summaryReleases.createdAt, summary: summaryReleases.summary })
+        .from(summaryReleases)
+        .where(and(eq(summaryReleases.clubId, scope.clubId), eq(summaryReleases.athleteId, athleteId)))
+        .orderBy(desc(summaryReleases.createdAt), desc(summaryReleases.id));
+      return rows.map((r) => ({ id: r.id, assessmentId: r.assessmentId, releasedAt: r.createdAt.toISOString(), summary: r.summary as FamilySummary }));
+    },
+
+    async currentPhotos(assessmentId: string) {
+      return db
+        .select({ id: photos.id, taskId: photos.taskId })
+        .from(photos)
+        .where(and(eq(photos.clubId, scope.clubId), eq(photos.assessmentId, assessmentId), isNull(photos.replacedAt)))
+        .orderBy(asc(photos.taskId), asc(photos.view));
+    },
+  };
+}
