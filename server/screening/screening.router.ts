@@ -4,6 +4,7 @@ import type { Role } from '@/db/schema';
 import { createRoundSchema, planAdjustmentSchema, saveDraftSchema } from '@/features/screening/contract';
 import { scopeForCallerClub, scopeForClub, STAFF, type ClubScope } from '@/server/access/scope';
 import { badRequest, notFound } from '@/server/http/errors';
+import { multipart } from '@/server/http/multipart';
 import { validateBody } from '@/server/http/validate';
 import { MAX_UPLOAD_BYTES } from './photo-processing';
 import { clubOf } from './screening.repo';
@@ -76,7 +77,7 @@ export function screeningRouter(deps: ScreeningDeps) {
       next(error);
     }
   };
-  router.post('/assessments/:id/photos', photoAccess, upload.single('photo'), async (req, res) => {
+  router.post('/assessments/:id/photos', photoAccess, multipart(upload.single('photo')), async (req, res) => {
     const scope = res.locals.scope as ClubScope;
     const body = (req.body ?? {}) as Record<string, unknown>;
     const photo = await service.uploadPhoto(scope, String(req.params.id), { buffer: req.file?.buffer, task: body.task, view: body.view });
