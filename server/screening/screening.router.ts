@@ -22,7 +22,8 @@ export function screeningRouter(deps: ScreeningDeps) {
   const { db } = deps;
   const service = screeningService(deps);
   const router = Router();
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 10 } });
+  // preservePath: a file name with folders reaches multipart(), which refuses it instead of busboy quietly trimming it.
+  const upload = multer({ storage: multer.memoryStorage(), preservePath: true, limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 10 } });
 
   /**
    * The caller's scope in the club that owns the record: 404 for a malformed or unknown id, 403 when
