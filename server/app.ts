@@ -15,6 +15,7 @@ import { devCorsMiddleware, sameOriginMiddleware, sessionMiddleware } from './au
 import { clubsRouter } from './clubs/clubs.router';
 import { errorMiddleware } from './http/error-middleware';
 import { notFound } from './http/errors';
+import { idempotency } from './http/idempotency';
 import type { Outbox } from './mail/outbox';
 import { meRouter } from './me/me.router';
 import { metaRouter, type Mailbox } from './meta/meta.router';
@@ -77,6 +78,8 @@ export function createApp(deps: AppDeps) {
   api.use('/auth', authRouter(authService, auth, config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS));
   // Everything below needs a signed-in user: deny by default.
   api.use(requireSignedIn);
+  // Retried writes (Idempotency-Key) are answered from the first run; see server/http/idempotency.ts.
+  api.use(idempotency(db));
   api.use(meRouter(db));
   api.use(clubsRouter(db, authService));
   api.use(athletesRouter(db));

@@ -35,12 +35,14 @@ export function isDatabaseUnavailable(error: unknown): boolean {
 }
 
 /**
- * PostgreSQL's data exceptions (class 22: out of range, malformed, untranslatable text): a value the
- * validation should have refused. Answered as bad input, never 500; the log keeps it so the schema
- * that let it through gets fixed.
+ * PostgreSQL refusing a value a client can send: text that is not a UUID (22P02), a number out of
+ * range (22003), an impossible date (22007, 22008), text too long (22001). The validation should have
+ * refused it first; this is the net under it, answered as bad input instead of 500, and logged so
+ * the schema that let it through gets fixed. Other data errors (NUL in JSON the server made) stay 500.
  */
+const CLIENT_DATA_CODES = new Set(['22P02', '22003', '22007', '22008', '22001']);
 function databaseDataError(error: unknown): string | null {
-  for (const e of chain(error)) if (typeof e.code === 'string' && /^22[0-9A-Z]{3}$/.test(e.code)) return e.code;
+  for (const e of chain(error)) if (typeof e.code === 'string' && CLIENT_DATA_CODES.has(e.code)) return e.code;
   return null;
 }
 
