@@ -11,10 +11,16 @@ export const MIGRATIONS_DIR = path.join(__dirname, '..', 'migrations');
 
 export function connect(url: string, max = 10): DbHandle {
   // Fail fast when the database is unreachable (the request answers 503) instead of queueing forever.
-  const pool = new Pool({ connectionString: url, max, connectionTimeoutMillis: 5_000 });
+  const pool = new Pool({ connectionString: url, max, connectionTimeoutMillis: 3_000 });
   // An idle client losing its connection (the database restarting or stopping) must not crash the
   // process; the next query reconnects or fails with its own error.
   pool.on('error', (err) => process.stderr.write(`database connection lost: ${err.message}\n`));
+  // A client checked out by a transaction, idle between two statements when the server goes away,
+  // emits 'error' on itself; without a listener that would end the process. The statement that uses
+  // it next fails and the request answers 503.
+  pool.on('connect', (client) => {
+    client.on('error', (err) => process.stderr.write(`database connection lost (in use): ${err.message}\n`));
+  });
   const db = drizzle(pool, { schema });
   return { db, pool, close: () => pool.end() };
 }

@@ -16,6 +16,7 @@ import { clubsRouter } from './clubs/clubs.router';
 import { errorMiddleware } from './http/error-middleware';
 import { notFound } from './http/errors';
 import { idempotency } from './http/idempotency';
+import { postgresRateLimitStore } from './http/rate-limit-store';
 import type { Outbox } from './mail/outbox';
 import { meRouter } from './me/me.router';
 import { metaRouter, type Mailbox } from './meta/meta.router';
@@ -75,7 +76,8 @@ export function createApp(deps: AppDeps) {
   api.use(sameOriginMiddleware(config.devWebOrigin));
   api.use(sessionMiddleware(auth));
   api.use(metaRouter(db, mailbox));
-  api.use('/auth', authRouter(authService, auth, config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS));
+  // Sign-in limits count in PostgreSQL, so several server processes share one count.
+  api.use('/auth', authRouter(authService, auth, config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS, (prefix) => postgresRateLimitStore(db, prefix)));
   // Everything below needs a signed-in user: deny by default.
   api.use(requireSignedIn);
   // Retried writes (Idempotency-Key) are answered from the first run; see server/http/idempotency.ts.
