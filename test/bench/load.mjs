@@ -16,7 +16,7 @@ import os from 'node:os';
 import path from 'node:path';
 import readline from 'node:readline';
 import sharp from 'sharp';
-import { check, client, freePort, log, sleep, startDatabase, tsx } from '../faults/harness.mjs';
+import { check, client, freePort, log, nodeTs, sleep, startDatabase } from '../faults/harness.mjs';
 
 const ROOT = path.resolve(path.dirname(new URL(import.meta.url).pathname), '../..');
 const arg = (name, fallback) => {
@@ -43,7 +43,7 @@ async function seedClub() {
     numbered as (select id, club_id, row_number() over (order by name) - 1 as n from sq),
     ath as (
       insert into athletes (club_id, squad_id, first_name, last_name, date_of_birth, sex, racket_hand, take_off_leg)
-      select s.club_id, s.id, 'Athlete' || g, 'Bench' || (g % 97), (date '2011-01-01' + (g % 1500))::date,
+      select s.club_id, s.id, 'Athlete' || g, 'Bench' || (g % 97), (date '2011-01-01' + (g % 1500)::int)::date,
              (case when g % 2 = 0 then 'female' else 'male' end)::sex,
              (case when g % 7 = 0 then 'left' else 'right' end)::side, (case when g % 3 = 0 then 'right' else 'left' end)::side
       from numbered s, generate_series(1, ${ATHLETES / SQUADS}) g0, lateral (select s.n * ${ATHLETES / SQUADS} + g0 as g) x
@@ -71,7 +71,7 @@ function startSmtp(port, inbox) {
 
 async function startBenchServer(processes, env) {
   const port = await freePort();
-  const proc = tsx(['test/bench/server.ts'], { PORT: String(port), LOG_LEVEL: 'error', BENCH_PROCESSES: String(processes), ...env }, ['ignore', 'inherit', 'inherit']);
+  const proc = nodeTs('test/bench/server.ts', { PORT: String(port), LOG_LEVEL: 'error', BENCH_PROCESSES: String(processes), ...env }, ['ignore', 'inherit', 'inherit']);
   children.add(proc);
   const base = `http://127.0.0.1:${port}`;
   const deadline = Date.now() + 90_000;
@@ -130,6 +130,7 @@ async function run(name, base, options) {
     p95: percentile(latencies, 95),
     p99: percentile(latencies, 99),
     errors: result.errors + result.timeouts + result.non2xx,
+    detail: { errors: result.errors, timeouts: result.timeouts, non2xx: result.non2xx },
     ok,
     statuses,
   };
@@ -239,16 +240,22 @@ async function suite(server, label) {
   const bare = results[0];
   process.stdout.write(`\n${table(results, bare, peakBare, peakAll)}\n\n`);
 
-  // Count what was written against what was acknowledged.
+  // Count what was written against what was acknowledged. A run ends with up to one request per
+  // connection in flight: the server completes it, the benchmark no longer listens. So each count may
+  // exceed the acknowledged one by at most those, never fall short (a lost write) or exceed them (a
+  // doubled one).
+  await sleep(3000); // let the requests in flight at the end finish
   const rows = await db.query('select id, draft_version as v from assessments where id = any($1)', [draftIds]);
-  const lost = rows.filter((r) => r.v !== (acknowledged.get(r.id) ?? 0));
-  check(lost.length === 0, `draft saves: ${drafts.ok} acknowledged, each assessment's version equals its acknowledged saves (${lost.length} differ)`);
+  const wrong = rows.filter((r) => r.v - (acknowledged.get(r.id) ?? 0) < 0 || r.v - (acknowledged.get(r.id) ?? 0) > 1);
+  const inFlight = rows.reduce((n, r) => n + r.v - (acknowledged.get(r.id) ?? 0), 0);
+  check(wrong.length === 0, `draft saves: ${drafts.ok} acknowledged, none lost, none doubled (${inFlight} more were in flight when the run stopped and completed; ${wrong.length} assessments off)`);
   const [photoRows] = await db.query('select count(*)::int as n from photos where assessment_id = any($1)', [photoIds]);
-  check(photoRows.n === photos.ok, `photo uploads: ${photos.ok} acknowledged, ${photoRows.n} stored`);
+  check(photoRows.n >= photos.ok && photoRows.n <= photos.ok + CONNECTIONS, `photo uploads: ${photos.ok} acknowledged, ${photoRows.n} stored (the difference was in flight at the end)`);
   const [sessionsAfter] = await db.query('select count(*)::int as n from sessions');
-  check(sessionsAfter.n - sessionsBefore.n === signIn.ok, `sign-ins: ${signIn.ok} acknowledged, ${sessionsAfter.n - sessionsBefore.n} sessions stored`);
+  const sessions = sessionsAfter.n - sessionsBefore.n;
+  check(sessions >= signIn.ok && sessions <= signIn.ok + CONNECTIONS, `sign-ins: ${signIn.ok} acknowledged, ${sessions} sessions stored`);
   const errors = results.reduce((n, r) => n + r.errors, 0);
-  check(errors === 0, `zero errors across the runs (${JSON.stringify(results.map((r) => [r.name, r.statuses]))})`);
+  check(errors === 0, `zero errors across the runs (${JSON.stringify(results.map((r) => [r.name, r.statuses, r.detail]))})`);
   return results;
 }
 

@@ -1,5 +1,6 @@
 // Shared by the fault runs and the load benchmark: a throw-away PostgreSQL cluster, server processes
 // started as in production (`tsx server/index.ts`), and a small HTTP client with the session cookie.
+import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import pg from 'pg';
@@ -9,6 +10,17 @@ import {
 } from '../../server/dev/bootstrap.mjs';
 
 export { freePort, log, tsx };
+
+const ROOT = path.resolve(path.dirname(new URL(import.meta.url).pathname), '../..');
+
+/**
+ * A TypeScript entry run as production should run it: `node --import tsx <file>`, one process that
+ * receives the signals itself. (The tsx command line sits in between and kills a child with SIGKILL
+ * when it does not acknowledge a signal within 30 ms, which a loaded machine can miss.)
+ */
+export function nodeTs(file, env, stdio = 'inherit') {
+  return spawn(process.execPath, ['--import', 'tsx', file], { cwd: ROOT, env: { ...process.env, ...env }, stdio });
+}
 
 export const DEMO_PASSWORD = 'squadline-demo';
 
@@ -56,7 +68,7 @@ export async function startDatabase(prefix, dbName) {
 /** One server process, as `npm start` runs it in production (no web export). */
 export async function startServer(env, options = {}) {
   const port = options.port ?? (await freePort());
-  const proc = tsx(['server/index.ts'], { PORT: String(port), LOG_LEVEL: 'warn', ...env }, ['ignore', 'inherit', 'inherit']);
+  const proc = nodeTs('server/index.ts', { PORT: String(port), LOG_LEVEL: 'warn', ...env }, ['ignore', 'inherit', 'inherit']);
   const base = `http://127.0.0.1:${port}`;
   const exited = new Promise((resolve) => proc.on('exit', (code, signal) => resolve({ code, signal, at: Date.now() })));
   const deadline = Date.now() + 60_000;

@@ -240,7 +240,8 @@ try {
   check(exit.at - sigtermAt < 8000, `within a few seconds of SIGTERM (${exit.at - sigtermAt} ms)`);
   log(`   in flight at the end: ${failures.length} request(s) answered with ${JSON.stringify([...new Set(failures)])}`);
   const rows = await db.query('select id, storage_key as "storageKey", thumb_key as "thumbKey" from photos where assessment_id = any($1)', [ids3]);
-  const files = new Set(storedFiles(uploads));
+  // The local store keeps a hidden `.<name>.meta.json` beside each file: it belongs to that file.
+  const files = new Set(storedFiles(uploads).map((f) => f.replace(/(^|\/)\.([^/]+)\.meta\.json$/, '$1$2')));
   const rowFiles = new Set(rows.flatMap((r) => [r.storageKey, r.thumbKey]));
   check(rows.every((r) => files.has(r.storageKey) && files.has(r.thumbKey)), `every stored photo row has both its files (${rows.length} photos)`);
   const orphans = [...files].filter((f) => ids3.some((id) => f.includes(id)) && !rowFiles.has(f));
