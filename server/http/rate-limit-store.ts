@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { sql } from 'drizzle-orm';
 import type { Options, Store } from 'express-rate-limit';
 import type { Db } from '@/db/client';
@@ -9,7 +10,8 @@ import type { Db } from '@/db/client';
  */
 export function postgresRateLimitStore(db: Db, prefix: string): Store {
   let windowMs = 60_000;
-  const k = (key: string) => `${prefix}:${key}`;
+  // Keys carry what the client typed (an e-mail address): hashed, so any text fits a key, NUL included.
+  const k = (key: string) => `${prefix}:${createHash('sha256').update(key).digest('hex')}`;
   return {
     prefix,
     localKeys: false,
