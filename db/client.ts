@@ -10,8 +10,9 @@ export type DbHandle = { db: Db; pool: Pool; close(): Promise<void> };
 export const MIGRATIONS_DIR = path.join(__dirname, '..', 'migrations');
 
 export function connect(url: string, max = 10): DbHandle {
-  // Fail fast when the database is unreachable (the request answers 503) instead of queueing forever.
-  const pool = new Pool({ connectionString: url, max, connectionTimeoutMillis: 3_000 });
+  // Never wait forever for a connection: a stopped database refuses at once (the request answers 503);
+  // the timeout also bounds the wait for a free pool slot, so it is generous enough for a busy server.
+  const pool = new Pool({ connectionString: url, max, connectionTimeoutMillis: 5_000 });
   // An idle client losing its connection (the database restarting or stopping) must not crash the
   // process; the next query reconnects or fails with its own error.
   pool.on('error', (err) => process.stderr.write(`database connection lost: ${err.message}\n`));
