@@ -212,8 +212,10 @@ async function suite(server, label) {
       requests: [{ method: 'GET', headers, setupRequest: (req) => ({ ...req, path: `/api/athletes/${athleteIds[h++ % athleteIds.length]}/assessments` }) }],
     }),
   );
-  // Each connection edits its own assessment and follows its version, as a tester's phone does.
-  let next = 0;
+  // Each save takes an assessment nobody else is saving and follows its version, as a tester's phone
+  // does; the answer hands it back with the new version. (autocannon resets a connection's context
+  // after each request, so the free list lives here.) 100 assessments for 50 connections: never empty.
+  const free = draftIds.map((id) => ({ id, version: 0 }));
   const acknowledged = new Map();
   const drafts = await run('draft save', server.base, {
     requests: [
@@ -221,18 +223,18 @@ async function suite(server, label) {
         method: 'PUT',
         headers: { ...headers, 'Content-Type': 'application/json' },
         setupRequest(req, context) {
-          if (!context.id) {
-            context.id = draftIds[next++ % draftIds.length];
-            context.version = 0;
-          }
-          const body = { draftVersion: context.version, draft: { body: { statureCm: 150 }, tasks: { 'two-leg-squat': { criteria: [], notes: `v${context.version}` } } } };
-          return { ...req, path: `/api/assessments/${context.id}`, body: JSON.stringify(body) };
+          const a = free.shift();
+          context.assessment = a;
+          const body = { draftVersion: a.version, draft: { body: { statureCm: 150 }, tasks: { 'two-leg-squat': { criteria: [], notes: `v${a.version}` } } } };
+          return { ...req, path: `/api/assessments/${a.id}`, body: JSON.stringify(body) };
         },
         onResponse(statusCode, body, context) {
+          const a = context.assessment;
           if (statusCode === 200) {
-            context.version = JSON.parse(body).draftVersion;
-            acknowledged.set(context.id, (acknowledged.get(context.id) ?? 0) + 1);
+            a.version = JSON.parse(body).draftVersion;
+            acknowledged.set(a.id, (acknowledged.get(a.id) ?? 0) + 1);
           }
+          free.push(a);
         },
       },
     ],
