@@ -14,7 +14,8 @@ import { devCorsMiddleware, sameOriginMiddleware, sessionMiddleware } from './au
 import { clubsRouter } from './clubs/clubs.router';
 import { errorMiddleware } from './http/error-middleware';
 import { notFound } from './http/errors';
-import { idempotencyMiddleware } from './http/idempotency';
+import { idempotency } from './http/idempotency';
+import { postgresRateLimitStore } from './http/rate-limit-store';
 import type { Outbox } from './mail/outbox';
 import { meRouter } from './me/me.router';
 import { metaRouter, type Mailbox } from './meta/meta.router';
@@ -79,11 +80,13 @@ export function createApp(deps: AppDeps) {
   api.use(sameOriginMiddleware(config.devWebOrigin));
   api.use(sessionMiddleware(auth));
   api.use(metaRouter(db, mailbox));
-  api.use('/auth', authRouter(authService, auth, config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS));
+  // Sign-in limits count in PostgreSQL, so several server processes share one count.
+  api.use('/auth', authRouter(authService, auth, config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS, (prefix) => postgresRateLimitStore(db, prefix)));
   api.use(careRouter({ db, storage: deps.storage, outbox, publicUrl: config.publicUrl }));
   // Everything below needs a signed-in user: deny by default.
   api.use(requireSignedIn);
-  api.use(idempotencyMiddleware(db));
+  // Retried writes (Idempotency-Key) are answered from the first run; see server/http/idempotency.ts.
+  api.use(idempotency(db));
   api.use(meRouter(db));
   api.use(clubsRouter(db, authService));
   api.use(athletesRouter(db));

@@ -1,9 +1,10 @@
-import { integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { users } from './auth';
 
 /**
- * One row per change a device sent with an `Idempotency-Key` header: the first request runs, a repeat
- * (a retry after a lost answer) gets the stored answer instead of running again. Keys are per person.
+ * Requests sent with an `Idempotency-Key` header (a phone retrying after a dropped connection, the
+ * offline sync replaying its queue): the first one runs and its answer is kept here for a day; a
+ * retry with the same key gets that answer again instead of running twice. See server/http/idempotency.ts.
  */
 export const idempotencyKeys = pgTable(
   'idempotency_keys',
@@ -14,10 +15,12 @@ export const idempotencyKeys = pgTable(
     key: text('key').notNull(),
     method: text('method').notNull(),
     path: text('path').notNull(),
+    /** SHA-256 of method, path and JSON body: the same key with another request is refused. */
+    fingerprint: text('fingerprint').notNull(),
     /** Null while the first request is still running. */
     status: integer('status'),
-    body: jsonb('body'),
+    response: jsonb('response'),
     createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
   },
-  (t) => [primaryKey({ columns: [t.userId, t.key] })],
+  (t) => [primaryKey({ columns: [t.userId, t.key] }), index('idempotency_keys_created_idx').on(t.createdAt)],
 );

@@ -5,3 +5,4 @@ export * from './screening';
 export * from './invitation-athletes';
 export * from './idempotency';
 export * from './care';
+export * from './rate-limits';

@@ -35,7 +35,9 @@ const isoDate = (what: string) =>
     .trim()
     .required(`Enter the ${what}.`)
     .matches(ISO_DATE, { message: 'Write the date as YYYY-MM-DD, for example 2014-03-09.', excludeEmptyString: true })
-    .test('calendar', 'This day does not exist in the calendar.', (v) => !v || !ISO_DATE.test(v) || isCalendarDate(v));
+    .test('calendar', 'This day does not exist in the calendar.', (v) => !v || !ISO_DATE.test(v) || isCalendarDate(v))
+    // Nobody on a junior roster was born, or decided anything, before 1900: a typing error (our choice).
+    .test('since-1900', 'Check the year: dates before 1900 are not accepted.', (v) => !v || !ISO_DATE.test(v) || v >= '1900-01-01');
 
 const name = (what: string) =>
   string().trim().required(`Enter the ${what}.`).max(60, `Keep the ${what} under 60 characters.`);
@@ -55,7 +57,7 @@ const dateOfBirth = isoDate('date of birth').test('junior-age', function check(v
 
 const sex = string().oneOf([...SEX_VALUES], 'Choose female or male.').required('Choose female or male.');
 const side = (what: string) => string().oneOf([...SIDE_VALUES], `Choose the ${what}.`).required(`Choose the ${what}.`);
-const squadId = string().trim().required('Choose a squad.');
+const squadId = string().trim().required('Choose a squad.').uuid('Choose a squad.');
 const email = string().trim().lowercase().email('Enter a valid e-mail address.');
 
 // ---------------------------------------------------------------------------------------------------

@@ -32,8 +32,15 @@ export type AssessmentDraft = {
   step?: string;
 };
 
+/**
+ * yup casts a list or a boolean to a number ([150] → 150, true → 1); a number field takes only a number
+ * or the text of one, anything else is a type error.
+ */
+const numberOrText = (v: unknown, original: unknown) => (typeof original === 'number' || typeof original === 'string' ? v : NaN);
+
 const optionalNumber = (min: number, max: number, what: string) =>
   number()
+    .transform(numberOrText)
     .transform((v, original) => (original === '' || original === null ? null : v))
     .nullable()
     .typeError(`${what} must be a number.`)
@@ -62,7 +69,17 @@ export const bodySchema = object({
   massKg: optionalNumber(...BODY_LIMITS.massKg, 'Body mass (kg)'),
 });
 
-const pointSchema = object({ x: number().required().min(0), y: number().required().min(0) });
+/** Photos are scaled to 1600 px at most; a point far outside any photo is a broken client, not a landmark. */
+export const MAX_POINT_PX = 10_000;
+const coordinate = (axis: 'x' | 'y') =>
+  number()
+    .transform(numberOrText)
+    .typeError(`${axis} must be a number.`)
+    .required(`${axis} is required.`)
+    .test('finite', `${axis} must be a finite number.`, (v) => v === undefined || Number.isFinite(v))
+    .min(0, `${axis} must be at least 0.`)
+    .max(MAX_POINT_PX, `${axis} must be at most ${MAX_POINT_PX}.`);
+const pointSchema = object({ x: coordinate('x'), y: coordinate('y') });
 
 export const taskDraftSchema = object({
   criteria: array(string().required()).default([]),
@@ -83,14 +100,26 @@ function validPoints(value: unknown): boolean {
   return Object.values(value as Record<string, unknown>).every((p) => pointSchema.isValidSync(p));
 }
 
+/** The largest value of the database's integer column (2^31 - 1). */
+export const MAX_DRAFT_VERSION = 2_147_483_647;
+
 export const saveDraftSchema = object({
-  draftVersion: number().integer().min(0).required('draftVersion is required.'),
+  draftVersion: number()
+    .transform(numberOrText)
+    .typeError('draftVersion must be a whole number.')
+    .integer('draftVersion must be a whole number.')
+    .min(0, 'draftVersion must be at least 0.')
+    .max(MAX_DRAFT_VERSION, 'draftVersion is out of range: reload the assessment.')
+    .required('draftVersion is required.'),
   draft: object({
     body: bodySchema.default({}),
     tasks: mixed<Record<string, unknown>>().default({}),
     oneRepMaxKg: optionalNumber(...BODY_LIMITS.oneRepMaxKg, '1RM (kg)'),
     step: string().max(64),
-  }).required(),
+  })
+    // Without this, yup fills a missing draft with {} and the save would wipe the tester's work.
+    .default(undefined)
+    .required('draft is required.'),
 });
 export type SaveDraftInput = InferType<typeof saveDraftSchema>;
 
@@ -99,7 +128,13 @@ export const createRoundSchema = object({
   name: string().trim().min(2, 'Name the round, for example "Pre-season".').max(80).required('Name the round.'),
   screenedOn: string()
     .matches(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-09-14.')
-    .required('Choose the screening date.'),
+    .required('Choose the screening date.')
+    .test('plausible', 'Choose a date from 2000 up to one year ahead.', (v) => {
+      if (!v || !/^\d{4}-\d{2}-\d{2}$/.test(v)) return true;
+      // Rounds may be planned ahead, but not for a year nobody is screening in (our choice).
+      const yearAhead = new Date(Date.now() + 366 * 24 * 3600 * 1000).toISOString().slice(0, 10);
+      return v >= '2000-01-01' && v <= yearAhead;
+    }),
 });
 export type CreateRoundInput = InferType<typeof createRoundSchema>;
 

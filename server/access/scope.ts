@@ -3,6 +3,7 @@ import type { Request, RequestHandler } from 'express';
 import type { Db } from '@/db/client';
 import { clubs, guardianLinks, memberships, type Role } from '@/db/schema';
 import { badRequest, forbidden, unauthorized } from '@/server/http/errors';
+import { isUuid } from '@/server/http/ids';
 
 export type MembershipView = { clubId: string; clubName: string; role: Role };
 
@@ -62,7 +63,12 @@ export async function scopeForClub(db: Db, req: Request, clubId: string, roles: 
 export async function scopeForCallerClub(db: Db, req: Request, roles: readonly Role[]): Promise<ClubScope> {
   const userId = signedInUserId(req);
   const header = req.get('x-club-id');
-  if (header) return scopeForClub(db, req, header, roles);
+  if (header !== undefined && header !== '') {
+    if (!isUuid(header.trim())) {
+      throw badRequest('The X-Club-Id header does not name a club.', { 'X-Club-Id': 'Must be a club id (a UUID such as 0f8fad5b-d9cb-469f-a165-70867728950e).' });
+    }
+    return scopeForClub(db, req, header.trim(), roles);
+  }
   const mine = await membershipsOf(db, userId);
   if (mine.length === 0) throw forbidden('You are not a member of any club.');
   if (mine.length > 1) throw badRequest('You belong to several clubs: choose one (X-Club-Id header).');

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import { ipKeyGenerator, rateLimit, type Store } from 'express-rate-limit';
 import {
   acceptInvitationSchema, requestResetSchema, resetPasswordSchema, signInSchema,
   type AcceptInvitationInput, type RequestResetInput, type ResetPasswordInput, type SignInInput,
@@ -13,10 +13,15 @@ import { clearSessionCookie, setSessionCookie } from './session-middleware';
 export type SignInLimits = { windowMs: number; perAccount: number; perAddress: number };
 export const DEFAULT_SIGN_IN_LIMITS: SignInLimits = { windowMs: 15 * 60 * 1000, perAccount: 8, perAddress: 40 };
 
-export function authRouter(service: AuthService, auth: Auth, limits: SignInLimits = DEFAULT_SIGN_IN_LIMITS) {
+/**
+ * `storeFor` gives each limit a store shared by every server process (createApp passes the PostgreSQL
+ * store); without it the counters live in this process's memory.
+ */
+export function authRouter(service: AuthService, auth: Auth, limits: SignInLimits = DEFAULT_SIGN_IN_LIMITS, storeFor?: (prefix: string) => Store) {
   const router = Router();
-  const limited = (limit: number, key: (req: import('express').Request) => string) =>
+  const limited = (name: string, limit: number, key: (req: import('express').Request) => string) =>
     rateLimit({
+      ...(storeFor ? { store: storeFor(`sign-in-${name}`) } : {}),
       windowMs: limits.windowMs,
       limit,
       standardHeaders: 'draft-8',
@@ -29,8 +34,8 @@ export function authRouter(service: AuthService, auth: Auth, limits: SignInLimit
     });
   const ip = (req: import('express').Request) => ipKeyGenerator(req.ip ?? 'unknown');
   // One limit per e-mail and address (guessing one account), one per address (spraying many).
-  const perAccount = limited(limits.perAccount, (req) => `${ip(req)}|${String(req.body?.email ?? '').trim().toLowerCase()}`);
-  const perAddress = limited(limits.perAddress, ip);
+  const perAccount = limited('account', limits.perAccount, (req) => `${ip(req)}|${String(req.body?.email ?? '').trim().toLowerCase()}`);
+  const perAddress = limited('address', limits.perAddress, ip);
 
   router.post('/sign-in', perAddress, perAccount, validateBody(signInSchema), async (req, res) => {
     const { email, password } = req.body as SignInInput;

@@ -25,10 +25,20 @@ const unsupported = (message: string) => new AppError(415, 'unsupported_type', m
 export async function processPhoto(input: Buffer): Promise<ProcessedPhoto> {
   let format: string | undefined;
   let compression: string | undefined;
+  let width: number | undefined;
+  let height: number | undefined;
   try {
-    ({ format, compression } = await sharp(input, { limitInputPixels: MAX_INPUT_PIXELS }).metadata());
+    // metadata() reads the header only: a decompression bomb is seen here before any pixel is decoded.
+    ({ format, compression, width, height } = await sharp(input, { limitInputPixels: false }).metadata());
   } catch {
     throw unsupported('This file is not a photo we can read. Send a JPEG, PNG, WebP or AVIF image.');
+  }
+  if (width !== undefined && height !== undefined && width * height > MAX_INPUT_PIXELS) {
+    throw new AppError(
+      413,
+      'too_many_pixels',
+      `This image is ${width} x ${height} pixels, more than any phone camera takes (at most ${MAX_INPUT_PIXELS / 1_000_000} megapixels). Send the photo as the camera took it.`,
+    );
   }
   if (!format || !ACCEPTED.has(format)) {
     throw unsupported(`${format ? `${format.toUpperCase()} files are` : 'This file is'} not accepted: send a JPEG, PNG, WebP or AVIF photo.`);

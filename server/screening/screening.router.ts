@@ -5,6 +5,7 @@ import { createRoundSchema, planAdjustmentSchema, saveDraftSchema } from '@/feat
 import { PLAN_ADJUSTERS } from '@/features/screening/roles';
 import { scopeForCallerClub, scopeForClub, STAFF, type ClubScope } from '@/server/access/scope';
 import { badRequest, notFound } from '@/server/http/errors';
+import { multipart } from '@/server/http/multipart';
 import { validateBody } from '@/server/http/validate';
 import { MAX_UPLOAD_BYTES } from './photo-processing';
 import { clubOf } from './screening.repo';
@@ -24,7 +25,8 @@ export function screeningRouter(deps: ScreeningDeps) {
   const { db } = deps;
   const service = screeningService(deps);
   const router = Router();
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 10 } });
+  // preservePath: a file name with folders reaches multipart(), which refuses it instead of busboy quietly trimming it.
+  const upload = multer({ storage: multer.memoryStorage(), preservePath: true, limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 10 } });
 
   /**
    * The caller's scope in the club that owns the record: 404 for a malformed or unknown id, 403 when
@@ -89,7 +91,7 @@ export function screeningRouter(deps: ScreeningDeps) {
       next(error);
     }
   };
-  router.post('/assessments/:id/photos', photoAccess, upload.single('photo'), async (req, res) => {
+  router.post('/assessments/:id/photos', photoAccess, multipart(upload.single('photo')), async (req, res) => {
     const scope = res.locals.scope as ClubScope;
     const body = (req.body ?? {}) as Record<string, unknown>;
     const photo = await service.uploadPhoto(scope, String(req.params.id), { buffer: req.file?.buffer, task: body.task, view: body.view });

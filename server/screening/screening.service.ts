@@ -153,6 +153,13 @@ export async function submitAssessment(
     if (!(await repo.lockAssessment(assessmentId))) throw notFound('The assessment');
     // Read after taking the lock: this is the draft that gets evaluated.
     const a = (await repo.assessment(assessmentId))!;
+    // Submitted, and no draft saved since (a save sets it back to in progress): this is the same submit
+    // again, a retry after a lost answer or a double tap. It returns the result already made, with the
+    // same engine, instead of adding a second version of the same draft.
+    if (a.status === 'submitted') {
+      const current = await repo.currentResult(assessmentId);
+      if (current && current.engineVersion === ENGINE_VERSION) return;
+    }
     if (!hasTaskData(a.draft)) {
       throw badRequest('There is nothing to submit yet: record at least one task (skipped tasks do not count).', { 'draft.tasks': 'Record at least one task.' });
     }

@@ -1,5 +1,17 @@
 CREATE TYPE "public"."clearance_status" AS ENUM('cleared', 'modified', 'referred');--> statement-breakpoint
 CREATE TYPE "public"."note_visibility" AS ENUM('team', 'family');--> statement-breakpoint
+CREATE TABLE "idempotency_keys" (
+	"user_id" uuid NOT NULL,
+	"key" text NOT NULL,
+	"method" text NOT NULL,
+	"path" text NOT NULL,
+	"fingerprint" text NOT NULL,
+	"status" integer,
+	"response" jsonb,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	CONSTRAINT "idempotency_keys_user_id_key_pk" PRIMARY KEY("user_id","key")
+);
+--> statement-breakpoint
 CREATE TABLE "assessment_reviews" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"club_id" uuid NOT NULL,
@@ -78,6 +90,13 @@ CREATE TABLE "summary_releases" (
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL
 );
 --> statement-breakpoint
+CREATE TABLE "rate_limit_hits" (
+	"key" text PRIMARY KEY NOT NULL,
+	"hits" integer NOT NULL,
+	"reset_at" timestamp with time zone NOT NULL
+);
+--> statement-breakpoint
+ALTER TABLE "idempotency_keys" ADD CONSTRAINT "idempotency_keys_user_id_users_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."users"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "assessment_reviews" ADD CONSTRAINT "assessment_reviews_club_id_clubs_id_fk" FOREIGN KEY ("club_id") REFERENCES "public"."clubs"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "assessment_reviews" ADD CONSTRAINT "assessment_reviews_assessment_id_assessments_id_fk" FOREIGN KEY ("assessment_id") REFERENCES "public"."assessments"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "assessment_reviews" ADD CONSTRAINT "assessment_reviews_result_id_assessment_results_id_fk" FOREIGN KEY ("result_id") REFERENCES "public"."assessment_results"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
@@ -102,6 +121,7 @@ ALTER TABLE "summary_releases" ADD CONSTRAINT "summary_releases_assessment_id_as
 ALTER TABLE "summary_releases" ADD CONSTRAINT "summary_releases_athlete_id_athletes_id_fk" FOREIGN KEY ("athlete_id") REFERENCES "public"."athletes"("id") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "summary_releases" ADD CONSTRAINT "summary_releases_result_id_assessment_results_id_fk" FOREIGN KEY ("result_id") REFERENCES "public"."assessment_results"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "summary_releases" ADD CONSTRAINT "summary_releases_released_by_users_id_fk" FOREIGN KEY ("released_by") REFERENCES "public"."users"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+CREATE INDEX "idempotency_keys_created_idx" ON "idempotency_keys" USING btree ("created_at");--> statement-breakpoint
 CREATE INDEX "assessment_reviews_assessment_idx" ON "assessment_reviews" USING btree ("assessment_id","created_at");--> statement-breakpoint
 CREATE INDEX "audit_events_club_idx" ON "audit_events" USING btree ("club_id","created_at");--> statement-breakpoint
 CREATE INDEX "audit_events_athlete_idx" ON "audit_events" USING btree ("athlete_id");--> statement-breakpoint

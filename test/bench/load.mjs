@@ -1,0 +1,364 @@
+// `npm run bench:load [-- --processes 2] [--duration 30] [--connections 50]`
+//
+// Load benchmark with autocannon against a seeded club of 2,000 athletes: sign-in, squad list, athlete
+// history, draft saves and photo uploads, each for `--duration` seconds with `--connections`
+// connections, beside a bare route of the same server in the same run (figures as ratios to it).
+// Prints requests per second, p50/p95/p99 latency, errors and the server's peak memory, then counts
+// what was written (zero lost writes is the bar). With `--processes N` (N > 1) the same runs are made
+// on one process and on N processes sharing the port (Node's cluster module), and the checks that
+// several processes must pass are made: sessions, sign-in rate limits, the e-mail queue and draft
+// version checks behave as with one.
+import autocannon from 'autocannon';
+import { spawn } from 'node:child_process';
+import { randomUUID } from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import readline from 'node:readline';
+import sharp from 'sharp';
+import { check, client, freePort, log, nodeTs, sleep, startDatabase } from '../faults/harness.mjs';
+
+const ROOT = path.resolve(path.dirname(new URL(import.meta.url).pathname), '../..');
+const arg = (name, fallback) => {
+  const i = process.argv.indexOf(`--${name}`);
+  return i >= 0 ? Number(process.argv[i + 1]) : fallback;
+};
+const PROCESSES = arg('processes', 1);
+const DURATION = arg('duration', 30);
+const CONNECTIONS = arg('connections', 50);
+const ATHLETES = 2000;
+const SQUADS = 20;
+
+const work = fs.mkdtempSync(path.join(os.tmpdir(), 'squadline-bench-'));
+const db = await startDatabase('squadline-bench-', 'squadline_bench');
+const children = new Set();
+let status = 0;
+
+async function seedClub() {
+  // One statement per table: a club, 20 squads of 100, 2,000 athletes with photo consent, a head coach
+  // signing in with the demo password (its hash is copied from a demo account).
+  await db.query(`
+    with club as (insert into clubs (name) values ('Bench Racket Club') returning id),
+    sq as (insert into squads (club_id, name) select club.id, 'Squad ' || lpad(g::text, 2, '0') from club, generate_series(1, ${SQUADS}) g returning id, club_id, name),
+    numbered as (select id, club_id, row_number() over (order by name) - 1 as n from sq),
+    ath as (
+      insert into athletes (club_id, squad_id, first_name, last_name, date_of_birth, sex, racket_hand, take_off_leg)
+      select s.club_id, s.id, 'Athlete' || g, 'Bench' || (g % 97), (date '2011-01-01' + (g % 1500)::int)::date,
+             (case when g % 2 = 0 then 'female' else 'male' end)::sex,
+             (case when g % 7 = 0 then 'left' else 'right' end)::side, (case when g % 3 = 0 then 'right' else 'left' end)::side
+      from numbered s, generate_series(1, ${ATHLETES / SQUADS}) g0, lateral (select s.n * ${ATHLETES / SQUADS} + g0 as g) x
+      returning id)
+    insert into consents (athlete_id, kind, granted, decided_on) select id, 'photos', true, date '2026-09-01' from ath`);
+  await db.query(`
+    with u as (insert into users (email, display_name, password_hash)
+               select 'coach@bench.test', 'Bench Coach', password_hash from users where email = 'tester@squadline.test' returning id)
+    insert into memberships (user_id, club_id, role) select u.id, c.id, 'head_coach' from u, clubs c where c.name = 'Bench Racket Club'`);
+  const [n] = await db.query(`select count(*)::int as n from athletes a join clubs c on c.id = a.club_id where c.name = 'Bench Racket Club'`);
+  check(n.n === ATHLETES, `seeded a club of ${n.n} athletes in ${SQUADS} squads`);
+}
+
+function startSmtp(port, inbox) {
+  const proc = spawn(path.join(ROOT, 'node_modules', '.bin', 'tsx'), ['test/faults/smtp.ts', String(port)], { cwd: ROOT, stdio: ['ignore', 'pipe', 'inherit'] });
+  children.add(proc);
+  return new Promise((resolve) => {
+    readline.createInterface({ input: proc.stdout }).on('line', (line) => {
+      const msg = JSON.parse(line);
+      if (msg.listening) resolve(proc);
+      if (msg.message) inbox.push(msg.message);
+    });
+  });
+}
+
+async function startBenchServer(processes, env) {
+  const port = await freePort();
+  const proc = nodeTs('test/bench/server.ts', { PORT: String(port), LOG_LEVEL: 'error', BENCH_PROCESSES: String(processes), ...env }, ['ignore', 'inherit', 'inherit']);
+  children.add(proc);
+  const base = `http://127.0.0.1:${port}`;
+  const deadline = Date.now() + 90_000;
+  // Ready when every process answers (each has its own pid).
+  const pids = new Set();
+  while (pids.size < processes) {
+    if (Date.now() > deadline) throw new Error('bench server did not start');
+    try {
+      const res = await fetch(`${base}/api/health`);
+      if (res.ok) pids.add(res.headers.get('x-bench-pid'));
+    } catch {
+      await sleep(300);
+    }
+  }
+  return {
+    base,
+    async stop() {
+      const exited = new Promise((r) => proc.on('exit', r));
+      proc.kill('SIGTERM');
+      await exited;
+      children.delete(proc);
+    },
+    /** Peak resident memory of each server process (asked until every pid answered). */
+    async peakMemory() {
+      const seen = new Map();
+      for (let i = 0; i < 40 && seen.size < processes; i++) {
+        const m = await (await fetch(`${base}/bench/memory`, { headers: { Connection: 'close' } })).json();
+        seen.set(m.pid, m.peakRssBytes);
+      }
+      return Math.max(...seen.values());
+    },
+  };
+}
+
+function percentile(sorted, p) {
+  if (sorted.length === 0) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))];
+}
+
+/** One autocannon run; latencies collected per response to give p95 too. */
+async function run(name, base, options) {
+  const latencies = [];
+  const statuses = {};
+  // 30 s timeout: on a small shared machine a photo upload can queue behind others for a while.
+  const instance = autocannon({ url: base, connections: CONNECTIONS, duration: DURATION, timeout: 30, ...options });
+  instance.on('response', (_client, statusCode, _bytes, responseTime) => {
+    latencies.push(responseTime);
+    statuses[statusCode] = (statuses[statusCode] ?? 0) + 1;
+  });
+  const result = await instance;
+  latencies.sort((a, b) => a - b);
+  const ok = Object.entries(statuses).filter(([s]) => Number(s) < 300).reduce((n, [, c]) => n + c, 0);
+  return {
+    name,
+    rps: result.requests.average,
+    p50: percentile(latencies, 50),
+    p95: percentile(latencies, 95),
+    p99: percentile(latencies, 99),
+    errors: result.errors + result.timeouts + result.non2xx,
+    detail: { errors: result.errors, timeouts: result.timeouts, non2xx: result.non2xx },
+    ok,
+    statuses,
+  };
+}
+
+function table(rows, bare, peakBare, peakAll) {
+  const f = (n, d = 0) => (Number.isFinite(n) ? n.toFixed(d) : '-');
+  const lines = [
+    `| route | req/s | vs bare | p50 ms | p95 ms | p99 ms | errors |`,
+    `| --- | ---: | ---: | ---: | ---: | ---: | ---: |`,
+    ...rows.map((r) => `| ${r.name} | ${f(r.rps)} | ${f(r.rps / bare.rps, 3)} | ${f(r.p50)} | ${f(r.p95)} | ${f(r.p99)} | ${r.errors} |`),
+  ];
+  lines.push('', `server peak memory: ${f(peakBare / 2 ** 20)} MB after the bare run, ${f(peakAll / 2 ** 20)} MB after all runs (x${f(peakAll / peakBare, 2)})`);
+  return lines.join('\n');
+}
+
+async function jpeg() {
+  return sharp({ create: { width: 1200, height: 1600, channels: 3, background: '#5b7fa6' } })
+    .composite([{ input: Buffer.from('<svg width="1200" height="1600"><circle cx="600" cy="500" r="250" fill="#223"/></svg>') }])
+    .jpeg({ quality: 85 })
+    .toBuffer();
+}
+
+function multipartBody(photo) {
+  const b = `----bench${randomUUID().replaceAll('-', '')}`;
+  const part = (name, value) => `--${b}\r\nContent-Disposition: form-data; name="${name}"\r\n\r\n${value}\r\n`;
+  const body = Buffer.concat([
+    Buffer.from(part('task', 'two-leg-squat') + part('view', 'front') + `--${b}\r\nContent-Disposition: form-data; name="photo"; filename="squat.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`),
+    photo,
+    Buffer.from(`\r\n--${b}--\r\n`),
+  ]);
+  return { body, contentType: `multipart/form-data; boundary=${b}` };
+}
+
+/** All runs against one server; returns the figures and checks every write was kept. */
+async function suite(server, label) {
+  log(`--- ${label}: ${CONNECTIONS} connections, ${DURATION} s per route ---`);
+  const coach = await client(server.base, 'coach@bench.test');
+  const squads = (await coach.call('GET', '/api/squads')).body.squads;
+  const athletes = (await coach.call('GET', `/api/squads/${squads[0].id}/athletes`)).body;
+  const athleteIds = (athletes.athletes ?? athletes).map((a) => a.id);
+  // Fresh rounds for this suite: draft saves on one squad, photos on another.
+  const round = async (squadId) => {
+    const r = await coach.call('POST', '/api/rounds', { json: { squadId, name: `Bench ${label}`, screenedOn: '2026-11-20' } });
+    if (r.status !== 201) throw new Error(`round: ${r.status} ${JSON.stringify(r.body)}`);
+    return r.body.athletes.map((a) => a.assessmentId);
+  };
+  const draftIds = await round(squads[1].id);
+  const photoIds = await round(squads[2].id);
+  const headers = { Cookie: coach.cookie };
+  const results = [];
+
+  results.push(await run('bare route (baseline)', server.base, { requests: [{ method: 'GET', path: '/bench/bare' }] }));
+  const peakBare = await server.peakMemory();
+  const [sessionsBefore] = await db.query('select count(*)::int as n from sessions');
+  // Each connection is one phone with its own address, as behind a load balancer that sets
+  // X-Forwarded-For (trusted from loopback only): 50 sign-ins at once from one address would be held
+  // back by the per-address limit, which counts attempts until they succeed.
+  let phone = 0;
+  const signIn = await run('sign-in', server.base, {
+    requests: [
+      {
+        method: 'POST',
+        path: '/api/auth/sign-in',
+        body: JSON.stringify({ email: 'coach@bench.test', password: 'squadline-demo' }),
+        setupRequest(req, context) {
+          context.address ??= `10.${label.length}.${Math.floor(phone / 250)}.${(phone++ % 250) + 1}`;
+          return { ...req, headers: { 'Content-Type': 'application/json', 'X-Forwarded-For': context.address } };
+        },
+      },
+    ],
+  });
+  results.push(signIn);
+  results.push(await run('squad list (100 athletes)', server.base, { requests: [{ method: 'GET', path: `/api/squads/${squads[0].id}/athletes`, headers }] }));
+  let h = 0;
+  results.push(
+    await run('athlete history', server.base, {
+      requests: [{ method: 'GET', headers, setupRequest: (req) => ({ ...req, path: `/api/athletes/${athleteIds[h++ % athleteIds.length]}/assessments` }) }],
+    }),
+  );
+  // Each save takes an assessment nobody else is saving and follows its version, as a tester's phone
+  // does; the answer hands it back with the new version. (autocannon resets a connection's context
+  // after each request, so the free list lives here.) 100 assessments for 50 connections: never empty.
+  const free = draftIds.map((id) => ({ id, version: 0 }));
+  const acknowledged = new Map();
+  const drafts = await run('draft save', server.base, {
+    requests: [
+      {
+        method: 'PUT',
+        headers: { ...headers, 'Content-Type': 'application/json' },
+        setupRequest(req, context) {
+          const a = free.shift();
+          context.assessment = a;
+          const body = { draftVersion: a.version, draft: { body: { statureCm: 150 }, tasks: { 'two-leg-squat': { criteria: [], notes: `v${a.version}` } } } };
+          return { ...req, path: `/api/assessments/${a.id}`, body: JSON.stringify(body) };
+        },
+        onResponse(statusCode, body, context) {
+          const a = context.assessment;
+          if (statusCode === 200) {
+            a.version = JSON.parse(body).draftVersion;
+            acknowledged.set(a.id, (acknowledged.get(a.id) ?? 0) + 1);
+          }
+          free.push(a);
+        },
+      },
+    ],
+  });
+  results.push(drafts);
+  const upload = multipartBody(await jpeg());
+  let p = 0;
+  const photos = await run('photo upload (1200x1600 JPEG)', server.base, {
+    requests: [
+      {
+        method: 'POST',
+        headers: { ...headers, 'Content-Type': upload.contentType },
+        body: upload.body,
+        setupRequest: (req) => ({ ...req, path: `/api/assessments/${photoIds[p++ % photoIds.length]}/photos` }),
+      },
+    ],
+  });
+  results.push(photos);
+  const peakAll = await server.peakMemory();
+  const bare = results[0];
+  process.stdout.write(`\n${table(results, bare, peakBare, peakAll)}\n\n`);
+
+  // Count what was written against what was acknowledged. A run ends with up to one request per
+  // connection in flight: the server completes it, the benchmark no longer listens. So each count may
+  // exceed the acknowledged one by at most those, never fall short (a lost write) or exceed them (a
+  // doubled one).
+  await sleep(3000); // let the requests in flight at the end finish
+  const rows = await db.query('select id, draft_version as v from assessments where id = any($1)', [draftIds]);
+  const wrong = rows.filter((r) => r.v - (acknowledged.get(r.id) ?? 0) < 0 || r.v - (acknowledged.get(r.id) ?? 0) > 1);
+  const inFlight = rows.reduce((n, r) => n + r.v - (acknowledged.get(r.id) ?? 0), 0);
+  check(wrong.length === 0, `draft saves: ${drafts.ok} acknowledged, none lost, none doubled (${inFlight} more were in flight when the run stopped and completed; ${wrong.length} assessments off)`);
+  const [photoRows] = await db.query('select count(*)::int as n from photos where assessment_id = any($1)', [photoIds]);
+  check(photoRows.n >= photos.ok && photoRows.n <= photos.ok + CONNECTIONS, `photo uploads: ${photos.ok} acknowledged, ${photoRows.n} stored (the difference was in flight at the end)`);
+  const [sessionsAfter] = await db.query('select count(*)::int as n from sessions');
+  const sessions = sessionsAfter.n - sessionsBefore.n;
+  check(sessions >= signIn.ok && sessions <= signIn.ok + CONNECTIONS, `sign-ins: ${signIn.ok} acknowledged, ${sessions} sessions stored`);
+  const errors = results.reduce((n, r) => n + r.errors, 0);
+  check(errors === 0, `zero errors across the runs (${JSON.stringify(results.map((r) => [r.name, r.statuses, r.detail]))})`);
+  return results;
+}
+
+/** What several processes must do as one. */
+async function multiProcessChecks(server, inbox) {
+  log(`--- ${PROCESSES} processes behave as one ---`);
+  const coach = await client(server.base, 'coach@bench.test');
+  const pids = new Set();
+  let ok = 0;
+  for (let i = 0; i < 20; i++) {
+    const res = await fetch(`${server.base}/api/me`, { headers: { Cookie: coach.cookie, Connection: 'close' } });
+    pids.add(res.headers.get('x-bench-pid'));
+    if (res.status === 200) ok += 1;
+  }
+  check(ok === 20 && pids.size === PROCESSES, `sessions: one sign-in is valid on every process (20/20 answered by ${pids.size} processes)`);
+
+  const attempts = [];
+  for (let i = 0; i < 14; i++) {
+    const res = await fetch(`${server.base}/api/auth/sign-in`, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json', Connection: 'close' },
+      body: JSON.stringify({ email: 'admin@squadline.test', password: 'wrong password' }),
+    });
+    attempts.push(res.status);
+  }
+  const beforeLimit = attempts.findIndex((s) => s === 429);
+  check(beforeLimit === 8, `rate limits: the 9th wrong password for one account is refused, whichever process gets it (${attempts.join(' ')})`);
+
+  const before = inbox.length;
+  for (let i = 0; i < 10; i++) {
+    await fetch(`${server.base}/api/auth/password-reset`, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json', Connection: 'close' },
+      body: JSON.stringify({ email: 'physio@squadline.test' }),
+    });
+  }
+  const started = Date.now();
+  while (inbox.length - before < 10 && Date.now() - started < 30_000) await sleep(200);
+  await sleep(3000);
+  const got = inbox.slice(before).filter((m) => m.to.includes('physio@squadline.test')).length;
+  check(got === 10, `e-mail queue: 10 requests, ${got} e-mails delivered (none lost, none doubled)`);
+
+  const squads = (await coach.call('GET', '/api/squads')).body.squads;
+  const r = await coach.call('POST', '/api/rounds', { json: { squadId: squads[3].id, name: 'Version race', screenedOn: '2026-11-21' } });
+  const ids = r.body.athletes.slice(0, 20).map((a) => a.assessmentId);
+  let exactlyOne = 0;
+  for (const id of ids) {
+    const save = () =>
+      fetch(`${server.base}/api/assessments/${id}`, {
+        method: 'PUT',
+        headers: { Cookie: coach.cookie, 'Content-Type': 'application/json', Connection: 'close' },
+        body: JSON.stringify({ draftVersion: 0, draft: { body: {}, tasks: {} } }),
+      }).then((res) => res.status);
+    const both = (await Promise.all([save(), save()])).sort();
+    if (both[0] === 200 && both[1] === 409) exactlyOne += 1;
+  }
+  const [v] = await db.query('select count(*)::int as n from assessments where id = any($1) and draft_version = 1', [ids]);
+  check(exactlyOne === 20 && v.n === 20, `draft versions: 20 races of two saves of one version, each won by exactly one (${exactlyOne}), every draft at version 1 (${v.n})`);
+}
+
+try {
+  await seedClub();
+  const inbox = [];
+  const smtpPort = await freePort();
+  await startSmtp(smtpPort, inbox);
+  const env = { DATABASE_URL: db.url, LOCAL_UPLOADS_DIR: path.join(work, 'uploads'), SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, MAIL_RETRY_DELAY_SECONDS: '1' };
+  const one = await startBenchServer(1, env);
+  const single = await suite(one, '1 process');
+  await one.stop();
+  if (PROCESSES > 1) {
+    const many = await startBenchServer(PROCESSES, env);
+    const multi = await suite(many, `${PROCESSES} processes`);
+    await multiProcessChecks(many, inbox);
+    await many.stop();
+    process.stdout.write(`\nthroughput with ${PROCESSES} processes against 1 (same run):\n`);
+    for (let i = 0; i < single.length; i++) {
+      process.stdout.write(`  ${multi[i].name}: ${multi[i].rps.toFixed(0)} vs ${single[i].rps.toFixed(0)} req/s (x${(multi[i].rps / single[i].rps).toFixed(2)})\n`);
+    }
+  }
+  log(`machine: ${os.cpus().length} cores, ${(os.totalmem() / 2 ** 30).toFixed(1)} GB, load average ${os.loadavg().map((l) => l.toFixed(1)).join(' ')}`);
+} catch (error) {
+  console.error(error instanceof Error ? error.message : error);
+  status = 1;
+} finally {
+  for (const c of children) c.kill('SIGKILL');
+  db.cleanup();
+  fs.rmSync(work, { recursive: true, force: true });
+}
+process.exit(status);
