@@ -37,7 +37,7 @@ async function currentSummary(db: Executor, scope: ClubScope, assessmentId: stri
   const current = await s.currentResult(assessmentId);
   if (!state || !current) throw conflict('This screen has not been submitted yet: there is no summary to release.');
   const [adjustment, clearance, clubName, taskIds] = await Promise.all([
-    s.latestAdjustment(current.id),
+    s.adjustments(current.id).limit(1).then((rows) => rows[0]),
     clearanceRepo(db, scope).current(a.athleteId),
     reviews.clubName(),
     reviews.screenedTaskIds(current.id),
