@@ -18,6 +18,7 @@ import { notFound } from './http/errors';
 import type { Outbox } from './mail/outbox';
 import { meRouter } from './me/me.router';
 import { metaRouter, type Mailbox } from './meta/meta.router';
+import { poseModelRouter } from './pose-model/pose-model.router';
 import { measuringRouter } from './measuring/measuring.router';
 import { screeningRouter } from './screening/screening.router';
 import type { PhotoStorage } from './storage/storage';
@@ -59,7 +60,9 @@ export function createApp(deps: AppDeps) {
       contentSecurityPolicy: {
         directives: {
           'img-src': ["'self'", 'data:', 'blob:'],
-          'script-src': ["'self'"],
+          // 'wasm-unsafe-eval' lets the pose model's WebAssembly compile (suggested points); it allows no
+          // JavaScript eval. The model's files come from our own origin (server/pose-model/).
+          'script-src': ["'self'", "'wasm-unsafe-eval'"],
           'style-src': ["'self'", "'unsafe-inline'"],
           'font-src': ["'self'", 'data:'],
           'upgrade-insecure-requests': config.secureCookies ? [] : null,
@@ -87,6 +90,7 @@ export function createApp(deps: AppDeps) {
     throw notFound('This API route');
   }) as RequestHandler);
   app.use('/api', api);
+  app.use(poseModelRouter());
 
   if (config.webDir && fs.existsSync(path.join(config.webDir, 'index.html'))) {
     const webDir = config.webDir;

@@ -7,8 +7,17 @@ import type { AssessmentResult, Flag, LandmarkId, PlannedExercise, Point, TaskId
 // The tester's draft, saved to the server as they go (PUT /api/assessments/:id)
 // ---------------------------------------------------------------------------------------------------
 
+/**
+ * Where a point came from: placed by a tap, suggested by the pose model and confirmed as it was, or
+ * suggested and then moved before being confirmed. A point without `source` was placed by hand (points
+ * saved before suggestions existed). A suggestion nobody confirmed is never stored.
+ */
+export const POINT_SOURCES = ['placed', 'suggested', 'moved'] as const;
+export type PointSource = (typeof POINT_SOURCES)[number];
+export type LandmarkPoint = Point & { readonly source?: PointSource };
+
 /** Landmark points are in pixels of the stored (re-encoded) photo, x right, y down. */
-export type LandmarkSet = Partial<Record<LandmarkId, Point>>;
+export type LandmarkSet = Partial<Record<LandmarkId, LandmarkPoint>>;
 
 export type TaskDraft = {
   /** Ids of the ticked criteria of the task (from the battery). */
@@ -62,7 +71,11 @@ export const bodySchema = object({
   massKg: optionalNumber(...BODY_LIMITS.massKg, 'Body mass (kg)'),
 });
 
-const pointSchema = object({ x: number().required().min(0), y: number().required().min(0) });
+export const pointSchema = object({
+  x: number().required().min(0),
+  y: number().required().min(0),
+  source: string().oneOf(POINT_SOURCES, 'A point comes from "placed", "suggested" or "moved".'),
+});
 
 export const taskDraftSchema = object({
   criteria: array(string().required()).default([]),
@@ -81,6 +94,11 @@ function validPoints(value: unknown): boolean {
   if (value === undefined || value === null) return true;
   if (typeof value !== 'object') return false;
   return Object.values(value as Record<string, unknown>).every((p) => pointSchema.isValidSync(p));
+}
+
+/** The point as stored: x, y and, when known, where it came from; anything else a client sent is dropped. */
+export function storedPoint(p: LandmarkPoint): LandmarkPoint {
+  return { x: Number(p.x), y: Number(p.y), ...(p.source ? { source: p.source } : {}) };
 }
 
 export const saveDraftSchema = object({
