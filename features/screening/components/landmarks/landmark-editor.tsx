@@ -297,7 +297,7 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
               ) : null}
               {suggestion.busy ? (
                 <Text variant="small" testID="suggest-status" accessibilityLiveRegion="polite">
-                  The first time, the pose model downloads (about 10 MB) and takes 10 to 20 seconds. The photo stays on this device.
+                  The first time, the pose model downloads (about 16 MB); finding the points can take up to a minute on an older phone. The photo stays on this device.
                 </Text>
               ) : suggestion.status === 'none' ? (
                 <Notice tone="caution" testID="suggest-status">
