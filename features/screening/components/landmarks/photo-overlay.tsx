@@ -31,17 +31,8 @@ const POINT = '#19A47A';
 const ACTIVE = '#FF7A1A';
 const SUGGESTED = '#FF7A1A';
 
-/**
- * The athlete's right side is on the image's left: its names go on the outer (left) side of the points,
- * unless the name would run off the visible part of the photo there (a person near its edge).
- */
-function labelOnLeft(id: LandmarkId, p: { x: number }, vb: ViewBox, u: number, text: string): boolean {
-  const width = (text.length * 0.6 * 12 + 16) * u;
-  const outer = id.startsWith('right-');
-  if (outer && p.x - width < vb.x) return false;
-  if (!outer && p.x + width > vb.x + vb.width) return true;
-  return outer;
-}
+/** The athlete's right side is on the image's left: its names go on the outer (left) side of the points. */
+const labelOnLeft = (id: LandmarkId) => id.startsWith('right-');
 
 /** A photo with its landmarks, the lines between them and the angles, drawn in the photo's own pixels. */
 export function PhotoOverlay({ href, photoWidth, photoHeight, displayWidth, displayHeight, viewBox, marks, suggested, overlay, activeId, testID }: Props) {
@@ -80,7 +71,7 @@ export function PhotoOverlay({ href, photoWidth, photoHeight, displayWidth, disp
             {[true, false].map((outline) => (
               <SvgText
                 key={outline ? 'outline' : 'fill'}
-                x={labelOnLeft(id, p, vb, u, LANDMARK_SHORT[id]) ? p.x - 13 * u : p.x + 13 * u}
+                x={labelOnLeft(id) ? p.x - 13 * u : p.x + 13 * u}
                 y={p.y + 4.5 * u}
                 fontSize={12 * u}
                 fontFamily={fonts.bold}
@@ -88,7 +79,7 @@ export function PhotoOverlay({ href, photoWidth, photoHeight, displayWidth, disp
                 fill={outline ? OUTLINE : '#fff'}
                 stroke={outline ? OUTLINE : undefined}
                 strokeWidth={outline ? 3.5 * u : undefined}
-                textAnchor={labelOnLeft(id, p, vb, u, LANDMARK_SHORT[id]) ? 'end' : 'start'}
+                textAnchor={labelOnLeft(id) ? 'end' : 'start'}
               >
                 {LANDMARK_SHORT[id]}
               </SvgText>
@@ -105,7 +96,7 @@ export function PhotoOverlay({ href, photoWidth, photoHeight, displayWidth, disp
             {[true, false].map((outline) => (
               <SvgText
                 key={outline ? 'outline' : 'fill'}
-                x={labelOnLeft(id, p, vb, u, `${LANDMARK_SHORT[id]}?`) ? p.x - 15 * u : p.x + 15 * u}
+                x={labelOnLeft(id) ? p.x - 15 * u : p.x + 15 * u}
                 y={p.y + 4.5 * u}
                 fontSize={12 * u}
                 fontFamily={fonts.bold}
@@ -113,7 +104,7 @@ export function PhotoOverlay({ href, photoWidth, photoHeight, displayWidth, disp
                 fill={outline ? OUTLINE : SUGGESTED}
                 stroke={outline ? OUTLINE : undefined}
                 strokeWidth={outline ? 3.5 * u : undefined}
-                textAnchor={labelOnLeft(id, p, vb, u, `${LANDMARK_SHORT[id]}?`) ? 'end' : 'start'}
+                textAnchor={labelOnLeft(id) ? 'end' : 'start'}
               >
                 {`${LANDMARK_SHORT[id]}?`}
               </SvgText>
