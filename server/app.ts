@@ -19,6 +19,7 @@ import { postgresRateLimitStore } from './http/rate-limit-store';
 import type { Outbox } from './mail/outbox';
 import { meRouter } from './me/me.router';
 import { metaRouter, type Mailbox } from './meta/meta.router';
+import { poseModelRouter } from './pose-model/pose-model.router';
 import { measuringRouter } from './measuring/measuring.router';
 import { progressRouter } from './progress/progress.router';
 import { screeningRouter } from './screening/screening.router';
@@ -64,7 +65,9 @@ export function createApp(deps: AppDeps) {
       contentSecurityPolicy: {
         directives: {
           'img-src': ["'self'", 'data:', 'blob:'],
-          'script-src': ["'self'", ...(web?.inlineScriptHashes ?? [])],
+          // 'wasm-unsafe-eval' lets the pose model's WebAssembly compile (suggested points); it allows no
+          // JavaScript eval. The model's files come from our own origin (server/pose-model/).
+          'script-src': ["'self'", "'wasm-unsafe-eval'", ...(web?.inlineScriptHashes ?? [])],
           'style-src': ["'self'", "'unsafe-inline'"],
           'font-src': ["'self'", 'data:'],
           'upgrade-insecure-requests': config.secureCookies ? [] : null,
@@ -97,6 +100,7 @@ export function createApp(deps: AppDeps) {
     throw notFound('This API route');
   }) as RequestHandler);
   app.use('/api', api);
+  app.use(poseModelRouter());
 
   // The web export: pre-rendered pages by path, hashed bundles cached for a year (server/web/).
   if (web) app.use(web.handler);

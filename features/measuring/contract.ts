@@ -1,7 +1,7 @@
 // The "to measure" list: photos taken courtside whose landmarks are placed later, at a desk. Request
 // schema (yup, shared by the client and the server's validation middleware) and response shapes.
 import { mixed, object } from 'yup';
-import type { AssessmentStatus, LandmarkSet, PhotoView } from '@/features/screening/contract';
+import { POINT_SOURCES, type AssessmentStatus, type LandmarkSet, type PhotoView } from '@/features/screening/contract';
 import type { Side, TaskId, View } from '@/features/screening/engine';
 
 export type MeasureItem = {
@@ -31,13 +31,21 @@ function validPoints(value: unknown): boolean {
   if (typeof value !== 'object' || value === null || Array.isArray(value)) return false;
   return Object.values(value as Record<string, unknown>).every((p) => {
     if (typeof p !== 'object' || p === null) return false;
-    const { x, y } = p as { x?: unknown; y?: unknown };
-    return typeof x === 'number' && typeof y === 'number' && Number.isFinite(x) && Number.isFinite(y) && x >= 0 && y >= 0;
+    const { x, y, source } = p as { x?: unknown; y?: unknown; source?: unknown };
+    return (
+      typeof x === 'number' &&
+      typeof y === 'number' &&
+      Number.isFinite(x) &&
+      Number.isFinite(y) &&
+      x >= 0 &&
+      y >= 0 &&
+      (source === undefined || (POINT_SOURCES as readonly unknown[]).includes(source))
+    );
   });
 }
 
 export const saveLandmarksSchema = object({
   landmarks: mixed<LandmarkSet>()
     .required('Send the landmarks of the photo.')
-    .test('points', 'Each landmark must be a point {x, y} inside the photo.', (v) => validPoints(v)),
+    .test('points', 'Each landmark must be a point {x, y} inside the photo, with an optional source: placed, suggested or moved.', (v) => validPoints(v)),
 });

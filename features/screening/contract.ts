@@ -7,8 +7,17 @@ import type { AssessmentResult, Flag, LandmarkId, LimitId, PlannedExercise, Poin
 // The tester's draft, saved to the server as they go (PUT /api/assessments/:id)
 // ---------------------------------------------------------------------------------------------------
 
+/**
+ * Where a point came from: placed by a tap, suggested by the pose model and confirmed as it was, or
+ * suggested and then moved before being confirmed. A point without `source` was placed by hand (points
+ * saved before suggestions existed). A suggestion nobody confirmed is never stored.
+ */
+export const POINT_SOURCES = ['placed', 'suggested', 'moved'] as const;
+export type PointSource = (typeof POINT_SOURCES)[number];
+export type LandmarkPoint = Point & { readonly source?: PointSource };
+
 /** Landmark points are in pixels of the stored (re-encoded) photo, x right, y down. */
-export type LandmarkSet = Partial<Record<LandmarkId, Point>>;
+export type LandmarkSet = Partial<Record<LandmarkId, LandmarkPoint>>;
 
 export type TaskDraft = {
   /** Ids of the ticked criteria of the task (from the battery). */
@@ -79,7 +88,11 @@ const coordinate = (axis: 'x' | 'y') =>
     .test('finite', `${axis} must be a finite number.`, (v) => v === undefined || Number.isFinite(v))
     .min(0, `${axis} must be at least 0.`)
     .max(MAX_POINT_PX, `${axis} must be at most ${MAX_POINT_PX}.`);
-const pointSchema = object({ x: coordinate('x'), y: coordinate('y') });
+export const pointSchema = object({
+  x: coordinate('x'),
+  y: coordinate('y'),
+  source: string().oneOf(POINT_SOURCES, 'A point comes from "placed", "suggested" or "moved".'),
+});
 
 export const taskDraftSchema = object({
   criteria: array(string().required()).default([]),
@@ -102,6 +115,11 @@ function validPoints(value: unknown): boolean {
 
 /** The largest value of the database's integer column (2^31 - 1). */
 export const MAX_DRAFT_VERSION = 2_147_483_647;
+
+/** The point as stored: x, y and, when known, where it came from; anything else a client sent is dropped. */
+export function storedPoint(p: LandmarkPoint): LandmarkPoint {
+  return { x: Number(p.x), y: Number(p.y), ...(p.source ? { source: p.source } : {}) };
+}
 
 export const saveDraftSchema = object({
   draftVersion: number()

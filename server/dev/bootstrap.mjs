@@ -87,6 +87,35 @@ export function ensureChromium() {
   fail(`Chromium was not found at ${exe}.\nInstall it with:  sudo apt-get install -y chromium`);
 }
 
+/**
+ * Real photographs of people for the browser test of suggested points: the sample images of Debian's
+ * `opencv-doc` package (licence "Apache-2.0 AND BSD-3-Clause" in its copyright file). Installed with apt-get
+ * as root; otherwise unpacked with `apt-get download` + `dpkg -x` into the git-ignored data folder.
+ * Returns the folder holding the images, or null when neither worked.
+ */
+export const SAMPLE_PHOTO_PACKAGE = 'opencv-doc';
+const SAMPLE_PHOTO_SUBDIR = 'usr/share/doc/opencv-doc/examples/data';
+export function ensureSamplePhotos() {
+  const system = path.join('/', SAMPLE_PHOTO_SUBDIR);
+  const unpacked = path.join(DATA_DIR, SAMPLE_PHOTO_PACKAGE);
+  const local = path.join(unpacked, SAMPLE_PHOTO_SUBDIR);
+  const has = (dir) => fs.existsSync(path.join(dir, 'basketball1.png'));
+  if (has(system)) return system;
+  if (has(local)) return local;
+  try {
+    if (aptInstall(SAMPLE_PHOTO_PACKAGE) && has(system)) return system;
+    log(`Unpacking ${SAMPLE_PHOTO_PACKAGE} into ${path.relative(ROOT, unpacked)}/ ...`);
+    const work = fs.mkdtempSync(path.join(os.tmpdir(), 'squadline-deb-'));
+    run('apt-get', ['download', '-qq', SAMPLE_PHOTO_PACKAGE], { cwd: work });
+    const deb = fs.readdirSync(work).find((f) => f.endsWith('.deb'));
+    if (deb) run('dpkg', ['-x', path.join(work, deb), unpacked]);
+    fs.rmSync(work, { recursive: true, force: true });
+  } catch (error) {
+    log(`Could not get ${SAMPLE_PHOTO_PACKAGE}: ${error.message}`);
+  }
+  return has(local) ? local : null;
+}
+
 export function freePort() {
   return new Promise((resolve, reject) => {
     const server = net.createServer();

@@ -6,7 +6,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import {
   DIST_DIR, ROOT, clusterLayout, databaseUrl, ensureChromium, ensureDatabase, ensureNodeModules, ensurePostgres,
-  ensureWebBuild, freePort, initCluster, log, makeClusterRoot, newPassword, startCluster, stopCluster,
+  ensureSamplePhotos, ensureWebBuild, freePort, initCluster, log, makeClusterRoot, newPassword, startCluster, stopCluster,
   tsx, tsxSync,
 } from './bootstrap.mjs';
 
@@ -16,6 +16,8 @@ const passThrough = process.argv.slice(2).filter((a) => a !== '--unit' && a !== 
 ensureNodeModules();
 const bin = ensurePostgres();
 const chromium = only === 'unit' ? null : ensureChromium();
+// The suggested-points browser test runs the pose model on a real photograph from a Debian package.
+const samplePhotos = only === 'unit' ? null : ensureSamplePhotos();
 
 const root = makeClusterRoot('squadline-test-');
 const layout = clusterLayout(root);
@@ -71,7 +73,12 @@ try {
     const pw = spawnSync(
       path.join(ROOT, 'node_modules', '.bin', 'playwright'),
       ['test', '--config', 'test/playwright.config.ts', ...passThrough],
-      { cwd: ROOT, stdio: 'inherit', env: { ...process.env, BASE_URL: `http://127.0.0.1:${webPort}`, CHROMIUM_PATH: chromium } },
+      { cwd: ROOT, stdio: 'inherit', env: {
+        ...process.env,
+        BASE_URL: `http://127.0.0.1:${webPort}`,
+        CHROMIUM_PATH: chromium,
+        ...(samplePhotos ? { SAMPLE_PHOTOS_DIR: samplePhotos } : {}),
+      } },
     );
     status = pw.status ?? 1;
   }

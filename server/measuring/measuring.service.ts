@@ -1,7 +1,7 @@
 import type { Db } from '@/db/client';
 import type { MeasureItem, MeasureQueue, SavedLandmarks } from '@/features/measuring/contract';
-import type { AssessmentDraft, LandmarkSet, TaskDraft } from '@/features/screening/contract';
-import { getTask, TASK_IDS, type LandmarkId, type Point, type TaskId } from '@/features/screening/engine';
+import { storedPoint, type AssessmentDraft, type LandmarkPoint, type LandmarkSet, type TaskDraft } from '@/features/screening/contract';
+import { getTask, TASK_IDS, type LandmarkId, type TaskId } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
 import { AppError, badRequest, conflict, notFound } from '@/server/http/errors';
 import { validateDraft } from '@/server/screening/draft-validation';
@@ -85,11 +85,11 @@ export function measuringService({ db }: { db: Db }) {
         const needed = new Set<string>(neededFor(taskId, view));
         const fields: Record<string, string> = {};
         const points: LandmarkSet = {};
-        for (const [id, p] of Object.entries(landmarks) as [LandmarkId, Point | undefined][]) {
+        for (const [id, p] of Object.entries(landmarks) as [LandmarkId, LandmarkPoint | undefined][]) {
           if (!p) continue;
           if (!needed.has(id)) fields[`landmarks.${id}`] = `"${id}" is not a point of this photo.`;
           else if (p.x > row.photo.width || p.y > row.photo.height) fields[`landmarks.${id}`] = 'The point lies outside the photo.';
-          else points[id] = { x: p.x, y: p.y };
+          else points[id] = storedPoint(p);
         }
         if (Object.keys(fields).length > 0) throw badRequest('Some points need attention.', fields);
 

@@ -1,5 +1,5 @@
 import { ValidationError } from 'yup';
-import { taskDraftSchema, type AssessmentDraft, type SaveDraftInput, type TaskDraft } from '@/features/screening/contract';
+import { storedPoint, taskDraftSchema, type AssessmentDraft, type SaveDraftInput, type TaskDraft } from '@/features/screening/contract';
 import { getLandmark, getTask, LANDMARKS, TASK_IDS, type LandmarkId, type TaskId } from '@/features/screening/engine';
 import { badRequest } from '@/server/http/errors';
 import { fieldErrors } from '@/server/http/validate';
@@ -44,10 +44,8 @@ export function validateDraft(input: SaveDraftInput['draft']): AssessmentDraft {
     for (const view of ['front', 'side'] as const) {
       const set = task.landmarks?.[view];
       if (set === undefined || set === null) continue;
-      // Points are stored as plain {x, y}; anything else a client sent along is dropped.
-      landmarks[view] = Object.fromEntries(
-        Object.entries(set).map(([landmarkId, p]) => [landmarkId, { x: Number(p!.x), y: Number(p!.y) }]),
-      );
+      // Points are stored as {x, y} and where they came from; anything else a client sent along is dropped.
+      landmarks[view] = Object.fromEntries(Object.entries(set).map(([landmarkId, p]) => [landmarkId, storedPoint(p!)]));
       if (!spec.views.some((v) => v.view === view)) {
         fields[`${path}.landmarks.${view}`] = `"${spec.title}" has no ${view} photo.`;
         continue;

@@ -159,4 +159,33 @@ describe('PUT /api/measuring/photos/:id/landmarks', () => {
     const items = ((await tester.get('/api/measuring/queue').query({ roundId })).body as MeasureQueue).items;
     expect(items.some((i) => i.photo.id === inProgressPhoto.id)).toBe(false);
   });
+
+  it('keeps where each point came from (suggested, moved, placed) through both saves, and refuses any other source', async () => {
+    const bad = await tester
+      .put(`/api/measuring/photos/${inProgressPhoto.id}/landmarks`)
+      .send({ landmarks: { 'right-hip': { x: 400, y: 700, source: 'guessed' } } });
+    expect(bad.status).toBe(400);
+    const landing = {
+      'right-hip': { x: 401, y: 702, source: 'suggested' },
+      'right-knee': { x: 425, y: 905, source: 'moved' },
+      'right-ankle': { x: 410, y: 1120, source: 'placed' },
+      'left-hip': { x: 560, y: 700 },
+    };
+    expect((await tester.put(`/api/measuring/photos/${inProgressPhoto.id}/landmarks`).send({ landmarks: landing })).status).toBe(200);
+    let detail = (await tester.get(`/api/assessments/${inProgressId}`)).body as AssessmentDetail;
+    expect(detail.draft.tasks['drop-landing']!.landmarks!.front).toEqual(landing);
+
+    // The courtside draft save keeps them too, and refuses an unknown source with the field named.
+    const task = detail.draft.tasks['drop-landing']!;
+    const refused = await tester.put(`/api/assessments/${inProgressId}`).send({
+      draftVersion: detail.draftVersion,
+      draft: { body: {}, tasks: { 'drop-landing': { ...task, landmarks: { front: { 'right-hip': { x: 1, y: 1, source: 'model' } } } } } },
+    });
+    expect(refused.status).toBe(400);
+    expect(Object.keys(refused.body.error.fields)).toEqual(['draft.tasks.drop-landing.landmarks.front']);
+    await saveDraft(tester, inProgressId, { 'drop-landing': { ...task, landmarks: { front: { ...landing, 'left-knee': { x: 555, y: 900, source: 'suggested' } } } } });
+    detail = (await tester.get(`/api/assessments/${inProgressId}`)).body as AssessmentDetail;
+    expect(detail.draft.tasks['drop-landing']!.landmarks!.front!['left-knee']).toEqual({ x: 555, y: 900, source: 'suggested' });
+    expect(detail.draft.tasks['drop-landing']!.landmarks!.front!['right-knee']).toEqual({ x: 425, y: 905, source: 'moved' });
+  });
 });

@@ -4,6 +4,7 @@ import path from 'node:path';
 import zlib from 'node:zlib';
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { POSE_MODEL_BASE } from '@/features/pose-suggestion/model-files';
 import { makeTestApp } from '../fixtures/builders';
 import { createTestDb, type TestDb } from '../fixtures/test-db';
 
@@ -133,5 +134,30 @@ describe('serving a single-page web export', () => {
     expect(res.status).toBe(200);
     expect(res.text).toContain('<div id="root">');
     expect(res.headers['cache-control']).toBe('no-cache');
+  });
+});
+
+describe('serving the pose model for suggested points', () => {
+  it('serves the runtime and the model files from our origin, cached for a year, and nothing else of the package', async () => {
+    const { app } = makeTestApp(testDb.db);
+    const script = await supertest(app).get(`${POSE_MODEL_BASE}/pose.js`);
+    expect(script.status).toBe(200);
+    expect(script.headers['content-type']).toMatch(/javascript/);
+    expect(script.headers['cache-control']).toMatch(/immutable/);
+    const wasm = await supertest(app).head(`${POSE_MODEL_BASE}/pose_solution_simd_wasm_bin.wasm`);
+    expect(wasm.status).toBe(200);
+    expect(wasm.headers['content-type']).toBe('application/wasm');
+    expect((await supertest(app).head(`${POSE_MODEL_BASE}/pose_landmark_full.tflite`)).status).toBe(200);
+    expect((await supertest(app).get(`${POSE_MODEL_BASE}/package.json`)).status).toBe(404);
+    expect((await supertest(app).get(`${POSE_MODEL_BASE}/../package.json`)).status).toBe(404);
+    expect((await supertest(app).get('/pose-model/0.0.1/pose.js')).status).toBe(404);
+  });
+
+  it('lets WebAssembly compile but allows no script eval and no other origin', async () => {
+    const { app } = makeTestApp(testDb.db);
+    const csp = (await supertest(app).get(`${POSE_MODEL_BASE}/pose.js`)).headers['content-security-policy'] as string;
+    const scriptSrc = csp.split(';').find((d) => d.trim().startsWith('script-src '))!.trim();
+    expect(scriptSrc).toBe("script-src 'self' 'wasm-unsafe-eval'");
+    expect(csp).not.toContain("'unsafe-eval'");
   });
 });

@@ -1,7 +1,9 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { Platform, Pressable, StyleSheet, useWindowDimensions, View, type GestureResponderEvent, type LayoutChangeEvent } from 'react-native';
 import { apiAssetUrl } from '@/features/api/client';
-import type { LandmarkSet, PhotoView } from '@/features/screening/contract';
+import { suggestibleIds } from '@/features/pose-suggestion/map-pose';
+import { poseAvailable } from '@/features/pose-suggestion/run-pose';
+import type { LandmarkPoint, LandmarkSet, PhotoView } from '@/features/screening/contract';
 import { getLandmark } from '@/features/screening/engine/for-screens';
 import type { LandmarkId, Point, Side, TaskSpec, View as PhotoSide } from '@/features/screening/engine';
 import { overlayFor } from '@/features/screening/overlay/overlay';
@@ -12,6 +14,7 @@ import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { LazyPhotoOverlay } from './lazy-photo-overlay';
 import type { ViewBox } from './photo-overlay';
+import { useSuggestion } from './use-suggestion';
 
 type Props = {
   task: TaskSpec;
@@ -30,6 +33,8 @@ export const EDITOR_SHORTCUTS: readonly { keys: string; what: string }[] = [
   { keys: 'P', what: 'previous point' },
   { keys: 'Z or Ctrl+Z', what: 'undo' },
   { keys: '1 2 3', what: 'zoom' },
+  { keys: 'S', what: 'suggest points' },
+  { keys: 'C', what: 'confirm suggested points' },
 ];
 
 /** True when a key press is meant for a text field, not for the editor. */
@@ -49,11 +54,19 @@ type Gesture = {
   origin: Point | null;
   mode: 'pending' | 'drag' | 'pan';
   dragId: LandmarkId | null;
+  /** The point dragged is a suggestion not confirmed yet. */
+  dragSuggested: boolean;
   startCenter: Point;
   before: LandmarkSet;
 };
 
 const clamp = (v: number, min: number, max: number) => Math.min(max, Math.max(min, v));
+
+/** A confirmed point dragged somewhere else: a suggestion becomes "moved"; a point placed by hand stays "placed". */
+function movedPoint(before: LandmarkPoint | undefined, to: Point): LandmarkPoint {
+  const source = before?.source === 'suggested' || before?.source === 'moved' ? 'moved' : 'placed';
+  return { ...to, source };
+}
 
 /**
  * Place the task's landmarks on a photo: tap places the next one, drag moves a point, 1x/2x/3x zoom with
@@ -73,7 +86,13 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
   const surface = useRef<View>(null);
   const gesture = useRef<Gesture | null>(null);
 
-  const active: LandmarkId | null = selected ?? needed.find((id) => !marks[id]) ?? null;
+  const suggestion = useSuggestion({ photo, view, needed, racketHand, placed: marks });
+  const suggested = suggestion.points;
+  const canSuggest = poseAvailable && suggestibleIds(view, needed, racketHand).some((id) => !marks[id]);
+
+  // The next tap places the first point neither placed nor waiting as a suggestion.
+  const active: LandmarkId | null = selected ?? needed.find((id) => !marks[id] && !suggested[id]) ?? null;
+  const suggestedCount = needed.filter((id) => suggested[id]).length;
   const placedCount = needed.filter((id) => marks[id]).length;
   const overlay = useMemo(() => overlayFor(task, view, marks, racketHand), [task, view, marks, racketHand]);
 
@@ -117,19 +136,20 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
   // (or, zoomed in, pans the photo when no point is near).
   const onGrant = (e: GestureResponderEvent) => {
     const { pageX, pageY } = e.nativeEvent;
-    const g: Gesture = { start: { x: pageX, y: pageY }, origin: null, mode: 'pending', dragId: null, startCenter: center, before: marks };
+    const g: Gesture = { start: { x: pageX, y: pageY }, origin: null, mode: 'pending', dragId: null, dragSuggested: false, startCenter: center, before: marks };
     gesture.current = g;
     void measureOrigin(g).then(() => {
       if (!g.origin) return;
       const p = toPhoto(g, pageX, pageY);
-      let best: { id: LandmarkId; d: number } | null = null;
+      let best: { id: LandmarkId; d: number; suggested: boolean } | null = null;
       for (const id of needed) {
-        const q = marks[id];
+        const q = marks[id] ?? suggested[id];
         if (!q) continue;
         const d = Math.hypot(q.x - p.x, q.y - p.y) / unit;
-        if (d <= GRAB_RADIUS && (!best || d < best.d)) best = { id, d };
+        if (d <= GRAB_RADIUS && (!best || d < best.d)) best = { id, d, suggested: !marks[id] };
       }
       g.dragId = best?.id ?? null;
+      g.dragSuggested = best?.suggested ?? false;
     });
   };
 
@@ -145,7 +165,9 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
     }
     if (g.mode === 'drag' && g.dragId) {
       const id = g.dragId;
-      setMarks((m) => ({ ...m, [id]: toPhoto(g, pageX, pageY) }));
+      const p = toPhoto(g, pageX, pageY);
+      if (g.dragSuggested) suggestion.move(id, p);
+      else setMarks((m) => ({ ...m, [id]: movedPoint(m[id], p) }));
     } else if (g.mode === 'pan') {
       setCenter({ x: g.startCenter.x - dx * unit, y: g.startCenter.y - dy * unit });
     }
@@ -159,12 +181,16 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
     void measureOrigin(g).then(() => {
       if (!g.origin) return;
       if (g.mode === 'drag' && g.dragId) {
-        commit({ ...g.before, [g.dragId]: toPhoto(g, pageX, pageY) }, g.before);
+        const p = toPhoto(g, pageX, pageY);
+        if (g.dragSuggested) suggestion.move(g.dragId, p);
+        else commit({ ...g.before, [g.dragId]: movedPoint(g.before[g.dragId], p) }, g.before);
         return;
       }
       if (g.mode !== 'pending' || Math.hypot(pageX - g.start.x, pageY - g.start.y) > TAP_SLOP) return;
       if (!active) return;
-      commit({ ...marks, [active]: toPhoto(g, pageX, pageY) });
+      // Placed by hand: a suggestion waiting for this point is dropped.
+      suggestion.drop(active);
+      commit({ ...marks, [active]: { ...toPhoto(g, pageX, pageY), source: 'placed' } });
       setSelected(null);
     });
   };
@@ -186,6 +212,14 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
 
   const activeSpec = active ? getLandmark(active) : null;
 
+  /** Suggested points become placed points only here, each marked as suggested or moved. */
+  const confirmSuggestion = () => {
+    const taken = suggestion.take();
+    if (Object.keys(taken).length === 0) return;
+    commit({ ...marks, ...taken });
+    setSelected(null);
+  };
+
   // Keyboard: the handler reads the latest state through a ref, so the listener is added once.
   const step = (by: 1 | -1) => {
     if (needed.length === 0) return;
@@ -201,6 +235,8 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
     else if (key === 'n') step(1);
     else if (key === 'p') step(-1);
     else if (key === '1' || key === '2' || key === '3') setZoomAround(Number(key) as Zoom);
+    else if (key === 's' && canSuggest && !suggestion.busy) void suggestion.run();
+    else if (key === 'c' && suggestedCount > 0) confirmSuggestion();
     else return;
     e.preventDefault();
   };
@@ -217,7 +253,15 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         <View style={[styles.photoColumn, isWide && styles.photoColumnWide]} onLayout={(e: LayoutChangeEvent) => setColumnWidth(e.nativeEvent.layout.width)}>
           <View style={styles.prompt} testID="landmark-next" accessibilityLiveRegion="polite">
-            {activeSpec ? (
+            {suggestedCount > 0 ? (
+              <>
+                <Text variant="label">{`Check the ${suggestedCount} suggested points`}</Text>
+                <Text variant="small">
+                  Hollow circles are suggestions from the photo. Drag any that is off, then confirm them: nothing is measured from a point until it is confirmed.
+                </Text>
+                {activeSpec ? <Text variant="small">{`Still to place by hand: ${activeSpec.label}.`}</Text> : null}
+              </>
+            ) : activeSpec ? (
               <>
                 <Text variant="label">
                   {selected ? 'Place again: ' : `Tap ${placedCount + 1} of ${needed.length}: `}
@@ -237,6 +281,40 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
                 : 'Side photo: the points of the side nearest the camera.'}
             </Text>
           </View>
+          {canSuggest || suggestedCount > 0 || suggestion.status !== 'idle' ? (
+            <View style={styles.suggest} testID="suggest-panel">
+              {suggestedCount > 0 ? (
+                <View style={styles.suggestButtons}>
+                  <Button label={`Confirm ${suggestedCount} suggested points`} testID="suggest-confirm" onPress={confirmSuggestion} style={styles.grow} />
+                  <Button tone="quiet" label="Discard" testID="suggest-discard" onPress={suggestion.clear} />
+                </View>
+              ) : canSuggest ? (
+                <Button
+                  tone="secondary"
+                  label={suggestion.busy ? 'Finding the points…' : 'Suggest points from the photo'}
+                  testID="suggest-run"
+                  busy={suggestion.busy}
+                  disabled={suggestion.busy}
+                  onPress={() => void suggestion.run()}
+                />
+              ) : null}
+              {suggestion.busy ? (
+                <Text variant="small" testID="suggest-status" accessibilityLiveRegion="polite">
+                  The first time, the pose model downloads (about 16 MB); finding the points can take up to a minute on an older phone. The photo stays on this device.
+                </Text>
+              ) : suggestion.status === 'none' ? (
+                <Notice tone="caution" testID="suggest-status">
+                  No person was found clearly enough on this photo: place the points by tapping.
+                </Notice>
+              ) : suggestion.status === 'error' ? (
+                <Notice tone="error" testID="suggest-status">
+                  {`${suggestion.error ?? 'The suggestion failed.'} Place the points by tapping.`}
+                </Notice>
+              ) : suggestedCount === 0 && canSuggest ? (
+                <Text variant="small">Runs on this device: the photo is not sent anywhere. You check every point before it counts.</Text>
+              ) : null}
+            </View>
+          ) : null}
           {columnWidth > 0 ? (
             <View
               ref={surface}
@@ -257,6 +335,7 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
                 displayHeight={displayHeight}
                 viewBox={vb}
                 marks={marks}
+                suggested={suggested}
                 overlay={overlay}
                 activeId={gesture.current?.mode === 'drag' ? gesture.current.dragId : active}
               />
@@ -286,6 +365,7 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
               disabled={placedCount === 0}
               onPress={() => {
                 commit({});
+                suggestion.clear();
                 setSelected(null);
               }}
             />
@@ -325,22 +405,25 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
             {needed.map((id, i) => {
               const spec = getLandmark(id);
               const placed = !!marks[id];
+              const waiting = !placed && !!suggested[id];
               const isActive = id === active;
+              const state = placed ? (marks[id]?.source === 'moved' ? 'placed (suggested, moved)' : marks[id]?.source === 'suggested' ? 'placed (suggested)' : 'placed') : waiting ? 'suggested, not confirmed' : 'not placed';
               return (
                 <Pressable
                   key={id}
                   accessibilityRole="button"
                   aria-selected={isActive}
-                  accessibilityLabel={`${spec.label}: ${placed ? 'placed' : 'not placed'}. ${placed ? 'Tap to place again.' : ''}`}
+                  accessibilityLabel={`${spec.label}: ${state}. ${placed || waiting ? 'Tap to place again.' : ''}`}
                   testID={`landmark-item-${id}`}
                   onPress={() => setSelected(id === selected ? null : id)}
                   style={[styles.item, isActive && styles.itemActive]}
                 >
-                  <View style={[styles.badge, placed && styles.badgePlaced]}>
-                    <Text style={[styles.badgeText, placed && styles.badgeTextPlaced]}>{placed ? '✓' : String(i + 1)}</Text>
+                  <View style={[styles.badge, placed && styles.badgePlaced, waiting && styles.badgeSuggested]}>
+                    <Text style={[styles.badgeText, placed && styles.badgeTextPlaced]}>{placed ? '✓' : waiting ? '?' : String(i + 1)}</Text>
                   </View>
                   <View style={styles.itemText}>
                     <Text variant="label">{spec.label}</Text>
+                    {waiting ? <Text variant="small">Suggested: check it, then confirm</Text> : null}
                     {isActive ? <Text variant="small">{spec.hint}</Text> : null}
                   </View>
                 </Pressable>
@@ -379,6 +462,8 @@ const styles = StyleSheet.create({
   segmentText: { fontFamily: fonts.bold, fontSize: 17, color: colors.pine },
   segmentTextOn: { color: '#fff' },
   grow: { flexGrow: 1 },
+  suggest: { alignSelf: 'stretch', gap: space.xs },
+  suggestButtons: { flexDirection: 'row', gap: space.sm, alignItems: 'center' },
   listColumn: { gap: space.lg },
   listColumnWide: { flex: 2 },
   angles: { gap: space.sm, backgroundColor: colors.surface, borderRadius: radius.md, padding: space.md, borderWidth: 1, borderColor: colors.line },
@@ -399,6 +484,7 @@ const styles = StyleSheet.create({
   itemActive: { borderColor: '#FF7A1A', backgroundColor: colors.surface },
   badge: { width: 30, height: 30, borderRadius: 15, borderWidth: 2, borderColor: colors.inkMuted, alignItems: 'center', justifyContent: 'center' },
   badgePlaced: { backgroundColor: colors.pine, borderColor: colors.pine },
+  badgeSuggested: { borderStyle: 'dashed', borderColor: '#FF7A1A' },
   badgeText: { fontFamily: fonts.bold, fontSize: 14, color: colors.inkMuted },
   badgeTextPlaced: { color: '#fff' },
   itemText: { flex: 1 },

@@ -16,6 +16,8 @@ type Props = {
   displayHeight: number;
   viewBox?: ViewBox;
   marks: LandmarkSet;
+  /** Points suggested from the photo, not confirmed yet: drawn hollow, with no lines or angles. */
+  suggested?: LandmarkSet;
   overlay: Overlay;
   /** The point the next tap places or the one being dragged. */
   activeId?: LandmarkId | null;
@@ -27,12 +29,13 @@ const LINE = '#FFD23F';
 const OUTLINE = 'rgba(0,0,0,0.75)';
 const POINT = '#19A47A';
 const ACTIVE = '#FF7A1A';
+const SUGGESTED = '#FF7A1A';
 
 /** The athlete's right side is on the image's left: its names go on the outer (left) side of the points. */
 const labelOnLeft = (id: LandmarkId) => id.startsWith('right-');
 
 /** A photo with its landmarks, the lines between them and the angles, drawn in the photo's own pixels. */
-export function PhotoOverlay({ href, photoWidth, photoHeight, displayWidth, displayHeight, viewBox, marks, overlay, activeId, testID }: Props) {
+export function PhotoOverlay({ href, photoWidth, photoHeight, displayWidth, displayHeight, viewBox, marks, suggested, overlay, activeId, testID }: Props) {
   const vb = viewBox ?? { x: 0, y: 0, width: photoWidth, height: photoHeight };
   // Photo pixels per screen pixel: strokes, points and text keep their size on screen at any zoom.
   const u = vb.width / Math.max(displayWidth, 1);
@@ -79,6 +82,31 @@ export function PhotoOverlay({ href, photoWidth, photoHeight, displayWidth, disp
                 textAnchor={labelOnLeft(id) ? 'end' : 'start'}
               >
                 {LANDMARK_SHORT[id]}
+              </SvgText>
+            ))}
+          </G>
+        ) : null,
+      )}
+      {(Object.entries(suggested ?? {}) as [LandmarkId, { x: number; y: number } | undefined][]).map(([id, p]) =>
+        p && !marks[id] ? (
+          <G key={`suggested-${id}`} testID={`suggested-${id}`}>
+            <Circle cx={p.x} cy={p.y} r={11 * u} fill="none" stroke={OUTLINE} strokeWidth={5.5 * u} />
+            <Circle cx={p.x} cy={p.y} r={11 * u} fill="none" stroke={SUGGESTED} strokeWidth={3 * u} strokeDasharray={`${5 * u} ${3 * u}`} />
+            <Circle cx={p.x} cy={p.y} r={1.8 * u} fill="#fff" />
+            {[true, false].map((outline) => (
+              <SvgText
+                key={outline ? 'outline' : 'fill'}
+                x={labelOnLeft(id) ? p.x - 15 * u : p.x + 15 * u}
+                y={p.y + 4.5 * u}
+                fontSize={12 * u}
+                fontFamily={fonts.bold}
+                fontWeight="700"
+                fill={outline ? OUTLINE : SUGGESTED}
+                stroke={outline ? OUTLINE : undefined}
+                strokeWidth={outline ? 3.5 * u : undefined}
+                textAnchor={labelOnLeft(id) ? 'end' : 'start'}
+              >
+                {`${LANDMARK_SHORT[id]}?`}
               </SvgText>
             ))}
           </G>
