@@ -8,12 +8,14 @@ import { pinoHttp } from 'pino-http';
 import type { Db } from '@/db/client';
 import { requireSignedIn } from './access/scope';
 import { athletesRouter } from './athletes/athletes.router';
-import { authRouter, DEFAULT_SIGN_IN_LIMITS, type SignInLimits } from './auth/auth.router';
+import { authRouter } from './auth/auth.router';
 import { createAuthService } from './auth/auth.service';
+import type { AuthLimits } from './auth/rate-limits';
 import { createLucia } from './auth/lucia';
 import { devCorsMiddleware, sameOriginMiddleware, sessionMiddleware } from './auth/session-middleware';
 import { clubsRouter } from './clubs/clubs.router';
 import { errorMiddleware } from './http/error-middleware';
+import { httpLogOptions } from './http/logging';
 import { notFound } from './http/errors';
 import type { Outbox } from './mail/outbox';
 import { meRouter } from './me/me.router';
@@ -27,7 +29,10 @@ export type AppConfig = {
   secureCookies: boolean;
   /** The web export to serve (dist/); omitted in API tests. */
   webDir?: string;
-  signInLimits?: SignInLimits;
+  /** Rate limits of sign-in and links; the defaults in server/auth/rate-limits.ts. */
+  authLimits?: AuthLimits;
+  /** `NODE_ENV=production`: development-only routes (the local mailbox) do not exist. */
+  production?: boolean;
   /** The Expo dev server's origin under `npm run dev`; unset in production. */
   devWebOrigin?: string;
 };
@@ -36,7 +41,7 @@ export type AppDeps = {
   db: Db;
   storage: PhotoStorage;
   outbox: Outbox;
-  /** The local e-mail fake's inbox, or null when real SMTP is used. */
+  /** The local e-mail fake's inbox, or null when real SMTP is used (and always in production). */
   mailbox: Mailbox | null;
   logger: Logger;
   config: AppConfig;
@@ -45,14 +50,14 @@ export type AppDeps = {
 export function createApp(deps: AppDeps) {
   const { db, outbox, mailbox, logger, config } = deps;
   const auth = createLucia(db, config.secureCookies);
-  const authService = createAuthService({ db, auth, outbox, publicUrl: config.publicUrl });
+  const authService = createAuthService({ db, auth, outbox, limits: config.authLimits });
 
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   // gzip for JSON, scripts and fonts; JPEG photos are already compressed and are skipped by type.
   app.use(compression());
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  app.use(pinoHttp({ logger, ...httpLogOptions() }));
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -71,10 +76,10 @@ export function createApp(deps: AppDeps) {
   const api = express.Router();
   if (config.devWebOrigin) api.use(devCorsMiddleware(config.devWebOrigin));
   api.use(express.json({ limit: '1mb' }));
-  api.use(sameOriginMiddleware(config.devWebOrigin));
+  api.use(sameOriginMiddleware(config.publicUrl, config.devWebOrigin));
   api.use(sessionMiddleware(auth));
-  api.use(metaRouter(db, mailbox));
-  api.use('/auth', authRouter(authService, auth, config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS));
+  api.use(metaRouter(db, config.production ? null : mailbox));
+  api.use('/auth', authRouter(authService, auth));
   // Everything below needs a signed-in user: deny by default.
   api.use(requireSignedIn);
   api.use(meRouter(db));

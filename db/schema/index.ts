@@ -2,3 +2,4 @@ export * from './auth';
 export * from './clubs';
 export * from './athletes';
 export * from './screening';
+export * from './security';

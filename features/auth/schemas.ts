@@ -44,3 +44,12 @@ export const resetPasswordSchema = object({
   password: newPassword,
 });
 export type ResetPasswordInput = InferType<typeof resetPasswordSchema>;
+
+export const invitationLookupSchema = object({ token: string().required('This link is incomplete.') });
+export type InvitationLookupInput = InferType<typeof invitationLookupSchema>;
+
+export const changePasswordSchema = object({
+  currentPassword: string().required('Enter your current password.'),
+  newPassword,
+});
+export type ChangePasswordInput = InferType<typeof changePasswordSchema>;

@@ -1,8 +1,10 @@
 import { and, eq, inArray } from 'drizzle-orm';
+import { OWN_CHILDREN_ONLY } from '@/features/access/permissions';
 import type { Request, RequestHandler } from 'express';
 import type { Db } from '@/db/client';
 import { clubs, guardianLinks, memberships, type Role } from '@/db/schema';
 import { badRequest, forbidden, unauthorized } from '@/server/http/errors';
+import { requireUuid } from '@/server/http/ids';
 
 export type MembershipView = { clubId: string; clubName: string; role: Role };
 
@@ -18,6 +20,7 @@ export type ClubScope = {
   athleteIds: string[] | null;
 };
 
+/** Deny by default: mounted before the routes that need a signed-in caller (their guards check again). */
 export const requireSignedIn: RequestHandler = (req, _res, next) => {
   next(req.user ? undefined : unauthorized());
 };
@@ -45,7 +48,7 @@ export async function scopeForClub(db: Db, req: Request, clubId: string, roles: 
     .where(and(eq(memberships.userId, userId), eq(memberships.clubId, clubId)));
   if (!membership || !roles.includes(membership.role)) throw forbidden();
   let athleteIds: string[] | null = null;
-  if (membership.role === 'parent') {
+  if (OWN_CHILDREN_ONLY.includes(membership.role)) {
     const links = await db
       .select({ athleteId: guardianLinks.athleteId })
       .from(guardianLinks)
@@ -62,7 +65,7 @@ export async function scopeForClub(db: Db, req: Request, clubId: string, roles: 
 export async function scopeForCallerClub(db: Db, req: Request, roles: readonly Role[]): Promise<ClubScope> {
   const userId = signedInUserId(req);
   const header = req.get('x-club-id');
-  if (header) return scopeForClub(db, req, header, roles);
+  if (header) return scopeForClub(db, req, requireUuid(header, 'The club'), roles);
   const mine = await membershipsOf(db, userId);
   if (mine.length === 0) throw forbidden('You are not a member of any club.');
   if (mine.length > 1) throw badRequest('You belong to several clubs: choose one (X-Club-Id header).');
@@ -75,6 +78,3 @@ export function athleteFilter<T>(scope: ClubScope, column: T) {
   // An empty list must match nothing, not everything.
   return inArray(column as never, scope.athleteIds.length > 0 ? scope.athleteIds : ['00000000-0000-0000-0000-000000000000']);
 }
-
-export const STAFF: readonly Role[] = ['admin', 'head_coach', 'tester', 'physio'];
-export const ALL_ROLES: readonly Role[] = ['admin', 'head_coach', 'tester', 'physio', 'parent'];

@@ -255,14 +255,3 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
 }
 
 export type AthletesRepo = ReturnType<typeof athletesRepo>;
-
-/** The club an athlete belongs to, looked up before the caller's scope is known. */
-export async function clubOfAthlete(db: Db, athleteId: string): Promise<string | null> {
-  const [row] = await db.select({ clubId: athletes.clubId }).from(athletes).where(eq(athletes.id, athleteId));
-  return row?.clubId ?? null;
-}
-
-export async function clubOfSquad(db: Db, squadId: string): Promise<string | null> {
-  const [row] = await db.select({ clubId: squads.clubId }).from(squads).where(eq(squads.id, squadId));
-  return row?.clubId ?? null;
-}

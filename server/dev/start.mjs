@@ -15,7 +15,7 @@ const cluster = await startDevCluster(bin, 'squadline');
 
 try {
   const env = { DATABASE_URL: cluster.url };
-  tsxSync(['db/cli.ts', resetOnly ? 'reset' : 'prepare'], env);
+  tsxSync(['server/dev/db-cli.ts', resetOnly ? 'reset' : 'prepare'], env);
   if (resetOnly) {
     cluster.stop();
     log('Demo database rebuilt.');

@@ -52,7 +52,7 @@ try {
     ensureWebBuild();
     ensureDatabase(bin, layout, port, 'squadline_e2e');
     const dbEnv = { DATABASE_URL: databaseUrl(port, password, 'squadline_e2e') };
-    tsxSync(['db/cli.ts', 'reset'], dbEnv);
+    tsxSync(['server/dev/db-cli.ts', 'reset'], dbEnv);
     const webPort = await freePort();
     const uploads = fs.mkdtempSync(path.join(root, 'uploads-'));
     server = tsx(['server/index.ts'], {

@@ -4,6 +4,8 @@ import type { AddressInfo } from 'node:net';
 import { simpleParser, type ParsedMail } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 
+import { TAG_HEADERS } from './mailer';
+
 export interface StoredMessage {
   id: string;
   /** The From header as written (`"Squadline" <no-reply@…>`), else the envelope sender. */
@@ -17,6 +19,9 @@ export interface StoredMessage {
   messageId: string | null;
   /** ISO 8601 */
   receivedAt: string;
+  /** From the message's tag headers (see `MailTag`); null when untagged. */
+  kind: string | null;
+  clubId: string | null;
 }
 
 export interface FakeSmtp {
@@ -109,6 +114,8 @@ export async function startFakeSmtp({
             html: parsed.html === false || parsed.html === undefined ? null : parsed.html,
             messageId: parsed.messageId ?? null,
             receivedAt: new Date().toISOString(),
+            kind: headerText(parsed, TAG_HEADERS.kind),
+            clubId: headerText(parsed, TAG_HEADERS.clubId),
           });
           callback();
         })
@@ -185,4 +192,9 @@ function textAsSent(parsed: ParsedMail): string {
   const type = typeof header === 'object' && header !== null && 'value' in header ? header.value : header;
   const singlePart = typeof type === 'string' && type.toLowerCase() === 'text/plain';
   return singlePart ? text.replace(/\r?\n$/, '') : text;
+}
+
+function headerText(parsed: ParsedMail, name: string): string | null {
+  const value = parsed.headers.get(name.toLowerCase());
+  return typeof value === 'string' && value !== '' ? value : null;
 }

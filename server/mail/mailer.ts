@@ -17,12 +17,22 @@ export interface MailerOptions {
   from: string;
 }
 
+/** What a message is about: the local mailbox shows a club only its own mail, never password resets. */
+export interface MailTag {
+  kind: 'invitation' | 'password-reset' | (string & {});
+  /** The club the message is sent for; null for account mail (password resets). */
+  clubId: string | null;
+}
+
 export interface OutgoingMail {
   to: string;
   subject: string;
   text: string;
   html?: string;
+  tag?: MailTag;
 }
+
+export const TAG_HEADERS = { kind: 'X-Squadline-Kind', clubId: 'X-Squadline-Club' } as const;
 
 export interface Mailer {
   send(msg: OutgoingMail): Promise<{ messageId: string }>;
@@ -48,8 +58,9 @@ export function createMailer({ transport, from }: MailerOptions): Mailer {
   );
 
   return {
-    async send({ to, subject, text, html }) {
-      const info = await transporter.sendMail({ from, to, subject, text, ...(html === undefined ? {} : { html }) });
+    async send({ to, subject, text, html, tag }) {
+      const headers = tag ? { [TAG_HEADERS.kind]: tag.kind, [TAG_HEADERS.clubId]: tag.clubId ?? '' } : undefined;
+      const info = await transporter.sendMail({ from, to, subject, text, headers, ...(html === undefined ? {} : { html }) });
       return { messageId: info.messageId };
     },
 

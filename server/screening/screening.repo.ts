@@ -319,13 +319,3 @@ export type ScreeningRepo = ReturnType<typeof screeningRepo>;
 export type AssessmentRow = NonNullable<Awaited<ReturnType<ScreeningRepo['assessment']>>>;
 export type RoundRow = NonNullable<Awaited<ReturnType<ScreeningRepo['round']>>>;
 export type StatusCounts = Record<AssessmentStatus, number>;
-
-/**
- * The club a record belongs to, looked up before the caller's scope is known, so that a record of
- * another club answers 403 and a missing one 404.
- */
-export async function clubOf(db: Executor, kind: 'squad' | 'round' | 'assessment' | 'photo' | 'athlete', id: string): Promise<string | null> {
-  const table = { squad: squads, round: rounds, assessment: assessments, photo: photos, athlete: athletes }[kind];
-  const [row] = await db.select({ clubId: table.clubId }).from(table).where(eq(table.id, id));
-  return row?.clubId ?? null;
-}

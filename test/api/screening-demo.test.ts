@@ -3,13 +3,13 @@ import path from 'node:path';
 import { and, asc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessmentResults, assessments, athletes, clubs, rounds, squads } from '@/db/schema';
-import { DEMO_CLUB_NAME, DEMO_PASSWORD } from '@/db/seed/demo-accounts';
-import { DEMO_OPEN_ROUND } from '@/db/seed/demo-screening';
+import { DEMO_CLUB_NAME, DEMO_PASSWORD } from '@/server/dev/seed/demo-accounts';
+import { DEMO_OPEN_ROUND } from '@/server/dev/seed/demo-screening';
 import type { AthleteAssessmentItem, RoundDetail, RoundSummary } from '@/features/screening/contract';
 import { makeTestApp, signedInAgent } from '../fixtures/builders';
 import { createTestDb, type TestDb } from '../fixtures/test-db';
 
-// The demo is loaded the way `npm run db:reset` loads it: `tsx db/cli.ts reset` in its own process
+// The demo is loaded the way `npm run db:reset` loads it: `tsx server/dev/db-cli.ts reset` in its own process
 // (CommonJS under tsx), against a throw-away database.
 let testDb: TestDb;
 let seconds = 0;
@@ -18,13 +18,13 @@ beforeAll(async () => {
   testDb = await createTestDb();
   const started = Date.now();
   const root = path.resolve(__dirname, '..', '..');
-  const run = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['db/cli.ts', 'reset'], {
+  const run = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['server/dev/db-cli.ts', 'reset'], {
     cwd: root,
     env: { ...process.env, DATABASE_URL: testDb.url },
     encoding: 'utf8',
   });
   seconds = (Date.now() - started) / 1000;
-  if (run.status !== 0) throw new Error(`db/cli.ts reset failed: ${run.stderr}`);
+  if (run.status !== 0) throw new Error(`server/dev/db-cli.ts reset failed: ${run.stderr}`);
 }, 60_000);
 
 afterAll(async () => {

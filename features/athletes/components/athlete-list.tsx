@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { useMemo, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
@@ -10,7 +11,6 @@ import { TextField } from '@/features/ui/components/text-field';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { useAthletesQuery } from '../api/get-athletes';
 import type { Athlete } from '../api/types';
-import { canManageRoster } from '../roles';
 import { AthleteRow } from './athlete-row';
 
 /** Every athlete of the club, grouped by squad, with a name filter. Side by side on wide screens. */
@@ -33,7 +33,7 @@ export function AthleteList() {
 
   return (
     <View style={styles.wrap}>
-      {canManageRoster(membership.role) ? (
+      {can(membership.role, 'roster.manage') ? (
         <View style={[styles.actions, isTabletUp && styles.actionsWide]}>
           <ActionLink href="/athletes/new" label="Add athlete" testID="add-athlete" primary />
           <ActionLink href="/athletes/import" label="Import from CSV" testID="import-csv" />

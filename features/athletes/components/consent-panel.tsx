@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import { Formik } from 'formik';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -13,7 +14,6 @@ import { todayIso } from '../age';
 import { useConsentsQuery } from '../api/get-consents';
 import { useRecordConsentMutation } from '../api/record-consent';
 import type { Athlete, ConsentView } from '../api/types';
-import { canManageRoster } from '../roles';
 import { CONSENT_KINDS, CONSENT_LABELS, consentSchema, type ConsentInput, type ConsentKind } from '../schemas';
 import { ChoiceGroup } from './choice-group';
 
@@ -33,7 +33,7 @@ export function ConsentPanel({ athlete }: { athlete: Athlete }) {
   const { membership } = useActiveClub();
   const history = useConsentsQuery(athlete.id);
   const [recording, setRecording] = useState(false);
-  const manage = canManageRoster(membership.role);
+  const manage = can(membership.role, 'consent.manage');
   return (
     <Card testID="consent-panel">
       <Text variant="heading">Consent</Text>

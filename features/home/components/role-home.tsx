@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { ageInYears, todayIso } from '@/features/athletes/age';
@@ -34,7 +35,7 @@ export function RoleHome() {
         </Text>
         <Text>{`Hello ${me.user.displayName.split(' ')[0]}. ${intro.text}`}</Text>
       </View>
-      {membership.role === 'parent' ? (
+      {!can(membership.role, 'roster.read') ? (
         <ParentChildren />
       ) : membership.role === 'tester' || membership.role === 'head_coach' ? (
         // The squads with their open screening rounds and a way straight back in.
@@ -42,7 +43,7 @@ export function RoleHome() {
       ) : (
         <SquadCards />
       )}
-      {membership.role !== 'parent' ? (
+      {can(membership.role, 'roster.read') ? (
         <Link href="/athletes" style={styles.link}>
           <Text variant="label">See all athletes →</Text>
         </Link>

@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import { Formik } from 'formik';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { ApiError, fieldErrorsOf } from '@/features/api/client';
@@ -41,7 +42,7 @@ export function PeoplePanel() {
           </>
         ) : null}
       </Card>
-      {membership.role === 'admin' ? (
+      {can(membership.role, 'members.invite') ? (
         <Card style={isWide ? styles.col : undefined}>
           <Text variant="heading">Invite someone</Text>
           <InviteForm clubId={membership.clubId} />

@@ -1,7 +1,7 @@
+import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { useRoundQuery } from '@/features/screening/api/get-round';
-import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import type { RoundAthlete } from '@/features/screening/contract';
 import { useBreakpoints } from '@/features/ui/breakpoints';
@@ -26,7 +26,7 @@ export function assessmentHref(a: Pick<RoundAthlete, 'assessmentId' | 'status'>,
 export function RoundScreen({ id }: { id: string }) {
   const round = useRoundQuery(id);
   const { isTabletUp } = useBreakpoints();
-  const screens = canScreen(useActiveClub().membership.role);
+  const screens = can(useActiveClub().membership.role, 'screening.write');
   if (round.isPending) return <Text>Loading the round…</Text>;
   if (round.error) return <Notice tone="error">{round.error.message}</Notice>;
   const { round: r, athletes } = round.data;

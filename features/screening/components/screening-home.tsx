@@ -1,8 +1,8 @@
+import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { isOpenRound, useClubRoundsQuery } from '@/features/screening/api/get-rounds';
-import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
@@ -19,7 +19,7 @@ export function ScreeningHome() {
   const { membership } = useActiveClub();
   const { isWide } = useBreakpoints();
   const { squads, rounds: roundsQuery, bySquad, error } = useClubRoundsQuery();
-  const canOpen = canScreen(membership.role);
+  const canOpen = can(membership.role, 'screening.write');
   // On a phone the form waits behind one button at the top; a wide screen shows it beside the rounds.
   const [formOpen, setFormOpen] = useState(false);
   const form =

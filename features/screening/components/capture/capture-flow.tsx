@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, Redirect, useRouter } from 'expo-router';
 import { useEffect, useMemo, useRef, useState } from 'react';
@@ -9,7 +10,6 @@ import type { AssessmentDetail, LandmarkSet, PhotoView, TaskDraft } from '@/feat
 import { BATTERY, getTask, type TaskId, type View as PhotoSide } from '@/features/screening/engine';
 import { useAssessmentDraft } from '@/features/screening/hooks/use-assessment-draft';
 import { useUnfinishedUploads } from '@/features/screening/hooks/use-upload';
-import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import { CONTENT_MAX_WIDTH, useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
@@ -44,7 +44,7 @@ function photoIndex(photos: PhotoView[]): Map<string, PhotoView> {
  */
 export function CaptureFlow({ id }: { id: string }) {
   const { membership } = useActiveClub();
-  if (!canScreen(membership.role)) return <Redirect href={`/screening/assessments/${id}/result`} />;
+  if (!can(membership.role, 'screening.write')) return <Redirect href={`/screening/assessments/${id}/result`} />;
   return <CaptureLoader id={id} />;
 }
 

@@ -1,9 +1,9 @@
+import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
 import type { AssessmentDetail, ResultView } from '@/features/screening/contract';
 import type { Flag } from '@/features/screening/engine';
-import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Notice } from '@/features/ui/components/notice';
@@ -30,7 +30,7 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
       <View style={styles.wrap}>
         <Text variant="title">{name}</Text>
         <Notice title="Not submitted yet">This assessment has no result yet.</Notice>
-        {canScreen(membership.role) ? (
+        {can(membership.role, 'screening.write') ? (
           <Link href={`/screening/assessments/${detail.id}`} style={styles.action}>
             <Text style={styles.actionText}>Continue screening →</Text>
           </Link>
@@ -38,7 +38,7 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
       </View>
     );
   }
-  const canAdjust = canScreen(membership.role);
+  const canAdjust = can(membership.role, 'screening.write');
   return (
     <View style={styles.wrap} testID="result">
       <Header detail={detail} result={result} name={name} canEdit={canAdjust} />
