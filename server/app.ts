@@ -21,7 +21,9 @@ import type { Outbox } from './mail/outbox';
 import { meRouter } from './me/me.router';
 import { metaRouter, type Mailbox } from './meta/meta.router';
 import { screeningRouter } from './screening/screening.router';
+import { loggedWrites } from './storage/orphan-sweep';
 import type { PhotoStorage } from './storage/storage';
+import type { UploadSlots } from './http/upload-slots';
 
 export type AppConfig = {
   /** Base of links in e-mails, e.g. http://127.0.0.1:8080 */
@@ -45,6 +47,8 @@ export type AppDeps = {
   mailbox: Mailbox | null;
   logger: Logger;
   config: AppConfig;
+  /** Bounds the photo uploads read at once; default `uploadSlots()`. Injectable so a test can watch it. */
+  uploads?: UploadSlots;
 };
 
 export function createApp(deps: AppDeps) {
@@ -85,7 +89,8 @@ export function createApp(deps: AppDeps) {
   api.use(meRouter(db));
   api.use(clubsRouter(db, authService));
   api.use(athletesRouter(db));
-  api.use(screeningRouter({ db, storage: deps.storage }));
+  // Photo files are logged before they are written, so the orphan sweep finds those without a row.
+  api.use(screeningRouter({ db, storage: loggedWrites(db, deps.storage), uploads: deps.uploads }));
   api.use((() => {
     throw notFound('This API route');
   }) as RequestHandler);

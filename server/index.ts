@@ -10,6 +10,7 @@ import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 import { mailerFromEnv } from './mail/mailer';
 import { startQueuedOutbox } from './mail/outbox';
 import { createStorageFromEnv } from './storage/from-env';
+import { sweepOrphans } from './storage/orphan-sweep';
 
 const ROOT = path.resolve(__dirname, '..');
 
@@ -46,6 +47,12 @@ async function main() {
       production,
     },
   });
+  // Photo files written without their database row (a crash, a failed second write): removed at start
+  // and every hour. Safe with several processes: each log entry is claimed by one sweep.
+  const sweep = () => sweepOrphans(handle.db, storage, { logger }).catch((err: unknown) => logger.warn({ err }, 'orphan sweep failed'));
+  void sweep();
+  (setInterval(sweep, 60 * 60 * 1000) as unknown as { unref(): void }).unref();
+
   const server = app.listen(port, host, () => {
     logger.info({ url: publicUrl }, 'Squadline is listening');
     if (process.env.DEMO_BANNER) {

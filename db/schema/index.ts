@@ -3,3 +3,4 @@ export * from './clubs';
 export * from './athletes';
 export * from './screening';
 export * from './security';
+export * from './storage';

@@ -1,3 +1,5 @@
+import type { ApiErrorBody } from './contract';
+
 // The app's one API client: cookies included, typed errors, and a hook for 401s.
 // It has no UI side effects: whoever owns the session state subscribes to `onUnauthorized`.
 
@@ -35,7 +37,7 @@ const API_BASE = process.env.EXPO_PUBLIC_API_URL ?? '';
 
 const OFFLINE_MESSAGE = 'No connection to Squadline. Check the network and try again; nothing you typed is lost.';
 
-type ErrorPayload = { error?: { code: string; message: string; fields?: Record<string, string> } } | null;
+type ErrorPayload = Partial<ApiErrorBody> | null;
 
 function toApiError(status: number, payload: ErrorPayload): ApiError {
   if (status === 401) unauthorizedListeners.forEach((l) => l());

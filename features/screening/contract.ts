@@ -94,6 +94,12 @@ export const saveDraftSchema = object({
 });
 export type SaveDraftInput = InferType<typeof saveDraftSchema>;
 
+/** Submitting names the draft version the tester reviewed; a newer save from another phone: 409. */
+export const submitSchema = object({
+  draftVersion: number().integer().min(0).required('draftVersion is required.'),
+});
+export type SubmitInput = InferType<typeof submitSchema>;
+
 export const createRoundSchema = object({
   squadId: string().uuid('Choose a squad.').required('Choose a squad.'),
   name: string().trim().min(2, 'Name the round, for example "Pre-season".').max(80).required('Name the round.'),
@@ -107,6 +113,11 @@ export const planAdjustmentSchema = object({
   /** The full adjusted list, in order; exercises may be dropped, added from the library, or re-dosed. */
   exercises: array(mixed<PlannedExercise>().required()).min(1, 'Keep at least one exercise.').max(12).required(),
   note: string().max(1000).default(''),
+  /** The plan the user saw: its result version and when it was last adjusted (null: never). Stale: 409. */
+  basedOn: object({
+    resultVersion: number().integer().min(1).required('basedOn.resultVersion is required.'),
+    adjustedAt: string().nullable().defined('basedOn.adjustedAt is required (null when never adjusted).'),
+  }).required('basedOn is required.'),
 });
 export type PlanAdjustmentInput = InferType<typeof planAdjustmentSchema>;
 
@@ -115,6 +126,13 @@ export type PlanAdjustmentInput = InferType<typeof planAdjustmentSchema>;
 // ---------------------------------------------------------------------------------------------------
 
 export type AssessmentStatus = 'not_started' | 'in_progress' | 'submitted';
+
+/** PUT /api/assessments/:id */
+export type SaveDraftResponse = { draftVersion: number; status: AssessmentStatus };
+/** The `current` of a 409 `draft_conflict` (save or submit against a newer draft). */
+export type DraftConflictCurrent = { draft: AssessmentDraft; draftVersion: number; status: AssessmentStatus };
+/** The `current` of a 409 `plan_conflict` (plan edit against a newer result or adjustment). */
+export type PlanConflictCurrent = ResultView;
 
 export type RoundSummary = {
   id: string;

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler } from 'express';
 import { MulterError } from 'multer';
+import type { ApiErrorBody } from '@/features/api/contract';
 import { AppError } from './errors';
 
 const MULTER_MESSAGES: Partial<Record<MulterError['code'], string>> = {
@@ -10,9 +11,11 @@ const MULTER_MESSAGES: Partial<Record<MulterError['code'], string>> = {
 /** Registered last. No stack trace ever leaves the server. */
 export const errorMiddleware: ErrorRequestHandler = (error, req, res, _next) => {
   if (error instanceof AppError) {
-    res.status(error.status).json({
+    const body: ApiErrorBody & { current?: unknown } = {
       error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) },
-    });
+    };
+    if (error.current !== undefined) body.current = error.current;
+    res.status(error.status).json(body);
     return;
   }
   if (error instanceof MulterError) {

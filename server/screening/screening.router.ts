@@ -1,15 +1,17 @@
 import { Router } from 'express';
 import multer from 'multer';
-import { createRoundSchema, planAdjustmentSchema, saveDraftSchema } from '@/features/screening/contract';
+import { createRoundSchema, planAdjustmentSchema, saveDraftSchema, submitSchema, type SaveDraftResponse } from '@/features/screening/contract';
 import { accessGuards, callerClub, on, recordHome, recordIdOf, scopeOf } from '@/server/access/guard';
 import { badRequest, forbidden, notFound } from '@/server/http/errors';
 import { requireUuid } from '@/server/http/ids';
+import { uploadSlots, type UploadSlots } from '@/server/http/upload-slots';
 import { validateBody } from '@/server/http/validate';
 import { MAX_UPLOAD_BYTES } from './photo-processing';
-import { DraftConflictError, screeningService, type ScreeningDeps } from './screening.service';
+import { screeningService, type ScreeningDeps } from './screening.service';
 
-export function screeningRouter(deps: ScreeningDeps) {
+export function screeningRouter(deps: ScreeningDeps & { uploads?: UploadSlots }) {
   const { db } = deps;
+  const uploads = deps.uploads ?? uploadSlots();
   const service = screeningService(deps);
   const router = Router();
   const { guard } = accessGuards(db);
@@ -39,24 +41,20 @@ export function screeningRouter(deps: ScreeningDeps) {
   });
 
   router.put('/assessments/:id', guard('screening.write', on('assessment')), validateBody(saveDraftSchema), async (req, res) => {
-    try {
-      res.json(await service.saveDraft(scopeOf(res), recordIdOf(res), req.body));
-    } catch (error) {
-      if (!(error instanceof DraftConflictError)) throw error;
-      // The error middleware only knows { error }; the client also needs the draft it lost against.
-      res.status(409).json({ error: { code: error.code, message: error.message }, current: error.current });
-    }
+    // A stale draftVersion: 409 `draft_conflict` with the server's draft (DraftConflictCurrent) to merge.
+    res.json((await service.saveDraft(scopeOf(res), recordIdOf(res), req.body)) satisfies SaveDraftResponse);
   });
 
   // Access is checked before multer reads the body, so a refused caller's upload is never buffered.
-  router.post('/assessments/:id/photos', guard('screening.write', on('assessment')), upload.single('photo'), async (req, res) => {
+  // Then waits for one of a few upload slots, so 20 phones uploading at once hold a bounded amount of memory.
+  router.post('/assessments/:id/photos', guard('screening.write', on('assessment')), uploads.middleware, upload.single('photo'), async (req, res) => {
     const body = (req.body ?? {}) as Record<string, unknown>;
     const photo = await service.uploadPhoto(scopeOf(res), recordIdOf(res), { buffer: req.file?.buffer, task: body.task, view: body.view });
     res.status(201).json(photo);
   });
 
-  router.post('/assessments/:id/submit', guard('screening.write', on('assessment')), async (_req, res) => {
-    res.json(await service.submit(scopeOf(res), recordIdOf(res)));
+  router.post('/assessments/:id/submit', guard('screening.write', on('assessment')), validateBody(submitSchema), async (req, res) => {
+    res.json(await service.submit(scopeOf(res), recordIdOf(res), req.body));
   });
 
   router.put('/assessments/:id/plan', guard('screening.write', on('assessment')), validateBody(planAdjustmentSchema), async (req, res) => {

@@ -7,6 +7,7 @@ import type {
   AssessmentDraft,
   AssessmentStatus,
   AthleteAssessmentItem,
+  DraftConflictCurrent,
   CreateRoundInput,
   PhotoView,
   PlanAdjustmentInput,
@@ -28,7 +29,7 @@ import {
   type View,
 } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
-import { AppError, badRequest, conflict, notFound } from '@/server/http/errors';
+import { AppError, badRequest, conflict, notFound, staleVersion } from '@/server/http/errors';
 import type { PhotoStorage } from '@/server/storage/storage';
 import { validateDraft } from './draft-validation';
 import { processPhoto } from './photo-processing';
@@ -46,11 +47,13 @@ export type ScreeningDeps = {
 
 /** 409 on a stale draftVersion, carrying the server's draft so the client can merge and retry. */
 export class DraftConflictError extends AppError {
-  constructor(readonly current: { draft: AssessmentDraft; draftVersion: number; status: AssessmentStatus }) {
+  constructor(current: DraftConflictCurrent) {
     super(
       409,
       'draft_conflict',
       'This assessment was changed on another device since you opened it. Your changes were not saved: review the latest version and save again.',
+      undefined,
+      current,
     );
   }
 }
@@ -119,7 +122,7 @@ export async function submitAssessment(
   db: Executor,
   scope: ClubScope,
   assessmentId: string,
-  options: { evaluate?: Evaluate; at?: Date } = {},
+  options: { evaluate?: Evaluate; at?: Date; draftVersion?: number } = {},
 ): Promise<ResultView> {
   const evaluate = options.evaluate ?? evaluateAssessment;
   const at = options.at ?? new Date();
@@ -128,6 +131,10 @@ export async function submitAssessment(
     if (!(await repo.lockAssessment(assessmentId))) throw notFound('The assessment');
     // Read after taking the lock: this is the draft that gets evaluated.
     const a = (await repo.assessment(assessmentId))!;
+    // The tester reviewed `draftVersion`: a newer save from another phone must be seen before submitting.
+    if (options.draftVersion !== undefined && a.draftVersion !== options.draftVersion) {
+      throw new DraftConflictError({ draft: a.draft, draftVersion: a.draftVersion, status: a.status });
+    }
     if (!hasTaskData(a.draft)) {
       throw badRequest('There is nothing to submit yet: record at least one task (skipped tasks do not count).', { 'draft.tasks': 'Record at least one task.' });
     }
@@ -278,8 +285,8 @@ export function screeningService(deps: ScreeningDeps) {
       return stored.data;
     },
 
-    submit(scope: ClubScope, id: string): Promise<ResultView> {
-      return submitAssessment(db, scope, id, { evaluate: deps.evaluate });
+    submit(scope: ClubScope, id: string, input: { draftVersion: number }): Promise<ResultView> {
+      return submitAssessment(db, scope, id, { evaluate: deps.evaluate, draftVersion: input.draftVersion });
     },
 
     async adjustPlan(scope: ClubScope, id: string, input: PlanAdjustmentInput): Promise<ResultView> {
@@ -290,6 +297,15 @@ export function screeningService(deps: ScreeningDeps) {
         if (!(await repo.lockAssessment(id))) throw notFound('The assessment');
         const current = await repo.currentResult(id);
         if (!current) throw conflict('This assessment has no result yet: submit it before adjusting the plan.');
+        const latest = await repo.latestAdjustment(current.id);
+        const seen = input.basedOn;
+        if (current.version !== seen.resultVersion || (latest?.createdAt.toISOString() ?? null) !== seen.adjustedAt) {
+          throw staleVersion(
+            'plan_conflict',
+            'This plan was changed (or the screen re-submitted) since you opened it. Your edit was not saved: look at the current plan and edit again.',
+            await resultView(repo, id),
+          );
+        }
         await repo.addPlanAdjustment(current.id, exercises, input.note ?? '');
       });
       return (await resultView(repoFor(scope), id))!;

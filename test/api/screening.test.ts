@@ -51,6 +51,11 @@ async function openRound(name = 'Pre-season', screenedOn = '2026-09-14'): Promis
 
 const assessmentOf = (round: RoundDetail, athleteId: string) => round.athletes.find((a) => a.athleteId === athleteId)!.assessmentId;
 
+/** The draft version the server holds now: what a tester who just looked at it names in a submit. */
+async function versionOf(id: string): Promise<number> {
+  return ((await tester.get(`/api/assessments/${id}`)).body as AssessmentDetail).draftVersion;
+}
+
 async function saveDraft(id: string, draftVersion: number, draft = makeDraft()) {
   const res = await tester.put(`/api/assessments/${id}`).send({ draftVersion, draft });
   expect(res.status).toBe(200);
@@ -86,7 +91,7 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     expect(await saveDraft(id, 1)).toEqual({ draftVersion: 2, status: 'in_progress' });
 
     // Submit: the engine runs on the saved draft.
-    const submitted = await tester.post(`/api/assessments/${id}/submit`);
+    const submitted = await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) });
     expect(submitted.status).toBe(200);
     const first = submitted.body as ResultView;
     expect(first).toMatchObject({ version: 1, engineVersion: expect.any(String), createdByName: 'Tess Tester', adjustment: null, history: [] });
@@ -115,7 +120,7 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     expect(reopened.status).toBe('in_progress');
     expect(reopened.result?.version).toBe(1);
 
-    const again = await tester.post(`/api/assessments/${id}/submit`);
+    const again = await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) });
     expect(again.status).toBe(200);
     expect(again.body).toMatchObject({ version: 2, history: [{ id: first.id, version: 1 }] });
     expect((again.body as ResultView).result.flags.some((f) => f.pattern === 'dynamic-knee-valgus')).toBe(false);
@@ -136,14 +141,14 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     const round = await openRound('Plan check', '2026-09-20');
     const id = assessmentOf(round, ids.mia);
     await saveDraft(id, 0);
-    const result = (await tester.post(`/api/assessments/${id}/submit`)).body as ResultView;
+    const result = (await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) })).body as ResultView;
     const [keep] = result.result.plan.exercises;
     const extra = EXERCISES.find((e) => !result.result.plan.exercises.some((p) => p.id === e.id))!;
     const exercises = [
       { ...keep!, prescription: { ...keep!.prescription, sets: { min: 3, max: 3 } } },
       { id: extra.id, prescription: extra.prescription },
     ];
-    const res = await tester.put(`/api/assessments/${id}/plan`).send({ exercises, note: 'Only two this block' });
+    const res = await tester.put(`/api/assessments/${id}/plan`).send({ exercises, note: 'Only two this block', basedOn: { resultVersion: result.version, adjustedAt: null } });
     expect(res.status).toBe(200);
     const view = res.body as ResultView;
     expect(view.adjustment).toMatchObject({ note: 'Only two this block', createdByName: 'Tess Tester' });
@@ -158,13 +163,52 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     const bad = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: [{ id: 'made-up', prescription: {} }] });
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['exercises[0].id']));
-    const none = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: [] });
+    const none = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: [], basedOn: { resultVersion: 1, adjustedAt: view.adjustment!.createdAt } });
     expect(none.status).toBe(400);
+  });
+
+  it('refuses a plan edit against a plan changed since it was opened (409 with the current plan)', async () => {
+    const round = await openRound('Two editors', '2026-09-23');
+    const id = assessmentOf(round, ids.mia);
+    await saveDraft(id, 0);
+    const result = (await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: 1 })).body as ResultView;
+    const [first] = result.result.plan.exercises;
+    const seen = { resultVersion: result.version, adjustedAt: null };
+    const edit = (note: string, basedOn: { resultVersion: number; adjustedAt: string | null }) =>
+      tester.put(`/api/assessments/${id}/plan`).send({ exercises: [{ id: first!.id, prescription: first!.prescription }], note, basedOn });
+    const a = await edit('First phone', seen);
+    expect(a.status).toBe(200);
+    // The second phone still shows the engine's plan: its edit would silently replace the first.
+    const b = await edit('Second phone', seen);
+    expect(b.status).toBe(409);
+    expect(b.body.error.code).toBe('plan_conflict');
+    expect((b.body.current as ResultView).adjustment).toMatchObject({ note: 'First phone' });
+    // Having seen the current plan, it may edit it.
+    const c = await edit('Second phone, after looking', { resultVersion: 1, adjustedAt: (a.body as ResultView).adjustment!.createdAt });
+    expect(c.status).toBe(200);
+    // A re-submission makes a new result version: an edit of the old one is stale too.
+    await saveDraft(id, 1);
+    await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: 2 });
+    expect((await edit('Old result', { resultVersion: 1, adjustedAt: (c.body as ResultView).adjustment!.createdAt })).status).toBe(409);
+  });
+
+  it('refuses to submit a draft other than the one reviewed (409 with the current draft)', async () => {
+    const round = await openRound('Two phones', '2026-09-24');
+    const id = assessmentOf(round, ids.mia);
+    await saveDraft(id, 0);
+    await saveDraft(id, 1, makeDraft({ step: 'review' })); // another phone saved after this one looked
+    const stale = await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: 1 });
+    expect(stale.status).toBe(409);
+    expect(stale.body).toMatchObject({ error: { code: 'draft_conflict' }, current: { draftVersion: 2, status: 'in_progress' } });
+    expect((await tester.get(`/api/assessments/${id}`)).body.result).toBeNull();
+    expect((await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: 2 })).status).toBe(200);
   });
 
   it('refuses a plan adjustment before there is a result', async () => {
     const round = await openRound('No result yet', '2026-09-21');
-    const res = await tester.put(`/api/assessments/${assessmentOf(round, ids.mia)}/plan`).send({ exercises: [{ id: EXERCISES[0]!.id, prescription: EXERCISES[0]!.prescription }] });
+    const res = await tester
+      .put(`/api/assessments/${assessmentOf(round, ids.mia)}/plan`)
+      .send({ exercises: [{ id: EXERCISES[0]!.id, prescription: EXERCISES[0]!.prescription }], basedOn: { resultVersion: 1, adjustedAt: null } });
     expect(res.status).toBe(409);
   });
 
@@ -218,7 +262,7 @@ describe('submitting', () => {
     const round = await openRound('Empty', '2026-09-17');
     const id = assessmentOf(round, ids.mia);
     await saveDraft(id, 0, { body: { statureCm: 150 }, tasks: { 'drop-landing': { criteria: [], skipped: true } } });
-    const res = await tester.post(`/api/assessments/${id}/submit`);
+    const res = await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) });
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/nothing to submit/i);
   });
@@ -229,7 +273,7 @@ describe('submitting', () => {
     const mirrored = valgusSquat();
     mirrored.landmarks!.front!['right-hip'] = { x: 700, y: 700 }; // right hip placed on the image's right
     await saveDraft(id, 0, makeDraft({ tasks: { 'two-leg-squat': mirrored } }));
-    const res = await tester.post(`/api/assessments/${id}/submit`);
+    const res = await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) });
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/image's left/);
     expect(res.body.error.fields).toHaveProperty(['draft.tasks.two-leg-squat.landmarks.front.right-hip']);
@@ -246,7 +290,7 @@ describe('a submission that fails halfway leaves no partial result', () => {
     const round = await openRound('Atomic', '2026-09-18');
     id = assessmentOf(round, ids.mia);
     await saveDraft(id, 0);
-    firstResultId = ((await tester.post(`/api/assessments/${id}/submit`)).body as ResultView).id;
+    firstResultId = ((await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) })).body as ResultView).id;
     await saveDraft(id, 1, makeDraft({ step: 'edited' })); // back to in progress, result 1 still current
     cookie = await sessionCookie(app, 'tester@riverside.test');
   });
@@ -264,7 +308,7 @@ describe('a submission that fails halfway leaves no partial result', () => {
       const result = evaluateAssessment(input);
       return { ...result, plan: { ...result.plan, cautions: [...result.plan.cautions, { id: 'x', text: 'nul \u0000 byte', source: null }] } };
     };
-    const res = await supertest(screeningAppWith(testDb.db, storage, poisoned)).post(`/api/assessments/${id}/submit`).set('Cookie', cookie);
+    const res = await supertest(screeningAppWith(testDb.db, storage, poisoned)).post(`/api/assessments/${id}/submit`).set('Cookie', cookie).send({ draftVersion: await versionOf(id) });
     expect(res.status).toBe(500);
     expect(res.body.error.code).toBe('server_error');
     await expectUnchanged();
@@ -274,7 +318,7 @@ describe('a submission that fails halfway leaves no partial result', () => {
     const broken = () => {
       throw new Error('engine bug');
     };
-    const res = await supertest(screeningAppWith(testDb.db, storage, broken)).post(`/api/assessments/${id}/submit`).set('Cookie', cookie);
+    const res = await supertest(screeningAppWith(testDb.db, storage, broken)).post(`/api/assessments/${id}/submit`).set('Cookie', cookie).send({ draftVersion: await versionOf(id) });
     expect(res.status).toBe(500);
     await expectUnchanged();
   });
@@ -283,14 +327,14 @@ describe('a submission that fails halfway leaves no partial result', () => {
     const refusing = () => {
       throw new EngineInputError('athlete.statureCm', 'must be between 80 and 230 cm, got 5');
     };
-    const res = await supertest(screeningAppWith(testDb.db, storage, refusing)).post(`/api/assessments/${id}/submit`).set('Cookie', cookie);
+    const res = await supertest(screeningAppWith(testDb.db, storage, refusing)).post(`/api/assessments/${id}/submit`).set('Cookie', cookie).send({ draftVersion: await versionOf(id) });
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toEqual({ 'draft.body.statureCm': 'must be between 80 and 230 cm, got 5' });
     await expectUnchanged();
   });
 
   it('and the real engine then submits fine', async () => {
-    const res = await supertest(screeningAppWith(testDb.db, storage, evaluateAssessment)).post(`/api/assessments/${id}/submit`).set('Cookie', cookie);
+    const res = await supertest(screeningAppWith(testDb.db, storage, evaluateAssessment)).post(`/api/assessments/${id}/submit`).set('Cookie', cookie).send({ draftVersion: await versionOf(id) });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ version: 2, history: [{ id: firstResultId }] });
   });
@@ -304,7 +348,7 @@ describe('who may do what', () => {
     round = await openRound('Access', '2026-09-19');
     id = assessmentOf(round, ids.ava);
     await saveDraft(id, 0);
-    expect((await tester.post(`/api/assessments/${id}/submit`)).status).toBe(200);
+    expect((await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) })).status).toBe(200);
   });
 
   const reads = () => [
@@ -316,8 +360,8 @@ describe('who may do what', () => {
   const writes = () => [
     ['POST', '/api/rounds', { squadId: ids.squad, name: 'Sneaky', screenedOn: '2026-09-30' }],
     ['PUT', `/api/assessments/${id}`, { draftVersion: 1, draft: makeDraft() }],
-    ['POST', `/api/assessments/${id}/submit`],
-    ['PUT', `/api/assessments/${id}/plan`, { exercises: [{ id: EXERCISES[0]!.id, prescription: EXERCISES[0]!.prescription }] }],
+    ['POST', `/api/assessments/${id}/submit`, { draftVersion: 1 }],
+    ['PUT', `/api/assessments/${id}/plan`, { exercises: [{ id: EXERCISES[0]!.id, prescription: EXERCISES[0]!.prescription }], basedOn: { resultVersion: 1, adjustedAt: null } }],
   ];
 
   async function call(agent: Agent, [method, url, body]: (string | object | undefined)[]) {

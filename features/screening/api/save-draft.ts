@@ -1,5 +1,6 @@
 import { api, ApiError } from '@/features/api/client';
-import type { AssessmentDraft } from '@/features/screening/contract';
+import { conflictCurrent } from '@/features/api/contract';
+import type { AssessmentDraft, DraftConflictCurrent, SaveDraftResponse } from '@/features/screening/contract';
 
 export type ServerDraft = { draft: AssessmentDraft; draftVersion: number };
 
@@ -13,36 +14,12 @@ export async function saveDraft(
   const json = { draftVersion, draft };
   // keepalive lets a save finish while the page is hidden, but browsers cap its body at 64 KB.
   const keepalive = options.keepalive === true && JSON.stringify(json).length < 60_000;
-  const res = await api<{ draftVersion?: number; assessment?: { draftVersion?: number } } | undefined>(
-    `/assessments/${encodeURIComponent(id)}`,
-    { method: 'PUT', json, keepalive },
-  );
-  const next = res?.draftVersion ?? res?.assessment?.draftVersion;
-  // A server that answers without the version still accepted the save: the next version is ours + 1.
-  return { draftVersion: typeof next === 'number' ? next : draftVersion + 1 };
+  const res = await api<SaveDraftResponse>(`/assessments/${encodeURIComponent(id)}`, { method: 'PUT', json, keepalive });
+  return { draftVersion: res.draftVersion };
 }
 
-function asServerDraft(v: unknown): ServerDraft | null {
-  if (typeof v !== 'object' || v === null) return null;
-  const o = v as Record<string, unknown>;
-  if (typeof o.draftVersion === 'number' && typeof o.draft === 'object' && o.draft !== null) {
-    return { draft: o.draft as AssessmentDraft, draftVersion: o.draftVersion };
-  }
-  return null;
-}
-
-/** The server's current draft from a 409 body, wherever the server put it; null when it is not there. */
+/** The server's current draft from a 409 `draft_conflict` body (`ConflictBody<DraftConflictCurrent>`). */
 export function serverDraftFromConflict(error: ApiError): ServerDraft | null {
-  const body = error.body as Record<string, unknown> | undefined;
-  if (!body) return null;
-  const err = body.error as Record<string, unknown> | undefined;
-  return (
-    asServerDraft(body) ??
-    asServerDraft(body.current) ??
-    asServerDraft(body.assessment) ??
-    asServerDraft(err) ??
-    asServerDraft(err?.current) ??
-    asServerDraft(err?.details) ??
-    null
-  );
+  const current = conflictCurrent<DraftConflictCurrent>(error.body);
+  return current ? { draft: current.draft, draftVersion: current.draftVersion } : null;
 }

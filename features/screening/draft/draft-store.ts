@@ -71,6 +71,11 @@ export class DraftStore {
     return this.snapshot.ready;
   }
 
+  /** The server's version of the draft this phone last saved or merged (what a submit names). */
+  get version() {
+    return this.baseVersion;
+  }
+
   /** Seeds the store from the server once; a copy left on this phone is merged in and saved. */
   init(server: ServerDraft): void {
     if (this.snapshot.ready) return;

@@ -32,5 +32,7 @@ export function useAssessmentDraft(detail: AssessmentDetail | undefined, assessm
 
   const update = useCallback((change: (draft: AssessmentDraft) => AssessmentDraft) => store.update(change), [store]);
   const flush = useCallback(() => store.flush(), [store]);
-  return { ...snapshot, update, flush };
+  /** The draft version saved last, read after `flush()` to name it in a submit. */
+  const savedVersion = useCallback(() => store.version, [store]);
+  return { ...snapshot, update, flush, savedVersion };
 }

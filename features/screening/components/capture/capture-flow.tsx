@@ -61,7 +61,7 @@ function Centered({ children }: { children: React.ReactNode }) {
 }
 
 function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState: ReturnType<typeof useAssessmentDraft> }) {
-  const { draft, status, update, flush, mergedFromServer } = draftState;
+  const { draft, status, update, flush, savedVersion, mergedFromServer } = draftState;
   const { isTabletUp } = useBreakpoints();
   const router = useRouter();
   const qc = useQueryClient();
@@ -117,7 +117,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
     setSubmitError(null);
     try {
       await flush();
-      await submit.mutateAsync();
+      await submit.mutateAsync(savedVersion());
       router.replace(`/screening/assessments/${detail.id}/result`);
     } catch (e) {
       setSubmitError(e instanceof Error ? e.message : String(e));

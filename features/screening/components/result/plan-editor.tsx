@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { ValidationError } from 'yup';
 import { useAdjustPlanMutation } from '@/features/screening/api/adjust-plan';
-import { planAdjustmentSchema } from '@/features/screening/contract';
+import { planAdjustmentSchema, type PlanAdjustmentInput } from '@/features/screening/contract';
 import { EXERCISES, type PlannedExercise } from '@/features/screening/engine';
 import { canShiftLoad, finalizeAdjustment, fromLibrary, shiftLoad, shiftSets } from '@/features/screening/plan-edits';
 import { loadText, setsText } from '@/features/screening/labels';
@@ -17,13 +17,15 @@ type Props = {
   /** Where the editing starts: the current adjustment, or the engine's proposal. */
   start: PlannedExercise[];
   startNote: string;
+  /** The plan this edit starts from, so an edit against a plan changed meanwhile is refused (409). */
+  basedOn: PlanAdjustmentInput['basedOn'];
   proposal: PlannedExercise[];
   oneRepMaxKg: number | null | undefined;
   onClose(): void;
 };
 
 /** Drop an exercise, add one back from the library, change sets or load; saved beside the engine's proposal. */
-export function PlanEditor({ assessmentId, start, startNote, proposal, oneRepMaxKg, onClose }: Props) {
+export function PlanEditor({ assessmentId, start, startNote, basedOn, proposal, oneRepMaxKg, onClose }: Props) {
   const [list, setList] = useState<PlannedExercise[]>(start);
   const [note, setNote] = useState(startNote);
   const [error, setError] = useState<string | null>(null);
@@ -34,7 +36,7 @@ export function PlanEditor({ assessmentId, start, startNote, proposal, oneRepMax
   const onSave = async () => {
     setError(null);
     try {
-      const input = await planAdjustmentSchema.validate({ exercises: finalizeAdjustment(list, proposal), note });
+      const input = await planAdjustmentSchema.validate({ exercises: finalizeAdjustment(list, proposal), note, basedOn });
       await save.mutateAsync(input);
       onClose();
     } catch (e) {

@@ -71,6 +71,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust }: { 
           assessmentId={assessmentId}
           start={adjustment?.exercises ?? plan.exercises}
           startNote={adjustment?.note ?? ''}
+          basedOn={{ resultVersion: result.version, adjustedAt: adjustment?.createdAt ?? null }}
           proposal={plan.exercises}
           oneRepMaxKg={oneRepMaxKg}
           onClose={() => setEditing(false)}
