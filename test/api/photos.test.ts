@@ -160,7 +160,7 @@ describe('stored photos', () => {
     const full = await tester.get(view.url).buffer(true);
     expect(full.status).toBe(200);
     expect(full.headers['content-type']).toBe('image/jpeg');
-    expect(full.headers['cache-control']).toBe('private, max-age=300');
+    expect(full.headers['cache-control']).toBe('no-store');
     expect((await sharp(full.body as Buffer).metadata()).width).toBe(1600);
     const thumb = await tester.get(view.thumbUrl).buffer(true);
     expect((await sharp(thumb.body as Buffer).metadata()).width).toBe(320);

@@ -165,7 +165,7 @@ describe('route table', () => {
     }
     expect(failures).toEqual([]);
     expect(calls).toBe(routes.filter((r) => r.access).length * callers.length);
-  });
+  }, 180_000); // several hundred requests; on a busy 2-core machine this takes a while
 
   it('names the missing sample when a new kind of record has none', async () => {
     await expect(sampleId('no-such-kind', { method: 'GET', path: '/api/x/:id', access: null })).rejects.toThrow(

@@ -160,7 +160,9 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     expect(view.adjustment!.exercises[1]!.name).toBe(extra.name);
     expect(view.result.plan).toEqual(result.result.plan);
 
-    const bad = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: [{ id: 'made-up', prescription: {} }] });
+    const bad = await tester
+      .put(`/api/assessments/${id}/plan`)
+      .send({ exercises: [{ id: 'made-up', prescription: {} }], basedOn: { resultVersion: 1, adjustedAt: view.adjustment!.createdAt } });
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['exercises[0].id']));
     const none = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: [], basedOn: { resultVersion: 1, adjustedAt: view.adjustment!.createdAt } });
