@@ -21,7 +21,7 @@ export function uploadSlots(slots = 4, maxWaiting = 64) {
   const middleware: RequestHandler = (req, res, next) => {
     const start = () => {
       // The caller gave up while waiting: hand the slot on.
-      if (req.destroyed || res.destroyed) return release();
+      if (res.destroyed || req.socket?.destroyed) return release();
       maxActive = Math.max(maxActive, active);
       let done = false;
       const free = () => {
