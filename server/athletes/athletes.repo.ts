@@ -3,7 +3,7 @@ import { and, asc, desc, eq, inArray, isNull, ne, sql, type SQL } from 'drizzle-
 import type { NodePgQueryResultHKT } from 'drizzle-orm/node-postgres';
 import type { PgDatabase } from 'drizzle-orm/pg-core';
 import type { Db } from '@/db/client';
-import * as schema from '@/db/schema';
+import type * as schema from '@/db/schema';
 import { athletes, consents, guardianLinks, memberships, squads, users, type Role } from '@/db/schema';
 import { athleteFilter, type ClubScope } from '@/server/access/scope';
 import type { Athlete, ConsentView } from '@/features/athletes/api/types';

@@ -1,6 +1,6 @@
 // `npm test`: the same bootstrap as `npm start`, then a throw-away PostgreSQL cluster on loopback,
-// vitest (unit + API against the real database), and Playwright browser tests in Debian's Chromium.
-// `npm test -- --unit` runs vitest only; `npm test -- --e2e` runs the browser tests only.
+// ESLint and Prettier (`npm run lint`), vitest (unit + API against the real database), and Playwright browser tests in Debian's Chromium.
+// `npm test -- --unit` runs vitest only (no lint); `npm test -- --e2e` runs the browser tests only.
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -39,7 +39,13 @@ process.on('SIGINT', () => {
 let status = 0;
 try {
   const env = { ...process.env, TEST_DATABASE_ADMIN_URL: databaseUrl(port, password, 'postgres') };
-  if (only !== 'e2e') {
+  if (only === 'all') {
+    // Lint first: ESLint (Expo's config and TypeScript rules) and Prettier's check.
+    log('Lint (ESLint, Prettier)...');
+    const lint = spawnSync('npm', ['run', '--silent', 'lint'], { cwd: ROOT, stdio: 'inherit', env });
+    status = lint.status ?? 1;
+  }
+  if (status === 0 && only !== 'e2e') {
     log('Unit and API tests (vitest)...');
     const vitest = spawnSync(
       path.join(ROOT, 'node_modules', '.bin', 'vitest'),

@@ -1,7 +1,7 @@
 import { and, asc, desc, eq, isNull, ne, sql, type SQL } from 'drizzle-orm';
 import type { NodePgQueryResultHKT } from 'drizzle-orm/node-postgres';
 import type { PgDatabase } from 'drizzle-orm/pg-core';
-import * as schema from '@/db/schema';
+import type * as schema from '@/db/schema';
 import {
   assessmentResults,
   assessments,

@@ -4,7 +4,6 @@ import type { Photo } from '@/db/schema';
 import { decimalAge } from '@/features/athletes/age';
 import type {
   AssessmentDetail,
-  AssessmentDraft,
   AssessmentStatus,
   AthleteAssessmentItem,
   DraftConflictCurrent,

@@ -1,7 +1,6 @@
 // Photo storage housekeeping: files written without their database row are swept, and uploads in
 // flight are bounded (20 phones uploading at once hold at most a few uploads in memory).
 import { sql } from 'drizzle-orm';
-import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessments, rounds, storageWrites } from '@/db/schema';
 import { uploadSlots } from '@/server/http/upload-slots';

@@ -1,4 +1,4 @@
-import { api, ApiError } from '@/features/api/client';
+import { api, type ApiError } from '@/features/api/client';
 import { conflictCurrent } from '@/features/api/contract';
 import type { AssessmentDraft, DraftConflictCurrent, SaveDraftResponse } from '@/features/screening/contract';
 
