@@ -16,7 +16,13 @@ const config = {
   },
   plugins: [
     // Each route is its own download on the web, so the sign-in page does not carry the capture screens.
-    ['expo-router', { asyncRoutes: { web: true, default: 'development' }, sitemap: false }], 'expo-font', ['expo-image-picker', { photosPermission: 'Squadline uses your photos for movement screening.', cameraPermission: 'Squadline uses the camera for movement screening photos.' }]],
+    ['expo-router', { asyncRoutes: { web: true, default: 'development' }, sitemap: false }],
+    'expo-font',
+    [
+      'expo-image-picker',
+      { photosPermission: 'Squadline uses your photos for movement screening.', cameraPermission: 'Squadline uses the camera for movement screening photos.' },
+    ],
+  ],
   experiments: { typedRoutes: false },
 };
 

@@ -7,15 +7,16 @@ import type { Db } from '@/db/client';
 import { requireSignedIn } from './access/scope';
 import { athletesRouter } from './athletes/athletes.router';
 import { careRouter } from './care/care.router';
-import { authRouter, DEFAULT_SIGN_IN_LIMITS, type SignInLimits } from './auth/auth.router';
+import { authRouter } from './auth/auth.router';
 import { createAuthService } from './auth/auth.service';
+import type { AuthLimits } from './auth/rate-limits';
 import { createLucia } from './auth/lucia';
 import { devCorsMiddleware, sameOriginMiddleware, sessionMiddleware } from './auth/session-middleware';
 import { clubsRouter } from './clubs/clubs.router';
 import { errorMiddleware } from './http/error-middleware';
+import { httpLogOptions } from './http/logging';
 import { notFound } from './http/errors';
 import { idempotency } from './http/idempotency';
-import { postgresRateLimitStore } from './http/rate-limit-store';
 import type { Outbox } from './mail/outbox';
 import { meRouter } from './me/me.router';
 import { metaRouter, type Mailbox } from './meta/meta.router';
@@ -23,8 +24,10 @@ import { poseModelRouter } from './pose-model/pose-model.router';
 import { measuringRouter } from './measuring/measuring.router';
 import { progressRouter } from './progress/progress.router';
 import { screeningRouter } from './screening/screening.router';
+import { loggedWrites } from './storage/orphan-sweep';
 import type { PhotoStorage } from './storage/storage';
 import { webExport } from './web/serve-export';
+import type { UploadSlots } from './http/upload-slots';
 
 export type AppConfig = {
   /** Base of links in e-mails, e.g. http://127.0.0.1:8080 */
@@ -32,7 +35,10 @@ export type AppConfig = {
   secureCookies: boolean;
   /** The web export to serve (dist/); omitted in API tests. */
   webDir?: string;
-  signInLimits?: SignInLimits;
+  /** Rate limits of sign-in and links; the defaults in server/auth/rate-limits.ts. */
+  authLimits?: AuthLimits;
+  /** `NODE_ENV=production`: development-only routes (the local mailbox) do not exist. */
+  production?: boolean;
   /** The Expo dev server's origin under `npm run dev`; unset in production. */
   devWebOrigin?: string;
 };
@@ -41,16 +47,18 @@ export type AppDeps = {
   db: Db;
   storage: PhotoStorage;
   outbox: Outbox;
-  /** The local e-mail fake's inbox, or null when real SMTP is used. */
+  /** The local e-mail fake's inbox, or null when real SMTP is used (and always in production). */
   mailbox: Mailbox | null;
   logger: Logger;
   config: AppConfig;
+  /** Bounds the photo uploads read at once; default `uploadSlots()`. Injectable so a test can watch it. */
+  uploads?: UploadSlots;
 };
 
 export function createApp(deps: AppDeps) {
   const { db, outbox, mailbox, logger, config } = deps;
   const auth = createLucia(db, config.secureCookies);
-  const authService = createAuthService({ db, auth, outbox, publicUrl: config.publicUrl });
+  const authService = createAuthService({ db, auth, outbox, limits: config.authLimits });
 
   const web = config.webDir ? webExport(config.webDir) : null;
 
@@ -59,7 +67,7 @@ export function createApp(deps: AppDeps) {
   app.set('trust proxy', 'loopback');
   // gzip for JSON, scripts and fonts; JPEG photos are already compressed and are skipped by type.
   app.use(compression());
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  app.use(pinoHttp({ logger, ...httpLogOptions() }));
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -80,11 +88,11 @@ export function createApp(deps: AppDeps) {
   const api = express.Router();
   if (config.devWebOrigin) api.use(devCorsMiddleware(config.devWebOrigin));
   api.use(express.json({ limit: '1mb' }));
-  api.use(sameOriginMiddleware(config.devWebOrigin));
+  api.use(sameOriginMiddleware(config.publicUrl, config.devWebOrigin));
   api.use(sessionMiddleware(auth));
-  api.use(metaRouter(db, mailbox));
-  // Sign-in limits count in PostgreSQL, so several server processes share one count.
-  api.use('/auth', authRouter(authService, auth, config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS, (prefix) => postgresRateLimitStore(db, prefix)));
+  api.use(metaRouter(db, config.production ? null : mailbox));
+  // Sign-in and link limits count in PostgreSQL (server/auth/rate-limits.ts), shared by every server process.
+  api.use('/auth', authRouter(authService, auth));
   api.use(careRouter({ db, storage: deps.storage, outbox, publicUrl: config.publicUrl }));
   // Everything below needs a signed-in user: deny by default.
   api.use(requireSignedIn);
@@ -93,7 +101,8 @@ export function createApp(deps: AppDeps) {
   api.use(meRouter(db));
   api.use(clubsRouter(db, authService));
   api.use(athletesRouter(db));
-  api.use(screeningRouter({ db, storage: deps.storage }));
+  // Photo files are logged before they are written, so the orphan sweep finds those without a row.
+  api.use(screeningRouter({ db, storage: loggedWrites(db, deps.storage), uploads: deps.uploads }));
   api.use(measuringRouter({ db }));
   api.use(progressRouter(db));
   api.use((() => {

@@ -2,8 +2,14 @@ import { defineConfig } from '@playwright/test';
 
 // Debian's Chromium, never a downloaded browser. `npm test` starts the server and sets BASE_URL.
 const chromiumArgs = [
-  '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-  '--disable-background-networking', '--disable-component-update', '--disable-sync',
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
 ];
 
 export default defineConfig({

@@ -27,6 +27,8 @@ export const sessions = pgTable(
 /** Single-use links sent by e-mail: invitations and password resets. Only the token's hash is kept. */
 export const passwordResets = pgTable('password_resets', {
   tokenHash: text('token_hash').primaryKey(),
+  /** What the mail queue holds: the link (and its token) is made at send time, see server/mail/README.md. */
+  id: uuid('id').notNull().defaultRandom().unique(),
   userId: uuid('user_id')
     .notNull()
     .references(() => users.id, { onDelete: 'cascade' }),

@@ -31,6 +31,8 @@ export const memberships = pgTable(
 
 export const invitations = pgTable('invitations', {
   tokenHash: text('token_hash').primaryKey(),
+  /** What the mail queue holds: the link (and its token) is made at send time, see server/mail/README.md. */
+  id: uuid('id').notNull().defaultRandom().unique(),
   clubId: uuid('club_id')
     .notNull()
     .references(() => clubs.id, { onDelete: 'cascade' }),

@@ -5,4 +5,5 @@ export * from './screening';
 export * from './invitation-athletes';
 export * from './idempotency';
 export * from './care';
-export * from './rate-limits';
+export * from './security';
+export * from './storage';

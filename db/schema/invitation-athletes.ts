@@ -1,17 +1,20 @@
-import { index, pgTable, primaryKey, text, uuid } from 'drizzle-orm/pg-core';
+import { index, pgTable, primaryKey, uuid } from 'drizzle-orm/pg-core';
 import { athletes } from './athletes';
 import { invitations } from './clubs';
 
-/** The children a parent's invitation links on acceptance; named in the e-mail and on the invitation page. */
+/**
+ * The children a parent's invitation links on acceptance; named in the e-mail and on the invitation page.
+ * Keyed by the invitation's id: its token hash changes each time the e-mail is sent.
+ */
 export const invitationAthletes = pgTable(
   'invitation_athletes',
   {
-    tokenHash: text('token_hash')
+    invitationId: uuid('invitation_id')
       .notNull()
-      .references(() => invitations.tokenHash, { onDelete: 'cascade' }),
+      .references(() => invitations.id, { onDelete: 'cascade' }),
     athleteId: uuid('athlete_id')
       .notNull()
       .references(() => athletes.id, { onDelete: 'cascade' }),
   },
-  (t) => [primaryKey({ columns: [t.tokenHash, t.athleteId] }), index('invitation_athletes_athlete_idx').on(t.athleteId)],
+  (t) => [primaryKey({ columns: [t.invitationId, t.athleteId] }), index('invitation_athletes_athlete_idx').on(t.athleteId)],
 );

@@ -64,8 +64,12 @@ export const assessments = pgTable(
     index('assessments_athlete_idx').on(t.athleteId),
     // Progress: submitted screens by round and by athlete, holding every column trends join on, so a
     // squad's season is read by index-only scans instead of a pass over every assessment of the club.
-    index('assessments_round_submitted_idx').on(t.roundId, t.athleteId, t.id).where(sql`status = 'submitted'`),
-    index('assessments_athlete_submitted_idx').on(t.athleteId, t.roundId, t.id).where(sql`status = 'submitted'`),
+    index('assessments_round_submitted_idx')
+      .on(t.roundId, t.athleteId, t.id)
+      .where(sql`status = 'submitted'`),
+    index('assessments_athlete_submitted_idx')
+      .on(t.athleteId, t.roundId, t.id)
+      .where(sql`status = 'submitted'`),
   ],
 );
 
@@ -114,7 +118,9 @@ export const assessmentResults = pgTable(
     uniqueIndex('assessment_results_version_uq').on(t.assessmentId, t.version),
     index('assessment_results_athlete_idx').on(t.athleteId, t.createdAt),
     // Progress: the current result of an assessment, without scanning its older versions.
-    index('assessment_results_current_idx').on(t.assessmentId).where(sql`is_current`),
+    index('assessment_results_current_idx')
+      .on(t.assessmentId)
+      .where(sql`is_current`),
   ],
 );
 

@@ -40,12 +40,14 @@ export const PERMISSIONS = {
   'athlete.read': EVERYONE, // one athlete's profile (parents: own children)
   'consent.read': EVERYONE, // consent history (parents: own children)
   'consent.manage': ROSTER_MANAGERS, // record a family's consent decision
+  'guardians.read': STAFF, // the adults linked to an athlete (parents do not see the other adults)
   'guardians.manage': ROSTER_MANAGERS, // link and unlink parents
 
   // Screening
   'screening.read': STAFF, // rounds, assessments, results, measurements, photos
   'screening.write': SCREENERS, // open rounds, capture, upload photos, submit, adjust plans within the limits
   'round.reopen': ['head_coach'], // reopen a closed round
+  'plan.adjust': ['admin', 'head_coach', 'tester', 'physio'], // adjust a plan within the youth loading limits
   'plan.override': ['head_coach', 'physio'], // go past a youth loading limit, with a reason
 
   // Care team

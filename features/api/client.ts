@@ -1,3 +1,5 @@
+import type { ApiErrorBody } from './contract';
+
 // The app's one API client: cookies included, typed errors, and a hook for 401s.
 // It has no UI side effects: whoever owns the session state subscribes to `onUnauthorized`.
 
@@ -46,7 +48,7 @@ export function apiAssetUrl(url: string, base: string = API_BASE): string {
 
 const OFFLINE_MESSAGE = 'No connection to Squadline. Check the network and try again; nothing you typed is lost.';
 
-type ErrorPayload = { error?: { code: string; message: string; fields?: Record<string, string> } } | null;
+type ErrorPayload = Partial<ApiErrorBody> | null;
 
 function toApiError(status: number, payload: ErrorPayload): ApiError {
   if (status === 401) unauthorizedListeners.forEach((l) => l());

@@ -57,7 +57,15 @@ describe('date of birth: juniors aged 6 to 19 today', () => {
     [4, false],
     [21, false],
   ])('aged %i (or one more): accepted %s', async (years, ok) => {
-    const input = { firstName: 'A', lastName: 'B', dateOfBirth: dobAged(years), sex: 'female', racketHand: 'left', takeOffLeg: 'left', squadId: '0f8fad5b-d9cb-469f-a165-70867728950e' };
+    const input = {
+      firstName: 'A',
+      lastName: 'B',
+      dateOfBirth: dobAged(years),
+      sex: 'female',
+      racketHand: 'left',
+      takeOffLeg: 'left',
+      squadId: '0f8fad5b-d9cb-469f-a165-70867728950e',
+    };
     expect(await athleteSchema.isValid(input)).toBe(ok);
   });
 

@@ -39,8 +39,7 @@ const isoDate = (what: string) =>
     // Nobody on a junior roster was born, or decided anything, before 1900: a typing error (our choice).
     .test('since-1900', 'Check the year: dates before 1900 are not accepted.', (v) => !v || !ISO_DATE.test(v) || v >= '1900-01-01');
 
-const name = (what: string) =>
-  string().trim().required(`Enter the ${what}.`).max(60, `Keep the ${what} under 60 characters.`);
+const name = (what: string) => string().trim().required(`Enter the ${what}.`).max(60, `Keep the ${what} under 60 characters.`);
 
 const dateOfBirth = isoDate('date of birth').test('junior-age', function check(value) {
   if (!value || !isCalendarDate(value)) return true;
@@ -55,8 +54,13 @@ const dateOfBirth = isoDate('date of birth').test('junior-age', function check(v
   return true;
 });
 
-const sex = string().oneOf([...SEX_VALUES], 'Choose female or male.').required('Choose female or male.');
-const side = (what: string) => string().oneOf([...SIDE_VALUES], `Choose the ${what}.`).required(`Choose the ${what}.`);
+const sex = string()
+  .oneOf([...SEX_VALUES], 'Choose female or male.')
+  .required('Choose female or male.');
+const side = (what: string) =>
+  string()
+    .oneOf([...SIDE_VALUES], `Choose the ${what}.`)
+    .required(`Choose the ${what}.`);
 const squadId = string().trim().required('Choose a squad.').uuid('Choose a squad.');
 const email = string().trim().lowercase().email('Enter a valid e-mail address.');
 
@@ -76,9 +80,7 @@ export const athleteSchema = object({
 export type AthleteInput = InferType<typeof athleteSchema>;
 
 /** PATCH: any subset of the athlete's fields, each checked as on creation (moving squads sends only squadId). */
-export const athletePatchSchema = athleteSchema
-  .partial()
-  .test('not-empty', 'Nothing to change.', (v) => !!v && Object.values(v).some((x) => x !== undefined));
+export const athletePatchSchema = athleteSchema.partial().test('not-empty', 'Nothing to change.', (v) => !!v && Object.values(v).some((x) => x !== undefined));
 export type AthletePatchInput = InferType<typeof athletePatchSchema>;
 
 export const moveSquadSchema = object({ squadId });
@@ -89,7 +91,9 @@ export type MoveSquadInput = InferType<typeof moveSquadSchema>;
 // ---------------------------------------------------------------------------------------------------
 
 export const consentSchema = object({
-  kind: string().oneOf([...CONSENT_KINDS], 'Choose what the decision is about.').required('Choose what the decision is about.'),
+  kind: string()
+    .oneOf([...CONSENT_KINDS], 'Choose what the decision is about.')
+    .required('Choose what the decision is about.'),
   granted: boolean().typeError('Choose yes or no.').required('Choose yes or no.'),
   decidedOn: isoDate('date of the decision').test('not-future', 'The decision cannot be dated in the future.', (v) => {
     if (!v || !isCalendarDate(v)) return true;
@@ -152,8 +156,10 @@ const SIDE_ALIASES: Record<string, Side> = { l: 'left', left: 'left', r: 'right'
 const YES = new Set(['yes', 'y', 'true']);
 const NO = new Set(['no', 'n', 'false']);
 
-const alias = <T extends string>(map: Record<string, T>) => (value: unknown) =>
-  typeof value === 'string' ? (map[value.trim().toLowerCase()] ?? value.trim()) : value;
+const alias =
+  <T extends string>(map: Record<string, T>) =>
+  (value: unknown) =>
+    typeof value === 'string' ? (map[value.trim().toLowerCase()] ?? value.trim()) : value;
 
 const yesNo = (what: string) =>
   boolean()
@@ -169,9 +175,18 @@ export const rosterRowSchema = object({
   first_name: name('first name'),
   last_name: name('last name'),
   date_of_birth: dateOfBirth,
-  sex: string().transform(alias(SEX_ALIASES)).oneOf([...SEX_VALUES], 'Write F or M (or female, male).').required('Write F or M (or female, male).'),
-  racket_hand: string().transform(alias(SIDE_ALIASES)).oneOf([...SIDE_VALUES], 'Write L or R (or left, right).').required('Write L or R (or left, right).'),
-  take_off_leg: string().transform(alias(SIDE_ALIASES)).oneOf([...SIDE_VALUES], 'Write L or R (or left, right).').required('Write L or R (or left, right).'),
+  sex: string()
+    .transform(alias(SEX_ALIASES))
+    .oneOf([...SEX_VALUES], 'Write F or M (or female, male).')
+    .required('Write F or M (or female, male).'),
+  racket_hand: string()
+    .transform(alias(SIDE_ALIASES))
+    .oneOf([...SIDE_VALUES], 'Write L or R (or left, right).')
+    .required('Write L or R (or left, right).'),
+  take_off_leg: string()
+    .transform(alias(SIDE_ALIASES))
+    .oneOf([...SIDE_VALUES], 'Write L or R (or left, right).')
+    .required('Write L or R (or left, right).'),
   squad: string().trim().required('Name one of the club’s squads.'),
   photo_consent: yesNo('photo consent'),
   email_summaries_consent: yesNo('e-mail summaries consent'),

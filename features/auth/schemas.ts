@@ -27,7 +27,9 @@ export const MAX_INVITED_CHILDREN = 6;
 
 export const inviteSchema = object({
   email,
-  role: string().oneOf([...ROLE_VALUES], 'Choose a role.').required('Choose a role.'),
+  role: string()
+    .oneOf([...ROLE_VALUES], 'Choose a role.')
+    .required('Choose a role.'),
   /** A parent's invitation names the children it links when accepted. */
   athleteIds: array(string().uuid('Choose children of the club.').required())
     .max(MAX_INVITED_CHILDREN, `Link at most ${MAX_INVITED_CHILDREN} children in one invitation.`)
@@ -53,3 +55,12 @@ export const resetPasswordSchema = object({
   password: newPassword,
 });
 export type ResetPasswordInput = InferType<typeof resetPasswordSchema>;
+
+export const invitationLookupSchema = object({ token: string().required('This link is incomplete.') });
+export type InvitationLookupInput = InferType<typeof invitationLookupSchema>;
+
+export const changePasswordSchema = object({
+  currentPassword: string().required('Enter your current password.'),
+  newPassword,
+});
+export type ChangePasswordInput = InferType<typeof changePasswordSchema>;

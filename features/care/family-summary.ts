@@ -39,13 +39,19 @@ export function buildFamilySummary(input: {
   contactName: string | null;
 }): FamilySummary {
   const { firstName, result } = input;
-  const checked = [...new Set(input.taskIds.map((id) => {
-    try {
-      return getTask(id as never).title;
-    } catch {
-      return null;
-    }
-  }).filter((t): t is string => t !== null))];
+  const checked = [
+    ...new Set(
+      input.taskIds
+        .map((id) => {
+          try {
+            return getTask(id as never).title;
+          } catch {
+            return null;
+          }
+        })
+        .filter((t): t is string => t !== null),
+    ),
+  ];
 
   const seenKeys = new Set<string>();
   const seen: string[] = [];
@@ -84,7 +90,10 @@ export function buildFamilySummary(input: {
     seen,
     exercises,
     onHold,
-    howOften: exercises.length === 0 ? `Nothing extra to work on for now: ${firstName} keeps training as usual.` : `Up to ${perWeekText(maxPerWeek)}; each exercise says how often.`,
+    howOften:
+      exercises.length === 0
+        ? `Nothing extra to work on for now: ${firstName} keeps training as usual.`
+        : `Up to ${perWeekText(maxPerWeek)}; each exercise says how often.`,
     recheckDate: result.plan.rescreenDate,
     contact: input.contactName
       ? `Questions? Speak to ${input.contactName} or the coaches at ${input.clubName}.`

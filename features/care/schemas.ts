@@ -18,10 +18,7 @@ export const CLEARANCE_LABELS: Record<ClearanceStatus, string> = {
 export const NOTE_EDIT_WINDOW_MINUTES = 15;
 export const NOTE_MAX_LENGTH = 4000;
 
-const noteText = string()
-  .trim()
-  .required('Write the note.')
-  .max(NOTE_MAX_LENGTH, `Keep the note under ${NOTE_MAX_LENGTH} characters.`);
+const noteText = string().trim().required('Write the note.').max(NOTE_MAX_LENGTH, `Keep the note under ${NOTE_MAX_LENGTH} characters.`);
 
 export const noteSchema = object({
   text: noteText,
@@ -62,7 +59,11 @@ export const careSettingsSchema = object({
     .nullable()
     .default(null),
   photoGraceDays: number().integer('Whole days only.').min(0, 'Zero or more days.').max(365, 'At most 365 days.').required('Enter a number of days.'),
-  photoRetentionMonths: number().integer('Whole months only.').min(1, 'At least 1 month.').max(120, 'At most 120 months.').required('Enter a number of months.'),
+  photoRetentionMonths: number()
+    .integer('Whole months only.')
+    .min(1, 'At least 1 month.')
+    .max(120, 'At most 120 months.')
+    .required('Enter a number of months.'),
   familyPhotos: boolean().required(),
   testersReadTeamNotes: boolean().required(),
 });
@@ -73,11 +74,17 @@ export type AuditSubject = (typeof AUDIT_SUBJECTS)[number];
 
 /** Filters of the audit trail (query string). */
 export const auditQuerySchema = object({
-  subject: mixed<AuditSubject>().oneOf([...AUDIT_SUBJECTS, undefined], 'Unknown kind of record.').optional(),
+  subject: mixed<AuditSubject>()
+    .oneOf([...AUDIT_SUBJECTS, undefined], 'Unknown kind of record.')
+    .optional(),
   actorId: string().uuid('Unknown person.').optional(),
   athleteId: string().uuid('Unknown athlete.').optional(),
-  from: string().matches(/^\d{4}-\d{2}-\d{2}$/, 'Write the date as YYYY-MM-DD.').optional(),
-  to: string().matches(/^\d{4}-\d{2}-\d{2}$/, 'Write the date as YYYY-MM-DD.').optional(),
+  from: string()
+    .matches(/^\d{4}-\d{2}-\d{2}$/, 'Write the date as YYYY-MM-DD.')
+    .optional(),
+  to: string()
+    .matches(/^\d{4}-\d{2}-\d{2}$/, 'Write the date as YYYY-MM-DD.')
+    .optional(),
   format: string().oneOf(['json', 'csv'], 'Format is json or csv.').optional(),
 });
 export type AuditQuery = InferType<typeof auditQuerySchema>;

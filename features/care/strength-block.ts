@@ -16,16 +16,20 @@ export type StrengthBlock = { blocked: false } | { blocked: true; reason: 'refer
  * clearance (pain was reported) is blocked until a clearance is recorded after that result (our choice,
  * following the engine's own "start only once cleared" caution).
  */
-export function strengthBlock(
-  plan: PlanLike,
-  clearance: { status: ClearanceStatus; setAt: string } | null,
-  resultCreatedAt: string,
-): StrengthBlock {
+export function strengthBlock(plan: PlanLike, clearance: { status: ClearanceStatus; setAt: string } | null, resultCreatedAt: string): StrengthBlock {
   if (clearance?.status === 'referred') {
-    return { blocked: true, reason: 'referred', words: 'Loaded strength work is on hold: the athlete was referred on. It starts again once a physiotherapist clears it.' };
+    return {
+      blocked: true,
+      reason: 'referred',
+      words: 'Loaded strength work is on hold: the athlete was referred on. It starts again once a physiotherapist clears it.',
+    };
   }
   if (plan.status === 'clearance-needed' && !(clearance && clearance.setAt >= resultCreatedAt)) {
-    return { blocked: true, reason: 'clearance-needed', words: 'Loaded strength work is on hold until a physiotherapist has seen the athlete and cleared it (pain was reported).' };
+    return {
+      blocked: true,
+      reason: 'clearance-needed',
+      words: 'Loaded strength work is on hold until a physiotherapist has seen the athlete and cleared it (pain was reported).',
+    };
   }
   return { blocked: false };
 }

@@ -1,19 +1,18 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { StyleSheet, View } from 'react-native';
 import { api } from '@/features/api/client';
+import type { MailboxResponse } from '@/features/mailbox/contract';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { space } from '@/features/ui/theme';
 import { formatDateTime } from '@/features/ui/format-date';
 
-type Message = { id: string; from: string; to: string[]; subject: string; text: string; receivedAt: string };
-
 export const MAILBOX_REFRESH_MS = 3000;
 const mailboxQueryOptions = () =>
   queryOptions({
     queryKey: ['mailbox'] as const,
-    queryFn: () => api<{ messages: Message[] }>('/dev/mailbox'),
+    queryFn: () => api<MailboxResponse>('/dev/mailbox'),
     refetchInterval: MAILBOX_REFRESH_MS,
   });
 

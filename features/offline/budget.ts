@@ -8,9 +8,7 @@ export const PHOTO_BUDGET_BYTES = 80 * 1024 * 1024;
 /** Warn once the photos waiting on the device use this share of the budget (our choice). */
 export const PHOTO_BUDGET_WARN_FRACTION = 0.8;
 
-export type BudgetCheck =
-  | { ok: true; usedBytes: number; afterBytes: number; warn: boolean }
-  | { ok: false; usedBytes: number; message: string };
+export type BudgetCheck = { ok: true; usedBytes: number; afterBytes: number; warn: boolean } | { ok: false; usedBytes: number; message: string };
 
 const mb = (bytes: number) => `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
 

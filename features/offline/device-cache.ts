@@ -4,19 +4,13 @@ import { ApiError } from '@/features/api/client';
 import { connectivity } from './device';
 import { deviceCache, hasIndexedDb } from './device-store';
 
-const NOT_KEPT =
-  'No connection, and this screen was not opened on this phone while online. Open it once with a connection to keep it for courtside use.';
+const NOT_KEPT = 'No connection, and this screen was not opened on this phone while online. Open it once with a connection to keep it for courtside use.';
 
 /**
  * Fetch first; without a connection (no answer at all) answer from the device. `keep` decides whether
  * a fresh answer is written to the device (the caller's privacy rule), and under which round.
  */
-export async function deviceBacked<T>(
-  key: string,
-  scope: string,
-  fetcher: () => Promise<T>,
-  keep: (data: T) => { roundId: string | null } | null,
-): Promise<T> {
+export async function deviceBacked<T>(key: string, scope: string, fetcher: () => Promise<T>, keep: (data: T) => { roundId: string | null } | null): Promise<T> {
   if (!hasIndexedDb()) return fetcher();
   if (connectivity.isOnline()) {
     try {

@@ -23,7 +23,9 @@ export function usePhotoBytesOnDevice(): number {
   const [bytes, setBytes] = useState(0);
   useEffect(() => {
     let live = true;
-    void photoBytesOnDevice().then((b) => live && setBytes(b)).catch(() => undefined);
+    void photoBytesOnDevice()
+      .then((b) => live && setBytes(b))
+      .catch(() => undefined);
     return () => {
       live = false;
     };

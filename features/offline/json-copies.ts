@@ -15,9 +15,11 @@ export class JsonCopies<T> {
 
   /** Reads what the device kept (after a reload) once; copies written before it win. */
   hydrate(): Promise<void> {
-    this.hydrated ??= (this.persistence?.all() ?? Promise.resolve([])).then((records) => {
-      for (const r of records) if (!this.map.has(r.id)) this.map.set(r.id, r.copy as T);
-    }).catch(() => undefined);
+    this.hydrated ??= (this.persistence?.all() ?? Promise.resolve([]))
+      .then((records) => {
+        for (const r of records) if (!this.map.has(r.id)) this.map.set(r.id, r.copy as T);
+      })
+      .catch(() => undefined);
     return this.hydrated;
   }
 

@@ -3,9 +3,21 @@ import type { OutboxEntry, OutboxState } from './outbox';
 import { syncStatusOf, syncStatusText } from './sync-status';
 
 const entry = (seq: number, state: OutboxEntry['state'] = 'waiting'): OutboxEntry => ({
-  seq, key: `k${seq}`, kind: 'draft', assessmentId: 'a', clubId: 'c', userId: 'u', createdAt: '', attempts: 0, state,
+  seq,
+  key: `k${seq}`,
+  kind: 'draft',
+  assessmentId: 'a',
+  clubId: 'c',
+  userId: 'u',
+  createdAt: '',
+  attempts: 0,
+  state,
 });
-const st = (entries: OutboxEntry[], sending: number | null = null, lastError: OutboxState['lastError'] = null): OutboxState => ({ entries, sending, lastError });
+const st = (entries: OutboxEntry[], sending: number | null = null, lastError: OutboxState['lastError'] = null): OutboxState => ({
+  entries,
+  sending,
+  lastError,
+});
 
 describe('sync status', () => {
   it.each([

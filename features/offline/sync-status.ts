@@ -48,9 +48,7 @@ export function syncStatusDetail(s: SyncStatus): string {
     case 'syncing':
       return 'Sending what was done on this phone, oldest first.';
     case 'online':
-      return s.retrying
-        ? 'The last try did not get through. Trying again shortly.'
-        : 'Waiting to send.';
+      return s.retrying ? 'The last try did not get through. Trying again shortly.' : 'Waiting to send.';
     case 'attention':
       return 'The server refused some changes. They are kept on this phone: open them to see why.';
   }

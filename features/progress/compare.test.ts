@@ -39,12 +39,45 @@ describe('compareMeasurement: worked examples by hand', () => {
     ['FPPA rises 9 deg', 'fppa', 'deg', 5.0, 14.0, 9.0, 8.93, 'real-change', 'up', `${MUNRO2012}: 9.0 > 8.93`],
     ['knee-to-wall gains 2.5 cm', 'knee-to-wall', 'cm', 7.5, 10.0, 2.5, 1.9, 'real-change', 'up', `${POWDEN2015}: 2.5 > 1.9`],
     ['knee-to-wall gains 1.5 cm', 'knee-to-wall', 'cm', 11.0, 12.5, 1.5, 1.9, 'within-error', null, `${POWDEN2015}: 1.5 <= 1.9`],
-    ['knee-to-wall gains 1.8 cm: above 1.6, not above 1.9', 'knee-to-wall', 'cm', 8.0, 9.8, 1.8, 1.9, 'within-error', null, `${POWDEN2015}: 1.8 <= 1.9 (the larger figure)`],
+    [
+      'knee-to-wall gains 1.8 cm: above 1.6, not above 1.9',
+      'knee-to-wall',
+      'cm',
+      8.0,
+      9.8,
+      1.8,
+      1.9,
+      'within-error',
+      null,
+      `${POWDEN2015}: 1.8 <= 1.9 (the larger figure)`,
+    ],
     ['knee-to-wall loses 2.0 cm', 'knee-to-wall', 'cm', 12.0, 10.0, -2.0, 1.9, 'real-change', 'down', `${POWDEN2015}: |-2.0| > 1.9`],
     ['pelvic drop falls 6 deg', 'pelvic-obliquity', 'deg', 9.0, 3.0, -6.0, null, 'no-published-figure', null, 'no published figure'],
     ['knee-to-wall LSI rises 23 points', 'knee-to-wall-lsi', 'percent', 68.0, 91.0, 23.0, null, 'no-published-figure', null, 'no published figure'],
-    ['FPPA left-right difference falls 7 deg', 'fppa-difference', 'deg', 9.0, 2.0, -7.0, null, 'no-published-figure', null, 'no published figure for a difference of two angles'],
-    ['maturity offset rises 0.4 y', 'maturity-offset', 'years', -0.9, -0.5, 0.4, null, 'no-published-figure', null, 'SEE of an equation is not a re-test error'],
+    [
+      'FPPA left-right difference falls 7 deg',
+      'fppa-difference',
+      'deg',
+      9.0,
+      2.0,
+      -7.0,
+      null,
+      'no-published-figure',
+      null,
+      'no published figure for a difference of two angles',
+    ],
+    [
+      'maturity offset rises 0.4 y',
+      'maturity-offset',
+      'years',
+      -0.9,
+      -0.5,
+      0.4,
+      null,
+      'no-published-figure',
+      null,
+      'SEE of an equation is not a re-test error',
+    ],
   ] as const)('%s', (_what, metric, unit, earlier, later, change, margin, verdict, direction, _source) => {
     const c = compareMeasurement(m('x', metric, earlier, unit), m('x', metric, later, unit));
     expect(c.change).toBeCloseTo(change, 10);
@@ -55,10 +88,36 @@ describe('compareMeasurement: worked examples by hand', () => {
   });
 });
 
-const flag = (id: string, pattern: Flag['pattern'], taskId: TaskId | null, side: Flag['side'], severity: Flag['severity'] = 'watch', comparesTasks?: [TaskId, TaskId]): Flag =>
-  ({ id, pattern, title: pattern, taskId, side, severity, evidence: [], thresholdsMet: [], source: '', comparesTasks, threshold: {} as Flag['threshold'] }) as Flag;
+const flag = (
+  id: string,
+  pattern: Flag['pattern'],
+  taskId: TaskId | null,
+  side: Flag['side'],
+  severity: Flag['severity'] = 'watch',
+  comparesTasks?: [TaskId, TaskId],
+): Flag =>
+  ({
+    id,
+    pattern,
+    title: pattern,
+    taskId,
+    side,
+    severity,
+    evidence: [],
+    thresholdsMet: [],
+    source: '',
+    comparesTasks,
+    threshold: {} as Flag['threshold'],
+  }) as Flag;
 
-function screen(id: string, screenedOn: string, tasksDone: TaskId[], flags: Flag[], measurements: Measurement[] = [], plan: Partial<ScreenForComparison['result']['plan']> = {}): ScreenForComparison {
+function screen(
+  id: string,
+  screenedOn: string,
+  tasksDone: TaskId[],
+  flags: Flag[],
+  measurements: Measurement[] = [],
+  plan: Partial<ScreenForComparison['result']['plan']> = {},
+): ScreenForComparison {
   return {
     assessmentId: id,
     screenedOn,
@@ -79,7 +138,12 @@ describe('compareFlags', () => {
   const D = flag('dynamic-knee-valgus/drop-landing/right', 'dynamic-knee-valgus', 'drop-landing', 'right');
   const E = flag('limited-ankle-dorsiflexion/knee-to-wall-left/left', 'limited-ankle-dorsiflexion', 'knee-to-wall-left', 'left');
   const laterA = { ...A, severity: 'watch' as const };
-  const earlier = screen('e', '2026-03-09', ['single-leg-squat-right', 'single-leg-stance-left', 'knee-to-wall-left', 'knee-to-wall-right', 'drop-landing'], [A, B, C, D]);
+  const earlier = screen(
+    'e',
+    '2026-03-09',
+    ['single-leg-squat-right', 'single-leg-stance-left', 'knee-to-wall-left', 'knee-to-wall-right', 'drop-landing'],
+    [A, B, C, D],
+  );
   const later = screen('l', '2026-06-08', ['single-leg-squat-right', 'single-leg-stance-left', 'knee-to-wall-left', 'knee-to-wall-right'], [laterA, E]);
 
   it('sorts each flag into cleared, new, persisting or not re-tested', () => {
@@ -116,17 +180,29 @@ describe('plan time between screens (our choice: at least the plan re-screen int
 
 describe('compareScreens and its wording', () => {
   const valgus = flag('dynamic-knee-valgus/single-leg-squat-right/right', 'dynamic-knee-valgus', 'single-leg-squat-right', 'right');
-  const earlier = screen('e', '2026-03-09', ['single-leg-squat-right', 'knee-to-wall-left'], [valgus], [
-    m('single-leg-squat-right/fppa/right', 'fppa', 18.4, 'deg', 'single-leg-squat-right'),
-    m('knee-to-wall-left/knee-to-wall/left', 'knee-to-wall', 11.0, 'cm', 'knee-to-wall-left'),
-    m('single-leg-squat-right/pelvic-obliquity/right', 'pelvic-obliquity', 4.0, 'deg', 'single-leg-squat-right'),
-    m('only-earlier', 'fppa', 3, 'deg'),
-  ]);
-  const later = screen('l', '2026-06-08', ['single-leg-squat-right', 'knee-to-wall-left'], [], [
-    m('single-leg-squat-right/fppa/right', 'fppa', 6.2, 'deg', 'single-leg-squat-right'),
-    m('knee-to-wall-left/knee-to-wall/left', 'knee-to-wall', 12.5, 'cm', 'knee-to-wall-left'),
-    m('single-leg-squat-right/pelvic-obliquity/right', 'pelvic-obliquity', 3.0, 'deg', 'single-leg-squat-right'),
-  ]);
+  const earlier = screen(
+    'e',
+    '2026-03-09',
+    ['single-leg-squat-right', 'knee-to-wall-left'],
+    [valgus],
+    [
+      m('single-leg-squat-right/fppa/right', 'fppa', 18.4, 'deg', 'single-leg-squat-right'),
+      m('knee-to-wall-left/knee-to-wall/left', 'knee-to-wall', 11.0, 'cm', 'knee-to-wall-left'),
+      m('single-leg-squat-right/pelvic-obliquity/right', 'pelvic-obliquity', 4.0, 'deg', 'single-leg-squat-right'),
+      m('only-earlier', 'fppa', 3, 'deg'),
+    ],
+  );
+  const later = screen(
+    'l',
+    '2026-06-08',
+    ['single-leg-squat-right', 'knee-to-wall-left'],
+    [],
+    [
+      m('single-leg-squat-right/fppa/right', 'fppa', 6.2, 'deg', 'single-leg-squat-right'),
+      m('knee-to-wall-left/knee-to-wall/left', 'knee-to-wall', 12.5, 'cm', 'knee-to-wall-left'),
+      m('single-leg-squat-right/pelvic-obliquity/right', 'pelvic-obliquity', 3.0, 'deg', 'single-leg-squat-right'),
+    ],
+  );
   const c = compareScreens(earlier, later);
 
   it('compares only measurements present in both screens', () => {

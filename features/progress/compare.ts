@@ -36,8 +36,7 @@ export const ERROR_MARGINS: Partial<Record<MetricId, ErrorMargin>> = {
     kind: 'smallest detectable difference (between days)',
     source: MUNRO_HERRINGTON_CAROLAN_2012,
     certainty: 'checked',
-    note:
-      'The study reports 7.54-8.93 deg across single-leg squat, single-leg landing and drop jump; we use the upper end for every task, so that no task is called changed inside its own figure (our choice). Adults; applied to juniors for want of junior figures.',
+    note: 'The study reports 7.54-8.93 deg across single-leg squat, single-leg landing and drop jump; we use the upper end for every task, so that no task is called changed inside its own figure (our choice). Adults; applied to juniors for want of junior figures.',
   },
   'knee-to-wall': {
     value: 1.9,
@@ -45,8 +44,7 @@ export const ERROR_MARGINS: Partial<Record<MetricId, ErrorMargin>> = {
     kind: 'minimal detectable change',
     source: POWDEN_HOCH_HOCH_2015,
     certainty: 'checked',
-    note:
-      'The review reports 1.6 cm between clinicians and 1.9 cm within one clinician; we use the larger, 1.9 cm, whoever tested (our choice).',
+    note: 'The review reports 1.6 cm between clinicians and 1.9 cm within one clinician; we use the larger, 1.9 cm, whoever tested (our choice).',
   },
 };
 

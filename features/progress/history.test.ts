@@ -32,8 +32,24 @@ function screen(i: number, measurements: Measurement[], offsetYears: number | nu
     plan: { status: 'ready', rescreenWeeks: 6, rescreenDate: null, exercises: 0 },
   };
 }
-const fppa = (value: number): Measurement => ({ id: 'single-leg-squat-left/fppa/left', metric: 'fppa', taskId: 'single-leg-squat-left', side: 'left', value, unit: 'deg', label: 'FPPA left' });
-const lsi = (value: number): Measurement => ({ id: 'knee-to-wall/knee-to-wall-lsi/left', metric: 'knee-to-wall-lsi', taskId: null, side: 'left', value, unit: 'percent', label: 'LSI' });
+const fppa = (value: number): Measurement => ({
+  id: 'single-leg-squat-left/fppa/left',
+  metric: 'fppa',
+  taskId: 'single-leg-squat-left',
+  side: 'left',
+  value,
+  unit: 'deg',
+  label: 'FPPA left',
+});
+const lsi = (value: number): Measurement => ({
+  id: 'knee-to-wall/knee-to-wall-lsi/left',
+  metric: 'knee-to-wall-lsi',
+  taskId: null,
+  side: 'left',
+  value,
+  unit: 'percent',
+  label: 'LSI',
+});
 
 describe('historySeries', () => {
   const progress: ProgressResponse = {

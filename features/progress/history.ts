@@ -55,7 +55,15 @@ export function historySeries(progress: ProgressResponse): HistorySeries[] {
       if (!CHARTED_METRICS.includes(m.metric)) continue;
       let s = byId.get(m.id);
       if (!s) {
-        s = { key: m.id, title: m.label, metric: m.metric, unit: UNIT_TEXT[m.unit] ?? m.unit, points: [], threshold: thresholdFor(m.metric, m.id, progress.athlete.sex), band: null };
+        s = {
+          key: m.id,
+          title: m.label,
+          metric: m.metric,
+          unit: UNIT_TEXT[m.unit] ?? m.unit,
+          points: [],
+          threshold: thresholdFor(m.metric, m.id, progress.athlete.sex),
+          band: null,
+        };
         byId.set(m.id, s);
       }
       s.title = m.label;

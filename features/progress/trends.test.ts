@@ -53,7 +53,13 @@ describe('flags per side from the flag ids', () => {
   it('groups patterns by side, once each', () => {
     expect(
       sidedPatterns(
-        ['dynamic-knee-valgus/two-leg-squat/left', 'dynamic-knee-valgus/drop-landing/left', 'contralateral-pelvic-drop/single-leg-stance-right/right', 'heels-lifting/two-leg-squat/both', 'growth-spurt-window'],
+        [
+          'dynamic-knee-valgus/two-leg-squat/left',
+          'dynamic-knee-valgus/drop-landing/left',
+          'contralateral-pelvic-drop/single-leg-stance-right/right',
+          'heels-lifting/two-leg-squat/both',
+          'growth-spurt-window',
+        ],
         ['left', 'left', 'right', 'both', null],
       ),
     ).toEqual({ left: ['dynamic-knee-valgus'], right: ['contralateral-pelvic-drop'], both: ['heels-lifting'], unsided: ['growth-spurt-window'] });
@@ -62,7 +68,14 @@ describe('flags per side from the flag ids', () => {
 
 describe('filters, sorting and the CSV rows agree', () => {
   const rows = [
-    athlete({ firstName: 'Ana', lastName: 'Abbott', sex: 'female', maturityBand: 'circa', latestFlags: { left: ['dynamic-knee-valgus'], right: [], both: [], unsided: [] }, daysSinceLastScreen: 20 }),
+    athlete({
+      firstName: 'Ana',
+      lastName: 'Abbott',
+      sex: 'female',
+      maturityBand: 'circa',
+      latestFlags: { left: ['dynamic-knee-valgus'], right: [], both: [], unsided: [] },
+      daysSinceLastScreen: 20,
+    }),
     athlete({ firstName: 'Ben', lastName: 'Brook', sex: 'male', ageGroup: 'U15', maturityBand: 'post', daysSinceLastScreen: 80 }),
     athlete({ firstName: 'Cai', lastName: 'Cole', sex: 'female', maturityBand: null, daysSinceLastScreen: null }),
   ];
@@ -97,7 +110,9 @@ describe('share of a round with a flag', () => {
     [2, 1, 0.5],
     [4, 0, 0],
   ])('%i screened, %i flagged', (screened, flagged, share) => {
-    expect(shareOf({ id: 'r', name: 'r', screenedOn: '2026-01-01', screened, flagged: { 'dynamic-knee-valgus': flagged }, kneeAngles: {} }, 'dynamic-knee-valgus')).toBeCloseTo(share, 10);
+    expect(
+      shareOf({ id: 'r', name: 'r', screenedOn: '2026-01-01', screened, flagged: { 'dynamic-knee-valgus': flagged }, kneeAngles: {} }, 'dynamic-knee-valgus'),
+    ).toBeCloseTo(share, 10);
   });
   it('is null for a round nobody was screened in', () => {
     expect(shareOf({ id: 'r', name: 'r', screenedOn: '2026-01-01', screened: 0, flagged: {}, kneeAngles: {} }, 'heels-lifting')).toBeNull();

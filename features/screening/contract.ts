@@ -141,6 +141,15 @@ export const saveDraftSchema = object({
 });
 export type SaveDraftInput = InferType<typeof saveDraftSchema>;
 
+/**
+ * Submitting may name the draft version the tester reviewed; a newer save from another phone: 409. A submit
+ * sent from the device's outbox names none: it is queued behind the draft save of the same phone.
+ */
+export const submitSchema = object({
+  draftVersion: number().integer().min(0).optional(),
+});
+export type SubmitInput = InferType<typeof submitSchema>;
+
 export const createRoundSchema = object({
   squadId: string().uuid('Choose a squad.').required('Choose a squad.'),
   name: string().trim().min(2, 'Name the round, for example "Pre-season".').max(80).required('Name the round.'),
@@ -161,7 +170,9 @@ export const LIMIT_IDS: readonly LimitId[] = ['sets', 'reps', 'near-fatigue', 'l
 /** Going past one limit of one exercise: only a head coach or a physiotherapist, always with a reason. */
 export const limitOverrideSchema = object({
   exerciseId: string().required(),
-  limit: mixed<LimitId>().oneOf([...LIMIT_IDS], 'Unknown limit.').required(),
+  limit: mixed<LimitId>()
+    .oneOf([...LIMIT_IDS], 'Unknown limit.')
+    .required(),
   reason: string().trim().min(5, 'Say why the limit is passed (at least a few words).').max(500).required('Say why the limit is passed.'),
 });
 
@@ -171,6 +182,11 @@ export const planAdjustmentSchema = object({
   note: string().max(1000).default(''),
   /** One per limit passed; checked on the server against the same limits the engine applies. */
   overrides: array(limitOverrideSchema).max(60).default([]),
+  /** The plan the user saw: its result version and when it was last adjusted (null: never). Stale: 409. */
+  basedOn: object({
+    resultVersion: number().integer().min(1).required('basedOn.resultVersion is required.'),
+    adjustedAt: string().nullable().defined('basedOn.adjustedAt is required (null when never adjusted).'),
+  }).required('basedOn is required.'),
 });
 export type PlanAdjustmentInput = InferType<typeof planAdjustmentSchema>;
 
@@ -179,6 +195,13 @@ export type PlanAdjustmentInput = InferType<typeof planAdjustmentSchema>;
 // ---------------------------------------------------------------------------------------------------
 
 export type AssessmentStatus = 'not_started' | 'in_progress' | 'submitted';
+
+/** PUT /api/assessments/:id */
+export type SaveDraftResponse = { draftVersion: number; status: AssessmentStatus };
+/** The `current` of a 409 `draft_conflict` (save or submit against a newer draft). */
+export type DraftConflictCurrent = { draft: AssessmentDraft; draftVersion: number; status: AssessmentStatus };
+/** The `current` of a 409 `plan_conflict` (plan edit against a newer result or adjustment). */
+export type PlanConflictCurrent = ResultView;
 
 export type RoundSummary = {
   id: string;

@@ -28,7 +28,11 @@ describe('flags grouped by pattern and side', () => {
     const keys = groupFlags(r.flags).map((g) => `${g.title}/${g.side}`);
     expect(new Set(keys).size).toBe(keys.length);
     // Every flag is in exactly one group.
-    expect(groupFlags(r.flags).flatMap((g) => g.tasks.map((t) => t.flagId)).sort()).toEqual(r.flags.map((f) => f.id).sort());
+    expect(
+      groupFlags(r.flags)
+        .flatMap((g) => g.tasks.map((t) => t.flagId))
+        .sort(),
+    ).toEqual(r.flags.map((f) => f.id).sort());
   });
 
   it('a group takes its most severe flag and lists each threshold once', () => {

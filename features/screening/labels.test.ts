@@ -12,12 +12,31 @@ describe('labels', () => {
   });
 
   it('thresholds read as plain words', () => {
-    expect(thresholdText({ rowId: 'x', comparison: 'greater-than', value: 13, unit: 'deg', severity: 'watch', source: 's', sourceKind: 'our-choice', certainty: 'no source' })).toBe(
-      'Flagged above 13°',
-    );
-    expect(thresholdText({ rowId: 'x', comparison: 'within', value: -1, upperValue: 1, unit: 'years', severity: 'watch', source: 's', sourceKind: 'our-choice', certainty: 'no source' })).toBe(
-      'Flagged between -1 years and 1 years',
-    );
+    expect(
+      thresholdText({
+        rowId: 'x',
+        comparison: 'greater-than',
+        value: 13,
+        unit: 'deg',
+        severity: 'watch',
+        source: 's',
+        sourceKind: 'our-choice',
+        certainty: 'no source',
+      }),
+    ).toBe('Flagged above 13°');
+    expect(
+      thresholdText({
+        rowId: 'x',
+        comparison: 'within',
+        value: -1,
+        upperValue: 1,
+        unit: 'years',
+        severity: 'watch',
+        source: 's',
+        sourceKind: 'our-choice',
+        certainty: 'no source',
+      }),
+    ).toBe('Flagged between -1 years and 1 years');
   });
 
   it('prescriptions read as plain words', () => {

@@ -73,9 +73,7 @@ export function loadText(load: LoadRule): string {
       return `${load.resistance === 'light' ? 'Light' : 'Medium'} band, ${load.placement}`;
     case 'percent-1rm': {
       const pct = `${load.minPercent}-${load.maxPercent}% of 1RM`;
-      return load.kg
-        ? `${pct}: ${range(load.kg.min, load.kg.max)} kg (in ${load.kg.incrementKg} kg steps). ${load.note}`
-        : `${pct}. ${load.note}`;
+      return load.kg ? `${pct}: ${range(load.kg.min, load.kg.max)} kg (in ${load.kg.incrementKg} kg steps). ${load.note}` : `${pct}. ${load.note}`;
     }
   }
 }

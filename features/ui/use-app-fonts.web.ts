@@ -1,9 +1,7 @@
 import { FontDisplay, loadAsync } from 'expo-font';
 import { FONT_SOURCES } from './font-sources';
 
-const FONTS = Object.fromEntries(
-  Object.entries(FONT_SOURCES).map(([name, uri]) => [name, { uri, display: FontDisplay.OPTIONAL }]),
-);
+const FONTS = Object.fromEntries(Object.entries(FONT_SOURCES).map(([name, uri]) => [name, { uri, display: FontDisplay.OPTIONAL }]));
 let started = false;
 
 /**

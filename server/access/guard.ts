@@ -4,7 +4,7 @@ import type { Db } from '@/db/client';
 import type { Executor } from '@/server/screening/screening.repo';
 import { assessments, athletes, photos, rounds, squads } from '@/db/schema';
 import { OWN_CHILDREN_ONLY, rolesFor, type Action } from '@/features/access/permissions';
-import { forbidden, notFound } from '@/server/http/errors';
+import { forbidden, notFound, unauthorized } from '@/server/http/errors';
 import { requireUuid } from '@/server/http/ids';
 import { scopeForCallerClub, scopeForClub, type ClubScope } from './scope';
 
@@ -32,6 +32,16 @@ export function registerRecord(kind: string, what: string, resolve: RecordResolv
   resolvers.set(kind, { what, resolve });
 }
 
+/** Where the record `id` of `kind` lives, or null when there is none. Throws for a kind nobody registered. */
+export async function recordHome(db: Executor, kind: string, id: string): Promise<RecordHome | null> {
+  const entry = resolvers.get(kind);
+  if (!entry) throw new Error(`No resolver registered for record kind "${kind}".`);
+  return entry.resolve(db, id);
+}
+
+/** The kinds of record registered so far (read by the route-table test). */
+export const recordKinds = () => [...resolvers.keys()];
+
 /** A record of a whole club or squad: it belongs to no single athlete. */
 function clubRecord(table: typeof squads | typeof rounds): RecordResolver {
   return async (db, id) => {
@@ -47,10 +57,7 @@ registerRecord('athlete', 'The athlete', async (db, id) => {
 registerRecord('squad', 'The squad', clubRecord(squads));
 registerRecord('round', 'The round', clubRecord(rounds));
 registerRecord('assessment', 'The assessment', async (db, id) => {
-  const [row] = await db
-    .select({ clubId: assessments.clubId, athleteId: assessments.athleteId })
-    .from(assessments)
-    .where(eq(assessments.id, id));
+  const [row] = await db.select({ clubId: assessments.clubId, athleteId: assessments.athleteId }).from(assessments).where(eq(assessments.id, id));
   return row ?? null;
 });
 registerRecord('photo', 'The photo', async (db, id) => {
@@ -67,6 +74,7 @@ export type Target =
   | { kind: 'caller-club' }
   | { kind: 'club'; param: string }
   | { kind: 'record'; record: string; param: string; from: 'params' | 'body' }
+  | { kind: 'signed-in' }
   | { kind: 'public' };
 
 /** The caller's own club (X-Club-Id header, or their only club). */
@@ -89,6 +97,13 @@ export function scopeOf(res: { locals: object }): ClubScope {
   return scope;
 }
 
+/** The id of the record `guard(action, on(kind))` resolved (already checked: a well-formed, existing id). */
+export function recordIdOf(res: { locals: object }): string {
+  const id = (res.locals as Partial<Locals>).id;
+  if (!id) throw new Error('Route without guard(action, on(kind)): no record id in res.locals.');
+  return id;
+}
+
 export function accessGuards(db: Db) {
   async function check(req: Request, action: Action, target: Target): Promise<Locals> {
     const roles = rolesFor(action);
@@ -97,7 +112,7 @@ export function accessGuards(db: Db) {
       const clubId = requireUuid(String(req.params[target.param] ?? ''), 'The club');
       return { scope: await scopeForClub(db, req, clubId, roles) };
     }
-    if (target.kind === 'public') throw new Error('public targets are not checked');
+    if (target.kind === 'public' || target.kind === 'signed-in') throw new Error(`${target.kind} targets are not checked here`);
     const entry = resolvers.get(target.record);
     if (!entry) throw new Error(`No resolver registered for record kind "${target.record}".`);
     const source = target.from === 'body' ? (req.body as Record<string, unknown> | undefined) : req.params;
@@ -115,7 +130,14 @@ export function accessGuards(db: Db) {
   /** Checks `action` on `target` before anything else in the route. */
   function guard(action: Action, target: Target): Guard {
     const handler: RequestHandler = async (req, res, next) => {
-      Object.assign(res.locals, await check(req, action, target));
+      try {
+        Object.assign(res.locals, await check(req, action, target));
+      } catch (error) {
+        // A refused caller's upload (multipart, read later by multer) is discarded unread, so the
+        // connection stays usable and nothing of it is buffered.
+        req.resume();
+        throw error;
+      }
       next();
     };
     return Object.assign(handler, { access: { action, target } });
@@ -128,4 +150,22 @@ export function accessGuards(db: Db) {
 export function publicRoute(): Guard {
   const handler: RequestHandler = (_req, _res, next) => next();
   return Object.assign(handler, { access: { action: null, target: { kind: 'public' } as Target } });
+}
+
+/**
+ * Marks a route for any signed-in person, whatever their clubs (their own account: `/me`, password
+ * change). 401 when signed out. No club scope is left: such a route touches only the caller's account.
+ */
+export function signedInRoute(): Guard {
+  const handler: RequestHandler = (req, _res, next) => next(req.user ? undefined : unauthorized());
+  return Object.assign(handler, { access: { action: null, target: { kind: 'signed-in' } as Target } });
+}
+
+/** The access metadata of a route's handlers (the first guard found), or null: read by the route-table test. */
+export function accessOf(handlers: readonly unknown[]): AccessMeta | null {
+  for (const h of handlers) {
+    const access = (h as Partial<Guard> | null)?.access;
+    if (access) return access;
+  }
+  return null;
 }

@@ -1,4 +1,5 @@
 import { and, eq, inArray } from 'drizzle-orm';
+import { OWN_CHILDREN_ONLY } from '@/features/access/permissions';
 import type { Request, RequestHandler } from 'express';
 import type { Db } from '@/db/client';
 import { clubs, guardianLinks, memberships, type Role } from '@/db/schema';
@@ -19,6 +20,7 @@ export type ClubScope = {
   athleteIds: string[] | null;
 };
 
+/** Deny by default: mounted before the routes that need a signed-in caller (their guards check again). */
 export const requireSignedIn: RequestHandler = (req, _res, next) => {
   next(req.user ? undefined : unauthorized());
 };
@@ -46,11 +48,8 @@ export async function scopeForClub(db: Db, req: Request, clubId: string, roles: 
     .where(and(eq(memberships.userId, userId), eq(memberships.clubId, clubId)));
   if (!membership || !roles.includes(membership.role)) throw forbidden();
   let athleteIds: string[] | null = null;
-  if (membership.role === 'parent') {
-    const links = await db
-      .select({ athleteId: guardianLinks.athleteId })
-      .from(guardianLinks)
-      .where(eq(guardianLinks.userId, userId));
+  if (OWN_CHILDREN_ONLY.includes(membership.role)) {
+    const links = await db.select({ athleteId: guardianLinks.athleteId }).from(guardianLinks).where(eq(guardianLinks.userId, userId));
     athleteIds = links.map((l) => l.athleteId);
   }
   return { userId, clubId, role: membership.role, athleteIds };
@@ -65,7 +64,9 @@ export async function scopeForCallerClub(db: Db, req: Request, roles: readonly R
   const header = req.get('x-club-id');
   if (header !== undefined && header !== '') {
     if (!isUuid(header.trim())) {
-      throw badRequest('The X-Club-Id header does not name a club.', { 'X-Club-Id': 'Must be a club id (a UUID such as 0f8fad5b-d9cb-469f-a165-70867728950e).' });
+      throw badRequest('The X-Club-Id header does not name a club.', {
+        'X-Club-Id': 'Must be a club id (a UUID such as 0f8fad5b-d9cb-469f-a165-70867728950e).',
+      });
     }
     return scopeForClub(db, req, header.trim(), roles);
   }
@@ -81,6 +82,3 @@ export function athleteFilter<T>(scope: ClubScope, column: T) {
   // An empty list must match nothing, not everything.
   return inArray(column as never, scope.athleteIds.length > 0 ? scope.athleteIds : ['00000000-0000-0000-0000-000000000000']);
 }
-
-export const STAFF: readonly Role[] = ['admin', 'head_coach', 'tester', 'physio'];
-export const ALL_ROLES: readonly Role[] = ['admin', 'head_coach', 'tester', 'physio', 'parent'];

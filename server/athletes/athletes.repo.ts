@@ -3,7 +3,7 @@ import { and, asc, desc, eq, inArray, isNull, ne, sql, type SQL } from 'drizzle-
 import type { NodePgQueryResultHKT } from 'drizzle-orm/node-postgres';
 import type { PgDatabase } from 'drizzle-orm/pg-core';
 import type { Db } from '@/db/client';
-import * as schema from '@/db/schema';
+import type * as schema from '@/db/schema';
 import { athletes, consents, guardianLinks, memberships, squads, users, type Role } from '@/db/schema';
 import { athleteFilter, type ClubScope } from '@/server/access/scope';
 import type { Athlete, ConsentView } from '@/features/athletes/api/types';
@@ -24,10 +24,7 @@ export type ConsentRecordView = {
   recordedBy: string | null;
   recordedAt: Date;
 };
-export type AthleteValues = Pick<
-  typeof athletes.$inferInsert,
-  'firstName' | 'lastName' | 'dateOfBirth' | 'sex' | 'racketHand' | 'takeOffLeg' | 'squadId'
->;
+export type AthleteValues = Pick<typeof athletes.$inferInsert, 'firstName' | 'lastName' | 'dateOfBirth' | 'sex' | 'racketHand' | 'takeOffLeg' | 'squadId'>;
 
 /** Same person: names compared without case or surrounding spaces, plus the date of birth. */
 export const identityKey = (firstName: string, lastName: string, dateOfBirth: string) =>
@@ -47,9 +44,17 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
         decidedOn: consents.decidedOn,
       })
       .from(consents)
-      .where(inArray(consents.athleteId, rows.map((r) => r.id)))
+      .where(
+        inArray(
+          consents.athleteId,
+          rows.map((r) => r.id),
+        ),
+      )
       .orderBy(consents.athleteId, consents.kind, desc(consents.createdAt));
-    const clearance = await latestClearances(db, rows.map((r) => r.id));
+    const clearance = await latestClearances(
+      db,
+      rows.map((r) => r.id),
+    );
     return rows.map((row) => {
       const find = (kind: 'photos' | 'email_summaries'): ConsentView => {
         const c = latest.find((l) => l.athleteId === row.id && l.kind === kind);
@@ -81,12 +86,7 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
         .select(columns)
         .from(athletes)
         .leftJoin(squads, eq(squads.id, athletes.squadId))
-        .where(
-          inScope(
-            options.squadId ? eq(athletes.squadId, options.squadId) : undefined,
-            options.includeArchived ? undefined : isNull(athletes.archivedAt),
-          ),
-        )
+        .where(inScope(options.squadId ? eq(athletes.squadId, options.squadId) : undefined, options.includeArchived ? undefined : isNull(athletes.archivedAt)))
         .orderBy(asc(athletes.lastName), asc(athletes.firstName));
       return withConsents(rows);
     },
@@ -113,7 +113,10 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
       return ids;
     },
     async update(id: string, values: Partial<AthleteValues>) {
-      await db.update(athletes).set(values).where(inScope(eq(athletes.id, id)));
+      await db
+        .update(athletes)
+        .set(values)
+        .where(inScope(eq(athletes.id, id)));
     },
     async setArchived(id: string, archived: boolean) {
       await db
@@ -206,7 +209,10 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
         .orderBy(asc(squads.name));
     },
     async squad(id: string) {
-      const [row] = await db.select().from(squads).where(squadOfClub(eq(squads.id, id)));
+      const [row] = await db
+        .select()
+        .from(squads)
+        .where(squadOfClub(eq(squads.id, id)));
       return row ?? null;
     },
     /** Active squads whose name matches without case or surrounding spaces. */
@@ -223,7 +229,10 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
         );
     },
     async activeSquadsByName(): Promise<Map<string, string>> {
-      const rows = await db.select({ id: squads.id, name: squads.name }).from(squads).where(squadOfClub(isNull(squads.archivedAt)));
+      const rows = await db
+        .select({ id: squads.id, name: squads.name })
+        .from(squads)
+        .where(squadOfClub(isNull(squads.archivedAt)));
       return new Map(rows.map((r) => [r.name.trim().toLowerCase(), r.id]));
     },
     async createSquad(name: string) {
@@ -231,11 +240,19 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
       return row!;
     },
     async renameSquad(id: string, name: string) {
-      const [row] = await db.update(squads).set({ name }).where(squadOfClub(eq(squads.id, id))).returning();
+      const [row] = await db
+        .update(squads)
+        .set({ name })
+        .where(squadOfClub(eq(squads.id, id)))
+        .returning();
       return row ?? null;
     },
     async archiveSquad(id: string) {
-      const [row] = await db.update(squads).set({ archivedAt: new Date() }).where(squadOfClub(eq(squads.id, id))).returning();
+      const [row] = await db
+        .update(squads)
+        .set({ archivedAt: new Date() })
+        .where(squadOfClub(eq(squads.id, id)))
+        .returning();
       return row ?? null;
     },
     async activeAthleteCount(squadId: string): Promise<number> {
@@ -249,14 +266,3 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
 }
 
 export type AthletesRepo = ReturnType<typeof athletesRepo>;
-
-/** The club an athlete belongs to, looked up before the caller's scope is known. */
-export async function clubOfAthlete(db: Db, athleteId: string): Promise<string | null> {
-  const [row] = await db.select({ clubId: athletes.clubId }).from(athletes).where(eq(athletes.id, athleteId));
-  return row?.clubId ?? null;
-}
-
-export async function clubOfSquad(db: Db, squadId: string): Promise<string | null> {
-  const [row] = await db.select({ clubId: squads.clubId }).from(squads).where(eq(squads.id, squadId));
-  return row?.clubId ?? null;
-}

@@ -1,17 +1,15 @@
 import { Router } from 'express';
 import type { Db } from '@/db/client';
+import { can } from '@/features/access/permissions';
 import { athletePatchSchema, athleteSchema, consentSchema, guardianSchema } from '@/features/athletes/schemas';
-import { accessGuards, callerClub, on } from '@/server/access/guard';
+import { accessGuards, callerClub, on, recordIdOf, scopeOf } from '@/server/access/guard';
 import { badRequest, notFound } from '@/server/http/errors';
 import { validateBody } from '@/server/http/validate';
 import { athletesRepo } from './athletes.repo';
 import { athletesService } from './athletes.service';
-import { requireUuid } from './ids';
+import { requireUuid } from '@/server/http/ids';
 import { rosterImportRouter } from './roster-import.router';
-import { scoped } from './scope-middleware';
 import { squadsRouter } from './squads.router';
-
-export { requireUuid } from './ids';
 
 /**
  * Squads, athletes, consent decisions, guardian links and the CSV roster import. Admins and head
@@ -20,13 +18,14 @@ export { requireUuid } from './ids';
 export function athletesRouter(db: Db) {
   const router = Router();
   const { guard } = accessGuards(db);
-  const service = (res: Parameters<typeof scoped>[0]) => athletesService(db, scoped(res).scope);
+  const service = (res: { locals: object }) => athletesService(db, scopeOf(res));
 
   router.use(squadsRouter(db));
   router.use(rosterImportRouter(db));
 
   router.get('/squads/:id/athletes', guard('roster.read', on('squad')), async (_req, res) => {
-    const { scope, id } = scoped(res);
+    const scope = scopeOf(res);
+    const id = recordIdOf(res);
     const repo = athletesRepo(db, scope);
     const squad = await repo.squad(id);
     if (!squad) throw notFound('The squad');
@@ -35,9 +34,9 @@ export function athletesRouter(db: Db) {
 
   // Parents get their own children here; club staff get the whole club.
   router.get('/athletes', guard('athlete.read', callerClub), async (req, res) => {
-    const { scope } = scoped(res);
+    const scope = scopeOf(res);
     const includeArchived = req.query.archived === 'include';
-    if (includeArchived && scope.role === 'parent') throw badRequest('Archived athletes are not listed for parents.');
+    if (includeArchived && !can(scope.role, 'roster.read')) throw badRequest('Archived athletes are not listed for parents.');
     res.json({ athletes: await athletesRepo(db, scope).list({ includeArchived }) });
   });
 
@@ -46,34 +45,34 @@ export function athletesRouter(db: Db) {
   });
 
   router.get('/athletes/:id', guard('athlete.read', on('athlete')), async (_req, res) => {
-    res.json({ athlete: await service(res).detail(scoped(res).id) });
+    res.json({ athlete: await service(res).detail(recordIdOf(res)) });
   });
 
   router.patch('/athletes/:id', guard('roster.manage', on('athlete')), validateBody(athletePatchSchema), async (req, res) => {
-    res.json({ athlete: await service(res).update(scoped(res).id, req.body) });
+    res.json({ athlete: await service(res).update(recordIdOf(res), req.body) });
   });
 
   // Athletes are never deleted (their results point at them): archived, and restored when they return.
   router.post('/athletes/:id/archive', guard('roster.manage', on('athlete')), async (_req, res) => {
-    res.json({ athlete: await service(res).setArchived(scoped(res).id, true) });
+    res.json({ athlete: await service(res).setArchived(recordIdOf(res), true) });
   });
   router.post('/athletes/:id/restore', guard('roster.manage', on('athlete')), async (_req, res) => {
-    res.json({ athlete: await service(res).setArchived(scoped(res).id, false) });
+    res.json({ athlete: await service(res).setArchived(recordIdOf(res), false) });
   });
 
   router.get('/athletes/:id/consents', guard('consent.read', on('athlete')), async (_req, res) => {
-    res.json({ consents: await service(res).consentHistory(scoped(res).id) });
+    res.json({ consents: await service(res).consentHistory(recordIdOf(res)) });
   });
   router.post('/athletes/:id/consents', guard('consent.manage', on('athlete')), validateBody(consentSchema), async (req, res) => {
-    res.status(201).json(await service(res).recordConsent(scoped(res).id, req.body));
+    res.status(201).json(await service(res).recordConsent(recordIdOf(res), req.body));
   });
 
   router.post('/athletes/:id/guardians', guard('guardians.manage', on('athlete')), validateBody(guardianSchema), async (req, res) => {
-    res.status(201).json({ athlete: await service(res).linkGuardian(scoped(res).id, req.body) });
+    res.status(201).json({ athlete: await service(res).linkGuardian(recordIdOf(res), req.body) });
   });
   router.delete('/athletes/:id/guardians/:userId', guard('guardians.manage', on('athlete')), async (req, res) => {
     const userId = requireUuid(String(req.params.userId), 'This guardian link');
-    res.json({ athlete: await service(res).unlinkGuardian(scoped(res).id, userId) });
+    res.json({ athlete: await service(res).unlinkGuardian(recordIdOf(res), userId) });
   });
 
   return router;

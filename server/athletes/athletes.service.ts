@@ -1,12 +1,10 @@
 import type { Db } from '@/db/client';
+import { can } from '@/features/access/permissions';
 import { ROLE_LABELS } from '@/features/auth/schemas';
 import type { AthleteInput, AthletePatchInput, ConsentInput, GuardianInput, SquadInput } from '@/features/athletes/schemas';
 import type { ClubScope } from '@/server/access/scope';
 import { AppError, badRequest, conflict, forbidden, notFound } from '@/server/http/errors';
 import { athletesRepo, type AthleteValues, type AthletesRepo, type AthleteView, type GuardianView } from './athletes.repo';
-
-/** The roles that change the roster; everyone else reads it. */
-export const ROSTER_MANAGERS = ['admin', 'head_coach'] as const;
 
 export const DUPLICATE_MESSAGE = 'An athlete with this name and date of birth is already in the club.';
 const DUPLICATE_ARCHIVED_MESSAGE = 'An archived athlete with this name and date of birth is in the club: restore them instead.';
@@ -27,7 +25,7 @@ export function athletesService(db: Db, scope: ClubScope) {
   async function detail(id: string): Promise<AthleteDetail> {
     const athlete = await mustGet(id);
     // Parents see their child, not the other adults linked to them.
-    if (scope.role === 'parent') return athlete;
+    if (!can(scope.role, 'guardians.read')) return athlete;
     return { ...athlete, guardians: await repo.guardians(id) };
   }
 

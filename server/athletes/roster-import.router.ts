@@ -2,9 +2,8 @@ import { Router, type Request, type Response } from 'express';
 import multer, { MulterError } from 'multer';
 import type { Db } from '@/db/client';
 import { AppError, badRequest } from '@/server/http/errors';
-import { ROSTER_MANAGERS } from './athletes.service';
 import { MAX_IMPORT_BYTES, readRosterCsv, rosterImport } from './roster-import';
-import { callerClubScope, scoped } from './scope-middleware';
+import { accessGuards, callerClub, scopeOf } from '@/server/access/guard';
 
 const upload = multer({
   storage: multer.memoryStorage(),
@@ -29,18 +28,19 @@ function receiveFile(req: Request, res: Response): Promise<void> {
 
 export function rosterImportRouter(db: Db) {
   const router = Router();
+  const { guard } = accessGuards(db);
 
   /**
    * `?commit=false` (default): the per-row report, nothing written.
    * `?commit=true`: every line in one transaction when no line has an error; otherwise 400 with the report.
    */
-  router.post('/athletes/import', callerClubScope(db, ROSTER_MANAGERS), async (req, res) => {
+  router.post('/athletes/import', guard('roster.manage', callerClub), async (req, res) => {
     const commit = req.query.commit ?? 'false';
     if (commit !== 'true' && commit !== 'false') throw badRequest('commit must be true or false.');
     await receiveFile(req, res);
     if (!req.file || req.file.size === 0) throw badRequest('Choose a CSV file to import.', { file: 'Choose a CSV file to import.' });
     const raw = readRosterCsv(req.file.buffer);
-    const roster = rosterImport(db, scoped(res).scope);
+    const roster = rosterImport(db, scopeOf(res));
     if (commit === 'false') {
       res.json(await roster.check(raw));
       return;

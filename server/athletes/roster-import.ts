@@ -3,14 +3,7 @@ import { ValidationError } from 'yup';
 import type { Db } from '@/db/client';
 import { todayIso } from '@/features/athletes/age';
 import { ROLE_LABELS } from '@/features/auth/schemas';
-import {
-  OPTIONAL_ROSTER_COLUMNS,
-  ROSTER_COLUMNS,
-  ROSTER_HEADER_LINE,
-  rosterRowSchema,
-  type RosterColumn,
-  type RosterRow,
-} from '@/features/athletes/schemas';
+import { OPTIONAL_ROSTER_COLUMNS, ROSTER_COLUMNS, ROSTER_HEADER_LINE, rosterRowSchema, type RosterColumn, type RosterRow } from '@/features/athletes/schemas';
 import type { ClubScope } from '@/server/access/scope';
 import { badRequest } from '@/server/http/errors';
 import { fieldErrors } from '@/server/http/validate';
@@ -57,7 +50,12 @@ export function readRosterCsv(bytes: Buffer): RawRow[] {
   const [header, ...body] = records;
   if (!header) throw badRequest(`The file is empty. ${HEADER_HINT}`);
 
-  const names = header.record.map((h) => h.trim().toLowerCase().replace(/[\s-]+/g, '_'));
+  const names = header.record.map((h) =>
+    h
+      .trim()
+      .toLowerCase()
+      .replace(/[\s-]+/g, '_'),
+  );
   const unknown = names.filter((n) => n !== '' && !(ROSTER_COLUMNS as readonly string[]).includes(n));
   const missing = ROSTER_COLUMNS.filter((c) => !names.includes(c) && !OPTIONAL_ROSTER_COLUMNS.includes(c));
   const repeated = names.filter((n, i) => n !== '' && names.indexOf(n) !== i);
@@ -131,7 +129,8 @@ async function checkRows(repo: AthletesRepo, raw: RawRow[]): Promise<CheckedRow[
     const member = email ? members.get(email) : undefined;
     if (email && !errors.guardian_email) {
       if (!member) errors.guardian_email = 'No one with this e-mail is in the club yet: invite them from People first, or leave the cell empty.';
-      else if (member.role !== 'parent') errors.guardian_email = `This e-mail belongs to the club’s ${ROLE_LABELS[member.role].toLowerCase()}, not a parent account.`;
+      else if (member.role !== 'parent')
+        errors.guardian_email = `This e-mail belongs to the club’s ${ROLE_LABELS[member.role].toLowerCase()}, not a parent account.`;
     }
 
     // A child already in the club (same name and date of birth) is updated from the line, not refused.
@@ -246,9 +245,7 @@ export function rosterImport(db: Db, scope: ClubScope) {
             { athleteId: ids[i]!, kind: 'email_summaries' as const, granted: row.email_summaries_consent, decidedOn },
           ]),
         );
-        await repo.linkGuardians(
-          ready.flatMap(({ guardianUserId }, i) => (guardianUserId ? [{ athleteId: ids[i]!, userId: guardianUserId }] : [])),
-        );
+        await repo.linkGuardians(ready.flatMap(({ guardianUserId }, i) => (guardianUserId ? [{ athleteId: ids[i]!, userId: guardianUserId }] : [])));
         return { report, created: ids, updated: updates.map((u) => u.existing!.id) };
       });
     },

@@ -1,73 +1,77 @@
-import { Router } from 'express';
-import { ipKeyGenerator, rateLimit, type Store } from 'express-rate-limit';
+import { Router, type Request } from 'express';
+import type { Logger } from 'pino';
+import type { InvitationView, SignInResponse } from '@/features/auth/contract';
 import {
-  acceptInvitationSchema, requestResetSchema, resetPasswordSchema, signInSchema,
-  type AcceptInvitationInput, type RequestResetInput, type ResetPasswordInput, type SignInInput,
+  acceptInvitationSchema,
+  changePasswordSchema,
+  invitationLookupSchema,
+  requestResetSchema,
+  resetPasswordSchema,
+  signInSchema,
+  type AcceptInvitationInput,
+  type ChangePasswordInput,
+  type InvitationLookupInput,
+  type RequestResetInput,
+  type ResetPasswordInput,
+  type SignInInput,
 } from '@/features/auth/schemas';
-import { tooManyRequests } from '@/server/http/errors';
+import { publicRoute, signedInRoute } from '@/server/access/guard';
+import { signedInUserId } from '@/server/access/scope';
 import { validateBody } from '@/server/http/validate';
 import type { AuthService } from './auth.service';
 import type { Auth } from './lucia';
 import { clearSessionCookie, setSessionCookie } from './session-middleware';
 
-export type SignInLimits = { windowMs: number; perAccount: number; perAddress: number };
-export const DEFAULT_SIGN_IN_LIMITS: SignInLimits = { windowMs: 15 * 60 * 1000, perAccount: 8, perAddress: 40 };
+/** The caller's address as Express sees it (`trust proxy` is loopback only, so it cannot be forged). */
+const address = (req: Request) => req.ip ?? 'unknown';
 
-/**
- * `storeFor` gives each limit a store shared by every server process (createApp passes the PostgreSQL
- * store); without it the counters live in this process's memory.
- */
-export function authRouter(service: AuthService, auth: Auth, limits: SignInLimits = DEFAULT_SIGN_IN_LIMITS, storeFor?: (prefix: string) => Store) {
+export function authRouter(service: AuthService, auth: Auth) {
   const router = Router();
-  const limited = (name: string, limit: number, key: (req: import('express').Request) => string) =>
-    rateLimit({
-      ...(storeFor ? { store: storeFor(`sign-in-${name}`) } : {}),
-      windowMs: limits.windowMs,
-      limit,
-      standardHeaders: 'draft-8',
-      legacyHeaders: false,
-      // Only failed attempts count: a club signing in many people from one hall network is not throttled.
-      skipSuccessfulRequests: true,
-      keyGenerator: key,
-      handler: (_req, _res, next) =>
-        next(tooManyRequests('Too many attempts. Wait a few minutes, then try again.')),
-    });
-  const ip = (req: import('express').Request) => ipKeyGenerator(req.ip ?? 'unknown');
-  // One limit per e-mail and address (guessing one account), one per address (spraying many).
-  const perAccount = limited('account', limits.perAccount, (req) => `${ip(req)}|${String(req.body?.email ?? '').trim().toLowerCase()}`);
-  const perAddress = limited('address', limits.perAddress, ip);
 
-  router.post('/sign-in', perAddress, perAccount, validateBody(signInSchema), async (req, res) => {
+  router.post('/sign-in', publicRoute(), validateBody(signInSchema), async (req, res) => {
     const { email, password } = req.body as SignInInput;
-    const { user, token } = await service.signIn(email, password);
+    const { user, token } = await service.signIn(email, password, { address: address(req), previousSessionId: req.sessionId });
     setSessionCookie(res, auth, token);
-    res.json({ user: { id: user.id, email: user.email, displayName: user.displayName } });
+    res.json({ user: { id: user.id, email: user.email, displayName: user.displayName } } satisfies SignInResponse);
   });
 
-  router.post('/sign-out', async (req, res) => {
+  router.post('/sign-out', publicRoute(), async (req, res) => {
     if (req.sessionId) await service.signOut(req.sessionId);
     clearSessionCookie(res, auth);
     res.status(204).end();
   });
 
-  router.get('/invitations/:token', async (req, res) => {
-    res.json(await service.describeInvitation(req.params.token));
+  // The token travels in the body, never in a URL (URLs end up in logs and proxies).
+  router.post('/invitations/lookup', publicRoute(), validateBody(invitationLookupSchema), async (req, res) => {
+    await service.limitAddress(address(req));
+    res.json((await service.describeInvitation((req.body as InvitationLookupInput).token)) satisfies InvitationView);
   });
 
-  router.post('/invitations/accept', perAddress, validateBody(acceptInvitationSchema), async (req, res) => {
+  router.post('/invitations/accept', publicRoute(), validateBody(acceptInvitationSchema), async (req, res) => {
+    await service.limitAddress(address(req));
     const { token } = await service.acceptInvitation(req.body as AcceptInvitationInput);
+    if (req.sessionId) await service.signOut(req.sessionId);
     setSessionCookie(res, auth, token);
     res.status(201).json({ ok: true });
   });
 
-  router.post('/password-reset', perAddress, validateBody(requestResetSchema), async (req, res) => {
-    await service.requestPasswordReset((req.body as RequestResetInput).email);
+  // Answered before the account is looked up: the same answer, in the same time, for any e-mail.
+  router.post('/password-reset', publicRoute(), validateBody(requestResetSchema), async (req, res) => {
+    const pending = await service.requestPasswordReset((req.body as RequestResetInput).email, address(req));
     res.status(202).json({ ok: true });
+    await pending.send().catch((err: unknown) => (req.log as Logger | undefined)?.error({ err }, 'password reset mail not queued'));
   });
 
-  router.post('/password-reset/complete', perAddress, validateBody(resetPasswordSchema), async (req, res) => {
+  router.post('/password-reset/complete', publicRoute(), validateBody(resetPasswordSchema), async (req, res) => {
+    await service.limitAddress(address(req));
     const { token, password } = req.body as ResetPasswordInput;
     await service.resetPassword(token, password);
+    res.status(204).end();
+  });
+
+  router.post('/password', signedInRoute(), validateBody(changePasswordSchema), async (req, res) => {
+    const { token } = await service.changePassword(signedInUserId(req), req.sessionId!, req.body as ChangePasswordInput);
+    setSessionCookie(res, auth, token);
     res.status(204).end();
   });
 

@@ -1,5 +1,6 @@
 import { parse as parseCookies } from 'cookie';
 import type { RequestHandler, Response } from 'express';
+import { forbidden } from '@/server/http/errors';
 import type { Auth } from './lucia';
 import { sessionIdFromToken } from './lucia';
 
@@ -42,26 +43,18 @@ export function sessionMiddleware(auth: Auth): RequestHandler {
 }
 
 /**
- * Cookies are SameSite=Lax; on top of that, a state-changing request whose Origin names another host
- * is refused, so a form on another site cannot act for a signed-in user. `allowedOrigin` is the Expo
- * dev server's origin under `npm run dev`, and nothing in production.
+ * Cookies are SameSite=Lax; on top of that, a state-changing request is refused unless its Origin is
+ * the configured public origin (`PUBLIC_URL`) or the Expo dev server's (`npm run dev` only). The Host
+ * header is not trusted: behind a proxy it may name anything. A request without Origin (not a browser,
+ * or an old one) passes unless the browser says it is cross-site (`Sec-Fetch-Site`).
  */
-export function sameOriginMiddleware(allowedOrigin?: string): RequestHandler {
+export function sameOriginMiddleware(publicUrl: string, devOrigin?: string): RequestHandler {
+  const allowed = new Set([new URL(publicUrl).origin, ...(devOrigin ? [devOrigin] : [])]);
   return (req, _res, next) => {
     if (req.method === 'GET' || req.method === 'HEAD' || req.method === 'OPTIONS') return next();
     const origin = req.headers.origin;
-    if (!origin || origin === allowedOrigin) return next();
-    let originHost: string;
-    try {
-      originHost = new URL(origin).host;
-    } catch {
-      originHost = '';
-    }
-    if (originHost !== req.headers.host) {
-      next(Object.assign(new Error('cross-origin'), { status: 403 }));
-      return;
-    }
-    next();
+    const refused = origin ? !allowed.has(origin) : req.headers['sec-fetch-site'] === 'cross-site';
+    next(refused ? forbidden('This request came from another site and was refused.') : undefined);
   };
 }
 

@@ -51,7 +51,14 @@ export function auditTrailMiddleware(db: Db): RequestHandler {
         // Routes not yet on guard() leave no scope: the record's own club is looked up instead.
         const home = rule.subject === 'assessment' ? await assessmentHome(db, id) : await athleteHome(db, id);
         if (!home) return;
-        await recordAudit(db, { clubId: scope?.clubId ?? home.clubId, actorId, action: rule.action, subjectKind: rule.subject, subjectId: id, athleteId: home.athleteId });
+        await recordAudit(db, {
+          clubId: scope?.clubId ?? home.clubId,
+          actorId,
+          action: rule.action,
+          subjectKind: rule.subject,
+          subjectId: id,
+          athleteId: home.athleteId,
+        });
       })().catch((err: unknown) => req.log?.error({ err }, 'audit record failed'));
     });
     next();

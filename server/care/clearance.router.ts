@@ -21,7 +21,15 @@ export function clearanceRouter(db: Db) {
     const detail = body.status === 'cleared' ? (body.detail ?? '') : body.detail;
     await db.transaction(async (tx) => {
       const clearanceId = await clearanceRepo(tx, scope).add(athleteId, body.status, detail);
-      await recordAudit(tx, { clubId: scope.clubId, actorId: scope.userId, action: 'set', subjectKind: 'clearance', subjectId: clearanceId, athleteId, detail: { status: body.status, detail } });
+      await recordAudit(tx, {
+        clubId: scope.clubId,
+        actorId: scope.userId,
+        action: 'set',
+        subjectKind: 'clearance',
+        subjectId: clearanceId,
+        athleteId,
+        detail: { status: body.status, detail },
+      });
     });
     res.json({ clearance: await clearanceRepo(db, scope).current(athleteId) });
   });
@@ -29,8 +37,18 @@ export function clearanceRouter(db: Db) {
   // The clearance in force for every athlete of the club, for the badge beside names in staff screens.
   router.get('/clearances', guard('roster.read', callerClub), async (_req, res) => {
     const scope = scopeOf(res);
-    const rows = await db.select({ id: athletes.id }).from(athletes).where(and(eq(athletes.clubId, scope.clubId), isNull(athletes.archivedAt)));
-    res.json({ clearances: Object.fromEntries(await latestClearances(db, rows.map((r) => r.id))) });
+    const rows = await db
+      .select({ id: athletes.id })
+      .from(athletes)
+      .where(and(eq(athletes.clubId, scope.clubId), isNull(athletes.archivedAt)));
+    res.json({
+      clearances: Object.fromEntries(
+        await latestClearances(
+          db,
+          rows.map((r) => r.id),
+        ),
+      ),
+    });
   });
 
   router.get('/athletes/:id/clearance', guard('screening.read', on('athlete')), async (_req, res) => {

@@ -52,7 +52,10 @@ export function notesRepo(db: Executor, scope: ClubScope) {
       return row!.id;
     },
     async updateText(id: string, text: string) {
-      await db.update(careNotes).set({ text }).where(and(eq(careNotes.clubId, scope.clubId), eq(careNotes.id, id)));
+      await db
+        .update(careNotes)
+        .set({ text })
+        .where(and(eq(careNotes.clubId, scope.clubId), eq(careNotes.id, id)));
     },
   };
 }

@@ -22,7 +22,8 @@ export function notesRouter(db: Db) {
   // Everyone who may read family notes reaches this; team-only notes are added for roles that may read them.
   router.get('/athletes/:id/notes', guard('note.read-family', on('athlete')), async (req, res) => {
     const only = req.query.visibility;
-    if (only !== undefined && only !== 'team' && only !== 'family') throw badRequest('Some fields need attention.', { visibility: 'Visibility is "team" or "family".' });
+    if (only !== undefined && only !== 'team' && only !== 'family')
+      throw badRequest('Some fields need attention.', { visibility: 'Visibility is "team" or "family".' });
     res.json({ notes: await notesService(db, scopeOf(res)).list(id(res), only) });
   });
 

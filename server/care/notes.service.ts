@@ -46,7 +46,14 @@ export function notesService(db: Db, scope: ClubScope) {
       if (only === 'team' && !team) throw forbidden('Team-only notes are not shown to your role in this club.');
       const visibilities: NoteVisibility[] = only ? [only] : team ? ['team', 'family'] : ['family'];
       const rows = await repo.list(athleteId, visibilities);
-      await recordAudit(db, { clubId: scope.clubId, actorId: scope.userId, action: 'view', subjectKind: 'note', athleteId, detail: { count: rows.length, visibilities } });
+      await recordAudit(db, {
+        clubId: scope.clubId,
+        actorId: scope.userId,
+        action: 'view',
+        subjectKind: 'note',
+        athleteId,
+        detail: { count: rows.length, visibilities },
+      });
       return rows.map((r) => noteView(r, scope));
     },
 
@@ -73,7 +80,15 @@ export function notesService(db: Db, scope: ClubScope) {
           visibility: input.visibility as NoteVisibility,
           text: input.text,
         });
-        await recordAudit(tx, { clubId: scope.clubId, actorId: scope.userId, action: 'create', subjectKind: 'note', subjectId: noteId, athleteId, detail: { visibility: input.visibility } });
+        await recordAudit(tx, {
+          clubId: scope.clubId,
+          actorId: scope.userId,
+          action: 'create',
+          subjectKind: 'note',
+          subjectId: noteId,
+          athleteId,
+          detail: { visibility: input.visibility },
+        });
         return noteId;
       });
       return noteView((await repo.get(id))!, scope);
@@ -87,10 +102,22 @@ export function notesService(db: Db, scope: ClubScope) {
         if (!note) throw notFound('The note');
         if (note.authorId !== scope.userId) throw forbidden('Only the author can correct a note.');
         if (now.getTime() > note.createdAt.getTime() + WINDOW_MS) {
-          throw new AppError(409, 'note_locked', `Notes can be corrected for ${NOTE_EDIT_WINDOW_MINUTES} minutes after writing; this one is now kept as written. Add a new note with the correction.`);
+          throw new AppError(
+            409,
+            'note_locked',
+            `Notes can be corrected for ${NOTE_EDIT_WINDOW_MINUTES} minutes after writing; this one is now kept as written. Add a new note with the correction.`,
+          );
         }
         await r.updateText(id, input.text);
-        await recordAudit(tx, { clubId: scope.clubId, actorId: scope.userId, action: 'update', subjectKind: 'note', subjectId: id, athleteId: note.athleteId, detail: { previousText: note.text } });
+        await recordAudit(tx, {
+          clubId: scope.clubId,
+          actorId: scope.userId,
+          action: 'update',
+          subjectKind: 'note',
+          subjectId: id,
+          athleteId: note.athleteId,
+          detail: { previousText: note.text },
+        });
       });
       return noteView((await repo.get(id))!, scope, now);
     },

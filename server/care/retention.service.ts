@@ -60,7 +60,16 @@ export async function retentionCandidates(db: Db, clubId: string, now: Date): Pr
           ? 'retention-expired'
           : null;
     if (!reason) continue;
-    out.push({ photoId: r.photoId, athleteId: r.athleteId, athleteName: r.athleteName, takenAt: r.createdAt.toISOString(), reason, storageKey: r.storageKey, thumbKey: r.thumbKey, assessmentId: r.assessmentId });
+    out.push({
+      photoId: r.photoId,
+      athleteId: r.athleteId,
+      athleteName: r.athleteName,
+      takenAt: r.createdAt.toISOString(),
+      reason,
+      storageKey: r.storageKey,
+      thumbKey: r.thumbKey,
+      assessmentId: r.assessmentId,
+    });
   }
   return out;
 }
@@ -109,4 +118,3 @@ export async function clubsWithPhotos(db: Db): Promise<string[]> {
   const rows = await db.selectDistinct({ clubId: photos.clubId }).from(photos);
   return rows.map((r) => r.clubId);
 }
-

@@ -71,7 +71,10 @@ export function reviewsRepo(db: Executor, scope: ClubScope) {
 
     /** The tasks screened in a result (those the tester recorded, skipped ones excluded by the draft conversion). */
     async screenedTaskIds(resultId: string): Promise<string[]> {
-      const [row] = await db.select({ input: assessmentResults.input }).from(assessmentResults).where(and(eq(assessmentResults.clubId, scope.clubId), eq(assessmentResults.id, resultId)));
+      const [row] = await db
+        .select({ input: assessmentResults.input })
+        .from(assessmentResults)
+        .where(and(eq(assessmentResults.clubId, scope.clubId), eq(assessmentResults.id, resultId)));
       return row ? Object.keys(row.input.tasks) : [];
     },
 

@@ -57,9 +57,7 @@ export function reviewsService(db: Db, scope: ClubScope) {
       const state = await repo.state(assessmentId);
       const clearance = await clearanceRepo(db, scope).current(a.athleteId);
       const current = state ? await screeningRepo(db, scope).currentResult(assessmentId) : null;
-      const block: StrengthBlock = current
-        ? strengthBlock(current.result.plan, clearance, current.createdAt.toISOString())
-        : { blocked: false };
+      const block: StrengthBlock = current ? strengthBlock(current.result.plan, clearance, current.createdAt.toISOString()) : { blocked: false };
       return {
         athleteId: a.athleteId,
         reviewedAt: state?.review?.at.toISOString() ?? null,
@@ -81,7 +79,15 @@ export function reviewsService(db: Db, scope: ClubScope) {
         if (!state) throw conflict('This screen has not been submitted yet: there is nothing to review.');
         if (state.review) return;
         const id = await reviewsRepo(tx, scope).markReviewed(assessmentId, state.resultId);
-        await recordAudit(tx, { clubId: scope.clubId, actorId: scope.userId, action: 'review', subjectKind: 'assessment', subjectId: assessmentId, athleteId: locked.athleteId, detail: { reviewId: id, resultId: state.resultId } });
+        await recordAudit(tx, {
+          clubId: scope.clubId,
+          actorId: scope.userId,
+          action: 'review',
+          subjectKind: 'assessment',
+          subjectId: assessmentId,
+          athleteId: locked.athleteId,
+          detail: { reviewId: id, resultId: state.resultId },
+        });
       });
       return this.care(assessmentId);
     },

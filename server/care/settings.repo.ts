@@ -33,5 +33,8 @@ export async function saveCareSettings(db: Executor, clubId: string, input: Care
     familyPhotos: input.familyPhotos,
     testersReadTeamNotes: input.testersReadTeamNotes,
   };
-  await db.insert(careSettings).values({ clubId, ...values }).onConflictDoUpdate({ target: careSettings.clubId, set: values });
+  await db
+    .insert(careSettings)
+    .values({ clubId, ...values })
+    .onConflictDoUpdate({ target: careSettings.clubId, set: values });
 }

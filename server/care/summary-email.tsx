@@ -31,13 +31,17 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName }
             {`${name} took part in a movement screen at ${summary.clubName} on ${summary.screenedOn}. Here is what it means in plain words.`}
           </Text>
           <Section>
-            <Heading as="h2" style={styles.h2}>What was checked</Heading>
+            <Heading as="h2" style={styles.h2}>
+              What was checked
+            </Heading>
             {summary.checked.map((c) => (
               <Text key={c} style={styles.text}>{`• ${c}`}</Text>
             ))}
           </Section>
           <Section>
-            <Heading as="h2" style={styles.h2}>What we saw</Heading>
+            <Heading as="h2" style={styles.h2}>
+              What we saw
+            </Heading>
             {summary.seen.map((s) => (
               <Text key={s} style={styles.text}>{`• ${s}`}</Text>
             ))}
@@ -52,7 +56,9 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName }
             {summary.recheckDate ? <Text style={styles.text}>{`Next check: around ${summary.recheckDate}.`}</Text> : null}
           </Section>
           <Section>
-            <Heading as="h2" style={styles.h2}>See how to do each exercise</Heading>
+            <Heading as="h2" style={styles.h2}>
+              See how to do each exercise
+            </Heading>
             <Text style={styles.text}>
               <Link href={viewUrl} style={styles.link}>{`Open ${name}'s page in Squadline`}</Link>
             </Text>
@@ -60,11 +66,15 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName }
           </Section>
           <Hr />
           {summary.cautions.map((c) => (
-            <Text key={c} style={styles.small}>{c}</Text>
+            <Text key={c} style={styles.small}>
+              {c}
+            </Text>
           ))}
           <Text style={styles.small}>
             {'You receive this because your club recorded your agreement to e-mailed summaries. '}
-            <Link href={unsubscribeUrl} style={styles.link}>Stop these e-mails</Link>
+            <Link href={unsubscribeUrl} style={styles.link}>
+              Stop these e-mails
+            </Link>
           </Text>
         </Container>
       </Body>

@@ -46,7 +46,14 @@ export function summaryRepo(db: Executor, scope: ClubScope) {
     async addEmail(values: { releaseId: string; athleteId: string; userId: string; email: string; tokenHash: string }) {
       const [row] = await db
         .insert(summaryEmails)
-        .values({ clubId: scope.clubId, releaseId: values.releaseId, athleteId: values.athleteId, userId: values.userId, email: values.email, unsubscribeTokenHash: values.tokenHash })
+        .values({
+          clubId: scope.clubId,
+          releaseId: values.releaseId,
+          athleteId: values.athleteId,
+          userId: values.userId,
+          email: values.email,
+          unsubscribeTokenHash: values.tokenHash,
+        })
         .returning({ id: summaryEmails.id });
       return row!.id;
     },

@@ -1,6 +1,5 @@
 import { and, eq, isNull } from 'drizzle-orm';
 import express, { Router } from 'express';
-import type { Db } from '@/db/client';
 import { photos } from '@/db/schema';
 import { accessGuards, on, publicRoute, scopeOf } from '@/server/access/guard';
 import { AppError, badRequest, notFound } from '@/server/http/errors';
@@ -34,7 +33,10 @@ export function summaryRouter(deps: SummaryDeps & { storage: PhotoStorage }) {
     const scope = scopeOf(res);
     const size = req.query.size ?? 'full';
     if (size !== 'full' && size !== 'thumb') throw badRequest('Some fields need attention.', { size: 'Size must be "full" or "thumb".' });
-    const [photo] = await db.select().from(photos).where(and(eq(photos.id, id(res)), eq(photos.clubId, scope.clubId), isNull(photos.replacedAt)));
+    const [photo] = await db
+      .select()
+      .from(photos)
+      .where(and(eq(photos.id, id(res)), eq(photos.clubId, scope.clubId), isNull(photos.replacedAt)));
     if (!photo) throw notFound('The photo');
     const settings = await careSettingsOf(db, scope.clubId);
     const owner = await screeningRepo(db, scope).assessment(photo.assessmentId);

@@ -8,7 +8,7 @@ import type { FamilySummary, FamilyView, ReleasePreview } from '@/features/care/
 import { getTask, type TaskId } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
 import { AppError, conflict, notFound } from '@/server/http/errors';
-import type { Outbox, OutgoingMail } from '@/server/mail/outbox';
+import type { MailRef, Outbox } from '@/server/mail/outbox';
 import { screeningRepo, type Executor } from '@/server/screening/screening.repo';
 import { recordAudit } from './audit.repo';
 import { clearanceRepo } from './clearance.repo';
@@ -37,7 +37,10 @@ async function currentSummary(db: Executor, scope: ClubScope, assessmentId: stri
   const current = await s.currentResult(assessmentId);
   if (!state || !current) throw conflict('This screen has not been submitted yet: there is no summary to release.');
   const [adjustment, clearance, clubName, taskIds] = await Promise.all([
-    s.adjustments(current.id).limit(1).then((rows) => rows[0]),
+    s
+      .adjustments(current.id)
+      .limit(1)
+      .then((rows) => rows[0]),
     clearanceRepo(db, scope).current(a.athleteId),
     reviews.clubName(),
     reviews.screenedTaskIds(current.id),
@@ -60,7 +63,10 @@ async function recipientsOf(db: Executor, scope: ClubScope, athleteId: string) {
   const { guardians, emailConsent } = await summaryRepo(db, scope).guardians(athleteId);
   return emailConsent
     ? { recipients: guardians, skipped: [] as { displayName: string; reason: string }[] }
-    : { recipients: [] as Recipient[], skipped: guardians.map((g) => ({ displayName: g.displayName, reason: 'No e-mail consent recorded for this athlete.' })) };
+    : {
+        recipients: [] as Recipient[],
+        skipped: guardians.map((g) => ({ displayName: g.displayName, reason: 'No e-mail consent recorded for this athlete.' })),
+      };
 }
 
 /**
@@ -76,31 +82,53 @@ export async function releaseSummary(
   options: { releasedBy: string | null; at?: Date; notify?: boolean },
 ) {
   const { db, outbox, publicUrl } = deps;
-  const mails: OutgoingMail[] = [];
+  const mails: MailRef[] = [];
   const release = await db.transaction(async (tx) => {
     const locked = await screeningRepo(tx, scope).lockAssessment(assessmentId);
     if (!locked) throw notFound('The assessment');
     const { a, state, current, summary } = await currentSummary(tx, scope, assessmentId);
     if (!state.review) throw new AppError(409, 'not_reviewed', 'A physiotherapist has to mark this screen reviewed before its summary goes to the family.');
-    if (state.release) throw new AppError(409, 'already_released', 'This screen\'s summary was already released to the family.');
+    if (state.release) throw new AppError(409, 'already_released', "This screen's summary was already released to the family.");
     const repo = summaryRepo(tx, scope);
     const row = await repo.addRelease({ assessmentId, athleteId: a.athleteId, resultId: current.id, releasedBy: options.releasedBy, summary, at: options.at });
     const audit = [
-      { clubId: scope.clubId, actorId: options.releasedBy, action: 'release', subjectKind: 'assessment' as const, subjectId: assessmentId, athleteId: a.athleteId, detail: { releaseId: row.id, automatic: options.releasedBy === null } },
+      {
+        clubId: scope.clubId,
+        actorId: options.releasedBy,
+        action: 'release',
+        subjectKind: 'assessment' as const,
+        subjectId: assessmentId,
+        athleteId: a.athleteId,
+        detail: { releaseId: row.id, automatic: options.releasedBy === null },
+      },
     ];
     const { recipients } = options.notify === false ? { recipients: [] as Recipient[] } : await recipientsOf(tx, scope, a.athleteId);
     for (const r of recipients) {
-      const token = randomBytes(24).toString('base64url');
-      const emailId = await repo.addEmail({ releaseId: row.id, athleteId: a.athleteId, userId: r.userId, email: r.email, tokenHash: hashToken(token) });
-      const rendered = await renderSummaryEmail({ summary, viewUrl: familyUrl(publicUrl, a.athleteId), unsubscribeUrl: unsubscribePageUrl(publicUrl, token), recipientName: r.displayName });
-      mails.push({
-        to: r.email,
-        subject: rendered.subject,
-        text: rendered.text,
-        html: rendered.html,
-        headers: { 'List-Unsubscribe': `<${oneClickUrl(publicUrl, token)}>`, 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' },
+      // A placeholder hash until the e-mail is rendered at send time (server/care/summary-mail.ts): the
+      // unsubscribe token is drawn then, so neither the queue nor the database ever holds it.
+      const emailId = await repo.addEmail({
+        releaseId: row.id,
+        athleteId: a.athleteId,
+        userId: r.userId,
+        email: r.email,
+        tokenHash: hashToken(randomBytes(24).toString('base64url')),
       });
-      audit.push({ clubId: scope.clubId, actorId: options.releasedBy, action: 'email.queued', subjectKind: 'email' as never, subjectId: emailId, athleteId: a.athleteId, detail: { to: r.email, subject: rendered.subject, releaseId: row.id } as never });
+      const rendered = await renderSummaryEmail({
+        summary,
+        viewUrl: familyUrl(publicUrl, a.athleteId),
+        unsubscribeUrl: `${publicUrl}/unsubscribe`,
+        recipientName: r.displayName,
+      });
+      mails.push({ template: 'family-summary', id: emailId });
+      audit.push({
+        clubId: scope.clubId,
+        actorId: options.releasedBy,
+        action: 'email.queued',
+        subjectKind: 'email' as never,
+        subjectId: emailId,
+        athleteId: a.athleteId,
+        detail: { to: r.email, subject: rendered.subject, releaseId: row.id } as never,
+      });
     }
     await recordAudit(tx, ...audit);
     return { id: row.id, releasedAt: row.createdAt.toISOString(), recipients: recipients.length };
@@ -141,15 +169,24 @@ export function summaryService(deps: SummaryDeps, scope: ClubScope) {
       const athlete = await athleteName(db, scope, athleteId);
       const latest = releases[0] ?? null;
       const photosAllowed = settings.familyPhotos && photoConsent === true;
-      const photos = latest && photosAllowed
-        ? (await repo.currentPhotos(latest.assessmentId)).map((p) => ({
-            id: p.id,
-            url: `/api/family-photos/${p.id}?size=full`,
-            thumbUrl: `/api/family-photos/${p.id}?size=thumb`,
-            taskTitle: safeTaskTitle(p.taskId),
-          }))
-        : [];
-      await recordAudit(db, { clubId: scope.clubId, actorId: scope.userId, action: 'view', subjectKind: 'athlete', subjectId: athleteId, athleteId, detail: { what: 'family summary' } });
+      const photos =
+        latest && photosAllowed
+          ? (await repo.currentPhotos(latest.assessmentId)).map((p) => ({
+              id: p.id,
+              url: `/api/family-photos/${p.id}?size=full`,
+              thumbUrl: `/api/family-photos/${p.id}?size=thumb`,
+              taskTitle: safeTaskTitle(p.taskId),
+            }))
+          : [];
+      await recordAudit(db, {
+        clubId: scope.clubId,
+        actorId: scope.userId,
+        action: 'view',
+        subjectKind: 'athlete',
+        subjectId: athleteId,
+        athleteId,
+        detail: { what: 'family summary' },
+      });
       return { athlete, latest, earlier: releases.slice(1), notes, photos, photosAllowed };
     },
   };
@@ -179,7 +216,14 @@ async function athleteName(db: Db, scope: ClubScope, athleteId: string) {
 export async function unsubscribe(db: Db, token: string): Promise<{ athleteFirstName: string; already: boolean }> {
   return db.transaction(async (tx) => {
     const [row] = await tx
-      .select({ id: summaryEmails.id, clubId: summaryEmails.clubId, athleteId: summaryEmails.athleteId, userId: summaryEmails.userId, unsubscribedAt: summaryEmails.unsubscribedAt, firstName: athletes.firstName })
+      .select({
+        id: summaryEmails.id,
+        clubId: summaryEmails.clubId,
+        athleteId: summaryEmails.athleteId,
+        userId: summaryEmails.userId,
+        unsubscribedAt: summaryEmails.unsubscribedAt,
+        firstName: athletes.firstName,
+      })
       .from(summaryEmails)
       .innerJoin(athletes, eq(athletes.id, summaryEmails.athleteId))
       .where(eq(summaryEmails.unsubscribeTokenHash, hashToken(token)))
@@ -187,12 +231,23 @@ export async function unsubscribe(db: Db, token: string): Promise<{ athleteFirst
     if (!row) throw notFound('This unsubscribe link');
     if (row.unsubscribedAt) return { athleteFirstName: row.firstName, already: true };
     const now = new Date();
-    await tx.update(summaryEmails).set({ unsubscribedAt: now }).where(and(eq(summaryEmails.id, row.id), isNull(summaryEmails.unsubscribedAt)));
+    await tx
+      .update(summaryEmails)
+      .set({ unsubscribedAt: now })
+      .where(and(eq(summaryEmails.id, row.id), isNull(summaryEmails.unsubscribedAt)));
     const [consent] = await tx
       .insert(consents)
       .values({ athleteId: row.athleteId, kind: 'email_summaries', granted: false, decidedOn: now.toISOString().slice(0, 10), recordedBy: row.userId })
       .returning({ id: consents.id });
-    await recordAudit(tx, { clubId: row.clubId, actorId: row.userId, action: 'withdraw', subjectKind: 'consent', subjectId: consent!.id, athleteId: row.athleteId, detail: { kind: 'email_summaries', via: 'unsubscribe link' } });
+    await recordAudit(tx, {
+      clubId: row.clubId,
+      actorId: row.userId,
+      action: 'withdraw',
+      subjectKind: 'consent',
+      subjectId: consent!.id,
+      athleteId: row.athleteId,
+      detail: { kind: 'email_summaries', via: 'unsubscribe link' },
+    });
     return { athleteFirstName: row.firstName, already: false };
   });
 }

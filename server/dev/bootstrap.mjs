@@ -164,16 +164,30 @@ export function initCluster(bin, layout, password) {
     execFileSync('chown', ['-R', 'postgres:postgres', layout.root]);
   }
   pgRun(bin, 'initdb', [
-    '-D', layout.data, '-U', 'postgres', `--pwfile=${pwFile}`,
-    '--auth-local=trust', '--auth-host=scram-sha-256', '--encoding=UTF8', '--locale=C.UTF-8',
+    '-D',
+    layout.data,
+    '-U',
+    'postgres',
+    `--pwfile=${pwFile}`,
+    '--auth-local=trust',
+    '--auth-host=scram-sha-256',
+    '--encoding=UTF8',
+    '--locale=C.UTF-8',
   ]);
   fs.rmSync(pwFile);
 }
 
 export function startCluster(bin, layout, port) {
   pgRun(bin, 'pg_ctl', [
-    '-D', layout.data, '-l', layout.logFile, '-w', '-t', '30',
-    '-o', `-c listen_addresses=127.0.0.1 -p ${port} -k ${layout.socket}`,
+    '-D',
+    layout.data,
+    '-l',
+    layout.logFile,
+    '-w',
+    '-t',
+    '30',
+    '-o',
+    `-c listen_addresses=127.0.0.1 -p ${port} -k ${layout.socket}`,
     'start',
   ]);
 }
@@ -197,7 +211,13 @@ export function isClusterRunning(bin, layout) {
 
 export function ensureDatabase(bin, layout, port, name) {
   const exists = pgRun(bin, 'psql', [
-    '-h', layout.socket, '-p', String(port), '-U', 'postgres', '-tAc',
+    '-h',
+    layout.socket,
+    '-p',
+    String(port),
+    '-U',
+    'postgres',
+    '-tAc',
     `SELECT 1 FROM pg_database WHERE datname = '${name}'`,
   ]).trim();
   if (exists !== '1') {

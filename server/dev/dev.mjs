@@ -9,7 +9,7 @@ const apiPort = Number(process.env.PORT ?? 8080);
 ensureNodeModules();
 const bin = ensurePostgres();
 const cluster = await startDevCluster(bin, 'squadline');
-tsxSync(['db/cli.ts', 'prepare'], { DATABASE_URL: cluster.url });
+tsxSync(['server/dev/db-cli.ts', 'prepare'], { DATABASE_URL: cluster.url });
 
 const webOrigin = 'http://localhost:8081';
 const api = tsx(['watch', '--clear-screen=false', 'server/index.ts'], {

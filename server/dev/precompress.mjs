@@ -16,12 +16,15 @@ export function precompressExport(dir) {
       if (entry.isDirectory()) walk(full);
       else if (COMPRESSIBLE.has(path.extname(entry.name)) && fs.statSync(full).size >= MIN_BYTES) {
         const raw = fs.readFileSync(full);
-        fs.writeFileSync(`${full}.br`, zlib.brotliCompressSync(raw, {
-          params: {
-            [zlib.constants.BROTLI_PARAM_QUALITY]: zlib.constants.BROTLI_MAX_QUALITY,
-            [zlib.constants.BROTLI_PARAM_SIZE_HINT]: raw.length,
-          },
-        }));
+        fs.writeFileSync(
+          `${full}.br`,
+          zlib.brotliCompressSync(raw, {
+            params: {
+              [zlib.constants.BROTLI_PARAM_QUALITY]: zlib.constants.BROTLI_MAX_QUALITY,
+              [zlib.constants.BROTLI_PARAM_SIZE_HINT]: raw.length,
+            },
+          }),
+        );
         fs.writeFileSync(`${full}.gz`, zlib.gzipSync(raw, { level: 9 }));
         files++;
       }

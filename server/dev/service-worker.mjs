@@ -39,7 +39,9 @@ async function writeIcons(dist) {
     { file: 'icon-maskable-512.png', size: 512, maskable: true },
   ];
   for (const icon of icons) {
-    await sharp(Buffer.from(iconSvg(icon.size, icon))).png().toFile(path.join(dir, icon.file));
+    await sharp(Buffer.from(iconSvg(icon.size, icon)))
+      .png()
+      .toFile(path.join(dir, icon.file));
   }
   return icons.map((i) => ({ src: `/icons/${i.file}`, sizes: `${i.size}x${i.size}`, type: 'image/png', purpose: i.maskable ? 'maskable' : 'any' }));
 }

@@ -11,7 +11,7 @@ describe('the offline worker finds the page of a route', () => {
     expect(fileFor(routes, '/screening/rounds/2f1c')).toBe('/index.html');
   });
 
-  it('static export: the route\'s own HTML, groups left out, static segments before dynamic ones', () => {
+  it("static export: the route's own HTML, groups left out, static segments before dynamic ones", () => {
     const routes = routeTable([
       '(club)/index.html',
       '(club)/screening/index.html',

@@ -1,9 +1,7 @@
 // `npm start`: install what is missing, start the private database, migrate, seed the demo once,
 // build the web app when its sources changed, and serve app + API from one process.
 // `npm run db:reset` runs this with --reset-only: rebuild the demo database, then stop.
-import {
-  DIST_DIR, ensureNodeModules, ensurePostgres, ensureWebBuild, fail, log, startDevCluster, tsx, tsxSync,
-} from './bootstrap.mjs';
+import { DIST_DIR, ensureNodeModules, ensurePostgres, ensureWebBuild, fail, log, startDevCluster, tsx, tsxSync } from './bootstrap.mjs';
 
 const resetOnly = process.argv.includes('--reset-only');
 const webPort = Number(process.env.PORT ?? 8080);
@@ -15,7 +13,7 @@ const cluster = await startDevCluster(bin, 'squadline');
 
 try {
   const env = { DATABASE_URL: cluster.url };
-  tsxSync(['db/cli.ts', resetOnly ? 'reset' : 'prepare'], env);
+  tsxSync(['server/dev/db-cli.ts', resetOnly ? 'reset' : 'prepare'], env);
   if (resetOnly) {
     cluster.stop();
     log('Demo database rebuilt.');

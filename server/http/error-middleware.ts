@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler } from 'express';
 import { MulterError } from 'multer';
+import type { ApiErrorBody } from '@/features/api/contract';
 import { AppError } from './errors';
 
 const MULTER_MESSAGES: Partial<Record<MulterError['code'], string>> = {
@@ -14,11 +15,12 @@ const MULTER_MESSAGES: Partial<Record<MulterError['code'], string>> = {
 
 /** Socket-level failures reaching PostgreSQL, and PostgreSQL refusing work while it stops or starts. */
 const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ETIMEDOUT', 'ENOTFOUND', 'EHOSTUNREACH', '57P01', '57P02', '57P03']);
-const DB_DOWN_MESSAGES = /Connection terminated|connection timeout|timeout exceeded when trying to connect|Client has encountered a connection error|Connection ended|the database system is (starting up|shutting down)/i;
+const DB_DOWN_MESSAGES =
+  /Connection terminated|connection timeout|timeout exceeded when trying to connect|Client has encountered a connection error|Connection ended|the database system is (starting up|shutting down)/i;
 
 /** The error and its causes (drizzle wraps the driver's error in `cause`). */
-function chain(error: unknown): Array<{ code?: unknown; message?: unknown }> {
-  const out: Array<{ code?: unknown; message?: unknown }> = [];
+function chain(error: unknown): { code?: unknown; message?: unknown }[] {
+  const out: { code?: unknown; message?: unknown }[] = [];
   let e: unknown = error;
   for (let i = 0; i < 5 && e && typeof e === 'object'; i++) {
     out.push(e as { code?: unknown; message?: unknown });
@@ -54,9 +56,11 @@ export const errorMiddleware: ErrorRequestHandler = (error, req, res, _next) => 
     return;
   }
   if (error instanceof AppError) {
-    res.status(error.status).json({
+    const body: ApiErrorBody & { current?: unknown } = {
       error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) },
-    });
+    };
+    if (error.current !== undefined) body.current = error.current;
+    res.status(error.status).json(body);
     return;
   }
   if (error instanceof MulterError) {

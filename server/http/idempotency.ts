@@ -104,11 +104,11 @@ export function idempotency(db: Db, options: IdempotencyOptions = {}): RequestHa
       const status = res.statusCode;
       const record =
         status >= 200 && status < 300
-          ? db.execute(sql`update idempotency_keys set status = ${status}, response = ${JSON.stringify(payload ?? null)}::jsonb where user_id = ${userId} and key = ${key}`)
+          ? db.execute(
+              sql`update idempotency_keys set status = ${status}, response = ${JSON.stringify(payload ?? null)}::jsonb where user_id = ${userId} and key = ${key}`,
+            )
           : release();
-      record
-        .catch((err: unknown) => req.log?.warn({ err }, 'idempotency key not recorded'))
-        .finally(() => send(payload));
+      record.catch((err: unknown) => req.log?.warn({ err }, 'idempotency key not recorded')).finally(() => send(payload));
       return res;
     };
     // Answers that never went through res.json (a stream, an empty body) leave nothing to replay.

@@ -7,7 +7,6 @@ import { badRequest } from './errors';
  * folders or control characters is a hostile or broken client: refused rather than passed along to logs.
  */
 export function safeFileName(name: string): boolean {
-  // eslint-disable-next-line no-control-regex
   return name.length <= 255 && !/[/\\\u0000-\u001f\u007f]/.test(name) && name !== '.' && name !== '..';
 }
 
@@ -20,18 +19,22 @@ export function multipart(upload: RequestHandler): RequestHandler & { multipart:
   const handler: RequestHandler = (req, res, next) => {
     upload(req, res, (error?: unknown) => {
       if (!error && req.file && !safeFileName(req.file.originalname)) {
-        next(badRequest('Some fields need attention.', {
-          [req.file.fieldname]: 'The file name must be a plain name, without folders (/ or \\) or control characters. Rename the file and send it again.',
-        }));
+        next(
+          badRequest('Some fields need attention.', {
+            [req.file.fieldname]: 'The file name must be a plain name, without folders (/ or \\) or control characters. Rename the file and send it again.',
+          }),
+        );
         return;
       }
       if (!error || error instanceof MulterError) {
         next(error);
         return;
       }
-      next(badRequest('The upload could not be read: it was cut short or is not well-formed. Choose the file and send it again.', {
-        _: 'The upload could not be read.',
-      }));
+      next(
+        badRequest('The upload could not be read: it was cut short or is not well-formed. Choose the file and send it again.', {
+          _: 'The upload could not be read.',
+        }),
+      );
     });
   };
   // Marked so the route-table walk in the tests knows this route takes an upload.

@@ -6,7 +6,7 @@ import { startFakeSmtp, type FakeSmtp } from './fake-smtp';
 import { createMailer, type Mailer } from './mailer';
 
 describe('startFakeSmtp', () => {
-  const cleanups: Array<() => Promise<void> | void> = [];
+  const cleanups: (() => Promise<void> | void)[] = [];
   afterEach(async () => {
     while (cleanups.length > 0) await cleanups.pop()?.();
   });
@@ -14,7 +14,10 @@ describe('startFakeSmtp', () => {
   async function start(): Promise<{ fake: FakeSmtp; mailer: Mailer }> {
     const fake = await startFakeSmtp();
     const mailer = createMailer({ transport: fake.url, from: 'Squadline <no-reply@squadline.test>' });
-    cleanups.push(() => fake.close(), () => mailer.close());
+    cleanups.push(
+      () => fake.close(),
+      () => mailer.close(),
+    );
     return { fake, mailer };
   }
 
@@ -52,7 +55,10 @@ describe('startFakeSmtp', () => {
   it('keeps only the newest maxMessages', async () => {
     const fake = await startFakeSmtp({ maxMessages: 2 });
     const mailer = createMailer({ transport: fake.url, from: 'no-reply@squadline.test' });
-    cleanups.push(() => fake.close(), () => mailer.close());
+    cleanups.push(
+      () => fake.close(),
+      () => mailer.close(),
+    );
 
     for (const subject of ['one', 'two', 'three']) {
       await mailer.send({ to: 'a@example.com', subject, text: 'x' });
@@ -95,9 +101,7 @@ describe('startFakeSmtp', () => {
   it('rejects waitFor with a clear error when nothing matches in time', async () => {
     const { fake } = await start();
 
-    await expect(fake.waitFor((m) => m.subject === 'never', 50)).rejects.toThrow(
-      'Fake SMTP: no message matched within 50 ms (0 message(s) stored)',
-    );
+    await expect(fake.waitFor((m) => m.subject === 'never', 50)).rejects.toThrow('Fake SMTP: no message matched within 50 ms (0 message(s) stored)');
   });
 
   it('clears the stored messages', async () => {

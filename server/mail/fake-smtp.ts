@@ -4,6 +4,8 @@ import type { AddressInfo } from 'node:net';
 import { simpleParser, type ParsedMail } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 
+import { TAG_HEADERS } from './mailer';
+
 export interface StoredMessage {
   id: string;
   /** The From header as written (`"Squadline" <no-reply@…>`), else the envelope sender. */
@@ -21,6 +23,9 @@ export interface StoredMessage {
   headers: Record<string, string>;
   /** MIME types of every part and attachment, e.g. ['text/plain', 'text/html']. */
   attachments: string[];
+  /** From the message's tag headers (see `MailTag`); null when untagged. */
+  kind: string | null;
+  clubId: string | null;
 }
 
 export interface FakeSmtp {
@@ -58,11 +63,7 @@ const LOOPBACK_HOSTS = new Set(['127.0.0.1', '::1', 'localhost']);
  * memory, for tests and local development. It refuses to listen beyond
  * loopback: anyone who can reach it could use it to inspect mail.
  */
-export async function startFakeSmtp({
-  host = '127.0.0.1',
-  port = 0,
-  maxMessages = DEFAULT_MAX_MESSAGES,
-}: FakeSmtpOptions = {}): Promise<FakeSmtp> {
+export async function startFakeSmtp({ host = '127.0.0.1', port = 0, maxMessages = DEFAULT_MAX_MESSAGES }: FakeSmtpOptions = {}): Promise<FakeSmtp> {
   if (!LOOPBACK_HOSTS.has(host) && !host.startsWith('127.')) {
     throw new Error(`Fake SMTP listens on loopback only, refusing host ${JSON.stringify(host)}`);
   }
@@ -115,6 +116,8 @@ export async function startFakeSmtp({
             receivedAt: new Date().toISOString(),
             headers: Object.fromEntries(parsed.headerLines.map((h) => [h.key.toLowerCase(), h.line.slice(h.line.indexOf(':') + 1).trim()])),
             attachments: parsed.attachments.map((a) => a.contentType),
+            kind: headerText(parsed, TAG_HEADERS.kind),
+            clubId: headerText(parsed, TAG_HEADERS.clubId),
           });
           callback();
         })
@@ -160,11 +163,7 @@ export async function startFakeSmtp({
           },
         };
         const timer = setTimeout(() => {
-          waiter.reject(
-            new Error(
-              `Fake SMTP: no message matched within ${timeoutMs} ms (${stored.length} message(s) stored)`,
-            ),
-          );
+          waiter.reject(new Error(`Fake SMTP: no message matched within ${timeoutMs} ms (${stored.length} message(s) stored)`));
         }, timeoutMs);
         function settle(): void {
           clearTimeout(timer);
@@ -191,4 +190,9 @@ function textAsSent(parsed: ParsedMail): string {
   const type = typeof header === 'object' && header !== null && 'value' in header ? header.value : header;
   const singlePart = typeof type === 'string' && type.toLowerCase() === 'text/plain';
   return singlePart ? text.replace(/\r?\n$/, '') : text;
+}
+
+function headerText(parsed: ParsedMail, name: string): string | null {
+  const value = parsed.headers.get(name.toLowerCase());
+  return typeof value === 'string' && value !== '' ? value : null;
 }

@@ -17,6 +17,13 @@ export interface MailerOptions {
   from: string;
 }
 
+/** What a message is about: the local mailbox shows a club only its own mail, never password resets. */
+export interface MailTag {
+  kind: 'invitation' | 'password-reset' | (string & {});
+  /** The club the message is sent for; null for account mail (password resets). */
+  clubId: string | null;
+}
+
 export interface OutgoingMail {
   to: string;
   subject: string;
@@ -24,7 +31,10 @@ export interface OutgoingMail {
   html?: string;
   /** Extra headers, e.g. List-Unsubscribe. */
   headers?: Record<string, string>;
+  tag?: MailTag;
 }
+
+export const TAG_HEADERS = { kind: 'X-Squadline-Kind', clubId: 'X-Squadline-Club' } as const;
 
 export interface Mailer {
   send(msg: OutgoingMail): Promise<{ messageId: string }>;
@@ -45,19 +55,19 @@ const TIMEOUTS = {
 };
 
 export function createMailer({ transport, from }: MailerOptions): Mailer {
-  const transporter = nodemailer.createTransport(
-    typeof transport === 'string' ? { url: transport, ...TIMEOUTS } : { ...transport, ...TIMEOUTS },
-  );
+  const transporter = nodemailer.createTransport(typeof transport === 'string' ? { url: transport, ...TIMEOUTS } : { ...transport, ...TIMEOUTS });
 
   return {
-    async send({ to, subject, text, html, headers }) {
+    async send({ to, subject, text, html, headers, tag }) {
+      const tagHeaders = tag ? { [TAG_HEADERS.kind]: tag.kind, [TAG_HEADERS.clubId]: tag.clubId ?? '' } : {};
+      const all = { ...(headers ?? {}), ...tagHeaders };
       const info = await transporter.sendMail({
         from,
         to,
         subject,
         text,
         ...(html === undefined ? {} : { html }),
-        ...(headers === undefined ? {} : { headers }),
+        ...(Object.keys(all).length === 0 ? {} : { headers: all }),
       });
       return { messageId: info.messageId };
     },

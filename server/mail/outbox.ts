@@ -6,9 +6,20 @@ import type { OutgoingMail } from './mailer';
 export type { OutgoingMail };
 export type MailSender = { send(mail: OutgoingMail): Promise<unknown> };
 
+/**
+ * A message whose body carries a single-use link: only this reference is queued, and the message is
+ * rendered (with a fresh token) at send time by a `RenderMail`, so no token is ever stored.
+ */
+export type MailRef = { template: 'invitation' | 'password-reset' | 'family-summary'; id: string };
+export type QueuedMail = OutgoingMail | MailRef;
+/** Null: nothing to send any more (the link was used or has expired). */
+export type RenderMail = (ref: MailRef) => Promise<OutgoingMail | null>;
+
+export const isMailRef = (mail: QueuedMail): mail is MailRef => 'template' in mail;
+
 /** Where routes hand e-mails over. Sending happens later, with retries, so a failed send is not lost. */
 export interface Outbox {
-  enqueue(mail: OutgoingMail): Promise<void>;
+  enqueue(mail: QueuedMail): Promise<void>;
   stop(): Promise<void>;
 }
 
@@ -21,6 +32,7 @@ export const MAIL_QUEUE = 'mail';
 export async function startQueuedOutbox(options: {
   connectionString: string;
   sender: MailSender;
+  render: RenderMail;
   logger: Logger;
   pollingIntervalSeconds?: number;
   retryDelaySeconds?: number;
@@ -34,21 +46,20 @@ export async function startQueuedOutbox(options: {
     retryDelay: options.retryDelaySeconds ?? 30,
     retryBackoff: true,
   });
-  await boss.work<OutgoingMail>(
-    MAIL_QUEUE,
-    { pollingIntervalSeconds: options.pollingIntervalSeconds ?? 2 },
-    async (jobs) => {
-      for (const job of jobs) {
-        try {
-          await options.sender.send(job.data);
-          options.logger.info({ to: job.data.to, subject: job.data.subject }, 'mail sent');
-        } catch (err) {
-          options.logger.warn({ err, to: job.data.to }, 'mail send failed; will retry');
-          throw err;
-        }
+  await boss.work<QueuedMail>(MAIL_QUEUE, { pollingIntervalSeconds: options.pollingIntervalSeconds ?? 2 }, async (jobs) => {
+    for (const job of jobs) {
+      const mail = isMailRef(job.data) ? await options.render(job.data) : job.data;
+      if (!mail) continue;
+      try {
+        await options.sender.send(mail);
+        // No address or subject in the log: both can name a child or a family.
+        options.logger.info({ job: job.id, kind: mail.tag?.kind ?? 'mail' }, 'mail sent');
+      } catch (err) {
+        options.logger.warn({ err, job: job.id }, 'mail send failed; will retry');
+        throw err;
       }
-    },
-  );
+    }
+  });
   return {
     async enqueue(mail) {
       await boss.send(MAIL_QUEUE, mail);

@@ -107,4 +107,3 @@ export function measuringService({ db }: { db: Db }) {
     },
   };
 }
-

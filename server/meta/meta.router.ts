@@ -1,35 +1,34 @@
-import { sql } from 'drizzle-orm';
 import { Router } from 'express';
 import type { Db } from '@/db/client';
-import { membershipsOf, signedInUserId } from '@/server/access/scope';
-import { forbidden, notFound } from '@/server/http/errors';
+import type { MailboxResponse, MetaResponse } from '@/features/mailbox/contract';
+import { accessGuards, callerClub, publicRoute, scopeOf } from '@/server/access/guard';
+import { metaService, type Mailbox } from './meta.service';
 
-export type Mailbox = { messages(): unknown[] };
+export type { Mailbox };
 
+/**
+ * Health, what the app offers (`/meta`) and the local mailbox. The mailbox route exists only when
+ * `mailbox` is given: the server passes null with a real SMTP server or `NODE_ENV=production`.
+ */
 export function metaRouter(db: Db, mailbox: Mailbox | null) {
   const router = Router();
+  const { guard } = accessGuards(db);
+  const service = metaService(db, mailbox);
 
-  router.get('/health', async (req, res) => {
-    try {
-      await db.execute(sql`select 1`);
-      res.json({ ok: true, db: 'up' });
-    } catch (err) {
-      req.log?.warn({ err }, 'health check: database down');
-      res.status(503).json({ ok: false, db: 'down' });
-    }
+  router.get('/health', publicRoute(), async (req, res) => {
+    const up = await service.databaseUp(req.log);
+    res.status(up ? 200 : 503).json({ ok: up, db: up ? 'up' : 'down' });
   });
 
-  router.get('/meta', (_req, res) => {
-    res.json({ mailbox: mailbox !== null });
+  router.get('/meta', publicRoute(), (_req, res) => {
+    res.json({ mailbox: mailbox !== null } satisfies MetaResponse);
   });
 
-  // The local e-mail fake's inbox, for admins; absent when real SMTP is configured.
-  router.get('/dev/mailbox', async (req, res) => {
-    if (!mailbox) throw notFound('The local mailbox');
-    const mine = await membershipsOf(db, signedInUserId(req));
-    if (!mine.some((m) => m.role === 'admin')) throw forbidden('Only club admins can read the local mailbox.');
-    res.json({ messages: [...mailbox.messages()].reverse() });
-  });
+  if (mailbox) {
+    router.get('/dev/mailbox', guard('mailbox.read', callerClub), (_req, res) => {
+      res.json({ messages: service.clubMail(scopeOf(res)) } satisfies MailboxResponse);
+    });
+  }
 
   return router;
 }

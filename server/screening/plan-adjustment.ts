@@ -10,7 +10,7 @@ import {
   type PlannedExercise,
   type Prescription,
 } from '@/features/screening/engine';
-import { canOverrideLimits } from '@/features/screening/roles';
+import { can } from '@/features/access/permissions';
 import type { Role } from '@/db/schema';
 import { badRequest, forbidden } from '@/server/http/errors';
 import { fieldErrors } from '@/server/http/validate';
@@ -18,7 +18,11 @@ import { fieldErrors } from '@/server/http/validate';
 const LIBRARY = new Map(EXERCISES.map((e) => [e.id, e]));
 
 const range = (min: number, max: number, what: string, integer = true) => {
-  const n = number().typeError(`${what} must be a number.`).required(`${what} is required.`).min(min, `${what} must be at least ${min}.`).max(max, `${what} must be at most ${max}.`);
+  const n = number()
+    .typeError(`${what} must be a number.`)
+    .required(`${what} is required.`)
+    .min(min, `${what} must be at least ${min}.`)
+    .max(max, `${what} must be at most ${max}.`);
   return integer ? n.integer(`${what} must be a whole number.`) : n;
 };
 const minMax = (min: number, max: number, what: string, integer = true) =>
@@ -127,7 +131,7 @@ export function enforceLimits(exercises: PlannedExercise[], input: PlanAdjustmen
     const o = overrides.find((x) => x.exerciseId === b.exerciseId && x.limit === b.limit)!;
     return { exerciseId: b.exerciseId, limit: b.limit, reason: o.reason.trim(), message: b.message, role };
   });
-  if (used.length > 0 && !canOverrideLimits(role)) {
+  if (used.length > 0 && !can(role, 'plan.override')) {
     throw forbidden('Only a head coach or a physiotherapist may go past a youth or growth-spurt limit.');
   }
   return used;

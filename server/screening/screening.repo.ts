@@ -1,17 +1,8 @@
 import { and, asc, desc, eq, isNull, ne, sql, type SQL } from 'drizzle-orm';
 import type { NodePgQueryResultHKT } from 'drizzle-orm/node-postgres';
 import type { PgDatabase } from 'drizzle-orm/pg-core';
-import * as schema from '@/db/schema';
-import {
-  assessmentResults,
-  assessments,
-  athletes,
-  photos,
-  planAdjustments,
-  rounds,
-  squads,
-  users,
-} from '@/db/schema';
+import type * as schema from '@/db/schema';
+import { assessmentResults, assessments, athletes, photos, planAdjustments, rounds, squads, users } from '@/db/schema';
 import type { AssessmentDraft, AssessmentStatus, PlanOverrideView } from '@/features/screening/contract';
 import type { AssessmentInput, AssessmentResult, PlannedExercise } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
@@ -233,7 +224,10 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
     },
 
     async photo(id: string) {
-      const [row] = await db.select().from(photos).where(and(eq(photos.clubId, clubId), eq(photos.id, id)));
+      const [row] = await db
+        .select()
+        .from(photos)
+        .where(and(eq(photos.clubId, clubId), eq(photos.id, id)));
       return row ?? null;
     },
 
@@ -346,13 +340,3 @@ export type ScreeningRepo = ReturnType<typeof screeningRepo>;
 export type AssessmentRow = NonNullable<Awaited<ReturnType<ScreeningRepo['assessment']>>>;
 export type RoundRow = NonNullable<Awaited<ReturnType<ScreeningRepo['round']>>>;
 export type StatusCounts = Record<AssessmentStatus, number>;
-
-/**
- * The club a record belongs to, looked up before the caller's scope is known, so that a record of
- * another club answers 403 and a missing one 404.
- */
-export async function clubOf(db: Executor, kind: 'squad' | 'round' | 'assessment' | 'photo' | 'athlete', id: string): Promise<string | null> {
-  const table = { squad: squads, round: rounds, assessment: assessments, photo: photos, athlete: athletes }[kind];
-  const [row] = await db.select({ clubId: table.clubId }).from(table).where(eq(table.id, id));
-  return row?.clubId ?? null;
-}

@@ -1,127 +1,95 @@
-import { Router, type Request, type RequestHandler } from 'express';
+import { Router } from 'express';
 import multer from 'multer';
-import type { Role } from '@/db/schema';
-import { createRoundSchema, planAdjustmentSchema, saveDraftSchema } from '@/features/screening/contract';
-import { PLAN_ADJUSTERS } from '@/features/screening/roles';
-import { scopeForCallerClub, scopeForClub, STAFF, type ClubScope } from '@/server/access/scope';
-import { badRequest, notFound } from '@/server/http/errors';
+import { createRoundSchema, planAdjustmentSchema, saveDraftSchema, submitSchema, type SaveDraftResponse } from '@/features/screening/contract';
+import { accessGuards, callerClub, on, recordHome, recordIdOf, scopeOf } from '@/server/access/guard';
+import { badRequest, forbidden, notFound } from '@/server/http/errors';
+import { requireUuid } from '@/server/http/ids';
+import { uploadSlots, type UploadSlots } from '@/server/http/upload-slots';
 import { multipart } from '@/server/http/multipart';
 import { validateBody } from '@/server/http/validate';
 import { MAX_UPLOAD_BYTES } from './photo-processing';
-import { clubOf } from './screening.repo';
-import { DraftConflictError, screeningService, type ScreeningDeps } from './screening.service';
+import { screeningService, type ScreeningDeps } from './screening.service';
 
-/** Who may read screening data; parents see none of it (their summaries are a later issue). */
-export const SCREENING_READ: readonly Role[] = STAFF;
-/** Who may open rounds, screen, upload photos, submit and adjust plans. */
-export const SCREENING_WRITE: readonly Role[] = ['admin', 'head_coach', 'tester'];
-/** Who may reopen a closed round: the head coach, who owns the season's screening (our choice). */
-export const ROUND_REOPEN: readonly Role[] = ['head_coach'];
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-const WHAT = { squad: 'The squad', round: 'The round', assessment: 'The assessment', photo: 'The photo', athlete: 'The athlete' } as const;
-
-export function screeningRouter(deps: ScreeningDeps) {
+export function screeningRouter(deps: ScreeningDeps & { uploads?: UploadSlots }) {
   const { db } = deps;
+  const uploads = deps.uploads ?? uploadSlots();
   const service = screeningService(deps);
   const router = Router();
+  const { guard } = accessGuards(db);
   // preservePath: a file name with folders reaches multipart(), which refuses it instead of busboy quietly trimming it.
   const upload = multer({ storage: multer.memoryStorage(), preservePath: true, limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 10 } });
 
-  /**
-   * The caller's scope in the club that owns the record: 404 for a malformed or unknown id, 403 when
-   * the record belongs to a club where the caller has no (suitable) role.
-   */
-  async function scopeFor(req: Request, kind: keyof typeof WHAT, id: string, roles: readonly Role[]): Promise<ClubScope> {
-    if (!UUID.test(id)) throw notFound(WHAT[kind]);
-    const clubId = await clubOf(db, kind, id);
-    if (!clubId) throw notFound(WHAT[kind]);
-    return scopeForClub(db, req, clubId, roles);
-  }
-
-  router.get('/rounds', async (req, res) => {
-    const squadId = typeof req.query.squadId === 'string' && req.query.squadId !== '' ? req.query.squadId : undefined;
-    const scope = squadId ? await scopeFor(req, 'squad', squadId, SCREENING_READ) : await scopeForCallerClub(db, req, SCREENING_READ);
+  router.get('/rounds', guard('screening.read', callerClub), async (req, res) => {
+    const scope = scopeOf(res);
+    const squadId = typeof req.query.squadId === 'string' && req.query.squadId !== '' ? requireUuid(req.query.squadId, 'The squad') : undefined;
+    if (squadId) {
+      const home = await recordHome(db, 'squad', squadId);
+      if (!home) throw notFound('The squad');
+      if (home.clubId !== scope.clubId) throw forbidden();
+    }
     res.json(await service.listRounds(scope, squadId));
   });
 
-  router.post('/rounds', validateBody(createRoundSchema), async (req, res) => {
-    const scope = await scopeFor(req, 'squad', req.body.squadId, SCREENING_WRITE);
-    res.status(201).json(await service.createRound(scope, req.body));
+  router.post('/rounds', guard('screening.write', on('squad', 'squadId', 'body')), validateBody(createRoundSchema), async (req, res) => {
+    res.status(201).json(await service.createRound(scopeOf(res), req.body));
   });
 
-  router.get('/rounds/:id', async (req, res) => {
-    const scope = await scopeFor(req, 'round', String(req.params.id), SCREENING_READ);
-    res.json(await service.roundDetail(scope, String(req.params.id)));
+  router.get('/rounds/:id', guard('screening.read', on('round')), async (_req, res) => {
+    res.json(await service.roundDetail(scopeOf(res), recordIdOf(res)));
   });
 
-  router.post('/rounds/:id/close', async (req, res) => {
-    const scope = await scopeFor(req, 'round', String(req.params.id), SCREENING_WRITE);
-    res.json(await service.setRoundClosed(scope, String(req.params.id), true));
+  router.post('/rounds/:id/close', guard('screening.write', on('round')), async (_req, res) => {
+    res.json(await service.setRoundClosed(scopeOf(res), recordIdOf(res), true));
   });
 
-  router.post('/rounds/:id/reopen', async (req, res) => {
-    const scope = await scopeFor(req, 'round', String(req.params.id), ROUND_REOPEN);
-    res.json(await service.setRoundClosed(scope, String(req.params.id), false));
+  router.post('/rounds/:id/reopen', guard('round.reopen', on('round')), async (_req, res) => {
+    res.json(await service.setRoundClosed(scopeOf(res), recordIdOf(res), false));
   });
 
-  router.get('/assessments/:id', async (req, res) => {
-    const scope = await scopeFor(req, 'assessment', String(req.params.id), SCREENING_READ);
-    res.json(await service.assessmentDetail(scope, String(req.params.id)));
+  router.get('/assessments/:id', guard('screening.read', on('assessment')), async (_req, res) => {
+    res.json(await service.assessmentDetail(scopeOf(res), recordIdOf(res)));
   });
 
-  router.put('/assessments/:id', validateBody(saveDraftSchema), async (req, res) => {
-    const scope = await scopeFor(req, 'assessment', String(req.params.id), SCREENING_WRITE);
-    try {
-      res.json(await service.saveDraft(scope, String(req.params.id), req.body));
-    } catch (error) {
-      if (!(error instanceof DraftConflictError)) throw error;
-      // The error middleware only knows { error }; the client also needs the draft it lost against.
-      res.status(409).json({ error: { code: error.code, message: error.message }, current: error.current });
-    }
+  router.put('/assessments/:id', guard('screening.write', on('assessment')), validateBody(saveDraftSchema), async (req, res) => {
+    // A stale draftVersion: 409 `draft_conflict` with the server's draft (DraftConflictCurrent) to merge.
+    res.json((await service.saveDraft(scopeOf(res), recordIdOf(res), req.body)) satisfies SaveDraftResponse);
   });
 
   // Access is checked before multer reads the body, so a refused caller's upload is never buffered.
-  const photoAccess: RequestHandler = async (req, res, next) => {
-    try {
-      res.locals.scope = await scopeFor(req, 'assessment', String(req.params.id), SCREENING_WRITE);
-      next();
-    } catch (error) {
-      req.resume(); // discard the unread upload so the connection stays usable
-      next(error);
-    }
-  };
-  router.post('/assessments/:id/photos', photoAccess, multipart(upload.single('photo')), async (req, res) => {
-    const scope = res.locals.scope as ClubScope;
-    const body = (req.body ?? {}) as Record<string, unknown>;
-    const photo = await service.uploadPhoto(scope, String(req.params.id), { buffer: req.file?.buffer, task: body.task, view: body.view });
-    res.status(201).json(photo);
-  });
+  // Then waits for one of a few upload slots, so 20 phones uploading at once hold a bounded amount of memory.
+  router.post(
+    '/assessments/:id/photos',
+    guard('screening.write', on('assessment')),
+    uploads.middleware,
+    multipart(upload.single('photo')),
+    async (req, res) => {
+      const body = (req.body ?? {}) as Record<string, unknown>;
+      const photo = await service.uploadPhoto(scopeOf(res), recordIdOf(res), { buffer: req.file?.buffer, task: body.task, view: body.view });
+      res.status(201).json(photo);
+    },
+  );
 
-  router.post('/assessments/:id/submit', async (req, res) => {
-    const scope = await scopeFor(req, 'assessment', String(req.params.id), SCREENING_WRITE);
-    res.json(await service.submit(scope, String(req.params.id)));
+  router.post('/assessments/:id/submit', guard('screening.write', on('assessment')), validateBody(submitSchema), async (req, res) => {
+    res.json(await service.submit(scopeOf(res), recordIdOf(res), req.body));
   });
 
   // The physiotherapist may adjust plans too; going past a limit is checked in the service by role
-  // (head coach or physiotherapist, with a reason: PLAN_OVERRIDERS).
-  router.put('/assessments/:id/plan', validateBody(planAdjustmentSchema), async (req, res) => {
-    const scope = await scopeFor(req, 'assessment', String(req.params.id), PLAN_ADJUSTERS);
-    res.json(await service.adjustPlan(scope, String(req.params.id), req.body));
+  // (head coach or physiotherapist, with a reason: 'plan.override').
+  router.put('/assessments/:id/plan', guard('plan.adjust', on('assessment')), validateBody(planAdjustmentSchema), async (req, res) => {
+    res.json(await service.adjustPlan(scopeOf(res), recordIdOf(res), req.body));
   });
 
-  router.get('/photos/:id', async (req, res) => {
-    const scope = await scopeFor(req, 'photo', String(req.params.id), SCREENING_READ);
+  router.get('/photos/:id', guard('screening.read', on('photo')), async (req, res) => {
     const size = req.query.size ?? 'full';
     if (size !== 'full' && size !== 'thumb') throw badRequest('Some fields need attention.', { size: 'Size must be "full" or "thumb".' });
-    const bytes = await service.photoBytes(scope, String(req.params.id), size);
-    res.set({ 'Content-Type': 'image/jpeg', 'Cache-Control': 'private, max-age=300', 'X-Content-Type-Options': 'nosniff' });
+    const bytes = await service.photoBytes(scopeOf(res), recordIdOf(res), size);
+    // Photos of minors: never kept by a browser or proxy cache (consent can be withdrawn any time).
+    res.set({ 'Content-Type': 'image/jpeg', 'Cache-Control': 'no-store', 'X-Content-Type-Options': 'nosniff' });
     res.send(bytes);
   });
 
-  router.get('/athletes/:id/assessments', async (req, res) => {
-    const scope = await scopeFor(req, 'athlete', String(req.params.id), SCREENING_READ);
-    res.json(await service.athleteAssessments(scope, String(req.params.id)));
+  router.get('/athletes/:id/assessments', guard('screening.read', on('athlete')), async (_req, res) => {
+    res.json(await service.athleteAssessments(scopeOf(res), recordIdOf(res)));
   });
 
   return router;

@@ -4,9 +4,9 @@ import type { Photo } from '@/db/schema';
 import { decimalAge } from '@/features/athletes/age';
 import type {
   AssessmentDetail,
-  AssessmentDraft,
   AssessmentStatus,
   AthleteAssessmentItem,
+  DraftConflictCurrent,
   CreateRoundInput,
   PhotoView,
   PlanAdjustmentInput,
@@ -30,7 +30,7 @@ import {
   type View,
 } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
-import { AppError, badRequest, conflict, notFound } from '@/server/http/errors';
+import { AppError, badRequest, conflict, notFound, staleVersion } from '@/server/http/errors';
 import type { PhotoStorage } from '@/server/storage/storage';
 import { validateDraft } from './draft-validation';
 import { processPhoto } from './photo-processing';
@@ -48,11 +48,13 @@ export type ScreeningDeps = {
 
 /** 409 on a stale draftVersion, carrying the server's draft so the client can merge and retry. */
 export class DraftConflictError extends AppError {
-  constructor(readonly current: { draft: AssessmentDraft; draftVersion: number; status: AssessmentStatus }) {
+  constructor(current: DraftConflictCurrent) {
     super(
       409,
       'draft_conflict',
       'This assessment was changed on another device since you opened it. Your changes were not saved: review the latest version and save again.',
+      undefined,
+      current,
     );
   }
 }
@@ -144,7 +146,7 @@ export async function submitAssessment(
   db: Executor,
   scope: ClubScope,
   assessmentId: string,
-  options: { evaluate?: Evaluate; at?: Date } = {},
+  options: { evaluate?: Evaluate; at?: Date; draftVersion?: number } = {},
 ): Promise<ResultView> {
   const evaluate = options.evaluate ?? evaluateAssessment;
   const at = options.at ?? new Date();
@@ -153,6 +155,10 @@ export async function submitAssessment(
     if (!(await repo.lockAssessment(assessmentId))) throw notFound('The assessment');
     // Read after taking the lock: this is the draft that gets evaluated.
     const a = (await repo.assessment(assessmentId))!;
+    // The tester reviewed `draftVersion`: a newer save from another phone must be seen before submitting.
+    if (options.draftVersion !== undefined && a.draftVersion !== options.draftVersion) {
+      throw new DraftConflictError({ draft: a.draft, draftVersion: a.draftVersion, status: a.status });
+    }
     // Submitted, and no draft saved since (a save sets it back to in progress): this is the same submit
     // again, a retry after a lost answer or a double tap. It returns the result already made, with the
     // same engine, instead of adding a second version of the same draft.
@@ -161,7 +167,9 @@ export async function submitAssessment(
       if (current && current.engineVersion === ENGINE_VERSION) return;
     }
     if (!hasTaskData(a.draft)) {
-      throw badRequest('There is nothing to submit yet: record at least one task (skipped tasks do not count).', { 'draft.tasks': 'Record at least one task.' });
+      throw badRequest('There is nothing to submit yet: record at least one task (skipped tasks do not count).', {
+        'draft.tasks': 'Record at least one task.',
+      });
     }
     let ageYears: number;
     try {
@@ -205,7 +213,10 @@ export function screeningService(deps: ScreeningDeps) {
     },
 
     async createRound(scope: ClubScope, input: CreateRoundInput): Promise<RoundDetail> {
-      if (Number.isNaN(Date.parse(`${input.screenedOn}T00:00:00Z`)) || new Date(`${input.screenedOn}T00:00:00Z`).toISOString().slice(0, 10) !== input.screenedOn) {
+      if (
+        Number.isNaN(Date.parse(`${input.screenedOn}T00:00:00Z`)) ||
+        new Date(`${input.screenedOn}T00:00:00Z`).toISOString().slice(0, 10) !== input.screenedOn
+      ) {
         throw badRequest('Some fields need attention.', { screenedOn: `${input.screenedOn} is not a calendar date.` });
       }
       const id = await db.transaction(async (tx) => {
@@ -294,7 +305,10 @@ export function screeningService(deps: ScreeningDeps) {
         const row = await db.transaction(async (tx) => {
           const r = repoFor(scope, tx);
           if (!(await r.lockAssessment(assessmentId))) throw notFound('The assessment');
-          return r.addPhoto({ id, assessmentId, taskId: task!, view: view!, storageKey, thumbKey, width: processed.width, height: processed.height }, new Date());
+          return r.addPhoto(
+            { id, assessmentId, taskId: task!, view: view!, storageKey, thumbKey, width: processed.width, height: processed.height },
+            new Date(),
+          );
         });
         return photoView(row);
       } catch (error) {
@@ -317,9 +331,9 @@ export function screeningService(deps: ScreeningDeps) {
       return stored.data;
     },
 
-    async submit(scope: ClubScope, id: string): Promise<ResultView> {
+    async submit(scope: ClubScope, id: string, input: { draftVersion?: number } = {}): Promise<ResultView> {
       if (await repoFor(scope).roundClosedAtOf(id)) throw roundClosed();
-      return submitAssessment(db, scope, id, { evaluate: deps.evaluate });
+      return submitAssessment(db, scope, id, { evaluate: deps.evaluate, draftVersion: input.draftVersion });
     },
 
     /** Closing ends the session's screening; reopening (head coach, checked by the router) allows it again. */
@@ -336,6 +350,15 @@ export function screeningService(deps: ScreeningDeps) {
         if (!(await repo.lockAssessment(id))) throw notFound('The assessment');
         const current = await repo.currentResult(id);
         if (!current) throw conflict('This assessment has no result yet: submit it before adjusting the plan.');
+        const [latest] = await repo.adjustments(current.id);
+        const seen = input.basedOn;
+        if (current.version !== seen.resultVersion || (latest?.createdAt.toISOString() ?? null) !== seen.adjustedAt) {
+          throw staleVersion(
+            'plan_conflict',
+            'This plan was changed (or the screen re-submitted) since you opened it. Your edit was not saved: look at the current plan and edit again.',
+            await resultView(repo, id),
+          );
+        }
         // The limits the engine applied to this result, from what it stored (older results: rebuilt).
         const ctx = loadingContextOf(current.result, current.input.oneRepMaxKg, current.input.options?.loadIncrementKg);
         const overrides = enforceLimits(exercises, input, ctx, scope.role);
@@ -354,10 +377,7 @@ export function screeningService(deps: ScreeningDeps) {
           screenedOn: r.screenedOn,
           status: r.status,
           submittedAt: r.submittedAt ? iso(r.submittedAt) : null,
-          result:
-            r.resultId && r.result
-              ? { id: r.resultId, version: r.resultVersion!, engineVersion: r.engineVersion!, flags: r.result.flags }
-              : null,
+          result: r.resultId && r.result ? { id: r.resultId, version: r.resultVersion!, engineVersion: r.engineVersion!, flags: r.result.flags } : null,
         })),
       };
     },

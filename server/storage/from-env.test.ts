@@ -36,10 +36,7 @@ describe('createStorageFromEnv', () => {
     [{ STORAGE_DRIVER: 's3' }, 'STORAGE_DRIVER=s3 needs S3_BUCKET, S3_REGION to be set'],
     [{ STORAGE_DRIVER: 's3', S3_BUCKET: 'photos' }, 'STORAGE_DRIVER=s3 needs S3_REGION to be set'],
     [{ STORAGE_DRIVER: 's3', S3_BUCKET: ' ', S3_REGION: 'eu-west-2' }, 'STORAGE_DRIVER=s3 needs S3_BUCKET to be set'],
-    [
-      { STORAGE_DRIVER: 's3', S3_BUCKET: 'photos', S3_REGION: 'eu-west-2', S3_ACCESS_KEY_ID: 'id' },
-      'STORAGE_DRIVER=s3 needs S3_SECRET_ACCESS_KEY to be set',
-    ],
+    [{ STORAGE_DRIVER: 's3', S3_BUCKET: 'photos', S3_REGION: 'eu-west-2', S3_ACCESS_KEY_ID: 'id' }, 'STORAGE_DRIVER=s3 needs S3_SECRET_ACCESS_KEY to be set'],
     [
       { STORAGE_DRIVER: 's3', S3_BUCKET: 'photos', S3_REGION: 'eu-west-2', S3_SECRET_ACCESS_KEY: 'secret' },
       'STORAGE_DRIVER=s3 needs S3_ACCESS_KEY_ID to be set',

@@ -17,10 +17,7 @@ type Env = Readonly<Record<string, string | undefined>>;
  * Misconfiguration throws at startup, naming the variables to fix, rather
  * than on the first photo upload.
  */
-export function createStorageFromEnv(
-  env: Env = process.env,
-  defaults: { localDir: string },
-): PhotoStorage {
+export function createStorageFromEnv(env: Env = process.env, defaults: { localDir: string }): PhotoStorage {
   const driver = read(env, 'STORAGE_DRIVER') ?? 'local';
 
   if (driver === 'local') {

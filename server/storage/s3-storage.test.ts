@@ -79,8 +79,6 @@ describe('createS3Storage against a fake S3 server', () => {
   });
 
   it('refuses half a key pair', () => {
-    expect(() => createS3Storage({ bucket: BUCKET, region: 'eu-west-2', accessKeyId: 'only-id' })).toThrow(
-      /both accessKeyId and secretAccessKey/,
-    );
+    expect(() => createS3Storage({ bucket: BUCKET, region: 'eu-west-2', accessKeyId: 'only-id' })).toThrow(/both accessKeyId and secretAccessKey/);
   });
 });

@@ -1,11 +1,4 @@
-import {
-  DeleteObjectCommand,
-  GetObjectCommand,
-  NoSuchKey,
-  PutObjectCommand,
-  S3Client,
-  type S3ClientConfig,
-} from '@aws-sdk/client-s3';
+import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand, S3Client, type S3ClientConfig } from '@aws-sdk/client-s3';
 
 import { assertValidKey, DEFAULT_CONTENT_TYPE, type PhotoStorage } from './storage';
 
@@ -46,9 +39,7 @@ export function createS3Storage(options: S3StorageOptions): PhotoStorage {
 
     async put(key, data, contentType) {
       assertValidKey(key);
-      await client.send(
-        new PutObjectCommand({ Bucket: bucket, Key: key, Body: data, ContentType: contentType }),
-      );
+      await client.send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: data, ContentType: contentType }));
     },
 
     async get(key) {

@@ -6,10 +6,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 
-type Segment =
-  | { kind: 'static'; value: string }
-  | { kind: 'dynamic' }
-  | { kind: 'catch-all'; optional: boolean };
+type Segment = { kind: 'static'; value: string } | { kind: 'dynamic' } | { kind: 'catch-all'; optional: boolean };
 
 export type PageRoute = {
   /** The HTML file, relative to the export folder, with forward slashes. */
@@ -95,7 +92,10 @@ export function buildPageTable(files: string[]): PageTable {
 export function matchPage(table: PageTable, urlPath: string): PageMatch | null {
   let parts: string[];
   try {
-    parts = urlPath.split('/').filter(Boolean).map((p) => decodeURIComponent(p));
+    parts = urlPath
+      .split('/')
+      .filter(Boolean)
+      .map((p) => decodeURIComponent(p));
   } catch {
     parts = urlPath.split('/').filter(Boolean);
   }

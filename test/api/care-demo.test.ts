@@ -1,7 +1,7 @@
 import { spawnSync } from 'node:child_process';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '@/db/seed/demo-accounts';
+import { DEMO_PASSWORD } from '@/server/dev/seed/demo-accounts';
 import { makeTestApp, signedInAgent } from '../fixtures/builders';
 import { createTestDb, type TestDb } from '../fixtures/test-db';
 
@@ -11,8 +11,12 @@ let app: ReturnType<typeof makeTestApp>['app'];
 beforeAll(async () => {
   testDb = await createTestDb();
   const root = path.resolve(__dirname, '..', '..');
-  const run = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['db/cli.ts', 'reset'], { cwd: root, env: { ...process.env, DATABASE_URL: testDb.url }, encoding: 'utf8' });
-  if (run.status !== 0) throw new Error(`db/cli.ts reset failed: ${run.stderr}`);
+  const run = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['server/dev/db-cli.ts', 'reset'], {
+    cwd: root,
+    env: { ...process.env, DATABASE_URL: testDb.url },
+    encoding: 'utf8',
+  });
+  if (run.status !== 0) throw new Error(`server/dev/db-cli.ts reset failed: ${run.stderr}`);
   ({ app } = makeTestApp(testDb.db));
 }, 90_000);
 

@@ -7,6 +7,7 @@ import { sql } from 'drizzle-orm';
 import { startFakeSmtp, type FakeSmtp } from '@/server/mail/fake-smtp';
 import { createMailer, type Mailer } from '@/server/mail/mailer';
 import { startQueuedOutbox, type Outbox } from '@/server/mail/outbox';
+import { mailRenderer } from '@/server/mail/render';
 import { makeAthlete, makeClub, makeSquad, makeTestApp, makeUser, signedInAgent } from '../fixtures/builders';
 import { makeSubmittedScreen, recordEmailConsent } from '../fixtures/care';
 import { createTestDb, type TestDb } from '../fixtures/test-db';
@@ -24,7 +25,14 @@ beforeAll(async () => {
   testDb = await createTestDb();
   smtp = await startFakeSmtp();
   mailer = createMailer({ transport: { host: smtp.host, port: smtp.port, secure: false }, from: 'Squadline <no-reply@squadline.test>' });
-  outbox = await startQueuedOutbox({ connectionString: testDb.url, sender: mailer, logger: pino({ level: 'silent' }), pollingIntervalSeconds: 0.5, retryDelaySeconds: 1 });
+  outbox = await startQueuedOutbox({
+    connectionString: testDb.url,
+    sender: mailer,
+    render: mailRenderer(testDb.db, 'http://squadline.test'),
+    logger: pino({ level: 'silent' }),
+    pollingIntervalSeconds: 0.5,
+    retryDelaySeconds: 1,
+  });
   ({ app } = makeTestApp(testDb.db, { outbox }));
   const db = testDb.db;
   const club = await makeClub(db, 'Riverside');
@@ -70,7 +78,12 @@ describe('the family summary e-mail', () => {
     await smtp.waitFor((m) => m.to.includes('dad@riverside.test'), 15_000);
     // Give any stray message for Lou's family time to arrive before counting.
     await new Promise((r) => setTimeout(r, 1500));
-    expect(smtp.messages().flatMap((m) => m.to).sort()).toEqual(['dad@riverside.test', 'mum@riverside.test']);
+    expect(
+      smtp
+        .messages()
+        .flatMap((m) => m.to)
+        .sort(),
+    ).toEqual(['dad@riverside.test', 'mum@riverside.test']);
 
     expect(toMum.subject).toBe("Kit's movement screen at Riverside");
     expect(toMum.text).toMatch(/Hello Mo Ames/);
@@ -101,7 +114,10 @@ describe('the family summary e-mail', () => {
       .from(consents)
       .where(and(eq(consents.athleteId, ids.kit!), eq(consents.kind, 'email_summaries'), eq(consents.granted, false)));
     expect(withdrawn?.recordedBy).toBe(ids.mum);
-    const audit = await testDb.db.select().from(auditEvents).where(and(eq(auditEvents.subjectKind, 'consent'), eq(auditEvents.action, 'withdraw')));
+    const audit = await testDb.db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.subjectKind, 'consent'), eq(auditEvents.action, 'withdraw')));
     expect(audit).toHaveLength(1);
 
     // The next release for Kit e-mails nobody: the family's choice is recorded for the child.
@@ -111,7 +127,7 @@ describe('the family summary e-mail', () => {
     expect(again.body.release.recipients).toBe(0);
   });
 
-  it('is delivered exactly once through the queue\'s retry when the SMTP server was down', async () => {
+  it("is delivered exactly once through the queue's retry when the SMTP server was down", async () => {
     await recordEmailConsent(testDb.db, ids.kit!, true);
     const port = smtp.port;
     await smtp.close();
@@ -123,7 +139,12 @@ describe('the family summary e-mail', () => {
     await smtp.waitFor((m) => m.to.includes('mum@riverside.test'), 30_000);
     await smtp.waitFor((m) => m.to.includes('dad@riverside.test'), 30_000);
     await new Promise((r) => setTimeout(r, 3000));
-    expect(smtp.messages().map((m) => m.to[0]).sort()).toEqual(['dad@riverside.test', 'mum@riverside.test']);
+    expect(
+      smtp
+        .messages()
+        .map((m) => m.to[0])
+        .sort(),
+    ).toEqual(['dad@riverside.test', 'mum@riverside.test']);
     // They came through a retry: the queue counted failed attempts for both jobs.
     const jobs = await testDb.db.execute(sql`select retry_count from pgboss.job where name = 'mail' order by created_on desc limit 2`);
     expect(jobs.rows.map((r) => Number((r as { retry_count: number }).retry_count) > 0)).toEqual([true, true]);

@@ -18,7 +18,17 @@ const start = new Date();
 async function addPhoto(clubId: string, assessmentId: string, takenAt: Date) {
   const [row] = await testDb.db
     .insert(photos)
-    .values({ clubId, assessmentId, taskId: 'two-leg-squat', view: 'front', storageKey: `${clubId}/${assessmentId}/${takenAt.getTime()}.jpg`, thumbKey: `${clubId}/${assessmentId}/${takenAt.getTime()}-thumb.jpg`, width: 900, height: 1600, createdAt: takenAt })
+    .values({
+      clubId,
+      assessmentId,
+      taskId: 'two-leg-squat',
+      view: 'front',
+      storageKey: `${clubId}/${assessmentId}/${takenAt.getTime()}.jpg`,
+      thumbKey: `${clubId}/${assessmentId}/${takenAt.getTime()}-thumb.jpg`,
+      width: 900,
+      height: 1600,
+      createdAt: takenAt,
+    })
     .returning();
   await storage.put(row!.storageKey, Buffer.from('jpeg'), 'image/jpeg');
   await storage.put(row!.thumbKey, Buffer.from('jpeg'), 'image/jpeg');
@@ -89,7 +99,15 @@ describe('photo retention', () => {
     expect(storage.objects.size).toBe(6);
     expect(await counts()).toEqual(before);
     const audit = await testDb.db.select().from(auditEvents).where(eq(auditEvents.action, 'photo.deleted'));
-    expect(audit).toEqual([expect.objectContaining({ subjectId: ids.withdrawnPhoto, athleteId: ids.withdrawnAthlete, clubId: ids.club, actorId: null, detail: expect.objectContaining({ reason: 'consent-withdrawn' }) })]);
+    expect(audit).toEqual([
+      expect.objectContaining({
+        subjectId: ids.withdrawnPhoto,
+        athleteId: ids.withdrawnAthlete,
+        clubId: ids.club,
+        actorId: null,
+        detail: expect.objectContaining({ reason: 'consent-withdrawn' }),
+      }),
+    ]);
   });
 
   it('the scheduled job deletes photos past the 24-month retention in every club, and only those', async () => {

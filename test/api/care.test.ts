@@ -55,7 +55,9 @@ describe('notes', () => {
     expect(team.status).toBe(201);
     expect(team.body.note).toMatchObject({ visibility: 'team', authorName: 'Phil Physio', canEdit: true, athleteId: ids.kit });
     ids.teamNote = team.body.note.id;
-    const family = await as.physio.post(`/api/athletes/${ids.kit}/notes`).send({ text: 'Kit can keep playing; do the ankle exercises at home.', visibility: 'family' });
+    const family = await as.physio
+      .post(`/api/athletes/${ids.kit}/notes`)
+      .send({ text: 'Kit can keep playing; do the ankle exercises at home.', visibility: 'family' });
     expect(family.status).toBe(201);
     ids.familyNote = family.body.note.id;
 
@@ -83,14 +85,20 @@ describe('notes', () => {
     expect((await as.tester.get(`/api/notes/${ids.teamNote}`)).status).toBe(403);
     expect((await as.tester.get(`/api/athletes/${ids.kit}/notes?visibility=team`)).status).toBe(403);
 
-    const settings = await as.admin.put('/api/care-settings').send({ autoReleaseDays: null, photoGraceDays: 30, photoRetentionMonths: 24, familyPhotos: false, testersReadTeamNotes: true });
+    const settings = await as.admin
+      .put('/api/care-settings')
+      .send({ autoReleaseDays: null, photoGraceDays: 30, photoRetentionMonths: 24, familyPhotos: false, testersReadTeamNotes: true });
     expect(settings.status).toBe(200);
     expect((await as.tester.get(`/api/notes/${ids.teamNote}`)).status).toBe(200);
     expect((await as.tester.get(`/api/athletes/${ids.kit}/notes`)).body.notes).toHaveLength(2);
-    await as.admin.put('/api/care-settings').send({ autoReleaseDays: null, photoGraceDays: 30, photoRetentionMonths: 24, familyPhotos: false, testersReadTeamNotes: false });
+    await as.admin
+      .put('/api/care-settings')
+      .send({ autoReleaseDays: null, photoGraceDays: 30, photoRetentionMonths: 24, familyPhotos: false, testersReadTeamNotes: false });
     expect((await as.tester.get(`/api/notes/${ids.teamNote}`)).status).toBe(403);
     // Only admins change club settings.
-    expect((await as.coach.put('/api/care-settings').send({ photoGraceDays: 1, photoRetentionMonths: 1, familyPhotos: true, testersReadTeamNotes: true })).status).toBe(403);
+    expect(
+      (await as.coach.put('/api/care-settings').send({ photoGraceDays: 1, photoRetentionMonths: 1, familyPhotos: true, testersReadTeamNotes: true })).status,
+    ).toBe(403);
   });
 
   it('are corrected only by their author, only within the edit window, then kept as written', async () => {
@@ -101,7 +109,10 @@ describe('notes', () => {
     expect(byAuthor.body.note.text).toBe('Tender below the right kneecap after drop landings.');
 
     // Move the note's creation 16 minutes back: past the 15-minute window.
-    await testDb.db.update(careNotes).set({ createdAt: new Date(Date.now() - 16 * 60 * 1000) }).where(eq(careNotes.id, ids.teamNote!));
+    await testDb.db
+      .update(careNotes)
+      .set({ createdAt: new Date(Date.now() - 16 * 60 * 1000) })
+      .where(eq(careNotes.id, ids.teamNote!));
     const late = await as.physio.patch(`/api/notes/${ids.teamNote}`).send({ text: 'Rewritten later' });
     expect(late.status).toBe(409);
     expect(late.body.error.code).toBe('note_locked');
@@ -113,7 +124,9 @@ describe('notes', () => {
     const bad = await as.physio.post(`/api/athletes/${ids.kit}/notes`).send({ text: '  ', visibility: 'everyone' });
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['text', 'visibility']);
-    const wrongAssessment = await as.physio.post(`/api/athletes/${ids.kit}/notes`).send({ text: 'x', visibility: 'team', assessmentId: '00000000-0000-4000-8000-000000000000' });
+    const wrongAssessment = await as.physio
+      .post(`/api/athletes/${ids.kit}/notes`)
+      .send({ text: 'x', visibility: 'team', assessmentId: '00000000-0000-4000-8000-000000000000' });
     expect(wrongAssessment.status).toBe(400);
     expect(wrongAssessment.body.error.fields.assessmentId).toBeTruthy();
     const count = await testDb.db.select().from(careNotes).where(eq(careNotes.athleteId, ids.kit!));
@@ -233,9 +246,29 @@ describe('automatic release', () => {
     const settings = { autoReleaseDays: 3, photoGraceDays: 30, photoRetentionMonths: 24, familyPhotos: false, testersReadTeamNotes: false };
     expect((await as.admin.put('/api/care-settings').send(settings)).status).toBe(200);
     const fiveDaysAgo = new Date(Date.now() - 5 * 24 * 60 * 60 * 1000);
-    const reviewed = await makeSubmittedScreen(testDb.db, { clubId: ids.club!, squadId: ids.squad!, athleteId: ids.kit!, userId: ids.tester!, at: fiveDaysAgo, screenedOn: '2026-11-20' });
-    const notReviewed = await makeSubmittedScreen(testDb.db, { clubId: ids.club!, squadId: ids.squad!, athleteId: ids.lou!, userId: ids.tester!, at: fiveDaysAgo, screenedOn: '2026-11-20' });
-    const recent = await makeSubmittedScreen(testDb.db, { clubId: ids.club!, squadId: ids.squad!, athleteId: ids.lou!, userId: ids.tester!, screenedOn: '2026-11-27' });
+    const reviewed = await makeSubmittedScreen(testDb.db, {
+      clubId: ids.club!,
+      squadId: ids.squad!,
+      athleteId: ids.kit!,
+      userId: ids.tester!,
+      at: fiveDaysAgo,
+      screenedOn: '2026-11-20',
+    });
+    const notReviewed = await makeSubmittedScreen(testDb.db, {
+      clubId: ids.club!,
+      squadId: ids.squad!,
+      athleteId: ids.lou!,
+      userId: ids.tester!,
+      at: fiveDaysAgo,
+      screenedOn: '2026-11-20',
+    });
+    const recent = await makeSubmittedScreen(testDb.db, {
+      clubId: ids.club!,
+      squadId: ids.squad!,
+      athleteId: ids.lou!,
+      userId: ids.tester!,
+      screenedOn: '2026-11-27',
+    });
     await as.physio.post(`/api/assessments/${reviewed.assessmentId}/review`);
     await as.physio.post(`/api/assessments/${recent.assessmentId}/review`);
     const sentBefore = outbox.sent.length;
@@ -263,21 +296,32 @@ describe('audit trail', () => {
     });
   });
 
-
   it('is readable by admins only, filterable, and exported as CSV', async () => {
     expect((await as.coach.get('/api/audit')).status).toBe(403);
     expect((await as.parentA.get('/api/audit')).status).toBe(403);
     const all = await as.admin.get('/api/audit');
     expect(all.status).toBe(200);
     const actions = new Set(all.body.events.map((e: { subjectKind: string; action: string }) => `${e.subjectKind}:${e.action}`));
-    for (const a of ['note:create', 'note:update', 'note:view', 'clearance:set', 'assessment:review', 'assessment:release', 'email:email.queued', 'athlete:view', 'settings:update']) {
+    for (const a of [
+      'note:create',
+      'note:update',
+      'note:view',
+      'clearance:set',
+      'assessment:review',
+      'assessment:release',
+      'email:email.queued',
+      'athlete:view',
+      'settings:update',
+    ]) {
       expect(actions).toContain(a);
     }
     const clearances = await as.admin.get('/api/audit?subject=clearance');
     expect(clearances.body.events.length).toBeGreaterThan(0);
     expect(clearances.body.events.every((e: { subjectKind: string }) => e.subjectKind === 'clearance')).toBe(true);
     const byPhysio = await as.admin.get(`/api/audit?actorId=${ids.physio}&athleteId=${ids.kit}`);
-    expect(byPhysio.body.events.every((e: { actorName: string; athleteName: string }) => e.actorName === 'Phil Physio' && e.athleteName === 'Kit Ames')).toBe(true);
+    expect(byPhysio.body.events.every((e: { actorName: string; athleteName: string }) => e.actorName === 'Phil Physio' && e.athleteName === 'Kit Ames')).toBe(
+      true,
+    );
     expect((await as.admin.get('/api/audit?subject=planet')).status).toBe(400);
 
     const csv = await as.admin.get('/api/audit?format=csv&subject=email');

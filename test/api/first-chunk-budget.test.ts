@@ -24,6 +24,8 @@ describe('first-chunk budget', () => {
     expect(chunk.html).toBe('sign-in.html');
     expect(chunk.scripts.length).toBeGreaterThan(0);
     const detail = chunk.scripts.map((s) => `${s.src}: ${kb(s.gzip)}`).join('\n');
-    expect(chunk.gzip / 1024, `First chunk ${kb(chunk.gzip)} (gzip -9) is over the README's budget of ${budgetKb} KB:\n${detail}`).toBeLessThanOrEqual(budgetKb);
+    expect(chunk.gzip / 1024, `First chunk ${kb(chunk.gzip)} (gzip -9) is over the README's budget of ${budgetKb} KB:\n${detail}`).toBeLessThanOrEqual(
+      budgetKb,
+    );
   });
 });

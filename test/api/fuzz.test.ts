@@ -7,7 +7,7 @@
 // Seeded: FUZZ_SEED=<n> repeats a run (fast-check prints the seed and the failing input).
 import fc from 'fast-check';
 import { sql } from 'drizzle-orm';
-import supertest from 'supertest';
+import type supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Db } from '@/db/client';
 import type { RoundDetail } from '@/features/screening/contract';
@@ -36,7 +36,16 @@ const ADMIN_EMAIL = 'admin@fuzz.test';
 beforeAll(async () => {
   testDb = await createTestDb();
   // Sign-in limits out of the way: failed sign-ins are part of the fuzz and would otherwise end in 429.
-  ({ app } = makeTestApp(testDb.db, { config: { signInLimits: { windowMs: 60_000, perAccount: 1e6, perAddress: 1e6 } } }));
+  ({ app } = makeTestApp(testDb.db, {
+    config: {
+      authLimits: {
+        signInPerAccount: { windowMs: 60_000, max: 1e6 },
+        signInPerAddress: { windowMs: 60_000, max: 1e6 },
+        resetPerEmail: { windowMs: 60_000, max: 1e6 },
+        linksPerAddress: { windowMs: 60_000, max: 1e6 },
+      },
+    },
+  }));
   const db = testDb.db;
   const club = await makeClub(db, 'Fuzz Club');
   const squad = await makeSquad(db, club.id, 'Under-15');
@@ -108,12 +117,12 @@ function pathFor(route: WriteRoute, override?: { param: string; value: string })
 }
 
 /**
- * Rows of every table but one: `rate_limit_hits` counts failed sign-in attempts, so a refused sign-in
+ * Rows of every table but one: `rate_limits` counts sign-in attempts and link requests, so a refused sign-in
  * writes there by design (that is the rate limit working).
  */
 async function rowCounts(): Promise<Record<string, number>> {
   const tables = await testDb.db.execute<{ name: string }>(
-    sql`select table_name as name from information_schema.tables where table_schema = 'public' and table_type = 'BASE TABLE' and table_name <> 'rate_limit_hits' order by 1`,
+    sql`select table_name as name from information_schema.tables where table_schema = 'public' and table_type = 'BASE TABLE' and table_name <> 'rate_limits' order by 1`,
   );
   const counts: Record<string, number> = {};
   for (const { name } of tables.rows) {
@@ -172,7 +181,10 @@ describe.each(routes.map((r) => [label(r), r] as const))('%s under bad input', (
     await fc.assert(
       fc.asyncProperty(
         fc.constantFrom(...route.params),
-        fc.oneof(fc.constantFrom(...MALFORMED_IDS), fc.string({ unit: 'binary', maxLength: 60 }).filter((s) => s.length > 0)),
+        fc.oneof(
+          fc.constantFrom(...MALFORMED_IDS),
+          fc.string({ unit: 'binary', maxLength: 60 }).filter((s) => s.length > 0),
+        ),
         async (param, value) => {
           const res = await send(route, pathFor(route, { param, value }), validBody(route) ?? {});
           // An id that is not a UUID names nothing: 404 (or 400 where the path cannot even be routed).
@@ -188,7 +200,7 @@ describe.each(routes.map((r) => [label(r), r] as const))('%s under bad input', (
     // Printable header values only: Node refuses to even send control characters.
     const headerValue = fc.oneof(
       fc.constantFrom(...MALFORMED_IDS.filter((v) => /^[\x20-\x7e]+$/.test(v))),
-      fc.string({ unit: fc.constantFrom(...'abcdef0123456789-{}\' ;%.'.split('')), minLength: 1, maxLength: 80 }),
+      fc.string({ unit: fc.constantFrom(..."abcdef0123456789-{}' ;%.".split('')), minLength: 1, maxLength: 80 }),
     );
     // With a body the route refuses or an id it cannot find, so no valid request slips through.
     const path = route.params.length > 0 && !route.bodySchema ? pathFor(route, { param: route.params[0]!, value: 'not-a-uuid' }) : pathFor(route);
@@ -239,7 +251,9 @@ describe.each(routes.map((r) => [label(r), r] as const))('%s under bad input', (
           const keys = Object.keys((res.body.error?.fields ?? {}) as object);
           const dotted = path.join('.');
           expect(
-            keys.some((k) => k === dotted || k.startsWith(`${dotted}.`) || k.startsWith(`${dotted}[`) || dotted.startsWith(`${k}.`) || (path.length === 1 && k === '_')),
+            keys.some(
+              (k) => k === dotted || k.startsWith(`${dotted}.`) || k.startsWith(`${dotted}[`) || dotted.startsWith(`${k}.`) || (path.length === 1 && k === '_'),
+            ),
             `${what}: fields ${keys.join(', ')}`,
           ).toBe(true);
         }

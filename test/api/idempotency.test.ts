@@ -109,10 +109,17 @@ describe('Idempotency-Key', () => {
 
   it('replays a photo upload: one photo stored, the same id returned', async () => {
     const id = assessment(3);
-    const jpeg = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#8ab' } }).jpeg().toBuffer();
+    const jpeg = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#8ab' } })
+      .jpeg()
+      .toBuffer();
     const key = randomUUID();
     const send = () =>
-      tester.post(`/api/assessments/${id}/photos`).set('Idempotency-Key', key).field('task', 'two-leg-squat').field('view', 'front').attach('photo', jpeg, 'squat.jpg');
+      tester
+        .post(`/api/assessments/${id}/photos`)
+        .set('Idempotency-Key', key)
+        .field('task', 'two-leg-squat')
+        .field('view', 'front')
+        .attach('photo', jpeg, 'squat.jpg');
     const first = await send();
     const files = storage.objects.size;
     const retry = await send();

@@ -25,7 +25,9 @@ let inProgressPhoto: PhotoView;
 const FRONT = valgusSquat().landmarks!.front!;
 
 async function jpeg(width: number, height: number) {
-  return sharp({ create: { width, height, channels: 3, background: '#7a8c99' } }).jpeg().toBuffer();
+  return sharp({ create: { width, height, channels: 3, background: '#7a8c99' } })
+    .jpeg()
+    .toBuffer();
 }
 
 async function upload(agent: Agent, assessmentId: string, task: string, view: string): Promise<PhotoView> {
@@ -152,7 +154,14 @@ describe('PUT /api/measuring/photos/:id/landmarks', () => {
   });
 
   it('saves the points of an assessment still in progress without submitting it', async () => {
-    const landing = { 'right-hip': { x: 400, y: 700 }, 'right-knee': { x: 420, y: 900 }, 'right-ankle': { x: 410, y: 1120 }, 'left-hip': { x: 560, y: 700 }, 'left-knee': { x: 555, y: 900 }, 'left-ankle': { x: 560, y: 1120 } };
+    const landing = {
+      'right-hip': { x: 400, y: 700 },
+      'right-knee': { x: 420, y: 900 },
+      'right-ankle': { x: 410, y: 1120 },
+      'left-hip': { x: 560, y: 700 },
+      'left-knee': { x: 555, y: 900 },
+      'left-ankle': { x: 560, y: 1120 },
+    };
     const res = await tester.put(`/api/measuring/photos/${inProgressPhoto.id}/landmarks`).send({ landmarks: landing });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ status: 'in_progress', resultVersion: null });
@@ -183,7 +192,9 @@ describe('PUT /api/measuring/photos/:id/landmarks', () => {
     });
     expect(refused.status).toBe(400);
     expect(Object.keys(refused.body.error.fields)).toEqual(['draft.tasks.drop-landing.landmarks.front']);
-    await saveDraft(tester, inProgressId, { 'drop-landing': { ...task, landmarks: { front: { ...landing, 'left-knee': { x: 555, y: 900, source: 'suggested' } } } } });
+    await saveDraft(tester, inProgressId, {
+      'drop-landing': { ...task, landmarks: { front: { ...landing, 'left-knee': { x: 555, y: 900, source: 'suggested' } } } },
+    });
     detail = (await tester.get(`/api/assessments/${inProgressId}`)).body as AssessmentDetail;
     expect(detail.draft.tasks['drop-landing']!.landmarks!.front!['left-knee']).toEqual({ x: 555, y: 900, source: 'suggested' });
     expect(detail.draft.tasks['drop-landing']!.landmarks!.front!['right-knee']).toEqual({ x: 425, y: 905, source: 'moved' });

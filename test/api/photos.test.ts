@@ -40,7 +40,13 @@ afterAll(async () => {
   await testDb.drop();
 });
 
-function upload(agent: Agent, assessmentId: string, file: Buffer, fields: { task?: string; view?: string } = { task: 'two-leg-squat', view: 'front' }, filename = 'photo.jpg') {
+function upload(
+  agent: Agent,
+  assessmentId: string,
+  file: Buffer,
+  fields: { task?: string; view?: string } = { task: 'two-leg-squat', view: 'front' },
+  filename = 'photo.jpg',
+) {
   let req = agent.post(`/api/assessments/${assessmentId}/photos`);
   if (fields.task) req = req.field('task', fields.task);
   if (fields.view) req = req.field('view', fields.view);
@@ -63,13 +69,15 @@ describe('photo upload limits', () => {
   });
 
   it('refuses an image type we do not take (GIF) even when named .jpg', async () => {
-    const gif = await sharp({ create: { width: 10, height: 10, channels: 3, background: '#000' } }).gif().toBuffer();
+    const gif = await sharp({ create: { width: 10, height: 10, channels: 3, background: '#000' } })
+      .gif()
+      .toBuffer();
     const res = await upload(tester, withConsent, gif);
     expect(res.status).toBe(415);
     expect(res.body.error.message).toMatch(/GIF/);
   });
 
-  it("refuses a photo when the family has not agreed, saying so", async () => {
+  it('refuses a photo when the family has not agreed, saying so', async () => {
     const before = storage.objects.size;
     const res = await upload(tester, withoutConsent, await phonePhotoWithExif());
     expect(res.status).toBe(403);
@@ -160,7 +168,7 @@ describe('stored photos', () => {
     const full = await tester.get(view.url).buffer(true);
     expect(full.status).toBe(200);
     expect(full.headers['content-type']).toBe('image/jpeg');
-    expect(full.headers['cache-control']).toBe('private, max-age=300');
+    expect(full.headers['cache-control']).toBe('no-store');
     expect((await sharp(full.body as Buffer).metadata()).width).toBe(1600);
     const thumb = await tester.get(view.thumbUrl).buffer(true);
     expect((await sharp(thumb.body as Buffer).metadata()).width).toBe(320);
@@ -200,7 +208,9 @@ describe('stored photos', () => {
     const shown = before.photos[0]!;
     const athleteId = before.athlete.id;
 
-    await testDb.db.insert(consents).values({ athleteId, kind: 'photos', granted: false, decidedOn: '2026-11-30', createdAt: new Date('2030-01-01T00:00:00Z') });
+    await testDb.db
+      .insert(consents)
+      .values({ athleteId, kind: 'photos', granted: false, decidedOn: '2026-11-30', createdAt: new Date('2030-01-01T00:00:00Z') });
     const hidden = await tester.get(shown.url);
     expect(hidden.status).toBe(403);
     expect(hidden.body.error.code).toBe('no_photo_consent');

@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessmentResults, assessments, rounds } from '@/db/schema';
 import { addDays } from '@/features/progress/trends';
-import { evaluateAssessment, type AssessmentInput, type TaskId } from '@/features/screening/engine';
+import { evaluateAssessment, type AssessmentInput } from '@/features/screening/engine';
 import { makeAthlete, makeClub, makeSquad, makeTestApp, makeUser, signedInAgent } from '../fixtures/builders';
 import { createTestDb, type TestDb } from '../fixtures/test-db';
 
@@ -48,10 +48,7 @@ function screen(dx: number, ktwLeft: number, ktwRight: number, on: string): Asse
 
 async function seedScreen(roundId: string, athleteId: string, input: AssessmentInput, older?: AssessmentInput) {
   const db = testDb.db;
-  const [a] = await db
-    .insert(assessments)
-    .values({ clubId: ids.club!, roundId, athleteId, status: 'submitted', submittedAt: new Date() })
-    .returning();
+  const [a] = await db.insert(assessments).values({ clubId: ids.club!, roundId, athleteId, status: 'submitted', submittedAt: new Date() }).returning();
   const versions = older ? [older, input] : [input];
   for (const [i, v] of versions.entries()) {
     const result = evaluateAssessment(v);
@@ -85,7 +82,9 @@ beforeAll(async () => {
   await makeUser(db, { email: 'coach@farside.test', clubId: other.id, role: 'head_coach' });
   // Born 12 years and a bit before today: under-13.
   const dob = addDays(today, -(12 * 365 + 100));
-  ids.ana = (await makeAthlete(db, { clubId: club.id, squadId: ids.squad, firstName: 'Ana', lastName: 'Abbott', dateOfBirth: dob, guardianUserId: parent.id })).id;
+  ids.ana = (
+    await makeAthlete(db, { clubId: club.id, squadId: ids.squad, firstName: 'Ana', lastName: 'Abbott', dateOfBirth: dob, guardianUserId: parent.id })
+  ).id;
   ids.bea = (await makeAthlete(db, { clubId: club.id, squadId: ids.squad, firstName: 'Bea', lastName: 'Brook', dateOfBirth: dob })).id;
   ids.cai = (await makeAthlete(db, { clubId: club.id, squadId: ids.squad, firstName: 'Cai', lastName: 'Cole', dateOfBirth: dob })).id;
   ids.lone = (await makeAthlete(db, { clubId: club.id, squadId: null, firstName: 'Lone', lastName: 'Single', dateOfBirth: dob })).id;

@@ -147,9 +147,7 @@ describe('athletes: create, edit, move, archive', () => {
   it('names every missing field', async () => {
     const res = await as.admin.post('/api/athletes').send({});
     expect(res.status).toBe(400);
-    expect(Object.keys(res.body.error.fields).sort()).toEqual(
-      ['dateOfBirth', 'firstName', 'lastName', 'racketHand', 'sex', 'squadId', 'takeOffLeg'].sort(),
-    );
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(['dateOfBirth', 'firstName', 'lastName', 'racketHand', 'sex', 'squadId', 'takeOffLeg'].sort());
   });
 
   it('refuses a squad of another club', async () => {
@@ -227,7 +225,14 @@ describe('athletes: create, edit, move, archive', () => {
     expect((await as.otherAdmin.patch(`/api/athletes/${ids.child}`).send({ firstName: 'Stolen' })).status).toBe(403);
     expect((await as.otherAdmin.post(`/api/athletes/${ids.child}/archive`)).status).toBe(403);
     expect((await as.otherAdmin.get(`/api/athletes/${ids.child}/consents`)).status).toBe(403);
-    expect((await as.otherAdmin.post('/api/athletes').set('X-Club-Id', ids.club!).send(newAthlete({ firstName: 'Stray' }))).status).toBe(403);
+    expect(
+      (
+        await as.otherAdmin
+          .post('/api/athletes')
+          .set('X-Club-Id', ids.club!)
+          .send(newAthlete({ firstName: 'Stray' }))
+      ).status,
+    ).toBe(403);
   });
 
   it('answers 404 for an unknown athlete', async () => {
@@ -345,7 +350,10 @@ describe('CSV roster import', () => {
 
   it('refuses to commit a file with errors and writes nothing', async () => {
     const before = await athleteCount(ids.club!);
-    const csv = makeRosterCsv([{ first_name: 'Cleo', last_name: 'Fenn' }, { first_name: 'Dev', last_name: 'Fenn', date_of_birth: bornYearsAgo(3) }]);
+    const csv = makeRosterCsv([
+      { first_name: 'Cleo', last_name: 'Fenn' },
+      { first_name: 'Dev', last_name: 'Fenn', date_of_birth: bornYearsAgo(3) },
+    ]);
     const res = await upload(as.admin, csv, true);
     expect(res.status).toBe(400);
     expect(res.body.error).toMatchObject({ code: 'import_has_errors', message: '1 line needs attention; nothing was imported.' });
@@ -358,8 +366,27 @@ describe('CSV roster import', () => {
     const before = await athleteCount(ids.club!);
     const csv = makeRosterCsv(
       [
-        { first_name: 'Elin', last_name: 'Grove', sex: 'female', racket_hand: 'right', take_off_leg: 'left', squad: 'under-13', photo_consent: 'Y', email_summaries_consent: 'true', guardian_email: 'Second.Parent@riverside.test' },
-        { first_name: 'Finn', last_name: 'Grove', sex: 'M', racket_hand: 'L', take_off_leg: 'R', squad: 'Under-15', photo_consent: 'no', email_summaries_consent: 'n' },
+        {
+          first_name: 'Elin',
+          last_name: 'Grove',
+          sex: 'female',
+          racket_hand: 'right',
+          take_off_leg: 'left',
+          squad: 'under-13',
+          photo_consent: 'Y',
+          email_summaries_consent: 'true',
+          guardian_email: 'Second.Parent@riverside.test',
+        },
+        {
+          first_name: 'Finn',
+          last_name: 'Grove',
+          sex: 'M',
+          racket_hand: 'L',
+          take_off_leg: 'R',
+          squad: 'Under-15',
+          photo_consent: 'no',
+          email_summaries_consent: 'n',
+        },
       ],
       ROSTER_HEADER_LINE.toUpperCase().replace('SQUAD', ' Squad '),
     );
@@ -372,7 +399,13 @@ describe('CSV roster import', () => {
     const elin = list.body.athletes.find((a: { firstName: string }) => a.firstName === 'Elin');
     const finn = list.body.athletes.find((a: { firstName: string }) => a.firstName === 'Finn');
     expect(elin).toMatchObject({ squadName: 'Under-13', sex: 'female', consents: { photos: { granted: true }, emailSummaries: { granted: true } } });
-    expect(finn).toMatchObject({ squadName: 'Under-15', sex: 'male', racketHand: 'left', takeOffLeg: 'right', consents: { photos: { granted: false }, emailSummaries: { granted: false } } });
+    expect(finn).toMatchObject({
+      squadName: 'Under-15',
+      sex: 'male',
+      racketHand: 'left',
+      takeOffLeg: 'right',
+      consents: { photos: { granted: false }, emailSummaries: { granted: false } },
+    });
     const second = await signedInAgent(app, 'second.parent@riverside.test');
     expect((await second.get(`/api/athletes/${elin.id}`)).status).toBe(200);
     const history = await as.coach.get(`/api/athletes/${elin.id}/consents`);
@@ -419,9 +452,15 @@ describe('CSV roster import', () => {
     expect(elins[0]).toMatchObject({ lastName: 'Grove', squadName: 'Under-15', racketHand: 'left', consents: { emailSummaries: { granted: false } } });
     const history = await as.coach.get(`/api/athletes/${elins[0].id}/consents`);
     // The earlier decision stays in the history; the new one is in force.
-    expect(history.body.consents.filter((c: { kind: string }) => c.kind === 'email_summaries').map((c: { granted: boolean }) => c.granted)).toEqual([false, true]);
+    expect(history.body.consents.filter((c: { kind: string }) => c.kind === 'email_summaries').map((c: { granted: boolean }) => c.granted)).toEqual([
+      false,
+      true,
+    ]);
     // Importing the same file again changes nothing more and records no new decision.
-    const again = await upload(as.coach, makeRosterCsv([{ first_name: 'Elin', last_name: 'Grove', email_summaries_consent: 'no', squad: 'Under-15', racket_hand: 'L' }]));
+    const again = await upload(
+      as.coach,
+      makeRosterCsv([{ first_name: 'Elin', last_name: 'Grove', email_summaries_consent: 'no', squad: 'Under-15', racket_hand: 'L' }]),
+    );
     expect(again.body.rows[0]).toMatchObject({ action: 'update', changes: [] });
   });
 

@@ -82,7 +82,13 @@ describe('closing and reopening a round', () => {
       .post(`/api/assessments/${other}/photos`)
       .field('task', 'two-leg-squat')
       .field('view', 'front')
-      .attach('photo', await sharp({ create: { width: 40, height: 40, channels: 3, background: '#888' } }).jpeg().toBuffer(), 'p.jpg');
+      .attach(
+        'photo',
+        await sharp({ create: { width: 40, height: 40, channels: 3, background: '#888' } })
+          .jpeg()
+          .toBuffer(),
+        'p.jpg',
+      );
     expect(photo.status).toBe(409);
     expect((await tester.post(`/api/assessments/${screened}/submit`)).status).toBe(409);
 

@@ -3,26 +3,26 @@ import path from 'node:path';
 import { and, asc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessmentResults, assessments, athletes, clubs, rounds, squads } from '@/db/schema';
-import { DEMO_CLUB_NAME, DEMO_PASSWORD } from '@/db/seed/demo-accounts';
-import { DEMO_OPEN_ROUND } from '@/db/seed/demo-screening';
+import { DEMO_CLUB_NAME, DEMO_PASSWORD } from '@/server/dev/seed/demo-accounts';
+import { DEMO_OPEN_ROUND } from '@/server/dev/seed/demo-screening';
 import type { AthleteAssessmentItem, RoundDetail, RoundSummary } from '@/features/screening/contract';
 import { makeTestApp, signedInAgent } from '../fixtures/builders';
 import { createTestDb, type TestDb } from '../fixtures/test-db';
 
-// The demo is loaded the way `npm run db:reset` loads it: `tsx db/cli.ts reset` in its own process
+// The demo is loaded the way `npm run db:reset` loads it: `tsx server/dev/db-cli.ts reset` in its own process
 // (CommonJS under tsx), against a throw-away database.
 let testDb: TestDb;
 
 beforeAll(async () => {
   testDb = await createTestDb();
   const root = path.resolve(__dirname, '..', '..');
-  const run = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['db/cli.ts', 'reset'], {
+  const run = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['server/dev/db-cli.ts', 'reset'], {
     cwd: root,
     env: { ...process.env, DATABASE_URL: testDb.url },
     encoding: 'utf8',
   });
   // How long this takes is printed by the bootstrap, not asserted: speed is measured by benchmarks.
-  if (run.status !== 0) throw new Error(`db/cli.ts reset failed: ${run.stderr}`);
+  if (run.status !== 0) throw new Error(`server/dev/db-cli.ts reset failed: ${run.stderr}`);
 }, 60_000);
 
 afterAll(async () => {
@@ -76,7 +76,11 @@ describe('demo screening data', () => {
   it('shows patterns that clear and patterns that persist across the season', async () => {
     const { app } = makeTestApp(testDb.db);
     const coach = await signedInAgent(app, 'coach@squadline.test', DEMO_PASSWORD);
-    const roster = await testDb.db.select({ id: athletes.id, firstName: athletes.firstName }).from(athletes).innerJoin(squads, eq(squads.id, athletes.squadId)).where(eq(squads.name, 'Under-13 mixed'));
+    const roster = await testDb.db
+      .select({ id: athletes.id, firstName: athletes.firstName })
+      .from(athletes)
+      .innerJoin(squads, eq(squads.id, athletes.squadId))
+      .where(eq(squads.name, 'Under-13 mixed'));
     const valgusByRound = new Map<string, boolean[]>();
     const patternsSeen = new Set<string>();
     for (const a of roster) {
@@ -84,7 +88,10 @@ describe('demo screening data', () => {
       expect(res.status).toBe(200);
       const done = (res.body.assessments as AthleteAssessmentItem[]).filter((x) => x.result).reverse(); // oldest first
       for (const item of done) for (const f of item.result!.flags) patternsSeen.add(f.pattern);
-      valgusByRound.set(a.firstName, done.map((x) => x.result!.flags.some((f) => f.pattern === 'dynamic-knee-valgus')));
+      valgusByRound.set(
+        a.firstName,
+        done.map((x) => x.result!.flags.some((f) => f.pattern === 'dynamic-knee-valgus')),
+      );
     }
     const histories = [...valgusByRound.values()].filter((h) => h.length === 3);
     expect(histories).toContainEqual([true, true, false]); // improved by the autumn

@@ -51,6 +51,11 @@ async function openRound(name = 'Pre-season', screenedOn = '2026-09-14'): Promis
 
 const assessmentOf = (round: RoundDetail, athleteId: string) => round.athletes.find((a) => a.athleteId === athleteId)!.assessmentId;
 
+/** The draft version the server holds now: what a tester who just looked at it names in a submit. */
+async function versionOf(id: string): Promise<number> {
+  return ((await tester.get(`/api/assessments/${id}`)).body as AssessmentDetail).draftVersion;
+}
+
 async function saveDraft(id: string, draftVersion: number, draft = makeDraft()) {
   const res = await tester.put(`/api/assessments/${id}`).send({ draftVersion, draft });
   expect(res.status).toBe(200);
@@ -61,7 +66,13 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
   it('keeps every version and shows the newest', async () => {
     // Open the round: one not-started assessment per athlete on the roster, by last name.
     const round = await openRound();
-    expect(round.round).toMatchObject({ squadId: ids.squad, squadName: 'Under-13', name: 'Pre-season', screenedOn: '2026-09-14', counts: { not_started: 3, in_progress: 0, submitted: 0 } });
+    expect(round.round).toMatchObject({
+      squadId: ids.squad,
+      squadName: 'Under-13',
+      name: 'Pre-season',
+      screenedOn: '2026-09-14',
+      counts: { not_started: 3, in_progress: 0, submitted: 0 },
+    });
     expect(round.athletes.map((a) => a.lastName)).toEqual(['Adams', 'Brook', 'Clark']);
     expect(round.athletes.map((a) => [a.status, a.photoConsent, a.flagCount])).toEqual([
       ['not_started', false, null],
@@ -72,7 +83,14 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
 
     const fresh = await tester.get(`/api/assessments/${id}`);
     expect(fresh.status).toBe(200);
-    expect(fresh.body).toMatchObject({ status: 'not_started', draftVersion: 0, draft: { body: {}, tasks: {} }, photos: [], result: null, athlete: { id: ids.ava, firstName: 'Ava', photoConsent: true } });
+    expect(fresh.body).toMatchObject({
+      status: 'not_started',
+      draftVersion: 0,
+      draft: { body: {}, tasks: {} },
+      photos: [],
+      result: null,
+      athlete: { id: ids.ava, firstName: 'Ava', photoConsent: true },
+    });
 
     // Draft: body first, then the squat with its photo and landmarks.
     expect(await saveDraft(id, 0, { body: { statureCm: 152 }, tasks: {}, step: 'body' })).toEqual({ draftVersion: 1, status: 'in_progress' });
@@ -86,7 +104,7 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     expect(await saveDraft(id, 1)).toEqual({ draftVersion: 2, status: 'in_progress' });
 
     // Submit: the engine runs on the saved draft.
-    const submitted = await tester.post(`/api/assessments/${id}/submit`);
+    const submitted = await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) });
     expect(submitted.status).toBe(200);
     const first = submitted.body as ResultView;
     expect(first).toMatchObject({ version: 1, engineVersion: expect.any(String), createdByName: 'Tess Tester', adjustment: null, history: [] });
@@ -109,13 +127,15 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     expect(afterSubmit.athletes.find((a) => a.athleteId === ids.ava)!.flagCount).toBe(first.result.flags.length);
 
     // An edit re-opens it; the result stays until it is submitted again.
-    const cleaner = makeDraft({ tasks: { 'two-leg-squat': valgusSquat({ criteria: [], landmarks: undefined }), 'knee-to-wall-left': { criteria: [], distanceCm: 11 } } });
+    const cleaner = makeDraft({
+      tasks: { 'two-leg-squat': valgusSquat({ criteria: [], landmarks: undefined }), 'knee-to-wall-left': { criteria: [], distanceCm: 11 } },
+    });
     expect(await saveDraft(id, 2, cleaner)).toEqual({ draftVersion: 3, status: 'in_progress' });
     const reopened = (await tester.get(`/api/assessments/${id}`)).body as AssessmentDetail;
     expect(reopened.status).toBe('in_progress');
     expect(reopened.result?.version).toBe(1);
 
-    const again = await tester.post(`/api/assessments/${id}/submit`);
+    const again = await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) });
     expect(again.status).toBe(200);
     expect(again.body).toMatchObject({ version: 2, history: [{ id: first.id, version: 1 }] });
     expect((again.body as ResultView).result.flags.some((f) => f.pattern === 'dynamic-knee-valgus')).toBe(false);
@@ -136,7 +156,7 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     const round = await openRound('Plan check', '2026-09-20');
     const id = assessmentOf(round, ids.mia);
     await saveDraft(id, 0);
-    const result = (await tester.post(`/api/assessments/${id}/submit`)).body as ResultView;
+    const result = (await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) })).body as ResultView;
     const [keep] = result.result.plan.exercises;
     const extra = EXERCISES.find((e) => !result.result.plan.exercises.some((p) => p.id === e.id))!;
     // An exercise added from the library takes the limits the engine applied to this athlete.
@@ -145,7 +165,9 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
       { ...keep!, prescription: { ...keep!.prescription, sets: { min: 3, max: 3 } } },
       { id: extra.id, prescription: added.prescription },
     ];
-    const res = await tester.put(`/api/assessments/${id}/plan`).send({ exercises, note: 'Only two this block' });
+    const res = await tester
+      .put(`/api/assessments/${id}/plan`)
+      .send({ exercises, note: 'Only two this block', basedOn: { resultVersion: result.version, adjustedAt: null } });
     expect(res.status).toBe(200);
     const view = res.body as ResultView;
     expect(view.adjustment).toMatchObject({ note: 'Only two this block', createdByName: 'Tess Tester' });
@@ -157,10 +179,12 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     expect(view.adjustment!.exercises[1]!.name).toBe(extra.name);
     expect(view.result.plan).toEqual(result.result.plan);
 
-    const bad = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: [{ id: 'made-up', prescription: {} }] });
+    const bad = await tester
+      .put(`/api/assessments/${id}/plan`)
+      .send({ exercises: [{ id: 'made-up', prescription: {} }], basedOn: { resultVersion: 1, adjustedAt: view.adjustment!.createdAt } });
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['exercises[0].id']));
-    const none = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: [] });
+    const none = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: [], basedOn: { resultVersion: 1, adjustedAt: view.adjustment!.createdAt } });
     expect(none.status).toBe(400);
   });
 
@@ -168,27 +192,28 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     const round = await openRound('Limits check', '2026-09-22');
     const id = assessmentOf(round, ids.ava);
     await saveDraft(id, 0);
-    const result = (await tester.post(`/api/assessments/${id}/submit`)).body as ResultView;
+    const result = (await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) })).body as ResultView;
+    const basedOn = { resultVersion: result.version, adjustedAt: null };
     // Every plan carries the stop-on-pain rule.
     expect(result.result.plan.cautions[0]?.id).toBe('stop-on-pain');
     const body = result.result.plan.exercises.find((e) => e.prescription.load.kind !== 'percent-1rm')!;
     // Four sets is past the youth limit of 3 sets (Faigenbaum et al. 2009) at every stage for a bodyweight or band exercise.
     const fourSets = [{ ...body, prescription: { ...body.prescription, sets: { min: 4, max: 4 } } }];
 
-    const refused = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: fourSets });
+    const refused = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: fourSets, basedOn });
     expect(refused.status).toBe(400);
     expect(refused.body.error.fields['exercises[0].prescription.sets']).toMatch(/more than the 3 allowed.*head coach or physiotherapist/);
 
     const override = { exerciseId: body.id, limit: 'sets', reason: 'Physio asked for extra sets this block' };
-    const notAllowed = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: fourSets, overrides: [override] });
+    const notAllowed = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: fourSets, overrides: [override], basedOn });
     expect(notAllowed.status).toBe(403);
 
     const noReason = await signedInAgent(app, 'coach@riverside.test');
-    const blank = await noReason.put(`/api/assessments/${id}/plan`).send({ exercises: fourSets, overrides: [{ ...override, reason: ' ' }] });
+    const blank = await noReason.put(`/api/assessments/${id}/plan`).send({ exercises: fourSets, overrides: [{ ...override, reason: ' ' }], basedOn });
     expect(blank.status).toBe(400);
 
     const coach = noReason;
-    const kept = await coach.put(`/api/assessments/${id}/plan`).send({ exercises: fourSets, overrides: [override], note: 'Extra sets' });
+    const kept = await coach.put(`/api/assessments/${id}/plan`).send({ exercises: fourSets, overrides: [override], note: 'Extra sets', basedOn });
     expect(kept.status).toBe(200);
     const view = kept.body as ResultView;
     expect(view.adjustment!.overrides).toEqual([
@@ -197,7 +222,9 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
 
     // The physiotherapist may adjust plans, and go back within the limits; the history keeps both.
     const physio = await signedInAgent(app, 'physio@riverside.test');
-    const back = await physio.put(`/api/assessments/${id}/plan`).send({ exercises: [body], note: 'Back to the proposal' });
+    const back = await physio
+      .put(`/api/assessments/${id}/plan`)
+      .send({ exercises: [body], note: 'Back to the proposal', basedOn: { resultVersion: result.version, adjustedAt: view.adjustment!.createdAt } });
     expect(back.status).toBe(200);
     const latest = back.body as ResultView;
     expect(latest.adjustment!.overrides).toEqual([]);
@@ -207,9 +234,48 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     expect(latest.result.plan).toEqual(result.result.plan);
   });
 
+  it('refuses a plan edit against a plan changed since it was opened (409 with the current plan)', async () => {
+    const round = await openRound('Two editors', '2026-09-23');
+    const id = assessmentOf(round, ids.mia);
+    await saveDraft(id, 0);
+    const result = (await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: 1 })).body as ResultView;
+    const [first] = result.result.plan.exercises;
+    const seen = { resultVersion: result.version, adjustedAt: null };
+    const edit = (note: string, basedOn: { resultVersion: number; adjustedAt: string | null }) =>
+      tester.put(`/api/assessments/${id}/plan`).send({ exercises: [{ id: first!.id, prescription: first!.prescription }], note, basedOn });
+    const a = await edit('First phone', seen);
+    expect(a.status).toBe(200);
+    // The second phone still shows the engine's plan: its edit would silently replace the first.
+    const b = await edit('Second phone', seen);
+    expect(b.status).toBe(409);
+    expect(b.body.error.code).toBe('plan_conflict');
+    expect((b.body.current as ResultView).adjustment).toMatchObject({ note: 'First phone' });
+    // Having seen the current plan, it may edit it.
+    const c = await edit('Second phone, after looking', { resultVersion: 1, adjustedAt: (a.body as ResultView).adjustment!.createdAt });
+    expect(c.status).toBe(200);
+    // A re-submission makes a new result version: an edit of the old one is stale too.
+    await saveDraft(id, 1);
+    await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: 2 });
+    expect((await edit('Old result', { resultVersion: 1, adjustedAt: (c.body as ResultView).adjustment!.createdAt })).status).toBe(409);
+  });
+
+  it('refuses to submit a draft other than the one reviewed (409 with the current draft)', async () => {
+    const round = await openRound('Two phones', '2026-09-24');
+    const id = assessmentOf(round, ids.mia);
+    await saveDraft(id, 0);
+    await saveDraft(id, 1, makeDraft({ step: 'review' })); // another phone saved after this one looked
+    const stale = await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: 1 });
+    expect(stale.status).toBe(409);
+    expect(stale.body).toMatchObject({ error: { code: 'draft_conflict' }, current: { draftVersion: 2, status: 'in_progress' } });
+    expect((await tester.get(`/api/assessments/${id}`)).body.result).toBeNull();
+    expect((await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: 2 })).status).toBe(200);
+  });
+
   it('refuses a plan adjustment before there is a result', async () => {
     const round = await openRound('No result yet', '2026-09-21');
-    const res = await tester.put(`/api/assessments/${assessmentOf(round, ids.mia)}/plan`).send({ exercises: [{ id: EXERCISES[0]!.id, prescription: EXERCISES[0]!.prescription }] });
+    const res = await tester
+      .put(`/api/assessments/${assessmentOf(round, ids.mia)}/plan`)
+      .send({ exercises: [{ id: EXERCISES[0]!.id, prescription: EXERCISES[0]!.prescription }], basedOn: { resultVersion: 1, adjustedAt: null } });
     expect(res.status).toBe(409);
   });
 
@@ -240,11 +306,23 @@ describe('draft saving', () => {
   it.each([
     ['an unknown task', { tasks: { 'back-squat': { criteria: [] } } }, 'draft.tasks.back-squat'],
     ['a criterion of another task', { tasks: { 'two-leg-squat': { criteria: ['sls-balance'] } } }, 'draft.tasks.two-leg-squat.criteria'],
-    ['a photo view the task lacks', { tasks: { 'drop-landing': { criteria: [], landmarks: { side: { 'near-hip': { x: 1, y: 1 } } } } } }, 'draft.tasks.drop-landing.landmarks.side'],
-    ['a landmark of the other view', { tasks: { 'two-leg-squat': { criteria: [], landmarks: { front: { 'near-hip': { x: 1, y: 1 } } } } } }, 'draft.tasks.two-leg-squat.landmarks.front.near-hip'],
+    [
+      'a photo view the task lacks',
+      { tasks: { 'drop-landing': { criteria: [], landmarks: { side: { 'near-hip': { x: 1, y: 1 } } } } } },
+      'draft.tasks.drop-landing.landmarks.side',
+    ],
+    [
+      'a landmark of the other view',
+      { tasks: { 'two-leg-squat': { criteria: [], landmarks: { front: { 'near-hip': { x: 1, y: 1 } } } } } },
+      'draft.tasks.two-leg-squat.landmarks.front.near-hip',
+    ],
     ['a distance on a task without one', { tasks: { 'two-leg-squat': { criteria: [], distanceCm: 5 } } }, 'draft.tasks.two-leg-squat.distanceCm'],
     ['a distance out of range', { tasks: { 'knee-to-wall-left': { criteria: [], distanceCm: 80 } } }, 'draft.tasks.knee-to-wall-left.distanceCm'],
-    ['a negative point', { tasks: { 'two-leg-squat': { criteria: [], landmarks: { front: { 'left-hip': { x: -4, y: 1 } } } } } }, 'draft.tasks.two-leg-squat.landmarks.front'],
+    [
+      'a negative point',
+      { tasks: { 'two-leg-squat': { criteria: [], landmarks: { front: { 'left-hip': { x: -4, y: 1 } } } } } },
+      'draft.tasks.two-leg-squat.landmarks.front',
+    ],
     ['a height typed in metres', { body: { statureCm: 1.52 }, tasks: {} }, 'draft.body.statureCm'],
   ])('answers 400 with the field for %s', async (_name, draft, field) => {
     const round = await openRound(`Bad ${_name}`, '2026-09-16');
@@ -263,7 +341,7 @@ describe('submitting', () => {
     const round = await openRound('Empty', '2026-09-17');
     const id = assessmentOf(round, ids.mia);
     await saveDraft(id, 0, { body: { statureCm: 150 }, tasks: { 'drop-landing': { criteria: [], skipped: true } } });
-    const res = await tester.post(`/api/assessments/${id}/submit`);
+    const res = await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) });
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/nothing to submit/i);
   });
@@ -274,7 +352,7 @@ describe('submitting', () => {
     const mirrored = valgusSquat();
     mirrored.landmarks!.front!['right-hip'] = { x: 700, y: 700 }; // right hip placed on the image's right
     await saveDraft(id, 0, makeDraft({ tasks: { 'two-leg-squat': mirrored } }));
-    const res = await tester.post(`/api/assessments/${id}/submit`);
+    const res = await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) });
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/image's left/);
     expect(res.body.error.fields).toHaveProperty(['draft.tasks.two-leg-squat.landmarks.front.right-hip']);
@@ -291,7 +369,7 @@ describe('a submission that fails halfway leaves no partial result', () => {
     const round = await openRound('Atomic', '2026-09-18');
     id = assessmentOf(round, ids.mia);
     await saveDraft(id, 0);
-    firstResultId = ((await tester.post(`/api/assessments/${id}/submit`)).body as ResultView).id;
+    firstResultId = ((await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) })).body as ResultView).id;
     await saveDraft(id, 1, makeDraft({ step: 'edited' })); // back to in progress, result 1 still current
     cookie = await sessionCookie(app, 'tester@riverside.test');
   });
@@ -309,7 +387,10 @@ describe('a submission that fails halfway leaves no partial result', () => {
       const result = evaluateAssessment(input);
       return { ...result, plan: { ...result.plan, cautions: [...result.plan.cautions, { id: 'x', text: 'nul \u0000 byte', source: null }] } };
     };
-    const res = await supertest(screeningAppWith(testDb.db, storage, poisoned)).post(`/api/assessments/${id}/submit`).set('Cookie', cookie);
+    const res = await supertest(screeningAppWith(testDb.db, storage, poisoned))
+      .post(`/api/assessments/${id}/submit`)
+      .set('Cookie', cookie)
+      .send({ draftVersion: await versionOf(id) });
     expect(res.status).toBe(500);
     expect(res.body.error.code).toBe('server_error');
     await expectUnchanged();
@@ -319,7 +400,10 @@ describe('a submission that fails halfway leaves no partial result', () => {
     const broken = () => {
       throw new Error('engine bug');
     };
-    const res = await supertest(screeningAppWith(testDb.db, storage, broken)).post(`/api/assessments/${id}/submit`).set('Cookie', cookie);
+    const res = await supertest(screeningAppWith(testDb.db, storage, broken))
+      .post(`/api/assessments/${id}/submit`)
+      .set('Cookie', cookie)
+      .send({ draftVersion: await versionOf(id) });
     expect(res.status).toBe(500);
     await expectUnchanged();
   });
@@ -328,14 +412,20 @@ describe('a submission that fails halfway leaves no partial result', () => {
     const refusing = () => {
       throw new EngineInputError('athlete.statureCm', 'must be between 80 and 230 cm, got 5');
     };
-    const res = await supertest(screeningAppWith(testDb.db, storage, refusing)).post(`/api/assessments/${id}/submit`).set('Cookie', cookie);
+    const res = await supertest(screeningAppWith(testDb.db, storage, refusing))
+      .post(`/api/assessments/${id}/submit`)
+      .set('Cookie', cookie)
+      .send({ draftVersion: await versionOf(id) });
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toEqual({ 'draft.body.statureCm': 'must be between 80 and 230 cm, got 5' });
     await expectUnchanged();
   });
 
   it('and the real engine then submits fine', async () => {
-    const res = await supertest(screeningAppWith(testDb.db, storage, evaluateAssessment)).post(`/api/assessments/${id}/submit`).set('Cookie', cookie);
+    const res = await supertest(screeningAppWith(testDb.db, storage, evaluateAssessment))
+      .post(`/api/assessments/${id}/submit`)
+      .set('Cookie', cookie)
+      .send({ draftVersion: await versionOf(id) });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ version: 2, history: [{ id: firstResultId }] });
   });
@@ -349,7 +439,7 @@ describe('who may do what', () => {
     round = await openRound('Access', '2026-09-19');
     id = assessmentOf(round, ids.ava);
     await saveDraft(id, 0);
-    expect((await tester.post(`/api/assessments/${id}/submit`)).status).toBe(200);
+    expect((await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) })).status).toBe(200);
   });
 
   const reads = () => [
@@ -361,8 +451,12 @@ describe('who may do what', () => {
   const writes = () => [
     ['POST', '/api/rounds', { squadId: ids.squad, name: 'Sneaky', screenedOn: '2026-09-30' }],
     ['PUT', `/api/assessments/${id}`, { draftVersion: 1, draft: makeDraft() }],
-    ['POST', `/api/assessments/${id}/submit`],
-    ['PUT', `/api/assessments/${id}/plan`, { exercises: [{ id: EXERCISES[0]!.id, prescription: EXERCISES[0]!.prescription }] }],
+    ['POST', `/api/assessments/${id}/submit`, { draftVersion: 1 }],
+    [
+      'PUT',
+      `/api/assessments/${id}/plan`,
+      { exercises: [{ id: EXERCISES[0]!.id, prescription: EXERCISES[0]!.prescription }], basedOn: { resultVersion: 1, adjustedAt: null } },
+    ],
   ];
 
   async function call(agent: Agent, [method, url, body]: (string | object | undefined)[]) {
@@ -405,7 +499,14 @@ describe('who may do what', () => {
 
   it('answers 404 for a missing or malformed id', async () => {
     const missing = '00000000-0000-4000-8000-000000000000';
-    for (const url of [`/api/rounds/${missing}`, '/api/rounds/nope', `/api/assessments/${missing}`, '/api/assessments/1', `/api/athletes/${missing}/assessments`, `/api/rounds?squadId=${missing}`]) {
+    for (const url of [
+      `/api/rounds/${missing}`,
+      '/api/rounds/nope',
+      `/api/assessments/${missing}`,
+      '/api/assessments/1',
+      `/api/athletes/${missing}/assessments`,
+      `/api/rounds?squadId=${missing}`,
+    ]) {
       expect([url, (await tester.get(url)).status]).toEqual([url, 404]);
     }
     expect((await tester.post(`/api/assessments/${missing}/submit`)).status).toBe(404);

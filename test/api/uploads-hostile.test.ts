@@ -48,12 +48,21 @@ async function photoRows(): Promise<number> {
 describe('hostile uploads', () => {
   let goodJpeg: Buffer;
   beforeAll(async () => {
-    goodJpeg = await sharp(await pngWithAlpha(800, 600)).jpeg().toBuffer();
+    goodJpeg = await sharp(await pngWithAlpha(800, 600))
+      .jpeg()
+      .toBuffer();
   });
 
   it.each([
     ['a text file renamed .jpg', () => NOT_AN_IMAGE, 'photo.jpg', 415, 'unsupported_type', /not a photo we can read/],
-    ['a JPEG cut off after a third of its bytes', () => goodJpeg.subarray(0, Math.floor(goodJpeg.length / 3)), 'photo.jpg', 400, 'unreadable_photo', /damaged or cut short/],
+    [
+      'a JPEG cut off after a third of its bytes',
+      () => goodJpeg.subarray(0, Math.floor(goodJpeg.length / 3)),
+      'photo.jpg',
+      400,
+      'unreadable_photo',
+      /damaged or cut short/,
+    ],
     ['a JPEG cut off inside its header', () => goodJpeg.subarray(0, 40), 'photo.jpg', 415, 'unsupported_type', /not a photo we can read/],
     ['a zero-byte file', () => Buffer.alloc(0), 'photo.jpg', 400, 'invalid_input', /need attention/],
     ['a file over 12 MB', () => TOO_LARGE, 'photo.jpg', 413, 'too_large', /too large/],
@@ -77,7 +86,9 @@ describe('hostile uploads', () => {
     const files = storage.objects.size;
     const head = (name: string, extra = '') => `--B\r\nContent-Disposition: form-data; name="${name}"${extra}\r\n`;
     const body = Buffer.concat([
-      Buffer.from(`${head('task')}\r\ntwo-leg-squat\r\n${head('view')}\r\nfront\r\n${head('photo', '; filename="../../etc/photo.jpg"')}Content-Type: image/jpeg\r\n\r\n`),
+      Buffer.from(
+        `${head('task')}\r\ntwo-leg-squat\r\n${head('view')}\r\nfront\r\n${head('photo', '; filename="../../etc/photo.jpg"')}Content-Type: image/jpeg\r\n\r\n`,
+      ),
       goodJpeg,
       Buffer.from('\r\n--B--\r\n'),
     ]);
@@ -109,7 +120,9 @@ describe('hostile uploads', () => {
     const cut = await tester
       .post(`/api/assessments/${assessmentId}/photos`)
       .set('Content-Type', 'multipart/form-data; boundary=B')
-      .send('--B\r\nContent-Disposition: form-data; name="task"\r\n\r\ntwo-leg-squat\r\n--B\r\nContent-Disposition: form-data; name="photo"; filename="p.jpg"\r\n\r\n\xff\xd8\xff');
+      .send(
+        '--B\r\nContent-Disposition: form-data; name="task"\r\n\r\ntwo-leg-squat\r\n--B\r\nContent-Disposition: form-data; name="photo"; filename="p.jpg"\r\n\r\n\xff\xd8\xff',
+      );
     expect(cut.status).toBe(400);
     const garbageHeaders = await tester
       .post(`/api/assessments/${assessmentId}/photos`)

@@ -156,7 +156,10 @@ describe('serving the pose model for suggested points', () => {
   it('lets WebAssembly compile but allows no script eval and no other origin', async () => {
     const { app } = makeTestApp(testDb.db);
     const csp = (await supertest(app).get(`${POSE_MODEL_BASE}/pose.js`)).headers['content-security-policy'] as string;
-    const scriptSrc = csp.split(';').find((d) => d.trim().startsWith('script-src '))!.trim();
+    const scriptSrc = csp
+      .split(';')
+      .find((d) => d.trim().startsWith('script-src '))!
+      .trim();
     expect(scriptSrc).toBe("script-src 'self' 'wasm-unsafe-eval'");
     expect(csp).not.toContain("'unsafe-eval'");
   });

@@ -71,8 +71,13 @@ async function seed(db: ReturnType<typeof connect>['db']) {
   for (const squad of squadRows) {
     const squadRounds = roundRows.filter((r) => r.squadId === squad.id);
     const members = athleteRows.filter((a) => a.squadId === squad.id);
-    const aValues = squadRounds.flatMap((r) => members.map((a) => ({ clubId, roundId: r.id, athleteId: a.id, status: 'submitted' as const, submittedAt: new Date(`${r.screenedOn}T17:00:00Z`) })));
-    const created = await db.insert(assessments).values(aValues).returning({ id: assessments.id, athleteId: assessments.athleteId, roundId: assessments.roundId });
+    const aValues = squadRounds.flatMap((r) =>
+      members.map((a) => ({ clubId, roundId: r.id, athleteId: a.id, status: 'submitted' as const, submittedAt: new Date(`${r.screenedOn}T17:00:00Z`) })),
+    );
+    const created = await db
+      .insert(assessments)
+      .values(aValues)
+      .returning({ id: assessments.id, athleteId: assessments.athleteId, roundId: assessments.roundId });
     const results = created.map((a) => {
       const on = squadRounds.find((r) => r.id === a.roundId)!.screenedOn;
       const input = randomAssessment(rand);

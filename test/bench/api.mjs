@@ -9,8 +9,19 @@ import autocannon from 'autocannon';
 import readline from 'node:readline';
 import fs from 'node:fs';
 import {
-  clusterLayout, databaseUrl, ensureDatabase, ensureNodeModules, ensurePostgres, freePort, initCluster, log,
-  makeClusterRoot, newPassword, startCluster, stopCluster, tsx,
+  clusterLayout,
+  databaseUrl,
+  ensureDatabase,
+  ensureNodeModules,
+  ensurePostgres,
+  freePort,
+  initCluster,
+  log,
+  makeClusterRoot,
+  newPassword,
+  startCluster,
+  stopCluster,
+  tsx,
 } from '../../server/dev/bootstrap.mjs';
 
 const arg = (name, fallback) => {

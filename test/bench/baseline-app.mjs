@@ -15,15 +15,12 @@ const FILES = {
     "const path = require('node:path');",
     "const { getDefaultConfig } = require('expo/metro-config');",
     'const config = getDefaultConfig(__dirname);',
-    "const modules = path.resolve(__dirname, process.env.BASELINE_NODE_MODULES);",
+    'const modules = path.resolve(__dirname, process.env.BASELINE_NODE_MODULES);',
     'config.watchFolders = [modules];',
     'config.resolver.nodeModulesPaths = [modules];',
     'module.exports = config;',
   ].join('\n'),
-  'app/_layout.js': [
-    "import { Slot } from 'expo-router';",
-    'export default function Layout() { return <Slot />; }',
-  ].join('\n'),
+  'app/_layout.js': ["import { Slot } from 'expo-router';", 'export default function Layout() { return <Slot />; }'].join('\n'),
   'app/index.js': [
     "import { Link } from 'expo-router';",
     "import { Text, View } from 'react-native';",

@@ -77,7 +77,10 @@ async function signIn(email) {
     body: JSON.stringify({ email, password: DEMO_PASSWORD }),
   });
   if (!res.ok) throw new Error(`Signing in as ${email} failed (${res.status}): is the demo data loaded?`);
-  const cookie = res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  const cookie = res.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
   return cookie;
 }
 
@@ -148,7 +151,9 @@ function lighthouse(url, cookie, label) {
     bytes: a['total-byte-weight'].numericValue,
   };
   // Each run as it ends, so a long session that is stopped still leaves its figures.
-  console.log(`    score ${result.score}, FCP ${(result.fcp / 1000).toFixed(2)} s, LCP ${(result.lcp / 1000).toFixed(2)} s, TBT ${Math.round(result.tbt)} ms, CLS ${result.cls.toFixed(3)}`);
+  console.log(
+    `    score ${result.score}, FCP ${(result.fcp / 1000).toFixed(2)} s, LCP ${(result.lcp / 1000).toFixed(2)} s, TBT ${Math.round(result.tbt)} ms, CLS ${result.cls.toFixed(3)}`,
+  );
   return result;
 }
 
@@ -177,7 +182,9 @@ const row = (name, list) => {
 };
 const b = { score: median(results.baseline, 'score'), lcp: median(results.baseline, 'lcp') };
 console.log(`\nLighthouse mobile (simulated slow 4G, 4x CPU), median of ${runs}, ${new Date().toISOString().slice(0, 10)}:`);
-console.log(`  ${'page'.padEnd(14)} ${'score'.padStart(5)} ${'FCP s'.padStart(7)} ${'LCP s'.padStart(7)} ${'TBT ms'.padStart(7)} ${'CLS'.padStart(7)} ${'KB sent'.padStart(8)}   score ratio  LCP ratio`);
+console.log(
+  `  ${'page'.padEnd(14)} ${'score'.padStart(5)} ${'FCP s'.padStart(7)} ${'LCP s'.padStart(7)} ${'TBT ms'.padStart(7)} ${'CLS'.padStart(7)} ${'KB sent'.padStart(8)}   score ratio  LCP ratio`,
+);
 console.log(row('empty app', results.baseline));
 for (const p of pages) {
   const s = median(results[p.name], 'score');

@@ -58,7 +58,10 @@ async function seedClub() {
 }
 
 function startSmtp(port, inbox) {
-  const proc = spawn(path.join(ROOT, 'node_modules', '.bin', 'tsx'), ['test/faults/smtp.ts', String(port)], { cwd: ROOT, stdio: ['ignore', 'pipe', 'inherit'] });
+  const proc = spawn(path.join(ROOT, 'node_modules', '.bin', 'tsx'), ['test/faults/smtp.ts', String(port)], {
+    cwd: ROOT,
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
   children.add(proc);
   return new Promise((resolve) => {
     readline.createInterface({ input: proc.stdout }).on('line', (line) => {
@@ -71,7 +74,11 @@ function startSmtp(port, inbox) {
 
 async function startBenchServer(processes, env) {
   const port = await freePort();
-  const proc = nodeTs('test/bench/server.ts', { PORT: String(port), LOG_LEVEL: 'error', BENCH_PROCESSES: String(processes), ...env }, ['ignore', 'inherit', 'inherit']);
+  const proc = nodeTs('test/bench/server.ts', { PORT: String(port), LOG_LEVEL: 'error', BENCH_PROCESSES: String(processes), ...env }, [
+    'ignore',
+    'inherit',
+    'inherit',
+  ]);
   children.add(proc);
   const base = `http://127.0.0.1:${port}`;
   const deadline = Date.now() + 90_000;
@@ -123,7 +130,9 @@ async function run(name, base, options) {
   });
   const result = await instance;
   latencies.sort((a, b) => a - b);
-  const ok = Object.entries(statuses).filter(([s]) => Number(s) < 300).reduce((n, [, c]) => n + c, 0);
+  const ok = Object.entries(statuses)
+    .filter(([s]) => Number(s) < 300)
+    .reduce((n, [, c]) => n + c, 0);
   return {
     name,
     rps: result.requests.average,
@@ -144,7 +153,10 @@ function table(rows, bare, peakBare, peakAll) {
     `| --- | ---: | ---: | ---: | ---: | ---: | ---: |`,
     ...rows.map((r) => `| ${r.name} | ${f(r.rps)} | ${f(r.rps / bare.rps, 3)} | ${f(r.p50)} | ${f(r.p95)} | ${f(r.p99)} | ${r.errors} |`),
   ];
-  lines.push('', `server peak memory: ${f(peakBare / 2 ** 20)} MB after the bare run, ${f(peakAll / 2 ** 20)} MB after all runs (x${f(peakAll / peakBare, 2)})`);
+  lines.push(
+    '',
+    `server peak memory: ${f(peakBare / 2 ** 20)} MB after the bare run, ${f(peakAll / 2 ** 20)} MB after all runs (x${f(peakAll / peakBare, 2)})`,
+  );
   return lines.join('\n');
 }
 
@@ -159,7 +171,11 @@ function multipartBody(photo) {
   const b = `----bench${randomUUID().replaceAll('-', '')}`;
   const part = (name, value) => `--${b}\r\nContent-Disposition: form-data; name="${name}"\r\n\r\n${value}\r\n`;
   const body = Buffer.concat([
-    Buffer.from(part('task', 'two-leg-squat') + part('view', 'front') + `--${b}\r\nContent-Disposition: form-data; name="photo"; filename="squat.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`),
+    Buffer.from(
+      part('task', 'two-leg-squat') +
+        part('view', 'front') +
+        `--${b}\r\nContent-Disposition: form-data; name="photo"; filename="squat.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`,
+    ),
     photo,
     Buffer.from(`\r\n--${b}--\r\n`),
   ]);
@@ -265,9 +281,15 @@ async function suite(server, label) {
   const rows = await db.query('select id, draft_version as v from assessments where id = any($1)', [draftIds]);
   const wrong = rows.filter((r) => r.v - (acknowledged.get(r.id) ?? 0) < 0 || r.v - (acknowledged.get(r.id) ?? 0) > 1);
   const inFlight = rows.reduce((n, r) => n + r.v - (acknowledged.get(r.id) ?? 0), 0);
-  check(wrong.length === 0, `draft saves: ${drafts.ok} acknowledged, none lost, none doubled (${inFlight} more were in flight when the run stopped and completed; ${wrong.length} assessments off)`);
+  check(
+    wrong.length === 0,
+    `draft saves: ${drafts.ok} acknowledged, none lost, none doubled (${inFlight} more were in flight when the run stopped and completed; ${wrong.length} assessments off)`,
+  );
   const [photoRows] = await db.query('select count(*)::int as n from photos where assessment_id = any($1)', [photoIds]);
-  check(photoRows.n >= photos.ok && photoRows.n <= photos.ok + CONNECTIONS, `photo uploads: ${photos.ok} acknowledged, ${photoRows.n} stored (the difference was in flight at the end)`);
+  check(
+    photoRows.n >= photos.ok && photoRows.n <= photos.ok + CONNECTIONS,
+    `photo uploads: ${photos.ok} acknowledged, ${photoRows.n} stored (the difference was in flight at the end)`,
+  );
   const [sessionsAfter] = await db.query('select count(*)::int as n from sessions');
   const sessions = sessionsAfter.n - sessionsBefore.n;
   check(sessions >= signIn.ok && sessions <= signIn.ok + CONNECTIONS, `sign-ins: ${signIn.ok} acknowledged, ${sessions} sessions stored`);
@@ -330,7 +352,10 @@ async function multiProcessChecks(server, inbox) {
     if (both[0] === 200 && both[1] === 409) exactlyOne += 1;
   }
   const [v] = await db.query('select count(*)::int as n from assessments where id = any($1) and draft_version = 1', [ids]);
-  check(exactlyOne === 20 && v.n === 20, `draft versions: 20 races of two saves of one version, each won by exactly one (${exactlyOne}), every draft at version 1 (${v.n})`);
+  check(
+    exactlyOne === 20 && v.n === 20,
+    `draft versions: 20 races of two saves of one version, each won by exactly one (${exactlyOne}), every draft at version 1 (${v.n})`,
+  );
 }
 
 try {
@@ -349,10 +374,17 @@ try {
     await many.stop();
     process.stdout.write(`\nthroughput with ${PROCESSES} processes against 1 (same run):\n`);
     for (let i = 0; i < single.length; i++) {
-      process.stdout.write(`  ${multi[i].name}: ${multi[i].rps.toFixed(0)} vs ${single[i].rps.toFixed(0)} req/s (x${(multi[i].rps / single[i].rps).toFixed(2)})\n`);
+      process.stdout.write(
+        `  ${multi[i].name}: ${multi[i].rps.toFixed(0)} vs ${single[i].rps.toFixed(0)} req/s (x${(multi[i].rps / single[i].rps).toFixed(2)})\n`,
+      );
     }
   }
-  log(`machine: ${os.cpus().length} cores, ${(os.totalmem() / 2 ** 30).toFixed(1)} GB, load average ${os.loadavg().map((l) => l.toFixed(1)).join(' ')}`);
+  log(
+    `machine: ${os.cpus().length} cores, ${(os.totalmem() / 2 ** 30).toFixed(1)} GB, load average ${os
+      .loadavg()
+      .map((l) => l.toFixed(1))
+      .join(' ')}`,
+  );
 } catch (error) {
   console.error(error instanceof Error ? error.message : error);
   status = 1;

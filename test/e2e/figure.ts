@@ -32,4 +32,3 @@ export async function figureJpeg(): Promise<Buffer> {
   </svg>`;
   return sharp(Buffer.from(svg)).jpeg({ quality: 80 }).toBuffer();
 }
-

@@ -40,7 +40,7 @@ async function clickAt(surface: Locator, [fx, fy]: readonly [number, number]) {
   await surface.click({ position: { x: fx * box.width, y: fy * box.height } });
 }
 
-test('a coach places one photo\'s points at the desk in at most 12 actions, and the result is worked out again', async ({ page }, testInfo) => {
+test("a coach places one photo's points at the desk in at most 12 actions, and the result is worked out again", async ({ page }, testInfo) => {
   test.setTimeout(180_000);
   const wide = testInfo.project.name === 'wide';
   await signIn(page, 'coach@squadline.test');

@@ -23,7 +23,10 @@ async function cardJpeg(label: string): Promise<Buffer> {
   return sharp(Buffer.from(svg)).jpeg({ quality: 80 }).toBuffer();
 }
 
-type RoundDetail = { round: { id: string }; athletes: { assessmentId: string; athleteId: string; firstName: string; lastName: string; photoConsent: boolean; status: string }[] };
+type RoundDetail = {
+  round: { id: string };
+  athletes: { assessmentId: string; athleteId: string; firstName: string; lastName: string; photoConsent: boolean; status: string }[];
+};
 
 async function openRoundByApi(request: APIRequestContext, name: string): Promise<RoundDetail> {
   const squads = (await (await request.get('/api/squads')).json()) as { squads: { id: string; name: string }[] };
@@ -64,7 +67,12 @@ async function goOffline(context: BrowserContext, page: Page) {
   await context.setOffline(true);
   await expect(page.getByTestId('sync-status-text')).toHaveText(/^Offline/);
   // Really offline: the API cannot be reached from the page.
-  const reached = await page.evaluate(() => fetch('/api/health').then(() => true, () => false));
+  const reached = await page.evaluate(() =>
+    fetch('/api/health').then(
+      () => true,
+      () => false,
+    ),
+  );
   expect(reached).toBe(false);
 }
 

@@ -21,11 +21,15 @@ async function join(browser: Browser, page: Page, link: string, name: string) {
   const context = await browser.newContext({ viewport: page.viewportSize()! });
   const p2 = await context.newPage();
   await p2.goto(new URL(link).pathname + new URL(link).search);
-  return { context, p2, joinWith: async () => {
-    await p2.getByLabel('Your name').fill(name);
-    await p2.getByLabel('Choose a password').fill('a-very-long-password');
-    await p2.getByRole('button', { name: 'Join the club' }).click();
-  } };
+  return {
+    context,
+    p2,
+    joinWith: async () => {
+      await p2.getByLabel('Your name').fill(name);
+      await p2.getByLabel('Choose a password').fill('a-very-long-password');
+      await p2.getByRole('button', { name: 'Join the club' }).click();
+    },
+  };
 }
 
 test('an invitation names the children it links; a parent without a linked child is told what to do', async ({ page, browser }, testInfo) => {
@@ -40,7 +44,10 @@ test('an invitation names the children it links; a parent without a linked child
   await page.getByTestId('invite-email').fill(withChild);
   await page.getByRole('radio', { name: 'Parent or guardian' }).click();
   await page.getByTestId('invite-child-filter').fill('Maya');
-  await page.getByTestId('invite-children').getByText(/Maya Okafor/).click();
+  await page
+    .getByTestId('invite-children')
+    .getByText(/Maya Okafor/)
+    .click();
   await expect(page.getByTestId('invite-children')).toContainText('✓ Maya Okafor');
   await page.screenshot({ path: testInfo.outputPath('invite-parent.png'), fullPage: true });
   await page.getByTestId('invite-submit').click();

@@ -84,7 +84,10 @@ test('a head coach imports a CSV: a line with an error first, then a clean file'
   fs.writeFileSync(clean, good(bornYearsAgo(10)));
   // Later in the season: Alva's family withdrew photo consent, and a new athlete joined.
   const update = path.join(dir, 'roster-update.csv');
-  fs.writeFileSync(update, [header, `Alva,${lastName},${bornYearsAgo(12)},F,R,L,${squadName},no,no`, `Cy,${lastName},${bornYearsAgo(11)},M,R,R,${squadName},yes,yes`].join('\n'));
+  fs.writeFileSync(
+    update,
+    [header, `Alva,${lastName},${bornYearsAgo(12)},F,R,L,${squadName},no,no`, `Cy,${lastName},${bornYearsAgo(11)},M,R,R,${squadName},yes,yes`].join('\n'),
+  );
 
   await signInAsCoach(page);
   // A squad of its own, so that the demo squads stay as they are.

@@ -30,8 +30,12 @@ test('a round offers to start, lists flags by severity, and can be closed and re
         criteria: ['squat-right-knee-in'],
         landmarks: {
           front: {
-            'right-hip': { x: 400, y: 700 }, 'right-knee': { x: 460, y: 900 }, 'right-ankle': { x: 410, y: 1120 },
-            'left-hip': { x: 560, y: 700 }, 'left-knee': { x: 560, y: 900 }, 'left-ankle': { x: 560, y: 1120 },
+            'right-hip': { x: 400, y: 700 },
+            'right-knee': { x: 460, y: 900 },
+            'right-ankle': { x: 410, y: 1120 },
+            'left-hip': { x: 560, y: 700 },
+            'left-knee': { x: 560, y: 900 },
+            'left-ankle': { x: 560, y: 1120 },
           },
         },
       },

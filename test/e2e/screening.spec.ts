@@ -63,7 +63,12 @@ test('a tester screens an athlete from a new round to the result, and it all sur
 
   // The first athlete with photo consent.
   const row = page.locator('[data-testid^="round-athlete-"]').filter({ hasNotText: 'No photo consent' }).first();
-  const athleteName = (await row.getByText(/\S+ \S+/).first().innerText()).trim();
+  const athleteName = (
+    await row
+      .getByText(/\S+ \S+/)
+      .first()
+      .innerText()
+  ).trim();
   const athleteId = (await row.getAttribute('data-testid'))!.replace('round-athlete-', '');
   await row.click();
   await expect(page.getByTestId('capture-athlete')).toHaveText(athleteName);

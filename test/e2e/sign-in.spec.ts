@@ -49,7 +49,7 @@ test('signed-out visits to signed-in pages redirect to sign-in', async ({ page }
   }
 });
 
-test('a parent cannot open another family\'s athlete', async ({ page, request }) => {
+test("a parent cannot open another family's athlete", async ({ page, request }) => {
   // Find another family's athlete as staff, then try it as the parent.
   await request.post('/api/auth/sign-in', { data: { email: 'coach@squadline.test', password: 'squadline-demo' } });
   const list = await (await request.get('/api/athletes')).json();

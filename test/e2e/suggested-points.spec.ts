@@ -43,9 +43,16 @@ test.use({
   launchOptions: {
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     args: [
-      '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-      '--disable-background-networking', '--disable-component-update', '--disable-sync',
-      '--use-gl=swiftshader', '--enable-unsafe-swiftshader',
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--use-gl=swiftshader',
+      '--enable-unsafe-swiftshader',
     ],
   },
 });
@@ -54,7 +61,9 @@ function samplePhoto(): Buffer {
   const dir = process.env.SAMPLE_PHOTOS_DIR;
   const file = dir ? path.join(dir, PHOTO_FILE) : '';
   if (!dir || !fs.existsSync(file)) {
-    throw new Error(`${PHOTO_FILE} from Debian's ${PHOTO_PACKAGE} (${PHOTO_LICENCE}) is missing: run the browser tests through \`npm test\`, which installs it.`);
+    throw new Error(
+      `${PHOTO_FILE} from Debian's ${PHOTO_PACKAGE} (${PHOTO_LICENCE}) is missing: run the browser tests through \`npm test\`, which installs it.`,
+    );
   }
   return fs.readFileSync(file);
 }

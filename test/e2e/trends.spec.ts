@@ -56,7 +56,10 @@ test('squad trends: load, filter, sort, CSV, charts', async ({ page }, info) => 
   // CSV of the filtered table: the same athletes, one line each after the header.
   const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('download-csv').click()]);
   expect(download.suggestedFilename()).toMatch(/-trends-\d{4}-\d{2}-\d{2}\.csv$/);
-  const csv = fs.readFileSync((await download.path())!, 'utf8').trim().split('\n');
+  const csv = fs
+    .readFileSync((await download.path())!, 'utf8')
+    .trim()
+    .split('\n');
   expect(csv[0]).toMatch(/^last_name,first_name,sex,age_group/);
   expect(csv).toHaveLength(flagged + 1);
   const csvNames = csv.slice(1).map((line) => {

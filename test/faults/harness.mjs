@@ -5,8 +5,20 @@ import fs from 'node:fs';
 import path from 'node:path';
 import pg from 'pg';
 import {
-  clusterLayout, databaseUrl, ensureDatabase, ensureNodeModules, ensurePostgres, freePort, initCluster, log,
-  makeClusterRoot, newPassword, startCluster, stopCluster, tsx, tsxSync,
+  clusterLayout,
+  databaseUrl,
+  ensureDatabase,
+  ensureNodeModules,
+  ensurePostgres,
+  freePort,
+  initCluster,
+  log,
+  makeClusterRoot,
+  newPassword,
+  startCluster,
+  stopCluster,
+  tsx,
+  tsxSync,
 } from '../../server/dev/bootstrap.mjs';
 
 export { freePort, log, tsx };
@@ -43,7 +55,7 @@ export async function startDatabase(prefix, dbName) {
   startCluster(bin, layout, port);
   ensureDatabase(bin, layout, port, dbName);
   const url = databaseUrl(port, password, dbName);
-  tsxSync(['db/cli.ts', 'reset'], { DATABASE_URL: url, LOG_LEVEL: 'warn' });
+  tsxSync(['server/dev/db-cli.ts', 'reset'], { DATABASE_URL: url, LOG_LEVEL: 'warn' });
   return {
     url,
     root,
@@ -93,7 +105,10 @@ export async function client(base, email, password = DEMO_PASSWORD) {
     body: JSON.stringify({ email, password }),
   });
   if (res.status !== 200) throw new Error(`sign-in failed for ${email}: ${res.status}`);
-  const cookie = res.headers.getSetCookie().find((c) => c.startsWith('squadline_session='))?.split(';')[0];
+  const cookie = res.headers
+    .getSetCookie()
+    .find((c) => c.startsWith('squadline_session='))
+    ?.split(';')[0];
   const call = async (method, p, { json, form, headers = {}, timeoutMs = 30_000 } = {}) => {
     const started = Date.now();
     try {

@@ -11,9 +11,7 @@ import os from 'node:os';
 import path from 'node:path';
 import readline from 'node:readline';
 import sharp from 'sharp';
-import {
-  check, client, draftBody, freePort, log, openRounds, screeningConsistency, sleep, startDatabase, startServer, storedFiles,
-} from './harness.mjs';
+import { check, client, draftBody, freePort, log, openRounds, screeningConsistency, sleep, startDatabase, startServer, storedFiles } from './harness.mjs';
 
 const ROOT = path.resolve(path.dirname(new URL(import.meta.url).pathname), '../..');
 const work = fs.mkdtempSync(path.join(os.tmpdir(), 'squadline-faults-'));
@@ -23,7 +21,10 @@ let status = 0;
 
 /** The fake SMTP in its own process, on a fixed port so it can come back where the server expects it. */
 function startSmtp(port, inbox) {
-  const proc = spawn(path.join(ROOT, 'node_modules', '.bin', 'tsx'), ['test/faults/smtp.ts', String(port)], { cwd: ROOT, stdio: ['ignore', 'pipe', 'inherit'] });
+  const proc = spawn(path.join(ROOT, 'node_modules', '.bin', 'tsx'), ['test/faults/smtp.ts', String(port)], {
+    cwd: ROOT,
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
   children.add(proc);
   return new Promise((resolve, reject) => {
     readline.createInterface({ input: proc.stdout }).on('line', (line) => {
@@ -153,7 +154,10 @@ try {
   log(`ok: no acknowledged save lost (${workers.reduce((n, w) => n + w.ok, 0)} saves, ${workers.reduce((n, w) => n + w.resyncs, 0)} answers lost and merged)`);
   const submits = workers.reduce((n, w) => n + w.submits, 0);
   const consistency = await screeningConsistency(db);
-  check(Object.values(consistency).every((n) => n === 0), `no half-written screen after ${submits} submits: ${JSON.stringify(consistency)}`);
+  check(
+    Object.values(consistency).every((n) => n === 0),
+    `no half-written screen after ${submits} submits: ${JSON.stringify(consistency)}`,
+  );
 
   // ------------------------------------------------------------------------------------------------
   log('2. The SMTP server stopped: the e-mail waits in the queue and goes out once');
@@ -243,10 +247,16 @@ try {
   // The local store keeps a hidden `.<name>.meta.json` beside each file: it belongs to that file.
   const files = new Set(storedFiles(uploads).map((f) => f.replace(/(^|\/)\.([^/]+)\.meta\.json$/, '$1$2')));
   const rowFiles = new Set(rows.flatMap((r) => [r.storageKey, r.thumbKey]));
-  check(rows.every((r) => files.has(r.storageKey) && files.has(r.thumbKey)), `every stored photo row has both its files (${rows.length} photos)`);
+  check(
+    rows.every((r) => files.has(r.storageKey) && files.has(r.thumbKey)),
+    `every stored photo row has both its files (${rows.length} photos)`,
+  );
   const orphans = [...files].filter((f) => ids3.some((id) => f.includes(id)) && !rowFiles.has(f));
   check(orphans.length === 0, `no orphan files (${orphans.slice(0, 3).join(', ')})`);
-  check(uploaded.every((id) => rows.some((r) => r.id === id)), `every acknowledged upload is stored (${uploaded.length})`);
+  check(
+    uploaded.every((id) => rows.some((r) => r.id === id)),
+    `every acknowledged upload is stored (${uploaded.length})`,
+  );
   for (const w of saved.slice(0, 3)) {
     const [row] = await db.query('select draft_version as v from assessments where id = $1', [w.id]);
     if (!(row.v >= w.ok && row.v <= w.ok + 1)) throw new Error(`FAILED: draft ${w.id}: database ${row.v}, ${w.ok} saves acknowledged`);

@@ -4,8 +4,7 @@ import { useActiveClub } from '@/features/session/active-club';
 import { athleteKeys, ROSTER_STALE_MS } from './keys';
 import type { Athlete } from './types';
 
-export const getAthletes = (includeArchived = false) =>
-  api<{ athletes: Athlete[] }>(includeArchived ? '/athletes?archived=include' : '/athletes');
+export const getAthletes = (includeArchived = false) => api<{ athletes: Athlete[] }>(includeArchived ? '/athletes?archived=include' : '/athletes');
 
 export const athletesQueryOptions = (clubId: string, options: { includeArchived?: boolean } = {}) =>
   queryOptions({

@@ -6,8 +6,7 @@ import type { SquadSummary } from './types';
 
 export const getSquads = () => api<{ squads: SquadSummary[] }>('/squads');
 
-export const squadsQueryOptions = (clubId: string) =>
-  queryOptions({ queryKey: athleteKeys.squads(clubId), queryFn: getSquads, staleTime: ROSTER_STALE_MS });
+export const squadsQueryOptions = (clubId: string) => queryOptions({ queryKey: athleteKeys.squads(clubId), queryFn: getSquads, staleTime: ROSTER_STALE_MS });
 
 export function useSquadsQuery() {
   const { membership } = useActiveClub();

@@ -5,8 +5,7 @@ import { useRosterChanged } from './invalidate';
 import type { Squad } from './types';
 
 export const createSquad = (input: SquadInput) => api<{ squad: Squad }>('/squads', { method: 'POST', json: input });
-export const renameSquad = (id: string, input: SquadInput) =>
-  api<{ squad: Squad }>(`/squads/${encodeURIComponent(id)}`, { method: 'PATCH', json: input });
+export const renameSquad = (id: string, input: SquadInput) => api<{ squad: Squad }>(`/squads/${encodeURIComponent(id)}`, { method: 'PATCH', json: input });
 /** Refused (409) while the squad still has athletes. */
 export const archiveSquad = (id: string) => api<{ squad: Squad }>(`/squads/${encodeURIComponent(id)}/archive`, { method: 'POST' });
 

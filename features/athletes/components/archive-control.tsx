@@ -16,9 +16,7 @@ export function ArchiveControl({ athlete }: { athlete: Athlete }) {
   if (!confirming) {
     return (
       <View style={styles.wrap}>
-        {athlete.archived ? (
-          <Text variant="small">Archived: not in squad lists or new screening rounds. Earlier results are kept.</Text>
-        ) : null}
+        {athlete.archived ? <Text variant="small">Archived: not in squad lists or new screening rounds. Earlier results are kept.</Text> : null}
         <Button
           label={archive ? 'Archive athlete' : 'Restore athlete'}
           tone={archive ? 'secondary' : 'primary'}

@@ -73,10 +73,26 @@ export function AthleteForm({
             {failure ? <Notice tone="error">{failure}</Notice> : null}
             <View style={[styles.pair, isTabletUp && styles.pairWide]}>
               <View style={isTabletUp ? styles.cell : undefined}>
-                <TextField label="First name" testID="athlete-first-name" value={values.firstName} onChangeText={handleChange('firstName')} onBlur={handleBlur('firstName')} autoComplete="off" error={show('firstName')} />
+                <TextField
+                  label="First name"
+                  testID="athlete-first-name"
+                  value={values.firstName}
+                  onChangeText={handleChange('firstName')}
+                  onBlur={handleBlur('firstName')}
+                  autoComplete="off"
+                  error={show('firstName')}
+                />
               </View>
               <View style={isTabletUp ? styles.cell : undefined}>
-                <TextField label="Last name" testID="athlete-last-name" value={values.lastName} onChangeText={handleChange('lastName')} onBlur={handleBlur('lastName')} autoComplete="off" error={show('lastName')} />
+                <TextField
+                  label="Last name"
+                  testID="athlete-last-name"
+                  value={values.lastName}
+                  onChangeText={handleChange('lastName')}
+                  onBlur={handleBlur('lastName')}
+                  autoComplete="off"
+                  error={show('lastName')}
+                />
               </View>
             </View>
             <TextField
@@ -95,16 +111,28 @@ export function AthleteForm({
                 <ChoiceGroup label="Sex" name="sex" options={sexOptions} value={values.sex} onChange={(v) => setFieldValue('sex', v)} error={show('sex')} />
               </View>
               <View style={isTabletUp ? styles.cell : undefined}>
-                <ChoiceGroup label="Racket hand" name="racketHand" options={sideOptions} value={values.racketHand} onChange={(v) => setFieldValue('racketHand', v)} error={show('racketHand')} />
+                <ChoiceGroup
+                  label="Racket hand"
+                  name="racketHand"
+                  options={sideOptions}
+                  value={values.racketHand}
+                  onChange={(v) => setFieldValue('racketHand', v)}
+                  error={show('racketHand')}
+                />
               </View>
               <View style={isTabletUp ? styles.cell : undefined}>
-                <ChoiceGroup label="Take-off leg" name="takeOffLeg" options={sideOptions} value={values.takeOffLeg} onChange={(v) => setFieldValue('takeOffLeg', v)} error={show('takeOffLeg')} />
+                <ChoiceGroup
+                  label="Take-off leg"
+                  name="takeOffLeg"
+                  options={sideOptions}
+                  value={values.takeOffLeg}
+                  onChange={(v) => setFieldValue('takeOffLeg', v)}
+                  error={show('takeOffLeg')}
+                />
               </View>
             </View>
             {squads.error ? <Notice tone="error">{squads.error.message}</Notice> : null}
-            {squads.data && squads.data.squads.length === 0 ? (
-              <Notice tone="caution">The club has no squad yet: create one under Squads first.</Notice>
-            ) : null}
+            {squads.data && squads.data.squads.length === 0 ? <Notice tone="caution">The club has no squad yet: create one under Squads first.</Notice> : null}
             <ChoiceGroup
               label="Squad"
               name="squad"

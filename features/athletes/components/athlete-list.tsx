@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { useMemo, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
@@ -10,7 +11,6 @@ import { TextField } from '@/features/ui/components/text-field';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { useAthletesQuery } from '../api/get-athletes';
 import type { Athlete } from '../api/types';
-import { canManageRoster } from '../roles';
 import { AthleteRow } from './athlete-row';
 
 /** Every athlete of the club, grouped by squad, with a name filter. Side by side on wide screens. */
@@ -33,7 +33,7 @@ export function AthleteList() {
 
   return (
     <View style={styles.wrap}>
-      {canManageRoster(membership.role) ? (
+      {can(membership.role, 'roster.manage') ? (
         <View style={[styles.actions, isTabletUp && styles.actionsWide]}>
           <ActionLink href="/athletes/new" label="Add athlete" testID="add-athlete" primary />
           <ActionLink href="/athletes/import" label="Import from CSV" testID="import-csv" />
@@ -57,9 +57,7 @@ export function AthleteList() {
       </View>
       {athletes.error ? <Notice tone="error">{athletes.error.message}</Notice> : null}
       {athletes.isPending ? <Text>Loading athletes…</Text> : null}
-      {athletes.data && groups.length === 0 ? (
-        <Text>{filter ? `No athlete matches “${filter}”.` : 'No athletes yet.'}</Text>
-      ) : null}
+      {athletes.data && groups.length === 0 ? <Text>{filter ? `No athlete matches “${filter}”.` : 'No athletes yet.'}</Text> : null}
       <View style={[styles.groups, isWide && styles.groupsWide]}>
         {groups.map(([squad, list]) => (
           <Card key={squad} style={isWide ? styles.groupWide : undefined}>
@@ -106,7 +104,16 @@ const styles = StyleSheet.create({
   toolsWide: { flexDirection: 'row', alignItems: 'flex-end' },
   search: { flexGrow: 1, flexShrink: 1, minWidth: 0 },
   toggle: { minHeight: TOUCH_MIN, flexDirection: 'row', alignItems: 'center', gap: space.sm, paddingHorizontal: space.xs },
-  box: { width: 26, height: 26, borderRadius: radius.sm, borderWidth: 2, borderColor: colors.pine, alignItems: 'center', justifyContent: 'center', backgroundColor: colors.surface },
+  box: {
+    width: 26,
+    height: 26,
+    borderRadius: radius.sm,
+    borderWidth: 2,
+    borderColor: colors.pine,
+    alignItems: 'center',
+    justifyContent: 'center',
+    backgroundColor: colors.surface,
+  },
   boxOn: { backgroundColor: colors.pine },
   tick: { color: '#fff', fontFamily: fonts.bold, fontSize: 16, lineHeight: 18 },
   groups: { gap: space.lg },

@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useActiveClub } from '@/features/session/active-club';
@@ -12,7 +13,6 @@ import { ageInYears, todayIso } from '../age';
 import { useAthleteQuery } from '../api/get-athlete';
 import type { Athlete } from '../api/types';
 import { useUpdateAthleteMutation } from '../api/update-athlete';
-import { canManageRoster } from '../roles';
 import { SEX_LABELS, SIDE_LABELS } from '../schemas';
 import { ArchiveControl } from './archive-control';
 import { AthleteForm } from './athlete-form';
@@ -29,7 +29,7 @@ export function AthleteProfile({ id }: { id: string }) {
   if (query.isPending) return <Text>Loading…</Text>;
   if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
   const a = query.data.athlete;
-  const manage = canManageRoster(membership.role);
+  const manage = can(membership.role, 'roster.manage');
   return (
     <View style={styles.wrap}>
       <View style={styles.head}>
@@ -51,9 +51,7 @@ export function AthleteProfile({ id }: { id: string }) {
         <Card style={isTabletUp ? [styles.col, styles.colMain] : undefined}>
           <View style={styles.cardHead}>
             <Text variant="heading">{editing ? 'Edit details' : 'Details'}</Text>
-            {manage && !editing && !a.archived ? (
-              <Button label="Edit" tone="secondary" testID="athlete-edit" onPress={() => setEditing(true)} />
-            ) : null}
+            {manage && !editing && !a.archived ? <Button label="Edit" tone="secondary" testID="athlete-edit" onPress={() => setEditing(true)} /> : null}
           </View>
           {editing ? <EditDetails athlete={a} onDone={() => setEditing(false)} /> : <Facts athlete={a} />}
         </Card>

@@ -1,9 +1,9 @@
+import { can } from '@/features/access/permissions';
 import { StyleSheet, View } from 'react-native';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { space } from '@/features/ui/theme';
 import { useAthleteQuery } from '../api/get-athlete';
-import { canSeeGuardians } from '../roles';
 import { ConsentPanel } from './consent-panel';
 import { GuardiansPanel } from './guardians-panel';
 
@@ -19,7 +19,7 @@ export function AthleteRecords({ id }: { id: string }) {
       <View style={isTabletUp ? styles.col : undefined}>
         <ConsentPanel athlete={athlete} />
       </View>
-      {canSeeGuardians(membership.role) ? (
+      {can(membership.role, 'guardians.read') ? (
         <View style={isTabletUp ? styles.col : undefined}>
           <GuardiansPanel athlete={athlete} />
         </View>

@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import { Formik } from 'formik';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -13,7 +14,6 @@ import { todayIso } from '../age';
 import { useConsentsQuery } from '../api/get-consents';
 import { useRecordConsentMutation } from '../api/record-consent';
 import type { Athlete, ConsentView } from '../api/types';
-import { canManageRoster } from '../roles';
 import { CONSENT_KINDS, CONSENT_LABELS, consentSchema, type ConsentInput, type ConsentKind } from '../schemas';
 import { ChoiceGroup } from './choice-group';
 import { formatDate } from '@/features/ui/format-date';
@@ -34,17 +34,20 @@ export function ConsentPanel({ athlete }: { athlete: Athlete }) {
   const { membership } = useActiveClub();
   const history = useConsentsQuery(athlete.id);
   const [recording, setRecording] = useState(false);
-  const manage = canManageRoster(membership.role);
+  const manage = can(membership.role, 'consent.manage');
   return (
     <Card testID="consent-panel">
       <Text variant="heading">Consent</Text>
       <View style={styles.current}>
-        <Current label={CONSENT_LABELS.photos.title} value={inForce(athlete.consents.photos, 'photos')} warn={athlete.consents.photos?.granted !== true} testID="consent-photos" />
+        <Current
+          label={CONSENT_LABELS.photos.title}
+          value={inForce(athlete.consents.photos, 'photos')}
+          warn={athlete.consents.photos?.granted !== true}
+          testID="consent-photos"
+        />
         <Current label={CONSENT_LABELS.email_summaries.title} value={inForce(athlete.consents.emailSummaries, 'email_summaries')} testID="consent-email" />
       </View>
-      {manage && !recording ? (
-        <Button label="Record a decision" tone="secondary" testID="consent-record" onPress={() => setRecording(true)} />
-      ) : null}
+      {manage && !recording ? <Button label="Record a decision" tone="secondary" testID="consent-record" onPress={() => setRecording(true)} /> : null}
       {manage && recording ? <RecordDecision athleteId={athlete.id} onDone={() => setRecording(false)} /> : null}
       <Text variant="label">History</Text>
       {history.error ? <Notice tone="error">{history.error.message}</Notice> : null}
@@ -55,7 +58,9 @@ export function ConsentPanel({ athlete }: { athlete: Athlete }) {
             <Text>
               {CONSENT_LABELS[c.kind].title}: <Text style={styles.bold}>{c.granted ? 'yes' : 'no'}</Text>, decided {formatDate(c.decidedOn)}
             </Text>
-            <Text variant="small">Recorded {c.recordedBy ? `by ${c.recordedBy}` : 'at set-up'} on {formatDate(c.recordedAt)}</Text>
+            <Text variant="small">
+              Recorded {c.recordedBy ? `by ${c.recordedBy}` : 'at set-up'} on {formatDate(c.recordedAt)}
+            </Text>
           </View>
         ))}
       </View>
@@ -108,8 +113,22 @@ function RecordDecision({ athleteId, onDone }: { athleteId: string; onDone: () =
       {({ values, errors, submitCount, touched, setFieldValue, handleChange, handleBlur, handleSubmit, isSubmitting }) => (
         <View style={styles.form}>
           {failure ? <Notice tone="error">{failure}</Notice> : null}
-          <ChoiceGroup label="Decision about" name="consent-kind" options={kindOptions} value={values.kind} onChange={(v) => setFieldValue('kind', v)} error={submitCount > 0 && errors.kind} />
-          <ChoiceGroup label="Answer" name="consent-answer" options={answerOptions} value={values.granted} onChange={(v) => setFieldValue('granted', v)} error={submitCount > 0 && errors.granted} />
+          <ChoiceGroup
+            label="Decision about"
+            name="consent-kind"
+            options={kindOptions}
+            value={values.kind}
+            onChange={(v) => setFieldValue('kind', v)}
+            error={submitCount > 0 && errors.kind}
+          />
+          <ChoiceGroup
+            label="Answer"
+            name="consent-answer"
+            options={answerOptions}
+            value={values.granted}
+            onChange={(v) => setFieldValue('granted', v)}
+            error={submitCount > 0 && errors.granted}
+          />
           <TextField
             label="Decided on"
             testID="consent-date"

@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import { Formik } from 'formik';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -12,13 +13,12 @@ import { colors, space } from '@/features/ui/theme';
 import { useLinkGuardianMutation } from '../api/link-guardian';
 import type { Athlete } from '../api/types';
 import { useUnlinkGuardianMutation } from '../api/unlink-guardian';
-import { canManageRoster } from '../roles';
 import { guardianSchema, type GuardianInput } from '../schemas';
 
 /** The parents and guardians who see this athlete in their account. Staff only. */
 export function GuardiansPanel({ athlete }: { athlete: Athlete }) {
   const { membership } = useActiveClub();
-  const manage = canManageRoster(membership.role);
+  const manage = can(membership.role, 'guardians.manage');
   const unlink = useUnlinkGuardianMutation(athlete.id);
   const guardians = athlete.guardians ?? [];
   return (

@@ -1,9 +1,9 @@
+import { can } from '@/features/access/permissions';
 import { useRouter } from 'expo-router';
 import { useActiveClub } from '@/features/session/active-club';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { useCreateAthleteMutation } from '../api/create-athlete';
-import { canManageRoster } from '../roles';
 import { AthleteForm } from './athlete-form';
 
 /** Adds one athlete, then opens their page (where consent and parents are recorded). */
@@ -11,7 +11,7 @@ export function NewAthlete() {
   const { membership } = useActiveClub();
   const create = useCreateAthleteMutation();
   const router = useRouter();
-  if (!canManageRoster(membership.role)) {
+  if (!can(membership.role, 'roster.manage')) {
     return <Notice>Only the club admin and head coaches add athletes.</Notice>;
   }
   return (

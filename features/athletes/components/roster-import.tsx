@@ -46,7 +46,9 @@ export function RosterImport() {
         <Text variant="heading">Check and import</Text>
         {done ? (
           <Notice title={importedTitle(done)} testID="import-done">
-            <Text>They are in their squads now, with their consent answers recorded as of today (a changed answer is added to the athlete's consent history).</Text>
+            <Text>
+              They are in their squads now, with their consent answers recorded as of today (a changed answer is added to the athlete&apos;s consent history).
+            </Text>
             <Link href="/athletes" style={styles.link}>
               <Text variant="label">See the athletes →</Text>
             </Link>
@@ -61,16 +63,15 @@ export function RosterImport() {
           </Text>
         ) : null}
         {check.isPending ? <Text>Checking every line…</Text> : null}
-        {check.error ? <Notice tone="error" title="This file cannot be imported" testID="import-file-error">{check.error.message}</Notice> : null}
+        {check.error ? (
+          <Notice tone="error" title="This file cannot be imported" testID="import-file-error">
+            {check.error.message}
+          </Notice>
+        ) : null}
         {commit.error ? <Notice tone="error">{commit.error.message}</Notice> : null}
         {report && !check.isPending && !done ? <Report report={report} /> : null}
         {report && !check.isPending && !done && report.errorCount === 0 ? (
-          <Button
-            label={importLabel(report)}
-            testID="import-commit"
-            busy={commit.isPending}
-            onPress={runImport}
-          />
+          <Button label={importLabel(report)} testID="import-commit" busy={commit.isPending} onPress={runImport} />
         ) : null}
       </Card>
       <View style={isWide ? styles.sideCol : undefined}>
@@ -168,10 +169,7 @@ function FileFormat() {
   return (
     <Card>
       <Text variant="heading">The file</Text>
-      <Text>
-        One athlete per line, in a CSV file saved from a spreadsheet (“CSV UTF-8”), at most 1 MB. The first line names the
-        columns, in any order:
-      </Text>
+      <Text>One athlete per line, in a CSV file saved from a spreadsheet (“CSV UTF-8”), at most 1 MB. The first line names the columns, in any order:</Text>
       <Text style={styles.code} selectable testID="roster-header-example">
         {ROSTER_HEADER_LINE}
       </Text>
@@ -186,8 +184,8 @@ function FileFormat() {
         <Column name="guardian_email" text="Optional: the e-mail of a parent account already in the club, to link." />
       </View>
       <Text variant="small">
-        A child already in the club (same name and date of birth) is updated from the line: the report lists what changes
-        before anything is saved. A child listed twice, or archived, is pointed out and not imported.
+        A child already in the club (same name and date of birth) is updated from the line: the report lists what changes before anything is saved. A child
+        listed twice, or archived, is pointed out and not imported.
       </Text>
     </Card>
   );

@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import { Formik } from 'formik';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -13,7 +14,6 @@ import { colors, space } from '@/features/ui/theme';
 import { useSquadsQuery } from '../api/get-squads';
 import { useArchiveSquadMutation, useCreateSquadMutation, useRenameSquadMutation } from '../api/manage-squads';
 import type { SquadSummary } from '../api/types';
-import { canManageRoster } from '../roles';
 import { squadSchema, type SquadInput } from '../schemas';
 
 /** The club's squads: add, rename, and archive the empty ones. */
@@ -21,7 +21,7 @@ export function SquadManager() {
   const { membership } = useActiveClub();
   const { isTabletUp } = useBreakpoints();
   const squads = useSquadsQuery();
-  if (!canManageRoster(membership.role)) return <Notice>Only the club admin and head coaches manage squads.</Notice>;
+  if (!can(membership.role, 'roster.manage')) return <Notice>Only the club admin and head coaches manage squads.</Notice>;
   return (
     <View style={[styles.cols, isTabletUp && styles.colsWide]}>
       <Card style={isTabletUp ? styles.main : undefined}>
@@ -29,7 +29,9 @@ export function SquadManager() {
         {squads.error ? <Notice tone="error">{squads.error.message}</Notice> : null}
         {squads.isPending ? <Text>Loading squads…</Text> : null}
         {squads.data?.squads.length === 0 ? <Text>No squads yet.</Text> : null}
-        {squads.data?.squads.map((s) => <SquadRow key={s.id} squad={s} />)}
+        {squads.data?.squads.map((s) => (
+          <SquadRow key={s.id} squad={s} />
+        ))}
       </Card>
       <Card style={isTabletUp ? styles.side : undefined}>
         <Text variant="heading">New squad</Text>

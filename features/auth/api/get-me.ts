@@ -1,11 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api, ApiError } from '@/features/api/client';
-import type { RoleValue } from '@/features/auth/schemas';
 import { deviceBacked } from '@/features/offline/device-cache';
+import type { Me } from '@/features/auth/contract';
 import { authKeys } from './keys';
 
-export type Membership = { clubId: string; clubName: string; role: RoleValue };
-export type Me = { user: { id: string; email: string; displayName: string }; memberships: Membership[] };
+export type { Me, Membership } from '@/features/auth/contract';
 
 export const ME_STALE_MS = 5 * 60 * 1000;
 

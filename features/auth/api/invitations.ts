@@ -1,15 +1,16 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/features/api/client';
 import type { AcceptInvitationInput, RequestResetInput, ResetPasswordInput } from '@/features/auth/schemas';
+import type { InvitationView } from '@/features/auth/contract';
 import { authKeys } from './keys';
 
-/** `children`: whom a parent's invitation links when accepted (names). */
-export type InvitationView = { email: string; role: string; clubName: string; hasAccount: boolean; children: string[] };
+export type { InvitationView };
 
 export const invitationQueryOptions = (token: string) =>
   queryOptions({
     queryKey: authKeys.invitation(token),
-    queryFn: () => api<InvitationView>(`/auth/invitations/${encodeURIComponent(token)}`),
+    // POST with the token in the body: a token in a URL ends up in logs and proxies.
+    queryFn: () => api<InvitationView>('/auth/invitations/lookup', { method: 'POST', json: { token } }),
     retry: false,
     enabled: token.length > 0,
   });

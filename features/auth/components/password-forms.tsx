@@ -32,7 +32,15 @@ export function ForgotPasswordForm() {
       {({ handleChange, handleBlur, handleSubmit, values, errors, touched, isSubmitting }) => (
         <View style={styles.form}>
           {request.error ? <Notice tone="error">{request.error.message}</Notice> : null}
-          <TextField label="E-mail" value={values.email} onChangeText={handleChange('email')} onBlur={handleBlur('email')} autoCapitalize="none" inputMode="email" error={touched.email && errors.email} />
+          <TextField
+            label="E-mail"
+            value={values.email}
+            onChangeText={handleChange('email')}
+            onBlur={handleBlur('email')}
+            autoCapitalize="none"
+            inputMode="email"
+            error={touched.email && errors.email}
+          />
           <Button label="Send reset link" busy={isSubmitting} onPress={() => handleSubmit()} />
         </View>
       )}
@@ -66,7 +74,16 @@ export function ResetPasswordForm({ token }: { token: string }) {
       {({ handleChange, handleBlur, handleSubmit, values, errors, touched, isSubmitting }) => (
         <View style={styles.form}>
           {reset.error ? <Notice tone="error">{reset.error.message}</Notice> : null}
-          <TextField label="New password" hint={`At least ${PASSWORD_MIN} characters.`} secureTextEntry autoComplete="new-password" value={values.password} onChangeText={handleChange('password')} onBlur={handleBlur('password')} error={touched.password && errors.password} />
+          <TextField
+            label="New password"
+            hint={`At least ${PASSWORD_MIN} characters.`}
+            secureTextEntry
+            autoComplete="new-password"
+            value={values.password}
+            onChangeText={handleChange('password')}
+            onBlur={handleBlur('password')}
+            error={touched.password && errors.password}
+          />
           <Button label="Save new password" busy={isSubmitting} onPress={() => handleSubmit()} />
         </View>
       )}
@@ -103,7 +120,14 @@ export function AcceptInvitationForm({ token }: { token: string }) {
           </Notice>
           {accept.error && !(accept.error instanceof ApiError && accept.error.fields) ? <Notice tone="error">{accept.error.message}</Notice> : null}
           {hasAccount ? null : (
-            <TextField label="Your name" value={values.displayName} onChangeText={handleChange('displayName')} onBlur={handleBlur('displayName')} autoComplete="name" error={touched.displayName && errors.displayName} />
+            <TextField
+              label="Your name"
+              value={values.displayName}
+              onChangeText={handleChange('displayName')}
+              onBlur={handleBlur('displayName')}
+              autoComplete="name"
+              error={touched.displayName && errors.displayName}
+            />
           )}
           <TextField
             label={hasAccount ? 'Your existing password' : 'Choose a password'}

@@ -12,7 +12,8 @@ const path = (id: string) => `/assessments/${encodeURIComponent(id)}`;
 export const getAssessmentCare = (id: string) => api<{ care: AssessmentCare }>(`${path(id)}/care`);
 export const markReviewed = (id: string) => api<{ care: AssessmentCare }>(`${path(id)}/review`, { method: 'POST' });
 export const getReleasePreview = (id: string) => api<{ preview: ReleasePreview }>(`${path(id)}/release-preview`);
-export const releaseSummary = (id: string) => api<{ release: { id: string; releasedAt: string; recipients: number } }>(`${path(id)}/release`, { method: 'POST' });
+export const releaseSummary = (id: string) =>
+  api<{ release: { id: string; releasedAt: string; recipients: number } }>(`${path(id)}/release`, { method: 'POST' });
 
 export const assessmentCareQueryOptions = (clubId: string, id: string) =>
   queryOptions({ queryKey: careKeys.assessment(clubId, id), queryFn: () => getAssessmentCare(id), staleTime: CARE_STALE_MS });

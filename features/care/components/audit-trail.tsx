@@ -36,7 +36,9 @@ export function AuditTrail() {
   const csvHref = `/api/audit${auditSearch(filters, 'csv')}`;
   return (
     <View style={styles.wrap} testID="audit-trail">
-      <Text variant="title" accessibilityRole="header">Audit trail</Text>
+      <Text variant="title" accessibilityRole="header">
+        Audit trail
+      </Text>
       <Text variant="small">Who viewed or changed athletes, screens, notes, clearance and consent, which e-mails went out, and which photos were deleted.</Text>
       <Card>
         <ChoiceChips label="Kind of record" options={SUBJECT_OPTIONS} value={subject} onChange={setSubject} testID="audit-subject" />
@@ -68,7 +70,9 @@ export function AuditTrail() {
             {isWide ? (
               <View style={[styles.tr, styles.th]}>
                 {['When', 'Who', 'What', 'Record', 'Athlete', 'Details'].map((h, i) => (
-                  <Text key={h} variant="label" style={[styles.td, COLS[i]]}>{h}</Text>
+                  <Text key={h} variant="label" style={[styles.td, COLS[i]]}>
+                    {h}
+                  </Text>
                 ))}
               </View>
             ) : null}
@@ -94,7 +98,9 @@ function WideRow({ e }: { e: AuditRow }) {
   return (
     <View style={styles.tr} testID="audit-row">
       {cells.map((c, i) => (
-        <Text key={i} variant={i === 5 ? 'small' : 'body'} style={[styles.td, COLS[i]]}>{c}</Text>
+        <Text key={i} variant={i === 5 ? 'small' : 'body'} style={[styles.td, COLS[i]]}>
+          {c}
+        </Text>
       ))}
     </View>
   );

@@ -66,11 +66,40 @@ function Form({ settings }: { settings: CareSettingsView }) {
   return (
     <Card testID="care-settings">
       <Text variant="heading">Care settings</Text>
-      <TextField label="Send family summaries automatically after (days)" hint="Only reviewed screens go out by themselves. Leave empty to release by hand only." keyboardType="number-pad" value={form.values.autoReleaseDays} onChangeText={form.handleChange('autoReleaseDays')} error={form.errors.autoReleaseDays} />
-      <TextField label="Delete photos after photo consent is withdrawn (days)" keyboardType="number-pad" value={form.values.photoGraceDays} onChangeText={form.handleChange('photoGraceDays')} error={form.errors.photoGraceDays} />
-      <TextField label="Keep photos for (months)" keyboardType="number-pad" value={form.values.photoRetentionMonths} onChangeText={form.handleChange('photoRetentionMonths')} error={form.errors.photoRetentionMonths} />
-      <ChoiceChips label="Parents may see their own child's screening photos" options={YES_NO} value={form.values.familyPhotos as 'yes' | 'no'} onChange={(v) => form.setFieldValue('familyPhotos', v)} />
-      <ChoiceChips label="Testers may read team-only notes" options={YES_NO} value={form.values.testersReadTeamNotes as 'yes' | 'no'} onChange={(v) => form.setFieldValue('testersReadTeamNotes', v)} />
+      <TextField
+        label="Send family summaries automatically after (days)"
+        hint="Only reviewed screens go out by themselves. Leave empty to release by hand only."
+        keyboardType="number-pad"
+        value={form.values.autoReleaseDays}
+        onChangeText={form.handleChange('autoReleaseDays')}
+        error={form.errors.autoReleaseDays}
+      />
+      <TextField
+        label="Delete photos after photo consent is withdrawn (days)"
+        keyboardType="number-pad"
+        value={form.values.photoGraceDays}
+        onChangeText={form.handleChange('photoGraceDays')}
+        error={form.errors.photoGraceDays}
+      />
+      <TextField
+        label="Keep photos for (months)"
+        keyboardType="number-pad"
+        value={form.values.photoRetentionMonths}
+        onChangeText={form.handleChange('photoRetentionMonths')}
+        error={form.errors.photoRetentionMonths}
+      />
+      <ChoiceChips
+        label="Parents may see their own child's screening photos"
+        options={YES_NO}
+        value={form.values.familyPhotos as 'yes' | 'no'}
+        onChange={(v) => form.setFieldValue('familyPhotos', v)}
+      />
+      <ChoiceChips
+        label="Testers may read team-only notes"
+        options={YES_NO}
+        value={form.values.testersReadTeamNotes as 'yes' | 'no'}
+        onChange={(v) => form.setFieldValue('testersReadTeamNotes', v)}
+      />
       {form.status ? <Text>{String(form.status)}</Text> : null}
       <Button label="Save settings" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="care-settings-save" />
     </Card>

@@ -3,7 +3,13 @@ import { Text } from '@/features/ui/components/text';
 import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 
 /** A row of large single-choice buttons (radio semantics). */
-export function ChoiceChips<T extends string>({ label, options, value, onChange, testID }: {
+export function ChoiceChips<T extends string>({
+  label,
+  options,
+  value,
+  onChange,
+  testID,
+}: {
   label: string;
   options: readonly { value: T; label: string }[];
   value: T | '';
@@ -36,7 +42,15 @@ export function ChoiceChips<T extends string>({ label, options, value, onChange,
 const styles = StyleSheet.create({
   wrap: { gap: space.xs },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
-  chip: { minHeight: TOUCH_MIN, justifyContent: 'center', paddingHorizontal: space.lg, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, backgroundColor: colors.surface },
+  chip: {
+    minHeight: TOUCH_MIN,
+    justifyContent: 'center',
+    paddingHorizontal: space.lg,
+    borderRadius: radius.md,
+    borderWidth: 1,
+    borderColor: colors.line,
+    backgroundColor: colors.surface,
+  },
   selected: { backgroundColor: colors.pine, borderColor: colors.pine },
   selectedText: { color: '#fff', fontWeight: '700' },
 });

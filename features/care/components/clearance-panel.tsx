@@ -40,7 +40,9 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
   });
   return (
     <Card testID="clearance-panel">
-      <Text variant="heading" accessibilityRole="header">Clearance</Text>
+      <Text variant="heading" accessibilityRole="header">
+        Clearance
+      </Text>
       {clearance ? (
         <View style={styles.current}>
           <ClearanceBadge clearance={clearance} />
@@ -54,7 +56,13 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
       )}
       {canSet ? (
         <View style={styles.form}>
-          <ChoiceChips label="New decision" options={OPTIONS} value={form.values.status} onChange={(v) => form.setFieldValue('status', v)} testID="clearance-status" />
+          <ChoiceChips
+            label="New decision"
+            options={OPTIONS}
+            value={form.values.status}
+            onChange={(v) => form.setFieldValue('status', v)}
+            testID="clearance-status"
+          />
           {form.submitCount > 0 && form.errors.status ? <Text style={styles.error}>{form.errors.status}</Text> : null}
           {form.values.status ? (
             <TextField

@@ -86,7 +86,11 @@ function Plan({ summary }: { summary: FamilySummary }) {
     <Card testID="family-plan">
       <Text variant="heading">{`What ${summary.athleteFirstName} will work on`}</Text>
       <Text>{summary.howOften}</Text>
-      {summary.onHold ? <Notice tone="error" title="On hold for now">{summary.onHold}</Notice> : null}
+      {summary.onHold ? (
+        <Notice tone="error" title="On hold for now">
+          {summary.onHold}
+        </Notice>
+      ) : null}
       {summary.exercises.map((e) => (
         <View key={e.name} style={styles.exercise} testID="family-exercise">
           <Text variant="label">{e.name}</Text>
@@ -125,7 +129,9 @@ function Earlier({ releases }: { releases: SummaryRelease[] }) {
         <View key={r.id} style={styles.list}>
           <Text variant="label">Screen of {r.summary.screenedOn}</Text>
           {r.summary.seen.map((s) => (
-            <Text key={s} variant="small">• {s}</Text>
+            <Text key={s} variant="small">
+              • {s}
+            </Text>
           ))}
         </View>
       ))}

@@ -24,10 +24,14 @@ export function NotesPanel({ athleteId, assessmentId }: { athleteId: string; ass
   const canWrite = can(membership.role, 'note.write');
   return (
     <Card testID="notes-panel">
-      <Text variant="heading" accessibilityRole="header">Notes</Text>
+      <Text variant="heading" accessibilityRole="header">
+        Notes
+      </Text>
       {notes.error ? <Notice tone="error">{notes.error.message}</Notice> : null}
       {notes.data?.notes.length === 0 ? <Text variant="small">No notes yet.</Text> : null}
-      {notes.data?.notes.map((n) => <NoteItem key={n.id} note={n} />)}
+      {notes.data?.notes.map((n) => (
+        <NoteItem key={n.id} note={n} />
+      ))}
       {canWrite ? <NoteForm athleteId={athleteId} assessmentId={assessmentId} /> : null}
     </Card>
   );
@@ -54,9 +58,7 @@ function NoteItem({ note }: { note: NoteView }) {
       ) : (
         <Text>{note.text}</Text>
       )}
-      {note.canEdit && !editing ? (
-        <Button label={`Correct (until ${note.editableUntil.slice(11, 16)})`} tone="quiet" onPress={() => setEditing(true)} />
-      ) : null}
+      {note.canEdit && !editing ? <Button label={`Correct (until ${note.editableUntil.slice(11, 16)})`} tone="quiet" onPress={() => setEditing(true)} /> : null}
     </View>
   );
 }
@@ -88,7 +90,13 @@ function NoteForm({ athleteId, assessmentId }: { athleteId: string; assessmentId
         error={form.submitCount > 0 && form.errors.text}
         hint={`You can correct it for ${NOTE_EDIT_WINDOW_MINUTES} minutes; after that it is kept as written.`}
       />
-      <ChoiceChips label="Who may read it" options={VISIBILITY_OPTIONS} value={form.values.visibility} onChange={(v) => form.setFieldValue('visibility', v)} testID="note-visibility" />
+      <ChoiceChips
+        label="Who may read it"
+        options={VISIBILITY_OPTIONS}
+        value={form.values.visibility}
+        onChange={(v) => form.setFieldValue('visibility', v)}
+        testID="note-visibility"
+      />
       {form.submitCount > 0 && form.errors.visibility ? <Text style={styles.error}>{form.errors.visibility}</Text> : null}
       {form.status ? <Notice tone="error">{String(form.status)}</Notice> : null}
       <Button label="Add note" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="note-add" />

@@ -26,7 +26,9 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
     <View style={styles.wrap} testID="result-care">
       <StrengthHold words={c.block.blocked ? c.block.words : null} />
       <Card>
-        <Text variant="heading" accessibilityRole="header">Review and family summary</Text>
+        <Text variant="heading" accessibilityRole="header">
+          Review and family summary
+        </Text>
         <Text testID="review-state">
           {c.reviewedAt ? `Reviewed by ${c.reviewedByName ?? 'a former member'} on ${c.reviewedAt.slice(0, 10)}.` : 'Not reviewed yet.'}{' '}
           {c.releasedAt ? `Sent to the family on ${c.releasedAt.slice(0, 10)}.` : 'Not sent to the family yet.'}
@@ -71,7 +73,9 @@ function Release({ assessmentId }: { assessmentId: string }) {
   const p = preview.data.preview;
   return (
     <View style={styles.actions} testID="release-panel">
-      <Text variant="label">{p.recipients.length === 0 ? 'No parent will get an e-mail.' : `E-mail to: ${p.recipients.map((r) => `${r.displayName} <${r.email}>`).join(', ')}`}</Text>
+      <Text variant="label">
+        {p.recipients.length === 0 ? 'No parent will get an e-mail.' : `E-mail to: ${p.recipients.map((r) => `${r.displayName} <${r.email}>`).join(', ')}`}
+      </Text>
       {p.skipped.map((s) => (
         <Text key={s.displayName} variant="small">
           {s.displayName}: {s.reason}
@@ -98,6 +102,14 @@ const styles = StyleSheet.create({
   wrap: { gap: space.lg },
   actions: { gap: space.sm },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
-  preview: { borderWidth: 1, borderColor: colors.line, borderRadius: radius.md, padding: space.md, backgroundColor: colors.paper, maxHeight: 420, overflow: 'scroll' },
+  preview: {
+    borderWidth: 1,
+    borderColor: colors.line,
+    borderRadius: radius.md,
+    padding: space.md,
+    backgroundColor: colors.paper,
+    maxHeight: 420,
+    overflow: 'scroll',
+  },
   previewText: { fontSize: 15, lineHeight: 21 },
 });

@@ -16,17 +16,29 @@ export function ReviewList() {
   return (
     <View style={styles.wrap}>
       <View style={styles.head}>
-        <Text variant="title" accessibilityRole="header">To review</Text>
-        <Text variant="small">{reviews.length === 0 ? 'Nothing waiting. Well done.' : `${reviews.length} submitted ${reviews.length === 1 ? 'screen' : 'screens'}, most urgent first.`}</Text>
+        <Text variant="title" accessibilityRole="header">
+          To review
+        </Text>
+        <Text variant="small">
+          {reviews.length === 0
+            ? 'Nothing waiting. Well done.'
+            : `${reviews.length} submitted ${reviews.length === 1 ? 'screen' : 'screens'}, most urgent first.`}
+        </Text>
       </View>
       <View style={styles.list} testID="review-list">
-        {reviews.map((r) => <ReviewRow key={r.assessmentId} item={r} />)}
+        {reviews.map((r) => (
+          <ReviewRow key={r.assessmentId} item={r} />
+        ))}
       </View>
       {awaitingRelease.length > 0 ? (
         <>
-          <Text variant="heading" accessibilityRole="header">Reviewed, not yet sent to the family</Text>
+          <Text variant="heading" accessibilityRole="header">
+            Reviewed, not yet sent to the family
+          </Text>
           <View style={styles.list} testID="release-list">
-            {awaitingRelease.map((r) => <ReviewRow key={r.assessmentId} item={r} />)}
+            {awaitingRelease.map((r) => (
+              <ReviewRow key={r.assessmentId} item={r} />
+            ))}
           </View>
         </>
       ) : null}
@@ -49,7 +61,14 @@ function ReviewRow({ item }: { item: ReviewItem }) {
           <View style={styles.tags}>
             {item.painReported ? <Tag tone="stop" label="Pain reported" /> : null}
             {item.clearanceNeeded && !item.painReported ? <Tag tone="stop" label="Clearance needed" /> : null}
-            <Tag tone={item.concernCount > 0 ? 'caution' : 'info'} label={item.flagCount === 0 ? 'No flags' : `${item.flagCount} ${item.flagCount === 1 ? 'flag' : 'flags'}${item.concernCount ? `, ${item.concernCount} concern` : ''}`} />
+            <Tag
+              tone={item.concernCount > 0 ? 'caution' : 'info'}
+              label={
+                item.flagCount === 0
+                  ? 'No flags'
+                  : `${item.flagCount} ${item.flagCount === 1 ? 'flag' : 'flags'}${item.concernCount ? `, ${item.concernCount} concern` : ''}`
+              }
+            />
             <ClearanceBadge clearance={item.clearance} />
           </View>
         </View>
@@ -62,7 +81,9 @@ function ReviewRow({ item }: { item: ReviewItem }) {
 function Tag({ label, tone }: { label: string; tone: 'stop' | 'caution' | 'info' }) {
   return (
     <View style={[styles.tag, tone === 'stop' ? styles.stop : tone === 'caution' ? styles.caution : styles.info]}>
-      <Text variant="small" style={styles.tagText}>{label}</Text>
+      <Text variant="small" style={styles.tagText}>
+        {label}
+      </Text>
     </View>
   );
 }

@@ -12,7 +12,9 @@ export function ReviewsTeaser() {
   const urgent = query.data?.reviews.filter((r) => r.painReported || r.clearanceNeeded).length ?? 0;
   return (
     <Card testID="reviews-teaser">
-      <Text variant="heading">{waiting === null ? 'Reviews' : waiting === 0 ? 'Nothing to review' : `${waiting} ${waiting === 1 ? 'screen' : 'screens'} to review`}</Text>
+      <Text variant="heading">
+        {waiting === null ? 'Reviews' : waiting === 0 ? 'Nothing to review' : `${waiting} ${waiting === 1 ? 'screen' : 'screens'} to review`}
+      </Text>
       {urgent > 0 ? <Text>{`${urgent} with pain reported or clearance needed.`}</Text> : null}
       <Link href="/reviews" style={styles.link} testID="open-reviews">
         <Text variant="label">Open the review list →</Text>

@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { ageInYears, todayIso } from '@/features/athletes/age';
@@ -35,7 +36,7 @@ export function RoleHome() {
         </Text>
         <Text>{`Hello ${me.user.displayName.split(' ')[0]}. ${intro.text}`}</Text>
       </View>
-      {membership.role === 'parent' ? (
+      {!can(membership.role, 'roster.read') ? (
         <ParentChildren />
       ) : membership.role === 'physio' ? (
         <>
@@ -53,7 +54,7 @@ export function RoleHome() {
           <Text variant="label">Squad trends over the season →</Text>
         </Link>
       ) : null}
-      {membership.role !== 'parent' ? (
+      {can(membership.role, 'roster.read') ? (
         <Link href="/athletes" style={styles.link}>
           <Text variant="label">See all athletes →</Text>
         </Link>
@@ -71,9 +72,9 @@ function ParentChildren() {
     return (
       <Notice title="No child is linked to your account yet" testID="parent-no-child">
         <Text>
-          Your account is ready, but the club has not linked it to your child yet. Ask the club's admin or your child's
-          coach to link you: they open your child's page in Squadline and add you under "Parents and guardians", using
-          the e-mail address you signed in with. Your child then appears here.
+          Your account is ready, but the club has not linked it to your child yet. Ask the club&apos;s admin or your child&apos;s coach to link you: they open
+          your child&apos;s page in Squadline and add you under &quot;Parents and guardians&quot;, using the e-mail address you signed in with. Your child then
+          appears here.
         </Text>
       </Notice>
     );
@@ -89,9 +90,7 @@ function ParentChildren() {
             <Text variant="small">
               {ageInYears(a.dateOfBirth, todayIso())} years · {a.squadName ?? 'No squad'}
             </Text>
-            <Text>
-              Photos: {a.consents.photos?.granted ? 'you agreed that screening photos may be taken' : 'no photos are taken'}
-            </Text>
+            <Text>Photos: {a.consents.photos?.granted ? 'you agreed that screening photos may be taken' : 'no photos are taken'}</Text>
             <Link href={`/family/${a.id}`} style={styles.link} testID="child-summary-link">
               <Text variant="label">{`${a.firstName}'s screen summary and exercises →`}</Text>
             </Link>
@@ -102,8 +101,8 @@ function ParentChildren() {
         ))}
       </View>
       <Notice title="About screening">
-        Coaches watch a few simple movements (squats, landings, balance) to spot habits such as knees that
-        fall inward. Screening is not a medical diagnosis: if your child has pain, please see a physiotherapist or doctor.
+        Coaches watch a few simple movements (squats, landings, balance) to spot habits such as knees that fall inward. Screening is not a medical diagnosis: if
+        your child has pain, please see a physiotherapist or doctor.
       </Notice>
     </View>
   );

@@ -8,7 +8,7 @@ import type { MeasureItem } from '@/features/measuring/contract';
 import { LazyLandmarkEditor } from '@/features/screening/components/landmarks/lazy-landmark-editor';
 import type { LandmarkSet } from '@/features/screening/contract';
 import { getTask } from '@/features/screening/engine/for-screens';
-import { canScreen } from '@/features/screening/roles';
+import { can } from '@/features/access/permissions';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
@@ -29,7 +29,7 @@ function itemTitle(i: MeasureItem): string {
  */
 export function MeasuringDesk({ roundId }: { roundId?: string }) {
   const { membership } = useActiveClub();
-  if (!canScreen(membership.role)) return <Redirect href="/" />;
+  if (!can(membership.role, 'screening.write')) return <Redirect href="/" />;
   return <Desk roundId={roundId} />;
 }
 
@@ -45,7 +45,10 @@ function Desk({ roundId }: { roundId?: string }) {
   // Photos moved past in this visit (skipped, or saved with points still missing): the list goes on after them.
   const passed = useRef(new Set<string>());
 
-  const index = Math.max(0, items.findIndex((i) => i.photo.id === currentId));
+  const index = Math.max(
+    0,
+    items.findIndex((i) => i.photo.id === currentId),
+  );
   const current: MeasureItem | undefined = items[index];
 
   // Start on the first photo, and keep the points in step with the photo shown.
@@ -58,6 +61,7 @@ function Desk({ roundId }: { roundId?: string }) {
     setMarks(current?.landmarks ?? {});
     setError(null);
     // Only when another photo is shown: a refetch must not wipe points being placed.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [shownId]);
 
   const goTo = (i: number) => {

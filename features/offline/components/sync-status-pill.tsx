@@ -7,9 +7,9 @@ import { budgetText } from '../budget';
 import { outbox } from '../device';
 import { useOutboxState, usePhotoBytesOnDevice, useSyncStatus } from '../hooks';
 import type { OutboxKind } from '../outbox';
+import { syncStatusDetail, syncStatusText, type SyncStatus } from '../sync-status';
 
 const KIND_WORD: Record<OutboxKind, string> = { draft: 'Draft save', photo: 'Photo', submit: 'Submit' };
-import { syncStatusDetail, syncStatusText, type SyncStatus } from '../sync-status';
 
 const TONE: Record<SyncStatus['kind'], 'ok' | 'busy' | 'off' | 'bad'> = {
   saved: 'ok',

@@ -1,10 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/features/api/client';
-import type { InviteInput, RoleValue } from '@/features/auth/schemas';
-
-export type Member = { userId: string; displayName: string; email: string; role: RoleValue };
-/** `children`: whom a parent's invitation links when accepted (names). */
-export type PendingInvite = { email: string; role: RoleValue; expiresAt: string; children: string[] };
+import type { InviteInput } from '@/features/auth/schemas';
+import type { InviteResponse, MembersResponse } from '@/features/people/contract';
 
 export const peopleKeys = { members: (clubId: string) => ['people', clubId, 'members'] as const };
 export const MEMBERS_STALE_MS = 30 * 1000;
@@ -12,7 +9,7 @@ export const MEMBERS_STALE_MS = 30 * 1000;
 export const membersQueryOptions = (clubId: string) =>
   queryOptions({
     queryKey: peopleKeys.members(clubId),
-    queryFn: () => api<{ members: Member[]; pending: PendingInvite[] }>(`/clubs/${clubId}/members`),
+    queryFn: () => api<MembersResponse>(`/clubs/${clubId}/members`),
     staleTime: MEMBERS_STALE_MS,
   });
 
@@ -21,7 +18,7 @@ export const useMembersQuery = (clubId: string) => useQuery(membersQueryOptions(
 export function useInviteMutation(clubId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: InviteInput) => api(`/clubs/${clubId}/invitations`, { method: 'POST', json: input }),
+    mutationFn: (input: InviteInput) => api<InviteResponse>(`/clubs/${clubId}/invitations`, { method: 'POST', json: input }),
     onSuccess: () => qc.invalidateQueries({ queryKey: membersQueryOptions(clubId).queryKey }),
   });
 }

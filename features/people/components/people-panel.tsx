@@ -1,3 +1,4 @@
+import { can } from '@/features/access/permissions';
 import { Formik } from 'formik';
 import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
@@ -46,7 +47,7 @@ export function PeoplePanel() {
           </>
         ) : null}
       </Card>
-      {membership.role === 'admin' ? (
+      {can(membership.role, 'members.invite') ? (
         <Card style={isWide ? styles.col : undefined}>
           <Text variant="heading">Invite someone</Text>
           <InviteForm clubId={membership.clubId} />
@@ -76,7 +77,16 @@ function InviteForm({ clubId }: { clubId: string }) {
         <View style={styles.form}>
           {invite.isSuccess ? <Notice>Invitation sent. The link works once, for 7 days.</Notice> : null}
           {invite.error && !(invite.error instanceof ApiError && invite.error.fields) ? <Notice tone="error">{invite.error.message}</Notice> : null}
-          <TextField label="E-mail" testID="invite-email" value={values.email} onChangeText={handleChange('email')} onBlur={handleBlur('email')} autoCapitalize="none" inputMode="email" error={touched.email && errors.email} />
+          <TextField
+            label="E-mail"
+            testID="invite-email"
+            value={values.email}
+            onChangeText={handleChange('email')}
+            onBlur={handleBlur('email')}
+            autoCapitalize="none"
+            inputMode="email"
+            error={touched.email && errors.email}
+          />
           <Text variant="label">Role</Text>
           <View style={styles.choices} accessibilityRole="radiogroup">
             {ROLE_VALUES.map((r) => (
@@ -131,13 +141,27 @@ function ChildPicker({ selected, onChange, error }: { selected: string[]; onChan
       <Text variant="label">Their children</Text>
       <Text variant="small">{`The invitation names them, and links them to the parent's account when it is accepted (at most ${MAX_INVITED_CHILDREN}).`}</Text>
       {chosen.map((a) => (
-        <Pressable key={a.id} accessibilityRole="checkbox" aria-checked onPress={() => toggle(a.id)} style={[styles.choice, styles.choiceOn]} testID={`invite-child-${a.id}`}>
+        <Pressable
+          key={a.id}
+          accessibilityRole="checkbox"
+          aria-checked
+          onPress={() => toggle(a.id)}
+          style={[styles.choice, styles.choiceOn]}
+          testID={`invite-child-${a.id}`}
+        >
           <Text style={styles.choiceTextOn}>{`✓ ${a.firstName} ${a.lastName}`}</Text>
         </Pressable>
       ))}
       <TextField label="Find a child by name" testID="invite-child-filter" value={filter} onChangeText={setFilter} />
       {matches.map((a) => (
-        <Pressable key={a.id} accessibilityRole="checkbox" aria-checked={false} onPress={() => toggle(a.id)} style={styles.choice} testID={`invite-child-${a.id}`}>
+        <Pressable
+          key={a.id}
+          accessibilityRole="checkbox"
+          aria-checked={false}
+          onPress={() => toggle(a.id)}
+          style={styles.choice}
+          testID={`invite-child-${a.id}`}
+        >
           <Text>{`${a.firstName} ${a.lastName}${a.squadName ? ` · ${a.squadName}` : ''}`}</Text>
         </Pressable>
       ))}
@@ -154,7 +178,15 @@ const styles = StyleSheet.create({
   row: { gap: 2, paddingVertical: space.xs, borderBottomWidth: 1, borderBottomColor: colors.line },
   form: { gap: space.md },
   choices: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
-  choice: { minHeight: TOUCH_MIN, justifyContent: 'center', paddingHorizontal: space.md, borderRadius: radius.md, borderWidth: 2, borderColor: colors.line, backgroundColor: colors.surface },
+  choice: {
+    minHeight: TOUCH_MIN,
+    justifyContent: 'center',
+    paddingHorizontal: space.md,
+    borderRadius: radius.md,
+    borderWidth: 2,
+    borderColor: colors.line,
+    backgroundColor: colors.surface,
+  },
   choiceOn: { borderColor: colors.pine, backgroundColor: colors.pine },
   choiceTextOn: { color: '#fff' },
 });

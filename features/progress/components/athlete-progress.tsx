@@ -50,8 +50,8 @@ function ProgressBody({ progress }: { progress: ProgressResponse }) {
         ))}
       </View>
       <Text variant="small">
-        Thresholds and measuring errors come from adult studies (Herrington and Munro 2010; Munro, Herrington and Carolan
-        2012; Powden, Hoch and Hoch 2015) and are applied to juniors for want of junior figures. Screening is not a diagnosis.
+        Thresholds and measuring errors come from adult studies (Herrington and Munro 2010; Munro, Herrington and Carolan 2012; Powden, Hoch and Hoch 2015) and
+        are applied to juniors for want of junior figures. Screening is not a diagnosis.
       </Text>
     </View>
   );

@@ -5,7 +5,19 @@ import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 export type Chip<T extends string> = { value: T; label: string };
 
 /** A labelled row of choices, one selected: big enough to hit with a thumb. */
-export function Chips<T extends string>({ label, options, value, onChange, testID }: { label: string; options: Chip<T>[]; value: T; onChange: (v: T) => void; testID?: string }) {
+export function Chips<T extends string>({
+  label,
+  options,
+  value,
+  onChange,
+  testID,
+}: {
+  label: string;
+  options: Chip<T>[];
+  value: T;
+  onChange: (v: T) => void;
+  testID?: string;
+}) {
   return (
     <View style={styles.group} role="radiogroup" aria-label={label} testID={testID}>
       <Text variant="small">{label}</Text>

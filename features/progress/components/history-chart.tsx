@@ -33,11 +33,7 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
   return (
     <View style={styles.wrap} testID="history-chart">
       <Text variant="label">{series.title}</Text>
-      <View
-        onLayout={(e) => setWidth(Math.round(e.nativeEvent.layout.width))}
-        accessibilityLabel={`Chart: ${series.title}. ${summary}.`}
-        style={styles.chart}
-      >
+      <View onLayout={(e) => setWidth(Math.round(e.nativeEvent.layout.width))} accessibilityLabel={`Chart: ${series.title}. ${summary}.`} style={styles.chart}>
         {width > 0 ? (
           <VictoryChart width={width} height={170} padding={{ top: 10, bottom: 28, left: 40, right: 12 }} domain={{ x: [minX, maxX], y: domainY }}>
             {series.band ? (

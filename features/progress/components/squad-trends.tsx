@@ -67,11 +67,7 @@ export default function SquadTrends({ initialSquadId }: { initialSquadId?: strin
                   testID="compare-choice"
                 />
               </View>
-              {compareId && other.data ? (
-                <TwoSquads a={trends.data} b={other.data} />
-              ) : compareId && other.isPending ? (
-                <Text>Loading…</Text>
-              ) : null}
+              {compareId && other.data ? <TwoSquads a={trends.data} b={other.data} /> : compareId && other.isPending ? <Text>Loading…</Text> : null}
             </View>
           }
         />
@@ -112,7 +108,10 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
 
   const patterns = patternsIn(data.rounds);
   const ageGroups = AGE_GROUPS.filter((g) => data.athletes.some((a) => a.ageGroup === g));
-  const set = <K extends keyof TrendFilters>(key: K) => (value: string) => setFilters((f) => ({ ...f, [key]: value }));
+  const set =
+    <K extends keyof TrendFilters>(key: K) =>
+    (value: string) =>
+      setFilters((f) => ({ ...f, [key]: value }));
   const onSort = (key: SortKey) => {
     if (key === sort) setDescending((d) => !d);
     else {
@@ -122,44 +121,72 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
   };
 
   const active = Object.values(filters).filter(Boolean).length;
-  const controls = !isTabletUp && !showFilters ? (
-    <View style={styles.actions} {...PRINT_HIDE}>
-      <Button label={`Filter and sort${active ? ` (${active} on)` : ''}`} tone="secondary" testID="toggle-filters" onPress={() => setShowFilters(true)} />
-      <Button label="Download CSV" tone="quiet" testID="download-csv" onPress={() => downloadFile(squadTrendsCsvUrl(data.squad.id, filters))} />
-    </View>
-  ) : (
-    <View style={[styles.filters, isWide && styles.filtersWide]} {...PRINT_HIDE} testID="trend-filters">
-      <Chips label="Sex" value={filters.sex} onChange={set('sex')} testID="filter-sex" options={[{ value: '', label: 'All' }, { value: 'female' as Sex, label: 'Female' }, { value: 'male' as Sex, label: 'Male' }]} />
-      <Chips label="Age group" value={filters.ageGroup} onChange={set('ageGroup')} testID="filter-age" options={[{ value: '', label: 'All' }, ...ageGroups.map((g) => ({ value: g, label: g }))]} />
-      <Chips
-        label="Maturity band"
-        value={filters.maturityBand}
-        onChange={set('maturityBand')}
-        testID="filter-band"
-        options={[{ value: '', label: 'All' }, ...(['pre', 'circa', 'post', 'unknown'] as (MaturityBand | 'unknown')[]).map((b) => ({ value: b, label: BAND_LABELS[b] }))]}
-      />
-      <Chips
-        label="Latest flag"
-        value={filters.flag}
-        onChange={set('flag')}
-        testID="filter-flag"
-        options={[
-          { value: '', label: 'All' },
-          { value: 'any', label: 'Any flag' },
-          { value: 'none', label: 'No flag' },
-          ...(Object.keys(PATTERN_SHORT) as PatternId[]).filter((p) => patterns.includes(p) || data.athletes.some((a) => Object.values(a.latestFlags).flat().includes(p))).map((p) => ({ value: p, label: PATTERN_SHORT[p] })),
-        ]}
-      />
-      {!isWide ? (
-        <Chips label="Sort by" value={sort} onChange={(k) => onSort(k)} testID="sort-choice" options={(Object.keys(SORT_LABELS) as SortKey[]).map((k) => ({ value: k, label: SORT_LABELS[k] }))} />
-      ) : null}
-      <View style={styles.actions}>
-        <Button label="Download CSV" tone="secondary" testID="download-csv" onPress={() => downloadFile(squadTrendsCsvUrl(data.squad.id, filters))} />
-        {canPrint ? <Button label="Print one-page report" tone="quiet" testID="print-report" onPress={printPage} /> : null}
-        {!isTabletUp ? <Button label="Done" tone="quiet" testID="toggle-filters" onPress={() => setShowFilters(false)} /> : null}
+  const controls =
+    !isTabletUp && !showFilters ? (
+      <View style={styles.actions} {...PRINT_HIDE}>
+        <Button label={`Filter and sort${active ? ` (${active} on)` : ''}`} tone="secondary" testID="toggle-filters" onPress={() => setShowFilters(true)} />
+        <Button label="Download CSV" tone="quiet" testID="download-csv" onPress={() => downloadFile(squadTrendsCsvUrl(data.squad.id, filters))} />
       </View>
-    </View>
-  );
+    ) : (
+      <View style={[styles.filters, isWide && styles.filtersWide]} {...PRINT_HIDE} testID="trend-filters">
+        <Chips
+          label="Sex"
+          value={filters.sex}
+          onChange={set('sex')}
+          testID="filter-sex"
+          options={[
+            { value: '', label: 'All' },
+            { value: 'female' as Sex, label: 'Female' },
+            { value: 'male' as Sex, label: 'Male' },
+          ]}
+        />
+        <Chips
+          label="Age group"
+          value={filters.ageGroup}
+          onChange={set('ageGroup')}
+          testID="filter-age"
+          options={[{ value: '', label: 'All' }, ...ageGroups.map((g) => ({ value: g, label: g }))]}
+        />
+        <Chips
+          label="Maturity band"
+          value={filters.maturityBand}
+          onChange={set('maturityBand')}
+          testID="filter-band"
+          options={[
+            { value: '', label: 'All' },
+            ...(['pre', 'circa', 'post', 'unknown'] as (MaturityBand | 'unknown')[]).map((b) => ({ value: b, label: BAND_LABELS[b] })),
+          ]}
+        />
+        <Chips
+          label="Latest flag"
+          value={filters.flag}
+          onChange={set('flag')}
+          testID="filter-flag"
+          options={[
+            { value: '', label: 'All' },
+            { value: 'any', label: 'Any flag' },
+            { value: 'none', label: 'No flag' },
+            ...(Object.keys(PATTERN_SHORT) as PatternId[])
+              .filter((p) => patterns.includes(p) || data.athletes.some((a) => Object.values(a.latestFlags).flat().includes(p)))
+              .map((p) => ({ value: p, label: PATTERN_SHORT[p] })),
+          ]}
+        />
+        {!isWide ? (
+          <Chips
+            label="Sort by"
+            value={sort}
+            onChange={(k) => onSort(k)}
+            testID="sort-choice"
+            options={(Object.keys(SORT_LABELS) as SortKey[]).map((k) => ({ value: k, label: SORT_LABELS[k] }))}
+          />
+        ) : null}
+        <View style={styles.actions}>
+          <Button label="Download CSV" tone="secondary" testID="download-csv" onPress={() => downloadFile(squadTrendsCsvUrl(data.squad.id, filters))} />
+          {canPrint ? <Button label="Print one-page report" tone="quiet" testID="print-report" onPress={printPage} /> : null}
+          {!isTabletUp ? <Button label="Done" tone="quiet" testID="toggle-filters" onPress={() => setShowFilters(false)} /> : null}
+        </View>
+      </View>
+    );
 
   const table = (
     <View style={styles.stack}>
@@ -176,7 +203,13 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
       {kneeIds.length ? (
         <>
           <View {...PRINT_HIDE}>
-            <Chips label="Knee angle shown" value={kneeId} onChange={setKneeId} testID="knee-choice" options={kneeIds.map((k) => ({ value: k, label: kneeAngleName(k) }))} />
+            <Chips
+              label="Knee angle shown"
+              value={kneeId}
+              onChange={setKneeId}
+              testID="knee-choice"
+              options={kneeIds.map((k) => ({ value: k, label: kneeAngleName(k) }))}
+            />
           </View>
           <KneeDistributionChart rounds={data.rounds} measurementId={kneeId} name={kneeAngleName(kneeId)} />
           {screenedRounds.length >= 2 ? (
@@ -185,7 +218,9 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
                 <Chips label="From round" value={fromId} onChange={setFromId} options={screenedRounds.map((r) => ({ value: r.id, label: r.name }))} />
                 <Chips label="To round" value={toId} onChange={setToId} options={screenedRounds.map((r) => ({ value: r.id, label: r.name }))} />
               </View>
-              {from && to && from.id !== to.id ? <ChangeChart athletes={rows} rounds={data.rounds} from={from} to={to} measurementId={kneeId} name={kneeAngleName(kneeId)} /> : null}
+              {from && to && from.id !== to.id ? (
+                <ChangeChart athletes={rows} rounds={data.rounds} from={from} to={to} measurementId={kneeId} name={kneeAngleName(kneeId)} />
+              ) : null}
             </>
           ) : null}
         </>
@@ -209,8 +244,8 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
       )}
       {compare}
       <Text variant="small">
-        Flags use adult norms (Herrington and Munro 2010) applied to juniors; a change counts only beyond the smallest detectable
-        difference of Munro, Herrington and Carolan 2012. Screening is not a diagnosis: refer pain to a physiotherapist or doctor.
+        Flags use adult norms (Herrington and Munro 2010) applied to juniors; a change counts only beyond the smallest detectable difference of Munro,
+        Herrington and Carolan 2012. Screening is not a diagnosis: refer pain to a physiotherapist or doctor.
       </Text>
     </View>
   );

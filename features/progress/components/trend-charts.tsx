@@ -13,7 +13,19 @@ import { NumbersTable } from './numbers-table';
 const pct = (n: number | null) => (n === null ? '–' : `${Math.round(n * 100)}%`);
 const r1 = (n: number) => Math.round(n * 10) / 10;
 
-function ChartFrame({ title, note, children, table, testID }: { title: string; note?: string; children: (width: number) => ReactNode; table: ReactNode; testID?: string }) {
+function ChartFrame({
+  title,
+  note,
+  children,
+  table,
+  testID,
+}: {
+  title: string;
+  note?: string;
+  children: (width: number) => ReactNode;
+  table: ReactNode;
+  testID?: string;
+}) {
   const [width, setWidth] = useState(0);
   return (
     <View style={styles.frame} testID={testID}>
@@ -54,8 +66,18 @@ export function FlagShareChart({ rounds, title, testID }: { rounds: TrendRound[]
           <Text variant="small">No screen submitted yet.</Text>
         ) : (
           <View>
-            <VictoryChart width={width} height={190} padding={{ top: 10, bottom: 30, left: 42, right: 12 }} domain={{ x: [-0.3, Math.max(1, rounds.length - 1) + 0.3], y: [0, 1] }}>
-              <VictoryAxis offsetY={30} tickValues={rounds.map((_, i) => i)} tickFormat={(i: number) => (rounds[i] ? shortDate(rounds[i].screenedOn) : '')} style={AXIS_STYLE} />
+            <VictoryChart
+              width={width}
+              height={190}
+              padding={{ top: 10, bottom: 30, left: 42, right: 12 }}
+              domain={{ x: [-0.3, Math.max(1, rounds.length - 1) + 0.3], y: [0, 1] }}
+            >
+              <VictoryAxis
+                offsetY={30}
+                tickValues={rounds.map((_, i) => i)}
+                tickFormat={(i: number) => (rounds[i] ? shortDate(rounds[i].screenedOn) : '')}
+                style={AXIS_STYLE}
+              />
               <VictoryAxis dependentAxis offsetX={42} tickValues={[0, 0.25, 0.5, 0.75, 1]} tickFormat={(v: number) => `${v * 100}%`} style={AXIS_STYLE} />
               {patterns.map((p) => {
                 const data = rounds.map((r, i) => ({ x: i, y: shareOf(r, p) })).filter((d): d is { x: number; y: number } => d.y !== null);
@@ -115,8 +137,18 @@ export function KneeDistributionChart({ rounds, measurementId, name }: { rounds:
         points.length === 0 ? (
           <Text variant="small">No knee angle of this task yet.</Text>
         ) : (
-          <VictoryChart width={width} height={190} padding={{ top: 10, bottom: 30, left: 42, right: 12 }} domain={{ x: [-0.5, Math.max(1, rounds.length - 1) + 0.5] }}>
-            <VictoryAxis offsetY={30} tickValues={rounds.map((_, i) => i)} tickFormat={(i: number) => (rounds[i] ? shortDate(rounds[i].screenedOn) : '')} style={AXIS_STYLE} />
+          <VictoryChart
+            width={width}
+            height={190}
+            padding={{ top: 10, bottom: 30, left: 42, right: 12 }}
+            domain={{ x: [-0.5, Math.max(1, rounds.length - 1) + 0.5] }}
+          >
+            <VictoryAxis
+              offsetY={30}
+              tickValues={rounds.map((_, i) => i)}
+              tickFormat={(i: number) => (rounds[i] ? shortDate(rounds[i].screenedOn) : '')}
+              style={AXIS_STYLE}
+            />
             <VictoryAxis dependentAxis offsetX={42} tickFormat={(v: number) => `${v}°`} style={AXIS_STYLE} />
             <VictoryScatter data={points} size={3} style={{ data: { fill: colors.pine, opacity: 0.55 } }} />
             <VictoryScatter data={medians} symbol="minus" size={6} style={{ data: { fill: colors.ink, stroke: colors.ink, strokeWidth: 3 } }} />
@@ -128,7 +160,21 @@ export function KneeDistributionChart({ rounds, measurementId, name }: { rounds:
 }
 
 /** Change in one knee angle per athlete between two rounds, against the published error band. */
-export function ChangeChart({ athletes, rounds, from, to, measurementId, name }: { athletes: TrendAthlete[]; rounds: TrendRound[]; from: TrendRound; to: TrendRound; measurementId: string; name: string }) {
+export function ChangeChart({
+  athletes,
+  rounds,
+  from,
+  to,
+  measurementId,
+  name,
+}: {
+  athletes: TrendAthlete[];
+  rounds: TrendRound[];
+  from: TrendRound;
+  to: TrendRound;
+  measurementId: string;
+  name: string;
+}) {
   const margin = ERROR_MARGINS.fppa!;
   const fromIndex = rounds.indexOf(from);
   const toIndex = rounds.indexOf(to);
@@ -161,7 +207,13 @@ export function ChangeChart({ athletes, rounds, from, to, measurementId, name }:
         rows.length === 0 ? (
           <Text variant="small">Nobody has this knee angle in both rounds.</Text>
         ) : (
-          <VictoryChart horizontal width={width} height={height} padding={{ top: 10, bottom: 30, left: 80, right: 16 }} domain={{ x: [0.4, rows.length + 0.6], y: [-maxAbs, maxAbs] }}>
+          <VictoryChart
+            horizontal
+            width={width}
+            height={height}
+            padding={{ top: 10, bottom: 30, left: 80, right: 16 }}
+            domain={{ x: [0.4, rows.length + 0.6], y: [-maxAbs, maxAbs] }}
+          >
             <VictoryArea
               data={[
                 { x: 0.4, y: margin.value, y0: -margin.value },

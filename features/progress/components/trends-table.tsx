@@ -17,7 +17,12 @@ const COLUMNS: Col[] = [
   { key: null, label: 'Flags right', flex: 1.2, cell: (a) => list(a.latestFlags.right) },
   { key: null, label: 'Other flags', flex: 1.2, cell: (a) => list([...a.latestFlags.both, ...a.latestFlags.unsided]) },
   { key: 'clearance', label: 'Clearance', flex: 1.1, cell: (a) => a.clearance ?? '–' },
-  { key: 'daysSinceLastScreen', label: 'Last screen', flex: 0.9, cell: (a) => (a.daysSinceLastScreen === null ? 'Never' : `${a.daysSinceLastScreen} days ago`) },
+  {
+    key: 'daysSinceLastScreen',
+    label: 'Last screen',
+    flex: 0.9,
+    cell: (a) => (a.daysSinceLastScreen === null ? 'Never' : `${a.daysSinceLastScreen} days ago`),
+  },
   { key: 'rescreenDue', label: 'Re-screen', flex: 0.9, cell: (a) => (a.rescreenDue ? 'Due' : `from ${a.rescreenDate}`) },
 ];
 

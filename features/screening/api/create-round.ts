@@ -5,8 +5,7 @@ import type { CreateRoundInput, RoundSummary } from '@/features/screening/contra
 import { screeningKeys } from './keys';
 
 /** The server answers with the new round (alone or with its athletes); only the round is read here. */
-export const createRound = (input: CreateRoundInput) =>
-  api<{ round: RoundSummary }>('/rounds', { method: 'POST', json: input });
+export const createRound = (input: CreateRoundInput) => api<{ round: RoundSummary }>('/rounds', { method: 'POST', json: input });
 
 export function useCreateRoundMutation() {
   const qc = useQueryClient();

@@ -3,7 +3,7 @@ import { api } from '@/features/api/client';
 import { deviceBacked } from '@/features/offline/device-cache';
 import { useActiveClub } from '@/features/session/active-club';
 import type { AssessmentDetail } from '@/features/screening/contract';
-import { canScreen } from '@/features/screening/roles';
+import { can } from '@/features/access/permissions';
 import { ASSESSMENT_STALE_MS, assessmentKeptKey, screeningKeys } from './keys';
 
 export const getAssessment = (id: string) => api<AssessmentDetail>(`/assessments/${encodeURIComponent(id)}`);
@@ -13,11 +13,16 @@ export const assessmentQueryOptions = (clubId: string, id: string, keep = false)
   queryOptions({
     queryKey: screeningKeys.assessment(clubId, id),
     queryFn: () =>
-      deviceBacked(assessmentKeptKey(id), clubId, () => getAssessment(id), (d) => (keep ? { roundId: d.roundId } : null)),
+      deviceBacked(
+        assessmentKeptKey(id),
+        clubId,
+        () => getAssessment(id),
+        (d) => (keep ? { roundId: d.roundId } : null),
+      ),
     staleTime: ASSESSMENT_STALE_MS,
   });
 
 export function useAssessmentQuery(id: string) {
   const { membership } = useActiveClub();
-  return useQuery(assessmentQueryOptions(membership.clubId, id, canScreen(membership.role)));
+  return useQuery(assessmentQueryOptions(membership.clubId, id, can(membership.role, 'screening.write')));
 }

@@ -3,7 +3,7 @@ import { api } from '@/features/api/client';
 import { deviceBacked } from '@/features/offline/device-cache';
 import { useActiveClub } from '@/features/session/active-club';
 import type { RoundDetail } from '@/features/screening/contract';
-import { canScreen } from '@/features/screening/roles';
+import { can } from '@/features/access/permissions';
 import { ROUNDS_STALE_MS, roundKeptKey, screeningKeys } from './keys';
 
 export const getRound = (id: string) => api<RoundDetail>(`/rounds/${encodeURIComponent(id)}`);
@@ -15,11 +15,17 @@ export const getRound = (id: string) => api<RoundDetail>(`/rounds/${encodeURICom
 export const roundQueryOptions = (clubId: string, id: string, keep = false) =>
   queryOptions({
     queryKey: screeningKeys.round(clubId, id),
-    queryFn: () => deviceBacked(roundKeptKey(id), clubId, () => getRound(id), () => (keep ? { roundId: id } : null)),
+    queryFn: () =>
+      deviceBacked(
+        roundKeptKey(id),
+        clubId,
+        () => getRound(id),
+        () => (keep ? { roundId: id } : null),
+      ),
     staleTime: ROUNDS_STALE_MS,
   });
 
 export function useRoundQuery(id: string) {
   const { membership } = useActiveClub();
-  return useQuery(roundQueryOptions(membership.clubId, id, canScreen(membership.role)));
+  return useQuery(roundQueryOptions(membership.clubId, id, can(membership.role, 'screening.write')));
 }

@@ -9,8 +9,7 @@ import { ROUNDS_STALE_MS, screeningKeys } from './keys';
 /** Every round of the active club (GET /api/rounds without a squad). */
 export const getRounds = () => api<{ rounds: RoundSummary[] }>('/rounds');
 
-export const roundsQueryOptions = (clubId: string) =>
-  queryOptions({ queryKey: screeningKeys.rounds(clubId), queryFn: getRounds, staleTime: ROUNDS_STALE_MS });
+export const roundsQueryOptions = (clubId: string) => queryOptions({ queryKey: screeningKeys.rounds(clubId), queryFn: getRounds, staleTime: ROUNDS_STALE_MS });
 
 export function useRoundsQuery() {
   const { membership } = useActiveClub();

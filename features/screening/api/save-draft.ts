@@ -1,5 +1,6 @@
-import { api, ApiError } from '@/features/api/client';
-import type { AssessmentDraft } from '@/features/screening/contract';
+import { api, type ApiError } from '@/features/api/client';
+import { conflictCurrent } from '@/features/api/contract';
+import type { AssessmentDraft, DraftConflictCurrent, SaveDraftResponse } from '@/features/screening/contract';
 
 /** Headers of a change sent from the device's outbox: its idempotency key and its club. */
 export function sentFromDevice(options: { idempotencyKey?: string; clubId?: string }): Record<string, string> {
@@ -21,36 +22,19 @@ export async function saveDraft(
   const json = { draftVersion, draft };
   // keepalive lets a save finish while the page is hidden, but browsers cap its body at 64 KB.
   const keepalive = options.keepalive === true && JSON.stringify(json).length < 60_000;
-  const res = await api<{ draftVersion?: number; assessment?: { draftVersion?: number } } | undefined>(
-    `/assessments/${encodeURIComponent(id)}`,
-    { method: 'PUT', json, keepalive, headers: sentFromDevice(options) },
-  );
+  const res = await api<(Partial<SaveDraftResponse> & { assessment?: { draftVersion?: number } }) | undefined>(`/assessments/${encodeURIComponent(id)}`, {
+    method: 'PUT',
+    json,
+    keepalive,
+    headers: sentFromDevice(options),
+  });
   const next = res?.draftVersion ?? res?.assessment?.draftVersion;
   // A server that answers without the version still accepted the save: the next version is ours + 1.
   return { draftVersion: typeof next === 'number' ? next : draftVersion + 1 };
 }
 
-function asServerDraft(v: unknown): ServerDraft | null {
-  if (typeof v !== 'object' || v === null) return null;
-  const o = v as Record<string, unknown>;
-  if (typeof o.draftVersion === 'number' && typeof o.draft === 'object' && o.draft !== null) {
-    return { draft: o.draft as AssessmentDraft, draftVersion: o.draftVersion };
-  }
-  return null;
-}
-
-/** The server's current draft from a 409 body, wherever the server put it; null when it is not there. */
+/** The server's current draft from a 409 `draft_conflict` body (`ConflictBody<DraftConflictCurrent>`). */
 export function serverDraftFromConflict(error: ApiError): ServerDraft | null {
-  const body = error.body as Record<string, unknown> | undefined;
-  if (!body) return null;
-  const err = body.error as Record<string, unknown> | undefined;
-  return (
-    asServerDraft(body) ??
-    asServerDraft(body.current) ??
-    asServerDraft(body.assessment) ??
-    asServerDraft(err) ??
-    asServerDraft(err?.current) ??
-    asServerDraft(err?.details) ??
-    null
-  );
+  const current = conflictCurrent<DraftConflictCurrent>(error.body);
+  return current ? { draft: current.draft, draftVersion: current.draftVersion } : null;
 }

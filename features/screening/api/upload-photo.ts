@@ -18,10 +18,9 @@ export async function uploadPhoto(
   if ('blob' in input.file) form.append('photo', input.file.blob, input.file.name);
   // React Native's FormData takes a file description instead of a Blob.
   else form.append('photo', input.file as unknown as Blob);
-  const res = await upload<PhotoView | { photo: PhotoView }>(
-    `/assessments/${encodeURIComponent(assessmentId)}/photos`,
-    form,
-    { onProgress, headers: sentFromDevice(device) },
-  );
+  const res = await upload<PhotoView | { photo: PhotoView }>(`/assessments/${encodeURIComponent(assessmentId)}/photos`, form, {
+    onProgress,
+    headers: sentFromDevice(device),
+  });
   return 'photo' in res ? res.photo : res;
 }

@@ -1,9 +1,9 @@
+import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { useAthleteAssessmentsQuery } from '@/features/screening/api/get-athlete-assessments';
 import type { AthleteAssessmentItem } from '@/features/screening/contract';
 import type { Flag } from '@/features/screening/engine';
-import { canReadScreening, canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
@@ -43,8 +43,8 @@ const newestFirst = (a: AthleteAssessmentItem, b: AthleteAssessmentItem) =>
 /** Every screening of the athlete, newest first, each with its flags. */
 export function AthleteAssessments({ athleteId }: { athleteId: string }) {
   const { membership } = useActiveClub();
-  if (!canReadScreening(membership.role)) return null;
-  return <AssessmentList athleteId={athleteId} screens={canScreen(membership.role)} />;
+  if (!can(membership.role, 'screening.read')) return null;
+  return <AssessmentList athleteId={athleteId} screens={can(membership.role, 'screening.write')} />;
 }
 
 function AssessmentList({ athleteId, screens }: { athleteId: string; screens: boolean }) {
@@ -82,7 +82,10 @@ function AssessmentList({ athleteId, screens }: { athleteId: string; screens: bo
                           <Text variant="small" style={styles.flagTitle}>
                             {g.flag.title}
                           </Text>
-                          {[sidesText(g.sides), g.count > 1 ? `${g.count} findings` : ''].filter(Boolean).map((t) => ` · ${t}`).join('')}
+                          {[sidesText(g.sides), g.count > 1 ? `${g.count} findings` : '']
+                            .filter(Boolean)
+                            .map((t) => ` · ${t}`)
+                            .join('')}
                         </Text>
                       </View>
                     ))}

@@ -5,12 +5,7 @@ import { colors, radius } from '@/features/ui/theme';
 export function ProgressBar({ fraction, label }: { fraction: number; label: string }) {
   const pct = Math.max(0, Math.min(1, fraction)) * 100;
   return (
-    <View
-      style={styles.track}
-      accessibilityRole="progressbar"
-      accessibilityLabel={label}
-      accessibilityValue={{ min: 0, max: 100, now: Math.round(pct) }}
-    >
+    <View style={styles.track} accessibilityRole="progressbar" accessibilityLabel={label} accessibilityValue={{ min: 0, max: 100, now: Math.round(pct) }}>
       <View style={[styles.fill, { width: `${pct}%` }]} />
     </View>
   );

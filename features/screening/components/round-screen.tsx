@@ -1,4 +1,5 @@
 import { AthleteClearanceBadge } from '@/features/care/components/clearance-badge';
+import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { useState, useSyncExternalStore } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -6,7 +7,6 @@ import { useSetRoundClosedMutation } from '@/features/screening/api/close-round'
 import { outbox } from '@/features/offline/device';
 import { useRoundQuery } from '@/features/screening/api/get-round';
 import { useKeepRoundOnDevice } from '@/features/screening/hooks/use-keep-round';
-import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import type { RoundAthlete, RoundAthleteFlag } from '@/features/screening/contract';
 import { messageOf } from '@/features/api/client';
@@ -21,14 +21,11 @@ import { RoundProgress } from './round-progress';
 import { PlainTag, SeverityTag, StatusTag } from './status-tag';
 import { formatDate } from '@/features/ui/format-date';
 
-const byName = (a: RoundAthlete, b: RoundAthlete) =>
-  a.lastName.localeCompare(b.lastName) || a.firstName.localeCompare(b.firstName);
+const byName = (a: RoundAthlete, b: RoundAthlete) => a.lastName.localeCompare(b.lastName) || a.firstName.localeCompare(b.firstName);
 
 /** Submitted: the result. Otherwise the capture screens, for those who screen; others see the result page. */
 export function assessmentHref(a: Pick<RoundAthlete, 'assessmentId' | 'status'>, screens = true): string {
-  return a.status === 'submitted' || !screens
-    ? `/screening/assessments/${a.assessmentId}/result`
-    : `/screening/assessments/${a.assessmentId}`;
+  return a.status === 'submitted' || !screens ? `/screening/assessments/${a.assessmentId}/result` : `/screening/assessments/${a.assessmentId}`;
 }
 
 /** An athlete's flags at a glance: how many of each severity, then their names, most severe first. */
@@ -36,7 +33,9 @@ function AthleteFlags({ flags, testID }: { flags: RoundAthleteFlag[]; testID: st
   if (flags.length === 0) return <PlainTag tone="info" label="No flags" />;
   const concern = flags.filter((f) => f.severity === 'concern');
   const watch = flags.filter((f) => f.severity === 'watch');
-  const names = flags.map((f) => (f.side === 'left' || f.side === 'right' ? `${f.title} (${f.side})` : f.side === 'both' ? `${f.title} (both sides)` : f.title));
+  const names = flags.map((f) =>
+    f.side === 'left' || f.side === 'right' ? `${f.title} (${f.side})` : f.side === 'both' ? `${f.title} (both sides)` : f.title,
+  );
   const shown = [...new Set(names)];
   return (
     <View style={styles.flags} testID={testID}>
@@ -58,15 +57,13 @@ function RoundClosing({ id, closed }: { id: string; closed: boolean }) {
   const mutation = useSetRoundClosedMutation(id);
   const [confirming, setConfirming] = useState(false);
   if (closed && role !== 'head_coach') return null;
-  if (!closed && !canScreen(role)) return null;
+  if (!closed && !can(role, 'screening.write')) return null;
   if (!closed && !confirming) {
     return <Button tone="secondary" label="Close this round" testID="round-close" onPress={() => setConfirming(true)} style={styles.closeButton} />;
   }
   return (
     <View style={styles.closing}>
-      {!closed ? (
-        <Text>Close the round? Its screens can then be read but not changed, until a head coach reopens it.</Text>
-      ) : null}
+      {!closed ? <Text>Close the round? Its screens can then be read but not changed, until a head coach reopens it.</Text> : null}
       <View style={styles.closingButtons}>
         <Button
           tone={closed ? 'secondary' : 'danger'}
@@ -86,7 +83,7 @@ function RoundClosing({ id, closed }: { id: string; closed: boolean }) {
 export function RoundScreen({ id }: { id: string }) {
   const round = useRoundQuery(id);
   const { isTabletUp } = useBreakpoints();
-  const screensInClub = canScreen(useActiveClub().membership.role);
+  const screensInClub = can(useActiveClub().membership.role, 'screening.write');
   usePageTitle(round.data ? round.data.round.name : 'Round');
   useKeepRoundOnDevice(round.data);
   // Submits made on this phone and not sent yet: the athlete is done here, the server has not heard.
@@ -99,7 +96,9 @@ export function RoundScreen({ id }: { id: string }) {
   // A closed round is read: every row opens the result.
   const screens = screensInClub && !closed;
   const sorted = athletes
-    .map((a) => (waitingSubmit.has(a.assessmentId) && a.status !== 'submitted' ? { ...a, status: 'submitted' as const, waiting: true } : { ...a, waiting: false }))
+    .map((a) =>
+      waitingSubmit.has(a.assessmentId) && a.status !== 'submitted' ? { ...a, status: 'submitted' as const, waiting: true } : { ...a, waiting: false },
+    )
     .sort(byName);
   const next = screens ? (sorted.find((a) => a.status === 'in_progress') ?? sorted.find((a) => a.status === 'not_started')) : undefined;
   return (
@@ -126,7 +125,7 @@ export function RoundScreen({ id }: { id: string }) {
       {screensInClub ? (
         <Link href={`/measuring?roundId=${r.id}`} style={styles.back} testID="round-measure">
           <Text variant="label" style={styles.backText}>
-            Place the points of this round's photos →
+            Place the points of this round&apos;s photos →
           </Text>
         </Link>
       ) : null}

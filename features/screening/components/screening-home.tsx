@@ -1,8 +1,8 @@
+import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { isOpenRound, useClubRoundsQuery } from '@/features/screening/api/get-rounds';
-import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
@@ -20,7 +20,7 @@ export function ScreeningHome() {
   const { membership } = useActiveClub();
   const { isWide } = useBreakpoints();
   const { squads, rounds: roundsQuery, bySquad, error } = useClubRoundsQuery();
-  const canOpen = canScreen(membership.role);
+  const canOpen = can(membership.role, 'screening.write');
   // On a phone the form waits behind one button at the top; a wide screen shows it beside the rounds.
   const [formOpen, setFormOpen] = useState(false);
   const form =
@@ -44,13 +44,7 @@ export function ScreeningHome() {
         <Text>Rounds by squad. Open a round, then screen one athlete after another.</Text>
       </View>
       {squads.isPending ? <Text>Loading squads…</Text> : null}
-      {!isWide && canOpen && squads.data ? (
-        formOpen ? (
-          form
-        ) : (
-          <Button label="Open a round" testID="open-round-start" onPress={() => setFormOpen(true)} />
-        )
-      ) : null}
+      {!isWide && canOpen && squads.data ? formOpen ? form : <Button label="Open a round" testID="open-round-start" onPress={() => setFormOpen(true)} /> : null}
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         <View style={[styles.main, isWide && styles.mainWide]}>
           {bySquad.map(({ squad, rounds }) => (
@@ -67,7 +61,13 @@ export function ScreeningHome() {
                         <Text variant="label" style={styles.roundName}>
                           {r.name}
                         </Text>
-                        {r.closedAt ? <PlainTag label="Closed" /> : isOpenRound(r) ? <PlainTag label="Open" tone="info" /> : <PlainTag label="Complete" tone="info" />}
+                        {r.closedAt ? (
+                          <PlainTag label="Closed" />
+                        ) : isOpenRound(r) ? (
+                          <PlainTag label="Open" tone="info" />
+                        ) : (
+                          <PlainTag label="Complete" tone="info" />
+                        )}
                       </View>
                       <Text variant="small">{formatDate(r.screenedOn)}</Text>
                       <RoundProgress round={r} />

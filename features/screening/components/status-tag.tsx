@@ -22,7 +22,8 @@ export function SeverityTag({ severity, count }: { severity: Severity; count?: n
   return (
     <View style={[styles.tag, severity === 'concern' ? styles.concern : styles.watch]}>
       <Text style={[styles.text, styles.textOnDark]}>
-        {severity === 'concern' ? '▲▲' : '▲'} {count !== undefined ? `${count} ` : ''}{SEVERITY_LABELS[severity]}
+        {severity === 'concern' ? '▲▲' : '▲'} {count !== undefined ? `${count} ` : ''}
+        {SEVERITY_LABELS[severity]}
       </Text>
     </View>
   );

@@ -68,6 +68,7 @@ export class DraftStore {
     return this.snapshot.ready;
   }
 
+  /** The server's version of the draft this phone last saved or merged (what a submit names). */
   get version() {
     return this.baseVersion;
   }

@@ -86,7 +86,11 @@ describe('screening battery data', () => {
   });
 
   it('every task carries a stop-on-pain safety note; the drop landing names box height and a spotter', () => {
-    for (const t of BATTERY) expect(t.safety.some((s) => /pain/i.test(s)), t.id).toBe(true);
+    for (const t of BATTERY)
+      expect(
+        t.safety.some((s) => /pain/i.test(s)),
+        t.id,
+      ).toBe(true);
     const landing = getTask('drop-landing').safety.join(' ');
     expect(landing).toMatch(/20-30 cm/);
     expect(landing).toMatch(/spotter/i);

@@ -50,17 +50,9 @@ export interface TaskSpec {
   rated: boolean;
 }
 
-const STOP_ON_PAIN =
-  'Stop at once if the athlete reports pain, record it with the pain box, and do not repeat the task.';
+const STOP_ON_PAIN = 'Stop at once if the athlete reports pain, record it with the pain box, and do not repeat the task.';
 
-const FRONT_LEGS: readonly LandmarkId[] = [
-  'right-hip',
-  'right-knee',
-  'right-ankle',
-  'left-hip',
-  'left-knee',
-  'left-ankle',
-];
+const FRONT_LEGS: readonly LandmarkId[] = ['right-hip', 'right-knee', 'right-ankle', 'left-hip', 'left-knee', 'left-ankle'];
 const SIDE_BODY: readonly LandmarkId[] = ['near-shoulder', 'near-hip', 'near-knee', 'near-ankle'];
 
 /**
@@ -93,7 +85,8 @@ function singleLegSquat(side: Side): TaskSpec {
     pair: 'single-leg-squat',
     leadLegIsRacketSide: false,
     instructions: `Stand on the ${side} leg, arms crossed on the chest, the other foot just off the floor. Squat slowly to a comfortable depth (about a quarter to half squat) and back up, five times.`,
-    lookFor: 'Over the five squats: balance and smoothness, whether the upper body stays upright, whether the pelvis stays level, and where the knee travels relative to the foot.',
+    lookFor:
+      'Over the five squats: balance and smoothness, whether the upper body stays upright, whether the pelvis stays level, and where the knee travels relative to the foot.',
     criteria: singleLegSquatCriteria(side),
     views: [
       {
@@ -179,7 +172,8 @@ export const BATTERY: readonly TaskSpec[] = [
     side: null,
     pair: null,
     leadLegIsRacketSide: false,
-    instructions: 'Feet about shoulder width, toes slightly out, arms straight out in front. Squat as deep as possible with the heels down, pause, and stand up. Three repetitions, bodyweight only.',
+    instructions:
+      'Feet about shoulder width, toes slightly out, arms straight out in front. Squat as deep as possible with the heels down, pause, and stand up. Three repetitions, bodyweight only.',
     lookFor: 'Depth, whether the heels stay down, where the knees travel, whether the weight stays even, and how far the chest tips forward.',
     criteria: [
       { id: 'squat-right-knee-in', side: 'right', indicates: 'dynamic-knee-valgus', text: 'Right knee travels inside the line of the foot.' },
@@ -250,7 +244,8 @@ export const BATTERY: readonly TaskSpec[] = [
     side: null,
     pair: null,
     leadLegIsRacketSide: true,
-    instructions: 'From a ready stance, lunge forward onto the racket-side leg as if reaching for a net shot, hold the lowest point for a second, and push back. Three repetitions.',
+    instructions:
+      'From a ready stance, lunge forward onto the racket-side leg as if reaching for a net shot, hold the lowest point for a second, and push back. Three repetitions.',
     lookFor: 'Where the front knee travels relative to the foot, and how upright the upper body stays.',
     criteria: [
       { id: 'lunge-knee-in', indicates: 'dynamic-knee-valgus', text: 'Front knee travels inside the line of the foot.' },

@@ -219,9 +219,7 @@ describe('evaluateAssessment: observed criteria', () => {
     const r = evaluateAssessment(makeAssessment({ tasks: { 'two-leg-squat': { criteria: [criterion] } } }));
     expect(r.flags.map((f) => f.id)).toEqual([flagId]);
     expect(r.flags[0]?.threshold.rowId).toBe(rowId);
-    expect(r.flags[0]?.evidence).toEqual([
-      expect.objectContaining({ kind: 'criterion', criterionId: criterion, taskId: 'two-leg-squat' }),
-    ]);
+    expect(r.flags[0]?.evidence).toEqual([expect.objectContaining({ kind: 'criterion', criterionId: criterion, taskId: 'two-leg-squat' })]);
   });
 
   it('a measured and an observed sign of the same pattern make one flag with both as evidence', () => {
@@ -413,9 +411,7 @@ describe('evaluateAssessment: plan', () => {
   });
 
   it('pain anywhere needs clearance and names the task', () => {
-    const r = evaluateAssessment(
-      makeAssessment({ tasks: { 'drop-landing': { criteria: [], painReported: true } } }),
-    );
+    const r = evaluateAssessment(makeAssessment({ tasks: { 'drop-landing': { criteria: [], painReported: true } } }));
     expect(r.plan.status).toBe('clearance-needed');
     const pain = r.plan.cautions.find((c) => c.id === 'pain-reported');
     expect(pain?.text).toMatch(/Drop landing from a low box/);
@@ -434,16 +430,39 @@ describe('evaluateAssessment: plan', () => {
 });
 
 describe('evaluateAssessment: impossible input', () => {
-  const withTask = (id: keyof AssessmentInput['tasks'], task: unknown): AssessmentInput =>
-    makeAssessment({ tasks: { [id]: task as TaskResultInput } });
+  const withTask = (id: keyof AssessmentInput['tasks'], task: unknown): AssessmentInput => makeAssessment({ tasks: { [id]: task as TaskResultInput } });
 
   it.each<[string, AssessmentInput, string]>([
-    ['coincident hip and knee', withTask('drop-landing', { criteria: [], photos: { front: { landmarks: { 'right-hip': p(1, 1), 'right-knee': p(1, 1), 'right-ankle': p(1, 9) } } } }), 'tasks.drop-landing.photos.front.landmarks.right-knee'],
-    ['shoulders below the hips in the side view', withTask('two-leg-squat', { criteria: [], photos: { side: { landmarks: { 'near-shoulder': p(500, 900), 'near-hip': p(500, 800) } } } }), 'tasks.two-leg-squat.photos.side.landmarks.near-shoulder'],
-    ['knee below the ankle in the knee-to-wall side photo', withTask('knee-to-wall-left', { criteria: [], photos: { side: { landmarks: { 'near-knee': p(500, 1100), 'near-ankle': p(500, 1000) } } } }), 'tasks.knee-to-wall-left.photos.side.landmarks.near-knee'],
-    ['right and left hips swapped', withTask('two-leg-squat', { criteria: [], photos: { front: { landmarks: { 'right-hip': p(600, 600), 'left-hip': p(400, 600) } } } }), 'tasks.two-leg-squat.photos.front.landmarks.right-hip'],
-    ['a NaN coordinate', withTask('drop-landing', { criteria: [], photos: { front: { landmarks: { 'right-hip': p(Number.NaN, 1) } } } }), 'tasks.drop-landing.photos.front.landmarks.right-hip.x'],
-    ['an unknown landmark', withTask('drop-landing', { criteria: [], photos: { front: { landmarks: { 'left-elbow': p(1, 1) } } } }), 'tasks.drop-landing.photos.front.landmarks.left-elbow'],
+    [
+      'coincident hip and knee',
+      withTask('drop-landing', { criteria: [], photos: { front: { landmarks: { 'right-hip': p(1, 1), 'right-knee': p(1, 1), 'right-ankle': p(1, 9) } } } }),
+      'tasks.drop-landing.photos.front.landmarks.right-knee',
+    ],
+    [
+      'shoulders below the hips in the side view',
+      withTask('two-leg-squat', { criteria: [], photos: { side: { landmarks: { 'near-shoulder': p(500, 900), 'near-hip': p(500, 800) } } } }),
+      'tasks.two-leg-squat.photos.side.landmarks.near-shoulder',
+    ],
+    [
+      'knee below the ankle in the knee-to-wall side photo',
+      withTask('knee-to-wall-left', { criteria: [], photos: { side: { landmarks: { 'near-knee': p(500, 1100), 'near-ankle': p(500, 1000) } } } }),
+      'tasks.knee-to-wall-left.photos.side.landmarks.near-knee',
+    ],
+    [
+      'right and left hips swapped',
+      withTask('two-leg-squat', { criteria: [], photos: { front: { landmarks: { 'right-hip': p(600, 600), 'left-hip': p(400, 600) } } } }),
+      'tasks.two-leg-squat.photos.front.landmarks.right-hip',
+    ],
+    [
+      'a NaN coordinate',
+      withTask('drop-landing', { criteria: [], photos: { front: { landmarks: { 'right-hip': p(Number.NaN, 1) } } } }),
+      'tasks.drop-landing.photos.front.landmarks.right-hip.x',
+    ],
+    [
+      'an unknown landmark',
+      withTask('drop-landing', { criteria: [], photos: { front: { landmarks: { 'left-elbow': p(1, 1) } } } }),
+      'tasks.drop-landing.photos.front.landmarks.left-elbow',
+    ],
     ['a side photo for a front-only task', withTask('drop-landing', { criteria: [], photos: { side: { landmarks: {} } } }), 'tasks.drop-landing.photos.side'],
     ['negative distance', withTask('knee-to-wall-left', { criteria: [], distanceCm: -1 }), 'tasks.knee-to-wall-left.distanceCm'],
     ['distance in mm', withTask('knee-to-wall-left', { criteria: [], distanceCm: 95 }), 'tasks.knee-to-wall-left.distanceCm'],
@@ -453,7 +472,11 @@ describe('evaluateAssessment: impossible input', () => {
     ['an unknown task', withTask('star-jump' as 'two-leg-squat', { criteria: [] }), 'tasks.star-jump'],
     ['age 0', makeAssessment({ athlete: { sex: 'male', ageYears: 0 } }), 'athlete.ageYears'],
     ['unknown sex', makeAssessment({ athlete: { sex: 'x' as 'male', ageYears: 12 } }), 'athlete.sex'],
-    ['sitting height above stature', makeAssessment({ athlete: { sex: 'male', ageYears: 12, statureCm: 120, sittingHeightCm: 125 } }), 'athlete.sittingHeightCm'],
+    [
+      'sitting height above stature',
+      makeAssessment({ athlete: { sex: 'male', ageYears: 12, statureCm: 120, sittingHeightCm: 125 } }),
+      'athlete.sittingHeightCm',
+    ],
     ['zero 1RM', makeAssessment({ oneRepMaxKg: 0 }), 'oneRepMaxKg'],
     ['pain clearance not a yes/no', makeAssessment({ options: { painCleared: 'yes' as unknown as boolean } }), 'options.painCleared'],
     ['impossible date', makeAssessment({ options: { today: '2025-02-30' } }), 'options.today'],

@@ -138,10 +138,7 @@ export const EXERCISES: readonly ExerciseSpec[] = [
     id: 'side-plank-from-knees',
     name: 'Side plank',
     purpose: 'Teach the trunk and side-hip to hold a straight line against gravity.',
-    howTo: [
-      'Lie on one side, elbow under the shoulder, knees bent.',
-      'Lift the hips so knees, hips and shoulders form a straight line, and hold.',
-    ],
+    howTo: ['Lie on one side, elbow under the shoulder, knees bent.', 'Lift the hips so knees, hips and shoulders form a straight line, and hold.'],
     cue: 'Long line, hips pushed forward.',
     commonFault: 'Hips sag or pike backwards.',
     progression: 'Straight legs, then lift the top leg.',
@@ -260,7 +257,7 @@ export const EXERCISES: readonly ExerciseSpec[] = [
     name: 'Counterbalance squat to a box',
     purpose: 'Reach full depth with the chest up, using a light weight held forward as a counterbalance.',
     howTo: [
-      'Stand in front of a box or bench, holding a light plate (2.5-5 kg) at arm\'s length in front.',
+      "Stand in front of a box or bench, holding a light plate (2.5-5 kg) at arm's length in front.",
       'Sit back and down to touch the box, pause without relaxing, and stand up.',
       'Lower the box as depth improves.',
     ],

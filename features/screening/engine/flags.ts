@@ -163,9 +163,7 @@ export function detectFlags(measurements: readonly Measurement[], observations: 
   for (const list of counted.values()) {
     const first = list[0];
     if (!first) continue;
-    const row = (ROWS_BY_METRIC.get('observed-criteria') ?? NO_ROWS).find(
-      (r) => r.pattern === first.pattern && rowApplies(r, first.taskId, sex),
-    );
+    const row = (ROWS_BY_METRIC.get('observed-criteria') ?? NO_ROWS).find((r) => r.pattern === first.pattern && rowApplies(r, first.taskId, sex));
     if (!row || !meetsThreshold(row, list.length)) continue;
     const g = groupFor(first.pattern, first.taskId, first.taskId, first.side);
     g.hits.push({ row, measured: false });

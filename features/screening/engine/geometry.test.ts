@@ -1,13 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  EngineInputError,
-  frontalPlaneProjectionAngle,
-  kneeFlexion,
-  pelvicObliquity,
-  thighAngle,
-  tibialInclination,
-  trunkLean,
-} from './index';
+import { EngineInputError, frontalPlaneProjectionAngle, kneeFlexion, pelvicObliquity, thighAngle, tibialInclination, trunkLean } from './index';
 import type { Point, Side } from './types';
 
 const DEG = 180 / Math.PI;
@@ -26,13 +18,53 @@ describe('frontalPlaneProjectionAngle', () => {
   it.each<[string, Point, Point, Point, Side, number, string]>([
     ['straight right leg', p(400, 100), p(400, 200), p(400, 300), 'right', 0, CONSTRUCTED],
     ['straight left leg', p(600, 100), p(600, 200), p(600, 300), 'left', 0, CONSTRUCTED],
-    ['right knee 10 px medial at mid-height', p(400, 100), p(410, 200), p(400, 300), 'right', 2 * Math.atan(10 / 100) * DEG, `${CONSTRUCTED}; ${FPPA_DEFINITION}`],
-    ['right knee 10 px lateral at mid-height', p(400, 100), p(390, 200), p(400, 300), 'right', -2 * Math.atan(10 / 100) * DEG, `${CONSTRUCTED}; ${FPPA_DEFINITION}`],
-    ['left knee 10 px medial at mid-height', p(600, 100), p(590, 200), p(600, 300), 'left', 2 * Math.atan(10 / 100) * DEG, `${CONSTRUCTED}; ${FPPA_DEFINITION}`],
-    ['left knee 10 px lateral at mid-height', p(600, 100), p(610, 200), p(600, 300), 'left', -2 * Math.atan(10 / 100) * DEG, `${CONSTRUCTED}; ${FPPA_DEFINITION}`],
+    [
+      'right knee 10 px medial at mid-height',
+      p(400, 100),
+      p(410, 200),
+      p(400, 300),
+      'right',
+      2 * Math.atan(10 / 100) * DEG,
+      `${CONSTRUCTED}; ${FPPA_DEFINITION}`,
+    ],
+    [
+      'right knee 10 px lateral at mid-height',
+      p(400, 100),
+      p(390, 200),
+      p(400, 300),
+      'right',
+      -2 * Math.atan(10 / 100) * DEG,
+      `${CONSTRUCTED}; ${FPPA_DEFINITION}`,
+    ],
+    [
+      'left knee 10 px medial at mid-height',
+      p(600, 100),
+      p(590, 200),
+      p(600, 300),
+      'left',
+      2 * Math.atan(10 / 100) * DEG,
+      `${CONSTRUCTED}; ${FPPA_DEFINITION}`,
+    ],
+    [
+      'left knee 10 px lateral at mid-height',
+      p(600, 100),
+      p(610, 200),
+      p(600, 300),
+      'left',
+      -2 * Math.atan(10 / 100) * DEG,
+      `${CONSTRUCTED}; ${FPPA_DEFINITION}`,
+    ],
     // Thigh vertical, ankle 10 px towards the midline: the knee sits lateral to the hip-ankle line.
     ['right shank angled medially, thigh vertical', p(400, 100), p(400, 200), p(410, 300), 'right', -Math.atan(10 / 100) * DEG, CONSTRUCTED],
-    ['right knee 30 px medial, unequal segments', p(400, 100), p(430, 250), p(400, 300), 'right', (Math.atan(30 / 150) + Math.atan(30 / 50)) * DEG, CONSTRUCTED],
+    [
+      'right knee 30 px medial, unequal segments',
+      p(400, 100),
+      p(430, 250),
+      p(400, 300),
+      'right',
+      (Math.atan(30 / 150) + Math.atan(30 / 50)) * DEG,
+      CONSTRUCTED,
+    ],
   ])('%s -> %f deg (%s)', (_name, hip, knee, ankle, side, expected, _source) => {
     expect(frontalPlaneProjectionAngle(hip, knee, ankle, side)).toBeCloseTo(expected, 9);
   });
@@ -93,7 +125,7 @@ describe('pelvicObliquity (front view, ASIS points)', () => {
     expect(pelvicObliquity(p(560, 400), p(440, 410), 'left')).toBeCloseTo(4.7636, 4);
   });
 
-  it('works unchanged from a back view, where the athlete\'s left is on the image\'s left (constructed case)', () => {
+  it("works unchanged from a back view, where the athlete's left is on the image's left (constructed case)", () => {
     const front = pelvicObliquity(p(560, 400), p(440, 410), 'left');
     const back = pelvicObliquity(p(440, 400), p(560, 410), 'left');
     expect(back).toBeCloseTo(front, 12);
@@ -131,7 +163,14 @@ describe('kneeFlexion (side view)', () => {
   it.each<[string, Point, Point, Point, number, string]>([
     ['straight leg', p(500, 100), p(500, 300), p(500, 500), 0, CONSTRUCTED],
     ['thigh horizontal, shin vertical', p(300, 300), p(500, 300), p(500, 500), 90, CONSTRUCTED],
-    ['thigh horizontal, shin 30 deg forward', p(300, 300), p(500, 300), p(500 - 200 * Math.sin(Math.PI / 6), 300 + 200 * Math.cos(Math.PI / 6)), 120, CONSTRUCTED],
+    [
+      'thigh horizontal, shin 30 deg forward',
+      p(300, 300),
+      p(500, 300),
+      p(500 - 200 * Math.sin(Math.PI / 6), 300 + 200 * Math.cos(Math.PI / 6)),
+      120,
+      CONSTRUCTED,
+    ],
     ['slight bend atan(50/200)', p(500, 100), p(550, 300), p(550, 500), Math.atan(50 / 200) * DEG, CONSTRUCTED],
   ])('%s -> %f deg (%s)', (_n, hip, knee, ankle, expected, _source) => {
     expect(kneeFlexion(hip, knee, ankle)).toBeCloseTo(expected, 9);

@@ -16,12 +16,7 @@ export function isValidPoint(p: unknown): p is Point {
   if (typeof p !== 'object' || p === null) return false;
   const { x, y } = p as { x?: unknown; y?: unknown };
   return (
-    typeof x === 'number' &&
-    typeof y === 'number' &&
-    Number.isFinite(x) &&
-    Number.isFinite(y) &&
-    Math.abs(x) <= MAX_COORDINATE &&
-    Math.abs(y) <= MAX_COORDINATE
+    typeof x === 'number' && typeof y === 'number' && Number.isFinite(x) && Number.isFinite(y) && Math.abs(x) <= MAX_COORDINATE && Math.abs(y) <= MAX_COORDINATE
   );
 }
 
@@ -84,10 +79,7 @@ export function frontalPlaneProjectionAngle(hip: Point, knee: Point, ankle: Poin
   checkDistinct('knee', k, 'ankle', a);
   checkDistinct('hip', h, 'ankle', a);
   if (!(a.y > h.y)) {
-    throw new EngineInputError(
-      'ankle',
-      'the ankle must be lower in the image than the hip (y grows downwards): check the landmarks or the photo orientation',
-    );
+    throw new EngineInputError('ankle', 'the ankle must be lower in the image than the hip (y grows downwards): check the landmarks or the photo orientation');
   }
   const thigh = sub(k, h);
   const magnitude = angleBetween(thigh, sub(a, k));

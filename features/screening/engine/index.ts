@@ -5,14 +5,7 @@
 export { ENGINE_VERSION } from './version';
 export { EngineInputError } from './errors';
 
-export {
-  frontalPlaneProjectionAngle,
-  pelvicObliquity,
-  trunkLean,
-  kneeFlexion,
-  tibialInclination,
-  thighAngle,
-} from './geometry';
+export { frontalPlaneProjectionAngle, pelvicObliquity, trunkLean, kneeFlexion, tibialInclination, thighAngle } from './geometry';
 export { limbSymmetryIndex, asymmetry } from './symmetry';
 export { maturityOffset, maturityBand, MATURITY_AGE_RANGE } from './maturity';
 export {

@@ -1,16 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import {
-  applyLimits,
-  checkExercise,
-  checkPlan,
-  evaluateAssessment,
-  EXERCISES,
-  loadRangeKg,
-  plannedFromLibrary,
-  STAGE_LIMITS,
-  YOUTH_VOLUME,
-} from './index';
+import { applyLimits, checkExercise, checkPlan, evaluateAssessment, EXERCISES, loadRangeKg, plannedFromLibrary, STAGE_LIMITS, YOUTH_VOLUME } from './index';
 import { mulberry32, randomAssessment } from './random-assessment';
 import type { AssessmentInput, AthleteInput, LoadingContext, MaturityStage, PlannedExercise } from './types';
 
@@ -171,7 +161,7 @@ describe('growth stage unknown: the plan says so and applies the cautious limits
     expect(split(r)!.prescription.sets.max).toBe(3);
   });
 
-  it('age outside the equations\' range (maturity turned off for it)', () => {
+  it("age outside the equations' range (maturity turned off for it)", () => {
     const r = evaluateAssessment({ athlete: { sex: 'female', ageYears: 17.5, statureCm: 165 }, tasks: asymmetricAnkles, options: { maturityMethod: 'none' } });
     expect(r.plan.loading).toMatchObject({ stage: 'unknown', unknownReason: 'age-outside-range' });
     expect(r.plan.cautions.find((c) => c.id === 'growth-stage-unknown')?.text).toMatch(/outside the range/);
@@ -225,7 +215,10 @@ describe('pain reported: no loaded strength work until a physiotherapist clears 
 
 describe('the editor and the server check the same limits (checkExercise / checkPlan)', () => {
   const spec = EXERCISES.find((e) => e.id === 'split-squat-endurance')!;
-  const withSets = (e: PlannedExercise, max: number): PlannedExercise => ({ ...e, prescription: { ...e.prescription, sets: { min: e.prescription.sets.min, max } } });
+  const withSets = (e: PlannedExercise, max: number): PlannedExercise => ({
+    ...e,
+    prescription: { ...e.prescription, sets: { min: e.prescription.sets.min, max } },
+  });
 
   it.each(STAGES)('stage %s: one set past the limit, and a kg load past the cap, are breaches', (stage) => {
     const ctx = ctxFor(stage);

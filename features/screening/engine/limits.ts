@@ -12,17 +12,7 @@
 import { EXERCISES } from './exercises';
 import { FAIGENBAUM_2009, LLOYD_2014, OUR_CHOICE, COMMON_PRACTICE } from './sources';
 import { LOAD_PROGRESSION, loadRangeKg, progressionStepKg, withinPercentOfOneRepMax } from './strength';
-import type {
-  AssessmentResult,
-  Certainty,
-  ExerciseSpec,
-  LoadingContext,
-  LoadRule,
-  MaturityStage,
-  PlannedExercise,
-  Prescription,
-  SourceKind,
-} from './types';
+import type { AssessmentResult, Certainty, ExerciseSpec, LoadingContext, LoadRule, MaturityStage, PlannedExercise, Prescription, SourceKind } from './types';
 
 export interface LimitBasis {
   source: string;
@@ -47,7 +37,7 @@ export const YOUTH_VOLUME = {
     source: FAIGENBAUM_2009,
     sourceKind: 'published',
     certainty: 'from memory',
-    note: '1-3 sets of 6-15 repetitions on 2-3 non-consecutive days a week (the statement\'s title is checked; its figures are from memory).',
+    note: "1-3 sets of 6-15 repetitions on 2-3 non-consecutive days a week (the statement's title is checked; its figures are from memory).",
   } satisfies LimitBasis,
 } as const;
 
@@ -277,7 +267,10 @@ export function loadRuleText(spec: ExerciseSpec, prescription: Prescription): st
   const steps = `${LOAD_PROGRESSION.minStepPercent}-${LOAD_PROGRESSION.maxStepPercent}%`;
   if (load.kind === 'percent-1rm' && load.kg) {
     const step = progressionStepKg(load.kg.min, load.kg.incrementKg);
-    const stepText = step === null ? `one ${load.kg.incrementKg} kg step is more than 10% of ${load.kg.min} kg: add repetitions first, not load` : `about ${step} kg at a time`;
+    const stepText =
+      step === null
+        ? `one ${load.kg.incrementKg} kg step is more than 10% of ${load.kg.min} kg: add repetitions first, not load`
+        : `about ${step} kg at a time`;
     return `Add load only when every repetition of every set is clean, in steps of about ${steps} (${stepText}), never above ${load.kg.max} kg (${load.maxPercent}% of 1RM). Harder variation (${spec.progression.toLowerCase().replace(/\.$/, '')}): start again at ${load.kg.min} kg. Form breaks down: back to the easier variation. Steps of ${steps}: Faigenbaum et al. 2009 (from memory).`;
   }
   return `Move to the harder variation only when every repetition of every set is clean, starting with the fewest sets and repetitions of the range; any added load starts light and grows in steps of about ${steps} (Faigenbaum et al. 2009, from memory). Form breaks down: back to the easier variation.`;
@@ -301,14 +294,26 @@ export function checkExercise(exercise: Pick<PlannedExercise, 'id' | 'prescripti
   }
   if (p.dose.kind === 'reps' && limits.maxReps !== null) {
     if (p.dose.max > limits.maxReps) {
-      add('reps', 'prescription.dose', `${spec.name}: ${range(p.dose.min, p.dose.max)} repetitions is more than the ${limits.maxReps} allowed (${stageWords(ctx)}).`);
+      add(
+        'reps',
+        'prescription.dose',
+        `${spec.name}: ${range(p.dose.min, p.dose.max)} repetitions is more than the ${limits.maxReps} allowed (${stageWords(ctx)}).`,
+      );
     }
     if (p.dose.toNearFatigue && !limits.toNearFatigue) {
-      add('near-fatigue', 'prescription.dose', `${spec.name}: sets close to fatigue are not allowed ${ctx.stage === 'unknown' ? 'while the growth stage is unknown' : stageWords(ctx)}.`);
+      add(
+        'near-fatigue',
+        'prescription.dose',
+        `${spec.name}: sets close to fatigue are not allowed ${ctx.stage === 'unknown' ? 'while the growth stage is unknown' : stageWords(ctx)}.`,
+      );
     }
   }
   if (p.perWeek > limits.maxPerWeek) {
-    add('per-week', 'prescription.perWeek', `${spec.name}: ${p.perWeek} sessions a week is more than the ${limits.maxPerWeek} allowed for strength work (2-3 non-consecutive days).`);
+    add(
+      'per-week',
+      'prescription.perWeek',
+      `${spec.name}: ${p.perWeek} sessions a week is more than the ${limits.maxPerWeek} allowed for strength work (2-3 non-consecutive days).`,
+    );
   }
   const load = p.load;
   if (load.kind === 'percent-1rm') {
@@ -320,7 +325,11 @@ export function checkExercise(exercise: Pick<PlannedExercise, 'id' | 'prescripti
         add('load', 'prescription.load', `${spec.name}: a load in kg cannot be checked without a 1RM on record.`);
       } else if (!withinPercentOfOneRepMax(load.kg.max, ctx.oneRepMaxKg, 0, Math.min(load.maxPercent, cap))) {
         const pct = Math.round((load.kg.max / ctx.oneRepMaxKg) * 1000) / 10;
-        add('load', 'prescription.load', `${spec.name}: ${load.kg.max} kg is ${pct}% of the ${ctx.oneRepMaxKg} kg 1RM, more than the ${Math.min(load.maxPercent, cap)}% allowed (${stageWords(ctx)}).`);
+        add(
+          'load',
+          'prescription.load',
+          `${spec.name}: ${load.kg.max} kg is ${pct}% of the ${ctx.oneRepMaxKg} kg 1RM, more than the ${Math.min(load.maxPercent, cap)}% allowed (${stageWords(ctx)}).`,
+        );
       }
     }
   }
@@ -329,7 +338,7 @@ export function checkExercise(exercise: Pick<PlannedExercise, 'id' | 'prescripti
 
 /** Breaches of a whole plan, and which of them the overrides do not cover. */
 export function checkPlan(
-  exercises: ReadonlyArray<Pick<PlannedExercise, 'id' | 'prescription'>>,
+  exercises: readonly Pick<PlannedExercise, 'id' | 'prescription'>[],
   ctx: LoadingContext,
   overrides: readonly LimitOverride[] = [],
 ): { breaches: LimitBreach[]; uncovered: LimitBreach[] } {

@@ -35,7 +35,7 @@ export function maturityBand(offsetYears: number): MaturityBand {
 }
 
 /** Which optional fields a method needs for a given sex (Moore 2015 uses one body measure). */
-export function maturityInputsNeeded(method: MaturityMethod, sex: Sex): ReadonlyArray<'statureCm' | 'sittingHeightCm' | 'massKg'> {
+export function maturityInputsNeeded(method: MaturityMethod, sex: Sex): readonly ('statureCm' | 'sittingHeightCm' | 'massKg')[] {
   if (method === 'mirwald2002') return ['statureCm', 'sittingHeightCm', 'massKg'];
   return sex === 'male' ? ['sittingHeightCm'] : ['statureCm'];
 }
@@ -103,17 +103,8 @@ export function maturityOffset(input: MaturityInput, method: MaturityMethod): Ma
     const massForStature = (mass / stature) * 100;
     offset =
       sex === 'male'
-        ? -9.236 +
-          0.0002708 * (leg * sh) -
-          0.001663 * (age * leg) +
-          0.007216 * (age * sh) +
-          0.02292 * massForStature
-        : -9.376 +
-          0.0001882 * (leg * sh) +
-          0.0022 * (age * leg) +
-          0.005841 * (age * sh) -
-          0.002658 * (age * mass) +
-          0.07693 * massForStature;
+        ? -9.236 + 0.0002708 * (leg * sh) - 0.001663 * (age * leg) + 0.007216 * (age * sh) + 0.02292 * massForStature
+        : -9.376 + 0.0001882 * (leg * sh) + 0.0022 * (age * leg) + 0.005841 * (age * sh) - 0.002658 * (age * mass) + 0.07693 * massForStature;
   }
 
   return {

@@ -4,14 +4,7 @@
  */
 import { pairTasks, type TaskSpec } from './battery';
 import { EngineInputError } from './errors';
-import {
-  frontalPlaneProjectionAngle,
-  kneeFlexion,
-  pelvicObliquity,
-  thighAngle,
-  tibialInclination,
-  trunkLean,
-} from './geometry';
+import { frontalPlaneProjectionAngle, kneeFlexion, pelvicObliquity, thighAngle, tibialInclination, trunkLean } from './geometry';
 import { asymmetry, limbSymmetryIndex } from './symmetry';
 import type { FlagSide, LandmarkId, Measurement, MetricId, PairId, Point, Rating, Side, SingleLegSquatArea, TaskId, TaskRating } from './types';
 import type { NormalizedAssessment, NormalizedTask } from './validate';
@@ -20,8 +13,7 @@ const SIDES: readonly Side[] = ['right', 'left'];
 const AREA_ORDER: readonly SingleLegSquatArea[] = ['overall', 'trunk', 'pelvis', 'hip', 'knee'];
 const RATING_GRADE: Record<Rating, number> = { good: 0, fair: 1, poor: 2 };
 
-export const RATING_BASIS =
-  'Our design: 0 areas with a ticked criterion = good, 1-2 areas = fair, 3-5 areas = poor. Areas after Crossley et al. 2011.';
+export const RATING_BASIS = 'Our design: 0 areas with a ticked criterion = good, 1-2 areas = fair, 3-5 areas = poor. Areas after Crossley et al. 2011.';
 
 type Scope = TaskId | PairId;
 
@@ -97,17 +89,13 @@ function fppaOf(task: NormalizedTask, side: Side, path: string): number | null {
 function trunkLateral(task: NormalizedTask, path: string): number | null {
   const p = points(task.front, ['mid-shoulder', 'mid-hip'] as const);
   if (!p) return null;
-  return onLandmarks(path, { shoulderMid: 'mid-shoulder', hipMid: 'mid-hip' }, () =>
-    trunkLean(p['mid-shoulder'], p['mid-hip'], 'front'),
-  );
+  return onLandmarks(path, { shoulderMid: 'mid-shoulder', hipMid: 'mid-hip' }, () => trunkLean(p['mid-shoulder'], p['mid-hip'], 'front'));
 }
 
 function obliquity(task: NormalizedTask, stance: Side, path: string): number | null {
   const p = points(task.front, ['left-asis', 'right-asis'] as const);
   if (!p) return null;
-  return onLandmarks(path, { leftPelvis: 'left-asis', rightPelvis: 'right-asis' }, () =>
-    pelvicObliquity(p['left-asis'], p['right-asis'], stance),
-  );
+  return onLandmarks(path, { leftPelvis: 'left-asis', rightPelvis: 'right-asis' }, () => pelvicObliquity(p['left-asis'], p['right-asis'], stance));
 }
 
 interface SideView {
@@ -125,14 +113,10 @@ function sideView(task: NormalizedTask, path: string): SideView {
   const thighPts = points(s, ['near-hip', 'near-knee'] as const);
   const legNames = { hip: 'near-hip', knee: 'near-knee', ankle: 'near-ankle' } as const;
   return {
-    kneeFlexion: leg
-      ? onLandmarks(path, legNames, () => kneeFlexion(leg['near-hip'], leg['near-knee'], leg['near-ankle']))
-      : null,
+    kneeFlexion: leg ? onLandmarks(path, legNames, () => kneeFlexion(leg['near-hip'], leg['near-knee'], leg['near-ankle'])) : null,
     tibia: shin ? onLandmarks(path, legNames, () => tibialInclination(shin['near-knee'], shin['near-ankle'])) : null,
     trunk: body
-      ? onLandmarks(path, { shoulderMid: 'near-shoulder', hipMid: 'near-hip' }, () =>
-          trunkLean(body['near-shoulder'], body['near-hip'], 'side'),
-        )
+      ? onLandmarks(path, { shoulderMid: 'near-shoulder', hipMid: 'near-hip' }, () => trunkLean(body['near-shoulder'], body['near-hip'], 'side'))
       : null,
     thigh: thighPts ? onLandmarks(path, legNames, () => thighAngle(thighPts['near-hip'], thighPts['near-knee'])) : null,
   };
@@ -146,16 +130,40 @@ function measureTwoLegSquat(t: NormalizedTask, out: Draft[]): void {
     const v = fppaOf(t, side, front);
     if (v === null) continue;
     fppa[side] = v;
-    out.push({ scope: id, metric: 'fppa', taskId: id, side, value: v, unit: 'deg', label: `Knee angle from the front (FPPA), ${side} leg, lowest point of the squat` });
+    out.push({
+      scope: id,
+      metric: 'fppa',
+      taskId: id,
+      side,
+      value: v,
+      unit: 'deg',
+      label: `Knee angle from the front (FPPA), ${side} leg, lowest point of the squat`,
+    });
   }
   if (fppa.left !== undefined && fppa.right !== undefined) {
-    out.push({ scope: id, metric: 'fppa-difference', taskId: id, side: largerSide(fppa.left, fppa.right), value: asymmetry(fppa.left, fppa.right), unit: 'deg', label: 'Left-right difference in knee angle from the front (FPPA), squat' });
+    out.push({
+      scope: id,
+      metric: 'fppa-difference',
+      taskId: id,
+      side: largerSide(fppa.left, fppa.right),
+      value: asymmetry(fppa.left, fppa.right),
+      unit: 'deg',
+      label: 'Left-right difference in knee angle from the front (FPPA), squat',
+    });
   }
   const tilt = obliquity(t, 'left', front);
   if (tilt !== null) {
     // With stance 'left', a positive obliquity means the right side is lower.
     const lower: FlagSide = tilt > 0 ? 'right' : tilt < 0 ? 'left' : 'both';
-    out.push({ scope: id, metric: 'pelvic-tilt', taskId: id, side: lower, value: Math.abs(tilt), unit: 'deg', label: 'Pelvis out of level at the lowest point of the squat (side = lower side)' });
+    out.push({
+      scope: id,
+      metric: 'pelvic-tilt',
+      taskId: id,
+      side: lower,
+      value: Math.abs(tilt),
+      unit: 'deg',
+      label: 'Pelvis out of level at the lowest point of the squat (side = lower side)',
+    });
   }
   const lateral = trunkLateral(t, front);
   if (lateral !== null) {
@@ -163,7 +171,15 @@ function measureTwoLegSquat(t: NormalizedTask, out: Draft[]): void {
   }
   const sv = sideView(t, `tasks.${id}.photos.side.landmarks`);
   if (sv.kneeFlexion !== null) {
-    out.push({ scope: id, metric: 'knee-flexion', taskId: id, side: null, value: sv.kneeFlexion, unit: 'deg', label: 'Knee bend at the lowest point of the squat' });
+    out.push({
+      scope: id,
+      metric: 'knee-flexion',
+      taskId: id,
+      side: null,
+      value: sv.kneeFlexion,
+      unit: 'deg',
+      label: 'Knee bend at the lowest point of the squat',
+    });
   }
   if (sv.tibia !== null) {
     out.push({ scope: id, metric: 'tibial-inclination', taskId: id, side: null, value: sv.tibia, unit: 'deg', label: 'Shin angle from vertical, squat' });
@@ -172,10 +188,26 @@ function measureTwoLegSquat(t: NormalizedTask, out: Draft[]): void {
     out.push({ scope: id, metric: 'trunk-lean-forward', taskId: id, side: null, value: sv.trunk, unit: 'deg', label: 'Forward trunk lean, squat' });
   }
   if (sv.thigh !== null) {
-    out.push({ scope: id, metric: 'thigh-angle', taskId: id, side: 'both', value: sv.thigh, unit: 'deg', label: 'Thigh angle above horizontal at the lowest point (0 = level, below 0 = deeper)' });
+    out.push({
+      scope: id,
+      metric: 'thigh-angle',
+      taskId: id,
+      side: 'both',
+      value: sv.thigh,
+      unit: 'deg',
+      label: 'Thigh angle above horizontal at the lowest point (0 = level, below 0 = deeper)',
+    });
   }
   if (sv.trunk !== null && sv.tibia !== null) {
-    out.push({ scope: id, metric: 'trunk-tibia-difference', taskId: id, side: null, value: sv.trunk - sv.tibia, unit: 'deg', label: 'Trunk lean minus shin angle, squat (0 = trunk parallel to shin)' });
+    out.push({
+      scope: id,
+      metric: 'trunk-tibia-difference',
+      taskId: id,
+      side: null,
+      value: sv.trunk - sv.tibia,
+      unit: 'deg',
+      label: 'Trunk lean minus shin angle, squat (0 = trunk parallel to shin)',
+    });
   }
 }
 
@@ -184,15 +216,39 @@ function measureSingleLegSquat(t: NormalizedTask, side: Side, out: Draft[]): voi
   const front = `tasks.${id}.photos.front.landmarks`;
   const fppa = fppaOf(t, side, front);
   if (fppa !== null) {
-    out.push({ scope: id, metric: 'fppa', taskId: id, side, value: fppa, unit: 'deg', label: `Knee angle from the front (FPPA), single-leg squat, ${side} leg` });
+    out.push({
+      scope: id,
+      metric: 'fppa',
+      taskId: id,
+      side,
+      value: fppa,
+      unit: 'deg',
+      label: `Knee angle from the front (FPPA), single-leg squat, ${side} leg`,
+    });
   }
   const drop = obliquity(t, side, front);
   if (drop !== null) {
-    out.push({ scope: id, metric: 'pelvic-obliquity', taskId: id, side, value: drop, unit: 'deg', label: `Pelvic drop on the free-leg side, single-leg squat on the ${side} leg` });
+    out.push({
+      scope: id,
+      metric: 'pelvic-obliquity',
+      taskId: id,
+      side,
+      value: drop,
+      unit: 'deg',
+      label: `Pelvic drop on the free-leg side, single-leg squat on the ${side} leg`,
+    });
   }
   const lateral = trunkLateral(t, front);
   if (lateral !== null) {
-    out.push({ scope: id, metric: 'trunk-lean-lateral', taskId: id, side, value: lateral, unit: 'deg', label: `Sideways trunk lean, single-leg squat on the ${side} leg` });
+    out.push({
+      scope: id,
+      metric: 'trunk-lean-lateral',
+      taskId: id,
+      side,
+      value: lateral,
+      unit: 'deg',
+      label: `Sideways trunk lean, single-leg squat on the ${side} leg`,
+    });
   }
 }
 
@@ -204,10 +260,26 @@ function measureDropLanding(t: NormalizedTask, out: Draft[]): void {
     const v = fppaOf(t, side, front);
     if (v === null) continue;
     fppa[side] = v;
-    out.push({ scope: id, metric: 'fppa', taskId: id, side, value: v, unit: 'deg', label: `Knee angle from the front (FPPA), ${side} leg, deepest point of the landing` });
+    out.push({
+      scope: id,
+      metric: 'fppa',
+      taskId: id,
+      side,
+      value: v,
+      unit: 'deg',
+      label: `Knee angle from the front (FPPA), ${side} leg, deepest point of the landing`,
+    });
   }
   if (fppa.left !== undefined && fppa.right !== undefined) {
-    out.push({ scope: id, metric: 'fppa-difference', taskId: id, side: largerSide(fppa.left, fppa.right), value: asymmetry(fppa.left, fppa.right), unit: 'deg', label: 'Left-right difference in knee angle from the front (FPPA), landing' });
+    out.push({
+      scope: id,
+      metric: 'fppa-difference',
+      taskId: id,
+      side: largerSide(fppa.left, fppa.right),
+      value: asymmetry(fppa.left, fppa.right),
+      unit: 'deg',
+      label: 'Left-right difference in knee angle from the front (FPPA), landing',
+    });
   }
 }
 
@@ -216,11 +288,27 @@ function measureStance(t: NormalizedTask, side: Side, out: Draft[]): void {
   const front = `tasks.${id}.photos.front.landmarks`;
   const drop = obliquity(t, side, front);
   if (drop !== null) {
-    out.push({ scope: id, metric: 'pelvic-obliquity', taskId: id, side, value: drop, unit: 'deg', label: `Pelvic drop on the free-leg side, standing on the ${side} leg` });
+    out.push({
+      scope: id,
+      metric: 'pelvic-obliquity',
+      taskId: id,
+      side,
+      value: drop,
+      unit: 'deg',
+      label: `Pelvic drop on the free-leg side, standing on the ${side} leg`,
+    });
   }
   const lateral = trunkLateral(t, front);
   if (lateral !== null) {
-    out.push({ scope: id, metric: 'trunk-lean-lateral', taskId: id, side, value: lateral, unit: 'deg', label: `Sideways trunk lean, standing on the ${side} leg` });
+    out.push({
+      scope: id,
+      metric: 'trunk-lean-lateral',
+      taskId: id,
+      side,
+      value: lateral,
+      unit: 'deg',
+      label: `Sideways trunk lean, standing on the ${side} leg`,
+    });
   }
 }
 
@@ -234,7 +322,15 @@ function measureKneeToWall(t: NormalizedTask, side: Side, out: Draft[]): void {
     const v = onLandmarks(`tasks.${id}.photos.side.landmarks`, { knee: 'near-knee', ankle: 'near-ankle' }, () =>
       tibialInclination(shin['near-knee'], shin['near-ankle']),
     );
-    out.push({ scope: id, metric: 'tibial-inclination', taskId: id, side, value: v, unit: 'deg', label: `Shin angle from vertical in the knee-to-wall lunge (lunge angle), ${side} ankle` });
+    out.push({
+      scope: id,
+      metric: 'tibial-inclination',
+      taskId: id,
+      side,
+      value: v,
+      unit: 'deg',
+      label: `Shin angle from vertical in the knee-to-wall lunge (lunge angle), ${side} ankle`,
+    });
   }
 }
 
@@ -249,7 +345,15 @@ function measureLunge(t: NormalizedTask, racketHand: Side | undefined, out: Draf
       const v = onLandmarks(front, { hip: 'lead-hip', knee: 'lead-knee', ankle: 'lead-ankle' }, () =>
         frontalPlaneProjectionAngle(p['lead-hip'], p['lead-knee'], p['lead-ankle'], racketHand),
       );
-      out.push({ scope: id, metric: 'fppa', taskId: id, side: racketHand, value: v, unit: 'deg', label: `Knee angle from the front (FPPA), front (${racketHand}) leg of the lunge` });
+      out.push({
+        scope: id,
+        metric: 'fppa',
+        taskId: id,
+        side: racketHand,
+        value: v,
+        unit: 'deg',
+        label: `Knee angle from the front (FPPA), front (${racketHand}) leg of the lunge`,
+      });
     }
   }
   const lateral = trunkLateral(t, front);
@@ -258,7 +362,15 @@ function measureLunge(t: NormalizedTask, racketHand: Side | undefined, out: Draf
   }
   const sv = sideView(t, `tasks.${id}.photos.side.landmarks`);
   if (sv.kneeFlexion !== null) {
-    out.push({ scope: id, metric: 'knee-flexion', taskId: id, side: lead, value: sv.kneeFlexion, unit: 'deg', label: 'Front-knee bend at the lowest point of the lunge' });
+    out.push({
+      scope: id,
+      metric: 'knee-flexion',
+      taskId: id,
+      side: lead,
+      value: sv.kneeFlexion,
+      unit: 'deg',
+      label: 'Front-knee bend at the lowest point of the lunge',
+    });
   }
   if (sv.tibia !== null) {
     out.push({ scope: id, metric: 'tibial-inclination', taskId: id, side: lead, value: sv.tibia, unit: 'deg', label: 'Front-shin angle from vertical, lunge' });
@@ -277,14 +389,32 @@ function measurePairs(out: Draft[], ratings: readonly TaskRating[]): void {
   const fl = valueOf(out, slsL.id, 'fppa');
   const fr = valueOf(out, slsR.id, 'fppa');
   if (fl !== undefined && fr !== undefined) {
-    out.push({ scope: 'single-leg-squat', metric: 'fppa-difference', taskId: null, comparesTasks: [slsL.id, slsR.id], side: largerSide(fl, fr), value: asymmetry(fl, fr), unit: 'deg', label: 'Left-right difference in knee angle from the front (FPPA), single-leg squats' });
+    out.push({
+      scope: 'single-leg-squat',
+      metric: 'fppa-difference',
+      taskId: null,
+      comparesTasks: [slsL.id, slsR.id],
+      side: largerSide(fl, fr),
+      value: asymmetry(fl, fr),
+      unit: 'deg',
+      label: 'Left-right difference in knee angle from the front (FPPA), single-leg squats',
+    });
   }
   const rl = ratings.find((r) => r.taskId === slsL.id);
   const rr = ratings.find((r) => r.taskId === slsR.id);
   if (rl && rr) {
     const gl = RATING_GRADE[rl.rating];
     const gr = RATING_GRADE[rr.rating];
-    out.push({ scope: 'single-leg-squat', metric: 'rating-gap', taskId: null, comparesTasks: [slsL.id, slsR.id], side: largerSide(gl, gr), value: asymmetry(gl, gr), unit: 'grades', label: `Single-leg squat rating gap (left ${rl.rating}, right ${rr.rating})` });
+    out.push({
+      scope: 'single-leg-squat',
+      metric: 'rating-gap',
+      taskId: null,
+      comparesTasks: [slsL.id, slsR.id],
+      side: largerSide(gl, gr),
+      value: asymmetry(gl, gr),
+      unit: 'grades',
+      label: `Single-leg squat rating gap (left ${rl.rating}, right ${rr.rating})`,
+    });
   }
 
   const [ktwL, ktwR] = pairTasks('knee-to-wall');
@@ -292,8 +422,26 @@ function measurePairs(out: Draft[], ratings: readonly TaskRating[]): void {
   const dr = valueOf(out, ktwR.id, 'knee-to-wall');
   if (dl !== undefined && dr !== undefined) {
     const weaker = smallerSide(dl, dr);
-    out.push({ scope: 'knee-to-wall', metric: 'knee-to-wall-difference', taskId: null, comparesTasks: [ktwL.id, ktwR.id], side: weaker, value: asymmetry(dl, dr), unit: 'cm', label: 'Left-right difference in knee-to-wall distance (side = shorter)' });
-    out.push({ scope: 'knee-to-wall', metric: 'knee-to-wall-lsi', taskId: null, comparesTasks: [ktwL.id, ktwR.id], side: weaker, value: limbSymmetryIndex(dl, dr), unit: 'percent', label: 'Knee-to-wall limb symmetry index (shorter over longer x 100)' });
+    out.push({
+      scope: 'knee-to-wall',
+      metric: 'knee-to-wall-difference',
+      taskId: null,
+      comparesTasks: [ktwL.id, ktwR.id],
+      side: weaker,
+      value: asymmetry(dl, dr),
+      unit: 'cm',
+      label: 'Left-right difference in knee-to-wall distance (side = shorter)',
+    });
+    out.push({
+      scope: 'knee-to-wall',
+      metric: 'knee-to-wall-lsi',
+      taskId: null,
+      comparesTasks: [ktwL.id, ktwR.id],
+      side: weaker,
+      value: limbSymmetryIndex(dl, dr),
+      unit: 'percent',
+      label: 'Knee-to-wall limb symmetry index (shorter over longer x 100)',
+    });
   }
 }
 

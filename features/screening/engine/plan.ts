@@ -96,22 +96,18 @@ export function selectExercises(flags: readonly Flag[], cap = MAX_EXERCISES, exc
     for (const f of best.flags) uncovered.delete(f.id);
   }
 
-  const rest = candidates
-    .filter((c) => !chosen.includes(c))
-    .sort((a, b) => b.score - a.score || a.index - b.index);
+  const rest = candidates.filter((c) => !chosen.includes(c)).sort((a, b) => b.score - a.score || a.index - b.index);
   for (const c of rest) {
     if (chosen.length >= cap) break;
     chosen.push(c);
   }
 
-  return chosen.sort(
-    (a, b) => PHASE_ORDER.indexOf(a.spec.phase) - PHASE_ORDER.indexOf(b.spec.phase) || a.index - b.index,
-  );
+  return chosen.sort((a, b) => PHASE_ORDER.indexOf(a.spec.phase) - PHASE_ORDER.indexOf(b.spec.phase) || a.index - b.index);
 }
 
 const UNKNOWN_WORDS: Record<GrowthUnknownReason, string> = {
   'measures-missing': 'the body measures the estimate needs (standing and sitting height, or body mass) were not entered',
-  'age-outside-range': 'the athlete\'s age is outside the range the maturity equations were made for (about 8-16 years for girls, 9-18 for boys)',
+  'age-outside-range': "the athlete's age is outside the range the maturity equations were made for (about 8-16 years for girls, 9-18 for boys)",
   'not-estimated': 'no growth estimate was made for this screen',
 };
 

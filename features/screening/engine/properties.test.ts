@@ -19,7 +19,7 @@ import { mulberry32, randomAssessment } from './random-assessment';
 import type { AssessmentResult, Flag, PatternId, Point, Severity } from './types';
 
 /** Every number anywhere in a value, with its path. */
-function numbersIn(value: unknown, path = '$', out: Array<[string, number]> = []): Array<[string, number]> {
+function numbersIn(value: unknown, path = '$', out: [string, number][] = []): [string, number][] {
   if (typeof value === 'number') out.push([path, value]);
   else if (Array.isArray(value)) value.forEach((v, i) => numbersIn(v, `${path}[${i}]`, out));
   else if (typeof value === 'object' && value !== null) {
@@ -40,7 +40,10 @@ function checkResult(result: AssessmentResult): void {
     if (planned.some((e) => e.flagIds.includes(f.id))) continue;
     // Only pain not yet cleared may leave a flag without an exercise: everything for it is held back.
     expect(result.plan.loading?.painUncleared, `flag ${f.id} has no exercise`).toBe(true);
-    expect(EXERCISES.filter((e) => e.addresses.includes(f.pattern)).every((e) => exerciseLimits(e, result.plan.loading!).withheld !== null), `flag ${f.id} has no exercise`).toBe(true);
+    expect(
+      EXERCISES.filter((e) => e.addresses.includes(f.pattern)).every((e) => exerciseLimits(e, result.plan.loading!).withheld !== null),
+      `flag ${f.id} has no exercise`,
+    ).toBe(true);
     expect(held.size).toBeGreaterThan(0);
   }
   expect(new Set(result.flags.map((f) => f.id)).size).toBe(result.flags.length);
@@ -110,7 +113,16 @@ describe('properties: plan selection', () => {
           side: f.side,
           severity: f.severity,
           evidence: [],
-          threshold: { rowId: 'x', comparison: 'greater-than', value: 0, unit: 'deg', severity: f.severity, source: 'test', sourceKind: 'our-choice', certainty: 'no source' },
+          threshold: {
+            rowId: 'x',
+            comparison: 'greater-than',
+            value: 0,
+            unit: 'deg',
+            severity: f.severity,
+            source: 'test',
+            sourceKind: 'our-choice',
+            certainty: 'no source',
+          },
           source: 'test',
           thresholdsMet: [],
         }),
@@ -203,25 +215,21 @@ describe('properties: geometry', () => {
 
   it('strength-endurance loads are multiples of the increment, near 50% and 65% of 1RM', () => {
     fc.assert(
-      fc.property(
-        fc.double({ min: 5, max: 300, noNaN: true }),
-        fc.constantFrom(0.5, 1, 1.25, 2, 2.5, 5),
-        (orm, inc) => {
-          const r = strengthEnduranceLoad(orm, inc);
-          if (r.minKg === null || r.maxKg === null) {
-            // Nothing fits only when the range is narrower than one step.
-            expect(orm * 0.15).toBeLessThan(inc);
-            return;
-          }
-          expect(r.minKg).toBeLessThanOrEqual(r.maxKg);
-          expect(r.minKg - orm * 0.5).toBeLessThan(inc + 1e-9);
-          expect(orm * 0.65 - r.maxKg).toBeLessThan(inc + 1e-9);
-          for (const kg of [r.minKg, r.maxKg]) {
-            const steps = kg / inc;
-            expect(Math.abs(steps - Math.round(steps))).toBeLessThan(1e-6);
-          }
-        },
-      ),
+      fc.property(fc.double({ min: 5, max: 300, noNaN: true }), fc.constantFrom(0.5, 1, 1.25, 2, 2.5, 5), (orm, inc) => {
+        const r = strengthEnduranceLoad(orm, inc);
+        if (r.minKg === null || r.maxKg === null) {
+          // Nothing fits only when the range is narrower than one step.
+          expect(orm * 0.15).toBeLessThan(inc);
+          return;
+        }
+        expect(r.minKg).toBeLessThanOrEqual(r.maxKg);
+        expect(r.minKg - orm * 0.5).toBeLessThan(inc + 1e-9);
+        expect(orm * 0.65 - r.maxKg).toBeLessThan(inc + 1e-9);
+        for (const kg of [r.minKg, r.maxKg]) {
+          const steps = kg / inc;
+          expect(Math.abs(steps - Math.round(steps))).toBeLessThan(1e-6);
+        }
+      }),
     );
   });
 });

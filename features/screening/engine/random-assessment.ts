@@ -112,7 +112,7 @@ export function randomAssessment(r: Rand): AssessmentInput {
   const ageYears = round1(outsideRange ? between(r, range.max + 0.5, range.max + 3) : between(r, range.min, range.max));
   const statureCm = round1(Math.min(200, 120 + (ageYears - 7) * 5.5 + between(r, -8, 8)));
   const sittingHeightCm = round1(statureCm * between(r, 0.5, 0.54));
-  const massKg = round1(Math.max(20, statureCm * statureCm * between(r, 16, 24) / 10000));
+  const massKg = round1(Math.max(20, (statureCm * statureCm * between(r, 16, 24)) / 10000));
   const racketHand: Side | undefined = r() < 0.85 ? (r() < 0.85 ? 'right' : 'left') : undefined;
 
   const athlete: AssessmentInput['athlete'] = { sex, ageYears };

@@ -28,14 +28,11 @@ export const POWDEN_2015 =
 export const MIRWALD_2002 =
   'Mirwald RL, Baxter-Jones ADG, Bailey DA, Beunen GP. An assessment of maturity from anthropometric measurements. Med Sci Sports Exerc. 2002;34(4):689-694.';
 
-export const MOORE_2015 =
-  'Moore SA, McKay HA, Macdonald H, et al. Enhancing a somatic maturity prediction model. Med Sci Sports Exerc. 2015;47(8):1755-1764.';
+export const MOORE_2015 = 'Moore SA, McKay HA, Macdonald H, et al. Enhancing a somatic maturity prediction model. Med Sci Sports Exerc. 2015;47(8):1755-1764.';
 
-export const EPLEY_1985 =
-  'Epley B. Poundage Chart. Boyd Epley Workout. Lincoln, NE: Body Enterprises; 1985.';
+export const EPLEY_1985 = 'Epley B. Poundage Chart. Boyd Epley Workout. Lincoln, NE: Body Enterprises; 1985.';
 
-export const BRZYCKI_1993 =
-  'Brzycki M. Strength testing: predicting a one-rep max from reps-to-fatigue. JOPERD. 1993;64(1):88-90.';
+export const BRZYCKI_1993 = 'Brzycki M. Strength testing: predicting a one-rep max from reps-to-fatigue. JOPERD. 1993;64(1):88-90.';
 
 export const FAIGENBAUM_2009 =
   'Faigenbaum AD, Kraemer WJ, Blimkie CJR, et al. Youth resistance training: updated position statement paper from the National Strength and Conditioning Association. J Strength Cond Res. 2009;23(5 Suppl):S60-S79.';
@@ -50,7 +47,7 @@ export const ACSM_2009 =
   'American College of Sports Medicine. Progression models in resistance training for healthy adults. Med Sci Sports Exerc. 2009;41(3):687-708.';
 
 /** Short names for the screen ("Herrington & Munro 2010"); the full reference sits behind a "sources" disclosure. */
-export const SHORT_CITATIONS: ReadonlyArray<{ short: string; full: string }> = [
+export const SHORT_CITATIONS: readonly { short: string; full: string }[] = [
   { short: 'Herrington & Munro 2010', full: HERRINGTON_MUNRO_2010 },
   { short: 'Munro, Herrington & Carolan 2012', full: MUNRO_HERRINGTON_CAROLAN_2012 },
   { short: 'Backman & Danielson 2011', full: BACKMAN_DANIELSON_2011 },
@@ -70,7 +67,7 @@ export const SHORT_CITATIONS: ReadonlyArray<{ short: string; full: string }> = [
  * The published works a source text cites, as short and full references, in the order they appear.
  * "common practice, no source" and other text without a known reference give an empty list.
  */
-export function citationsIn(source: string | null | undefined): Array<{ short: string; full: string }> {
+export function citationsIn(source: string | null | undefined): { short: string; full: string }[] {
   if (!source) return [];
   return SHORT_CITATIONS.filter((c) => source.includes(c.full)).sort((a, b) => source.indexOf(a.full) - source.indexOf(b.full));
 }

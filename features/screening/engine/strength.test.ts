@@ -3,8 +3,7 @@ import { asymmetry, EngineInputError, estimateOneRepMax, limbSymmetryIndex, load
 import type { OneRepMaxFormula } from './index';
 
 const EPLEY = 'Epley B. Poundage Chart. Boyd Epley Workout. Lincoln, NE: Body Enterprises; 1985 (secondary)';
-const BRZYCKI =
-  'Brzycki M. Strength testing: predicting a one-rep max from reps-to-fatigue. JOPERD. 1993;64(1):88-90 (secondary)';
+const BRZYCKI = 'Brzycki M. Strength testing: predicting a one-rep max from reps-to-fatigue. JOPERD. 1993;64(1):88-90 (secondary)';
 const NSCA_TABLE =
   'Haff GG, Triplett NT, eds. Essentials of Strength Training and Conditioning, 4th ed., 2016: %1RM by reps table (secondary; from memory that it is this table)';
 const COMMON = 'common practice, no source';

@@ -101,12 +101,7 @@ function checkLoadInputs(oneRepMaxKg: number, incrementKg: number): { orm: numbe
  * share of 1RM (binary fractions can put a product a hair over), so a rounded load never exceeds the
  * stated share of 1RM nor falls under it. Null when no multiple of the increment lies inside the range.
  */
-export function loadRangeKg(
-  oneRepMaxKg: number,
-  incrementKg: number,
-  minPercent: number,
-  maxPercent: number,
-): { minKg: number; maxKg: number } | null {
+export function loadRangeKg(oneRepMaxKg: number, incrementKg: number, minPercent: number, maxPercent: number): { minKg: number; maxKg: number } | null {
   const { orm, inc } = checkLoadInputs(oneRepMaxKg, incrementKg);
   if (!(minPercent > 0 && minPercent <= maxPercent && maxPercent <= 100)) {
     throw new EngineInputError('percent', `must satisfy 0 < min <= max <= 100, got ${minPercent}-${maxPercent}`);

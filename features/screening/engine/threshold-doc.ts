@@ -57,7 +57,9 @@ export function thresholdTableMarkdown(): string {
   for (const s of stages) {
     const l = STAGE_LIMITS[s];
     const sets = l.strengthEnduranceVolume ? `${YOUTH_VOLUME.maxSets} (${STRENGTH_ENDURANCE_DEVIATION.maxSets} for %1RM work)` : `${YOUTH_VOLUME.maxSets}`;
-    const reps = l.strengthEnduranceVolume ? `${YOUTH_VOLUME.minReps}-${YOUTH_VOLUME.maxReps} (up to ${STRENGTH_ENDURANCE_DEVIATION.maxReps} for %1RM work)` : `${YOUTH_VOLUME.minReps}-${YOUTH_VOLUME.maxReps}`;
+    const reps = l.strengthEnduranceVolume
+      ? `${YOUTH_VOLUME.minReps}-${YOUTH_VOLUME.maxReps} (up to ${STRENGTH_ENDURANCE_DEVIATION.maxReps} for %1RM work)`
+      : `${YOUTH_VOLUME.minReps}-${YOUTH_VOLUME.maxReps}`;
     const landing = l.jumpVolumeFactor < 1 ? `× ${l.jumpVolumeFactor}, at most ${l.maxSetsJump} sets` : `library volume, at most ${l.maxSetsJump} sets`;
     const basis = `sets and repetitions: ${shortSource(YOUTH_VOLUME.basis.source)} (${KIND[YOUTH_VOLUME.basis.sourceKind]}, ${YOUTH_VOLUME.basis.certainty}); load, fatigue and landing: ${KIND[l.basis.sourceKind]}${l.strengthEnduranceVolume ? `; strength-endurance volume: ${KIND[STRENGTH_ENDURANCE_DEVIATION.basis.sourceKind]}, a labelled deviation` : ''}`;
     lines.push(`| ${s} | ${l.maxPercentOneRepMax}% | ${sets} | ${reps} | ${l.toNearFatigue ? 'yes, %1RM work only' : 'no'} | ${landing} | ${cell(basis)} |`);

@@ -19,9 +19,17 @@ const COMMON = 'common practice, no source';
  * table without a line here fails the first test.
  */
 type Bound = 'lower' | 'upper';
-const EXPECTED: ReadonlyArray<
-  [rowId: string, value: number, unit: string, atFlags: boolean, belowFlags: boolean, aboveFlags: boolean, step: number, source: string, bound?: Bound]
-> = [
+const EXPECTED: readonly [
+  rowId: string,
+  value: number,
+  unit: string,
+  atFlags: boolean,
+  belowFlags: boolean,
+  aboveFlags: boolean,
+  step: number,
+  source: string,
+  bound?: Bound,
+][] = [
   ['fppa-bilateral-female-watch', 13, 'deg', false, false, true, 0.01, `${HM2010}: drop jump, females 7-13 deg, upper end (adult norms)`],
   ['fppa-bilateral-female-concern', 18.33, 'deg', false, false, true, 0.01, `${HM2010} 13 deg + 1.96 x ${MUNRO2012} SEM 2.72 deg (5.33)`],
   ['fppa-bilateral-male-watch', 8, 'deg', false, false, true, 0.01, `${HM2010}: drop jump, males 3-8 deg, upper end (adult norms)`],

@@ -79,16 +79,9 @@ const ADULT_NORMS_NOTE =
   'Adult norms (100 physically active adults), applied to juniors for want of junior norms. Using the upper end of the normal range as the cut-off is our choice: no validated cut-off exists.';
 const CONCERN_FPPA_NOTE =
   'Concern = upper end of the adult normal range plus the 95% measurement-error margin of one measurement (1.96 x SEM, SEM 2.72 deg = lower end of 2.72-3.01), i.e. beyond normal by more than measurement error. Derived by us; no published cut-off.';
-const OBSERVED_NOTE =
-  'One ticked criterion that describes the pattern raises a watch flag: our design.';
+const OBSERVED_NOTE = 'One ticked criterion that describes the pattern raises a watch flag: our design.';
 
-function fppaRows(
-  kind: 'bilateral' | 'single-leg',
-  sex: Sex,
-  upperNormal: number,
-  normalRange: string,
-  task: string,
-): ThresholdRow[] {
+function fppaRows(kind: 'bilateral' | 'single-leg', sex: Sex, upperNormal: number, normalRange: string, task: string): ThresholdRow[] {
   const appliesTo = kind === 'bilateral' ? BILATERAL_FPPA_TASKS : SINGLE_LEG_FPPA_TASKS;
   const base = {
     pattern: 'dynamic-knee-valgus' as const,
@@ -383,14 +376,7 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     unit: 'deg',
     severity: 'watch',
     population: { sex: 'any', ageGroup: 'not specified' },
-    appliesTo: [
-      'two-leg-squat',
-      'single-leg-squat-left',
-      'single-leg-squat-right',
-      'single-leg-stance-left',
-      'single-leg-stance-right',
-      'racket-side-lunge',
-    ],
+    appliesTo: ['two-leg-squat', 'single-leg-squat-left', 'single-leg-squat-right', 'single-leg-stance-left', 'single-leg-stance-right', 'racket-side-lunge'],
     source: OUR_CHOICE,
     sourceKind: 'our-choice',
     certainty: 'no source',
@@ -452,7 +438,7 @@ export const THRESHOLDS: readonly ThresholdRow[] = [
     upperValue: 1,
     unit: 'years',
     severity: 'watch',
-    population: { sex: 'any', ageGroup: 'youth within the maturity equations\' age range' },
+    population: { sex: 'any', ageGroup: "youth within the maturity equations' age range" },
     appliesTo: 'all',
     source: COMMON_PRACTICE,
     sourceKind: 'common-practice',

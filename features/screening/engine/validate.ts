@@ -7,16 +7,7 @@ import { BATTERY, getTask, isTaskId, type TaskSpec } from './battery';
 import { EngineInputError, requireFinite } from './errors';
 import { checkPoint, isValidPoint } from './geometry';
 import { isLandmarkId } from './landmarks';
-import type {
-  AssessmentInput,
-  AthleteInput,
-  LandmarkId,
-  MaturityMethod,
-  Point,
-  Side,
-  TaskId,
-  View,
-} from './types';
+import type { AssessmentInput, AthleteInput, LandmarkId, MaturityMethod, Point, Side, TaskId, View } from './types';
 
 export const DEFAULT_RESCREEN_WEEKS = 6;
 export const DEFAULT_LOAD_INCREMENT_KG = 2.5;
@@ -75,10 +66,7 @@ function validateAthlete(a: unknown): AthleteInput {
   const sittingHeightCm = optionalInRange('athlete.sittingHeightCm', a['sittingHeightCm'], 40, 130, 'cm');
   const massKg = optionalInRange('athlete.massKg', a['massKg'], 10, 200, 'kg');
   if (statureCm !== undefined && sittingHeightCm !== undefined && sittingHeightCm >= statureCm) {
-    throw new EngineInputError(
-      'athlete.sittingHeightCm',
-      `must be less than stature (${statureCm} cm), got ${sittingHeightCm}`,
-    );
+    throw new EngineInputError('athlete.sittingHeightCm', `must be less than stature (${statureCm} cm), got ${sittingHeightCm}`);
   }
   const racketHand = a['racketHand'];
   if (racketHand !== undefined && racketHand !== 'left' && racketHand !== 'right') {

@@ -3,7 +3,7 @@ import { useEffect } from 'react';
 import { connectivity } from '@/features/offline/device';
 import { assessmentQueryOptions } from '@/features/screening/api/get-assessment';
 import type { RoundDetail } from '@/features/screening/contract';
-import { canScreen } from '@/features/screening/roles';
+import { can } from '@/features/access/permissions';
 import { useActiveClub } from '@/features/session/active-club';
 
 /**
@@ -14,8 +14,12 @@ import { useActiveClub } from '@/features/session/active-club';
 export function useKeepRoundOnDevice(round: RoundDetail | undefined) {
   const qc = useQueryClient();
   const { membership } = useActiveClub();
-  const keep = canScreen(membership.role);
-  const ids = round?.athletes.filter((a) => a.status !== 'submitted').map((a) => a.assessmentId).join(',') ?? '';
+  const keep = can(membership.role, 'screening.write');
+  const ids =
+    round?.athletes
+      .filter((a) => a.status !== 'submitted')
+      .map((a) => a.assessmentId)
+      .join(',') ?? '';
   useEffect(() => {
     if (!keep || !ids || !connectivity.isOnline()) return;
     for (const id of ids.split(',')) void qc.prefetchQuery(assessmentQueryOptions(membership.clubId, id, true));

@@ -35,13 +35,7 @@ function attempt<T>(problems: string[], what: string, fn: () => T): T | null {
   }
 }
 
-function leg(
-  out: Overlay,
-  marks: LandmarkSet,
-  ids: readonly [LandmarkId, LandmarkId, LandmarkId],
-  side: Side | null,
-  name: string,
-) {
+function leg(out: Overlay, marks: LandmarkSet, ids: readonly [LandmarkId, LandmarkId, LandmarkId], side: Side | null, name: string) {
   const [hip, knee, ankle] = ids.map((id) => marks[id]);
   if (hip && knee) out.lines.push({ id: `${ids[0]}-${ids[1]}`, from: hip, to: knee, style: 'limb' });
   if (knee && ankle) out.lines.push({ id: `${ids[1]}-${ids[2]}`, from: knee, to: ankle, style: 'limb' });
@@ -143,7 +137,15 @@ export function overlayFor(task: TaskSpec, view: View, marks: LandmarkSet, racke
   if (hip && knee && ankle) {
     const v = attempt(out.problems, 'Knee', () => kneeFlexion(hip, knee, ankle));
     if (v !== null) {
-      out.angles.push({ id: 'knee-flexion', anchor: knee, short: `knee ${round(v)}`, placement: 'right', label: 'Knee bend (flexion)', value: v, text: `${deg(v)} (0° = straight leg)` });
+      out.angles.push({
+        id: 'knee-flexion',
+        anchor: knee,
+        short: `knee ${round(v)}`,
+        placement: 'right',
+        label: 'Knee bend (flexion)',
+        value: v,
+        text: `${deg(v)} (0° = straight leg)`,
+      });
     }
   }
   if (knee && ankle) {

@@ -67,7 +67,15 @@ export class UploadQueue {
    * Keeps the scaled photo on the device and queues it. Throws (with a message for the tester) when the
    * device's photo budget is full. A newer photo for the same slot replaces one still waiting.
    */
-  async start(item: { assessmentId: string; taskId: TaskId; view: View; previewUri: string; width: number; height: number; file: PhotoFile }): Promise<OutboxEntry> {
+  async start(item: {
+    assessmentId: string;
+    taskId: TaskId;
+    view: View;
+    previewUri: string;
+    width: number;
+    height: number;
+    file: PhotoFile;
+  }): Promise<OutboxEntry> {
     if (!('blob' in item.file)) throw new ApiError(400, 'unsupported', 'This device cannot keep photos for upload.');
     const { userId, clubId } = this.deps.session();
     const kept = await this.deps.keepPhoto({ assessmentId: item.assessmentId, userId, blob: item.file.blob });
@@ -154,11 +162,5 @@ export class UploadQueue {
 }
 
 function sameItem(a: UploadItem, b: UploadItem): boolean {
-  return (
-    a.seq === b.seq &&
-    a.previewUri === b.previewUri &&
-    a.state === b.state &&
-    a.progress === b.progress &&
-    a.error?.message === b.error?.message
-  );
+  return a.seq === b.seq && a.previewUri === b.previewUri && a.state === b.state && a.progress === b.progress && a.error?.message === b.error?.message;
 }

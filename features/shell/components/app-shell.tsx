@@ -58,7 +58,9 @@ export function AppShell({ children }: { children: ReactNode }) {
       ) : null}
       {/* Hidden, not unmounted, under the menu: unmounting the screens resets the router to the home
           route, and a tester who opened the menu mid-screening would lose their place. */}
-      <View style={[styles.main, menuOpen && styles.hidden]} role="main">{children}</View>
+      <View style={[styles.main, menuOpen && styles.hidden]} role="main">
+        {children}
+      </View>
     </View>
   );
 }
@@ -106,9 +108,7 @@ function AccountBox() {
       {me.memberships.length > 1
         ? me.memberships
             .filter((m) => m.clubId !== membership.clubId)
-            .map((m) => (
-              <Button key={m.clubId} tone="quiet" label={`Switch to ${m.clubName}`} onPress={() => choose(m.clubId)} />
-            ))
+            .map((m) => <Button key={m.clubId} tone="quiet" label={`Switch to ${m.clubName}`} onPress={() => choose(m.clubId)} />)
         : null}
       {/* Integration point with features/offline: warns when changes still wait on this phone. */}
       <SignOutButton busy={signOut.isPending} onSignOut={() => signOut.mutate(undefined, { onSettled: () => router.replace('/sign-in') })} />
@@ -135,7 +135,15 @@ const styles = StyleSheet.create({
     borderBottomColor: colors.line,
   },
   topStatus: { flex: 1, alignItems: 'flex-end', marginHorizontal: space.sm, zIndex: 20 },
-  menuButton: { minHeight: TOUCH_MIN, minWidth: 72, alignItems: 'center', justifyContent: 'center', borderRadius: radius.md, borderWidth: 2, borderColor: colors.pine },
+  menuButton: {
+    minHeight: TOUCH_MIN,
+    minWidth: 72,
+    alignItems: 'center',
+    justifyContent: 'center',
+    borderRadius: radius.md,
+    borderWidth: 2,
+    borderColor: colors.pine,
+  },
   menuText: { fontFamily: fonts.bold, color: colors.pine, fontSize: 17 },
   sheet: { padding: space.lg, gap: space.xl, flex: 1 },
   brand: { flexDirection: 'row', alignItems: 'center', gap: space.sm },

@@ -36,8 +36,8 @@ export function BodyStep({ draft, update }: { draft: AssessmentDraft; update(cha
   return (
     <View style={styles.wrap}>
       <Notice title="Measure first">
-        Shoes off. Measure twice and type the mean. Sitting height is from the seat to the top of the head. These values
-        estimate where the athlete is in their growth spurt.
+        Shoes off. Measure twice and type the mean. Sitting height is from the seat to the top of the head. These values estimate where the athlete is in their
+        growth spurt.
       </Notice>
       <Card style={isTabletUp ? styles.grid : undefined}>
         <View style={isTabletUp ? styles.cell : undefined}>

@@ -1,4 +1,5 @@
 import { AthleteClearanceBadge } from '@/features/care/components/clearance-badge';
+import { can } from '@/features/access/permissions';
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, Redirect, useRouter } from 'expo-router';
 import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
@@ -15,7 +16,6 @@ import { useAssessmentDraft } from '@/features/screening/hooks/use-assessment-dr
 import { useUnfinishedUploads } from '@/features/screening/hooks/use-upload';
 import { slotOf } from '@/features/screening/photos/upload-queue';
 import { uploadQueue } from '@/features/screening/photos/upload-registry';
-import { canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import { usePageTitle } from '@/features/ui/page-title';
 import { CONTENT_MAX_WIDTH, useBreakpoints } from '@/features/ui/breakpoints';
@@ -51,15 +51,25 @@ function photoIndex(photos: PhotoView[]): Map<string, PhotoView> {
  */
 export function CaptureFlow({ id }: { id: string }) {
   const { membership } = useActiveClub();
-  if (!canScreen(membership.role)) return <Redirect href={`/screening/assessments/${id}/result`} />;
+  if (!can(membership.role, 'screening.write')) return <Redirect href={`/screening/assessments/${id}/result`} />;
   return <CaptureLoader id={id} />;
 }
 
 function CaptureLoader({ id }: { id: string }) {
   const query = useAssessmentQuery(id);
   const draftState = useAssessmentDraft(query.data, id);
-  if (query.error && !draftState.ready) return <Centered><Notice tone="error">{query.error.message}</Notice></Centered>;
-  if (!query.data || !draftState.ready) return <Centered><Text>Loading the assessment…</Text></Centered>;
+  if (query.error && !draftState.ready)
+    return (
+      <Centered>
+        <Notice tone="error">{query.error.message}</Notice>
+      </Centered>
+    );
+  if (!query.data || !draftState.ready)
+    return (
+      <Centered>
+        <Text>Loading the assessment…</Text>
+      </Centered>
+    );
   // A closed round's screens are read, not changed: straight to the result (or its absence).
   if (query.data.roundClosedAt) return <Redirect href={`/screening/assessments/${id}/result`} />;
   return <Capture detail={query.data} draftState={draftState} />;
@@ -209,7 +219,12 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
           <ProgressBar fraction={stepIndex / (STEPS.length - 1)} label={counter} />
         </View>
       </View>
-      <ScrollView ref={scroll} style={styles.scroll} contentContainerStyle={[styles.content, isTabletUp && styles.contentWide]} keyboardShouldPersistTaps="handled">
+      <ScrollView
+        ref={scroll}
+        style={styles.scroll}
+        contentContainerStyle={[styles.content, isTabletUp && styles.contentWide]}
+        keyboardShouldPersistTaps="handled"
+      >
         <View style={[styles.column, styles.body]}>
           {mergedFromServer ? (
             <Notice title="Merged with a newer save">
@@ -229,9 +244,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
               photo={editingPhoto}
               value={draft.tasks[editing.taskId]?.landmarks?.[editing.view] ?? {}}
               racketHand={detail.athlete.racketHand}
-              onChange={(next: LandmarkSet) =>
-                updateTask(editing.taskId, (t) => ({ ...t, landmarks: { ...t.landmarks, [editing.view]: next } }))
-              }
+              onChange={(next: LandmarkSet) => updateTask(editing.taskId, (t) => ({ ...t, landmarks: { ...t.landmarks, [editing.view]: next } }))}
             />
           ) : step === 'body' ? (
             <BodyStep draft={draft} update={update} />

@@ -79,6 +79,7 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onNewPhot
     const node = root.current as unknown as { scrollIntoView?: (o: object) => void } | null;
     node?.scrollIntoView?.({ block: 'center', behavior: 'smooth' });
     // Only when armed changes: a cancelled camera must not reopen.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [armed]);
 
   // The server refuses a photo without consent (a consent withdrawn since the page loaded): its message,
@@ -96,7 +97,11 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onNewPhot
   const failed = item?.state === 'failed';
   // A lost connection or a server hiccup is worth retrying; a refused file (too large, not a photo) is not.
   const retryable = !!item?.error && (item.error.status === 0 || item.error.status === 408 || item.error.status === 429 || item.error.status >= 500);
-  const shown = item?.previewUri ? { uri: item.previewUri, w: item.width, h: item.height } : photo ? { uri: apiAssetUrl(photo.thumbUrl), w: photo.width, h: photo.height } : null;
+  const shown = item?.previewUri
+    ? { uri: item.previewUri, w: item.width, h: item.height }
+    : photo
+      ? { uri: apiAssetUrl(photo.thumbUrl), w: photo.width, h: photo.height }
+      : null;
 
   return (
     <View ref={root} style={[styles.slot, armed && empty && styles.slotArmed]} testID={testID}>
@@ -119,7 +124,9 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onNewPhot
       {waiting ? (
         <View style={styles.progress} testID={`${testID}-waiting`}>
           <Text variant="small">
-            {item.error ? 'Kept on this phone: the upload did not get through and is tried again shortly.' : 'Kept on this phone: uploads when there is a connection.'}
+            {item.error
+              ? 'Kept on this phone: the upload did not get through and is tried again shortly.'
+              : 'Kept on this phone: uploads when there is a connection.'}
           </Text>
           <Button tone="quiet" label="Discard this photo" testID={`${testID}-discard`} onPress={() => uploadQueue.discard(assessmentId, slot)} />
         </View>
@@ -129,10 +136,13 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onNewPhot
           <Notice tone="error" title={retryable ? 'The photo is not uploaded yet' : 'This photo was refused'} testID={`${testID}-upload-error`}>
             {retryable ? `${item.error.message} The photo is kept on this phone: try again.` : `${item.error.message} Take or choose another photo.`}
           </Notice>
-          {retryable ? (
-            <Button label="Retry upload" testID={`${testID}-retry`} onPress={() => uploadQueue.retry(assessmentId, slot)} />
-          ) : null}
-          <Button tone={retryable ? 'quiet' : 'secondary'} label="Discard this photo" testID={`${testID}-discard`} onPress={() => uploadQueue.discard(assessmentId, slot)} />
+          {retryable ? <Button label="Retry upload" testID={`${testID}-retry`} onPress={() => uploadQueue.retry(assessmentId, slot)} /> : null}
+          <Button
+            tone={retryable ? 'quiet' : 'secondary'}
+            label="Discard this photo"
+            testID={`${testID}-discard`}
+            onPress={() => uploadQueue.discard(assessmentId, slot)}
+          />
         </View>
       ) : null}
       {preparing ? <Text variant="small">Preparing the photo…</Text> : null}
@@ -172,9 +182,7 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onNewPhot
           />
         </View>
       ) : null}
-      {photo && placed > 0 && !uploading && !failed ? (
-        <Text variant="small">A new photo clears the landmarks placed on this one.</Text>
-      ) : null}
+      {photo && placed > 0 && !uploading && !failed ? <Text variant="small">A new photo clears the landmarks placed on this one.</Text> : null}
     </View>
   );
 }

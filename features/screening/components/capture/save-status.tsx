@@ -23,11 +23,7 @@ export function saveStatusText(status: SaveStatus): string {
 export function SaveStatusBadge({ status }: { status: SaveStatus }) {
   const bad = status.kind === 'retrying' || status.kind === 'refused';
   return (
-    <View
-      style={[styles.badge, bad ? styles.bad : status.kind === 'saved' ? styles.ok : styles.busy]}
-      accessibilityLiveRegion="polite"
-      testID="save-status"
-    >
+    <View style={[styles.badge, bad ? styles.bad : status.kind === 'saved' ? styles.ok : styles.busy]} accessibilityLiveRegion="polite" testID="save-status">
       <Text style={[styles.text, bad && styles.badText]}>{saveStatusText(status)}</Text>
     </View>
   );

@@ -86,12 +86,7 @@ export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, on
       <View style={styles.look}>
         <Text variant="label">What to look at</Text>
         <Text>{task.lookFor}</Text>
-        <Pressable
-          accessibilityRole="button"
-          aria-expanded={showHow}
-          onPress={() => setShowHow((s) => !s)}
-          style={styles.howToggle}
-        >
+        <Pressable accessibilityRole="button" aria-expanded={showHow} onPress={() => setShowHow((s) => !s)} style={styles.howToggle}>
           <Text style={styles.howToggleText}>{showHow ? 'Hide how to run it ▲' : 'How to run it ▼'}</Text>
         </Pressable>
         {showHow ? <Text>{task.instructions}</Text> : null}

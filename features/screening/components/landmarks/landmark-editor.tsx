@@ -196,7 +196,12 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
   };
 
   const setZoomAround = (z: Zoom) => {
-    const focus = (active && marks[active]) ?? [...needed].reverse().map((id) => marks[id]).find(Boolean);
+    const focus =
+      (active && marks[active]) ??
+      [...needed]
+        .reverse()
+        .map((id) => marks[id])
+        .find(Boolean);
     if (z > zoom && focus) setCenter(focus);
     if (z === 1) setCenter({ x: photo.width / 2, y: photo.height / 2 });
     setZoom(z);
@@ -257,7 +262,8 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
               <>
                 <Text variant="label">{`Check the ${suggestedCount} suggested points`}</Text>
                 <Text variant="small">
-                  Hollow circles are suggestions from the photo. Drag any that is off, then confirm them: nothing is measured from a point until it is confirmed.
+                  Hollow circles are suggestions from the photo. Drag any that is off, then confirm them: nothing is measured from a point until it is
+                  confirmed.
                 </Text>
                 {activeSpec ? <Text variant="small">{`Still to place by hand: ${activeSpec.label}.`}</Text> : null}
               </>
@@ -300,7 +306,8 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
               ) : null}
               {suggestion.busy ? (
                 <Text variant="small" testID="suggest-status" accessibilityLiveRegion="polite">
-                  The first time, the pose model downloads (about 16 MB); finding the points can take up to a minute on an older phone. The photo stays on this device.
+                  The first time, the pose model downloads (about 16 MB); finding the points can take up to a minute on an older phone. The photo stays on this
+                  device.
                 </Text>
               ) : suggestion.status === 'none' ? (
                 <Notice tone="caution" testID="suggest-status">
@@ -370,9 +377,7 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
               }}
             />
           </View>
-          <Text variant="small">
-            Tap the photo to place the point named above. Drag a point to move it.{zoom > 1 ? ' Drag the photo to move around.' : ''}
-          </Text>
+          <Text variant="small">Tap the photo to place the point named above. Drag a point to move it.{zoom > 1 ? ' Drag the photo to move around.' : ''}</Text>
           {shortcuts ? (
             <Text variant="small" testID="editor-shortcuts">
               {`Keys: ${EDITOR_SHORTCUTS.map((k) => `${k.keys} ${k.what}`).join(' · ')}`}
@@ -407,7 +412,15 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
               const placed = !!marks[id];
               const waiting = !placed && !!suggested[id];
               const isActive = id === active;
-              const state = placed ? (marks[id]?.source === 'moved' ? 'placed (suggested, moved)' : marks[id]?.source === 'suggested' ? 'placed (suggested)' : 'placed') : waiting ? 'suggested, not confirmed' : 'not placed';
+              const state = placed
+                ? marks[id]?.source === 'moved'
+                  ? 'placed (suggested, moved)'
+                  : marks[id]?.source === 'suggested'
+                    ? 'placed (suggested)'
+                    : 'placed'
+                : waiting
+                  ? 'suggested, not confirmed'
+                  : 'not placed';
               return (
                 <Pressable
                   key={id}

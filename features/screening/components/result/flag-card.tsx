@@ -51,7 +51,9 @@ export function FlagCard({ group }: { group: FlagGroup }) {
                 How the {valueText(t.value, t.unit, 2)} threshold is derived: {t.derivation}.
               </Text>
             ))}
-          {references.length === 0 ? <Text variant="small">No published source: these thresholds are common practice or Squadline&apos;s own choice.</Text> : null}
+          {references.length === 0 ? (
+            <Text variant="small">No published source: these thresholds are common practice or Squadline&apos;s own choice.</Text>
+          ) : null}
           {references.map((r) => (
             <Text key={r} variant="small">
               {r}
@@ -88,7 +90,15 @@ function uniqueCitations(thresholds: readonly ThresholdRef[]): string[] {
 }
 
 const styles = StyleSheet.create({
-  card: { gap: space.xs, padding: space.md, borderRadius: radius.md, backgroundColor: colors.surface, borderWidth: 1, borderColor: colors.line, borderLeftWidth: 6 },
+  card: {
+    gap: space.xs,
+    padding: space.md,
+    borderRadius: radius.md,
+    backgroundColor: colors.surface,
+    borderWidth: 1,
+    borderColor: colors.line,
+    borderLeftWidth: 6,
+  },
   watch: { borderLeftColor: colors.amber },
   concern: { borderLeftColor: colors.brick },
   head: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' },

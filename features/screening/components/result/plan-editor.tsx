@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { ValidationError } from 'yup';
 import { useAdjustPlanMutation } from '@/features/screening/api/adjust-plan';
-import { planAdjustmentSchema, type PlanOverrideView } from '@/features/screening/contract';
+import { planAdjustmentSchema, type PlanAdjustmentInput, type PlanOverrideView } from '@/features/screening/contract';
 import { checkExercise, EXERCISES, type LimitBreach, type LoadingContext, type PlannedExercise } from '@/features/screening/engine';
 import { loadText, setsText } from '@/features/screening/labels';
 import { canShiftLoad, finalizeAdjustment, fromLibrary, goesPastLimit, shiftLoad, shiftSets } from '@/features/screening/plan-edits';
@@ -18,6 +18,8 @@ type Props = {
   start: PlannedExercise[];
   startNote: string;
   startOverrides: PlanOverrideView[];
+  /** The plan this edit starts from, so an edit against a plan changed meanwhile is refused (409). */
+  basedOn: PlanAdjustmentInput['basedOn'];
   proposal: PlannedExercise[];
   /** The limits the engine applied to this athlete; the server checks the saved plan against the same. */
   loading: LoadingContext;
@@ -27,14 +29,15 @@ type Props = {
 };
 
 const breachKey = (b: Pick<LimitBreach, 'exerciseId' | 'limit'>) => `${b.exerciseId}:${b.limit}`;
-const PAST_LIMIT_FOR_OTHERS = 'That goes past a youth or growth-spurt limit for this athlete. Only a head coach or a physiotherapist can do that, with a reason.';
+const PAST_LIMIT_FOR_OTHERS =
+  'That goes past a youth or growth-spurt limit for this athlete. Only a head coach or a physiotherapist can do that, with a reason.';
 
 /**
  * Drop an exercise, add one back from the library, change sets or load; saved beside the engine's
  * proposal. Every change meets the same limits as the engine's own plan: a tester cannot go past one,
  * a head coach or physiotherapist can, giving a reason that stays in the plan's history.
  */
-export function PlanEditor({ assessmentId, start, startNote, startOverrides, proposal, loading, canOverride, onClose }: Props) {
+export function PlanEditor({ assessmentId, start, startNote, startOverrides, basedOn, proposal, loading, canOverride, onClose }: Props) {
   const [list, setList] = useState<PlannedExercise[]>(start);
   const [note, setNote] = useState(startNote);
   const [reasons, setReasons] = useState<Record<string, string>>(() => Object.fromEntries(startOverrides.map((o) => [breachKey(o), o.reason])));
@@ -70,15 +73,13 @@ export function PlanEditor({ assessmentId, start, startNote, startOverrides, pro
     const missing = breaches.filter((b) => (reasons[breachKey(b)] ?? '').trim().length < 5);
     if (missing.length > 0) {
       setError(
-        canOverride
-          ? 'Give a reason (a few words) for each limit the plan goes past, or undo the change.'
-          : `${missing[0]!.message} ${PAST_LIMIT_FOR_OTHERS}`,
+        canOverride ? 'Give a reason (a few words) for each limit the plan goes past, or undo the change.' : `${missing[0]!.message} ${PAST_LIMIT_FOR_OTHERS}`,
       );
       return;
     }
     try {
       const overrides = breaches.map((b) => ({ exerciseId: b.exerciseId, limit: b.limit, reason: (reasons[breachKey(b)] ?? '').trim() }));
-      const input = await planAdjustmentSchema.validate({ exercises: finalizeAdjustment(list, proposal), note, overrides });
+      const input = await planAdjustmentSchema.validate({ exercises: finalizeAdjustment(list, proposal), note, overrides, basedOn });
       await save.mutateAsync(input);
       onClose();
     } catch (e) {
@@ -98,13 +99,25 @@ export function PlanEditor({ assessmentId, start, startNote, startOverrides, pro
             <View style={styles.row}>
               <Text style={styles.value}>{setsText(ex.prescription.sets)}</Text>
               <Button tone="secondary" label="− set" accessibilityLabel={`One set fewer for ${ex.name}`} onPress={() => change(i, shiftSets(ex, -1))} />
-              <Button tone="secondary" label="+ set" accessibilityLabel={`One set more for ${ex.name}`} testID={`more-sets-${ex.id}`} onPress={() => change(i, shiftSets(ex, 1))} />
+              <Button
+                tone="secondary"
+                label="+ set"
+                accessibilityLabel={`One set more for ${ex.name}`}
+                testID={`more-sets-${ex.id}`}
+                onPress={() => change(i, shiftSets(ex, 1))}
+              />
             </View>
             <Text variant="small">Load: {loadText(ex.prescription.load)}</Text>
             {canShiftLoad(ex) ? (
               <View style={styles.row}>
                 <Button tone="secondary" label="Lighter" accessibilityLabel={`Lighter load for ${ex.name}`} onPress={() => change(i, shiftLoad(ex, -1))} />
-                <Button tone="secondary" label="Heavier" accessibilityLabel={`Heavier load for ${ex.name}`} testID={`heavier-${ex.id}`} onPress={() => change(i, shiftLoad(ex, 1))} />
+                <Button
+                  tone="secondary"
+                  label="Heavier"
+                  accessibilityLabel={`Heavier load for ${ex.name}`}
+                  testID={`heavier-${ex.id}`}
+                  onPress={() => change(i, shiftLoad(ex, 1))}
+                />
               </View>
             ) : null}
             {own.map((b) => (

@@ -101,6 +101,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
           start={adjustment?.exercises ?? plan.exercises}
           startNote={adjustment?.note ?? ''}
           startOverrides={adjustment?.overrides ?? []}
+          basedOn={{ resultVersion: result.version, adjustedAt: adjustment?.createdAt ?? null }}
           proposal={plan.exercises}
           loading={loading}
           canOverride={canOverride}
@@ -112,7 +113,17 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
           {shown.map((ex, i) => (
             <ExerciseCard key={ex.id} exercise={ex} index={i} />
           ))}
-          {canAdjust ? <Button tone="secondary" label="Adjust the plan" testID="plan-adjust" onPress={() => { setShowProposal(false); setEditing(true); }} /> : null}
+          {canAdjust ? (
+            <Button
+              tone="secondary"
+              label="Adjust the plan"
+              testID="plan-adjust"
+              onPress={() => {
+                setShowProposal(false);
+                setEditing(true);
+              }}
+            />
+          ) : null}
         </>
       )}
       {history.length > 0 ? (
@@ -131,11 +142,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
       ) : null}
       <View style={styles.rescreen} testID="plan-rescreen">
         <Text variant="label">Re-screen</Text>
-        <Text>
-          {plan.rescreenDate
-            ? `On or after ${plan.rescreenDate} (in ${plan.rescreenWeeks} weeks).`
-            : `In ${plan.rescreenWeeks} weeks.`}
-        </Text>
+        <Text>{plan.rescreenDate ? `On or after ${plan.rescreenDate} (in ${plan.rescreenWeeks} weeks).` : `In ${plan.rescreenWeeks} weeks.`}</Text>
       </View>
       <Notice tone="caution" title="Before you start" testID="plan-cautions">
         <View style={styles.cautions}>
@@ -146,7 +153,8 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
             </View>
           ))}
           <Text variant="small">
-            This plan supports the club&apos;s coaching; it does not replace local codes of practice or licensed professionals. If anything hurts, see a physiotherapist or doctor.
+            This plan supports the club&apos;s coaching; it does not replace local codes of practice or licensed professionals. If anything hurts, see a
+            physiotherapist or doctor.
           </Text>
         </View>
       </Notice>

@@ -46,7 +46,11 @@ function ResultPhoto({ photo, detail, wide }: { photo: PhotoView; detail: Assess
   const overlay = overlayFor(task, photo.view, marks, detail.athlete.racketHand);
   const displayWidth = Math.min(width, 420);
   return (
-    <View style={[styles.card, wide && styles.cardWide]} onLayout={(e) => setWidth(e.nativeEvent.layout.width - space.md * 2)} testID={`result-photo-${photo.taskId}-${photo.view}`}>
+    <View
+      style={[styles.card, wide && styles.cardWide]}
+      onLayout={(e) => setWidth(e.nativeEvent.layout.width - space.md * 2)}
+      testID={`result-photo-${photo.taskId}-${photo.view}`}
+    >
       <Text variant="label">
         {task.title}, {photo.view} view
       </Text>
@@ -74,6 +78,14 @@ const styles = StyleSheet.create({
   wrap: { gap: space.md },
   grid: { gap: space.md },
   gridWide: { flexDirection: 'row', flexWrap: 'wrap' },
-  card: { gap: space.xs, padding: space.md, borderRadius: radius.md, backgroundColor: colors.surface, borderWidth: 1, borderColor: colors.line, alignItems: 'flex-start' },
+  card: {
+    gap: space.xs,
+    padding: space.md,
+    borderRadius: radius.md,
+    backgroundColor: colors.surface,
+    borderWidth: 1,
+    borderColor: colors.line,
+    alignItems: 'flex-start',
+  },
   cardWide: { flexBasis: 320, flexGrow: 1 },
 });

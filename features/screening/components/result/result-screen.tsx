@@ -1,5 +1,6 @@
 import { AthleteClearanceBadge } from '@/features/care/components/clearance-badge';
 import { ResultCarePanel } from '@/features/care/components/result-care-panel';
+import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
@@ -8,7 +9,6 @@ import type { AssessmentDetail, ResultView } from '@/features/screening/contract
 import type { Flag } from '@/features/screening/engine';
 import { groupFlags } from '@/features/screening/flag-groups';
 import { nextUnscreened } from '@/features/screening/round-order';
-import { canAdjustPlan, canOverrideLimits, canScreen } from '@/features/screening/roles';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Notice } from '@/features/ui/components/notice';
@@ -33,7 +33,7 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
       <View style={styles.wrap}>
         <Text variant="title">{name}</Text>
         <Notice title="Not submitted yet">This assessment has no result yet.</Notice>
-        {canScreen(membership.role) ? (
+        {can(membership.role, 'screening.write') ? (
           <Link href={`/screening/assessments/${detail.id}`} style={styles.action}>
             <Text style={styles.actionText}>Continue screening →</Text>
           </Link>
@@ -41,7 +41,7 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
       </View>
     );
   }
-  const canEdit = canScreen(membership.role);
+  const canEdit = can(membership.role, 'screening.write');
   return (
     <View style={styles.wrap} testID="result">
       <Header detail={detail} result={result} name={name} canEdit={canEdit} />
@@ -55,8 +55,8 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
             assessmentId={detail.id}
             result={result}
             oneRepMaxKg={detail.draft.oneRepMaxKg}
-            canAdjust={canAdjustPlan(membership.role)}
-            canOverride={canOverrideLimits(membership.role)}
+            canAdjust={can(membership.role, 'plan.adjust')}
+            canOverride={can(membership.role, 'plan.override')}
           />
           <ResultCarePanel assessmentId={detail.id} athleteId={detail.athlete.id} />
           {result.history.length > 0 ? (
@@ -106,9 +106,7 @@ function Header({ detail, result, name, canEdit }: { detail: AssessmentDetail; r
           ← {detail.roundName}
         </Text>
       </Link>
-      <Text variant="small">
-        Result · {detail.screenedOn}
-      </Text>
+      <Text variant="small">Result · {detail.screenedOn}</Text>
       <Text variant="title" accessibilityRole="header">
         {name}
       </Text>

@@ -29,14 +29,7 @@ export const DEMO_OPEN_ROUND = { name: 'Winter check', screenedOn: '2026-12-01' 
 const NEWEST_IN_PROGRESS = [8];
 const NEWEST_NOT_STARTED = [9, 10, 11];
 
-type Tendency =
-  | 'valgus-improving'
-  | 'valgus-persisting'
-  | 'pelvic-drop-persisting'
-  | 'pelvic-drop-cleared'
-  | 'stiff-ankles'
-  | 'trunk-lean'
-  | 'clean';
+type Tendency = 'valgus-improving' | 'valgus-persisting' | 'pelvic-drop-persisting' | 'pelvic-drop-cleared' | 'stiff-ankles' | 'trunk-lean' | 'clean';
 
 /** By roster position; the demo parent's children are 0 (Maya, under-13) and 1 (Theo, under-15). */
 const TENDENCIES: readonly Tendency[] = [
@@ -109,7 +102,13 @@ type Athlete = { id: string; sex: 'female' | 'male'; racketHand: Side; photoCons
 type Profile = { tendency: Tendency; worse: Side; heightOffsetCm: number; sittingRatio: number; bmi: number };
 
 function profileOf(tendency: Tendency, rand: Rand): Profile {
-  return { tendency, worse: rand() < 0.5 ? 'left' : 'right', heightOffsetCm: jitter(rand, 6), sittingRatio: 0.515 + jitter(rand, 0.012), bmi: 17.5 + rand() * 3.5 };
+  return {
+    tendency,
+    worse: rand() < 0.5 ? 'left' : 'right',
+    heightOffsetCm: jitter(rand, 6),
+    sittingRatio: 0.515 + jitter(rand, 0.012),
+    bmi: 17.5 + rand() * 3.5,
+  };
 }
 
 /** How marked the tendency is in round 0, 1, 2: 1 = clearly there, 0 = gone. */
@@ -216,7 +215,9 @@ function demoDraft(a: Athlete, p: Profile, round: number, rand: Rand, ageYears: 
       // About 3.6 degrees of shin angle per cm (the engine's notes), from a 4 degree start.
       const shin = 4 + 3.6 * distance + jitter(rand, 2);
       const ankle = { x: 300, y: 1400 };
-      ktw.landmarks = { side: { 'near-ankle': pt(ankle.x, ankle.y), 'near-knee': pt(ankle.x + 400 * Math.sin(shin * DEG), ankle.y - 400 * Math.cos(shin * DEG)) } };
+      ktw.landmarks = {
+        side: { 'near-ankle': pt(ankle.x, ankle.y), 'near-knee': pt(ankle.x + 400 * Math.sin(shin * DEG), ankle.y - 400 * Math.cos(shin * DEG)) },
+      };
     }
     task(`knee-to-wall-${side}`, [stiff > 0.5 && 'ktw-pinch-front', stiff > 0.5 && rand() < 0.4 && 'ktw-heel-lifts'], ktw);
   }
@@ -228,7 +229,12 @@ function demoDraft(a: Athlete, p: Profile, round: number, rand: Rand, ageYears: 
     const landing = (a.sex === 'female' ? 7 : 3) + 16 * valgus;
     task(
       'drop-landing',
-      [valgus > 0.5 && 'landing-right-knee-in', valgus > 0.5 && 'landing-left-knee-in', stiff > 0.5 && 'landing-stiff', rand() < 0.1 && 'landing-one-foot-first'],
+      [
+        valgus > 0.5 && 'landing-right-knee-in',
+        valgus > 0.5 && 'landing-left-knee-in',
+        stiff > 0.5 && 'landing-stiff',
+        rand() < 0.1 && 'landing-one-foot-first',
+      ],
       front((out) => {
         frontLeg('right', pt(CENTRE_X - 70, HIP_Y), fppaFor('right', landing), ['right-hip', 'right-knee', 'right-ankle'], out);
         frontLeg('left', pt(CENTRE_X + 70, HIP_Y), fppaFor('left', landing), ['left-hip', 'left-knee', 'left-ankle'], out);
@@ -271,7 +277,12 @@ export async function seedDemoScreening(db: Db, ids: Pick<DemoIds, 'clubId' | 's
       .select({ id: users.id, email: users.email })
       .from(users)
       .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.clubId, ids.clubId)))
-      .where(inArray(users.email, DEMO_USERS.map((u) => u.email)));
+      .where(
+        inArray(
+          users.email,
+          DEMO_USERS.map((u) => u.email),
+        ),
+      );
     const userId = (role: string) => staff.find((s) => s.email === DEMO_USERS.find((u) => u.role === role)!.email)!.id;
     const scopeOf = (role: 'head_coach' | 'tester'): ClubScope => ({ userId: userId(role), clubId: ids.clubId, role, athleteIds: null });
     const coach = screeningRepo(tx as Executor, scopeOf('head_coach'));

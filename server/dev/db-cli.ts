@@ -1,10 +1,10 @@
-// db/cli.ts migrate | prepare | reset
+// server/dev/db-cli.ts migrate | prepare | reset
 //   migrate: apply committed migrations.
 //   prepare: migrate, then load the demo data if the database has no club yet (first run).
 //   reset:   drop everything, migrate, load the demo data.
 import { sql } from 'drizzle-orm';
-import { connect, runMigrations } from './client';
-import { clubs } from './schema';
+import { connect, runMigrations } from '@/db/client';
+import { clubs } from '@/db/schema';
 import { seedDemo } from './seed/demo';
 
 async function main(command: string | undefined) {

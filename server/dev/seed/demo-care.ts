@@ -27,7 +27,14 @@ async function seedIn(db: Db, ids: Pick<DemoIds, 'clubId' | 'athleteIds'>, publi
   const [physio] = await db.select({ id: users.id }).from(users).where(eq(users.email, 'physio@squadline.test'));
   const scope: ClubScope = { userId: physio!.id, clubId: ids.clubId, role: 'physio', athleteIds: null };
   const screens = await db
-    .select({ id: assessments.id, athleteId: assessments.athleteId, squadId: rounds.squadId, screenedOn: rounds.screenedOn, lastName: athletes.lastName, firstName: athletes.firstName })
+    .select({
+      id: assessments.id,
+      athleteId: assessments.athleteId,
+      squadId: rounds.squadId,
+      screenedOn: rounds.screenedOn,
+      lastName: athletes.lastName,
+      firstName: athletes.firstName,
+    })
     .from(assessments)
     .innerJoin(rounds, eq(rounds.id, assessments.roundId))
     .innerJoin(athletes, eq(athletes.id, assessments.athleteId))
@@ -48,8 +55,18 @@ async function seedIn(db: Db, ids: Pick<DemoIds, 'clubId' | 'athleteIds'>, publi
     .where(and(eq(athletes.clubId, ids.clubId), eq(athletes.lastName, 'Okafor'), inArray(athletes.id, ids.athleteIds)));
   const maya = okafor.find((a) => a.firstName === 'Maya')!;
   const notes = notesRepo(db, scope);
-  const shared = await notes.create({ athleteId: maya.id, assessmentId: null, visibility: 'family', text: 'Maya is doing well. Keep the ankle exercises going at home, a few minutes after school is enough.' });
-  const team = await notes.create({ athleteId: maya.id, assessmentId: null, visibility: 'team', text: 'Mild heel soreness after the tournament weekend; watch jump volume in the next block.' });
+  const shared = await notes.create({
+    athleteId: maya.id,
+    assessmentId: null,
+    visibility: 'family',
+    text: 'Maya is doing well. Keep the ankle exercises going at home, a few minutes after school is enough.',
+  });
+  const team = await notes.create({
+    athleteId: maya.id,
+    assessmentId: null,
+    visibility: 'team',
+    text: 'Mild heel soreness after the tournament weekend; watch jump volume in the next block.',
+  });
   const clearances = clearanceRepo(db, scope);
   const others = ids.athleteIds.filter((id) => !okafor.some((o) => o.id === id));
   const modified = await clearances.add(others[2]!, 'modified', 'No drop landings for three weeks; everything else as planned.');
@@ -59,8 +76,24 @@ async function seedIn(db: Db, ids: Pick<DemoIds, 'clubId' | 'athleteIds'>, publi
     db,
     { clubId: ids.clubId, actorId: physio!.id, action: 'create', subjectKind: 'note', subjectId: shared, athleteId: maya.id, detail: { visibility: 'family' } },
     { clubId: ids.clubId, actorId: physio!.id, action: 'create', subjectKind: 'note', subjectId: team, athleteId: maya.id, detail: { visibility: 'team' } },
-    { clubId: ids.clubId, actorId: physio!.id, action: 'set', subjectKind: 'clearance', subjectId: modified, athleteId: others[2]!, detail: { status: 'modified' } },
-    { clubId: ids.clubId, actorId: physio!.id, action: 'set', subjectKind: 'clearance', subjectId: referred, athleteId: others[7]!, detail: { status: 'referred' } },
+    {
+      clubId: ids.clubId,
+      actorId: physio!.id,
+      action: 'set',
+      subjectKind: 'clearance',
+      subjectId: modified,
+      athleteId: others[2]!,
+      detail: { status: 'modified' },
+    },
+    {
+      clubId: ids.clubId,
+      actorId: physio!.id,
+      action: 'set',
+      subjectKind: 'clearance',
+      subjectId: referred,
+      athleteId: others[7]!,
+      detail: { status: 'referred' },
+    },
     { clubId: ids.clubId, actorId: physio!.id, action: 'set', subjectKind: 'clearance', subjectId: cleared, athleteId: maya.id, detail: { status: 'cleared' } },
   );
 }

@@ -1,1 +1,0 @@
-export { requireUuid } from '@/server/http/ids';
