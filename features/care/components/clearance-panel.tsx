@@ -40,7 +40,7 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
   });
   return (
     <Card testID="clearance-panel">
-      <Text variant="heading" accessibilityRole="header">Clearance</Text>
+      <Text variant="heading" accessibilityRole="header" aria-level={2}>Clearance</Text>
       {clearance ? (
         <View style={styles.current}>
           <ClearanceBadge clearance={clearance} />

@@ -24,7 +24,7 @@ export function NotesPanel({ athleteId, assessmentId }: { athleteId: string; ass
   const canWrite = can(membership.role, 'note.write');
   return (
     <Card testID="notes-panel">
-      <Text variant="heading" accessibilityRole="header">Notes</Text>
+      <Text variant="heading" accessibilityRole="header" aria-level={2}>Notes</Text>
       {notes.error ? <Notice tone="error">{notes.error.message}</Notice> : null}
       {notes.data?.notes.length === 0 ? <Text variant="small">No notes yet.</Text> : null}
       {notes.data?.notes.map((n) => <NoteItem key={n.id} note={n} />)}

@@ -26,7 +26,7 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
     <View style={styles.wrap} testID="result-care">
       <StrengthHold words={c.block.blocked ? c.block.words : null} />
       <Card>
-        <Text variant="heading" accessibilityRole="header">Review and family summary</Text>
+        <Text variant="heading" accessibilityRole="header" aria-level={2}>Review and family summary</Text>
         <Text testID="review-state">
           {c.reviewedAt ? `Reviewed by ${c.reviewedByName ?? 'a former member'} on ${c.reviewedAt.slice(0, 10)}.` : 'Not reviewed yet.'}{' '}
           {c.releasedAt ? `Sent to the family on ${c.releasedAt.slice(0, 10)}.` : 'Not sent to the family yet.'}

@@ -24,7 +24,7 @@ export function ReviewList() {
       </View>
       {awaitingRelease.length > 0 ? (
         <>
-          <Text variant="heading" accessibilityRole="header">Reviewed, not yet sent to the family</Text>
+          <Text variant="heading" accessibilityRole="header" aria-level={2}>Reviewed, not yet sent to the family</Text>
           <View style={styles.list} testID="release-list">
             {awaitingRelease.map((r) => <ReviewRow key={r.assessmentId} item={r} />)}
           </View>
