@@ -158,7 +158,10 @@ describe('the route table', () => {
   });
 });
 
-describe.each(routes.map((r) => [label(r), r] as const))('%s under bad input', (_name, route) => {
+// Sign-out takes no id, no club header and no body: none of the cases below applies to it.
+const fuzzed = routes.filter((r) => r.params.length > 0 || r.bodySchema !== null || label(r) !== 'POST /api/auth/sign-out');
+
+describe.each(fuzzed.map((r) => [label(r), r] as const))('%s under bad input', (_name, route) => {
   // Each test checks that nothing at all was written: row counts of every table before and after.
   let before: Record<string, number>;
   beforeAll(async () => {
