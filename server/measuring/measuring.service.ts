@@ -101,7 +101,7 @@ export function measuringService({ db }: { db: Db }) {
         } as Parameters<typeof validateDraft>[0]);
         const saved = await repo.writeDraft(row.assessmentId, nextDraft);
         if (row.status !== 'submitted') return { ...saved, resultVersion: null };
-        const result = await submitAssessment(tx, scope, row.assessmentId);
+        const result = await submitAssessment(tx, scope, row.assessmentId, { rework: true });
         return { draftVersion: saved.draftVersion, status: 'submitted', resultVersion: result.version };
       });
     },

@@ -146,7 +146,13 @@ export async function submitAssessment(
   db: Executor,
   scope: ClubScope,
   assessmentId: string,
-  options: { evaluate?: Evaluate; at?: Date; draftVersion?: number } = {},
+  options: {
+    evaluate?: Evaluate;
+    at?: Date;
+    draftVersion?: number;
+    /** Points added at the desk: work a submitted screen out again. */
+    rework?: boolean;
+  } = {},
 ): Promise<ResultView> {
   const evaluate = options.evaluate ?? evaluateAssessment;
   const at = options.at ?? new Date();
@@ -162,7 +168,7 @@ export async function submitAssessment(
     // Submitted, and no draft saved since (a save sets it back to in progress): this is the same submit
     // again, a retry after a lost answer or a double tap. It returns the result already made, with the
     // same engine, instead of adding a second version of the same draft.
-    if (a.status === 'submitted') {
+    if (a.status === 'submitted' && !options.rework) {
       const current = await repo.currentResult(assessmentId);
       if (current && current.engineVersion === ENGINE_VERSION) return;
     }

@@ -167,7 +167,10 @@ describe('the route table', () => {
   });
 });
 
-describe.each(routes.map((r) => [label(r), r] as const))('%s under bad input', (_name, route) => {
+// Sign-out takes no id, no club header and no body: none of the cases below applies to it.
+const fuzzed = routes.filter((r) => r.params.length > 0 || r.bodySchema !== null || label(r) !== 'POST /api/auth/sign-out');
+
+describe.each(fuzzed.map((r) => [label(r), r] as const))('%s under bad input', (_name, route) => {
   // Each test checks that nothing at all was written: row counts of every table before and after.
   let before: Record<string, number>;
   beforeAll(async () => {
@@ -177,7 +180,7 @@ describe.each(routes.map((r) => [label(r), r] as const))('%s under bad input', (
     expect(await rowCounts()).toEqual(before);
   });
 
-  it.runIf(route.params.length > 0)('answers malformed ids in the path with a clear 4xx', async () => {
+  if (route.params.length > 0) it('answers malformed ids in the path with a clear 4xx', async () => {
     await fc.assert(
       fc.asyncProperty(
         fc.constantFrom(...route.params),
@@ -196,7 +199,7 @@ describe.each(routes.map((r) => [label(r), r] as const))('%s under bad input', (
   });
 
   // sign-out takes no input at all; it only ends the session.
-  it.runIf(label(route) !== 'POST /api/auth/sign-out')('answers a malformed X-Club-Id header with a clear 4xx', async () => {
+  if (label(route) !== 'POST /api/auth/sign-out') it('answers a malformed X-Club-Id header with a clear 4xx', async () => {
     // Printable header values only: Node refuses to even send control characters.
     const headerValue = fc.oneof(
       fc.constantFrom(...MALFORMED_IDS.filter((v) => /^[\x20-\x7e]+$/.test(v))),
@@ -213,7 +216,7 @@ describe.each(routes.map((r) => [label(r), r] as const))('%s under bad input', (
     );
   });
 
-  it.runIf(route.bodySchema !== null)('answers bodies of the wrong shape with a clear 4xx', async () => {
+  if (route.bodySchema !== null) it('answers bodies of the wrong shape with a clear 4xx', async () => {
     const wrongShape = fc.oneof(
       fc.array(fc.jsonValue(), { maxLength: 5 }),
       fc.dictionary(fc.string({ maxLength: 12 }), fc.jsonValue(), { maxKeys: 6 }),
@@ -228,7 +231,7 @@ describe.each(routes.map((r) => [label(r), r] as const))('%s under bad input', (
     );
   });
 
-  it.runIf(route.bodySchema !== null)('answers a valid body with one hostile field with 400 naming that field', async () => {
+  if (route.bodySchema !== null) it('answers a valid body with one hostile field with 400 naming that field', async () => {
     const base = validBody(route);
     const fields = fieldPaths(route.bodySchema!.describe() as never);
     const cases = fields.flatMap((f) => [

@@ -40,7 +40,7 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
   });
   return (
     <Card testID="clearance-panel">
-      <Text variant="heading" accessibilityRole="header">
+      <Text variant="heading" accessibilityRole="header" aria-level={2}>
         Clearance
       </Text>
       {clearance ? (

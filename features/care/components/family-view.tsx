@@ -6,6 +6,7 @@ import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
 import { useFamilyViewQuery } from '../api/get-family-view';
 import type { FamilySummary, SummaryRelease } from '../types';
+import { formatDate } from '@/features/ui/format-date';
 
 /** A parent's page for one child: the latest released summary in plain words, the plan with how-to, family notes, earlier summaries. */
 export function FamilyView({ athleteId }: { athleteId: string }) {
@@ -47,7 +48,7 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
         {notes.map((n) => (
           <View key={n.id} style={styles.note}>
             <Text variant="small">
-              {n.authorName ?? 'The club'} · {n.createdAt.slice(0, 10)}
+              {n.authorName ?? 'The club'} · {formatDate(n.createdAt)}
             </Text>
             <Text>{n.text}</Text>
           </View>
@@ -62,7 +63,7 @@ function Summary({ summary, releasedAt }: { summary: FamilySummary; releasedAt: 
   return (
     <Card testID="family-summary">
       <Text variant="small">
-        Screen of {summary.screenedOn} · sent {releasedAt.slice(0, 10)}
+        Screen of {formatDate(summary.screenedOn)} · sent {formatDate(releasedAt)}
       </Text>
       <Section title="What was checked" items={summary.checked} />
       <Section title="What we saw" items={summary.seen} />
@@ -127,7 +128,7 @@ function Earlier({ releases }: { releases: SummaryRelease[] }) {
       <Text variant="heading">Earlier summaries</Text>
       {releases.map((r) => (
         <View key={r.id} style={styles.list}>
-          <Text variant="label">Screen of {r.summary.screenedOn}</Text>
+          <Text variant="label">Screen of {formatDate(r.summary.screenedOn)}</Text>
           {r.summary.seen.map((s) => (
             <Text key={s} variant="small">
               • {s}

@@ -24,7 +24,7 @@ export function NotesPanel({ athleteId, assessmentId }: { athleteId: string; ass
   const canWrite = can(membership.role, 'note.write');
   return (
     <Card testID="notes-panel">
-      <Text variant="heading" accessibilityRole="header">
+      <Text variant="heading" accessibilityRole="header" aria-level={2}>
         Notes
       </Text>
       {notes.error ? <Notice tone="error">{notes.error.message}</Notice> : null}

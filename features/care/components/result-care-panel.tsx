@@ -26,7 +26,7 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
     <View style={styles.wrap} testID="result-care">
       <StrengthHold words={c.block.blocked ? c.block.words : null} />
       <Card>
-        <Text variant="heading" accessibilityRole="header">
+        <Text variant="heading" accessibilityRole="header" aria-level={2}>
           Review and family summary
         </Text>
         <Text testID="review-state">

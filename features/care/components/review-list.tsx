@@ -6,6 +6,7 @@ import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { useReviewsQuery } from '../api/get-reviews';
 import type { ReviewItem } from '../types';
 import { ClearanceBadge } from './clearance-badge';
+import { formatDate } from '@/features/ui/format-date';
 
 /** The physiotherapist's list: screens to review (pain or "clearance needed" first), then those awaiting release. */
 export function ReviewList() {
@@ -32,7 +33,7 @@ export function ReviewList() {
       </View>
       {awaitingRelease.length > 0 ? (
         <>
-          <Text variant="heading" accessibilityRole="header">
+          <Text variant="heading" accessibilityRole="header" aria-level={2}>
             Reviewed, not yet sent to the family
           </Text>
           <View style={styles.list} testID="release-list">
@@ -56,7 +57,7 @@ function ReviewRow({ item }: { item: ReviewItem }) {
             {item.firstName} {item.lastName}
           </Text>
           <Text variant="small">
-            {item.squadName ?? 'No squad'} · {item.roundName} · {item.screenedOn}
+            {item.squadName ?? 'No squad'} · {item.roundName} · {formatDate(item.screenedOn)}
           </Text>
           <View style={styles.tags}>
             {item.painReported ? <Tag tone="stop" label="Pain reported" /> : null}

@@ -38,7 +38,7 @@ function ProgressBody({ progress }: { progress: ProgressResponse }) {
   }
   return (
     <View style={styles.wrap} testID="athlete-progress">
-      <Text variant="heading" accessibilityRole="header">
+      <Text variant="heading" accessibilityRole="header" aria-level={2}>
         Progress over time
       </Text>
       <Comparison progress={progress} />

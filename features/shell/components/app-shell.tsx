@@ -1,6 +1,7 @@
 import { Link, usePathname, useRouter } from 'expo-router';
 import { useState, type ReactNode } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
+import { can } from '@/features/access/permissions';
 import { useSignOutMutation } from '@/features/auth/api/sign-out';
 import { ROLE_LABELS } from '@/features/auth/schemas';
 import { useMetaQuery } from '@/features/meta/get-meta';
@@ -16,13 +17,15 @@ import { navFor } from '../nav';
 export function AppShell({ children }: { children: ReactNode }) {
   const { isWide } = useBreakpoints();
   const [menuOpen, setMenuOpen] = useState(false);
+  // Only people who screen keep changes on the device; a parent or a physio has nothing waiting to sync.
+  const syncs = can(useActiveClub().membership.role, 'screening.write');
   if (isWide) {
     return (
       <View style={styles.wideRoot}>
         <View style={styles.side} role="navigation">
           <Brand />
           {/* Integration point with features/offline: the device's sync status on every screen. */}
-          <SyncStatusPill />
+          {syncs ? <SyncStatusPill /> : null}
           <NavList onNavigate={() => undefined} />
           <View style={styles.grow} />
           <AccountBox />
@@ -38,7 +41,7 @@ export function AppShell({ children }: { children: ReactNode }) {
       <View style={styles.topBar}>
         <Brand />
         <View style={styles.topStatus}>
-          <SyncStatusPill align="right" />
+          {syncs ? <SyncStatusPill align="right" /> : null}
         </View>
         <Pressable
           accessibilityRole="button"
