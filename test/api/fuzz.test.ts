@@ -180,91 +180,96 @@ describe.each(fuzzed.map((r) => [label(r), r] as const))('%s under bad input', (
     expect(await rowCounts()).toEqual(before);
   });
 
-  if (route.params.length > 0) it('answers malformed ids in the path with a clear 4xx', async () => {
-    await fc.assert(
-      fc.asyncProperty(
-        fc.constantFrom(...route.params),
-        fc.oneof(
-          fc.constantFrom(...MALFORMED_IDS),
-          fc.string({ unit: 'binary', maxLength: 60 }).filter((s) => s.length > 0),
+  if (route.params.length > 0)
+    it('answers malformed ids in the path with a clear 4xx', async () => {
+      await fc.assert(
+        fc.asyncProperty(
+          fc.constantFrom(...route.params),
+          fc.oneof(
+            fc.constantFrom(...MALFORMED_IDS),
+            fc.string({ unit: 'binary', maxLength: 60 }).filter((s) => s.length > 0),
+          ),
+          async (param, value) => {
+            const res = await send(route, pathFor(route, { param, value }), validBody(route) ?? {});
+            // An id that is not a UUID names nothing: 404 (or 400 where the path cannot even be routed).
+            expectClearRefusal(res, `${label(route)} with :${param}=${JSON.stringify(value)}`);
+          },
         ),
-        async (param, value) => {
-          const res = await send(route, pathFor(route, { param, value }), validBody(route) ?? {});
-          // An id that is not a UUID names nothing: 404 (or 400 where the path cannot even be routed).
-          expectClearRefusal(res, `${label(route)} with :${param}=${JSON.stringify(value)}`);
-        },
-      ),
-      { seed: SEED, numRuns: RUNS },
-    );
-  });
+        { seed: SEED, numRuns: RUNS },
+      );
+    });
 
   // sign-out takes no input at all; it only ends the session.
-  if (label(route) !== 'POST /api/auth/sign-out') it('answers a malformed X-Club-Id header with a clear 4xx', async () => {
-    // Printable header values only: Node refuses to even send control characters.
-    const headerValue = fc.oneof(
-      fc.constantFrom(...MALFORMED_IDS.filter((v) => /^[\x20-\x7e]+$/.test(v))),
-      fc.string({ unit: fc.constantFrom(..."abcdef0123456789-{}' ;%.".split('')), minLength: 1, maxLength: 80 }),
-    );
-    // With a body the route refuses or an id it cannot find, so no valid request slips through.
-    const path = route.params.length > 0 && !route.bodySchema ? pathFor(route, { param: route.params[0]!, value: 'not-a-uuid' }) : pathFor(route);
-    await fc.assert(
-      fc.asyncProperty(headerValue, async (value) => {
-        const res = await send(route, path, route.bodySchema ? { unexpected: true } : {}, { 'X-Club-Id': value });
-        expectClearRefusal(res, `${label(route)} with X-Club-Id ${JSON.stringify(value)}`);
-      }),
-      { seed: SEED, numRuns: Math.ceil(RUNS / 2) },
-    );
-  });
+  if (label(route) !== 'POST /api/auth/sign-out')
+    it('answers a malformed X-Club-Id header with a clear 4xx', async () => {
+      // Printable header values only: Node refuses to even send control characters.
+      const headerValue = fc.oneof(
+        fc.constantFrom(...MALFORMED_IDS.filter((v) => /^[\x20-\x7e]+$/.test(v))),
+        fc.string({ unit: fc.constantFrom(..."abcdef0123456789-{}' ;%.".split('')), minLength: 1, maxLength: 80 }),
+      );
+      // With a body the route refuses or an id it cannot find, so no valid request slips through.
+      const path = route.params.length > 0 && !route.bodySchema ? pathFor(route, { param: route.params[0]!, value: 'not-a-uuid' }) : pathFor(route);
+      await fc.assert(
+        fc.asyncProperty(headerValue, async (value) => {
+          const res = await send(route, path, route.bodySchema ? { unexpected: true } : {}, { 'X-Club-Id': value });
+          expectClearRefusal(res, `${label(route)} with X-Club-Id ${JSON.stringify(value)}`);
+        }),
+        { seed: SEED, numRuns: Math.ceil(RUNS / 2) },
+      );
+    });
 
-  if (route.bodySchema !== null) it('answers bodies of the wrong shape with a clear 4xx', async () => {
-    const wrongShape = fc.oneof(
-      fc.array(fc.jsonValue(), { maxLength: 5 }),
-      fc.dictionary(fc.string({ maxLength: 12 }), fc.jsonValue(), { maxKeys: 6 }),
-      fc.constant({}),
-    );
-    await fc.assert(
-      fc.asyncProperty(wrongShape, async (body) => {
-        const res = await send(route, pathFor(route), body);
-        expectClearRefusal(res, `${label(route)} with body ${JSON.stringify(body).slice(0, 200)}`);
-      }),
-      { seed: SEED, numRuns: RUNS },
-    );
-  });
+  if (route.bodySchema !== null)
+    it('answers bodies of the wrong shape with a clear 4xx', async () => {
+      const wrongShape = fc.oneof(
+        fc.array(fc.jsonValue(), { maxLength: 5 }),
+        fc.dictionary(fc.string({ maxLength: 12 }), fc.jsonValue(), { maxKeys: 6 }),
+        fc.constant({}),
+      );
+      await fc.assert(
+        fc.asyncProperty(wrongShape, async (body) => {
+          const res = await send(route, pathFor(route), body);
+          expectClearRefusal(res, `${label(route)} with body ${JSON.stringify(body).slice(0, 200)}`);
+        }),
+        { seed: SEED, numRuns: RUNS },
+      );
+    });
 
-  if (route.bodySchema !== null) it('answers a valid body with one hostile field with 400 naming that field', async () => {
-    const base = validBody(route);
-    const fields = fieldPaths(route.bodySchema!.describe() as never);
-    const cases = fields.flatMap((f) => [
-      ...hostileValuesFor(f.desc, getAt(base, f.path)).map((value) => ({ path: f.path, value })),
-      ...(f.required ? [{ path: f.path, value: REMOVE as unknown }] : []),
-    ]);
-    expect(cases.length).toBeGreaterThan(0);
-    await fc.assert(
-      // Cases are drawn by index so a failure report stays readable (some values are 200,000 characters).
-      fc.asyncProperty(fc.nat({ max: cases.length - 1 }), async (i) => {
-        const { path, value } = cases[i]!;
-        const body = setAt(base ?? {}, path, value);
-        const res = await send(route, pathFor(route), body);
-        const what = `${label(route)} with ${path.join('.')} = ${value === REMOVE ? '(missing)' : JSON.stringify(value)?.slice(0, 80)}`;
-        expectClearRefusal(res, what);
-        // With a known valid body, the refusal must point at the field that was made hostile (the sign-in
-        // and link routes may answer 401/404 for a well-formed but wrong value instead).
-        if (base !== undefined && !(route.path.includes('/auth/') && res.status !== 400)) {
-          expect(res.status, what).toBe(400);
-          const keys = Object.keys((res.body.error?.fields ?? {}) as object);
-          const dotted = path.join('.');
-          expect(
-            keys.some(
-              (k) => k === dotted || k.startsWith(`${dotted}.`) || k.startsWith(`${dotted}[`) || dotted.startsWith(`${k}.`) || (path.length === 1 && k === '_'),
-            ),
-            `${what}: fields ${keys.join(', ')}`,
-          ).toBe(true);
-        }
-      }),
-      // Every hostile case of a small schema (about twice over), a sample of a large one.
-      { seed: SEED, numRuns: Math.min(cases.length * 2, RUNS * 4) },
-    );
-  });
+  if (route.bodySchema !== null)
+    it('answers a valid body with one hostile field with 400 naming that field', async () => {
+      const base = validBody(route);
+      const fields = fieldPaths(route.bodySchema!.describe() as never);
+      const cases = fields.flatMap((f) => [
+        ...hostileValuesFor(f.desc, getAt(base, f.path)).map((value) => ({ path: f.path, value })),
+        ...(f.required ? [{ path: f.path, value: REMOVE as unknown }] : []),
+      ]);
+      expect(cases.length).toBeGreaterThan(0);
+      await fc.assert(
+        // Cases are drawn by index so a failure report stays readable (some values are 200,000 characters).
+        fc.asyncProperty(fc.nat({ max: cases.length - 1 }), async (i) => {
+          const { path, value } = cases[i]!;
+          const body = setAt(base ?? {}, path, value);
+          const res = await send(route, pathFor(route), body);
+          const what = `${label(route)} with ${path.join('.')} = ${value === REMOVE ? '(missing)' : JSON.stringify(value)?.slice(0, 80)}`;
+          expectClearRefusal(res, what);
+          // With a known valid body, the refusal must point at the field that was made hostile (the sign-in
+          // and link routes may answer 401/404 for a well-formed but wrong value instead).
+          if (base !== undefined && !(route.path.includes('/auth/') && res.status !== 400)) {
+            expect(res.status, what).toBe(400);
+            const keys = Object.keys((res.body.error?.fields ?? {}) as object);
+            const dotted = path.join('.');
+            expect(
+              keys.some(
+                (k) =>
+                  k === dotted || k.startsWith(`${dotted}.`) || k.startsWith(`${dotted}[`) || dotted.startsWith(`${k}.`) || (path.length === 1 && k === '_'),
+              ),
+              `${what}: fields ${keys.join(', ')}`,
+            ).toBe(true);
+          }
+        }),
+        // Every hostile case of a small schema (about twice over), a sample of a large one.
+        { seed: SEED, numRuns: Math.min(cases.length * 2, RUNS * 4) },
+      );
+    });
 });
 
 describe('after the fuzzing', () => {

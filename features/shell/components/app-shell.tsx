@@ -40,9 +40,7 @@ export function AppShell({ children }: { children: ReactNode }) {
     <View style={styles.phoneRoot}>
       <View style={styles.topBar}>
         <Brand />
-        <View style={styles.topStatus}>
-          {syncs ? <SyncStatusPill align="right" /> : null}
-        </View>
+        <View style={styles.topStatus}>{syncs ? <SyncStatusPill align="right" /> : null}</View>
         <Pressable
           accessibilityRole="button"
           accessibilityLabel={menuOpen ? 'Close menu' : 'Open menu'}
