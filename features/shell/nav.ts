@@ -11,8 +11,9 @@ export function navFor(role: Role, options: { mailbox: boolean }): NavItem[] {
   if (can(role, 'trends.read')) items.push({ href: '/trends', label: 'Squad trends' });
   if (can(role, 'review.read')) items.push({ href: '/reviews', label: 'Reviews' });
   if (can(role, 'members.read')) items.push({ href: '/people', label: 'People' });
-  if (can(role, 'mailbox.read') && options.mailbox) items.push({ href: '/dev/mailbox', label: 'Mailbox (local)' });
   if (can(role, 'audit.read')) items.push({ href: '/audit', label: 'Audit trail' });
   if (can(role, 'club.settings')) items.push({ href: '/care-settings', label: 'Care settings' });
+  // The local mailbox is a development tool: last.
+  if (can(role, 'mailbox.read') && options.mailbox) items.push({ href: '/dev/mailbox', label: 'Mailbox (local)' });
   return items;
 }

@@ -4,9 +4,9 @@ import type { Db } from '@/db/client';
 import type { Executor } from '@/server/screening/screening.repo';
 import { assessments, athletes, photos, rounds, squads } from '@/db/schema';
 import { OWN_CHILDREN_ONLY, rolesFor, type Action } from '@/features/access/permissions';
-import { forbidden, notFound, unauthorized } from '@/server/http/errors';
-import { requireUuid } from '@/server/http/ids';
-import { scopeForCallerClub, scopeForClub, type ClubScope } from './scope';
+import { badRequest, forbidden, notFound, unauthorized } from '@/server/http/errors';
+import { isUuid, requireUuid } from '@/server/http/ids';
+import { membershipsOf, scopeForCallerClub, scopeForClub, signedInUserId, type ClubScope } from './scope';
 
 /**
  * The one way a route checks access: `guard(action, target)` runs before anything else (validation
@@ -116,7 +116,15 @@ export function accessGuards(db: Db) {
     const entry = resolvers.get(target.record);
     if (!entry) throw new Error(`No resolver registered for record kind "${target.record}".`);
     const source = target.from === 'body' ? (req.body as Record<string, unknown> | undefined) : req.params;
-    const id = requireUuid(String(source?.[target.param] ?? ''), entry.what);
+    const raw = source?.[target.param];
+    if (target.from === 'body' && !isUuid(raw)) {
+      // A body field that is not an id: a field error, but only for a caller whose role may do this at
+      // all in one of their clubs (anyone else learns nothing about the body).
+      const mine = await membershipsOf(db, signedInUserId(req));
+      if (!mine.some((m) => roles.includes(m.role))) throw forbidden();
+      throw badRequest(`${entry.what} is not named by a valid id.`, { [target.param]: 'Must be an id (a UUID).' });
+    }
+    const id = requireUuid(String(raw ?? ''), entry.what);
     const home = await entry.resolve(db, id);
     if (!home) throw notFound(entry.what);
     const scope = await scopeForClub(db, req, home.clubId, roles);

@@ -225,7 +225,7 @@ describe('invitations and password reset', () => {
     expect(mail.subject).toBe('Follow Other Example at Riverside on Squadline');
     expect(mail.text).toContain('invites you to follow Other Example');
     const token = decodeURIComponent(/token=([^\s]+)/.exec(mail.text)![1]!);
-    expect((await supertest(app).get(`/api/auth/invitations/${token}`)).body).toMatchObject({ role: 'parent', children: ['Other Example'] });
+    expect((await supertest(app).post('/api/auth/invitations/lookup').send({ token })).body).toMatchObject({ role: 'parent', children: ['Other Example'] });
     const members = await admin.get(`/api/clubs/${ids.club}/members`);
     expect(members.body.pending.find((p: { email: string }) => p.email === 'new.parent@riverside.test')).toMatchObject({ children: ['Other Example'] });
 
