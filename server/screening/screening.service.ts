@@ -48,14 +48,11 @@ export type ScreeningDeps = {
 
 /** 409 on a stale draftVersion, carrying the server's draft so the client can merge and retry. */
 export class DraftConflictError extends AppError {
-  constructor(current: DraftConflictCurrent) {
-    super(
-      409,
-      'draft_conflict',
-      'This assessment was changed on another device since you opened it. Your changes were not saved: review the latest version and save again.',
-      undefined,
-      current,
-    );
+  constructor(
+    current: DraftConflictCurrent,
+    message = 'This assessment was changed on another device since you opened it. Your changes were not saved: review the latest version and save again.',
+  ) {
+    super(409, 'draft_conflict', message, undefined, current);
   }
 }
 
@@ -163,7 +160,10 @@ export async function submitAssessment(
     const a = (await repo.assessment(assessmentId))!;
     // The tester reviewed `draftVersion`: a newer save from another phone must be seen before submitting.
     if (options.draftVersion !== undefined && a.draftVersion !== options.draftVersion) {
-      throw new DraftConflictError({ draft: a.draft, draftVersion: a.draftVersion, status: a.status });
+      throw new DraftConflictError(
+        { draft: a.draft, draftVersion: a.draftVersion, status: a.status },
+        'This screen was changed on another device after you last saw it, so it was not submitted: open it, check the latest version and submit again.',
+      );
     }
     // Submitted, and no draft saved since (a save sets it back to in progress): this is the same submit
     // again, a retry after a lost answer or a double tap. It returns the result already made, with the

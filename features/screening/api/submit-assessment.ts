@@ -3,8 +3,16 @@ import { deviceSession, outbox } from '@/features/offline/device';
 import type { ResultView } from '@/features/screening/contract';
 import { sentFromDevice } from './save-draft';
 
-export const submitAssessment = (id: string, device: { idempotencyKey?: string; clubId?: string } = {}) =>
-  api<ResultView>(`/assessments/${encodeURIComponent(id)}/submit`, { method: 'POST', headers: sentFromDevice(device) });
+/**
+ * POST the submit. `draftVersion` names the draft version this device last saw: if another phone saved
+ * since, the server answers 409 with its current draft instead of evaluating a draft nobody reviewed here.
+ */
+export const submitAssessment = (id: string, device: { idempotencyKey?: string; clubId?: string; draftVersion?: number } = {}) =>
+  api<ResultView>(`/assessments/${encodeURIComponent(id)}/submit`, {
+    method: 'POST',
+    headers: sentFromDevice(device),
+    json: device.draftVersion !== undefined ? { draftVersion: device.draftVersion } : {},
+  });
 
 /**
  * Queues the submit on the device, behind the draft and photos of the assessment: it goes out in order

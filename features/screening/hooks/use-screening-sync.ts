@@ -65,7 +65,9 @@ async function sendPhoto(entry: OutboxEntry, qc: QueryClient) {
 }
 
 async function sendSubmit(entry: OutboxEntry, qc: QueryClient) {
-  const result = await submitAssessment(entry.assessmentId, { idempotencyKey: entry.key, clubId: entry.clubId });
+  // The drafts queued before this submit have gone out: the device's copy now holds the version it saw.
+  const draftVersion = deviceLocalCopy.read(entry.assessmentId)?.baseVersion;
+  const result = await submitAssessment(entry.assessmentId, { idempotencyKey: entry.key, clubId: entry.clubId, draftVersion });
   const detail = await updateKeptSubmitted(entry.assessmentId, result);
   if (detail) {
     await updateKept<RoundDetail>(roundKeptKey(detail.roundId), (r) => ({
