@@ -19,6 +19,10 @@ import { NotesPanel } from './notes-panel';
 export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: string; athleteId: string }) {
   const { membership } = useActiveClub();
   const care = useAssessmentCareQuery(assessmentId);
+  // Held here, not in <Release>: a refetch after another care change (a note, the review mark) must not
+  // close an open preview or hide the "Sent" notice when the refetched state says "released".
+  const [previewing, setPreviewing] = useState(false);
+  const release = useReleaseMutation(assessmentId);
   if (care.isPending) return null;
   if (care.error) return <Notice tone="error">{care.error.message}</Notice>;
   const c = care.data.care;
@@ -34,7 +38,9 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
           {c.releasedAt ? `Sent to the family on ${c.releasedAt.slice(0, 10)}.` : 'Not sent to the family yet.'}
         </Text>
         {!c.reviewedAt && can(membership.role, 'review.mark') ? <MarkReviewed assessmentId={assessmentId} /> : null}
-        {c.reviewedAt && !c.releasedAt && can(membership.role, 'summary.release') ? <Release assessmentId={assessmentId} /> : null}
+        {(release.isSuccess || (c.reviewedAt && !c.releasedAt)) && can(membership.role, 'summary.release') ? (
+          <Release assessmentId={assessmentId} previewing={previewing} setPreviewing={setPreviewing} release={release} />
+        ) : null}
       </Card>
       <ClearancePanel athleteId={athleteId} />
       <NotesPanel athleteId={athleteId} assessmentId={assessmentId} />
@@ -63,10 +69,19 @@ function MarkReviewed({ assessmentId }: { assessmentId: string }) {
   );
 }
 
-function Release({ assessmentId }: { assessmentId: string }) {
-  const [previewing, setPreviewing] = useState(false);
-  const preview = useReleasePreviewQuery(assessmentId, previewing);
-  const release = useReleaseMutation(assessmentId);
+type ReleaseProps = {
+  assessmentId: string;
+  previewing: boolean;
+  setPreviewing: (on: boolean) => void;
+  release: ReturnType<typeof useReleaseMutation>;
+};
+
+function Release({ assessmentId, previewing, setPreviewing, release }: ReleaseProps) {
+  const preview = useReleasePreviewQuery(assessmentId, previewing && !release.isSuccess);
+  if (release.isSuccess) {
+    const sent = release.data.release.recipients;
+    return <Notice title="Sent">{`The summary is in the family view${sent ? ` and ${sent} e-mail(s) are on their way` : ''}.`}</Notice>;
+  }
   if (!previewing) return <Button label="Preview the family summary" tone="secondary" onPress={() => setPreviewing(true)} testID="release-preview" />;
   if (preview.isPending) return <Text>Preparing the preview…</Text>;
   if (preview.error) return <Notice tone="error">{preview.error.message}</Notice>;
@@ -86,14 +101,10 @@ function Release({ assessmentId }: { assessmentId: string }) {
         <Text style={styles.previewText}>{p.text}</Text>
       </View>
       {release.error ? <Notice tone="error">{messageOf(release.error)}</Notice> : null}
-      {release.isSuccess ? (
-        <Notice title="Sent">{`The summary is in the family view${release.data.release.recipients ? ` and ${release.data.release.recipients} e-mail(s) are on their way` : ''}.`}</Notice>
-      ) : (
-        <View style={styles.row}>
-          <Button label="Release to the family" busy={release.isPending} onPress={() => release.mutate()} testID="release-confirm" />
-          <Button label="Not now" tone="quiet" onPress={() => setPreviewing(false)} />
-        </View>
-      )}
+      <View style={styles.row}>
+        <Button label="Release to the family" busy={release.isPending} onPress={() => release.mutate()} testID="release-confirm" />
+        <Button label="Not now" tone="quiet" onPress={() => setPreviewing(false)} />
+      </View>
     </View>
   );
 }

@@ -19,39 +19,13 @@ export function AppShell({ children }: { children: ReactNode }) {
   const [menuOpen, setMenuOpen] = useState(false);
   // Only people who screen keep changes on the device; a parent or a physio has nothing waiting to sync.
   const syncs = can(useActiveClub().membership.role, 'screening.write');
-  if (isWide) {
-    return (
-      <View style={styles.wideRoot}>
-        <View style={styles.side} role="navigation">
-          <Brand />
-          {/* Integration point with features/offline: the device's sync status on every screen. */}
-          {syncs ? <SyncStatusPill /> : null}
-          <NavList onNavigate={() => undefined} />
-          <View style={styles.grow} />
-          <AccountBox />
-        </View>
-        <View style={styles.main} role="main">
-          {children}
-        </View>
-      </View>
-    );
-  }
+  // One tree at every width: the screen sits in the same place whether the side bar or the top bar is
+  // shown, so a change of width (a tablet turned, a window resized) never remounts it and loses what
+  // the person was doing (an open preview, a half-typed note).
   return (
-    <View style={styles.phoneRoot}>
-      <View style={styles.topBar}>
-        <Brand />
-        <View style={styles.topStatus}>{syncs ? <SyncStatusPill align="right" /> : null}</View>
-        <Pressable
-          accessibilityRole="button"
-          accessibilityLabel={menuOpen ? 'Close menu' : 'Open menu'}
-          testID="menu-button"
-          onPress={() => setMenuOpen((o) => !o)}
-          style={styles.menuButton}
-        >
-          <Text style={styles.menuText}>{menuOpen ? 'Close' : 'Menu'}</Text>
-        </Pressable>
-      </View>
-      {menuOpen ? (
+    <View style={isWide ? styles.wideRoot : styles.phoneRoot}>
+      {isWide ? <SideBar syncs={syncs} /> : <TopBar syncs={syncs} menuOpen={menuOpen} onToggle={() => setMenuOpen((o) => !o)} />}
+      {!isWide && menuOpen ? (
         <View style={styles.sheet} role="navigation">
           <NavList onNavigate={() => setMenuOpen(false)} />
           <AccountBox />
@@ -59,9 +33,40 @@ export function AppShell({ children }: { children: ReactNode }) {
       ) : null}
       {/* Hidden, not unmounted, under the menu: unmounting the screens resets the router to the home
           route, and a tester who opened the menu mid-screening would lose their place. */}
-      <View style={[styles.main, menuOpen && styles.hidden]} role="main">
+      <View style={[styles.main, !isWide && menuOpen && styles.hidden]} role="main">
         {children}
       </View>
+    </View>
+  );
+}
+
+function SideBar({ syncs }: { syncs: boolean }) {
+  return (
+    <View style={styles.side} role="navigation">
+      <Brand />
+      {/* Integration point with features/offline: the device's sync status on every screen. */}
+      {syncs ? <SyncStatusPill /> : null}
+      <NavList onNavigate={() => undefined} />
+      <View style={styles.grow} />
+      <AccountBox />
+    </View>
+  );
+}
+
+function TopBar({ syncs, menuOpen, onToggle }: { syncs: boolean; menuOpen: boolean; onToggle: () => void }) {
+  return (
+    <View style={styles.topBar}>
+      <Brand />
+      <View style={styles.topStatus}>{syncs ? <SyncStatusPill align="right" /> : null}</View>
+      <Pressable
+        accessibilityRole="button"
+        accessibilityLabel={menuOpen ? 'Close menu' : 'Open menu'}
+        testID="menu-button"
+        onPress={onToggle}
+        style={styles.menuButton}
+      >
+        <Text style={styles.menuText}>{menuOpen ? 'Close' : 'Menu'}</Text>
+      </Pressable>
     </View>
   );
 }
