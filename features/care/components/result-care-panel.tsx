@@ -13,8 +13,8 @@ import { ClearancePanel } from './clearance-panel';
 import { NotesPanel } from './notes-panel';
 
 /**
- * The care team's part of a result: the strength-work hold, the review mark, release to the family
- * with a preview of the e-mail, the clearance and the notes.
+ * The care team's part of a result: the review mark, release to the family with a preview of the
+ * e-mail, the clearance and the notes. The strength-work hold is shown inside the plan (PlanSection).
  */
 export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: string; athleteId: string }) {
   const { membership } = useActiveClub();
@@ -24,7 +24,6 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
   const c = care.data.care;
   return (
     <View style={styles.wrap} testID="result-care">
-      <StrengthHold words={c.block.blocked ? c.block.words : null} />
       <Card>
         <Text variant="heading" accessibilityRole="header" aria-level={2}>
           Review and family summary
@@ -39,16 +38,6 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
       <ClearancePanel athleteId={athleteId} />
       <NotesPanel athleteId={athleteId} assessmentId={assessmentId} />
     </View>
-  );
-}
-
-/** Shown on the plan wherever staff read it: the hook point for the plan display. */
-export function StrengthHold({ words }: { words: string | null }) {
-  if (!words) return null;
-  return (
-    <Notice tone="error" title="Loaded strength work on hold" testID="strength-hold">
-      {words}
-    </Notice>
   );
 }
 
