@@ -136,8 +136,7 @@ test("the plan sets held-back work apart with the reason, and follows the physio
   await expect(held).toBeVisible();
   await expect(held.getByTestId('plan-held-reason')).toContainText('Clearance needed');
   await expect(held.getByTestId('plan-withheld')).toContainText('Pain reported at this screen');
-  await held.scrollIntoViewIfNeeded();
-  await page.screenshot({ path: shots('plan-held-pain', project) });
+  await page.screenshot({ path: shots('plan-held-pain', project), fullPage: true });
 
   // "Train as normal" after the screen: version 2 with the loaded work back, saying who cleared and when.
   await page.context().clearCookies();
@@ -161,7 +160,6 @@ test("the plan sets held-back work apart with the reason, and follows the physio
   await expect(heldAgain.getByTestId('plan-held-reason')).toContainText('Refer on: Sam Adeyemi referred the athlete');
   await expect(heldAgain.getByTestId('plan-held-exercise').first()).toBeVisible();
   await expect(heldAgain.locator('[data-testid="exercise-split-squat-endurance"]')).toHaveCount(1);
-  await heldAgain.scrollIntoViewIfNeeded();
-  await page.screenshot({ path: shots('plan-held-referred', project) });
-  await page.getByTestId('plan').screenshot({ path: shots('plan-referred-section', project) });
+  await expect(heldAgain.getByTestId('plan-held-exercise').first()).toContainText('On hold');
+  await page.screenshot({ path: shots('plan-held-referred', project), fullPage: true });
 });

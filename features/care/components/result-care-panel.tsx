@@ -20,7 +20,8 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
   const { membership } = useActiveClub();
   const care = useAssessmentCareQuery(assessmentId);
   if (care.isPending) return null;
-  if (care.error) return <Notice tone="error">{care.error.message}</Notice>;
+  // A failed refetch keeps what was read: the panel (and a preview being read) stays in place.
+  if (!care.data) return <Notice tone="error">{care.error?.message ?? 'The care details could not be read.'}</Notice>;
   const c = care.data.care;
   return (
     <View style={styles.wrap} testID="result-care">

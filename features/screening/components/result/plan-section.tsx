@@ -89,7 +89,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
         </Notice>
       ) : null}
       {result.reason ? (
-        <Notice title={`Version ${result.version}: loaded work back in the plan`} testID="plan-cleared">
+        <Notice title={`Version ${result.version}: worked out again after a clearance`} testID="plan-cleared">
           {result.reason}
         </Notice>
       ) : null}
@@ -234,7 +234,7 @@ function HeldWork({
       ) : null}
       {held.map((ex, i) => (
         <View key={ex.id} style={styles.heldCard} testID="plan-held-exercise">
-          <ExerciseCard exercise={ex} index={i} />
+          <ExerciseCard exercise={ex} index={i} onHold />
         </View>
       ))}
       {block.blocked && held.length === 0 && withheld.length === 0 ? <Text variant="small">Nothing in this plan is loaded strength work.</Text> : null}
