@@ -2,6 +2,7 @@ import { and, desc, eq, sql } from 'drizzle-orm';
 import { assessmentResults, assessmentReviews, summaryReleases } from '@/db/schema';
 import { CLEARANCE_LABELS, type ClearanceStatus } from '@/features/care/schemas';
 import type { ClearanceView } from '@/features/care/types';
+import { EngineInputError } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
 import { reevaluateAfterClearance } from '@/server/screening/screening.service';
 import type { Executor } from '@/server/screening/screening.repo';
@@ -44,7 +45,24 @@ export async function applyClearance(tx: Executor, scope: ClubScope, athleteId: 
         ),
       );
     for (const { assessmentId } of waiting) {
-      const made = await reevaluateAfterClearance(tx, scope, assessmentId, { reason: clearanceReason(clearance) });
+      let made: Awaited<ReturnType<typeof reevaluateAfterClearance>>;
+      try {
+        made = await reevaluateAfterClearance(tx, scope, assessmentId, { reason: clearanceReason(clearance) });
+      } catch (error) {
+        // An input an older engine accepted and today's refuses: the clearance is still recorded, the
+        // screen keeps its hold until it is submitted again, and the trail says why.
+        if (!(error instanceof EngineInputError)) throw error;
+        audit.push({
+          clubId: scope.clubId,
+          actorId: scope.userId,
+          action: 'reevaluate.refused',
+          subjectKind: 'assessment',
+          subjectId: assessmentId,
+          athleteId,
+          detail: { clearanceId, field: error.field, reason: error.reason },
+        });
+        continue;
+      }
       if (!made) continue;
       replaced.set(made.fromResultId, made.resultId);
       const [review] = await tx

@@ -1,4 +1,4 @@
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessmentResults, auditEvents } from '@/db/schema';
 import { isLoadedStrength } from '@/features/care/strength-block';
@@ -226,5 +226,25 @@ describe('a clearance given before the screen', () => {
     expect(mail.text).toContain(`Phil Physio (physiotherapist) cleared Lou to train as normal on ${day}.`);
     expect(mail.text).not.toMatch(/on hold/);
     expect(mail.html).toContain('cleared Lou to train as normal');
+  });
+});
+
+describe('a stored input the engine refuses today', () => {
+  it('still records the clearance, keeps the hold and says why in the audit trail', async () => {
+    const rae = await makeAthlete(testDb.db, { clubId: ids.club!, squadId: ids.squad!, firstName: 'Rae', lastName: 'Cole' });
+    const screen = await makeSubmittedScreen(testDb.db, { clubId: ids.club!, squadId: ids.squad!, athleteId: rae.id, userId: ids.tester!, draft: painDraft() });
+    // As if an older engine had accepted a stature today's engine refuses (80-230 cm).
+    await testDb.db.execute(
+      sql`update assessment_results set input = jsonb_set(input, '{athlete,statureCm}', '60'::jsonb) where assessment_id = ${screen.assessmentId}`,
+    );
+    const set = await as.physio.put(`/api/athletes/${rae.id}/clearance`).send({ status: 'cleared' });
+    expect(set.status).toBe(200);
+    expect(set.body.clearance).toMatchObject({ status: 'cleared' });
+    expect((await as.coach.get(`/api/assessments/${screen.assessmentId}`)).body.result).toMatchObject({ version: 1, reason: null });
+    const [event] = await testDb.db
+      .select({ detail: auditEvents.detail })
+      .from(auditEvents)
+      .where(and(eq(auditEvents.subjectId, screen.assessmentId), eq(auditEvents.action, 'reevaluate.refused')));
+    expect(event!.detail).toMatchObject({ field: 'athlete.statureCm' });
   });
 });

@@ -162,4 +162,15 @@ test("the plan sets held-back work apart with the reason, and follows the physio
   await expect(heldAgain.locator('[data-testid="exercise-split-squat-endurance"]')).toHaveCount(1);
   await expect(heldAgain.getByTestId('plan-held-exercise').first()).toContainText('On hold');
   await page.screenshot({ path: shots('plan-held-referred', project), fullPage: true });
+
+  // The summary e-mail says the same: the loaded work on hold, who decided and when, not the team's detail.
+  const res = await page.request.get(`/api/assessments/${assessmentId}/release-preview`);
+  expect(res.status()).toBe(200);
+  const { preview } = (await res.json()) as { preview: { html: string; text: string } };
+  expect(preview.text).toContain('Split squat, strength endurance');
+  expect(preview.text).toContain('on hold until a physiotherapist clears Rowan');
+  expect(preview.text).toContain('Sam Adeyemi (physiotherapist) asked on');
+  expect(preview.html).not.toContain('district clinic');
+  await page.setContent(preview.html);
+  await page.screenshot({ path: shots('summary-email-referred', project), fullPage: true });
 });
