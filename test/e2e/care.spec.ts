@@ -29,7 +29,10 @@ test('a physiotherapist reviews a screen, adds a note, previews the family e-mai
 
   await page.getByTestId('release-preview').click();
   await expect(page.getByTestId('email-preview')).toContainText(/what .* will work on/i);
-  await page.getByTestId('result-care').screenshot({ path: shots('release-preview', testInfo.project.name) });
+  // The preview alone: a capture of the whole care column (taller than the wide viewport) made the page lay
+  // itself out again mid-capture and closed the preview.
+  await page.getByTestId('release-panel').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: shots('release-preview', testInfo.project.name) });
   await page.getByTestId('release-confirm').click();
   await expect(page.getByText(/The summary is in the family view/)).toBeVisible();
 });
@@ -136,7 +139,8 @@ test("the plan sets held-back work apart with the reason, and follows the physio
   await expect(held).toBeVisible();
   await expect(held.getByTestId('plan-held-reason')).toContainText('Clearance needed');
   await expect(held.getByTestId('plan-withheld')).toContainText('Pain reported at this screen');
-  await page.screenshot({ path: shots('plan-held-pain', project), fullPage: true });
+  await held.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: shots('plan-held-pain', project) });
 
   // "Train as normal" after the screen: version 2 with the loaded work back, saying who cleared and when.
   await page.context().clearCookies();
@@ -148,6 +152,7 @@ test("the plan sets held-back work apart with the reason, and follows the physio
   await expect(page.getByTestId('plan-cleared')).toContainText('Train as normal');
   await expect(page.getByTestId('plan-clearance-state')).toContainText('Train as normal, set by Sam Adeyemi');
   await expect(page.getByTestId('plan-held')).toHaveCount(0);
+  await expect(page.getByTestId('result')).toContainText('Worked out again 2');
   await expect(page.getByTestId('plan').locator('[data-testid="exercise-split-squat-endurance"]')).toHaveCount(1);
 
   // "Refer on": the loaded work is set apart again, with the reason and the person.
@@ -161,7 +166,8 @@ test("the plan sets held-back work apart with the reason, and follows the physio
   await expect(heldAgain.getByTestId('plan-held-exercise').first()).toBeVisible();
   await expect(heldAgain.locator('[data-testid="exercise-split-squat-endurance"]')).toHaveCount(1);
   await expect(heldAgain.getByTestId('plan-held-exercise').first()).toContainText('On hold');
-  await page.screenshot({ path: shots('plan-held-referred', project), fullPage: true });
+  await heldAgain.getByTestId('plan-held-reason').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: shots('plan-held-referred', project) });
 
   // The summary e-mail says the same: the loaded work on hold, who decided and when, not the team's detail.
   const res = await page.request.get(`/api/assessments/${assessmentId}/release-preview`);

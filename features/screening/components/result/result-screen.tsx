@@ -115,7 +115,7 @@ function Header({ detail, result, name, canEdit }: { detail: AssessmentDetail; r
       </Text>
       <AthleteClearanceBadge athleteId={detail.athlete.id} />
       <Text variant="small">
-        Submitted {result.createdAt.slice(0, 10)}
+        {result.reason ? 'Worked out again' : 'Submitted'} {result.createdAt.slice(0, 10)}
         {result.createdByName ? ` by ${result.createdByName}` : ''} · version {result.version} · engine {result.engineVersion}
       </Text>
       {canEdit ? (
