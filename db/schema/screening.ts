@@ -94,6 +94,11 @@ export const assessmentResults = pgTable(
     result: jsonb('result').$type<AssessmentResult>().notNull(),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
+    /**
+     * Why this version was made when it is not a tester's submission, in words (e.g. worked out again
+     * after a physiotherapist's clearance); null for a submission.
+     */
+    reason: text('reason'),
     // Progress: small copies of what squad trends read, kept by PostgreSQL from `result` on every write,
     // so a squad's season is read without unpacking each full result (measurements, flags and plan).
     /** The flags' ids ('pattern/scope/side'), in the result's order. */

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { evaluateAssessment, type AssessmentInput } from '@/features/screening/engine';
-import { buildFamilySummary, PATTERN_FAMILY_WORDS } from './family-summary';
+import { buildFamilySummary, clearanceWords, PATTERN_FAMILY_WORDS } from './family-summary';
 import { strengthBlock } from './strength-block';
 
 // A girl of 12 whose right knee caves in during the two-leg squat (frontal-plane projection angle about
@@ -63,5 +63,23 @@ describe('buildFamilySummary', () => {
 
   it('has family words for every pattern the engine can flag', () => {
     for (const words of Object.values(PATTERN_FAMILY_WORDS)) expect(words).not.toMatch(/valgus|dorsiflexion|pelvic drop/i);
+  });
+});
+
+describe("clearanceWords (our wording: who decided and when, never the team's free-text detail)", () => {
+  const setAt = '2026-10-02T09:15:00.000Z';
+  it.each([
+    ['cleared', 'Pat Lee (physiotherapist) cleared Ana to train as normal on 2026-10-02.'],
+    ['modified', 'Pat Lee (physiotherapist) cleared Ana to train with some changes on 2026-10-02; the coaches will explain them.'],
+    ['referred', 'Pat Lee (physiotherapist) asked on 2026-10-02 for Ana to be seen by another health professional; loaded strength work waits until then.'],
+  ] as const)('%s', (status, words) => {
+    expect(clearanceWords({ status, detail: 'Knee clinic, Dr X', setByName: 'Pat Lee', setAt }, 'Ana')).toBe(words);
+  });
+
+  it('says nothing without a decision, and names no one when the author left', () => {
+    expect(clearanceWords(null, 'Ana')).toBeNull();
+    expect(clearanceWords({ status: 'cleared', detail: '', setByName: null, setAt }, 'Ana')).toBe(
+      'A physiotherapist cleared Ana to train as normal on 2026-10-02.',
+    );
   });
 });

@@ -2,7 +2,7 @@
 // No angles, no measurements, no diagnosis words: what was checked, what was seen, what to work on.
 import { getTask, type AssessmentResult, type FlagSide, type PatternId, type PlannedExercise } from '@/features/screening/engine';
 import { doseText, perWeekText, setsText } from '@/features/screening/labels';
-import type { FamilySummary } from './types';
+import type { ClearanceView, FamilySummary } from './types';
 import { splitByBlock, type StrengthBlock } from './strength-block';
 
 /** What a parent reads for each pattern (our wording). */
@@ -36,6 +36,8 @@ export function buildFamilySummary(input: {
   exercises: readonly PlannedExercise[];
   taskIds: readonly string[];
   block: StrengthBlock;
+  /** The physiotherapist's decision in force, if any: the family reads who decided and when. */
+  clearance?: ClearanceView;
   contactName: string | null;
 }): FamilySummary {
   const { firstName, result } = input;
@@ -90,6 +92,7 @@ export function buildFamilySummary(input: {
     seen,
     exercises,
     onHold,
+    clearance: clearanceWords(input.clearance ?? null, firstName),
     howOften:
       exercises.length === 0
         ? `Nothing extra to work on for now: ${firstName} keeps training as usual.`
@@ -100,4 +103,22 @@ export function buildFamilySummary(input: {
       : `Questions? Speak to the coaches at ${input.clubName}.`,
     cautions: FAMILY_CAUTIONS(firstName),
   };
+}
+
+/**
+ * The physiotherapist's decision in force, in words for the family: who and when, never the free-text
+ * detail (it is written for the team and may name a clinic or a condition).
+ */
+export function clearanceWords(clearance: ClearanceView, firstName: string): string | null {
+  if (!clearance) return null;
+  const who = clearance.setByName ? `${clearance.setByName} (physiotherapist)` : 'A physiotherapist';
+  const day = clearance.setAt.slice(0, 10);
+  switch (clearance.status) {
+    case 'cleared':
+      return `${who} cleared ${firstName} to train as normal on ${day}.`;
+    case 'modified':
+      return `${who} cleared ${firstName} to train with some changes on ${day}; the coaches will explain them.`;
+    case 'referred':
+      return `${who} asked on ${day} for ${firstName} to be seen by another health professional; loaded strength work waits until then.`;
+  }
 }

@@ -69,6 +69,8 @@ export type FamilySummary = {
   exercises: FamilyExercise[];
   /** Loaded strength work held back until a physiotherapist clears it, in plain words; null when nothing is held back. */
   onHold: string | null;
+  /** Who cleared (or referred on) the athlete and when, in plain words; null when no decision is recorded. Absent in summaries released before it existed. */
+  clearance?: string | null;
   howOften: string;
   recheckDate: string | null;
   contact: string;

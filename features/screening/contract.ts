@@ -268,12 +268,14 @@ export type ResultView = {
   engineVersion: string;
   createdAt: string;
   createdByName: string | null;
+  /** Why this version was made when it was not a tester's submission (e.g. worked out again after a clearance); null otherwise. */
+  reason: string | null;
   result: AssessmentResult;
   adjustment: PlanAdjustmentView | null;
   /** Every adjustment of this result, newest first (the first is `adjustment`). */
   adjustmentHistory: PlanAdjustmentView[];
   /** Earlier versions of this assessment's result, newest first. */
-  history: { id: string; version: number; engineVersion: string; createdAt: string }[];
+  history: { id: string; version: number; engineVersion: string; createdAt: string; reason: string | null }[];
 };
 
 export type AssessmentDetail = {

@@ -7,6 +7,7 @@ import { accessGuards, callerClub, on, scopeOf } from '@/server/access/guard';
 import { validateBody } from '@/server/http/validate';
 import { recordAudit } from './audit.repo';
 import { clearanceRepo, latestClearances } from './clearance.repo';
+import { applyClearance } from './clearance.service';
 
 /** Clearance per athlete: set by a physiotherapist, every decision kept. */
 export function clearanceRouter(db: Db) {
@@ -30,6 +31,8 @@ export function clearanceRouter(db: Db) {
         athleteId,
         detail: { status: body.status, detail },
       });
+      // The plan follows the decision: held-back work comes back (a new result version) or goes on hold.
+      await applyClearance(tx, scope, athleteId, clearanceId, body.status);
     });
     res.json({ clearance: await clearanceRepo(db, scope).current(athleteId) });
   });

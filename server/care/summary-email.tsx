@@ -52,6 +52,7 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName }
               <Text key={e.name} style={styles.text}>{`• ${e.name}: ${e.howMuch}, ${e.howOften}. ${e.purpose}`}</Text>
             ))}
             {summary.onHold ? <Text style={styles.text}>{summary.onHold}</Text> : null}
+            {summary.clearance ? <Text style={styles.text}>{summary.clearance}</Text> : null}
             <Text style={styles.text}>{summary.howOften}</Text>
             {summary.recheckDate ? <Text style={styles.text}>{`Next check: around ${summary.recheckDate}.`}</Text> : null}
           </Section>

@@ -28,7 +28,7 @@ export const unsubscribePageUrl = (publicUrl: string, token: string) => `${publi
 export const oneClickUrl = (publicUrl: string, token: string) => `${publicUrl}/api/unsubscribe/${token}`;
 
 /** The summary as it would be released now: the current result, the plan as changed by staff, the clearance in force. */
-async function currentSummary(db: Executor, scope: ClubScope, assessmentId: string) {
+export async function currentSummary(db: Executor, scope: ClubScope, assessmentId: string) {
   const s = screeningRepo(db, scope);
   const a = await s.assessment(assessmentId);
   if (!a) throw notFound('The assessment');
@@ -53,6 +53,7 @@ async function currentSummary(db: Executor, scope: ClubScope, assessmentId: stri
     exercises: adjustment?.exercises ?? current.result.plan.exercises,
     taskIds,
     block: strengthBlock(current.result.plan, clearance, current.createdAt.toISOString()),
+    clearance,
     contactName: state.review?.byName ?? null,
   });
   return { a, state, current, summary };

@@ -2,7 +2,7 @@ import { and, asc, desc, eq, isNull, ne, sql, type SQL } from 'drizzle-orm';
 import type { NodePgQueryResultHKT } from 'drizzle-orm/node-postgres';
 import type { PgDatabase } from 'drizzle-orm/pg-core';
 import type * as schema from '@/db/schema';
-import { assessmentResults, assessments, athletes, photos, planAdjustments, rounds, squads, users } from '@/db/schema';
+import { assessmentResults, assessments, athletes, clearances, photos, planAdjustments, rounds, squads, users } from '@/db/schema';
 import type { AssessmentDraft, AssessmentStatus, PlanOverrideView } from '@/features/screening/contract';
 import type { AssessmentInput, AssessmentResult, PlannedExercise } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
@@ -80,6 +80,7 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
     result: assessmentResults.result,
     createdAt: assessmentResults.createdAt,
     createdByName: users.displayName,
+    reason: assessmentResults.reason,
   };
 
   return {
@@ -199,6 +200,26 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
       return row?.closedAt ?? null;
     },
 
+    /**
+     * Whether a physiotherapist has cleared the athlete since this screen was first submitted: the
+     * decision in force is "train as normal" or "train with changes" and was set after the first result
+     * version. Pain reported at this screen then no longer holds back loaded work when it is submitted again.
+     */
+    async painClearedSinceFirstResult(assessmentId: string, athleteId: string): Promise<boolean> {
+      const [first] = await db
+        .select({ at: sql<Date>`min(${assessmentResults.createdAt})` })
+        .from(assessmentResults)
+        .where(and(eq(assessmentResults.clubId, clubId), eq(assessmentResults.assessmentId, assessmentId)));
+      if (!first?.at) return false;
+      const [latest] = await db
+        .select({ status: clearances.status, createdAt: clearances.createdAt })
+        .from(clearances)
+        .where(and(eq(clearances.clubId, clubId), eq(clearances.athleteId, athleteId)))
+        .orderBy(desc(clearances.createdAt), desc(clearances.id))
+        .limit(1);
+      return !!latest && latest.status !== 'referred' && latest.createdAt.getTime() >= new Date(first.at).getTime();
+    },
+
     async markSubmitted(id: string, at: Date) {
       await db
         .update(assessments)
@@ -269,6 +290,7 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
           version: assessmentResults.version,
           engineVersion: assessmentResults.engineVersion,
           createdAt: assessmentResults.createdAt,
+          reason: assessmentResults.reason,
         })
         .from(assessmentResults)
         .where(and(eq(assessmentResults.clubId, clubId), eq(assessmentResults.assessmentId, assessmentId), ne(assessmentResults.id, exceptId)))
@@ -293,7 +315,10 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
     },
 
     /** Adds a result version and makes it the only current one. Call inside a transaction holding the assessment lock. */
-    async addResult(values: { assessmentId: string; athleteId: string; engineVersion: string; input: AssessmentInput; result: AssessmentResult }, at: Date) {
+    async addResult(
+      values: { assessmentId: string; athleteId: string; engineVersion: string; input: AssessmentInput; result: AssessmentResult; reason?: string | null },
+      at: Date,
+    ) {
       await db
         .update(assessmentResults)
         .set({ isCurrent: false })

@@ -116,10 +116,11 @@ async function resultView(repo: ScreeningRepo, assessmentId: string): Promise<Re
     engineVersion: current.engineVersion,
     createdAt: iso(current.createdAt),
     createdByName: current.createdByName,
+    reason: current.reason,
     result: current.result,
     adjustment: history[0] ?? null,
     adjustmentHistory: history,
-    history: earlier.map((r) => ({ id: r.id, version: r.version, engineVersion: r.engineVersion, createdAt: iso(r.createdAt) })),
+    history: earlier.map((r) => ({ id: r.id, version: r.version, engineVersion: r.engineVersion, createdAt: iso(r.createdAt), reason: r.reason })),
   };
 }
 
@@ -184,6 +185,9 @@ export async function submitAssessment(
       throw badRequest(`The round's date (${a.screenedOn}) is before the athlete's date of birth (${a.dateOfBirth}): check both.`);
     }
     const input = draftToInput({ athlete: { sex: a.sex, ageYears, racketHand: a.racketHand }, draft: a.draft, screenedOn: a.screenedOn });
+    // A physiotherapist's clearance given since this screen's first submission still counts when it is
+    // submitted again (its pain was reported before the clearance).
+    if (await repo.painClearedSinceFirstResult(assessmentId, a.athleteId)) input.options = { ...input.options, painCleared: true };
     let result: AssessmentResult;
     try {
       result = evaluate(input);
@@ -195,6 +199,33 @@ export async function submitAssessment(
     await repo.markSubmitted(assessmentId, at);
   });
   return (await resultView(screeningRepo(db, scope), assessmentId))!;
+}
+
+/**
+ * Works an assessment's current result out again from the very input it was made from, with the pain
+ * reported at the screen cleared by a physiotherapist (the engine's `painCleared`), and stores it as a
+ * new current version carrying `reason`. The earlier version stays as it was. Only a result that waits
+ * for a clearance (`plan.status` 'clearance-needed') is worked out again; otherwise null. The caller
+ * runs it inside its transaction; the assessment's row lock is taken here, as on submit.
+ */
+export async function reevaluateAfterClearance(
+  tx: Executor,
+  scope: ClubScope,
+  assessmentId: string,
+  options: { reason: string; at?: Date; evaluate?: Evaluate },
+): Promise<{ fromResultId: string; resultId: string } | null> {
+  const repo = screeningRepo(tx, scope);
+  const locked = await repo.lockAssessment(assessmentId);
+  if (!locked) throw notFound('The assessment');
+  const current = await repo.currentResult(assessmentId);
+  if (!current || current.result.plan.status !== 'clearance-needed') return null;
+  const input: AssessmentInput = { ...current.input, options: { ...current.input.options, painCleared: true } };
+  const result = (options.evaluate ?? evaluateAssessment)(input);
+  const resultId = await repo.addResult(
+    { assessmentId, athleteId: locked.athleteId, engineVersion: result.engineVersion ?? ENGINE_VERSION, input, result, reason: options.reason },
+    options.at ?? new Date(),
+  );
+  return { fromResultId: current.id, resultId };
 }
 
 export function screeningService(deps: ScreeningDeps) {

@@ -29,7 +29,10 @@ test('a physiotherapist reviews a screen, adds a note, previews the family e-mai
 
   await page.getByTestId('release-preview').click();
   await expect(page.getByTestId('email-preview')).toContainText(/what .* will work on/i);
-  await page.getByTestId('result-care').screenshot({ path: shots('release-preview', testInfo.project.name) });
+  // The preview alone: a capture of the whole care column (taller than the wide viewport) made the page lay
+  // itself out again mid-capture and closed the preview.
+  await page.getByTestId('release-panel').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: shots('release-preview', testInfo.project.name) });
   await page.getByTestId('release-confirm').click();
   await expect(page.getByText(/The summary is in the family view/)).toBeVisible();
 });
@@ -95,4 +98,85 @@ test('an admin reads the audit trail, filters it and exports it as CSV', async (
   const lines = (await csv.text()).trim().split('\n');
   expect(lines[0]).toBe('time,person,action,record,record id,athlete,details');
   expect(lines.length).toBeGreaterThan(1);
+});
+
+// A physiotherapist's clearance feeds back into the plan. Own squad and athlete per project, so nothing else
+// in the demo changes: pain reported holds back loaded work (set apart with the reason), "train as normal"
+// brings it back in a new result version naming who cleared and when, "refer on" sets it apart again.
+test("the plan sets held-back work apart with the reason, and follows the physiotherapist's clearance", async ({ page }, testInfo) => {
+  test.setTimeout(120_000);
+  const project = testInfo.project.name;
+  await signIn(page, 'admin@squadline.test');
+  await expect(page.getByTestId('home-admin')).toBeVisible();
+  const squad = await page.request.post('/api/squads', { data: { name: `Clearance check ${project} ${Date.now()}` } });
+  expect(squad.status()).toBe(201);
+  const squadId = ((await squad.json()) as { squad: { id: string } }).squad.id;
+  const athlete = await page.request.post('/api/athletes', {
+    data: { firstName: 'Rowan', lastName: `Hale ${project}`, dateOfBirth: '2013-05-02', sex: 'female', racketHand: 'right', takeOffLeg: 'left', squadId },
+  });
+  expect(athlete.status()).toBe(201);
+  const athleteId = ((await athlete.json()) as { athlete: { id: string } }).athlete.id;
+  const round = await page.request.post('/api/rounds', { data: { squadId, name: `Clearance ${project}`, screenedOn: '2026-11-30' } });
+  expect(round.status()).toBe(201);
+  const assessmentId = ((await round.json()) as { athletes: { assessmentId: string }[] }).athletes[0]!.assessmentId;
+  const draft = {
+    body: { statureCm: 152, sittingHeightCm: 79, massKg: 41 },
+    oneRepMaxKg: 20,
+    tasks: {
+      'two-leg-squat': { criteria: ['squat-right-knee-in', 'squat-not-deep'], painReported: true },
+      'drop-landing': { criteria: ['landing-right-knee-in'] },
+      'single-leg-squat-right': { criteria: ['sls-knee-in'] },
+      'knee-to-wall-left': { criteria: [], distanceCm: 11 },
+      'knee-to-wall-right': { criteria: [], distanceCm: 7.5 },
+    },
+  };
+  expect((await page.request.put(`/api/assessments/${assessmentId}`, { data: { draftVersion: 0, draft } })).status()).toBe(200);
+  expect((await page.request.post(`/api/assessments/${assessmentId}/submit`)).status()).toBe(200);
+
+  // Pain reported: the engine's held-back work is set apart below the plan, with the reason.
+  await page.goto(`/screening/assessments/${assessmentId}/result`);
+  const held = page.getByTestId('plan-held');
+  await expect(held).toBeVisible();
+  await expect(held.getByTestId('plan-held-reason')).toContainText('Clearance needed');
+  await expect(held.getByTestId('plan-withheld')).toContainText('Pain reported at this screen');
+  await held.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: shots('plan-held-pain', project) });
+
+  // "Train as normal" after the screen: version 2 with the loaded work back, saying who cleared and when.
+  await page.context().clearCookies();
+  await signIn(page, 'physio@squadline.test');
+  await expect(page.getByTestId('home-physio')).toBeVisible();
+  expect((await page.request.put(`/api/athletes/${athleteId}/clearance`, { data: { status: 'cleared' } })).status()).toBe(200);
+  await page.goto(`/screening/assessments/${assessmentId}/result`);
+  await expect(page.getByTestId('plan-cleared')).toContainText('Sam Adeyemi');
+  await expect(page.getByTestId('plan-cleared')).toContainText('Train as normal');
+  await expect(page.getByTestId('plan-clearance-state')).toContainText('Train as normal, set by Sam Adeyemi');
+  await expect(page.getByTestId('plan-held')).toHaveCount(0);
+  await expect(page.getByTestId('result')).toContainText('Worked out again 2');
+  await expect(page.getByTestId('plan').locator('[data-testid="exercise-split-squat-endurance"]')).toHaveCount(1);
+
+  // "Refer on": the loaded work is set apart again, with the reason and the person.
+  const referred = await page.request.put(`/api/athletes/${athleteId}/clearance`, {
+    data: { status: 'referred', detail: 'Sports physician at the district clinic' },
+  });
+  expect(referred.status()).toBe(200);
+  await page.reload();
+  const heldAgain = page.getByTestId('plan-held');
+  await expect(heldAgain.getByTestId('plan-held-reason')).toContainText('Refer on: Sam Adeyemi referred the athlete');
+  await expect(heldAgain.getByTestId('plan-held-exercise').first()).toBeVisible();
+  await expect(heldAgain.locator('[data-testid="exercise-split-squat-endurance"]')).toHaveCount(1);
+  await expect(heldAgain.getByTestId('plan-held-exercise').first()).toContainText('On hold');
+  await heldAgain.getByTestId('plan-held-reason').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: shots('plan-held-referred', project) });
+
+  // The summary e-mail says the same: the loaded work on hold, who decided and when, not the team's detail.
+  const res = await page.request.get(`/api/assessments/${assessmentId}/release-preview`);
+  expect(res.status()).toBe(200);
+  const { preview } = (await res.json()) as { preview: { html: string; text: string } };
+  expect(preview.text).toContain('Split squat, strength endurance');
+  expect(preview.text).toContain('on hold until a physiotherapist clears Rowan');
+  expect(preview.text).toContain('Sam Adeyemi (physiotherapist) asked on');
+  expect(preview.html).not.toContain('district clinic');
+  await page.setContent(preview.html);
+  await page.screenshot({ path: shots('summary-email-referred', project), fullPage: true });
 });

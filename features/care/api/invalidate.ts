@@ -1,5 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useActiveClub } from '@/features/session/active-club';
+import { screeningKeys } from '@/features/screening/api/keys';
 import { careKeys } from './keys';
 
 /** After any care change: reviews, clearances, notes and summaries of the club are read again. Athlete lists carry the clearance too. */
@@ -10,5 +11,7 @@ export function useCareChanged() {
     void client.invalidateQueries({ queryKey: careKeys.club(membership.clubId) });
     // Athlete responses carry `clearance`: the roster's root key covers them.
     void client.invalidateQueries({ queryKey: ['athletes'] });
+    // A clearance can make a new result version (held-back work back in the plan): results are read again.
+    void client.invalidateQueries({ queryKey: screeningKeys.club(membership.clubId) });
   };
 }

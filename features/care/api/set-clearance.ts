@@ -1,5 +1,7 @@
-import { useMutation } from '@tanstack/react-query';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/features/api/client';
+import { screeningKeys } from '@/features/screening/api/keys';
+import { useActiveClub } from '@/features/session/active-club';
 import type { ClearanceInput } from '../schemas';
 import type { ClearanceView } from '../types';
 import { useCareChanged } from './invalidate';
@@ -9,5 +11,14 @@ export const setClearance = (athleteId: string, input: ClearanceInput) =>
 
 export function useSetClearanceMutation(athleteId: string) {
   const changed = useCareChanged();
-  return useMutation({ mutationFn: (input: ClearanceInput) => setClearance(athleteId, input), onSuccess: changed });
+  const client = useQueryClient();
+  const { membership } = useActiveClub();
+  return useMutation({
+    mutationFn: (input: ClearanceInput) => setClearance(athleteId, input),
+    onSuccess: () => {
+      changed();
+      // A clearance can make a new result version (held-back work back in the plan): results are read again.
+      void client.invalidateQueries({ queryKey: screeningKeys.club(membership.clubId) });
+    },
+  });
 }

@@ -92,6 +92,11 @@ function Plan({ summary }: { summary: FamilySummary }) {
           {summary.onHold}
         </Notice>
       ) : null}
+      {summary.clearance ? (
+        <Notice title="Physiotherapist's decision" testID="family-clearance">
+          {summary.clearance}
+        </Notice>
+      ) : null}
       {summary.exercises.map((e) => (
         <View key={e.name} style={styles.exercise} testID="family-exercise">
           <Text variant="label">{e.name}</Text>

@@ -13,8 +13,8 @@ import { ClearancePanel } from './clearance-panel';
 import { NotesPanel } from './notes-panel';
 
 /**
- * The care team's part of a result: the strength-work hold, the review mark, release to the family
- * with a preview of the e-mail, the clearance and the notes.
+ * The care team's part of a result: the review mark, release to the family with a preview of the
+ * e-mail, the clearance and the notes. The strength-work hold is shown inside the plan (PlanSection).
  */
 export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: string; athleteId: string }) {
   const { membership } = useActiveClub();
@@ -24,11 +24,11 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
   const [previewing, setPreviewing] = useState(false);
   const release = useReleaseMutation(assessmentId);
   if (care.isPending) return null;
-  if (care.error) return <Notice tone="error">{care.error.message}</Notice>;
+  // A failed refetch keeps what was read: the panel (and a preview being read) stays in place.
+  if (!care.data) return <Notice tone="error">{care.error?.message ?? 'The care details could not be read.'}</Notice>;
   const c = care.data.care;
   return (
     <View style={styles.wrap} testID="result-care">
-      <StrengthHold words={c.block.blocked ? c.block.words : null} />
       <Card>
         <Text variant="heading" accessibilityRole="header" aria-level={2}>
           Review and family summary
@@ -45,16 +45,6 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
       <ClearancePanel athleteId={athleteId} />
       <NotesPanel athleteId={athleteId} assessmentId={assessmentId} />
     </View>
-  );
-}
-
-/** Shown on the plan wherever staff read it: the hook point for the plan display. */
-export function StrengthHold({ words }: { words: string | null }) {
-  if (!words) return null;
-  return (
-    <Notice tone="error" title="Loaded strength work on hold" testID="strength-hold">
-      {words}
-    </Notice>
   );
 }
 

@@ -8,14 +8,23 @@ import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 const PHASE_WORDS = { mobility: 'Mobility', activation: 'Activation', control: 'Control', landing: 'Landing', strength: 'Strength' } as const;
 
 /** One exercise with its full prescription: sets, reps or time, tempo, load, rest, days a week. */
-export function ExerciseCard({ exercise, index, children }: { exercise: PlannedExercise; index: number; children?: React.ReactNode }) {
+export function ExerciseCard({
+  exercise,
+  index,
+  onHold = false,
+  children,
+}: {
+  exercise: PlannedExercise;
+  index: number;
+  /** Held back from the plan: no place in the plan's order, marked as on hold. */
+  onHold?: boolean;
+  children?: React.ReactNode;
+}) {
   const [open, setOpen] = useState(false);
   const p = exercise.prescription;
   return (
     <View style={styles.card} testID={`exercise-${exercise.id}`}>
-      <Text variant="small">
-        {index + 1}. {PHASE_WORDS[exercise.phase]}
-      </Text>
+      <Text variant="small">{onHold ? `On hold · ${PHASE_WORDS[exercise.phase]}` : `${index + 1}. ${PHASE_WORDS[exercise.phase]}`}</Text>
       <Text variant="heading">{exercise.name}</Text>
       <Text>{exercise.purpose}</Text>
       <View style={styles.rx}>

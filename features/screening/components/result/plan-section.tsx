@@ -1,5 +1,8 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { CLEARANCE_LABELS } from '@/features/care/schemas';
+import { splitByBlock, type StrengthBlock } from '@/features/care/strength-block';
+import type { ClearanceView } from '@/features/care/types';
 import type { PlanAdjustmentView, ResultView } from '@/features/screening/contract';
 import { loadingContextOf, shortSource, STAGE_LIMITS, type PlannedExercise } from '@/features/screening/engine';
 import { STAGE_LABELS } from '@/features/screening/labels';
@@ -31,6 +34,12 @@ function changeSummary(adjusted: PlannedExercise[], proposal: PlannedExercise[])
 /** The corrective plan: the tester's adjustment when there is one, beside the engine's proposal. */
 const ROLE_WORDS: Record<string, string> = { head_coach: 'head coach', physio: 'physiotherapist' };
 
+/**
+ * The physiotherapist's hold on this plan (`GET /api/assessments/:id/care`): 'pending' while it is read,
+ * 'unknown' when it could not be read (loaded strength work is then shown as on hold: the safe side).
+ */
+export type PlanHold = { block: StrengthBlock; clearance: ClearanceView } | 'pending' | 'unknown';
+
 type Props = {
   assessmentId: string;
   result: ResultView;
@@ -38,9 +47,16 @@ type Props = {
   canAdjust: boolean;
   /** A head coach or physiotherapist: may go past a limit with a reason. */
   canOverride: boolean;
+  hold: PlanHold;
 };
 
-export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canOverride }: Props) {
+const UNKNOWN_HOLD: StrengthBlock = {
+  blocked: true,
+  reason: 'clearance-needed',
+  words: "The physiotherapist's clearance could not be read: loaded strength work is shown as on hold until it can.",
+};
+
+export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canOverride, hold }: Props) {
   const plan = result.result.plan;
   const adjustment = result.adjustment;
   const loading = loadingContextOf(result.result, oneRepMaxKg);
@@ -49,6 +65,10 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
   const [showProposal, setShowProposal] = useState(false);
   const [editing, setEditing] = useState(false);
   const shown = adjustment && !showProposal ? adjustment.exercises : plan.exercises;
+  const block: StrengthBlock = hold === 'unknown' ? UNKNOWN_HOLD : hold === 'pending' ? { blocked: false } : hold.block;
+  const clearance = typeof hold === 'object' ? hold.clearance : null;
+  // Loaded strength work held back by "refer on" or "clearance needed" is set apart below the plan.
+  const { now, held } = splitByBlock(shown, block);
 
   return (
     <View style={styles.wrap} testID="plan">
@@ -67,6 +87,17 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
           </Text>
           {withheld.length > 0 ? <Text variant="small">Held back until then: {withheld.map((w) => w.name).join(', ')}.</Text> : null}
         </Notice>
+      ) : null}
+      {result.reason ? (
+        <Notice title={`Version ${result.version}: worked out again after a clearance`} testID="plan-cleared">
+          {result.reason}
+        </Notice>
+      ) : null}
+      {clearance ? (
+        <Text variant="small" testID="plan-clearance-state">
+          Clearance in force: {CLEARANCE_LABELS[clearance.status]}, set by {clearance.setByName ?? 'a former member'} on {day(clearance.setAt)}
+          {clearance.detail ? ` (“${clearance.detail}”)` : ''}.
+        </Text>
       ) : null}
       <Notice tone={loading.stage === 'unknown' ? 'caution' : 'info'} title={`${STAGE_LABELS[loading.stage]}: loading limits`} testID="plan-stage">
         {loading.stage === 'unknown'
@@ -109,10 +140,17 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
         />
       ) : (
         <>
-          {shown.length === 0 ? <Text>No exercises: nothing was flagged.</Text> : null}
-          {shown.map((ex, i) => (
-            <ExerciseCard key={ex.id} exercise={ex} index={i} />
-          ))}
+          {hold === 'pending' ? (
+            <Text testID="plan-hold-pending">Checking the physiotherapist&apos;s clearance…</Text>
+          ) : (
+            <>
+              {shown.length === 0 ? <Text>No exercises: nothing was flagged.</Text> : null}
+              {now.map((ex, i) => (
+                <ExerciseCard key={ex.id} exercise={ex} index={i} />
+              ))}
+              <HeldWork block={block} clearance={clearance} held={held} withheld={withheld} />
+            </>
+          )}
           {canAdjust ? (
             <Button
               tone="secondary"
@@ -162,6 +200,58 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
   );
 }
 
+/**
+ * Work that must not be done yet, set apart from the plan with the reason: "refer on" or "clearance
+ * needed" (the care team's hold on loaded strength work), and what the engine held back because pain was
+ * reported at the screen.
+ */
+function HeldWork({
+  block,
+  clearance,
+  held,
+  withheld,
+}: {
+  block: StrengthBlock;
+  clearance: ClearanceView;
+  held: PlannedExercise[];
+  withheld: { id: string; name: string; reason: string }[];
+}) {
+  if (held.length === 0 && withheld.length === 0 && !block.blocked) return null;
+  const reason = !block.blocked
+    ? null
+    : block.reason === 'referred'
+      ? `Refer on: ${clearance?.setByName ?? 'a physiotherapist'} referred the athlete on ${clearance ? day(clearance.setAt) : 'a recent date'}${clearance?.detail ? ` (${clearance.detail})` : ''}. Loaded strength work waits until a physiotherapist clears the athlete.`
+      : block.words;
+  return (
+    <View style={styles.held} testID="plan-held">
+      <Text variant="heading" style={styles.heldTitle}>
+        On hold: not to be done yet
+      </Text>
+      {reason ? (
+        <Text testID="plan-held-reason" style={styles.heldReason}>
+          {block.blocked && block.reason === 'referred' ? reason : `Clearance needed: ${reason}`}
+        </Text>
+      ) : null}
+      {held.map((ex, i) => (
+        <View key={ex.id} style={styles.heldCard} testID="plan-held-exercise">
+          <ExerciseCard exercise={ex} index={i} onHold />
+        </View>
+      ))}
+      {block.blocked && held.length === 0 && withheld.length === 0 ? <Text variant="small">Nothing in this plan is loaded strength work.</Text> : null}
+      {withheld.length > 0 ? (
+        <View style={styles.withheld} testID="plan-withheld">
+          <Text variant="label">Pain reported at this screen: held back by the engine</Text>
+          {withheld.map((w) => (
+            <Text key={w.id} variant="small">
+              • {w.name}: {w.reason.replace(/^Held back: /, '')}
+            </Text>
+          ))}
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
 /** The limits a head coach or physiotherapist passed on purpose, each with its reason: a caution on the plan. */
 function Overrides({ adjustment }: { adjustment: PlanAdjustmentView }) {
   return (
@@ -184,5 +274,18 @@ const styles = StyleSheet.create({
   sourceText: { fontFamily: fonts.bold, color: colors.pineDark },
   rescreen: { gap: 2, padding: space.md, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, backgroundColor: colors.surface },
   cautions: { gap: space.md },
+  held: {
+    gap: space.sm,
+    padding: space.md,
+    borderRadius: radius.md,
+    borderWidth: 2,
+    borderColor: colors.brick,
+    borderStyle: 'dashed',
+    backgroundColor: colors.brickSoft,
+  },
+  heldTitle: { color: colors.brick },
+  heldReason: { fontFamily: fonts.bold },
+  heldCard: { opacity: 0.75 },
+  withheld: { gap: 2 },
   caution: { gap: 2 },
 });

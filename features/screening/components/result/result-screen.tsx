@@ -1,4 +1,5 @@
 import { AthleteClearanceBadge } from '@/features/care/components/clearance-badge';
+import { useAssessmentCareQuery } from '@/features/care/api/assessment-care';
 import { ResultCarePanel } from '@/features/care/components/result-care-panel';
 import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
@@ -21,6 +22,7 @@ import { ResultPhotos } from './result-photos';
 /** The result of a submitted assessment: flags, photos with their lines, the plan and its cautions. */
 export default function ResultScreen({ assessmentId }: { assessmentId: string }) {
   const query = useAssessmentQuery(assessmentId);
+  const care = useAssessmentCareQuery(assessmentId);
   const { membership } = useActiveClub();
   const { isWide } = useBreakpoints();
   if (query.isPending) return <Text>Loading the result…</Text>;
@@ -57,6 +59,7 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
             oneRepMaxKg={detail.draft.oneRepMaxKg}
             canAdjust={can(membership.role, 'plan.adjust')}
             canOverride={can(membership.role, 'plan.override')}
+            hold={care.data ? { block: care.data.care.block, clearance: care.data.care.clearance } : care.error ? 'unknown' : 'pending'}
           />
           <ResultCarePanel assessmentId={detail.id} athleteId={detail.athlete.id} />
           {result.history.length > 0 ? (
@@ -112,7 +115,7 @@ function Header({ detail, result, name, canEdit }: { detail: AssessmentDetail; r
       </Text>
       <AthleteClearanceBadge athleteId={detail.athlete.id} />
       <Text variant="small">
-        Submitted {result.createdAt.slice(0, 10)}
+        {result.reason ? 'Worked out again' : 'Submitted'} {result.createdAt.slice(0, 10)}
         {result.createdByName ? ` by ${result.createdByName}` : ''} · version {result.version} · engine {result.engineVersion}
       </Text>
       {canEdit ? (

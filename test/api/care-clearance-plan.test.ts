@@ -1,0 +1,250 @@
+import { and, asc, eq, sql } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { assessmentResults, auditEvents } from '@/db/schema';
+import { isLoadedStrength } from '@/features/care/strength-block';
+import type { FamilySummary } from '@/features/care/types';
+import type { PlannedExercise } from '@/features/screening/engine';
+import { makeAthlete, makeClub, makeSquad, makeTestApp, makeUser, recordingOutbox, signedInAgent } from '../fixtures/builders';
+import { makeSubmittedScreen, painDraft, recordEmailConsent } from '../fixtures/care';
+import { createTestDb, type TestDb } from '../fixtures/test-db';
+
+// A physiotherapist's clearance feeds back into the plan: "clearance needed" (pain reported) and "refer on"
+// hold loaded strength work until cleared; a clearance given after the screen brings the held-back work
+// back in a new result version with the reason, and the staff's plan, the family view and the summary
+// e-mail say the same thing.
+
+let testDb: TestDb;
+let app: ReturnType<typeof makeTestApp>['app'];
+const outbox = recordingOutbox();
+const ids: Record<string, string> = {};
+type Agent = Awaited<ReturnType<typeof signedInAgent>>;
+const as: Record<'coach' | 'tester' | 'physio' | 'parent', Agent> = {} as never;
+
+const loadedNames = (exercises: readonly PlannedExercise[]) => exercises.filter(isLoadedStrength).map((e) => e.name);
+
+beforeAll(async () => {
+  testDb = await createTestDb();
+  ({ app } = makeTestApp(testDb.db, { outbox }));
+  const db = testDb.db;
+  const club = await makeClub(db, 'Quayside');
+  ids.club = club.id;
+  ids.squad = (await makeSquad(db, club.id, 'Under-14')).id;
+  await makeUser(db, { email: 'coach@quayside.test', clubId: club.id, role: 'head_coach', displayName: 'Cole Coach' });
+  ids.tester = (await makeUser(db, { email: 'tester@quayside.test', clubId: club.id, role: 'tester', displayName: 'Tess Tester' })).id;
+  await makeUser(db, { email: 'physio@quayside.test', clubId: club.id, role: 'physio', displayName: 'Phil Physio' });
+  const parent = await makeUser(db, { email: 'parent@quayside.test', clubId: club.id, role: 'parent', displayName: 'Ana Parent' });
+  ids.kit = (await makeAthlete(db, { clubId: club.id, squadId: ids.squad, firstName: 'Kit', lastName: 'Ames', guardianUserId: parent.id })).id;
+  ids.lou = (await makeAthlete(db, { clubId: club.id, squadId: ids.squad, firstName: 'Lou', lastName: 'Berg', guardianUserId: parent.id })).id;
+  await recordEmailConsent(db, ids.kit, true);
+  await recordEmailConsent(db, ids.lou, true);
+  as.coach = await signedInAgent(app, 'coach@quayside.test');
+  as.tester = await signedInAgent(app, 'tester@quayside.test');
+  as.physio = await signedInAgent(app, 'physio@quayside.test');
+  as.parent = await signedInAgent(app, 'parent@quayside.test');
+});
+
+afterAll(async () => {
+  await testDb.drop();
+});
+
+describe('pain reported, then cleared by a physiotherapist', () => {
+  it('holds loaded work back in the engine plan, the staff view and the released family summary', async () => {
+    const kit = await makeSubmittedScreen(testDb.db, { clubId: ids.club!, squadId: ids.squad!, athleteId: ids.kit!, userId: ids.tester!, draft: painDraft() });
+    ids.kitScreen = kit.assessmentId;
+    const plan = kit.result.result.plan;
+    expect(plan.status).toBe('clearance-needed');
+    expect(loadedNames(plan.exercises)).toEqual([]);
+    expect(plan.withheld!.length).toBeGreaterThan(0);
+
+    const care = await as.coach.get(`/api/assessments/${ids.kitScreen}/care`);
+    expect(care.body.care.block).toMatchObject({ blocked: true, reason: 'clearance-needed' });
+
+    expect((await as.physio.post(`/api/assessments/${ids.kitScreen}/review`)).status).toBe(200);
+    expect((await as.coach.post(`/api/assessments/${ids.kitScreen}/release`)).status).toBe(201);
+    expect(outbox.sent).toHaveLength(1);
+    expect(outbox.sent[0]!.text).toMatch(/on hold until a physiotherapist clears Kit/);
+    const family = await as.parent.get(`/api/athletes/${ids.kit}/summary`);
+    expect(family.body.latest.summary.onHold).toMatch(/on hold/);
+  });
+
+  it('refuses a clearance from anyone but a physiotherapist and changes nothing', async () => {
+    expect((await as.coach.put(`/api/athletes/${ids.kit}/clearance`).send({ status: 'cleared' })).status).toBe(403);
+    expect((await as.tester.put(`/api/athletes/${ids.kit}/clearance`).send({ status: 'cleared' })).status).toBe(403);
+    expect((await as.parent.put(`/api/athletes/${ids.kit}/clearance`).send({ status: 'cleared' })).status).toBe(403);
+    const detail = await as.coach.get(`/api/assessments/${ids.kitScreen}`);
+    expect(detail.body.result).toMatchObject({ version: 1, reason: null });
+  });
+
+  it('"train as normal" after the screen makes a new result version with the held-back work, keeping version 1 as it was', async () => {
+    const set = await as.physio.put(`/api/athletes/${ids.kit}/clearance`).send({ status: 'cleared' });
+    expect(set.status).toBe(200);
+    const day = set.body.clearance.setAt.slice(0, 10);
+
+    const detail = await as.coach.get(`/api/assessments/${ids.kitScreen}`);
+    const result = detail.body.result;
+    expect(result.version).toBe(2);
+    expect(result.reason).toContain('Phil Physio');
+    expect(result.reason).toContain('“Train as normal”');
+    expect(result.reason).toContain(day);
+    expect(result.result.plan.status).toBe('ready');
+    expect(result.result.plan.loading.painUncleared).toBe(false);
+    expect(result.result.plan.withheld).toEqual([]);
+    const loaded = loadedNames(result.result.plan.exercises);
+    expect(loaded.length).toBeGreaterThan(0);
+    expect(result.history).toEqual([expect.objectContaining({ version: 1, reason: null })]);
+    // The engine's caution now says the athlete was cleared.
+    expect(result.result.plan.cautions.map((c: { text: string }) => c.text).join(' ')).toMatch(/A physiotherapist has cleared the athlete/);
+
+    // Version 1 is stored exactly as it was made.
+    const rows = await testDb.db
+      .select()
+      .from(assessmentResults)
+      .where(eq(assessmentResults.assessmentId, ids.kitScreen!))
+      .orderBy(asc(assessmentResults.version));
+    expect(rows.map((r) => [r.version, r.isCurrent, r.result.plan.status])).toEqual([
+      [1, false, 'clearance-needed'],
+      [2, true, 'ready'],
+    ]);
+    expect(rows[0]!.input.options?.painCleared).toBeUndefined();
+    expect(rows[1]!.input.options?.painCleared).toBe(true);
+
+    // The review mark is carried to the new version; the hold is lifted.
+    const care = await as.coach.get(`/api/assessments/${ids.kitScreen}/care`);
+    expect(care.body.care).toMatchObject({
+      block: { blocked: false },
+      reviewedByName: 'Phil Physio',
+      clearance: { status: 'cleared', setByName: 'Phil Physio' },
+    });
+    expect(care.body.care.releasedAt).not.toBeNull();
+
+    // The family view follows: the loaded work is back, with who cleared and when; nothing e-mailed again.
+    const family = await as.parent.get(`/api/athletes/${ids.kit}/summary`);
+    const latest = family.body.latest.summary as FamilySummary;
+    expect(latest.onHold).toBeNull();
+    expect(latest.exercises.map((e) => e.name)).toEqual(expect.arrayContaining(loaded));
+    expect(latest.clearance).toBe(`Phil Physio (physiotherapist) cleared Kit to train as normal on ${day}.`);
+    expect(family.body.earlier[0].summary.onHold).toMatch(/on hold/);
+    expect(outbox.sent).toHaveLength(1);
+
+    // Both steps are in the audit trail.
+    const audit = await testDb.db
+      .select({ action: auditEvents.action, detail: auditEvents.detail })
+      .from(auditEvents)
+      .where(and(eq(auditEvents.subjectId, ids.kitScreen!), eq(auditEvents.subjectKind, 'assessment')));
+    expect(audit.map((a) => a.action)).toEqual(expect.arrayContaining(['reevaluate', 'release']));
+    expect(audit.find((a) => a.action === 'reevaluate')!.detail).toMatchObject({ reviewCarried: true });
+  });
+
+  it('a second clearance does not work the screen out again', async () => {
+    expect((await as.physio.put(`/api/athletes/${ids.kit}/clearance`).send({ status: 'cleared' })).status).toBe(200);
+    const detail = await as.coach.get(`/api/assessments/${ids.kitScreen}`);
+    expect(detail.body.result.version).toBe(2);
+  });
+
+  it('submitting the screen again after the clearance keeps the pain cleared', async () => {
+    const current = await as.tester.get(`/api/assessments/${ids.kitScreen}`);
+    const saved = await as.tester.put(`/api/assessments/${ids.kitScreen}`).send({ draftVersion: current.body.draftVersion, draft: current.body.draft });
+    expect(saved.status).toBe(200);
+    const again = await as.tester.post(`/api/assessments/${ids.kitScreen}/submit`).send({ draftVersion: saved.body.draftVersion });
+    expect(again.status).toBe(200);
+    expect(again.body).toMatchObject({ version: 3, reason: null });
+    expect(again.body.result.plan.status).toBe('ready');
+    expect(loadedNames(again.body.result.plan.exercises).length).toBeGreaterThan(0);
+  });
+});
+
+describe('refer on', () => {
+  it('holds loaded strength work in the plan shown to staff and to the family until a physiotherapist clears it again', async () => {
+    const before = await as.coach.get(`/api/assessments/${ids.kitScreen}`);
+    const loaded = loadedNames(before.body.result.result.plan.exercises);
+    expect(loaded.length).toBeGreaterThan(0);
+    // Version 3 (the tester's re-submission) needs its own review before the family's summary follows it.
+    expect((await as.physio.post(`/api/assessments/${ids.kitScreen}/review`)).status).toBe(200);
+    expect((await as.coach.post(`/api/assessments/${ids.kitScreen}/release`)).status).toBe(201);
+    expect(outbox.sent).toHaveLength(2);
+
+    const referred = await as.physio.put(`/api/athletes/${ids.kit}/clearance`).send({ status: 'referred', detail: 'Sports doctor at the county clinic' });
+    expect(referred.status).toBe(200);
+    // A view-time rule: the stored result does not change.
+    const detail = await as.coach.get(`/api/assessments/${ids.kitScreen}`);
+    expect(detail.body.result.version).toBe(3);
+    const care = await as.tester.get(`/api/assessments/${ids.kitScreen}/care`);
+    expect(care.body.care.block).toMatchObject({ blocked: true, reason: 'referred' });
+
+    const family = await as.parent.get(`/api/athletes/${ids.kit}/summary`);
+    const held = family.body.latest.summary as FamilySummary;
+    expect(held.exercises.map((e) => e.name)).not.toEqual(expect.arrayContaining([loaded[0]]));
+    expect(held.onHold).toContain(loaded[0]);
+    expect(held.clearance).toMatch(/^Phil Physio \(physiotherapist\) asked on .* to be seen by another health professional/);
+    // The team's free-text detail never reaches the family.
+    expect(JSON.stringify(family.body)).not.toContain('county clinic');
+    const preview = await as.coach.get(`/api/assessments/${ids.kitScreen}/release-preview`);
+    expect(preview.body.preview.text).toContain(held.onHold);
+    expect(preview.body.preview.html).not.toContain('county clinic');
+
+    const cleared = await as.physio.put(`/api/athletes/${ids.kit}/clearance`).send({ status: 'modified', detail: 'No drop landings for two weeks' });
+    expect(cleared.status).toBe(200);
+    expect((await as.tester.get(`/api/assessments/${ids.kitScreen}/care`)).body.care.block).toEqual({ blocked: false });
+    const back = (await as.parent.get(`/api/athletes/${ids.kit}/summary`)).body.latest.summary as FamilySummary;
+    expect(back.onHold).toBeNull();
+    expect(back.exercises.map((e) => e.name)).toEqual(expect.arrayContaining(loaded));
+    expect(back.clearance).toMatch(/cleared Kit to train with some changes/);
+    expect(JSON.stringify(back)).not.toContain('drop landings for two weeks');
+    expect((await as.coach.get(`/api/assessments/${ids.kitScreen}`)).body.result.version).toBe(3);
+    // Updates of the family view are not e-mailed.
+    expect(outbox.sent).toHaveLength(2);
+  });
+});
+
+describe('a clearance given before the screen', () => {
+  it('does not clear pain reported at a later screen; the summary e-mail sent after the clearance has the loaded work back', async () => {
+    expect((await as.physio.put(`/api/athletes/${ids.lou}/clearance`).send({ status: 'cleared' })).status).toBe(200);
+    const lou = await makeSubmittedScreen(testDb.db, {
+      clubId: ids.club!,
+      squadId: ids.squad!,
+      athleteId: ids.lou!,
+      userId: ids.tester!,
+      draft: painDraft(),
+      at: new Date(Date.now() + 1000),
+    });
+    expect(lou.result.result.plan.status).toBe('clearance-needed');
+    expect((await as.coach.get(`/api/assessments/${lou.assessmentId}/care`)).body.care.block).toMatchObject({ blocked: true, reason: 'clearance-needed' });
+
+    // Cleared after this screen: a new version; then reviewed and released, the e-mail says the same as the plan.
+    await new Promise((r) => setTimeout(r, 1100));
+    const set = await as.physio.put(`/api/athletes/${ids.lou}/clearance`).send({ status: 'cleared' });
+    const day = set.body.clearance.setAt.slice(0, 10);
+    const detail = await as.coach.get(`/api/assessments/${lou.assessmentId}`);
+    expect(detail.body.result.version).toBe(2);
+    const loaded = loadedNames(detail.body.result.result.plan.exercises);
+    expect(loaded.length).toBeGreaterThan(0);
+    expect((await as.physio.post(`/api/assessments/${lou.assessmentId}/review`)).status).toBe(200);
+    expect((await as.physio.post(`/api/assessments/${lou.assessmentId}/release`)).status).toBe(201);
+    const mail = outbox.sent.at(-1)!;
+    expect(mail.to).toBe('parent@quayside.test');
+    for (const name of loaded) expect(mail.text).toContain(name);
+    expect(mail.text).toContain(`Phil Physio (physiotherapist) cleared Lou to train as normal on ${day}.`);
+    expect(mail.text).not.toMatch(/on hold/);
+    expect(mail.html).toContain('cleared Lou to train as normal');
+  });
+});
+
+describe('a stored input the engine refuses today', () => {
+  it('still records the clearance, keeps the hold and says why in the audit trail', async () => {
+    const rae = await makeAthlete(testDb.db, { clubId: ids.club!, squadId: ids.squad!, firstName: 'Rae', lastName: 'Cole' });
+    const screen = await makeSubmittedScreen(testDb.db, { clubId: ids.club!, squadId: ids.squad!, athleteId: rae.id, userId: ids.tester!, draft: painDraft() });
+    // As if an older engine had accepted a stature today's engine refuses (80-230 cm).
+    await testDb.db.execute(
+      sql`update assessment_results set input = jsonb_set(input, '{athlete,statureCm}', '60'::jsonb) where assessment_id = ${screen.assessmentId}`,
+    );
+    const set = await as.physio.put(`/api/athletes/${rae.id}/clearance`).send({ status: 'cleared' });
+    expect(set.status).toBe(200);
+    expect(set.body.clearance).toMatchObject({ status: 'cleared' });
+    expect((await as.coach.get(`/api/assessments/${screen.assessmentId}`)).body.result).toMatchObject({ version: 1, reason: null });
+    const [event] = await testDb.db
+      .select({ detail: auditEvents.detail })
+      .from(auditEvents)
+      .where(and(eq(auditEvents.subjectId, screen.assessmentId), eq(auditEvents.action, 'reevaluate.refused')));
+    expect(event!.detail).toMatchObject({ field: 'athlete.statureCm' });
+  });
+});
