@@ -117,9 +117,11 @@ export const assessmentResults = pgTable(
   (t) => [
     uniqueIndex('assessment_results_version_uq').on(t.assessmentId, t.version),
     index('assessment_results_athlete_idx').on(t.athleteId, t.createdAt),
-    // Progress: the current result of an assessment, without scanning its older versions.
-    index('assessment_results_current_idx')
-      .on(t.assessmentId)
+    // The current result of an assessment, without scanning its older versions. It also holds every
+    // small column squad trends and the athletes' latest screens read (after the assessment id, which is
+    // all lookups search by), so those are answered from the index alone, never visiting the wide rows.
+    index('assessment_results_current_summary_idx')
+      .on(t.assessmentId, t.createdAt, t.maturityBand, t.rescreenDate, t.flagIds, t.flagSides, t.fppaIds, t.fppaValues)
       .where(sql`is_current`),
   ],
 );

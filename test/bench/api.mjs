@@ -1,6 +1,8 @@
 // `npm run bench:api`: a throw-away PostgreSQL, the seeded benchmark server (test/bench/api-server.ts),
 // then autocannon (50 connections) against squad trends (a 40-athlete squad, 8 rounds), one athlete's
-// history (8 screens) and a bare `SELECT 1` route of the same server, in the same run. Prints requests
+// history (8 screens), a bare `SELECT 1` route of the same server and the lightest signed-in route
+// (`GET /api/me`: the session check and the app's middleware, the floor of any route behind sign-in),
+// in the same run. Prints requests
 // per second, p50/p95/p99 latency and errors per route, and each route's throughput as a ratio of the
 // bare route's. Figures, not assertions: speed targets are read from this output.
 //
@@ -8,6 +10,7 @@
 import autocannon from 'autocannon';
 import readline from 'node:readline';
 import fs from 'node:fs';
+import os from 'node:os';
 import {
   clusterLayout,
   databaseUrl,
@@ -86,6 +89,8 @@ try {
   const auth = { cookie: ready.cookie };
   const targets = [
     { name: 'SELECT 1 (bare baseline)', url: `${base}/bench/select-1`, headers: {} },
+    // The floor of any signed-in route: session check, one membership query, the app's middleware.
+    { name: 'GET /api/me (signed-in floor)', url: `${base}/api/me`, headers: auth },
     { name: 'GET /api/squads/:id/trends (40 athletes, 8 rounds)', url: `${base}/api/squads/${ready.squadId}/trends`, headers: auth },
     { name: 'GET /api/athletes/:id/progress (8 screens)', url: `${base}/api/athletes/${ready.athleteId}/progress`, headers: auth },
   ];
@@ -104,6 +109,7 @@ try {
     await run(t.url, t.headers, 3);
     const { result, latencies } = await run(t.url, t.headers, DURATION);
     rows.push({
+      load: os.loadavg()[0],
       route: t.name,
       rps: result.requests.average,
       p50: percentile(latencies, 50),
@@ -116,10 +122,13 @@ try {
   const baseline = rows[0].rps;
   console.log('');
   console.log(`API benchmark, ${new Date().toISOString().slice(0, 10)}, ${CONNECTIONS} connections, ${DURATION} s per route`);
-  console.log('| route | req/s | ratio to SELECT 1 | p50 ms | p95 ms | p99 ms | errors | requests |');
-  console.log('| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: |');
+  console.log(`${os.cpus().length} cores; the machine's 1-minute load average is read at the end of each route's run.`);
+  console.log('| route | req/s | ratio to SELECT 1 | p50 ms | p95 ms | p99 ms | errors | requests | load |');
+  console.log('| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |');
   for (const r of rows) {
-    console.log(`| ${r.route} | ${r.rps.toFixed(0)} | ${(r.rps / baseline).toFixed(2)} | ${r.p50} | ${r.p95} | ${r.p99} | ${r.errors} | ${r.requests} |`);
+    console.log(
+      `| ${r.route} | ${r.rps.toFixed(0)} | ${(r.rps / baseline).toFixed(2)} | ${r.p50} | ${r.p95} | ${r.p99} | ${r.errors} | ${r.requests} | ${r.load.toFixed(1)} |`,
+    );
   }
 } catch (error) {
   console.error(error);
