@@ -118,14 +118,18 @@ export function progressRepo(db: Executor, scope: ClubScope) {
                 l.id, l.screened_on, l.flag_ids, l.flag_sides, l.maturity_band, l.rescreen_date) order by m.last_name, m.first_name, m.id), '[]')
               from athletes m
               left join lateral (
-                -- The round's date by its primary key, once per screen (8 or so), not a join over every round of the club.
-                select a.id, (select rd.screened_on from rounds rd where rd.id = a.round_id) as screened_on,
-                  ar.flag_ids, ar.flag_sides, ar.maturity_band, ar.rescreen_date, ar.created_at
-                from assessments a
-                join assessment_results ar on ar.assessment_id = a.id and ar.is_current
-                where a.athlete_id = m.id and a.status = 'submitted'
-                order by 2 desc, ar.created_at desc
-                limit 1
+                -- The newest submitted screen by its round's date (the round by its primary key, once per
+                -- screen of the athlete), then that one screen's current result: one result read per athlete.
+                select n.id, n.screened_on, ar.flag_ids, ar.flag_sides, ar.maturity_band, ar.rescreen_date
+                from (
+                  select a.id, rd.screened_on
+                  from assessments a
+                  join lateral (select screened_on, created_at from rounds where id = a.round_id) rd on true
+                  where a.athlete_id = m.id and a.status = 'submitted'
+                  order by rd.screened_on desc, rd.created_at desc, a.id desc
+                  limit 1
+                ) n
+                join assessment_results ar on ar.assessment_id = n.id and ar.is_current
               ) l on true
               left join lateral (
                 select status from clearances where athlete_id = m.id and club_id = ${clubId} order by created_at desc limit 1

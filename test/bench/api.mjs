@@ -6,7 +6,7 @@
 // per second, p50/p95/p99 latency and errors per route, and each route's throughput as a ratio of the
 // bare route's. Figures, not assertions: speed targets are read from this output.
 //
-//   npm run bench:api [-- --duration 15 --connections 50]
+//   npm run bench:api [-- --duration 15 --connections 50 --rounds 1 --warmup 3]
 import autocannon from 'autocannon';
 import readline from 'node:readline';
 import fs from 'node:fs';
@@ -33,6 +33,8 @@ const arg = (name, fallback) => {
 };
 const DURATION = arg('duration', 15);
 const CONNECTIONS = arg('connections', 50);
+const ROUNDS = arg('rounds', 1);
+const WARMUP = arg('warmup', 3);
 
 ensureNodeModules();
 const bin = ensurePostgres();
@@ -103,32 +105,56 @@ try {
     console.log(JSON.stringify({ databaseUrl: databaseUrl(port, password, 'squadline_bench'), base, ...ready }));
     await new Promise(() => {});
   }
-  const rows = [];
-  for (const t of targets) {
-    log(`${t.name}: warm-up 3 s, then ${DURATION} s with ${CONNECTIONS} connections...`);
-    await run(t.url, t.headers, 3);
-    const { result, latencies } = await run(t.url, t.headers, DURATION);
-    rows.push({
-      load: os.loadavg()[0],
-      route: t.name,
-      rps: result.requests.average,
-      p50: percentile(latencies, 50),
-      p95: percentile(latencies, 95),
-      p99: percentile(latencies, 99),
-      errors: result.errors + result.timeouts + result.non2xx,
-      requests: result.requests.total,
-    });
+  // On a shared machine the load changes from one minute to the next, so with `--rounds N` the routes
+  // take turns N times (baseline, then each route, again and again) and each ratio is read against the
+  // baseline of its own turn; the table gives the medians over the turns.
+  const turns = [];
+  for (let round = 0; round < ROUNDS; round++) {
+    const rows = [];
+    for (const t of targets) {
+      log(`turn ${round + 1}/${ROUNDS}, ${t.name}: warm-up ${WARMUP} s, then ${DURATION} s with ${CONNECTIONS} connections...`);
+      await run(t.url, t.headers, WARMUP);
+      const { result, latencies } = await run(t.url, t.headers, DURATION);
+      rows.push({
+        load: os.loadavg()[0],
+        route: t.name,
+        rps: result.requests.average,
+        p50: percentile(latencies, 50),
+        p95: percentile(latencies, 95),
+        p99: percentile(latencies, 99),
+        errors: result.errors + result.timeouts + result.non2xx,
+        requests: result.requests.total,
+      });
+    }
+    for (const r of rows) r.ratio = r.rps / rows[0].rps;
+    turns.push(rows);
   }
-  const baseline = rows[0].rps;
+  const median = (values) => {
+    const v = [...values].sort((a, b) => a - b);
+    return v.length % 2 ? v[(v.length - 1) / 2] : (v[v.length / 2 - 1] + v[v.length / 2]) / 2;
+  };
+  const ms = (v) => Math.round(v).toLocaleString('en-GB');
   console.log('');
-  console.log(`API benchmark, ${new Date().toISOString().slice(0, 10)}, ${CONNECTIONS} connections, ${DURATION} s per route`);
-  console.log(`${os.cpus().length} cores; the machine's 1-minute load average is read at the end of each route's run.`);
+  console.log(
+    `API benchmark, ${new Date().toISOString().slice(0, 10)}, ${CONNECTIONS} connections, ${DURATION} s per route and turn, ${ROUNDS} turn(s), ${os.cpus().length} cores`,
+  );
+  if (ROUNDS > 1) console.log('Medians over the turns; each ratio against the SELECT 1 run of the same turn; load: range of 1-minute load averages.');
   console.log('| route | req/s | ratio to SELECT 1 | p50 ms | p95 ms | p99 ms | errors | requests | load |');
   console.log('| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |');
-  for (const r of rows) {
+  targets.forEach((t, i) => {
+    const runs = turns.map((rows) => rows[i]);
+    const pick = (key) => median(runs.map((r) => r[key]));
+    const loads = runs.map((r) => r.load);
+    const load = ROUNDS > 1 ? `${Math.min(...loads).toFixed(1)}-${Math.max(...loads).toFixed(1)}` : loads[0].toFixed(1);
+    const sum = (key) => runs.reduce((n, r) => n + r[key], 0);
     console.log(
-      `| ${r.route} | ${r.rps.toFixed(0)} | ${(r.rps / baseline).toFixed(2)} | ${r.p50} | ${r.p95} | ${r.p99} | ${r.errors} | ${r.requests} | ${r.load.toFixed(1)} |`,
+      `| ${t.name} | ${pick('rps').toFixed(0)} | ${pick('ratio').toFixed(2)} | ${ms(pick('p50'))} | ${ms(pick('p95'))} | ${ms(pick('p99'))} | ${sum('errors')} | ${sum('requests')} | ${load} |`,
     );
+  });
+  if (ROUNDS > 1) {
+    console.log('');
+    console.log('Per turn (req/s, ratio):');
+    turns.forEach((rows, n) => console.log(`  turn ${n + 1}: ${rows.map((r) => `${r.rps.toFixed(0)} (${r.ratio.toFixed(2)})`).join(' | ')}`));
   }
 } catch (error) {
   console.error(error);
