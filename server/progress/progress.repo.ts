@@ -1,27 +1,19 @@
-import { sql, type SQL } from 'drizzle-orm';
-import { PgDialect } from 'drizzle-orm/pg-core';
 import type { AssessmentResult } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
 import type { Executor } from '@/server/screening/screening.repo';
 
-const dialect = new PgDialect();
+type Queryable = { query<T>(config: { name: string; text: string; values: unknown[] }): Promise<{ rows: T[] }> };
 
 /**
- * Runs one statement as a named prepared statement when the executor is the pool (the statement is
- * parsed and planned once per connection, not on every request); inside a transaction, as a plain query.
+ * Runs one statement as a named prepared statement: PostgreSQL parses and plans it once per pooled
+ * connection, not on every request, and the text is a constant here, not rebuilt per request. The pool
+ * (`$client`) or, inside a transaction, the transaction's own connection.
  */
-async function rowsOf<T>(db: Executor, name: string, query: SQL): Promise<T[]> {
-  const client = (db as { $client?: { query?: unknown } }).$client;
-  if (client && typeof client.query === 'function') {
-    const { sql: text, params } = dialect.sqlToQuery(query);
-    const result = await (client as { query(config: { name: string; text: string; values: unknown[] }): Promise<{ rows: T[] }> }).query({
-      name,
-      text,
-      values: params,
-    });
-    return result.rows;
-  }
-  return (await db.execute(query)).rows as T[];
+async function rowsOf<T>(db: Executor, name: string, text: string, values: unknown[]): Promise<T[]> {
+  const holder = db as unknown as { $client?: Queryable; session?: { client?: Queryable } };
+  const client = holder.$client ?? holder.session?.client;
+  if (!client) throw new Error('progressRepo needs a node-postgres executor.');
+  return (await client.query<T>({ name, text, values })).rows;
 }
 
 /** One round of the squad: [id, name, screenedOn], in date order. */
@@ -57,7 +49,7 @@ export type HistoryRow = {
   roundName: string | null;
   screenedOn: string | null;
   taskIds: string[] | null;
-  result: Pick<AssessmentResult, 'measurements' | 'flags' | 'maturity' | 'plan'> | null;
+  result: AssessmentResult | null;
 };
 
 /**
@@ -65,36 +57,36 @@ export type HistoryRow = {
  * Every statement filters by the scope's club. Trends read the small generated columns of
  * `assessment_results` (flag ids and sides, knee angles, maturity band, re-screen date) through the
  * covering index `assessment_results_current_summary_idx`, never the full result; one athlete's history
- * reads the parts of the full results the comparison needs (a handful of rows).
+ * reads the full results the comparison needs (a handful of rows) and only the task names of their inputs.
  */
 export function progressRepo(db: Executor, scope: ClubScope) {
   const clubId = scope.clubId;
 
   return {
     /**
-     * Every submitted screen of one athlete with the parts of its current result the history and the
-     * comparison read, oldest first; one row with null screen columns when there is none, no row when
+     * Every submitted screen of one athlete with its current result and the names of the tasks done
+     * (not the whole stored input, landmarks and all), oldest first; one row with null screen columns when there is none, no row when
      * the athlete is not in the club.
      */
     history(athleteId: string) {
       return rowsOf<HistoryRow>(
         db,
         'progress_athlete_history',
-        sql`select p.id as "athleteId", p.sex, h.*
+        `select p.id as "athleteId", p.sex, h.*
           from athletes p
           left join lateral (
             select a.id as "assessmentId", r.id as "roundId", r.name as "roundName", r.screened_on::text as "screenedOn",
               (select coalesce(array_agg(k), '{}') from jsonb_object_keys(coalesce(ar.input -> 'tasks', '{}')) k) as "taskIds",
-              jsonb_build_object('measurements', ar.result -> 'measurements', 'flags', ar.result -> 'flags',
-                'maturity', ar.result -> 'maturity', 'plan', ar.result -> 'plan') as result,
+              ar.result,
               r.screened_on, ar.created_at
             from assessments a
             join rounds r on r.id = a.round_id
             join assessment_results ar on ar.assessment_id = a.id and ar.is_current
             where a.athlete_id = p.id and a.club_id = p.club_id and a.status = 'submitted'
           ) h on true
-          where p.id = ${athleteId} and p.club_id = ${clubId}
+          where p.id = $1 and p.club_id = $2
           order by h.screened_on, h.created_at`,
+        [athleteId, clubId],
       );
     },
 
@@ -110,10 +102,10 @@ export function progressRepo(db: Executor, scope: ClubScope) {
         rowsOf<{ squad: Season['squad'] | null; rounds: SeasonRound[]; athletes: SeasonAthlete[] }>(
           db,
           'progress_squad_season',
-          sql`select
-            (select json_build_object('id', s.id, 'name', s.name) from squads s where s.id = ${squadId} and s.club_id = ${clubId}) as squad,
+          `select
+            (select json_build_object('id', s.id, 'name', s.name) from squads s where s.id = $1 and s.club_id = $2) as squad,
             (select coalesce(json_agg(json_build_array(r.id, r.name, r.screened_on) order by r.screened_on, r.created_at, r.id), '[]')
-              from rounds r where r.squad_id = ${squadId} and r.club_id = ${clubId}) as rounds,
+              from rounds r where r.squad_id = $1 and r.club_id = $2) as rounds,
             (select coalesce(json_agg(json_build_array(m.id, m.first_name, m.last_name, m.sex, m.date_of_birth, c.status,
                 l.id, l.screened_on, l.flag_ids, l.flag_sides, l.maturity_band, l.rescreen_date) order by m.last_name, m.first_name, m.id), '[]')
               from athletes m
@@ -132,18 +124,20 @@ export function progressRepo(db: Executor, scope: ClubScope) {
                 join assessment_results ar on ar.assessment_id = n.id and ar.is_current
               ) l on true
               left join lateral (
-                select status from clearances where athlete_id = m.id and club_id = ${clubId} order by created_at desc limit 1
+                select status from clearances where athlete_id = m.id and club_id = $2 order by created_at desc limit 1
               ) c on true
-              where m.squad_id = ${squadId} and m.club_id = ${clubId} and m.archived_at is null) as athletes`,
+              where m.squad_id = $1 and m.club_id = $2 and m.archived_at is null) as athletes`,
+          [squadId, clubId],
         ),
         rowsOf<{ roundId: string; athleteId: string; flagIds: string[] | null; fppaIds: string[] | null; fppaValues: (number | null)[] | null }>(
           db,
           'progress_squad_results',
-          sql`select a.round_id as "roundId", a.athlete_id as "athleteId", ar.flag_ids as "flagIds", ar.fppa_ids as "fppaIds", ar.fppa_values as "fppaValues"
+          `select a.round_id as "roundId", a.athlete_id as "athleteId", ar.flag_ids as "flagIds", ar.fppa_ids as "fppaIds", ar.fppa_values as "fppaValues"
             from rounds r
             join assessments a on a.round_id = r.id and a.status = 'submitted'
             join assessment_results ar on ar.assessment_id = a.id and ar.is_current
-            where r.squad_id = ${squadId} and r.club_id = ${clubId}`,
+            where r.squad_id = $1 and r.club_id = $2`,
+          [squadId, clubId],
         ),
       ]);
       if (!head?.squad) return null;

@@ -11,7 +11,7 @@ import {
   type TrendRound,
   type TrendsResponse,
 } from '@/features/progress/trends';
-import type { AssessmentResult, MaturityBand, PatternId, TaskId } from '@/features/screening/engine';
+import type { MaturityBand, PatternId, TaskId } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
 import { notFound } from '@/server/http/errors';
 import type { Executor } from '@/server/screening/screening.repo';
@@ -31,7 +31,7 @@ export function progressService(db: Executor, scope: ClubScope) {
         assessmentId: r.assessmentId,
         screenedOn: r.screenedOn,
         tasksDone: (r.taskIds ?? []) as TaskId[],
-        result: r.result as AssessmentResult,
+        result: r.result,
       }));
       const screens: ProgressScreen[] = rows.map((r) => ({
         assessmentId: r.assessmentId,
