@@ -122,9 +122,12 @@ export const assessmentResults = pgTable(
   (t) => [
     uniqueIndex('assessment_results_version_uq').on(t.assessmentId, t.version),
     index('assessment_results_athlete_idx').on(t.athleteId, t.createdAt),
-    // Progress: the current result of an assessment, without scanning its older versions.
-    index('assessment_results_current_idx')
-      .on(t.assessmentId)
+    // The current result of an assessment, without scanning its older versions, with the scalar columns
+    // squad trends and the athletes' latest screens read. The JSON columns (flags, knee angles) stay out
+    // of the index: an index row is limited to about 2.7 KB, and a long flag list must never make a
+    // submit fail. They are read from the rows this index points to (one per athlete).
+    index('assessment_results_current_summary_idx')
+      .on(t.assessmentId, t.createdAt, t.maturityBand, t.rescreenDate)
       .where(sql`is_current`),
   ],
 );

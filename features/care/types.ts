@@ -81,9 +81,17 @@ export type SummaryRelease = { id: string; assessmentId: string; releasedAt: str
 
 export type FamilyPhoto = { id: string; thumbUrl: string; url: string; taskTitle: string };
 
+/**
+ * The last two released screens compared in family wording (`familySummary` of features/progress/wording.ts):
+ * plain sentences, no angles, distances or percentages.
+ */
+export type FamilyComparison = { earlierScreenedOn: string; laterScreenedOn: string; lines: string[] };
+
 export type FamilyView = {
   athlete: { id: string; firstName: string; lastName: string };
   latest: SummaryRelease | null;
+  /** Null until two screens of the child have been released to the family. */
+  comparison: FamilyComparison | null;
   earlier: SummaryRelease[];
   notes: NoteView[];
   /** Empty unless the club lets parents see their own child's photos and photo consent is in force. */

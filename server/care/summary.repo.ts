@@ -1,5 +1,17 @@
-import { and, asc, desc, eq, isNull } from 'drizzle-orm';
-import { athletes, consents, guardianLinks, memberships, photos, summaryEmails, summaryReleases, users } from '@/db/schema';
+import { and, asc, desc, eq, isNull, sql } from 'drizzle-orm';
+import {
+  assessmentResults,
+  assessments,
+  athletes,
+  consents,
+  guardianLinks,
+  memberships,
+  photos,
+  rounds,
+  summaryEmails,
+  summaryReleases,
+  users,
+} from '@/db/schema';
 import type { FamilySummary, SummaryRelease } from '@/features/care/types';
 import type { ClubScope } from '@/server/access/scope';
 import type { Executor } from '@/server/screening/screening.repo';
@@ -65,6 +77,27 @@ export function summaryRepo(db: Executor, scope: ClubScope) {
         .where(and(eq(summaryReleases.clubId, scope.clubId), eq(summaryReleases.athleteId, athleteId)))
         .orderBy(desc(summaryReleases.createdAt), desc(summaryReleases.id));
       return rows.map((r) => ({ id: r.id, assessmentId: r.assessmentId, releasedAt: r.createdAt.toISOString(), summary: r.summary as FamilySummary }));
+    },
+
+    /**
+     * The two latest screens (by screening date) released to the family, with the result version that was
+     * released and the tasks done: what the family comparison compares. Newest first.
+     */
+    lastTwoReleasedScreens(athleteId: string) {
+      return db
+        .selectDistinctOn([rounds.screenedOn, summaryReleases.assessmentId], {
+          assessmentId: summaryReleases.assessmentId,
+          screenedOn: rounds.screenedOn,
+          taskIds: sql<string[]>`(select coalesce(array_agg(k), '{}') from jsonb_object_keys(coalesce(${assessmentResults.input} -> 'tasks', '{}')) k)`,
+          result: assessmentResults.result,
+        })
+        .from(summaryReleases)
+        .innerJoin(assessmentResults, eq(assessmentResults.id, summaryReleases.resultId))
+        .innerJoin(assessments, eq(assessments.id, summaryReleases.assessmentId))
+        .innerJoin(rounds, eq(rounds.id, assessments.roundId))
+        .where(and(eq(summaryReleases.clubId, scope.clubId), eq(summaryReleases.athleteId, athleteId)))
+        .orderBy(desc(rounds.screenedOn), desc(summaryReleases.assessmentId), desc(summaryReleases.createdAt))
+        .limit(2);
     },
 
     async currentPhotos(assessmentId: string) {

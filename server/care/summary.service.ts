@@ -4,8 +4,10 @@ import type { Db } from '@/db/client';
 import { athletes, consents, summaryEmails } from '@/db/schema';
 import { buildFamilySummary } from '@/features/care/family-summary';
 import { strengthBlock } from '@/features/care/strength-block';
-import type { FamilySummary, FamilyView, ReleasePreview } from '@/features/care/types';
-import { getTask, type TaskId } from '@/features/screening/engine';
+import type { FamilyComparison, FamilySummary, FamilyView, ReleasePreview } from '@/features/care/types';
+import { compareScreens } from '@/features/progress/compare';
+import { familySummary } from '@/features/progress/wording';
+import { getTask, type AssessmentResult, type TaskId } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
 import { AppError, conflict, notFound } from '@/server/http/errors';
 import type { MailRef, Outbox } from '@/server/mail/outbox';
@@ -161,8 +163,9 @@ export function summaryService(deps: SummaryDeps, scope: ClubScope) {
     async familyView(athleteId: string): Promise<FamilyView> {
       const s = screeningRepo(db, scope);
       const repo = summaryRepo(db, scope);
-      const [releases, notes, settings, photoConsent] = await Promise.all([
+      const [releases, releasedScreens, notes, settings, photoConsent] = await Promise.all([
         repo.releases(athleteId),
+        repo.lastTwoReleasedScreens(athleteId),
         notesService(db, scope).list(athleteId, 'family'),
         careSettingsOf(db, scope.clubId),
         s.photoConsent(athleteId),
@@ -188,9 +191,26 @@ export function summaryService(deps: SummaryDeps, scope: ClubScope) {
         athleteId,
         detail: { what: 'family summary' },
       });
-      return { athlete, latest, earlier: releases.slice(1), notes, photos, photosAllowed };
+      return { athlete, latest, comparison: familyComparison(releasedScreens), earlier: releases.slice(1), notes, photos, photosAllowed };
     },
   };
+}
+
+/**
+ * The last two screens released to the family, compared by the same engine comparison the staff see
+ * (`compareScreens`) and put in family wording (`familySummary`): only released screens, so a parent never
+ * learns of a screen the care team has not reviewed and sent.
+ */
+function familyComparison(screens: { assessmentId: string; screenedOn: string; taskIds: string[]; result: AssessmentResult }[]): FamilyComparison | null {
+  const [later, earlier] = screens;
+  if (!later || !earlier) return null;
+  const asScreen = (s: (typeof screens)[number]) => ({
+    assessmentId: s.assessmentId,
+    screenedOn: s.screenedOn,
+    tasksDone: s.taskIds as TaskId[],
+    result: s.result,
+  });
+  return { earlierScreenedOn: earlier.screenedOn, laterScreenedOn: later.screenedOn, lines: familySummary(compareScreens(asScreen(earlier), asScreen(later))) };
 }
 
 function safeTaskTitle(id: string) {

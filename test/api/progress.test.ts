@@ -225,6 +225,16 @@ describe('GET /api/squads/:id/trends', () => {
     expect(rows.Cai.kneeAngles[k][1]).toBeNull();
   });
 
+  it("shows the clearance in force: the physiotherapist's newest decision for the athlete", async () => {
+    expect((await as.physio.put(`/api/athletes/${ids.bea}/clearance`).send({ status: 'referred', detail: 'See the club doctor first' })).status).toBe(200);
+    expect((await as.physio.put(`/api/athletes/${ids.bea}/clearance`).send({ status: 'modified', detail: 'No jumps for two weeks' })).status).toBe(200);
+    const res = await as.coach.get(`/api/squads/${ids.squad}/trends`).expect(200);
+    const byName = Object.fromEntries(res.body.athletes.map((a: { firstName: string; clearance: string | null }) => [a.firstName, a.clearance]));
+    expect(byName).toEqual({ Ana: null, Bea: 'modified', Cai: null });
+    const csv = await as.coach.get(`/api/squads/${ids.squad}/trends?format=csv&flag=dynamic-knee-valgus`).expect(200);
+    expect(csv.text.trim().split('\n').slice(1)).toEqual([expect.stringMatching(/^Brook,Bea,female,U13,[^,]*,modified,/)]);
+  });
+
   it('filters, and exports the filtered table as CSV', async () => {
     const flagged = await as.coach.get(`/api/squads/${ids.squad}/trends?flag=dynamic-knee-valgus`).expect(200);
     expect(flagged.body.athletes.map((a: { firstName: string }) => a.firstName)).toEqual(['Bea']);

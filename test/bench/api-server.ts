@@ -117,6 +117,16 @@ async function main() {
   });
   // The baseline: the same process, the same pool, the same JSON reply, no session, no guard.
   const outer = express();
+  // Answers sent, counted here so the load generator can divide CPU time by the requests the server
+  // actually finished in a window (a slow route is still answering the warm-up's requests when a run starts).
+  let finished = 0;
+  outer.use((_req, res, next) => {
+    res.on('finish', () => (finished += 1));
+    next();
+  });
+  outer.get('/bench/finished', (_req, res) => {
+    res.json({ finished });
+  });
   outer.get('/bench/select-1', async (_req, res) => {
     const r = await handle.pool.query('select 1 as one');
     res.json({ one: r.rows[0].one });

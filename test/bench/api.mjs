@@ -1,13 +1,16 @@
 // `npm run bench:api`: a throw-away PostgreSQL, the seeded benchmark server (test/bench/api-server.ts),
 // then autocannon (50 connections) against squad trends (a 40-athlete squad, 8 rounds), one athlete's
-// history (8 screens) and a bare `SELECT 1` route of the same server, in the same run. Prints requests
+// history (8 screens), a bare `SELECT 1` route of the same server and the lightest signed-in route
+// (`GET /api/me`: the session check and the app's middleware, the floor of any route behind sign-in),
+// in the same run. Prints requests
 // per second, p50/p95/p99 latency and errors per route, and each route's throughput as a ratio of the
 // bare route's. Figures, not assertions: speed targets are read from this output.
 //
-//   npm run bench:api [-- --duration 15 --connections 50]
+//   npm run bench:api [-- --duration 15 --connections 50 --rounds 1 --warmup 3]
 import autocannon from 'autocannon';
 import readline from 'node:readline';
 import fs from 'node:fs';
+import os from 'node:os';
 import {
   clusterLayout,
   databaseUrl,
@@ -30,6 +33,8 @@ const arg = (name, fallback) => {
 };
 const DURATION = arg('duration', 15);
 const CONNECTIONS = arg('connections', 50);
+const ROUNDS = arg('rounds', 1);
+const WARMUP = arg('warmup', 3);
 
 ensureNodeModules();
 const bin = ensurePostgres();
@@ -71,6 +76,58 @@ function run(url, headers, duration) {
   });
 }
 
+/**
+ * CPU time (ms) used so far by the benchmark server and the database: the server's process tree and the
+ * PostgreSQL postmaster's (its backends and workers), read from /proc (Linux). autocannon runs in this
+ * process and is not counted. On a machine shared with other work, throughput follows whatever else
+ * runs; CPU time per answered request does not, so it is printed beside req/s.
+ */
+function serverCpuMs(roots) {
+  let entries = [];
+  try {
+    entries = fs.readdirSync('/proc').filter((d) => /^\d+$/.test(d));
+  } catch {
+    return NaN;
+  }
+  const stats = new Map();
+  for (const pid of entries) {
+    try {
+      const text = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
+      const fields = text.slice(text.lastIndexOf(')') + 2).split(' ');
+      // After the command name: state, ppid, ..., utime (14th field overall), stime (15th).
+      stats.set(Number(pid), { ppid: Number(fields[1]), ticks: Number(fields[11]) + Number(fields[12]) });
+    } catch {
+      // The process ended meanwhile.
+    }
+  }
+  const children = new Map();
+  for (const [pid, st] of stats) children.set(st.ppid, [...(children.get(st.ppid) ?? []), pid]);
+  const seen = new Set();
+  const queue = roots.filter((pid) => stats.has(pid));
+  while (queue.length) {
+    const pid = queue.pop();
+    if (seen.has(pid)) continue;
+    seen.add(pid);
+    queue.push(...(children.get(pid) ?? []));
+  }
+  let ticks = 0;
+  for (const pid of seen) ticks += stats.get(pid).ticks;
+  return (ticks * 1000) / 100; // USER_HZ is 100 on Linux
+}
+
+function postmasterPid() {
+  try {
+    return Number(fs.readFileSync(`${layout.data}/postmaster.pid`, 'utf8').split('\n')[0]);
+  } catch {
+    return NaN;
+  }
+}
+
+async function finishedCount(base) {
+  const res = await fetch(`${base}/bench/finished`);
+  return (await res.json()).finished;
+}
+
 let status = 0;
 try {
   log('Seeding 2,000 athletes x 8 rounds (16,000 screens through the engine; several minutes on 2 busy cores)...');
@@ -86,6 +143,8 @@ try {
   const auth = { cookie: ready.cookie };
   const targets = [
     { name: 'SELECT 1 (bare baseline)', url: `${base}/bench/select-1`, headers: {} },
+    // The floor of any signed-in route: session check, one membership query, the app's middleware.
+    { name: 'GET /api/me (signed-in floor)', url: `${base}/api/me`, headers: auth },
     { name: 'GET /api/squads/:id/trends (40 athletes, 8 rounds)', url: `${base}/api/squads/${ready.squadId}/trends`, headers: auth },
     { name: 'GET /api/athletes/:id/progress (8 screens)', url: `${base}/api/athletes/${ready.athleteId}/progress`, headers: auth },
   ];
@@ -98,28 +157,74 @@ try {
     console.log(JSON.stringify({ databaseUrl: databaseUrl(port, password, 'squadline_bench'), base, ...ready }));
     await new Promise(() => {});
   }
-  const rows = [];
-  for (const t of targets) {
-    log(`${t.name}: warm-up 3 s, then ${DURATION} s with ${CONNECTIONS} connections...`);
-    await run(t.url, t.headers, 3);
-    const { result, latencies } = await run(t.url, t.headers, DURATION);
-    rows.push({
-      route: t.name,
-      rps: result.requests.average,
-      p50: percentile(latencies, 50),
-      p95: percentile(latencies, 95),
-      p99: percentile(latencies, 99),
-      errors: result.errors + result.timeouts + result.non2xx,
-      requests: result.requests.total,
-    });
+  // On a shared machine the load changes from one minute to the next, so with `--rounds N` the routes
+  // take turns N times (baseline, then each route, again and again) and each ratio is read against the
+  // baseline of its own turn; the table gives the medians over the turns.
+  const turns = [];
+  for (let round = 0; round < ROUNDS; round++) {
+    const rows = [];
+    for (const t of targets) {
+      log(`turn ${round + 1}/${ROUNDS}, ${t.name}: warm-up ${WARMUP} s, then ${DURATION} s with ${CONNECTIONS} connections...`);
+      await run(t.url, t.headers, WARMUP);
+      const finishedBefore = await finishedCount(base);
+      const nodeBefore = serverCpuMs([server.pid]);
+      const pgBefore = serverCpuMs([postmasterPid()]);
+      const { result, latencies } = await run(t.url, t.headers, DURATION);
+      const nodeCpu = serverCpuMs([server.pid]) - nodeBefore;
+      const pgCpu = serverCpuMs([postmasterPid()]) - pgBefore;
+      // Divided by the answers the server finished in the window (the count request itself excluded).
+      const n = (await finishedCount(base)) - finishedBefore - 1;
+      rows.push({
+        cpuPerRequest: n ? (nodeCpu + pgCpu) / n : NaN,
+        nodePerRequest: n ? nodeCpu / n : NaN,
+        pgPerRequest: n ? pgCpu / n : NaN,
+        load: os.loadavg()[0],
+        route: t.name,
+        rps: result.requests.average,
+        p50: percentile(latencies, 50),
+        p95: percentile(latencies, 95),
+        p99: percentile(latencies, 99),
+        errors: result.errors + result.timeouts + result.non2xx,
+        requests: result.requests.total,
+      });
+    }
+    for (const r of rows) {
+      r.ratio = r.rps / rows[0].rps;
+      r.cpuRatio = rows[0].cpuPerRequest / r.cpuPerRequest;
+    }
+    turns.push(rows);
   }
-  const baseline = rows[0].rps;
+  const median = (values) => {
+    const v = [...values].sort((a, b) => a - b);
+    return v.length % 2 ? v[(v.length - 1) / 2] : (v[v.length / 2 - 1] + v[v.length / 2]) / 2;
+  };
+  const ms = (v) => Math.round(v).toLocaleString('en-GB');
   console.log('');
-  console.log(`API benchmark, ${new Date().toISOString().slice(0, 10)}, ${CONNECTIONS} connections, ${DURATION} s per route`);
-  console.log('| route | req/s | ratio to SELECT 1 | p50 ms | p95 ms | p99 ms | errors | requests |');
-  console.log('| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: |');
-  for (const r of rows) {
-    console.log(`| ${r.route} | ${r.rps.toFixed(0)} | ${(r.rps / baseline).toFixed(2)} | ${r.p50} | ${r.p95} | ${r.p99} | ${r.errors} | ${r.requests} |`);
+  console.log(
+    `API benchmark, ${new Date().toISOString().slice(0, 10)}, ${CONNECTIONS} connections, ${DURATION} s per route and turn, ${ROUNDS} turn(s), ${os.cpus().length} cores`,
+  );
+  if (ROUNDS > 1) console.log('Medians over the turns; each ratio against the SELECT 1 run of the same turn; load: range of 1-minute load averages.');
+  console.log(
+    'CPU ms/req: CPU time of the server and PostgreSQL per request the server finished in the window; CPU ratio: SELECT 1 CPU per request over the route CPU per request (the throughput ratio on an otherwise idle machine).',
+  );
+  console.log('| route | req/s | ratio to SELECT 1 | CPU ms/req (Node + PG) | CPU ratio | p50 ms | p95 ms | p99 ms | errors | requests | load |');
+  console.log('| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |');
+  targets.forEach((t, i) => {
+    const runs = turns.map((rows) => rows[i]);
+    const pick = (key) => median(runs.map((r) => r[key]));
+    const loads = runs.map((r) => r.load);
+    const load = ROUNDS > 1 ? `${Math.min(...loads).toFixed(1)}-${Math.max(...loads).toFixed(1)}` : loads[0].toFixed(1);
+    const sum = (key) => runs.reduce((n, r) => n + r[key], 0);
+    console.log(
+      `| ${t.name} | ${pick('rps').toFixed(0)} | ${pick('ratio').toFixed(2)} | ${pick('cpuPerRequest').toFixed(2)} (${pick('nodePerRequest').toFixed(2)} + ${pick('pgPerRequest').toFixed(2)}) | ${pick('cpuRatio').toFixed(2)} | ${ms(pick('p50'))} | ${ms(pick('p95'))} | ${ms(pick('p99'))} | ${sum('errors')} | ${sum('requests')} | ${load} |`,
+    );
+  });
+  if (ROUNDS > 1) {
+    console.log('');
+    console.log('Per turn (req/s, ratio; CPU per request):');
+    turns.forEach((rows, n) =>
+      console.log(`  turn ${n + 1}: ${rows.map((r) => `${r.rps.toFixed(0)} (${r.ratio.toFixed(2)}; CPU ${r.cpuPerRequest.toFixed(2)} ms)`).join(' | ')}`),
+    );
   }
 } catch (error) {
   console.error(error);

@@ -64,6 +64,13 @@ test("a parent reads their child's summary in plain words, with the plan and fam
   await expect(page.getByTestId('family-plan')).toBeVisible();
   let exercises = await page.getByTestId('family-exercise').count();
   await expect(page.getByTestId('family-earlier')).toBeVisible();
+  // Two released screens: the later one compared with the one before, in family wording (no angles, no degrees).
+  const comparison = page.getByTestId('family-comparison');
+  await expect(comparison).toBeVisible();
+  await expect(comparison).toContainText('Since the check before');
+  await expect(comparison).toContainText('not a medical diagnosis');
+  await expect(comparison).not.toContainText(/°|degree|angle|valgus/i);
+  await comparison.screenshot({ path: shots('family-comparison', testInfo.project.name) });
   // No angles or measurements anywhere on the page.
   await expect(page.getByTestId('family-view')).not.toContainText('°');
   await page.screenshot({ path: shots('family-view', testInfo.project.name), fullPage: true });

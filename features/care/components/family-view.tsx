@@ -5,7 +5,7 @@ import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
 import { useFamilyViewQuery } from '../api/get-family-view';
-import type { FamilySummary, SummaryRelease } from '../types';
+import type { FamilyComparison, FamilySummary, SummaryRelease } from '../types';
 import { formatDate } from '@/features/ui/format-date';
 
 /** A parent's page for one child: the latest released summary in plain words, the plan with how-to, family notes, earlier summaries. */
@@ -14,7 +14,7 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
   const { isWide } = useBreakpoints();
   if (query.isPending) return <Text>Loading…</Text>;
   if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
-  const { athlete, latest, earlier, notes, photos } = query.data;
+  const { athlete, latest, comparison, earlier, notes, photos } = query.data;
   return (
     <View style={styles.wrap} testID="family-view">
       <Text variant="title" accessibilityRole="header">
@@ -26,6 +26,7 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
         <View style={[styles.wrap, isWide && styles.columns]}>
           <View style={[styles.wrap, isWide && styles.column]}>
             <Summary summary={latest.summary} releasedAt={latest.releasedAt} />
+            {comparison ? <Comparison comparison={comparison} /> : null}
           </View>
           <View style={[styles.wrap, isWide && styles.column]}>
             <Plan summary={latest.summary} />
@@ -78,6 +79,23 @@ function Summary({ summary, releasedAt }: { summary: FamilySummary; releasedAt: 
           ))}
         </View>
       </Notice>
+    </Card>
+  );
+}
+
+/** The last two released checks compared, in plain words (no angles or measurements). */
+function Comparison({ comparison }: { comparison: FamilyComparison }) {
+  return (
+    <Card testID="family-comparison">
+      <Text variant="heading">Since the check before</Text>
+      <Text variant="small">
+        {formatDate(comparison.earlierScreenedOn)} and {formatDate(comparison.laterScreenedOn)}
+      </Text>
+      <View style={styles.list}>
+        {comparison.lines.map((line) => (
+          <Text key={line}>{line}</Text>
+        ))}
+      </View>
     </Card>
   );
 }

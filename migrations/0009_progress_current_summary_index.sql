@@ -1,0 +1,2 @@
+DROP INDEX "assessment_results_current_idx";--> statement-breakpoint
+CREATE INDEX "assessment_results_current_summary_idx" ON "assessment_results" USING btree ("assessment_id","created_at","maturity_band","rescreen_date") WHERE is_current;
