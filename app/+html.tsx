@@ -1,5 +1,6 @@
 import { ScrollViewStyleReset } from 'expo-router/html';
 import type { PropsWithChildren } from 'react';
+import { EARLY_REQUESTS_GLOBAL } from '@/features/api/client';
 import { colors } from '@/features/ui/theme';
 
 // The HTML frame of every pre-rendered page (web only; runs in Node at build time, never in the browser).
@@ -9,6 +10,11 @@ import { colors } from '@/features/ui/theme';
 const FALLBACK_FACES = `
 @font-face{font-family:"Squadline Bold Fallback";font-weight:400;src:local("Arial Bold"),local("Arial-BoldMT"),local("Helvetica Bold"),local("Helvetica-Bold"),local("Roboto Bold"),local("Roboto-Bold"),local("Segoe UI Bold"),local("SegoeUI-Bold"),local("Liberation Sans Bold"),local("LiberationSans-Bold"),local("DejaVu Sans Bold"),local("DejaVuSans-Bold")}
 html,body{background-color:${colors.paper}}`;
+
+// Every screen starts by asking who is signed in (`/api/me`, features/auth/api/get-me.ts). Asked here,
+// the answer travels while the JavaScript downloads instead of after it has run; the app takes it once
+// (`apiStartedEarly`). Plain ES5 so it runs in any browser; a failure leaves the app to ask again.
+const EARLY_REQUESTS = `window.${EARLY_REQUESTS_GLOBAL}={"/me":fetch("/api/me",{credentials:"include",headers:{Accept:"application/json"}}).catch(function(){return null})};`;
 
 export default function Root({ children }: PropsWithChildren) {
   return (
@@ -20,6 +26,7 @@ export default function Root({ children }: PropsWithChildren) {
         <meta name="theme-color" content={colors.pine} />
         <ScrollViewStyleReset />
         <style dangerouslySetInnerHTML={{ __html: FALLBACK_FACES }} />
+        <script dangerouslySetInnerHTML={{ __html: EARLY_REQUESTS }} />
       </head>
       <body>{children}</body>
     </html>

@@ -1,8 +1,9 @@
 import { Redirect, Slot } from 'expo-router';
+import { can } from '@/features/access/permissions';
 import { useMeQuery } from '@/features/auth/api/get-me';
 import { DeviceGate } from '@/features/offline/components/device-gate';
 import { ScreeningSync } from '@/features/screening/components/screening-sync';
-import { ActiveClubProvider } from '@/features/session/active-club';
+import { ActiveClubProvider, useActiveClub } from '@/features/session/active-club';
 import { AppShell } from '@/features/shell/components/app-shell';
 import { FullScreenMessage } from '@/features/shell/components/full-screen-message';
 
@@ -17,11 +18,17 @@ export default function ClubLayout() {
   return (
     <ActiveClubProvider me={me.data}>
       <DeviceGate>
-        <ScreeningSync />
+        <SyncForScreeners />
         <AppShell>
           <Slot />
         </AppShell>
       </DeviceGate>
     </ActiveClubProvider>
   );
+}
+
+/** Changes queued on this device are sent whatever screen is open; only people who screen queue any. */
+function SyncForScreeners() {
+  const { membership } = useActiveClub();
+  return can(membership.role, 'screening.write') ? <ScreeningSync /> : null;
 }

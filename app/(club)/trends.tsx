@@ -1,5 +1,5 @@
 import { useLocalSearchParams } from 'expo-router';
-import { LazySquadTrends } from '@/features/progress/components/lazy-squad-trends';
+import { LazySquadTrends } from '@/features/progress/components/lazy-progress';
 import { Page } from '@/features/ui/components/page';
 
 export default function TrendsScreen() {

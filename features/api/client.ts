@@ -72,10 +72,32 @@ export async function api<T>(path: string, init: RequestInit & { json?: unknown 
   } catch {
     throw new ApiError(0, 'offline', OFFLINE_MESSAGE);
   }
+  return resultOf<T>(res);
+}
+
+async function resultOf<T>(res: Response): Promise<T> {
   if (res.status === 204) return undefined as T;
   const payload = (await res.json().catch(() => null)) as ErrorPayload;
   if (!res.ok) throw toApiError(res.status, payload);
   return payload as T;
+}
+
+/** The requests each pre-rendered page starts before the app's JavaScript has loaded (app/+html.tsx). */
+export const EARLY_REQUESTS_GLOBAL = '__squadlineEarly';
+type EarlyRequests = Record<string, Promise<Response | null> | undefined>;
+
+/**
+ * `api(path)` for a GET the page already started from its HTML: the answer is used once (the first
+ * screen's), later calls go to the network. Same errors as `api`. Only where the API shares the page's
+ * origin (not under `npm run dev`).
+ */
+export async function apiStartedEarly<T>(path: string): Promise<T> {
+  const early = (globalThis as { [EARLY_REQUESTS_GLOBAL]?: EarlyRequests })[EARLY_REQUESTS_GLOBAL];
+  const started = API_BASE === '' ? early?.[path] : undefined;
+  if (!started) return api<T>(path);
+  delete early![path];
+  const res = await started;
+  return res ? resultOf<T>(res) : api<T>(path);
 }
 
 /**

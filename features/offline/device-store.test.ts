@@ -1,6 +1,7 @@
 import 'fake-indexeddb/auto';
 import { describe, expect, it } from 'vitest';
-import { deviceCache, deviceDrafts, devicePhotos, idbOutboxStorage, wipeDevice } from './device-store';
+import { DEVICE_DB_NAME as HANDLE_DB_NAME, deviceDataMayExist } from './device-handle';
+import { DEVICE_DB_NAME, deviceCache, deviceDrafts, devicePhotos, idbOutboxStorage, wipeDevice } from './device-store';
 
 // IndexedDB in Node through fake-indexeddb: the same `idb` calls the browser runs.
 describe('device store', () => {
@@ -24,5 +25,11 @@ describe('device store', () => {
     expect(await devicePhotos.all()).toEqual([]);
     expect(await deviceDrafts.all()).toEqual([]);
     expect(await deviceCache.keys()).toEqual([]);
+  });
+
+  it('is found by the light handle under the same name, so a non-screener’s sign-in still removes another person’s data', async () => {
+    expect(HANDLE_DB_NAME).toBe(DEVICE_DB_NAME);
+    await deviceCache.put({ key: 'probe', scope: 'c1', roundId: null, data: 1, savedAt: '' });
+    expect(await deviceDataMayExist()).toBe(true);
   });
 });

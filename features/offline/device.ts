@@ -1,14 +1,15 @@
 // The device's one outbox, its connectivity, the draft copies and the photos waiting to upload: the
 // singletons the screens use. Features register how each kind of change is sent (`registerSender`), so
-// this folder knows nothing of screening.
+// this folder knows nothing of screening. Loaded only through `loadDevice()` (device-handle.ts): screens
+// import the handle, never this module, so the store stays out of the chunk every page loads.
 import { ApiError } from '@/features/api/client';
 import { checkPhotoBudget, PHOTO_BUDGET_BYTES } from './budget';
-import { browserConnectivity } from './connectivity';
+import { connectivity, notifyDeviceWipe, setDeviceSession } from './device-handle';
 import { deviceDrafts, deviceMeta, devicePhotos, hasIndexedDb, idbOutboxStorage, wipeDevice, type StoredPhoto } from './device-store';
 import { JsonCopies } from './json-copies';
 import { Outbox, type OutboxEntry, type OutboxKind, type OutboxStorage } from './outbox';
 
-export const connectivity = browserConnectivity();
+export { deviceCache } from './device-store';
 
 type Sender = (entry: OutboxEntry) => Promise<void>;
 const senders = new Map<OutboxKind, Sender>();
@@ -63,17 +64,6 @@ export const draftCopies = new JsonCopies<unknown>(keep ? deviceDrafts : null);
 
 const OWNER_KEY = 'owner';
 let started: { userId: string; ready: Promise<void> } | null = null;
-let session: { userId: string; clubId: string } | null = null;
-
-/** Who is signed in and in which club: stamped on every change queued on this device. */
-export function setDeviceSession(next: { userId: string; clubId: string } | null): void {
-  session = next;
-}
-
-export function deviceSession(): { userId: string; clubId: string } {
-  if (!session) throw new Error('No one is signed in on this device.');
-  return session;
-}
 
 /**
  * Opens the device's store for the signed-in person. If the data on the device belongs to someone
@@ -102,19 +92,12 @@ export function startDevice(userId: string): Promise<void> {
   return ready;
 }
 
-const wipeListeners = new Set<() => void>();
-/** Features drop what they hold in memory when the device is wiped. */
-export function onDeviceWipe(listener: () => void): () => void {
-  wipeListeners.add(listener);
-  return () => wipeListeners.delete(listener);
-}
-
 /** Everything kept on the device is removed (sign-out). */
 export async function wipeOnSignOut(): Promise<void> {
-  wipeListeners.forEach((l) => l());
+  notifyDeviceWipe();
   outbox.setUser(null);
   outbox.reset();
-  session = null;
+  setDeviceSession(null);
   forgetLegacyCopies();
   draftCopies.clear();
   photoUrls.forEach((url) => URL.revokeObjectURL?.(url));

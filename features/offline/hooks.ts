@@ -1,14 +1,8 @@
-import { useEffect, useState, useSyncExternalStore } from 'react';
-import { connectivity, outbox, photoBytesOnDevice } from './device';
+import { useEffect, useState } from 'react';
+import { loadedDevice, useOnline, useOutboxState } from './device-handle';
 import { syncStatusOf, type SyncStatus } from './sync-status';
 
-export function useOnline(): boolean {
-  return useSyncExternalStore(connectivity.subscribe, connectivity.isOnline, connectivity.isOnline);
-}
-
-export function useOutboxState() {
-  return useSyncExternalStore(outbox.subscribe, outbox.getState, outbox.getState);
-}
+export { useOnline, useOutboxState };
 
 /** Online, offline with N waiting, syncing, or all saved. */
 export function useSyncStatus(): SyncStatus {
@@ -23,7 +17,10 @@ export function usePhotoBytesOnDevice(): number {
   const [bytes, setBytes] = useState(0);
   useEffect(() => {
     let live = true;
-    void photoBytesOnDevice()
+    const device = loadedDevice();
+    if (!device) return;
+    void device
+      .photoBytesOnDevice()
       .then((b) => live && setBytes(b))
       .catch(() => undefined);
     return () => {

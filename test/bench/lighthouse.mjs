@@ -134,7 +134,18 @@ process.on('exit', stopBaseline);
 process.on('SIGINT', () => process.exit(130));
 
 const flags = '--headless --no-sandbox --disable-gpu --disable-quic --no-first-run --disable-background-networking --disable-component-update --disable-sync';
+// Lighthouse sometimes loses its trace on a loaded machine (NO_NAVSTART and the like): try once more
+// before giving up, so one bad recording does not end a session of many runs.
 function lighthouse(url, cookie, label) {
+  try {
+    return lighthouseOnce(url, cookie, label);
+  } catch (error) {
+    console.warn(`    ${label}: ${error instanceof Error ? error.message.split('\n')[0] : error}; running it again`);
+    return lighthouseOnce(url, cookie, label);
+  }
+}
+
+function lighthouseOnce(url, cookie, label) {
   const out = path.join(toolDir, `report-${label}.json`);
   const argv = [cli, url, '--only-categories=performance', '--output=json', `--output-path=${out}`, `--chrome-flags=${flags}`, '--quiet'];
   if (cookie) argv.push(`--extra-headers=${JSON.stringify({ Cookie: cookie })}`);

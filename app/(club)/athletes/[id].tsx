@@ -1,7 +1,7 @@
 import { useLocalSearchParams } from 'expo-router';
 import { AthleteProfile } from '@/features/athletes/components/athlete-profile';
 import { AthleteRecords } from '@/features/athletes/components/athlete-records';
-import { LazyAthleteProgress } from '@/features/progress/components/lazy-athlete-progress';
+import { LazyAthleteProgress } from '@/features/progress/components/lazy-progress';
 import { AthleteCare } from '@/features/care/components/athlete-care';
 import { AthleteAssessments } from '@/features/screening/components/athlete-assessments';
 import { Page } from '@/features/ui/components/page';

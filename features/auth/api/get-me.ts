@@ -1,5 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api, ApiError } from '@/features/api/client';
+import { can } from '@/features/access/permissions';
+import { apiStartedEarly, ApiError } from '@/features/api/client';
 import { deviceBacked } from '@/features/offline/device-cache';
 import type { Me } from '@/features/auth/contract';
 import { authKeys } from './keys';
@@ -8,21 +9,27 @@ export type { Me, Membership } from '@/features/auth/contract';
 
 export const ME_STALE_MS = 5 * 60 * 1000;
 
-/** null when signed out (the server said 401). */
+/** null when signed out (the server said 401). The first call takes the answer the page asked for from its HTML. */
 export async function getMe(): Promise<Me | null> {
   try {
-    return await api<Me>('/me');
+    return await apiStartedEarly<Me>('/me');
   } catch (error) {
     if (error instanceof ApiError && error.status === 401) return null;
     throw error;
   }
 }
 
-/** Kept on the device (until sign-out) so the app opens with no connection for work kept there. */
+/** Whether someone screens in one of their clubs: only they keep anything on the device. */
+const screensSomewhere = (me: Me) => me.memberships.some((m) => can(m.role, 'screening.write'));
+
+/**
+ * Kept on the device (until sign-out) for people who screen, so the app opens with no connection for
+ * work kept there. Signed out (the sign-in page) nothing is written, so the device store is not loaded.
+ */
 export const meQueryOptions = () =>
   queryOptions({
     queryKey: authKeys.me(),
-    queryFn: () => deviceBacked('auth.me', 'me', getMe, (me) => (me ? { roundId: null } : null)),
+    queryFn: () => deviceBacked('auth.me', 'me', getMe, (me) => (me && screensSomewhere(me) ? { roundId: null } : null)),
     staleTime: ME_STALE_MS,
     retry: 1,
   });

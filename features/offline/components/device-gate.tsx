@@ -1,24 +1,35 @@
 import { useEffect, useState, type ReactNode } from 'react';
+import { can } from '@/features/access/permissions';
 import { useActiveClub } from '@/features/session/active-club';
-import { setDeviceSession, startDevice } from '../device';
+import { deviceDataMayExist, setDeviceSession, startDevice } from '../device-handle';
 
 /**
- * Opens the device's store for the signed-in person before the screens render, so a draft kept on the
- * device is read before the screen seeds its working copy from the server (nothing typed is lost).
+ * Opens the device's store for the signed-in person. For people who screen, before the screens render,
+ * so a draft kept on the device is read before the screen seeds its working copy from the server
+ * (nothing typed is lost). People who do not screen keep nothing: their screens render at once, and
+ * the store is loaded only when this browser holds someone's device data (it is removed then, see
+ * `startDevice`).
  */
 export function DeviceGate({ children }: { children: ReactNode }) {
   const { me, membership } = useActiveClub();
   const userId = me.user.id;
+  const screens = can(membership.role, 'screening.write');
   setDeviceSession({ userId, clubId: membership.clubId });
+  const key = `${userId}:${screens}`;
   const [readyFor, setReadyFor] = useState<string | null>(null);
   useEffect(() => {
     let live = true;
-    void startDevice(userId).finally(() => live && setReadyFor(userId));
+    const open = async () => {
+      if (screens || (await deviceDataMayExist())) await startDevice(userId);
+    };
+    void open()
+      .catch(() => undefined)
+      .finally(() => live && setReadyFor(key));
     return () => {
       live = false;
     };
-  }, [userId]);
-  // Reading the device takes a few milliseconds: nothing to show meanwhile.
-  if (readyFor !== userId) return null;
+  }, [key, userId, screens]);
+  // Loading and reading the device takes a moment: nothing to show meanwhile for those who screen.
+  if (screens && readyFor !== key) return null;
   return <>{children}</>;
 }

@@ -4,8 +4,8 @@ import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { space } from '@/features/ui/theme';
-import { wipeOnSignOut } from '../device';
-import { useOutboxState } from '../hooks';
+import { wipeOnSignOut } from '../device-handle';
+import { useOutboxState } from '../device-handle';
 
 /**
  * The sign-out button of the shell. With changes still waiting on this phone it warns first: signing

@@ -4,7 +4,7 @@ import { Button } from '@/features/ui/components/button';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { budgetText } from '../budget';
-import { outbox } from '../device';
+import { outbox } from '../device-handle';
 import { useOutboxState, usePhotoBytesOnDevice, useSyncStatus } from '../hooks';
 import type { OutboxKind } from '../outbox';
 import { syncStatusDetail, syncStatusText, type SyncStatus } from '../sync-status';

@@ -1,5 +1,5 @@
 import { api } from '@/features/api/client';
-import { deviceSession, outbox } from '@/features/offline/device';
+import { deviceSession, outbox } from '@/features/offline/device-handle';
 import type { ResultView } from '@/features/screening/contract';
 import { sentFromDevice } from './save-draft';
 

@@ -1,10 +1,10 @@
 import { AthleteClearanceBadge } from '@/features/care/components/clearance-badge';
 import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
-import { useState, useSyncExternalStore } from 'react';
+import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useSetRoundClosedMutation } from '@/features/screening/api/close-round';
-import { outbox } from '@/features/offline/device';
+import { useOutboxState } from '@/features/offline/device-handle';
 import { useRoundQuery } from '@/features/screening/api/get-round';
 import { useKeepRoundOnDevice } from '@/features/screening/hooks/use-keep-round';
 import { useActiveClub } from '@/features/session/active-club';
@@ -87,7 +87,7 @@ export function RoundScreen({ id }: { id: string }) {
   usePageTitle(round.data ? round.data.round.name : 'Round');
   useKeepRoundOnDevice(round.data);
   // Submits made on this phone and not sent yet: the athlete is done here, the server has not heard.
-  const queue = useSyncExternalStore(outbox.subscribe, outbox.getState, outbox.getState);
+  const queue = useOutboxState();
   const waitingSubmit = new Set(queue.entries.filter((e) => e.kind === 'submit').map((e) => e.assessmentId));
   if (round.isPending) return <Text>Loading the round…</Text>;
   if (round.error) return <Notice tone="error">{round.error.message}</Notice>;

@@ -1,7 +1,7 @@
 // One store per assessment for the life of the page, so moving between steps and screens never drops an
 // edit. Integration point with features/offline: the device's copy lives in its store (IndexedDB) and a
 // save is an outbox entry, sent by draft-sync.ts (registered in hooks/use-screening-sync.ts).
-import { deviceSession, draftCopies, onDeviceWipe, outbox } from '@/features/offline/device';
+import { deviceSession, draftCopies, onDeviceWipe, outbox } from '@/features/offline/device-handle';
 import { DraftStore } from './draft-store';
 import { asLocalCopy, type LocalCopyStorage } from './local-copy';
 

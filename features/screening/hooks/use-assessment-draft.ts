@@ -1,5 +1,5 @@
 import { useCallback, useEffect, useMemo, useSyncExternalStore } from 'react';
-import { connectivity, outbox } from '@/features/offline/device';
+import { useOnline, useOutboxState } from '@/features/offline/device-handle';
 import type { OutboxState } from '@/features/offline/outbox';
 import type { AssessmentDetail, AssessmentDraft } from '@/features/screening/contract';
 import type { SaveStatus } from '@/features/screening/draft/draft-store';
@@ -26,8 +26,8 @@ export function useAssessmentDraft(detail: AssessmentDetail | undefined, assessm
   const store = draftStoreFor(assessmentId);
   if (detail && !store.isReady) store.init({ draft: detail.draft, draftVersion: detail.draftVersion });
   const snapshot = useSyncExternalStore(store.subscribe, store.getSnapshot, store.getSnapshot);
-  const queue = useSyncExternalStore(outbox.subscribe, outbox.getState, outbox.getState);
-  const online = useSyncExternalStore(connectivity.subscribe, connectivity.isOnline, connectivity.isOnline);
+  const queue = useOutboxState();
+  const online = useOnline();
 
   useEffect(() => {
     const doc = globalThis.document;

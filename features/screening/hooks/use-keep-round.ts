@@ -1,6 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
-import { connectivity } from '@/features/offline/device';
+import { connectivity } from '@/features/offline/device-handle';
 import { assessmentQueryOptions } from '@/features/screening/api/get-assessment';
 import type { RoundDetail } from '@/features/screening/contract';
 import { can } from '@/features/access/permissions';

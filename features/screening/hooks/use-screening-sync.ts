@@ -5,7 +5,7 @@ import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
 import { ApiError } from '@/features/api/client';
 import { updateKept } from '@/features/offline/device-cache';
-import { forgetPhoto, outbox, photoBlob, registerSender } from '@/features/offline/device';
+import { forgetPhoto, outbox, photoBlob, registerSender } from '@/features/offline/device-handle';
 import type { OutboxEntry } from '@/features/offline/outbox';
 import { getAssessment } from '@/features/screening/api/get-assessment';
 import { assessmentKeptKey, roundKeptKey, screeningKeys } from '@/features/screening/api/keys';

@@ -1,5 +1,10 @@
-import { deviceSession, forgetPhoto, keepPhoto, outbox, photoUrl } from '@/features/offline/device';
+import { deviceSession, forgetPhoto, keepPhoto, lateBound, outbox, photoUrl } from '@/features/offline/device-handle';
 import { UploadQueue } from './upload-queue';
 
-/** The page's one view of the photos waiting on the device; uploads continue between steps and reloads. */
-export const uploadQueue = new UploadQueue({ outbox, keepPhoto, forgetPhoto, photoUrl, session: deviceSession });
+let queue: UploadQueue | null = null;
+
+/**
+ * The page's one view of the photos waiting on the device; uploads continue between steps and reloads.
+ * Made on first use (the outbox it watches exists once the device store has loaded, see DeviceGate).
+ */
+export const uploadQueue: UploadQueue = lateBound(() => (queue ??= new UploadQueue({ outbox, keepPhoto, forgetPhoto, photoUrl, session: deviceSession })));

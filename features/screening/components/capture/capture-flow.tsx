@@ -6,7 +6,7 @@ import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'reac
 import { ScrollView, StyleSheet, View } from 'react-native';
 import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
 import { screeningKeys } from '@/features/screening/api/keys';
-import { connectivity, outbox } from '@/features/offline/device';
+import { connectivity, outbox } from '@/features/offline/device-handle';
 import { queueSubmit } from '@/features/screening/api/submit-assessment';
 import { queueDraftSave } from '@/features/screening/draft/registry';
 import type { AssessmentDetail, LandmarkSet, PhotoView, TaskDraft } from '@/features/screening/contract';
