@@ -74,6 +74,11 @@ async function seedClub() {
     insert into users (email, display_name, password_hash)
     select 'reset-' || t || '-' || g || '@bench.test', 'Reset ' || g, (select password_hash from users where email = 'tester@squadline.test')
     from unnest(array['one', 'many']) t, generate_series(1, 10) g`);
+  // The sign-in runs: one account per server, so that each counts its own sessions.
+  await db.query(`
+    insert into users (email, display_name, password_hash)
+    select 'signin-' || t || '@bench.test', 'Sign-in ' || t, (select password_hash from users where email = 'tester@squadline.test')
+    from unnest(array['one', 'many']) t`);
   const [n] = await db.query(`select count(*)::int as n from athletes a join clubs c on c.id = a.club_id where c.name = 'Bench Racket Club'`);
   check(n.n === ATHLETES, `seeded a club of ${n.n} athletes in ${SQUADS} squads`);
 }
@@ -205,14 +210,16 @@ function multipartBody(photo) {
   return { body, contentType: `multipart/form-data; boundary=${b}` };
 }
 
-/** All runs against one server; returns the figures and checks every write was kept. */
-async function suite(server, label) {
-  log(`--- ${label}: ${CONNECTIONS} connections, ${DURATION} s per route ---`);
+/**
+ * One server's side of the runs: its rounds, its routes (as autocannon options) and, after the runs,
+ * the count of what it wrote against what it acknowledged.
+ */
+async function prepare(server, label, tag) {
   const coach = await client(server.base, 'coach@bench.test');
   const squads = (await coach.call('GET', '/api/squads')).body.squads;
   const athletes = (await coach.call('GET', `/api/squads/${squads[0].id}/athletes`)).body;
   const athleteIds = (athletes.athletes ?? athletes).map((a) => a.id);
-  // Fresh rounds for this suite: draft saves on one squad, photos on another.
+  // Fresh rounds for this server: draft saves on one squad, photos on another.
   const round = async (squadId) => {
     const r = await coach.call('POST', '/api/rounds', { json: { squadId, name: `Bench ${label}`, screenedOn: '2026-11-20' } });
     if (r.status !== 201) throw new Error(`round: ${r.status} ${JSON.stringify(r.body)}`);
@@ -221,104 +228,109 @@ async function suite(server, label) {
   const draftIds = await round(squads[1].id);
   const photoIds = await round(squads[2].id);
   const headers = { Cookie: coach.cookie };
-  const results = [];
-
-  results.push(await run('bare route (baseline)', server.base, { requests: [{ method: 'GET', path: '/bench/bare' }] }));
-  const peakBare = await server.peakMemory();
-  const [sessionsBefore] = await db.query('select count(*)::int as n from sessions');
+  const upload = multipartBody(await jpeg());
   // Each connection is one phone with its own address, as behind a load balancer that sets
   // X-Forwarded-For (trusted from loopback only): 50 sign-ins at once from one address would be held
   // back by the per-address limit, which counts attempts until they succeed.
   let phone = 0;
-  const signIn = await run('sign-in', server.base, {
-    requests: [
-      {
-        method: 'POST',
-        path: '/api/auth/sign-in',
-        body: JSON.stringify({ email: 'coach@bench.test', password: 'squadline-demo' }),
-        setupRequest(req, context) {
-          context.address ??= `10.${label.length}.${Math.floor(phone / 250)}.${(phone++ % 250) + 1}`;
-          return { ...req, headers: { 'Content-Type': 'application/json', 'X-Forwarded-For': context.address } };
-        },
-      },
-    ],
-  });
-  results.push(signIn);
-  results.push(await run('squad list (100 athletes)', server.base, { requests: [{ method: 'GET', path: `/api/squads/${squads[0].id}/athletes`, headers }] }));
   let h = 0;
-  results.push(
-    await run('athlete history', server.base, {
-      requests: [{ method: 'GET', headers, setupRequest: (req) => ({ ...req, path: `/api/athletes/${athleteIds[h++ % athleteIds.length]}/assessments` }) }],
-    }),
-  );
+  let p = 0;
   // Each save takes an assessment nobody else is saving and follows its version, as a tester's phone
   // does; the answer hands it back with the new version. (autocannon resets a connection's context
   // after each request, so the free list lives here.) 100 assessments for 50 connections: never empty.
   const free = draftIds.map((id) => ({ id, version: 0 }));
   const acknowledged = new Map();
-  const drafts = await run('draft save', server.base, {
-    requests: [
-      {
-        method: 'PUT',
-        headers: { ...headers, 'Content-Type': 'application/json' },
-        setupRequest(req, context) {
-          const a = free.shift();
-          context.assessment = a;
-          const body = { draftVersion: a.version, draft: { body: { statureCm: 150 }, tasks: { 'two-leg-squat': { criteria: [], notes: `v${a.version}` } } } };
-          return { ...req, path: `/api/assessments/${a.id}`, body: JSON.stringify(body) };
+  const routes = [
+    { name: 'bare route (baseline)', requests: [{ method: 'GET', path: '/bench/bare' }] },
+    {
+      name: 'sign-in',
+      requests: [
+        {
+          method: 'POST',
+          path: '/api/auth/sign-in',
+          body: JSON.stringify({ email: `signin-${tag}@bench.test`, password: 'squadline-demo' }),
+          setupRequest(req, context) {
+            context.address ??= `10.${label.length}.${Math.floor(phone / 250)}.${(phone++ % 250) + 1}`;
+            return { ...req, headers: { 'Content-Type': 'application/json', 'X-Forwarded-For': context.address } };
+          },
         },
-        onResponse(statusCode, body, context) {
-          const a = context.assessment;
-          if (statusCode === 200) {
-            a.version = JSON.parse(body).draftVersion;
-            acknowledged.set(a.id, (acknowledged.get(a.id) ?? 0) + 1);
-          }
-          free.push(a);
+      ],
+    },
+    { name: 'squad list (100 athletes)', requests: [{ method: 'GET', path: `/api/squads/${squads[0].id}/athletes`, headers }] },
+    {
+      name: 'athlete history',
+      requests: [{ method: 'GET', headers, setupRequest: (req) => ({ ...req, path: `/api/athletes/${athleteIds[h++ % athleteIds.length]}/assessments` }) }],
+    },
+    {
+      name: 'draft save',
+      requests: [
+        {
+          method: 'PUT',
+          headers: { ...headers, 'Content-Type': 'application/json' },
+          setupRequest(req, context) {
+            const a = free.shift();
+            context.assessment = a;
+            const body = { draftVersion: a.version, draft: { body: { statureCm: 150 }, tasks: { 'two-leg-squat': { criteria: [], notes: `v${a.version}` } } } };
+            return { ...req, path: `/api/assessments/${a.id}`, body: JSON.stringify(body) };
+          },
+          onResponse(statusCode, body, context) {
+            const a = context.assessment;
+            if (statusCode === 200) {
+              a.version = JSON.parse(body).draftVersion;
+              acknowledged.set(a.id, (acknowledged.get(a.id) ?? 0) + 1);
+            }
+            free.push(a);
+          },
         },
-      },
-    ],
-  });
-  results.push(drafts);
-  const upload = multipartBody(await jpeg());
-  let p = 0;
-  const photos = await run('photo upload (1200x1600 JPEG)', server.base, {
-    requests: [
-      {
-        method: 'POST',
-        headers: { ...headers, 'Content-Type': upload.contentType },
-        body: upload.body,
-        setupRequest: (req) => ({ ...req, path: `/api/assessments/${photoIds[p++ % photoIds.length]}/photos` }),
-      },
-    ],
-  });
-  results.push(photos);
-  const peakAll = await server.peakMemory();
-  const bare = results[0];
-  process.stdout.write(`\n${table(results, bare, peakBare, peakAll)}\n\n`);
+      ],
+    },
+    {
+      name: 'photo upload (1200x1600 JPEG)',
+      requests: [
+        {
+          method: 'POST',
+          headers: { ...headers, 'Content-Type': upload.contentType },
+          body: upload.body,
+          setupRequest: (req) => ({ ...req, path: `/api/assessments/${photoIds[p++ % photoIds.length]}/photos` }),
+        },
+      ],
+    },
+  ];
+  const [sessionsBefore] = await db.query('select count(*)::int as n from sessions s join users u on u.id = s.user_id where u.email = $1', [
+    `signin-${tag}@bench.test`,
+  ]);
 
-  // Count what was written against what was acknowledged. A run ends with up to one request per
-  // connection in flight: the server completes it, the benchmark no longer listens. So each count may
-  // exceed the acknowledged one by at most those, never fall short (a lost write) or exceed them (a
-  // doubled one).
-  await sleep(3000); // let the requests in flight at the end finish
-  const rows = await db.query('select id, draft_version as v from assessments where id = any($1)', [draftIds]);
-  const wrong = rows.filter((r) => r.v - (acknowledged.get(r.id) ?? 0) < 0 || r.v - (acknowledged.get(r.id) ?? 0) > 1);
-  const inFlight = rows.reduce((n, r) => n + r.v - (acknowledged.get(r.id) ?? 0), 0);
-  soft(
-    wrong.length === 0,
-    `draft saves: ${drafts.ok} acknowledged, none lost, none doubled (${inFlight} more were in flight when the run stopped and completed; ${wrong.length} assessments off)`,
-  );
-  const [photoRows] = await db.query('select count(*)::int as n from photos where assessment_id = any($1)', [photoIds]);
-  soft(
-    photoRows.n >= photos.ok && photoRows.n <= photos.ok + CONNECTIONS,
-    `photo uploads: ${photos.ok} acknowledged, ${photoRows.n} stored (the difference was in flight at the end)`,
-  );
-  const [sessionsAfter] = await db.query('select count(*)::int as n from sessions');
-  const sessions = sessionsAfter.n - sessionsBefore.n;
-  soft(sessions >= signIn.ok && sessions <= signIn.ok + CONNECTIONS, `sign-ins: ${signIn.ok} acknowledged, ${sessions} sessions stored`);
-  const errors = results.reduce((n, r) => n + r.errors, 0);
-  soft(errors === 0, `zero errors across the runs (${JSON.stringify(results.map((r) => [r.name, r.statuses, r.detail]))})`);
-  return results;
+  /**
+   * Count what was written against what was acknowledged. A run ends with up to one request per
+   * connection in flight, and a request the client gave up on (timeout) still completes on the
+   * server: those may add to each count, never take from it (a lost write) nor add more (a doubled one).
+   */
+  async function verify(results) {
+    const [, signIn, , , drafts, photos] = results;
+    await sleep(3000); // let the requests in flight at the end finish
+    const rows = await db.query('select id, draft_version as v from assessments where id = any($1)', [draftIds]);
+    const wrong = rows.filter((r) => r.v - (acknowledged.get(r.id) ?? 0) < 0 || r.v - (acknowledged.get(r.id) ?? 0) > 1 + drafts.detail.timeouts);
+    const inFlight = rows.reduce((n, r) => n + r.v - (acknowledged.get(r.id) ?? 0), 0);
+    soft(
+      wrong.length === 0 && inFlight <= CONNECTIONS + drafts.detail.timeouts,
+      `${label}: draft saves: ${drafts.ok} acknowledged, none lost, none doubled (${inFlight} more completed after the client stopped waiting; ${wrong.length} assessments off)`,
+    );
+    const [photoRows] = await db.query('select count(*)::int as n from photos where assessment_id = any($1)', [photoIds]);
+    soft(
+      photoRows.n >= photos.ok && photoRows.n <= photos.ok + CONNECTIONS + photos.detail.timeouts,
+      `${label}: photo uploads: ${photos.ok} acknowledged, ${photoRows.n} stored (the difference completed after the client stopped waiting)`,
+    );
+    // Sessions of this side's sign-in account (each side signs in to its own).
+    const [sessionsAfter] = await db.query('select count(*)::int as n from sessions s join users u on u.id = s.user_id where u.email = $1', [
+      `signin-${tag}@bench.test`,
+    ]);
+    const sessions = sessionsAfter.n - sessionsBefore.n;
+    soft(
+      sessions >= signIn.ok && sessions <= signIn.ok + CONNECTIONS + signIn.detail.timeouts,
+      `${label}: sign-ins: ${signIn.ok} acknowledged, ${sessions} sessions stored`,
+    );
+  }
+  return { server, label, routes, verify };
 }
 
 /** Which process answered (the bench server's header). */
@@ -420,20 +432,38 @@ try {
   const smtpPort = await freePort();
   await startSmtp(smtpPort, inbox);
   const env = { DATABASE_URL: db.url, LOCAL_UPLOADS_DIR: path.join(work, 'uploads'), SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, MAIL_RETRY_DELAY_SECONDS: '1' };
-  const one = await startBenchServer(1, env);
-  const single = await suite(one, '1 process');
-  const singleChecks = await crossChecks(one, inbox, 'one', 1);
-  await one.stop();
+  // Both servers run side by side and each route is driven on one, then on the other, so that a
+  // change in the machine's load (it is shared) falls on both alike.
+  const sides = [await prepare(await startBenchServer(1, env), '1 process', 'one')];
+  if (PROCESSES > 1) sides.push(await prepare(await startBenchServer(PROCESSES, env), `${PROCESSES} processes`, 'many'));
+  log(`--- ${CONNECTIONS} connections, ${DURATION} s per route and server; load average ${loadNow()} ---`);
+  const results = sides.map(() => []);
+  const peakBare = [];
+  for (let r = 0; r < sides[0].routes.length; r++) {
+    for (let i = 0; i < sides.length; i++) {
+      const { name, requests } = sides[i].routes[r];
+      results[i].push(await run(name, sides[i].server.base, { requests }));
+      log(`   ${sides[i].label}, ${name}: ${results[i][r].rps.toFixed(0)} req/s (load average ${loadNow()})`);
+      if (r === 0) peakBare[i] = await sides[i].server.peakMemory();
+    }
+  }
+  for (let i = 0; i < sides.length; i++) {
+    process.stdout.write(`\n${sides[i].label}:\n\n${table(results[i], results[i][0], peakBare[i], await sides[i].server.peakMemory())}\n\n`);
+    await sides[i].verify(results[i]);
+    const errors = results[i].reduce((n, x) => n + x.errors, 0);
+    soft(errors === 0, `${sides[i].label}: zero errors (${JSON.stringify(results[i].map((x) => [x.name, x.statuses, x.detail]))})`);
+  }
+  const singleChecks = await crossChecks(sides[0].server, inbox, 'one', 1);
+  await sides[0].server.stop();
   if (PROCESSES > 1) {
-    const many = await startBenchServer(PROCESSES, env);
-    const multi = await suite(many, `${PROCESSES} processes`);
-    const multiChecks = await crossChecks(many, inbox, 'many', PROCESSES);
+    const multiChecks = await crossChecks(sides[1].server, inbox, 'many', PROCESSES);
     soft(
       multiChecks.limitedAt === singleChecks.limitedAt,
       `rate limits: refused at the same attempt with ${PROCESSES} processes as with one (${multiChecks.limitedAt} and ${singleChecks.limitedAt})`,
     );
-    await many.stop();
-    process.stdout.write(`\nthroughput with ${PROCESSES} processes against 1 (same run):\n`);
+    await sides[1].server.stop();
+    const [single, multi] = results;
+    process.stdout.write(`\nthroughput with ${PROCESSES} processes against 1 (same run, routes interleaved):\n`);
     for (let i = 0; i < single.length; i++) {
       process.stdout.write(
         `  ${multi[i].name}: ${multi[i].rps.toFixed(0)} vs ${single[i].rps.toFixed(0)} req/s (x${(multi[i].rps / single[i].rps).toFixed(2)}), p95 ${Math.round(multi[i].p95)} vs ${Math.round(single[i].p95)} ms\n`,
