@@ -167,7 +167,8 @@ async function run(name, base, options) {
     p50: percentile(latencies, 50),
     p95: percentile(latencies, 95),
     p99: percentile(latencies, 99),
-    errors: result.errors + result.timeouts + result.non2xx,
+    // autocannon counts a timeout among its errors too: not added twice.
+    errors: result.errors + result.non2xx,
     detail: { errors: result.errors, timeouts: result.timeouts, non2xx: result.non2xx },
     ok,
     statuses,
