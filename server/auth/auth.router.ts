@@ -30,7 +30,12 @@ export function authRouter(service: AuthService, auth: Auth) {
 
   router.post('/sign-in', publicRoute(), validateBody(signInSchema), async (req, res) => {
     const { email, password } = req.body as SignInInput;
-    const { user, token } = await service.signIn(email, password, { address: address(req), previousSessionId: req.sessionId });
+    // Fires when the connection closes before the answer is sent (a client that timed out or left).
+    const gone = new AbortController();
+    res.on('close', () => {
+      if (!res.writableFinished) gone.abort();
+    });
+    const { user, token } = await service.signIn(email, password, { address: address(req), previousSessionId: req.sessionId, signal: gone.signal });
     setSessionCookie(res, auth, token);
     res.json({ user: { id: user.id, email: user.email, displayName: user.displayName } } satisfies SignInResponse);
   });

@@ -32,14 +32,14 @@ export function createAuthService({ db, auth, outbox, limits = DEFAULT_AUTH_LIMI
    * same way and verify against a decoy hash, so neither the answer nor its timing tells whether an
    * account exists. `previousSessionId`: the session this browser had, ended (the id rotates).
    */
-  async function signIn(email: string, password: string, context: { address: string; previousSessionId?: string }) {
+  async function signIn(email: string, password: string, context: { address: string; previousSessionId?: string; signal?: AbortSignal }) {
     const accountKey = `sign-in:account:${keyPart(email)}`;
     const addressKey = `sign-in:address:${keyPart(context.address)}`;
     if ((await limiter.over(accountKey, limits.signInPerAccount)) || (await limiter.over(addressKey, limits.signInPerAddress))) {
       throw tooManyRequests(TOO_MANY);
     }
     const [user] = await db.select().from(users).where(eq(users.email, email));
-    const ok = user?.passwordHash ? await verifyPassword(user.passwordHash, password) : (await verifyDecoy(password), false);
+    const ok = user?.passwordHash ? await verifyPassword(user.passwordHash, password, context.signal) : (await verifyDecoy(password, context.signal), false);
     if (!ok || !user) {
       await limiter.hit(accountKey, limits.signInPerAccount);
       await limiter.hit(addressKey, limits.signInPerAddress);

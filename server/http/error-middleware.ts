@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler } from 'express';
 import { MulterError } from 'multer';
 import type { ApiErrorBody } from '@/features/api/contract';
+import { POOL_WAIT_MESSAGE } from '@/db/client';
 import { AppError } from './errors';
 
 const MULTER_MESSAGES: Partial<Record<MulterError['code'], string>> = {
@@ -16,7 +17,7 @@ const MULTER_MESSAGES: Partial<Record<MulterError['code'], string>> = {
 /** Socket-level failures reaching PostgreSQL, and PostgreSQL refusing work while it stops or starts. */
 const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ETIMEDOUT', 'ENOTFOUND', 'EHOSTUNREACH', '57P01', '57P02', '57P03']);
 const DB_DOWN_MESSAGES =
-  /Connection terminated|connection timeout|timeout exceeded when trying to connect|Client has encountered a connection error|Connection ended|the database system is (starting up|shutting down)/i;
+  /Connection terminated|connection timeout|timeout expired|Client has encountered a connection error|Connection ended|the database system is (starting up|shutting down)/i;
 
 /** The error and its causes (drizzle wraps the driver's error in `cause`). */
 function chain(error: unknown): { code?: unknown; message?: unknown }[] {
@@ -34,6 +35,15 @@ export function isDatabaseUnavailable(error: unknown): boolean {
   return chain(error).some(
     (e) => (typeof e.code === 'string' && DB_DOWN_CODES.has(e.code)) || (typeof e.message === 'string' && DB_DOWN_MESSAGES.test(e.message)),
   );
+}
+
+/**
+ * True when every connection of the pool stayed in use by other requests for the whole wait
+ * (`POOL_WAIT_MS`): the server is busy, the database is up. Not "database down": opening a connection
+ * has its own, shorter timeout, and a stopped database refuses at once (see `db/client.ts`).
+ */
+export function isPoolBusy(error: unknown): boolean {
+  return chain(error).some((e) => e.message === POOL_WAIT_MESSAGE);
 }
 
 /**
@@ -71,6 +81,14 @@ export const errorMiddleware: ErrorRequestHandler = (error, req, res, _next) => 
         message: MULTER_MESSAGES[error.code] ?? 'The upload could not be read. Choose the file again.',
         ...(error.field ? { fields: { [error.field]: MULTER_MESSAGES[error.code] ?? error.message } } : {}),
       },
+    });
+    return;
+  }
+  if (isPoolBusy(error)) {
+    req.log?.warn('database pool busy: no free connection within the wait');
+    res.setHeader('Retry-After', '2');
+    res.status(503).json({
+      error: { code: 'busy', message: 'Squadline is very busy right now. Nothing was saved by this request: try again in a moment.' },
     });
     return;
   }

@@ -16,8 +16,8 @@ export function metaRouter(db: Db, mailbox: Mailbox | null) {
   const service = metaService(db, mailbox);
 
   router.get('/health', publicRoute(), async (req, res) => {
-    const up = await service.databaseUp(req.log);
-    res.status(up ? 200 : 503).json({ ok: up, db: up ? 'up' : 'down' });
+    const db = await service.databaseState(req.log);
+    res.status(db === 'down' ? 503 : 200).json({ ok: db !== 'down', db });
   });
 
   router.get('/meta', publicRoute(), (_req, res) => {
