@@ -1,3 +1,4 @@
+import { CLEARANCE_LABELS } from '@/features/care/schemas';
 import { Link } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { PatternId } from '@/features/screening/engine';
@@ -5,6 +6,12 @@ import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space } from '@/features/ui/theme';
 import { BAND_LABELS, BAND_SHORT, PATTERN_SHORT } from '../labels';
 import type { SortKey, TrendAthlete } from '../trends';
+
+/** The clearance in the physiotherapist's words ("Train with changes"), not its stored code. */
+function clearanceText(value: string | null): string | null {
+  if (value === null) return null;
+  return (CLEARANCE_LABELS as Record<string, string>)[value] ?? value;
+}
 
 const list = (p: PatternId[]) => (p.length ? p.map((x) => PATTERN_SHORT[x]).join(', ') : '–');
 
@@ -16,7 +23,7 @@ const COLUMNS: Col[] = [
   { key: 'flags', label: 'Flags left', flex: 1.2, cell: (a) => list(a.latestFlags.left) },
   { key: null, label: 'Flags right', flex: 1.2, cell: (a) => list(a.latestFlags.right) },
   { key: null, label: 'Other flags', flex: 1.2, cell: (a) => list([...a.latestFlags.both, ...a.latestFlags.unsided]) },
-  { key: 'clearance', label: 'Clearance', flex: 1.1, cell: (a) => a.clearance ?? '–' },
+  { key: 'clearance', label: 'Clearance', flex: 1.1, cell: (a) => clearanceText(a.clearance) ?? '–' },
   {
     key: 'daysSinceLastScreen',
     label: 'Last screen',
@@ -97,7 +104,7 @@ export function TrendsCards({ rows }: { rows: TrendAthlete[] }) {
             </Text>
           </View>
           <Text variant="small">
-            {a.ageGroup} · {a.sex} · {BAND_LABELS[a.maturityBand ?? 'unknown']} · clearance: {a.clearance ?? 'not recorded'}
+            {a.ageGroup} · {a.sex} · {BAND_LABELS[a.maturityBand ?? 'unknown']} · clearance: {clearanceText(a.clearance) ?? 'not recorded'}
           </Text>
           <Text variant="small">Left: {list(a.latestFlags.left)}</Text>
           <Text variant="small">Right: {list(a.latestFlags.right)}</Text>
