@@ -19,7 +19,7 @@ export function ClearanceBadge({ clearance }: { clearance: ClearanceView }) {
       accessibilityLabel={`Clearance: ${label}${clearance.detail ? `, ${clearance.detail}` : ''}`}
     >
       <Text variant="small" style={styles.text} numberOfLines={1}>
-        {tone === 'stop' ? '⛔ ' : tone === 'caution' ? '⚠ ' : '✓ '}
+        {tone === 'stop' ? '✕ ' : tone === 'caution' ? '⚠ ' : '✓ '}
         {label}
       </Text>
     </View>
