@@ -38,15 +38,11 @@ export async function currentSummary(db: Executor, scope: ClubScope, assessmentI
   const state = await reviews.state(assessmentId);
   const current = await s.currentResult(assessmentId);
   if (!state || !current) throw conflict('This screen has not been submitted yet: there is no summary to release.');
-  const [adjustment, clearance, clubName, taskIds] = await Promise.all([
-    s
-      .adjustments(current.id)
-      .limit(1)
-      .then((rows) => rows[0]),
-    clearanceRepo(db, scope).current(a.athleteId),
-    reviews.clubName(),
-    reviews.screenedTaskIds(current.id),
-  ]);
+  // One after another: `db` may be a transaction, whose one connection runs one query at a time.
+  const [adjustment] = await s.adjustments(current.id).limit(1);
+  const clearance = await clearanceRepo(db, scope).current(a.athleteId);
+  const clubName = await reviews.clubName();
+  const taskIds = await reviews.screenedTaskIds(current.id);
   const summary: FamilySummary = buildFamilySummary({
     firstName: a.firstName,
     clubName,
