@@ -13,6 +13,11 @@ async function names(page: Page): Promise<string[]> {
   return out;
 }
 
+async function chooseDemoSquad(page: Page) {
+  await page.getByTestId('squad-choice').getByText('Under-13 mixed', { exact: true }).click();
+  await expect(page.getByRole('heading', { level: 1 })).toContainText('Under-13 mixed');
+}
+
 async function shownCount(page: Page): Promise<number> {
   const text = (await page.getByTestId('row-count').textContent()) ?? '';
   return Number(text.split(' ')[0]);
@@ -24,6 +29,8 @@ test('squad trends: load, filter, sort, CSV, charts', async ({ page }, info) => 
   await signIn(page, 'coach@squadline.test');
   await page.getByTestId('home-trends-link').click();
   await expect(page.getByTestId('squad-trends')).toBeVisible();
+  // The demo squad with its past rounds (other tests add squads of their own, which may sort first).
+  await chooseDemoSquad(page);
   await expect(page.getByTestId('trends-row').first()).toBeVisible();
   const all = await shownCount(page);
   expect(all).toBeGreaterThan(3);
@@ -88,6 +95,7 @@ test('squad trends: load, filter, sort, CSV, charts', async ({ page }, info) => 
 test('athlete history: charts with threshold and error band, and the last two screens compared', async ({ page }, info) => {
   await signIn(page, 'coach@squadline.test');
   await page.getByTestId('home-trends-link').click();
+  await chooseDemoSquad(page);
   // An athlete whose screens raised flags, so a plan was in place between them.
   if (info.project.name === 'phone') await page.getByTestId('toggle-filters').click();
   await page.getByTestId('filter-flag-any').click();
