@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ApiError, apiAssetUrl, apiUrl, fieldErrorsOf, messageOf } from './client';
+import { ApiError, apiAssetUrl, apiUrl, fieldErrorsOf, messageOf, showServerError } from './client';
 
 describe('fieldErrorsOf', () => {
   it('returns the per-field messages of a validation error', () => {
@@ -31,5 +31,22 @@ describe('API addresses', () => {
     expect(apiAssetUrl('/api/photos/9?size=thumb', 'http://localhost:8080')).toBe('http://localhost:8080/api/photos/9?size=thumb');
     expect(apiAssetUrl('/api/photos/9?size=thumb', '')).toBe('/api/photos/9?size=thumb');
     expect(apiAssetUrl('blob:http://localhost:8081/abc', 'http://localhost:8080')).toBe('blob:http://localhost:8081/abc');
+  });
+});
+
+describe('showServerError', () => {
+  const form = () => {
+    const seen: { errors?: Record<string, string>; status?: string } = {};
+    return { seen, setErrors: (fields: Record<string, string>) => (seen.errors = fields), setStatus: (status: string) => (seen.status = status) };
+  };
+  it('puts field errors beside their fields', () => {
+    const f = form();
+    showServerError(new ApiError(400, 'invalid_input', 'Some fields need attention.', { detail: 'Say what to change.' }), f);
+    expect(f.seen).toEqual({ errors: { detail: 'Say what to change.' } });
+  });
+  it('shows any other refusal as the form message', () => {
+    const f = form();
+    showServerError(new ApiError(403, 'forbidden', 'You do not have access to this.'), f);
+    expect(f.seen).toEqual({ status: 'You do not have access to this.' });
   });
 });

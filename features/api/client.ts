@@ -147,3 +147,10 @@ export function fieldErrorsOf(error: unknown): Record<string, string> | null {
 export function messageOf(error: unknown): string {
   return error instanceof Error ? error.message : String(error);
 }
+
+/** A refused form submit on the form: the server's field errors beside their fields, anything else as the form's message. */
+export function showServerError(error: unknown, form: { setErrors: (fields: Record<string, string>) => void; setStatus: (status: string) => void }): void {
+  const fields = fieldErrorsOf(error);
+  if (fields) form.setErrors(fields);
+  else form.setStatus(messageOf(error));
+}

@@ -1,7 +1,7 @@
 import { useFormik } from 'formik';
 import { StyleSheet, View } from 'react-native';
 import { can } from '@/features/access/permissions';
-import { fieldErrorsOf, messageOf } from '@/features/api/client';
+import { showServerError } from '@/features/api/client';
 import { useActiveClub } from '@/features/session/active-club';
 import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
@@ -32,9 +32,7 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
         await set.mutateAsync(await clearanceSchema.validate(values));
         helpers.resetForm();
       } catch (error) {
-        const fields = fieldErrorsOf(error);
-        if (fields) helpers.setErrors(fields);
-        else helpers.setStatus(messageOf(error));
+        showServerError(error, helpers);
       }
     },
   });

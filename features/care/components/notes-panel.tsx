@@ -2,7 +2,7 @@ import { useFormik } from 'formik';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { can } from '@/features/access/permissions';
-import { fieldErrorsOf, messageOf } from '@/features/api/client';
+import { messageOf, showServerError } from '@/features/api/client';
 import { useActiveClub } from '@/features/session/active-club';
 import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
@@ -73,9 +73,7 @@ function NoteForm({ athleteId, assessmentId }: { athleteId: string; assessmentId
         await add.mutateAsync(await noteSchema.validate(values));
         helpers.resetForm();
       } catch (error) {
-        const fields = fieldErrorsOf(error);
-        if (fields) helpers.setErrors(fields);
-        else helpers.setStatus(messageOf(error));
+        showServerError(error, helpers);
       }
     },
   });
