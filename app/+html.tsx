@@ -1,15 +1,20 @@
 import { ScrollViewStyleReset } from 'expo-router/html';
 import type { PropsWithChildren } from 'react';
 import { EARLY_REQUESTS_GLOBAL } from '@/features/api/client';
-import { colors } from '@/features/ui/theme';
+import { BREAKPOINTS } from '@/features/ui/breakpoints.shared';
+import { colors, space } from '@/features/ui/theme';
 
 // The HTML frame of every pre-rendered page (web only; runs in Node at build time, never in the browser).
 // Beside Expo's defaults: the paper colour from the first byte (no white flash), and bold system faces
 // for the bold family's fallback, so headings and buttons stay bold on a first visit where the font
-// files came too late to be used (font-display: optional, see features/ui/use-app-fonts.web.ts).
+// files came too late to be used (font-display: optional, see features/ui/use-app-fonts.web.ts); and the
+// width rules of the shell frame shown before the session is known (ShellFrame in features/shell).
 const FALLBACK_FACES = `
 @font-face{font-family:"Squadline Bold Fallback";font-weight:400;src:local("Arial Bold"),local("Arial-BoldMT"),local("Helvetica Bold"),local("Helvetica-Bold"),local("Roboto Bold"),local("Roboto-Bold"),local("Segoe UI Bold"),local("SegoeUI-Bold"),local("Liberation Sans Bold"),local("LiberationSans-Bold"),local("DejaVu Sans Bold"),local("DejaVuSans-Bold")}
-html,body{background-color:${colors.paper}}`;
+html,body{background-color:${colors.paper}}
+[data-frame="wide"]{display:none!important}
+@media (min-width:${BREAKPOINTS.wide}px){[data-frame="phone"]{display:none!important}[data-frame="wide"]{display:flex!important}}
+@media (min-width:${BREAKPOINTS.tablet}px){[data-frame-content]{padding:${space.xxl}px!important}}`;
 
 // Every screen starts by asking who is signed in (`/api/me`, features/auth/api/get-me.ts). Asked here,
 // the answer travels while the JavaScript downloads instead of after it has run; the app takes it once

@@ -1,15 +1,27 @@
-import { Redirect, Slot } from 'expo-router';
+import { Navigator, Redirect, Slot } from 'expo-router';
 import { can } from '@/features/access/permissions';
 import { useMeQuery } from '@/features/auth/api/get-me';
 import { DeviceGate } from '@/features/offline/components/device-gate';
 import { ScreeningSync } from '@/features/screening/components/screening-sync';
 import { ActiveClubProvider, useActiveClub } from '@/features/session/active-club';
-import { AppShell } from '@/features/shell/components/app-shell';
+import { AppShell, ShellFrame } from '@/features/shell/components/app-shell';
 import { FullScreenMessage } from '@/features/shell/components/full-screen-message';
 
 export default function ClubLayout() {
+  // The navigator is mounted from the first render, before the session is known: it holds the address
+  // the page was opened at (a layout that renders no navigator while it waits sends the router back
+  // to the home route, and a slow answer lost a deep link).
+  return (
+    <Navigator>
+      <SignedIn />
+    </Navigator>
+  );
+}
+
+function SignedIn() {
   const me = useMeQuery();
-  if (me.isPending) return <FullScreenMessage busy />;
+  // The frame is also what the pre-rendered HTML shows: the page's place and head at first paint.
+  if (me.isPending) return <ShellFrame />;
   if (me.error) return <FullScreenMessage message={me.error.message} />;
   if (!me.data) return <Redirect href="/sign-in" />;
   if (me.data.memberships.length === 0) {

@@ -245,7 +245,7 @@ function webSourceHash() {
     }
   };
   for (const dir of ['app', 'features', 'fonts']) walk(path.join(ROOT, dir));
-  for (const file of ['app.config.ts', 'package-lock.json', 'tsconfig.json']) {
+  for (const file of ['app.config.ts', 'package-lock.json', 'tsconfig.json', 'server/dev/service-worker.mjs']) {
     const full = path.join(ROOT, file);
     if (fs.existsSync(full)) hash.update(file).update(fs.readFileSync(full));
   }

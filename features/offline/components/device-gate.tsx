@@ -1,6 +1,7 @@
 import { useEffect, useState, type ReactNode } from 'react';
 import { can } from '@/features/access/permissions';
 import { useActiveClub } from '@/features/session/active-club';
+import { ShellFrame } from '@/features/shell/components/app-shell';
 import { deviceDataMayExist, setDeviceSession, startDevice } from '../device-handle';
 
 /**
@@ -29,7 +30,7 @@ export function DeviceGate({ children }: { children: ReactNode }) {
       live = false;
     };
   }, [key, userId, screens]);
-  // Loading and reading the device takes a moment: nothing to show meanwhile for those who screen.
-  if (screens && readyFor !== key) return null;
+  // Loading and reading the device takes a moment: the frame stays meanwhile for those who screen.
+  if (screens && readyFor !== key) return <ShellFrame />;
   return <>{children}</>;
 }

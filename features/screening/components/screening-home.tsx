@@ -7,6 +7,7 @@ import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
+import { PAGE_HEADS } from '@/features/shell/page-heads';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { OpenRoundForm } from './open-round-form';
@@ -39,9 +40,9 @@ export function ScreeningHome() {
     <View style={styles.wrap}>
       <View style={styles.head}>
         <Text variant="title" accessibilityRole="header">
-          Screening
+          {PAGE_HEADS.screening.title}
         </Text>
-        <Text>Rounds by squad. Open a round, then screen one athlete after another.</Text>
+        <Text>{PAGE_HEADS.screening.text}</Text>
       </View>
       {squads.isPending ? <Text>Loading squads…</Text> : null}
       {!isWide && canOpen && squads.data ? formOpen ? form : <Button label="Open a round" testID="open-round-start" onPress={() => setFormOpen(true)} /> : null}

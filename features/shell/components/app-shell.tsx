@@ -1,6 +1,6 @@
 import { Link, usePathname, useRouter } from 'expo-router';
 import { useState, type ReactNode } from 'react';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { ActivityIndicator, Pressable, StyleSheet, View } from 'react-native';
 import { can } from '@/features/access/permissions';
 import { useSignOutMutation } from '@/features/auth/api/sign-out';
 import { ROLE_LABELS } from '@/features/auth/schemas';
@@ -12,7 +12,9 @@ import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { CONTENT_MAX_WIDTH } from '@/features/ui/breakpoints';
 import { navFor } from '../nav';
+import { pageHeadFor } from '../page-heads';
 
 export function AppShell({ children }: { children: ReactNode }) {
   const { isWide } = useBreakpoints();
@@ -39,6 +41,58 @@ export function AppShell({ children }: { children: ReactNode }) {
     </View>
   );
 }
+
+/**
+ * The shell before the session is known: in the pre-rendered HTML of every signed-in page, and while the
+ * session and the device's store load. The bars sit where AppShell puts them and the page's own head
+ * (page-heads.ts) where the page will put it, so nothing moves when the page arrives. The markup does
+ * not depend on the width (the HTML is built once for every screen): both bars are in it and the
+ * `data-frame` rules in app/+html.tsx show the one that fits.
+ */
+export function ShellFrame() {
+  const head = pageHeadFor(usePathname());
+  const main = (
+    <View style={styles.frameContent} {...FRAME_CONTENT}>
+      <View style={styles.frameColumn}>
+        {head ? (
+          <View style={styles.frameHead}>
+            {/* A head that starts with a line above the title (the home's club and role): its place is kept. */}
+            {head.lead ? <Text variant="small">{'\u00a0'}</Text> : null}
+            <Text variant="title" accessibilityRole="header">
+              {head.title}
+            </Text>
+            {head.text ? <Text>{head.text}</Text> : null}
+          </View>
+        ) : null}
+        <ActivityIndicator size="large" color={colors.pine} accessibilityLabel="Loading" style={styles.frameBusy} />
+      </View>
+    </View>
+  );
+  return (
+    <>
+      <View style={styles.phoneRoot} {...FRAME_PHONE}>
+        <View style={styles.topBar}>
+          <Brand />
+          <View style={[styles.menuButton, styles.menuWaiting]}>
+            <Text style={styles.menuText}>Menu</Text>
+          </View>
+        </View>
+        {main}
+      </View>
+      <View style={styles.wideRoot} {...FRAME_WIDE}>
+        <View style={styles.side}>
+          <Brand />
+        </View>
+        {main}
+      </View>
+    </>
+  );
+}
+
+// react-native-web writes `dataSet` as data-* attributes; the rules are in app/+html.tsx.
+const FRAME_PHONE = { dataSet: { frame: 'phone' } } as object;
+const FRAME_WIDE = { dataSet: { frame: 'wide' } } as object;
+const FRAME_CONTENT = { dataSet: { frameContent: 'true' } } as object;
 
 function SideBar({ syncs }: { syncs: boolean }) {
   return (
@@ -160,5 +214,10 @@ const styles = StyleSheet.create({
   navActive: { backgroundColor: colors.pineSoft },
   navLabel: { fontFamily: fonts.bold, fontSize: 18, color: colors.ink },
   navLabelActive: { color: colors.pineDark },
+  frameContent: { flex: 1, padding: space.lg, alignItems: 'center' },
+  frameColumn: { width: '100%', maxWidth: CONTENT_MAX_WIDTH, gap: space.lg },
+  frameHead: { gap: space.xs },
+  frameBusy: { marginTop: space.xl },
+  menuWaiting: { opacity: 0.5 },
   account: { gap: space.sm, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.lg },
 });
