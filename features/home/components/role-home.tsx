@@ -36,6 +36,20 @@ export function RoleHome() {
         </Text>
         <Text>{`Hello ${me.user.displayName.split(' ')[0]}. ${intro.text}`}</Text>
       </View>
+      {/* The ways on sit under the head, not under the lists: lists that arrive later would push them
+          down under a thumb about to tap them. */}
+      {can(membership.role, 'roster.read') ? (
+        <View style={styles.row}>
+          {membership.role === 'head_coach' ? (
+            <Link href="/trends" style={[styles.link, styles.linkGap]} testID="home-trends-link">
+              <Text variant="label">Squad trends over the season →</Text>
+            </Link>
+          ) : null}
+          <Link href="/athletes" style={styles.link}>
+            <Text variant="label">See all athletes →</Text>
+          </Link>
+        </View>
+      ) : null}
       {!can(membership.role, 'roster.read') ? (
         <ParentChildren />
       ) : membership.role === 'physio' ? (
@@ -49,16 +63,6 @@ export function RoleHome() {
       ) : (
         <SquadCards />
       )}
-      {membership.role === 'head_coach' ? (
-        <Link href="/trends" style={styles.link} testID="home-trends-link">
-          <Text variant="label">Squad trends over the season →</Text>
-        </Link>
-      ) : null}
-      {can(membership.role, 'roster.read') ? (
-        <Link href="/athletes" style={styles.link}>
-          <Text variant="label">See all athletes →</Text>
-        </Link>
-      ) : null}
     </View>
   );
 }
@@ -112,6 +116,7 @@ const styles = StyleSheet.create({
   wrap: { gap: space.lg },
   head: { gap: space.xs },
   link: { minHeight: 48, paddingVertical: space.md },
+  linkGap: { marginRight: space.xl },
   row: { flexDirection: 'row', flexWrap: 'wrap' },
   childWide: { flexBasis: 320, flexGrow: 1, maxWidth: 560 },
 });

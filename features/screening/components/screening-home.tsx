@@ -44,16 +44,17 @@ export function ScreeningHome() {
         </Text>
         <Text>{PAGE_HEADS.screening.text}</Text>
       </View>
-      {squads.isPending ? <Text>Loading squads…</Text> : null}
+      {/* The cards come once their rounds are known too: a card that grows as its rounds arrive pushes
+          the next one down. */}
+      {squads.isPending || roundsQuery.isPending ? <Text>Loading rounds…</Text> : null}
       {!isWide && canOpen && squads.data ? formOpen ? form : <Button label="Open a round" testID="open-round-start" onPress={() => setFormOpen(true)} /> : null}
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         <View style={[styles.main, isWide && styles.mainWide]}>
-          {bySquad.map(({ squad, rounds }) => (
+          {(roundsQuery.isPending ? [] : bySquad).map(({ squad, rounds }) => (
             <Card key={squad.id} testID={`squad-rounds-${squad.id}`}>
               <Text variant="heading">{squad.name}</Text>
               <Text variant="small">{squad.athleteCount} athletes</Text>
-              {roundsQuery.isPending ? <Text variant="small">Loading rounds…</Text> : null}
-              {!roundsQuery.isPending && rounds.length === 0 ? <Text variant="small">No rounds yet.</Text> : null}
+              {rounds.length === 0 ? <Text variant="small">No rounds yet.</Text> : null}
               <View>
                 {rounds.map((r) => (
                   <Link key={r.id} href={`/screening/rounds/${r.id}`} style={styles.round} testID={`round-${r.id}`}>
