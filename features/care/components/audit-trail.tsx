@@ -11,6 +11,7 @@ import { auditSearch, useAuditQuery, type AuditFilters } from '../api/get-audit'
 import { AUDIT_SUBJECTS } from '../schemas';
 import type { AuditRow } from '../types';
 import { ChoiceChips } from './choice-chips';
+import { auditDetailsInWords } from '../audit-details';
 
 const SUBJECT_LABELS: Record<string, string> = {
   all: 'Everything',
@@ -87,11 +88,7 @@ export function AuditTrail() {
 }
 
 const when = (iso: string) => iso.slice(0, 16).replace('T', ' ');
-const details = (d: Record<string, unknown>) =>
-  Object.entries(d)
-    .filter(([k]) => k !== 'previousText' && k !== 'before' && k !== 'after')
-    .map(([k, v]) => `${k}: ${typeof v === 'object' ? JSON.stringify(v) : String(v)}`)
-    .join(' · ');
+const details = auditDetailsInWords;
 
 function WideRow({ e }: { e: AuditRow }) {
   const cells = [when(e.at), e.actorName ?? 'System', e.action, e.subjectKind, e.athleteName ?? '', details(e.detail)];
@@ -111,7 +108,7 @@ function PhoneRow({ e }: { e: AuditRow }) {
     <View style={styles.phoneRow} testID="audit-row">
       <Text variant="label">{`${e.actorName ?? 'System'}: ${e.action} ${e.subjectKind}`}</Text>
       <Text variant="small">{`${when(e.at)}${e.athleteName ? ` · ${e.athleteName}` : ''}`}</Text>
-      {Object.keys(e.detail).length > 0 ? <Text variant="small">{details(e.detail)}</Text> : null}
+      {details(e.detail) ? <Text variant="small">{details(e.detail)}</Text> : null}
     </View>
   );
 }

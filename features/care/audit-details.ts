@@ -1,0 +1,49 @@
+/**
+ * An audit event's details in words for the trail on screen. Record ids (the CSV export keeps the full
+ * record) and before/after copies of edited text are left out: an admin scanning the trail reads who did
+ * what to whom, not UUIDs. Our choice.
+ */
+import { CLEARANCE_LABELS, NOTE_VISIBILITY_LABELS } from './schemas';
+
+const LEFT_OUT = /(Id|Ids)$|^(replaces|previousText|before|after)$/;
+
+const LABELS: Record<string, string> = {
+  status: 'decision',
+  detail: 'note',
+  visibility: 'shared with',
+  visibilities: 'shared with',
+  count: 'notes read',
+  reason: 'reason',
+  takenAt: 'taken',
+  to: 'to',
+  subject: 'subject',
+  emailed: 'e-mailed',
+  automatic: 'automatic',
+  reviewCarried: 'review carried over',
+  update: 'changed by',
+  field: 'field',
+};
+
+function valueInWords(v: unknown): string | null {
+  if (v === null || v === undefined || v === '') return null;
+  if (typeof v === 'boolean') return v ? 'yes' : 'no';
+  if (Array.isArray(v))
+    return v.length
+      ? v
+          .map((x) => valueInWords(x) ?? '')
+          .filter(Boolean)
+          .join(', ')
+      : null;
+  if (typeof v === 'object') return null;
+  return String(v);
+}
+
+export function auditDetailsInWords(detail: Record<string, unknown>): string {
+  return Object.entries(detail)
+    .filter(([k]) => !LEFT_OUT.test(k))
+    .flatMap(([k, v]) => {
+      const words = valueInWords(v, VALUE_WORDS[k]);
+      return words === null ? [] : [`${LABELS[k] ?? k}: ${words}`];
+    })
+    .join(' · ');
+}
