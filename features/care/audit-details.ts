@@ -24,18 +24,22 @@ const LABELS: Record<string, string> = {
   field: 'field',
 };
 
-function valueInWords(v: unknown): string | null {
+/** Stored codes in the words the screens use for them. */
+const VALUE_WORDS: Record<string, Record<string, string>> = {
+  status: CLEARANCE_LABELS,
+  visibility: NOTE_VISIBILITY_LABELS,
+  visibilities: NOTE_VISIBILITY_LABELS,
+};
+
+function valueInWords(v: unknown, words: Record<string, string> = {}): string | null {
   if (v === null || v === undefined || v === '') return null;
   if (typeof v === 'boolean') return v ? 'yes' : 'no';
-  if (Array.isArray(v))
-    return v.length
-      ? v
-          .map((x) => valueInWords(x) ?? '')
-          .filter(Boolean)
-          .join(', ')
-      : null;
+  if (Array.isArray(v)) {
+    const parts = v.map((x) => valueInWords(x, words)).filter((x): x is string => x !== null);
+    return parts.length ? parts.join(', ') : null;
+  }
   if (typeof v === 'object') return null;
-  return String(v);
+  return words[String(v)] ?? String(v);
 }
 
 export function auditDetailsInWords(detail: Record<string, unknown>): string {
