@@ -274,6 +274,12 @@ export type ResultView = {
   adjustment: PlanAdjustmentView | null;
   /** Every adjustment of this result, newest first (the first is `adjustment`). */
   adjustmentHistory: PlanAdjustmentView[];
+  /**
+   * When this version has no adjustment of its own: the newest one made on an earlier version (a
+   * clearance worked the result out again after a tester had adjusted its plan), so the screen can say
+   * the plan starts again from the proposal. Null otherwise.
+   */
+  earlierAdjustment: { version: number; createdAt: string; createdByName: string | null } | null;
   /** Earlier versions of this assessment's result, newest first. */
   history: { id: string; version: number; engineVersion: string; createdAt: string; reason: string | null }[];
 };

@@ -314,6 +314,19 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
         .orderBy(desc(planAdjustments.createdAt), desc(planAdjustments.id));
     },
 
+    /** The newest adjustment made on another version of this assessment's result (or none). */
+    async earlierAdjustment(assessmentId: string, exceptResultId: string) {
+      const [row] = await db
+        .select({ version: assessmentResults.version, createdAt: planAdjustments.createdAt, createdByName: users.displayName })
+        .from(planAdjustments)
+        .innerJoin(assessmentResults, eq(assessmentResults.id, planAdjustments.resultId))
+        .leftJoin(users, eq(users.id, planAdjustments.createdBy))
+        .where(and(eq(assessmentResults.clubId, clubId), eq(assessmentResults.assessmentId, assessmentId), ne(planAdjustments.resultId, exceptResultId)))
+        .orderBy(desc(planAdjustments.createdAt), desc(planAdjustments.id))
+        .limit(1);
+      return row ?? null;
+    },
+
     /** Adds a result version and makes it the only current one. Call inside a transaction holding the assessment lock. */
     async addResult(
       values: { assessmentId: string; athleteId: string; engineVersion: string; input: AssessmentInput; result: AssessmentResult; reason?: string | null },

@@ -102,7 +102,10 @@ export function photoView(p: Photo): PhotoView {
 async function resultView(repo: ScreeningRepo, assessmentId: string): Promise<ResultView | null> {
   const current = await repo.currentResult(assessmentId);
   if (!current) return null;
-  const [earlier, adjustments] = await Promise.all([repo.earlierResults(assessmentId, current.id), repo.adjustments(current.id)]);
+  // One after another: the repository may be a transaction's, and one connection runs one query at a time.
+  const earlier = await repo.earlierResults(assessmentId, current.id);
+  const adjustments = await repo.adjustments(current.id);
+  const before = adjustments.length === 0 && earlier.length > 0 ? await repo.earlierAdjustment(assessmentId, current.id) : null;
   const history = adjustments.map((a) => ({
     exercises: a.exercises,
     note: a.note,
@@ -120,6 +123,7 @@ async function resultView(repo: ScreeningRepo, assessmentId: string): Promise<Re
     result: current.result,
     adjustment: history[0] ?? null,
     adjustmentHistory: history,
+    earlierAdjustment: before ? { version: before.version, createdAt: iso(before.createdAt), createdByName: before.createdByName } : null,
     history: earlier.map((r) => ({ id: r.id, version: r.version, engineVersion: r.engineVersion, createdAt: iso(r.createdAt), reason: r.reason })),
   };
 }

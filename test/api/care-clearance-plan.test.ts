@@ -248,3 +248,36 @@ describe('a stored input the engine refuses today', () => {
     expect(event!.detail).toMatchObject({ field: 'athlete.statureCm' });
   });
 });
+
+describe('a plan adjusted before the clearance', () => {
+  it('is not carried to the version the clearance makes, and that version says so', async () => {
+    const sol = await makeAthlete(testDb.db, { clubId: ids.club!, squadId: ids.squad!, firstName: 'Sol', lastName: 'Dunn' });
+    const screen = await makeSubmittedScreen(testDb.db, { clubId: ids.club!, squadId: ids.squad!, athleteId: sol.id, userId: ids.tester!, draft: painDraft() });
+    const before = (await as.tester.get(`/api/assessments/${screen.assessmentId}`)).body.result;
+    expect(before.earlierAdjustment).toBeNull();
+    // The tester keeps only the first of the exercises the athlete may do meanwhile.
+    const [first] = before.result.plan.exercises as PlannedExercise[];
+    const adjusted = await as.tester
+      .put(`/api/assessments/${screen.assessmentId}/plan`)
+      .send({
+        exercises: [{ id: first!.id, prescription: first!.prescription }],
+        note: 'One drill while sore',
+        basedOn: { resultVersion: 1, adjustedAt: null },
+      });
+    expect(adjusted.status).toBe(200);
+    expect(adjusted.body.earlierAdjustment).toBeNull();
+
+    expect((await as.physio.put(`/api/athletes/${sol.id}/clearance`).send({ status: 'cleared' })).status).toBe(200);
+    const after = (await as.coach.get(`/api/assessments/${screen.assessmentId}`)).body.result;
+    expect(after.version).toBe(2);
+    expect(after.adjustment).toBeNull();
+    expect(after.earlierAdjustment).toMatchObject({ version: 1, createdByName: 'Tess Tester' });
+    expect(after.earlierAdjustment.createdAt).toBe(adjusted.body.adjustment.createdAt);
+    // A new adjustment on version 2 is the plan in force, and the note about version 1 goes.
+    const again = await as.tester
+      .put(`/api/assessments/${screen.assessmentId}/plan`)
+      .send({ exercises: [{ id: first!.id, prescription: first!.prescription }], basedOn: { resultVersion: 2, adjustedAt: null } });
+    expect(again.status).toBe(200);
+    expect(again.body.earlierAdjustment).toBeNull();
+  });
+});

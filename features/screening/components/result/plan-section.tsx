@@ -93,6 +93,11 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
           {result.reason}
         </Notice>
       ) : null}
+      {!adjustment && result.earlierAdjustment ? (
+        <Notice tone="caution" title="Earlier adjustment not carried over" testID="plan-earlier-adjustment">
+          {`${result.earlierAdjustment.createdByName ?? 'A club member'} adjusted the plan of version ${result.earlierAdjustment.version} on ${day(result.earlierAdjustment.createdAt)}. Version ${result.version} ${result.reason ? 'was worked out again after a clearance' : 'came from a new submission'} and starts again from the engine's proposal below: adjust it again if those changes still apply.`}
+        </Notice>
+      ) : null}
       {clearance ? (
         <Text variant="small" testID="plan-clearance-state">
           Clearance in force: {CLEARANCE_LABELS[clearance.status]}, set by {clearance.setByName ?? 'a former member'} on {day(clearance.setAt)}
