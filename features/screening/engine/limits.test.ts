@@ -45,11 +45,14 @@ describe('properties: rounded loads stay inside the stated share of 1RM (the per
           const maxPercent = Math.min(100, a + width);
           const r = loadRangeKg(orm, inc, minPercent, maxPercent);
           if (r === null) {
-            // No multiple of the increment lies in the band: check by counting steps around it.
+            // No multiple of the increment lies in the band: check by counting steps around it. Loads are
+            // rounded to the milligram, which moves a share by up to 0.5e-6 / 1RM (a 15 g "1RM" at the edge
+            // of the allowed inputs: 3e-5), so a step that fits only by less than that is not counted.
             const lo = Math.floor((orm * minPercent) / 100 / inc) - 1;
+            const tolerance = 1e-9 + 1e-6 / orm;
             for (let n = Math.max(1, lo); n <= lo + 3 + (orm * (maxPercent - minPercent)) / 100 / inc; n += 1) {
               const share = (n * inc) / orm;
-              expect(share >= minPercent / 100 + 1e-9 && share <= maxPercent / 100 - 1e-9, `${n} steps fit`).toBe(false);
+              expect(share >= minPercent / 100 + tolerance && share <= maxPercent / 100 - tolerance, `${n} steps fit`).toBe(false);
             }
             return;
           }
@@ -63,7 +66,8 @@ describe('properties: rounded loads stay inside the stated share of 1RM (the per
           expect((orm * maxPercent) / 100 - r.maxKg).toBeLessThan(inc + 1e-6);
         },
       ),
-      { numRuns: 5000 },
+      // A case found by a random run (a 15 g 1RM whose one step fits only before rounding to the milligram).
+      { numRuns: 5000, examples: [[0.014981521739130437, 0.013783000014981523, 92, 1]] },
     );
   });
 
