@@ -64,7 +64,7 @@ describe('orphan sweep', () => {
 
 describe('uploads in flight', () => {
   it('reads at most a few uploads at once when 20 phones upload together, and loses none', async () => {
-    const slots = uploadSlots(3);
+    const slots = uploadSlots({ slots: 3 });
     const storage = memoryStorage();
     const { app } = makeTestApp(testDb.db, { storage, uploads: slots });
     const tester = await signedInAgent(app, 'tester@storage.test');

@@ -26,6 +26,7 @@ import {
   stopCluster,
   tsx,
 } from '../../server/dev/bootstrap.mjs';
+import { postmasterPid as pmPid, treeCpuMs } from './cpu.mjs';
 
 const arg = (name, fallback) => {
   const i = process.argv.indexOf(`--${name}`);
@@ -76,52 +77,10 @@ function run(url, headers, duration) {
   });
 }
 
-/**
- * CPU time (ms) used so far by the benchmark server and the database: the server's process tree and the
- * PostgreSQL postmaster's (its backends and workers), read from /proc (Linux). autocannon runs in this
- * process and is not counted. On a machine shared with other work, throughput follows whatever else
- * runs; CPU time per answered request does not, so it is printed beside req/s.
- */
-function serverCpuMs(roots) {
-  let entries = [];
-  try {
-    entries = fs.readdirSync('/proc').filter((d) => /^\d+$/.test(d));
-  } catch {
-    return NaN;
-  }
-  const stats = new Map();
-  for (const pid of entries) {
-    try {
-      const text = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
-      const fields = text.slice(text.lastIndexOf(')') + 2).split(' ');
-      // After the command name: state, ppid, ..., utime (14th field overall), stime (15th).
-      stats.set(Number(pid), { ppid: Number(fields[1]), ticks: Number(fields[11]) + Number(fields[12]) });
-    } catch {
-      // The process ended meanwhile.
-    }
-  }
-  const children = new Map();
-  for (const [pid, st] of stats) children.set(st.ppid, [...(children.get(st.ppid) ?? []), pid]);
-  const seen = new Set();
-  const queue = roots.filter((pid) => stats.has(pid));
-  while (queue.length) {
-    const pid = queue.pop();
-    if (seen.has(pid)) continue;
-    seen.add(pid);
-    queue.push(...(children.get(pid) ?? []));
-  }
-  let ticks = 0;
-  for (const pid of seen) ticks += stats.get(pid).ticks;
-  return (ticks * 1000) / 100; // USER_HZ is 100 on Linux
-}
-
-function postmasterPid() {
-  try {
-    return Number(fs.readFileSync(`${layout.data}/postmaster.pid`, 'utf8').split('\n')[0]);
-  } catch {
-    return NaN;
-  }
-}
+// CPU time of the benchmark server's process tree and of the PostgreSQL postmaster's (its backends and
+// workers); autocannon runs in this process and is not counted.
+const serverCpuMs = treeCpuMs;
+const postmasterPid = () => pmPid(layout.data);
 
 async function finishedCount(base) {
   const res = await fetch(`${base}/bench/finished`);

@@ -17,6 +17,7 @@ import path from 'node:path';
 import readline from 'node:readline';
 import sharp from 'sharp';
 import { check, client, freePort, log, nodeTs, sleep, startDatabase } from '../faults/harness.mjs';
+import { machineBusyMs, postmasterPid, treeCpuMs } from './cpu.mjs';
 
 const ROOT = path.resolve(path.dirname(new URL(import.meta.url).pathname), '../..');
 const arg = (name, fallback) => {
@@ -123,6 +124,7 @@ async function startBenchServer(processes, env) {
   }
   return {
     base,
+    pid: proc.pid,
     async stop() {
       const exited = new Promise((r) => proc.on('exit', r));
       proc.kill('SIGTERM');
@@ -146,21 +148,41 @@ function percentile(sorted, p) {
   return sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))];
 }
 
+/**
+ * CPU time so far, in ms: the server's process tree (with two processes, the cluster's primary and its
+ * workers), PostgreSQL (the postmaster and its backends), this process (autocannon, the load
+ * generator), and the whole machine. Differences over a run say where the cores went.
+ */
+function cpuNow(server) {
+  const own = process.cpuUsage();
+  return {
+    server: treeCpuMs([server.pid]),
+    postgres: treeCpuMs([postmasterPid(db.dataDir)]),
+    client: (own.user + own.system) / 1000,
+    machine: machineBusyMs(),
+    at: performance.now(),
+  };
+}
+
 /** One autocannon run; latencies collected per response to give p95 too. */
-async function run(name, base, options) {
+async function run(name, server, options) {
   const latencies = [];
   const statuses = {};
+  const cpuBefore = cpuNow(server);
   // 30 s timeout: on a small shared machine a photo upload can queue behind others for a while.
-  const instance = autocannon({ url: base, connections: CONNECTIONS, duration: DURATION, timeout: 30, ...options });
+  const instance = autocannon({ url: server.base, connections: CONNECTIONS, duration: DURATION, timeout: 30, ...options });
   instance.on('response', (_client, statusCode, _bytes, responseTime) => {
     latencies.push(responseTime);
     statuses[statusCode] = (statuses[statusCode] ?? 0) + 1;
   });
   const result = await instance;
+  const cpuAfter = cpuNow(server);
   latencies.sort((a, b) => a - b);
   const ok = Object.entries(statuses)
     .filter(([s]) => Number(s) < 300)
     .reduce((n, [, c]) => n + c, 0);
+  const wall = cpuAfter.at - cpuBefore.at;
+  const spent = Object.fromEntries(['server', 'postgres', 'client', 'machine'].map((k) => [k, cpuAfter[k] - cpuBefore[k]]));
   return {
     name,
     rps: result.requests.average,
@@ -172,6 +194,18 @@ async function run(name, base, options) {
     detail: { errors: result.errors, timeouts: result.timeouts, non2xx: result.non2xx },
     ok,
     statuses,
+    cpu: {
+      // CPU ms per answered request, and cores kept busy on average over the run.
+      serverPerRequest: spent.server / latencies.length,
+      postgresPerRequest: spent.postgres / latencies.length,
+      cores: {
+        server: spent.server / wall,
+        postgres: spent.postgres / wall,
+        client: spent.client / wall,
+        other: (spent.machine - spent.server - spent.postgres - spent.client) / wall,
+        machine: spent.machine / wall,
+      },
+    },
   };
 }
 
@@ -185,13 +219,36 @@ function table(rows, bare, peakBare, peakAll) {
   lines.push(
     '',
     `server peak memory: ${f(peakBare / 2 ** 20)} MB after the bare run, ${f(peakAll / 2 ** 20)} MB after all runs (x${f(peakAll / peakBare, 2)})`,
+    '',
+    `CPU per answered request, and cores kept busy during the run (of ${os.cpus().length}; "other" is everything else on the machine):`,
+    '',
+    `| route | server ms/req | PostgreSQL ms/req | cores: server | PostgreSQL | load generator | other | machine |`,
+    `| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: |`,
+    ...rows.map(
+      ({ name, cpu: c }) =>
+        `| ${name} | ${f(c.serverPerRequest, 2)} | ${f(c.postgresPerRequest, 2)} | ${f(c.cores.server, 2)} | ${f(c.cores.postgres, 2)} | ${f(c.cores.client, 2)} | ${f(c.cores.other, 2)} | ${f(c.cores.machine, 2)} |`,
+    ),
   );
   return lines.join('\n');
 }
 
+/**
+ * The photo a phone sends after the web client has scaled it (scale-photo.web.ts: long side 1600 px,
+ * JPEG quality 0.85): 1200x1600 with grain and a gradient like a photo of a sports hall, about 270 KB.
+ * A flat synthetic image would be a tenth of that and cheaper to decode and encode than any real photo.
+ */
 async function jpeg() {
-  return sharp({ create: { width: 1200, height: 1600, channels: 3, background: '#5b7fa6' } })
-    .composite([{ input: Buffer.from('<svg width="1200" height="1600"><circle cx="600" cy="500" r="250" fill="#223"/></svg>') }])
+  const width = 1200;
+  const height = 1600;
+  const pixels = Buffer.alloc(width * height * 3);
+  let seed = 1;
+  for (let i = 0; i < pixels.length; i++) {
+    seed = (seed * 1103515245 + 12345) & 0x7fffffff;
+    pixels[i] = 90 + ((seed >> 16) % 80) + (Math.floor(i / 3 / width) % 40);
+  }
+  return sharp(pixels, { raw: { width, height, channels: 3 } })
+    .blur(1.2)
+    .composite([{ input: Buffer.from(`<svg width="${width}" height="${height}"><circle cx="600" cy="500" r="250" fill="#223"/></svg>`) }])
     .jpeg({ quality: 85 })
     .toBuffer();
 }
@@ -443,7 +500,7 @@ try {
   for (let r = 0; r < sides[0].routes.length; r++) {
     for (let i = 0; i < sides.length; i++) {
       const { name, requests } = sides[i].routes[r];
-      results[i].push(await run(name, sides[i].server.base, { requests }));
+      results[i].push(await run(name, sides[i].server, { requests }));
       log(`   ${sides[i].label}, ${name}: ${results[i][r].rps.toFixed(0)} req/s (load average ${loadNow()})`);
       if (r === 0) peakBare[i] = await sides[i].server.peakMemory();
     }
@@ -466,8 +523,11 @@ try {
     const [single, multi] = results;
     process.stdout.write(`\nthroughput with ${PROCESSES} processes against 1 (same run, routes interleaved):\n`);
     for (let i = 0; i < single.length; i++) {
+      const [m, s] = [multi[i].cpu, single[i].cpu];
       process.stdout.write(
-        `  ${multi[i].name}: ${multi[i].rps.toFixed(0)} vs ${single[i].rps.toFixed(0)} req/s (x${(multi[i].rps / single[i].rps).toFixed(2)}), p95 ${Math.round(multi[i].p95)} vs ${Math.round(single[i].p95)} ms\n`,
+        `  ${multi[i].name}: ${multi[i].rps.toFixed(0)} vs ${single[i].rps.toFixed(0)} req/s (x${(multi[i].rps / single[i].rps).toFixed(2)}), p95 ${Math.round(multi[i].p95)} vs ${Math.round(single[i].p95)} ms; ` +
+          `CPU ms/req server ${m.serverPerRequest.toFixed(2)} vs ${s.serverPerRequest.toFixed(2)}, PostgreSQL ${m.postgresPerRequest.toFixed(2)} vs ${s.postgresPerRequest.toFixed(2)}; ` +
+          `machine busy ${m.cores.machine.toFixed(2)} vs ${s.cores.machine.toFixed(2)} cores\n`,
       );
     }
   }

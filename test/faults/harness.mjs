@@ -59,6 +59,8 @@ export async function startDatabase(prefix, dbName) {
   return {
     url,
     root,
+    /** The cluster's data folder (its postmaster.pid names the process). */
+    dataDir: layout.data,
     stop: () => stopCluster(bin, layout),
     start: () => startCluster(bin, layout, port),
     cleanup() {
