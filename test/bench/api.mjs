@@ -25,6 +25,7 @@ import {
   ensureDatabase,
   ensureNodeModules,
   ensurePostgres,
+  SERVER_NODE_OPTIONS,
   freePort,
   initCluster,
   log,
@@ -156,7 +157,8 @@ async function finishedCount(base) {
 let status = 0;
 try {
   log('Seeding 2,000 athletes x 8 rounds (16,000 screens through the engine; several minutes on 2 busy cores)...');
-  const env = { DATABASE_URL: databaseUrl(port, password, 'squadline_bench') };
+  // The server runs with the Node options it has in production (SERVER_NODE_OPTIONS; README, Deployment).
+  const env = { DATABASE_URL: databaseUrl(port, password, 'squadline_bench'), NODE_OPTIONS: `${process.env.NODE_OPTIONS ?? ''} ${SERVER_NODE_OPTIONS}`.trim() };
   // The server profiles itself (node:inspector) during each route's measured run, one file per route.
   if (CPU_PROF) env.BENCH_CPU_PROF_DIR = path.resolve(CPU_PROF);
   server = tsx(['test/bench/api-server.ts'], env, ['ignore', 'pipe', 'inherit']);
