@@ -55,6 +55,21 @@ export function connect(url: string, max = 10, poolWaitMs = POOL_WAIT_MS): DbHan
   return { db, pool, close: () => pool.end() };
 }
 
+type Queryable = { query<T>(config: { name: string; text: string; values: unknown[] }): Promise<{ rows: T[] }> };
+
+/**
+ * Runs one statement as a named prepared statement: PostgreSQL parses and plans it once per pooled
+ * connection, not on every request, and the text is a constant, not rebuilt per request by the query
+ * builder. For the statements every request runs (the session) and the heavy reads (progress). `db` is
+ * the Drizzle database (its pool) or, inside a transaction, the transaction (its own connection).
+ */
+export async function preparedRows<T>(db: object, name: string, text: string, values: unknown[]): Promise<T[]> {
+  const holder = db as { $client?: Queryable; session?: { client?: Queryable } };
+  const client = holder.$client ?? holder.session?.client;
+  if (!client) throw new Error('preparedRows needs a node-postgres database or transaction.');
+  return (await client.query<T>({ name, text, values })).rows;
+}
+
 /** Applies committed migrations; safe to run again. */
 export async function runMigrations(db: Db): Promise<void> {
   await migrate(db, { migrationsFolder: MIGRATIONS_DIR });

@@ -126,7 +126,7 @@ function screen(
       measurements,
       flags,
       maturity: null,
-      plan: { status: 'ready', exercises: [], maxExercises: 6, growthSpurtAdjusted: false, rescreenWeeks: 6, rescreenDate: null, cautions: [], ...plan },
+      plan: { status: 'ready', rescreenWeeks: 6, ...plan },
     },
   };
 }

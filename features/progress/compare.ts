@@ -87,13 +87,22 @@ export type FlagChanges = {
   notRetested: FlagRef[];
 };
 
-/** What one screen brings to a comparison: its result, the tasks done, and its date. */
+/** The parts of a flag a comparison reads (a stored result's flags carry evidence and thresholds besides). */
+export type ComparedFlag = Pick<Flag, 'id' | 'pattern' | 'title' | 'taskId' | 'side' | 'severity'> & { comparesTasks?: Flag['comparesTasks'] | null };
+
+/**
+ * What one screen brings to a comparison: the parts of its result compared, the tasks done, and its date.
+ * Only those parts, so a caller reading many screens can fetch a slim result instead of the whole one.
+ */
 export type ScreenForComparison = {
   assessmentId: string;
   screenedOn: string;
   /** Task ids present in the screen's input (done, not skipped). */
   tasksDone: readonly TaskId[];
-  result: Pick<AssessmentResult, 'measurements' | 'flags' | 'maturity' | 'plan'>;
+  result: Pick<AssessmentResult, 'measurements' | 'maturity'> & {
+    flags: readonly ComparedFlag[];
+    plan: Pick<AssessmentResult['plan'], 'status' | 'rescreenWeeks'>;
+  };
 };
 
 export type PlanTime = {
@@ -149,12 +158,12 @@ export function compareMeasurement(earlier: Measurement, later: Measurement): Me
   };
 }
 
-function flagRef(f: Flag): FlagRef {
+function flagRef(f: ComparedFlag): FlagRef {
   return { id: f.id, pattern: f.pattern, title: f.title, taskId: f.taskId, side: f.side, severity: f.severity };
 }
 
 /** Whether a flag's task (or both tasks of a pair) was done in the later screen. */
-function retested(flag: Flag, later: ScreenForComparison): boolean {
+function retested(flag: ComparedFlag, later: ScreenForComparison): boolean {
   if (flag.comparesTasks) return flag.comparesTasks.every((t) => later.tasksDone.includes(t));
   if (flag.taskId) return later.tasksDone.includes(flag.taskId);
   // Athlete-level flags (the growth-spurt window) need the maturity estimate.

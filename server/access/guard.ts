@@ -1,12 +1,10 @@
-import { eq } from 'drizzle-orm';
 import type { Request, RequestHandler } from 'express';
-import type { Db } from '@/db/client';
+import { preparedRows, type Db } from '@/db/client';
 import type { Executor } from '@/server/screening/screening.repo';
-import { assessments, athletes, photos, rounds, squads } from '@/db/schema';
 import { OWN_CHILDREN_ONLY, rolesFor, type Action } from '@/features/access/permissions';
 import { badRequest, forbidden, notFound, unauthorized } from '@/server/http/errors';
 import { isUuid, requireUuid } from '@/server/http/ids';
-import { membershipsOf, scopeForCallerClub, scopeForClub, signedInUserId, type ClubScope } from './scope';
+import { callerMemberships, scopeForCallerClub, scopeForClub, type ClubScope } from './scope';
 
 /**
  * The one way a route checks access: `guard(action, target)` runs before anything else (validation
@@ -42,32 +40,31 @@ export async function recordHome(db: Executor, kind: string, id: string): Promis
 /** The kinds of record registered so far (read by the route-table test). */
 export const recordKinds = () => [...resolvers.keys()];
 
-/** A record of a whole club or squad: it belongs to no single athlete. */
-function clubRecord(table: typeof squads | typeof rounds): RecordResolver {
-  return async (db, id) => {
-    const [row] = await db.select({ clubId: table.clubId }).from(table).where(eq(table.id, id));
-    return row ? { clubId: row.clubId, athleteId: null } : null;
-  };
+/**
+ * A record's home by one prepared statement (`preparedRows`): every guarded request runs one of these,
+ * so each is parsed and planned once per pooled connection and not rebuilt by the query builder.
+ */
+function homeBy(name: string, text: string): RecordResolver {
+  return async (db, id) => (await preparedRows<RecordHome>(db, name, text, [id]))[0] ?? null;
 }
 
-registerRecord('athlete', 'The athlete', async (db, id) => {
-  const [row] = await db.select({ clubId: athletes.clubId }).from(athletes).where(eq(athletes.id, id));
-  return row ? { clubId: row.clubId, athleteId: id } : null;
-});
-registerRecord('squad', 'The squad', clubRecord(squads));
-registerRecord('round', 'The round', clubRecord(rounds));
-registerRecord('assessment', 'The assessment', async (db, id) => {
-  const [row] = await db.select({ clubId: assessments.clubId, athleteId: assessments.athleteId }).from(assessments).where(eq(assessments.id, id));
-  return row ?? null;
-});
-registerRecord('photo', 'The photo', async (db, id) => {
-  const [row] = await db
-    .select({ clubId: photos.clubId, athleteId: assessments.athleteId })
-    .from(photos)
-    .innerJoin(assessments, eq(assessments.id, photos.assessmentId))
-    .where(eq(photos.id, id));
-  return row ?? null;
-});
+registerRecord('athlete', 'The athlete', homeBy('guard_athlete_home', 'select club_id as "clubId", id as "athleteId" from athletes where id = $1'));
+// A squad or a round belongs to the whole club, no single athlete.
+registerRecord('squad', 'The squad', homeBy('guard_squad_home', 'select club_id as "clubId", null::uuid as "athleteId" from squads where id = $1'));
+registerRecord('round', 'The round', homeBy('guard_round_home', 'select club_id as "clubId", null::uuid as "athleteId" from rounds where id = $1'));
+registerRecord(
+  'assessment',
+  'The assessment',
+  homeBy('guard_assessment_home', 'select club_id as "clubId", athlete_id as "athleteId" from assessments where id = $1'),
+);
+registerRecord(
+  'photo',
+  'The photo',
+  homeBy(
+    'guard_photo_home',
+    'select p.club_id as "clubId", a.athlete_id as "athleteId" from photos p join assessments a on a.id = p.assessment_id where p.id = $1',
+  ),
+);
 
 /** What a route touches: the caller's club (no record in the path), a club id, or a record. */
 export type Target =
@@ -120,7 +117,7 @@ export function accessGuards(db: Db) {
     if (target.from === 'body' && !isUuid(raw)) {
       // A body field that is not an id: a field error, but only for a caller whose role may do this at
       // all in one of their clubs (anyone else learns nothing about the body).
-      const mine = await membershipsOf(db, signedInUserId(req));
+      const mine = await callerMemberships(db, req);
       if (!mine.some((m) => roles.includes(m.role))) throw forbidden();
       throw badRequest(`${entry.what} is not named by a valid id.`, { [target.param]: 'Must be an id (a UUID).' });
     }

@@ -39,18 +39,32 @@ export async function membershipsOf(db: Db, userId: string): Promise<MembershipV
     .orderBy(clubs.name);
 }
 
+/**
+ * The signed-in caller's clubs and roles, ordered by club name. Read with the session by the session
+ * middleware (`req.access`, this request's own reading, never kept across requests); asked from the
+ * database only where no session middleware ran.
+ */
+export async function callerMemberships(db: Db, req: Request): Promise<MembershipView[]> {
+  const userId = signedInUserId(req);
+  return req.access ? req.access.memberships : membershipsOf(db, userId);
+}
+
 /** The caller's scope in `clubId`, or 403 when they are not a member with one of `roles`. */
 export async function scopeForClub(db: Db, req: Request, clubId: string, roles: readonly Role[]): Promise<ClubScope> {
   const userId = signedInUserId(req);
-  const [membership] = await db
-    .select({ role: memberships.role })
-    .from(memberships)
-    .where(and(eq(memberships.userId, userId), eq(memberships.clubId, clubId)));
+  const access = req.access;
+  const [membership] = access
+    ? access.memberships.filter((m) => m.clubId === clubId)
+    : await db
+        .select({ role: memberships.role })
+        .from(memberships)
+        .where(and(eq(memberships.userId, userId), eq(memberships.clubId, clubId)));
   if (!membership || !roles.includes(membership.role)) throw forbidden();
   let athleteIds: string[] | null = null;
   if (OWN_CHILDREN_ONLY.includes(membership.role)) {
-    const links = await db.select({ athleteId: guardianLinks.athleteId }).from(guardianLinks).where(eq(guardianLinks.userId, userId));
-    athleteIds = links.map((l) => l.athleteId);
+    athleteIds = access
+      ? [...access.athleteIds]
+      : (await db.select({ athleteId: guardianLinks.athleteId }).from(guardianLinks).where(eq(guardianLinks.userId, userId))).map((l) => l.athleteId);
   }
   return { userId, clubId, role: membership.role, athleteIds };
 }
@@ -60,7 +74,7 @@ export async function scopeForClub(db: Db, req: Request, clubId: string, roles: 
  * only club. A person in several clubs must say which one.
  */
 export async function scopeForCallerClub(db: Db, req: Request, roles: readonly Role[]): Promise<ClubScope> {
-  const userId = signedInUserId(req);
+  signedInUserId(req); // 401 for a signed-out caller before anything about the header
   const header = req.get('x-club-id');
   if (header !== undefined && header !== '') {
     if (!isUuid(header.trim())) {
@@ -70,7 +84,7 @@ export async function scopeForCallerClub(db: Db, req: Request, roles: readonly R
     }
     return scopeForClub(db, req, header.trim(), roles);
   }
-  const mine = await membershipsOf(db, userId);
+  const mine = await callerMemberships(db, req);
   if (mine.length === 0) throw forbidden('You are not a member of any club.');
   if (mine.length > 1) throw badRequest('You belong to several clubs: choose one (X-Club-Id header).');
   return scopeForClub(db, req, mine[0]!.clubId, roles);

@@ -1,7 +1,7 @@
 import { parse as parseCookies } from 'cookie';
 import type { RequestHandler, Response } from 'express';
 import { forbidden } from '@/server/http/errors';
-import type { Auth } from './lucia';
+import type { Auth, CallerAccess } from './lucia';
 import { sessionIdFromToken } from './lucia';
 
 export type SignedInUser = { id: string; email: string; displayName: string };
@@ -13,6 +13,8 @@ declare global {
       /** Set by the session middleware when the cookie carries a valid session. */
       user?: SignedInUser;
       sessionId?: string;
+      /** The signed-in caller's clubs, roles and linked athletes, read with the session (see `CallerAccess`). */
+      access?: CallerAccess;
     }
   }
 }
@@ -37,6 +39,7 @@ export function sessionMiddleware(auth: Auth): RequestHandler {
     }
     if (session.fresh) setSessionCookie(res, auth, token);
     req.user = { id: user.id, email: user.email, displayName: user.displayName };
+    req.access = user.access;
     req.sessionId = session.id;
     next();
   };

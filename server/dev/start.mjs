@@ -1,7 +1,7 @@
 // `npm start`: install what is missing, start the private database, migrate, seed the demo once,
 // build the web app when its sources changed, and serve app + API from one process.
 // `npm run db:reset` runs this with --reset-only: rebuild the demo database, then stop.
-import { DIST_DIR, ensureNodeModules, ensurePostgres, ensureWebBuild, fail, log, startDevCluster, tsx, tsxSync } from './bootstrap.mjs';
+import { DIST_DIR, ensureNodeModules, ensurePostgres, ensureWebBuild, fail, log, SERVER_NODE_OPTIONS, startDevCluster, tsx, tsxSync } from './bootstrap.mjs';
 
 const resetOnly = process.argv.includes('--reset-only');
 const webPort = Number(process.env.PORT ?? 8080);
@@ -21,7 +21,8 @@ try {
   }
   ensureWebBuild();
 
-  const server = tsx(['server/index.ts'], { ...env, PORT: String(webPort), WEB_DIR: DIST_DIR, DEMO_BANNER: '1' });
+  const nodeOptions = `${process.env.NODE_OPTIONS ?? ''} ${SERVER_NODE_OPTIONS}`.trim();
+  const server = tsx(['server/index.ts'], { ...env, PORT: String(webPort), WEB_DIR: DIST_DIR, DEMO_BANNER: '1', NODE_OPTIONS: nodeOptions });
   const shutdown = () => server.kill('SIGTERM');
   process.on('SIGINT', shutdown);
   process.on('SIGTERM', shutdown);

@@ -1,20 +1,8 @@
+import type { ScreenForComparison } from '@/features/progress/compare';
 import type { AssessmentResult } from '@/features/screening/engine';
+import { preparedRows } from '@/db/client';
 import type { ClubScope } from '@/server/access/scope';
 import type { Executor } from '@/server/screening/screening.repo';
-
-type Queryable = { query<T>(config: { name: string; text: string; values: unknown[] }): Promise<{ rows: T[] }> };
-
-/**
- * Runs one statement as a named prepared statement: PostgreSQL parses and plans it once per pooled
- * connection, not on every request, and the text is a constant here, not rebuilt per request. The pool
- * (`$client`) or, inside a transaction, the transaction's own connection.
- */
-async function rowsOf<T>(db: Executor, name: string, text: string, values: unknown[]): Promise<T[]> {
-  const holder = db as unknown as { $client?: Queryable; session?: { client?: Queryable } };
-  const client = holder.$client ?? holder.session?.client;
-  if (!client) throw new Error('progressRepo needs a node-postgres executor.');
-  return (await client.query<T>({ name, text, values })).rows;
-}
 
 /** One round of the squad: [id, name, screenedOn], in date order. */
 export type SeasonRound = [id: string, name: string, screenedOn: string];
@@ -41,6 +29,15 @@ export type SeasonAthlete = [
 ];
 export type Season = { squad: { id: string; name: string }; rounds: SeasonRound[]; results: SeasonResult[]; athletes: SeasonAthlete[] };
 
+/**
+ * The parts of a stored result that an athlete's history shows and compares: the measurements, each
+ * flag without its evidence and thresholds (half of a stored result is their sources and derivations),
+ * the maturity estimate and the plan's status, interval, date and number of exercises.
+ */
+export type HistoryResult = ScreenForComparison['result'] & {
+  plan: Pick<AssessmentResult['plan'], 'status' | 'rescreenWeeks' | 'rescreenDate'> & { exerciseCount: number };
+};
+
 export type HistoryRow = {
   athleteId: string;
   sex: 'female' | 'male';
@@ -49,7 +46,7 @@ export type HistoryRow = {
   roundName: string | null;
   screenedOn: string | null;
   taskIds: string[] | null;
-  result: AssessmentResult | null;
+  result: HistoryResult | null;
 };
 
 /**
@@ -64,12 +61,13 @@ export function progressRepo(db: Executor, scope: ClubScope) {
 
   return {
     /**
-     * Every submitted screen of one athlete with its current result and the names of the tasks done
+     * Every submitted screen of one athlete with the parts of its current result the history uses
+     * (`HistoryResult`, built by PostgreSQL: a third of the stored result) and the names of the tasks done
      * (not the whole stored input, landmarks and all), oldest first; one row with null screen columns when there is none, no row when
      * the athlete is not in the club.
      */
     history(athleteId: string) {
-      return rowsOf<HistoryRow>(
+      return preparedRows<HistoryRow>(
         db,
         'progress_athlete_history',
         `select p.id as "athleteId", p.sex, h.*
@@ -77,11 +75,22 @@ export function progressRepo(db: Executor, scope: ClubScope) {
           left join lateral (
             select a.id as "assessmentId", r.id as "roundId", r.name as "roundName", r.screened_on::text as "screenedOn",
               (select coalesce(array_agg(k), '{}') from jsonb_object_keys(coalesce(ar.input -> 'tasks', '{}')) k) as "taskIds",
-              ar.result,
+              jsonb_build_object(
+                'measurements', x.res -> 'measurements',
+                'flags', (select coalesce(jsonb_agg(jsonb_build_object('id', f -> 'id', 'pattern', f -> 'pattern', 'title', f -> 'title',
+                    'taskId', f -> 'taskId', 'side', f -> 'side', 'severity', f -> 'severity', 'comparesTasks', f -> 'comparesTasks') order by o), '[]')
+                  from jsonb_array_elements(x.res -> 'flags') with ordinality t(f, o)),
+                'maturity', x.res -> 'maturity',
+                'plan', jsonb_build_object('status', x.res #> '{plan,status}', 'rescreenWeeks', x.res #> '{plan,rescreenWeeks}',
+                  'rescreenDate', x.res #> '{plan,rescreenDate}', 'exerciseCount', jsonb_array_length(x.res #> '{plan,exercises}'))
+              ) as result,
               r.screened_on, ar.created_at
             from assessments a
             join rounds r on r.id = a.round_id
             join assessment_results ar on ar.assessment_id = a.id and ar.is_current
+            -- The stored result decompressed once into memory (the concatenation makes the copy; OFFSET 0
+            -- keeps it one value per row), then picked apart without decompressing it again for each part.
+            cross join lateral (select ar.result || '{}'::jsonb as res offset 0) x
             where a.athlete_id = p.id and a.club_id = p.club_id and a.status = 'submitted'
           ) h on true
           where p.id = $1 and p.club_id = $2
@@ -99,7 +108,7 @@ export function progressRepo(db: Executor, scope: ClubScope) {
      */
     async season(squadId: string): Promise<Season | null> {
       const [[head], results] = await Promise.all([
-        rowsOf<{ squad: Season['squad'] | null; rounds: SeasonRound[]; athletes: SeasonAthlete[] }>(
+        preparedRows<{ squad: Season['squad'] | null; rounds: SeasonRound[]; athletes: SeasonAthlete[] }>(
           db,
           'progress_squad_season',
           `select
@@ -107,29 +116,27 @@ export function progressRepo(db: Executor, scope: ClubScope) {
             (select coalesce(json_agg(json_build_array(r.id, r.name, r.screened_on) order by r.screened_on, r.created_at, r.id), '[]')
               from rounds r where r.squad_id = $1 and r.club_id = $2) as rounds,
             (select coalesce(json_agg(json_build_array(m.id, m.first_name, m.last_name, m.sex, m.date_of_birth, c.status,
-                l.id, l.screened_on, l.flag_ids, l.flag_sides, l.maturity_band, l.rescreen_date) order by m.last_name, m.first_name, m.id), '[]')
+                l.id, l.screened_on, ar.flag_ids, ar.flag_sides, ar.maturity_band, ar.rescreen_date) order by m.last_name, m.first_name, m.id), '[]')
               from athletes m
-              left join lateral (
-                -- The newest submitted screen by its round's date (the round by its primary key, once per
-                -- screen of the athlete), then that one screen's current result: one result read per athlete.
-                select n.id, n.screened_on, ar.flag_ids, ar.flag_sides, ar.maturity_band, ar.rescreen_date
-                from (
-                  select a.id, rd.screened_on
-                  from assessments a
-                  join lateral (select screened_on, created_at from rounds where id = a.round_id) rd on true
-                  where a.athlete_id = m.id and a.status = 'submitted'
-                  order by rd.screened_on desc, rd.created_at desc, a.id desc
-                  limit 1
-                ) n
-                join assessment_results ar on ar.assessment_id = n.id and ar.is_current
-              ) l on true
+              left join (
+                -- Each member's newest submitted screen by its round's date: their screens (index-only) and
+                -- the rounds joined once for all 40, then one row per athlete. (A lateral search per athlete
+                -- had the planner scan every round of the club once per member.)
+                select distinct on (a.athlete_id) a.athlete_id, a.id, r.screened_on
+                from athletes m2
+                join assessments a on a.athlete_id = m2.id and a.status = 'submitted'
+                join rounds r on r.id = a.round_id
+                where m2.squad_id = $1 and m2.club_id = $2 and m2.archived_at is null
+                order by a.athlete_id, r.screened_on desc, r.created_at desc, a.id desc
+              ) l on l.athlete_id = m.id
+              left join assessment_results ar on ar.assessment_id = l.id and ar.is_current
               left join lateral (
                 select status from clearances where athlete_id = m.id and club_id = $2 order by created_at desc limit 1
               ) c on true
               where m.squad_id = $1 and m.club_id = $2 and m.archived_at is null) as athletes`,
           [squadId, clubId],
         ),
-        rowsOf<{ roundId: string; athleteId: string; flagIds: string[] | null; fppaIds: string[] | null; fppaValues: (number | null)[] | null }>(
+        preparedRows<{ roundId: string; athleteId: string; flagIds: string[] | null; fppaIds: string[] | null; fppaValues: (number | null)[] | null }>(
           db,
           'progress_squad_results',
           `select a.round_id as "roundId", a.athlete_id as "athleteId", ar.flag_ids as "flagIds", ar.fppa_ids as "fppaIds", ar.fppa_values as "fppaValues"

@@ -4,6 +4,7 @@ import type { ProgressResponse, ProgressScreen } from '@/features/progress/progr
 import {
   ageGroupOf,
   filterAthletes,
+  patternOfFlag,
   rescreenOf,
   sidedPatterns,
   type TrendAthlete,
@@ -45,7 +46,7 @@ export function progressService(db: Executor, scope: ClubScope) {
           status: r.result.plan.status,
           rescreenWeeks: r.result.plan.rescreenWeeks,
           rescreenDate: r.result.plan.rescreenDate,
-          exercises: r.result.plan.exercises.length,
+          exercises: r.result.plan.exerciseCount,
         },
       }));
       const n = forComparison.length;
@@ -65,8 +66,13 @@ export function progressService(db: Executor, scope: ClubScope) {
         if (!round) continue;
         round.screened += 1;
         // One count per athlete and pattern, however many tasks or sides show it.
-        const patterns = new Set((flagIds ?? []).map((id) => id.split('/')[0] as PatternId));
-        for (const p of patterns) round.flagged[p] = (round.flagged[p] ?? 0) + 1;
+        const counted: PatternId[] = [];
+        for (const id of flagIds ?? []) {
+          const p = patternOfFlag(id);
+          if (counted.includes(p)) continue;
+          counted.push(p);
+          round.flagged[p] = (round.flagged[p] ?? 0) + 1;
+        }
         const ids = fppaIds ?? [];
         const values = fppaValues ?? [];
         let mine = anglesByAthlete.get(athleteId);

@@ -4,9 +4,11 @@
 // Prints one line `READY {json}` with what the load generator needs.
 import express from 'express';
 import fs from 'node:fs';
+import { Session } from 'node:inspector/promises';
 import os from 'node:os';
 import path from 'node:path';
 import pino from 'pino';
+import { sql } from 'drizzle-orm';
 import { connect, runMigrations } from '@/db/client';
 import { assessmentResults, assessments, athletes, clubs, memberships, rounds, squads, users } from '@/db/schema';
 import { evaluateAssessment } from '@/features/screening/engine';
@@ -92,6 +94,16 @@ async function seed(db: ReturnType<typeof connect>['db']) {
   return { squadId: squadRows[0]!.id, athleteId: members0(athleteRows, squadRows[0]!.id) };
 }
 
+/** The ids `seed` returned, when an earlier run seeded this database. */
+async function seededIds(db: ReturnType<typeof connect>['db']) {
+  const first = await db.execute<{ squadId: string; athleteId: string }>(sql`
+    select s.id as "squadId", (select a.id from athletes a where a.squad_id = s.id order by a.created_at, a.last_name limit 1) as "athleteId"
+    from squads s join clubs c on c.id = s.club_id
+    where c.name = 'Benchmark Racket Club' and s.name = 'Squad 1'`);
+  const row = first.rows[0];
+  return row?.athleteId ? row : null;
+}
+
 function members0(rows: { id: string; squadId: string | null }[], squadId: string) {
   return rows.find((a) => a.squadId === squadId)!.id;
 }
@@ -102,10 +114,11 @@ async function main() {
   const handle = connect(url, Number(process.env.POOL_SIZE ?? 10));
   await runMigrations(handle.db);
   const t0 = performance.now();
-  const ids = await seed(handle.db);
+  // A kept database (`bench:api -- --keep DIR`) is seeded once; later runs find the same ids again.
+  const ids = (await seededIds(handle.db)) ?? (await seed(handle.db));
   // Steady state, as autovacuum leaves a live database: statistics and the visibility map (index-only scans).
   await handle.pool.query('vacuum analyze');
-  process.stderr.write(`[bench] seeded in ${((performance.now() - t0) / 1000).toFixed(1)} s\n`);
+  process.stderr.write(`[bench] ready in ${((performance.now() - t0) / 1000).toFixed(1)} s\n`);
 
   const app = createApp({
     db: handle.db,
@@ -127,6 +140,25 @@ async function main() {
   outer.get('/bench/finished', (_req, res) => {
     res.json({ finished });
   });
+  // `bench:api -- --cpu-prof DIR`: a V8 CPU profile of each measured run (profiling costs CPU itself,
+  // so figures of a profiled run are not comparable with plain ones).
+  const profileDir = process.env.BENCH_CPU_PROF_DIR;
+  if (profileDir) {
+    const inspector = new Session();
+    inspector.connect();
+    await inspector.post('Profiler.enable');
+    outer.post('/bench/profile/start', async (_req, res) => {
+      await inspector.post('Profiler.start');
+      res.json({ profiling: true });
+    });
+    outer.post('/bench/profile/stop', async (req, res) => {
+      const { profile } = await inspector.post('Profiler.stop');
+      fs.mkdirSync(profileDir, { recursive: true });
+      const file = path.join(profileDir, `${String(req.query.name ?? 'run').replace(/[^\w-]/g, '_')}.cpuprofile`);
+      fs.writeFileSync(file, JSON.stringify(profile));
+      res.json({ file });
+    });
+  }
   outer.get('/bench/select-1', async (_req, res) => {
     const r = await handle.pool.query('select 1 as one');
     res.json({ one: r.rows[0].one });

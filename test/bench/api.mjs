@@ -7,16 +7,25 @@
 // bare route's. Figures, not assertions: speed targets are read from this output.
 //
 //   npm run bench:api [-- --duration 15 --connections 50 --rounds 1 --warmup 3]
+//
+// For finding where the time goes:
+//   --only me,trends        drive only these routes (select-1, me, trends, progress); the baseline always runs first
+//   --cpu-prof DIR          the server profiles its CPU during each measured run: DIR/<route>.cpuprofile
+//                           (read them with test/bench/cpu-profile.mjs)
+//   --keep DIR              keep the seeded cluster in DIR and reuse it next time (no reseeding; migrations
+//                           added since are applied by the server at start, as in production)
 import autocannon from 'autocannon';
 import readline from 'node:readline';
 import fs from 'node:fs';
 import os from 'node:os';
+import path from 'node:path';
 import {
   clusterLayout,
   databaseUrl,
   ensureDatabase,
   ensureNodeModules,
   ensurePostgres,
+  SERVER_NODE_OPTIONS,
   freePort,
   initCluster,
   log,
@@ -36,26 +45,43 @@ const DURATION = arg('duration', 15);
 const CONNECTIONS = arg('connections', 50);
 const ROUNDS = arg('rounds', 1);
 const WARMUP = arg('warmup', 3);
+const text = (name) => {
+  const i = process.argv.indexOf(`--${name}`);
+  return i > 0 ? process.argv[i + 1] : undefined;
+};
+const ONLY = text('only')?.split(',');
+const CPU_PROF = text('cpu-prof');
+const KEEP = text('keep');
 
 ensureNodeModules();
 const bin = ensurePostgres();
-const root = makeClusterRoot('squadline-bench-');
+const root = KEEP ? path.resolve(KEEP) : makeClusterRoot('squadline-bench-');
 const layout = clusterLayout(root);
-const password = newPassword();
+const stateFile = path.join(root, 'bench.json');
+const kept = KEEP && fs.existsSync(stateFile) ? JSON.parse(fs.readFileSync(stateFile, 'utf8')) : null;
+const password = kept?.password ?? newPassword();
 const port = await freePort();
-log(`Starting a throw-away PostgreSQL on 127.0.0.1:${port}...`);
-initCluster(bin, layout, password);
+log(`Starting ${kept ? 'the kept' : KEEP ? 'a new kept' : 'a throw-away'} PostgreSQL on 127.0.0.1:${port}...`);
+if (!kept) {
+  if (KEEP) fs.mkdirSync(root, { recursive: true, mode: 0o755 });
+  initCluster(bin, layout, password);
+  if (KEEP) fs.writeFileSync(stateFile, JSON.stringify({ password }), { mode: 0o600 });
+}
 startCluster(bin, layout, port);
 ensureDatabase(bin, layout, port, 'squadline_bench');
-
 let server = null;
-const cleanup = () => {
-  if (server && server.exitCode === null) server.kill('SIGTERM');
+const cleanup = async () => {
+  if (server && server.exitCode === null) {
+    // Waited for (up to 15 s), so the kept cluster is stopped only after the server let go of it.
+    const ended = new Promise((resolve) => server.once('exit', resolve));
+    server.kill('SIGTERM');
+    await Promise.race([ended, new Promise((resolve) => setTimeout(resolve, 15_000))]);
+  }
   stopCluster(bin, layout);
-  fs.rmSync(root, { recursive: true, force: true });
+  if (!KEEP) fs.rmSync(root, { recursive: true, force: true });
 };
-process.on('SIGINT', () => {
-  cleanup();
+process.on('SIGINT', async () => {
+  await cleanup();
   process.exit(130);
 });
 
@@ -90,7 +116,11 @@ async function finishedCount(base) {
 let status = 0;
 try {
   log('Seeding 2,000 athletes x 8 rounds (16,000 screens through the engine; several minutes on 2 busy cores)...');
-  server = tsx(['test/bench/api-server.ts'], { DATABASE_URL: databaseUrl(port, password, 'squadline_bench') }, ['ignore', 'pipe', 'inherit']);
+  // The server runs with the Node options it has in production (SERVER_NODE_OPTIONS; README, Deployment).
+  const env = { DATABASE_URL: databaseUrl(port, password, 'squadline_bench'), NODE_OPTIONS: `${process.env.NODE_OPTIONS ?? ''} ${SERVER_NODE_OPTIONS}`.trim() };
+  // The server profiles itself (node:inspector) during each route's measured run, one file per route.
+  if (CPU_PROF) env.BENCH_CPU_PROF_DIR = path.resolve(CPU_PROF);
+  server = tsx(['test/bench/api-server.ts'], env, ['ignore', 'pipe', 'inherit']);
   const ready = await new Promise((resolve, reject) => {
     const lines = readline.createInterface({ input: server.stdout });
     lines.on('line', (line) => {
@@ -100,13 +130,17 @@ try {
   });
   const base = `http://127.0.0.1:${ready.port}`;
   const auth = { cookie: ready.cookie };
-  const targets = [
-    { name: 'SELECT 1 (bare baseline)', url: `${base}/bench/select-1`, headers: {} },
+  const allTargets = [
+    { key: 'select-1', name: 'SELECT 1 (bare baseline)', url: `${base}/bench/select-1`, headers: {} },
     // The floor of any signed-in route: session check, one membership query, the app's middleware.
-    { name: 'GET /api/me (signed-in floor)', url: `${base}/api/me`, headers: auth },
-    { name: 'GET /api/squads/:id/trends (40 athletes, 8 rounds)', url: `${base}/api/squads/${ready.squadId}/trends`, headers: auth },
-    { name: 'GET /api/athletes/:id/progress (8 screens)', url: `${base}/api/athletes/${ready.athleteId}/progress`, headers: auth },
+    { key: 'me', name: 'GET /api/me (signed-in floor)', url: `${base}/api/me`, headers: auth },
+    { key: 'trends', name: 'GET /api/squads/:id/trends (40 athletes, 8 rounds)', url: `${base}/api/squads/${ready.squadId}/trends`, headers: auth },
+    { key: 'progress', name: 'GET /api/athletes/:id/progress (8 screens)', url: `${base}/api/athletes/${ready.athleteId}/progress`, headers: auth },
   ];
+  const unknown = (ONLY ?? []).filter((k) => !allTargets.some((t) => t.key === k));
+  if (unknown.length) throw new Error(`--only: unknown route(s) ${unknown.join(', ')}; choose from ${allTargets.map((t) => t.key).join(', ')}.`);
+  // Ratios are read against the baseline, so it always runs first.
+  const targets = allTargets.filter((t, i) => i === 0 || !ONLY || ONLY.includes(t.key));
   for (const t of targets) {
     const check = await fetch(t.url, { headers: t.headers });
     if (!check.ok) throw new Error(`${t.name} answered ${check.status} before the run.`);
@@ -125,6 +159,7 @@ try {
     for (const t of targets) {
       log(`turn ${round + 1}/${ROUNDS}, ${t.name}: warm-up ${WARMUP} s, then ${DURATION} s with ${CONNECTIONS} connections...`);
       await run(t.url, t.headers, WARMUP);
+      if (CPU_PROF) await fetch(`${base}/bench/profile/start`, { method: 'POST' });
       const finishedBefore = await finishedCount(base);
       const nodeBefore = serverCpuMs([server.pid]);
       const pgBefore = serverCpuMs([postmasterPid()]);
@@ -133,6 +168,7 @@ try {
       const pgCpu = serverCpuMs([postmasterPid()]) - pgBefore;
       // Divided by the answers the server finished in the window (the count request itself excluded).
       const n = (await finishedCount(base)) - finishedBefore - 1;
+      if (CPU_PROF) await fetch(`${base}/bench/profile/stop?name=${t.key}-${round + 1}`, { method: 'POST' });
       rows.push({
         cpuPerRequest: n ? (nodeCpu + pgCpu) / n : NaN,
         nodePerRequest: n ? nodeCpu / n : NaN,
@@ -189,6 +225,6 @@ try {
   console.error(error);
   status = 1;
 } finally {
-  cleanup();
+  await cleanup();
 }
 process.exit(status);
