@@ -257,13 +257,11 @@ describe('a plan adjusted before the clearance', () => {
     expect(before.earlierAdjustment).toBeNull();
     // The tester keeps only the first of the exercises the athlete may do meanwhile.
     const [first] = before.result.plan.exercises as PlannedExercise[];
-    const adjusted = await as.tester
-      .put(`/api/assessments/${screen.assessmentId}/plan`)
-      .send({
-        exercises: [{ id: first!.id, prescription: first!.prescription }],
-        note: 'One drill while sore',
-        basedOn: { resultVersion: 1, adjustedAt: null },
-      });
+    const adjusted = await as.tester.put(`/api/assessments/${screen.assessmentId}/plan`).send({
+      exercises: [{ id: first!.id, prescription: first!.prescription }],
+      note: 'One drill while sore',
+      basedOn: { resultVersion: 1, adjustedAt: null },
+    });
     expect(adjusted.status).toBe(200);
     expect(adjusted.body.earlierAdjustment).toBeNull();
 
