@@ -3,7 +3,8 @@
  * side, pelvic drop, knee-to-wall per side, limb symmetry) and the maturity offset, each with its flag
  * threshold and its error band. Pure, so the charts only draw.
  */
-import { THRESHOLDS, type MetricId, type Sex } from '@/features/screening/engine';
+import type { MetricId, Sex } from '@/features/screening/engine';
+import { THRESHOLDS } from '@/features/screening/engine/for-screens';
 import type { ErrorMargin } from './compare';
 import type { ProgressResponse } from './progress-types';
 

@@ -3,7 +3,8 @@
  * and the screen use (age groups, re-screen due, filters, sorting, the CSV table), so the table on screen
  * and the CSV download can never disagree.
  */
-import { DEFAULT_RESCREEN_WEEKS, type MaturityBand, type PatternId, type Sex } from '@/features/screening/engine';
+import type { MaturityBand, PatternId, Sex } from '@/features/screening/engine';
+import { DEFAULT_RESCREEN_WEEKS } from '@/features/screening/engine/for-screens';
 import { daysBetween } from './compare';
 
 export type TrendRound = {

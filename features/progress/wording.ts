@@ -2,7 +2,8 @@
  * The comparison of two screens in words: one version for staff (with numbers and the error they are
  * judged against) and one for families (no angles, no distances, no jargon). Pure.
  */
-import { getTask, type FlagSide, type PatternId, type TaskId } from '@/features/screening/engine';
+import type { FlagSide, PatternId, TaskId } from '@/features/screening/engine';
+import { getTask } from '@/features/screening/engine/for-screens';
 import type { FlagRef, MeasurementChange, ScreenComparison } from './compare';
 
 const UNIT: Record<MeasurementChange['unit'], string> = { deg: '°', cm: ' cm', percent: ' %', years: ' y', grades: ' grades' };

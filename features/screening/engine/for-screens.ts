@@ -3,6 +3,8 @@
  * exercise library, the geometry behind the live angles on a photo, and a few constants. Screens import
  * from here, so the browser does not download and evaluate the whole engine with them (an assessment is
  * scored on the server). Everything else comes from `index.ts`; types may keep coming from there.
+ * Screens outside screening (the progress charts) take what they need from here too: one `index.ts`
+ * import from a second lazily loaded screen puts the whole scoring code in the chunk every page loads.
  */
 export { BATTERY, TASK_IDS, getTask, type TaskSpec, type ViewSpec, type CriterionSpec } from './battery';
 export { LANDMARKS, getLandmark, type LandmarkSpec } from './landmarks';
@@ -10,4 +12,5 @@ export { EXERCISES } from './exercises';
 export { frontalPlaneProjectionAngle, kneeFlexion, pelvicObliquity, tibialInclination, trunkLean } from './geometry';
 export { strengthEnduranceLoad } from './strength';
 export { MATURITY_AGE_RANGE } from './maturity';
-export { DEFAULT_LOAD_INCREMENT_KG } from './validate';
+export { DEFAULT_LOAD_INCREMENT_KG, DEFAULT_RESCREEN_WEEKS } from './validate';
+export { THRESHOLDS } from './thresholds';
