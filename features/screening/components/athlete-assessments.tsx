@@ -9,7 +9,7 @@ import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
-import { assessmentHref } from './round-screen';
+import { assessmentHref } from '@/features/screening/assessment-href';
 import { SeverityTag, StatusTag } from './status-tag';
 import { formatDate } from '@/features/ui/format-date';
 

@@ -20,13 +20,9 @@ import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { RoundProgress } from './round-progress';
 import { PlainTag, SeverityTag, StatusTag } from './status-tag';
 import { formatDate } from '@/features/ui/format-date';
+import { assessmentHref } from '@/features/screening/assessment-href';
 
 const byName = (a: RoundAthlete, b: RoundAthlete) => a.lastName.localeCompare(b.lastName) || a.firstName.localeCompare(b.firstName);
-
-/** Submitted: the result. Otherwise the capture screens, for those who screen; others see the result page. */
-export function assessmentHref(a: Pick<RoundAthlete, 'assessmentId' | 'status'>, screens = true): string {
-  return a.status === 'submitted' || !screens ? `/screening/assessments/${a.assessmentId}/result` : `/screening/assessments/${a.assessmentId}`;
-}
 
 /** An athlete's flags at a glance: how many of each severity, then their names, most severe first. */
 function AthleteFlags({ flags, testID }: { flags: RoundAthleteFlag[]; testID: string }) {
