@@ -1,4 +1,4 @@
-import Svg, { Circle, G, Image as SvgImage, Line, Rect, Text as SvgText } from 'react-native-svg';
+import { Circle, G, Image as SvgImage, Line, Rect, Svg, Text as SvgText } from './overlay-svg';
 import type { LandmarkSet } from '@/features/screening/contract';
 import type { LandmarkId } from '@/features/screening/engine';
 import type { Overlay } from '@/features/screening/overlay/overlay';
