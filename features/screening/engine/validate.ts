@@ -7,11 +7,10 @@ import { BATTERY, getTask, isTaskId, type TaskSpec } from './battery';
 import { EngineInputError, requireFinite } from './errors';
 import { checkPoint, isValidPoint } from './geometry';
 import { isLandmarkId } from './landmarks';
+import { DEFAULT_LOAD_INCREMENT_KG, DEFAULT_MATURITY_METHOD, DEFAULT_RESCREEN_WEEKS } from './defaults';
 import type { AssessmentInput, AthleteInput, LandmarkId, MaturityMethod, Point, Side, TaskId, View } from './types';
 
-export const DEFAULT_RESCREEN_WEEKS = 6;
-export const DEFAULT_LOAD_INCREMENT_KG = 2.5;
-export const DEFAULT_MATURITY_METHOD: MaturityMethod = 'moore2015';
+export { DEFAULT_LOAD_INCREMENT_KG, DEFAULT_MATURITY_METHOD, DEFAULT_RESCREEN_WEEKS };
 
 export type Landmarks = Partial<Record<LandmarkId, Point>>;
 
