@@ -1,14 +1,14 @@
 import type * as ExpoFont from 'expo-font';
 // Imported here, not in the pre-rendering branch: the export copies only the files the browser's bundle
-// references, and the preload links point at these.
+// references, and the pages' @font-face rules point at these.
 import { FONT_SOURCES } from './font-sources';
 
 /**
  * Web: never waits for the fonts. While pages are pre-rendered (Node, no `window`), every page registers
- * them, so its HTML carries the @font-face rules and a preload link for each file, fetched at once beside
- * the scripts. `font-display: optional` uses the face only if it is there within the first moment of the
- * page, and otherwise keeps the system face for that visit: text never jumps when a font arrives late on
- * a slow hall connection, and the next visit has the files in its cache.
+ * them, so its HTML carries the @font-face rules (Expo's preload links are taken out after the export:
+ * server/dev/service-worker.mjs). `font-display: optional` uses the face only if it is there within the
+ * first moment of the page, and otherwise keeps the system face for that visit: text never jumps when a
+ * font arrives late on a slow hall connection, and the next visit has the files in its cache.
  *
  * The browser needs nothing more: the rules are in the page's head and stay there as the app moves
  * between screens. So expo-font (with expo-asset and a font observer, about 8 KB gzip that every page
