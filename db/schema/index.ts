@@ -7,3 +7,4 @@ export * from './idempotency';
 export * from './care';
 export * from './security';
 export * from './storage';
+export * from './progress';

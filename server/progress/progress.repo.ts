@@ -1,13 +1,23 @@
 import type { ScreenForComparison } from '@/features/progress/compare';
 import type { AssessmentResult } from '@/features/screening/engine';
 import { preparedRows } from '@/db/client';
+import type { RoundKneeAngles } from '@/db/schema';
 import type { ClubScope } from '@/server/access/scope';
 import type { Executor } from '@/server/screening/screening.repo';
 
-/** One round of the squad: [id, name, screenedOn], in date order. */
-export type SeasonRound = [id: string, name: string, screenedOn: string];
-/** One current result in one of those rounds: [round index, athlete id, flag ids, knee-angle ids, knee-angle values]. */
-export type SeasonResult = [round: number, athleteId: string, flagIds: string[] | null, fppaIds: string[] | null, fppaValues: (number | null)[] | null];
+/**
+ * One round of the squad, in date order, with its summary (`round_summaries`; nulls for a round nobody
+ * has been screened in yet): [id, name, screenedOn, screened, athletes flagged per pattern, knee angles:
+ * the screened athletes' ids and per measurement one value (0.1 degree) per athlete].
+ */
+export type SeasonRound = [
+  id: string,
+  name: string,
+  screenedOn: string,
+  screened: number,
+  flagged: Record<string, number> | null,
+  kneeAngles: RoundKneeAngles | null,
+];
 /**
  * One current member of the squad with their newest submitted screen anywhere (or nulls):
  * [id, first name, last name, sex, date of birth, clearance, latest assessment id, screened on, flag ids,
@@ -27,7 +37,7 @@ export type SeasonAthlete = [
   maturityBand: string | null,
   rescreenDate: string | null,
 ];
-export type Season = { squad: { id: string; name: string }; rounds: SeasonRound[]; results: SeasonResult[]; athletes: SeasonAthlete[] };
+export type Season = { squad: { id: string; name: string }; rounds: SeasonRound[]; athletes: SeasonAthlete[] };
 
 /**
  * The parts of a stored result that an athlete's history shows and compares: the measurements, each
@@ -51,9 +61,10 @@ export type HistoryRow = {
 
 /**
  * Reads for progress and trends, each one statement (one round trip, planned once per connection).
- * Every statement filters by the scope's club. Trends read the small generated columns of
- * `assessment_results` (flag ids and sides, knee angles, maturity band, re-screen date) through the
- * covering index `assessment_results_current_summary_idx`, never the full result; one athlete's history
+ * Every statement filters by the scope's club. Trends read one summary row per round and, for each
+ * member's newest screen, the small generated columns of `assessment_results` (flag ids and sides,
+ * maturity band, re-screen date) through `assessment_results_current_summary_idx`, never the full
+ * result; one athlete's history
  * reads the full results the comparison needs (a handful of rows) and only the task names of their inputs.
  */
 export function progressRepo(db: Executor, scope: ClubScope) {
@@ -100,64 +111,35 @@ export function progressRepo(db: Executor, scope: ClubScope) {
     },
 
     /**
-     * A squad's season in two statements run side by side: the squad, its rounds and each current member
-     * with their newest screen (wherever it was: an athlete may have changed squad) and the clearance in
-     * force, as one small JSON value; and the current result summaries of every submitted screen in the
-     * squad's rounds, as plain rows (PostgreSQL writes 300-odd rows faster than it builds them into JSON).
-     * Null when the squad is not in the club.
+     * A squad's season in one statement: the squad, its rounds with their summaries, and each current
+     * member with their newest screen (wherever it was: an athlete may have changed squad) and the
+     * clearance in force, as one small JSON value. The summaries (`round_summaries`,
+     * `athlete_latest_screens`) are kept by PostgreSQL on every write of what they sum. Null when the
+     * squad is not in the club.
      */
     async season(squadId: string): Promise<Season | null> {
-      const [[head], results] = await Promise.all([
-        preparedRows<{ squad: Season['squad'] | null; rounds: SeasonRound[]; athletes: SeasonAthlete[] }>(
-          db,
-          'progress_squad_season',
-          `select
-            (select json_build_object('id', s.id, 'name', s.name) from squads s where s.id = $1 and s.club_id = $2) as squad,
-            (select coalesce(json_agg(json_build_array(r.id, r.name, r.screened_on) order by r.screened_on, r.created_at, r.id), '[]')
-              from rounds r where r.squad_id = $1 and r.club_id = $2) as rounds,
-            (select coalesce(json_agg(json_build_array(m.id, m.first_name, m.last_name, m.sex, m.date_of_birth, c.status,
-                l.id, l.screened_on, ar.flag_ids, ar.flag_sides, ar.maturity_band, ar.rescreen_date) order by m.last_name, m.first_name, m.id), '[]')
-              from athletes m
-              left join (
-                -- Each member's newest submitted screen by its round's date: their screens (index-only) and
-                -- the rounds joined once for all 40, then one row per athlete. (A lateral search per athlete
-                -- had the planner scan every round of the club once per member.)
-                select distinct on (a.athlete_id) a.athlete_id, a.id, r.screened_on
-                from athletes m2
-                join assessments a on a.athlete_id = m2.id and a.status = 'submitted'
-                join rounds r on r.id = a.round_id
-                where m2.squad_id = $1 and m2.club_id = $2 and m2.archived_at is null
-                order by a.athlete_id, r.screened_on desc, r.created_at desc, a.id desc
-              ) l on l.athlete_id = m.id
-              left join assessment_results ar on ar.assessment_id = l.id and ar.is_current
-              left join lateral (
-                select status from clearances where athlete_id = m.id and club_id = $2 order by created_at desc limit 1
-              ) c on true
-              where m.squad_id = $1 and m.club_id = $2 and m.archived_at is null) as athletes`,
-          [squadId, clubId],
-        ),
-        preparedRows<{ roundId: string; athleteId: string; flagIds: string[] | null; fppaIds: string[] | null; fppaValues: (number | null)[] | null }>(
-          db,
-          'progress_squad_results',
-          `select a.round_id as "roundId", a.athlete_id as "athleteId", ar.flag_ids as "flagIds", ar.fppa_ids as "fppaIds", ar.fppa_values as "fppaValues"
+      const [head] = await preparedRows<{ squad: Season['squad'] | null; rounds: SeasonRound[]; athletes: SeasonAthlete[] }>(
+        db,
+        'progress_squad_season',
+        `select
+          (select json_build_object('id', s.id, 'name', s.name) from squads s where s.id = $1 and s.club_id = $2) as squad,
+          (select coalesce(json_agg(json_build_array(r.id, r.name, r.screened_on, coalesce(rs.screened, 0), rs.flagged, rs.knee_angles)
+              order by r.screened_on, r.created_at, r.id), '[]')
             from rounds r
-            join assessments a on a.round_id = r.id and a.status = 'submitted'
-            join assessment_results ar on ar.assessment_id = a.id and ar.is_current
-            where r.squad_id = $1 and r.club_id = $2`,
-          [squadId, clubId],
-        ),
-      ]);
+            left join round_summaries rs on rs.round_id = r.id
+            where r.squad_id = $1 and r.club_id = $2) as rounds,
+          (select coalesce(json_agg(json_build_array(m.id, m.first_name, m.last_name, m.sex, m.date_of_birth, c.status,
+              l.assessment_id, l.screened_on, l.flag_ids, l.flag_sides, l.maturity_band, l.rescreen_date) order by m.last_name, m.first_name, m.id), '[]')
+            from athletes m
+            left join athlete_latest_screens l on l.athlete_id = m.id
+            left join lateral (
+              select status from clearances where athlete_id = m.id and club_id = $2 order by created_at desc limit 1
+            ) c on true
+            where m.squad_id = $1 and m.club_id = $2 and m.archived_at is null) as athletes`,
+        [squadId, clubId],
+      );
       if (!head?.squad) return null;
-      const index = new Map(head.rounds.map(([id], i) => [id, i]));
-      return {
-        squad: head.squad,
-        rounds: head.rounds,
-        athletes: head.athletes,
-        results: results.flatMap((r): SeasonResult[] => {
-          const i = index.get(r.roundId);
-          return i === undefined ? [] : [[i, r.athleteId, r.flagIds, r.fppaIds, r.fppaValues]];
-        }),
-      };
+      return { squad: head.squad, rounds: head.rounds, athletes: head.athletes };
     },
   };
 }

@@ -4,7 +4,6 @@ import type { ProgressResponse, ProgressScreen } from '@/features/progress/progr
 import {
   ageGroupOf,
   filterAthletes,
-  patternOfFlag,
   rescreenOf,
   sidedPatterns,
   type TrendAthlete,
@@ -12,7 +11,7 @@ import {
   type TrendRound,
   type TrendsResponse,
 } from '@/features/progress/trends';
-import type { MaturityBand, PatternId, TaskId } from '@/features/screening/engine';
+import type { MaturityBand, TaskId } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
 import { notFound } from '@/server/http/errors';
 import type { Executor } from '@/server/screening/screening.repo';
@@ -59,33 +58,27 @@ export function progressService(db: Executor, scope: ClubScope) {
       const season = await repo.season(squadId);
       if (!season) throw notFound('The squad');
 
-      const rounds: TrendRound[] = season.rounds.map(([id, name, screenedOn]) => ({ id, name, screenedOn, screened: 0, flagged: {}, kneeAngles: {} }));
+      const rounds: TrendRound[] = [];
       const anglesByAthlete = new Map<string, Record<string, (number | null)[]>>();
-      for (const [index, athleteId, flagIds, fppaIds, fppaValues] of season.results) {
-        const round = rounds[index];
-        if (!round) continue;
-        round.screened += 1;
-        // One count per athlete and pattern, however many tasks or sides show it.
-        const counted: PatternId[] = [];
-        for (const id of flagIds ?? []) {
-          const p = patternOfFlag(id);
-          if (counted.includes(p)) continue;
-          counted.push(p);
-          round.flagged[p] = (round.flagged[p] ?? 0) + 1;
+      season.rounds.forEach(([id, name, screenedOn, screened, flagged, kneeAngles], index) => {
+        const round: TrendRound = { id, name, screenedOn, screened, flagged: (flagged ?? {}) as TrendRound['flagged'], kneeAngles: {} };
+        rounds.push(round);
+        // Parallel arrays (see `round_summaries`), already rounded to 0.1 degree by PostgreSQL.
+        const screenedIds = kneeAngles?.athletes ?? [];
+        for (const measurementId in kneeAngles?.angles) {
+          const values = kneeAngles.angles[measurementId]!;
+          const all: number[] = (round.kneeAngles[measurementId] = []);
+          for (let i = 0; i < values.length; i++) {
+            const angle = values[i];
+            if (typeof angle !== 'number') continue;
+            all.push(angle);
+            const athleteId = screenedIds[i]!;
+            let mine = anglesByAthlete.get(athleteId);
+            if (!mine) anglesByAthlete.set(athleteId, (mine = {}));
+            (mine[measurementId] ??= season.rounds.map(() => null))[index] = angle;
+          }
         }
-        const ids = fppaIds ?? [];
-        const values = fppaValues ?? [];
-        let mine = anglesByAthlete.get(athleteId);
-        if (!mine) anglesByAthlete.set(athleteId, (mine = {}));
-        for (let i = 0; i < ids.length; i++) {
-          const v = values[i];
-          if (typeof v !== 'number') continue;
-          const id = ids[i]!;
-          const angle = Math.round(v * 10) / 10;
-          (round.kneeAngles[id] ??= []).push(angle);
-          (mine[id] ??= rounds.map(() => null))[index] = angle;
-        }
-      }
+      });
       // Distributions are read sorted (quartiles, strip plots).
       for (const round of rounds) for (const list of Object.values(round.kneeAngles)) list.sort((a, b) => a - b);
 

@@ -18,7 +18,7 @@ const INTRO: Record<string, { title: string; text: string }> = {
   admin: { title: 'Club set-up', text: 'Squads, people and consent records for the club.' },
   head_coach: { title: 'Squad overview', text: 'Your squads at a glance.' },
   tester: { title: 'Courtside', text: 'Pick a squad, then screen one athlete after another.' },
-  physio: { title: 'Athlete review', text: 'Screens waiting for your review, and athletes of the club.' },
+  physio: { title: 'Athlete review', text: "Screens to review, and the club's athletes." },
   parent: { title: 'Your family', text: 'What your child does in screening and training, and why.' },
 };
 
