@@ -1,6 +1,7 @@
-import { Navigator, Redirect, Slot } from 'expo-router';
+import { Navigator, Redirect, Slot, usePathname } from 'expo-router';
 import { can } from '@/features/access/permissions';
 import { useMeQuery } from '@/features/auth/api/get-me';
+import { signedOutOnThisDevice } from '@/features/auth/return-to';
 import { DeviceGate } from '@/features/offline/components/device-gate';
 import { ScreeningSync } from '@/features/screening/components/screening-sync';
 import { ActiveClubProvider, useActiveClub } from '@/features/session/active-club';
@@ -20,10 +21,16 @@ export default function ClubLayout() {
 
 function SignedIn() {
   const me = useMeQuery();
+  const pathname = usePathname();
   // The frame is also what the pre-rendered HTML shows: the page's place and head at first paint.
   if (me.isPending) return <ShellFrame />;
   if (me.error) return <FullScreenMessage message={me.error.message} />;
-  if (!me.data) return <Redirect href="/sign-in" />;
+  // Back to this page after signing in (a link in an e-mail to a child's summary, a review); not after
+  // signing out, when the next person on a shared phone starts at their own home.
+  if (!me.data) {
+    const back = pathname && pathname !== '/' && !signedOutOnThisDevice();
+    return <Redirect href={back ? { pathname: '/sign-in', params: { next: pathname } } : '/sign-in'} />;
+  }
   if (me.data.memberships.length === 0) {
     return <FullScreenMessage message="Your account is not part of any club yet. Ask your club admin for an invitation." />;
   }

@@ -42,11 +42,30 @@ test('empty fields are named beside the fields', async ({ page }) => {
   await expect(page.getByText('Enter your password.')).toBeVisible();
 });
 
-test('signed-out visits to signed-in pages redirect to sign-in', async ({ page }) => {
-  for (const path of ['/', '/athletes', '/people', '/dev/mailbox']) {
+test('signed-out visits to signed-in pages redirect to sign-in, which then opens the page asked for', async ({ page }) => {
+  await page.goto('/');
+  await expect(page).toHaveURL(/\/sign-in$/);
+  for (const path of ['/athletes', '/people', '/dev/mailbox']) {
     await page.goto(path);
-    await expect(page).toHaveURL(/\/sign-in$/);
+    await expect(page).toHaveURL(new RegExp(`/sign-in\\?next=${encodeURIComponent(path)}$`));
   }
+  // A link in an e-mail (here the athletes list) opened signed out: after signing in, that page, not home.
+  await page.goto('/athletes');
+  await expect(page).toHaveURL(/\/sign-in\?next=/);
+  await page.getByTestId('email').fill('coach@squadline.test');
+  await page.getByTestId('password').fill('squadline-demo');
+  await page.getByTestId('sign-in-submit').click();
+  await expect(page).toHaveURL(/\/athletes$/);
+  await expect(page.getByRole('heading', { name: 'Athletes' })).toBeVisible();
+});
+
+test('a next address pointing off the app goes home after sign-in', async ({ page }) => {
+  await page.goto('/sign-in?next=' + encodeURIComponent('//evil.test/x'));
+  await page.getByTestId('email').fill('coach@squadline.test');
+  await page.getByTestId('password').fill('squadline-demo');
+  await page.getByTestId('sign-in-submit').click();
+  await expect(page.getByTestId('home-head_coach')).toBeVisible();
+  await expect(page).toHaveURL(/:\d+\/$/);
 });
 
 test("a parent cannot open another family's athlete", async ({ page, request }) => {

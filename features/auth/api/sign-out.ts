@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/features/api/client';
+import { rememberSignOut } from '../return-to';
 import { authKeys } from './keys';
 
 export const signOut = () => api<void>('/auth/sign-out', { method: 'POST' });
@@ -9,6 +10,7 @@ export function useSignOutMutation() {
   return useMutation({
     mutationFn: signOut,
     onSuccess: () => {
+      rememberSignOut(true);
       // Nothing of the previous person may stay in memory on a shared phone.
       qc.clear();
       qc.setQueryData(authKeys.me(), null);

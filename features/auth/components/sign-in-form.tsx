@@ -1,8 +1,9 @@
-import { useRouter } from 'expo-router';
+import { useLocalSearchParams, useRouter } from 'expo-router';
 import { Formik } from 'formik';
 import { StyleSheet, View } from 'react-native';
 import { fieldErrorsOf } from '@/features/api/client';
 import { useSignInMutation } from '@/features/auth/api/sign-in';
+import { rememberSignOut, returnPath } from '@/features/auth/return-to';
 import { signInSchema, type SignInInput } from '@/features/auth/schemas';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
@@ -11,6 +12,8 @@ import { space } from '@/features/ui/theme';
 
 export function SignInForm() {
   const router = useRouter();
+  // The page that sent the person here (a link in an e-mail), opened once they are signed in.
+  const { next } = useLocalSearchParams<{ next?: string }>();
   const signIn = useSignInMutation();
   return (
     <Formik<SignInInput>
@@ -19,7 +22,8 @@ export function SignInForm() {
       onSubmit={async (values, helpers) => {
         try {
           await signIn.mutateAsync(signInSchema.cast(values));
-          router.replace('/');
+          rememberSignOut(false);
+          router.replace(returnPath(next) as '/');
         } catch (error) {
           const fields = fieldErrorsOf(error);
           if (fields) helpers.setErrors(fields);
