@@ -1,5 +1,18 @@
 import { describe, expect, it } from 'vitest';
-import { addDays, ageGroupOf, csvRows, filterAthletes, rescreenOf, shareOf, sidedPatterns, sortAthletes, type TrendAthlete } from './trends';
+import {
+  addDays,
+  ageGroupOf,
+  athleteKneeSeries,
+  csvRows,
+  filterAthletes,
+  kneeMeasurementIds,
+  rescreenOf,
+  roundKneeAngles,
+  shareOf,
+  sidedPatterns,
+  sortAthletes,
+  type TrendAthlete,
+} from './trends';
 
 function athlete(overrides: Partial<TrendAthlete>): TrendAthlete {
   return {
@@ -17,7 +30,6 @@ function athlete(overrides: Partial<TrendAthlete>): TrendAthlete {
     rescreenDate: null,
     rescreenDue: true,
     latestFlags: { left: [], right: [], both: [], unsided: [] },
-    kneeAngles: {},
     ...overrides,
   };
 }
@@ -110,11 +122,41 @@ describe('share of a round with a flag', () => {
     [2, 1, 0.5],
     [4, 0, 0],
   ])('%i screened, %i flagged', (screened, flagged, share) => {
-    expect(
-      shareOf({ id: 'r', name: 'r', screenedOn: '2026-01-01', screened, flagged: { 'dynamic-knee-valgus': flagged }, kneeAngles: {} }, 'dynamic-knee-valgus'),
-    ).toBeCloseTo(share, 10);
+    expect(shareOf({ id: 'r', name: 'r', screenedOn: '2026-01-01', screened, flagged: { 'dynamic-knee-valgus': flagged } }, 'dynamic-knee-valgus')).toBeCloseTo(
+      share,
+      10,
+    );
   });
   it('is null for a round nobody was screened in', () => {
-    expect(shareOf({ id: 'r', name: 'r', screenedOn: '2026-01-01', screened: 0, flagged: {}, kneeAngles: {} }, 'heels-lifting')).toBeNull();
+    expect(shareOf({ id: 'r', name: 'r', screenedOn: '2026-01-01', screened: 0, flagged: {} }, 'heels-lifting')).toBeNull();
+  });
+});
+
+describe('knee angles sent once (our choice of layout)', () => {
+  // Two rounds, three athletes: x left the squad after round 1, z joined for round 2.
+  const k = {
+    athleteIds: ['x', 'y', 'z'],
+    values: {
+      'single-leg-squat-right/fppa/right': [
+        [14.3, 9.5, null],
+        [null, 11.4, 22.6],
+      ],
+      'drop-landing/fppa/left': [[], [null, null, null]],
+    },
+  };
+  it('lists the measurements with a value, sorted', () => {
+    expect(kneeMeasurementIds(k)).toEqual(['single-leg-squat-right/fppa/right']);
+  });
+  it("gives a round's distribution sorted, leavers included", () => {
+    expect(roundKneeAngles(k, 'single-leg-squat-right/fppa/right', 0)).toEqual([9.5, 14.3]);
+    expect(roundKneeAngles(k, 'single-leg-squat-right/fppa/right', 1)).toEqual([11.4, 22.6]);
+    expect(roundKneeAngles(k, 'drop-landing/fppa/left', 0)).toEqual([]);
+    expect(roundKneeAngles(k, 'unknown', 0)).toEqual([]);
+  });
+  it("gives an athlete's series per round, null where not measured", () => {
+    expect(athleteKneeSeries(k, 'y', 'single-leg-squat-right/fppa/right', 2)).toEqual([9.5, 11.4]);
+    expect(athleteKneeSeries(k, 'z', 'single-leg-squat-right/fppa/right', 2)).toEqual([null, 22.6]);
+    expect(athleteKneeSeries(k, 'y', 'drop-landing/fppa/left', 2)).toEqual([null, null]);
+    expect(athleteKneeSeries(k, 'nobody', 'single-leg-squat-right/fppa/right', 2)).toEqual([null, null]);
   });
 });

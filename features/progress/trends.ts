@@ -15,8 +15,22 @@ export type TrendRound = {
   screened: number;
   /** Per pattern: how many of the screened athletes had that flag (an athlete with it on both sides counts once). */
   flagged: Partial<Record<PatternId, number>>;
-  /** Knee angles from the front (FPPA, degrees, 0.1 precision) of everyone screened, by measurement id (e.g. 'single-leg-squat-left/fppa/left'), sorted. */
-  kneeAngles: Record<string, number[]>;
+};
+
+/**
+ * Knee angles from the front (FPPA, degrees, 0.1 precision) of everyone screened in the squad's rounds,
+ * each angle once: per round they draw the squad's distribution, per athlete the change between two
+ * rounds. (Athletes who have since left the squad are in the distributions, not in the table.)
+ */
+export type TrendKneeAngles = {
+  /** Everyone screened in the rounds, in the order of the values below. */
+  athleteIds: string[];
+  /**
+   * By measurement id (e.g. 'single-leg-squat-left/fppa/left'): per round of the response's `rounds`
+   * (same order), one value per athlete of `athleteIds`, null where not measured; an empty list where
+   * nobody was.
+   */
+  values: Record<string, (number | null)[][]>;
 };
 
 export type SidedPatterns = { left: PatternId[]; right: PatternId[]; both: PatternId[]; unsided: PatternId[] };
@@ -37,11 +51,6 @@ export type TrendAthlete = {
   rescreenDate: string | null;
   rescreenDue: boolean;
   latestFlags: SidedPatterns;
-  /**
-   * Knee angles from the front (degrees, 0.1 precision) by measurement id, one value per round of the
-   * response's `rounds` (same order), null where not measured.
-   */
-  kneeAngles: Record<string, (number | null)[]>;
 };
 
 export type TrendsResponse = {
@@ -50,7 +59,28 @@ export type TrendsResponse = {
   today: string;
   rounds: TrendRound[];
   athletes: TrendAthlete[];
+  kneeAngles: TrendKneeAngles;
 };
+
+/** The knee-angle measurements with at least one value in the season, sorted. */
+export function kneeMeasurementIds(k: TrendKneeAngles): string[] {
+  return Object.keys(k.values)
+    .filter((id) => k.values[id]!.some((round) => round.some((v) => v !== null)))
+    .sort();
+}
+
+/** One round's knee angles of one measurement, everyone screened, sorted (for quartiles and dot plots). */
+export function roundKneeAngles(k: TrendKneeAngles, measurementId: string, roundIndex: number): number[] {
+  const values = k.values[measurementId]?.[roundIndex] ?? [];
+  return values.filter((v): v is number => v !== null).sort((a, b) => a - b);
+}
+
+/** One athlete's knee angle of one measurement per round (same order as `rounds`), null where not measured. */
+export function athleteKneeSeries(k: TrendKneeAngles, athleteId: string, measurementId: string, roundCount: number): (number | null)[] {
+  const at = k.athleteIds.indexOf(athleteId);
+  const rounds = k.values[measurementId] ?? [];
+  return Array.from({ length: roundCount }, (_, r) => (at < 0 ? null : (rounds[r]?.[at] ?? null)));
+}
 
 /** Age groups by whole years on the day: under-11, -13, -15, -17, -19 (our choice; clubs' own cut-off dates differ). */
 const AGE_GROUP_LIMITS = [11, 13, 15, 17, 19] as const;

@@ -8,6 +8,7 @@ import {
   sidedPatterns,
   type TrendAthlete,
   type TrendFilters,
+  type TrendKneeAngles,
   type TrendRound,
   type TrendsResponse,
 } from '@/features/progress/trends';
@@ -58,29 +59,33 @@ export function progressService(db: Executor, scope: ClubScope) {
       const season = await repo.season(squadId);
       if (!season) throw notFound('The squad');
 
-      const rounds: TrendRound[] = [];
-      const anglesByAthlete = new Map<string, Record<string, (number | null)[]>>();
-      season.rounds.forEach(([id, name, screenedOn, screened, flagged, kneeAngles], index) => {
-        const round: TrendRound = { id, name, screenedOn, screened, flagged: (flagged ?? {}) as TrendRound['flagged'], kneeAngles: {} };
-        rounds.push(round);
-        // Parallel arrays (see `round_summaries`), already rounded to 0.1 degree by PostgreSQL.
-        const screenedIds = kneeAngles?.athletes ?? [];
-        for (const measurementId in kneeAngles?.angles) {
-          const values = kneeAngles.angles[measurementId]!;
-          const all: number[] = (round.kneeAngles[measurementId] = []);
-          for (let i = 0; i < values.length; i++) {
-            const angle = values[i];
-            if (typeof angle !== 'number') continue;
-            all.push(angle);
-            const athleteId = screenedIds[i]!;
-            let mine = anglesByAthlete.get(athleteId);
-            if (!mine) anglesByAthlete.set(athleteId, (mine = {}));
-            (mine[measurementId] ??= season.rounds.map(() => null))[index] = angle;
-          }
+      const rounds: TrendRound[] = season.rounds.map(([id, name, screenedOn, screened, flagged]) => ({
+        id,
+        name,
+        screenedOn,
+        screened,
+        flagged: (flagged ?? {}) as TrendRound['flagged'],
+      }));
+      // Each round's summary lists its own screened athletes; the response lists everyone once and
+      // places each round's values (already rounded to 0.1 degree by PostgreSQL) in that order.
+      const athleteIds: string[] = [];
+      const at = new Map<string, number>();
+      for (const [, , , , , k] of season.rounds) {
+        for (const id of k?.athletes ?? []) {
+          if (!at.has(id)) at.set(id, athleteIds.push(id) - 1);
+        }
+      }
+      const values: TrendKneeAngles['values'] = {};
+      season.rounds.forEach(([, , , , , k], r) => {
+        if (!k) return;
+        const where = k.athletes.map((id) => at.get(id)!);
+        for (const measurementId in k.angles) {
+          const theirs = k.angles[measurementId]!;
+          const all: (number | null)[] = new Array(athleteIds.length).fill(null);
+          for (let i = 0; i < theirs.length; i++) all[where[i]!] = theirs[i] ?? null;
+          (values[measurementId] ??= season.rounds.map(() => []))[r] = all;
         }
       });
-      // Distributions are read sorted (quartiles, strip plots).
-      for (const round of rounds) for (const list of Object.values(round.kneeAngles)) list.sort((a, b) => a - b);
 
       const athletes: TrendAthlete[] = season.athletes.map(
         ([id, firstName, lastName, sex, dateOfBirth, clearance, latestAssessmentId, lastScreenedOn, flagIds, flagSides, maturityBand, rescreenDate]) => {
@@ -100,11 +105,10 @@ export function progressService(db: Executor, scope: ClubScope) {
             rescreenDate: rescreen.date,
             rescreenDue: rescreen.due,
             latestFlags: sidedPatterns(flagIds ?? [], flagSides ?? []),
-            kneeAngles: anglesByAthlete.get(id) ?? {},
           };
         },
       );
-      return { squad: season.squad, today, rounds, athletes: filterAthletes(athletes, filters) };
+      return { squad: season.squad, today, rounds, athletes: filterAthletes(athletes, filters), kneeAngles: { athleteIds, values } };
     },
   };
 }

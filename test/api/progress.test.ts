@@ -2,7 +2,7 @@
 // from landmarks and distances chosen so every expected number below can be worked out by hand).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessmentResults, assessments, rounds } from '@/db/schema';
-import { addDays } from '@/features/progress/trends';
+import { addDays, athleteKneeSeries, roundKneeAngles } from '@/features/progress/trends';
 import { evaluateAssessment, type AssessmentInput } from '@/features/screening/engine';
 import { makeAthlete, makeClub, makeSquad, makeTestApp, makeUser, signedInAgent } from '../fixtures/builders';
 import { createTestDb, type TestDb } from '../fixtures/test-db';
@@ -196,7 +196,13 @@ describe('GET /api/squads/:id/trends', () => {
     expect(r2).toMatchObject({ screened: 2, flagged: { 'dynamic-knee-valgus': 1 } });
     expect(r2.flagged['dynamic-knee-valgus'] / r2.screened).toBe(0.5);
     // Knee angle distribution of round 2: 11.42 (Ana) and 14.25 (Bea), sorted.
-    expect(r2.kneeAngles['single-leg-squat-right/fppa/right']).toEqual([11.4, 14.3]); // 11.4212 and 14.2500 at 0.1 deg
+    expect(roundKneeAngles(res.body.kneeAngles, 'single-leg-squat-right/fppa/right', 1)).toEqual([11.4, 14.3]); // 11.4212 and 14.2500 at 0.1 deg
+    // Each angle is sent once: everyone screened in the season, each round's values in that order.
+    expect([...res.body.kneeAngles.athleteIds].sort()).toEqual([ids.ana, ids.bea, ids.cai].sort());
+    const sent = Object.values(res.body.kneeAngles.values as Record<string, (number | null)[][]>)
+      .flat(2)
+      .filter((v) => v !== null);
+    expect(sent).toHaveLength(5); // round 1: Ana, Bea, Cai; round 2: Ana, Bea (one knee-angle measurement each)
   });
 
   it('gives one row per current athlete with latest flags per side, days since and re-screen due', async () => {
@@ -219,10 +225,11 @@ describe('GET /api/squads/:id/trends', () => {
     expect(rows.Cai).toMatchObject({ daysSinceLastScreen: 100, rescreenDate: addDays(round1On, 42), rescreenDue: true });
     // Change per athlete between the two rounds, at 0.1 deg: Ana 11.4 - 22.6 = -11.2 deg; Cai 0 then absent.
     const k = 'single-leg-squat-right/fppa/right';
-    expect(rows.Ana.kneeAngles[k]).toEqual([22.6, 11.4]);
-    expect(rows.Ana.kneeAngles[k][1] - rows.Ana.kneeAngles[k][0]).toBeCloseTo(-11.2, 10);
-    expect(rows.Cai.kneeAngles[k][0]).toBeCloseTo(0, 10);
-    expect(rows.Cai.kneeAngles[k][1]).toBeNull();
+    const series = (name: string) => athleteKneeSeries(res.body.kneeAngles, rows[name].id, k, 2);
+    expect(series('Ana')).toEqual([22.6, 11.4]);
+    expect(series('Ana')[1]! - series('Ana')[0]!).toBeCloseTo(-11.2, 10);
+    expect(series('Cai')[0]).toBeCloseTo(0, 10);
+    expect(series('Cai')[1]).toBeNull();
   });
 
   it("shows the clearance in force: the physiotherapist's newest decision for the athlete", async () => {

@@ -9,7 +9,7 @@ import { Text } from '@/features/ui/components/text';
 import { space } from '@/features/ui/theme';
 import { squadTrendsCsvUrl, useSquadTrendsQuery } from '../api/get-squad-trends';
 import { BAND_LABELS, kneeAngleName, PATTERN_SHORT } from '../labels';
-import { AGE_GROUPS, filterAthletes, sortAthletes, type SortKey, type TrendFilters, type TrendsResponse } from '../trends';
+import { AGE_GROUPS, filterAthletes, kneeMeasurementIds, sortAthletes, type SortKey, type TrendFilters, type TrendsResponse } from '../trends';
 import { Chips } from './chips';
 import { canPrint, downloadFile, printPage, PRINT_HIDE, PRINT_ROOT, usePrintStyles } from './print';
 import { ChangeChart, FlagShareChart, KneeDistributionChart, patternsIn } from './trend-charts';
@@ -98,7 +98,7 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
   const [showFilters, setShowFilters] = useState(false);
   const rows = useMemo(() => sortAthletes(filterAthletes(data.athletes, filters), sort, descending), [data.athletes, filters, sort, descending]);
 
-  const kneeIds = useMemo(() => [...new Set(data.rounds.flatMap((r) => Object.keys(r.kneeAngles)))].sort(), [data.rounds]);
+  const kneeIds = useMemo(() => kneeMeasurementIds(data.kneeAngles), [data.kneeAngles]);
   const [kneeId, setKneeId] = useState(() => kneeIds.find((k) => k.startsWith('single-leg-squat-left')) ?? kneeIds[0] ?? '');
   const screenedRounds = data.rounds.filter((r) => r.screened > 0);
   const [fromId, setFromId] = useState(screenedRounds.at(-2)?.id ?? '');
@@ -211,7 +211,7 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
               options={kneeIds.map((k) => ({ value: k, label: kneeAngleName(k) }))}
             />
           </View>
-          <KneeDistributionChart rounds={data.rounds} measurementId={kneeId} name={kneeAngleName(kneeId)} />
+          <KneeDistributionChart rounds={data.rounds} kneeAngles={data.kneeAngles} measurementId={kneeId} name={kneeAngleName(kneeId)} />
           {screenedRounds.length >= 2 ? (
             <>
               <View style={styles.stack} {...PRINT_HIDE}>
@@ -219,7 +219,15 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
                 <Chips label="To round" value={toId} onChange={setToId} options={screenedRounds.map((r) => ({ value: r.id, label: r.name }))} />
               </View>
               {from && to && from.id !== to.id ? (
-                <ChangeChart athletes={rows} rounds={data.rounds} from={from} to={to} measurementId={kneeId} name={kneeAngleName(kneeId)} />
+                <ChangeChart
+                  athletes={rows}
+                  rounds={data.rounds}
+                  kneeAngles={data.kneeAngles}
+                  from={from}
+                  to={to}
+                  measurementId={kneeId}
+                  name={kneeAngleName(kneeId)}
+                />
               ) : null}
             </>
           ) : null}

@@ -6,7 +6,7 @@ import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
 import { ERROR_MARGINS, verdictFor } from '../compare';
 import { PATTERN_COLOURS, PATTERN_SHORT } from '../labels';
-import { shareOf, type TrendAthlete, type TrendRound } from '../trends';
+import { athleteKneeSeries, roundKneeAngles, shareOf, type TrendAthlete, type TrendKneeAngles, type TrendRound } from '../trends';
 import { AXIS_STYLE, shortDate } from './history-chart';
 import { NumbersTable } from './numbers-table';
 
@@ -111,10 +111,21 @@ function quartiles(sorted: number[]): { min: number; median: number; max: number
 }
 
 /** Every screened athlete's knee angle per round (dots) with the round's median (bar). */
-export function KneeDistributionChart({ rounds, measurementId, name }: { rounds: TrendRound[]; measurementId: string; name: string }) {
-  const points = rounds.flatMap((r, i) => (r.kneeAngles[measurementId] ?? []).map((v) => ({ x: i, y: v })));
-  const medians = rounds
-    .map((r, i) => ({ i, q: quartiles(r.kneeAngles[measurementId] ?? []) }))
+export function KneeDistributionChart({
+  rounds,
+  kneeAngles,
+  measurementId,
+  name,
+}: {
+  rounds: TrendRound[];
+  kneeAngles: TrendKneeAngles;
+  measurementId: string;
+  name: string;
+}) {
+  const sorted = rounds.map((_, i) => roundKneeAngles(kneeAngles, measurementId, i));
+  const points = sorted.flatMap((list, i) => list.map((v) => ({ x: i, y: v })));
+  const medians = sorted
+    .map((list, i) => ({ i, q: quartiles(list) }))
     .filter((m) => m.q !== null)
     .map((m) => ({ x: m.i, y: m.q!.median }));
   return (
@@ -126,9 +137,9 @@ export function KneeDistributionChart({ rounds, measurementId, name }: { rounds:
         <NumbersTable
           caption={`Knee angles, ${name}, per round`}
           columns={['Round', 'Athletes', 'Lowest (°)', 'Median (°)', 'Highest (°)']}
-          rows={rounds.map((r) => {
-            const q = quartiles(r.kneeAngles[measurementId] ?? []);
-            return [r.name, (r.kneeAngles[measurementId] ?? []).length, q ? r1(q.min) : '–', q ? r1(q.median) : '–', q ? r1(q.max) : '–'];
+          rows={rounds.map((r, i) => {
+            const q = quartiles(sorted[i]!);
+            return [r.name, sorted[i]!.length, q ? r1(q.min) : '–', q ? r1(q.median) : '–', q ? r1(q.max) : '–'];
           })}
         />
       }
@@ -163,6 +174,7 @@ export function KneeDistributionChart({ rounds, measurementId, name }: { rounds:
 export function ChangeChart({
   athletes,
   rounds,
+  kneeAngles,
   from,
   to,
   measurementId,
@@ -170,6 +182,7 @@ export function ChangeChart({
 }: {
   athletes: TrendAthlete[];
   rounds: TrendRound[];
+  kneeAngles: TrendKneeAngles;
   from: TrendRound;
   to: TrendRound;
   measurementId: string;
@@ -180,9 +193,9 @@ export function ChangeChart({
   const toIndex = rounds.indexOf(to);
   const rows = athletes
     .map((a) => {
-      const series = a.kneeAngles[measurementId];
-      const before = series?.[fromIndex];
-      const after = series?.[toIndex];
+      const series = athleteKneeSeries(kneeAngles, a.id, measurementId, rounds.length);
+      const before = series[fromIndex];
+      const after = series[toIndex];
       if (before === undefined || before === null || after === undefined || after === null) return null;
       const change = Math.round((after - before) * 100) / 100;
       return { name: `${a.firstName} ${a.lastName.slice(0, 1)}.`, before, after, change, verdict: verdictFor(change, margin.value) };
