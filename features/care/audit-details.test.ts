@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { auditDetailsInWords } from './audit-details';
+import { auditActionInWords, auditDetailsInWords, auditSubjectInWords } from './audit-details';
 
 // Our choice: what the on-screen trail shows of an event's details.
 describe('auditDetailsInWords', () => {
@@ -12,5 +12,15 @@ describe('auditDetailsInWords', () => {
     [{ somethingNew: 7, nested: { a: 1 } }, 'somethingNew: 7'],
   ])('%j reads "%s"', (detail, words) => {
     expect(auditDetailsInWords(detail)).toBe(words);
+  });
+});
+
+describe('audit actions and records in words', () => {
+  it('names every action the server records, and shows an unknown code as stored', () => {
+    expect(auditActionInWords('view')).toBe('viewed');
+    expect(auditActionInWords('plan.change')).toBe('adjusted the plan of');
+    expect(auditActionInWords('something-new')).toBe('something-new');
+    expect(`${auditActionInWords('view')} ${auditSubjectInWords('assessment')}`).toBe('viewed screen');
+    expect(auditSubjectInWords('unknown-kind')).toBe('unknown-kind');
   });
 });

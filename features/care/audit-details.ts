@@ -51,3 +51,35 @@ export function auditDetailsInWords(detail: Record<string, unknown>): string {
     })
     .join(' · ');
 }
+
+/** What was done, as the trail says it (our choice of words); a code not listed shows as stored. */
+const ACTION_WORDS: Record<string, string> = {
+  create: 'added',
+  update: 'changed',
+  set: 'recorded',
+  view: 'viewed',
+  submit: 'submitted',
+  release: 'released to the family',
+  withdraw: 'withdrew',
+  review: 'reviewed',
+  reevaluate: 'worked out again',
+  'reevaluate.refused': 'asked to work out again (refused)',
+  'plan.change': 'adjusted the plan of',
+  'email.queued': 'sent',
+  'photo.deleted': 'deleted',
+};
+
+/** The kind of record, in the words the screens use. */
+const SUBJECT_WORDS: Record<string, string> = {
+  athlete: 'athlete',
+  assessment: 'screen',
+  note: 'note',
+  clearance: 'clearance',
+  consent: 'consent',
+  email: 'e-mail',
+  photo: 'photo',
+  settings: 'settings',
+};
+
+export const auditActionInWords = (action: string) => ACTION_WORDS[action] ?? action;
+export const auditSubjectInWords = (kind: string) => SUBJECT_WORDS[kind] ?? kind;

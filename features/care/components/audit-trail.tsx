@@ -11,7 +11,7 @@ import { auditSearch, useAuditQuery, type AuditFilters } from '../api/get-audit'
 import { AUDIT_SUBJECTS } from '../schemas';
 import type { AuditRow } from '../types';
 import { ChoiceChips } from './choice-chips';
-import { auditDetailsInWords } from '../audit-details';
+import { auditActionInWords, auditDetailsInWords, auditSubjectInWords } from '../audit-details';
 
 const SUBJECT_LABELS: Record<string, string> = {
   all: 'Everything',
@@ -91,7 +91,7 @@ const when = (iso: string) => iso.slice(0, 16).replace('T', ' ');
 const details = auditDetailsInWords;
 
 function WideRow({ e }: { e: AuditRow }) {
-  const cells = [when(e.at), e.actorName ?? 'System', e.action, e.subjectKind, e.athleteName ?? '', details(e.detail)];
+  const cells = [when(e.at), e.actorName ?? 'System', auditActionInWords(e.action), auditSubjectInWords(e.subjectKind), e.athleteName ?? '', details(e.detail)];
   return (
     <View style={styles.tr} testID="audit-row">
       {cells.map((c, i) => (
@@ -106,7 +106,7 @@ function WideRow({ e }: { e: AuditRow }) {
 function PhoneRow({ e }: { e: AuditRow }) {
   return (
     <View style={styles.phoneRow} testID="audit-row">
-      <Text variant="label">{`${e.actorName ?? 'System'}: ${e.action} ${e.subjectKind}`}</Text>
+      <Text variant="label">{`${e.actorName ?? 'System'}: ${auditActionInWords(e.action)} ${auditSubjectInWords(e.subjectKind)}`}</Text>
       <Text variant="small">{`${when(e.at)}${e.athleteName ? ` · ${e.athleteName}` : ''}`}</Text>
       {details(e.detail) ? <Text variant="small">{details(e.detail)}</Text> : null}
     </View>
