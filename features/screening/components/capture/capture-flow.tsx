@@ -10,7 +10,7 @@ import { connectivity, outbox } from '@/features/offline/device-handle';
 import { queueSubmit } from '@/features/screening/api/submit-assessment';
 import { queueDraftSave } from '@/features/screening/draft/registry';
 import type { AssessmentDetail, LandmarkSet, PhotoView, TaskDraft } from '@/features/screening/contract';
-import { BATTERY, getTask } from '@/features/screening/engine/for-screens';
+import { BATTERY, getTask } from '@/features/screening/engine/battery';
 import type { TaskId, View as PhotoSide } from '@/features/screening/engine';
 import { useAssessmentDraft } from '@/features/screening/hooks/use-assessment-draft';
 import { useUnfinishedUploads } from '@/features/screening/hooks/use-upload';
