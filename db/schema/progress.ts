@@ -1,4 +1,4 @@
-import { date, integer, json, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { date, integer, json, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { athletes } from './athletes';
 import { clubs } from './clubs';
 import { rounds } from './screening';
