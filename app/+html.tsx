@@ -18,8 +18,10 @@ html,body{background-color:${colors.paper}}
 
 // Every screen starts by asking who is signed in (`/api/me`, features/auth/api/get-me.ts). Asked here,
 // the answer travels while the JavaScript downloads instead of after it has run; the app takes it once
-// (`apiStartedEarly`). Plain ES5 so it runs in any browser; a failure leaves the app to ask again.
-const EARLY_REQUESTS = `window.${EARLY_REQUESTS_GLOBAL}={"/me":fetch("/api/me",{credentials:"include",headers:{Accept:"application/json"}}).catch(function(){return null})};`;
+// (`apiStartedEarly`). The capture screen (`/screening/assessments/:id`) also asks for its assessment:
+// its head and step come from it. Plain ES5 so it runs in any browser; a failure leaves the app to ask
+// again, and a signed-out answer to /me drops the rest (`forgetEarlyRequests`).
+const EARLY_REQUESTS = `(function(){var o={credentials:"include",headers:{Accept:"application/json"}};function get(p){return fetch("/api"+p,o).catch(function(){return null})}var e=window.${EARLY_REQUESTS_GLOBAL}={"/me":get("/me")};var m=/^\\/screening\\/assessments\\/([0-9a-fA-F-]{36})\\/?$/.exec(location.pathname);if(m)e["/assessments/"+m[1]]=get("/assessments/"+m[1])})();`;
 
 export default function Root({ children }: PropsWithChildren) {
   return (

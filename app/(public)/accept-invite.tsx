@@ -1,5 +1,5 @@
 import { useLocalSearchParams } from 'expo-router';
-import { AcceptInvitationForm } from '@/features/auth/components/password-forms';
+import { AcceptInvitationForm } from '@/features/auth/components/accept-invitation-form';
 import { PublicCard } from '@/features/shell/components/public-card';
 
 export default function AcceptInviteScreen() {

@@ -1,4 +1,4 @@
-import { ForgotPasswordForm } from '@/features/auth/components/password-forms';
+import { ForgotPasswordForm } from '@/features/auth/components/forgot-password-form';
 import { PublicCard } from '@/features/shell/components/public-card';
 
 export default function ForgotPasswordScreen() {

@@ -1,5 +1,5 @@
 import { useLocalSearchParams } from 'expo-router';
-import { ResetPasswordForm } from '@/features/auth/components/password-forms';
+import { ResetPasswordForm } from '@/features/auth/components/reset-password-form';
 import { PublicCard } from '@/features/shell/components/public-card';
 
 export default function ResetPasswordScreen() {

@@ -1,5 +1,15 @@
-import { describe, expect, it } from 'vitest';
-import { ApiError, apiAssetUrl, apiUrl, fieldErrorsOf, messageOf, showServerError } from './client';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import {
+  ApiError,
+  apiAssetUrl,
+  apiStartedEarly,
+  apiUrl,
+  EARLY_REQUESTS_GLOBAL,
+  fieldErrorsOf,
+  forgetEarlyRequests,
+  messageOf,
+  showServerError,
+} from './client';
 
 describe('fieldErrorsOf', () => {
   it('returns the per-field messages of a validation error', () => {
@@ -48,5 +58,45 @@ describe('showServerError', () => {
     const f = form();
     showServerError(new ApiError(403, 'forbidden', 'You do not have access to this.'), f);
     expect(f.seen).toEqual({ status: 'You do not have access to this.' });
+  });
+});
+
+describe('answers the page asked for from its HTML', () => {
+  const g = globalThis as Record<string, unknown>;
+  const json = (body: unknown, status = 200) => new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+  afterEach(() => {
+    delete g[EARLY_REQUESTS_GLOBAL];
+    vi.unstubAllGlobals();
+    vi.restoreAllMocks();
+  });
+
+  it('takes an early answer once, then asks the network', async () => {
+    g[EARLY_REQUESTS_GLOBAL] = { '/assessments/a': Promise.resolve(json({ from: 'page' })) };
+    const fetchMock = vi.fn(async () => json({ from: 'network' }));
+    vi.stubGlobal('fetch', fetchMock);
+    expect(await apiStartedEarly('/assessments/a')).toEqual({ from: 'page' });
+    expect(fetchMock).not.toHaveBeenCalled();
+    expect(await apiStartedEarly('/assessments/a')).toEqual({ from: 'network' });
+    expect(fetchMock).toHaveBeenCalledTimes(1);
+  });
+
+  it('asks again when the page has been open longer than EARLY_FRESH_MS', async () => {
+    g[EARLY_REQUESTS_GLOBAL] = { '/me': Promise.resolve(json({ from: 'page' })) };
+    vi.spyOn(performance, 'now').mockReturnValue(61_000);
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => json({ from: 'network' })),
+    );
+    expect(await apiStartedEarly('/me')).toEqual({ from: 'network' });
+  });
+
+  it('forgets every early answer after a signed-out /me (a refused assessment is not kept for after sign-in)', async () => {
+    g[EARLY_REQUESTS_GLOBAL] = { '/assessments/a': Promise.resolve(json({ error: { code: 'unauthorized', message: 'Sign in.' } }, 401)) };
+    forgetEarlyRequests();
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => json({ from: 'network' })),
+    );
+    expect(await apiStartedEarly('/assessments/a')).toEqual({ from: 'network' });
   });
 });

@@ -87,17 +87,32 @@ export const EARLY_REQUESTS_GLOBAL = '__squadlineEarly';
 type EarlyRequests = Record<string, Promise<Response | null> | undefined>;
 
 /**
+ * An answer the page asked for is only taken while the page is opening (time since the navigation
+ * began): a screen opened later asks again, so it never shows what was true a minute ago (our choice).
+ */
+export const EARLY_FRESH_MS = 60_000;
+
+const earlyRequests = () => (globalThis as { [EARLY_REQUESTS_GLOBAL]?: EarlyRequests })[EARLY_REQUESTS_GLOBAL];
+
+/**
  * `api(path)` for a GET the page already started from its HTML: the answer is used once (the first
  * screen's), later calls go to the network. Same errors as `api`. Only where the API shares the page's
  * origin (not under `npm run dev`).
  */
 export async function apiStartedEarly<T>(path: string): Promise<T> {
-  const early = (globalThis as { [EARLY_REQUESTS_GLOBAL]?: EarlyRequests })[EARLY_REQUESTS_GLOBAL];
+  const early = earlyRequests();
   const started = API_BASE === '' ? early?.[path] : undefined;
   if (!started) return api<T>(path);
   delete early![path];
+  if (typeof performance !== 'undefined' && performance.now() > EARLY_FRESH_MS) return api<T>(path);
   const res = await started;
   return res ? resultOf<T>(res) : api<T>(path);
+}
+
+/** Drops the answers the page asked for: signed out, they were refused, and after signing in they would be wrong. */
+export function forgetEarlyRequests(): void {
+  const early = earlyRequests();
+  if (early) for (const path of Object.keys(early)) delete early[path];
 }
 
 /**

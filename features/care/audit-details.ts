@@ -3,7 +3,7 @@
  * record) and before/after copies of edited text are left out: an admin scanning the trail reads who did
  * what to whom, not UUIDs. Our choice.
  */
-import { CLEARANCE_LABELS, NOTE_VISIBILITY_LABELS } from './schemas';
+import { CLEARANCE_LABELS, NOTE_VISIBILITY_LABELS } from './choices';
 
 const LEFT_OUT = /(Id|Ids)$|^(replaces|previousText|before|after)$/;
 

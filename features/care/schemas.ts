@@ -1,21 +1,10 @@
 import { boolean, mixed, number, object, string, type InferType } from 'yup';
+import { AUDIT_SUBJECTS, CLEARANCE_STATUSES, NOTE_VISIBILITIES, type AuditSubject } from './choices';
 
 // One schema per care-team input, used by the forms and by `validateBody` on the server. Pure.
+// The choices and their labels live in `choices.ts`, so a screen that only shows a clearance does not
+// bring yup and these schemas with it.
 
-export const NOTE_VISIBILITIES = ['team', 'family'] as const;
-export type NoteVisibility = (typeof NOTE_VISIBILITIES)[number];
-export const NOTE_VISIBILITY_LABELS: Record<NoteVisibility, string> = { team: 'Team only', family: 'Shared with family' };
-
-export const CLEARANCE_STATUSES = ['cleared', 'modified', 'referred'] as const;
-export type ClearanceStatus = (typeof CLEARANCE_STATUSES)[number];
-export const CLEARANCE_LABELS: Record<ClearanceStatus, string> = {
-  cleared: 'Train as normal',
-  modified: 'Train with changes',
-  referred: 'Refer on',
-};
-
-/** How long an author may still correct a note; afterwards it is kept as written (our choice). */
-export const NOTE_EDIT_WINDOW_MINUTES = 15;
 export const NOTE_MAX_LENGTH = 4000;
 
 const noteText = string().trim().required('Write the note.').max(NOTE_MAX_LENGTH, `Keep the note under ${NOTE_MAX_LENGTH} characters.`);
@@ -68,9 +57,6 @@ export const careSettingsSchema = object({
   testersReadTeamNotes: boolean().required(),
 });
 export type CareSettingsInput = InferType<typeof careSettingsSchema>;
-
-export const AUDIT_SUBJECTS = ['athlete', 'assessment', 'note', 'clearance', 'consent', 'email', 'photo', 'settings'] as const;
-export type AuditSubject = (typeof AUDIT_SUBJECTS)[number];
 
 /** Filters of the audit trail (query string). */
 export const auditQuerySchema = object({

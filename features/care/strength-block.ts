@@ -1,5 +1,5 @@
 // The rule that holds back loaded strength work until a physiotherapist clears the athlete. Pure.
-import type { ClearanceStatus } from './schemas';
+import type { ClearanceStatus } from './choices';
 
 type ExerciseLike = { phase: string; prescription: { load: { kind: string } } };
 type PlanLike = { status: 'ready' | 'clearance-needed' };

@@ -1,5 +1,5 @@
 // Response shapes of the care-team API, shared by the server and the screens. Pure.
-import type { ClearanceStatus, NoteVisibility } from './schemas';
+import type { ClearanceStatus, NoteVisibility } from './choices';
 
 export type ClearanceView = {
   status: ClearanceStatus;

@@ -4,7 +4,7 @@
  * threshold and its error band. Pure, so the charts only draw.
  */
 import type { MetricId, Sex } from '@/features/screening/engine';
-import { THRESHOLDS } from '@/features/screening/engine/for-screens';
+import { THRESHOLDS } from '@/features/screening/engine/thresholds';
 import type { ErrorMargin } from './compare';
 import type { ProgressResponse } from './progress-types';
 

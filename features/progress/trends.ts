@@ -4,7 +4,7 @@
  * and the CSV download can never disagree.
  */
 import type { MaturityBand, PatternId, Sex } from '@/features/screening/engine';
-import { DEFAULT_RESCREEN_WEEKS } from '@/features/screening/engine/for-screens';
+import { DEFAULT_RESCREEN_WEEKS } from '@/features/screening/engine/defaults';
 import { daysBetween } from './compare';
 
 export type TrendRound = {

@@ -3,7 +3,7 @@
  * judged against) and one for families (no angles, no distances, no jargon). Pure.
  */
 import type { FlagSide, PatternId, TaskId } from '@/features/screening/engine';
-import { getTask } from '@/features/screening/engine/for-screens';
+import { getTask } from '@/features/screening/engine/battery';
 import type { FlagRef, MeasurementChange, ScreenComparison } from './compare';
 
 const UNIT: Record<MeasurementChange['unit'], string> = { deg: '°', cm: ' cm', percent: ' %', years: ' y', grades: ' grades' };

@@ -1,7 +1,7 @@
 // Turns the tester's saved draft into the engine's input. Pure: the server calls it on submit, and a
 // capture screen may call it to show live results from the same numbers.
 import type { AssessmentDraft, LandmarkSet, TaskDraft } from '@/features/screening/contract';
-import { MATURITY_AGE_RANGE } from '@/features/screening/engine/for-screens';
+import { MATURITY_AGE_RANGE } from '@/features/screening/engine/maturity';
 import type { AssessmentInput, AthleteInput, LandmarkId, PhotoInput, Point, Sex, Side, TaskId, TaskResultInput } from '@/features/screening/engine';
 
 export type DraftToInputArgs = {

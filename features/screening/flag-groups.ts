@@ -1,7 +1,7 @@
 // Flags as a coach reads them: one card per pattern and side, the tasks that showed it listed as
 // evidence inside. Pure.
 import type { Evidence, Flag, FlagSide, PatternId, Severity, TaskId, ThresholdRef } from './engine';
-import { getTask } from './engine/for-screens';
+import { getTask } from './engine/battery';
 
 export type FlagEvidenceGroup = {
   /** Where it was seen: a task, a left/right comparison, or the whole assessment. */

@@ -1,6 +1,7 @@
 // The tester's changes to the engine's plan: drop, add back from the library, re-dose. Pure. The limits
 // come from the engine's `limits.ts`, the same functions the server runs on the saved plan.
-import { checkExercise, plannedFromLibrary, type ExerciseSpec, type LimitBreach, type LoadingContext, type PlannedExercise, type Prescription } from './engine';
+import type { ExerciseSpec, LimitBreach, LoadingContext, PlannedExercise, Prescription } from './engine';
+import { checkExercise, plannedFromLibrary } from './engine/limits';
 import { loadText, setsText } from './labels';
 
 /** Hard ceiling of the editor's buttons; the youth limits (3 sets) apply well before it. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { PAGE_HEADS, pageHeadFor } from './page-heads';
+import { isCapturePath, PAGE_HEADS, pageHeadFor } from './page-heads';
 
 describe('pageHeadFor (our choice: the pre-rendered head of each page)', () => {
   it.each([
@@ -18,4 +18,16 @@ describe('pageHeadFor (our choice: the pre-rendered head of each page)', () => {
       expect(pageHeadFor(path)).toBeNull();
     },
   );
+});
+
+describe('isCapturePath (our choice: the capture screen pre-renders its own frame)', () => {
+  it.each([
+    ['/screening/assessments/5d0b7c1e-8f0a-4c55-9f43-2b1f8f9d9a01', true],
+    ['/screening/assessments/5d0b7c1e-8f0a-4c55-9f43-2b1f8f9d9a01/', true],
+    ['/screening/assessments/5d0b7c1e-8f0a-4c55-9f43-2b1f8f9d9a01/result', false],
+    ['/screening/rounds/5d0b7c1e-8f0a-4c55-9f43-2b1f8f9d9a01', false],
+    ['/screening', false],
+  ])('%s: %s', (path, expected) => {
+    expect(isCapturePath(path)).toBe(expected);
+  });
 });

@@ -27,3 +27,12 @@ export function pageHeadFor(pathname: string): PageHead | null {
   if (rest) return null;
   return (PAGE_HEADS as Record<string, PageHead>)[first] ?? null;
 }
+
+/**
+ * The capture screen (`/screening/assessments/:id`) has a frame of its own instead of a page head: the
+ * head band, the step and Back and Next (CaptureFrame), so its pre-rendered HTML shows where the tester
+ * is going and nothing moves when the assessment arrives.
+ */
+export function isCapturePath(pathname: string): boolean {
+  return /^\/screening\/assessments\/[^/]+\/?$/.test(pathname);
+}

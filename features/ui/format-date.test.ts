@@ -18,6 +18,13 @@ describe('formatDate', () => {
     expect(formatDate('2026-01-01', { locale: 'de-DE', numeric: true })).toBe('01.01.2026');
   });
 
+  it('keeps each locale and form apart (the formatters are reused)', () => {
+    expect(formatDate('2026-09-14', { locale: 'en-GB' })).toBe('14 Sept 2026');
+    expect(formatDate('2026-09-14', { locale: 'en-GB', numeric: true })).toBe('14/09/2026');
+    expect(formatDate('2026-09-14', { locale: 'en-US' })).toBe('Sep 14, 2026');
+    expect(formatDate('2026-09-14', { locale: 'en-GB' })).toBe('14 Sept 2026');
+  });
+
   it('returns unreadable input as it is', () => {
     expect(formatDate('not a date', { locale: 'en-GB' })).toBe('not a date');
   });

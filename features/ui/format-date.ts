@@ -3,6 +3,20 @@
 
 const DATE_ONLY = /^\d{4}-\d{2}-\d{2}$/;
 
+// Building an Intl.DateTimeFormat costs far more than formatting with one (the browser resolves the
+// locale's data each time): a list of rounds spent most of its own render time here. One per locale
+// and set of options is kept.
+const formatters = new Map<string, Intl.DateTimeFormat>();
+function formatter(locale: string | undefined, options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
+  const key = `${locale ?? ''}|${JSON.stringify(options)}`;
+  let f = formatters.get(key);
+  if (!f) {
+    f = new Intl.DateTimeFormat(locale, options);
+    formatters.set(key, f);
+  }
+  return f;
+}
+
 /**
  * A calendar date (`2026-09-14`) or a timestamp (`2026-09-14T08:30:00Z`) in the user's locale, for
  * example "14 Sept 2026" (en-GB), "Sep 14, 2026" (en-US), "14.09.2026" (de-DE, numeric). A calendar date
@@ -13,7 +27,7 @@ export function formatDate(value: string, options: { locale?: string; numeric?: 
   const dateOnly = DATE_ONLY.test(value);
   const d = new Date(dateOnly ? `${value}T00:00:00Z` : value);
   if (Number.isNaN(d.getTime())) return value;
-  return new Intl.DateTimeFormat(options.locale, {
+  return formatter(options.locale, {
     ...(options.numeric ? { day: '2-digit', month: '2-digit', year: 'numeric' } : { day: 'numeric', month: 'short', year: 'numeric' }),
     ...(dateOnly ? { timeZone: 'UTC' } : {}),
   }).format(d);
@@ -23,7 +37,7 @@ export function formatDate(value: string, options: { locale?: string; numeric?: 
 export function formatDateTime(value: string, options: { locale?: string; timeZone?: string } = {}): string {
   const d = new Date(value);
   if (Number.isNaN(d.getTime())) return value;
-  return new Intl.DateTimeFormat(options.locale, {
+  return formatter(options.locale, {
     day: 'numeric',
     month: 'short',
     year: 'numeric',

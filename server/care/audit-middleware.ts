@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
 import type { Db } from '@/db/client';
-import type { AuditSubject } from '@/features/care/schemas';
+import type { AuditSubject } from '@/features/care/choices';
 import type { Locals } from '@/server/access/guard';
 import { eq } from 'drizzle-orm';
 import { assessments, athletes } from '@/db/schema';

@@ -1,6 +1,6 @@
 import { and, desc, eq, gte, lt, sql, type SQL } from 'drizzle-orm';
 import { athletes, auditEvents, users } from '@/db/schema';
-import type { AuditSubject } from '@/features/care/schemas';
+import type { AuditSubject } from '@/features/care/choices';
 import type { AuditRow } from '@/features/care/types';
 import type { Executor } from '@/server/screening/screening.repo';
 

@@ -1,6 +1,6 @@
 import { and, desc, eq, inArray } from 'drizzle-orm';
 import { clearances, users } from '@/db/schema';
-import type { ClearanceStatus } from '@/features/care/schemas';
+import type { ClearanceStatus } from '@/features/care/choices';
 import type { ClearanceView } from '@/features/care/types';
 import type { ClubScope } from '@/server/access/scope';
 import type { Executor } from '@/server/screening/screening.repo';

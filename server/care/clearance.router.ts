@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import type { Db } from '@/db/client';
-import { clearanceSchema, type ClearanceStatus } from '@/features/care/schemas';
+import type { ClearanceStatus } from '@/features/care/choices';
+import { clearanceSchema } from '@/features/care/schemas';
 import { and, eq, isNull } from 'drizzle-orm';
 import { athletes } from '@/db/schema';
 import { accessGuards, callerClub, on, scopeOf } from '@/server/access/guard';

@@ -1,6 +1,6 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
 import { assessmentResults, assessmentReviews, summaryReleases } from '@/db/schema';
-import { CLEARANCE_LABELS, type ClearanceStatus } from '@/features/care/schemas';
+import { CLEARANCE_LABELS, type ClearanceStatus } from '@/features/care/choices';
 import type { ClearanceView } from '@/features/care/types';
 import { EngineInputError } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';

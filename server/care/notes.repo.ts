@@ -1,6 +1,6 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
 import { careNotes, users } from '@/db/schema';
-import type { NoteVisibility } from '@/features/care/schemas';
+import type { NoteVisibility } from '@/features/care/choices';
 import type { ClubScope } from '@/server/access/scope';
 import type { Executor } from '@/server/screening/screening.repo';
 

@@ -1,7 +1,8 @@
 import type { Db } from '@/db/client';
 import { assessments } from '@/db/schema';
 import { can } from '@/features/access/permissions';
-import { NOTE_EDIT_WINDOW_MINUTES, type NoteEditInput, type NoteInput, type NoteVisibility } from '@/features/care/schemas';
+import { NOTE_EDIT_WINDOW_MINUTES, type NoteVisibility } from '@/features/care/choices';
+import type { NoteEditInput, NoteInput } from '@/features/care/schemas';
 import type { NoteView } from '@/features/care/types';
 import type { ClubScope } from '@/server/access/scope';
 import { AppError, badRequest, forbidden, notFound } from '@/server/http/errors';

@@ -15,7 +15,7 @@ import type { Athlete } from '../api/types';
 import { useUpdateAthleteMutation } from '../api/update-athlete';
 import { SEX_LABELS, SIDE_LABELS } from '../schemas';
 import { ArchiveControl } from './archive-control';
-import { AthleteForm } from './athlete-form';
+import { LazyAthleteForm } from './lazy-athlete-form';
 import { MoveSquad } from './move-squad';
 import { formatDate } from '@/features/ui/format-date';
 
@@ -70,7 +70,7 @@ export function AthleteProfile({ id }: { id: string }) {
 function EditDetails({ athlete, onDone }: { athlete: Athlete; onDone: () => void }) {
   const update = useUpdateAthleteMutation(athlete.id);
   return (
-    <AthleteForm
+    <LazyAthleteForm
       athlete={athlete}
       submitLabel="Save changes"
       onCancel={onDone}

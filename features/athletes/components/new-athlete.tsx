@@ -4,7 +4,7 @@ import { useActiveClub } from '@/features/session/active-club';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { useCreateAthleteMutation } from '../api/create-athlete';
-import { AthleteForm } from './athlete-form';
+import { LazyAthleteForm } from './lazy-athlete-form';
 
 /** Adds one athlete, then opens their page (where consent and parents are recorded). */
 export function NewAthlete() {
@@ -16,7 +16,7 @@ export function NewAthlete() {
   }
   return (
     <Card>
-      <AthleteForm
+      <LazyAthleteForm
         submitLabel="Add athlete"
         onCancel={() => router.back()}
         onSubmit={async (values) => {

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { can } from '@/features/access/permissions';
-import { apiStartedEarly, ApiError } from '@/features/api/client';
+import { apiStartedEarly, ApiError, forgetEarlyRequests } from '@/features/api/client';
 import { deviceBacked } from '@/features/offline/device-cache';
 import type { Me } from '@/features/auth/contract';
 import { authKeys } from './keys';
@@ -14,7 +14,11 @@ export async function getMe(): Promise<Me | null> {
   try {
     return await apiStartedEarly<Me>('/me');
   } catch (error) {
-    if (error instanceof ApiError && error.status === 401) return null;
+    if (error instanceof ApiError && error.status === 401) {
+      // The page may have asked for a screen's data too (the capture screen's assessment): refused now.
+      forgetEarlyRequests();
+      return null;
+    }
     throw error;
   }
 }

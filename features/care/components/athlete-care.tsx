@@ -4,8 +4,7 @@ import { isStaff } from '@/features/access/permissions';
 import { useActiveClub } from '@/features/session/active-club';
 import { Text } from '@/features/ui/components/text';
 import { space } from '@/features/ui/theme';
-import { ClearancePanel } from './clearance-panel';
-import { NotesPanel } from './notes-panel';
+import { LazyClearancePanel, LazyNotesPanel } from './lazy-care-panels';
 
 /** On an athlete's page: clearance and notes for staff; for a parent, the way to the family summary. */
 export function AthleteCare({ athleteId }: { athleteId: string }) {
@@ -19,8 +18,8 @@ export function AthleteCare({ athleteId }: { athleteId: string }) {
   }
   return (
     <>
-      <ClearancePanel athleteId={athleteId} />
-      <NotesPanel athleteId={athleteId} />
+      <LazyClearancePanel athleteId={athleteId} />
+      <LazyNotesPanel athleteId={athleteId} />
     </>
   );
 }

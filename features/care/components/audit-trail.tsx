@@ -8,7 +8,7 @@ import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
 import { colors, space } from '@/features/ui/theme';
 import { auditSearch, useAuditQuery, type AuditFilters } from '../api/get-audit';
-import { AUDIT_SUBJECTS } from '../schemas';
+import { AUDIT_SUBJECTS } from '../choices';
 import type { AuditRow } from '../types';
 import { ChoiceChips } from './choice-chips';
 import { auditActionInWords, auditDetailsInWords, auditSubjectInWords } from '../audit-details';

@@ -2,7 +2,7 @@ import { StyleSheet, View } from 'react-native';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
 import { useClearanceOf } from '../api/get-clearances';
-import { CLEARANCE_LABELS } from '../schemas';
+import { CLEARANCE_LABELS } from '../choices';
 import type { ClearanceView } from '../types';
 
 const TONE = { cleared: 'ok', modified: 'caution', referred: 'stop' } as const;

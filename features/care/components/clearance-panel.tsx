@@ -11,7 +11,8 @@ import { TextField } from '@/features/ui/components/text-field';
 import { colors, space } from '@/features/ui/theme';
 import { useClearanceOf } from '../api/get-clearances';
 import { useSetClearanceMutation } from '../api/set-clearance';
-import { CLEARANCE_LABELS, CLEARANCE_STATUSES, clearanceSchema, type ClearanceStatus } from '../schemas';
+import { CLEARANCE_LABELS, CLEARANCE_STATUSES, type ClearanceStatus } from '../choices';
+import { clearanceSchema } from '../schemas';
 import { ClearanceBadge } from './clearance-badge';
 import { ChoiceChips } from './choice-chips';
 

@@ -11,7 +11,8 @@ import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
 import { colors, space } from '@/features/ui/theme';
 import { useAddNoteMutation, useEditNoteMutation, useNotesQuery } from '../api/notes';
-import { NOTE_EDIT_WINDOW_MINUTES, NOTE_VISIBILITY_LABELS, noteSchema, type NoteVisibility } from '../schemas';
+import { NOTE_EDIT_WINDOW_MINUTES, NOTE_VISIBILITY_LABELS, type NoteVisibility } from '../choices';
+import { noteSchema } from '../schemas';
 import type { NoteView } from '../types';
 import { ChoiceChips } from './choice-chips';
 

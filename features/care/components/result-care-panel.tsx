@@ -9,8 +9,7 @@ import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
 import { useAssessmentCareQuery, useMarkReviewedMutation, useReleaseMutation, useReleasePreviewQuery } from '../api/assessment-care';
-import { ClearancePanel } from './clearance-panel';
-import { NotesPanel } from './notes-panel';
+import { LazyClearancePanel, LazyNotesPanel } from './lazy-care-panels';
 
 /**
  * The care team's part of a result: the review mark, release to the family with a preview of the
@@ -42,8 +41,8 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
           <Release assessmentId={assessmentId} previewing={previewing} setPreviewing={setPreviewing} release={release} />
         ) : null}
       </Card>
-      <ClearancePanel athleteId={athleteId} />
-      <NotesPanel athleteId={athleteId} assessmentId={assessmentId} />
+      <LazyClearancePanel athleteId={athleteId} />
+      <LazyNotesPanel athleteId={athleteId} assessmentId={assessmentId} />
     </View>
   );
 }

@@ -7,7 +7,7 @@ import { useSaveLandmarksMutation } from '@/features/measuring/api/save-landmark
 import type { MeasureItem } from '@/features/measuring/contract';
 import { LazyLandmarkEditor } from '@/features/screening/components/landmarks/lazy-landmark-editor';
 import type { LandmarkSet } from '@/features/screening/contract';
-import { getTask } from '@/features/screening/engine/for-screens';
+import { getTask } from '@/features/screening/engine/battery';
 import { can } from '@/features/access/permissions';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';

@@ -1,4 +1,4 @@
-import { CLEARANCE_LABELS } from '@/features/care/schemas';
+import { CLEARANCE_LABELS } from '@/features/care/choices';
 import { Link } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { PatternId } from '@/features/screening/engine';

@@ -1,12 +1,13 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '@/features/api/client';
+import { apiStartedEarly } from '@/features/api/client';
 import { deviceBacked } from '@/features/offline/device-cache';
 import { useActiveClub } from '@/features/session/active-club';
 import type { AssessmentDetail } from '@/features/screening/contract';
 import { can } from '@/features/access/permissions';
 import { ASSESSMENT_STALE_MS, assessmentKeptKey, screeningKeys } from './keys';
 
-export const getAssessment = (id: string) => api<AssessmentDetail>(`/assessments/${encodeURIComponent(id)}`);
+/** The capture screen's page asks for its assessment from its HTML (app/+html.tsx): the first call takes that answer. */
+export const getAssessment = (id: string) => apiStartedEarly<AssessmentDetail>(`/assessments/${encodeURIComponent(id)}`);
 
 /** An open draft a tester works on is kept on the device under its round (see get-round.ts). */
 export const assessmentQueryOptions = (clubId: string, id: string, keep = false) =>

@@ -1,7 +1,7 @@
 // What to draw over a photo for a task and view: the limb and trunk lines between placed landmarks and
 // the live angles from the engine's own geometry. Pure: the editor and the result screen both draw it.
 import type { LandmarkSet } from '@/features/screening/contract';
-import { frontalPlaneProjectionAngle, kneeFlexion, pelvicObliquity, tibialInclination, trunkLean } from '@/features/screening/engine/for-screens';
+import { frontalPlaneProjectionAngle, kneeFlexion, pelvicObliquity, tibialInclination, trunkLean } from '@/features/screening/engine/geometry';
 import type { LandmarkId, Point, Side, TaskSpec, View } from '@/features/screening/engine';
 
 export type OverlayLine = { id: string; from: Point; to: Point; style: 'limb' | 'reference' };

@@ -14,7 +14,8 @@ import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { CONTENT_MAX_WIDTH } from '@/features/ui/breakpoints';
 import { navFor } from '../nav';
-import { pageHeadFor } from '../page-heads';
+import { CaptureFrame } from '@/features/screening/components/capture/capture-layout';
+import { isCapturePath, pageHeadFor } from '../page-heads';
 
 export function AppShell({ children }: { children: ReactNode }) {
   const { isWide } = useBreakpoints();
@@ -50,8 +51,11 @@ export function AppShell({ children }: { children: ReactNode }) {
  * `data-frame` rules in app/+html.tsx show the one that fits.
  */
 export function ShellFrame() {
-  const head = pageHeadFor(usePathname());
-  const main = (
+  const path = usePathname();
+  const head = pageHeadFor(path);
+  const main = isCapturePath(path) ? (
+    <CaptureFrame />
+  ) : (
     <View style={styles.frameContent} {...FRAME_CONTENT}>
       <View style={styles.frameColumn}>
         {head ? (

@@ -3,14 +3,14 @@ import { can } from '@/features/access/permissions';
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, Redirect, useRouter } from 'expo-router';
 import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
-import { ScrollView, StyleSheet, View } from 'react-native';
+import { StyleSheet, View, type ScrollView } from 'react-native';
 import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
 import { screeningKeys } from '@/features/screening/api/keys';
 import { connectivity, outbox } from '@/features/offline/device-handle';
 import { queueSubmit } from '@/features/screening/api/submit-assessment';
 import { queueDraftSave } from '@/features/screening/draft/registry';
 import type { AssessmentDetail, LandmarkSet, PhotoView, TaskDraft } from '@/features/screening/contract';
-import { BATTERY, getTask } from '@/features/screening/engine/for-screens';
+import { BATTERY, getTask } from '@/features/screening/engine/battery';
 import type { TaskId, View as PhotoSide } from '@/features/screening/engine';
 import { useAssessmentDraft } from '@/features/screening/hooks/use-assessment-draft';
 import { useUnfinishedUploads } from '@/features/screening/hooks/use-upload';
@@ -18,15 +18,16 @@ import { slotOf } from '@/features/screening/photos/upload-queue';
 import { uploadQueue } from '@/features/screening/photos/upload-registry';
 import { useActiveClub } from '@/features/session/active-club';
 import { usePageTitle } from '@/features/ui/page-title';
-import { CONTENT_MAX_WIDTH, useBreakpoints } from '@/features/ui/breakpoints';
+import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
-import { colors, space, TOUCH_MIN } from '@/features/ui/theme';
+import { colors, space } from '@/features/ui/theme';
 import { LazyLandmarkEditor } from '../landmarks/lazy-landmark-editor';
 import { ProgressBar } from '../progress-bar';
 import { PlainTag } from '../status-tag';
 import { BodyStep } from './body-step';
+import { CaptureFrame, CaptureLayout, captureStyles } from './capture-layout';
 import { ReviewStep } from './review-step';
 import { SaveStatusBadge } from './save-status';
 import { TaskStep } from './task-step';
@@ -64,12 +65,8 @@ function CaptureLoader({ id }: { id: string }) {
         <Notice tone="error">{query.error.message}</Notice>
       </Centered>
     );
-  if (!query.data || !draftState.ready)
-    return (
-      <Centered>
-        <Text>Loading the assessment…</Text>
-      </Centered>
-    );
+  // The same frame as the pre-rendered page: the head and the bar are in place before the data.
+  if (!query.data || !draftState.ready) return <CaptureFrame />;
   // A closed round's screens are read, not changed: straight to the result (or its absence).
   if (query.data.roundClosedAt) return <Redirect href={`/screening/assessments/${id}/result`} />;
   return <Capture detail={query.data} draftState={draftState} />;
@@ -192,11 +189,13 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
   const editingPhoto = editing ? photoFor(editing.taskId, editing.view) : undefined;
 
   return (
-    <View style={styles.root}>
-      <View style={styles.header}>
-        <View style={[styles.column, styles.headerInner]}>
-          <View style={styles.headerTop}>
-            <Link href={`/screening/rounds/${detail.roundId}`} style={styles.roundLink}>
+    <CaptureLayout
+      scrollRef={scroll}
+      wide={isTabletUp}
+      header={
+        <>
+          <View style={captureStyles.headerTop}>
+            <Link href={`/screening/rounds/${detail.roundId}`} style={captureStyles.roundLink}>
               <Text variant="small" style={styles.roundLinkText}>
                 ← {detail.roundName}
               </Text>
@@ -206,7 +205,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
           <Text variant="heading" accessibilityRole="header" testID="step-title">
             {title}
           </Text>
-          <View style={styles.who}>
+          <View style={captureStyles.who}>
             <Text variant="label" testID="capture-athlete">
               {athleteName}
             </Text>
@@ -217,117 +216,92 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
             <AthleteClearanceBadge athleteId={detail.athlete.id} />
           </View>
           <ProgressBar fraction={stepIndex / (STEPS.length - 1)} label={counter} />
-        </View>
-      </View>
-      <ScrollView
-        ref={scroll}
-        style={styles.scroll}
-        contentContainerStyle={[styles.content, isTabletUp && styles.contentWide]}
-        keyboardShouldPersistTaps="handled"
-      >
-        <View style={[styles.column, styles.body]}>
-          {mergedFromServer ? (
-            <Notice title="Merged with a newer save">
-              This assessment was also saved on another phone. Both are kept: where the same field was changed, your edits on this phone win.
-            </Notice>
-          ) : null}
-          {status.kind === 'refused' ? (
-            <Notice tone="error" title="Not saved" testID="save-refused">
-              {`${status.message} What you typed is kept on this phone.`}
-            </Notice>
-          ) : null}
-          {editing && editingPhoto ? (
-            <LazyLandmarkEditor
-              key={`${editing.taskId}:${editing.view}:${editingPhoto.id}`}
-              task={getTask(editing.taskId)}
-              view={editing.view}
-              photo={editingPhoto}
-              value={draft.tasks[editing.taskId]?.landmarks?.[editing.view] ?? {}}
-              racketHand={detail.athlete.racketHand}
-              onChange={(next: LandmarkSet) => updateTask(editing.taskId, (t) => ({ ...t, landmarks: { ...t.landmarks, [editing.view]: next } }))}
+        </>
+      }
+      bar={
+        editing ? (
+          <Button label="Done: back to the task" testID="landmarks-done" onPress={() => setEditing(null)} style={captureStyles.barButton} />
+        ) : (
+          <>
+            <Button
+              tone="secondary"
+              label="Back"
+              testID="step-back"
+              disabled={stepIndex === 0}
+              onPress={() => goTo(STEPS[stepIndex - 1] ?? 'body')}
+              style={captureStyles.barButton}
             />
-          ) : step === 'body' ? (
-            <BodyStep draft={draft} update={update} />
-          ) : step === 'review' ? (
-            <ReviewStep detail={detail} draft={draft} photoFor={photoFor} goTo={goTo} />
-          ) : task ? (
-            <TaskStep
-              key={task.id}
-              task={task}
-              value={draft.tasks[task.id]}
-              onChange={(change) => updateTask(task.id, change)}
-              detail={detail}
-              photos={{ front: photoFor(task.id, 'front'), side: photoFor(task.id, 'side') }}
-              onNewPhoto={(view) => onNewPhoto(task.id, view)}
-              onPlaceLandmarks={(view) => setEditing({ taskId: task.id, view })}
-            />
-          ) : null}
-          {unfinishedUploads > 0 && step === 'review' && !editing ? (
-            <Notice tone="caution" title="A photo is not uploaded yet" testID="uploads-unfinished">
-              {`${unfinishedUploads === 1 ? 'One photo is' : `${unfinishedUploads} photos are`} kept on this phone and not on the server yet. A submit waits for ${unfinishedUploads === 1 ? 'it' : 'them'}: they are sent first, in order.`}
-            </Notice>
-          ) : null}
-          {!online && step === 'review' && !editing ? (
-            <Notice title="No connection" testID="submit-offline">
-              Submitting now keeps the submit on this phone. It is sent after the draft and photos when the connection is back; the result appears then.
-            </Notice>
-          ) : null}
-          {submitError && step === 'review' ? (
-            <Notice tone="error" title="Not submitted" testID="submit-error">
-              {submitError}
-            </Notice>
-          ) : null}
-        </View>
-      </ScrollView>
-      <View style={styles.bar}>
-        <View style={[styles.column, styles.barInner]}>
-          {editing ? (
-            <Button label="Done: back to the task" testID="landmarks-done" onPress={() => setEditing(null)} style={styles.barButton} />
-          ) : (
-            <>
+            {step === 'review' ? (
               <Button
-                tone="secondary"
-                label="Back"
-                testID="step-back"
-                disabled={stepIndex === 0}
-                onPress={() => goTo(STEPS[stepIndex - 1] ?? 'body')}
-                style={styles.barButton}
+                label={detail.status === 'submitted' ? 'Submit again' : 'Submit'}
+                testID="submit-assessment"
+                busy={submitting}
+                onPress={() => void onSubmit()}
+                style={[captureStyles.barButton, captureStyles.barPrimary]}
               />
-              {step === 'review' ? (
-                <Button
-                  label={detail.status === 'submitted' ? 'Submit again' : 'Submit'}
-                  testID="submit-assessment"
-                  busy={submitting}
-                  onPress={() => void onSubmit()}
-                  style={[styles.barButton, styles.barPrimary]}
-                />
-              ) : (
-                <Button label="Next" testID="step-next" onPress={next} style={[styles.barButton, styles.barPrimary]} />
-              )}
-            </>
-          )}
-        </View>
-      </View>
-    </View>
+            ) : (
+              <Button label="Next" testID="step-next" onPress={next} style={[captureStyles.barButton, captureStyles.barPrimary]} />
+            )}
+          </>
+        )
+      }
+    >
+      {mergedFromServer ? (
+        <Notice title="Merged with a newer save">
+          This assessment was also saved on another phone. Both are kept: where the same field was changed, your edits on this phone win.
+        </Notice>
+      ) : null}
+      {status.kind === 'refused' ? (
+        <Notice tone="error" title="Not saved" testID="save-refused">
+          {`${status.message} What you typed is kept on this phone.`}
+        </Notice>
+      ) : null}
+      {editing && editingPhoto ? (
+        <LazyLandmarkEditor
+          key={`${editing.taskId}:${editing.view}:${editingPhoto.id}`}
+          task={getTask(editing.taskId)}
+          view={editing.view}
+          photo={editingPhoto}
+          value={draft.tasks[editing.taskId]?.landmarks?.[editing.view] ?? {}}
+          racketHand={detail.athlete.racketHand}
+          onChange={(next: LandmarkSet) => updateTask(editing.taskId, (t) => ({ ...t, landmarks: { ...t.landmarks, [editing.view]: next } }))}
+        />
+      ) : step === 'body' ? (
+        <BodyStep draft={draft} update={update} />
+      ) : step === 'review' ? (
+        <ReviewStep detail={detail} draft={draft} photoFor={photoFor} goTo={goTo} />
+      ) : task ? (
+        <TaskStep
+          key={task.id}
+          task={task}
+          value={draft.tasks[task.id]}
+          onChange={(change) => updateTask(task.id, change)}
+          detail={detail}
+          photos={{ front: photoFor(task.id, 'front'), side: photoFor(task.id, 'side') }}
+          onNewPhoto={(view) => onNewPhoto(task.id, view)}
+          onPlaceLandmarks={(view) => setEditing({ taskId: task.id, view })}
+        />
+      ) : null}
+      {unfinishedUploads > 0 && step === 'review' && !editing ? (
+        <Notice tone="caution" title="A photo is not uploaded yet" testID="uploads-unfinished">
+          {`${unfinishedUploads === 1 ? 'One photo is' : `${unfinishedUploads} photos are`} kept on this phone and not on the server yet. A submit waits for ${unfinishedUploads === 1 ? 'it' : 'them'}: they are sent first, in order.`}
+        </Notice>
+      ) : null}
+      {!online && step === 'review' && !editing ? (
+        <Notice title="No connection" testID="submit-offline">
+          Submitting now keeps the submit on this phone. It is sent after the draft and photos when the connection is back; the result appears then.
+        </Notice>
+      ) : null}
+      {submitError && step === 'review' ? (
+        <Notice tone="error" title="Not submitted" testID="submit-error">
+          {submitError}
+        </Notice>
+      ) : null}
+    </CaptureLayout>
   );
 }
 
 const styles = StyleSheet.create({
-  root: { flex: 1, backgroundColor: colors.paper },
   centered: { flex: 1, alignItems: 'center', justifyContent: 'center', padding: space.xl },
-  column: { width: '100%', maxWidth: CONTENT_MAX_WIDTH, alignSelf: 'center' },
-  header: { backgroundColor: colors.surface, borderBottomWidth: 1, borderBottomColor: colors.line, paddingHorizontal: space.lg, paddingVertical: space.sm },
-  headerInner: { gap: 2 },
-  who: { flexDirection: 'row', alignItems: 'center', flexWrap: 'wrap', columnGap: space.sm, marginBottom: space.xs },
-  headerTop: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
-  roundLink: { minHeight: 36, justifyContent: 'center', flexShrink: 1 },
   roundLinkText: { color: colors.pine },
-  scroll: { flex: 1 },
-  content: { padding: space.lg, paddingBottom: space.xxl },
-  contentWide: { paddingHorizontal: space.xxl },
-  body: { gap: space.lg },
-  bar: { backgroundColor: colors.surface, borderTopWidth: 1, borderTopColor: colors.line, paddingHorizontal: space.lg, paddingVertical: space.sm },
-  barInner: { flexDirection: 'row', gap: space.md },
-  barButton: { flex: 1, minHeight: TOUCH_MIN + 8 },
-  barPrimary: { flex: 2 },
 });

@@ -1,6 +1,6 @@
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { AssessmentDetail, AssessmentDraft, PhotoView } from '@/features/screening/contract';
-import { BATTERY } from '@/features/screening/engine/for-screens';
+import { BATTERY } from '@/features/screening/engine/battery';
 import type { TaskId, View as PhotoSide } from '@/features/screening/engine';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';

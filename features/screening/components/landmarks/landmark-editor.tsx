@@ -4,7 +4,7 @@ import { apiAssetUrl } from '@/features/api/client';
 import { suggestibleIds } from '@/features/pose-suggestion/map-pose';
 import { poseAvailable } from '@/features/pose-suggestion/run-pose';
 import type { LandmarkPoint, LandmarkSet, PhotoView } from '@/features/screening/contract';
-import { getLandmark } from '@/features/screening/engine/for-screens';
+import { getLandmark } from '@/features/screening/engine/landmarks';
 import type { LandmarkId, Point, Side, TaskSpec, View as PhotoSide } from '@/features/screening/engine';
 import { overlayFor } from '@/features/screening/overlay/overlay';
 import { useBreakpoints } from '@/features/ui/breakpoints';

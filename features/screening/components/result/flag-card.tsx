@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
-import { citationsIn, shortSource, type ThresholdRef } from '@/features/screening/engine';
+import type { ThresholdRef } from '@/features/screening/engine';
+import { citationsIn, shortSource } from '@/features/screening/engine/sources';
 import type { FlagGroup } from '@/features/screening/flag-groups';
 import { basisText, sideLabel, thresholdText, valueText } from '@/features/screening/labels';
 import { Text } from '@/features/ui/components/text';

@@ -1,10 +1,12 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
-import { CLEARANCE_LABELS } from '@/features/care/schemas';
+import { CLEARANCE_LABELS } from '@/features/care/choices';
 import { splitByBlock, type StrengthBlock } from '@/features/care/strength-block';
 import type { ClearanceView } from '@/features/care/types';
 import type { PlanAdjustmentView, ResultView } from '@/features/screening/contract';
-import { loadingContextOf, shortSource, STAGE_LIMITS, type PlannedExercise } from '@/features/screening/engine';
+import type { PlannedExercise } from '@/features/screening/engine';
+import { loadingContextOf, STAGE_LIMITS } from '@/features/screening/engine/limits';
+import { shortSource } from '@/features/screening/engine/sources';
 import { STAGE_LABELS } from '@/features/screening/labels';
 import { TESTER_MARK } from '@/features/screening/plan-edits';
 import { Button } from '@/features/ui/components/button';

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { apiAssetUrl } from '@/features/api/client';
 import type { AssessmentDetail, PhotoView } from '@/features/screening/contract';
-import { BATTERY, getTask } from '@/features/screening/engine/for-screens';
+import { BATTERY, getTask } from '@/features/screening/engine/battery';
 import { overlayFor } from '@/features/screening/overlay/overlay';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Text } from '@/features/ui/components/text';

@@ -1,0 +1,26 @@
+import { lazy, Suspense, type ComponentProps } from 'react';
+
+const Clearance = lazy(() => import('./clearance-panel').then((m) => ({ default: m.ClearancePanel })));
+const Notes = lazy(() => import('./notes-panel').then((m) => ({ default: m.NotesPanel })));
+
+/*
+ * The clearance and notes panels (their forms, schemas and mutations) are separate downloads: the athlete
+ * page and the result screen both show them, and a module two screens share would otherwise be loaded by
+ * every page. Both screens take them from here, so each panel is one chunk of its own. They sit below the
+ * screen's own content and fetch their data when mounted, so the wait adds little.
+ */
+export function LazyClearancePanel(props: ComponentProps<typeof Clearance>) {
+  return (
+    <Suspense fallback={null}>
+      <Clearance {...props} />
+    </Suspense>
+  );
+}
+
+export function LazyNotesPanel(props: ComponentProps<typeof Notes>) {
+  return (
+    <Suspense fallback={null}>
+      <Notes {...props} />
+    </Suspense>
+  );
+}
