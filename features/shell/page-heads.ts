@@ -8,7 +8,11 @@
 export type PageHead = { title: string; text?: string; lead?: boolean };
 
 export const PAGE_HEADS = {
-  home: { lead: true, title: 'Home', text: 'Your squads, rounds and athletes, as your role in the club sees them.' },
+  home: {
+    lead: true,
+    title: 'Home',
+    text: 'Your squads, rounds and athletes, as your role in the club sees them: what to screen next, what waits for review, and how each squad is doing.',
+  },
   screening: { title: 'Screening', text: 'Rounds by squad. Open a round, then screen one athlete after another.' },
   measuring: { title: 'To measure' },
   athletes: { title: 'Athletes' },

@@ -12,19 +12,12 @@ import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { space } from '@/features/ui/theme';
+import { HOME_INTROS, homeGreeting } from '../intros';
 import { SquadCards } from './squad-cards';
-
-const INTRO: Record<string, { title: string; text: string }> = {
-  admin: { title: 'Club set-up', text: 'Squads, people and consent records for the club.' },
-  head_coach: { title: 'Squad overview', text: 'Your squads at a glance.' },
-  tester: { title: 'Courtside', text: 'Pick a squad, then screen one athlete after another.' },
-  physio: { title: 'Athlete review', text: "Screens to review, and the club's athletes." },
-  parent: { title: 'Your family', text: 'What your child does in screening and training, and why.' },
-};
 
 export function RoleHome() {
   const { membership, me } = useActiveClub();
-  const intro = INTRO[membership.role]!;
+  const intro = HOME_INTROS[membership.role];
   return (
     <View style={styles.wrap} testID={`home-${membership.role}`}>
       <View style={styles.head}>
@@ -34,7 +27,7 @@ export function RoleHome() {
         <Text variant="title" accessibilityRole="header">
           {intro.title}
         </Text>
-        <Text>{`Hello ${me.user.displayName.split(' ')[0]}. ${intro.text}`}</Text>
+        <Text>{homeGreeting(me.user.displayName.split(' ')[0] ?? '', membership.role)}</Text>
       </View>
       {/* The ways on sit under the head, not under the lists: lists that arrive later would push them
           down under a thumb about to tap them. */}
