@@ -3,6 +3,7 @@
 // after every kind of write that changes them: a submit, a new result version, a screen leaving
 // 'submitted', a deletion, a round's date, and two submits in the same round from two connections at once.
 import { and, desc, eq } from 'drizzle-orm';
+import type { PoolClient } from 'pg';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { athleteLatestScreens, assessmentResults, assessments, roundSummaries, rounds } from '@/db/schema';
 import { patternOfFlag } from '@/features/progress/trends';
@@ -117,25 +118,19 @@ async function newAssessment(athleteId: string, status: 'submitted' | 'in_progre
   return a!.id;
 }
 
-/** What the submit transaction does: the previous current version stops being current, then the new one is added. */
-const addResultSql = `
-  with old as (update assessment_results set is_current = false where assessment_id = $1 and is_current returning version)
-  insert into assessment_results (club_id, assessment_id, athlete_id, version, is_current, engine_version, input, result)
-  values ($2, $1, $3, (select coalesce(max(version), 0) + 1 from assessment_results where assessment_id = $1), true, $4, $5, $6)`;
-
-async function addResult(assessmentId: string, athleteId: string, dx: number) {
+/**
+ * What the submit transaction does (`addResult` of the screening repository): the previous current
+ * version stops being current, then the new one is added, two statements. On the pool, or on one
+ * connection inside its own transaction.
+ */
+async function addResult(assessmentId: string, athleteId: string, dx: number, on: Pick<PoolClient, 'query'> = testDb.pool) {
   const result = evaluateAssessment(input(dx));
-  await testDb.pool.query('update assessment_results set is_current = false where assessment_id = $1 and is_current', [assessmentId]);
-  await testDb.db.insert(assessmentResults).values({
-    clubId: ids.club!,
-    assessmentId,
-    athleteId,
-    version: (await testDb.db.$count(assessmentResults, eq(assessmentResults.assessmentId, assessmentId))) + 1,
-    isCurrent: true,
-    engineVersion: result.engineVersion,
-    input: input(dx),
-    result,
-  });
+  await on.query('update assessment_results set is_current = false where assessment_id = $1 and is_current', [assessmentId]);
+  await on.query(
+    `insert into assessment_results (club_id, assessment_id, athlete_id, version, is_current, engine_version, input, result)
+      values ($2, $1, $3, (select coalesce(max(version), 0) + 1 from assessment_results where assessment_id = $1), true, $4, $5, $6)`,
+    [assessmentId, ids.club, athleteId, result.engineVersion, input(dx), result],
+  );
 }
 
 beforeAll(async () => {
@@ -242,8 +237,6 @@ describe('round summaries kept by the database', () => {
   });
 
   it('two submits in the same round from two connections at once are both counted', async () => {
-    const cleo = evaluateAssessment(input(30));
-    const dana = evaluateAssessment(input(20));
     ids.danaScreen = await newAssessment(ids.dana!, 'in_progress');
     await testDb.db.update(assessments).set({ status: 'submitted' }).where(eq(assessments.id, ids.cleoScreen!));
     await testDb.db.update(assessments).set({ status: 'submitted' }).where(eq(assessments.id, ids.danaScreen));
@@ -252,9 +245,9 @@ describe('round summaries kept by the database', () => {
     try {
       await first.query('begin');
       await second.query('begin');
-      await first.query(addResultSql, [ids.cleoScreen, ids.club, ids.cleo, cleo.engineVersion, input(30), cleo]);
+      await addResult(ids.cleoScreen!, ids.cleo!, 30, first);
       // The second waits for the first's lock on the round's summary, then sums what the first committed.
-      const waiting = second.query(addResultSql, [ids.danaScreen, ids.club, ids.dana, dana.engineVersion, input(20), dana]);
+      const waiting = addResult(ids.danaScreen, ids.dana!, 20, second);
       await new Promise((resolve) => setTimeout(resolve, 100));
       await first.query('commit');
       await waiting;
