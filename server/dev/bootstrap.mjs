@@ -245,7 +245,7 @@ function webSourceHash() {
     }
   };
   for (const dir of ['app', 'features', 'fonts']) walk(path.join(ROOT, dir));
-  for (const file of ['app.config.ts', 'package-lock.json', 'tsconfig.json', 'server/dev/service-worker.mjs']) {
+  for (const file of ['app.config.ts', 'package-lock.json', 'tsconfig.json', 'server/dev/route-chunks.mjs', 'server/dev/service-worker.mjs']) {
     const full = path.join(ROOT, file);
     if (fs.existsSync(full)) hash.update(file).update(fs.readFileSync(full));
   }
@@ -266,6 +266,7 @@ export function ensureWebBuild() {
   run('npx', ['expo', 'export', '--platform', 'web', '--output-dir', path.relative(ROOT, dist)], {
     env: { ...process.env, CI: '1', TMPDIR: tmp, EXPO_NO_TELEMETRY: '1' },
   });
+  run(process.execPath, [path.join(ROOT, 'server', 'dev', 'route-chunks.mjs'), dist]); // every layout named in every page
   run(process.execPath, [path.join(ROOT, 'server', 'dev', 'service-worker.mjs'), dist]); // manifest, icons, offline worker
   precompressExport(dist);
   fs.writeFileSync(stamp, want);

@@ -63,6 +63,7 @@ const HEAD_TAGS = [
   '<link rel="manifest" href="/manifest.webmanifest">',
   `<meta name="theme-color" content="${THEME}">`,
   '<link rel="apple-touch-icon" href="/icons/icon-192.png">',
+  '<link rel="icon" type="image/png" href="/icons/icon-192.png">', // else browsers ask for /favicon.ico, a 404
 ];
 
 // Font files are not preloaded. With `font-display: optional`, Chrome holds the first paint of a page

@@ -1,7 +1,7 @@
 import { useEffect, useState, type ReactNode } from 'react';
 import { can } from '@/features/access/permissions';
 import { useActiveClub } from '@/features/session/active-club';
-import { ShellFrame } from '@/features/shell/components/app-shell';
+import { ShellFrame } from '@/features/shell/components/shell-frame';
 import { deviceDataMayExist, setDeviceSession, startDevice } from '../device-handle';
 
 /**
