@@ -44,10 +44,18 @@ export function ScreeningHome() {
         </Text>
         <Text>{PAGE_HEADS.screening.text}</Text>
       </View>
+      {/* In place from the first render (usable once the squads are known), and the line below it: the
+          button appearing, or the line above it going, moved the page under a thumb about to tap. */}
+      {!isWide && canOpen ? (
+        formOpen && form ? (
+          form
+        ) : (
+          <Button label="Open a round" testID="open-round-start" disabled={!squads.data} onPress={() => setFormOpen(true)} />
+        )
+      ) : null}
       {/* The cards come once their rounds are known too: a card that grows as its rounds arrive pushes
           the next one down. */}
       {squads.isPending || roundsQuery.isPending ? <Text>Loading rounds…</Text> : null}
-      {!isWide && canOpen && squads.data ? formOpen ? form : <Button label="Open a round" testID="open-round-start" onPress={() => setFormOpen(true)} /> : null}
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         <View style={[styles.main, isWide && styles.mainWide]}>
           {(roundsQuery.isPending ? [] : bySquad).map(({ squad, rounds }) => (
