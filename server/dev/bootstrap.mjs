@@ -266,7 +266,7 @@ export function ensureWebBuild() {
   run('npx', ['expo', 'export', '--platform', 'web', '--output-dir', path.relative(ROOT, dist)], {
     env: { ...process.env, CI: '1', TMPDIR: tmp, EXPO_NO_TELEMETRY: '1' },
   });
-  run(process.execPath, [path.join(ROOT, 'server', 'dev', 'route-chunks.mjs'), dist]); // every layout named in every page
+  run(process.execPath, [path.join(ROOT, 'server', 'dev', 'route-chunks.mjs'), dist]); // the chunks each page needs at start, named in its HTML
   run(process.execPath, [path.join(ROOT, 'server', 'dev', 'service-worker.mjs'), dist]); // manifest, icons, offline worker
   precompressExport(dist);
   fs.writeFileSync(stamp, want);

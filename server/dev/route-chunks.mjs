@@ -20,6 +20,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { htmlFiles } from './service-worker.mjs';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 const SCRIPTS = '_expo/static/js/web';
@@ -30,13 +31,14 @@ const SCRIPT_TAG = /<script src="([^"]+)" defer><\/script>/g;
  * chunk (the one that starts the app; deferred scripts run in document order).
  */
 export function withChunks(html, sources) {
-  const named = new Set([...html.matchAll(SCRIPT_TAG)].map((m) => m[1]));
+  const tags = [...html.matchAll(SCRIPT_TAG)];
+  const named = new Set(tags.map((m) => m[1]));
   const missing = sources.filter((s) => !named.has(s));
   if (!missing.length) return html;
-  const entry = /<script src="[^"]*\/entry-[^"]*" defer><\/script>/.exec(html);
+  const entry = tags.find((m) => /\/entry-[^/]*$/.test(m[1]));
   if (!entry) throw new Error('The page names no entry chunk: is this an `expo export` page?');
-  const tags = missing.map((s) => `<script src="${s}" defer></script>`).join('');
-  return html.slice(0, entry.index) + tags + html.slice(entry.index);
+  const added = missing.map((s) => `<script src="${s}" defer></script>`).join('');
+  return html.slice(0, entry.index) + added + html.slice(entry.index);
 }
 
 /**
@@ -78,23 +80,15 @@ export function addRouteChunks(dist, root = ROOT) {
   const chunks = exportChunks(dist);
   const publicPages = publicPageNames(root);
   let changed = 0;
-  const walk = (sub) => {
-    for (const entry of fs.readdirSync(path.join(dist, sub), { withFileTypes: true })) {
-      const rel = sub ? `${sub}/${entry.name}` : entry.name;
-      if (entry.isDirectory()) {
-        if (rel !== '_expo' && rel !== 'assets') walk(rel);
-      } else if (entry.name.endsWith('.html')) {
-        const file = path.join(dist, rel);
-        const html = fs.readFileSync(file, 'utf8');
-        const next = withChunks(html, chunksFor(rel, chunks, publicPages));
-        if (next !== html) {
-          fs.writeFileSync(file, next);
-          changed++;
-        }
-      }
+  for (const rel of htmlFiles(dist)) {
+    const file = path.join(dist, rel);
+    const html = fs.readFileSync(file, 'utf8');
+    const next = withChunks(html, chunksFor(rel, chunks, publicPages));
+    if (next !== html) {
+      fs.writeFileSync(file, next);
+      changed++;
     }
-  };
-  walk('');
+  }
   return changed;
 }
 

@@ -46,7 +46,8 @@ async function writeIcons(dist) {
   return icons.map((i) => ({ src: `/icons/${i.file}`, sizes: `${i.size}x${i.size}`, type: 'image/png', purpose: i.maskable ? 'maskable' : 'any' }));
 }
 
-function htmlFiles(dist) {
+/** Every HTML page of the export, as paths relative to it with forward slashes, sorted. */
+export function htmlFiles(dist) {
   const out = [];
   const walk = (dir) => {
     for (const entry of fs.readdirSync(dir, { withFileTypes: true })) {
