@@ -245,12 +245,23 @@ function webSourceHash() {
     }
   };
   for (const dir of ['app', 'features', 'fonts']) walk(path.join(ROOT, dir));
-  for (const file of ['app.config.ts', 'package-lock.json', 'tsconfig.json', 'server/dev/route-chunks.mjs', 'server/dev/service-worker.mjs']) {
+  for (const file of [
+    'app.config.ts',
+    'package.json',
+    'package-lock.json',
+    'tsconfig.json',
+    'server/dev/metro.config.cjs',
+    'server/dev/route-chunks.mjs',
+    'server/dev/service-worker.mjs',
+  ]) {
     const full = path.join(ROOT, file);
     if (fs.existsSync(full)) hash.update(file).update(fs.readFileSync(full));
   }
   return hash.digest('hex');
 }
+
+/** Environment of every Metro run (export and dev server): our Metro settings, `server/dev/metro.config.cjs`. */
+export const METRO_ENV = { EXPO_OVERRIDE_METRO_CONFIG: path.join(ROOT, 'server', 'dev', 'metro.config.cjs') };
 
 /** Where the web export goes; SQUADLINE_DIST lets parallel checkouts of work keep their own. */
 export const DIST_DIR = path.resolve(ROOT, process.env.SQUADLINE_DIST ?? 'dist');
@@ -264,7 +275,7 @@ export function ensureWebBuild() {
   const tmp = path.join(ROOT, '.tmp');
   fs.mkdirSync(tmp, { recursive: true });
   run('npx', ['expo', 'export', '--platform', 'web', '--output-dir', path.relative(ROOT, dist)], {
-    env: { ...process.env, CI: '1', TMPDIR: tmp, EXPO_NO_TELEMETRY: '1' },
+    env: { ...process.env, ...METRO_ENV, CI: '1', TMPDIR: tmp, EXPO_NO_TELEMETRY: '1' },
   });
   run(process.execPath, [path.join(ROOT, 'server', 'dev', 'route-chunks.mjs'), dist]); // the chunks each page needs at start, named in its HTML
   run(process.execPath, [path.join(ROOT, 'server', 'dev', 'service-worker.mjs'), dist]); // manifest, icons, offline worker

@@ -3,7 +3,7 @@
 // that one origin (DEV_WEB_ORIGIN) with credentials.
 import { spawn } from 'node:child_process';
 import path from 'node:path';
-import { ROOT, ensureNodeModules, ensurePostgres, startDevCluster, tsx, tsxSync } from './bootstrap.mjs';
+import { METRO_ENV, ROOT, ensureNodeModules, ensurePostgres, startDevCluster, tsx, tsxSync } from './bootstrap.mjs';
 
 const apiPort = Number(process.env.PORT ?? 8080);
 ensureNodeModules();
@@ -22,7 +22,7 @@ const api = tsx(['watch', '--clear-screen=false', 'server/index.ts'], {
 const web = spawn(path.join(ROOT, 'node_modules', '.bin', 'expo'), ['start', '--web', '--port', '8081'], {
   cwd: ROOT,
   stdio: 'inherit',
-  env: { ...process.env, EXPO_PUBLIC_API_URL: `http://localhost:${apiPort}` },
+  env: { ...process.env, ...METRO_ENV, EXPO_PUBLIC_API_URL: `http://localhost:${apiPort}` },
 });
 
 let stopping = false;
