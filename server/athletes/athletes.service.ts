@@ -1,6 +1,5 @@
 import type { Db } from '@/db/client';
-import { can } from '@/features/access/permissions';
-import { ROLE_LABELS } from '@/features/auth/schemas';
+import { can, ROLE_LABELS } from '@/features/access/permissions';
 import type { AthleteInput, AthletePatchInput, ConsentInput, GuardianInput, SquadInput } from '@/features/athletes/schemas';
 import type { ClubScope } from '@/server/access/scope';
 import { AppError, badRequest, conflict, forbidden, notFound } from '@/server/http/errors';

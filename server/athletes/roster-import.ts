@@ -2,7 +2,7 @@ import { parse } from 'csv-parse/sync';
 import { ValidationError } from 'yup';
 import type { Db } from '@/db/client';
 import { todayIso } from '@/features/athletes/age';
-import { ROLE_LABELS } from '@/features/auth/schemas';
+import { ROLE_LABELS } from '@/features/access/permissions';
 import { OPTIONAL_ROSTER_COLUMNS, ROSTER_COLUMNS, ROSTER_HEADER_LINE, rosterRowSchema, type RosterColumn, type RosterRow } from '@/features/athletes/schemas';
 import type { ClubScope } from '@/server/access/scope';
 import { badRequest } from '@/server/http/errors';

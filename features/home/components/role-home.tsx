@@ -1,9 +1,8 @@
-import { can } from '@/features/access/permissions';
+import { can, ROLE_LABELS } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { ageInYears, todayIso } from '@/features/athletes/age';
 import { useAthletesQuery } from '@/features/athletes/api/get-athletes';
-import { ROLE_LABELS } from '@/features/auth/schemas';
 import { ReviewsTeaser } from '@/features/care/components/reviews-teaser';
 import { OpenRounds } from '@/features/screening/components/open-rounds';
 import { useActiveClub } from '@/features/session/active-club';

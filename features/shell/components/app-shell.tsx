@@ -1,9 +1,8 @@
 import { Link, usePathname, useRouter } from 'expo-router';
 import { useState, type ReactNode } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
-import { can } from '@/features/access/permissions';
+import { can, ROLE_LABELS } from '@/features/access/permissions';
 import { useSignOutMutation } from '@/features/auth/api/sign-out';
-import { ROLE_LABELS } from '@/features/auth/schemas';
 import { useMetaQuery } from '@/features/meta/get-meta';
 import { SignOutButton } from '@/features/offline/components/sign-out-guard';
 import { SyncStatusPill } from '@/features/offline/components/sync-status-pill';
