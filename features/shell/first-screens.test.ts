@@ -20,7 +20,7 @@ function resolveImport(from: string, spec: string): string | null | undefined {
 const IMPORT = /^\s*(?:import|export)\s+(type\s+)?(?:(\{[^}]*\}|[\w*\s,{}]+?)\s+from\s+)?'([^']+)'/gm;
 
 /** Every package the files import, directly or through our own files, with the first file that does. */
-export function packagesReached(entries: readonly string[]): Map<string, string> {
+function packagesReached(entries: readonly string[]): Map<string, string> {
   const seen = new Set<string>();
   const packages = new Map<string, string>();
   const visit = (file: string) => {
