@@ -2,10 +2,20 @@ import { Redirect, Slot, usePathname } from 'expo-router';
 import { useMeQuery } from '@/features/auth/api/get-me';
 
 export default function PublicLayout() {
+  // The signed-out screens render at once. Only the leaf below waits for /api/me: when it answers, that
+  // leaf renders again, not the whole screen (a Chromium profile of sign-in: the answer re-rendered the
+  // form, a sixth of the page's start-up).
+  return (
+    <>
+      <HomeWhenSignedIn />
+      <Slot />
+    </>
+  );
+}
+
+/** Someone already signed in is sent home from sign-in. Invitation and reset links stay usable. */
+function HomeWhenSignedIn() {
   const me = useMeQuery();
   const path = usePathname();
-  // The signed-out screens render at once; someone already signed in is sent home when /api/me answers.
-  // Invitation and reset links stay usable even when someone is signed in on this device.
-  if (me.data && path === '/sign-in') return <Redirect href="/" />;
-  return <Slot />;
+  return me.data && path === '/sign-in' ? <Redirect href="/" /> : null;
 }

@@ -82,6 +82,12 @@ async function resultOf<T>(res: Response): Promise<T> {
   return payload as T;
 }
 
+/**
+ * Functions a pre-rendered page's head queues for the moment its scripts start, once the page has been
+ * painted (the start script written into each page by server/dev/route-chunks.mjs runs them).
+ */
+export const START_QUEUE_GLOBAL = '__squadlineOnStart';
+
 /** The requests each pre-rendered page starts before the app's JavaScript has loaded (app/+html.tsx). */
 export const EARLY_REQUESTS_GLOBAL = '__squadlineEarly';
 type EarlyRequests = Record<string, Promise<Response | null> | undefined>;

@@ -2,12 +2,27 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { addRouteChunks, chunksFor, publicPageNames, withChunks } from './route-chunks.mjs';
+import vm from 'node:vm';
+import { START_QUEUE_GLOBAL } from '@/features/api/client';
+import {
+  addRouteChunks,
+  chunksFor,
+  FONTS_SCRIPT,
+  fontsFromSecondVisit,
+  publicPageNames,
+  START_QUEUE,
+  START_SCRIPT,
+  startAfterFirstPaint,
+  withChunks,
+} from './route-chunks.mjs';
 
 const JS = '/_expo/static/js/web';
 const tag = (name: string) => `<script src="${JS}/${name}" defer></script>`;
 const page = (...names: string[]) => `<html><head></head><body><div id="root">x</div>${names.map(tag).join('')}</body></html>`;
 const order = (html: string) => [...html.matchAll(/<script src="[^"]*\/([^"/]+)" defer>/g)].map((m) => m[1]);
+// The chunks the start script appends, in order (its data-start attribute).
+const started = (html: string) => (/<script data-start="([^"]*)">/.exec(html)?.[1]?.split(' ') ?? []).map((s) => s.replace(/^.*\//, ''));
+const preloaded = (html: string) => [...html.matchAll(/<link rel="preload" as="script" href="[^"]*\/([^"/]+)" fetchpriority="low">/g)].map((m) => m[1]);
 
 describe('every page names the chunks its first render needs', () => {
   it('adds the missing ones before the entry chunk, in the order given, and keeps what is there', () => {
@@ -80,8 +95,12 @@ describe('rewriting an export folder', () => {
     fs.writeFileSync(path.join(dir, 'sign-in.html'), page('_layout-aa.js', 'sign-in-ee.js', 'entry-dd.js'));
     fs.writeFileSync(path.join(dir, 'screening/rounds/[id].html'), page('_layout-aa.js', '_layout-bb.js', 'entry-dd.js'));
     expect(addRouteChunks(dir, dir)).toBe(2);
-    expect(order(fs.readFileSync(path.join(dir, 'sign-in.html'), 'utf8'))).toEqual(['_layout-aa.js', 'sign-in-ee.js', '_layout-bb.js', 'entry-dd.js']);
-    expect(order(fs.readFileSync(path.join(dir, 'screening/rounds/[id].html'), 'utf8'))).toEqual([
+    const signIn = fs.readFileSync(path.join(dir, 'sign-in.html'), 'utf8');
+    expect(order(signIn)).toEqual([]);
+    expect(signIn).toContain(START_SCRIPT);
+    expect(started(signIn)).toEqual(['_layout-aa.js', 'sign-in-ee.js', '_layout-bb.js', 'entry-dd.js']);
+    expect(preloaded(signIn)).toEqual(['entry-dd.js']);
+    expect(started(fs.readFileSync(path.join(dir, 'screening/rounds/[id].html'), 'utf8'))).toEqual([
       '_layout-aa.js',
       '_layout-bb.js',
       'club-shell-ff.js',
@@ -89,5 +108,157 @@ describe('rewriting an export folder', () => {
       'entry-dd.js',
     ]);
     expect(addRouteChunks(dir, dir)).toBe(0);
+  });
+});
+
+describe('the scripts start after the first paint', () => {
+  it('names every chunk in order on one start script where the tags were, and preloads only the entry chunk from the head', () => {
+    const html = page('__expo-metro-runtime-1.js', '_layout-root.js', 'sign-in-2.js', 'entry-4.js');
+    const next = startAfterFirstPaint(html);
+    expect(order(next)).toEqual([]);
+    expect(started(next)).toEqual(['__expo-metro-runtime-1.js', '_layout-root.js', 'sign-in-2.js', 'entry-4.js']);
+    expect(preloaded(next)).toEqual(['entry-4.js']);
+    expect(next.indexOf('fetchpriority="low">')).toBeLessThan(next.indexOf('</head>'));
+    expect(next.split(START_SCRIPT)).toHaveLength(2);
+    expect(next).toMatch(/<div id="root">x<\/div><script data-start="[^"]+">.*<\/script><\/body>/);
+  });
+
+  it('leaves a rewritten page, and a page without scripts, as they are; refuses a page without an entry chunk', () => {
+    const once = startAfterFirstPaint(page('_layout-a.js', 'entry-1.js'));
+    expect(startAfterFirstPaint(once)).toBe(once);
+    expect(startAfterFirstPaint(page())).toBe(page());
+    expect(() => startAfterFirstPaint(page('_layout-a.js'))).toThrow(/entry/);
+  });
+
+  it("runs the queue that the page's head fills (the early API requests)", () => {
+    expect(START_QUEUE).toBe(START_QUEUE_GLOBAL);
+    expect(fs.readFileSync(path.resolve(__dirname, '../../app/+html.tsx'), 'utf8')).toContain('START_QUEUE_GLOBAL}||[]).push(');
+  });
+
+  // The start script run against a stand-in for the browser: what it runs and appends, and when.
+  function browser(visibility: 'visible' | 'hidden', paintTiming = true) {
+    const log: string[] = [];
+    const appended: { src: string; async: boolean }[] = [];
+    const frames: (() => void)[] = [];
+    const timers: { ms: number; fn: () => void }[] = [];
+    const observers: { fn: (list: { getEntries: () => { name: string }[] }, obs: { disconnect: () => void }) => void; connected: boolean }[] = [];
+    const document = {
+      visibilityState: visibility,
+      currentScript: { getAttribute: (name: string) => (name === 'data-start' ? '/a.js /b.js /entry.js' : null) },
+      createElement: () => ({ src: '', async: true }),
+      body: {
+        appendChild: (s: { src: string; async: boolean }) => {
+          appended.push({ ...s });
+          log.push(`script ${s.src}`);
+        },
+      },
+    };
+    class PerformanceObserver {
+      static supportedEntryTypes = paintTiming ? ['paint', 'largest-contentful-paint'] : ['navigation'];
+      private entry;
+      constructor(fn: (typeof observers)[number]['fn']) {
+        this.entry = { fn, connected: false };
+        observers.push(this.entry);
+      }
+      observe(options: { type: string; buffered: boolean }) {
+        expect(options).toEqual({ type: 'paint', buffered: true });
+        this.entry.connected = true;
+      }
+    }
+    const window = {
+      requestAnimationFrame: (fn: () => void) => frames.push(fn),
+      PerformanceObserver,
+      [START_QUEUE]: [
+        () => log.push('early requests'),
+        () => {
+          throw new Error('a queued function that fails');
+        },
+      ],
+    };
+    const setTimeout = (fn: () => void, ms: number) => timers.push({ fn, ms });
+    vm.runInNewContext(START_SCRIPT, { document, window, setTimeout });
+    const paint = (name: string) =>
+      observers.forEach((o) => o.connected && o.fn({ getEntries: () => [{ name }] }, { disconnect: () => (o.connected = false) }));
+    // Runs the timers of that delay that are due now (each once), not those they set.
+    const run = (ms: number) => timers.splice(0).forEach((t) => (t.ms === ms ? t.fn() : timers.push(t)));
+    return { log, appended, frames, paint, run };
+  }
+  const ALL = [
+    { src: '/a.js', async: false },
+    { src: '/b.js', async: false },
+    { src: '/entry.js', async: false },
+  ];
+
+  it('starts nothing before the first contentful paint, then the queue and every chunk in order, not async, once', () => {
+    const b = browser('visible');
+    b.run(0);
+    b.paint('first-paint'); // the background only: still nothing
+    b.run(0);
+    expect(b.log).toEqual([]);
+    b.paint('first-contentful-paint');
+    expect(b.log).toEqual([]); // not inside the paint's own callback: in the task after it
+    b.run(0);
+    expect(b.log).toEqual(['early requests']); // the scripts in the task after that
+    b.run(0);
+    expect(b.log).toEqual(['early requests', 'script /a.js', 'script /b.js', 'script /entry.js']);
+    expect(b.appended).toEqual(ALL);
+    b.run(500); // the fallback comes later and adds nothing
+    b.paint('first-contentful-paint');
+    b.run(0);
+    expect(b.log).toHaveLength(4);
+  });
+
+  it('without paint timing, starts in the task after the next frame', () => {
+    const b = browser('visible', false);
+    b.frames.forEach((f) => f());
+    expect(b.appended).toEqual([]);
+    b.run(0);
+    b.run(0);
+    expect(b.appended).toEqual(ALL);
+  });
+
+  it('starts after half a second when nothing is painted, and at once on a hidden page', () => {
+    const held = browser('visible');
+    held.run(500);
+    held.run(0);
+    expect(held.appended).toEqual(ALL);
+    const hidden = browser('hidden');
+    hidden.run(0);
+    expect(hidden.appended).toEqual(ALL);
+  });
+});
+
+describe('web fonts from the second visit on', () => {
+  const FONTS = '<style id="expo-generated-fonts">@font-face{font-family:"A";src:url("/a.ttf");font-display:optional}</style>';
+  const withFonts = `<html><head>${FONTS}</head><body></body></html>`;
+
+  it('switches the rules off and puts the switch right after them; a second run or a page without rules changes nothing', () => {
+    const next = fontsFromSecondVisit(withFonts);
+    expect(next).toContain(
+      '<style id="expo-generated-fonts" media="not all">@font-face{font-family:"A";src:url("/a.ttf");font-display:optional}</style><script>',
+    );
+    expect(next.split(FONTS_SCRIPT)).toHaveLength(2);
+    expect(fontsFromSecondVisit(next)).toBe(next);
+    expect(fontsFromSecondVisit(page())).toBe(page());
+  });
+
+  function run(mark: string | null, storage = true) {
+    const style = { media: 'not all' };
+    const localStorage = {
+      getItem: (k: string) => {
+        if (!storage) throw new Error('refused');
+        return k === 'squadline.fonts' ? mark : null;
+      },
+    };
+    const document = { getElementById: (id: string) => (id === 'expo-generated-fonts' ? style : null) };
+    vm.runInNewContext(FONTS_SCRIPT, { localStorage, document });
+    return style.media;
+  }
+
+  it('switches them on only where the files were fetched before', () => {
+    expect(run('1')).toBe('all');
+    expect(run(null)).toBe('not all');
+    expect(run('0')).toBe('not all');
+    expect(run('1', false)).toBe('not all');
   });
 });

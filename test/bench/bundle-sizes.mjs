@@ -1,11 +1,14 @@
 // What each pre-rendered page of a web export makes the browser download as JavaScript before the page
-// can respond: the `<script src>` tags of its HTML (entry, shared chunk, layouts, the route's own chunk).
+// can respond: the `<script src>` tags of its HTML (entry, shared chunk, layouts, the route's own chunk),
+// or, once the export's pages start their scripts after the first paint, the list on the start script
+// (`<script data-start="...">`, server/dev/route-chunks.mjs).
 // Shared by `npm run bench:web` (the size report) and the first-chunk budget test.
 import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
 
 const SCRIPT_SRC = /<script[^>]*\bsrc="([^"]+)"/g;
+const START_LIST = /<script data-start="([^"]*)">/g;
 
 /** Bytes of a file as sent with gzip -9 (what the budget counts: stable, and what every browser accepts). */
 export function gzipBytes(file) {
@@ -15,8 +18,9 @@ export function gzipBytes(file) {
 /** The scripts one page loads, with raw and gzip sizes. */
 export function pageScripts(distDir, htmlFile) {
   const html = fs.readFileSync(path.join(distDir, htmlFile), 'utf8');
-  return [...html.matchAll(SCRIPT_SRC)].map((m) => {
-    const src = m[1];
+  const sources = [...html.matchAll(SCRIPT_SRC)].map((m) => m[1]);
+  for (const m of html.matchAll(START_LIST)) sources.push(...m[1].split(' ').filter(Boolean));
+  return sources.map((src) => {
     const file = path.join(distDir, decodeURIComponent(src.replace(/^\//, '').split('?')[0]));
     return { src, bytes: fs.statSync(file).size, gzip: gzipBytes(file) };
   });

@@ -42,6 +42,37 @@ test('empty fields are named beside the fields', async ({ page }) => {
   await expect(page.getByText('Enter your password.')).toBeVisible();
 });
 
+test('what is typed before the app has started is kept (a slow connection: the form is painted first)', async ({ page }) => {
+  // The app's main chunk is held until both fields are filled in on the pre-rendered page.
+  let release = () => {};
+  const held = new Promise<void>((resolve) => (release = resolve));
+  await page.route('**/_expo/static/js/web/entry-*.js', async (route) => {
+    await held;
+    await route.continue();
+  });
+  await page.goto('/sign-in', { waitUntil: 'commit' });
+  await page.getByTestId('email').fill('tester@squadline.test');
+  await page.getByTestId('password').fill('squadline-demo');
+  const started = () => Object.keys(document.querySelector('[data-testid="email"]') ?? {}).some((k) => k.startsWith('__reactFiber'));
+  expect(await page.evaluate(started)).toBe(false);
+  release();
+  await page.waitForFunction(started);
+  await expect(page.getByTestId('email')).toHaveValue('tester@squadline.test');
+  await page.getByTestId('sign-in-submit').click();
+  await expect(page.getByTestId('home-tester')).toBeVisible();
+});
+
+test('the first visit is drawn in the system face; the font files are fetched when idle and used from the next visit', async ({ page }) => {
+  const rules = () => document.getElementById('expo-generated-fonts')?.getAttribute('media') ?? 'missing';
+  await page.goto('/sign-in');
+  expect(await page.evaluate(rules)).toBe('not all');
+  await page.waitForFunction(() => localStorage.getItem('squadline.fonts') === '1');
+  expect(await page.evaluate(rules)).toBe('not all'); // nothing changes face during the visit
+  await page.reload();
+  expect(await page.evaluate(rules)).toBe('all');
+  await page.waitForFunction(() => document.fonts.check('18px SquadlineSans_400Regular'));
+});
+
 test('signed-out visits to signed-in pages redirect to sign-in, which then opens the page asked for', async ({ page }) => {
   await page.goto('/');
   await expect(page).toHaveURL(/\/sign-in$/);

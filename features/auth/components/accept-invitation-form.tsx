@@ -21,7 +21,8 @@ export function AcceptInvitationForm({ token }: { token: string }) {
   return (
     <Formik
       initialValues={{ token, displayName: hasAccount ? 'existing account' : '', password: '' }}
-      validationSchema={acceptInvitationSchema}
+      // A function: yup and the schemas are built at the first validation, not while the page starts.
+      validationSchema={() => acceptInvitationSchema}
       onSubmit={async (values, helpers) => {
         try {
           await accept.mutateAsync(values);

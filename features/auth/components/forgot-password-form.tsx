@@ -16,7 +16,8 @@ export function ForgotPasswordForm() {
   return (
     <Formik
       initialValues={{ email: '' }}
-      validationSchema={requestResetSchema}
+      // A function: yup and the schemas are built at the first validation, not while the page starts.
+      validationSchema={() => requestResetSchema}
       onSubmit={async (values, helpers) => {
         try {
           await request.mutateAsync(requestResetSchema.cast(values));

@@ -23,7 +23,8 @@ export function ResetPasswordForm({ token }: { token: string }) {
   return (
     <Formik
       initialValues={{ token, password: '' }}
-      validationSchema={resetPasswordSchema}
+      // A function: yup and the schemas are built at the first validation, not while the page starts.
+      validationSchema={() => resetPasswordSchema}
       onSubmit={async (values, helpers) => {
         try {
           await reset.mutateAsync(values);

@@ -18,7 +18,8 @@ export function SignInForm() {
   return (
     <Formik<SignInInput>
       initialValues={{ email: '', password: '' }}
-      validationSchema={signInSchema}
+      // A function: yup and the schemas are built at the first validation, not while the page starts.
+      validationSchema={() => signInSchema}
       onSubmit={async (values, helpers) => {
         try {
           await signIn.mutateAsync(signInSchema.cast(values));

@@ -20,7 +20,8 @@ export function OpenRoundForm({ squads, initialSquadId }: { squads: SquadSummary
   return (
     <Formik<CreateRoundInput>
       initialValues={{ squadId: initialSquadId ?? (squads.length === 1 ? squads[0]!.id : ''), name: '', screenedOn: todayIsoLocal() }}
-      validationSchema={createRoundSchema}
+      // A function: yup and the schemas are built at the first validation, not while the page starts.
+      validationSchema={() => createRoundSchema}
       onSubmit={async (values, helpers) => {
         try {
           const res = await create.mutateAsync(createRoundSchema.cast(values));

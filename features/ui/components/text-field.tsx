@@ -1,6 +1,7 @@
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import { StyleSheet, TextInput, View, type TextInputProps } from 'react-native';
 import { colors, fonts, radius, space, TOUCH_MIN } from '../theme';
+import { useTypedBeforeStart } from '../use-typed-before-start';
 import { Text } from './text';
 
 type Props = TextInputProps & { label: string; error?: string | false; hint?: string; testID?: string };
@@ -8,10 +9,13 @@ type Props = TextInputProps & { label: string; error?: string | false; hint?: st
 /** A labelled input with its error shown right under it. */
 export function TextField({ label, error, hint, style, testID, ...rest }: Props) {
   const [focused, setFocused] = useState(false);
+  const input = useRef<TextInput>(null);
+  useTypedBeforeStart(input, rest.value, rest.onChangeText);
   return (
     <View style={styles.wrap}>
       <Text variant="label">{label}</Text>
       <TextInput
+        ref={input}
         accessibilityLabel={label}
         testID={testID}
         placeholderTextColor={colors.inkMuted}

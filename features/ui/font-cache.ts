@@ -1,0 +1,2 @@
+/** Native: the fonts are files inside the app. */
+export function keepFontsForNextVisit(): void {}
