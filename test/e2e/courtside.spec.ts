@@ -1,4 +1,5 @@
-import { expect, test, type FileChooser, type Locator, type Page } from '@playwright/test';
+import { type FileChooser, type Locator, type Page } from '@playwright/test';
+import { expect, test } from './fixtures';
 import sharp from 'sharp';
 import { signIn } from './helpers';
 

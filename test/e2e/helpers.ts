@@ -1,9 +1,11 @@
 import { expect, type Page } from '@playwright/test';
+import { waitForApp } from './fixtures';
 
 export const DEMO_PASSWORD = 'squadline-demo';
 
 export async function signIn(page: Page, email: string, password = DEMO_PASSWORD) {
   await page.goto('/sign-in');
+  await waitForApp(page); // also for pages a test opens itself
   await page.getByTestId('email').fill(email);
   await page.getByTestId('password').fill(password);
   await page.getByTestId('sign-in-submit').click();

@@ -1,4 +1,5 @@
-import { expect, test, type APIRequestContext, type BrowserContext, type Page } from '@playwright/test';
+import { type APIRequestContext, type BrowserContext, type Page } from '@playwright/test';
+import { expect, test, waitForApp } from './fixtures';
 import sharp from 'sharp';
 import { openNav, signIn } from './helpers';
 
@@ -215,6 +216,7 @@ test('the same draft edited on two phones, one of them offline, is merged when i
   await signIn(phone2, 'tester@squadline.test');
   await expect(phone2.getByTestId('home-tester')).toBeVisible();
   await phone2.goto(`/screening/rounds/${round.round.id}`);
+  await waitForApp(phone2);
   await readyForCourtside(phone2, round.athletes.length);
   await phone2.getByTestId(`round-athlete-${athlete.athleteId}`).click();
   await expect(phone2.getByTestId('step-title')).toHaveText('Body measurements');

@@ -1,4 +1,5 @@
-import { expect, test, type Browser, type Page } from '@playwright/test';
+import { type Browser, type Page } from '@playwright/test';
+import { expect, test, waitForApp } from './fixtures';
 import { openNav, signIn } from './helpers';
 
 // Parents: an invitation that names the children it links, and a parent with no linked child told what
@@ -21,6 +22,7 @@ async function join(browser: Browser, page: Page, link: string, name: string) {
   const context = await browser.newContext({ viewport: page.viewportSize()! });
   const p2 = await context.newPage();
   await p2.goto(new URL(link).pathname + new URL(link).search);
+  await waitForApp(p2);
   return {
     context,
     p2,

@@ -1,4 +1,5 @@
-import { expect, test, type Page } from '@playwright/test';
+import { type Page } from '@playwright/test';
+import { expect, test } from './fixtures';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';

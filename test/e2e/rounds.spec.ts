@@ -1,4 +1,4 @@
-import { expect, test } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { signIn } from './helpers';
 
 // A head coach's round: "Start" on the home page while nothing is done, the athletes' flags by severity

@@ -1,4 +1,5 @@
-import { expect, test, type Locator, type Page } from '@playwright/test';
+import { type Locator, type Page } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { FIGURE, figureJpeg, type Mark } from './figure';
 import { openNav, signIn } from './helpers';
 

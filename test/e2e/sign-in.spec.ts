@@ -1,4 +1,4 @@
-import { expect, test } from '@playwright/test';
+import { expect, test, waitForApp } from './fixtures';
 import { openNav, signIn } from './helpers';
 
 const ROLES = [
@@ -130,6 +130,7 @@ test('an admin invites someone and the e-mail arrives in the local mailbox', asy
   const invitee = await page.context().browser()!.newContext({ viewport: page.viewportSize()! });
   const p2 = await invitee.newPage();
   await p2.goto(new URL(link).pathname + new URL(link).search);
+  await waitForApp(p2);
   await p2.getByLabel('Your name').fill('Nia Newcomer');
   await p2.getByLabel('Choose a password').fill('a-very-long-password');
   await p2.getByRole('button', { name: 'Join the club' }).click();

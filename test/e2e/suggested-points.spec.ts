@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { expect, test, type Page } from '@playwright/test';
+import { type Page } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { signIn } from './helpers';
 
 // Suggested points: the pose model runs in the browser on a real photograph of a person, the coach drags

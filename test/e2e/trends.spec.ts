@@ -1,5 +1,6 @@
 import fs from 'node:fs';
-import { expect, test, type Page } from '@playwright/test';
+import { type Page } from '@playwright/test';
+import { expect, test } from './fixtures';
 import { openNav, signIn } from './helpers';
 
 // Squad trends as the demo head coach (three past rounds per squad in the demo), and one athlete's

@@ -1,0 +1,2 @@
+/** Native: nothing is drawn before the app runs. */
+export function markAppStarted(): void {}
