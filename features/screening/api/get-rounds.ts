@@ -1,4 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import { useMemo } from 'react';
 import { api } from '@/features/api/client';
 import { useSquadsQuery } from '@/features/athletes/api/get-squads';
 import type { SquadSummary } from '@/features/athletes/api/types';
@@ -22,11 +23,14 @@ export type SquadWithRounds = { squad: SquadSummary; rounds: RoundSummary[] };
 export function useClubRoundsQuery() {
   const squads = useSquadsQuery();
   const rounds = useRoundsQuery();
-  const all = rounds.data?.rounds ?? [];
-  const bySquad: SquadWithRounds[] = (squads.data?.squads ?? []).map((squad) => ({
-    squad,
-    rounds: all.filter((r) => r.squadId === squad.id).sort((a, b) => b.screenedOn.localeCompare(a.screenedOn)),
-  }));
+  // Kept while neither answer changes, so that a screen can defer it (React's useDeferredValue).
+  const bySquad: SquadWithRounds[] = useMemo(() => {
+    const all = rounds.data?.rounds ?? [];
+    return (squads.data?.squads ?? []).map((squad) => ({
+      squad,
+      rounds: all.filter((r) => r.squadId === squad.id).sort((a, b) => b.screenedOn.localeCompare(a.screenedOn)),
+    }));
+  }, [squads.data, rounds.data]);
   return { squads, rounds, bySquad, isPending: squads.isPending || rounds.isPending, error: squads.error ?? rounds.error };
 }
 

@@ -1,3 +1,4 @@
+import { useDeferredValue } from 'react';
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { isOpenRound, isUntouchedRound, useClubRoundsQuery } from '@/features/screening/api/get-rounds';
@@ -16,7 +17,12 @@ const SHOWN_PER_SQUAD = 2;
  * and a big way back into each.
  */
 export function OpenRounds() {
-  const { bySquad, isPending, error } = useClubRoundsQuery();
+  const live = useClubRoundsQuery();
+  // Drawn in the background when the lists arrive (see ClubShell): the first date on a page sets up the
+  // browser's calendar data, the largest part of this render in a profile.
+  const bySquad = useDeferredValue(live.bySquad);
+  const isPending = useDeferredValue(live.isPending);
+  const error = live.error;
   const { isTabletUp } = useBreakpoints();
   if (error) return <RoundsUnavailable error={error} />;
   // Squads and rounds together: a squad card drawn before its rounds arrive would say "No open round"

@@ -1,4 +1,5 @@
 import { Redirect, Slot, usePathname } from 'expo-router';
+import { useDeferredValue } from 'react';
 import { can } from '@/features/access/permissions';
 import { useMeQuery } from '@/features/auth/api/get-me';
 import { signedOutOnThisDevice } from '@/features/auth/return-to';
@@ -15,7 +16,14 @@ import { ShellFrame } from './shell-frame';
  * every page, the sign-in page included, and this part is only needed once someone is signed in.
  */
 export default function ClubShell() {
-  const me = useMeQuery();
+  const live = useMeQuery();
+  // The session's answer re-renders the whole signed-in page (bars, club, screen). Deferred, React renders
+  // it in the background, yielding to the browser every few milliseconds, instead of in one long task
+  // (our measurement: a 0.1 s task on a tester's home). Only values that keep their identity while
+  // unchanged are deferred (the cached answer, a flag), so moving between screens renders nothing twice.
+  const data = useDeferredValue(live.data);
+  const isPending = useDeferredValue(live.isPending);
+  const me = { data, isPending, error: live.error };
   const pathname = usePathname();
   // The frame is also what the pre-rendered HTML shows: the page's place and head at first paint.
   if (me.isPending) return <ShellFrame />;
