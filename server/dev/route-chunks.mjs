@@ -70,10 +70,11 @@ const START_ATTR = 'data-start';
 export const START_QUEUE = '__squadlineOnStart';
 // Plain ES5, the same text on every page (one CSP hash; the list is in an attribute, which the hash does
 // not cover). The queue and the scripts run in two tasks (each is a few milliseconds: the first request
-// and the first script appended set up the browser's machinery). It waits for the browser's first contentful paint entry (a frame callback alone ran the
-// scripts before that frame was shown); without paint timing, for the task after the next frame. A
-// hidden page paints nothing, so it starts at once; and a page that has not painted within half a second
-// starts anyway (our choice: the app is never held long for a paint that something else holds back).
+// and the first script appended set up the browser's machinery). It waits for the browser's first
+// contentful paint entry (a frame callback alone ran the scripts before that frame was shown); without
+// paint timing, for the task after the next frame. A hidden page paints nothing, so it starts at once;
+// and a page that has not painted within half a second starts anyway (our choice: the app is never held
+// long for a paint that something else holds back).
 export const START_SCRIPT =
   `(function(){var d=document,w=window,me=d.currentScript,done=0;function start(){if(done)return;done=1;` +
   `var q=w.${START_QUEUE}||[];for(var j=0;j<q.length;j++){try{q[j]()}catch(e){}}setTimeout(scripts,0)}` +
