@@ -1,3 +1,5 @@
+import { afterLoadWhenIdle } from '@/features/ui/after-load-idle';
+
 /**
  * Registers the worker written after `expo export` (server/dev/service-worker.mjs): it keeps the app
  * shell, fonts and screens so the app opens with no connection. Production web builds only: under
@@ -11,7 +13,5 @@ export function registerServiceWorker(): void {
   // anyway): loading and running it in the first screen's start-up added to the time the page could not
   // respond (a Chromium profile of a home, 4x slower CPU).
   const register = () => void import('workbox-window').then(({ Workbox }) => new Workbox('/sw.js', { scope: '/' }).register()).catch(() => undefined);
-  const whenIdle = () => (typeof requestIdleCallback === 'function' ? requestIdleCallback(register, { timeout: 5000 }) : setTimeout(register, 0));
-  if (document.readyState === 'complete') whenIdle();
-  else window.addEventListener('load', whenIdle, { once: true });
+  afterLoadWhenIdle(register);
 }

@@ -1,3 +1,5 @@
+import { afterLoadWhenIdle } from './after-load-idle';
+
 /**
  * Web: each pre-rendered page carries its @font-face rules switched off, and turns them on only when
  * this browser has fetched the font files before (server/dev/route-chunks.mjs, step 5). This fetches
@@ -35,9 +37,5 @@ async function fetchFonts(): Promise<void> {
 
 /** Once the page has loaded and the main thread is idle (never during the first screen's start-up). */
 export function keepFontsForNextVisit(): void {
-  if (typeof window === 'undefined' || typeof document === 'undefined') return;
-  const run = () => void fetchFonts();
-  const whenIdle = () => (typeof requestIdleCallback === 'function' ? requestIdleCallback(run, { timeout: 5000 }) : setTimeout(run, 0));
-  if (document.readyState === 'complete') whenIdle();
-  else window.addEventListener('load', whenIdle, { once: true });
+  afterLoadWhenIdle(() => void fetchFonts());
 }
