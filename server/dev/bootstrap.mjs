@@ -251,6 +251,7 @@ function webSourceHash() {
     'package-lock.json',
     'tsconfig.json',
     'server/dev/metro.config.cjs',
+    'server/dev/react-native-lazy.js',
     'server/dev/route-chunks.mjs',
     'server/dev/service-worker.mjs',
   ]) {

@@ -17,4 +17,18 @@ config.transformer.getTransformOptions = async (...args) => {
   const options = await expoTransformOptions(...args);
   return { ...options, transform: { ...options.transform, inlineRequires: true } };
 };
+
+// On the web, React Native Web's index resolves to react-native-lazy.js, which loads each of its exports
+// when first read instead of all of them at start (see that file). Expo's Babel preset rewrites
+// `import { View } from 'react-native'` to the one export's file, but `require('react-native')` as a
+// whole (the compiled CommonJS of expo-router and others) to `react-native-web/dist/index`. Expo's own
+// resolvers, which map `react-native` to `react-native-web`, run after this one.
+const LAZY_INDEX = path.join(__dirname, 'react-native-lazy.js'); // eslint-disable-line no-undef -- CommonJS
+const WHOLE_INDEX = new Set(['react-native', 'react-native-web', 'react-native-web/dist/index']);
+config.resolver.resolveRequest = (context, moduleName, platform) => {
+  if (platform === 'web' && WHOLE_INDEX.has(moduleName)) {
+    return { type: 'sourceFile', filePath: LAZY_INDEX };
+  }
+  return context.resolveRequest(context, moduleName, platform);
+};
 module.exports = config;

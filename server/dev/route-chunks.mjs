@@ -39,6 +39,15 @@
 //    scripts at the highest priority. Lighthouse's simulation counted them as needed for the first paint
 //    whenever they arrived before it (our measurement: sign-in FCP 0.7 or 1.1 s from one run to the next).
 //
+// 6. The app renders the page afresh instead of hydrating the pre-rendered one (`renderAfresh`: the
+//    export's `__EXPO_ROUTER_HYDRATE__` flag is taken out). Hydration left every route's Suspense
+//    boundary for later, and the first state change above it (the safe-area frame, measured in an
+//    effect; the navigators' bookkeeping) made React hydrate the whole page in one synchronous render:
+//    one long task of 0.3-0.6 s on a 4x slower CPU (our measurement in Chromium: React's commits and the
+//    updates that forced them). A fresh render is one transition that React splits into short tasks; the
+//    pre-rendered page stays on screen until the app's page replaces it in one commit, drawn the same.
+//    What was typed into a pre-rendered field is handed over (`useTypedBeforeStart` in features/ui).
+//
 // Plain Node: it runs inside the bootstrap.
 import fs from 'node:fs';
 import path from 'node:path';
@@ -129,6 +138,14 @@ export function fontsFromSecondVisit(html) {
   return `${html.slice(0, at)}<style id="${FONT_STYLE_ID}" media="not all">${rules}<script>${FONTS_SCRIPT}</script>${html.slice(end)}`;
 }
 
+// The export's flag for hydrating the pre-rendered page (expo-router's entry reads it).
+const HYDRATE_FLAG = '<script type="module">globalThis.__EXPO_ROUTER_HYDRATE__=true;</script>';
+
+/** The HTML without the hydrate flag, so the app renders the page afresh (see 6. above). */
+export function renderAfresh(html) {
+  return html.split(HYDRATE_FLAG).join('');
+}
+
 /**
  * Which extra chunks a page needs, from its path inside the export (`screening/index.html`) and the
  * names of the signed-out pages (`sign-in`, the files of app/(public)).
@@ -171,8 +188,10 @@ export function addRouteChunks(dist, root = ROOT) {
   for (const rel of htmlFiles(dist)) {
     const file = path.join(dist, rel);
     const html = fs.readFileSync(file, 'utf8');
-    if (html.includes(START_SCRIPT)) continue; // rewritten by an earlier run
-    const next = fontsFromSecondVisit(startAfterFirstPaint(withChunks(html, chunksFor(rel, chunks, publicPages))));
+    // A page rewritten by an earlier run gets only what it lacks.
+    const next = renderAfresh(
+      html.includes(START_SCRIPT) ? html : fontsFromSecondVisit(startAfterFirstPaint(withChunks(html, chunksFor(rel, chunks, publicPages)))),
+    );
     if (next !== html) {
       fs.writeFileSync(file, next);
       changed++;

@@ -10,6 +10,7 @@ import {
   FONTS_SCRIPT,
   fontsFromSecondVisit,
   publicPageNames,
+  renderAfresh,
   START_QUEUE,
   START_SCRIPT,
   startAfterFirstPaint,
@@ -18,7 +19,9 @@ import {
 
 const JS = '/_expo/static/js/web';
 const tag = (name: string) => `<script src="${JS}/${name}" defer></script>`;
-const page = (...names: string[]) => `<html><head></head><body><div id="root">x</div>${names.map(tag).join('')}</body></html>`;
+// As `expo export` writes a page: the flag for hydrating the pre-rendered page, then the page and its scripts.
+const HYDRATE = '<script type="module">globalThis.__EXPO_ROUTER_HYDRATE__=true;</script>';
+const page = (...names: string[]) => `<html><head>${HYDRATE}</head><body><div id="root">x</div>${names.map(tag).join('')}</body></html>`;
 const order = (html: string) => [...html.matchAll(/<script src="[^"]*\/([^"/]+)" defer>/g)].map((m) => m[1]);
 // The chunks the start script appends, in order (its data-start attribute).
 const started = (html: string) => (/<script data-start="([^"]*)">/.exec(html)?.[1]?.split(' ') ?? []).map((s) => s.replace(/^.*\//, ''));
@@ -98,6 +101,7 @@ describe('rewriting an export folder', () => {
     const signIn = fs.readFileSync(path.join(dir, 'sign-in.html'), 'utf8');
     expect(order(signIn)).toEqual([]);
     expect(signIn).toContain(START_SCRIPT);
+    expect(signIn).not.toContain('__EXPO_ROUTER_HYDRATE__');
     expect(started(signIn)).toEqual(['_layout-aa.js', 'sign-in-ee.js', '_layout-bb.js', 'entry-dd.js']);
     expect(preloaded(signIn)).toEqual(['entry-dd.js']);
     expect(started(fs.readFileSync(path.join(dir, 'screening/rounds/[id].html'), 'utf8'))).toEqual([
@@ -225,6 +229,16 @@ describe('the scripts start after the first paint', () => {
     const hidden = browser('hidden');
     hidden.run(0);
     expect(hidden.appended).toEqual(ALL);
+  });
+});
+
+describe('the app renders the page afresh', () => {
+  it('takes the hydrate flag out and nothing else; a second run or a page without it changes nothing', () => {
+    const before = page('entry-dd.js');
+    const next = renderAfresh(before);
+    expect(next).toBe(before.replace(HYDRATE, ''));
+    expect(next).not.toContain('__EXPO_ROUTER_HYDRATE__');
+    expect(renderAfresh(next)).toBe(next);
   });
 });
 

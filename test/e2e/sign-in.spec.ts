@@ -58,6 +58,35 @@ test('what is typed before the app has started is kept (a slow connection: the f
   release();
   await page.waitForFunction(started);
   await expect(page.getByTestId('email')).toHaveValue('tester@squadline.test');
+  // The app's page replaces the pre-rendered one: the field typed in last keeps the focus and its text.
+  await expect(page.getByTestId('password')).toBeFocused();
+  await expect(page.getByTestId('password')).toHaveValue('squadline-demo');
+  await page.getByTestId('sign-in-submit').click();
+  await expect(page.getByTestId('home-tester')).toBeVisible();
+});
+
+test('the app renders the page afresh: one commit replaces the pre-rendered page, drawn the same', async ({ page }) => {
+  // Hydration forced a synchronous render of the whole page (one long task); the export's flag is out.
+  const html = await (await page.request.get('/sign-in')).text();
+  expect(html).toContain('data-start=');
+  expect(html).not.toContain('__EXPO_ROUTER_HYDRATE__');
+  // The pre-rendered page alone (the app's scripts refused), then the app's page: the same layout.
+  await page.route('**/_expo/static/js/web/**', (route) => route.abort());
+  await page.goto('/sign-in', { waitUntil: 'commit' });
+  await expect(page.getByTestId('email')).toBeVisible();
+  const boxes = async () => ({
+    title: await page.getByRole('heading', { level: 1 }).first().boundingBox(),
+    field: await page.getByTestId('email').boundingBox(),
+  });
+  const pre = await boxes();
+  const appOwns = () => Object.keys(document.querySelector('[data-testid="email"]') ?? {}).some((k) => k.startsWith('__reactFiber'));
+  expect(await page.evaluate(appOwns)).toBe(false);
+  await page.unroute('**/_expo/static/js/web/**');
+  await page.goto('/sign-in');
+  expect(await page.evaluate(appOwns)).toBe(true);
+  expect(await boxes()).toEqual(pre);
+  await page.getByTestId('email').fill('tester@squadline.test');
+  await page.getByTestId('password').fill('squadline-demo');
   await page.getByTestId('sign-in-submit').click();
   await expect(page.getByTestId('home-tester')).toBeVisible();
 });

@@ -10,7 +10,7 @@ type Props = TextInputProps & { label: string; error?: string | false; hint?: st
 export function TextField({ label, error, hint, style, testID, ...rest }: Props) {
   const [focused, setFocused] = useState(false);
   const input = useRef<TextInput>(null);
-  useTypedBeforeStart(input, rest.value, rest.onChangeText);
+  useTypedBeforeStart(input, label, rest.value, rest.onChangeText);
   return (
     <View style={styles.wrap}>
       <Text variant="label">{label}</Text>
