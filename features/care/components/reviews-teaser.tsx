@@ -2,7 +2,7 @@ import { Link } from 'expo-router';
 import { StyleSheet } from 'react-native';
 import { Card } from '@/features/ui/components/card';
 import { Text } from '@/features/ui/components/text';
-import { space } from '@/features/ui/theme';
+import { space, type } from '@/features/ui/theme';
 import { useReviewsQuery } from '../api/get-reviews';
 
 /** On the physiotherapist's home: how many screens wait, and the way to the review list. */
@@ -15,7 +15,14 @@ export function ReviewsTeaser() {
       <Text variant="heading">
         {waiting === null ? 'Reviews' : waiting === 0 ? 'Nothing to review' : `${waiting} ${waiting === 1 ? 'screen' : 'screens'} to review`}
       </Text>
-      {urgent > 0 ? <Text>{`${urgent} with pain reported or clearance needed.`}</Text> : null}
+      {/* Two lines kept for this line whatever it says, so that the answer moves nothing below it. */}
+      <Text style={styles.status}>
+        {waiting === null
+          ? 'Checking for pain reports and clearances…'
+          : urgent > 0
+            ? `${urgent} with pain reported or clearance needed.`
+            : 'None with pain reported or clearance needed.'}
+      </Text>
       <Link href="/reviews" style={styles.link} testID="open-reviews">
         <Text variant="label">Open the review list →</Text>
       </Link>
@@ -23,4 +30,7 @@ export function ReviewsTeaser() {
   );
 }
 
-const styles = StyleSheet.create({ link: { minHeight: 48, paddingVertical: space.md } });
+const styles = StyleSheet.create({
+  status: { minHeight: 2 * type.body.lineHeight },
+  link: { minHeight: 48, paddingVertical: space.md },
+});

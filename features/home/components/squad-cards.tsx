@@ -16,7 +16,9 @@ export function SquadCards() {
       {squads.data.squads.map((s) => (
         <Card key={s.id} style={isTabletUp ? styles.cardWide : undefined}>
           <Text variant="heading">{s.name}</Text>
-          <Text variant="small">{s.athleteCount} athletes</Text>
+          <Text variant="small">
+            {s.athleteCount} {s.athleteCount === 1 ? 'athlete' : 'athletes'}
+          </Text>
         </Card>
       ))}
     </View>

@@ -53,7 +53,7 @@ function KeptRounds({ withTitle }: { withTitle: boolean }) {
                     {r.round.name}
                   </Text>
                   <Text variant="small">
-                    {r.round.squadName} · {r.round.screenedOn} · {r.athletes.length} athletes
+                    {r.round.squadName} · {r.round.screenedOn} · {r.athletes.length} {r.athletes.length === 1 ? 'athlete' : 'athletes'}
                   </Text>
                 </View>
                 <Text style={styles.chevron}>›</Text>

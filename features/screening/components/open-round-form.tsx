@@ -57,7 +57,9 @@ export function OpenRoundForm({ squads, initialSquadId }: { squads: SquadSummary
                 >
                   <View style={[styles.dot, selected && styles.dotOn]} />
                   <Text style={styles.choiceText}>{s.name}</Text>
-                  <Text variant="small">{s.athleteCount} athletes</Text>
+                  <Text variant="small">
+                    {s.athleteCount} {s.athleteCount === 1 ? 'athlete' : 'athletes'}
+                  </Text>
                 </Pressable>
               );
             })}

@@ -35,7 +35,9 @@ export function OpenRounds() {
         return (
           <Card key={squad.id} style={isTabletUp ? styles.cardWide : undefined}>
             <Text variant="heading">{squad.name}</Text>
-            <Text variant="small">{squad.athleteCount} athletes</Text>
+            <Text variant="small">
+              {squad.athleteCount} {squad.athleteCount === 1 ? 'athlete' : 'athletes'}
+            </Text>
             {open.length === 0 ? (
               <Link href="/screening" style={styles.secondary}>
                 <Text style={styles.secondaryText}>No open round. Open one →</Text>

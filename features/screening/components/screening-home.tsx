@@ -61,7 +61,9 @@ export function ScreeningHome() {
           {(roundsQuery.isPending ? [] : bySquad).map(({ squad, rounds }) => (
             <Card key={squad.id} testID={`squad-rounds-${squad.id}`}>
               <Text variant="heading">{squad.name}</Text>
-              <Text variant="small">{squad.athleteCount} athletes</Text>
+              <Text variant="small">
+                {squad.athleteCount} {squad.athleteCount === 1 ? 'athlete' : 'athletes'}
+              </Text>
               {rounds.length === 0 ? <Text variant="small">No rounds yet.</Text> : null}
               <View>
                 {rounds.map((r) => (
