@@ -7,7 +7,7 @@ export default defineConfig({
   root,
   resolve: { alias: { '@/': root } },
   test: {
-    include: ['features/**/*.test.ts', 'server/**/*.test.ts', 'db/**/*.test.ts', 'test/api/**/*.test.ts'],
+    include: ['features/**/*.test.ts', 'server/**/*.test.ts', 'db/**/*.test.ts', 'test/api/**/*.test.ts', 'test/bench/**/*.test.ts'],
     environment: 'node',
     globalSetup: ['test/api/global-setup.ts'],
     testTimeout: 20_000,

@@ -5,7 +5,11 @@
 //
 // Needs a running `npm start` (the demo data signs in as each role). Lighthouse is an npm package,
 // installed on first use into .tmp/lighthouse (pinned; not a dependency of the app or of `npm test`).
+// Then, in Chromium traces of the same pages and the empty app (alternating again), the main-thread
+// blocking counted from thread CPU time, which a shared machine's stolen time does not inflate
+// (test/bench/cpu-blocking.mjs).
 // Usage: npm run bench:web [-- --runs 3] [--url http://127.0.0.1:8080] [--pages sign-in,home-tester,...]
+//        [--trace-runs 5] [--traces-only]
 import { execFileSync, spawn } from 'node:child_process';
 import fs from 'node:fs';
 import net from 'node:net';
@@ -14,6 +18,7 @@ import { fileURLToPath } from 'node:url';
 import { DIST_DIR } from '../../server/dev/bootstrap.mjs';
 import { buildBaselineApp } from './baseline-app.mjs';
 import { firstChunk, kb, readmeBudgetKb, routeSizes } from './bundle-sizes.mjs';
+import { cpuBlockingMeter } from './cpu-blocking.mjs';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const LIGHTHOUSE = 'lighthouse@12.8.2';
@@ -27,6 +32,8 @@ const opt = (name, fallback) => {
 const runs = Number(opt('runs', '3'));
 const base = opt('url', 'http://127.0.0.1:8080').replace(/\/$/, '');
 const only = opt('pages', '').split(',').filter(Boolean);
+const traceRuns = Number(opt('trace-runs', '5'));
+const tracesOnly = args.includes('--traces-only');
 
 // ---------------------------------------------------------------------------------------------------
 // Bundle sizes first: they need no server and are the quickest to read.
@@ -56,7 +63,7 @@ console.log(`Empty app's first page: ${kb(firstChunk(baselineDist).gzip)} gzip -
 // ---------------------------------------------------------------------------------------------------
 const toolDir = path.join(ROOT, '.tmp', 'lighthouse');
 const cli = path.join(toolDir, 'node_modules', 'lighthouse', 'cli', 'index.js');
-if (!fs.existsSync(cli)) {
+if (!tracesOnly && !fs.existsSync(cli)) {
   fs.mkdirSync(toolDir, { recursive: true });
   console.log(`Installing ${LIGHTHOUSE} into .tmp/lighthouse (first run only)...`);
   execFileSync('npm', ['install', '--prefix', toolDir, '--no-audit', '--no-fund', '--save-exact', LIGHTHOUSE], { stdio: 'inherit' });
@@ -174,7 +181,7 @@ const results = { baseline: [] };
 for (const p of pages) results[p.name] = [];
 const total = runs * (pages.length + 1);
 let n = 0;
-for (let round = 0; round < runs; round++) {
+for (let round = 0; round < (tracesOnly ? 0 : runs); round++) {
   n++;
   process.stdout.write(`\n[${n}/${total}] empty app /\n`);
   results.baseline.push(lighthouse(`http://127.0.0.1:${baselinePort}/`, null, `baseline-${round}`));
@@ -184,25 +191,58 @@ for (let round = 0; round < runs; round++) {
     results[p.name].push(lighthouse(`${base}${p.path}`, p.cookie, `${p.name}-${round}`));
   }
 }
-stopBaseline();
 
 const median = (list, k) => [...list.map((r) => r[k])].sort((x, y) => x - y)[Math.floor(list.length / 2)];
 const row = (name, list) => {
   const m = (k) => median(list, k);
   return `  ${name.padEnd(14)} ${String(m('score')).padStart(5)} ${(m('fcp') / 1000).toFixed(2).padStart(7)} ${(m('lcp') / 1000).toFixed(2).padStart(7)} ${String(Math.round(m('tbt'))).padStart(7)} ${m('cls').toFixed(3).padStart(7)} ${String(Math.round(m('bytes') / 1024)).padStart(8)}`;
 };
-const b = { score: median(results.baseline, 'score'), lcp: median(results.baseline, 'lcp') };
-console.log(`\nLighthouse mobile (simulated slow 4G, 4x CPU), median of ${runs}, ${new Date().toISOString().slice(0, 10)}:`);
-console.log(
-  `  ${'page'.padEnd(14)} ${'score'.padStart(5)} ${'FCP s'.padStart(7)} ${'LCP s'.padStart(7)} ${'TBT ms'.padStart(7)} ${'CLS'.padStart(7)} ${'KB sent'.padStart(8)}   score ratio  LCP ratio`,
-);
-console.log(row('empty app', results.baseline));
-for (const p of pages) {
-  const s = median(results[p.name], 'score');
-  const l = median(results[p.name], 'lcp');
-  console.log(`${row(p.name, results[p.name])}   ${(s / b.score).toFixed(2).padStart(11)}  ${(l / b.lcp).toFixed(2).padStart(9)}`);
+if (!tracesOnly) printLighthouse();
+
+// Blocking time from thread CPU time, alternating the same way.
+const meter = await cpuBlockingMeter();
+const traced = { baseline: [] };
+for (const p of pages) traced[p.name] = [];
+let t = 0;
+const traceTotal = traceRuns * (pages.length + 1);
+for (let round = 0; round < traceRuns; round++) {
+  t++;
+  traced.baseline.push(await meter.measure(`http://127.0.0.1:${baselinePort}/`, null));
+  process.stdout.write(`\r[trace ${t}/${traceTotal}]`);
+  for (const p of pages) {
+    t++;
+    traced[p.name].push(await meter.measure(`${base}${p.path}`, p.cookie));
+    process.stdout.write(`\r[trace ${t}/${traceTotal}]`);
+  }
 }
-console.log('\nscore ratio = Squadline / empty app (1.00 or more: at least as good); LCP ratio = Squadline / empty app (1.00 or less: at least as fast).');
+await meter.close();
+stopBaseline();
+const tb = median(traced.baseline, 'blockingMs');
+console.log(`\n\nMain-thread blocking after the first paint from thread CPU time x4 (Chromium traces, unthrottled), median of ${traceRuns}:`);
+console.log(`  ${'page'.padEnd(14)} ${'blocking ms'.padStart(12)} ${'CPU ms'.padStart(8)}   blocking ratio`);
+console.log(`  ${'empty app'.padEnd(14)} ${String(Math.round(tb)).padStart(12)} ${String(Math.round(median(traced.baseline, 'busyMs'))).padStart(8)}`);
+for (const p of pages) {
+  const mb = median(traced[p.name], 'blockingMs');
+  console.log(
+    `  ${p.name.padEnd(14)} ${String(Math.round(mb)).padStart(12)} ${String(Math.round(median(traced[p.name], 'busyMs'))).padStart(8)}   ${(mb / tb).toFixed(2).padStart(14)}`,
+  );
+}
+console.log('\nblocking ratio = Squadline / empty app (1.00 or less: blocks no longer). CPU ms: all main-thread CPU time of the load, x4.');
+
+function printLighthouse() {
+  const b = { score: median(results.baseline, 'score'), lcp: median(results.baseline, 'lcp') };
+  console.log(`\nLighthouse mobile (simulated slow 4G, 4x CPU), median of ${runs}, ${new Date().toISOString().slice(0, 10)}:`);
+  console.log(
+    `  ${'page'.padEnd(14)} ${'score'.padStart(5)} ${'FCP s'.padStart(7)} ${'LCP s'.padStart(7)} ${'TBT ms'.padStart(7)} ${'CLS'.padStart(7)} ${'KB sent'.padStart(8)}   score ratio  LCP ratio`,
+  );
+  console.log(row('empty app', results.baseline));
+  for (const p of pages) {
+    const s = median(results[p.name], 'score');
+    const l = median(results[p.name], 'lcp');
+    console.log(`${row(p.name, results[p.name])}   ${(s / b.score).toFixed(2).padStart(11)}  ${(l / b.lcp).toFixed(2).padStart(9)}`);
+  }
+  console.log('\nscore ratio = Squadline / empty app (1.00 or more: at least as good); LCP ratio = Squadline / empty app (1.00 or less: at least as fast).');
+}
 
 function freePort() {
   return new Promise((resolve, reject) => {
