@@ -264,8 +264,10 @@ const styles = StyleSheet.create({
   stack: { gap: space.md },
   row: { flexDirection: 'row', gap: space.lg, alignItems: 'flex-start' },
   flex: { flex: 1, minWidth: 0 },
-  tableCol: { flex: 3, minWidth: 0 },
-  chartCol: { flex: 2, minWidth: 0, gap: space.md },
+  // Two thirds for the table: at 1440 px its flag columns then hold "dorsiflexion" whole (with 3:2
+  // they broke it, and "Asymmetry", mid-word); the charts keep a phone's width.
+  tableCol: { flex: 2, minWidth: 0 },
+  chartCol: { flex: 1, minWidth: 0, gap: space.md },
   filters: { gap: space.sm },
   filtersWide: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.xl, rowGap: space.sm, alignItems: 'flex-end' },
   actions: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
