@@ -1,3 +1,4 @@
+import { plural } from '@/features/ui/plural';
 import { Link } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -80,8 +81,6 @@ export function RosterImport() {
     </View>
   );
 }
-
-const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
 function importLabel(r: ImportReport): string {
   const updates = r.updateCount ?? 0;

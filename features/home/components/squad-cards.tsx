@@ -1,3 +1,4 @@
+import { plural } from '@/features/ui/plural';
 import { StyleSheet, View } from 'react-native';
 import { useSquadsQuery } from '@/features/athletes/api/get-squads';
 import { useBreakpoints } from '@/features/ui/breakpoints';
@@ -16,9 +17,7 @@ export function SquadCards() {
       {squads.data.squads.map((s) => (
         <Card key={s.id} style={isTabletUp ? styles.cardWide : undefined}>
           <Text variant="heading">{s.name}</Text>
-          <Text variant="small">
-            {s.athleteCount} {s.athleteCount === 1 ? 'athlete' : 'athletes'}
-          </Text>
+          <Text variant="small">{plural(s.athleteCount, 'athlete', 'athletes')}</Text>
         </Card>
       ))}
     </View>

@@ -1,3 +1,4 @@
+import { plural } from '@/features/ui/plural';
 import { Link } from 'expo-router';
 import { useEffect, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -53,7 +54,7 @@ function KeptRounds({ withTitle }: { withTitle: boolean }) {
                     {r.round.name}
                   </Text>
                   <Text variant="small">
-                    {r.round.squadName} · {r.round.screenedOn} · {r.athletes.length} {r.athletes.length === 1 ? 'athlete' : 'athletes'}
+                    {r.round.squadName} · {r.round.screenedOn} · {plural(r.athletes.length, 'athlete', 'athletes')}
                   </Text>
                 </View>
                 <Text style={styles.chevron}>›</Text>

@@ -1,3 +1,4 @@
+import { plural } from '@/features/ui/plural';
 import { useRouter } from 'expo-router';
 import { Formik } from 'formik';
 import { Pressable, StyleSheet, View } from 'react-native';
@@ -57,9 +58,7 @@ export function OpenRoundForm({ squads, initialSquadId }: { squads: SquadSummary
                 >
                   <View style={[styles.dot, selected && styles.dotOn]} />
                   <Text style={styles.choiceText}>{s.name}</Text>
-                  <Text variant="small">
-                    {s.athleteCount} {s.athleteCount === 1 ? 'athlete' : 'athletes'}
-                  </Text>
+                  <Text variant="small">{plural(s.athleteCount, 'athlete', 'athletes')}</Text>
                 </Pressable>
               );
             })}

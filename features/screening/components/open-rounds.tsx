@@ -1,3 +1,4 @@
+import { plural } from '@/features/ui/plural';
 import { useDeferredValue } from 'react';
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
@@ -35,9 +36,7 @@ export function OpenRounds() {
         return (
           <Card key={squad.id} style={isTabletUp ? styles.cardWide : undefined}>
             <Text variant="heading">{squad.name}</Text>
-            <Text variant="small">
-              {squad.athleteCount} {squad.athleteCount === 1 ? 'athlete' : 'athletes'}
-            </Text>
+            <Text variant="small">{plural(squad.athleteCount, 'athlete', 'athletes')}</Text>
             {open.length === 0 ? (
               <Link href="/screening" style={styles.secondary}>
                 <Text style={styles.secondaryText}>No open round. Open one →</Text>

@@ -1,3 +1,4 @@
+import { plural } from '@/features/ui/plural';
 import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { useState } from 'react';
@@ -61,9 +62,7 @@ export function ScreeningHome() {
           {(roundsQuery.isPending ? [] : bySquad).map(({ squad, rounds }) => (
             <Card key={squad.id} testID={`squad-rounds-${squad.id}`}>
               <Text variant="heading">{squad.name}</Text>
-              <Text variant="small">
-                {squad.athleteCount} {squad.athleteCount === 1 ? 'athlete' : 'athletes'}
-              </Text>
+              <Text variant="small">{plural(squad.athleteCount, 'athlete', 'athletes')}</Text>
               {rounds.length === 0 ? <Text variant="small">No rounds yet.</Text> : null}
               <View>
                 {rounds.map((r) => (
