@@ -103,6 +103,25 @@ test('the first visit is drawn in the system face; the font files are fetched wh
   await page.waitForFunction(() => document.fonts.check('18px SquadlineSans_400Regular'));
 });
 
+test('the manifest and the tab icon are linked after the first paint, so nothing fetches them before it', async ({ page, request }) => {
+  // Chromium fetches the tab icon itself (no page event): watched through the DevTools protocol.
+  const cdp = await page.context().newCDPSession(page);
+  await cdp.send('Network.enable');
+  const asked: { url: string; at: number }[] = [];
+  cdp.on('Network.requestWillBeSent', (e) => asked.push({ url: e.request.url, at: e.wallTime * 1000 }));
+  const served = await (await request.get('/sign-in')).text();
+  expect(served).not.toContain('<link rel="manifest"');
+  expect(served).toContain('<link rel="icon" href="data:,">');
+
+  await page.goto('/sign-in');
+  await expect(page.locator('link[rel="manifest"]')).toHaveAttribute('href', '/manifest.webmanifest');
+  await expect.poll(() => asked.some((r) => r.url.endsWith('/icons/icon-192.png'))).toBe(true);
+  const paint = await page.evaluate(() => performance.timeOrigin + performance.getEntriesByName('first-contentful-paint')[0]!.startTime);
+  const early = asked.filter((r) => /\/(manifest\.webmanifest|icons\/.*|favicon\.ico)$/.test(r.url) && r.at <= paint);
+  expect(early).toEqual([]);
+  expect((await request.get('/manifest.webmanifest')).status()).toBe(200);
+});
+
 test('signed-out visits to signed-in pages redirect to sign-in, which then opens the page asked for', async ({ page }) => {
   await page.goto('/');
   await expect(page).toHaveURL(/\/sign-in$/);
