@@ -1,16 +1,17 @@
 import { afterLoadWhenIdle } from './after-load-idle';
 
 /**
- * Web: each pre-rendered page carries its @font-face rules switched off, and turns them on only when
- * this browser has fetched the font files before (server/dev/route-chunks.mjs, step 5). This fetches
- * them once the first visit has loaded and is idle, into the browser's cache, and then leaves the mark:
- * the next visit draws its first paint in Source Sans 3 from the cache, while this one stays in the
- * system face from start to end (no text moves mid-visit).
+ * Web: each pre-rendered page carries its @font-face rules switched off, and the server sends the
+ * page's twin with them on when the request carries FONTS_COOKIE (server/dev/route-chunks.mjs, step 5;
+ * server/web/serve-export.ts). This fetches the files once the first visit has loaded and is idle, into
+ * the browser's cache, and then sets the cookie: the next visit draws its first paint in Source Sans 3
+ * from the cache, while this one stays in the system face from start to end (no text moves mid-visit).
  */
 
-/** The same name as FONTS_MARK in server/dev/route-chunks.mjs (a test holds them together). */
-export const FONTS_MARK = 'squadline.fonts';
+/** The same name as FONTS_COOKIE in server/dev/route-chunks.mjs (a test holds them together). */
+export const FONTS_COOKIE = 'squadline_fonts';
 const FONT_STYLE_ID = 'expo-generated-fonts';
+const YEAR_SECONDS = 365 * 24 * 60 * 60;
 
 /** The font files the page's rules name. */
 export function fontUrlsOf(css: string): string[] {
@@ -18,18 +19,16 @@ export function fontUrlsOf(css: string): string[] {
 }
 
 async function fetchFonts(): Promise<void> {
-  let marked: string | null = null;
-  try {
-    marked = localStorage.getItem(FONTS_MARK);
-  } catch {
-    return; // storage refused: the rules could never be switched on
-  }
-  if (marked === '1') return;
-  const urls = fontUrlsOf(document.getElementById(FONT_STYLE_ID)?.textContent ?? '');
+  const rules = document.getElementById(FONT_STYLE_ID) as HTMLStyleElement | null;
+  // Rules on: the server saw the cookie, the browser has the files. No rules: nothing to fetch.
+  if (!rules || rules.media !== 'not all') return;
+  const urls = fontUrlsOf(rules.textContent ?? '');
   if (!urls.length) return;
   try {
     const answers = await Promise.all(urls.map((url) => fetch(url, { priority: 'low' } as RequestInit)));
-    if (answers.every((res) => res.ok)) localStorage.setItem(FONTS_MARK, '1');
+    if (!answers.every((res) => res.ok)) return;
+    const secure = location.protocol === 'https:' ? '; Secure' : '';
+    document.cookie = `${FONTS_COOKIE}=1; Path=/; Max-Age=${YEAR_SECONDS}; SameSite=Lax${secure}`;
   } catch {
     // offline or refused: tried again on the next visit
   }

@@ -31,13 +31,17 @@
 //    starts is kept (`useTypedBeforeStart` in features/ui).
 //
 // 5. Web fonts from the second visit on (`fontsFromSecondVisit`). The @font-face rules the pre-rendering
-//    writes (`<style id="expo-generated-fonts">`) are switched off (`media="not all"`), and a one-line
-//    script right after them switches them on when this browser has fetched the font files before
-//    (features/ui/font-cache.web.ts fetches them once the first visit is idle, and leaves a mark). On a
-//    first visit the page is drawn in the system face throughout: with `font-display: optional` a slow
-//    connection kept that face anyway, and now the two font files (50 KB) no longer compete with the
-//    scripts at the highest priority. Lighthouse's simulation counted them as needed for the first paint
-//    whenever they arrived before it (our measurement: sign-in FCP 0.7 or 1.1 s from one run to the next).
+//    writes (`<style id="expo-generated-fonts">`) are switched off (`media="not all"`), and each page gets
+//    a twin under `_fonts/` with them on (`fontsOn`). The server sends the twin when the request carries
+//    the cookie features/ui/font-cache.web.ts sets once it has fetched the font files, after the first
+//    visit is idle (FONTS_COOKIE; server/web/serve-export.ts). On a first visit the page is drawn in the
+//    system face throughout: with `font-display: optional` a slow connection kept that face anyway, and
+//    the two font files (50 KB) no longer compete with the scripts at the highest priority. Lighthouse's
+//    simulation counted them as needed for the first paint whenever they arrived before it (our
+//    measurement: sign-in FCP 0.7 or 1.1 s from one run to the next). The choice is the server's, not a
+//    script's in the head: reading the browser's storage (or its cookies) from the page is a synchronous
+//    call to the browser process, 12-16 ms before the first paint in our traces of the sign-in page
+//    (4 times that in Lighthouse's simulation of a slower phone).
 //
 // 6. The app renders the page afresh instead of hydrating the pre-rendered one (`renderAfresh`: the
 //    export's `__EXPO_ROUTER_HYDRATE__` flag is taken out). Hydration left every route's Suspense
@@ -121,21 +125,20 @@ export function startAfterFirstPaint(html) {
   return html.slice(0, head) + preload + body + html.slice(from);
 }
 
-// The pre-rendering's @font-face rules, and the mark features/ui/font-cache.web.ts leaves (FONTS_MARK).
+// The pre-rendering's @font-face rules; the cookie features/ui/font-cache.web.ts sets; the twins' folder.
 const FONT_STYLE_ID = 'expo-generated-fonts';
-export const FONTS_MARK = 'squadline.fonts';
-// Plain ES5, the same text on every page (one CSP hash). Storage may be refused (private modes): then
-// the rules stay off.
-export const FONTS_SCRIPT = `try{if(localStorage.getItem("${FONTS_MARK}")==="1")document.getElementById("${FONT_STYLE_ID}").media="all"}catch(e){}`;
+const FONTS_OFF = `<style id="${FONT_STYLE_ID}" media="not all">`;
+export const FONTS_COOKIE = 'squadline_fonts';
+export const FONTS_TWINS = '_fonts';
 
-/** The HTML with its web font rules off unless the browser has the files (see 5. above). */
+/** The HTML with its web font rules off (see 5. above); unchanged without rules or when already off. */
 export function fontsFromSecondVisit(html) {
-  const open = `<style id="${FONT_STYLE_ID}">`;
-  const at = html.indexOf(open);
-  if (at < 0) return html; // no rules, or rewritten already
-  const end = html.indexOf('</style>', at) + '</style>'.length;
-  const rules = html.slice(at + open.length, end);
-  return `${html.slice(0, at)}<style id="${FONT_STYLE_ID}" media="not all">${rules}<script>${FONTS_SCRIPT}</script>${html.slice(end)}`;
+  return html.replace(`<style id="${FONT_STYLE_ID}">`, FONTS_OFF);
+}
+
+/** The twin of a page for a browser that has the font files: the rules on. */
+export function fontsOn(html) {
+  return html.replace(FONTS_OFF, `<style id="${FONT_STYLE_ID}">`);
 }
 
 // The export's flag for hydrating the pre-rendered page (expo-router's entry reads it).
@@ -180,12 +183,13 @@ export function exportChunks(dist) {
   return { layouts, shell: one('club-shell'), device: one('device') };
 }
 
-/** Rewrites every page of the export; returns how many changed. */
+/** Rewrites every page of the export and writes its twin with the fonts on; returns how many changed. */
 export function addRouteChunks(dist, root = ROOT) {
   const chunks = exportChunks(dist);
   const publicPages = publicPageNames(root);
   let changed = 0;
   for (const rel of htmlFiles(dist)) {
+    if (rel.startsWith(`${FONTS_TWINS}/`)) continue;
     const file = path.join(dist, rel);
     const html = fs.readFileSync(file, 'utf8');
     // A page rewritten by an earlier run gets only what it lacks.
@@ -195,6 +199,11 @@ export function addRouteChunks(dist, root = ROOT) {
     if (next !== html) {
       fs.writeFileSync(file, next);
       changed++;
+    }
+    const twin = fontsOn(next);
+    if (twin !== next) {
+      fs.mkdirSync(path.dirname(path.join(dist, FONTS_TWINS, rel)), { recursive: true });
+      fs.writeFileSync(path.join(dist, FONTS_TWINS, rel), twin);
     }
   }
   return changed;

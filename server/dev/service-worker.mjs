@@ -108,7 +108,8 @@ export function routeTable(files) {
   const routes = [];
   for (const file of files) {
     const base = path.posix.basename(file);
-    if (base.startsWith('+') || base.startsWith('_')) continue;
+    // The twins with web fonts on (`_fonts/`, route-chunks.mjs step 5) are chosen by the server only.
+    if (base.startsWith('+') || base.startsWith('_') || file.startsWith('_')) continue;
     let route = file.replace(/\.html$/, '').replace(/(^|\/)index$/, '');
     const segments = route.split('/').filter((s) => s && !/^\(.*\)$/.test(s));
     let dynamic = 0;
@@ -207,7 +208,7 @@ export async function buildServiceWorker(dist) {
     swDest: path.join(dist, 'sw.js'),
     globDirectory: dist,
     globPatterns: ['**/*.{html,js,css,ttf,otf,woff,woff2,png,jpg,svg,ico,webmanifest}'],
-    globIgnores: ['sw.js', 'sw.js.map', 'workbox-*.js', 'sw-navigation.js'],
+    globIgnores: ['sw.js', 'sw.js.map', 'workbox-*.js', 'sw-navigation.js', '_fonts/**'],
     // Bundles carry their hash in their name: no revision query needed.
     dontCacheBustURLsMatching: /\/_expo\/static\/.+-[0-9a-f]{8,}\.|\.[0-9a-f]{16,}\./,
     maximumFileSizeToCacheInBytes: 8 * 1024 * 1024,

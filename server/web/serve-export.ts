@@ -15,6 +15,10 @@ export type WebExport = {
 
 const YEAR = '365d';
 const HASHED_FOLDERS = ['_expo', 'assets'];
+// The pages' twins with web fonts on, and the cookie that asks for them (server/dev/route-chunks.mjs, step 5;
+// set by features/ui/font-cache.web.ts once this browser has fetched the font files).
+const FONTS_TWINS = '_fonts';
+const FONTS_CACHED = /(?:^|;\s*)squadline_fonts=1(?:;|$)/;
 const INLINE_SCRIPT = /<script(?![^>]*\bsrc=)[^>]*>([\s\S]*?)<\/script>/g;
 
 /** The CSP hashes of every inline script in the exported pages (Expo adds one to turn on hydration). */
@@ -46,7 +50,7 @@ export function webExport(webDir: string): WebExport | null {
       res.setHeader('Content-Encoding', encoding);
       res.type(path.extname(rel));
     }
-    res.setHeader('Vary', 'Accept-Encoding');
+    if (!res.getHeader('Vary')) res.setHeader('Vary', 'Accept-Encoding');
     res.status(status);
     res.sendFile(encoding ? `${rel}.${encoding === 'br' ? 'br' : 'gz'}` : rel, {
       root: webDir,
@@ -72,7 +76,11 @@ export function webExport(webDir: string): WebExport | null {
   handler.get('/{*splat}', ((req, res, next) => {
     const page = matchPage(table, req.path);
     if (!page) return next();
-    sendFile(res, page.file, { immutable: false }, page.status);
+    // A browser that has the font files gets the page's twin with the web font rules on.
+    const twin = `${FONTS_TWINS}/${page.file}`;
+    const file = FONTS_CACHED.test(req.headers.cookie ?? '') && available.has(twin) ? twin : page.file;
+    res.setHeader('Vary', 'Accept-Encoding, Cookie');
+    sendFile(res, file, { immutable: false }, page.status);
   }) as RequestHandler);
   return { handler, inlineScriptHashes };
 }

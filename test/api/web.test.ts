@@ -36,6 +36,9 @@ beforeAll(async () => {
   write(staticDir, 'athletes/[id].html', page('One athlete'));
   write(staticDir, 'screening/assessments/[id]/result.html', page('Result page'));
   write(staticDir, '+not-found.html', page('Page not found'));
+  // The twins with web fonts on (server/dev/route-chunks.mjs, step 5), one page without one.
+  write(staticDir, '_fonts/sign-in.html', page('Sign-in page, fonts on'));
+  write(staticDir, '_fonts/+not-found.html', page('Page not found, fonts on'));
   write(staticDir, '_expo/static/js/web/entry-abc.js', script);
   write(staticDir, '_expo/static/js/web/entry-abc.js.br', zlib.brotliCompressSync(script));
   write(staticDir, '_expo/static/js/web/entry-abc.js.gz', zlib.gzipSync(script));
@@ -63,6 +66,24 @@ describe('serving a static web export', () => {
     expect(res.headers['content-type']).toMatch(/text\/html/);
     expect(res.text).toContain(text);
     expect(res.headers['cache-control']).toBe('no-cache');
+  });
+
+  it("sends a page's twin with web fonts on only to a browser whose cookie says it has the files", async () => {
+    const { app } = makeTestApp(testDb.db, { config: { webDir: staticDir } });
+    const plain = await supertest(app).get('/sign-in');
+    expect(plain.text).toContain('Sign-in page');
+    expect(plain.text).not.toContain('fonts on');
+    expect(plain.headers.vary).toBe('Accept-Encoding, Cookie');
+    const twin = await supertest(app).get('/sign-in').set('Cookie', 'squadline_session=abc; squadline_fonts=1');
+    expect(twin.text).toContain('Sign-in page, fonts on');
+    expect((await supertest(app).get('/sign-in').set('Cookie', 'squadline_fonts=10')).text).not.toContain('fonts on');
+    expect((await supertest(app).get('/sign-in').set('Cookie', 'xsquadline_fonts=1')).text).not.toContain('fonts on');
+    const missing = await supertest(app).get('/athletes').set('Cookie', 'squadline_fonts=1');
+    expect(missing.text).toContain('Athlete list');
+    const notFound = await supertest(app).get('/no/such/page').set('Cookie', 'squadline_fonts=1');
+    expect([notFound.status, notFound.text.includes('Page not found, fonts on')]).toEqual([404, true]);
+    // The twins are no pages of their own address.
+    expect((await supertest(app).get('/_fonts/sign-in')).text).not.toContain('fonts on');
   });
 
   it('answers an unknown path with the not-found page and a 404', async () => {

@@ -33,7 +33,8 @@ export function routeSizes(distDir) {
     for (const entry of fs.readdirSync(path.join(distDir, sub), { withFileTypes: true })) {
       const rel = sub ? `${sub}/${entry.name}` : entry.name;
       if (entry.isDirectory()) {
-        if (!entry.name.startsWith('(') && entry.name !== '_expo' && entry.name !== 'assets') walk(rel);
+        // Left out: group copies, scripts, assets and the pages' twins with web fonts on (`_fonts`).
+        if (!entry.name.startsWith('(') && !entry.name.startsWith('_') && entry.name !== 'assets') walk(rel);
       } else if (entry.name.endsWith('.html') && !entry.name.startsWith('_')) pages.push(rel);
     }
   };

@@ -199,7 +199,11 @@ const row = (name, list) => {
 };
 if (!tracesOnly) printLighthouse();
 
-// Blocking time from thread CPU time, alternating the same way.
+// Blocking time from thread CPU time, alternating the same way (`--trace-runs 0` leaves it out).
+if (traceRuns < 1) {
+  stopBaseline();
+  process.exit(0);
+}
 const meter = await cpuBlockingMeter();
 const traced = { baseline: [] };
 for (const p of pages) traced[p.name] = [];

@@ -93,10 +93,13 @@ test('the app renders the page afresh: one commit replaces the pre-rendered page
 });
 
 test('the first visit is drawn in the system face; the font files are fetched when idle and used from the next visit', async ({ page }) => {
-  const rules = () => document.getElementById('expo-generated-fonts')?.getAttribute('media') ?? 'missing';
+  const rules = () => {
+    const style = document.getElementById('expo-generated-fonts');
+    return style ? (style.getAttribute('media') ?? 'all') : 'missing';
+  };
   await page.goto('/sign-in');
   expect(await page.evaluate(rules)).toBe('not all');
-  await page.waitForFunction(() => localStorage.getItem('squadline.fonts') === '1');
+  await expect.poll(async () => (await page.context().cookies()).find((c) => c.name === 'squadline_fonts')?.value).toBe('1');
   expect(await page.evaluate(rules)).toBe('not all'); // nothing changes face during the visit
   await page.reload();
   expect(await page.evaluate(rules)).toBe('all');
