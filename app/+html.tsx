@@ -19,11 +19,12 @@ html,body{background-color:${colors.paper}}
 // Every screen starts by asking who is signed in (`/api/me`, features/auth/api/get-me.ts). Asked from the
 // page, the answer travels while the JavaScript downloads instead of after it has run; the app takes it
 // once (`apiStartedEarly`). The capture screen (`/screening/assessments/:id`) also asks for its
-// assessment: its head and step come from it. Queued for the start of the page's scripts, after its first
+// assessment (its head and step come from it), and a round (`/screening/rounds/:id`) for the round with
+// its athletes (the whole screen is drawn from it). Queued for the start of the page's scripts, after its first
 // paint (server/dev/route-chunks.mjs), so that the first paint never waits for the answer. Plain ES5 so
 // it runs in any browser; a failure leaves the app to ask again, and a signed-out answer to /me drops the
 // rest (`forgetEarlyRequests`).
-const EARLY_REQUESTS = `(window.${START_QUEUE_GLOBAL}=window.${START_QUEUE_GLOBAL}||[]).push(function(){var o={credentials:"include",headers:{Accept:"application/json"}};function get(p){return fetch("/api"+p,o).catch(function(){return null})}var e=window.${EARLY_REQUESTS_GLOBAL}={"/me":get("/me")};var m=/^\\/screening\\/assessments\\/([0-9a-fA-F-]{36})\\/?$/.exec(location.pathname);if(m)e["/assessments/"+m[1]]=get("/assessments/"+m[1])});`;
+const EARLY_REQUESTS = `(window.${START_QUEUE_GLOBAL}=window.${START_QUEUE_GLOBAL}||[]).push(function(){var o={credentials:"include",headers:{Accept:"application/json"}};function get(p){return fetch("/api"+p,o).catch(function(){return null})}var e=window.${EARLY_REQUESTS_GLOBAL}={"/me":get("/me")};var m=/^\\/screening\\/(assessments|rounds)\\/([0-9a-fA-F-]{36})\\/?$/.exec(location.pathname);if(m)e["/"+m[1]+"/"+m[2]]=get("/"+m[1]+"/"+m[2])});`;
 
 export default function Root({ children }: PropsWithChildren) {
   return (

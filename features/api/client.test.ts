@@ -90,6 +90,21 @@ describe('answers the page asked for from its HTML', () => {
     expect(await apiStartedEarly('/me')).toEqual({ from: 'network' });
   });
 
+  it("asks again with the app's headers when the page's answer was a refusal other than signed out", async () => {
+    const severalClubs = json({ error: { code: 'invalid_input', message: 'You belong to several clubs: choose one (X-Club-Id header).' } }, 400);
+    g[EARLY_REQUESTS_GLOBAL] = {
+      '/assessments/a': Promise.resolve(severalClubs),
+      '/me': Promise.resolve(json({ error: { code: 'unauthorized', message: 'Sign in.' } }, 401)),
+    };
+    const fetchMock = vi.fn(async () => json({ from: 'network' }));
+    vi.stubGlobal('fetch', fetchMock);
+    expect(await apiStartedEarly('/assessments/a')).toEqual({ from: 'network' });
+    expect(fetchMock).toHaveBeenCalledTimes(1);
+    // Signed out is signed out in every club: that answer is taken as it is.
+    await expect(apiStartedEarly('/me')).rejects.toMatchObject({ status: 401 });
+    expect(fetchMock).toHaveBeenCalledTimes(1);
+  });
+
   it('forgets every early answer after a signed-out /me (a refused assessment is not kept for after sign-in)', async () => {
     g[EARLY_REQUESTS_GLOBAL] = { '/assessments/a': Promise.resolve(json({ error: { code: 'unauthorized', message: 'Sign in.' } }, 401)) };
     forgetEarlyRequests();

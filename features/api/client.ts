@@ -103,7 +103,9 @@ const earlyRequests = () => (globalThis as { [EARLY_REQUESTS_GLOBAL]?: EarlyRequ
 /**
  * `api(path)` for a GET the page already started from its HTML: the answer is used once (the first
  * screen's), later calls go to the network. Same errors as `api`. Only where the API shares the page's
- * origin (not under `npm run dev`).
+ * origin (not under `npm run dev`). The page asks before the app knows the active club, so it sends no
+ * `X-Club-Id`: a refusal other than "signed out" (someone in several clubs gets a 400 asking which) is
+ * not taken; the app asks again with its own headers.
  */
 export async function apiStartedEarly<T>(path: string): Promise<T> {
   const early = earlyRequests();
@@ -112,7 +114,7 @@ export async function apiStartedEarly<T>(path: string): Promise<T> {
   delete early![path];
   if (typeof performance !== 'undefined' && performance.now() > EARLY_FRESH_MS) return api<T>(path);
   const res = await started;
-  return res ? resultOf<T>(res) : api<T>(path);
+  return res && (res.ok || res.status === 401) ? resultOf<T>(res) : api<T>(path);
 }
 
 /** Drops the answers the page asked for: signed out, they were refused, and after signing in they would be wrong. */

@@ -47,8 +47,15 @@ test('a round offers to start, lists flags by severity, and can be closed and re
   await page.reload();
   await expect(page.getByTestId(`continue-round-${round.round.id}`)).toHaveText('Continue screening');
 
+  // Opened by its address, the round is asked for once, by the page itself (before the app knows the
+  // club: no X-Club-Id), while the scripts download; the app takes that answer.
+  const asked: (string | undefined)[] = [];
+  page.on('request', (r) => {
+    if (new URL(r.url()).pathname === `/api/rounds/${round.round.id}`) asked.push(r.headers()['x-club-id']);
+  });
   await page.goto(`/screening/rounds/${round.round.id}`);
   await expect(page.getByRole('heading', { name })).toBeVisible();
+  expect(asked).toEqual([undefined]);
   const flags = page.getByTestId(`round-flags-${a.athleteId}`);
   await expect(flags).toContainText('▲▲ 1 Concern');
   await expect(flags).toContainText('Watch');

@@ -1,12 +1,13 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '@/features/api/client';
+import { apiStartedEarly } from '@/features/api/client';
 import { deviceBacked } from '@/features/offline/device-cache';
 import { useActiveClub } from '@/features/session/active-club';
 import type { RoundDetail } from '@/features/screening/contract';
 import { can } from '@/features/access/permissions';
 import { ROUNDS_STALE_MS, roundKeptKey, screeningKeys } from './keys';
 
-export const getRound = (id: string) => api<RoundDetail>(`/rounds/${encodeURIComponent(id)}`);
+/** The round page asks for its round from its HTML (app/+html.tsx): the first call takes that answer. */
+export const getRound = (id: string) => apiStartedEarly<RoundDetail>(`/rounds/${encodeURIComponent(id)}`);
 
 /**
  * A round a tester opens is kept on the device (with its athletes), so it opens again with no
