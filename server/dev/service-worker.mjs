@@ -223,7 +223,9 @@ export async function buildServiceWorker(dist) {
     mode: 'production',
   });
   for (const w of warnings) process.stderr.write(`[squadline] service worker: ${w}\n`);
-  process.stdout.write(`[squadline] Service worker: ${count} files precached (${(size / 1024 / 1024).toFixed(1)} MB), ${files.length} HTML page(s).\n`);
+  process.stdout.write(
+    `[squadline] Service worker: ${count} files precached (${(size / 1024 / 1024).toFixed(1)} MB), ${files.filter((f) => !f.startsWith('_fonts/')).length} HTML page(s) linked to the manifest (and their twins with web fonts on).\n`,
+  );
 }
 
 if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
