@@ -3,6 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import { VictoryArea, VictoryAxis, VictoryChart, VictoryLine, VictoryScatter } from 'victory-native';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space } from '@/features/ui/theme';
+import { DATE_AXIS_RIGHT, labelledPoints } from '../axis-labels';
 import type { HistorySeries } from '../history';
 import { NumbersTable } from './numbers-table';
 
@@ -35,7 +36,7 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
       <Text variant="label">{series.title}</Text>
       <View onLayout={(e) => setWidth(Math.round(e.nativeEvent.layout.width))} accessibilityLabel={`Chart: ${series.title}. ${summary}.`} style={styles.chart}>
         {width > 0 ? (
-          <VictoryChart width={width} height={170} padding={{ top: 10, bottom: 28, left: 40, right: 12 }} domain={{ x: [minX, maxX], y: domainY }}>
+          <VictoryChart width={width} height={170} padding={{ top: 10, bottom: 28, left: 40, right: DATE_AXIS_RIGHT }} domain={{ x: [minX, maxX], y: domainY }}>
             {series.band ? (
               <VictoryArea
                 data={[
@@ -57,7 +58,12 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
             <VictoryLine data={series.points.map((p) => ({ x: p.index, y: p.value }))} style={{ data: { stroke: colors.ink, strokeWidth: 2 } }} />
             <VictoryScatter data={series.points.map((p) => ({ x: p.index, y: p.value }))} size={4} style={{ data: { fill: colors.pine } }} />
             {/* Axes last and pinned to the chart's edges (not where the other value is zero), so the band never covers them. */}
-            <VictoryAxis offsetY={28} tickValues={xs} tickFormat={(x: number) => dateOf.get(x) ?? ''} style={AXIS_STYLE} />
+            <VictoryAxis
+              offsetY={28}
+              tickValues={labelledPoints(xs.length, width - 40 - DATE_AXIS_RIGHT).map((i) => xs[i]!)}
+              tickFormat={(x: number) => dateOf.get(x) ?? ''}
+              style={AXIS_STYLE}
+            />
             <VictoryAxis dependentAxis offsetX={40} style={AXIS_STYLE} tickCount={4} />
           </VictoryChart>
         ) : null}

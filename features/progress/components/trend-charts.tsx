@@ -4,6 +4,7 @@ import { VictoryArea, VictoryAxis, VictoryBar, VictoryChart, VictoryLine, Victor
 import type { PatternId } from '@/features/screening/engine';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
+import { DATE_AXIS_RIGHT, labelledPoints } from '../axis-labels';
 import { ERROR_MARGINS, verdictFor } from '../compare';
 import { PATTERN_COLOURS, PATTERN_SHORT } from '../labels';
 import { athleteKneeSeries, roundKneeAngles, shareOf, type TrendAthlete, type TrendKneeAngles, type TrendRound } from '../trends';
@@ -69,12 +70,12 @@ export function FlagShareChart({ rounds, title, testID }: { rounds: TrendRound[]
             <VictoryChart
               width={width}
               height={190}
-              padding={{ top: 10, bottom: 30, left: 42, right: 12 }}
+              padding={{ top: 10, bottom: 30, left: 42, right: DATE_AXIS_RIGHT }}
               domain={{ x: [-0.3, Math.max(1, rounds.length - 1) + 0.3], y: [0, 1] }}
             >
               <VictoryAxis
                 offsetY={30}
-                tickValues={rounds.map((_, i) => i)}
+                tickValues={labelledPoints(rounds.length, width - 42 - DATE_AXIS_RIGHT)}
                 tickFormat={(i: number) => (rounds[i] ? shortDate(rounds[i].screenedOn) : '')}
                 style={AXIS_STYLE}
               />
@@ -151,12 +152,12 @@ export function KneeDistributionChart({
           <VictoryChart
             width={width}
             height={190}
-            padding={{ top: 10, bottom: 30, left: 42, right: 12 }}
+            padding={{ top: 10, bottom: 30, left: 42, right: DATE_AXIS_RIGHT }}
             domain={{ x: [-0.5, Math.max(1, rounds.length - 1) + 0.5] }}
           >
             <VictoryAxis
               offsetY={30}
-              tickValues={rounds.map((_, i) => i)}
+              tickValues={labelledPoints(rounds.length, width - 42 - DATE_AXIS_RIGHT)}
               tickFormat={(i: number) => (rounds[i] ? shortDate(rounds[i].screenedOn) : '')}
               style={AXIS_STYLE}
             />
