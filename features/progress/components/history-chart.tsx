@@ -57,14 +57,16 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
             ) : null}
             <VictoryLine data={series.points.map((p) => ({ x: p.index, y: p.value }))} style={{ data: { stroke: colors.ink, strokeWidth: 2 } }} />
             <VictoryScatter data={series.points.map((p) => ({ x: p.index, y: p.value }))} size={4} style={{ data: { fill: colors.pine } }} />
-            {/* Axes last and pinned to the chart's edges (not where the other value is zero), so the band never covers them. */}
+            {/* Axes last and pinned to the chart's edges (not where the other value is zero), so the band never covers them;
+                the dates stay below when every value is negative (a maturity offset before the growth spurt). */}
             <VictoryAxis
+              orientation="bottom"
               offsetY={28}
               tickValues={labelledPoints(xs.length, width - 40 - DATE_AXIS_RIGHT).map((i) => xs[i]!)}
               tickFormat={(x: number) => dateOf.get(x) ?? ''}
               style={AXIS_STYLE}
             />
-            <VictoryAxis dependentAxis offsetX={40} style={AXIS_STYLE} tickCount={4} />
+            <VictoryAxis dependentAxis orientation="left" offsetX={40} style={AXIS_STYLE} tickCount={4} />
           </VictoryChart>
         ) : null}
       </View>
