@@ -44,27 +44,26 @@ function ResultPhoto({ photo, detail, wide }: { photo: PhotoView; detail: Assess
   const task = getTask(photo.taskId);
   const marks = detail.draft.tasks[photo.taskId]?.landmarks?.[photo.view] ?? {};
   const overlay = overlayFor(task, photo.view, marks, detail.athlete.racketHand);
-  const displayWidth = Math.min(width, 420);
   return (
-    <View
-      style={[styles.card, wide && styles.cardWide]}
-      onLayout={(e) => setWidth(e.nativeEvent.layout.width - space.md * 2)}
-      testID={`result-photo-${photo.taskId}-${photo.view}`}
-    >
+    <View style={[styles.card, wide && styles.cardWide]} testID={`result-photo-${photo.taskId}-${photo.view}`}>
       <Text variant="label">
         {task.title}, {photo.view} view
       </Text>
-      {displayWidth > 0 ? (
-        <LazyPhotoOverlay
-          href={apiAssetUrl(photo.url)}
-          photoWidth={photo.width}
-          photoHeight={photo.height}
-          displayWidth={displayWidth}
-          displayHeight={(displayWidth * photo.height) / photo.width}
-          marks={marks}
-          overlay={overlay}
-        />
-      ) : null}
+      {/* The photo's room, from its proportions, from the first frame: measuring it and drawing the photo
+          afterwards moves nothing below (a result's care notes and round buttons). */}
+      <View style={[styles.photoRoom, { aspectRatio: photo.width / photo.height }]} onLayout={(e) => setWidth(Math.floor(e.nativeEvent.layout.width))}>
+        {width > 0 ? (
+          <LazyPhotoOverlay
+            href={apiAssetUrl(photo.url)}
+            photoWidth={photo.width}
+            photoHeight={photo.height}
+            displayWidth={width}
+            displayHeight={(width * photo.height) / photo.width}
+            marks={marks}
+            overlay={overlay}
+          />
+        ) : null}
+      </View>
       {overlay.angles.map((a) => (
         <Text key={a.id} variant="small">
           {a.label}: {a.text}
@@ -88,4 +87,5 @@ const styles = StyleSheet.create({
     alignItems: 'flex-start',
   },
   cardWide: { flexBasis: 320, flexGrow: 1 },
+  photoRoom: { width: '100%', maxWidth: 420 },
 });

@@ -47,6 +47,9 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
   return (
     <View style={styles.wrap} testID="result">
       <Header detail={detail} result={result} name={name} canEdit={canEdit} />
+      {/* A tester moves on from here: under the name, not below the whole result (a long scroll on a phone,
+          and the photos and care notes that arrive later no longer move it while it is tapped). */}
+      {canEdit ? <RoundNavigation detail={detail} /> : null}
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         <View style={[styles.column, isWide && styles.columnWide]}>
           <Flags flags={result.result.flags} />
@@ -74,12 +77,11 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
           ) : null}
         </View>
       </View>
-      {canEdit ? <RoundNavigation detail={detail} /> : null}
     </View>
   );
 }
 
-/** Straight on to the next athlete still to be screened in this round, or back to the round. */
+/** Straight on to the next athlete still to be screened in this round (back to the round: the header's link). */
 function RoundNavigation({ detail }: { detail: AssessmentDetail }) {
   const round = useRoundQuery(detail.roundId);
   const next = round.data ? nextUnscreened(round.data.athletes, detail.id) : null;
@@ -93,10 +95,10 @@ function RoundNavigation({ detail }: { detail: AssessmentDetail }) {
         </Link>
       ) : round.data ? (
         <Text testID="round-done">Everyone else in this round has been screened.</Text>
-      ) : null}
-      <Link href={`/screening/rounds/${detail.roundId}`} style={styles.action} testID="back-to-round">
-        <Text style={styles.actionText}>← Back to {detail.roundName}</Text>
-      </Link>
+      ) : (
+        // The button's room while the round is asked for, so that its arrival moves nothing.
+        <View style={styles.primaryRoom} />
+      )}
     </View>
   );
 }
@@ -104,7 +106,7 @@ function RoundNavigation({ detail }: { detail: AssessmentDetail }) {
 function Header({ detail, result, name, canEdit }: { detail: AssessmentDetail; result: ResultView; name: string; canEdit: boolean }) {
   return (
     <View style={styles.head}>
-      <Link href={`/screening/rounds/${detail.roundId}`} style={styles.back}>
+      <Link href={`/screening/rounds/${detail.roundId}`} style={styles.back} testID="back-to-round">
         <Text variant="label" style={styles.backText}>
           ← {detail.roundName}
         </Text>
@@ -173,7 +175,8 @@ const styles = StyleSheet.create({
     alignSelf: 'flex-start',
   },
   primaryText: { fontFamily: fonts.bold, color: '#fff', fontSize: 17 },
-  nav: { gap: space.sm, paddingTop: space.md, borderTopWidth: 1, borderTopColor: colors.line },
+  nav: { alignItems: 'flex-start' },
+  primaryRoom: { height: TOUCH_MIN },
   columns: { gap: space.xl },
   columnsWide: { flexDirection: 'row', alignItems: 'flex-start' },
   column: { gap: space.xl },
