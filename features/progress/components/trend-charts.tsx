@@ -40,6 +40,22 @@ function ChartFrame({
   );
 }
 
+// The two charts across rounds share their frame and date axis.
+const ROUNDS_PADDING = { top: 10, bottom: 30, left: 42, right: DATE_AXIS_RIGHT };
+
+/** The rounds' dates below the chart (also when every value is negative), thinned to fit its width. */
+function roundDateAxis(rounds: readonly TrendRound[], width: number) {
+  return (
+    <VictoryAxis
+      orientation="bottom"
+      offsetY={30}
+      tickValues={labelledPoints(rounds.length, width - ROUNDS_PADDING.left - ROUNDS_PADDING.right)}
+      tickFormat={(i: number) => (rounds[i] ? shortDate(rounds[i].screenedOn) : '')}
+      style={AXIS_STYLE}
+    />
+  );
+}
+
 export function patternsIn(rounds: readonly TrendRound[]): PatternId[] {
   const seen = new Set<PatternId>();
   for (const r of rounds) for (const p of Object.keys(r.flagged) as PatternId[]) seen.add(p);
@@ -67,18 +83,8 @@ export function FlagShareChart({ rounds, title, testID }: { rounds: TrendRound[]
           <Text variant="small">No screen submitted yet.</Text>
         ) : (
           <View>
-            <VictoryChart
-              width={width}
-              height={190}
-              padding={{ top: 10, bottom: 30, left: 42, right: DATE_AXIS_RIGHT }}
-              domain={{ x: [-0.3, Math.max(1, rounds.length - 1) + 0.3], y: [0, 1] }}
-            >
-              <VictoryAxis
-                offsetY={30}
-                tickValues={labelledPoints(rounds.length, width - 42 - DATE_AXIS_RIGHT)}
-                tickFormat={(i: number) => (rounds[i] ? shortDate(rounds[i].screenedOn) : '')}
-                style={AXIS_STYLE}
-              />
+            <VictoryChart width={width} height={190} padding={ROUNDS_PADDING} domain={{ x: [-0.3, Math.max(1, rounds.length - 1) + 0.3], y: [0, 1] }}>
+              {roundDateAxis(rounds, width)}
               <VictoryAxis dependentAxis offsetX={42} tickValues={[0, 0.25, 0.5, 0.75, 1]} tickFormat={(v: number) => `${v * 100}%`} style={AXIS_STYLE} />
               {patterns.map((p) => {
                 const data = rounds.map((r, i) => ({ x: i, y: shareOf(r, p) })).filter((d): d is { x: number; y: number } => d.y !== null);
@@ -149,18 +155,8 @@ export function KneeDistributionChart({
         points.length === 0 ? (
           <Text variant="small">No knee angle of this task yet.</Text>
         ) : (
-          <VictoryChart
-            width={width}
-            height={190}
-            padding={{ top: 10, bottom: 30, left: 42, right: DATE_AXIS_RIGHT }}
-            domain={{ x: [-0.5, Math.max(1, rounds.length - 1) + 0.5] }}
-          >
-            <VictoryAxis
-              offsetY={30}
-              tickValues={labelledPoints(rounds.length, width - 42 - DATE_AXIS_RIGHT)}
-              tickFormat={(i: number) => (rounds[i] ? shortDate(rounds[i].screenedOn) : '')}
-              style={AXIS_STYLE}
-            />
+          <VictoryChart width={width} height={190} padding={ROUNDS_PADDING} domain={{ x: [-0.5, Math.max(1, rounds.length - 1) + 0.5] }}>
+            {roundDateAxis(rounds, width)}
             <VictoryAxis dependentAxis offsetX={42} tickFormat={(v: number) => `${v}°`} style={AXIS_STYLE} />
             <VictoryScatter data={points} size={3} style={{ data: { fill: colors.pine, opacity: 0.55 } }} />
             <VictoryScatter data={medians} symbol="minus" size={6} style={{ data: { fill: colors.ink, stroke: colors.ink, strokeWidth: 3 } }} />
