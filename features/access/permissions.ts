@@ -40,6 +40,7 @@ export const PERMISSIONS = {
   'athlete.read': EVERYONE, // one athlete's profile (parents: own children)
   'consent.read': EVERYONE, // consent history (parents: own children)
   'consent.manage': ROSTER_MANAGERS, // record a family's consent decision
+  'consent.own': ['parent'], // a parent's own decision about their child, dated the day they make it (own children)
   'guardians.read': STAFF, // the adults linked to an athlete (parents do not see the other adults)
   'guardians.manage': ROSTER_MANAGERS, // link and unlink parents
 

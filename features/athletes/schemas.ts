@@ -90,11 +90,14 @@ export type MoveSquadInput = InferType<typeof moveSquadSchema>;
 // Consent decisions, guardians, squads
 // ---------------------------------------------------------------------------------------------------
 
+const consentKind = string()
+  .oneOf([...CONSENT_KINDS], 'Choose what the decision is about.')
+  .required('Choose what the decision is about.');
+const consentGranted = boolean().typeError('Choose yes or no.').required('Choose yes or no.');
+
 export const consentSchema = object({
-  kind: string()
-    .oneOf([...CONSENT_KINDS], 'Choose what the decision is about.')
-    .required('Choose what the decision is about.'),
-  granted: boolean().typeError('Choose yes or no.').required('Choose yes or no.'),
+  kind: consentKind,
+  granted: consentGranted,
   decidedOn: isoDate('date of the decision').test('not-future', 'The decision cannot be dated in the future.', (v) => {
     if (!v || !isCalendarDate(v)) return true;
     // One day of slack: the phone's day may already be tomorrow in UTC terms, or not yet.
@@ -103,6 +106,10 @@ export const consentSchema = object({
   }),
 });
 export type ConsentInput = InferType<typeof consentSchema>;
+
+/** A parent's own decision, made in the app: dated the day the server records it (a date sent is dropped). */
+export const ownConsentSchema = object({ kind: consentKind, granted: consentGranted });
+export type OwnConsentInput = InferType<typeof ownConsentSchema>;
 
 export const guardianSchema = object({
   email: email.required('Enter the parent’s e-mail address.'),

@@ -49,6 +49,28 @@ describe('buildFamilySummary', () => {
     expect(all).not.toMatch(/°|valgus|fppa|diagnos(?!is\.)/i);
   });
 
+  it('lists what was checked in the order the screen runs it, whatever order the tasks are stored in', () => {
+    const stored = ['single-leg-stance-right', 'two-leg-squat', 'knee-to-wall-left', 'single-leg-squat-left', 'drop-landing', 'not-a-task'];
+    const checked = buildFamilySummary({
+      firstName: 'Kit',
+      clubName: 'Riverside',
+      screenedOn: '2026-09-14',
+      result,
+      exercises: result.plan.exercises,
+      taskIds: stored,
+      block: strengthBlock(result.plan, null, '2026-09-14T17:00:00.000Z'),
+      contactName: null,
+    }).checked;
+    // The battery's order (our choice): squats, landing, stances, knee-to-wall, lunge; an unknown id is left out.
+    expect(checked).toEqual([
+      'Two-leg full squat',
+      'Single-leg squat, left leg',
+      'Drop landing from a low box',
+      'Single-leg stance, right leg',
+      'Knee-to-wall lunge, left ankle',
+    ]);
+  });
+
   it('holds back loaded strength work while clearance is needed, and says so', () => {
     expect(result.plan.status).toBe('clearance-needed');
     expect(summary.exercises.every((e) => !/1RM/.test(e.howMuch))).toBe(true);

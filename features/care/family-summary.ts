@@ -1,6 +1,6 @@
 // Builds the plain-words family summary of a screen from the engine's result. Pure.
 // No angles, no measurements, no diagnosis words: what was checked, what was seen, what to work on.
-import { getTask, type AssessmentResult, type FlagSide, type PatternId, type PlannedExercise } from '@/features/screening/engine';
+import { getTask, TASK_IDS, type AssessmentResult, type FlagSide, type PatternId, type PlannedExercise } from '@/features/screening/engine';
 import { doseText, perWeekText, setsText } from '@/features/screening/labels';
 import type { ClearanceView, FamilySummary } from './types';
 import { splitByBlock, type StrengthBlock } from './strength-block';
@@ -41,9 +41,15 @@ export function buildFamilySummary(input: {
   contactName: string | null;
 }): FamilySummary {
   const { firstName, result } = input;
+  // In the order the screen runs them (the stored input lists them in the database's key order).
+  const runOrder = (id: string) => {
+    const i = TASK_IDS.indexOf(id as never);
+    return i === -1 ? TASK_IDS.length : i;
+  };
   const checked = [
     ...new Set(
-      input.taskIds
+      [...input.taskIds]
+        .sort((a, b) => runOrder(a) - runOrder(b))
         .map((id) => {
           try {
             return getTask(id as never).title;

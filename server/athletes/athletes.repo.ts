@@ -161,8 +161,11 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
         .orderBy(desc(consents.createdAt), desc(consents.id));
     },
     async recordConsents(rows: { athleteId: string; kind: 'photos' | 'email_summaries'; granted: boolean; decidedOn: string }[]) {
-      if (rows.length === 0) return;
-      await db.insert(consents).values(rows.map((r) => ({ ...r, recordedBy: scope.userId })));
+      if (rows.length === 0) return [];
+      return db
+        .insert(consents)
+        .values(rows.map((r) => ({ ...r, recordedBy: scope.userId })))
+        .returning({ id: consents.id });
     },
 
     // --- guardians --------------------------------------------------------------------------------

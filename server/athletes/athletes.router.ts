@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { Db } from '@/db/client';
 import { can } from '@/features/access/permissions';
-import { athletePatchSchema, athleteSchema, consentSchema, guardianSchema } from '@/features/athletes/schemas';
+import { athletePatchSchema, athleteSchema, consentSchema, guardianSchema, ownConsentSchema } from '@/features/athletes/schemas';
 import { accessGuards, callerClub, on, recordIdOf, scopeOf } from '@/server/access/guard';
 import { badRequest, notFound } from '@/server/http/errors';
 import { validateBody } from '@/server/http/validate';
@@ -65,6 +65,11 @@ export function athletesRouter(db: Db) {
   });
   router.post('/athletes/:id/consents', guard('consent.manage', on('athlete')), validateBody(consentSchema), async (req, res) => {
     res.status(201).json(await service(res).recordConsent(recordIdOf(res), req.body));
+  });
+
+  // A parent's own decision, from their child's page: dated today, audited, 200 whether or not it changed anything.
+  router.post('/athletes/:id/consents/own', guard('consent.own', on('athlete')), validateBody(ownConsentSchema), async (req, res) => {
+    res.json(await service(res).recordOwnConsent(recordIdOf(res), req.body));
   });
 
   router.post('/athletes/:id/guardians', guard('guardians.manage', on('athlete')), validateBody(guardianSchema), async (req, res) => {

@@ -1,7 +1,11 @@
+import { eq } from 'drizzle-orm';
 import type { Db } from '@/db/client';
+import { athletes } from '@/db/schema';
 import { can, ROLE_LABELS } from '@/features/access/permissions';
-import type { AthleteInput, AthletePatchInput, ConsentInput, GuardianInput, SquadInput } from '@/features/athletes/schemas';
+import { todayIso } from '@/features/athletes/age';
+import type { AthleteInput, AthletePatchInput, ConsentInput, GuardianInput, OwnConsentInput, SquadInput } from '@/features/athletes/schemas';
 import type { ClubScope } from '@/server/access/scope';
+import { recordAudit } from '@/server/care/audit.repo';
 import { AppError, badRequest, conflict, forbidden, notFound } from '@/server/http/errors';
 import { athletesRepo, type AthleteValues, type AthletesRepo, type AthleteView, type GuardianView } from './athletes.repo';
 
@@ -97,6 +101,36 @@ export function athletesService(db: Db, scope: ClubScope) {
       await mustGet(id);
       await repo.recordConsents([{ athleteId: id, kind: input.kind, granted: input.granted, decidedOn: input.decidedOn }]);
       return { athlete: await detail(id), consents: await repo.consentHistory(id) };
+    },
+
+    /**
+     * A parent's own decision about their child, made in the app and dated today (the day it is recorded).
+     * A decision equal to the one in force records nothing (a double tap, two phones). Audited with the
+     * parent as the actor, like the unsubscribe link. Withdrawn photo consent hides the photos already
+     * taken at once; the club's retention deletes them after its grace period.
+     */
+    async recordOwnConsent(id: string, input: OwnConsentInput) {
+      const changed = await db.transaction(async (tx) => {
+        // One decision at a time per child: the check below and the insert see the same history.
+        await tx.select({ id: athletes.id }).from(athletes).where(eq(athletes.id, id)).for('update');
+        const r = athletesRepo(tx, scope);
+        const athlete = await r.get(id);
+        if (!athlete) throw forbidden('You can only see the athletes linked to you.');
+        const inForce = input.kind === 'photos' ? athlete.consents.photos : athlete.consents.emailSummaries;
+        if (inForce?.granted === input.granted) return false;
+        const [row] = await r.recordConsents([{ athleteId: id, kind: input.kind, granted: input.granted, decidedOn: todayIso() }]);
+        await recordAudit(tx, {
+          clubId: scope.clubId,
+          actorId: scope.userId,
+          action: input.granted ? 'set' : 'withdraw',
+          subjectKind: 'consent',
+          subjectId: row!.id,
+          athleteId: id,
+          detail: { kind: input.kind, granted: input.granted, via: 'family page' },
+        });
+        return true;
+      });
+      return { changed, athlete: await detail(id), consents: await repo.consentHistory(id) };
     },
 
     async linkGuardian(id: string, input: GuardianInput) {

@@ -1,6 +1,6 @@
 import { count, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { athletes, consents, guardianLinks } from '@/db/schema';
+import { athletes, auditEvents, consents, guardianLinks } from '@/db/schema';
 import { ROSTER_HEADER_LINE } from '@/features/athletes/schemas';
 import { makeAthlete, makeClub, makeSquad, makeTestApp, makeUser, signedInAgent } from '../fixtures/builders';
 import { bornYearsAgo, makeRosterCsv } from '../fixtures/roster';
@@ -278,6 +278,77 @@ describe('consent decisions', () => {
     const res = await as.admin.post(`/api/athletes/${ids.child}/consents`).send(body);
     expect(res.status).toBe(400);
     expect(res.body.error.fields[field]).toEqual(expect.any(String));
+  });
+});
+
+describe('a parent’s own decision (POST /api/athletes/:id/consents/own)', () => {
+  const today = () => new Date().toISOString().slice(0, 10);
+  const photoRows = async () => (await testDb.db.select().from(consents).where(eq(consents.athleteId, ids.child!))).filter((c) => c.kind === 'photos');
+
+  it('withdraws photo consent, dated today whatever date is sent, recorded and audited as the parent', async () => {
+    const before = (await photoRows()).length;
+    const res = await as.parent.post(`/api/athletes/${ids.child}/consents/own`).send({ kind: 'photos', granted: false, decidedOn: '2020-01-01' });
+    expect(res.status).toBe(200);
+    expect(res.body.changed).toBe(true);
+    expect(res.body.athlete.consents.photos).toEqual({ granted: false, decidedOn: today() });
+    expect(res.body.consents[0]).toMatchObject({ kind: 'photos', granted: false, decidedOn: today(), recordedBy: 'Pia Parent' });
+    expect(await photoRows()).toHaveLength(before + 1);
+    // Staff see it at once on the athlete.
+    expect((await as.coach.get(`/api/athletes/${ids.child}`)).body.athlete.consents.photos.granted).toBe(false);
+    const audit = await testDb.db.select().from(auditEvents).where(eq(auditEvents.athleteId, ids.child!));
+    const entry = audit.find((a) => a.subjectKind === 'consent' && a.action === 'withdraw');
+    expect(entry).toMatchObject({ clubId: ids.club, detail: { kind: 'photos', granted: false, via: 'family page' } });
+    expect(entry!.subjectId).toBe(res.body.consents[0].id);
+  });
+
+  it('records nothing when the answer is the one in force (a double tap)', async () => {
+    const before = (await photoRows()).length;
+    const res = await as.parent.post(`/api/athletes/${ids.child}/consents/own`).send({ kind: 'photos', granted: false });
+    expect(res.status).toBe(200);
+    expect(res.body.changed).toBe(false);
+    expect(await photoRows()).toHaveLength(before);
+  });
+
+  it('gives consent back, and records e-mail decisions the same way', async () => {
+    const yes = await as.parent.post(`/api/athletes/${ids.child}/consents/own`).send({ kind: 'photos', granted: true });
+    expect(yes.body.athlete.consents.photos).toEqual({ granted: true, decidedOn: today() });
+    const mail = await as.parent.post(`/api/athletes/${ids.child}/consents/own`).send({ kind: 'email_summaries', granted: true });
+    expect(mail.body.athlete.consents.emailSummaries).toEqual({ granted: true, decidedOn: today() });
+    // And back to "no", as the earlier tests left it (the roster import below reads it).
+    const noMail = await as.parent.post(`/api/athletes/${ids.child}/consents/own`).send({ kind: 'email_summaries', granted: false });
+    expect(noMail.body.athlete.consents.emailSummaries).toEqual({ granted: false, decidedOn: today() });
+    const audit = await testDb.db.select().from(auditEvents).where(eq(auditEvents.athleteId, ids.child!));
+    const consentEntries = audit
+      .filter((a) => a.subjectKind === 'consent' && (a.detail as { via?: string }).via === 'family page')
+      .map((a) => [a.action, (a.detail as { kind: string }).kind]);
+    expect(consentEntries.sort()).toEqual([
+      ['set', 'email_summaries'],
+      ['set', 'photos'],
+      ['withdraw', 'email_summaries'],
+      ['withdraw', 'photos'],
+    ]);
+  });
+
+  it('is for the child’s own parents only: staff record decisions with their date, other families and clubs are refused', async () => {
+    const before = (await photoRows()).length;
+    expect((await as.coach.post(`/api/athletes/${ids.child}/consents/own`).send({ kind: 'photos', granted: false })).status).toBe(403);
+    expect((await as.admin.post(`/api/athletes/${ids.child}/consents/own`).send({ kind: 'photos', granted: false })).status).toBe(403);
+    const other = await signedInAgent(app, 'second.parent@riverside.test');
+    expect((await other.post(`/api/athletes/${ids.child}/consents/own`).send({ kind: 'photos', granted: false })).status).toBe(403);
+    expect([403, 404]).toContain((await as.otherAdmin.post(`/api/athletes/${ids.child}/consents/own`).send({ kind: 'photos', granted: false })).status);
+    expect(await photoRows()).toHaveLength(before);
+  });
+
+  it.each([
+    [{ kind: 'videos', granted: false }, 'kind'],
+    [{ kind: 'photos' }, 'granted'],
+    [{ kind: 'photos', granted: 'maybe' }, 'granted'],
+  ])('refuses %j beside the field %s and records nothing', async (body, field) => {
+    const before = (await testDb.db.select().from(consents).where(eq(consents.athleteId, ids.child!))).length;
+    const res = await as.parent.post(`/api/athletes/${ids.child}/consents/own`).send(body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields[field]).toEqual(expect.any(String));
+    expect(await testDb.db.select().from(consents).where(eq(consents.athleteId, ids.child!))).toHaveLength(before);
   });
 });
 

@@ -1,6 +1,6 @@
 import { expect, test } from './fixtures';
 import path from 'node:path';
-import { openNav, signIn } from './helpers';
+import { openNav, signIn, uniqueSurname } from './helpers';
 
 // Both projects run at once against one demo database: each takes a different screen from the review list.
 const shots = (name: string, project: string) => path.join(__dirname, '..', '..', 'test-results', 'care', `${name}-${project}.png`);
@@ -119,7 +119,15 @@ test("the plan sets held-back work apart with the reason, and follows the physio
   expect(squad.status()).toBe(201);
   const squadId = ((await squad.json()) as { squad: { id: string } }).squad.id;
   const athlete = await page.request.post('/api/athletes', {
-    data: { firstName: 'Rowan', lastName: `Hale ${project}`, dateOfBirth: '2013-05-02', sex: 'female', racketHand: 'right', takeOffLeg: 'left', squadId },
+    data: {
+      firstName: 'Rowan',
+      lastName: uniqueSurname('Hale', project),
+      dateOfBirth: '2013-05-02',
+      sex: 'female',
+      racketHand: 'right',
+      takeOffLeg: 'left',
+      squadId,
+    },
   });
   expect(athlete.status()).toBe(201);
   const athleteId = ((await athlete.json()) as { athlete: { id: string } }).athlete.id;

@@ -17,3 +17,13 @@ export async function openNav(page: Page) {
   if (await menu.isVisible()) await menu.click();
   await expect(page.getByRole('navigation')).toBeVisible();
 }
+
+/**
+ * A surname of letters only (names refuse digits), new on every run: both projects (phone and wide) run
+ * at once against one database, and a rerun against the same database must not meet the first run's child.
+ */
+export function uniqueSurname(prefix: string, project: string): string {
+  const letters = (n: number) => n.toString(26).replace(/./g, (c) => String.fromCharCode(97 + parseInt(c, 26)));
+  const tag = letters(Date.now() % 26 ** 6) + letters(Math.floor(Math.random() * 26 ** 3));
+  return `${prefix}${project === 'phone' ? 'p' : 'w'}${tag}`;
+}

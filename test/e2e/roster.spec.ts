@@ -3,14 +3,7 @@ import { expect, test } from './fixtures';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { signIn } from './helpers';
-
-// Both projects (phone and wide) run at once against one demo database: every name made here is unique.
-function uniqueSurname(project: string): string {
-  const letters = (n: number) => n.toString(26).replace(/./g, (c) => String.fromCharCode(97 + parseInt(c, 26)));
-  const tag = letters(Date.now() % 26 ** 6) + letters(Math.floor(Math.random() * 26 ** 3));
-  return `Rost${project === 'phone' ? 'p' : 'w'}${tag}`;
-}
+import { signIn, uniqueSurname } from './helpers';
 
 /** A date of birth that makes an athlete `years` (or `years` + 1) old today. */
 function bornYearsAgo(years: number): string {
@@ -23,7 +16,7 @@ async function signInAsCoach(page: Page) {
 }
 
 test('a head coach adds an athlete, records a photo consent and archives them', async ({ page }, testInfo) => {
-  const lastName = uniqueSurname(testInfo.project.name);
+  const lastName = uniqueSurname('Rost', testInfo.project.name);
   await signInAsCoach(page);
   await page.goto('/athletes');
   await page.getByTestId('add-athlete').click();
@@ -73,7 +66,7 @@ test('a head coach adds an athlete, records a photo consent and archives them', 
 });
 
 test('a head coach imports a CSV: a line with an error first, then a clean file', async ({ page }, testInfo) => {
-  const lastName = uniqueSurname(testInfo.project.name);
+  const lastName = uniqueSurname('Rost', testInfo.project.name);
   const squadName = `Import check ${lastName}`;
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'squadline-roster-'));
   const header = 'First_Name,Last_Name,Date_Of_Birth,Sex,Racket_Hand,Take_Off_Leg,Squad,Photo_Consent,Email_Summaries_Consent';

@@ -9,10 +9,11 @@ import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
-import { colors, fonts, space } from '@/features/ui/theme';
+import { colors, fonts, radius, space } from '@/features/ui/theme';
 import { todayIso } from '../age';
 import { useConsentsQuery } from '../api/get-consents';
 import { useRecordConsentMutation } from '../api/record-consent';
+import { useRecordOwnConsentMutation } from '../api/record-own-consent';
 import type { Athlete, ConsentView } from '../api/types';
 import { CONSENT_KINDS, CONSENT_LABELS, consentSchema, type ConsentInput, type ConsentKind } from '../schemas';
 import { ChoiceGroup } from './choice-group';
@@ -35,9 +36,13 @@ export function ConsentPanel({ athlete }: { athlete: Athlete }) {
   const history = useConsentsQuery(athlete.id);
   const [recording, setRecording] = useState(false);
   const manage = can(membership.role, 'consent.manage');
+  const own = can(membership.role, 'consent.own');
   return (
     <Card testID="consent-panel">
       <Text variant="heading">Consent</Text>
+      {own ? (
+        <Text variant="small">{`Your decisions about ${athlete.firstName}: each is recorded with today's date and your name, and you can change it here at any time.`}</Text>
+      ) : null}
       <View style={styles.current}>
         <Current
           label={CONSENT_LABELS.photos.title}
@@ -45,7 +50,9 @@ export function ConsentPanel({ athlete }: { athlete: Athlete }) {
           warn={athlete.consents.photos?.granted !== true}
           testID="consent-photos"
         />
+        {own ? <OwnDecision athlete={athlete} kind="photos" granted={athlete.consents.photos?.granted === true} /> : null}
         <Current label={CONSENT_LABELS.email_summaries.title} value={inForce(athlete.consents.emailSummaries, 'email_summaries')} testID="consent-email" />
+        {own ? <OwnDecision athlete={athlete} kind="email_summaries" granted={athlete.consents.emailSummaries?.granted === true} /> : null}
       </View>
       {manage && !recording ? <Button label="Record a decision" tone="secondary" testID="consent-record" onPress={() => setRecording(true)} /> : null}
       {manage && recording ? <RecordDecision athleteId={athlete.id} onDone={() => setRecording(false)} /> : null}
@@ -73,6 +80,76 @@ function Current({ label, value, warn = false, testID }: { label: string; value:
     <View style={styles.fact} testID={testID}>
       <Text variant="small">{label}</Text>
       <Text style={warn ? styles.warn : undefined}>{value}</Text>
+    </View>
+  );
+}
+
+/** What a parent's change means, in plain words, before they confirm it (our wording). */
+function ownDecisionWords(kind: ConsentKind, granted: boolean, name: string) {
+  if (kind === 'photos') {
+    return granted
+      ? {
+          ask: `Stop photos of ${name}`,
+          explain: `From today no photos of ${name} are taken at screens. Photos already taken are hidden at once and deleted after the club's waiting period. The screens already done and the exercises stay.`,
+          confirm: 'Yes, stop photos',
+          keep: 'Keep photos',
+        }
+      : {
+          ask: `Agree to photos of ${name}`,
+          explain: `Coaches may photograph ${name}'s movements at screens to measure them more precisely. Only the club's screening and care staff see them (and you, if the club shares screen photos with families), and they are deleted after the club's retention period.`,
+          confirm: 'Yes, agree to photos',
+          keep: 'Not now',
+        };
+  }
+  return granted
+    ? {
+        ask: 'Stop e-mail summaries',
+        explain: `Summaries of ${name}'s screens are no longer e-mailed. You can still read them here when you sign in.`,
+        confirm: 'Yes, stop e-mails',
+        keep: 'Keep e-mails',
+      }
+    : {
+        ask: 'E-mail me the summaries',
+        explain: `When a summary of ${name}'s screen is sent to the family, it also comes by e-mail to the parents and guardians linked to ${name}.`,
+        confirm: 'Yes, e-mail them',
+        keep: 'Not now',
+      };
+}
+
+/** A parent changes their own decision: one button, then what it means and a confirmation. */
+function OwnDecision({ athlete, kind, granted }: { athlete: Athlete; kind: ConsentKind; granted: boolean }) {
+  const record = useRecordOwnConsentMutation(athlete.id);
+  const [confirming, setConfirming] = useState(false);
+  const words = ownDecisionWords(kind, granted, athlete.firstName);
+  const id = kind === 'photos' ? 'photos' : 'email';
+  if (!confirming) {
+    return (
+      <Button
+        label={words.ask}
+        tone="secondary"
+        testID={`own-consent-${id}`}
+        style={styles.ownButton}
+        onPress={() => {
+          record.reset();
+          setConfirming(true);
+        }}
+      />
+    );
+  }
+  return (
+    <View style={styles.confirm} testID={`own-consent-${id}-confirm`}>
+      <Text>{words.explain}</Text>
+      {record.error ? <Notice tone="error">{messageOf(record.error)}</Notice> : null}
+      <View style={styles.actions}>
+        <Button
+          label={words.confirm}
+          tone={granted ? 'danger' : 'primary'}
+          testID={`own-consent-${id}-yes`}
+          busy={record.isPending}
+          onPress={() => record.mutate({ kind, granted: !granted }, { onSuccess: () => setConfirming(false) })}
+        />
+        <Button label={words.keep} tone="quiet" disabled={record.isPending} onPress={() => setConfirming(false)} />
+      </View>
     </View>
   );
 }
@@ -157,4 +234,6 @@ const styles = StyleSheet.create({
   entry: { gap: 2, paddingVertical: space.sm, borderBottomWidth: 1, borderBottomColor: colors.line },
   form: { gap: space.md },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  ownButton: { alignSelf: 'flex-start' },
+  confirm: { gap: space.sm, padding: space.md, borderRadius: radius.md, backgroundColor: colors.paper },
 });

@@ -7,6 +7,8 @@ import { colors, radius, space } from '@/features/ui/theme';
 import { useFamilyViewQuery } from '../api/get-family-view';
 import type { FamilyComparison, FamilySummary, SummaryRelease } from '../types';
 import { formatDate } from '@/features/ui/format-date';
+import { todayIso } from '@/features/athletes/age';
+import { recheckWords } from '../recheck-words';
 
 /** A parent's page for one child: the latest released summary in plain words, the plan with how-to, family notes, earlier summaries. */
 export function FamilyView({ athleteId }: { athleteId: string }) {
@@ -69,7 +71,7 @@ function Summary({ summary, releasedAt }: { summary: FamilySummary; releasedAt: 
       <Section title="What was checked" items={summary.checked} />
       <Section title="What we saw" items={summary.seen} />
       <Text variant="label">When is the next check?</Text>
-      <Text>{summary.recheckDate ? `Around ${summary.recheckDate}.` : 'The coaches will tell you.'}</Text>
+      <Text testID="family-recheck">{recheckWords(summary.recheckDate, todayIso())}</Text>
       <Text variant="label">Who to ask</Text>
       <Text>{summary.contact}</Text>
       <Notice tone="caution" title="Please note">

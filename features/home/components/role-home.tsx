@@ -90,8 +90,8 @@ function ParentChildren() {
             <Link href={`/family/${a.id}`} style={styles.link} testID="child-summary-link">
               <Text variant="label">{`${a.firstName}'s screen summary and exercises →`}</Text>
             </Link>
-            <Link href={`/athletes/${a.id}`} style={styles.link}>
-              <Text variant="label">Details →</Text>
+            <Link href={`/athletes/${a.id}`} style={styles.link} testID="child-details-link">
+              <Text variant="label">Details and your consent →</Text>
             </Link>
           </Card>
         ))}

@@ -1,0 +1,18 @@
+import { describe, expect, it } from 'vitest';
+import { recheckWords } from './recheck-words';
+
+describe('recheckWords', () => {
+  it('writes the date as the parent’s locale does, never as the stored YYYY-MM-DD', () => {
+    expect(recheckWords('2026-12-20', '2026-12-03', 'en-GB')).toBe('Around 20 Dec 2026.');
+    expect(recheckWords('2026-12-20', '2026-12-03', 'en-US')).toBe('Around Dec 20, 2026.');
+  });
+
+  it('says a check whose day has passed is due, and the day itself is still ahead', () => {
+    expect(recheckWords('2026-10-26', '2026-12-03', 'en-GB')).toBe('It was planned for around 26 Oct 2026 and is due now: the coaches will arrange it.');
+    expect(recheckWords('2026-12-03', '2026-12-03', 'en-GB')).toBe('Around 3 Dec 2026.');
+  });
+
+  it('leaves the date to the coaches when there is none', () => {
+    expect(recheckWords(null, '2026-12-03')).toBe('The coaches will tell you.');
+  });
+});
