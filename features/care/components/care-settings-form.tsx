@@ -3,6 +3,7 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { ValidationError } from 'yup';
 import { fieldErrorsOf, messageOf } from '@/features/api/client';
+import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
@@ -13,6 +14,7 @@ import { useCareSettingsQuery, useRetentionDryRunQuery, useSaveCareSettingsMutat
 import { careSettingsSchema } from '../schemas';
 import type { CareSettingsView } from '../types';
 import { ChoiceChips } from './choice-chips';
+import { formatDate } from '@/features/ui/format-date';
 
 const YES_NO = [
   { value: 'yes', label: 'Yes' },
@@ -22,12 +24,18 @@ const YES_NO = [
 /** The club's care settings (automatic release, photo retention, family photos, testers and team notes) and the retention dry run. */
 export function CareSettingsForm() {
   const query = useCareSettingsQuery();
+  const { isWide } = useBreakpoints();
   if (query.isPending) return <Text>Loading…</Text>;
   if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
+  // Side by side on a wide screen: the settings, and what the nightly deletion would take now.
   return (
-    <View style={styles.wrap}>
-      <Form settings={query.data.settings} />
-      <DryRun />
+    <View style={[styles.wrap, isWide && styles.columns]}>
+      <View style={[styles.wrap, isWide && styles.column]}>
+        <Form settings={query.data.settings} />
+      </View>
+      <View style={[styles.wrap, isWide && styles.column]}>
+        <DryRun />
+      </View>
     </View>
   );
 }
@@ -65,7 +73,7 @@ function Form({ settings }: { settings: CareSettingsView }) {
   });
   return (
     <Card testID="care-settings">
-      <Text variant="heading">Care settings</Text>
+      <Text variant="heading">Family summaries, photos and notes</Text>
       <TextField
         label="Send family summaries automatically after (days)"
         hint="Only reviewed screens go out by themselves. Leave empty to release by hand only."
@@ -121,7 +129,7 @@ function DryRun() {
         ) : (
           query.data.candidates.map((c) => (
             <Text key={c.photoId} variant="small">
-              {c.athleteName} · photo of {c.takenAt.slice(0, 10)} · {c.reason === 'consent-withdrawn' ? 'photo consent withdrawn' : 'retention period over'}
+              {c.athleteName} · photo of {formatDate(c.takenAt)} · {c.reason === 'consent-withdrawn' ? 'photo consent withdrawn' : 'retention period over'}
             </Text>
           ))
         )
@@ -130,4 +138,8 @@ function DryRun() {
   );
 }
 
-const styles = StyleSheet.create({ wrap: { gap: space.lg } });
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  columns: { flexDirection: 'row', alignItems: 'flex-start' },
+  column: { flex: 1, minWidth: 0 },
+});

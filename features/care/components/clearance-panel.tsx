@@ -15,6 +15,7 @@ import { CLEARANCE_LABELS, CLEARANCE_STATUSES, type ClearanceStatus } from '../c
 import { clearanceSchema } from '../schemas';
 import { ClearanceBadge } from './clearance-badge';
 import { ChoiceChips } from './choice-chips';
+import { formatDate } from '@/features/ui/format-date';
 
 const OPTIONS = CLEARANCE_STATUSES.map((s) => ({ value: s, label: CLEARANCE_LABELS[s] }));
 const DETAIL_LABEL: Record<ClearanceStatus, string> = { cleared: 'Remarks (optional)', modified: 'What to change', referred: 'Referred to whom' };
@@ -47,7 +48,7 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
           <ClearanceBadge clearance={clearance} />
           {clearance.detail ? <Text>{clearance.detail}</Text> : null}
           <Text variant="small">
-            {clearance.setByName ?? 'Former member'} · {clearance.setAt.slice(0, 10)}
+            {clearance.setByName ?? 'Former member'} · {formatDate(clearance.setAt)}
           </Text>
         </View>
       ) : (

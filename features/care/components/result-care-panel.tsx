@@ -10,6 +10,7 @@ import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
 import { useAssessmentCareQuery, useMarkReviewedMutation, useReleaseMutation, useReleasePreviewQuery } from '../api/assessment-care';
 import { LazyClearancePanel, LazyNotesPanel } from './lazy-care-panels';
+import { formatDate } from '@/features/ui/format-date';
 
 /**
  * The care team's part of a result: the review mark, release to the family with a preview of the
@@ -33,8 +34,8 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
           Review and family summary
         </Text>
         <Text testID="review-state">
-          {c.reviewedAt ? `Reviewed by ${c.reviewedByName ?? 'a former member'} on ${c.reviewedAt.slice(0, 10)}.` : 'Not reviewed yet.'}{' '}
-          {c.releasedAt ? `Sent to the family on ${c.releasedAt.slice(0, 10)}.` : 'Not sent to the family yet.'}
+          {c.reviewedAt ? `Reviewed by ${c.reviewedByName ?? 'a former member'} on ${formatDate(c.reviewedAt)}.` : 'Not reviewed yet.'}{' '}
+          {c.releasedAt ? `Sent to the family on ${formatDate(c.releasedAt)}.` : 'Not sent to the family yet.'}
         </Text>
         {!c.reviewedAt && can(membership.role, 'review.mark') ? <MarkReviewed assessmentId={assessmentId} /> : null}
         {(release.isSuccess || (c.reviewedAt && !c.releasedAt)) && can(membership.role, 'summary.release') ? (

@@ -13,6 +13,7 @@ import { historySeries } from '../history';
 import type { ProgressResponse } from '../progress-types';
 import { coachSummary, planTimeSentence } from '../wording';
 import { HistoryChart } from './history-chart';
+import { formatDate } from '@/features/ui/format-date';
 
 /** The athlete's screens over time: the last two compared in plain words, then one chart per measurement. */
 export default function AthleteProgress({ athleteId }: { athleteId: string }) {
@@ -73,7 +74,7 @@ function Comparison({ progress }: { progress: ProgressResponse }) {
   return (
     <Card testID="progress-comparison">
       <Text variant="label">
-        {earlier?.roundName} ({c.earlierScreenedOn}) compared with {later?.roundName} ({c.laterScreenedOn})
+        {earlier?.roundName} ({formatDate(c.earlierScreenedOn)}) compared with {later?.roundName} ({formatDate(c.laterScreenedOn)})
       </Text>
       <Text testID="plan-time">{planTimeSentence(c)}</Text>
       {summary.lines.map((l) => (

@@ -6,6 +6,7 @@ import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space } from '@/features/ui/theme';
 import { BAND_LABELS, BAND_SHORT, PATTERN_SHORT } from '../labels';
 import type { SortKey, TrendAthlete } from '../trends';
+import { formatDate } from '@/features/ui/format-date';
 
 /** The clearance in the physiotherapist's words ("Train with changes"), not its stored code. */
 function clearanceText(value: string | null): string | null {
@@ -33,7 +34,7 @@ const COLUMNS: Col[] = [
     flex: 0.8,
     cell: (a) => (a.daysSinceLastScreen === null ? 'Never' : `${a.daysSinceLastScreen} days ago`),
   },
-  { key: 'rescreenDue', label: 'Re-screen', flex: 0.9, cell: (a) => (a.rescreenDue ? 'Due' : `from ${a.rescreenDate}`) },
+  { key: 'rescreenDue', label: 'Re-screen', flex: 0.9, cell: (a) => (a.rescreenDue ? 'Due' : `from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`) },
 ];
 
 type Props = { rows: TrendAthlete[]; sort: SortKey; descending: boolean; onSort: (key: SortKey) => void };
@@ -103,7 +104,7 @@ export function TrendsCards({ rows }: { rows: TrendAthlete[] }) {
               </Text>
             </Link>
             <Text variant="small" style={a.rescreenDue ? styles.due : undefined}>
-              {a.rescreenDue ? 'Re-screen due' : `Re-screen from ${a.rescreenDate}`}
+              {a.rescreenDue ? 'Re-screen due' : `Re-screen from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`}
             </Text>
           </View>
           <Text variant="small">

@@ -11,6 +11,7 @@ import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, space, TOUCH_MIN } from '@/features/ui/theme';
+import { formatDate } from '@/features/ui/format-date';
 
 /**
  * Without a connection the list of rounds cannot be read, but the rounds this tester opened are kept on
@@ -54,7 +55,7 @@ function KeptRounds({ withTitle }: { withTitle: boolean }) {
                     {r.round.name}
                   </Text>
                   <Text variant="small">
-                    {r.round.squadName} · {r.round.screenedOn} · {plural(r.athletes.length, 'athlete', 'athletes')}
+                    {r.round.squadName} · {formatDate(r.round.screenedOn)} · {plural(r.athletes.length, 'athlete', 'athletes')}
                   </Text>
                 </View>
                 <Text style={styles.chevron}>›</Text>

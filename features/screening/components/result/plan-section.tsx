@@ -15,6 +15,7 @@ import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space } from '@/features/ui/theme';
 import { ExerciseCard } from './exercise-card';
 import { PlanEditor } from './plan-editor';
+import { formatDate } from '@/features/ui/format-date';
 
 function day(iso: string): string {
   return iso.slice(0, 10);
@@ -187,7 +188,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
       ) : null}
       <View style={styles.rescreen} testID="plan-rescreen">
         <Text variant="label">Re-screen</Text>
-        <Text>{plan.rescreenDate ? `On or after ${plan.rescreenDate} (in ${plan.rescreenWeeks} weeks).` : `In ${plan.rescreenWeeks} weeks.`}</Text>
+        <Text>{plan.rescreenDate ? `On or after ${formatDate(plan.rescreenDate)} (in ${plan.rescreenWeeks} weeks).` : `In ${plan.rescreenWeeks} weeks.`}</Text>
       </View>
       <Notice tone="caution" title="Before you start" testID="plan-cautions">
         <View style={styles.cautions}>

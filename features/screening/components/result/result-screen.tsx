@@ -18,6 +18,7 @@ import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { FlagCard } from './flag-card';
 import { PlanSection } from './plan-section';
 import { ResultPhotos } from './result-photos';
+import { formatDate } from '@/features/ui/format-date';
 
 /** The result of a submitted assessment: flags, photos with their lines, the plan and its cautions. */
 export default function ResultScreen({ assessmentId }: { assessmentId: string }) {
@@ -70,7 +71,7 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
               <Text variant="label">Earlier results</Text>
               {result.history.map((h) => (
                 <Text key={h.id} variant="small">
-                  Version {h.version} · {h.createdAt.slice(0, 10)} · engine {h.engineVersion}
+                  Version {h.version} · {formatDate(h.createdAt)} · engine {h.engineVersion}
                 </Text>
               ))}
             </View>
@@ -111,13 +112,13 @@ function Header({ detail, result, name, canEdit }: { detail: AssessmentDetail; r
           ← {detail.roundName}
         </Text>
       </Link>
-      <Text variant="small">Result · {detail.screenedOn}</Text>
+      <Text variant="small">Result · {formatDate(detail.screenedOn)}</Text>
       <Text variant="title" accessibilityRole="header">
         {name}
       </Text>
       <AthleteClearanceBadge athleteId={detail.athlete.id} />
       <Text variant="small">
-        {result.reason ? 'Worked out again' : 'Submitted'} {result.createdAt.slice(0, 10)}
+        {result.reason ? 'Worked out again' : 'Submitted'} {formatDate(result.createdAt)}
         {result.createdByName ? ` by ${result.createdByName}` : ''} · version {result.version} · engine {result.engineVersion}
       </Text>
       {canEdit ? (
