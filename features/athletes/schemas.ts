@@ -91,6 +91,7 @@ export type MoveSquadInput = InferType<typeof moveSquadSchema>;
 // ---------------------------------------------------------------------------------------------------
 
 const consentKind = string()
+  .typeError('Choose what the decision is about.')
   .oneOf([...CONSENT_KINDS], 'Choose what the decision is about.')
   .required('Choose what the decision is about.');
 const consentGranted = boolean().typeError('Choose yes or no.').required('Choose yes or no.');

@@ -10,6 +10,8 @@ import { sql } from 'drizzle-orm';
 import type supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Db } from '@/db/client';
+import type { Role } from '@/db/schema';
+import { can, rolesFor } from '@/features/access/permissions';
 import type { RoundDetail } from '@/features/screening/contract';
 import { makeAthlete, makeClub, makeSquad, makeTestApp, makeUser, signedInAgent, TEST_PASSWORD } from '../fixtures/builders';
 import { fieldPaths, getAt, hostileValuesFor, MALFORMED_IDS, REMOVE, setAt, toJson } from '../fixtures/hostile';
@@ -22,6 +24,8 @@ const RUNS = Number(process.env.FUZZ_RUNS ?? 25);
 let testDb: TestDb;
 let app: ReturnType<typeof makeTestApp>['app'];
 let admin: supertest.Agent;
+/** One signed-in caller per role: each route is fuzzed as the admin when the admin holds its action, else as a role that does. */
+const agents: Partial<Record<Role, supertest.Agent>> = {};
 /**
  * The route table, read once at load from an app that never touches its database (building the app
  * runs no query), so each route gets its own test below.
@@ -54,6 +58,12 @@ beforeAll(async () => {
   const athlete = await makeAthlete(db, { clubId: club.id, squadId: squad.id, guardianUserId: guardian.id });
   void admin_;
   admin = await signedInAgent(app, ADMIN_EMAIL);
+  agents.admin = admin;
+  agents.parent = await signedInAgent(app, 'parent@fuzz.test');
+  for (const role of ['head_coach', 'tester', 'physio'] as const) {
+    await makeUser(db, { email: `${role}@fuzz.test`, clubId: club.id, role });
+    agents[role] = await signedInAgent(app, `${role}@fuzz.test`);
+  }
   const round = (await admin.post('/api/rounds').send({ squadId: squad.id, name: 'Fuzz round', screenedOn: '2026-09-14' })).body as RoundDetail;
   const assessmentId = round.athletes[0]!.assessmentId;
   world = { clubId: club.id, squadId: squad.id, athleteId: athlete.id, assessmentId, roundId: round.round.id, guardianId: guardian.id };
@@ -93,6 +103,9 @@ function validBody(route: WriteRoute): unknown | undefined {
     },
     'PATCH /api/athletes/:id': { firstName: 'Noa', dateOfBirth: '2013-05-14', sex: 'male', racketHand: 'left', takeOffLeg: 'right', squadId: world.squadId },
     'POST /api/athletes/:id/consents': { kind: 'photos', granted: true, decidedOn: '2026-09-01' },
+    'POST /api/athletes/:id/consents/own': { kind: 'photos', granted: false },
+    'POST /api/athletes/:id/notes': { text: 'Worked on landing softly today.', visibility: 'team' },
+    'PUT /api/athletes/:id/clearance': { status: 'modified', detail: 'No deep loaded squats for two weeks.' },
     'POST /api/athletes/:id/guardians': { email: 'second.parent@fuzz.test' },
     'POST /api/rounds': { squadId: world.squadId, name: 'Mid-season', screenedOn: '2026-09-14' },
     'PUT /api/assessments/:id': {
@@ -132,8 +145,14 @@ async function rowCounts(): Promise<Record<string, number>> {
   return counts;
 }
 
+/** The caller a route is fuzzed as: past its access check, so that its input handling is what answers. */
+function roleFor(route: WriteRoute): Role {
+  return !route.action || can('admin', route.action) ? 'admin' : rolesFor(route.action)[0]!;
+}
+const callerFor = (route: WriteRoute): supertest.Agent => agents[roleFor(route)]!;
+
 function send(route: WriteRoute, path: string, body: unknown, headers: Record<string, string> = {}) {
-  const req = admin[route.method](path).set('Content-Type', 'application/json');
+  const req = callerFor(route)[route.method](path).set('Content-Type', 'application/json');
   for (const [k, v] of Object.entries(headers)) req.set(k, v);
   return req.send(body === undefined ? '' : toJson(body));
 }
@@ -164,6 +183,13 @@ describe('the route table', () => {
     expect(names).toEqual(expect.arrayContaining(['POST /api/rounds', 'PUT /api/assessments/:id', 'POST /api/assessments/:id/photos', 'POST /api/athletes']));
     expect(routes.find((r) => label(r) === 'PUT /api/assessments/:id')!.bodySchema).not.toBeNull();
     expect(routes.find((r) => label(r) === 'POST /api/assessments/:id/photos')!.multipart).toBe(true);
+  });
+
+  it('sends each guarded route as a role holding its action, so that its input handling answers, not a 403', () => {
+    for (const r of routes) if (r.action) expect(can(roleFor(r), r.action), label(r)).toBe(true);
+    // Routes the admin does not hold are fuzzed too: a parent's own consent, a physiotherapist's clearance.
+    expect(roleFor(routes.find((r) => label(r) === 'POST /api/athletes/:id/consents/own')!)).toBe('parent');
+    expect(routes.filter((r) => roleFor(r) === 'physio').length).toBeGreaterThan(0);
   });
 });
 
