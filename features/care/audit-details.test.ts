@@ -10,6 +10,8 @@ describe('auditDetailsInWords', () => {
     [{ previousText: 'old words', before: { a: 1 }, after: { a: 2 } }, ''],
     [{ to: 'parent@example.test', subject: 'Summary', releaseId: 'x' }, 'to: parent@example.test · subject: Summary'],
     [{ somethingNew: 7, nested: { a: 1 } }, 'somethingNew: 7'],
+    [{ kind: 'photos', granted: false, via: 'family page' }, 'about: photos · answer: no · through: family page'],
+    [{ kind: 'email_summaries', via: 'unsubscribe link' }, 'about: e-mail summaries · through: unsubscribe link'],
   ])('%j reads "%s"', (detail, words) => {
     expect(auditDetailsInWords(detail)).toBe(words);
   });

@@ -22,6 +22,9 @@ const LABELS: Record<string, string> = {
   reviewCarried: 'review carried over',
   update: 'changed by',
   field: 'field',
+  kind: 'about',
+  granted: 'answer',
+  via: 'through',
 };
 
 /** Stored codes in the words the screens use for them. */
@@ -29,6 +32,7 @@ const VALUE_WORDS: Record<string, Record<string, string>> = {
   status: CLEARANCE_LABELS,
   visibility: NOTE_VISIBILITY_LABELS,
   visibilities: NOTE_VISIBILITY_LABELS,
+  kind: { photos: 'photos', email_summaries: 'e-mail summaries' },
 };
 
 function valueInWords(v: unknown, words: Record<string, string> = {}): string | null {
