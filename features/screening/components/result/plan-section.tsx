@@ -17,9 +17,8 @@ import { ExerciseCard } from './exercise-card';
 import { PlanEditor } from './plan-editor';
 import { formatDate } from '@/features/ui/format-date';
 
-function day(iso: string): string {
-  return iso.slice(0, 10);
-}
+/** A timestamp's day, as every date on screen is written (the reader's locale). */
+const day = (iso: string): string => formatDate(iso);
 
 /** "Dropped: …; added: …; re-dosed: …" against the engine's proposal. */
 function changeSummary(adjusted: PlannedExercise[], proposal: PlannedExercise[]): string {
