@@ -18,7 +18,9 @@ export async function cpuBlockingMeter({ executablePath = process.env.CHROMIUM_P
         await context.addCookies(
           cookie.split('; ').map((c) => {
             const at = c.indexOf('=');
-            return { name: c.slice(0, at), value: c.slice(at + 1), url };
+            // For the whole site: given the page's own URL, the cookie's path would be that page's folder
+            // (`/screening/rounds`) and the app's `/api` requests would go without it.
+            return { name: c.slice(0, at), value: c.slice(at + 1), domain: new URL(url).hostname, path: '/' };
           }),
         );
       }
@@ -32,6 +34,8 @@ export async function cpuBlockingMeter({ executablePath = process.env.CHROMIUM_P
       await page.waitForTimeout(settleMs);
       await cdp.send('Tracing.end');
       await done;
+      // A signed-in page that went to sign-in measured another page.
+      if (new URL(page.url()).pathname !== new URL(url).pathname) throw new Error(`Asked for ${url}, ended at ${page.url()}.`);
       return blockingFromTrace(events);
     } finally {
       await context.close();

@@ -14,7 +14,7 @@ import { execFileSync, spawn } from 'node:child_process';
 import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { DIST_DIR } from '../../server/dev/bootstrap.mjs';
 import { buildBaselineApp } from './baseline-app.mjs';
 import { firstChunk, kb, readmeBudgetKb, routeSizes } from './bundle-sizes.mjs';
@@ -140,25 +140,64 @@ const stopBaseline = () => baselineServer.exitCode === null && baselineServer.ki
 process.on('exit', stopBaseline);
 process.on('SIGINT', () => process.exit(130));
 
-const flags = '--headless --no-sandbox --disable-gpu --disable-quic --no-first-run --disable-background-networking --disable-component-update --disable-sync';
+const chromeArgs = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
+// Lighthouse's Node API on a page of a fresh browser per run (a new profile: no cache, no service worker,
+// no cookie but the one given). A signed-in page gets its session as a cookie in the browser's own jar,
+// as a person's browser holds it: given as an extra request header instead (the CLI's --extra-headers),
+// the header was dropped from every request once the page itself set a cookie (the web-font cookie),
+// the app's requests were refused and the page went to sign-in, so its figures were sign-in's.
+const { default: runLighthouse } = tracesOnly
+  ? { default: null }
+  : await import(pathToFileURL(path.join(toolDir, 'node_modules', 'lighthouse', 'core', 'index.js')).href);
+const { default: puppeteer } = tracesOnly
+  ? { default: null }
+  : await import(pathToFileURL(path.join(toolDir, 'node_modules', 'puppeteer-core', 'lib', 'esm', 'puppeteer', 'puppeteer-core.js')).href);
+
 // Lighthouse sometimes loses its trace on a loaded machine (NO_NAVSTART and the like): try once more
 // before giving up, so one bad recording does not end a session of many runs.
-function lighthouse(url, cookie, label) {
+async function lighthouse(url, cookie, label) {
   try {
-    return lighthouseOnce(url, cookie, label);
+    return await lighthouseOnce(url, cookie, label);
   } catch (error) {
     console.warn(`    ${label}: ${error instanceof Error ? error.message.split('\n')[0] : error}; running it again`);
     return lighthouseOnce(url, cookie, label);
   }
 }
 
-function lighthouseOnce(url, cookie, label) {
+async function lighthouseOnce(url, cookie, label) {
   const out = path.join(toolDir, `report-${label}.json`);
-  const argv = [cli, url, '--only-categories=performance', '--output=json', `--output-path=${out}`, `--chrome-flags=${flags}`, '--quiet'];
-  if (cookie) argv.push(`--extra-headers=${JSON.stringify({ Cookie: cookie })}`);
-  execFileSync(process.execPath, argv, { stdio: 'inherit', env: { ...process.env, CHROME_PATH: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium' } });
-  const r = JSON.parse(fs.readFileSync(out, 'utf8'));
+  const browser = await puppeteer.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', headless: true, args: chromeArgs });
+  let r;
+  try {
+    const page = await browser.newPage();
+    if (cookie) {
+      const { hostname } = new URL(url);
+      await browser.setCookie(
+        ...cookie.split('; ').map((c) => {
+          const i = c.indexOf('=');
+          return { name: c.slice(0, i), value: c.slice(i + 1), domain: hostname, path: '/', httpOnly: true, sameSite: 'Lax' };
+        }),
+      );
+    }
+    const run = await runLighthouse(url, { output: 'json', onlyCategories: ['performance'], logLevel: 'error' }, undefined, page);
+    fs.writeFileSync(out, run.report);
+    r = run.lhr;
+  } finally {
+    await browser.close();
+  }
   if (r.runtimeError) throw new Error(`Lighthouse could not load ${url}: ${r.runtimeError.message}`);
+  // A signed-in page that ended elsewhere (at sign-in) measured the wrong page: stop rather than print it.
+  if (new URL(r.finalDisplayedUrl).pathname !== new URL(url).pathname) {
+    throw new Error(`Lighthouse asked for ${url} and ended at ${r.finalDisplayedUrl}: its figures would be another page's.`);
+  }
   const a = r.audits;
   const result = {
     score: Math.round(r.categories.performance.score * 100),
@@ -184,11 +223,11 @@ let n = 0;
 for (let round = 0; round < (tracesOnly ? 0 : runs); round++) {
   n++;
   process.stdout.write(`\n[${n}/${total}] empty app /\n`);
-  results.baseline.push(lighthouse(`http://127.0.0.1:${baselinePort}/`, null, `baseline-${round}`));
+  results.baseline.push(await lighthouse(`http://127.0.0.1:${baselinePort}/`, null, `baseline-${round}`));
   for (const p of pages) {
     n++;
     process.stdout.write(`[${n}/${total}] Squadline ${p.name} ${p.path}\n`);
-    results[p.name].push(lighthouse(`${base}${p.path}`, p.cookie, `${p.name}-${round}`));
+    results[p.name].push(await lighthouse(`${base}${p.path}`, p.cookie, `${p.name}-${round}`));
   }
 }
 
