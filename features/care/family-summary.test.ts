@@ -91,9 +91,9 @@ describe('buildFamilySummary', () => {
 describe("clearanceWords (our wording: who decided and when, never the team's free-text detail)", () => {
   const setAt = '2026-10-02T09:15:00.000Z';
   it.each([
-    ['cleared', 'Pat Lee (physiotherapist) cleared Ana to train as normal on 2026-10-02.'],
-    ['modified', 'Pat Lee (physiotherapist) cleared Ana to train with some changes on 2026-10-02; the coaches will explain them.'],
-    ['referred', 'Pat Lee (physiotherapist) asked on 2026-10-02 for Ana to be seen by another health professional; loaded strength work waits until then.'],
+    ['cleared', 'Pat Lee (physiotherapist) cleared Ana to train as normal on 2 October 2026.'],
+    ['modified', 'Pat Lee (physiotherapist) cleared Ana to train with some changes on 2 October 2026; the coaches will explain them.'],
+    ['referred', 'Pat Lee (physiotherapist) asked on 2 October 2026 for Ana to be seen by another health professional; loaded strength work waits until then.'],
   ] as const)('%s', (status, words) => {
     expect(clearanceWords({ status, detail: 'Knee clinic, Dr X', setByName: 'Pat Lee', setAt }, 'Ana')).toBe(words);
   });
@@ -101,7 +101,7 @@ describe("clearanceWords (our wording: who decided and when, never the team's fr
   it('says nothing without a decision, and names no one when the author left', () => {
     expect(clearanceWords(null, 'Ana')).toBeNull();
     expect(clearanceWords({ status: 'cleared', detail: '', setByName: null, setAt }, 'Ana')).toBe(
-      'A physiotherapist cleared Ana to train as normal on 2026-10-02.',
+      'A physiotherapist cleared Ana to train as normal on 2 October 2026.',
     );
   });
 });

@@ -2,6 +2,7 @@
 // No angles, no measurements, no diagnosis words: what was checked, what was seen, what to work on.
 import { getTask, TASK_IDS, type AssessmentResult, type FlagSide, type PatternId, type PlannedExercise } from '@/features/screening/engine';
 import { doseText, perWeekText, setsText } from '@/features/screening/labels';
+import { formatDateInWords } from '@/features/ui/format-date';
 import type { ClearanceView, FamilySummary } from './types';
 import { splitByBlock, type StrengthBlock } from './strength-block';
 
@@ -118,7 +119,8 @@ export function buildFamilySummary(input: {
 export function clearanceWords(clearance: ClearanceView, firstName: string): string | null {
   if (!clearance) return null;
   const who = clearance.setByName ? `${clearance.setByName} (physiotherapist)` : 'A physiotherapist';
-  const day = clearance.setAt.slice(0, 10);
+  // In words: the sentence goes out in the e-mail too, whose reader's locale is not known.
+  const day = formatDateInWords(clearance.setAt.slice(0, 10));
   switch (clearance.status) {
     case 'cleared':
       return `${who} cleared ${firstName} to train as normal on ${day}.`;

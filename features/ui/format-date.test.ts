@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatDate, formatDateTime } from './format-date';
+import { formatDate, formatDateInWords, formatDateTime } from './format-date';
 
 // Expected strings are what the ICU data in Node 20 writes for each locale (common practice, no source:
 // CLDR's conventions, checked by running them here).
@@ -23,6 +23,12 @@ describe('formatDate', () => {
     expect(formatDate('2026-09-14', { locale: 'en-GB', numeric: true })).toBe('14/09/2026');
     expect(formatDate('2026-09-14', { locale: 'en-US' })).toBe('Sep 14, 2026');
     expect(formatDate('2026-09-14', { locale: 'en-GB' })).toBe('14 Sept 2026');
+  });
+
+  it('writes dates in words for e-mails, the same for every reader (a timestamp on its day where the code runs)', () => {
+    expect(formatDateInWords('2026-09-14')).toBe('14 September 2026');
+    expect(formatDateInWords('2026-12-03T23:10:00.000Z')).toMatch(/^[34] December 2026$/);
+    expect(formatDateInWords('nonsense')).toBe('nonsense');
   });
 
   it('returns unreadable input as it is', () => {

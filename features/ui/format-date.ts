@@ -23,15 +23,24 @@ function formatter(locale: string | undefined, options: Intl.DateTimeFormatOptio
  * is a day, not an instant: it is shown as that day whatever the time zone. Unreadable input is returned
  * as it is rather than hidden.
  */
-export function formatDate(value: string, options: { locale?: string; numeric?: boolean } = {}): string {
+export function formatDate(value: string, options: { locale?: string; numeric?: boolean; longMonth?: boolean } = {}): string {
   const dateOnly = DATE_ONLY.test(value);
   const d = new Date(dateOnly ? `${value}T00:00:00Z` : value);
   if (Number.isNaN(d.getTime())) return value;
   return formatter(options.locale, {
-    ...(options.numeric ? { day: '2-digit', month: '2-digit', year: 'numeric' } : { day: 'numeric', month: 'short', year: 'numeric' }),
+    ...(options.numeric
+      ? { day: '2-digit', month: '2-digit', year: 'numeric' }
+      : { day: 'numeric', month: options.longMonth ? 'long' : 'short', year: 'numeric' }),
     ...(dateOnly ? { timeZone: 'UTC' } : {}),
   }).format(d);
 }
+
+/**
+ * A date in words for text that leaves the app (an e-mail, a family summary kept as sent), where the
+ * reader's locale is not known: day, month's name and year ("14 September 2026"), which no reader takes
+ * for another day (our choice; 09/10 is read two ways).
+ */
+export const formatDateInWords = (value: string): string => formatDate(value, { locale: 'en-GB', longMonth: true });
 
 /** A timestamp with its time of day, in the user's locale and time zone. */
 export function formatDateTime(value: string, options: { locale?: string; timeZone?: string } = {}): string {

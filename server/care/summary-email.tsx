@@ -1,5 +1,6 @@
 import { Body, Container, Head, Heading, Hr, Html, Link, Preview, render, Section, Text } from '@react-email/components';
 import type { FamilySummary } from '@/features/care/types';
+import { formatDateInWords } from '@/features/ui/format-date';
 
 /**
  * The family-summary e-mail: one React Email template rendered to its HTML part and, through the same
@@ -28,7 +29,7 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName }
           <Heading as="h1" style={styles.h1}>{`${name}'s movement screen`}</Heading>
           <Text style={styles.text}>{`Hello ${recipientName},`}</Text>
           <Text style={styles.text}>
-            {`${name} took part in a movement screen at ${summary.clubName} on ${summary.screenedOn}. Here is what it means in plain words.`}
+            {`${name} took part in a movement screen at ${summary.clubName} on ${formatDateInWords(summary.screenedOn)}. Here is what it means in plain words.`}
           </Text>
           <Section>
             <Heading as="h2" style={styles.h2}>
@@ -54,7 +55,7 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName }
             {summary.onHold ? <Text style={styles.text}>{summary.onHold}</Text> : null}
             {summary.clearance ? <Text style={styles.text}>{summary.clearance}</Text> : null}
             <Text style={styles.text}>{summary.howOften}</Text>
-            {summary.recheckDate ? <Text style={styles.text}>{`Next check: around ${summary.recheckDate}.`}</Text> : null}
+            {summary.recheckDate ? <Text style={styles.text}>{`Next check: around ${formatDateInWords(summary.recheckDate)}.`}</Text> : null}
           </Section>
           <Section>
             <Heading as="h2" style={styles.h2}>

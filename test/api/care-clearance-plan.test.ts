@@ -4,6 +4,7 @@ import { assessmentResults, auditEvents } from '@/db/schema';
 import { isLoadedStrength } from '@/features/care/strength-block';
 import type { FamilySummary } from '@/features/care/types';
 import type { PlannedExercise } from '@/features/screening/engine';
+import { formatDateInWords } from '@/features/ui/format-date';
 import { makeAthlete, makeClub, makeSquad, makeTestApp, makeUser, recordingOutbox, signedInAgent } from '../fixtures/builders';
 import { makeSubmittedScreen, painDraft, recordEmailConsent } from '../fixtures/care';
 import { createTestDb, type TestDb } from '../fixtures/test-db';
@@ -79,6 +80,8 @@ describe('pain reported, then cleared by a physiotherapist', () => {
     const set = await as.physio.put(`/api/athletes/${ids.kit}/clearance`).send({ status: 'cleared' });
     expect(set.status).toBe(200);
     const day = set.body.clearance.setAt.slice(0, 10);
+    const dayInWords = formatDateInWords(day);
+    expect(dayInWords).toMatch(/^\d{1,2} [A-Z][a-z]+ \d{4}$/); // "3 December 2026": the same for every reader of the e-mail
 
     const detail = await as.coach.get(`/api/assessments/${ids.kitScreen}`);
     const result = detail.body.result;
@@ -122,7 +125,7 @@ describe('pain reported, then cleared by a physiotherapist', () => {
     const latest = family.body.latest.summary as FamilySummary;
     expect(latest.onHold).toBeNull();
     expect(latest.exercises.map((e) => e.name)).toEqual(expect.arrayContaining(loaded));
-    expect(latest.clearance).toBe(`Phil Physio (physiotherapist) cleared Kit to train as normal on ${day}.`);
+    expect(latest.clearance).toBe(`Phil Physio (physiotherapist) cleared Kit to train as normal on ${dayInWords}.`);
     expect(family.body.earlier[0].summary.onHold).toMatch(/on hold/);
     expect(outbox.sent).toHaveLength(1);
 
@@ -213,7 +216,7 @@ describe('a clearance given before the screen', () => {
     // Cleared after this screen: a new version; then reviewed and released, the e-mail says the same as the plan.
     await new Promise((r) => setTimeout(r, 1100));
     const set = await as.physio.put(`/api/athletes/${ids.lou}/clearance`).send({ status: 'cleared' });
-    const day = set.body.clearance.setAt.slice(0, 10);
+    const dayInWords = formatDateInWords(set.body.clearance.setAt.slice(0, 10));
     const detail = await as.coach.get(`/api/assessments/${lou.assessmentId}`);
     expect(detail.body.result.version).toBe(2);
     const loaded = loadedNames(detail.body.result.result.plan.exercises);
@@ -223,7 +226,7 @@ describe('a clearance given before the screen', () => {
     const mail = outbox.sent.at(-1)!;
     expect(mail.to).toBe('parent@quayside.test');
     for (const name of loaded) expect(mail.text).toContain(name);
-    expect(mail.text).toContain(`Phil Physio (physiotherapist) cleared Lou to train as normal on ${day}.`);
+    expect(mail.text).toContain(`Phil Physio (physiotherapist) cleared Lou to train as normal on ${dayInWords}.`);
     expect(mail.text).not.toMatch(/on hold/);
     expect(mail.html).toContain('cleared Lou to train as normal');
   });
