@@ -10,10 +10,11 @@ import { recordAudit, type AuditEntry } from './audit.repo';
 import { clearanceRepo } from './clearance.repo';
 import { currentSummary } from './summary.service';
 import { summaryRepo } from './summary.repo';
+import { formatDateInWords } from '@/features/ui/format-date';
 
 /** The reason stored with a result version worked out again after a clearance: who, what and when. */
 export function clearanceReason(clearance: NonNullable<ClearanceView>): string {
-  return `Worked out again after ${clearance.setByName ?? 'a physiotherapist'} set the clearance to “${CLEARANCE_LABELS[clearance.status]}” on ${clearance.setAt.slice(0, 10)}: the pain reported at this screen no longer holds back loaded strength and landing work.`;
+  return `Worked out again after ${clearance.setByName ?? 'a physiotherapist'} set the clearance to “${CLEARANCE_LABELS[clearance.status]}” on ${formatDateInWords(clearance.setAt.slice(0, 10))}: the pain reported at this screen no longer holds back loaded strength and landing work.`;
 }
 
 /**

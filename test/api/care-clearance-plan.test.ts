@@ -88,7 +88,7 @@ describe('pain reported, then cleared by a physiotherapist', () => {
     expect(result.version).toBe(2);
     expect(result.reason).toContain('Phil Physio');
     expect(result.reason).toContain('“Train as normal”');
-    expect(result.reason).toContain(day);
+    expect(result.reason).toContain(dayInWords);
     expect(result.result.plan.status).toBe('ready');
     expect(result.result.plan.loading.painUncleared).toBe(false);
     expect(result.result.plan.withheld).toEqual([]);
