@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
-import { and, eq, isNull } from 'drizzle-orm';
+import { and, desc, eq, isNull } from 'drizzle-orm';
 import type { Db } from '@/db/client';
-import { summaryEmails, summaryReleases, users } from '@/db/schema';
+import { consents, summaryEmails, summaryReleases, users } from '@/db/schema';
 import type { FamilySummary } from '@/features/care/types';
 import type { OutgoingMail } from '@/server/mail/mailer';
 import { renderSummaryEmail } from './summary-email';
@@ -11,7 +11,9 @@ import { familyUrl, hashToken, oneClickUrl, unsubscribePageUrl } from './summary
  * Renders a family-summary e-mail at send time from its `summary_emails` row. The queue holds only
  * `{ template: 'family-summary', id }`: the unsubscribe token is drawn here, its hash replaces the row's,
  * and the token goes only into the message handed to SMTP. A retried send draws a new token (the
- * earlier one stops working). Null: the parent unsubscribed meanwhile, so nothing is sent.
+ * earlier one stops working). Null, so nothing is sent: the parent unsubscribed meanwhile, or the e-mail
+ * consent in force is no longer a yes (withdrawn in the app by a parent or recorded by staff while the
+ * message waited, for example for a retry).
  */
 export function summaryMail(db: Db, publicUrl: string) {
   return async function render(emailId: string): Promise<OutgoingMail | null> {
@@ -28,6 +30,13 @@ export function summaryMail(db: Db, publicUrl: string) {
         clubId: summaryEmails.clubId,
       });
     if (!row) return null;
+    const [consent] = await db
+      .select({ granted: consents.granted })
+      .from(consents)
+      .where(and(eq(consents.athleteId, row.athleteId), eq(consents.kind, 'email_summaries')))
+      .orderBy(desc(consents.createdAt))
+      .limit(1);
+    if (consent?.granted !== true) return null;
     const [release] = await db.select({ summary: summaryReleases.summary }).from(summaryReleases).where(eq(summaryReleases.id, row.releaseId));
     if (!release) return null;
     const [user] = row.userId ? await db.select({ displayName: users.displayName }).from(users).where(eq(users.id, row.userId)) : [];

@@ -149,4 +149,29 @@ describe('the family summary e-mail', () => {
     const jobs = await testDb.db.execute(sql`select retry_count from pgboss.job where name = 'mail' order by created_on desc limit 2`);
     expect(jobs.rows.map((r) => Number((r as { retry_count: number }).retry_count) > 0)).toEqual([true, true]);
   }, 60_000);
+
+  it('is not sent when the family withdrew e-mail consent in the app while it waited for a retry', async () => {
+    await recordEmailConsent(testDb.db, ids.kit!, true);
+    const port = smtp.port;
+    await smtp.close();
+    const screen = await reviewedScreen(ids.kit!);
+    expect((await physio.post(`/api/assessments/${screen}/release`)).body.release.recipients).toBe(2);
+    await new Promise((r) => setTimeout(r, 1500));
+    // Kit's mother stops the e-mails from Kit's page while the SMTP server is down.
+    const mum = await signedInAgent(app, 'mum@riverside.test');
+    expect((await mum.post(`/api/athletes/${ids.kit}/consents/own`).send({ kind: 'email_summaries', granted: false })).body.changed).toBe(true);
+    smtp = await startFakeSmtp({ port });
+    // The queued jobs retry and end without a message: wait until no mail job is left to do.
+    await expect
+      .poll(
+        async () =>
+          Number(
+            (await testDb.db.execute(sql`select count(*)::int as n from pgboss.job where name = 'mail' and state in ('created', 'retry', 'active')`)).rows[0]!
+              .n,
+          ),
+        { timeout: 30_000, interval: 500 },
+      )
+      .toBe(0);
+    expect(smtp.messages()).toEqual([]);
+  }, 60_000);
 });
