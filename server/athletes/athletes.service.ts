@@ -98,7 +98,14 @@ export function athletesService(db: Db, scope: ClubScope) {
     },
 
     async recordConsent(id: string, input: ConsentInput) {
-      await mustGet(id);
+      const athlete = await mustGet(id);
+      // The newest recorded decision is in force: one dated before the decision in force would overturn a
+      // later choice of the family (a parent's "no" in the app, then an old paper "yes" typed in). Our rule.
+      const inForce = input.kind === 'photos' ? athlete.consents.photos : athlete.consents.emailSummaries;
+      if (inForce && input.decidedOn < inForce.decidedOn) {
+        const message = `A later decision is on record (${inForce.granted ? 'yes' : 'no'}, decided ${inForce.decidedOn}). If the family has decided again since, record it with the day they did.`;
+        throw new AppError(409, 'later_decision_on_record', message, { decidedOn: message });
+      }
       await repo.recordConsents([{ athleteId: id, kind: input.kind, granted: input.granted, decidedOn: input.decidedOn }]);
       return { athlete: await detail(id), consents: await repo.consentHistory(id) };
     },

@@ -263,6 +263,18 @@ describe('consent decisions', () => {
     expect(rows).toHaveLength(4);
   });
 
+  it('refuses a decision dated before the one in force, which would overturn a later choice of the family', async () => {
+    const before = (await testDb.db.select().from(consents).where(eq(consents.athleteId, ids.child!))).length;
+    // In force: the admin's "yes" decided 2026-11-20 (the test above).
+    const res = await as.admin.post(`/api/athletes/${ids.child}/consents`).send({ kind: 'photos', granted: false, decidedOn: '2026-11-19' });
+    expect(res.status).toBe(409);
+    expect(res.body.error.fields.decidedOn).toMatch(/A later decision is on record \(yes, decided 2026-11-20\)/);
+    expect(await testDb.db.select().from(consents).where(eq(consents.athleteId, ids.child!))).toHaveLength(before);
+    // The same day as the one in force is a later decision of that day: recorded.
+    const same = await as.admin.post(`/api/athletes/${ids.child}/consents`).send({ kind: 'photos', granted: true, decidedOn: '2026-11-20' });
+    expect(same.status).toBe(201);
+  });
+
   it('lets a parent read their child’s decisions, not change them', async () => {
     const res = await as.parent.get(`/api/athletes/${ids.child}/consents`);
     expect(res.status).toBe(200);
