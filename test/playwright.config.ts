@@ -1,16 +1,8 @@
 import { defineConfig } from '@playwright/test';
+import { CHROMIUM_ARGS } from './chromium-args.mjs';
 
 // Debian's Chromium, never a downloaded browser. `npm test` starts the server and sets BASE_URL.
-const chromiumArgs = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
+const chromiumArgs = ['--headless', ...CHROMIUM_ARGS];
 
 export default defineConfig({
   testDir: 'e2e',

@@ -19,6 +19,7 @@ import { DIST_DIR } from '../../server/dev/bootstrap.mjs';
 import { buildBaselineApp } from './baseline-app.mjs';
 import { firstChunk, kb, readmeBudgetKb, routeSizes } from './bundle-sizes.mjs';
 import { cpuBlockingMeter } from './cpu-blocking.mjs';
+import { CHROMIUM_ARGS } from '../chromium-args.mjs';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const LIGHTHOUSE = 'lighthouse@12.8.2';
@@ -140,15 +141,6 @@ const stopBaseline = () => baselineServer.exitCode === null && baselineServer.ki
 process.on('exit', stopBaseline);
 process.on('SIGINT', () => process.exit(130));
 
-const chromeArgs = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
 // Lighthouse's Node API on a page of a fresh browser per run (a new profile: no cache, no service worker,
 // no cookie but the one given). A signed-in page gets its session as a cookie in the browser's own jar,
 // as a person's browser holds it: given as an extra request header instead (the CLI's --extra-headers),
@@ -174,7 +166,7 @@ async function lighthouse(url, cookie, label) {
 
 async function lighthouseOnce(url, cookie, label) {
   const out = path.join(toolDir, `report-${label}.json`);
-  const browser = await puppeteer.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', headless: true, args: chromeArgs });
+  const browser = await puppeteer.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', headless: true, args: [...CHROMIUM_ARGS] });
   let r;
   try {
     const page = await browser.newPage();

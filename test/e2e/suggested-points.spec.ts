@@ -3,6 +3,7 @@ import path from 'node:path';
 import { type Page } from '@playwright/test';
 import { expect, test } from './fixtures';
 import { signIn } from './helpers';
+import { CHROMIUM_ARGS } from '../chromium-args.mjs';
 
 // Suggested points: the pose model runs in the browser on a real photograph of a person, the coach drags
 // one suggestion, confirms, and the saved points record which were suggested and which were moved.
@@ -43,18 +44,7 @@ test.use({
   actionTimeout: 30_000,
   launchOptions: {
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-    args: [
-      '--headless',
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-quic',
-      '--no-first-run',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-      '--use-gl=swiftshader',
-      '--enable-unsafe-swiftshader',
-    ],
+    args: ['--headless', ...CHROMIUM_ARGS, '--use-gl=swiftshader', '--enable-unsafe-swiftshader'],
   },
 });
 
