@@ -12,6 +12,9 @@ import { athletesRepo, type AthleteValues, type AthletesRepo, type AthleteView, 
 export const DUPLICATE_MESSAGE = 'An athlete with this name and date of birth is already in the club.';
 const DUPLICATE_ARCHIVED_MESSAGE = 'An archived athlete with this name and date of birth is in the club: restore them instead.';
 
+/** The athlete's decision in force of one kind (null: none recorded). */
+const consentInForce = (athlete: AthleteView, kind: ConsentInput['kind']) => (kind === 'photos' ? athlete.consents.photos : athlete.consents.emailSummaries);
+
 export type AthleteDetail = AthleteView & { guardians?: GuardianView[] };
 
 /** Rules of the roster, on top of a repository built from the caller's scope. */
@@ -101,7 +104,7 @@ export function athletesService(db: Db, scope: ClubScope) {
       const athlete = await mustGet(id);
       // The newest recorded decision is in force: one dated before the decision in force would overturn a
       // later choice of the family (a parent's "no" in the app, then an old paper "yes" typed in). Our rule.
-      const inForce = input.kind === 'photos' ? athlete.consents.photos : athlete.consents.emailSummaries;
+      const inForce = consentInForce(athlete, input.kind);
       if (inForce && input.decidedOn < inForce.decidedOn) {
         const message = `A later decision is on record (${inForce.granted ? 'yes' : 'no'}, decided ${inForce.decidedOn}). If the family has decided again since, record it with the day they did.`;
         throw new AppError(409, 'later_decision_on_record', message, { decidedOn: message });
@@ -123,7 +126,7 @@ export function athletesService(db: Db, scope: ClubScope) {
         const r = athletesRepo(tx, scope);
         const athlete = await r.get(id);
         if (!athlete) throw forbidden('You can only see the athletes linked to you.');
-        const inForce = input.kind === 'photos' ? athlete.consents.photos : athlete.consents.emailSummaries;
+        const inForce = consentInForce(athlete, input.kind);
         if (inForce?.granted === input.granted) return false;
         const [row] = await r.recordConsents([{ athleteId: id, kind: input.kind, granted: input.granted, decidedOn: todayIso() }]);
         await recordAudit(tx, {

@@ -1,10 +1,11 @@
 import { randomBytes } from 'node:crypto';
-import { and, desc, eq, isNull } from 'drizzle-orm';
+import { and, eq, isNull } from 'drizzle-orm';
 import type { Db } from '@/db/client';
-import { consents, summaryEmails, summaryReleases, users } from '@/db/schema';
+import { summaryEmails, summaryReleases, users } from '@/db/schema';
 import type { FamilySummary } from '@/features/care/types';
 import type { OutgoingMail } from '@/server/mail/mailer';
 import { renderSummaryEmail } from './summary-email';
+import { emailConsentInForce } from './summary.repo';
 import { familyUrl, hashToken, oneClickUrl, unsubscribePageUrl } from './summary.service';
 
 /**
@@ -30,13 +31,7 @@ export function summaryMail(db: Db, publicUrl: string) {
         clubId: summaryEmails.clubId,
       });
     if (!row) return null;
-    const [consent] = await db
-      .select({ granted: consents.granted })
-      .from(consents)
-      .where(and(eq(consents.athleteId, row.athleteId), eq(consents.kind, 'email_summaries')))
-      .orderBy(desc(consents.createdAt))
-      .limit(1);
-    if (consent?.granted !== true) return null;
+    if (!(await emailConsentInForce(db, row.athleteId))) return null;
     const [release] = await db.select({ summary: summaryReleases.summary }).from(summaryReleases).where(eq(summaryReleases.id, row.releaseId));
     if (!release) return null;
     const [user] = row.userId ? await db.select({ displayName: users.displayName }).from(users).where(eq(users.id, row.userId)) : [];

@@ -18,6 +18,17 @@ import type { Executor } from '@/server/screening/screening.repo';
 
 export type Recipient = { userId: string; displayName: string; email: string };
 
+/** Whether the athlete's newest e-mail consent decision is a yes (none recorded: no). Read at release and again at send time. */
+export async function emailConsentInForce(db: Executor, athleteId: string): Promise<boolean> {
+  const [consent] = await db
+    .select({ granted: consents.granted })
+    .from(consents)
+    .where(and(eq(consents.athleteId, athleteId), eq(consents.kind, 'email_summaries')))
+    .orderBy(desc(consents.createdAt), desc(consents.id))
+    .limit(1);
+  return consent?.granted === true;
+}
+
 export function summaryRepo(db: Executor, scope: ClubScope) {
   return {
     /** Parents of the club linked to the athlete, with whether the family's e-mail consent is in force. */
@@ -30,13 +41,7 @@ export function summaryRepo(db: Executor, scope: ClubScope) {
         .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.clubId, athletes.clubId), eq(memberships.role, 'parent')))
         .where(and(eq(athletes.clubId, scope.clubId), eq(guardianLinks.athleteId, athleteId)))
         .orderBy(asc(users.displayName));
-      const [consent] = await db
-        .select({ granted: consents.granted })
-        .from(consents)
-        .where(and(eq(consents.athleteId, athleteId), eq(consents.kind, 'email_summaries')))
-        .orderBy(desc(consents.createdAt), desc(consents.id))
-        .limit(1);
-      return { guardians, emailConsent: consent?.granted === true };
+      return { guardians, emailConsent: await emailConsentInForce(db, athleteId) };
     },
 
     async addRelease(values: { assessmentId: string; athleteId: string; resultId: string; releasedBy: string | null; summary: FamilySummary; at?: Date }) {

@@ -17,9 +17,6 @@ import { ExerciseCard } from './exercise-card';
 import { PlanEditor } from './plan-editor';
 import { formatDate } from '@/features/ui/format-date';
 
-/** A timestamp's day, as every date on screen is written (the reader's locale). */
-const day = (iso: string): string => formatDate(iso);
-
 /** "Dropped: …; added: …; re-dosed: …" against the engine's proposal. */
 function changeSummary(adjusted: PlannedExercise[], proposal: PlannedExercise[]): string {
   const dropped = proposal.filter((p) => !adjusted.some((a) => a.id === p.id)).map((p) => p.name);
@@ -97,12 +94,12 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
       ) : null}
       {!adjustment && result.earlierAdjustment ? (
         <Notice tone="caution" title="Earlier adjustment not carried over" testID="plan-earlier-adjustment">
-          {`${result.earlierAdjustment.createdByName ?? 'A club member'} adjusted the plan of version ${result.earlierAdjustment.version} on ${day(result.earlierAdjustment.createdAt)}. Version ${result.version} ${result.reason ? 'was worked out again after a clearance' : 'came from a new submission'} and starts again from the engine's proposal below: adjust it again if those changes still apply.`}
+          {`${result.earlierAdjustment.createdByName ?? 'A club member'} adjusted the plan of version ${result.earlierAdjustment.version} on ${formatDate(result.earlierAdjustment.createdAt)}. Version ${result.version} ${result.reason ? 'was worked out again after a clearance' : 'came from a new submission'} and starts again from the engine's proposal below: adjust it again if those changes still apply.`}
         </Notice>
       ) : null}
       {clearance ? (
         <Text variant="small" testID="plan-clearance-state">
-          Clearance in force: {CLEARANCE_LABELS[clearance.status]}, set by {clearance.setByName ?? 'a former member'} on {day(clearance.setAt)}
+          Clearance in force: {CLEARANCE_LABELS[clearance.status]}, set by {clearance.setByName ?? 'a former member'} on {formatDate(clearance.setAt)}
           {clearance.detail ? ` (“${clearance.detail}”)` : ''}.
         </Text>
       ) : null}
@@ -118,7 +115,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
             <Text style={styles.sourceText}>
               {showProposal
                 ? `The engine's proposal (engine ${result.engineVersion})`
-                : `Adjusted by ${adjustment.createdByName ?? 'a club member'} on ${day(adjustment.createdAt)}`}
+                : `Adjusted by ${adjustment.createdByName ?? 'a club member'} on ${formatDate(adjustment.createdAt)}`}
             </Text>
             {!showProposal ? <Text variant="small">{changeSummary(adjustment.exercises, plan.exercises)}</Text> : null}
             {adjustment.note && !showProposal ? <Text variant="small">“{adjustment.note}”</Text> : null}
@@ -176,7 +173,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
           <Text variant="label">Plan history</Text>
           {history.map((h, i) => (
             <Text key={`${h.createdAt}-${i}`} variant="small">
-              {day(h.createdAt)} · {h.createdByName ?? 'a club member'}
+              {formatDate(h.createdAt)} · {h.createdByName ?? 'a club member'}
               {i === 0 ? ' (current)' : ''}: {h.exercises.length} exercises
               {h.overrides?.length ? `, ${h.overrides.length} ${h.overrides.length === 1 ? 'limit' : 'limits'} passed on purpose` : ''}
               {h.note ? `. “${h.note}”` : ''}
@@ -227,7 +224,7 @@ function HeldWork({
   const reason = !block.blocked
     ? null
     : block.reason === 'referred'
-      ? `Refer on: ${clearance?.setByName ?? 'a physiotherapist'} referred the athlete on ${clearance ? day(clearance.setAt) : 'a recent date'}${clearance?.detail ? ` (${clearance.detail})` : ''}. Loaded strength work waits until a physiotherapist clears the athlete.`
+      ? `Refer on: ${clearance?.setByName ?? 'a physiotherapist'} referred the athlete on ${clearance ? formatDate(clearance.setAt) : 'a recent date'}${clearance?.detail ? ` (${clearance.detail})` : ''}. Loaded strength work waits until a physiotherapist clears the athlete.`
       : block.words;
   return (
     <View style={styles.held} testID="plan-held">
