@@ -14,6 +14,7 @@ import { Chips } from './chips';
 import { canPrint, downloadFile, printPage, PRINT_HIDE, PRINT_ROOT, usePrintStyles } from './print';
 import { ChangeChart, FlagShareChart, KneeDistributionChart, patternsIn } from './trend-charts';
 import { TrendsCards, TrendsTable } from './trends-table';
+import { formatDate } from '@/features/ui/format-date';
 
 const SORT_LABELS: Record<SortKey, string> = {
   name: 'Name',
@@ -191,7 +192,7 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
   const table = (
     <View style={styles.stack}>
       <Text variant="small" testID="row-count">
-        {rows.length} of {data.athletes.length} athletes · counted on {data.today}
+        {rows.length} of {data.athletes.length} athletes · counted on {formatDate(data.today)}
       </Text>
       {isTabletUp ? <TrendsTable rows={rows} sort={sort} descending={descending} onSort={onSort} /> : <TrendsCards rows={rows} />}
     </View>
