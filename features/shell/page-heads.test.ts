@@ -8,11 +8,14 @@ describe('pageHeadFor (our choice: the pre-rendered head of each page)', () => {
     ['/measuring', PAGE_HEADS.measuring],
     ['/trends', PAGE_HEADS.trends],
     ['/audit', PAGE_HEADS.audit],
+    ['/screening/rounds/5d0b7c1e-8f0a-4c55-9f43-2b1f8f9d9a01', PAGE_HEADS.round],
+    // The export pre-renders the round page under its file's own name.
+    ['/screening/rounds/[id]', PAGE_HEADS.round],
   ])('%s has its own head', (path, head) => {
     expect(pageHeadFor(path)).toBe(head);
   });
 
-  it.each(['/screening/rounds/5d0b7c1e-8f0a-4c55-9f43-2b1f8f9d9a01', '/athletes/5d0b7c1e-8f0a-4c55-9f43-2b1f8f9d9a01', '/family/x', '/unknown'])(
+  it.each(['/screening/rounds/5d0b7c1e-8f0a-4c55-9f43-2b1f8f9d9a01/x', '/athletes/5d0b7c1e-8f0a-4c55-9f43-2b1f8f9d9a01', '/family/x', '/unknown'])(
     '%s waits for its data (no head)',
     (path) => {
       expect(pageHeadFor(path)).toBeNull();

@@ -4,8 +4,11 @@
  * hall connection sees where it is going while the JavaScript and the session arrive. Pages whose heading
  * is this same text read it from here, so the two cannot drift apart.
  */
-/** `lead`: the page shows a small line above its title (filled in once the session is known). */
-export type PageHead = { title: string; text?: string; lead?: boolean };
+/**
+ * `lead`: the page shows a small line above its title (filled in once the session or the data is known).
+ * `back`: the page starts with a link back to its list, under this label.
+ */
+export type PageHead = { title: string; text?: string; lead?: boolean; back?: string };
 
 export const PAGE_HEADS = {
   home: {
@@ -21,10 +24,21 @@ export const PAGE_HEADS = {
   reviews: { title: 'To review' },
   people: { title: 'People' },
   audit: { title: 'Audit trail' },
+  // A round (`/screening/rounds/:id`): the squad and date above and the round's name come with its data;
+  // the title until then is this one. The line under it stays.
+  round: {
+    back: '← All rounds',
+    lead: true,
+    title: 'Round',
+    text: "The round's athletes in name order, with how far each screen has got and, once it is submitted, what it flagged. Tap a name to open it.",
+  },
 } as const satisfies Record<string, PageHead>;
 
-/** The head for a path, or null for a page whose heading comes from its data (an athlete, a round). */
+const ROUND_PATH = /^\/screening\/rounds\/[^/]+\/?$/;
+
+/** The head for a path, or null for a page whose heading comes from its data (an athlete, a result). */
 export function pageHeadFor(pathname: string): PageHead | null {
+  if (ROUND_PATH.test(pathname)) return PAGE_HEADS.round;
   const first = pathname.split('/').filter(Boolean)[0] ?? '';
   const rest = pathname.split('/').filter(Boolean).length > 1;
   if (first === '') return PAGE_HEADS.home;

@@ -20,7 +20,9 @@ import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { RoundProgress } from './round-progress';
 import { PlainTag, SeverityTag, StatusTag } from './status-tag';
 import { formatDate } from '@/features/ui/format-date';
+import { closedLine } from '@/features/screening/round-lines';
 import { assessmentHref } from '@/features/screening/assessment-href';
+import { PAGE_HEADS } from '@/features/shell/page-heads';
 
 const byName = (a: RoundAthlete, b: RoundAthlete) => a.lastName.localeCompare(b.lastName) || a.firstName.localeCompare(b.firstName);
 
@@ -85,8 +87,33 @@ export function RoundScreen({ id }: { id: string }) {
   // Submits made on this phone and not sent yet: the athlete is done here, the server has not heard.
   const queue = useOutboxState();
   const waitingSubmit = new Set(queue.entries.filter((e) => e.kind === 'submit').map((e) => e.assessmentId));
-  if (round.isPending) return <Text>Loading the round…</Text>;
-  if (round.error) return <Notice tone="error">{round.error.message}</Notice>;
+  // The back link and the head are drawn from the first render, where the pre-rendered frame has them
+  // (PAGE_HEADS.round in features/shell/page-heads.ts), so nothing moves when the round arrives.
+  const head = (
+    <>
+      <Link href="/screening" style={styles.back}>
+        <Text variant="label" style={styles.backText}>
+          {PAGE_HEADS.round.back}
+        </Text>
+      </Link>
+      <View style={styles.head}>
+        <Text variant="small">{round.data ? `${round.data.round.squadName} · ${formatDate(round.data.round.screenedOn)}` : '\u00a0'}</Text>
+        <Text variant="title" accessibilityRole="header">
+          {round.data ? round.data.round.name : PAGE_HEADS.round.title}
+        </Text>
+        <Text>{PAGE_HEADS.round.text}</Text>
+        {round.data ? <RoundProgress round={round.data.round} /> : null}
+      </View>
+    </>
+  );
+  if (round.isPending || round.error) {
+    return (
+      <View style={styles.wrap}>
+        {head}
+        {round.error ? <Notice tone="error">{round.error.message}</Notice> : <Text>Loading the round…</Text>}
+      </View>
+    );
+  }
   const { round: r, athletes } = round.data;
   const closed = r.closedAt !== null;
   // A closed round is read: every row opens the result.
@@ -99,23 +126,10 @@ export function RoundScreen({ id }: { id: string }) {
   const next = screens ? (sorted.find((a) => a.status === 'in_progress') ?? sorted.find((a) => a.status === 'not_started')) : undefined;
   return (
     <View style={styles.wrap}>
-      <Link href="/screening" style={styles.back}>
-        <Text variant="label" style={styles.backText}>
-          ← All rounds
-        </Text>
-      </Link>
-      <View style={styles.head}>
-        <Text variant="small">
-          {r.squadName} · {formatDate(r.screenedOn)}
-        </Text>
-        <Text variant="title" accessibilityRole="header">
-          {r.name}
-        </Text>
-        <RoundProgress round={r} />
-      </View>
+      {head}
       {closed ? (
         <Notice title="This round is closed" testID="round-closed">
-          {`Closed on ${formatDate(r.closedAt!)}${r.closedByName ? ` by ${r.closedByName}` : ''}. Its screens can be read; a head coach can reopen it.`}
+          {closedLine(r.closedAt!, r.closedByName)}
         </Notice>
       ) : null}
       {screensInClub ? (

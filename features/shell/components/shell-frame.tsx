@@ -25,6 +25,13 @@ export function ShellFrame() {
   ) : (
     <View style={frameStyles.frameContent} {...FRAME_CONTENT}>
       <View style={frameStyles.frameColumn}>
+        {head?.back ? (
+          <View style={frameStyles.frameBack}>
+            <Text variant="label" style={frameStyles.frameBackText}>
+              {head.back}
+            </Text>
+          </View>
+        ) : null}
         {head ? (
           <View style={frameStyles.frameHead}>
             {/* A head that starts with a line above the title (the home's club and role): its place is kept. */}
@@ -105,6 +112,9 @@ export const frameStyles = StyleSheet.create({
   frameContent: { flex: 1, padding: space.lg, alignItems: 'center' },
   frameColumn: { width: '100%', maxWidth: CONTENT_MAX_WIDTH, gap: space.lg },
   frameHead: { gap: space.xs },
+  // Where a page's link back to its list sits (RoundScreen's), drawn as text until the app starts.
+  frameBack: { minHeight: TOUCH_MIN, justifyContent: 'center', paddingVertical: space.md },
+  frameBackText: { color: colors.pine },
   frameBusy: { marginTop: space.xl },
   menuWaiting: { opacity: 0.5 },
 });

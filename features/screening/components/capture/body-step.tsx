@@ -7,6 +7,7 @@ import { Text } from '@/features/ui/components/text';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { space } from '@/features/ui/theme';
 import { NumberField } from './number-field';
+import { MEASURE_FIRST } from './before-each-athlete';
 
 type BodyKey = 'statureCm' | 'sittingHeightCm' | 'massKg';
 
@@ -36,8 +37,9 @@ export function BodyStep({ draft, update }: { draft: AssessmentDraft; update(cha
   return (
     <View style={styles.wrap}>
       <Notice title="Measure first">
-        Shoes off. Measure twice and type the mean. Sitting height is from the seat to the top of the head. These values estimate where the athlete is in their
-        growth spurt.
+        {MEASURE_FIRST.map((line) => (
+          <Text key={line}>• {line}</Text>
+        ))}
       </Notice>
       <Card style={isTabletUp ? styles.grid : undefined}>
         <View style={isTabletUp ? styles.cell : undefined}>

@@ -4,7 +4,9 @@ import { CONTENT_MAX_WIDTH } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Text } from '@/features/ui/components/text';
 import { colors, space, TOUCH_MIN } from '@/features/ui/theme';
+import { Notice } from '@/features/ui/components/notice';
 import { ProgressBar } from '../progress-bar';
+import { BEFORE_EACH_ATHLETE } from './before-each-athlete';
 
 type LayoutProps = {
   header: ReactNode;
@@ -45,7 +47,9 @@ export function CaptureLayout({ header, children, bar, scrollRef, wide = false }
  * The capture screen before its assessment is known: in the pre-rendered HTML (through ShellFrame) and
  * while the assessment and the draft load. The head's lines keep their height with a blank, so the
  * round, the step and the athlete fill them in place. The same markup at every width (the HTML is built
- * once for every screen).
+ * once for every screen). Meanwhile the body shows the checks to make before each athlete: on a slow
+ * connection the tester has the seconds to read them, and being the largest text painted, a phone takes
+ * it as the page's main content at its first paint (before-each-athlete.test.ts).
  */
 export function CaptureFrame() {
   return (
@@ -73,6 +77,9 @@ export function CaptureFrame() {
         </>
       }
     >
+      <Notice tone="caution" title={BEFORE_EACH_ATHLETE.title} testID="capture-before">
+        {BEFORE_EACH_ATHLETE.text}
+      </Notice>
       <ActivityIndicator size="large" color={colors.pine} accessibilityLabel="Loading" style={styles.busy} />
     </CaptureLayout>
   );
