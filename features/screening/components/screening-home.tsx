@@ -1,7 +1,7 @@
 import { plural } from '@/features/ui/plural';
 import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
-import { useState } from 'react';
+import { useDeferredValue, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { isOpenRound, useClubRoundsQuery } from '@/features/screening/api/get-rounds';
 import { useActiveClub } from '@/features/session/active-club';
@@ -21,7 +21,11 @@ import { formatDate } from '@/features/ui/format-date';
 export function ScreeningHome() {
   const { membership } = useActiveClub();
   const { isWide } = useBreakpoints();
-  const { squads, rounds: roundsQuery, bySquad, error } = useClubRoundsQuery();
+  const { squads, rounds: roundsQuery, bySquad: liveBySquad, error } = useClubRoundsQuery();
+  // Drawn in the background when the lists arrive, as on the homes (OpenRounds): drawn at once, the
+  // cards of every squad's rounds made one long task while the page started.
+  const bySquad = useDeferredValue(liveBySquad);
+  const listPending = useDeferredValue(squads.isPending || roundsQuery.isPending);
   const canOpen = can(membership.role, 'screening.write');
   // On a phone the form waits behind one button at the top; a wide screen shows it beside the rounds.
   const [formOpen, setFormOpen] = useState(false);
@@ -56,10 +60,10 @@ export function ScreeningHome() {
       ) : null}
       {/* The cards come once their rounds are known too: a card that grows as its rounds arrive pushes
           the next one down. */}
-      {squads.isPending || roundsQuery.isPending ? <Text>Loading rounds…</Text> : null}
+      {listPending ? <Text>Loading rounds…</Text> : null}
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         <View style={[styles.main, isWide && styles.mainWide]}>
-          {(roundsQuery.isPending ? [] : bySquad).map(({ squad, rounds }) => (
+          {(listPending ? [] : bySquad).map(({ squad, rounds }) => (
             <Card key={squad.id} testID={`squad-rounds-${squad.id}`}>
               <Text variant="heading">{squad.name}</Text>
               <Text variant="small">{plural(squad.athleteCount, 'athlete', 'athletes')}</Text>
