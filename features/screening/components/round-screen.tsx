@@ -1,7 +1,7 @@
 import { AthleteClearanceBadge } from '@/features/care/components/clearance-badge';
 import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
-import { useState } from 'react';
+import { useDeferredValue, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useSetRoundClosedMutation } from '@/features/screening/api/close-round';
 import { useOutboxState } from '@/features/offline/device-handle';
@@ -80,10 +80,13 @@ function RoundClosing({ id, closed }: { id: string; closed: boolean }) {
 /** One round: its athletes with their progress, big rows to tap, and the next athlete to screen. */
 export function RoundScreen({ id }: { id: string }) {
   const round = useRoundQuery(id);
+  // Drawn in the background when the round arrives (as the round list and the homes are): drawn at
+  // once, the rows of every athlete were one long render at the end of the page's start.
+  const data = useDeferredValue(round.data);
   const { isTabletUp } = useBreakpoints();
   const screensInClub = can(useActiveClub().membership.role, 'screening.write');
-  usePageTitle(round.data ? round.data.round.name : 'Round');
-  useKeepRoundOnDevice(round.data);
+  usePageTitle(data ? data.round.name : 'Round');
+  useKeepRoundOnDevice(data);
   // Submits made on this phone and not sent yet: the athlete is done here, the server has not heard.
   const queue = useOutboxState();
   const waitingSubmit = new Set(queue.entries.filter((e) => e.kind === 'submit').map((e) => e.assessmentId));
@@ -97,16 +100,16 @@ export function RoundScreen({ id }: { id: string }) {
         </Text>
       </Link>
       <View style={styles.head}>
-        <Text variant="small">{round.data ? `${round.data.round.squadName} · ${formatDate(round.data.round.screenedOn)}` : '\u00a0'}</Text>
+        <Text variant="small">{data ? `${data.round.squadName} · ${formatDate(data.round.screenedOn)}` : '\u00a0'}</Text>
         <Text variant="title" accessibilityRole="header">
-          {round.data ? round.data.round.name : PAGE_HEADS.round.title}
+          {data ? data.round.name : PAGE_HEADS.round.title}
         </Text>
         <Text>{PAGE_HEADS.round.text}</Text>
-        {round.data ? <RoundProgress round={round.data.round} /> : null}
+        {data ? <RoundProgress round={data.round} /> : null}
       </View>
     </>
   );
-  if (round.isPending || round.error) {
+  if (!data || round.error) {
     return (
       <View style={styles.wrap}>
         {head}
@@ -114,7 +117,7 @@ export function RoundScreen({ id }: { id: string }) {
       </View>
     );
   }
-  const { round: r, athletes } = round.data;
+  const { round: r, athletes } = data;
   const closed = r.closedAt !== null;
   // A closed round is read: every row opens the result.
   const screens = screensInClub && !closed;
@@ -148,7 +151,7 @@ export function RoundScreen({ id }: { id: string }) {
             </Text>
           </View>
         </Link>
-      ) : round.data.round.counts.submitted === athletes.length || screens ? (
+      ) : r.counts.submitted === athletes.length || screens ? (
         <Notice title="Everyone is screened">Every athlete of this round has been submitted.</Notice>
       ) : null}
       <Card style={styles.list}>
