@@ -13,7 +13,7 @@ describe("a closed round's notice stays smaller than the pre-rendered head line"
     expect(line.length).toBeLessThanOrEqual((PAGE_HEADS.round.text.length * 2) / 3);
   });
 
-  it('the head line is the one the frame and the screen draw', () => {
+  it('the head line is long enough to stay the largest text', () => {
     expect(PAGE_HEADS.round.text.length).toBeGreaterThan(100);
   });
 });

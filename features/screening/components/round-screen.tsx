@@ -23,6 +23,7 @@ import { formatDate } from '@/features/ui/format-date';
 import { closedLine } from '@/features/screening/round-lines';
 import { assessmentHref } from '@/features/screening/assessment-href';
 import { PAGE_HEADS } from '@/features/shell/page-heads';
+import { frameStyles } from '@/features/shell/components/shell-frame';
 
 const byName = (a: RoundAthlete, b: RoundAthlete) => a.lastName.localeCompare(b.lastName) || a.firstName.localeCompare(b.firstName);
 
@@ -94,8 +95,8 @@ export function RoundScreen({ id }: { id: string }) {
   // (PAGE_HEADS.round in features/shell/page-heads.ts), so nothing moves when the round arrives.
   const head = (
     <>
-      <Link href="/screening" style={styles.back}>
-        <Text variant="label" style={styles.backText}>
+      <Link href="/screening" style={frameStyles.frameBack}>
+        <Text variant="label" style={frameStyles.frameBackText}>
           {PAGE_HEADS.round.back}
         </Text>
       </Link>
@@ -136,8 +137,8 @@ export function RoundScreen({ id }: { id: string }) {
         </Notice>
       ) : null}
       {screensInClub ? (
-        <Link href={`/measuring?roundId=${r.id}`} style={styles.back} testID="round-measure">
-          <Text variant="label" style={styles.backText}>
+        <Link href={`/measuring?roundId=${r.id}`} style={frameStyles.frameBack} testID="round-measure">
+          <Text variant="label" style={frameStyles.frameBackText}>
             Place the points of this round&apos;s photos →
           </Text>
         </Link>
@@ -190,8 +191,6 @@ export function RoundScreen({ id }: { id: string }) {
 
 const styles = StyleSheet.create({
   wrap: { gap: space.lg },
-  back: { minHeight: TOUCH_MIN, justifyContent: 'center', paddingVertical: space.md },
-  backText: { color: colors.pine },
   head: { gap: space.xs },
   next: { backgroundColor: colors.pine, borderRadius: radius.lg, padding: space.lg, minHeight: TOUCH_MIN + 24 },
   nextInner: { gap: 2 },

@@ -112,7 +112,8 @@ export const frameStyles = StyleSheet.create({
   frameContent: { flex: 1, padding: space.lg, alignItems: 'center' },
   frameColumn: { width: '100%', maxWidth: CONTENT_MAX_WIDTH, gap: space.lg },
   frameHead: { gap: space.xs },
-  // Where a page's link back to its list sits (RoundScreen's), drawn as text until the app starts.
+  // A page's link back to its list (RoundScreen's, which draws its links with these), drawn as text
+  // in the frame until the app starts.
   frameBack: { minHeight: TOUCH_MIN, justifyContent: 'center', paddingVertical: space.md },
   frameBackText: { color: colors.pine },
   frameBusy: { marginTop: space.xl },
