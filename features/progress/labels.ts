@@ -45,3 +45,10 @@ export const BAND_SHORT: Record<MaturityBand | 'unknown', string> = {
   post: 'After spurt',
   unknown: '–',
 };
+
+/** How long ago the last screen was, in words: "today", "yesterday", "81 days ago". */
+export function daysAgo(days: number): string {
+  if (days <= 0) return 'today';
+  if (days === 1) return 'yesterday';
+  return `${days} days ago`;
+}

@@ -4,7 +4,7 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import type { PatternId } from '@/features/screening/engine';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space } from '@/features/ui/theme';
-import { BAND_LABELS, BAND_SHORT, PATTERN_SHORT } from '../labels';
+import { BAND_LABELS, BAND_SHORT, daysAgo, PATTERN_SHORT } from '../labels';
 import type { SortKey, TrendAthlete } from '../trends';
 import { formatDate } from '@/features/ui/format-date';
 
@@ -14,6 +14,7 @@ function clearanceText(value: string | null): string | null {
   return (CLEARANCE_LABELS as Record<string, string>)[value] ?? value;
 }
 
+const capitalised = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 const list = (p: PatternId[]) => (p.length ? p.map((x) => PATTERN_SHORT[x]).join(', ') : '–');
 // In the table's narrow columns, one flag a line, each marked where it starts (a name may wrap; with
 // commas, a comma after a wrapped name sat alone on a line).
@@ -32,7 +33,7 @@ const COLUMNS: Col[] = [
     key: 'daysSinceLastScreen',
     label: 'Last screen',
     flex: 0.8,
-    cell: (a) => (a.daysSinceLastScreen === null ? 'Never' : `${a.daysSinceLastScreen} days ago`),
+    cell: (a) => (a.daysSinceLastScreen === null ? 'Never' : capitalised(daysAgo(a.daysSinceLastScreen))),
   },
   { key: 'rescreenDue', label: 'Re-screen', flex: 0.9, cell: (a) => (a.rescreenDue ? 'Due' : `from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`) },
 ];
@@ -115,7 +116,7 @@ export function TrendsCards({ rows }: { rows: TrendAthlete[] }) {
           {a.latestFlags.both.length + a.latestFlags.unsided.length ? (
             <Text variant="small">Other: {list([...a.latestFlags.both, ...a.latestFlags.unsided])}</Text>
           ) : null}
-          <Text variant="small">{a.daysSinceLastScreen === null ? 'Never screened' : `Last screened ${a.daysSinceLastScreen} days ago`}</Text>
+          <Text variant="small">{a.daysSinceLastScreen === null ? 'Never screened' : `Last screened ${daysAgo(a.daysSinceLastScreen)}`}</Text>
         </View>
       ))}
     </View>
