@@ -67,7 +67,7 @@ function ReviewRow({ item }: { item: ReviewItem }) {
               label={
                 item.flagCount === 0
                   ? 'No flags'
-                  : `${item.flagCount} ${item.flagCount === 1 ? 'flag' : 'flags'}${item.concernCount ? `, ${item.concernCount} concern` : ''}`
+                  : `${item.flagCount} ${item.flagCount === 1 ? 'flag' : 'flags'}${item.concernCount ? `, ${item.concernCount} of concern` : ''}`
               }
             />
             <ClearanceBadge clearance={item.clearance} />
