@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { labelledPoints } from './axis-labels';
+import { axisDateLabels, labelledPoints } from './axis-labels';
 
 // Our choice (no source): labels at least 52 px apart, the first and the last always labelled.
 const gaps = (points: number[], count: number, width: number) => points.slice(1).map((p, i) => ((p - points[i]!) / (count - 1)) * width);
@@ -26,5 +26,32 @@ describe('date labels on a chart of many rounds', () => {
         for (const gap of gaps(points, count, width)) expect(gap).toBeGreaterThanOrEqual(52 - 1e-9);
       }
     }
+  });
+});
+
+describe('date labels tell two rounds of one month apart (our choice)', () => {
+  it('gives month and year where the neighbours are in other months', () => {
+    const dates = ['2026-03-09', '2026-06-08', '2026-09-14'];
+    expect([...axisDateLabels(dates, [0, 1, 2]).values()]).toEqual(['Mar 26', 'Jun 26', 'Sep 26']);
+  });
+
+  it('gives day and month to labelled neighbours in the same month, only to them', () => {
+    const dates = ['2026-08-31', '2026-09-01', '2026-09-29', '2026-11-02'];
+    expect([...axisDateLabels(dates, [0, 1, 2, 3]).values()]).toEqual(['Aug 26', '1 Sep', '29 Sep', 'Nov 26']);
+  });
+
+  it('compares only the points that carry a label', () => {
+    const dates = ['2026-09-01', '2026-09-10', '2026-09-29', '2026-10-20'];
+    // 1 and 2 are not labelled: 0 (Sep) and 3 (Oct) are neighbours on the axis.
+    expect(axisDateLabels(dates, [0, 3])).toEqual(
+      new Map([
+        [0, 'Sep 26'],
+        [3, 'Oct 26'],
+      ]),
+    );
+  });
+
+  it('keeps the year apart: the same month of two seasons is not a twin', () => {
+    expect([...axisDateLabels(['2025-09-15', '2026-09-14'], [0, 1]).values()]).toEqual(['Sep 25', 'Sep 26']);
   });
 });

@@ -23,3 +23,25 @@ export function labelledPoints(count: number, plotWidthPx: number, minGapPx = 52
   }
   return picked;
 }
+
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+/** '2026-03-09' -> 'Mar 26': short enough for a phone's axis. */
+export const shortDate = (iso: string) => `${MONTHS[Number(iso.slice(5, 7)) - 1] ?? ''} ${iso.slice(2, 4)}`;
+/** '2026-03-09' -> '9 Mar': for two labelled rounds in the same month. */
+const dayMonth = (iso: string) => `${Number(iso.slice(8, 10))} ${MONTHS[Number(iso.slice(5, 7)) - 1] ?? ''}`;
+
+/**
+ * The label of each labelled point (`points` from `labelledPoints`, `dates` ISO dates of every point):
+ * month and year ("Mar 26"), or day and month ("9 Mar") where the labelled point before or after it
+ * falls in the same month, so two rounds of one month never carry the same label. Our choice: a
+ * re-test a few weeks after a screen often falls in the same month; both forms fit the 52 px gap.
+ */
+export function axisDateLabels(dates: readonly string[], points: readonly number[]): Map<number, string> {
+  const labels = new Map<number, string>();
+  points.forEach((p, k) => {
+    const month = dates[p]?.slice(0, 7);
+    const twin = [points[k - 1], points[k + 1]].some((q) => q !== undefined && dates[q]?.slice(0, 7) === month);
+    labels.set(p, dates[p] === undefined ? '' : twin ? dayMonth(dates[p]) : shortDate(dates[p]));
+  });
+  return labels;
+}

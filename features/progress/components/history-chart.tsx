@@ -3,14 +3,11 @@ import { StyleSheet, View } from 'react-native';
 import { VictoryArea, VictoryAxis, VictoryChart, VictoryLine, VictoryScatter } from 'victory-native';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space } from '@/features/ui/theme';
-import { DATE_AXIS_RIGHT, labelledPoints } from '../axis-labels';
+import { axisDateLabels, DATE_AXIS_RIGHT, labelledPoints } from '../axis-labels';
 import type { HistorySeries } from '../history';
 import { NumbersTable } from './numbers-table';
 
 const round1 = (n: number) => Math.round(n * 10) / 10;
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-/** '2026-03-09' -> 'Mar 26': short enough for a phone's axis. */
-export const shortDate = (iso: string) => `${MONTHS[Number(iso.slice(5, 7)) - 1] ?? ''} ${iso.slice(2, 4)}`;
 export const AXIS_STYLE = {
   axis: { stroke: colors.line },
   tickLabels: { fontFamily: fonts.regular, fontSize: 11, fill: colors.inkMuted, padding: 4 },
@@ -28,7 +25,12 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
   if (series.band) ys.push(series.band.low, series.band.high);
   const pad = Math.max(1, (Math.max(...ys) - Math.min(...ys)) * 0.1);
   const domainY: [number, number] = [Math.min(...ys) - pad, Math.max(...ys) + pad];
-  const dateOf = new Map(series.points.map((p) => [p.index, shortDate(p.screenedOn)]));
+  const picked = width > 0 ? labelledPoints(xs.length, width - 40 - DATE_AXIS_RIGHT) : [];
+  const dateLabels = axisDateLabels(
+    series.points.map((p) => p.screenedOn),
+    picked,
+  );
+  const dateOf = new Map(picked.map((i) => [xs[i]!, dateLabels.get(i) ?? '']));
   const summary = series.points.map((p) => `${p.roundName} ${round1(p.value)}${series.unit === '°' ? '°' : ` ${series.unit}`}`).join(', ');
 
   return (
@@ -62,7 +64,7 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
             <VictoryAxis
               orientation="bottom"
               offsetY={28}
-              tickValues={labelledPoints(xs.length, width - 40 - DATE_AXIS_RIGHT).map((i) => xs[i]!)}
+              tickValues={picked.map((i) => xs[i]!)}
               tickFormat={(x: number) => dateOf.get(x) ?? ''}
               style={AXIS_STYLE}
             />

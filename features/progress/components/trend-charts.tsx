@@ -4,11 +4,11 @@ import { VictoryArea, VictoryAxis, VictoryBar, VictoryChart, VictoryLine, Victor
 import type { PatternId } from '@/features/screening/engine';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
-import { DATE_AXIS_RIGHT, labelledPoints } from '../axis-labels';
+import { axisDateLabels, DATE_AXIS_RIGHT, labelledPoints } from '../axis-labels';
 import { ERROR_MARGINS, verdictFor } from '../compare';
 import { PATTERN_COLOURS, PATTERN_SHORT } from '../labels';
 import { athleteKneeSeries, roundKneeAngles, shareOf, type TrendAthlete, type TrendKneeAngles, type TrendRound } from '../trends';
-import { AXIS_STYLE, shortDate } from './history-chart';
+import { AXIS_STYLE } from './history-chart';
 import { NumbersTable } from './numbers-table';
 
 const pct = (n: number | null) => (n === null ? '–' : `${Math.round(n * 100)}%`);
@@ -45,15 +45,12 @@ const ROUNDS_PADDING = { top: 10, bottom: 30, left: 42, right: DATE_AXIS_RIGHT }
 
 /** The rounds' dates below the chart (also when every value is negative), thinned to fit its width. */
 function roundDateAxis(rounds: readonly TrendRound[], width: number) {
-  return (
-    <VictoryAxis
-      orientation="bottom"
-      offsetY={30}
-      tickValues={labelledPoints(rounds.length, width - ROUNDS_PADDING.left - ROUNDS_PADDING.right)}
-      tickFormat={(i: number) => (rounds[i] ? shortDate(rounds[i].screenedOn) : '')}
-      style={AXIS_STYLE}
-    />
+  const picked = labelledPoints(rounds.length, width - ROUNDS_PADDING.left - ROUNDS_PADDING.right);
+  const labels = axisDateLabels(
+    rounds.map((r) => r.screenedOn),
+    picked,
   );
+  return <VictoryAxis orientation="bottom" offsetY={30} tickValues={picked} tickFormat={(i: number) => labels.get(i) ?? ''} style={AXIS_STYLE} />;
 }
 
 export function patternsIn(rounds: readonly TrendRound[]): PatternId[] {
