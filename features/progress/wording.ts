@@ -27,9 +27,29 @@ function sideWords(side: FlagSide): string {
   return '';
 }
 
-function flagWords(f: FlagRef): string {
-  const parts = [taskName(f.taskId), sideWords(f.side)].filter(Boolean);
-  return parts.length ? `${f.title} (${parts.join(', ')})` : f.title;
+/**
+ * Flags in words, one entry per pattern: its title, then each task that showed it once, with the sides
+ * ("Knee collapsing inward: drop landing from a low box (both sides); single-leg squat, left leg (left
+ * side)"). Our choice: listed one flag at a time, a squad's usual knee flags repeated the same title up
+ * to seven times in one sentence.
+ */
+export function flagGroups(flags: readonly FlagRef[]): string[] {
+  const byTitle = new Map<string, Map<string, Set<FlagSide>>>();
+  for (const f of flags) {
+    const tasks = byTitle.get(f.title) ?? byTitle.set(f.title, new Map()).get(f.title)!;
+    const task = taskName(f.taskId) ?? '';
+    (tasks.get(task) ?? tasks.set(task, new Set()).get(task)!).add(f.side);
+  }
+  return [...byTitle].map(([title, tasks]) => {
+    const where = [...tasks]
+      .filter(([task]) => task)
+      .map(([task, sides]) => {
+        const both = sides.has('both') || (sides.has('left') && sides.has('right'));
+        const side = both ? sideWords('both') : [...sides].map(sideWords).filter(Boolean).join(', ');
+        return side ? `${task} (${side})` : task;
+      });
+    return where.length ? `${title}: ${where.join('; ')}` : title;
+  });
 }
 
 /** How long the plan had, in the coach's words. */
@@ -58,10 +78,10 @@ function changeSentence(m: MeasurementChange): string {
 export function coachSummary(c: ScreenComparison): { headline: string; lines: string[]; realChanges: string[]; withinError: string[] } {
   const lines: string[] = [];
   const f = c.flags;
-  if (f.cleared.length) lines.push(`No longer flagged: ${f.cleared.map(flagWords).join('; ')}.`);
-  if (f.persisting.length) lines.push(`Still flagged: ${f.persisting.map(flagWords).join('; ')}.`);
-  if (f.new.length) lines.push(`Newly flagged: ${f.new.map(flagWords).join('; ')}.`);
-  if (f.notRetested.length) lines.push(`Not re-tested (task not done again): ${f.notRetested.map(flagWords).join('; ')}.`);
+  for (const g of flagGroups(f.cleared)) lines.push(`No longer flagged: ${g}.`);
+  for (const g of flagGroups(f.persisting)) lines.push(`Still flagged: ${g}.`);
+  for (const g of flagGroups(f.new)) lines.push(`Newly flagged: ${g}.`);
+  for (const g of flagGroups(f.notRetested)) lines.push(`Not re-tested (task not done again): ${g}.`);
   if (!f.cleared.length && !f.persisting.length && !f.new.length) lines.push('No flags at either screen.');
   const judged = c.measurements.filter((m) => m.verdict !== 'no-published-figure');
   const realChanges = judged.filter((m) => m.verdict === 'real-change').map(changeSentence);

@@ -85,7 +85,7 @@ function EditDetails({ athlete, onDone }: { athlete: Athlete; onDone: () => void
 function Facts({ athlete: a }: { athlete: Athlete }) {
   return (
     <View style={styles.facts}>
-      <Fact label="Age" value={`${ageInYears(a.dateOfBirth, todayIso())} years (born ${formatDate(a.dateOfBirth)})`} />
+      <Fact label="Age" value={`${ageInYears(a.dateOfBirth, todayIso())} years (born ${formatDate(a.dateOfBirth)})`} wide />
       <Fact label="Sex" value={SEX_LABELS[a.sex]} />
       <Fact label="Racket hand" value={SIDE_LABELS[a.racketHand]} />
       <Fact label="Take-off leg" value={SIDE_LABELS[a.takeOffLeg]} />
@@ -93,9 +93,10 @@ function Facts({ athlete: a }: { athlete: Athlete }) {
   );
 }
 
-function Fact({ label, value }: { label: string; value: string }) {
+/** Facts side by side as the width allows: the age on its own line on a phone, the three short ones under it. */
+function Fact({ label, value, wide = false }: { label: string; value: string; wide?: boolean }) {
   return (
-    <View style={styles.fact}>
+    <View style={[styles.fact, wide && styles.factWide]}>
       <Text variant="small">{label}</Text>
       <Text>{value}</Text>
     </View>
@@ -113,6 +114,7 @@ const styles = StyleSheet.create({
   col: { flexGrow: 1, flexBasis: 0, minWidth: 0 },
   colMain: { flexGrow: 2 },
   cardHead: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.md, flexWrap: 'wrap' },
-  facts: { gap: space.md },
-  fact: { gap: 2 },
+  facts: { flexDirection: 'row', flexWrap: 'wrap', rowGap: space.md, columnGap: space.lg },
+  fact: { gap: 2, flexGrow: 1, flexBasis: 88 },
+  factWide: { flexBasis: 220 },
 });
