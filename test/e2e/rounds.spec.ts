@@ -74,3 +74,40 @@ test('a round offers to start, lists flags by severity, and can be closed and re
   await expect(page.getByTestId('round-closed')).toHaveCount(0);
   await expect(page.getByTestId('screen-next')).toBeVisible();
 });
+
+test("the round list shows each squad's latest rounds, and the rest on request or from the home's link", async ({ page }, testInfo) => {
+  test.setTimeout(90_000);
+  await signIn(page, 'tester@squadline.test');
+  await expect(page.getByTestId('home-tester')).toBeVisible();
+  const squads = (await (await page.request.get('/api/squads')).json()) as { squads: { id: string; name: string }[] };
+  const squad = squads.squads.find((s) => s.name === 'Under-13 mixed')!;
+  // Five rounds of an old season, older than any other round: never among the latest four, and never on
+  // the home page's newest open rounds that other tests look for.
+  const stamp = `${testInfo.project.name} ${Date.now()}`;
+  const names: string[] = [];
+  for (let i = 1; i <= 5; i++) {
+    const name = `Old season ${i} ${stamp}`;
+    const created = await page.request.post('/api/rounds', { data: { squadId: squad.id, name, screenedOn: `2020-01-0${i}` } });
+    expect(created.status()).toBe(201);
+    names.push(name);
+  }
+
+  await page.goto('/screening');
+  const card = page.getByTestId(`squad-rounds-${squad.id}`);
+  await expect(card.getByRole('link')).toHaveCount(4);
+  for (const name of names) await expect(card.getByText(name)).toHaveCount(0);
+  const more = page.getByTestId(`squad-rounds-all-${squad.id}`);
+  await expect(more).toHaveText(/^Show \d+ earlier rounds \(\d+ open\)$/);
+  await more.click();
+  for (const name of names) await expect(card.getByText(name)).toBeVisible();
+  await expect(more).toHaveText('Show only the latest 4');
+  await page.screenshot({ path: testInfo.outputPath('round-list-all.png') });
+  await more.click();
+  await expect(card.getByRole('link')).toHaveCount(4);
+
+  // The home's "All … open rounds" link opens the squad's whole list.
+  await page.goto('/');
+  await page.getByTestId(`all-open-rounds-${squad.id}`).click();
+  await expect(page).toHaveURL(new RegExp(`/screening\\?squad=${squad.id}$`));
+  for (const name of names) await expect(page.getByTestId(`squad-rounds-${squad.id}`).getByText(name)).toBeVisible();
+});

@@ -55,7 +55,7 @@ export function OpenRounds() {
               ))
             )}
             {open.length > SHOWN_PER_SQUAD ? (
-              <Link href="/screening" style={styles.secondary}>
+              <Link href={`/screening?squad=${squad.id}`} style={styles.secondary} testID={`all-open-rounds-${squad.id}`}>
                 <Text style={styles.secondaryText}>All {open.length} open rounds →</Text>
               </Link>
             ) : null}

@@ -1,9 +1,9 @@
 import { plural } from '@/features/ui/plural';
 import { can } from '@/features/access/permissions';
-import { Link } from 'expo-router';
+import { Link, useLocalSearchParams } from 'expo-router';
 import { useDeferredValue, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
-import { isOpenRound, useClubRoundsQuery } from '@/features/screening/api/get-rounds';
+import { isOpenRound, useClubRoundsQuery, type SquadWithRounds } from '@/features/screening/api/get-rounds';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
@@ -20,6 +20,8 @@ import { formatDate } from '@/features/ui/format-date';
 /** The club's squads with their screening rounds, and the form to open a new round. */
 export function ScreeningHome() {
   const { membership } = useActiveClub();
+  // `/screening?squad=<id>` (the homes' "All open rounds" link) opens that squad's whole list.
+  const { squad: expandSquad } = useLocalSearchParams<{ squad?: string }>();
   const { isWide } = useBreakpoints();
   const { squads, rounds: roundsQuery, bySquad: liveBySquad, error } = useClubRoundsQuery();
   // Drawn in the background when the lists arrive, as on the homes (OpenRounds): drawn at once, the
@@ -64,38 +66,61 @@ export function ScreeningHome() {
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         <View style={[styles.main, isWide && styles.mainWide]}>
           {(listPending ? [] : bySquad).map(({ squad, rounds }) => (
-            <Card key={squad.id} testID={`squad-rounds-${squad.id}`}>
-              <Text variant="heading">{squad.name}</Text>
-              <Text variant="small">{plural(squad.athleteCount, 'athlete', 'athletes')}</Text>
-              {rounds.length === 0 ? <Text variant="small">No rounds yet.</Text> : null}
-              <View>
-                {rounds.map((r) => (
-                  <Link key={r.id} href={`/screening/rounds/${r.id}`} style={styles.round} testID={`round-${r.id}`}>
-                    <View style={styles.roundInner}>
-                      <View style={styles.roundHead}>
-                        <Text variant="label" style={styles.roundName}>
-                          {r.name}
-                        </Text>
-                        {r.closedAt ? (
-                          <PlainTag label="Closed" />
-                        ) : isOpenRound(r) ? (
-                          <PlainTag label="Open" tone="info" />
-                        ) : (
-                          <PlainTag label="Complete" tone="info" />
-                        )}
-                      </View>
-                      <Text variant="small">{formatDate(r.screenedOn)}</Text>
-                      <RoundProgress round={r} />
-                    </View>
-                  </Link>
-                ))}
-              </View>
-            </Card>
+            <SquadRounds key={squad.id} squad={squad} rounds={rounds} expanded={squad.id === expandSquad} />
           ))}
         </View>
         {isWide && form ? <View style={styles.side}>{form}</View> : null}
       </View>
     </View>
+  );
+}
+
+/**
+ * The rounds a squad card lists before "Show all": our choice, a season's last few screens and re-tests.
+ * A club's rounds pile up over seasons (a round with an absent athlete stays open), and every card
+ * listed them all, pushing the next squad far down a phone.
+ */
+export const ROUNDS_SHOWN = 4;
+
+function SquadRounds({ squad, rounds, expanded }: SquadWithRounds & { expanded: boolean }) {
+  const [all, setAll] = useState(expanded);
+  const shown = all ? rounds : rounds.slice(0, ROUNDS_SHOWN);
+  const hidden = rounds.length - ROUNDS_SHOWN;
+  const hiddenOpen = rounds.slice(ROUNDS_SHOWN).filter(isOpenRound).length;
+  return (
+    <Card testID={`squad-rounds-${squad.id}`}>
+      <Text variant="heading">{squad.name}</Text>
+      <Text variant="small">{plural(squad.athleteCount, 'athlete', 'athletes')}</Text>
+      {rounds.length === 0 ? <Text variant="small">No rounds yet.</Text> : null}
+      <View>
+        {shown.map((r) => (
+          <Link key={r.id} href={`/screening/rounds/${r.id}`} style={styles.round} testID={`round-${r.id}`}>
+            <View style={styles.roundInner}>
+              <View style={styles.roundHead}>
+                <Text variant="label" style={styles.roundName}>
+                  {r.name}
+                </Text>
+                {r.closedAt ? <PlainTag label="Closed" /> : isOpenRound(r) ? <PlainTag label="Open" tone="info" /> : <PlainTag label="Complete" tone="info" />}
+              </View>
+              <Text variant="small">{formatDate(r.screenedOn)}</Text>
+              <RoundProgress round={r} />
+            </View>
+          </Link>
+        ))}
+      </View>
+      {hidden > 0 ? (
+        <Button
+          tone="quiet"
+          testID={`squad-rounds-all-${squad.id}`}
+          label={
+            all
+              ? `Show only the latest ${ROUNDS_SHOWN}`
+              : `Show ${plural(hidden, 'earlier round', 'earlier rounds')}${hiddenOpen ? ` (${hiddenOpen} open)` : ''}`
+          }
+          onPress={() => setAll((v) => !v)}
+        />
+      ) : null}
+    </Card>
   );
 }
 
