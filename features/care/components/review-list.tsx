@@ -1,5 +1,6 @@
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
+import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
@@ -11,6 +12,8 @@ import { formatDate } from '@/features/ui/format-date';
 /** The physiotherapist's list: screens to review (pain or "clearance needed" first), then those awaiting release. */
 export function ReviewList() {
   const query = useReviewsQuery();
+  // A wide screen lays the rows out two by two: a physiotherapist sees twice as many without scrolling.
+  const { isWide } = useBreakpoints();
   if (query.isPending) return <Text>Loading the review list…</Text>;
   if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
   const { reviews, awaitingRelease } = query.data;
@@ -26,9 +29,9 @@ export function ReviewList() {
             : `${reviews.length} submitted ${reviews.length === 1 ? 'screen' : 'screens'}, most urgent first.`}
         </Text>
       </View>
-      <View style={styles.list} testID="review-list">
+      <View style={[styles.list, isWide && styles.listWide]} testID="review-list">
         {reviews.map((r) => (
-          <ReviewRow key={r.assessmentId} item={r} />
+          <ReviewRow key={r.assessmentId} item={r} wide={isWide} />
         ))}
       </View>
       {awaitingRelease.length > 0 ? (
@@ -36,9 +39,9 @@ export function ReviewList() {
           <Text variant="heading" accessibilityRole="header" aria-level={2}>
             Reviewed, not yet sent to the family
           </Text>
-          <View style={styles.list} testID="release-list">
+          <View style={[styles.list, isWide && styles.listWide]} testID="release-list">
             {awaitingRelease.map((r) => (
-              <ReviewRow key={r.assessmentId} item={r} />
+              <ReviewRow key={r.assessmentId} item={r} wide={isWide} />
             ))}
           </View>
         </>
@@ -47,10 +50,14 @@ export function ReviewList() {
   );
 }
 
-function ReviewRow({ item }: { item: ReviewItem }) {
+function ReviewRow({ item, wide }: { item: ReviewItem; wide: boolean }) {
   const urgent = item.painReported || item.clearanceNeeded;
   return (
-    <Link href={`/screening/assessments/${item.assessmentId}/result`} style={[styles.row, urgent && styles.urgent]} testID={`review-${item.athleteId}`}>
+    <Link
+      href={`/screening/assessments/${item.assessmentId}/result`}
+      style={[styles.row, urgent && styles.urgent, wide && styles.rowWide]}
+      testID={`review-${item.athleteId}`}
+    >
       <View style={styles.rowInner}>
         <View style={styles.main}>
           <Text variant="label">
@@ -93,6 +100,8 @@ const styles = StyleSheet.create({
   wrap: { gap: space.lg },
   head: { gap: space.xs },
   list: { gap: space.sm },
+  listWide: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'space-between', columnGap: 0 },
+  rowWide: { width: '49%' },
   row: { minHeight: TOUCH_MIN + 24, backgroundColor: colors.surface, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, padding: space.md },
   urgent: { borderLeftWidth: 6, borderLeftColor: colors.brick },
   rowInner: { flexDirection: 'row', alignItems: 'center', gap: space.md, width: '100%' },

@@ -34,7 +34,16 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
   if (!result) {
     return (
       <View style={styles.wrap}>
-        <Text variant="title">{name}</Text>
+        <View style={styles.head}>
+          <Link href={`/screening/rounds/${detail.roundId}`} style={styles.back} testID="back-to-round">
+            <Text variant="label" style={styles.backText}>
+              ← {detail.roundName}
+            </Text>
+          </Link>
+          <Text variant="title" accessibilityRole="header">
+            {name}
+          </Text>
+        </View>
         <Notice title="Not submitted yet">This assessment has no result yet.</Notice>
         {can(membership.role, 'screening.write') ? (
           <Link href={`/screening/assessments/${detail.id}`} style={styles.action}>
