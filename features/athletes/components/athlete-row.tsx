@@ -6,6 +6,7 @@ import { Text } from '@/features/ui/components/text';
 import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import type { Athlete } from '../api/types';
 
+/** One athlete in their squad's group of the list (the group names the squad). */
 export function AthleteRow({ athlete }: { athlete: Athlete }) {
   const noPhotos = athlete.consents.photos?.granted !== true;
   return (
@@ -17,7 +18,6 @@ export function AthleteRow({ athlete }: { athlete: Athlete }) {
           </Text>
           <Text variant="small">
             {ageInYears(athlete.dateOfBirth, todayIso())} y · {athlete.sex === 'female' ? 'F' : 'M'} · racket {athlete.racketHand}
-            {athlete.squadName ? ` · ${athlete.squadName}` : ''}
           </Text>
           <ClearanceBadge clearance={athlete.clearance} />
         </View>
