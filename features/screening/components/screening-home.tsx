@@ -76,11 +76,12 @@ export function ScreeningHome() {
 }
 
 /**
- * The rounds a squad card lists before "Show all": our choice, a season's last few screens and re-tests.
+ * The rounds a squad card lists before its "Show … earlier rounds" button: our choice, a season's last
+ * few screens and re-tests.
  * A club's rounds pile up over seasons (a round with an absent athlete stays open), and every card
  * listed them all, pushing the next squad far down a phone.
  */
-export const ROUNDS_SHOWN = 4;
+const ROUNDS_SHOWN = 4;
 
 function SquadRounds({ squad, rounds, expanded }: SquadWithRounds & { expanded: boolean }) {
   const [all, setAll] = useState(expanded);
