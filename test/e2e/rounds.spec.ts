@@ -80,7 +80,7 @@ test("the round list shows each squad's latest rounds, and the rest on request o
   await signIn(page, 'tester@squadline.test');
   await expect(page.getByTestId('home-tester')).toBeVisible();
   const squads = (await (await page.request.get('/api/squads')).json()) as { squads: { id: string; name: string }[] };
-  const squad = squads.squads.find((s) => s.name === 'Under-13 mixed')!;
+  const squad = squads.squads.find((s) => s.name === 'Under-15 mixed')!; // not first by name: the link must bring it first
   // Five rounds of an old season, older than any other round: never among the latest four, and never on
   // the home page's newest open rounds that other tests look for.
   const stamp = `${testInfo.project.name} ${Date.now()}`;
@@ -105,9 +105,10 @@ test("the round list shows each squad's latest rounds, and the rest on request o
   await more.click();
   await expect(card.getByRole('link')).toHaveCount(4);
 
-  // The home's "All … open rounds" link opens the squad's whole list.
+  // The home's "All … open rounds" link shows the squad first, with its whole list.
   await page.goto('/');
   await page.getByTestId(`all-open-rounds-${squad.id}`).click();
   await expect(page).toHaveURL(new RegExp(`/screening\\?squad=${squad.id}$`));
+  await expect(page.locator('[data-testid^="squad-rounds-"]').first()).toHaveAttribute('data-testid', `squad-rounds-${squad.id}`);
   for (const name of names) await expect(page.getByTestId(`squad-rounds-${squad.id}`).getByText(name)).toBeVisible();
 });

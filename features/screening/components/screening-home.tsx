@@ -20,7 +20,7 @@ import { formatDate } from '@/features/ui/format-date';
 /** The club's squads with their screening rounds, and the form to open a new round. */
 export function ScreeningHome() {
   const { membership } = useActiveClub();
-  // `/screening?squad=<id>` (the homes' "All open rounds" link) opens that squad's whole list.
+  // `/screening?squad=<id>` (the homes' "All open rounds" link) shows that squad first, its whole list open.
   const { squad: expandSquad } = useLocalSearchParams<{ squad?: string }>();
   const { isWide } = useBreakpoints();
   const { squads, rounds: roundsQuery, bySquad: liveBySquad, error } = useClubRoundsQuery();
@@ -65,7 +65,7 @@ export function ScreeningHome() {
       {listPending ? <Text>Loading rounds…</Text> : null}
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         <View style={[styles.main, isWide && styles.mainWide]}>
-          {(listPending ? [] : bySquad).map(({ squad, rounds }) => (
+          {(listPending ? [] : chosenFirst(bySquad, expandSquad)).map(({ squad, rounds }) => (
             <SquadRounds key={squad.id} squad={squad} rounds={rounds} expanded={squad.id === expandSquad} />
           ))}
         </View>
@@ -73,6 +73,12 @@ export function ScreeningHome() {
       </View>
     </View>
   );
+}
+
+/** The squad asked for first, the others in their order. */
+function chosenFirst(list: SquadWithRounds[], squadId: string | undefined): SquadWithRounds[] {
+  const chosen = list.find((x) => x.squad.id === squadId);
+  return chosen ? [chosen, ...list.filter((x) => x !== chosen)] : list;
 }
 
 /**
