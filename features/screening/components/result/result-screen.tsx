@@ -35,11 +35,7 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
     return (
       <View style={styles.wrap}>
         <View style={styles.head}>
-          <Link href={`/screening/rounds/${detail.roundId}`} style={styles.back} testID="back-to-round">
-            <Text variant="label" style={styles.backText}>
-              ← {detail.roundName}
-            </Text>
-          </Link>
+          <BackToRound detail={detail} />
           <Text variant="title" accessibilityRole="header">
             {name}
           </Text>
@@ -113,14 +109,21 @@ function RoundNavigation({ detail }: { detail: AssessmentDetail }) {
   );
 }
 
+/** Back to the assessment's round, above the athlete's name. */
+function BackToRound({ detail }: { detail: AssessmentDetail }) {
+  return (
+    <Link href={`/screening/rounds/${detail.roundId}`} style={styles.back} testID="back-to-round">
+      <Text variant="label" style={styles.backText}>
+        ← {detail.roundName}
+      </Text>
+    </Link>
+  );
+}
+
 function Header({ detail, result, name, canEdit }: { detail: AssessmentDetail; result: ResultView; name: string; canEdit: boolean }) {
   return (
     <View style={styles.head}>
-      <Link href={`/screening/rounds/${detail.roundId}`} style={styles.back} testID="back-to-round">
-        <Text variant="label" style={styles.backText}>
-          ← {detail.roundName}
-        </Text>
-      </Link>
+      <BackToRound detail={detail} />
       <Text variant="small">Result · {formatDate(detail.screenedOn)}</Text>
       <Text variant="title" accessibilityRole="header">
         {name}
