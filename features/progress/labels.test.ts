@@ -10,4 +10,8 @@ describe('time since the last screen in words (our choice)', () => {
     expect(daysAgo(2)).toBe('2 days ago');
     expect(daysAgo(81)).toBe('81 days ago');
   });
+  it('says so when the screen is dated ahead of today', () => {
+    expect(daysAgo(-1)).toBe('in 1 day');
+    expect(daysAgo(-87)).toBe('in 87 days');
+  });
 });

@@ -46,9 +46,13 @@ export const BAND_SHORT: Record<MaturityBand | 'unknown', string> = {
   unknown: '–',
 };
 
-/** How long ago the last screen was, in words: "today", "yesterday", "81 days ago". */
+/**
+ * How long ago the last screen was, in words: "today", "yesterday", "81 days ago"; a round dated ahead
+ * (entered wrong, or planned) says so: "in 3 days".
+ */
 export function daysAgo(days: number): string {
-  if (days <= 0) return 'today';
+  if (days < 0) return days === -1 ? 'in 1 day' : `in ${-days} days`;
+  if (days === 0) return 'today';
   if (days === 1) return 'yesterday';
   return `${days} days ago`;
 }
