@@ -5,6 +5,7 @@ import { doseText, perWeekText, setsText } from '@/features/screening/labels';
 import { formatDateInWords } from '@/features/ui/format-date';
 import type { ClearanceView, FamilySummary } from './types';
 import { splitByBlock, type StrengthBlock } from './strength-block';
+import { capitalise } from '@/features/ui/capitalise';
 
 /** What a parent reads for each pattern (our wording). */
 export const PATTERN_FAMILY_WORDS: Record<PatternId, string> = {
@@ -25,8 +26,6 @@ export const FAMILY_CAUTIONS = (name: string) => [
   `If ${name} has pain, swelling, or a change in how they move, stop the exercises and see a physiotherapist or doctor.`,
   'Follow the advice of your own health professionals over this plan, and the rules of your sport and country.',
 ];
-
-const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 export function buildFamilySummary(input: {
   firstName: string;

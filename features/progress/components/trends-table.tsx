@@ -7,6 +7,7 @@ import { colors, fonts, radius, space } from '@/features/ui/theme';
 import { BAND_LABELS, BAND_SHORT, daysAgo, PATTERN_SHORT } from '../labels';
 import type { SortKey, TrendAthlete } from '../trends';
 import { formatDate } from '@/features/ui/format-date';
+import { capitalise } from '@/features/ui/capitalise';
 
 /** The clearance in the physiotherapist's words ("Train with changes"), not its stored code. */
 function clearanceText(value: string | null): string | null {
@@ -14,7 +15,6 @@ function clearanceText(value: string | null): string | null {
   return (CLEARANCE_LABELS as Record<string, string>)[value] ?? value;
 }
 
-const capitalised = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 const list = (p: PatternId[]) => (p.length ? p.map((x) => PATTERN_SHORT[x]).join(', ') : '–');
 // In the table's narrow columns, one flag a line, each marked where it starts (a name may wrap; with
 // commas, a comma after a wrapped name sat alone on a line).
@@ -33,7 +33,7 @@ const COLUMNS: Col[] = [
     key: 'daysSinceLastScreen',
     label: 'Last screen',
     flex: 0.8,
-    cell: (a) => (a.daysSinceLastScreen === null ? 'Never' : capitalised(daysAgo(a.daysSinceLastScreen))),
+    cell: (a) => (a.daysSinceLastScreen === null ? 'Never' : capitalise(daysAgo(a.daysSinceLastScreen))),
   },
   { key: 'rescreenDue', label: 'Re-screen', flex: 0.9, cell: (a) => (a.rescreenDue ? 'Due' : `from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`) },
 ];
