@@ -23,6 +23,7 @@ import { metaRouter, type Mailbox } from './meta/meta.router';
 import { poseModelRouter } from './pose-model/pose-model.router';
 import { measuringRouter } from './measuring/measuring.router';
 import { progressRouter } from './progress/progress.router';
+import { trainingRouter } from './training/training.router';
 import { screeningRouter } from './screening/screening.router';
 import { loggedWrites } from './storage/orphan-sweep';
 import type { PhotoStorage } from './storage/storage';
@@ -105,6 +106,7 @@ export function createApp(deps: AppDeps) {
   api.use(screeningRouter({ db, storage: loggedWrites(db, deps.storage), uploads: deps.uploads }));
   api.use(measuringRouter({ db }));
   api.use(progressRouter(db));
+  api.use(trainingRouter(db));
   api.use((() => {
     throw notFound('This API route');
   }) as RequestHandler);

@@ -64,6 +64,9 @@ export const PERMISSIONS = {
   // Progress
   'progress.read': STAFF, // an athlete's screens over time with measurement error
   'trends.read': STAFF, // squad trends and their export
+
+  // Training
+  'training.read': STAFF, // a squad's plans in force on one training sheet
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof PERMISSIONS;

@@ -46,6 +46,13 @@ describe('labels', () => {
     expect(loadText({ kind: 'percent-1rm', minPercent: 50, maxPercent: 65, kg: { min: 20, max: 25, incrementKg: 2.5 }, note: 'Slow.' })).toBe(
       '50-65% of 1RM: 20-25 kg (in 2.5 kg steps). Slow.',
     );
+    // A note written to follow other words starts its own sentence (our choice of wording).
+    expect(loadText({ kind: 'bodyweight', note: 'a light plate held forward as a counterbalance' })).toBe(
+      'Bodyweight. A light plate held forward as a counterbalance',
+    );
+    expect(loadText({ kind: 'percent-1rm', minPercent: 50, maxPercent: 55, kg: null, note: 'close to fatigue; full range.' })).toBe(
+      '50-55% of 1RM. Close to fatigue; full range.',
+    );
     expect(restText(60)).toBe('60 s rest');
     expect(restText(120)).toBe('2 min rest');
   });

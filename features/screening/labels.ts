@@ -1,6 +1,7 @@
 // Plain words for statuses, severities, sides, thresholds and prescriptions. Pure.
+import { capitalise } from '@/features/ui/capitalise';
 import type { AssessmentStatus } from './contract';
-import type { Certainty, Dose, FlagSide, LoadRule, MaturityStage, Prescription, Severity, SourceKind, ThresholdRef, Unit } from './engine';
+import type { Certainty, Dose, FlagSide, LoadRule, MaturityStage, Phase, Prescription, Severity, SourceKind, ThresholdRef, Unit } from './engine';
 
 export const STATUS_LABELS: Record<AssessmentStatus, string> = {
   not_started: 'Not started',
@@ -9,6 +10,14 @@ export const STATUS_LABELS: Record<AssessmentStatus, string> = {
 };
 
 export const SEVERITY_LABELS: Record<Severity, string> = { watch: 'Watch', concern: 'Concern' };
+
+export const PHASE_WORDS: Record<Phase, string> = {
+  mobility: 'Mobility',
+  activation: 'Activation',
+  control: 'Control',
+  landing: 'Landing',
+  strength: 'Strength',
+};
 
 export function sideLabel(side: FlagSide): string | null {
   if (side === 'left') return 'Left side';
@@ -66,14 +75,16 @@ export function doseText(dose: Dose): string {
 }
 
 export function loadText(load: LoadRule): string {
+  // Notes are written to follow other words ("a light plate held forward…"); each starts a sentence here.
   switch (load.kind) {
     case 'bodyweight':
-      return load.note ? `Bodyweight. ${load.note}` : 'Bodyweight';
+      return load.note ? `Bodyweight. ${capitalise(load.note)}` : 'Bodyweight';
     case 'band':
       return `${load.resistance === 'light' ? 'Light' : 'Medium'} band, ${load.placement}`;
     case 'percent-1rm': {
       const pct = `${load.minPercent}-${load.maxPercent}% of 1RM`;
-      return load.kg ? `${pct}: ${range(load.kg.min, load.kg.max)} kg (in ${load.kg.incrementKg} kg steps). ${load.note}` : `${pct}. ${load.note}`;
+      const note = capitalise(load.note);
+      return load.kg ? `${pct}: ${range(load.kg.min, load.kg.max)} kg (in ${load.kg.incrementKg} kg steps). ${note}` : `${pct}. ${note}`;
     }
   }
 }

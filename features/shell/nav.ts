@@ -9,6 +9,7 @@ export function navFor(role: Role, options: { mailbox: boolean }): NavItem[] {
   if (can(role, 'screening.read')) items.push({ href: '/screening', label: 'Screening' });
   if (can(role, 'screening.write')) items.push({ href: '/measuring', label: 'To measure' });
   if (can(role, 'trends.read')) items.push({ href: '/trends', label: 'Squad trends' });
+  if (can(role, 'training.read')) items.push({ href: '/training', label: 'Training sheet' });
   if (can(role, 'review.read')) items.push({ href: '/reviews', label: 'Reviews' });
   if (can(role, 'members.read')) items.push({ href: '/people', label: 'People' });
   if (can(role, 'audit.read')) items.push({ href: '/audit', label: 'Audit trail' });

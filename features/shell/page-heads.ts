@@ -21,6 +21,7 @@ export const PAGE_HEADS = {
   athletes: { title: 'Athletes' },
   squads: { title: 'Squads' },
   trends: { title: 'Squad trends' },
+  training: { title: 'Training sheet' },
   reviews: { title: 'To review' },
   people: { title: 'People' },
   audit: { title: 'Audit trail' },

@@ -37,6 +37,11 @@ export function RoleHome() {
               <Text variant="label">Squad trends over the season →</Text>
             </Link>
           ) : null}
+          {can(membership.role, 'training.read') ? (
+            <Link href="/training" style={[styles.link, styles.linkGap]} testID="home-training-link">
+              <Text variant="label">Training sheets →</Text>
+            </Link>
+          ) : null}
           <Link href="/athletes" style={styles.link}>
             <Text variant="label">See all athletes →</Text>
           </Link>

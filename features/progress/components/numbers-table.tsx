@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { Text } from '@/features/ui/components/text';
 import { colors, space, TOUCH_MIN } from '@/features/ui/theme';
-import { PRINT_HIDE } from './print';
+import { PRINT_HIDE } from '@/features/ui/print';
 
 /**
  * A chart's text alternative: its numbers as a table. Always in the page for screen readers; shown on

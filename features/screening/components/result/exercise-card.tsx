@@ -1,11 +1,9 @@
 import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { PlannedExercise } from '@/features/screening/engine';
-import { doseText, loadText, perWeekText, restText, setsText } from '@/features/screening/labels';
+import { doseText, loadText, PHASE_WORDS, perWeekText, restText, setsText } from '@/features/screening/labels';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
-
-const PHASE_WORDS = { mobility: 'Mobility', activation: 'Activation', control: 'Control', landing: 'Landing', strength: 'Strength' } as const;
 
 /** One exercise with its full prescription: sets, reps or time, tempo, load, rest, days a week. */
 export function ExerciseCard({

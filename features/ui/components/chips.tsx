@@ -1,6 +1,6 @@
 import { Pressable, StyleSheet, View } from 'react-native';
-import { Text } from '@/features/ui/components/text';
-import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { Text } from './text';
+import { colors, radius, space, TOUCH_MIN } from '../theme';
 
 export type Chip<T extends string> = { value: T; label: string };
 

@@ -4,8 +4,8 @@ export const PRINT_HIDE = { dataSet: { print: 'hide' } } as object;
 export const PRINT_ROOT = { dataSet: { printRoot: 'true' } } as object;
 
 /**
- * The printable one-page squad report: only the region marked PRINT_ROOT is printed, controls marked
- * PRINT_HIDE are left out, scrolling containers are unrolled, on one A4 landscape page.
+ * Printable reports (the squad trends' one page, the training sheet): only the region marked PRINT_ROOT
+ * is printed, controls marked PRINT_HIDE are left out, scrolling containers are unrolled, on A4 landscape.
  */
 const CSS = `
 @media print {

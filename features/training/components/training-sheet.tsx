@@ -1,0 +1,212 @@
+import { Link, useRouter } from 'expo-router';
+import { useEffect, useMemo, useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { useSquadsQuery } from '@/features/athletes/api/get-squads';
+import { PHASE_WORDS } from '@/features/screening/labels';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Button } from '@/features/ui/components/button';
+import { Card } from '@/features/ui/components/card';
+import { Chips } from '@/features/ui/components/chips';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { formatDate } from '@/features/ui/format-date';
+import { canPrint, printPage, PRINT_HIDE, PRINT_ROOT, usePrintStyles } from '@/features/ui/print';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { useTrainingSheetQuery } from '../api/get-training-sheet';
+import { doseGroups, sharedDetail } from '../lines';
+import type { SheetAthlete, SheetExercise, TrainingSheet } from '../sheet';
+
+/**
+ * A squad's corrective plans on one sheet for a group session: one card per exercise with the athletes
+ * doing it and their dose and load, the holds first, then whoever is not on the sheet and why. Printable.
+ */
+export function TrainingSheetScreen({ initialSquadId }: { initialSquadId?: string }) {
+  usePrintStyles();
+  const router = useRouter();
+  const squads = useSquadsQuery();
+  const [squadId, setSquadId] = useState<string | null>(initialSquadId ?? null);
+  useEffect(() => {
+    if (!squadId && squads.data?.squads[0]) setSquadId(squads.data.squads[0].id);
+  }, [squadId, squads.data]);
+  const sheet = useTrainingSheetQuery(squadId);
+
+  if (squads.error) return <Notice tone="error">{squads.error.message}</Notice>;
+  if (squads.isPending) return <Text>Loading squads…</Text>;
+  if (squads.data.squads.length === 0) return <Notice>No squad yet: add one under Athletes.</Notice>;
+
+  return (
+    <View style={styles.wrap} {...PRINT_ROOT} testID="training-sheet">
+      <Text variant="title" accessibilityRole="header">
+        Training sheet{sheet.data ? `: ${sheet.data.squad.name}` : ''}
+      </Text>
+      <View {...PRINT_HIDE}>
+        <Chips
+          label="Squad"
+          options={squads.data.squads.map((s) => ({ value: s.id, label: s.name }))}
+          value={squadId ?? ''}
+          onChange={(v) => {
+            setSquadId(v);
+            // In the address too, so a sheet kept open on the gym's tablet comes back to the same squad.
+            router.setParams({ squad: v });
+          }}
+          testID="sheet-squad"
+        />
+      </View>
+      {sheet.error ? <Notice tone="error">{sheet.error.message}</Notice> : null}
+      {sheet.isPending ? <Text>Loading the plans…</Text> : null}
+      {sheet.data ? <SheetBody key={sheet.data.squad.id} data={sheet.data} /> : null}
+    </View>
+  );
+}
+
+function SheetBody({ data }: { data: TrainingSheet }) {
+  const { isWide, isTabletUp } = useBreakpoints();
+  const resultOf = useMemo(() => new Map(data.athletes.map((a) => [a.id, a])), [data.athletes]);
+  const withPlan = data.athletes.filter((a) => a.state === 'plan').length;
+  const held = data.athletes.filter((a) => a.hold);
+  const off = data.athletes.filter((a) => a.state !== 'plan');
+  // At the top beside the count on a wide screen; at the end on a phone, where the plans come first.
+  const printButton = canPrint ? (
+    <View {...PRINT_HIDE} style={styles.actions}>
+      <Button tone="secondary" label="Print the sheet" onPress={printPage} testID="sheet-print" />
+    </View>
+  ) : null;
+
+  return (
+    <View style={styles.body}>
+      <View style={[styles.top, isTabletUp && styles.topWide]}>
+        <Text variant="small" testID="sheet-count">
+          {`${withPlan} of ${data.athletes.length} ${data.athletes.length === 1 ? 'athlete has' : 'athletes have'} a plan · as of ${formatDate(data.today)}`}
+        </Text>
+        {isTabletUp ? printButton : null}
+      </View>
+      <Notice tone="caution" title="Before the session">
+        Plans as they stand after each athlete’s newest screen. Warm up first; stop anything that hurts and tell a coach. Not a diagnosis.
+      </Notice>
+      {held.length ? (
+        <Notice tone="caution" title={`Loaded work on hold: ${held.length}`} testID="sheet-holds">
+          {held.map((a) => (
+            <Text key={a.id}>
+              <Text style={styles.strong}>{a.name}</Text>: {a.hold}
+            </Text>
+          ))}
+        </Notice>
+      ) : null}
+      {data.exercises.length === 0 ? <Notice>Nobody in this squad has an exercise to do yet.</Notice> : null}
+      <View style={[styles.grid, isTabletUp && styles.gridTwo]}>
+        {data.exercises.map((e) => (
+          <View key={e.id} style={[styles.cell, isTabletUp && styles.cellTwo, isWide && styles.cellThree]}>
+            <ExerciseCard exercise={e} resultOf={resultOf} />
+          </View>
+        ))}
+      </View>
+      {off.length ? <NotOnSheet athletes={off} /> : null}
+      {isTabletUp ? null : printButton}
+    </View>
+  );
+}
+
+function resultHref(a: SheetAthlete | undefined): string | null {
+  return a?.assessmentId ? `/screening/assessments/${a.assessmentId}/result` : null;
+}
+
+function ExerciseCard({ exercise, resultOf }: { exercise: SheetExercise; resultOf: Map<string, SheetAthlete> }) {
+  const shared = sharedDetail(exercise.entries.filter((e) => !e.held));
+  const n = exercise.entries.length;
+  return (
+    <Card style={styles.card} testID={`sheet-exercise-${exercise.id}`}>
+      <Text variant="small">{`${PHASE_WORDS[exercise.phase]} · ${n} ${n === 1 ? 'athlete' : 'athletes'}`}</Text>
+      <Text variant="heading">{exercise.name}</Text>
+      <Text variant="small">{`Cue: ${exercise.cue}`}</Text>
+      {shared ? <Text variant="small">{shared}</Text> : null}
+      {doseGroups(exercise.entries).map((g, i) => (
+        <View key={i} style={styles.group} testID={`sheet-group-${exercise.id}`}>
+          {g.held ? (
+            <Text style={styles.held}>On hold: not today</Text>
+          ) : (
+            <>
+              <Text variant="label">{g.dose}</Text>
+              <Text variant="small">{g.load}</Text>
+              {shared ? null : <Text variant="small">{g.detail}</Text>}
+              {g.adjustments.map((a) => (
+                <Text key={a} variant="small" style={styles.adjustment}>
+                  {a}
+                </Text>
+              ))}
+            </>
+          )}
+          <View accessibilityRole="list" style={styles.names}>
+            {g.entries.map((x) => (
+              <View key={x.athleteId} accessibilityRole={'listitem' as never} testID={`sheet-entry-${exercise.id}-${x.athleteId}`}>
+                <AthleteName name={x.name} href={resultHref(resultOf.get(x.athleteId))} />
+              </View>
+            ))}
+          </View>
+        </View>
+      ))}
+    </Card>
+  );
+}
+
+/** An athlete's name: a link to their newest result (the full plan, with how to do each exercise). */
+function AthleteName({ name, href }: { name: string; href: string | null }) {
+  return href ? (
+    <Link href={href} style={styles.name}>
+      {name}
+    </Link>
+  ) : (
+    <Text style={styles.strong}>{name}</Text>
+  );
+}
+
+const OFF_WORDS: Record<Exclude<SheetAthlete['state'], 'plan'>, string> = {
+  'no-screen': 'Not screened yet',
+  'no-exercises': 'No corrective exercise from their newest screen',
+};
+
+function NotOnSheet({ athletes }: { athletes: SheetAthlete[] }) {
+  return (
+    <Card style={styles.card} testID="sheet-off">
+      <Text variant="heading">Not on the sheet</Text>
+      {athletes.map((a) => {
+        const href = resultHref(a);
+        const words = a.state === 'plan' ? '' : OFF_WORDS[a.state];
+        return (
+          <View key={a.id} style={styles.entry}>
+            <AthleteName name={a.name} href={href} />
+            <Text variant="small">{a.rescreenDue ? `${words}. A screen is due.` : `${words}.`}</Text>
+          </View>
+        );
+      })}
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: space.lg },
+  body: { gap: space.lg },
+  actions: { flexDirection: 'row' },
+  top: { gap: space.sm },
+  topWide: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between' },
+  grid: { gap: space.md },
+  gridTwo: { flexDirection: 'row', flexWrap: 'wrap' },
+  cell: { width: '100%' },
+  cellTwo: { width: '48%', flexGrow: 1 },
+  cellThree: { width: '32%' },
+  card: { gap: space.xs },
+  entry: { borderTopWidth: 1, borderTopColor: colors.line, paddingBottom: space.sm, gap: 2 },
+  group: { borderTopWidth: 1, borderTopColor: colors.line, marginTop: space.sm, paddingTop: space.sm, gap: 2 },
+  names: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg },
+  // 24 px of line and 12 above and below: a 48 px target for a thumb.
+  name: { fontFamily: fonts.bold, fontSize: 17, lineHeight: 24, paddingVertical: (TOUCH_MIN - 24) / 2, color: colors.pine, textDecorationLine: 'underline' },
+  strong: { fontFamily: fonts.bold },
+  held: {
+    fontFamily: fonts.bold,
+    color: colors.amber,
+    backgroundColor: colors.amberSoft,
+    alignSelf: 'flex-start',
+    paddingHorizontal: space.sm,
+    borderRadius: radius.sm,
+  },
+  adjustment: { color: colors.amber },
+});

@@ -1,0 +1,59 @@
+import { preparedRows } from '@/db/client';
+import type { SheetMember } from '@/features/training/sheet';
+import type { ClubScope } from '@/server/access/scope';
+import type { Executor } from '@/server/screening/screening.repo';
+
+type Head = { squad: { id: string; name: string } | null; members: SheetMember[] };
+export type SheetHead = { squad: { id: string; name: string }; members: SheetMember[] };
+
+/**
+ * A squad's current members, each with the plan in force on their newest submitted screen (wherever it
+ * was: `athlete_latest_screens`), that result's newest adjustment and the clearance in force: one
+ * statement, filtered by the scope's club. Only the plan's status, exercises, growth-spurt mark and
+ * re-screen date are read from the stored result, not its measurements and flags.
+ */
+export function trainingRepo(db: Executor, scope: ClubScope) {
+  return {
+    async sheetMembers(squadId: string): Promise<SheetHead | null> {
+      const [head] = await preparedRows<Head>(
+        db,
+        'training_sheet_members',
+        `select
+          (select json_build_object('id', s.id, 'name', s.name) from squads s where s.id = $1 and s.club_id = $2) as squad,
+          (select coalesce(json_agg(json_build_object(
+              'id', m.id, 'firstName', m.first_name, 'lastName', m.last_name,
+              'assessmentId', ar.assessment_id, 'screenedOn', case when ar.id is null then null else l.screened_on end,
+              'resultCreatedAt', ar.created_at,
+              'plan', case when ar.id is null then null else jsonb_build_object(
+                'status', ar.result #> '{plan,status}', 'exercises', ar.result #> '{plan,exercises}',
+                'growthSpurtAdjusted', ar.result #> '{plan,growthSpurtAdjusted}', 'rescreenDate', ar.result #> '{plan,rescreenDate}') end,
+              'adjusted', case when pa.exercises is null then null else json_build_object('exercises', pa.exercises, 'at', pa.created_at, 'byName', u.display_name) end,
+              'clearance', case when c.status is null then null else json_build_object('status', c.status, 'setAt', c.created_at) end
+            ) order by m.last_name, m.first_name, m.id), '[]')
+            from athletes m
+            left join athlete_latest_screens l on l.athlete_id = m.id
+            left join assessment_results ar on ar.assessment_id = l.assessment_id and ar.is_current and ar.club_id = $2
+            left join lateral (
+              select exercises, created_at, created_by from plan_adjustments
+              where result_id = ar.id order by created_at desc, id desc limit 1
+            ) pa on true
+            left join users u on u.id = pa.created_by
+            left join lateral (
+              select status, created_at from clearances where athlete_id = m.id and club_id = $2 order by created_at desc limit 1
+            ) c on true
+            where m.squad_id = $1 and m.club_id = $2 and m.archived_at is null) as members`,
+        [squadId, scope.clubId],
+      );
+      if (!head?.squad) return null;
+      // Times as JavaScript writes them, so that the hold rule compares like with like.
+      const iso = (t: string) => new Date(t).toISOString();
+      const members = head.members.map((m) => ({
+        ...m,
+        resultCreatedAt: m.resultCreatedAt && iso(m.resultCreatedAt),
+        adjusted: m.adjusted && { ...m.adjusted, at: iso(m.adjusted.at) },
+        clearance: m.clearance && { ...m.clearance, setAt: iso(m.clearance.setAt) },
+      }));
+      return { squad: head.squad, members };
+    },
+  };
+}

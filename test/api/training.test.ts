@@ -1,0 +1,150 @@
+import { eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { athletes } from '@/db/schema';
+import { isLoadedStrength } from '@/features/care/strength-block';
+import type { PlannedExercise } from '@/features/screening/engine';
+import type { TrainingSheet } from '@/features/training/sheet';
+import { makeAthlete, makeClub, makeSquad, makeTestApp, makeUser, signedInAgent } from '../fixtures/builders';
+import { makeSubmittedScreen, painDraft } from '../fixtures/care';
+import { createTestDb, type TestDb } from '../fixtures/test-db';
+
+// A squad's training sheet (GET /api/squads/:id/training-sheet): each current member's plan in force on
+// their newest screen, grouped by exercise. What each athlete's line must say is read back from the
+// stored results and adjustments through the result API, so the test checks the sheet against the
+// same records the result screen shows, not against numbers written here.
+
+let testDb: TestDb;
+let app: ReturnType<typeof makeTestApp>['app'];
+const ids: Record<string, string> = {};
+type Agent = Awaited<ReturnType<typeof signedInAgent>>;
+const as: Record<'coach' | 'tester' | 'physio' | 'parent', Agent> = {} as never;
+
+beforeAll(async () => {
+  testDb = await createTestDb();
+  ({ app } = makeTestApp(testDb.db));
+  const db = testDb.db;
+  const club = await makeClub(db, 'Millrace');
+  ids.club = club.id;
+  ids.squad = (await makeSquad(db, club.id, 'Under-14')).id;
+  ids.other = (await makeSquad(db, club.id, 'Under-16')).id;
+  await makeUser(db, { email: 'coach@millrace.test', clubId: club.id, role: 'head_coach', displayName: 'Cole Coach' });
+  ids.tester = (await makeUser(db, { email: 'tester@millrace.test', clubId: club.id, role: 'tester', displayName: 'Tess Tester' })).id;
+  await makeUser(db, { email: 'physio@millrace.test', clubId: club.id, role: 'physio', displayName: 'Phil Physio' });
+  const parent = await makeUser(db, { email: 'parent@millrace.test', clubId: club.id, role: 'parent', displayName: 'Ana Parent' });
+  const athlete = async (key: string, firstName: string, lastName: string, squadId = ids.squad!) =>
+    (ids[key] = (await makeAthlete(db, { clubId: club.id, squadId, firstName, lastName, guardianUserId: parent.id })).id);
+  await athlete('ana', 'Ana', 'Ames');
+  await athlete('ben', 'Ben', 'Berg');
+  await athlete('cat', 'Cat', 'Cole');
+  await athlete('dee', 'Dee', 'Dunn');
+  await athlete('eli', 'Eli', 'Eade');
+  await athlete('fin', 'Fin', 'Ford', ids.other);
+  await db.update(athletes).set({ archivedAt: new Date() }).where(eq(athletes.id, ids.eli!));
+  as.coach = await signedInAgent(app, 'coach@millrace.test');
+  as.tester = await signedInAgent(app, 'tester@millrace.test');
+  as.physio = await signedInAgent(app, 'physio@millrace.test');
+  as.parent = await signedInAgent(app, 'parent@millrace.test');
+
+  const screen = (athleteId: string, screenedOn: string, draft?: ReturnType<typeof painDraft>) =>
+    makeSubmittedScreen(db, { clubId: ids.club!, squadId: ids.squad!, athleteId, userId: ids.tester!, screenedOn, draft });
+  // Ana: an older screen, then a newer one whose plan the tester cut to its first exercise, re-dosed.
+  await screen(ids.ana!, '2026-09-01');
+  ids.anaScreen = (await screen(ids.ana!, '2026-11-10')).assessmentId;
+  // Ben: pain reported at his screen, no clearance yet.
+  ids.benScreen = (await screen(ids.ben!, '2026-11-10', painDraft())).assessmentId;
+  // Dee: a screen, then referred on by the physiotherapist.
+  ids.deeScreen = (await screen(ids.dee!, '2026-11-10')).assessmentId;
+  // Fin is in the other squad: not on this sheet.
+  await makeSubmittedScreen(db, { clubId: ids.club!, squadId: ids.other!, athleteId: ids.fin!, userId: ids.tester!, screenedOn: '2026-11-10' });
+});
+
+afterAll(async () => {
+  await testDb.drop();
+});
+
+async function sheet(agent: Agent, squadId = ids.squad!) {
+  const res = await agent.get(`/api/squads/${squadId}/training-sheet`);
+  expect(res.status, JSON.stringify(res.body)).toBe(200);
+  return res.body as TrainingSheet;
+}
+
+async function planOf(assessmentId: string): Promise<{ version: number; adjustedAt: string | null; exercises: PlannedExercise[] }> {
+  const res = await as.coach.get(`/api/assessments/${assessmentId}`);
+  const r = res.body.result;
+  return { version: r.version, adjustedAt: r.adjustment?.createdAt ?? null, exercises: r.adjustment?.exercises ?? r.result.plan.exercises };
+}
+
+/** Each exercise's entry for one athlete, from the sheet: exercise id → [sets, held]. */
+function linesOf(s: TrainingSheet, athleteId: string) {
+  const out: Record<string, { sets: unknown; held: boolean }> = {};
+  for (const e of s.exercises) {
+    for (const x of e.entries) if (x.athleteId === athleteId) out[e.id] = { sets: x.prescription.sets, held: x.held };
+  }
+  return out;
+}
+
+describe('GET /api/squads/:id/training-sheet', () => {
+  it("lists the squad's current members only, in name order, with who has no screen yet", async () => {
+    const s = await sheet(as.coach);
+    expect(s.squad).toEqual({ id: ids.squad, name: 'Under-14' });
+    expect(s.athletes.map((a) => [a.name, a.state])).toEqual([
+      ['Ana Ames', 'plan'],
+      ['Ben Berg', 'plan'],
+      ['Cat Cole', 'no-screen'],
+      ['Dee Dunn', 'plan'],
+    ]);
+    expect(s.athletes.find((a) => a.id === ids.ana)).toMatchObject({ assessmentId: ids.anaScreen, screenedOn: '2026-11-10', source: 'engine' });
+  });
+
+  it("follows a tester's adjustment of the newest screen's plan, with its doses", async () => {
+    const before = await planOf(ids.anaScreen!);
+    const first = before.exercises[0]!;
+    const redosed = { ...first, prescription: { ...first.prescription, sets: { min: first.prescription.sets.min, max: first.prescription.sets.min } } };
+    const put = await as.tester
+      .put(`/api/assessments/${ids.anaScreen}/plan`)
+      .send({ exercises: [redosed], note: 'One exercise while exams are on.', overrides: [], basedOn: { resultVersion: before.version, adjustedAt: null } });
+    expect(put.status, JSON.stringify(put.body)).toBe(200);
+
+    const after = await planOf(ids.anaScreen!);
+    const s = await sheet(as.tester);
+    expect(linesOf(s, ids.ana!)).toEqual(Object.fromEntries(after.exercises.map((e) => [e.id, { sets: e.prescription.sets, held: false }])));
+    expect(Object.keys(linesOf(s, ids.ana!))).toEqual([first.id]);
+    expect(s.athletes.find((a) => a.id === ids.ana)).toMatchObject({ source: 'adjusted', adjustedByName: 'Tess Tester', exerciseCount: 1 });
+  });
+
+  it('says why loaded work waits: pain not cleared (the engine already left it out) and referred on (held, still listed)', async () => {
+    const set = await as.physio.put(`/api/athletes/${ids.dee}/clearance`).send({ status: 'referred', detail: 'Sports medicine clinic' });
+    expect(set.status, JSON.stringify(set.body)).toBe(200);
+    const s = await sheet(as.physio);
+
+    const ben = s.athletes.find((a) => a.id === ids.ben)!;
+    expect(ben.hold).toMatch(/on hold until a physiotherapist has seen the athlete/);
+    const benPlan = await planOf(ids.benScreen!);
+    expect(Object.keys(linesOf(s, ids.ben!)).sort()).toEqual(benPlan.exercises.map((e) => e.id).sort());
+
+    const dee = s.athletes.find((a) => a.id === ids.dee)!;
+    expect(dee.hold).toMatch(/referred on/);
+    const deePlan = await planOf(ids.deeScreen!);
+    const loaded = deePlan.exercises.filter(isLoadedStrength).map((e) => e.id);
+    expect(loaded.length).toBeGreaterThan(0);
+    const lines = linesOf(s, ids.dee!);
+    expect(Object.keys(lines).sort()).toEqual(deePlan.exercises.map((e) => e.id).sort());
+    for (const e of deePlan.exercises) expect(lines[e.id]!.held, e.id).toBe(loaded.includes(e.id));
+  });
+
+  it('groups every line once under its exercise, in session order', async () => {
+    const s = await sheet(as.coach);
+    const phases = ['mobility', 'activation', 'control', 'landing', 'strength'];
+    const order = s.exercises.map((e) => phases.indexOf(e.phase));
+    expect(order).toEqual([...order].sort((a, b) => a - b));
+    const perAthlete = new Map<string, number>();
+    for (const e of s.exercises) for (const x of e.entries) perAthlete.set(x.athleteId, (perAthlete.get(x.athleteId) ?? 0) + 1);
+    for (const a of s.athletes) expect(perAthlete.get(a.id) ?? 0, a.name).toBe(a.exerciseCount);
+  });
+
+  it('is for the club staff: parents are refused, an unknown squad is a 404', async () => {
+    expect((await as.parent.get(`/api/squads/${ids.squad}/training-sheet`)).status).toBe(403);
+    expect((await as.coach.get('/api/squads/8b2f8a9e-3f4f-4c55-9d0e-0c1b2a3d4e5f/training-sheet')).status).toBe(404);
+    expect((await as.coach.get('/api/squads/not-a-squad/training-sheet')).status).toBe(404);
+  });
+});
