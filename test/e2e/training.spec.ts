@@ -7,7 +7,7 @@ import { openNav, signIn } from './helpers';
 
 type Sheet = {
   squad: { id: string; name: string };
-  athletes: { id: string; name: string; state: string; hold: string | null }[];
+  athletes: { id: string; name: string; state: string; hold: string | null; rescreenDue: boolean }[];
   exercises: { id: string; name: string; entries: { athleteId: string; name: string; held: boolean }[] }[];
 };
 
@@ -49,6 +49,9 @@ test('training sheet: a squad by exercise, holds first, names open results, prin
   const holds = sheet.athletes.filter((a) => a.hold);
   if (holds.length) await expect(page.getByTestId('sheet-holds')).toContainText(holds[0]!.name);
   else await expect(page.getByTestId('sheet-holds')).toHaveCount(0);
+  const due = sheet.athletes.filter((a) => a.state === 'plan' && a.rescreenDue);
+  if (due.length) await expect(page.getByTestId('sheet-due')).toContainText(due.map((a) => a.name).join(', '));
+  else await expect(page.getByTestId('sheet-due')).toHaveCount(0);
 
   await page.screenshot({ path: `test-results/training-sheet-${info.project.name}.png`, fullPage: true });
   await page.emulateMedia({ media: 'print' });

@@ -65,6 +65,8 @@ function SheetBody({ data }: { data: TrainingSheet }) {
   const withPlan = data.athletes.filter((a) => a.state === 'plan').length;
   const held = data.athletes.filter((a) => a.hold);
   const off = data.athletes.filter((a) => a.state !== 'plan');
+  // Those on a plan whose re-screen date has come: the next round shows whether the plan worked.
+  const due = data.athletes.filter((a) => a.state === 'plan' && a.rescreenDue);
   // At the top beside the count on a wide screen; at the end on a phone, where the plans come first.
   const printButton = canPrint ? (
     <View {...PRINT_HIDE} style={styles.actions}>
@@ -80,6 +82,11 @@ function SheetBody({ data }: { data: TrainingSheet }) {
         </Text>
         {isTabletUp ? printButton : null}
       </View>
+      {due.length ? (
+        <Text variant="small" testID="sheet-due">
+          {`Due a re-screen: ${due.map((a) => a.name).join(', ')}.`}
+        </Text>
+      ) : null}
       <Notice tone="caution" title="Before the session">
         Plans as they stand after each athlete’s newest screen. Warm up first; stop anything that hurts and tell a coach. Not a diagnosis.
       </Notice>
@@ -116,7 +123,9 @@ function ExerciseCard({ exercise, resultOf }: { exercise: SheetExercise; resultO
   return (
     <Card style={styles.card} testID={`sheet-exercise-${exercise.id}`}>
       <Text variant="small">{`${PHASE_WORDS[exercise.phase]} · ${n} ${n === 1 ? 'athlete' : 'athletes'}`}</Text>
-      <Text variant="heading">{exercise.name}</Text>
+      <Text variant="heading" accessibilityRole="header" aria-level={2}>
+        {exercise.name}
+      </Text>
       <Text variant="small">{`Cue: ${exercise.cue}`}</Text>
       {shared ? <Text variant="small">{shared}</Text> : null}
       {doseGroups(exercise.entries).map((g, i) => (
@@ -167,7 +176,9 @@ const OFF_WORDS: Record<Exclude<SheetAthlete['state'], 'plan'>, string> = {
 function NotOnSheet({ athletes }: { athletes: SheetAthlete[] }) {
   return (
     <Card style={styles.card} testID="sheet-off">
-      <Text variant="heading">Not on the sheet</Text>
+      <Text variant="heading" accessibilityRole="header" aria-level={2}>
+        Not on the sheet
+      </Text>
       {athletes.map((a) => {
         const href = resultHref(a);
         const words = a.state === 'plan' ? '' : OFF_WORDS[a.state];

@@ -71,7 +71,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
 
   return (
     <View style={styles.wrap} testID="plan">
-      <Text variant="heading" accessibilityRole="header">
+      <Text variant="heading" accessibilityRole="header" aria-level={2}>
         Corrective plan
       </Text>
       {plan.status === 'clearance-needed' ? (

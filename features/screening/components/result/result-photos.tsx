@@ -27,7 +27,7 @@ export function ResultPhotos({ detail }: { detail: AssessmentDetail }) {
   if (photos.length === 0) return null;
   return (
     <View style={styles.wrap} testID="result-photos">
-      <Text variant="heading" accessibilityRole="header">
+      <Text variant="heading" accessibilityRole="header" aria-level={2}>
         Photos
       </Text>
       <View style={[styles.grid, isTabletUp && styles.gridWide]}>

@@ -148,7 +148,7 @@ function Flags({ flags }: { flags: Flag[] }) {
   const concerns = groups.filter((g) => g.severity === 'concern').length;
   return (
     <View style={styles.flags} testID="flags">
-      <Text variant="heading" accessibilityRole="header">
+      <Text variant="heading" accessibilityRole="header" aria-level={2}>
         Flags
       </Text>
       <Text variant="small">
