@@ -49,6 +49,28 @@ describe('buildFamilySummary', () => {
     expect(all).not.toMatch(/°|valgus|fppa|diagnos(?!is\.)/i);
   });
 
+  it('says each pattern once, with every side it was seen on', () => {
+    // The same pattern on the left in one task and on the right in another (flags as the engine writes
+    // them; only pattern and side matter here).
+    const flag = result.flags.find((f) => f.side === 'right')!;
+    const sided = (side: 'left' | 'right', taskId: string) => ({ ...flag, id: `${flag.pattern}/${taskId}/${side}`, taskId, side });
+    const seenWith = (flags: (typeof result.flags)[number][]) =>
+      buildFamilySummary({
+        firstName: 'Kit',
+        clubName: 'Riverside',
+        screenedOn: '2026-09-14',
+        result: { ...result, flags },
+        exercises: result.plan.exercises,
+        taskIds: Object.keys(input.tasks),
+        block: { blocked: false },
+        contactName: null,
+      }).seen;
+    const words = `${PATTERN_FAMILY_WORDS[flag.pattern].charAt(0).toUpperCase()}${PATTERN_FAMILY_WORDS[flag.pattern].slice(1)}`;
+    expect(seenWith([sided('right', 'two-leg-squat'), sided('left', 'drop-landing')])).toEqual([`${words} (both sides).`]);
+    expect(seenWith([sided('left', 'two-leg-squat'), sided('left', 'drop-landing')])).toEqual([`${words} (left side).`]);
+    expect(seenWith([])).toEqual(['Nothing that needs extra work was seen on the day.']);
+  });
+
   it('lists what was checked in the order the screen runs it, whatever order the tasks are stored in', () => {
     const stored = ['single-leg-stance-right', 'two-leg-squat', 'knee-to-wall-left', 'single-leg-squat-left', 'drop-landing', 'not-a-task'];
     const checked = buildFamilySummary({

@@ -61,13 +61,18 @@ export function buildFamilySummary(input: {
     ),
   ];
 
-  const seenKeys = new Set<string>();
-  const seen: string[] = [];
+  // One line per pattern, in the order the flags come, with every side it was seen on: a knee that moved
+  // inward on the left in one task and on the right in another reads "(both sides)", once (our choice).
+  const sidesOf = new Map<PatternId, Set<Exclude<FlagSide, null>>>();
   for (const flag of result.flags) {
-    const words = capitalise(PATTERN_FAMILY_WORDS[flag.pattern]) + (flag.side && flag.pattern !== 'growth-spurt-window' ? SIDE_WORDS[flag.side] : '');
-    if (seenKeys.has(words)) continue;
-    seenKeys.add(words);
-    seen.push(`${words}.`);
+    const sides = sidesOf.get(flag.pattern) ?? new Set();
+    if (flag.side && flag.pattern !== 'growth-spurt-window') sides.add(flag.side);
+    sidesOf.set(flag.pattern, sides);
+  }
+  const seen: string[] = [];
+  for (const [pattern, sides] of sidesOf) {
+    const side = sides.has('both') || (sides.has('left') && sides.has('right')) ? 'both' : sides.has('left') ? 'left' : sides.has('right') ? 'right' : null;
+    seen.push(`${capitalise(PATTERN_FAMILY_WORDS[pattern])}${side ? SIDE_WORDS[side] : ''}.`);
   }
   if (seen.length === 0) seen.push('Nothing that needs extra work was seen on the day.');
 
