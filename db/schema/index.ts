@@ -8,3 +8,4 @@ export * from './care';
 export * from './security';
 export * from './storage';
 export * from './progress';
+export * from './training';

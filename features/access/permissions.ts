@@ -66,7 +66,8 @@ export const PERMISSIONS = {
   'trends.read': STAFF, // squad trends and their export
 
   // Training
-  'training.read': STAFF, // a squad's plans in force on one training sheet
+  'training.read': STAFF, // a squad's plans in force on one training sheet, and the sessions recorded
+  'training.record': STAFF, // record who took part in a squad's corrective session
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof PERMISSIONS;

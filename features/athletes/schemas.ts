@@ -30,7 +30,7 @@ export function isCalendarDate(value: string): boolean {
   return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === value;
 }
 
-const isoDate = (what: string) =>
+export const isoDate = (what: string) =>
   string()
     .trim()
     .required(`Enter the ${what}.`)

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { evaluateAssessment, type AssessmentInput } from '@/features/screening/engine';
+import { evaluateAssessment, type AssessmentInput, type TaskId } from '@/features/screening/engine';
 import { buildFamilySummary, clearanceWords, PATTERN_FAMILY_WORDS } from './family-summary';
 import { strengthBlock } from './strength-block';
 
@@ -53,7 +53,7 @@ describe('buildFamilySummary', () => {
     // The same pattern on the left in one task and on the right in another (flags as the engine writes
     // them; only pattern and side matter here).
     const flag = result.flags.find((f) => f.side === 'right')!;
-    const sided = (side: 'left' | 'right', taskId: string) => ({ ...flag, id: `${flag.pattern}/${taskId}/${side}`, taskId, side });
+    const sided = (side: 'left' | 'right', taskId: TaskId) => ({ ...flag, id: `${flag.pattern}/${taskId}/${side}`, taskId, side });
     const seenWith = (flags: (typeof result.flags)[number][]) =>
       buildFamilySummary({
         firstName: 'Kit',

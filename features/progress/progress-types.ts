@@ -19,6 +19,11 @@ export type ProgressResponse = {
   screens: ProgressScreen[];
   /** The last two screens compared; null with fewer than two. */
   comparison: ScreenComparison | null;
+  /**
+   * Corrective sessions recorded on the training sheet with the athlete taking part, between the two
+   * compared screens; null without a comparison.
+   */
+  sessionsBetween: number | null;
   /** The published error of each metric that has one (what the charts draw as a band). */
   errorMargins: Partial<Record<Measurement['metric'], ErrorMargin>>;
 };

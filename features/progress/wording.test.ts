@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import type { FlagRef } from './compare';
-import { flagGroups } from './wording';
+import type { FlagRef, ScreenComparison } from './compare';
+import { flagGroups, sessionsSentence } from './wording';
 
 const flag = (pattern: FlagRef['pattern'], title: string, taskId: FlagRef['taskId'], side: FlagRef['side']): FlagRef => ({
   id: `${pattern}/${taskId ?? 'athlete'}/${side ?? 'none'}`,
@@ -30,5 +30,19 @@ describe('flags in words, one entry per pattern (our choice)', () => {
     ]);
     expect(flagGroups([flag('heels-lifting', 'Heels lifting', 'two-leg-squat', null)])).toEqual(['Heels lifting: two-leg full squat']);
     expect(flagGroups([])).toEqual([]);
+  });
+});
+
+describe('sessions between two screens in words (our wording)', () => {
+  const comparison = (noPlanNeeded: boolean) =>
+    ({ planTime: { days: 70, neededWeeks: 6, longEnough: true, noPlanNeeded, waitedForClearance: false } }) as unknown as ScreenComparison;
+  it('counts the sessions recorded on the training sheet, and says when none were', () => {
+    expect(sessionsSentence(7, comparison(false))).toBe('7 corrective sessions with this athlete recorded on the training sheet between the screens.');
+    expect(sessionsSentence(1, comparison(false))).toBe('1 corrective session with this athlete recorded on the training sheet between the screens.');
+    expect(sessionsSentence(0, comparison(false))).toBe('No corrective session with this athlete was recorded on the training sheet between the screens.');
+  });
+  it('says nothing without a comparison or when no plan was needed', () => {
+    expect(sessionsSentence(null, comparison(false))).toBe('');
+    expect(sessionsSentence(3, comparison(true))).toBe('');
   });
 });

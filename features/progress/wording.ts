@@ -63,6 +63,16 @@ export function planTimeSentence(c: ScreenComparison): string {
     : `The plan had only ${weeks} weeks (${t.days} days) of the ${t.neededWeeks} weeks it asks for: too soon to expect a change, so an unchanged result says little.${clearance}`;
 }
 
+/**
+ * How many corrective sessions the athlete took part in between the two screens, as recorded on the
+ * training sheet (our wording); empty when there is nothing to compare or no plan was needed.
+ */
+export function sessionsSentence(sessions: number | null, c: ScreenComparison): string {
+  if (sessions === null || c.planTime.noPlanNeeded) return '';
+  if (sessions === 0) return 'No corrective session with this athlete was recorded on the training sheet between the screens.';
+  return `${sessions} corrective ${sessions === 1 ? 'session' : 'sessions'} with this athlete recorded on the training sheet between the screens.`;
+}
+
 function changeSentence(m: MeasurementChange): string {
   const span = `${formatValue(m.earlier, m.unit)} → ${formatValue(m.later, m.unit)}`;
   if (m.verdict === 'real-change') {

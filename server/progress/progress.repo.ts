@@ -111,6 +111,21 @@ export function progressRepo(db: Executor, scope: ClubScope) {
     },
 
     /**
+     * Corrective sessions the athlete took part in after `after` and before `before` (the days of two
+     * screens; a session on a screen's own day counts for neither), recorded from the training sheet.
+     */
+    async sessionsAttended(athleteId: string, after: string, before: string): Promise<number> {
+      const [row] = await preparedRows<{ n: number }>(
+        db,
+        'progress_sessions_attended',
+        `select count(*)::int as n from training_attendance a join training_sessions s on s.id = a.session_id
+          where a.athlete_id = $1 and a.club_id = $2 and s.held_on > $3::date and s.held_on < $4::date`,
+        [athleteId, clubId, after, before],
+      );
+      return row?.n ?? 0;
+    },
+
+    /**
      * A squad's season in one statement: the squad, its rounds with their summaries, and each current
      * member with their newest screen (wherever it was: an athlete may have changed squad) and the
      * clearance in force, as one small JSON value. The summaries (`round_summaries`,

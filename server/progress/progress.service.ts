@@ -51,7 +51,8 @@ export function progressService(db: Executor, scope: ClubScope) {
       }));
       const n = forComparison.length;
       const comparison = n >= 2 ? compareScreens(forComparison[n - 2]!, forComparison[n - 1]!) : null;
-      return { athlete: { id: first.athleteId, sex: first.sex }, screens, comparison, errorMargins: ERROR_MARGINS };
+      const sessionsBetween = n >= 2 ? await repo.sessionsAttended(athleteId, forComparison[n - 2]!.screenedOn, forComparison[n - 1]!.screenedOn) : null;
+      return { athlete: { id: first.athleteId, sex: first.sex }, screens, comparison, sessionsBetween, errorMargins: ERROR_MARGINS };
     },
 
     /** The squad's rounds with flag counts and knee angles, and one row per current athlete. */

@@ -1,4 +1,7 @@
-import { preparedRows } from '@/db/client';
+import { and, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { preparedRows, type Db } from '@/db/client';
+import { athletes, trainingAttendance, trainingSessions, users } from '@/db/schema';
+import type { RecordSessionInput, SessionView } from '@/features/training/schemas';
 import type { SheetMember } from '@/features/training/sheet';
 import type { ClubScope } from '@/server/access/scope';
 import type { Executor } from '@/server/screening/screening.repo';
@@ -54,6 +57,70 @@ export function trainingRepo(db: Executor, scope: ClubScope) {
         clearance: m.clearance && { ...m.clearance, setAt: iso(m.clearance.setAt) },
       }));
       return { squad: head.squad, members };
+    },
+  };
+}
+
+/** Recorded sessions of a squad, and recording one (a day recorded again replaces who took part). */
+export function sessionsRepo(db: Db, scope: ClubScope) {
+  const clubId = scope.clubId;
+  return {
+    /** The squad's current (not archived) members among `athleteIds`. */
+    async currentMembers(squadId: string, athleteIds: readonly string[]): Promise<Set<string>> {
+      if (athleteIds.length === 0) return new Set();
+      const rows = await db
+        .select({ id: athletes.id })
+        .from(athletes)
+        .where(and(eq(athletes.clubId, clubId), eq(athletes.squadId, squadId), isNull(athletes.archivedAt), inArray(athletes.id, [...athleteIds])));
+      return new Set(rows.map((r) => r.id));
+    },
+
+    /** Writes the day's session and its attendance in one transaction; true when the day was new. */
+    async record(squadId: string, input: RecordSessionInput): Promise<{ id: string; created: boolean }> {
+      return db.transaction(async (tx) => {
+        const [existing] = await tx
+          .select({ id: trainingSessions.id })
+          .from(trainingSessions)
+          .where(and(eq(trainingSessions.clubId, clubId), eq(trainingSessions.squadId, squadId), eq(trainingSessions.heldOn, input.heldOn)))
+          .for('update');
+        let id = existing?.id;
+        if (id) {
+          await tx.update(trainingSessions).set({ note: input.note, recordedBy: scope.userId }).where(eq(trainingSessions.id, id));
+          await tx.delete(trainingAttendance).where(eq(trainingAttendance.sessionId, id));
+        } else {
+          // Two first records of one day at once: the unique index lets one in, the other updates it.
+          const [row] = await tx
+            .insert(trainingSessions)
+            .values({ clubId, squadId, heldOn: input.heldOn, note: input.note, recordedBy: scope.userId })
+            .onConflictDoUpdate({ target: [trainingSessions.squadId, trainingSessions.heldOn], set: { note: input.note, recordedBy: scope.userId } })
+            .returning({ id: trainingSessions.id });
+          id = row!.id;
+          await tx.delete(trainingAttendance).where(eq(trainingAttendance.sessionId, id));
+        }
+        await tx.insert(trainingAttendance).values([...new Set(input.athleteIds)].map((athleteId) => ({ sessionId: id!, athleteId, clubId })));
+        return { id: id!, created: !existing };
+      });
+    },
+
+    /** The squad's latest sessions, newest first, with who took part; or the one session `onlyId`. */
+    async latest(squadId: string, options: { limit?: number; onlyId?: string } = {}): Promise<SessionView[]> {
+      return db
+        .select({
+          id: trainingSessions.id,
+          heldOn: trainingSessions.heldOn,
+          note: trainingSessions.note,
+          recordedByName: users.displayName,
+          athleteIds: sql<
+            string[]
+          >`coalesce((select array_agg(a.athlete_id order by a.athlete_id) from ${trainingAttendance} a where a.session_id = ${trainingSessions.id}), '{}')`,
+        })
+        .from(trainingSessions)
+        .leftJoin(users, eq(users.id, trainingSessions.recordedBy))
+        .where(
+          and(eq(trainingSessions.clubId, clubId), eq(trainingSessions.squadId, squadId), options.onlyId ? eq(trainingSessions.id, options.onlyId) : undefined),
+        )
+        .orderBy(desc(trainingSessions.heldOn))
+        .limit(options.limit ?? 10);
     },
   };
 }

@@ -108,6 +108,7 @@ function validBody(route: WriteRoute): unknown | undefined {
     'PUT /api/athletes/:id/clearance': { status: 'modified', detail: 'No deep loaded squats for two weeks.' },
     'POST /api/athletes/:id/guardians': { email: 'second.parent@fuzz.test' },
     'POST /api/rounds': { squadId: world.squadId, name: 'Mid-season', screenedOn: '2026-09-14' },
+    'POST /api/squads/:id/training-sessions': { heldOn: new Date().toISOString().slice(0, 10), athleteIds: [world.athleteId], note: 'Band work.' },
     'PUT /api/assessments/:id': {
       draftVersion: 0,
       draft: {

@@ -13,6 +13,11 @@ import { createTestDb, type TestDb } from '../fixtures/test-db';
 // stored results and adjustments through the result API, so the test checks the sheet against the
 // same records the result screen shows, not against numbers written here.
 
+/** A day counted from today (YYYY-MM-DD): recording refuses days over a season old, so nothing here is a fixed date. */
+const day = (offset: number) => new Date(Date.now() + offset * 24 * 3600 * 1000).toISOString().slice(0, 10);
+const EARLIER = day(-90);
+const LATER = day(-20);
+
 let testDb: TestDb;
 let app: ReturnType<typeof makeTestApp>['app'];
 const ids: Record<string, string> = {};
@@ -48,14 +53,14 @@ beforeAll(async () => {
   const screen = (athleteId: string, screenedOn: string, draft?: ReturnType<typeof painDraft>) =>
     makeSubmittedScreen(db, { clubId: ids.club!, squadId: ids.squad!, athleteId, userId: ids.tester!, screenedOn, draft });
   // Ana: an older screen, then a newer one whose plan the tester cut to its first exercise, re-dosed.
-  await screen(ids.ana!, '2026-09-01');
-  ids.anaScreen = (await screen(ids.ana!, '2026-11-10')).assessmentId;
+  await screen(ids.ana!, EARLIER);
+  ids.anaScreen = (await screen(ids.ana!, LATER)).assessmentId;
   // Ben: pain reported at his screen, no clearance yet.
-  ids.benScreen = (await screen(ids.ben!, '2026-11-10', painDraft())).assessmentId;
+  ids.benScreen = (await screen(ids.ben!, LATER, painDraft())).assessmentId;
   // Dee: a screen, then referred on by the physiotherapist.
-  ids.deeScreen = (await screen(ids.dee!, '2026-11-10')).assessmentId;
+  ids.deeScreen = (await screen(ids.dee!, LATER)).assessmentId;
   // Fin is in the other squad: not on this sheet.
-  await makeSubmittedScreen(db, { clubId: ids.club!, squadId: ids.other!, athleteId: ids.fin!, userId: ids.tester!, screenedOn: '2026-11-10' });
+  await makeSubmittedScreen(db, { clubId: ids.club!, squadId: ids.other!, athleteId: ids.fin!, userId: ids.tester!, screenedOn: LATER });
 });
 
 afterAll(async () => {
@@ -93,7 +98,7 @@ describe('GET /api/squads/:id/training-sheet', () => {
       ['Cat Cole', 'no-screen'],
       ['Dee Dunn', 'plan'],
     ]);
-    expect(s.athletes.find((a) => a.id === ids.ana)).toMatchObject({ assessmentId: ids.anaScreen, screenedOn: '2026-11-10', source: 'engine' });
+    expect(s.athletes.find((a) => a.id === ids.ana)).toMatchObject({ assessmentId: ids.anaScreen, screenedOn: LATER, source: 'engine' });
   });
 
   it("follows a tester's adjustment of the newest screen's plan, with its doses", async () => {
@@ -146,5 +151,71 @@ describe('GET /api/squads/:id/training-sheet', () => {
     expect((await as.parent.get(`/api/squads/${ids.squad}/training-sheet`)).status).toBe(403);
     expect((await as.coach.get('/api/squads/8b2f8a9e-3f4f-4c55-9d0e-0c1b2a3d4e5f/training-sheet')).status).toBe(404);
     expect((await as.coach.get('/api/squads/not-a-squad/training-sheet')).status).toBe(404);
+  });
+
+  it("keeps the squad's recorded sessions from parents", async () => {
+    expect((await as.parent.get(`/api/squads/${ids.squad}/training-sessions`)).status).toBe(403);
+  });
+});
+
+describe('recording who took part in a session', () => {
+  const record = (agent: Agent, body: object, squadId = ids.squad!) => agent.post(`/api/squads/${squadId}/training-sessions`).send(body);
+  const listed = async () =>
+    (await as.coach.get(`/api/squads/${ids.squad}/training-sessions`)).body.sessions as {
+      heldOn: string;
+      athleteIds: string[];
+      note: string;
+      recordedByName: string;
+    }[];
+
+  it('records a day, and recording the same day again replaces who took part', async () => {
+    const first = await record(as.tester, { heldOn: day(0), athleteIds: [ids.ana, ids.ben], note: 'Bands and balance.' });
+    expect(first.status, JSON.stringify(first.body)).toBe(201);
+    expect(first.body.session).toMatchObject({
+      heldOn: day(0),
+      note: 'Bands and balance.',
+      recordedByName: 'Tess Tester',
+      athleteIds: [ids.ana, ids.ben].sort(),
+    });
+
+    const again = await record(as.coach, { heldOn: day(0), athleteIds: [ids.ana], note: 'Ben left early.' });
+    expect(again.status).toBe(200);
+    expect(again.body.session.id).toBe(first.body.session.id);
+    const sessions = await listed();
+    expect(sessions).toHaveLength(1);
+    expect(sessions[0]).toMatchObject({ heldOn: day(0), athleteIds: [ids.ana], note: 'Ben left early.', recordedByName: 'Cole Coach' });
+  });
+
+  it('refuses athletes of another squad, archived ones, a future day and an empty list, and keeps what was recorded', async () => {
+    const before = await listed();
+    for (const [body, field] of [
+      [{ heldOn: day(-1), athleteIds: [ids.ana, ids.fin] }, 'athleteIds'],
+      [{ heldOn: day(-1), athleteIds: [ids.eli] }, 'athleteIds'],
+      [{ heldOn: day(3), athleteIds: [ids.ana] }, 'heldOn'],
+      [{ heldOn: day(-400), athleteIds: [ids.ana] }, 'heldOn'],
+      [{ heldOn: '2026-02-30', athleteIds: [ids.ana] }, 'heldOn'],
+      [{ heldOn: day(-1), athleteIds: [] }, 'athleteIds'],
+    ] as const) {
+      const res = await record(as.coach, body);
+      expect(res.status, JSON.stringify(body)).toBe(400);
+      expect(Object.keys(res.body.error.fields ?? {}), JSON.stringify(res.body)).toContain(field);
+    }
+    expect(await listed()).toEqual(before);
+    expect((await record(as.parent, { heldOn: day(0), athleteIds: [ids.ana] })).status).toBe(403);
+  });
+
+  it("counts the sessions an athlete took part in between their last two screens in the athlete's progress", async () => {
+    // Ana's screens: 90 and 20 days ago. Two sessions between; those on the screens' own days count for neither.
+    for (const heldOn of [EARLIER, day(-60), day(-50), LATER]) {
+      const res = await record(as.coach, { heldOn, athleteIds: [ids.ana, ids.ben] });
+      expect([200, 201], JSON.stringify(res.body)).toContain(res.status);
+    }
+    // Ben was in the same sessions but has one screen: nothing to compare.
+    const ana = await as.coach.get(`/api/athletes/${ids.ana}/progress`);
+    expect(ana.status).toBe(200);
+    expect(ana.body.sessionsBetween).toBe(2);
+    const ben = await as.coach.get(`/api/athletes/${ids.ben}/progress`);
+    expect(ben.body.comparison).toBeNull();
+    expect(ben.body.sessionsBetween).toBeNull();
   });
 });

@@ -11,7 +11,7 @@ import { colors, space } from '@/features/ui/theme';
 import { useAthleteProgressQuery } from '../api/get-athlete-progress';
 import { historySeries } from '../history';
 import type { ProgressResponse } from '../progress-types';
-import { coachSummary, planTimeSentence } from '../wording';
+import { coachSummary, planTimeSentence, sessionsSentence } from '../wording';
 import { HistoryChart } from './history-chart';
 import { formatDate } from '@/features/ui/format-date';
 
@@ -77,6 +77,7 @@ function Comparison({ progress }: { progress: ProgressResponse }) {
         {earlier?.roundName} ({formatDate(c.earlierScreenedOn)}) compared with {later?.roundName} ({formatDate(c.laterScreenedOn)})
       </Text>
       <Text testID="plan-time">{planTimeSentence(c)}</Text>
+      {sessionsSentence(progress.sessionsBetween, c) ? <Text testID="sessions-between">{sessionsSentence(progress.sessionsBetween, c)}</Text> : null}
       {summary.lines.map((l) => (
         <Text key={l}>{l}</Text>
       ))}
