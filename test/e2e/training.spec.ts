@@ -2,8 +2,9 @@ import { expect, test } from './fixtures';
 import { openNav, signIn } from './helpers';
 
 // The training sheet as the demo tester: reached from the navigation, the demo squad's plans grouped by
-// exercise (what the page shows is checked against the API's sheet for the same squad), an athlete's
-// name opens their result, and the printed page keeps the sheet without its controls.
+// exercise (what the page shows is checked against the API's sheet for the same squad), who took part
+// in a session recorded from it, an athlete's name opens their result, and the printed page keeps the
+// sheet without its controls.
 
 type Sheet = {
   squad: { id: string; name: string };
@@ -59,6 +60,32 @@ test('training sheet: a squad by exercise, holds first, names open results, prin
   await page.screenshot({ path: `test-results/training-sheet-print-${info.project.name}.png`, fullPage: true });
   await page.emulateMedia({ media: 'screen' });
   await expect(page.getByTestId('sheet-print')).toBeVisible();
+
+  // Record who took part: everyone with a plan is ticked to start with; untick one and save. The two
+  // projects run at once on the same squad, so each records its own day (today, yesterday).
+  await page.getByTestId('sheet-record-open').click();
+  const form = page.getByTestId('sheet-record-form');
+  await expect(form).toBeVisible();
+  const dayIndex = info.project.name === 'phone' ? 1 : 0;
+  await form.getByTestId('sheet-record-day').getByRole('radio').nth(dayIndex).click();
+  const withPlanIds = sheet.athletes.filter((a) => a.state === 'plan').map((a) => a.id);
+  const left = withPlanIds[0]!;
+  // A day recorded by an earlier run starts from that record: tick everyone with a plan, then untick one.
+  await form.getByRole('button', { name: 'Untick all' }).click();
+  for (const id of withPlanIds) await form.getByTestId(`sheet-tick-${id}`).click();
+  await form.getByTestId(`sheet-tick-${left}`).click();
+  await expect(form.getByTestId(`sheet-tick-${left}`)).toHaveAttribute('aria-checked', 'false');
+  await form.getByTestId('sheet-record-note').fill('Bands and balance, low box landings.');
+  await form.getByTestId('sheet-record-save').click();
+  await expect(page.getByTestId('sheet-recorded')).toContainText(`${withPlanIds.length - 1} athletes on`);
+  const sessions: { heldOn: string; athleteIds: string[]; note: string }[] = await page.evaluate(
+    async (id) => ((await (await fetch(`/api/squads/${id}/training-sessions`)).json()) as { sessions: never[] }).sessions,
+    sheet.squad.id,
+  );
+  const recorded = sessions.find((x) => x.note === 'Bands and balance, low box landings.' && x.athleteIds.length === withPlanIds.length - 1);
+  expect(recorded, JSON.stringify(sessions)).toBeTruthy();
+  expect(recorded!.athleteIds).not.toContain(left);
+  await page.screenshot({ path: `test-results/training-recorded-${info.project.name}.png` });
 
   // A name opens that athlete's result, where the full plan and how to do each exercise are.
   const first = sheet.exercises[0]!.entries[0]!;

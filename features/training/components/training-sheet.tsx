@@ -1,7 +1,9 @@
 import { Link, useRouter } from 'expo-router';
 import { useEffect, useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { can } from '@/features/access/permissions';
 import { useSquadsQuery } from '@/features/athletes/api/get-squads';
+import { useActiveClub } from '@/features/session/active-club';
 import { PHASE_WORDS } from '@/features/screening/labels';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
@@ -13,6 +15,7 @@ import { formatDate } from '@/features/ui/format-date';
 import { canPrint, printPage, PRINT_HIDE, PRINT_ROOT, usePrintStyles } from '@/features/ui/print';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { useTrainingSheetQuery } from '../api/get-training-sheet';
+import { SessionsCard } from './record-session';
 import { doseGroups, sharedDetail } from '../lines';
 import type { SheetAthlete, SheetExercise, TrainingSheet } from '../sheet';
 
@@ -60,6 +63,7 @@ export function TrainingSheetScreen({ initialSquadId }: { initialSquadId?: strin
 }
 
 function SheetBody({ data }: { data: TrainingSheet }) {
+  const { membership } = useActiveClub();
   const { isWide, isTabletUp } = useBreakpoints();
   const resultOf = useMemo(() => new Map(data.athletes.map((a) => [a.id, a])), [data.athletes]);
   const withPlan = data.athletes.filter((a) => a.state === 'plan').length;
@@ -99,6 +103,9 @@ function SheetBody({ data }: { data: TrainingSheet }) {
           ))}
         </Notice>
       ) : null}
+      <View {...PRINT_HIDE}>
+        <SessionsCard sheet={data} canRecord={can(membership.role, 'training.record')} />
+      </View>
       {data.exercises.length === 0 ? <Notice>Nobody in this squad has an exercise to do yet.</Notice> : null}
       <View style={[styles.grid, isTabletUp && styles.gridTwo]}>
         {data.exercises.map((e) => (

@@ -1,0 +1,227 @@
+import { useFormik } from 'formik';
+import { useState } from 'react';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { showServerError } from '@/features/api/client';
+import { todayIsoLocal } from '@/features/screening/labels';
+import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Button } from '@/features/ui/components/button';
+import { Card } from '@/features/ui/components/card';
+import { Chips } from '@/features/ui/components/chips';
+import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
+import { TextField } from '@/features/ui/components/text-field';
+import { formatDate } from '@/features/ui/format-date';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { useRecordSessionMutation, useSessionsQuery } from '../api/sessions';
+import { recordSessionSchema, type SessionView } from '../schemas';
+import type { TrainingSheet } from '../sheet';
+
+const DAY_MS = 24 * 3600 * 1000;
+/** Today, yesterday and the day before, on the phone's calendar: a session is recorded that day or soon after (our choice). */
+const recentDays = (now = Date.now()) => [0, 1, 2].map((back) => todayIsoLocal(new Date(now - back * DAY_MS)));
+
+/** The squad's recorded sessions, and a way to record who took part (ticked from the squad's list). */
+export function SessionsCard({ sheet, canRecord }: { sheet: TrainingSheet; canRecord: boolean }) {
+  const sessions = useSessionsQuery(sheet.squad.id);
+  const [open, setOpen] = useState(false);
+  const [saved, setSaved] = useState<string | null>(null);
+  const [all, setAll] = useState(false);
+  const list = sessions.data?.sessions ?? [];
+  const nameOf = new Map(sheet.athletes.map((a) => [a.id, a.name]));
+
+  return (
+    <Card style={styles.card} testID="sheet-sessions">
+      <Text variant="heading" accessibilityRole="header" aria-level={2}>
+        Sessions
+      </Text>
+      {sessions.error ? <Notice tone="error">{sessions.error.message}</Notice> : null}
+      {saved ? (
+        <Notice title="Recorded" testID="sheet-recorded">
+          {saved}
+        </Notice>
+      ) : null}
+      {canRecord && open && sessions.data ? (
+        <RecordForm
+          sheet={sheet}
+          sessions={list}
+          onDone={(words) => {
+            setSaved(words);
+            setOpen(false);
+          }}
+          onCancel={() => setOpen(false)}
+        />
+      ) : canRecord ? (
+        <View style={styles.row}>
+          <Button
+            label="Record who took part"
+            tone="secondary"
+            onPress={() => {
+              setSaved(null);
+              setOpen(true);
+            }}
+            disabled={!sessions.data}
+            testID="sheet-record-open"
+          />
+        </View>
+      ) : null}
+      {sessions.data && list.length === 0 ? <Text variant="small">No session recorded yet.</Text> : null}
+      {list.slice(0, all ? 10 : 1).map((s) => (
+        <View key={s.id} style={styles.session} testID="sheet-session">
+          <Text variant="label">{`${formatDate(s.heldOn)} · ${s.athleteIds.length} ${s.athleteIds.length === 1 ? 'athlete' : 'athletes'}`}</Text>
+          <Text variant="small">
+            {s.athleteIds.map((id) => nameOf.get(id) ?? 'an athlete now in another squad').join(', ')}
+            {s.note ? ` · “${s.note}”` : ''}
+            {s.recordedByName ? ` · recorded by ${s.recordedByName}` : ''}
+          </Text>
+        </View>
+      ))}
+      {list.length > 1 && !all ? (
+        <View style={styles.row}>
+          <Button label={`Show earlier sessions (${Math.min(list.length, 10) - 1})`} tone="quiet" onPress={() => setAll(true)} testID="sheet-sessions-all" />
+        </View>
+      ) : null}
+    </Card>
+  );
+}
+
+function RecordForm({
+  sheet,
+  sessions,
+  onDone,
+  onCancel,
+}: {
+  sheet: TrainingSheet;
+  sessions: SessionView[];
+  onDone: (words: string) => void;
+  onCancel: () => void;
+}) {
+  const { isTabletUp } = useBreakpoints();
+  const record = useRecordSessionMutation(sheet.squad.id);
+  const days = recentDays();
+  // A day already recorded starts from what was recorded; a new day from everyone with a plan.
+  const startFor = (day: string) => {
+    const earlier = sessions.find((s) => s.heldOn === day);
+    return earlier
+      ? { athleteIds: earlier.athleteIds.filter((id) => sheet.athletes.some((a) => a.id === id)), note: earlier.note }
+      : { athleteIds: sheet.athletes.filter((a) => a.state === 'plan').map((a) => a.id), note: '' };
+  };
+  const form = useFormik({
+    initialValues: { heldOn: days[0]!, ...startFor(days[0]!) },
+    validationSchema: recordSessionSchema,
+    onSubmit: async (values, helpers) => {
+      try {
+        const input = await recordSessionSchema.validate(values);
+        await record.mutateAsync(input);
+        const n = input.athleteIds.length;
+        onDone(`${n} ${n === 1 ? 'athlete' : 'athletes'} on ${formatDate(input.heldOn)}.`);
+      } catch (error) {
+        showServerError(error, helpers);
+      }
+    },
+  });
+  const ticked = new Set(form.values.athleteIds);
+  const toggle = (id: string) =>
+    form.setFieldValue(
+      'athleteIds',
+      sheet.athletes.filter((a) => (a.id === id ? !ticked.has(id) : ticked.has(a.id))).map((a) => a.id),
+    );
+  const recorded = sessions.some((s) => s.heldOn === form.values.heldOn);
+
+  return (
+    <View style={styles.form} testID="sheet-record-form">
+      <Chips
+        label="Day of the session"
+        options={days.map((d, i) => ({ value: d, label: i === 0 ? 'Today' : i === 1 ? 'Yesterday' : formatDate(d) }))}
+        value={form.values.heldOn}
+        onChange={(d) => {
+          void form.setValues({ heldOn: d, ...startFor(d) });
+        }}
+        testID="sheet-record-day"
+      />
+      {recorded ? <Text variant="small">This day is already recorded: saving replaces who took part.</Text> : null}
+      <Text variant="label">{`Who took part: ${ticked.size} of ${sheet.athletes.length}`}</Text>
+      <View style={styles.row}>
+        <Button
+          label="Tick all"
+          tone="quiet"
+          onPress={() =>
+            form.setFieldValue(
+              'athleteIds',
+              sheet.athletes.map((a) => a.id),
+            )
+          }
+        />
+        <Button label="Untick all" tone="quiet" onPress={() => form.setFieldValue('athleteIds', [])} />
+      </View>
+      <View style={[styles.ticks, isTabletUp && styles.ticksWide]}>
+        {sheet.athletes.map((a) => {
+          const on = ticked.has(a.id);
+          return (
+            <Pressable
+              key={a.id}
+              role="checkbox"
+              aria-checked={on}
+              onPress={() => toggle(a.id)}
+              style={[styles.tick, isTabletUp && styles.tickWide, on && styles.tickOn]}
+              testID={`sheet-tick-${a.id}`}
+            >
+              <Text style={[styles.box, on && styles.boxOn]}>{on ? '✓' : ' '}</Text>
+              <Text style={styles.tickName}>{a.name}</Text>
+              {a.state !== 'plan' ? <Text variant="small">no plan</Text> : null}
+            </Pressable>
+          );
+        })}
+      </View>
+      {form.submitCount > 0 && typeof form.errors.athleteIds === 'string' ? <Text style={styles.error}>{form.errors.athleteIds}</Text> : null}
+      {form.submitCount > 0 && form.errors.heldOn ? <Text style={styles.error}>{form.errors.heldOn}</Text> : null}
+      <TextField
+        label="Note (optional)"
+        value={form.values.note}
+        onChangeText={form.handleChange('note')}
+        error={form.submitCount > 0 && form.errors.note}
+        testID="sheet-record-note"
+      />
+      {form.status ? <Notice tone="error">{String(form.status)}</Notice> : null}
+      <View style={styles.row}>
+        <Button label="Save" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="sheet-record-save" />
+        <Button label="Cancel" tone="quiet" onPress={onCancel} />
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  card: { gap: space.sm },
+  row: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
+  form: { gap: space.md },
+  ticks: { gap: space.xs },
+  ticksWide: { flexDirection: 'row', flexWrap: 'wrap' },
+  tick: {
+    minHeight: TOUCH_MIN,
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.sm,
+    paddingHorizontal: space.sm,
+    borderWidth: 1,
+    borderColor: colors.line,
+    borderRadius: radius.md,
+    backgroundColor: colors.surface,
+  },
+  tickWide: { width: '32%', flexGrow: 1 },
+  tickOn: { borderColor: colors.pine, backgroundColor: colors.pineSoft },
+  box: {
+    width: 26,
+    height: 26,
+    lineHeight: 24,
+    textAlign: 'center',
+    borderWidth: 2,
+    borderColor: colors.inkMuted,
+    borderRadius: radius.sm,
+    fontFamily: fonts.bold,
+    color: colors.surface,
+  },
+  boxOn: { backgroundColor: colors.pine, borderColor: colors.pine },
+  tickName: { flex: 1 },
+  session: { borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.sm, gap: 2 },
+  error: { color: colors.brick },
+});
