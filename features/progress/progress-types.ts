@@ -20,10 +20,10 @@ export type ProgressResponse = {
   /** The last two screens compared; null with fewer than two. */
   comparison: ScreenComparison | null;
   /**
-   * Corrective sessions recorded on the training sheet with the athlete taking part, between the two
-   * compared screens; null without a comparison.
+   * Corrective sessions recorded on the training sheet between the two compared screens: those the athlete
+   * took part in, and those their current squad held; null without a comparison.
    */
-  sessionsBetween: number | null;
+  sessionsBetween: { attended: number; held: number } | null;
   /** The published error of each metric that has one (what the charts draw as a band). */
   errorMargins: Partial<Record<Measurement['metric'], ErrorMargin>>;
 };

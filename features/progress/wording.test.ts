@@ -36,13 +36,21 @@ describe('flags in words, one entry per pattern (our choice)', () => {
 describe('sessions between two screens in words (our wording)', () => {
   const comparison = (noPlanNeeded: boolean) =>
     ({ planTime: { days: 70, neededWeeks: 6, longEnough: true, noPlanNeeded, waitedForClearance: false } }) as unknown as ScreenComparison;
-  it('counts the sessions recorded on the training sheet, and says when none were', () => {
-    expect(sessionsSentence(7, comparison(false))).toBe('7 corrective sessions with this athlete recorded on the training sheet between the screens.');
-    expect(sessionsSentence(1, comparison(false))).toBe('1 corrective session with this athlete recorded on the training sheet between the screens.');
-    expect(sessionsSentence(0, comparison(false))).toBe('No corrective session with this athlete was recorded on the training sheet between the screens.');
+  it('counts the sessions the athlete took part in against those the squad recorded', () => {
+    expect(sessionsSentence({ attended: 7, held: 9 }, comparison(false))).toBe(
+      'Took part in 7 of the 9 corrective sessions the squad recorded on the training sheet between the screens.',
+    );
+    expect(sessionsSentence({ attended: 0, held: 1 }, comparison(false))).toBe(
+      'Took part in 0 of the 1 corrective session the squad recorded on the training sheet between the screens.',
+    );
+    // Moved squads in between: more attended than the current squad held.
+    expect(sessionsSentence({ attended: 3, held: 1 }, comparison(false))).toBe(
+      'Took part in 3 corrective sessions recorded on the training sheet between the screens.',
+    );
   });
-  it('says nothing without a comparison or when no plan was needed', () => {
+  it('says nothing without a comparison, when no plan was needed, or when the squad kept no record', () => {
     expect(sessionsSentence(null, comparison(false))).toBe('');
-    expect(sessionsSentence(3, comparison(true))).toBe('');
+    expect(sessionsSentence({ attended: 3, held: 3 }, comparison(true))).toBe('');
+    expect(sessionsSentence({ attended: 0, held: 0 }, comparison(false))).toBe('');
   });
 });

@@ -5,6 +5,7 @@
 import type { FlagSide, PatternId, TaskId } from '@/features/screening/engine';
 import { getTask } from '@/features/screening/engine/battery';
 import type { FlagRef, MeasurementChange, ScreenComparison } from './compare';
+import type { ProgressResponse } from './progress-types';
 
 const UNIT: Record<MeasurementChange['unit'], string> = { deg: '°', cm: ' cm', percent: ' %', years: ' y', grades: ' grades' };
 
@@ -65,12 +66,16 @@ export function planTimeSentence(c: ScreenComparison): string {
 
 /**
  * How many corrective sessions the athlete took part in between the two screens, as recorded on the
- * training sheet (our wording); empty when there is nothing to compare or no plan was needed.
+ * training sheet (our wording). Empty when there is nothing to compare, no plan was needed, or the squad
+ * recorded no session in that time (a club that does not keep the record reads nothing about it).
  */
-export function sessionsSentence(sessions: number | null, c: ScreenComparison): string {
-  if (sessions === null || c.planTime.noPlanNeeded) return '';
-  if (sessions === 0) return 'No corrective session with this athlete was recorded on the training sheet between the screens.';
-  return `${sessions} corrective ${sessions === 1 ? 'session' : 'sessions'} with this athlete recorded on the training sheet between the screens.`;
+export function sessionsSentence(sessions: ProgressResponse['sessionsBetween'], c: ScreenComparison): string {
+  if (!sessions || c.planTime.noPlanNeeded || (sessions.held === 0 && sessions.attended === 0)) return '';
+  const { attended, held } = sessions;
+  const plural = (n: number) => (n === 1 ? 'session' : 'sessions');
+  // More attended than the current squad held: the athlete changed squad in between.
+  if (attended > held) return `Took part in ${attended} corrective ${plural(attended)} recorded on the training sheet between the screens.`;
+  return `Took part in ${attended} of the ${held} corrective ${plural(held)} the squad recorded on the training sheet between the screens.`;
 }
 
 function changeSentence(m: MeasurementChange): string {

@@ -111,18 +111,21 @@ export function progressRepo(db: Executor, scope: ClubScope) {
     },
 
     /**
-     * Corrective sessions the athlete took part in after `after` and before `before` (the days of two
-     * screens; a session on a screen's own day counts for neither), recorded from the training sheet.
+     * Between the days of two screens (a session on a screen's own day counts for neither), recorded from
+     * the training sheet: the sessions the athlete took part in, and those their current squad held.
      */
-    async sessionsAttended(athleteId: string, after: string, before: string): Promise<number> {
-      const [row] = await preparedRows<{ n: number }>(
+    async sessionsBetween(athleteId: string, after: string, before: string): Promise<{ attended: number; held: number }> {
+      const [row] = await preparedRows<{ attended: number; held: number }>(
         db,
-        'progress_sessions_attended',
-        `select count(*)::int as n from training_attendance a join training_sessions s on s.id = a.session_id
-          where a.athlete_id = $1 and a.club_id = $2 and s.held_on > $3::date and s.held_on < $4::date`,
+        'progress_sessions_between',
+        `select
+          (select count(*)::int from training_attendance a join training_sessions s on s.id = a.session_id
+            where a.athlete_id = $1 and a.club_id = $2 and s.held_on > $3::date and s.held_on < $4::date) as attended,
+          (select count(*)::int from training_sessions s join athletes p on p.squad_id = s.squad_id
+            where p.id = $1 and s.club_id = $2 and s.held_on > $3::date and s.held_on < $4::date) as held`,
         [athleteId, clubId, after, before],
       );
-      return row?.n ?? 0;
+      return row ?? { attended: 0, held: 0 };
     },
 
     /**

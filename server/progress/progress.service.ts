@@ -51,7 +51,7 @@ export function progressService(db: Executor, scope: ClubScope) {
       }));
       const n = forComparison.length;
       const comparison = n >= 2 ? compareScreens(forComparison[n - 2]!, forComparison[n - 1]!) : null;
-      const sessionsBetween = n >= 2 ? await repo.sessionsAttended(athleteId, forComparison[n - 2]!.screenedOn, forComparison[n - 1]!.screenedOn) : null;
+      const sessionsBetween = n >= 2 ? await repo.sessionsBetween(athleteId, forComparison[n - 2]!.screenedOn, forComparison[n - 1]!.screenedOn) : null;
       return { athlete: { id: first.athleteId, sex: first.sex }, screens, comparison, sessionsBetween, errorMargins: ERROR_MARGINS };
     },
 

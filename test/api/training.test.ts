@@ -205,15 +205,23 @@ describe('recording who took part in a session', () => {
   });
 
   it("counts the sessions an athlete took part in between their last two screens in the athlete's progress", async () => {
-    // Ana's screens: 90 and 20 days ago. Two sessions between; those on the screens' own days count for neither.
-    for (const heldOn of [EARLIER, day(-60), day(-50), LATER]) {
-      const res = await record(as.coach, { heldOn, athleteIds: [ids.ana, ids.ben] });
+    // Ana's screens: 90 and 20 days ago. Three sessions of her squad between them, two with her; those
+    // on the screens' own days count for neither; another squad's session does not count.
+    for (const [heldOn, who] of [
+      [EARLIER, [ids.ana, ids.ben]],
+      [day(-60), [ids.ana, ids.ben]],
+      [day(-55), [ids.ben]],
+      [day(-50), [ids.ana]],
+      [LATER, [ids.ana, ids.ben]],
+    ] as const) {
+      const res = await record(as.coach, { heldOn, athleteIds: who });
       expect([200, 201], JSON.stringify(res.body)).toContain(res.status);
     }
-    // Ben was in the same sessions but has one screen: nothing to compare.
+    expect((await record(as.coach, { heldOn: day(-40), athleteIds: [ids.fin] }, ids.other)).status).toBe(201);
     const ana = await as.coach.get(`/api/athletes/${ids.ana}/progress`);
     expect(ana.status).toBe(200);
-    expect(ana.body.sessionsBetween).toBe(2);
+    expect(ana.body.sessionsBetween).toEqual({ attended: 2, held: 3 });
+    // Ben was in the same sessions but has one screen: nothing to compare.
     const ben = await as.coach.get(`/api/athletes/${ids.ben}/progress`);
     expect(ben.body.comparison).toBeNull();
     expect(ben.body.sessionsBetween).toBeNull();
