@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessmentResults, assessments, athletes, clubs, rounds, squads } from '@/db/schema';
 import { DEMO_CLUB_NAME, DEMO_PASSWORD } from '@/server/dev/seed/demo-accounts';
 import { DEMO_OPEN_ROUND } from '@/server/dev/seed/demo-screening';
+import { DEMO_SESSION_SPAN } from '@/server/dev/seed/demo-training';
 import type { AthleteAssessmentItem, RoundDetail, RoundSummary } from '@/features/screening/contract';
 import { makeTestApp, signedInAgent } from '../fixtures/builders';
 import { createTestDb, type TestDb } from '../fixtures/test-db';
@@ -118,5 +119,27 @@ describe('demo screening data', () => {
     expect(rows.some((r) => r.result.plan.exercises.length > 0)).toBe(true);
     // Athletes without photo consent have no landmarks: nobody placed points on a photo never taken.
     expect(rows.some((r) => Object.values(r.input.tasks).every((t) => !t?.photos))).toBe(true);
+  });
+
+  it("has a summer of recorded sessions, so an athlete's comparison says how many they took part in", async () => {
+    const { app } = makeTestApp(testDb.db);
+    const coach = await signedInAgent(app, 'coach@squadline.test', DEMO_PASSWORD);
+    const squads_ = (await coach.get('/api/squads')).body.squads as { id: string; name: string }[];
+    const squadId = squads_.find((s) => s.name === 'Under-13 mixed')!.id;
+    const sessions = (await coach.get(`/api/squads/${squadId}/training-sessions`)).body.sessions as { heldOn: string; athleteIds: string[] }[];
+    expect(sessions.length).toBeGreaterThan(0);
+    for (const s of sessions) expect(s.heldOn >= DEMO_SESSION_SPAN.from && s.heldOn <= DEMO_SESSION_SPAN.to).toBe(true);
+    // An athlete screened in the mid-season and autumn rounds: the sessions between them are counted.
+    const members = (await testDb.db.select({ id: athletes.id }).from(athletes).where(eq(athletes.squadId, squadId))).map((a) => a.id);
+    const seen: { attended: number; held: number }[] = [];
+    for (const id of members) {
+      const body = (await coach.get(`/api/athletes/${id}/progress`)).body;
+      if (body.sessionsBetween) seen.push(body.sessionsBetween);
+    }
+    // Those not screened in the autumn compare the spring rounds, before any session.
+    const counted = seen.filter((x) => x.held > 0);
+    expect(counted.length).toBeGreaterThan(0);
+    for (const x of seen) expect(x.attended).toBeLessThanOrEqual(x.held);
+    expect(counted.some((x) => x.attended < x.held)).toBe(true);
   });
 });

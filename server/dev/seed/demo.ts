@@ -4,6 +4,7 @@ import { hashPassword } from '@/server/auth/password';
 import { DEMO_CLUB_NAME, DEMO_PASSWORD, DEMO_USERS, OTHER_CLUB_NAME, OTHER_CLUB_USERS } from './demo-accounts';
 import { seedDemoCare } from './demo-care';
 import { seedDemoScreening } from './demo-screening';
+import { seedDemoTraining } from './demo-training';
 import { seededRandom } from './random';
 
 // Invented names only. Deterministic, so every fresh demo looks the same.
@@ -104,6 +105,7 @@ export async function seedDemo(db: Db): Promise<DemoIds> {
     .then(async (ids) => {
       await seedDemoScreening(db, ids);
       await seedDemoCare(db, ids);
+      await seedDemoTraining(db, ids);
       return ids;
     });
 }
