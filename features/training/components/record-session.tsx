@@ -67,17 +67,25 @@ export function SessionsCard({ sheet, canRecord }: { sheet: TrainingSheet; canRe
       {sessions.data && list.length === 0 ? <Text variant="small">No session recorded yet.</Text> : null}
       {list.slice(0, all ? 10 : 1).map((s) => (
         <View key={s.id} style={styles.session} testID="sheet-session">
-          <Text variant="label">{`${formatDate(s.heldOn)} · ${s.athleteIds.length} ${s.athleteIds.length === 1 ? 'athlete' : 'athletes'}`}</Text>
-          <Text variant="small">
-            {s.athleteIds.map((id) => nameOf.get(id) ?? 'an athlete now in another squad').join(', ')}
-            {s.note ? ` · “${s.note}”` : ''}
-            {s.recordedByName ? ` · recorded by ${s.recordedByName}` : ''}
-          </Text>
+          <Text variant="label">{`${all ? '' : 'Last: '}${formatDate(s.heldOn)} · ${s.athleteIds.length} ${s.athleteIds.length === 1 ? 'athlete' : 'athletes'}`}</Text>
+          {/* Who took part only once asked for: a squad's names would push the plans down a phone. */}
+          {all ? (
+            <Text variant="small">
+              {s.athleteIds.map((id) => nameOf.get(id) ?? 'an athlete now in another squad').join(', ')}
+              {s.recordedByName ? ` · recorded by ${s.recordedByName}` : ''}
+            </Text>
+          ) : null}
+          {s.note ? <Text variant="small">{`“${s.note}”`}</Text> : null}
         </View>
       ))}
-      {list.length > 1 && !all ? (
+      {list.length > 0 && !all ? (
         <View style={styles.row}>
-          <Button label={`Show earlier sessions (${Math.min(list.length, 10) - 1})`} tone="quiet" onPress={() => setAll(true)} testID="sheet-sessions-all" />
+          <Button
+            label={list.length > 1 ? 'Who took part, and earlier sessions' : 'Who took part'}
+            tone="quiet"
+            onPress={() => setAll(true)}
+            testID="sheet-sessions-all"
+          />
         </View>
       ) : null}
     </Card>
