@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { FlagRef, ScreenComparison } from './compare';
-import { flagGroups, sessionsSentence } from './wording';
+import { familySummary, flagGroups, sessionsSentence } from './wording';
 
 const flag = (pattern: FlagRef['pattern'], title: string, taskId: FlagRef['taskId'], side: FlagRef['side']): FlagRef => ({
   id: `${pattern}/${taskId ?? 'athlete'}/${side ?? 'none'}`,
@@ -52,5 +52,24 @@ describe('sessions between two screens in words (our wording)', () => {
     expect(sessionsSentence(null, comparison(false))).toBe('');
     expect(sessionsSentence({ attended: 3, held: 3 }, comparison(true))).toBe('');
     expect(sessionsSentence({ attended: 0, held: 0 }, comparison(false))).toBe('');
+  });
+});
+
+describe('the family comparison with sessions (our wording)', () => {
+  const c = {
+    flags: { cleared: [], persisting: [], new: [] },
+    measurements: [],
+    planTime: { days: 70, neededWeeks: 6, longEnough: true, noPlanNeeded: false, waitedForClearance: false },
+  } as unknown as ScreenComparison;
+  it("says how many of the squad's sessions the child took part in, after the time the exercises had", () => {
+    const lines = familySummary(c, { attended: 12, held: 18 });
+    const weeks = lines.findIndex((l) => l.startsWith('The exercises had about 10 weeks'));
+    expect(lines[weeks + 1]).toBe('Your child took part in 12 of the 18 exercise sessions the squad held between the two checks.');
+  });
+  it('says nothing of sessions where none was recorded, or when no plan was needed', () => {
+    expect(familySummary(c, { attended: 0, held: 0 }).join(' ')).not.toMatch(/session/);
+    expect(familySummary(c).join(' ')).not.toMatch(/session/);
+    const none = { ...c, planTime: { ...c.planTime, noPlanNeeded: true } } as ScreenComparison;
+    expect(familySummary(none, { attended: 5, held: 6 }).join(' ')).not.toMatch(/session/);
   });
 });

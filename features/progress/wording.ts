@@ -130,7 +130,7 @@ function familyList(flags: FlagRef[]): string {
  * The comparison in family wording: what the coach no longer sees, still sees or newly sees, whether the
  * exercises had long enough, and that small differences mean nothing. No angles, distances or percentages.
  */
-export function familySummary(c: ScreenComparison): string[] {
+export function familySummary(c: ScreenComparison, sessions: ProgressResponse['sessionsBetween'] = null): string[] {
   const out: string[] = [];
   const f = c.flags;
   const weeks = Math.floor(c.planTime.days / 7);
@@ -144,6 +144,15 @@ export function familySummary(c: ScreenComparison): string[] {
         ? `The exercises had about ${weeks} weeks between the two checks, which is usually enough time to see a difference.`
         : `There were only about ${weeks} weeks between the two checks, which is usually too soon to see a difference.`,
     );
+    // Only where the coaches keep the record of who took part (our wording).
+    if (sessions && sessions.held > 0) {
+      const { attended, held } = sessions;
+      out.push(
+        attended > held
+          ? `Your child took part in ${attended} exercise sessions between the two checks.`
+          : `Your child took part in ${attended} of the ${held} exercise sessions the squad held between the two checks.`,
+      );
+    }
   }
   const withinError = c.measurements.filter((m) => m.verdict === 'within-error').length;
   if (withinError) out.push('Small differences between two checks are normal when measuring by eye and photo, so we do not read anything into them.');

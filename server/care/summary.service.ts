@@ -7,6 +7,7 @@ import { strengthBlock } from '@/features/care/strength-block';
 import type { FamilyComparison, FamilySummary, FamilyView, ReleasePreview } from '@/features/care/types';
 import { compareScreens } from '@/features/progress/compare';
 import { familySummary } from '@/features/progress/wording';
+import { progressRepo } from '@/server/progress/progress.repo';
 import { getTask, type AssessmentResult, type TaskId } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
 import { AppError, conflict, notFound } from '@/server/http/errors';
@@ -187,7 +188,10 @@ export function summaryService(deps: SummaryDeps, scope: ClubScope) {
         athleteId,
         detail: { what: 'family summary' },
       });
-      return { athlete, latest, comparison: familyComparison(releasedScreens), earlier: releases.slice(1), notes, photos, photosAllowed };
+      const [laterScreen, earlierScreen] = releasedScreens;
+      const sessions =
+        laterScreen && earlierScreen ? await progressRepo(db, scope).sessionsBetween(athleteId, earlierScreen.screenedOn, laterScreen.screenedOn) : null;
+      return { athlete, latest, comparison: familyComparison(releasedScreens, sessions), earlier: releases.slice(1), notes, photos, photosAllowed };
     },
   };
 }
@@ -195,9 +199,13 @@ export function summaryService(deps: SummaryDeps, scope: ClubScope) {
 /**
  * The last two screens released to the family, compared by the same engine comparison the staff see
  * (`compareScreens`) and put in family wording (`familySummary`): only released screens, so a parent never
- * learns of a screen the care team has not reviewed and sent.
+ * learns of a screen the care team has not reviewed and sent. Where the coaches record who took part in
+ * each session, it also says how many the child took part in between the two.
  */
-function familyComparison(screens: { assessmentId: string; screenedOn: string; taskIds: string[]; result: AssessmentResult }[]): FamilyComparison | null {
+function familyComparison(
+  screens: { assessmentId: string; screenedOn: string; taskIds: string[]; result: AssessmentResult }[],
+  sessions: { attended: number; held: number } | null,
+): FamilyComparison | null {
   const [later, earlier] = screens;
   if (!later || !earlier) return null;
   const asScreen = (s: (typeof screens)[number]) => ({
@@ -206,7 +214,11 @@ function familyComparison(screens: { assessmentId: string; screenedOn: string; t
     tasksDone: s.taskIds as TaskId[],
     result: s.result,
   });
-  return { earlierScreenedOn: earlier.screenedOn, laterScreenedOn: later.screenedOn, lines: familySummary(compareScreens(asScreen(earlier), asScreen(later))) };
+  return {
+    earlierScreenedOn: earlier.screenedOn,
+    laterScreenedOn: later.screenedOn,
+    lines: familySummary(compareScreens(asScreen(earlier), asScreen(later)), sessions),
+  };
 }
 
 function safeTaskTitle(id: string) {

@@ -1,6 +1,7 @@
 // The family view's comparison of a child's last two released screens: the engine comparison the staff
 // see (features/progress/compare.ts), in family wording, for the child's own parents only.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { trainingAttendance, trainingSessions } from '@/db/schema';
 import { makeAthlete, makeClub, makeSquad, makeTestApp, makeUser, recordingOutbox, signedInAgent } from '../fixtures/builders';
 import { makeSubmittedScreen } from '../fixtures/care';
 import { makeDraft, valgusSquat } from '../fixtures/screening';
@@ -125,5 +126,25 @@ describe('the family comparison of the last two released screens', () => {
     expect(other.status).toBe(200);
     expect(other.body.comparison).toBeNull();
     expect((await as.parentA.get(`/api/athletes/${ids.ida}/summary`)).status).toBe(403);
+  });
+
+  it("says how many of the squad's sessions the child took part in between the two released screens", async () => {
+    // Written straight into the tables: the API records only the last season, and these screens are fixed
+    // dates. Between 2 March and 11 May: three sessions of Max's squad, two with him; one on a screen's own
+    // day and one after it count for neither.
+    const session = async (heldOn: string, athleteIds: string[]) => {
+      const [row] = await testDb.db.insert(trainingSessions).values({ clubId: ids.club!, squadId: ids.squad!, heldOn }).returning();
+      if (athleteIds.length)
+        await testDb.db.insert(trainingAttendance).values(athleteIds.map((athleteId) => ({ sessionId: row!.id, athleteId, clubId: ids.club! })));
+    };
+    await session('2026-03-02', [ids.max!]);
+    await session('2026-03-10', [ids.max!, ids.ida!]);
+    await session('2026-03-17', [ids.ida!]);
+    await session('2026-04-14', [ids.max!]);
+    await session('2026-05-20', [ids.max!]);
+    const c = (await as.parentA.get(`/api/athletes/${ids.max}/summary`)).body.comparison;
+    expect(c.lines).toContain('Your child took part in 2 of the 3 exercise sessions the squad held between the two checks.');
+    // The staff compare the last two submitted screens (6 April and 11 May): one session between, with Max.
+    expect((await as.coach.get(`/api/athletes/${ids.max}/progress`)).body.sessionsBetween).toEqual({ attended: 1, held: 1 });
   });
 });
