@@ -37,7 +37,8 @@ export function RoleHome() {
               <Text variant="label">Squad trends over the season →</Text>
             </Link>
           ) : null}
-          {can(membership.role, 'training.read') ? (
+          {/* The people who run or follow the sessions; the admin finds it in the menu. */}
+          {can(membership.role, 'training.read') && membership.role !== 'admin' ? (
             <Link href="/training" style={[styles.link, styles.linkGap]} testID="home-training-link">
               <Text variant="label">Training sheets →</Text>
             </Link>
