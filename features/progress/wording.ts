@@ -128,7 +128,8 @@ function familyList(flags: FlagRef[]): string {
 
 /**
  * The comparison in family wording: what the coach no longer sees, still sees or newly sees, whether the
- * exercises had long enough, and that small differences mean nothing. No angles, distances or percentages.
+ * exercises had long enough (and, where the coaches record sessions, how many the child took part in), and
+ * that small differences mean nothing. No angles, distances or percentages.
  */
 export function familySummary(c: ScreenComparison, sessions: ProgressResponse['sessionsBetween'] = null): string[] {
   const out: string[] = [];
