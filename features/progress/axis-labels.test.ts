@@ -32,12 +32,12 @@ describe('date labels on a chart of many rounds', () => {
 describe('date labels tell two rounds of one month apart (our choice)', () => {
   it('gives month and year where the neighbours are in other months', () => {
     const dates = ['2026-03-09', '2026-06-08', '2026-09-14'];
-    expect([...axisDateLabels(dates, [0, 1, 2]).values()]).toEqual(['Mar 26', 'Jun 26', 'Sep 26']);
+    expect([...axisDateLabels(dates, [0, 1, 2]).values()]).toEqual(['Mar ’26', 'Jun ’26', 'Sep ’26']);
   });
 
   it('gives day and month to labelled neighbours in the same month, only to them', () => {
     const dates = ['2026-08-31', '2026-09-01', '2026-09-29', '2026-11-02'];
-    expect([...axisDateLabels(dates, [0, 1, 2, 3]).values()]).toEqual(['Aug 26', '1 Sep', '29 Sep', 'Nov 26']);
+    expect([...axisDateLabels(dates, [0, 1, 2, 3]).values()]).toEqual(['Aug ’26', '1 Sep', '29 Sep', 'Nov ’26']);
   });
 
   it('compares only the points that carry a label', () => {
@@ -45,13 +45,13 @@ describe('date labels tell two rounds of one month apart (our choice)', () => {
     // 1 and 2 are not labelled: 0 (Sep) and 3 (Oct) are neighbours on the axis.
     expect(axisDateLabels(dates, [0, 3])).toEqual(
       new Map([
-        [0, 'Sep 26'],
-        [3, 'Oct 26'],
+        [0, 'Sep ’26'],
+        [3, 'Oct ’26'],
       ]),
     );
   });
 
   it('keeps the year apart: the same month of two seasons is not a twin', () => {
-    expect([...axisDateLabels(['2025-09-15', '2026-09-14'], [0, 1]).values()]).toEqual(['Sep 25', 'Sep 26']);
+    expect([...axisDateLabels(['2025-09-15', '2026-09-14'], [0, 1]).values()]).toEqual(['Sep ’25', 'Sep ’26']);
   });
 });

@@ -5,7 +5,7 @@ export const DATE_AXIS_RIGHT = 24;
  * Which points of a chart's x axis get a date label, so that labels never run into each other when a
  * squad has many rounds (a season of monthly screens, or several seasons): at most one label per
  * `minGapPx` of the plot's width, evenly spread, always the first and the last point. Our choice: 52 px
- * holds a short date ("Mar 26") at the charts' 11 px type with room between.
+ * holds a short date ("Mar ’26") at the charts' 11 px type with room between.
  */
 export function labelledPoints(count: number, plotWidthPx: number, minGapPx = 52): number[] {
   if (count <= 0) return [];
@@ -25,14 +25,17 @@ export function labelledPoints(count: number, plotWidthPx: number, minGapPx = 52
 }
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-/** '2026-03-09' -> 'Mar 26': short enough for a phone's axis. */
-export const shortDate = (iso: string) => `${MONTHS[Number(iso.slice(5, 7)) - 1] ?? ''} ${iso.slice(2, 4)}`;
+/**
+ * '2026-03-09' -> 'Mar ’26': short enough for a phone's axis; the apostrophe keeps the year from reading
+ * as a day beside a '29 Sep' (our choice).
+ */
+export const shortDate = (iso: string) => `${MONTHS[Number(iso.slice(5, 7)) - 1] ?? ''} ’${iso.slice(2, 4)}`;
 /** '2026-03-09' -> '9 Mar': for two labelled rounds in the same month. */
 const dayMonth = (iso: string) => `${Number(iso.slice(8, 10))} ${MONTHS[Number(iso.slice(5, 7)) - 1] ?? ''}`;
 
 /**
  * The label of each labelled point (`points` from `labelledPoints`, `dates` ISO dates of every point):
- * month and year ("Mar 26"), or day and month ("9 Mar") where the labelled point before or after it
+ * month and year ("Mar ’26"), or day and month ("9 Mar") where the labelled point before or after it
  * falls in the same month, so two rounds of one month never carry the same label. Our choice: a
  * re-test a few weeks after a screen often falls in the same month; both forms fit the 52 px gap.
  */

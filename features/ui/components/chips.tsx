@@ -48,7 +48,7 @@ const styles = StyleSheet.create({
   group: { gap: space.xs },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
   chip: {
-    minHeight: TOUCH_MIN - 8,
+    minHeight: TOUCH_MIN,
     paddingHorizontal: space.md,
     justifyContent: 'center',
     borderRadius: radius.lg,
