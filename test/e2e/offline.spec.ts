@@ -274,3 +274,47 @@ test('without a connection the screening page offers the rounds kept on this dev
   await context.setOffline(false);
   await expect(page.getByTestId('sync-status-text')).toHaveText('All saved');
 });
+
+test('a training sheet opened online opens again in a gym with no connection', async ({ page, context }, testInfo) => {
+  test.setTimeout(120_000);
+  await signIn(page, 'tester@squadline.test');
+  await expect(page.getByTestId('home-tester')).toBeVisible();
+  const squads = (await (await page.request.get('/api/squads')).json()) as { squads: { id: string; name: string }[] };
+  const squad = squads.squads.find((s) => s.name === 'Under-13 mixed')!;
+  await page.goto(`/training?squad=${squad.id}`);
+  await expect(page.getByRole('heading', { level: 1 })).toContainText('Under-13 mixed');
+  const cards = page.locator('[data-testid^="sheet-exercise-"]');
+  await expect(cards.first()).toBeVisible();
+  const count = await cards.count();
+  // Online: the worker is ready and the sheet is kept on the device.
+  await page.evaluate(async () => {
+    await navigator.serviceWorker.ready;
+  });
+  await expect
+    .poll(
+      () =>
+        page.evaluate(
+          (key) =>
+            new Promise<boolean>((resolve) => {
+              const open = indexedDB.open('squadline-device');
+              open.onsuccess = () => {
+                const req = open.result.transaction('cache', 'readonly').objectStore('cache').get(key);
+                req.onsuccess = () => resolve(!!req.result);
+                req.onerror = () => resolve(false);
+              };
+              open.onerror = () => resolve(false);
+            }),
+          `training.sheet.${squad.id}`,
+        ),
+      { timeout: 30_000 },
+    )
+    .toBe(true);
+
+  await goOffline(context, page);
+  const reload = await page.reload();
+  expect(reload?.fromServiceWorker()).toBe(true);
+  await expect(page.getByTestId('sheet-offline')).toBeVisible();
+  await expect(cards).toHaveCount(count);
+  await page.screenshot({ path: `${SHOTS}/training-sheet-offline-${testInfo.project.name}.png` });
+  await context.setOffline(false);
+});

@@ -19,6 +19,8 @@ import { SessionsCard } from './record-session';
 import { doseGroups, sharedDetail } from '../lines';
 import type { SheetAthlete, SheetExercise, TrainingSheet } from '../sheet';
 
+const NOT_KEPT = 'No connection. Open a squad’s sheet once with a connection to keep it on this phone.';
+
 /**
  * A squad's corrective plans on one sheet for a group session: one card per exercise with the athletes
  * doing it and their dose and load, the holds first, then whoever is not on the sheet and why. Printable.
@@ -33,28 +35,41 @@ export function TrainingSheetScreen({ initialSquadId }: { initialSquadId?: strin
   }, [squadId, squads.data]);
   const sheet = useTrainingSheetQuery(squadId);
 
-  if (squads.error) return <Notice tone="error">{squads.error.message}</Notice>;
-  if (squads.isPending) return <Text>Loading squads…</Text>;
-  if (squads.data.squads.length === 0) return <Notice>No squad yet: add one under Athletes.</Notice>;
+  // Without a connection the squads cannot be listed (the query fails, or waits for the network), but a
+  // sheet kept on this phone still opens.
+  const offline = !!squads.error || squads.isPaused;
+  if (offline && !sheet.data) {
+    if (squadId && sheet.isFetching) return <Text>Loading the plans…</Text>;
+    return <Notice tone="error">{sheet.error?.message ?? squads.error?.message ?? NOT_KEPT}</Notice>;
+  }
+  if (squads.isPending && !offline) return <Text>Loading squads…</Text>;
+  if (squads.data?.squads.length === 0) return <Notice>No squad yet: add one under Athletes.</Notice>;
 
   return (
     <View style={styles.wrap} {...PRINT_ROOT} testID="training-sheet">
       <Text variant="title" accessibilityRole="header">
         Training sheet{sheet.data ? `: ${sheet.data.squad.name}` : ''}
       </Text>
-      <View {...PRINT_HIDE}>
-        <Chips
-          label="Squad"
-          options={squads.data.squads.map((s) => ({ value: s.id, label: s.name }))}
-          value={squadId ?? ''}
-          onChange={(v) => {
-            setSquadId(v);
-            // In the address too, so a sheet kept open on the gym's tablet comes back to the same squad.
-            router.setParams({ squad: v });
-          }}
-          testID="sheet-squad"
-        />
-      </View>
+      {offline ? (
+        <Notice title="No connection" testID="sheet-offline">
+          This is the sheet as this phone last loaded it. Squads can be switched once the connection is back.
+        </Notice>
+      ) : null}
+      {squads.data ? (
+        <View {...PRINT_HIDE}>
+          <Chips
+            label="Squad"
+            options={squads.data.squads.map((s) => ({ value: s.id, label: s.name }))}
+            value={squadId ?? ''}
+            onChange={(v) => {
+              setSquadId(v);
+              // In the address too, so a sheet kept open on the gym's tablet comes back to the same squad.
+              router.setParams({ squad: v });
+            }}
+            testID="sheet-squad"
+          />
+        </View>
+      ) : null}
       {sheet.error ? <Notice tone="error">{sheet.error.message}</Notice> : null}
       {sheet.isPending ? <Text>Loading the plans…</Text> : null}
       {sheet.data ? <SheetBody key={sheet.data.squad.id} data={sheet.data} /> : null}
