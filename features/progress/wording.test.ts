@@ -33,7 +33,7 @@ describe('flags in words, one entry per pattern (our choice)', () => {
   });
 });
 
-describe('sessions between two screens in words (our wording)', () => {
+describe('sessions between two screens in words (our choice)', () => {
   const comparison = (noPlanNeeded: boolean) =>
     ({ planTime: { days: 70, neededWeeks: 6, longEnough: true, noPlanNeeded, waitedForClearance: false } }) as unknown as ScreenComparison;
   it('counts the sessions the athlete took part in against those the squad recorded', () => {
@@ -55,7 +55,7 @@ describe('sessions between two screens in words (our wording)', () => {
   });
 });
 
-describe('the family comparison with sessions (our wording)', () => {
+describe('the family comparison with sessions (our choice)', () => {
   const c = {
     flags: { cleared: [], persisting: [], new: [] },
     measurements: [],

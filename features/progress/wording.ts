@@ -66,7 +66,7 @@ export function planTimeSentence(c: ScreenComparison): string {
 
 /**
  * How many corrective sessions the athlete took part in between the two screens, as recorded on the
- * training sheet (our wording). Empty when there is nothing to compare, no plan was needed, or the squad
+ * training sheet (our choice of wording). Empty when there is nothing to compare, no plan was needed, or the squad
  * recorded no session in that time (a club that does not keep the record reads nothing about it).
  */
 export function sessionsSentence(sessions: ProgressResponse['sessionsBetween'], c: ScreenComparison): string {
@@ -145,7 +145,7 @@ export function familySummary(c: ScreenComparison, sessions: ProgressResponse['s
         ? `The exercises had about ${weeks} weeks between the two checks, which is usually enough time to see a difference.`
         : `There were only about ${weeks} weeks between the two checks, which is usually too soon to see a difference.`,
     );
-    // Only where the coaches keep the record of who took part (our wording).
+    // Only where the coaches keep the record of who took part (our choice of wording).
     if (sessions && sessions.held > 0) {
       const { attended, held } = sessions;
       out.push(

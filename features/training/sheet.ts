@@ -84,6 +84,7 @@ const nameOf = (m: Pick<SheetMember, 'firstName' | 'lastName'>) => `${m.firstNam
  * The sheet from the squad's members (in the order they are listed: by last name). Exercises come in
  * session order (phase, then those most athletes share, then name); under each, its athletes in the
  * members' order. Phases in the library's session order (`PHASE_ORDER`: mobility first, strength last).
+ * The order and grouping are our choice; the hold is the result screen's rule.
  */
 export function buildSheet(squad: TrainingSheet['squad'], members: readonly SheetMember[], today: string): TrainingSheet {
   const athletes: SheetAthlete[] = [];

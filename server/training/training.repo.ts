@@ -75,30 +75,22 @@ export function sessionsRepo(db: Db, scope: ClubScope) {
       return new Set(rows.map((r) => r.id));
     },
 
-    /** Writes the day's session and its attendance in one transaction; true when the day was new. */
+    /** Writes the day's session and its attendance in one transaction; `created` when the day was new. */
     async record(squadId: string, input: RecordSessionInput): Promise<{ id: string; created: boolean }> {
       return db.transaction(async (tx) => {
-        const [existing] = await tx
+        const [before] = await tx
           .select({ id: trainingSessions.id })
           .from(trainingSessions)
-          .where(and(eq(trainingSessions.clubId, clubId), eq(trainingSessions.squadId, squadId), eq(trainingSessions.heldOn, input.heldOn)))
-          .for('update');
-        let id = existing?.id;
-        if (id) {
-          await tx.update(trainingSessions).set({ note: input.note, recordedBy: scope.userId }).where(eq(trainingSessions.id, id));
-          await tx.delete(trainingAttendance).where(eq(trainingAttendance.sessionId, id));
-        } else {
-          // Two first records of one day at once: the unique index lets one in, the other updates it.
-          const [row] = await tx
-            .insert(trainingSessions)
-            .values({ clubId, squadId, heldOn: input.heldOn, note: input.note, recordedBy: scope.userId })
-            .onConflictDoUpdate({ target: [trainingSessions.squadId, trainingSessions.heldOn], set: { note: input.note, recordedBy: scope.userId } })
-            .returning({ id: trainingSessions.id });
-          id = row!.id;
-          await tx.delete(trainingAttendance).where(eq(trainingAttendance.sessionId, id));
-        }
-        await tx.insert(trainingAttendance).values([...new Set(input.athleteIds)].map((athleteId) => ({ sessionId: id!, athleteId, clubId })));
-        return { id: id!, created: !existing };
+          .where(and(eq(trainingSessions.clubId, clubId), eq(trainingSessions.squadId, squadId), eq(trainingSessions.heldOn, input.heldOn)));
+        // One row per squad and day (unique index): a day recorded again, or twice at once, updates it.
+        const [row] = await tx
+          .insert(trainingSessions)
+          .values({ clubId, squadId, heldOn: input.heldOn, note: input.note, recordedBy: scope.userId })
+          .onConflictDoUpdate({ target: [trainingSessions.squadId, trainingSessions.heldOn], set: { note: input.note, recordedBy: scope.userId } })
+          .returning({ id: trainingSessions.id });
+        await tx.delete(trainingAttendance).where(eq(trainingAttendance.sessionId, row!.id));
+        await tx.insert(trainingAttendance).values([...new Set(input.athleteIds)].map((athleteId) => ({ sessionId: row!.id, athleteId, clubId })));
+        return { id: row!.id, created: !before };
       });
     },
 

@@ -38,6 +38,23 @@ async function openRoundByApi(request: APIRequestContext, name: string): Promise
   return (await (await request.get(`/api/rounds/${body.round.id}`)).json()) as RoundDetail;
 }
 
+/** The keys of the answers kept on this device (IndexedDB `squadline-device`, store `cache`); null when unreadable. */
+function keptKeys(page: Page): Promise<string[] | null> {
+  return page.evaluate(
+    () =>
+      new Promise<string[] | null>((resolve) => {
+        const open = indexedDB.open('squadline-device');
+        open.onsuccess = () => {
+          const tx = open.result.transaction('cache', 'readonly');
+          const req = tx.objectStore('cache').getAllKeys();
+          req.onsuccess = () => resolve(req.result.map(String));
+          req.onerror = () => resolve(null);
+        };
+        open.onerror = () => resolve(null);
+      }),
+  );
+}
+
 /** Online: the worker is active (shell, fonts and screens precached) and the round's drafts are kept. */
 async function readyForCourtside(page: Page, athletes: number) {
   await page.evaluate(async () => {
@@ -45,20 +62,10 @@ async function readyForCourtside(page: Page, athletes: number) {
   });
   await expect
     .poll(
-      () =>
-        page.evaluate(
-          () =>
-            new Promise<number>((resolve) => {
-              const open = indexedDB.open('squadline-device');
-              open.onsuccess = () => {
-                const tx = open.result.transaction('cache', 'readonly');
-                const req = tx.objectStore('cache').getAllKeys();
-                req.onsuccess = () => resolve(req.result.filter((k) => String(k).startsWith('screening.assessment.')).length);
-                req.onerror = () => resolve(-1);
-              };
-              open.onerror = () => resolve(-1);
-            }),
-        ),
+      async () => {
+        const keys = await keptKeys(page);
+        return keys ? keys.filter((k) => k.startsWith('screening.assessment.')).length : -1;
+      },
       { timeout: 30_000 },
     )
     .toBeGreaterThanOrEqual(athletes);
@@ -290,25 +297,7 @@ test('a training sheet opened online opens again in a gym with no connection', a
   await page.evaluate(async () => {
     await navigator.serviceWorker.ready;
   });
-  await expect
-    .poll(
-      () =>
-        page.evaluate(
-          (key) =>
-            new Promise<boolean>((resolve) => {
-              const open = indexedDB.open('squadline-device');
-              open.onsuccess = () => {
-                const req = open.result.transaction('cache', 'readonly').objectStore('cache').get(key);
-                req.onsuccess = () => resolve(!!req.result);
-                req.onerror = () => resolve(false);
-              };
-              open.onerror = () => resolve(false);
-            }),
-          `training.sheet.${squad.id}`,
-        ),
-      { timeout: 30_000 },
-    )
-    .toBe(true);
+  await expect.poll(async () => (await keptKeys(page))?.includes(`training.sheet.${squad.id}`) ?? false, { timeout: 30_000 }).toBe(true);
 
   await goOffline(context, page);
   const reload = await page.reload();

@@ -4,10 +4,7 @@ import { api } from '@/features/api/client';
 import { deviceBacked } from '@/features/offline/device-cache';
 import { useActiveClub } from '@/features/session/active-club';
 import type { TrainingSheet } from '../sheet';
-
-export const trainingKeys = {
-  sheet: (clubId: string, squadId: string) => ['training', clubId, 'sheet', squadId] as const,
-};
+import { trainingKeys } from './keys';
 
 export const getTrainingSheet = (squadId: string) => api<TrainingSheet>(`/squads/${encodeURIComponent(squadId)}/training-sheet`);
 

@@ -3,10 +3,7 @@ import { api } from '@/features/api/client';
 import { progressKeys } from '@/features/progress/api/keys';
 import { useActiveClub } from '@/features/session/active-club';
 import type { RecordSessionInput, SessionView } from '../schemas';
-
-export const sessionKeys = {
-  squad: (clubId: string, squadId: string) => ['training', clubId, 'sessions', squadId] as const,
-};
+import { trainingKeys } from './keys';
 
 export const getSessions = (squadId: string) => api<{ sessions: SessionView[] }>(`/squads/${encodeURIComponent(squadId)}/training-sessions`);
 export const recordSession = (squadId: string, input: RecordSessionInput) =>
@@ -15,7 +12,7 @@ export const recordSession = (squadId: string, input: RecordSessionInput) =>
 /** The squad's latest recorded sessions. */
 export function useSessionsQuery(squadId: string) {
   const { membership } = useActiveClub();
-  return useQuery({ queryKey: sessionKeys.squad(membership.clubId, squadId), queryFn: () => getSessions(squadId) });
+  return useQuery({ queryKey: trainingKeys.sessions(membership.clubId, squadId), queryFn: () => getSessions(squadId) });
 }
 
 /** Records a day's session; the list and every athlete's progress (sessions between screens) follow. */
@@ -26,7 +23,7 @@ export function useRecordSessionMutation(squadId: string) {
     mutationFn: (input: RecordSessionInput) => recordSession(squadId, input),
     onSuccess: () =>
       Promise.all([
-        client.invalidateQueries({ queryKey: sessionKeys.squad(membership.clubId, squadId) }),
+        client.invalidateQueries({ queryKey: trainingKeys.sessions(membership.clubId, squadId) }),
         client.invalidateQueries({ queryKey: progressKeys.club(membership.clubId) }),
       ]),
   });
