@@ -27,7 +27,12 @@ export function SessionsCard({ sheet, canRecord }: { sheet: TrainingSheet; canRe
   const [saved, setSaved] = useState<string | null>(null);
   const [all, setAll] = useState(false);
   const list = sessions.data?.sessions ?? [];
-  const nameOf = new Map(sheet.athletes.map((a) => [a.id, a.name]));
+  // Who took part, in the sheet's name order (the server lists ids), and how many have left the squad since.
+  const namesOf = (ids: readonly string[]) => {
+    const names = sheet.athletes.filter((a) => ids.includes(a.id)).map((a) => a.name);
+    const gone = ids.length - names.length;
+    return gone ? [...names, `${gone} now in another squad`] : names;
+  };
 
   return (
     <Card style={styles.card} testID="sheet-sessions">
@@ -71,7 +76,7 @@ export function SessionsCard({ sheet, canRecord }: { sheet: TrainingSheet; canRe
           {/* Who took part only once asked for: a squad's names would push the plans down a phone. */}
           {all ? (
             <Text variant="small">
-              {s.athleteIds.map((id) => nameOf.get(id) ?? 'an athlete now in another squad').join(', ')}
+              {namesOf(s.athleteIds).join(', ')}
               {s.recordedByName ? ` · recorded by ${s.recordedByName}` : ''}
             </Text>
           ) : null}
