@@ -56,6 +56,14 @@ function toApiError(status: number, payload: ErrorPayload): ApiError {
   return new ApiError(status, err?.code ?? 'http_error', err?.message ?? `The server answered ${status}.`, err?.fields, payload ?? undefined);
 }
 
+/** Headers of a change sent from the device's outbox: its idempotency key and its club. */
+export function sentFromDevice(options: { idempotencyKey?: string; clubId?: string }): Record<string, string> {
+  const headers: Record<string, string> = {};
+  if (options.idempotencyKey) headers['Idempotency-Key'] = options.idempotencyKey;
+  if (options.clubId) headers['X-Club-Id'] = options.clubId;
+  return headers;
+}
+
 export async function api<T>(path: string, init: RequestInit & { json?: unknown } = {}): Promise<T> {
   const headers = new Headers(init.headers);
   headers.set('Accept', 'application/json');

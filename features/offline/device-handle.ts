@@ -93,7 +93,7 @@ export const photoBlob = async (id: string) => (await loadDevice()).photoBlob(id
 export const photoUrl = async (id: string) => (await loadDevice()).photoUrl(id);
 export const forgetPhoto = async (id: string) => (await loadDevice()).forgetPhoto(id);
 /** How a kind of change is sent; until a sender is registered its entries wait. */
-export const registerSender = (kind: OutboxKind, sender: (entry: OutboxEntry) => Promise<void>) => device().registerSender(kind, sender);
+export const registerSender: Device['registerSender'] = (kind, sender) => device().registerSender(kind, sender);
 
 /** Everything kept on the device is removed (sign-out), whether or not this page loaded the store. */
 export async function wipeOnSignOut(): Promise<void> {

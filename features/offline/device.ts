@@ -15,8 +15,9 @@ type Sender = (entry: OutboxEntry) => Promise<void>;
 const senders = new Map<OutboxKind, Sender>();
 
 /** How a kind of change is sent; until a sender is registered its entries wait. */
-export function registerSender(kind: OutboxKind, sender: Sender): void {
-  senders.set(kind, sender);
+export function registerSender<K extends OutboxKind>(kind: K, sender: (entry: Extract<OutboxEntry, { kind: K }>) => Promise<void>): void {
+  // Entries reach a sender only through `senders.get(entry.kind)`, so the kind always matches.
+  senders.set(kind, sender as Sender);
   outbox.kick();
 }
 
@@ -56,7 +57,7 @@ connectivity.subscribe(() => {
 
 // A photo discarded from the queue leaves the device with it.
 outbox.onEvent((e) => {
-  if (e.type === 'discarded' && e.entry.photo) void forgetPhoto(e.entry.photo.blobId).catch(() => undefined);
+  if (e.type === 'discarded' && e.entry.kind === 'photo' && e.entry.photo) void forgetPhoto(e.entry.photo.blobId).catch(() => undefined);
 });
 
 /** Local copies of drafts (see features/screening/draft), kept on the device. */

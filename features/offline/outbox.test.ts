@@ -28,7 +28,7 @@ function setup(opts: { online?: () => boolean; send?: (e: OutboxEntry) => Promis
   const send = vi.fn(
     opts.send ??
       (async (e: OutboxEntry) => {
-        sent.push({ seq: e.seq, kind: e.kind, assessmentId: e.assessmentId, key: e.key });
+        sent.push({ seq: e.seq, kind: e.kind, assessmentId: e.kind === 'attendance' ? e.squadId : e.assessmentId, key: e.key });
       }),
   );
   const outbox = new Outbox({ storage, send, isOnline: opts.online ?? (() => true), newKey: () => `key-${++n}` });
@@ -129,7 +129,7 @@ describe('Outbox', () => {
     const { outbox, sent } = setup({
       send: async (e) => {
         if (e.kind === 'draft' && e.assessmentId === 'a1') throw fail(400, 'invalid_input');
-        sent.push({ seq: e.seq, kind: e.kind, assessmentId: e.assessmentId, key: e.key });
+        sent.push({ seq: e.seq, kind: e.kind, assessmentId: e.kind === 'attendance' ? e.squadId : e.assessmentId, key: e.key });
       },
     });
     await outbox.addDraft({ ...base, assessmentId: 'a1' });
@@ -145,7 +145,7 @@ describe('Outbox', () => {
     const { outbox, sent } = setup({
       send: async (e) => {
         if (e.kind === 'photo' && refuse) throw fail(413, 'too_large');
-        sent.push({ seq: e.seq, kind: e.kind, assessmentId: e.assessmentId, key: e.key });
+        sent.push({ seq: e.seq, kind: e.kind, assessmentId: e.kind === 'attendance' ? e.squadId : e.assessmentId, key: e.key });
       },
     });
     const photo = await outbox.add({ ...base, kind: 'photo', assessmentId: 'a1' });
@@ -204,5 +204,77 @@ describe('Outbox', () => {
     await vi.runAllTimersAsync();
     await expect(done).resolves.toBeUndefined();
     expect(await refused).toMatchObject({ status: 415 });
+  });
+
+  describe('records of who took part', () => {
+    const day = (heldOn: string, athleteIds: string[]) => ({ heldOn, athleteIds, note: '' });
+
+    it('carry their record whole and go out in order with the rest', async () => {
+      let online = false;
+      const bodies: unknown[] = [];
+      const order: string[] = [];
+      const { outbox } = setup({
+        online: () => online,
+        send: async (e) => {
+          order.push(e.kind);
+          if (e.kind === 'attendance') bodies.push(e.record);
+        },
+      });
+      await outbox.addDraft({ ...base, assessmentId: 'a1' });
+      await outbox.addAttendance({ ...base, squadId: 's1', record: day('2026-12-01', ['x', 'y']) });
+      expect(outbox.getState().entries.map((e) => e.kind)).toEqual(['draft', 'attendance']);
+      online = true;
+      outbox.kick();
+      await vi.runAllTimersAsync();
+      expect(order).toEqual(['draft', 'attendance']);
+      expect(bodies).toEqual([day('2026-12-01', ['x', 'y'])]);
+      expect(outbox.getState().entries).toEqual([]);
+    });
+
+    it("a later record of the same squad's day replaces the one still waiting; other days and squads stay", async () => {
+      const { outbox, storage } = setup({ online: () => false });
+      await outbox.addAttendance({ ...base, squadId: 's1', record: day('2026-12-01', ['x']) });
+      await outbox.addAttendance({ ...base, squadId: 's1', record: day('2026-11-30', ['x']) });
+      await outbox.addAttendance({ ...base, squadId: 's2', record: day('2026-12-01', ['z']) });
+      await outbox.addAttendance({ ...base, squadId: 's1', record: day('2026-12-01', ['x', 'y']) });
+      const left = outbox
+        .getState()
+        .entries.map((e) => (e.kind === 'attendance' ? `${e.squadId}:${e.record.heldOn}:${e.record.athleteIds.join('+')}` : e.kind));
+      expect(left).toEqual(['s1:2026-11-30:x', 's2:2026-12-01:z', 's1:2026-12-01:x+y']);
+      expect(storage.rows.size).toBe(3);
+    });
+
+    it('a record that reached the server directly removes the waiting one of that day, never the one being sent', async () => {
+      let release: () => void = () => undefined;
+      const { outbox } = setup({
+        send: (e) => (e.kind === 'attendance' && e.record.heldOn === '2026-12-01' ? new Promise<void>((r) => (release = r)) : Promise.resolve()),
+      });
+      outbox.setUser(null); // hold the queue
+      await outbox.addAttendance({ ...base, squadId: 's1', record: day('2026-12-02', ['x']) });
+      await outbox.supersedeAttendance('s1', '2026-12-02');
+      expect(outbox.getState().entries).toEqual([]);
+
+      await outbox.addAttendance({ ...base, squadId: 's1', record: day('2026-12-01', ['x']) });
+      outbox.setUser('u1');
+      await settle();
+      expect(outbox.getState().sending).not.toBeNull();
+      await outbox.supersedeAttendance('s1', '2026-12-01');
+      expect(outbox.getState().entries).toHaveLength(1);
+      release();
+      await vi.runAllTimersAsync();
+      expect(outbox.getState().entries).toEqual([]);
+    });
+
+    it('are not held back by a refused draft', async () => {
+      const { outbox } = setup({
+        send: async (e) => {
+          if (e.kind === 'draft') throw fail(400, 'invalid');
+        },
+      });
+      await outbox.addDraft({ ...base, assessmentId: 'a1' });
+      await outbox.addAttendance({ ...base, squadId: 's1', record: day('2026-12-01', ['x']) });
+      await vi.runAllTimersAsync();
+      expect(outbox.getState().entries.map((e) => `${e.kind}:${e.state}`)).toEqual(['draft:refused']);
+    });
   });
 });

@@ -1,4 +1,5 @@
-// The device's queue of changes waiting for the server: draft saves, photos and submits, kept on the
+// The device's queue of changes waiting for the server: draft saves, photos, submits and records of who
+// took part in a training session, kept on the
 // device (IndexedDB through OutboxStorage) and sent one at a time, oldest first, when there is a
 // connection. Pure TypeScript: no React, no browser API; the sender, the clock and the storage are
 // injected so tests drive it with fake timers and a memory store.
@@ -11,7 +12,7 @@
 // - Refused (400/403/404/413/...): kept on the device with the server's message until the tester
 //   discards it or sends it again; never silently dropped.
 
-export type OutboxKind = 'draft' | 'photo' | 'submit';
+export type OutboxKind = 'draft' | 'photo' | 'submit' | 'attendance';
 
 export type PhotoRef = {
   /** Key of the scaled photo in the device's photo store. */
@@ -25,13 +26,11 @@ export type PhotoRef = {
 
 export type OutboxError = { status: number; code: string; message: string };
 
-export type OutboxEntry = {
+type EntryBase = {
   /** Position in the queue, given by the storage (auto-increment). */
   seq: number;
   /** Sent as the Idempotency-Key header; a retry of the same change sends the same key. */
   key: string;
-  kind: OutboxKind;
-  assessmentId: string;
   /** The club the change was made in (sent as X-Club-Id). */
   clubId: string;
   /** Who made it: the queue of one person is never sent under another's session. */
@@ -40,15 +39,30 @@ export type OutboxEntry = {
   attempts: number;
   state: 'waiting' | 'refused';
   error?: OutboxError;
-  photo?: PhotoRef;
 };
 
-export type NewEntry = Pick<OutboxEntry, 'kind' | 'assessmentId' | 'clubId' | 'userId'> & { photo?: PhotoRef };
+/** A screening change: the entry names the assessment; a draft's content is the device's copy when it goes out. */
+export type ScreeningEntry = EntryBase & { kind: 'draft' | 'photo' | 'submit'; assessmentId: string; photo?: PhotoRef };
+
+/** Who took part in a squad's session on one day: small, so the entry carries it whole. */
+export type AttendanceRecord = { heldOn: string; athleteIds: string[]; note: string };
+export type AttendanceEntry = EntryBase & { kind: 'attendance'; squadId: string; record: AttendanceRecord };
+
+export type OutboxEntry = ScreeningEntry | AttendanceEntry;
+
+type DistributiveOmit<T, K extends PropertyKey> = T extends unknown ? Omit<T, K> : never;
+/** What a screen adds: the queue gives the key, the time, the position and the state. */
+export type NewEntry = DistributiveOmit<OutboxEntry, 'seq' | 'key' | 'createdAt' | 'attempts' | 'state' | 'error'>;
+
+/** The assessment a screening entry belongs to; null for other kinds (nothing holds them back). */
+export const assessmentOf = (e: OutboxEntry): string | null => (e.kind === 'attendance' ? null : e.assessmentId);
+
+const sameDay = (e: OutboxEntry, squadId: string, heldOn: string) => e.kind === 'attendance' && e.squadId === squadId && e.record.heldOn === heldOn;
 
 export interface OutboxStorage {
   all(): Promise<OutboxEntry[]>;
   /** Stores a new entry and returns it with its sequence number. */
-  add(entry: Omit<OutboxEntry, 'seq'>): Promise<OutboxEntry>;
+  add(entry: DistributiveOmit<OutboxEntry, 'seq'>): Promise<OutboxEntry>;
   put(entry: OutboxEntry): Promise<void>;
   remove(seq: number): Promise<void>;
 }
@@ -153,12 +167,31 @@ export class Outbox {
    * Adds a "save this draft" entry unless one is already waiting behind everything else of the
    * assessment (the draft is read from the device when it is sent, so one entry carries every edit).
    */
-  async addDraft(entry: Omit<NewEntry, 'kind'>): Promise<OutboxEntry> {
+  async addDraft(entry: { assessmentId: string; clubId: string; userId: string }): Promise<OutboxEntry> {
     await this.load();
-    const own = this.entries.filter((e) => e.assessmentId === entry.assessmentId && e.state === 'waiting');
+    const own = this.entries.filter((e) => assessmentOf(e) === entry.assessmentId && e.state === 'waiting');
     const last = own[own.length - 1];
     if (last && last.kind === 'draft' && last.seq !== this.sending) return last;
     return this.add({ ...entry, kind: 'draft' });
+  }
+
+  /**
+   * Adds a record of who took part, in place of one still waiting for the same squad and day: the later
+   * record is what the coach meant, and the server keeps one per squad and day anyway.
+   */
+  async addAttendance(entry: Omit<Extract<NewEntry, { kind: 'attendance' }>, 'kind'>): Promise<OutboxEntry> {
+    await this.supersedeAttendance(entry.squadId, entry.record.heldOn);
+    return this.add({ ...entry, kind: 'attendance' });
+  }
+
+  /**
+   * Removes the records of a squad's day still waiting on the device (not the one being sent): a newer
+   * record replaces them, or reached the server directly.
+   */
+  async supersedeAttendance(squadId: string, heldOn: string): Promise<void> {
+    await this.load();
+    const old = this.entries.filter((e) => sameDay(e, squadId, heldOn) && e.seq !== this.sending);
+    for (const e of old) await this.discard(e.seq);
   }
 
   /** Resolves when the entry is on the server; rejects if it is refused or discarded. */
@@ -218,11 +251,12 @@ export class Outbox {
   next(): OutboxEntry | undefined {
     const blocked = new Set<string>();
     for (const e of this.entries) {
+      const assessment = assessmentOf(e);
       if (e.state === 'refused') {
         if (e.kind === 'draft') blocked.add(e.assessmentId);
         continue;
       }
-      if (blocked.has(e.assessmentId)) continue;
+      if (assessment !== null && blocked.has(assessment)) continue;
       if (this.user !== null && e.userId !== this.user) continue;
       return e;
     }

@@ -307,3 +307,66 @@ test('a training sheet opened online opens again in a gym with no connection', a
   await page.screenshot({ path: `${SHOTS}/training-sheet-offline-${testInfo.project.name}.png` });
   await context.setOffline(false);
 });
+
+test('who took part is recorded with no connection and reaches the server once it is back', async ({ page, context }, testInfo) => {
+  test.setTimeout(120_000);
+  await signIn(page, 'tester@squadline.test');
+  await expect(page.getByTestId('home-tester')).toBeVisible();
+  const squads = (await (await page.request.get('/api/squads')).json()) as { squads: { id: string; name: string }[] };
+  // Not the squad and days the training test records on: the two projects run at once, so each takes
+  // its own day (yesterday, the day before).
+  const squad = squads.squads.find((s) => s.name === 'Under-15 mixed')!;
+  const dayIndex = testInfo.project.name === 'phone' ? 1 : 2;
+  const note = `Kept offline, ${testInfo.project.name} ${Date.now()}`;
+  await page.goto(`/training?squad=${squad.id}`);
+  await expect(page.getByRole('heading', { level: 1 })).toContainText('Under-15 mixed');
+  await page.evaluate(async () => {
+    await navigator.serviceWorker.ready;
+  });
+  await expect
+    .poll(
+      async () => {
+        const keys = (await keptKeys(page)) ?? [];
+        return keys.includes(`training.sheet.${squad.id}`) && keys.includes(`training.sessions.${squad.id}`);
+      },
+      { timeout: 30_000 },
+    )
+    .toBe(true);
+
+  // No connection: the sheet and its sessions open from the phone, and the record waits there.
+  await goOffline(context, page);
+  await page.reload();
+  await expect(page.getByTestId('sheet-offline')).toBeVisible();
+  await page.getByTestId('sheet-record-open').click();
+  const form = page.getByTestId('sheet-record-form');
+  await form.getByTestId('sheet-record-day').getByRole('radio').nth(dayIndex).click();
+  await form.getByRole('button', { name: 'Untick all' }).click();
+  const ticks = form.locator('[data-testid^="sheet-tick-"]');
+  const chosen: string[] = [];
+  for (const i of [0, 1]) {
+    await ticks.nth(i).click();
+    chosen.push((await ticks.nth(i).getAttribute('data-testid'))!.replace('sheet-tick-', ''));
+  }
+  await form.getByTestId('sheet-record-note').fill(note);
+  await form.getByTestId('sheet-record-save').click();
+  await expect(page.getByTestId('sheet-recorded')).toContainText('Kept on this phone');
+  await expect(page.getByTestId('sheet-session-waiting')).toContainText('2 athletes');
+  await expect(page.getByTestId('sync-status-text')).toHaveText('Offline · 1 waiting');
+  await page.screenshot({ path: `${SHOTS}/training-record-offline-${testInfo.project.name}.png` });
+
+  // Still there after a reload with no connection (kept on the device, not in the page's memory).
+  await page.reload();
+  await expect(page.getByTestId('sheet-session-waiting')).toContainText('2 athletes');
+
+  // Back online: sent once, the list shows it from the server, nothing waits on the phone.
+  await context.setOffline(false);
+  await page.evaluate(() => window.dispatchEvent(new Event('online')));
+  await expect(page.getByTestId('sync-status-text')).toHaveText('All saved', { timeout: 30_000 });
+  await expect(page.getByTestId('sheet-session-waiting')).toHaveCount(0);
+  const sessions = (await (await page.request.get(`/api/squads/${squad.id}/training-sessions`)).json()) as {
+    sessions: { heldOn: string; athleteIds: string[]; note: string }[];
+  };
+  const sent = sessions.sessions.filter((s) => s.note === note);
+  expect(sent).toHaveLength(1);
+  expect([...sent[0]!.athleteIds].sort()).toEqual([...chosen].sort());
+});

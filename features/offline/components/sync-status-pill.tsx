@@ -9,7 +9,7 @@ import { useOutboxState, usePhotoBytesOnDevice, useSyncStatus } from '../hooks';
 import type { OutboxKind } from '../outbox';
 import { syncStatusDetail, syncStatusText, type SyncStatus } from '../sync-status';
 
-const KIND_WORD: Record<OutboxKind, string> = { draft: 'Draft save', photo: 'Photo', submit: 'Submit' };
+const KIND_WORD: Record<OutboxKind, string> = { draft: 'Draft save', photo: 'Photo', submit: 'Submit', attendance: 'Session record' };
 
 const TONE: Record<SyncStatus['kind'], 'ok' | 'busy' | 'off' | 'bad'> = {
   saved: 'ok',

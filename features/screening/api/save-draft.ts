@@ -1,14 +1,6 @@
-import { api, type ApiError } from '@/features/api/client';
+import { api, sentFromDevice, type ApiError } from '@/features/api/client';
 import { conflictCurrent } from '@/features/api/contract';
 import type { AssessmentDraft, DraftConflictCurrent, SaveDraftResponse } from '@/features/screening/contract';
-
-/** Headers of a change sent from the device's outbox: its idempotency key and its club. */
-export function sentFromDevice(options: { idempotencyKey?: string; clubId?: string }): Record<string, string> {
-  const headers: Record<string, string> = {};
-  if (options.idempotencyKey) headers['Idempotency-Key'] = options.idempotencyKey;
-  if (options.clubId) headers['X-Club-Id'] = options.clubId;
-  return headers;
-}
 
 export type ServerDraft = { draft: AssessmentDraft; draftVersion: number };
 

@@ -1,7 +1,6 @@
-import { api } from '@/features/api/client';
+import { api, sentFromDevice } from '@/features/api/client';
 import { deviceSession, outbox } from '@/features/offline/device-handle';
 import type { ResultView } from '@/features/screening/contract';
-import { sentFromDevice } from './save-draft';
 
 /**
  * POST the submit. `draftVersion` names the draft version this device last saw: if another phone saved

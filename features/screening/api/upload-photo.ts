@@ -1,7 +1,6 @@
-import { upload } from '@/features/api/client';
+import { sentFromDevice, upload } from '@/features/api/client';
 import type { PhotoView } from '@/features/screening/contract';
 import type { TaskId, View } from '@/features/screening/engine';
-import { sentFromDevice } from './save-draft';
 
 export type PhotoFile = { blob: Blob; name: string } | { uri: string; name: string; type: string };
 

@@ -90,7 +90,7 @@ export function RoundScreen({ id }: { id: string }) {
   useKeepRoundOnDevice(data);
   // Submits made on this phone and not sent yet: the athlete is done here, the server has not heard.
   const queue = useOutboxState();
-  const waitingSubmit = new Set(queue.entries.filter((e) => e.kind === 'submit').map((e) => e.assessmentId));
+  const waitingSubmit = new Set(queue.entries.flatMap((e) => (e.kind === 'submit' ? [e.assessmentId] : [])));
   // The back link and the head are drawn from the first render, where the pre-rendered frame has them
   // (PAGE_HEADS.round in features/shell/page-heads.ts), so nothing moves when the round arrives.
   const head = (

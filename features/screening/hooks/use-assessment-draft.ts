@@ -7,7 +7,7 @@ import { draftStoreFor } from '@/features/screening/draft/registry';
 
 /** Where the saving of this draft is: from the device's copy and the outbox's entries. */
 export function draftSaveStatus(assessmentId: string, dirty: boolean, online: boolean, state: OutboxState): SaveStatus {
-  const own = state.entries.filter((e) => e.assessmentId === assessmentId && e.kind === 'draft');
+  const own = state.entries.filter((e) => e.kind === 'draft' && e.assessmentId === assessmentId);
   const refused = own.find((e) => e.state === 'refused');
   if (refused?.error) return { kind: 'refused', message: refused.error.message };
   if (!dirty && own.length === 0) return { kind: 'saved' };

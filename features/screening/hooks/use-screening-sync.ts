@@ -6,7 +6,7 @@ import { useEffect } from 'react';
 import { ApiError } from '@/features/api/client';
 import { updateKept } from '@/features/offline/device-cache';
 import { forgetPhoto, outbox, photoBlob, registerSender } from '@/features/offline/device-handle';
-import type { OutboxEntry } from '@/features/offline/outbox';
+import type { ScreeningEntry } from '@/features/offline/outbox';
 import { getAssessment } from '@/features/screening/api/get-assessment';
 import { assessmentKeptKey, roundKeptKey, screeningKeys } from '@/features/screening/api/keys';
 import { saveDraft, serverDraftFromConflict } from '@/features/screening/api/save-draft';
@@ -18,7 +18,7 @@ import { deviceLocalCopy, openDraftStore } from '@/features/screening/draft/regi
 import type { TaskId } from '@/features/screening/engine';
 import { uploadQueue } from '@/features/screening/photos/upload-registry';
 
-function sendDraft(entry: OutboxEntry, qc: QueryClient) {
+function sendDraft(entry: ScreeningEntry, qc: QueryClient) {
   const id = entry.assessmentId;
   return sendDraftCopy(id, {
     storage: deviceLocalCopy,
@@ -44,7 +44,7 @@ function sendDraft(entry: OutboxEntry, qc: QueryClient) {
   });
 }
 
-async function sendPhoto(entry: OutboxEntry, qc: QueryClient) {
+async function sendPhoto(entry: ScreeningEntry, qc: QueryClient) {
   const ref = entry.photo;
   const blob = ref ? await photoBlob(ref.blobId) : null;
   if (!ref || !blob) throw new ApiError(410, 'photo_missing', 'This photo is no longer on this phone. Take it again.');
@@ -64,7 +64,7 @@ async function sendPhoto(entry: OutboxEntry, qc: QueryClient) {
   await forgetPhoto(ref.blobId);
 }
 
-async function sendSubmit(entry: OutboxEntry, qc: QueryClient) {
+async function sendSubmit(entry: ScreeningEntry, qc: QueryClient) {
   // The drafts queued before this submit have gone out: the device's copy now holds the version it saw.
   const draftVersion = deviceLocalCopy.read(entry.assessmentId)?.baseVersion;
   const result = await submitAssessment(entry.assessmentId, { idempotencyKey: entry.key, clubId: entry.clubId, draftVersion });

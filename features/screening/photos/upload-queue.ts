@@ -113,7 +113,7 @@ export class UploadQueue {
   private async discardEntry(seq: number): Promise<void> {
     const entry = this.deps.outbox.getState().entries.find((e) => e.seq === seq);
     if (await this.deps.outbox.discard(seq)) {
-      if (entry?.photo) await this.deps.forgetPhoto(entry.photo.blobId);
+      if (entry?.kind === 'photo' && entry.photo) await this.deps.forgetPhoto(entry.photo.blobId);
     }
   }
 

@@ -6,6 +6,7 @@ import { signedOutOnThisDevice } from '@/features/auth/return-to';
 import { DeviceGate } from '@/features/offline/components/device-gate';
 import { ScreeningSync } from '@/features/screening/components/screening-sync';
 import { ActiveClubProvider, useActiveClub } from '@/features/session/active-club';
+import { TrainingSync } from '@/features/training/components/training-sync';
 import { AppShell } from './app-shell';
 import { FullScreenMessage } from './full-screen-message';
 import { ShellFrame } from './shell-frame';
@@ -52,5 +53,10 @@ export default function ClubShell() {
 /** Changes queued on this device are sent whatever screen is open; only people who screen queue any. */
 function SyncForScreeners() {
   const { membership } = useActiveClub();
-  return can(membership.role, 'screening.write') ? <ScreeningSync /> : null;
+  return can(membership.role, 'screening.write') ? (
+    <>
+      <ScreeningSync />
+      <TrainingSync />
+    </>
+  ) : null;
 }

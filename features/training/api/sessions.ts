@@ -1,30 +1,84 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { api } from '@/features/api/client';
+import { can } from '@/features/access/permissions';
+import { api, ApiError } from '@/features/api/client';
+import { deviceBacked } from '@/features/offline/device-cache';
+import { connectivity, deviceSession, loadedDevice } from '@/features/offline/device-handle';
 import { progressKeys } from '@/features/progress/api/keys';
 import { useActiveClub } from '@/features/session/active-club';
 import type { RecordSessionInput, SessionView } from '../schemas';
+import { recordSession, sessionsKeptKey } from './send-attendance';
 import { trainingKeys } from './keys';
 
 export const getSessions = (squadId: string) => api<{ sessions: SessionView[] }>(`/squads/${encodeURIComponent(squadId)}/training-sessions`);
-export const recordSession = (squadId: string, input: RecordSessionInput) =>
-  api<{ session: SessionView }>(`/squads/${encodeURIComponent(squadId)}/training-sessions`, { method: 'POST', json: input });
 
-/** The squad's latest recorded sessions. */
+/**
+ * The squad's latest recorded sessions. Those who screen keep the last list of each squad they open on
+ * the device, with the sheet, so a record made in a gym with no signal starts from what was recorded.
+ */
 export function useSessionsQuery(squadId: string) {
   const { membership } = useActiveClub();
-  return useQuery({ queryKey: trainingKeys.sessions(membership.clubId, squadId), queryFn: () => getSessions(squadId) });
+  const keep = can(membership.role, 'screening.write');
+  return useQuery({
+    queryKey: trainingKeys.sessions(membership.clubId, squadId),
+    queryFn: () =>
+      deviceBacked(
+        sessionsKeptKey(squadId),
+        membership.clubId,
+        () => getSessions(squadId),
+        () => (keep ? { roundId: null } : null),
+      ),
+  });
 }
 
-/** Records a day's session; the list and every athlete's progress (sessions between screens) follow. */
+/** How a record was saved: on the server, or kept on this phone until the connection is back. */
+export type RecordOutcome = 'sent' | 'kept';
+
+/**
+ * Records a day's session; the list and every athlete's progress (sessions between screens) follow.
+ * Those who screen (their phone keeps a queue) may record with no connection: the record waits on the
+ * phone, replacing one of the same day still waiting, and goes out when the connection is back.
+ */
 export function useRecordSessionMutation(squadId: string) {
   const { membership } = useActiveClub();
   const client = useQueryClient();
+  const queues = can(membership.role, 'screening.write');
   return useMutation({
-    mutationFn: (input: RecordSessionInput) => recordSession(squadId, input),
-    onSuccess: () =>
-      Promise.all([
-        client.invalidateQueries({ queryKey: trainingKeys.sessions(membership.clubId, squadId) }),
-        client.invalidateQueries({ queryKey: progressKeys.club(membership.clubId) }),
-      ]),
+    // Runs with no connection too: the offline path is the point (the default would pause it).
+    networkMode: 'always',
+    mutationFn: async (input: RecordSessionInput): Promise<RecordOutcome> => {
+      const device = queues ? loadedDevice() : null;
+      if (!device) {
+        await recordSession(squadId, input);
+        return 'sent';
+      }
+      const record = { heldOn: input.heldOn, athleteIds: input.athleteIds, note: input.note };
+      const keepOnPhone = async () => {
+        await device.outbox.addAttendance({ ...deviceSession(), squadId, record });
+        return 'kept' as const;
+      };
+      if (!connectivity.isOnline()) return keepOnPhone();
+      // A record of the same day already going out lands first, so this newer one is the one kept.
+      const going = device.outbox.getState();
+      const inFlight = going.entries.find(
+        (e) => e.seq === going.sending && e.kind === 'attendance' && e.squadId === squadId && e.record.heldOn === input.heldOn,
+      );
+      if (inFlight) await device.outbox.whenDone(inFlight.seq).catch(() => undefined);
+      try {
+        await recordSession(squadId, input);
+      } catch (e) {
+        if (e instanceof ApiError && e.status === 0) return keepOnPhone();
+        throw e;
+      }
+      // An older record of that day still waiting would otherwise overwrite this one later.
+      await device.outbox.supersedeAttendance(squadId, input.heldOn);
+      return 'sent';
+    },
+    onSuccess: (how) =>
+      how === 'sent'
+        ? Promise.all([
+            client.invalidateQueries({ queryKey: trainingKeys.sessions(membership.clubId, squadId) }),
+            client.invalidateQueries({ queryKey: progressKeys.club(membership.clubId) }),
+          ])
+        : undefined,
   });
 }

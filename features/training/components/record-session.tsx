@@ -1,8 +1,12 @@
 import { useFormik } from 'formik';
 import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
+import { can } from '@/features/access/permissions';
 import { showServerError } from '@/features/api/client';
+import { useOutboxState } from '@/features/offline/device-handle';
+import type { AttendanceEntry } from '@/features/offline/outbox';
 import { todayIsoLocal } from '@/features/screening/labels';
+import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
@@ -20,11 +24,19 @@ const DAY_MS = 24 * 3600 * 1000;
 /** Today, yesterday and the day before, on the phone's calendar: a session is recorded that day or soon after (our choice). */
 const recentDays = (now = Date.now()) => [0, 1, 2].map((back) => todayIsoLocal(new Date(now - back * DAY_MS)));
 
+/** Records of this squad's sessions kept on this phone and not on the server yet, oldest first. */
+function useWaitingRecords(squadId: string): AttendanceEntry[] {
+  return useOutboxState().entries.filter((e): e is AttendanceEntry => e.kind === 'attendance' && e.squadId === squadId);
+}
+
 /** The squad's recorded sessions, and a way to record who took part (ticked from the squad's list). */
 export function SessionsCard({ sheet, canRecord }: { sheet: TrainingSheet; canRecord: boolean }) {
   const sessions = useSessionsQuery(sheet.squad.id);
+  const waiting = useWaitingRecords(sheet.squad.id);
+  // Those who screen keep a queue on the phone, so they may record without a connection.
+  const queues = can(useActiveClub().membership.role, 'screening.write');
   const [open, setOpen] = useState(false);
-  const [saved, setSaved] = useState<string | null>(null);
+  const [saved, setSaved] = useState<{ title: string; words: string } | null>(null);
   const [all, setAll] = useState(false);
   const list = sessions.data?.sessions ?? [];
   // Who took part, in the sheet's name order (the server lists ids), and how many have left the squad since.
@@ -41,16 +53,17 @@ export function SessionsCard({ sheet, canRecord }: { sheet: TrainingSheet; canRe
       </Text>
       {sessions.error ? <Notice tone="error">{sessions.error.message}</Notice> : null}
       {saved ? (
-        <Notice title="Recorded" testID="sheet-recorded">
-          {saved}
+        <Notice title={saved.title} testID="sheet-recorded">
+          {saved.words}
         </Notice>
       ) : null}
-      {canRecord && open && sessions.data ? (
+      {canRecord && open && (sessions.data || queues) ? (
         <RecordForm
           sheet={sheet}
           sessions={list}
-          onDone={(words) => {
-            setSaved(words);
+          waiting={waiting}
+          onDone={(done) => {
+            setSaved(done);
             setOpen(false);
           }}
           onCancel={() => setOpen(false)}
@@ -64,12 +77,22 @@ export function SessionsCard({ sheet, canRecord }: { sheet: TrainingSheet; canRe
               setSaved(null);
               setOpen(true);
             }}
-            disabled={!sessions.data}
+            disabled={!sessions.data && !(queues && sessions.error)}
             testID="sheet-record-open"
           />
         </View>
       ) : null}
-      {sessions.data && list.length === 0 ? <Text variant="small">No session recorded yet.</Text> : null}
+      {waiting.map((e) => (
+        <View key={e.seq} style={styles.session} testID="sheet-session-waiting">
+          <Text variant="label">{`${formatDate(e.record.heldOn)} · ${e.record.athleteIds.length} ${e.record.athleteIds.length === 1 ? 'athlete' : 'athletes'}`}</Text>
+          <Text variant="small" style={e.state === 'refused' ? styles.error : styles.waiting}>
+            {e.state === 'refused'
+              ? `Not accepted: ${e.error?.message ?? 'the server refused it.'} Record the day again, or send or discard it from the status at the top.`
+              : `Kept on this phone: sent when the connection is back${list.some((x) => x.heldOn === e.record.heldOn) ? ', in place of that day’s earlier record' : ''}.`}
+          </Text>
+        </View>
+      ))}
+      {sessions.data && list.length === 0 && waiting.length === 0 ? <Text variant="small">No session recorded yet.</Text> : null}
       {list.slice(0, all ? 10 : 1).map((s) => (
         <View key={s.id} style={styles.session} testID="sheet-session">
           <Text variant="label">{`${all ? '' : 'Last: '}${formatDate(s.heldOn)} · ${s.athleteIds.length} ${s.athleteIds.length === 1 ? 'athlete' : 'athletes'}`}</Text>
@@ -100,20 +123,24 @@ export function SessionsCard({ sheet, canRecord }: { sheet: TrainingSheet; canRe
 function RecordForm({
   sheet,
   sessions,
+  waiting,
   onDone,
   onCancel,
 }: {
   sheet: TrainingSheet;
   sessions: SessionView[];
-  onDone: (words: string) => void;
+  waiting: AttendanceEntry[];
+  onDone: (done: { title: string; words: string }) => void;
   onCancel: () => void;
 }) {
   const { isTabletUp } = useBreakpoints();
   const record = useRecordSessionMutation(sheet.squad.id);
   const days = recentDays();
-  // A day already recorded starts from what was recorded; a new day from everyone with a plan.
+  // A day already recorded starts from what was recorded (on this phone if not sent yet); a new day from
+  // everyone with a plan.
+  const recordOf = (day: string) => [...waiting].reverse().find((e) => e.record.heldOn === day)?.record ?? sessions.find((s) => s.heldOn === day);
   const startFor = (day: string) => {
-    const earlier = sessions.find((s) => s.heldOn === day);
+    const earlier = recordOf(day);
     return earlier
       ? { athleteIds: earlier.athleteIds.filter((id) => sheet.athletes.some((a) => a.id === id)), note: earlier.note }
       : { athleteIds: sheet.athletes.filter((a) => a.state === 'plan').map((a) => a.id), note: '' };
@@ -124,9 +151,14 @@ function RecordForm({
     onSubmit: async (values, helpers) => {
       try {
         const input = await recordSessionSchema.validate(values);
-        await record.mutateAsync(input);
+        const how = await record.mutateAsync(input);
         const n = input.athleteIds.length;
-        onDone(`${n} ${n === 1 ? 'athlete' : 'athletes'} on ${formatDate(input.heldOn)}.`);
+        const what = `${n} ${n === 1 ? 'athlete' : 'athletes'} on ${formatDate(input.heldOn)}.`;
+        onDone(
+          how === 'kept'
+            ? { title: 'Kept on this phone', words: `${what} No connection: it is sent when the connection is back.` }
+            : { title: 'Recorded', words: what },
+        );
       } catch (error) {
         showServerError(error, helpers);
       }
@@ -138,7 +170,7 @@ function RecordForm({
       'athleteIds',
       sheet.athletes.filter((a) => (a.id === id ? !ticked.has(id) : ticked.has(a.id))).map((a) => a.id),
     );
-  const recorded = sessions.some((s) => s.heldOn === form.values.heldOn);
+  const recorded = !!recordOf(form.values.heldOn);
 
   return (
     <View style={styles.form} testID="sheet-record-form">
@@ -237,4 +269,5 @@ const styles = StyleSheet.create({
   tickName: { flex: 1 },
   session: { borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.sm, gap: 2 },
   error: { color: colors.brick },
+  waiting: { color: colors.amber },
 });
