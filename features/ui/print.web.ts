@@ -13,6 +13,10 @@ const CSS = `
   html, body, #root, #root * { overflow: visible !important; }
   body * { visibility: hidden; }
   [data-print-root], [data-print-root] * { visibility: visible; }
+  /* Every view is position: relative on the web, and the screen's stack moves its pages with a transform;
+     the report's ancestors give both up so that it starts at the page's left edge, not beside the hidden
+     side navigation. */
+  #root *:has([data-print-root]) { position: static !important; transform: none !important; will-change: auto !important; contain: none !important; filter: none !important; }
   [data-print-root] { position: absolute; left: 0; top: 0; width: 100%; }
   [data-print="hide"] { display: none !important; }
   [data-print-root] { font-size: 11px; }

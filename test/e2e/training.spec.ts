@@ -57,6 +57,10 @@ test('training sheet: a squad by exercise, holds first, names open results, prin
   await page.screenshot({ path: `test-results/training-sheet-${info.project.name}.png`, fullPage: true });
   await page.emulateMedia({ media: 'print' });
   await expect(page.getByTestId('sheet-print')).toBeHidden();
+  // Printed from the page's left edge across its width, not beside the side navigation.
+  const printed = (await page.getByTestId('training-sheet').boundingBox())!;
+  expect(printed.x).toBe(0);
+  expect(printed.width).toBeGreaterThan((page.viewportSize()!.width * 9) / 10);
   await page.screenshot({ path: `test-results/training-sheet-print-${info.project.name}.png`, fullPage: true });
   await page.emulateMedia({ media: 'screen' });
   await expect(page.getByTestId('sheet-print')).toBeVisible();

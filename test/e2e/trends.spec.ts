@@ -85,6 +85,8 @@ test('squad trends: load, filter, sort, CSV, charts', async ({ page }, info) => 
   await page.getByTestId('change-chart').scrollIntoViewIfNeeded();
   await page.screenshot({ path: `test-results/trends-change-${info.project.name}.png` });
   await page.emulateMedia({ media: 'print' });
+  const printed = (await page.getByTestId('squad-trends').boundingBox())!;
+  expect(printed.x).toBe(0);
   await page.screenshot({ path: `test-results/trends-print-${info.project.name}.png`, fullPage: true });
   await page.emulateMedia({ media: 'screen' });
 

@@ -11,7 +11,7 @@ import { space } from '@/features/ui/theme';
 import { useSquadsQuery } from '../api/get-squads';
 import type { Athlete } from '../api/types';
 import { athleteSchema, JUNIOR_AGE, SEX_LABELS, SEX_VALUES, SIDE_LABELS, SIDE_VALUES, type AthleteInput, type Sex, type Side } from '../schemas';
-import { ChoiceGroup } from './choice-group';
+import { Chips } from '@/features/ui/components/chips';
 
 type Values = {
   firstName: string;
@@ -108,12 +108,21 @@ export function AthleteForm({
             />
             <View style={[styles.pair, isTabletUp && styles.pairWide]}>
               <View style={isTabletUp ? styles.cell : undefined}>
-                <ChoiceGroup label="Sex" name="sex" options={sexOptions} value={values.sex} onChange={(v) => setFieldValue('sex', v)} error={show('sex')} />
+                <Chips
+                  variant="form"
+                  label="Sex"
+                  testID="sex"
+                  options={sexOptions}
+                  value={values.sex}
+                  onChange={(v) => setFieldValue('sex', v)}
+                  error={show('sex')}
+                />
               </View>
               <View style={isTabletUp ? styles.cell : undefined}>
-                <ChoiceGroup
+                <Chips
+                  variant="form"
                   label="Racket hand"
-                  name="racketHand"
+                  testID="racketHand"
                   options={sideOptions}
                   value={values.racketHand}
                   onChange={(v) => setFieldValue('racketHand', v)}
@@ -121,9 +130,10 @@ export function AthleteForm({
                 />
               </View>
               <View style={isTabletUp ? styles.cell : undefined}>
-                <ChoiceGroup
+                <Chips
+                  variant="form"
                   label="Take-off leg"
-                  name="takeOffLeg"
+                  testID="takeOffLeg"
                   options={sideOptions}
                   value={values.takeOffLeg}
                   onChange={(v) => setFieldValue('takeOffLeg', v)}
@@ -133,9 +143,10 @@ export function AthleteForm({
             </View>
             {squads.error ? <Notice tone="error">{squads.error.message}</Notice> : null}
             {squads.data && squads.data.squads.length === 0 ? <Notice tone="caution">The club has no squad yet: create one under Squads first.</Notice> : null}
-            <ChoiceGroup
+            <Chips
+              variant="form"
               label="Squad"
-              name="squad"
+              testID="squad"
               options={(squads.data?.squads ?? []).map((s) => ({ value: s.id, label: s.name }))}
               value={values.squadId}
               onChange={(v) => setFieldValue('squadId', v)}

@@ -16,7 +16,7 @@ import { useRecordConsentMutation } from '../api/record-consent';
 import { useRecordOwnConsentMutation } from '../api/record-own-consent';
 import type { Athlete, ConsentView } from '../api/types';
 import { CONSENT_KINDS, CONSENT_LABELS, consentSchema, type ConsentInput, type ConsentKind } from '../schemas';
-import { ChoiceGroup } from './choice-group';
+import { Chips } from '@/features/ui/components/chips';
 import { formatDate } from '@/features/ui/format-date';
 
 const kindOptions = CONSENT_KINDS.map((k) => ({ value: k, label: CONSENT_LABELS[k].title }));
@@ -190,17 +190,19 @@ function RecordDecision({ athleteId, onDone }: { athleteId: string; onDone: () =
       {({ values, errors, submitCount, touched, setFieldValue, handleChange, handleBlur, handleSubmit, isSubmitting }) => (
         <View style={styles.form}>
           {failure ? <Notice tone="error">{failure}</Notice> : null}
-          <ChoiceGroup
+          <Chips
+            variant="form"
             label="Decision about"
-            name="consent-kind"
+            testID="consent-kind"
             options={kindOptions}
             value={values.kind}
             onChange={(v) => setFieldValue('kind', v)}
             error={submitCount > 0 && errors.kind}
           />
-          <ChoiceGroup
+          <Chips
+            variant="form"
             label="Answer"
-            name="consent-answer"
+            testID="consent-answer"
             options={answerOptions}
             value={values.granted}
             onChange={(v) => setFieldValue('granted', v)}

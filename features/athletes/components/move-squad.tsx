@@ -7,7 +7,7 @@ import { useSquadsQuery } from '../api/get-squads';
 import type { Athlete } from '../api/types';
 import { useUpdateAthleteMutation } from '../api/update-athlete';
 import { moveSquadSchema } from '../schemas';
-import { ChoiceGroup } from './choice-group';
+import { Chips } from '@/features/ui/components/chips';
 
 /** Moves the athlete to another squad of the club: pick the squad, then confirm. */
 export function MoveSquad({ athlete }: { athlete: Athlete }) {
@@ -40,7 +40,7 @@ export function MoveSquad({ athlete }: { athlete: Athlete }) {
     <View style={styles.wrap}>
       {squads.error ? <Notice tone="error">{squads.error.message}</Notice> : null}
       {squads.data && options.length === 0 ? <Notice>The club has no other squad.</Notice> : null}
-      <ChoiceGroup label="Move to" name="move-squad" options={options} value={target} onChange={setTarget} error={error ?? undefined} />
+      <Chips variant="form" label="Move to" testID="move-squad" options={options} value={target} onChange={setTarget} error={error ?? undefined} />
       <View style={styles.actions}>
         <Button label="Move" testID="athlete-move-confirm" busy={move.isPending} onPress={submit} />
         <Button label="Cancel" tone="secondary" onPress={() => setOpen(false)} disabled={move.isPending} />

@@ -10,7 +10,7 @@ import { colors, space } from '@/features/ui/theme';
 import { auditSearch, useAuditQuery, type AuditFilters } from '../api/get-audit';
 import { AUDIT_SUBJECTS } from '../choices';
 import type { AuditRow } from '../types';
-import { ChoiceChips } from './choice-chips';
+import { Chips } from '@/features/ui/components/chips';
 import { auditActionInWords, auditDetailsInWords, auditSubjectInWords } from '../audit-details';
 
 const SUBJECT_LABELS: Record<string, string> = {
@@ -42,7 +42,7 @@ export function AuditTrail() {
       </Text>
       <Text variant="small">Who viewed or changed athletes, screens, notes, clearance and consent, which e-mails went out, and which photos were deleted.</Text>
       <Card>
-        <ChoiceChips label="Kind of record" options={SUBJECT_OPTIONS} value={subject} onChange={setSubject} testID="audit-subject" />
+        <Chips label="Kind of record" options={SUBJECT_OPTIONS} value={subject} onChange={setSubject} testID="audit-subject" />
         <View style={[styles.dates, isWide && styles.datesWide]}>
           <View style={styles.date}>
             <TextField label="From (YYYY-MM-DD)" value={from} onChangeText={setFrom} testID="audit-from" autoCapitalize="none" />

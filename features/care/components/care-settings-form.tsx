@@ -13,7 +13,7 @@ import { space } from '@/features/ui/theme';
 import { useCareSettingsQuery, useRetentionDryRunQuery, useSaveCareSettingsMutation } from '../api/care-settings';
 import { careSettingsSchema } from '../schemas';
 import type { CareSettingsView } from '../types';
-import { ChoiceChips } from './choice-chips';
+import { Chips } from '@/features/ui/components/chips';
 import { formatDate } from '@/features/ui/format-date';
 
 const YES_NO = [
@@ -96,13 +96,15 @@ function Form({ settings }: { settings: CareSettingsView }) {
         onChangeText={form.handleChange('photoRetentionMonths')}
         error={form.errors.photoRetentionMonths}
       />
-      <ChoiceChips
+      <Chips
+        variant="form"
         label="Parents may see their own child's screening photos"
         options={YES_NO}
         value={form.values.familyPhotos as 'yes' | 'no'}
         onChange={(v) => form.setFieldValue('familyPhotos', v)}
       />
-      <ChoiceChips
+      <Chips
+        variant="form"
         label="Testers may read team-only notes"
         options={YES_NO}
         value={form.values.testersReadTeamNotes as 'yes' | 'no'}

@@ -8,13 +8,13 @@ import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
-import { colors, space } from '@/features/ui/theme';
+import { space } from '@/features/ui/theme';
 import { useClearanceOf } from '../api/get-clearances';
 import { useSetClearanceMutation } from '../api/set-clearance';
 import { CLEARANCE_LABELS, CLEARANCE_STATUSES, type ClearanceStatus } from '../choices';
 import { clearanceSchema } from '../schemas';
 import { ClearanceBadge } from './clearance-badge';
-import { ChoiceChips } from './choice-chips';
+import { Chips } from '@/features/ui/components/chips';
 import { formatDate } from '@/features/ui/format-date';
 
 const OPTIONS = CLEARANCE_STATUSES.map((s) => ({ value: s, label: CLEARANCE_LABELS[s] }));
@@ -56,14 +56,15 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
       )}
       {canSet ? (
         <View style={styles.form}>
-          <ChoiceChips
+          <Chips
+            variant="form"
             label="New decision"
             options={OPTIONS}
             value={form.values.status}
             onChange={(v) => form.setFieldValue('status', v)}
             testID="clearance-status"
+            error={form.submitCount > 0 && form.errors.status}
           />
-          {form.submitCount > 0 && form.errors.status ? <Text style={styles.error}>{form.errors.status}</Text> : null}
           {form.values.status ? (
             <TextField
               label={DETAIL_LABEL[form.values.status]}
@@ -84,5 +85,4 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
 const styles = StyleSheet.create({
   current: { gap: space.xs },
   form: { gap: space.md },
-  error: { color: colors.brick },
 });

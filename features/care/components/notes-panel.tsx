@@ -14,7 +14,7 @@ import { useAddNoteMutation, useEditNoteMutation, useNotesQuery } from '../api/n
 import { NOTE_EDIT_WINDOW_MINUTES, NOTE_VISIBILITY_LABELS, type NoteVisibility } from '../choices';
 import { noteSchema } from '../schemas';
 import type { NoteView } from '../types';
-import { ChoiceChips } from './choice-chips';
+import { Chips } from '@/features/ui/components/chips';
 
 const VISIBILITY_OPTIONS = (['team', 'family'] as const).map((v) => ({ value: v, label: NOTE_VISIBILITY_LABELS[v] }));
 
@@ -89,14 +89,15 @@ function NoteForm({ athleteId, assessmentId }: { athleteId: string; assessmentId
         error={form.submitCount > 0 && form.errors.text}
         hint={`You can correct it for ${NOTE_EDIT_WINDOW_MINUTES} minutes; after that it is kept as written.`}
       />
-      <ChoiceChips
+      <Chips
+        variant="form"
         label="Who may read it"
         options={VISIBILITY_OPTIONS}
         value={form.values.visibility}
         onChange={(v) => form.setFieldValue('visibility', v)}
         testID="note-visibility"
+        error={form.submitCount > 0 && form.errors.visibility}
       />
-      {form.submitCount > 0 && form.errors.visibility ? <Text style={styles.error}>{form.errors.visibility}</Text> : null}
       {form.status ? <Notice tone="error">{String(form.status)}</Notice> : null}
       <Button label="Add note" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="note-add" />
     </View>
@@ -109,5 +110,4 @@ const styles = StyleSheet.create({
   family: { borderLeftColor: colors.pine },
   form: { gap: space.md },
   row: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
-  error: { color: colors.brick },
 });
