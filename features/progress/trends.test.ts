@@ -10,6 +10,7 @@ import {
   roundKneeAngles,
   shareOf,
   sidedPatterns,
+  sessionShare,
   sortAthletes,
   type TrendAthlete,
 } from './trends';
@@ -30,6 +31,7 @@ function athlete(overrides: Partial<TrendAthlete>): TrendAthlete {
     rescreenDate: null,
     rescreenDue: true,
     latestFlags: { left: [], right: [], both: [], unsided: [] },
+    sessionsSinceScreen: null,
     ...overrides,
   };
 }
@@ -87,8 +89,17 @@ describe('filters, sorting and the CSV rows agree', () => {
       maturityBand: 'circa',
       latestFlags: { left: ['dynamic-knee-valgus'], right: [], both: [], unsided: [] },
       daysSinceLastScreen: 20,
+      sessionsSinceScreen: { attended: 3, held: 4 },
     }),
-    athlete({ firstName: 'Ben', lastName: 'Brook', sex: 'male', ageGroup: 'U15', maturityBand: 'post', daysSinceLastScreen: 80 }),
+    athlete({
+      firstName: 'Ben',
+      lastName: 'Brook',
+      sex: 'male',
+      ageGroup: 'U15',
+      maturityBand: 'post',
+      daysSinceLastScreen: 80,
+      sessionsSinceScreen: { attended: 5, held: 10 },
+    }),
     athlete({ firstName: 'Cai', lastName: 'Cole', sex: 'female', maturityBand: null, daysSinceLastScreen: null }),
   ];
   it.each([
@@ -109,10 +120,20 @@ describe('filters, sorting and the CSV rows agree', () => {
     expect(sortAthletes(rows, 'flags', true)[0]!.firstName).toBe('Ana');
   });
 
+  it('sorts by the share of sessions taken part in since the screen, lowest first, nothing to count last (our choice)', () => {
+    // Ben 5 of 10 = 0.5, Ana 3 of 4 = 0.75, Cai never screened.
+    expect(sortAthletes(rows, 'sessions').map((a) => a.firstName)).toEqual(['Ben', 'Ana', 'Cai']);
+    const none = athlete({ firstName: 'Dee', lastName: 'Dunn', sessionsSinceScreen: { attended: 0, held: 0 } });
+    expect(sessionShare(none)).toBeNull();
+    expect(sortAthletes([none, ...rows], 'sessions').map((a) => a.firstName)).toEqual(['Ben', 'Ana', 'Cai', 'Dee']);
+  });
+
   it('writes one CSV row per athlete after the header', () => {
     const csv = csvRows(filterAthletes(rows, { flag: 'any' }));
     expect(csv).toHaveLength(2);
     expect(csv[1]!.slice(0, 7)).toEqual(['Abbott', 'Ana', 'female', 'U13', 'circa', '', 'dynamic-knee-valgus']);
+    expect(csv[1]!.slice(-2)).toEqual(['3', '4']);
+    expect(csvRows([rows[2]!])[1]!.slice(-2)).toEqual(['', '']);
   });
 });
 

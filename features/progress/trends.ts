@@ -51,6 +51,11 @@ export type TrendAthlete = {
   rescreenDate: string | null;
   rescreenDue: boolean;
   latestFlags: SidedPatterns;
+  /**
+   * The squad's corrective sessions recorded after the newest screen (`held`) and how many of them the
+   * athlete took part in; null when never screened. `held` is 0 where the squad records no sessions.
+   */
+  sessionsSinceScreen: { attended: number; held: number } | null;
 };
 
 export type TrendsResponse = {
@@ -154,8 +159,17 @@ export function filterAthletes(rows: readonly TrendAthlete[], f: TrendFilters): 
   });
 }
 
-export type SortKey = 'name' | 'ageGroup' | 'maturityBand' | 'flags' | 'daysSinceLastScreen' | 'rescreenDue' | 'clearance';
-export const SORT_KEYS: readonly SortKey[] = ['name', 'ageGroup', 'maturityBand', 'flags', 'daysSinceLastScreen', 'rescreenDue', 'clearance'];
+export type SortKey = 'name' | 'ageGroup' | 'maturityBand' | 'flags' | 'daysSinceLastScreen' | 'rescreenDue' | 'clearance' | 'sessions';
+export const SORT_KEYS: readonly SortKey[] = ['name', 'ageGroup', 'maturityBand', 'flags', 'daysSinceLastScreen', 'rescreenDue', 'clearance', 'sessions'];
+
+/**
+ * Share of the sessions since the screen that the athlete took part in, 0-1; null where there is
+ * nothing to share (never screened, or no session recorded since).
+ */
+export function sessionShare(a: Pick<TrendAthlete, 'sessionsSinceScreen'>): number | null {
+  const s = a.sessionsSinceScreen;
+  return s && s.held > 0 ? s.attended / s.held : null;
+}
 
 const BAND_ORDER: Record<string, number> = { pre: 0, circa: 1, post: 2 };
 
@@ -175,6 +189,9 @@ function sortValue(a: TrendAthlete, key: SortKey): string | number {
       return a.rescreenDue ? 0 : 1;
     case 'clearance':
       return a.clearance ?? '~';
+    case 'sessions':
+      // Lowest share first: who is missing the corrective work (our choice); nothing to count goes last.
+      return sessionShare(a) ?? 2;
   }
 }
 
@@ -203,6 +220,8 @@ export const CSV_HEADER = [
   'days_since_last_screen',
   'rescreen_date',
   'rescreen_due',
+  'sessions_since_screen_taken_part',
+  'sessions_since_screen_held',
 ] as const;
 
 /** The table as CSV rows (header first); values only, the CSV writer does the quoting. */
@@ -223,6 +242,8 @@ export function csvRows(rows: readonly TrendAthlete[]): string[][] {
       a.daysSinceLastScreen === null ? '' : String(a.daysSinceLastScreen),
       a.rescreenDate ?? '',
       a.rescreenDue ? 'yes' : 'no',
+      a.sessionsSinceScreen ? String(a.sessionsSinceScreen.attended) : '',
+      a.sessionsSinceScreen ? String(a.sessionsSinceScreen.held) : '',
     ]),
   ];
 }

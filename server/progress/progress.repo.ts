@@ -36,6 +36,9 @@ export type SeasonAthlete = [
   flagSides: (string | null)[] | null,
   maturityBand: string | null,
   rescreenDate: string | null,
+  /** Sessions of the squad recorded after the newest screen, and those the athlete took part in. */
+  sessionsAttended: number,
+  sessionsHeld: number,
 ];
 export type Season = { squad: { id: string; name: string }; rounds: SeasonRound[]; athletes: SeasonAthlete[] };
 
@@ -112,17 +115,20 @@ export function progressRepo(db: Executor, scope: ClubScope) {
 
     /**
      * Between the days of two screens (a session on a screen's own day counts for neither), recorded from
-     * the training sheet: the sessions the athlete took part in, and those their current squad held.
+     * the training sheet: the sessions the athlete's current squad held, and how many of those they took
+     * part in (so never more than were held, even after a change of squad).
      */
     async sessionsBetween(athleteId: string, after: string, before: string): Promise<{ attended: number; held: number }> {
       const [row] = await preparedRows<{ attended: number; held: number }>(
         db,
         'progress_sessions_between',
-        `select
-          (select count(*)::int from training_attendance a join training_sessions s on s.id = a.session_id
-            where a.athlete_id = $1 and a.club_id = $2 and s.held_on > $3::date and s.held_on < $4::date) as attended,
-          (select count(*)::int from training_sessions s join athletes p on p.squad_id = s.squad_id
-            where p.id = $1 and s.club_id = $2 and s.held_on > $3::date and s.held_on < $4::date) as held`,
+        // The current squad's sessions between the two days (one range of the squad-and-day index), and
+        // for each one primary-key probe for the athlete's attendance.
+        `select count(*)::int as held, count(a.athlete_id)::int as attended
+          from athletes p
+          join training_sessions s on s.squad_id = p.squad_id and s.club_id = $2 and s.held_on > $3::date and s.held_on < $4::date
+          left join training_attendance a on a.session_id = s.id and a.athlete_id = p.id
+          where p.id = $1 and p.club_id = $2`,
         [athleteId, clubId, after, before],
       );
       return row ?? { attended: 0, held: 0 };
@@ -130,8 +136,9 @@ export function progressRepo(db: Executor, scope: ClubScope) {
 
     /**
      * A squad's season in one statement: the squad, its rounds with their summaries, and each current
-     * member with their newest screen (wherever it was: an athlete may have changed squad) and the
-     * clearance in force, as one small JSON value. The summaries (`round_summaries`,
+     * member with their newest screen (wherever it was: an athlete may have changed squad), the
+     * clearance in force and the squad's sessions since that screen (held, and taken part in), as one
+     * small JSON value. The summaries (`round_summaries`,
      * `athlete_latest_screens`) are kept by PostgreSQL on every write of what they sum. Null when the
      * squad is not in the club.
      */
@@ -139,7 +146,19 @@ export function progressRepo(db: Executor, scope: ClubScope) {
       const [head] = await preparedRows<{ squad: Season['squad'] | null; rounds: SeasonRound[]; athletes: SeasonAthlete[] }>(
         db,
         'progress_squad_season',
-        `select
+        // The squad's sessions after its oldest newest-screen (\`recent\`: one range of the squad-and-day
+        // index) and, per athlete, the days they took part (\`taken\`: one primary-key range per session),
+        // read once for the squad rather than once per athlete.
+        `with recent as (
+          select ts.id, ts.held_on from training_sessions ts
+          where ts.squad_id = $1 and ts.club_id = $2 and ts.held_on > (
+            select min(l.screened_on) from athletes m join athlete_latest_screens l on l.athlete_id = m.id
+            where m.squad_id = $1 and m.club_id = $2 and m.archived_at is null)
+        ),
+        taken as (
+          select a.athlete_id, array_agg(r.held_on) as days from recent r join training_attendance a on a.session_id = r.id group by a.athlete_id
+        )
+        select
           (select json_build_object('id', s.id, 'name', s.name) from squads s where s.id = $1 and s.club_id = $2) as squad,
           (select coalesce(json_agg(json_build_array(r.id, r.name, r.screened_on, coalesce(rs.screened, 0), rs.flagged, rs.knee_angles)
               order by r.screened_on, r.created_at, r.id), '[]')
@@ -147,12 +166,16 @@ export function progressRepo(db: Executor, scope: ClubScope) {
             left join round_summaries rs on rs.round_id = r.id
             where r.squad_id = $1 and r.club_id = $2) as rounds,
           (select coalesce(json_agg(json_build_array(m.id, m.first_name, m.last_name, m.sex, m.date_of_birth, c.status,
-              l.assessment_id, l.screened_on, l.flag_ids, l.flag_sides, l.maturity_band, l.rescreen_date) order by m.last_name, m.first_name, m.id), '[]')
+              l.assessment_id, l.screened_on, l.flag_ids, l.flag_sides, l.maturity_band, l.rescreen_date,
+              (select count(*) from unnest(tk.days) d where d > l.screened_on)::int,
+              (select count(*) from recent r where r.held_on > l.screened_on)::int)
+              order by m.last_name, m.first_name, m.id), '[]')
             from athletes m
             left join athlete_latest_screens l on l.athlete_id = m.id
             left join lateral (
               select status from clearances where athlete_id = m.id and club_id = $2 order by created_at desc limit 1
             ) c on true
+            left join taken tk on tk.athlete_id = m.id
             where m.squad_id = $1 and m.club_id = $2 and m.archived_at is null) as athletes`,
         [squadId, clubId],
       );

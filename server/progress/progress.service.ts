@@ -89,7 +89,22 @@ export function progressService(db: Executor, scope: ClubScope) {
       });
 
       const athletes: TrendAthlete[] = season.athletes.map(
-        ([id, firstName, lastName, sex, dateOfBirth, clearance, latestAssessmentId, lastScreenedOn, flagIds, flagSides, maturityBand, rescreenDate]) => {
+        ([
+          id,
+          firstName,
+          lastName,
+          sex,
+          dateOfBirth,
+          clearance,
+          latestAssessmentId,
+          lastScreenedOn,
+          flagIds,
+          flagSides,
+          maturityBand,
+          rescreenDate,
+          attended,
+          held,
+        ]) => {
           const rescreen = rescreenOf(lastScreenedOn, rescreenDate, today);
           return {
             id,
@@ -106,6 +121,7 @@ export function progressService(db: Executor, scope: ClubScope) {
             rescreenDate: rescreen.date,
             rescreenDue: rescreen.due,
             latestFlags: sidedPatterns(flagIds ?? [], flagSides ?? []),
+            sessionsSinceScreen: lastScreenedOn ? { attended, held } : null,
           };
         },
       );

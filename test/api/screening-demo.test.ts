@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessmentResults, assessments, athletes, clubs, rounds, squads } from '@/db/schema';
 import { DEMO_CLUB_NAME, DEMO_PASSWORD } from '@/server/dev/seed/demo-accounts';
 import { DEMO_OPEN_ROUND } from '@/server/dev/seed/demo-screening';
-import { DEMO_SESSION_SPAN } from '@/server/dev/seed/demo-training';
+import { DEMO_AUTUMN_SESSION_SPAN, DEMO_SESSION_SPAN } from '@/server/dev/seed/demo-training';
 import type { AthleteAssessmentItem, RoundDetail, RoundSummary } from '@/features/screening/contract';
 import { makeTestApp, signedInAgent } from '../fixtures/builders';
 import { createTestDb, type TestDb } from '../fixtures/test-db';
@@ -128,7 +128,8 @@ describe('demo screening data', () => {
     const squadId = squads_.find((s) => s.name === 'Under-13 mixed')!.id;
     const sessions = (await coach.get(`/api/squads/${squadId}/training-sessions`)).body.sessions as { heldOn: string; athleteIds: string[] }[];
     expect(sessions.length).toBeGreaterThan(0);
-    for (const s of sessions) expect(s.heldOn >= DEMO_SESSION_SPAN.from && s.heldOn <= DEMO_SESSION_SPAN.to).toBe(true);
+    const inSpan = (d: string) => [DEMO_SESSION_SPAN, DEMO_AUTUMN_SESSION_SPAN].some((span) => d >= span.from && d <= span.to);
+    for (const s of sessions) expect(inSpan(s.heldOn), s.heldOn).toBe(true);
     // An athlete screened in the mid-season and autumn rounds: the sessions between them are counted.
     const members = (await testDb.db.select({ id: athletes.id }).from(athletes).where(eq(athletes.squadId, squadId))).map((a) => a.id);
     const seen: { attended: number; held: number }[] = [];
@@ -141,5 +142,11 @@ describe('demo screening data', () => {
     expect(counted.length).toBeGreaterThan(0);
     for (const x of seen) expect(x.attended).toBeLessThanOrEqual(x.held);
     expect(counted.some((x) => x.attended < x.held)).toBe(true);
+
+    // The autumn block comes after the autumn round: the squad's table counts it since each newest screen.
+    const trends = (await coach.get(`/api/squads/${squadId}/trends`)).body.athletes as { sessionsSinceScreen: { attended: number; held: number } | null }[];
+    const since = trends.map((a) => a.sessionsSinceScreen).filter((x): x is { attended: number; held: number } => !!x && x.held > 0);
+    expect(since.length).toBeGreaterThan(0);
+    for (const x of since) expect(x.attended).toBeLessThanOrEqual(x.held);
   });
 });

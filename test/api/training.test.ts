@@ -226,4 +226,34 @@ describe('recording who took part in a session', () => {
     expect(ben.body.comparison).toBeNull();
     expect(ben.body.sessionsBetween).toBeNull();
   });
+
+  it("squad trends count each athlete's sessions since their newest screen, in the table and the CSV", async () => {
+    // Recorded so far for this squad (tests above): EARLIER, -60, -55, -50, LATER (-20) and today [Ana].
+    // Two more: -10 [Ben, Dee] and -5 [Ben, Cat]. Since the newest screens (all on LATER; a session on
+    // the screen's own day does not count): -10, -5 and today, 3 held. Ana took part in today's only (1);
+    // Ben in -10 and -5 (2); Dee in -10 (1); Cat was never screened (null). Hand-counted.
+    expect((await record(as.coach, { heldOn: day(-10), athleteIds: [ids.ben, ids.dee] })).status).toBe(201);
+    expect((await record(as.coach, { heldOn: day(-5), athleteIds: [ids.ben, ids.cat] })).status).toBe(201);
+    const res = await as.coach.get(`/api/squads/${ids.squad}/trends`);
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    const since = Object.fromEntries((res.body.athletes as { id: string; sessionsSinceScreen: unknown }[]).map((a) => [a.id, a.sessionsSinceScreen]));
+    expect(since).toEqual({
+      [ids.ana!]: { attended: 1, held: 3 },
+      [ids.ben!]: { attended: 2, held: 3 },
+      [ids.cat!]: null,
+      [ids.dee!]: { attended: 1, held: 3 },
+    });
+    // Fin's squad recorded one session, before his screen: none since.
+    const other = await as.coach.get(`/api/squads/${ids.other}/trends`);
+    expect(other.body.athletes.map((a: { sessionsSinceScreen: unknown }) => a.sessionsSinceScreen)).toEqual([{ attended: 0, held: 0 }]);
+
+    const csv = await as.coach.get(`/api/squads/${ids.squad}/trends?format=csv`);
+    expect(csv.status).toBe(200);
+    const lines = csv.text.trim().split(/\r?\n/);
+    expect(lines[0]!.split(',').slice(-2)).toEqual(['sessions_since_screen_taken_part', 'sessions_since_screen_held']);
+    const ana = lines.find((l) => l.startsWith('Ames,Ana,'))!;
+    expect(ana.split(',').slice(-2)).toEqual(['1', '3']);
+    const cat = lines.find((l) => l.startsWith('Cole,Cat,'))!;
+    expect(cat.split(',').slice(-2)).toEqual(['', '']);
+  });
 });

@@ -1,5 +1,6 @@
 // The server side of `npm run bench:api`: migrates an empty database, seeds one club of 2,000 athletes
-// in 50 squads of 40 with 8 rounds each (16,000 submitted screens evaluated by the real engine), then
+// in 50 squads of 40 with 8 rounds each (16,000 submitted screens evaluated by the real engine) and a
+// year of corrective sessions twice a week with who took part (about 170,000 rows), then
 // serves the real app plus a bare `SELECT 1` route mounted here only, never in production.
 // Prints one line `READY {json}` with what the load generator needs.
 import express from 'express';
@@ -91,6 +92,19 @@ async function seed(db: ReturnType<typeof connect>['db']) {
     done += created.length;
     if (done % 4000 === 0) process.stderr.write(`[bench] seeded ${done} screens\n`);
   }
+  // Corrective sessions twice a week (Tuesday, Thursday) through the year of rounds and after the last
+  // one, each athlete taking part in about 85 % (our invention): what the trends table and the history
+  // count since and between screens.
+  await db.execute(sql`
+    insert into training_sessions (club_id, squad_id, held_on)
+    select ${clubId}, s.id, d::date from squads s
+    cross join generate_series('2025-01-07'::date, '2025-12-18'::date, interval '1 day') d
+    where s.club_id = ${clubId} and extract(isodow from d) in (2, 4)`);
+  await db.execute(sql`
+    insert into training_attendance (session_id, athlete_id, club_id)
+    select ts.id, a.id, ${clubId} from training_sessions ts
+    join athletes a on a.squad_id = ts.squad_id
+    where ts.club_id = ${clubId} and abs(hashtext(ts.id::text || a.id::text)) % 100 < 85`);
   return { squadId: squadRows[0]!.id, athleteId: members0(athleteRows, squadRows[0]!.id) };
 }
 

@@ -61,6 +61,18 @@ test('squad trends: load, filter, sort, CSV, charts', async ({ page }, info) => 
   expect(descending).toEqual([...ascending].reverse());
   expect(descending).not.toEqual(ascending);
 
+  // Sort by the sessions taken part in since the newest screen: lowest share first (the demo records a
+  // season of sessions), rows with nothing to count last.
+  if (info.project.name === 'wide') await page.getByTestId('sort-sessions').click();
+  else await page.getByTestId('sort-choice-sessions').click();
+  const rowTexts = await page.getByTestId('trends-row').allInnerTexts();
+  const shares = rowTexts.map((t) => {
+    const m = /(\d+) of (?:the )?(\d+)/.exec(t.replace(/\s+/g, ' '));
+    return m ? Number(m[1]) / Number(m[2]) : Infinity;
+  });
+  expect(shares.filter(Number.isFinite).length, rowTexts.join(' | ')).toBeGreaterThan(0);
+  expect(shares).toEqual([...shares].sort((x, y) => x - y));
+
   // CSV of the filtered table: the same athletes, one line each after the header.
   const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('download-csv').click()]);
   expect(download.suggestedFilename()).toMatch(/-trends-\d{4}-\d{2}-\d{2}\.csv$/);

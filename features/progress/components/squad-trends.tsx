@@ -24,6 +24,7 @@ const SORT_LABELS: Record<SortKey, string> = {
   daysSinceLastScreen: 'Last screen',
   rescreenDue: 'Re-screen due',
   clearance: 'Clearance',
+  sessions: 'Sessions taken part in',
 };
 
 /** The squad over the season: filterable table beside the charts on wide screens, cards then charts on a phone. */

@@ -6,19 +6,23 @@ import { DEMO_USERS } from './demo-accounts';
 import type { DemoIds } from './demo';
 import { seededRandom } from './random';
 
-/**
- * Corrective sessions of an invented summer for the demo squads: twice a week (Tuesday and Thursday)
- * between the mid-season and autumn rounds, with a four-week summer break, each athlete missing some.
- * Recorded through the training repository, as the training sheet does.
- */
-export const DEMO_SESSION_SPAN = { from: '2026-06-16', to: '2026-09-10', breakFrom: '2026-07-20', breakTo: '2026-08-16' } as const;
+type Span = { from: string; to: string; breakFrom: string; breakTo: string };
 
-function sessionDays(): string[] {
+/**
+ * Corrective sessions of an invented season for the demo squads: twice a week (Tuesday and Thursday)
+ * between the mid-season and autumn rounds, with a four-week summer break, and again after the autumn
+ * round until late November, with a week's break; each athlete missing some. Recorded through the
+ * training repository, as the training sheet does.
+ */
+export const DEMO_SESSION_SPAN: Span = { from: '2026-06-16', to: '2026-09-10', breakFrom: '2026-07-20', breakTo: '2026-08-16' };
+export const DEMO_AUTUMN_SESSION_SPAN: Span = { from: '2026-09-22', to: '2026-11-26', breakFrom: '2026-10-26', breakTo: '2026-11-01' };
+
+function sessionDays(span: Span): string[] {
   const out: string[] = [];
-  for (let d = new Date(`${DEMO_SESSION_SPAN.from}T12:00:00Z`); d.toISOString().slice(0, 10) <= DEMO_SESSION_SPAN.to; d.setUTCDate(d.getUTCDate() + 1)) {
+  for (let d = new Date(`${span.from}T12:00:00Z`); d.toISOString().slice(0, 10) <= span.to; d.setUTCDate(d.getUTCDate() + 1)) {
     const day = d.toISOString().slice(0, 10);
     const weekday = d.getUTCDay();
-    if ((weekday === 2 || weekday === 4) && !(day >= DEMO_SESSION_SPAN.breakFrom && day <= DEMO_SESSION_SPAN.breakTo)) out.push(day);
+    if ((weekday === 2 || weekday === 4) && !(day >= span.breakFrom && day <= span.breakTo)) out.push(day);
   }
   return out;
 }
@@ -41,7 +45,7 @@ export async function seedDemoTraining(db: Db, ids: Pick<DemoIds, 'clubId' | 'sq
     const squad = rows.filter((r) => r.squadId === squadId);
     // Each athlete's chance of being there: most come nearly always, a few far less (our invention).
     const turnout = new Map(squad.map((a, i) => [a.id, i % 5 === 3 ? 0.45 : 0.85 + rand() * 0.1]));
-    for (const heldOn of sessionDays()) {
+    for (const heldOn of [...sessionDays(DEMO_SESSION_SPAN), ...sessionDays(DEMO_AUTUMN_SESSION_SPAN)]) {
       const athleteIds = squad.filter((a) => rand() < turnout.get(a.id)!).map((a) => a.id);
       if (athleteIds.length) await repo.record(squadId, { heldOn, athleteIds, note: '' });
     }
