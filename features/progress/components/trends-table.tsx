@@ -17,8 +17,9 @@ function clearanceText(value: string | null): string | null {
 
 const list = (p: PatternId[]) => (p.length ? p.map((x) => PATTERN_SHORT[x]).join(', ') : '–');
 // In the table's narrow columns, one flag a line, each marked where it starts (a name may wrap; with
-// commas, a comma after a wrapped name sat alone on a line).
-const lines = (p: PatternId[]) => (p.length ? p.map((x) => `•\u00a0${PATTERN_SHORT[x]}`).join('\n') : '–');
+// commas, a comma after a wrapped name sat alone on a line). A narrow no-break space keeps the mark with
+// the name and leaves room for the longest single word.
+const lines = (p: PatternId[]) => (p.length ? p.map((x) => `•\u202f${PATTERN_SHORT[x]}`).join('\n') : '–');
 
 /** "3 of 4" sessions since the screen; "none recorded" where the squad recorded none; "–" never screened. */
 function sessionsText(a: TrendAthlete): string {
@@ -29,21 +30,21 @@ function sessionsText(a: TrendAthlete): string {
 
 type Col = { key: SortKey | null; label: string; flex: number; cell: (a: TrendAthlete) => string };
 const COLUMNS: Col[] = [
-  { key: 'name', label: 'Athlete', flex: 1.2, cell: (a) => `${a.lastName}, ${a.firstName}` },
+  { key: 'name', label: 'Athlete', flex: 1.1, cell: (a) => `${a.lastName}, ${a.firstName}` },
   { key: 'ageGroup', label: 'Age', flex: 0.6, cell: (a) => `${a.ageGroup} · ${a.sex === 'female' ? 'F' : 'M'}` },
   { key: 'maturityBand', label: 'Maturity', flex: 0.9, cell: (a) => BAND_SHORT[a.maturityBand ?? 'unknown'] },
-  { key: 'flags', label: 'Flags left', flex: 1.3, cell: (a) => lines(a.latestFlags.left) },
-  { key: null, label: 'Flags right', flex: 1.3, cell: (a) => lines(a.latestFlags.right) },
-  { key: null, label: 'Other flags', flex: 1.3, cell: (a) => lines([...a.latestFlags.both, ...a.latestFlags.unsided]) },
-  { key: 'clearance', label: 'Clearance', flex: 1.2, cell: (a) => clearanceText(a.clearance) ?? '–' },
+  { key: 'flags', label: 'Flags left', flex: 1.4, cell: (a) => lines(a.latestFlags.left) },
+  { key: null, label: 'Flags right', flex: 1.4, cell: (a) => lines(a.latestFlags.right) },
+  { key: null, label: 'Other flags', flex: 1.4, cell: (a) => lines([...a.latestFlags.both, ...a.latestFlags.unsided]) },
+  { key: 'clearance', label: 'Clearance', flex: 1.1, cell: (a) => clearanceText(a.clearance) ?? '–' },
   {
     key: 'daysSinceLastScreen',
     label: 'Last screen',
     flex: 0.8,
     cell: (a) => (a.daysSinceLastScreen === null ? 'Never' : capitalise(daysAgo(a.daysSinceLastScreen))),
   },
-  { key: 'sessions', label: 'Sessions since screen', flex: 1.1, cell: sessionsText },
-  { key: 'rescreenDue', label: 'Re-screen', flex: 0.9, cell: (a) => (a.rescreenDue ? 'Due' : `from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`) },
+  { key: 'sessions', label: 'Sessions since screen', flex: 1, cell: sessionsText },
+  { key: 'rescreenDue', label: 'Re-screen', flex: 0.8, cell: (a) => (a.rescreenDue ? 'Due' : `from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`) },
 ];
 
 type Props = { rows: TrendAthlete[]; sort: SortKey; descending: boolean; onSort: (key: SortKey) => void };
