@@ -188,6 +188,24 @@ describe('Outbox', () => {
     expect(sent).toHaveLength(1);
   });
 
+  it('keeps the words of the fields a refusal names, not the general line', async () => {
+    const { outbox } = setup({
+      send: async () => {
+        throw Object.assign(new Error('Some fields need attention.'), {
+          status: 400,
+          code: 'validation_failed',
+          fields: { athleteIds: 'Some of these athletes are not in this squad any more: open the sheet again.' },
+        });
+      },
+    });
+    await outbox.add({ ...base, kind: 'submit', assessmentId: 'a1' });
+    await vi.runAllTimersAsync();
+    expect(outbox.getState().entries[0]).toMatchObject({
+      state: 'refused',
+      error: { status: 400, code: 'validation_failed', message: 'Some of these athletes are not in this squad any more: open the sheet again.' },
+    });
+  });
+
   it('whenDone resolves when the entry is on the server and rejects when it is refused', async () => {
     const { outbox } = setup({
       send: async (e) => {

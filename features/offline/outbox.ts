@@ -67,8 +67,8 @@ export interface OutboxStorage {
   remove(seq: number): Promise<void>;
 }
 
-/** What the sender throws: an HTTP status (0 when there was no answer), a code and a message. */
-export type SendError = Error & { status: number; code?: string };
+/** What the sender throws: an HTTP status (0 when there was no answer), a code, a message and the fields refused. */
+export type SendError = Error & { status: number; code?: string; fields?: Record<string, string> };
 
 export type OutboxDeps = {
   storage: OutboxStorage;
@@ -342,7 +342,9 @@ export class Outbox {
 function toOutboxError(e: unknown): OutboxError {
   if (typeof e === 'object' && e !== null && typeof (e as SendError).status === 'number') {
     const err = e as SendError;
-    return { status: err.status, code: err.code ?? 'http_error', message: err.message };
+    // A refusal naming fields keeps their words (what to fix), not the general "Some fields need attention."
+    const fields = err.fields ? Object.values(err.fields) : [];
+    return { status: err.status, code: err.code ?? 'http_error', message: fields.length ? fields.join(' ') : err.message };
   }
   return { status: 0, code: 'offline', message: e instanceof Error ? e.message : String(e) };
 }

@@ -42,10 +42,10 @@ describe('sending a record of who took part', () => {
     ]);
   });
 
-  it("keeps the field's words when the server refuses it, not the general line", async () => {
+  it('passes a refusal on with the fields the server named (the outbox keeps their words)', async () => {
     const refusal = 'Some of these athletes are not in this squad any more: open the sheet again.';
     vi.stubGlobal('fetch', answer(400, { error: { code: 'validation_failed', message: 'Some fields need attention.', fields: { athleteIds: refusal } } }));
-    await expect(sendAttendance(entry, new QueryClient())).rejects.toMatchObject({ status: 400, message: refusal });
+    await expect(sendAttendance(entry, new QueryClient())).rejects.toMatchObject({ status: 400, fields: { athleteIds: refusal } });
   });
 
   it('passes a lost connection on unchanged, so the outbox tries again', async () => {

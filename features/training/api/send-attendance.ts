@@ -2,7 +2,7 @@
 // (the sender registered by TrainingSync). Small on purpose: the signed-in shell loads it for everyone who
 // screens, so it imports only the API client, the query keys and the offline types.
 import type { QueryClient } from '@tanstack/react-query';
-import { api, ApiError, sentFromDevice } from '@/features/api/client';
+import { api, sentFromDevice } from '@/features/api/client';
 import type { AttendanceEntry } from '@/features/offline/outbox';
 import { progressKeys } from '@/features/progress/api/keys';
 import type { RecordSessionInput, SessionView } from '../schemas';
@@ -20,14 +20,7 @@ export const recordSession = (squadId: string, input: RecordSessionInput, device
 
 /** Sends a record kept on the device; the sheet's list and the athletes' progress are asked for again. */
 export async function sendAttendance(entry: AttendanceEntry, client: QueryClient): Promise<void> {
-  try {
-    await recordSession(entry.squadId, entry.record, { idempotencyKey: entry.key, clubId: entry.clubId });
-  } catch (e) {
-    // A refused record is kept with the server's message; the field's words say what to do, the
-    // general "Some fields need attention." does not.
-    if (e instanceof ApiError && e.fields && Object.keys(e.fields).length) throw new ApiError(e.status, e.code, Object.values(e.fields).join(' '), e.fields);
-    throw e;
-  }
+  await recordSession(entry.squadId, entry.record, { idempotencyKey: entry.key, clubId: entry.clubId });
   await Promise.all([
     client.invalidateQueries({ queryKey: trainingKeys.sessions(entry.clubId, entry.squadId) }),
     client.invalidateQueries({ queryKey: progressKeys.club(entry.clubId) }),
