@@ -6,7 +6,7 @@ import type { Db } from '@/db/client';
 import type * as schema from '@/db/schema';
 import { athletes, consents, guardianLinks, memberships, squads, users, type Role } from '@/db/schema';
 import { athleteFilter, type ClubScope } from '@/server/access/scope';
-import type { Athlete, ConsentView } from '@/features/athletes/api/types';
+import type { Athlete, ConsentView, SquadSummary } from '@/features/athletes/api/types';
 import { latestClearances } from '@/server/care/clearance.repo';
 
 /** The database or a transaction: repositories work inside either. */
@@ -202,9 +202,18 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
     },
 
     // --- squads -----------------------------------------------------------------------------------
+    /** Active squads with their current members and their last corrective session (null if none is recorded). */
     async squads() {
       return db
-        .select({ id: squads.id, name: squads.name, athleteCount: sql<number>`count(${athletes.id})::int` })
+        .select({
+          id: squads.id,
+          name: squads.name,
+          athleteCount: sql<number>`count(${athletes.id})::int`,
+          // The newest row of the squad-and-day index, and its attendance by primary key.
+          lastSession: sql<SquadSummary['lastSession']>`(
+            select json_build_object('heldOn', ts.held_on, 'attended', (select count(*)::int from training_attendance ta where ta.session_id = ts.id))
+            from training_sessions ts where ts.squad_id = ${squads.id} order by ts.held_on desc limit 1)`,
+        })
         .from(squads)
         .leftJoin(athletes, and(eq(athletes.squadId, squads.id), isNull(athletes.archivedAt)))
         .where(squadOfClub(isNull(squads.archivedAt)))

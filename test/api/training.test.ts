@@ -256,4 +256,14 @@ describe('recording who took part in a session', () => {
     const cat = lines.find((l) => l.startsWith('Cole,Cat,'))!;
     expect(cat.split(',').slice(-2)).toEqual(['', '']);
   });
+
+  it("lists each squad's last session and how many took part with the squads (the homes' squad cards)", async () => {
+    // Newest recorded above: today for this squad (Ana only, after the replacement), -40 for the other (Fin).
+    const res = await as.tester.get('/api/squads');
+    expect(res.status).toBe(200);
+    const bySquad = Object.fromEntries((res.body.squads as { id: string; lastSession: unknown }[]).map((s) => [s.id, s.lastSession]));
+    expect(bySquad[ids.squad!]).toEqual({ heldOn: day(0), attended: 1 });
+    expect(bySquad[ids.other!]).toEqual({ heldOn: day(-40), attended: 1 });
+    expect((await as.parent.get('/api/squads')).status).toBe(403);
+  });
 });

@@ -16,6 +16,14 @@ test('training sheet: a squad by exercise, holds first, names open results, prin
   test.slow();
   await signIn(page, 'tester@squadline.test');
   await expect(page.getByTestId('menu-button').or(page.getByRole('navigation'))).toBeVisible();
+  // The home's squad card says when the squad last had a corrective session (the demo records a season)
+  // and leads to the squad's sheet.
+  const u13 = await page.evaluate(
+    async () => ((await (await fetch('/api/squads')).json()) as { squads: { id: string; name: string }[] }).squads.find((s) => s.name === 'Under-13 mixed')!,
+  );
+  const last = page.getByTestId(`squad-last-session-${u13.id}`);
+  await expect(last).toContainText(/Last corrective session .+ · \d+ took part/);
+  await expect(last.getByRole('link', { name: 'Training sheet →' })).toHaveAttribute('href', `/training?squad=${u13.id}`);
   await openNav(page);
   await page.getByRole('navigation').getByRole('link', { name: 'Training sheet' }).click();
   await expect(page.getByTestId('training-sheet')).toBeVisible();

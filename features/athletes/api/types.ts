@@ -20,7 +20,13 @@ export type Athlete = {
   /** Club staff only; parents do not see the other adults linked to a child. */
   guardians?: Guardian[];
 };
-export type SquadSummary = { id: string; name: string; athleteCount: number };
+export type SquadSummary = {
+  id: string;
+  name: string;
+  athleteCount: number;
+  /** The squad's last corrective session recorded from its training sheet, and how many took part. */
+  lastSession: { heldOn: string; attended: number } | null;
+};
 export type Squad = { id: string; name: string; archived: boolean };
 export type ConsentRecord = {
   id: string;

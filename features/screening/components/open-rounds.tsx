@@ -59,6 +59,17 @@ export function OpenRounds() {
                 <Text style={styles.secondaryText}>All {open.length} open rounds →</Text>
               </Link>
             ) : null}
+            {squad.lastSession ? (
+              // Whether the corrective work goes on between screens, and the way to the squad's sheet.
+              <View style={styles.round} testID={`squad-last-session-${squad.id}`}>
+                <Text variant="small">
+                  Last corrective session {formatDate(squad.lastSession.heldOn)} · {squad.lastSession.attended} took part
+                </Text>
+                <Link href={`/training?squad=${squad.id}`} style={styles.secondary}>
+                  <Text style={styles.secondaryText}>Training sheet →</Text>
+                </Link>
+              </View>
+            ) : null}
           </Card>
         );
       })}
