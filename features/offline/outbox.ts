@@ -1,16 +1,15 @@
 // The device's queue of changes waiting for the server: draft saves, photos, submits and records of who
-// took part in a training session, kept on the
-// device (IndexedDB through OutboxStorage) and sent one at a time, oldest first, when there is a
-// connection. Pure TypeScript: no React, no browser API; the sender, the clock and the storage are
-// injected so tests drive it with fake timers and a memory store.
+// took part in a training session, kept on the device (IndexedDB through OutboxStorage) and sent one at a
+// time, oldest first, when there is a connection. Pure TypeScript: no React, no browser API; the sender,
+// the clock and the storage are injected so tests drive it with fake timers and a memory store.
 //
 // - Order: entries go out in the order they were added. A refused draft holds back the later entries of
 //   the same assessment (a submit must never go out on an older draft); other assessments carry on.
 // - Retry: a lost connection, a timeout or a server error keeps the entry at the head and retries with
 //   back-off; coming back online retries at once. The entry keeps its idempotency key, so a request that
 //   reached the server before the connection dropped is answered from the server's record, not redone.
-// - Refused (400/403/404/413/...): kept on the device with the server's message until the tester
-//   discards it or sends it again; never silently dropped.
+// - Refused (400/403/404/413/...): kept on the device with the server's message (the words of the fields
+//   it names) until the tester discards it or sends it again; never silently dropped.
 
 export type OutboxKind = 'draft' | 'photo' | 'submit' | 'attendance';
 
