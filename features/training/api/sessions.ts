@@ -30,6 +30,9 @@ export function useSessionsQuery(squadId: string) {
   });
 }
 
+/** How long a record waits for an earlier one of the same day that is being sent (our choice). */
+const IN_FLIGHT_WAIT_MS = 8_000;
+
 /** How a record was saved: on the server, or kept on this phone until the connection is back. */
 export type RecordOutcome = 'sent' | 'kept';
 
@@ -57,12 +60,22 @@ export function useRecordSessionMutation(squadId: string) {
         return 'kept' as const;
       };
       if (!connectivity.isOnline()) return keepOnPhone();
-      // A record of the same day already going out lands first, so this newer one is the one kept.
+      // A record of the same day already going out must land first, so that this newer one is the one
+      // kept: wait for it a little, else queue this one behind it (the queue keeps the order).
       const going = device.outbox.getState();
       const inFlight = going.entries.find(
         (e) => e.seq === going.sending && e.kind === 'attendance' && e.squadId === squadId && e.record.heldOn === input.heldOn,
       );
-      if (inFlight) await device.outbox.whenDone(inFlight.seq).catch(() => undefined);
+      if (inFlight) {
+        const landed = await Promise.race([
+          device.outbox.whenDone(inFlight.seq).then(
+            () => true,
+            () => true,
+          ),
+          new Promise<false>((resolve) => setTimeout(() => resolve(false), IN_FLIGHT_WAIT_MS)),
+        ]);
+        if (!landed) return keepOnPhone();
+      }
       try {
         await recordSession(squadId, input);
       } catch (e) {

@@ -156,7 +156,7 @@ function RecordForm({
         const what = `${n} ${n === 1 ? 'athlete' : 'athletes'} on ${formatDate(input.heldOn)}.`;
         onDone(
           how === 'kept'
-            ? { title: 'Kept on this phone', words: `${what} No connection: it is sent when the connection is back.` }
+            ? { title: 'Kept on this phone', words: `${what} It goes to the server as soon as the connection allows.` }
             : { title: 'Recorded', words: what },
         );
       } catch (error) {
