@@ -9,3 +9,16 @@ export function recheckWords(recheckDate: string | null, today: string, locale?:
   const when = formatDate(recheckDate, { locale });
   return recheckDate < today ? `It was planned for around ${when} and is due now: the coaches will arrange it.` : `Around ${when}.`;
 }
+
+/**
+ * How much of the corrective work the child has done since the check a parent is reading (our wording):
+ * nothing is said where the squad keeps no record of its sessions. `screenedOn` is YYYY-MM-DD.
+ */
+export function sessionsSinceWords(firstName: string, screenedOn: string, sessions: { attended: number; held: number } | null, locale?: string): string | null {
+  if (!sessions || sessions.held === 0) return null;
+  const since = formatDate(screenedOn, { locale });
+  const { attended, held } = sessions;
+  return held === 1
+    ? `Since the check of ${since}, the squad held 1 exercise session; ${firstName} ${attended ? 'took part' : 'was not there'}.`
+    : `Since the check of ${since}, ${firstName} took part in ${attended} of the ${held} exercise sessions the squad held.`;
+}

@@ -92,6 +92,12 @@ export type FamilyView = {
   latest: SummaryRelease | null;
   /** Null until two screens of the child have been released to the family. */
   comparison: FamilyComparison | null;
+  /**
+   * Since the latest released screen (after its day, up to today): the exercise sessions the child's squad
+   * recorded and how many the child took part in. Null without a released screen; `held` 0 where the
+   * squad keeps no record.
+   */
+  sessionsSinceLatest: { attended: number; held: number } | null;
   earlier: SummaryRelease[];
   notes: NoteView[];
   /** Empty unless the club lets parents see their own child's photos and photo consent is in force. */

@@ -5,7 +5,9 @@ import { athletes, consents, summaryEmails } from '@/db/schema';
 import { buildFamilySummary } from '@/features/care/family-summary';
 import { strengthBlock } from '@/features/care/strength-block';
 import type { FamilyComparison, FamilySummary, FamilyView, ReleasePreview } from '@/features/care/types';
+import { todayIso } from '@/features/athletes/age';
 import { compareScreens } from '@/features/progress/compare';
+import { addDays } from '@/features/progress/trends';
 import { familySummary } from '@/features/progress/wording';
 import { progressRepo } from '@/server/progress/progress.repo';
 import { getTask, type AssessmentResult, type TaskId } from '@/features/screening/engine';
@@ -189,9 +191,22 @@ export function summaryService(deps: SummaryDeps, scope: ClubScope) {
         detail: { what: 'family summary' },
       });
       const [laterScreen, earlierScreen] = releasedScreens;
-      const sessions =
-        laterScreen && earlierScreen ? await progressRepo(db, scope).sessionsBetween(athleteId, earlierScreen.screenedOn, laterScreen.screenedOn) : null;
-      return { athlete, latest, comparison: familyComparison(releasedScreens, sessions), earlier: releases.slice(1), notes, photos, photosAllowed };
+      const progress = progressRepo(db, scope);
+      const [sessions, sessionsSinceLatest] = await Promise.all([
+        laterScreen && earlierScreen ? progress.sessionsBetween(athleteId, earlierScreen.screenedOn, laterScreen.screenedOn) : null,
+        // Up to and including today: the bound is the day after.
+        latest ? progress.sessionsBetween(athleteId, latest.summary.screenedOn, addDays(todayIso(), 1)) : null,
+      ]);
+      return {
+        athlete,
+        latest,
+        comparison: familyComparison(releasedScreens, sessions),
+        sessionsSinceLatest,
+        earlier: releases.slice(1),
+        notes,
+        photos,
+        photosAllowed,
+      };
     },
   };
 }

@@ -142,8 +142,12 @@ describe('the family comparison of the last two released screens', () => {
     await session('2026-03-17', [ids.ida!]);
     await session('2026-04-14', [ids.max!]);
     await session('2026-05-20', [ids.max!]);
-    const c = (await as.parentA.get(`/api/athletes/${ids.max}/summary`)).body.comparison;
+    const view = (await as.parentA.get(`/api/athletes/${ids.max}/summary`)).body;
+    const c = view.comparison;
     expect(c.lines).toContain('Your child took part in 2 of the 3 exercise sessions the squad held between the two checks.');
+    // Since the latest released screen (11 May), up to today: the session of 20 May, with Max.
+    expect(view.latest.summary.screenedOn).toBe('2026-05-11');
+    expect(view.sessionsSinceLatest).toEqual({ attended: 1, held: 1 });
     // The staff compare the last two submitted screens (6 April and 11 May): one session between, with Max.
     expect((await as.coach.get(`/api/athletes/${ids.max}/progress`)).body.sessionsBetween).toEqual({ attended: 1, held: 1 });
   });

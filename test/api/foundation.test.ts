@@ -205,7 +205,7 @@ describe('club scope', () => {
     const agent = await signedInAgent(app, 'tester@hillside.test');
     const res = await agent.get('/api/squads');
     expect(res.status).toBe(200);
-    expect(res.body.squads).toEqual([{ id: expect.any(String), name: 'Under-13', athleteCount: 1 }]);
+    expect(res.body.squads).toEqual([{ id: expect.any(String), name: 'Under-13', athleteCount: 1, lastSession: null }]);
     const cross = await agent.get('/api/squads').set('X-Club-Id', ids.club!);
     expect(cross.status).toBe(403);
   });

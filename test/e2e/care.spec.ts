@@ -79,6 +79,11 @@ test("a parent reads their child's summary in plain words, with the plan and fam
   await page.getByTestId('child-card').filter({ hasText: 'Maya' }).getByTestId('child-summary-link').click();
   await expect(page.getByTestId('family-notes')).toContainText('Keep the ankle exercises going');
   await expect(page.getByTestId('family-notes')).not.toContainText('heel soreness');
+  // The plan says how much of the corrective work Maya has done since that check (the demo squad keeps a
+  // record of its sessions; other tests may add one meanwhile, so the counts are read as a pattern).
+  await expect(page.getByTestId('family-sessions')).toContainText(
+    /^Since the check of .+, Maya took part in \d+ of the \d+ exercise sessions the squad held\.$/,
+  );
   // Between the two children there is a plan with exercises and their how-to.
   await page.goto('/');
   await page.getByTestId('child-card').filter({ hasText: 'Theo' }).getByTestId('child-summary-link').click();

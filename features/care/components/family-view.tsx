@@ -5,10 +5,10 @@ import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
 import { useFamilyViewQuery } from '../api/get-family-view';
-import type { FamilyComparison, FamilySummary, SummaryRelease } from '../types';
+import type { FamilyComparison, FamilySummary, FamilyView as FamilyViewData, SummaryRelease } from '../types';
 import { formatDate } from '@/features/ui/format-date';
 import { todayIso } from '@/features/athletes/age';
-import { recheckWords } from '../recheck-words';
+import { recheckWords, sessionsSinceWords } from '../recheck-words';
 
 /** A parent's page for one child: the latest released summary in plain words, the plan with how-to, family notes, earlier summaries. */
 export function FamilyView({ athleteId }: { athleteId: string }) {
@@ -16,7 +16,7 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
   const { isWide } = useBreakpoints();
   if (query.isPending) return <Text>Loading…</Text>;
   if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
-  const { athlete, latest, comparison, earlier, notes, photos } = query.data;
+  const { athlete, latest, comparison, sessionsSinceLatest, earlier, notes, photos } = query.data;
   return (
     <View style={styles.wrap} testID="family-view">
       <Text variant="title" accessibilityRole="header">
@@ -31,7 +31,7 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
             {comparison ? <Comparison comparison={comparison} /> : null}
           </View>
           <View style={[styles.wrap, isWide && styles.column]}>
-            <Plan summary={latest.summary} />
+            <Plan summary={latest.summary} sessions={sessionsSinceLatest} />
           </View>
         </View>
       )}
@@ -102,11 +102,13 @@ function Comparison({ comparison }: { comparison: FamilyComparison }) {
   );
 }
 
-function Plan({ summary }: { summary: FamilySummary }) {
+function Plan({ summary, sessions }: { summary: FamilySummary; sessions: FamilyViewData['sessionsSinceLatest'] }) {
+  const done = sessionsSinceWords(summary.athleteFirstName, summary.screenedOn, sessions);
   return (
     <Card testID="family-plan">
       <Text variant="heading">{`What ${summary.athleteFirstName} will work on`}</Text>
       <Text>{summary.howOften}</Text>
+      {done ? <Text testID="family-sessions">{done}</Text> : null}
       {summary.onHold ? (
         <Notice tone="error" title="On hold for now">
           {summary.onHold}
