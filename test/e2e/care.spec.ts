@@ -79,15 +79,19 @@ test("a parent reads their child's summary in plain words, with the plan and fam
   await page.getByTestId('child-card').filter({ hasText: 'Maya' }).getByTestId('child-summary-link').click();
   await expect(page.getByTestId('family-notes')).toContainText('Keep the ankle exercises going');
   await expect(page.getByTestId('family-notes')).not.toContainText('heel soreness');
-  // The plan says how much of the corrective work Maya has done since that check (the demo squad keeps a
-  // record of its sessions; other tests may add one meanwhile, so the counts are read as a pattern).
-  await expect(page.getByTestId('family-sessions')).toContainText(
-    /^Since the check of .+, Maya took part in \d+ of the \d+ exercise sessions the squad held\.$/,
-  );
+  // The count of sessions since the check stands only beside a plan with exercises (Maya's demo screen
+  // found nothing extra to work on).
+  await expect(page.getByTestId('family-plan')).toBeVisible();
+  await expect(page.getByTestId('family-sessions')).toHaveCount((await page.getByTestId('family-exercise').count()) > 0 ? 1 : 0);
   // Between the two children there is a plan with exercises and their how-to.
   await page.goto('/');
   await page.getByTestId('child-card').filter({ hasText: 'Theo' }).getByTestId('child-summary-link').click();
   await expect(page.getByTestId('family-plan')).toBeVisible();
+  // Theo's plan says how much of that work he has done since the check (the demo squads keep a record of
+  // their sessions; other tests may add one meanwhile, so the counts are read as a pattern).
+  await expect(page.getByTestId('family-sessions')).toContainText(
+    /^Since the check of .+, Theo took part in \d+ of the \d+ exercise sessions the squad held\.$/,
+  );
   exercises += await page.getByTestId('family-exercise').count();
   expect(exercises).toBeGreaterThan(0);
   await page.screenshot({ path: shots('family-view-theo', testInfo.project.name), fullPage: true });
