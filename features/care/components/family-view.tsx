@@ -8,7 +8,7 @@ import { useFamilyViewQuery } from '../api/get-family-view';
 import type { FamilyComparison, FamilySummary, FamilyView as FamilyViewData, SummaryRelease } from '../types';
 import { formatDate } from '@/features/ui/format-date';
 import { todayIso } from '@/features/athletes/age';
-import { recheckWords, sessionsSinceWords } from '../recheck-words';
+import { recheckWords, sessionsSinceWords } from '../family-words';
 
 /** A parent's page for one child: the latest released summary in plain words, the plan with how-to, family notes, earlier summaries. */
 export function FamilyView({ athleteId }: { athleteId: string }) {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { recheckWords, sessionsSinceWords } from './recheck-words';
+import { recheckWords, sessionsSinceWords } from './family-words';
 
 describe('recheckWords', () => {
   it('writes the date as the parent’s locale does, never as the stored YYYY-MM-DD', () => {
