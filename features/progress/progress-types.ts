@@ -20,8 +20,9 @@ export type ProgressResponse = {
   /** The last two screens compared; null with fewer than two. */
   comparison: ScreenComparison | null;
   /**
-   * Corrective sessions recorded on the training sheet between the two compared screens: those the athlete
-   * took part in, and those their current squad held; null without a comparison.
+   * Corrective sessions recorded on the training sheet between the two compared screens: those the
+   * athlete's current squad held, and how many of them the athlete took part in (never more); null without
+   * a comparison.
    */
   sessionsBetween: { attended: number; held: number } | null;
   /** The published error of each metric that has one (what the charts draw as a band). */

@@ -70,11 +70,9 @@ export function planTimeSentence(c: ScreenComparison): string {
  * recorded no session in that time (a club that does not keep the record reads nothing about it).
  */
 export function sessionsSentence(sessions: ProgressResponse['sessionsBetween'], c: ScreenComparison): string {
-  if (!sessions || c.planTime.noPlanNeeded || (sessions.held === 0 && sessions.attended === 0)) return '';
+  if (!sessions || c.planTime.noPlanNeeded || sessions.held === 0) return '';
   const { attended, held } = sessions;
   const plural = (n: number) => (n === 1 ? 'session' : 'sessions');
-  // More attended than the current squad held: the athlete changed squad in between.
-  if (attended > held) return `Took part in ${attended} corrective ${plural(attended)} recorded on the training sheet between the screens.`;
   return `Took part in ${attended} of the ${held} corrective ${plural(held)} the squad recorded on the training sheet between the screens.`;
 }
 
@@ -148,11 +146,7 @@ export function familySummary(c: ScreenComparison, sessions: ProgressResponse['s
     // Only where the coaches keep the record of who took part (our choice of wording).
     if (sessions && sessions.held > 0) {
       const { attended, held } = sessions;
-      out.push(
-        attended > held
-          ? `Your child took part in ${attended} exercise sessions between the two checks.`
-          : `Your child took part in ${attended} of the ${held} exercise sessions the squad held between the two checks.`,
-      );
+      out.push(`Your child took part in ${attended} of the ${held} exercise sessions the squad held between the two checks.`);
     }
   }
   const withinError = c.measurements.filter((m) => m.verdict === 'within-error').length;
