@@ -138,9 +138,8 @@ export function progressRepo(db: Executor, scope: ClubScope) {
      * A squad's season in one statement: the squad, its rounds with their summaries, and each current
      * member with their newest screen (wherever it was: an athlete may have changed squad), the
      * clearance in force and the squad's sessions since that screen (held, and taken part in), as one
-     * small JSON value. The summaries (`round_summaries`,
-     * `athlete_latest_screens`) are kept by PostgreSQL on every write of what they sum. Null when the
-     * squad is not in the club.
+     * small JSON value. The summaries (`round_summaries`, `athlete_latest_screens`) are kept by PostgreSQL
+     * on every write of what they sum. Null when the squad is not in the club.
      */
     async season(squadId: string): Promise<Season | null> {
       const [head] = await preparedRows<{ squad: Season['squad'] | null; rounds: SeasonRound[]; athletes: SeasonAthlete[] }>(
