@@ -4,12 +4,9 @@ import { api } from '@/features/api/client';
 import { deviceBacked } from '@/features/offline/device-cache';
 import { useActiveClub } from '@/features/session/active-club';
 import type { TrainingSheet } from '../sheet';
-import { trainingKeys } from './keys';
+import { trainingKeptKeys, trainingKeys } from './keys';
 
 export const getTrainingSheet = (squadId: string) => api<TrainingSheet>(`/squads/${encodeURIComponent(squadId)}/training-sheet`);
-
-/** Where a sheet is kept on the device. */
-export const sheetKeptKey = (squadId: string) => `training.sheet.${squadId}`;
 
 /**
  * The squad's sheet. Plans change whenever someone adjusts one, submits a screen or records a clearance,
@@ -24,7 +21,7 @@ export function useTrainingSheetQuery(squadId: string | null) {
     queryKey: trainingKeys.sheet(membership.clubId, squadId ?? ''),
     queryFn: () =>
       deviceBacked(
-        sheetKeptKey(squadId!),
+        trainingKeptKeys.sheet(squadId!),
         membership.clubId,
         () => getTrainingSheet(squadId!),
         () => (keep ? { roundId: null } : null),

@@ -8,9 +8,6 @@ import { progressKeys } from '@/features/progress/api/keys';
 import type { RecordSessionInput, SessionView } from '../schemas';
 import { trainingKeys } from './keys';
 
-/** Where a squad's list of sessions is kept on the device (for those who screen). */
-export const sessionsKeptKey = (squadId: string) => `training.sessions.${squadId}`;
-
 export const recordSession = (squadId: string, input: RecordSessionInput, device: { idempotencyKey?: string; clubId?: string } = {}) =>
   api<{ session: SessionView }>(`/squads/${encodeURIComponent(squadId)}/training-sessions`, {
     method: 'POST',

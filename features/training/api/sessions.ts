@@ -6,8 +6,8 @@ import { connectivity, deviceSession, loadedDevice } from '@/features/offline/de
 import { progressKeys } from '@/features/progress/api/keys';
 import { useActiveClub } from '@/features/session/active-club';
 import type { RecordSessionInput, SessionView } from '../schemas';
-import { recordSession, sessionsKeptKey } from './send-attendance';
-import { trainingKeys } from './keys';
+import { trainingKeptKeys, trainingKeys } from './keys';
+import { recordSession } from './send-attendance';
 
 export const getSessions = (squadId: string) => api<{ sessions: SessionView[] }>(`/squads/${encodeURIComponent(squadId)}/training-sessions`);
 
@@ -22,7 +22,7 @@ export function useSessionsQuery(squadId: string) {
     queryKey: trainingKeys.sessions(membership.clubId, squadId),
     queryFn: () =>
       deviceBacked(
-        sessionsKeptKey(squadId),
+        trainingKeptKeys.sessions(squadId),
         membership.clubId,
         () => getSessions(squadId),
         () => (keep ? { roundId: null } : null),
