@@ -363,6 +363,19 @@ test('who took part is recorded with no connection and reaches the server once i
   await page.evaluate(() => window.dispatchEvent(new Event('online')));
   await expect(page.getByTestId('sync-status-text')).toHaveText('All saved', { timeout: 30_000 });
   await expect(page.getByTestId('sheet-session-waiting')).toHaveCount(0);
+
+  // The same day again with no connection and no reload: the form starts from what was recorded, and the
+  // notice follows the record, no longer "kept on this phone" once it is on the server.
+  await goOffline(context, page);
+  await page.getByTestId('sheet-record-open').click();
+  await form.getByTestId('sheet-record-day').getByRole('radio').nth(dayIndex).click();
+  await expect(form.getByTestId('sheet-record-note')).toHaveValue(note);
+  await form.getByTestId('sheet-record-save').click();
+  await expect(page.getByTestId('sheet-recorded')).toContainText('Kept on this phone');
+  await context.setOffline(false);
+  await page.evaluate(() => window.dispatchEvent(new Event('online')));
+  await expect(page.getByTestId('sheet-recorded')).toContainText('Sent once the connection came back.', { timeout: 30_000 });
+  await expect(page.getByTestId('sync-status-text')).toHaveText('All saved');
   const sessions = (await (await page.request.get(`/api/squads/${squad.id}/training-sessions`)).json()) as {
     sessions: { heldOn: string; athleteIds: string[]; note: string }[];
   };

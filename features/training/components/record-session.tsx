@@ -16,13 +16,34 @@ import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
 import { formatDate } from '@/features/ui/format-date';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
-import { useRecordSessionMutation, useSessionsQuery } from '../api/sessions';
+import { useRecordSessionMutation, useSessionsQuery, type RecordOutcome } from '../api/sessions';
 import { recordSessionSchema, type SessionView } from '../schemas';
 import type { TrainingSheet } from '../sheet';
 
 const DAY_MS = 24 * 3600 * 1000;
 /** Today, yesterday and the day before, on the phone's calendar: a session is recorded that day or soon after (our choice). */
 const recentDays = (now = Date.now()) => [0, 1, 2].map((back) => todayIsoLocal(new Date(now - back * DAY_MS)));
+
+/** What the last save did: sent, or kept on this phone (the notice follows the record until it is sent). */
+type Saved = { how: RecordOutcome; heldOn: string; what: string };
+
+function SavedNotice({ saved, waiting }: { saved: Saved | null; waiting: AttendanceEntry[] }) {
+  if (!saved) return null;
+  const mine = waiting.find((e) => e.record.heldOn === saved.heldOn);
+  // A record the server refused says so in its own line below; the notice would contradict it.
+  if (saved.how === 'kept' && mine?.state === 'refused') return null;
+  const [title, words] =
+    saved.how === 'sent'
+      ? ['Recorded', saved.what]
+      : mine
+        ? ['Kept on this phone', `${saved.what} It goes to the server as soon as the connection allows.`]
+        : ['Recorded', `${saved.what} Sent once the connection came back.`];
+  return (
+    <Notice title={title} testID="sheet-recorded">
+      {words}
+    </Notice>
+  );
+}
 
 /** Records of this squad's sessions kept on this phone and not on the server yet, oldest first. */
 function useWaitingRecords(squadId: string): AttendanceEntry[] {
@@ -36,7 +57,7 @@ export function SessionsCard({ sheet, canRecord }: { sheet: TrainingSheet; canRe
   // Those who screen keep a queue on the phone, so they may record without a connection.
   const queues = can(useActiveClub().membership.role, 'screening.write');
   const [open, setOpen] = useState(false);
-  const [saved, setSaved] = useState<{ title: string; words: string } | null>(null);
+  const [saved, setSaved] = useState<Saved | null>(null);
   const [all, setAll] = useState(false);
   const list = sessions.data?.sessions ?? [];
   // Who took part, in the sheet's name order (the server lists ids), and how many have left the squad since.
@@ -52,11 +73,7 @@ export function SessionsCard({ sheet, canRecord }: { sheet: TrainingSheet; canRe
         Sessions
       </Text>
       {sessions.error ? <Notice tone="error">{sessions.error.message}</Notice> : null}
-      {saved ? (
-        <Notice title={saved.title} testID="sheet-recorded">
-          {saved.words}
-        </Notice>
-      ) : null}
+      <SavedNotice saved={saved} waiting={waiting} />
       {canRecord && open && (sessions.data || queues) ? (
         <RecordForm
           sheet={sheet}
@@ -130,7 +147,7 @@ function RecordForm({
   sheet: TrainingSheet;
   sessions: SessionView[];
   waiting: AttendanceEntry[];
-  onDone: (done: { title: string; words: string }) => void;
+  onDone: (done: Saved) => void;
   onCancel: () => void;
 }) {
   const { isTabletUp } = useBreakpoints();
@@ -154,11 +171,7 @@ function RecordForm({
         const how = await record.mutateAsync(input);
         const n = input.athleteIds.length;
         const what = `${n} ${n === 1 ? 'athlete' : 'athletes'} on ${formatDate(input.heldOn)}.`;
-        onDone(
-          how === 'kept'
-            ? { title: 'Kept on this phone', words: `${what} It goes to the server as soon as the connection allows.` }
-            : { title: 'Recorded', words: what },
-        );
+        onDone({ how, heldOn: input.heldOn, what });
       } catch (error) {
         showServerError(error, helpers);
       }

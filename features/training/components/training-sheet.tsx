@@ -42,7 +42,9 @@ export function TrainingSheetScreen({ initialSquadId }: { initialSquadId?: strin
     if (squadId && sheet.isFetching) return <Text>Loading the plans…</Text>;
     return <Notice tone="error">{sheet.error?.message ?? squads.error?.message ?? NOT_KEPT}</Notice>;
   }
-  if (squads.isPending && !offline) return <Text>Loading squads…</Text>;
+  // Only before anything is shown: once a sheet is on screen (kept on the phone, with the squads still to
+  // load when the connection comes back), the page stays, so an open record form keeps its ticks.
+  if (squads.isPending && !offline && !sheet.data) return <Text>Loading squads…</Text>;
   if (squads.data?.squads.length === 0) return <Notice>No squad yet: add one under Athletes.</Notice>;
 
   return (
