@@ -127,7 +127,7 @@ export function TrendsCards({ rows }: { rows: TrendAthlete[] }) {
           ) : null}
           <Text variant="small">{a.daysSinceLastScreen === null ? 'Never screened' : `Last screened ${daysAgo(a.daysSinceLastScreen)}`}</Text>
           {a.sessionsSinceScreen && a.sessionsSinceScreen.held > 0 ? (
-            <Text variant="small">{`Took part in ${a.sessionsSinceScreen.attended} of the ${a.sessionsSinceScreen.held} sessions since that screen`}</Text>
+            <Text variant="small">{`Took part in ${a.sessionsSinceScreen.attended} of ${a.sessionsSinceScreen.held === 1 ? '1 session' : `the ${a.sessionsSinceScreen.held} sessions`} since that screen`}</Text>
           ) : null}
         </View>
       ))}
