@@ -11,7 +11,8 @@ export function recheckWords(recheckDate: string | null, today: string, locale?:
 }
 
 /**
- * How much of the corrective work the child has done since the check a parent is reading (our wording):
+ * How much of the corrective work the child has done since the check a parent is reading (wording and
+ * rule our choice):
  * nothing is said where the squad keeps no record of its sessions. `screenedOn` is YYYY-MM-DD.
  */
 export function sessionsSinceWords(firstName: string, screenedOn: string, sessions: { attended: number; held: number } | null, locale?: string): string | null {

@@ -103,7 +103,8 @@ function Comparison({ comparison }: { comparison: FamilyComparison }) {
 }
 
 function Plan({ summary, sessions }: { summary: FamilySummary; sessions: FamilyViewData['sessionsSinceLatest'] }) {
-  // Only beside a plan with exercises: with nothing extra to work on, the count says nothing to a family.
+  // Only beside a plan with exercises (our choice): with nothing extra to work on, the count says nothing
+  // to a family.
   const done = summary.exercises.length ? sessionsSinceWords(summary.athleteFirstName, summary.screenedOn, sessions) : null;
   return (
     <Card testID="family-plan">
