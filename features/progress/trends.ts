@@ -53,8 +53,8 @@ export type TrendAthlete = {
   latestFlags: SidedPatterns;
   /**
    * The squad's corrective sessions recorded after the newest screen (`held`; our choice: not on the
-   * screen's own day) and how many of them the
-   * athlete took part in; null when never screened. `held` is 0 where the squad records no sessions.
+   * screen's own day) and how many of them the athlete took part in; null when never screened. `held` is
+   * 0 where the squad records no sessions.
    */
   sessionsSinceScreen: { attended: number; held: number } | null;
 };

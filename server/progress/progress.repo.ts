@@ -114,9 +114,9 @@ export function progressRepo(db: Executor, scope: ClubScope) {
     },
 
     /**
-     * Between the days of two screens (a session on a screen's own day counts for neither: our choice), recorded from
-     * the training sheet: the sessions the athlete's current squad held, and how many of those they took
-     * part in (so never more than were held, even after a change of squad).
+     * Between the days of two screens (a session on a screen's own day counts for neither: our choice),
+     * recorded from the training sheet: the sessions the athlete's current squad held, and how many of
+     * those they took part in (so never more than were held, even after a change of squad).
      */
     async sessionsBetween(athleteId: string, after: string, before: string): Promise<{ attended: number; held: number }> {
       const [row] = await preparedRows<{ attended: number; held: number }>(
