@@ -57,6 +57,7 @@ describe('historySeries', () => {
     screens: [screen(0, [fppa(20), lsi(70)], -0.8), screen(1, [fppa(15), lsi(80)], -0.4), screen(2, [fppa(10)], 0.1)],
     comparison: null,
     sessionsBetween: null,
+    sessionsSinceLatest: null,
     errorMargins: ERROR_MARGINS,
   };
   const series = historySeries(progress);

@@ -25,6 +25,11 @@ export type ProgressResponse = {
    * a comparison.
    */
   sessionsBetween: { attended: number; held: number } | null;
+  /**
+   * Corrective sessions recorded after the newest screen, up to today, counted the same way; null with no
+   * screen.
+   */
+  sessionsSinceLatest: { attended: number; held: number } | null;
   /** The published error of each metric that has one (what the charts draw as a band). */
   errorMargins: Partial<Record<Measurement['metric'], ErrorMargin>>;
 };

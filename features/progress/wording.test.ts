@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { FlagRef, ScreenComparison } from './compare';
-import { familySummary, flagGroups, sessionsSentence } from './wording';
+import { familySummary, flagGroups, planTimeSentence, sessionsSentence, sessionsSinceSentence } from './wording';
 
 const flag = (pattern: FlagRef['pattern'], title: string, taskId: FlagRef['taskId'], side: FlagRef['side']): FlagRef => ({
   id: `${pattern}/${taskId ?? 'athlete'}/${side ?? 'none'}`,
@@ -41,13 +41,49 @@ describe('sessions between two screens in words (our choice)', () => {
       'Took part in 7 of the 9 corrective sessions the squad recorded on the training sheet between the screens.',
     );
     expect(sessionsSentence({ attended: 0, held: 1 }, comparison(false))).toBe(
-      'Took part in 0 of the 1 corrective session the squad recorded on the training sheet between the screens.',
+      'Took part in 0 of 1 corrective session the squad recorded on the training sheet between the screens.',
     );
   });
   it('says nothing without a comparison, when no plan was needed, or when the squad kept no record', () => {
     expect(sessionsSentence(null, comparison(false))).toBe('');
     expect(sessionsSentence({ attended: 3, held: 3 }, comparison(true))).toBe('');
     expect(sessionsSentence({ attended: 0, held: 0 }, comparison(false))).toBe('');
+  });
+});
+
+describe('how long the plan had, in words (our choice)', () => {
+  const withDays = (days: number, longEnough: boolean, noPlanNeeded = false) =>
+    ({ planTime: { days, neededWeeks: 6, longEnough, noPlanNeeded, waitedForClearance: false } }) as unknown as ScreenComparison;
+  it('weeks and days against the weeks the plan asks for', () => {
+    expect(planTimeSentence(withDays(45, true))).toBe('The plan had 6 weeks (45 days), at least the 6 weeks it asks for: long enough to expect a change.');
+    expect(planTimeSentence(withDays(20, false))).toBe(
+      'The plan had only 2 weeks (20 days) of the 6 weeks it asks for: too soon to expect a change, so an unchanged result says little.',
+    );
+  });
+  it('two screens on the same day: no time at all, not "0 weeks"', () => {
+    expect(planTimeSentence(withDays(0, false))).toBe('Both screens were on the same day: the plan had no time to work, so an unchanged result says little.');
+    expect(planTimeSentence(withDays(0, false, true))).toMatch(/no corrective plan was needed/);
+  });
+});
+
+describe('sessions since the newest screen (our choice)', () => {
+  const newest = (exercises: number) => ({ screenedOn: '2026-09-16', plan: { status: 'ready' as const, rescreenWeeks: 6, rescreenDate: '2026-10-28', exercises } });
+  it('counts the sessions the athlete took part in since the newest screen, beside a plan with exercises', () => {
+    expect(sessionsSinceSentence({ attended: 14, held: 18 }, newest(3), 'en-GB')).toBe(
+      'Since the screen of 16 Sept 2026: took part in 14 of the 18 corrective sessions the squad recorded on the training sheet.',
+    );
+    expect(sessionsSinceSentence({ attended: 0, held: 1 }, newest(3), 'en-US')).toBe(
+      'Since the screen of Sep 16, 2026, the squad recorded 1 corrective session on the training sheet: not there.',
+    );
+    expect(sessionsSinceSentence({ attended: 1, held: 1 }, newest(3), 'en-US')).toBe(
+      'Since the screen of Sep 16, 2026, the squad recorded 1 corrective session on the training sheet: took part.',
+    );
+  });
+  it('says nothing with no screen, no exercises to do, or no session recorded', () => {
+    expect(sessionsSinceSentence(null, newest(3))).toBe('');
+    expect(sessionsSinceSentence({ attended: 2, held: 2 }, undefined)).toBe('');
+    expect(sessionsSinceSentence({ attended: 2, held: 2 }, newest(0))).toBe('');
+    expect(sessionsSinceSentence({ attended: 0, held: 0 }, newest(3))).toBe('');
   });
 });
 
@@ -61,6 +97,14 @@ describe('the family comparison with sessions (our choice)', () => {
     const lines = familySummary(c, { attended: 12, held: 18 });
     const weeks = lines.findIndex((l) => l.startsWith('The exercises had about 10 weeks'));
     expect(lines[weeks + 1]).toBe('Your child took part in 12 of the 18 exercise sessions the squad held between the two checks.');
+    expect(familySummary(c, { attended: 0, held: 1 })).toContain('The squad held 1 exercise session between the two checks; your child was not there.');
+  });
+  it('checks less than a week apart, or one week apart, in whole words', () => {
+    const short = (days: number) => familySummary({ ...c, planTime: { ...c.planTime, days, longEnough: false } } as ScreenComparison);
+    expect(short(0)).toContain('The two checks were less than a week apart, which is too soon to see a difference.');
+    expect(short(6)).toContain('The two checks were less than a week apart, which is too soon to see a difference.');
+    expect(short(9)).toContain('There was only about 1 week between the two checks, which is usually too soon to see a difference.');
+    expect(short(20)).toContain('There were only about 2 weeks between the two checks, which is usually too soon to see a difference.');
   });
   it('says nothing of sessions where none was recorded, or when no plan was needed', () => {
     expect(familySummary(c, { attended: 0, held: 0 }).join(' ')).not.toMatch(/session/);

@@ -5,7 +5,8 @@
 import type { FlagSide, PatternId, TaskId } from '@/features/screening/engine';
 import { getTask } from '@/features/screening/engine/battery';
 import type { FlagRef, MeasurementChange, ScreenComparison } from './compare';
-import type { ProgressResponse } from './progress-types';
+import type { ProgressResponse, ProgressScreen } from './progress-types';
+import { formatDate } from '@/features/ui/format-date';
 
 const UNIT: Record<MeasurementChange['unit'], string> = { deg: '°', cm: ' cm', percent: ' %', years: ' y', grades: ' grades' };
 
@@ -58,6 +59,7 @@ export function planTimeSentence(c: ScreenComparison): string {
   const t = c.planTime;
   const weeks = Math.floor(t.days / 7);
   if (t.noPlanNeeded) return `${t.days} days between the screens; the earlier screen raised no flag, so no corrective plan was needed.`;
+  if (t.days === 0) return 'Both screens were on the same day: the plan had no time to work, so an unchanged result says little.';
   const clearance = t.waitedForClearance ? ' The earlier plan waited for a clinician first (pain was reported), so it may have started later.' : '';
   return t.longEnough
     ? `The plan had ${weeks} weeks (${t.days} days), at least the ${t.neededWeeks} weeks it asks for: long enough to expect a change.${clearance}`
@@ -72,8 +74,25 @@ export function planTimeSentence(c: ScreenComparison): string {
 export function sessionsSentence(sessions: ProgressResponse['sessionsBetween'], c: ScreenComparison): string {
   if (!sessions || c.planTime.noPlanNeeded || sessions.held === 0) return '';
   const { attended, held } = sessions;
-  const plural = (n: number) => (n === 1 ? 'session' : 'sessions');
-  return `Took part in ${attended} of the ${held} corrective ${plural(held)} the squad recorded on the training sheet between the screens.`;
+  return `Took part in ${attended} of ${held === 1 ? '1 corrective session' : `the ${held} corrective sessions`} the squad recorded on the training sheet between the screens.`;
+}
+
+/**
+ * How many corrective sessions the athlete took part in since their newest screen, up to today, as
+ * recorded on the training sheet (our choice of wording and rule: said only beside a plan with exercises,
+ * and nothing where the squad recorded no session in that time). `screenedOn` is YYYY-MM-DD.
+ */
+export function sessionsSinceSentence(
+  sessions: ProgressResponse['sessionsSinceLatest'],
+  newest: Pick<ProgressScreen, 'screenedOn' | 'plan'> | undefined,
+  locale?: string,
+): string {
+  if (!sessions || !newest || newest.plan.exercises === 0 || sessions.held === 0) return '';
+  const { attended, held } = sessions;
+  const since = formatDate(newest.screenedOn, { locale });
+  return held === 1
+    ? `Since the screen of ${since}, the squad recorded 1 corrective session on the training sheet: ${attended ? 'took part' : 'not there'}.`
+    : `Since the screen of ${since}: took part in ${attended} of the ${held} corrective sessions the squad recorded on the training sheet.`;
 }
 
 function changeSentence(m: MeasurementChange): string {
@@ -100,9 +119,12 @@ export function coachSummary(c: ScreenComparison): { headline: string; lines: st
   const realChanges = judged.filter((m) => m.verdict === 'real-change').map(changeSentence);
   const withinError = judged.filter((m) => m.verdict === 'within-error').map(changeSentence);
   const unjudged = c.measurements.length - judged.length;
-  const headline =
-    `${realChanges.length} of ${judged.length} measurements with a published error changed by more than it` +
-    (unjudged ? `; ${unjudged} more have no published figure and are not judged.` : '.');
+  const judgedPart =
+    judged.length === 0
+      ? 'No measurement with a published error was taken at both screens'
+      : `${realChanges.length} of ${judged.length} ${judged.length === 1 ? 'measurement' : 'measurements'} with a published error changed by more than it`;
+  const unjudgedPart = unjudged === 0 ? '' : unjudged === 1 ? '; 1 more has no published figure and is not judged' : `; ${unjudged} more have no published figure and are not judged`;
+  const headline = `${judgedPart}${judged.length === 0 ? unjudgedPart.replace(' more ', ' ') : unjudgedPart}.`;
   return { headline, lines, realChanges, withinError };
 }
 
@@ -141,12 +163,18 @@ export function familySummary(c: ScreenComparison, sessions: ProgressResponse['s
     out.push(
       c.planTime.longEnough
         ? `The exercises had about ${weeks} weeks between the two checks, which is usually enough time to see a difference.`
-        : `There were only about ${weeks} weeks between the two checks, which is usually too soon to see a difference.`,
+        : weeks === 0
+          ? 'The two checks were less than a week apart, which is too soon to see a difference.'
+          : `${weeks === 1 ? 'There was only about 1 week' : `There were only about ${weeks} weeks`} between the two checks, which is usually too soon to see a difference.`,
     );
     // Only where the coaches keep the record of who took part (our choice of wording).
     if (sessions && sessions.held > 0) {
       const { attended, held } = sessions;
-      out.push(`Your child took part in ${attended} of the ${held} exercise sessions the squad held between the two checks.`);
+      out.push(
+        held === 1
+          ? `The squad held 1 exercise session between the two checks; your child ${attended ? 'took part' : 'was not there'}.`
+          : `Your child took part in ${attended} of the ${held} exercise sessions the squad held between the two checks.`,
+      );
     }
   }
   const withinError = c.measurements.filter((m) => m.verdict === 'within-error').length;

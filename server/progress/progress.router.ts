@@ -42,7 +42,7 @@ export function progressRouter(db: Db) {
   const idOf = (res: { locals: object }) => (res.locals as Locals).id!;
 
   router.get('/athletes/:id/progress', guard('progress.read', on('athlete')), async (_req, res) => {
-    res.json(await progressService(db, scopeOf(res)).athleteProgress(idOf(res)));
+    res.json(await progressService(db, scopeOf(res)).athleteProgress(idOf(res), todayIso()));
   });
 
   router.get('/squads/:id/trends', guard('trends.read', on('squad')), async (req, res) => {

@@ -2,6 +2,7 @@ import { decimalAge } from '@/features/athletes/age';
 import { compareScreens, daysBetween, ERROR_MARGINS, type ScreenForComparison } from '@/features/progress/compare';
 import type { ProgressResponse, ProgressScreen } from '@/features/progress/progress-types';
 import {
+  addDays,
   ageGroupOf,
   filterAthletes,
   rescreenOf,
@@ -23,7 +24,7 @@ export function progressService(db: Executor, scope: ClubScope) {
 
   return {
     /** Every screen of the athlete over time and the comparison of the last two. */
-    async athleteProgress(athleteId: string): Promise<ProgressResponse> {
+    async athleteProgress(athleteId: string, today: string): Promise<ProgressResponse> {
       const all = await repo.history(athleteId);
       const first = all[0];
       if (!first) throw notFound('The athlete');
@@ -51,8 +52,13 @@ export function progressService(db: Executor, scope: ClubScope) {
       }));
       const n = forComparison.length;
       const comparison = n >= 2 ? compareScreens(forComparison[n - 2]!, forComparison[n - 1]!) : null;
-      const sessionsBetween = n >= 2 ? await repo.sessionsBetween(athleteId, forComparison[n - 2]!.screenedOn, forComparison[n - 1]!.screenedOn) : null;
-      return { athlete: { id: first.athleteId, sex: first.sex }, screens, comparison, sessionsBetween, errorMargins: ERROR_MARGINS };
+      const newest = forComparison[n - 1];
+      const [sessionsBetween, sessionsSinceLatest] = await Promise.all([
+        n >= 2 ? repo.sessionsBetween(athleteId, forComparison[n - 2]!.screenedOn, newest!.screenedOn) : null,
+        // Up to and including today: the bound is the day after.
+        newest ? repo.sessionsBetween(athleteId, newest.screenedOn, addDays(today, 1)) : null,
+      ]);
+      return { athlete: { id: first.athleteId, sex: first.sex }, screens, comparison, sessionsBetween, sessionsSinceLatest, errorMargins: ERROR_MARGINS };
     },
 
     /** The squad's rounds with flag counts and knee angles, and one row per current athlete. */

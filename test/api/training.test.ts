@@ -221,10 +221,16 @@ describe('recording who took part in a session', () => {
     const ana = await as.coach.get(`/api/athletes/${ids.ana}/progress`);
     expect(ana.status).toBe(200);
     expect(ana.body.sessionsBetween).toEqual({ attended: 2, held: 3 });
-    // Ben was in the same sessions but has one screen: nothing to compare.
+    // Since her newest screen (LATER, its own day not counted) up to today: today's session only, with her.
+    expect(ana.body.sessionsSinceLatest).toEqual({ attended: 1, held: 1 });
+    // Ben was in the same sessions but has one screen (LATER): nothing to compare; since it, today's
+    // session, without him.
     const ben = await as.coach.get(`/api/athletes/${ids.ben}/progress`);
     expect(ben.body.comparison).toBeNull();
     expect(ben.body.sessionsBetween).toBeNull();
+    expect(ben.body.sessionsSinceLatest).toEqual({ attended: 0, held: 1 });
+    // Cat was never screened: nothing to count from.
+    expect((await as.coach.get(`/api/athletes/${ids.cat}/progress`)).body.sessionsSinceLatest).toBeNull();
   });
 
   it("squad trends count each athlete's sessions since their newest screen, in the table and the CSV", async () => {

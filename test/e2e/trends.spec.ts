@@ -119,6 +119,8 @@ test('athlete history: charts with threshold and error band, and the last two sc
   await expect(section).toBeVisible();
   await expect(page.getByTestId('progress-comparison')).toBeVisible();
   await expect(page.getByTestId('plan-time')).toContainText(/weeks/);
+  // The demo squad records its autumn sessions after the newest screen.
+  await expect(page.getByTestId('sessions-since')).toContainText(/^Since the screen of .+ corrective sessions? the squad recorded/);
   const chart = page.getByTestId('history-chart').first();
   await expect(chart.locator('svg path').first()).toBeAttached();
   await expect(chart.getByRole('table')).toBeAttached();

@@ -11,7 +11,7 @@ import { colors, space } from '@/features/ui/theme';
 import { useAthleteProgressQuery } from '../api/get-athlete-progress';
 import { historySeries } from '../history';
 import type { ProgressResponse } from '../progress-types';
-import { coachSummary, planTimeSentence, sessionsSentence } from '../wording';
+import { coachSummary, planTimeSentence, sessionsSentence, sessionsSinceSentence } from '../wording';
 import { HistoryChart } from './history-chart';
 import { formatDate } from '@/features/ui/format-date';
 
@@ -43,6 +43,7 @@ function ProgressBody({ progress }: { progress: ProgressResponse }) {
         Progress over time
       </Text>
       <Comparison progress={progress} />
+      <SinceNewest progress={progress} />
       <View style={[styles.grid, isTabletUp && styles.gridWide]}>
         {series.map((s) => (
           <View key={s.key} style={isWide ? styles.third : isTabletUp ? styles.half : undefined}>
@@ -55,6 +56,17 @@ function ProgressBody({ progress }: { progress: ProgressResponse }) {
         are applied to juniors for want of junior figures. Screening is not a diagnosis.
       </Text>
     </View>
+  );
+}
+
+/** The corrective work done since the newest screen (the training sheet's record), where there is some to count. */
+function SinceNewest({ progress }: { progress: ProgressResponse }) {
+  const line = sessionsSinceSentence(progress.sessionsSinceLatest, progress.screens.at(-1));
+  if (!line) return null;
+  return (
+    <Card testID="sessions-since">
+      <Text>{line}</Text>
+    </Card>
   );
 }
 
