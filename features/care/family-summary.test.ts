@@ -93,10 +93,12 @@ describe('buildFamilySummary', () => {
     ]);
   });
 
-  it('holds back loaded strength work while clearance is needed, and says so', () => {
+  it('holds back loaded strength and landing work while clearance is needed, and names it', () => {
     expect(result.plan.status).toBe('clearance-needed');
     expect(summary.exercises.every((e) => !/1RM/.test(e.howMuch))).toBe(true);
-    expect(summary.onHold).toMatch(/until a physiotherapist clears Kit/);
+    const withheld = (result.plan.withheld ?? []).map((w) => w.name);
+    expect(withheld.length).toBeGreaterThan(0);
+    expect(summary.onHold).toBe(`${withheld.join(', ')}: on hold until a physiotherapist clears Kit for loaded strength and landing work.`);
   });
 
   it('carries the re-check date, a contact and the usual cautions', () => {

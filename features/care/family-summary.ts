@@ -88,11 +88,14 @@ export function buildFamilySummary(input: {
       howOften: perWeekText(e.prescription.perWeek),
     }));
   const maxPerWeek = Math.max(0, ...now.map((e) => e.prescription.perWeek));
+  // What waits for a clearance, by name: what the hold sets apart here, and what the engine already left
+  // out of the plan because pain was reported.
+  const heldNames = [...new Set([...held.map((e) => e.name), ...(result.plan.withheld ?? []).map((w) => w.name)])];
   const onHold =
-    input.block.blocked && held.length > 0
-      ? `${held.map((e) => e.name).join(', ')}: on hold until a physiotherapist clears ${firstName} for loaded strength work.`
+    input.block.blocked && heldNames.length > 0
+      ? `${heldNames.join(', ')}: on hold until a physiotherapist clears ${firstName} for loaded strength and landing work.`
       : input.block.blocked
-        ? `Loaded strength work is on hold until a physiotherapist clears ${firstName}.`
+        ? `Loaded strength and landing work are on hold until a physiotherapist clears ${firstName}.`
         : null;
 
   return {

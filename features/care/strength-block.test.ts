@@ -5,7 +5,7 @@ const RESULT_AT = '2026-09-14T16:30:00.000Z';
 const ready = { status: 'ready' as const };
 const needsClearance = { status: 'clearance-needed' as const };
 
-describe('strengthBlock (our choice: refer on, or clearance needed without a later clearance, holds loaded strength work)', () => {
+describe('strengthBlock (our choice: refer on, or clearance needed without a later clearance, holds loaded strength and landing work)', () => {
   it.each([
     ['no clearance, ready plan', ready, null, false, null],
     ['referred, ready plan', ready, { status: 'referred' as const, setAt: '2026-09-15T00:00:00.000Z' }, true, 'referred'],
@@ -36,11 +36,19 @@ describe('splitByBlock', () => {
     expect([bodyweight, loaded, strengthPhase].map(isLoadedStrength)).toEqual([false, true, true]);
   });
 
-  it('holds back only loaded strength work when blocked, and nothing otherwise', () => {
-    const all = [bodyweight, loaded, strengthPhase];
+  const landing = { name: 'snap-down', phase: 'control', isJump: true, prescription: { load: { kind: 'bodyweight' } } };
+
+  it('holds back loaded strength work and landing work when blocked, and nothing otherwise', () => {
+    const all = [bodyweight, loaded, strengthPhase, landing];
     expect(splitByBlock(all, { blocked: false })).toEqual({ now: all, held: [] });
     const split = splitByBlock(all, strengthBlock(needsClearance, null, RESULT_AT));
     expect(split.now.map((e) => e.name)).toEqual(['bridge']);
-    expect(split.held.map((e) => e.name)).toEqual(['split squat', 'step-up']);
+    expect(split.held.map((e) => e.name)).toEqual(['split squat', 'step-up', 'snap-down']);
+  });
+
+  it('a referral holds landing work too: a child referred for pain after jumps does no landings', () => {
+    const split = splitByBlock([bodyweight, landing], strengthBlock(ready, { status: 'referred', setAt: '2026-09-15T00:00:00.000Z' }, RESULT_AT));
+    expect(split.now.map((e) => e.name)).toEqual(['bridge']);
+    expect(split.held.map((e) => e.name)).toEqual(['snap-down']);
   });
 });

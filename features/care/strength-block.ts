@@ -1,7 +1,8 @@
-// The rule that holds back loaded strength work until a physiotherapist clears the athlete. Pure.
+// The rule that holds back loaded strength work and landing work until a physiotherapist clears the
+// athlete. Pure.
 import type { ClearanceStatus } from './choices';
 
-type ExerciseLike = { phase: string; prescription: { load: { kind: string } } };
+type ExerciseLike = { phase: string; isJump?: boolean; prescription: { load: { kind: string } } };
 type PlanLike = { status: 'ready' | 'clearance-needed' };
 
 /** Loaded strength work: the strength phase, or anything prescribed as a share of 1RM (our choice). */
@@ -9,26 +10,34 @@ export function isLoadedStrength(exercise: ExerciseLike): boolean {
   return exercise.phase === 'strength' || exercise.prescription.load.kind === 'percent-1rm';
 }
 
+/**
+ * What waits for a physiotherapist's clearance: loaded strength work and jump or landing work, the same
+ * two kinds the engine leaves out while reported pain is not cleared (our choice).
+ */
+export function isHeldUntilCleared(exercise: ExerciseLike): boolean {
+  return isLoadedStrength(exercise) || exercise.isJump === true;
+}
+
 export type StrengthBlock = { blocked: false } | { blocked: true; reason: 'referred' | 'clearance-needed'; words: string };
 
 /**
- * "Refer on" blocks loaded strength work until a later clearance says otherwise; a plan that needs
- * clearance (pain was reported) is blocked until a clearance is recorded after that result (our choice,
- * following the engine's own "start only once cleared" caution).
+ * "Refer on" blocks loaded strength and landing work until a later clearance says otherwise; a plan that
+ * needs clearance (pain was reported) is blocked until a clearance is recorded after that result (our
+ * choice, following the engine's own "start only once cleared" caution).
  */
 export function strengthBlock(plan: PlanLike, clearance: { status: ClearanceStatus; setAt: string } | null, resultCreatedAt: string): StrengthBlock {
   if (clearance?.status === 'referred') {
     return {
       blocked: true,
       reason: 'referred',
-      words: 'Loaded strength work is on hold: the athlete was referred on. It starts again once a physiotherapist clears it.',
+      words: 'Loaded strength work and landing work are on hold: the athlete was referred on. They start again once a physiotherapist clears the athlete.',
     };
   }
   if (plan.status === 'clearance-needed' && !(clearance && clearance.setAt >= resultCreatedAt)) {
     return {
       blocked: true,
       reason: 'clearance-needed',
-      words: 'Loaded strength work is on hold until a physiotherapist has seen the athlete and cleared it (pain was reported).',
+      words: 'Loaded strength work and landing work are on hold until a physiotherapist has seen the athlete and cleared them (pain was reported).',
     };
   }
   return { blocked: false };
@@ -37,5 +46,5 @@ export function strengthBlock(plan: PlanLike, clearance: { status: ClearanceStat
 /** The exercises that may be done now, and those held back. */
 export function splitByBlock<E extends ExerciseLike>(exercises: readonly E[], block: StrengthBlock): { now: E[]; held: E[] } {
   if (!block.blocked) return { now: [...exercises], held: [] };
-  return { now: exercises.filter((e) => !isLoadedStrength(e)), held: exercises.filter(isLoadedStrength) };
+  return { now: exercises.filter((e) => !isHeldUntilCleared(e)), held: exercises.filter(isHeldUntilCleared) };
 }

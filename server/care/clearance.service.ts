@@ -14,7 +14,10 @@ import { formatDateInWords } from '@/features/ui/format-date';
 
 /** The reason stored with a result version worked out again after a clearance: who, what and when. */
 export function clearanceReason(clearance: NonNullable<ClearanceView>): string {
-  return `Worked out again after ${clearance.setByName ?? 'a physiotherapist'} set the clearance to “${CLEARANCE_LABELS[clearance.status]}” on ${formatDateInWords(clearance.setAt.slice(0, 10))}: the pain reported at this screen no longer holds back loaded strength and landing work.`;
+  const who = `${clearance.setByName ?? 'a physiotherapist'} set the clearance to “${CLEARANCE_LABELS[clearance.status]}” on ${formatDateInWords(clearance.setAt.slice(0, 10))}`;
+  return clearance.status === 'referred'
+    ? `Worked out again after ${who}: the pain reported at this screen holds back loaded strength and landing work again until a physiotherapist clears the athlete.`
+    : `Worked out again after ${who}: the pain reported at this screen no longer holds back loaded strength and landing work.`;
 }
 
 /**
@@ -23,6 +26,9 @@ export function clearanceReason(clearance: NonNullable<ClearanceView>): string {
  *    waits for a clearance (pain reported) is worked out again by the engine with the pain cleared, as a
  *    new result version with the reason; earlier versions stay. A review mark of the version it replaces
  *    is carried to the new one (the decision is the physiotherapist's own, the screen is the same).
+ *    "Refer on" after such a clearance goes the other way: each screen worked out with the pain cleared
+ *    is worked out again with it not cleared, so its plan waits for a clearance once more and says so
+ *    (our choice: the decision in force is the latest one).
  * 2. The family's newest released summary is released again, without e-mail, when the decision changes
  *    what it says (exercises back or on hold, who decided and when), so the family view follows the
  *    clearance; the earlier summary stays among the earlier ones.
@@ -33,7 +39,8 @@ export async function applyClearance(tx: Executor, scope: ClubScope, athleteId: 
   const audit: AuditEntry[] = [];
   const replaced = new Map<string, string>();
 
-  if (status !== 'referred') {
+  const painCleared = status !== 'referred';
+  {
     const waiting = await tx
       .select({ assessmentId: assessmentResults.assessmentId })
       .from(assessmentResults)
@@ -42,13 +49,15 @@ export async function applyClearance(tx: Executor, scope: ClubScope, athleteId: 
           eq(assessmentResults.clubId, scope.clubId),
           eq(assessmentResults.athleteId, athleteId),
           eq(assessmentResults.isCurrent, true),
-          sql`${assessmentResults.result} #>> '{plan,status}' = 'clearance-needed'`,
+          painCleared
+            ? sql`${assessmentResults.result} #>> '{plan,status}' = 'clearance-needed'`
+            : sql`${assessmentResults.input} #>> '{options,painCleared}' = 'true'`,
         ),
       );
     for (const { assessmentId } of waiting) {
       let made: Awaited<ReturnType<typeof reevaluateAfterClearance>>;
       try {
-        made = await reevaluateAfterClearance(tx, scope, assessmentId, { reason: clearanceReason(clearance) });
+        made = await reevaluateAfterClearance(tx, scope, assessmentId, { reason: clearanceReason(clearance), painCleared });
       } catch (error) {
         // An input an older engine accepted and today's refuses: the clearance is still recorded, the
         // screen keeps its hold until it is submitted again, and the trail says why.

@@ -209,22 +209,30 @@ export async function submitAssessment(
  * Works an assessment's current result out again from the very input it was made from, with the pain
  * reported at the screen cleared by a physiotherapist (the engine's `painCleared`), and stores it as a
  * new current version carrying `reason`. The earlier version stays as it was. Only a result that waits
- * for a clearance (`plan.status` 'clearance-needed') is worked out again; otherwise null. The caller
+ * for a clearance (`plan.status` 'clearance-needed') is worked out again; otherwise null. With
+ * `painCleared: false` (the athlete referred on after a clearance) it goes the other way: a result worked
+ * out with the pain cleared goes back to waiting for a clearance, where pain was reported. The caller
  * runs it inside its transaction; the assessment's row lock is taken here, as on submit.
  */
 export async function reevaluateAfterClearance(
   tx: Executor,
   scope: ClubScope,
   assessmentId: string,
-  options: { reason: string; at?: Date; evaluate?: Evaluate },
+  options: { reason: string; at?: Date; evaluate?: Evaluate; painCleared?: boolean },
 ): Promise<{ fromResultId: string; resultId: string } | null> {
+  const painCleared = options.painCleared ?? true;
   const repo = screeningRepo(tx, scope);
   const locked = await repo.lockAssessment(assessmentId);
   if (!locked) throw notFound('The assessment');
   const current = await repo.currentResult(assessmentId);
-  if (!current || current.result.plan.status !== 'clearance-needed') return null;
-  const input: AssessmentInput = { ...current.input, options: { ...current.input.options, painCleared: true } };
+  if (!current) return null;
+  // Clearing: only a result still waiting for one. Referring on again: only a result worked out with the
+  // pain cleared, which goes back to waiting (the engine holds loaded and landing work back again).
+  if (painCleared ? current.result.plan.status !== 'clearance-needed' : current.input.options?.painCleared !== true) return null;
+  const input: AssessmentInput = { ...current.input, options: { ...current.input.options, painCleared } };
   const result = (options.evaluate ?? evaluateAssessment)(input);
+  // No pain was reported at this screen: the referral changes nothing the engine works out.
+  if (!painCleared && result.plan.status !== 'clearance-needed') return null;
   const resultId = await repo.addResult(
     { assessmentId, athleteId: locked.athleteId, engineVersion: result.engineVersion ?? ENGINE_VERSION, input, result, reason: options.reason },
     options.at ?? new Date(),

@@ -10,7 +10,8 @@ import { makeSubmittedScreen, painDraft, recordEmailConsent } from '../fixtures/
 import { createTestDb, type TestDb } from '../fixtures/test-db';
 
 // A physiotherapist's clearance feeds back into the plan: "clearance needed" (pain reported) and "refer on"
-// hold loaded strength work until cleared; a clearance given after the screen brings the held-back work
+// hold loaded strength and landing work until cleared (a referral after a clearance works a screen with
+// reported pain out again with the pain not cleared); a clearance given after the screen brings the held-back work
 // back in a new result version with the reason, and the staff's plan, the family view and the summary
 // e-mail say the same thing.
 
@@ -157,10 +158,12 @@ describe('pain reported, then cleared by a physiotherapist', () => {
 });
 
 describe('refer on', () => {
-  it('holds loaded strength work in the plan shown to staff and to the family until a physiotherapist clears it again', async () => {
+  it('holds loaded strength and landing work in the plan shown to staff and to the family until a physiotherapist clears it again', async () => {
     const before = await as.coach.get(`/api/assessments/${ids.kitScreen}`);
     const loaded = loadedNames(before.body.result.result.plan.exercises);
     expect(loaded.length).toBeGreaterThan(0);
+    const landing = (before.body.result.result.plan.exercises as PlannedExercise[]).filter((e) => e.isJump).map((e) => e.name);
+    expect(landing.length).toBeGreaterThan(0);
     // Version 3 (the tester's re-submission) needs its own review before the family's summary follows it.
     expect((await as.physio.post(`/api/assessments/${ids.kitScreen}/review`)).status).toBe(200);
     expect((await as.coach.post(`/api/assessments/${ids.kitScreen}/release`)).status).toBe(201);
@@ -168,16 +171,29 @@ describe('refer on', () => {
 
     const referred = await as.physio.put(`/api/athletes/${ids.kit}/clearance`).send({ status: 'referred', detail: 'Sports doctor at the county clinic' });
     expect(referred.status).toBe(200);
-    // A view-time rule: the stored result does not change.
+    // The pain reported at this screen holds the work back again: a new version worked out with the
+    // pain not cleared, saying why, so no text of the plan still says the athlete was cleared.
     const detail = await as.coach.get(`/api/assessments/${ids.kitScreen}`);
-    expect(detail.body.result.version).toBe(3);
+    const result = detail.body.result;
+    expect(result.version).toBe(4);
+    expect(result.reason).toContain('“Refer on”');
+    expect(result.reason).toContain('holds back loaded strength and landing work again');
+    expect(result.result.plan.status).toBe('clearance-needed');
+    expect(loadedNames(result.result.plan.exercises)).toEqual([]);
+    expect((result.result.plan.exercises as PlannedExercise[]).filter((e) => e.isJump)).toEqual([]);
+    expect(result.result.plan.withheld.map((w: { name: string }) => w.name)).toEqual(expect.arrayContaining([...loaded, ...landing]));
+    const cautions = result.result.plan.cautions.map((c: { text: string }) => c.text).join(' ');
+    expect(cautions).not.toMatch(/A physiotherapist has cleared the athlete/);
+    expect(cautions).toMatch(/Until a physiotherapist clears the athlete, no loaded strength work and no landing work/);
     const care = await as.tester.get(`/api/assessments/${ids.kitScreen}/care`);
     expect(care.body.care.block).toMatchObject({ blocked: true, reason: 'referred' });
+    expect(care.body.care.reviewedByName).toBe('Phil Physio');
 
     const family = await as.parent.get(`/api/athletes/${ids.kit}/summary`);
     const held = family.body.latest.summary as FamilySummary;
     expect(held.exercises.map((e) => e.name)).not.toEqual(expect.arrayContaining([loaded[0]]));
-    expect(held.onHold).toContain(loaded[0]);
+    expect(held.exercises.map((e) => e.name)).not.toEqual(expect.arrayContaining([landing[0]]));
+    expect(held.onHold).toBe('Loaded strength and landing work are on hold until a physiotherapist clears Kit.');
     expect(held.clearance).toMatch(/^Phil Physio \(physiotherapist\) asked on .* to be seen by another health professional/);
     // The team's free-text detail never reaches the family.
     expect(JSON.stringify(family.body)).not.toContain('county clinic');
@@ -190,10 +206,13 @@ describe('refer on', () => {
     expect((await as.tester.get(`/api/assessments/${ids.kitScreen}/care`)).body.care.block).toEqual({ blocked: false });
     const back = (await as.parent.get(`/api/athletes/${ids.kit}/summary`)).body.latest.summary as FamilySummary;
     expect(back.onHold).toBeNull();
-    expect(back.exercises.map((e) => e.name)).toEqual(expect.arrayContaining(loaded));
+    expect(back.exercises.map((e) => e.name)).toEqual(expect.arrayContaining([...loaded, ...landing]));
     expect(back.clearance).toMatch(/cleared Kit to train with some changes/);
     expect(JSON.stringify(back)).not.toContain('drop landings for two weeks');
-    expect((await as.coach.get(`/api/assessments/${ids.kitScreen}`)).body.result.version).toBe(3);
+    const after = (await as.coach.get(`/api/assessments/${ids.kitScreen}`)).body.result;
+    expect(after.version).toBe(5);
+    expect(after.result.plan.status).toBe('ready');
+    expect(after.history.map((h: { version: number }) => h.version)).toEqual([4, 3, 2, 1]);
     // Updates of the family view are not e-mailed.
     expect(outbox.sent).toHaveLength(2);
   });

@@ -117,7 +117,7 @@ describe('GET /api/squads/:id/training-sheet', () => {
     expect(s.athletes.find((a) => a.id === ids.ana)).toMatchObject({ source: 'adjusted', adjustedByName: 'Tess Tester', exerciseCount: 1 });
   });
 
-  it('says why loaded work waits: pain not cleared (the engine already left it out) and referred on (held, still listed)', async () => {
+  it('says why loaded and landing work waits: pain not cleared (the engine already left it out) and referred on (held, still listed)', async () => {
     const set = await as.physio.put(`/api/athletes/${ids.dee}/clearance`).send({ status: 'referred', detail: 'Sports medicine clinic' });
     expect(set.status, JSON.stringify(set.body)).toBe(200);
     const s = await sheet(as.physio);
@@ -130,11 +130,17 @@ describe('GET /api/squads/:id/training-sheet', () => {
     const dee = s.athletes.find((a) => a.id === ids.dee)!;
     expect(dee.hold).toMatch(/referred on/);
     const deePlan = await planOf(ids.deeScreen!);
+    // Held: loaded strength work and landing work; the rest is done as planned.
     const loaded = deePlan.exercises.filter(isLoadedStrength).map((e) => e.id);
+    const landing = deePlan.exercises.filter((e) => e.isJump).map((e) => e.id);
     expect(loaded.length).toBeGreaterThan(0);
+    expect(landing.length).toBeGreaterThan(0);
     const lines = linesOf(s, ids.dee!);
     expect(Object.keys(lines).sort()).toEqual(deePlan.exercises.map((e) => e.id).sort());
-    for (const e of deePlan.exercises) expect(lines[e.id]!.held, e.id).toBe(loaded.includes(e.id));
+    for (const e of deePlan.exercises) expect(lines[e.id]!.held, e.id).toBe(loaded.includes(e.id) || landing.includes(e.id));
+    expect(deePlan.exercises.some((e) => !loaded.includes(e.id) && !landing.includes(e.id))).toBe(true);
+    // No pain was reported at Dee's screen: the referral made no new result version.
+    expect((await as.coach.get(`/api/assessments/${ids.deeScreen}`)).body.result.version).toBe(1);
   });
 
   it('groups every line once under its exercise, in session order', async () => {

@@ -35,7 +35,7 @@ const ROLE_WORDS: Record<string, string> = { head_coach: 'head coach', physio: '
 
 /**
  * The physiotherapist's hold on this plan (`GET /api/assessments/:id/care`): 'pending' while it is read,
- * 'unknown' when it could not be read (loaded strength work is then shown as on hold: the safe side).
+ * 'unknown' when it could not be read (loaded strength and landing work are then shown as on hold: the safe side).
  */
 export type PlanHold = { block: StrengthBlock; clearance: ClearanceView } | 'pending' | 'unknown';
 
@@ -52,7 +52,7 @@ type Props = {
 const UNKNOWN_HOLD: StrengthBlock = {
   blocked: true,
   reason: 'clearance-needed',
-  words: "The physiotherapist's clearance could not be read: loaded strength work is shown as on hold until it can.",
+  words: "The physiotherapist's clearance could not be read: loaded strength and landing work are shown as on hold until it can.",
 };
 
 export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canOverride, hold }: Props) {
@@ -66,7 +66,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
   const shown = adjustment && !showProposal ? adjustment.exercises : plan.exercises;
   const block: StrengthBlock = hold === 'unknown' ? UNKNOWN_HOLD : hold === 'pending' ? { blocked: false } : hold.block;
   const clearance = typeof hold === 'object' ? hold.clearance : null;
-  // Loaded strength work held back by "refer on" or "clearance needed" is set apart below the plan.
+  // Loaded strength and landing work held back by "refer on" or "clearance needed" is set apart below the plan.
   const { now, held } = splitByBlock(shown, block);
 
   return (
@@ -206,7 +206,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
 
 /**
  * Work that must not be done yet, set apart from the plan with the reason: "refer on" or "clearance
- * needed" (the care team's hold on loaded strength work), and what the engine held back because pain was
+ * needed" (the care team's hold on loaded strength and landing work), and what the engine held back because pain was
  * reported at the screen.
  */
 function HeldWork({
@@ -224,7 +224,7 @@ function HeldWork({
   const reason = !block.blocked
     ? null
     : block.reason === 'referred'
-      ? `Refer on: ${clearance?.setByName ?? 'a physiotherapist'} referred the athlete on ${clearance ? formatDate(clearance.setAt) : 'a recent date'}${clearance?.detail ? ` (${clearance.detail})` : ''}. Loaded strength work waits until a physiotherapist clears the athlete.`
+      ? `Refer on: ${clearance?.setByName ?? 'a physiotherapist'} referred the athlete on ${clearance ? formatDate(clearance.setAt) : 'a recent date'}${clearance?.detail ? ` (${clearance.detail})` : ''}. Loaded strength work and landing work wait until a physiotherapist clears the athlete.`
       : block.words;
   return (
     <View style={styles.held} testID="plan-held">
@@ -241,7 +241,7 @@ function HeldWork({
           <ExerciseCard exercise={ex} index={i} onHold />
         </View>
       ))}
-      {block.blocked && held.length === 0 && withheld.length === 0 ? <Text variant="small">Nothing in this plan is loaded strength work.</Text> : null}
+      {block.blocked && held.length === 0 && withheld.length === 0 ? <Text variant="small">Nothing in this plan is loaded strength or landing work.</Text> : null}
       {withheld.length > 0 ? (
         <View style={styles.withheld} testID="plan-withheld">
           <Text variant="label">Pain reported at this screen: held back by the engine</Text>
