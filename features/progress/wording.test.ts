@@ -99,6 +99,17 @@ describe('the family comparison with sessions (our choice)', () => {
     expect(lines[weeks + 1]).toBe('Your child took part in 12 of the 18 exercise sessions the squad held between the two checks.');
     expect(familySummary(c, { attended: 0, held: 1 })).toContain('The squad held 1 exercise session between the two checks; your child was not there.');
   });
+  it('says the growth spurt apart from what the exercises work on (our wording)', () => {
+    const drop = flag('contralateral-pelvic-drop', 'Pelvic drop', 'single-leg-squat-left', 'left');
+    const growth = flag('growth-spurt-window', 'Growth-spurt window', null, null);
+    const lines = familySummary({ ...c, flags: { cleared: [], persisting: [drop, growth], new: [] } } as unknown as ScreenComparison);
+    expect(lines).toContain('We still saw the hip dipping on the side of the lifted leg. The exercises keep working on this.');
+    expect(lines).toContain('Your child still seems to be in a growth spurt, so the coaches keep the training lighter for now.');
+    expect(lines.join(' ')).not.toMatch(/growth spurt, when training/);
+    const onlyGrowth = familySummary({ ...c, flags: { cleared: [], persisting: [], new: [growth] } } as unknown as ScreenComparison);
+    expect(onlyGrowth).toContain('Your child now seems to be in a growth spurt, so the coaches make the training lighter for now.');
+    expect(onlyGrowth.join(' ')).not.toMatch(/added exercises/);
+  });
   it('checks less than a week apart, or one week apart, in whole words', () => {
     const short = (days: number) => familySummary({ ...c, planTime: { ...c.planTime, days, longEnough: false } } as ScreenComparison);
     expect(short(0)).toContain('The two checks were less than a week apart, which is too soon to see a difference.');

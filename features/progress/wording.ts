@@ -140,6 +140,8 @@ export const FAMILY_PATTERN_WORDS: Record<PatternId, string> = {
   'growth-spurt-window': 'a growth spurt, when training is adjusted',
 };
 
+const GROWTH: PatternId = 'growth-spurt-window';
+
 function familyList(flags: FlagRef[]): string {
   // One mention per pattern: a family does not need every task and side.
   const words = [...new Set(flags.map((f) => FAMILY_PATTERN_WORDS[f.pattern]))];
@@ -155,9 +157,15 @@ export function familySummary(c: ScreenComparison, sessions: ProgressResponse['s
   const out: string[] = [];
   const f = c.flags;
   const weeks = Math.floor(c.planTime.days / 7);
-  if (f.cleared.length) out.push(`Good news: at the latest check we no longer saw ${familyList(f.cleared)}.`);
-  if (f.persisting.length) out.push(`We still saw ${familyList(f.persisting)}. The exercises keep working on this.`);
-  if (f.new.length) out.push(`This time we also noticed ${familyList(f.new)}. The coach has added exercises for it.`);
+  // The growth-spurt window is a stage of growing, not something the exercises work on: said apart.
+  const movement = (flags: FlagRef[]) => flags.filter((x) => x.pattern !== GROWTH);
+  const growth = (flags: FlagRef[]) => flags.some((x) => x.pattern === GROWTH);
+  if (movement(f.cleared).length) out.push(`Good news: at the latest check we no longer saw ${familyList(movement(f.cleared))}.`);
+  if (movement(f.persisting).length) out.push(`We still saw ${familyList(movement(f.persisting))}. The exercises keep working on this.`);
+  if (movement(f.new).length) out.push(`This time we also noticed ${familyList(movement(f.new))}. The coach has added exercises for it.`);
+  if (growth(f.persisting)) out.push('Your child still seems to be in a growth spurt, so the coaches keep the training lighter for now.');
+  if (growth(f.new)) out.push('Your child now seems to be in a growth spurt, so the coaches make the training lighter for now.');
+  if (growth(f.cleared)) out.push('The latest check no longer places your child in the fastest part of a growth spurt; the coaches adjust the training to match.');
   if (!f.cleared.length && !f.persisting.length && !f.new.length) out.push('Neither check showed anything we needed to work on.');
   if (!c.planTime.noPlanNeeded) {
     out.push(
