@@ -1,5 +1,6 @@
 // Plain words for statuses, severities, sides, thresholds and prescriptions. Pure.
 import { capitalise } from '@/features/ui/capitalise';
+import { formatDate } from '@/features/ui/format-date';
 import type { AssessmentStatus } from './contract';
 import type { Certainty, Dose, FlagSide, LoadRule, MaturityStage, Phase, Prescription, Severity, SourceKind, ThresholdRef, Unit } from './engine';
 
@@ -131,3 +132,14 @@ export const STAGE_LABELS: Record<MaturityStage, string> = {
   post: 'After the growth spurt',
   unknown: 'Growth stage unknown',
 };
+
+/**
+ * When to screen again, as the result's plan says it (our wording). Once the date has passed, the page says
+ * so rather than "on or after" a day gone by. `rescreenDate` and `today` are YYYY-MM-DD.
+ */
+export function rescreenWords(rescreenDate: string | null, rescreenWeeks: number, today: string, locale?: string): string {
+  const after = `${rescreenWeeks} ${rescreenWeeks === 1 ? 'week' : 'weeks'} after this screen`;
+  if (!rescreenDate) return `${capitalise(after)}.`;
+  const when = formatDate(rescreenDate, { locale });
+  return rescreenDate > today ? `On or after ${when} (${after}).` : `Due since ${when} (${after}), unless the athlete has been screened again.`;
+}

@@ -7,7 +7,8 @@ import type { PlanAdjustmentView, ResultView } from '@/features/screening/contra
 import type { PlannedExercise } from '@/features/screening/engine';
 import { loadingContextOf, STAGE_LIMITS } from '@/features/screening/engine/limits';
 import { shortSource } from '@/features/screening/engine/sources';
-import { STAGE_LABELS } from '@/features/screening/labels';
+import { rescreenWords, STAGE_LABELS } from '@/features/screening/labels';
+import { todayIso } from '@/features/athletes/age';
 import { TESTER_MARK } from '@/features/screening/plan-edits';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
@@ -184,7 +185,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
       ) : null}
       <View style={styles.rescreen} testID="plan-rescreen">
         <Text variant="label">Re-screen</Text>
-        <Text>{plan.rescreenDate ? `On or after ${formatDate(plan.rescreenDate)} (in ${plan.rescreenWeeks} weeks).` : `In ${plan.rescreenWeeks} weeks.`}</Text>
+        <Text>{rescreenWords(plan.rescreenDate, plan.rescreenWeeks, todayIso())}</Text>
       </View>
       <Notice tone="caution" title="Before you start" testID="plan-cautions">
         <View style={styles.cautions}>
