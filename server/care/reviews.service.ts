@@ -1,3 +1,4 @@
+import { groupFlags } from '@/features/screening/flag-groups';
 import type { Db } from '@/db/client';
 import type { AssessmentInput, AssessmentResult } from '@/features/screening/engine';
 import { strengthBlock, type StrengthBlock } from '@/features/care/strength-block';
@@ -27,6 +28,8 @@ export function reviewsService(db: Db, scope: ClubScope) {
       const clearance = await latestClearances(db, [...new Set(rows.map((r) => r.athleteId))]);
       const items: ReviewItem[] = rows.map((r) => {
         const result = r.result as AssessmentResult;
+        // Counted as the result page shows them: one per pattern and side, whatever the tasks that showed it.
+        const groups = groupFlags(result.flags);
         return {
           assessmentId: r.assessmentId,
           athleteId: r.athleteId,
@@ -38,8 +41,8 @@ export function reviewsService(db: Db, scope: ClubScope) {
           submittedAt: (r.submittedAt ?? r.resultCreatedAt).toISOString(),
           painReported: painReported(r.input as AssessmentInput),
           clearanceNeeded: result.plan.status === 'clearance-needed',
-          flagCount: result.flags.length,
-          concernCount: result.flags.filter((f) => f.severity === 'concern').length,
+          flagCount: groups.length,
+          concernCount: groups.filter((g) => g.severity === 'concern').length,
           clearance: clearance.get(r.athleteId) ?? null,
           reviewedAt: r.reviewedAt ? new Date(r.reviewedAt).toISOString() : null,
           releasedAt: null,

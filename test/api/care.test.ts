@@ -168,6 +168,16 @@ describe('review list, review mark and release', () => {
     expect(list.status).toBe(200);
     expect(list.body.reviews.map((r: { firstName: string }) => r.firstName)).toEqual(['Kit', 'Lou']);
     expect(list.body.reviews[0]).toMatchObject({ painReported: true, clearanceNeeded: true, clearance: { status: 'referred' } });
+    // Flags counted as the result page shows them: one per pattern and side (a pattern several tasks
+    // showed on one side counts once), and "of concern" the same way.
+    const kitFlags = kit.result.result.flags;
+    const groups = new Map<string, string>();
+    for (const f of kitFlags) {
+      const key = `${f.pattern}|${f.side}`;
+      if (groups.get(key) !== 'concern') groups.set(key, f.severity);
+    }
+    expect(groups.size).toBeLessThan(kitFlags.length);
+    expect(list.body.reviews[0]).toMatchObject({ flagCount: groups.size, concernCount: [...groups.values()].filter((v) => v === 'concern').length });
     expect((await as.tester.get('/api/reviews')).status).toBe(403);
     expect((await as.parentA.get('/api/reviews')).status).toBe(403);
 
