@@ -115,6 +115,9 @@ describe(`volume at every maturity stage (${FAIGENBAUM})`, () => {
     if (p.dose.kind === 'reps') {
       expect(p.dose.max).toBeLessThanOrEqual(deviation ? 20 : YOUTH_VOLUME.maxReps);
       if (p.dose.toNearFatigue) expect(stage).toBe('post');
+      // Every word of the prescription says the same about fatigue: no "close to fatigue" in the load's
+      // note where the sets stop short of it (our choice).
+      if (!p.dose.toNearFatigue && p.load.kind === 'percent-1rm') expect(p.load.note).not.toMatch(/close to fatigue/i);
     }
     if (spec.phase !== 'mobility') expect(p.perWeek).toBeLessThanOrEqual(YOUTH_VOLUME.maxStrengthDaysPerWeek);
     if (deviation) expect(adjustments.join(' ')).toMatch(/beyond the youth position statement/);
@@ -128,6 +131,7 @@ describe(`volume at every maturity stage (${FAIGENBAUM})`, () => {
     const s = split(r)!;
     expect(s.prescription.sets).toEqual({ min: 3, max: 3 });
     expect(s.prescription.dose).toMatchObject({ kind: 'reps', min: 12, max: 15, toNearFatigue: false });
+    expect(s.prescription.load.note).toBe('short of fatigue: stop while two or three more clean repetitions would still be possible; full range of motion.');
     // 50-55% of 40 kg = 20-22 kg -> 20 kg to 20 kg in 2.5 kg steps (22.5 kg would be 56.25%).
     expect(s.prescription.load).toMatchObject({ kind: 'percent-1rm', minPercent: 50, maxPercent: 55, kg: { min: 20, max: 20 } });
     expect(r.plan.cautions.map((c) => c.id)).toContain('youth-volume');
@@ -139,6 +143,7 @@ describe(`volume at every maturity stage (${FAIGENBAUM})`, () => {
     const s = split(r)!;
     expect(s.prescription.sets).toEqual({ min: 3, max: 4 });
     expect(s.prescription.dose).toMatchObject({ min: 12, max: 20, toNearFatigue: true });
+    expect(s.prescription.load.note).toMatch(/^close to fatigue: stop when one or two more clean repetitions would still be possible/);
     // 50-65% of 80 kg = 40-52 kg -> 40 to 50 kg in 2.5 kg steps (52.5 kg would be 65.6%).
     expect(s.prescription.load).toMatchObject({ maxPercent: 65, kg: { min: 40, max: 50 } });
     expect(s.adjustments.join(' ')).toMatch(/Faigenbaum et al\. 2009/);

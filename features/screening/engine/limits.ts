@@ -11,7 +11,7 @@
  */
 import { EXERCISES } from './exercises';
 import { FAIGENBAUM_2009, LLOYD_2014, OUR_CHOICE, COMMON_PRACTICE } from './sources';
-import { LOAD_PROGRESSION, loadRangeKg, progressionStepKg, withinPercentOfOneRepMax } from './strength';
+import { LOAD_PROGRESSION, loadRangeKg, progressionStepKg, STRENGTH_ENDURANCE, withinPercentOfOneRepMax } from './strength';
 import type { AssessmentResult, Certainty, ExerciseSpec, LoadingContext, LoadRule, MaturityStage, PlannedExercise, Prescription, SourceKind } from './types';
 
 export interface LimitBasis {
@@ -251,6 +251,10 @@ export function applyLimits(spec: ExerciseSpec, ctx: LoadingContext): { prescrip
   }
   if (base.dose.kind === 'reps' && base.dose.toNearFatigue && dose.kind === 'reps' && !dose.toNearFatigue) {
     adjustments.push(`Sets stop two or three clean repetitions short of fatigue: ${stageWords(ctx)} (our choice).`);
+    // The load's own words said "close to fatigue": they say what is prescribed now, never both.
+    if (load.kind === 'percent-1rm' && load.note.includes(STRENGTH_ENDURANCE.reps)) {
+      load = { ...load, note: load.note.replace(STRENGTH_ENDURANCE.reps, STRENGTH_ENDURANCE.repsShortOfFatigue) };
+    }
   }
   if (load.kind === 'percent-1rm' && stage.strengthEnduranceVolume) {
     adjustments.push(

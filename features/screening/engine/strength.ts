@@ -48,6 +48,8 @@ export const STRENGTH_ENDURANCE = {
   maxPercent: 65,
   sets: { min: 3, max: 4 },
   reps: 'close to fatigue: stop when one or two more clean repetitions would still be possible',
+  /** The same sets where the athlete's stage allows no sets to fatigue (limits.ts; our choice). */
+  repsShortOfFatigue: 'short of fatigue: stop while two or three more clean repetitions would still be possible',
   tempo: 'slow and controlled: 3 s down, 1 s pause, 2 s up',
   rangeOfMotion: 'full range of motion',
 } as const;
