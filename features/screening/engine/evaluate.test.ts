@@ -138,6 +138,15 @@ describe('evaluateAssessment: knee valgus sign on both legs', () => {
     }
   });
 
+  it('a knee-angle flag carries the adult-norms caution with the same error figure the progress view judges changes by', () => {
+    // Munro, Herrington and Carolan 2012, J Sport Rehabil 21(1):7-11: smallest detectable difference
+    // 7.54-8.93 deg; the upper end is the progress view's margin (features/progress/compare.ts).
+    const r = evaluateAssessment(makeAssessment({ tasks: { 'drop-landing': { criteria: [], photos: { front: { landmarks: rightLeg(20) } } } } }));
+    const caution = r.plan.cautions.find((c) => c.id === 'adult-knee-norms');
+    expect(caution?.text).toContain('8.93 degrees or less may be measurement error');
+    expect(caution?.text).not.toMatch(/7\.5 degrees/);
+  });
+
   it('a mirrored landing gives the same angles on both legs and no asymmetry', () => {
     const r = evaluateAssessment(
       makeAssessment({

@@ -168,7 +168,7 @@ function cautionsFor(flags: readonly Flag[], ctx: PlanContext, loading: LoadingC
   if (flags.some((f) => f.thresholdsMet.some((t) => t.rowId.startsWith('fppa-')))) {
     out.push({
       id: 'adult-knee-norms',
-      text: 'Knee-angle thresholds come from adult norms and are applied to juniors for want of junior norms. A change between two screens smaller than about 7.5 degrees (the smallest detectable difference) may be measurement error.',
+      text: 'Knee-angle thresholds come from adult norms and are applied to juniors for want of junior norms. A change between two screens of 8.93 degrees or less may be measurement error (the largest smallest detectable difference reported for these tasks, 7.54-8.93 degrees; the progress view uses the same figure).',
       source: `${HERRINGTON_MUNRO_2010}; ${MUNRO_HERRINGTON_CAROLAN_2012}`,
     });
   }
