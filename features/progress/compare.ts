@@ -208,12 +208,21 @@ export function planTimeBetween(earlier: ScreenForComparison, later: ScreenForCo
   };
 }
 
+/**
+ * Which measurements of two screens are the same one: the id, except for a left-right comparison (limb
+ * symmetry, left-right differences), whose id ends with the shorter or weaker side, and that side can
+ * change from one screen to the next: it is still the same comparison (our choice).
+ */
+export function measurementKey(m: Pick<Measurement, 'id' | 'comparesTasks'>): string {
+  return m.comparesTasks ? m.id.slice(0, m.id.lastIndexOf('/')) : m.id;
+}
+
 /** Compares two screens of one athlete; `earlier` must be the older one. */
 export function compareScreens(earlier: ScreenForComparison, later: ScreenForComparison): ScreenComparison {
-  const laterById = new Map(later.result.measurements.map((m) => [m.id, m]));
+  const laterByKey = new Map(later.result.measurements.map((m) => [measurementKey(m), m]));
   const measurements: MeasurementChange[] = [];
   for (const m of earlier.result.measurements) {
-    const now = laterById.get(m.id);
+    const now = laterByKey.get(measurementKey(m));
     if (now) measurements.push(compareMeasurement(m, now));
   }
   return {

@@ -75,6 +75,15 @@ describe('historySeries', () => {
     expect(series[0]!.band!.high).toBeCloseTo(23.93, 10);
   });
 
+  it('keeps a left-right comparison in one series when its shorter side changes between screens (our choice)', () => {
+    const pair = ['knee-to-wall-left', 'knee-to-wall-right'] as const;
+    const left = { ...lsi(86), comparesTasks: pair };
+    const right = { ...lsi(92), id: 'knee-to-wall/knee-to-wall-lsi/right', side: 'right' as const, comparesTasks: pair };
+    const swapped = historySeries({ ...progress, screens: [screen(0, [left]), screen(1, [right])] });
+    expect(swapped.map((s) => s.key)).toEqual(['knee-to-wall/knee-to-wall-lsi']);
+    expect(swapped[0]!.points.map((p) => p.value)).toEqual([86, 92]);
+  });
+
   it('has no band where there is no published figure', () => {
     expect(series[1]!.band).toBeNull();
     expect(series[2]!.band).toBeNull();

@@ -5,7 +5,7 @@
  */
 import type { MetricId, Sex } from '@/features/screening/engine';
 import { THRESHOLDS } from '@/features/screening/engine/thresholds';
-import type { ErrorMargin } from './compare';
+import { measurementKey, type ErrorMargin } from './compare';
 import type { ProgressResponse } from './progress-types';
 
 export type HistoryPoint = { index: number; screenedOn: string; roundName: string; value: number };
@@ -54,10 +54,11 @@ export function historySeries(progress: ProgressResponse): HistorySeries[] {
   progress.screens.forEach((screen, index) => {
     for (const m of screen.measurements) {
       if (!CHARTED_METRICS.includes(m.metric)) continue;
-      let s = byId.get(m.id);
+      const key = measurementKey(m);
+      let s = byId.get(key);
       if (!s) {
         s = {
-          key: m.id,
+          key,
           title: m.label,
           metric: m.metric,
           unit: UNIT_TEXT[m.unit] ?? m.unit,
@@ -65,7 +66,7 @@ export function historySeries(progress: ProgressResponse): HistorySeries[] {
           threshold: thresholdFor(m.metric, m.id, progress.athlete.sex),
           band: null,
         };
-        byId.set(m.id, s);
+        byId.set(key, s);
       }
       s.title = m.label;
       s.points.push({ index, screenedOn: screen.screenedOn, roundName: screen.roundName, value: m.value });
