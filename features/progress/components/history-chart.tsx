@@ -6,6 +6,7 @@ import { colors, fonts, radius, space } from '@/features/ui/theme';
 import { axisDateLabels, DATE_AXIS_RIGHT, labelledPoints } from '../axis-labels';
 import type { HistorySeries } from '../history';
 import { NumbersTable } from './numbers-table';
+import { formatDate } from '@/features/ui/format-date';
 
 const round1 = (n: number) => Math.round(n * 10) / 10;
 export const AXIS_STYLE = {
@@ -97,7 +98,7 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
       <NumbersTable
         caption={`${series.title}: values per screen`}
         columns={['Screen', 'Date', `Value (${series.unit})`]}
-        rows={series.points.map((p) => [p.roundName, p.screenedOn, round1(p.value)])}
+        rows={series.points.map((p) => [p.roundName, formatDate(p.screenedOn), round1(p.value)])}
       />
     </View>
   );
