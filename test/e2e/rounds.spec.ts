@@ -61,6 +61,14 @@ test('a round offers to start, lists flags by severity, and can be closed and re
   await expect(flags).toContainText('Watch');
   await expect(flags).toContainText('(right)');
   await page.screenshot({ path: testInfo.outputPath('round-flags.png'), fullPage: true });
+  // The same count as the athlete's result page: one per pattern and side.
+  const tagText = await flags.innerText();
+  const concern = Number(/(\d+) Concern/.exec(tagText)?.[1] ?? 0);
+  const watch = Number(/(\d+) Watch/.exec(tagText)?.[1] ?? 0);
+  await page.goto(`/screening/assessments/${a.assessmentId}/result`);
+  await expect(page.getByTestId('flags')).toContainText(`${concern + watch} flags, ${concern} of concern.`);
+  await page.goto(`/screening/rounds/${round.round.id}`);
+  await expect(page.getByRole('heading', { name })).toBeVisible();
 
   // Close it: screening stops, the rows open results; then the head coach reopens it.
   await page.getByTestId('round-close').click();

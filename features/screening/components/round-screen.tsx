@@ -27,15 +27,20 @@ import { frameStyles } from '@/features/shell/components/shell-frame';
 
 const byName = (a: RoundAthlete, b: RoundAthlete) => a.lastName.localeCompare(b.lastName) || a.firstName.localeCompare(b.firstName);
 
-/** An athlete's flags at a glance: how many of each severity, then their names, most severe first. */
+/**
+ * An athlete's flags at a glance: how many of each severity, then their names, most severe first. Counted
+ * as the result page shows them: one per pattern (its title) and side, at its most severe.
+ */
 function AthleteFlags({ flags, testID }: { flags: RoundAthleteFlag[]; testID: string }) {
   if (flags.length === 0) return <PlainTag tone="info" label="No flags" />;
-  const concern = flags.filter((f) => f.severity === 'concern');
-  const watch = flags.filter((f) => f.severity === 'watch');
-  const names = flags.map((f) =>
-    f.side === 'left' || f.side === 'right' ? `${f.title} (${f.side})` : f.side === 'both' ? `${f.title} (both sides)` : f.title,
-  );
-  const shown = [...new Set(names)];
+  const groups = new Map<string, RoundAthleteFlag['severity']>();
+  for (const f of flags) {
+    const name = f.side === 'left' || f.side === 'right' ? `${f.title} (${f.side})` : f.side === 'both' ? `${f.title} (both sides)` : f.title;
+    if (groups.get(name) !== 'concern') groups.set(name, f.severity);
+  }
+  const concern = [...groups.values()].filter((s) => s === 'concern');
+  const watch = [...groups.values()].filter((s) => s === 'watch');
+  const shown = [...groups.keys()];
   return (
     <View style={styles.flags} testID={testID}>
       <View style={styles.tags}>
