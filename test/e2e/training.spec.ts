@@ -58,9 +58,12 @@ test('training sheet: a squad by exercise, holds first, names open results, prin
   const holds = sheet.athletes.filter((a) => a.hold);
   if (holds.length) await expect(page.getByTestId('sheet-holds')).toContainText(holds[0]!.name);
   else await expect(page.getByTestId('sheet-holds')).toHaveCount(0);
-  const due = sheet.athletes.filter((a) => a.state === 'plan' && a.rescreenDue);
-  if (due.length) await expect(page.getByTestId('sheet-due')).toContainText(due.map((a) => a.name).join(', '));
-  else await expect(page.getByTestId('sheet-due')).toHaveCount(0);
+  // Everyone due, on the sheet or not, and those never screened apart.
+  const due = sheet.athletes.filter((a) => a.state !== 'no-screen' && a.rescreenDue);
+  const never = sheet.athletes.filter((a) => a.state === 'no-screen');
+  if (due.length) await expect(page.getByTestId('sheet-due')).toContainText(`Due a re-screen: ${due.map((a) => a.name).join(', ')}.`);
+  if (never.length) await expect(page.getByTestId('sheet-due')).toContainText(`Not screened yet: ${never.map((a) => a.name).join(', ')}.`);
+  if (!due.length && !never.length) await expect(page.getByTestId('sheet-due')).toHaveCount(0);
 
   await page.screenshot({ path: `test-results/training-sheet-${info.project.name}.png`, fullPage: true });
   await page.emulateMedia({ media: 'print' });

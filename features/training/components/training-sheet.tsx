@@ -86,8 +86,10 @@ function SheetBody({ data }: { data: TrainingSheet }) {
   const withPlan = data.athletes.filter((a) => a.state === 'plan').length;
   const held = data.athletes.filter((a) => a.hold);
   const off = data.athletes.filter((a) => a.state !== 'plan');
-  // Those on a plan whose re-screen date has come: the next round shows whether the plan worked.
-  const due = data.athletes.filter((a) => a.state === 'plan' && a.rescreenDue);
+  // Everyone whose re-screen date has come (the next round shows whether the plan worked), and those
+  // never screened, said apart.
+  const due = data.athletes.filter((a) => a.state !== 'no-screen' && a.rescreenDue);
+  const neverScreened = data.athletes.filter((a) => a.state === 'no-screen');
   // At the top beside the count on a wide screen; at the end on a phone, where the plans come first.
   const printButton = canPrint ? (
     <View {...PRINT_HIDE} style={styles.actions}>
@@ -103,16 +105,21 @@ function SheetBody({ data }: { data: TrainingSheet }) {
         </Text>
         {isTabletUp ? printButton : null}
       </View>
-      {due.length ? (
+      {due.length || neverScreened.length ? (
         <Text variant="small" testID="sheet-due">
-          {`Due a re-screen: ${due.map((a) => a.name).join(', ')}.`}
+          {[
+            due.length ? `Due a re-screen: ${due.map((a) => a.name).join(', ')}.` : '',
+            neverScreened.length ? `Not screened yet: ${neverScreened.map((a) => a.name).join(', ')}.` : '',
+          ]
+            .filter(Boolean)
+            .join(' ')}
         </Text>
       ) : null}
       <Notice tone="caution" title="Before the session">
         Plans as they stand after each athlete’s newest screen. Warm up first; stop anything that hurts and tell a coach. Not a diagnosis.
       </Notice>
       {held.length ? (
-        <Notice tone="caution" title={`Loaded work on hold: ${held.length}`} testID="sheet-holds">
+        <Notice tone="caution" title={`Loaded and landing work on hold: ${held.length}`} testID="sheet-holds">
           {held.map((a) => (
             <Text key={a.id}>
               <Text style={styles.strong}>{a.name}</Text>: {a.hold}
