@@ -35,6 +35,32 @@ test('a physiotherapist reviews a screen, adds a note, previews the family e-mai
   await page.screenshot({ path: shots('release-preview', testInfo.project.name) });
   await page.getByTestId('release-confirm').click();
   await expect(page.getByText(/The summary is in the family view/)).toBeVisible();
+
+  // Back to the list the physiotherapist came from, where the screen has moved on.
+  await page.getByTestId('back-to-reviews').click();
+  await expect(page).toHaveURL(/\/reviews$/);
+  await expect(rows.first()).toBeVisible();
+});
+
+test('on a phone, the review and clearance are one tap from the top of a result; a pain report is said at the top', async ({ page }, testInfo) => {
+  await signIn(page, 'physio@squadline.test');
+  const list = (await (await page.request.get('/api/reviews')).json()) as { reviews: { assessmentId: string; painReported: boolean }[]; awaitingRelease: { assessmentId: string; painReported: boolean }[] };
+  const pained = [...list.reviews, ...list.awaitingRelease].find((r) => r.painReported);
+  expect(pained, 'the demo has a screen with pain reported').toBeTruthy();
+  await page.goto(`/screening/assessments/${pained!.assessmentId}/result?from=reviews`);
+  await expect(page.getByTestId('result-pain')).toContainText('Pain was reported during:');
+  await expect(page.getByTestId('back-to-reviews')).toBeVisible();
+  if (testInfo.project.name === 'phone') {
+    await page.getByTestId('to-care').click();
+    await expect(page.getByTestId('result-care')).toBeInViewport();
+  } else {
+    // Wide: beside the flags, in the first column, with no link needed.
+    await expect(page.getByTestId('to-care')).toHaveCount(0);
+    const flags = (await page.getByTestId('flags').boundingBox())!;
+    const care = (await page.getByTestId('result-care').boundingBox())!;
+    expect(Math.abs(care.x - flags.x)).toBeLessThan(2);
+  }
+  await page.screenshot({ path: shots('result-physio-top', testInfo.project.name) });
 });
 
 test('the summary e-mail renders as HTML without images', async ({ page }, testInfo) => {

@@ -16,6 +16,9 @@ import { formatDate } from '@/features/ui/format-date';
  * The care team's part of a result: the review mark, release to the family with a preview of the
  * e-mail, the clearance and the notes. The strength-work hold is shown inside the plan (PlanSection).
  */
+/** The element id of the panel, for the link under the athlete's name on a phone. */
+export const CARE_ANCHOR = 'result-care';
+
 export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: string; athleteId: string }) {
   const { membership } = useActiveClub();
   const care = useAssessmentCareQuery(assessmentId);
@@ -28,7 +31,7 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
   if (!care.data) return <Notice tone="error">{care.error?.message ?? 'The care details could not be read.'}</Notice>;
   const c = care.data.care;
   return (
-    <View style={styles.wrap} testID="result-care">
+    <View style={styles.wrap} testID="result-care" nativeID={CARE_ANCHOR}>
       <Card>
         <Text variant="heading" accessibilityRole="header" aria-level={2}>
           Review and family summary

@@ -54,7 +54,7 @@ function ReviewRow({ item, wide }: { item: ReviewItem; wide: boolean }) {
   const urgent = item.painReported || item.clearanceNeeded;
   return (
     <Link
-      href={`/screening/assessments/${item.assessmentId}/result`}
+      href={`/screening/assessments/${item.assessmentId}/result?from=reviews`}
       style={[styles.row, urgent && styles.urgent, wide && styles.rowWide]}
       testID={`review-${item.athleteId}`}
     >

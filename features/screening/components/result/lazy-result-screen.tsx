@@ -4,10 +4,10 @@ import { Text } from '@/features/ui/components/text';
 const Screen = lazy(() => import('./result-screen'));
 
 /** The result screen (plan, library, overlays) is a separate download. */
-export function LazyResultScreen({ assessmentId }: { assessmentId: string }) {
+export function LazyResultScreen({ assessmentId, from }: { assessmentId: string; from?: 'reviews' }) {
   return (
     <Suspense fallback={<Text>Loading the result…</Text>}>
-      <Screen assessmentId={assessmentId} />
+      <Screen assessmentId={assessmentId} from={from} />
     </Suspense>
   );
 }

@@ -1,6 +1,6 @@
 import { AthleteClearanceBadge } from '@/features/care/components/clearance-badge';
 import { useAssessmentCareQuery } from '@/features/care/api/assessment-care';
-import { ResultCarePanel } from '@/features/care/components/result-care-panel';
+import { CARE_ANCHOR, ResultCarePanel } from '@/features/care/components/result-care-panel';
 import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
@@ -12,6 +12,7 @@ import { groupFlags } from '@/features/screening/flag-groups';
 import { nextUnscreened } from '@/features/screening/round-order';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
@@ -21,7 +22,7 @@ import { ResultPhotos } from './result-photos';
 import { formatDate } from '@/features/ui/format-date';
 
 /** The result of a submitted assessment: flags, photos with their lines, the plan and its cautions. */
-export default function ResultScreen({ assessmentId }: { assessmentId: string }) {
+export default function ResultScreen({ assessmentId, from }: { assessmentId: string; from?: 'reviews' }) {
   const query = useAssessmentQuery(assessmentId);
   const care = useAssessmentCareQuery(assessmentId);
   const { membership } = useActiveClub();
@@ -35,7 +36,7 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
     return (
       <View style={styles.wrap}>
         <View style={styles.head}>
-          <BackToRound detail={detail} />
+          <BackLink detail={detail} from={from} />
           <Text variant="title" accessibilityRole="header">
             {name}
           </Text>
@@ -50,15 +51,20 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
     );
   }
   const canEdit = can(membership.role, 'screening.write');
+  // Those who review (physiotherapist, head coach) find the review, clearance and notes beside the flags
+  // on a wide screen, and by a link under the name on a phone; for the others they follow the plan.
+  const reviews = can(membership.role, 'review.read');
+  const carePanel = <ResultCarePanel assessmentId={detail.id} athleteId={detail.athlete.id} />;
   return (
     <View style={styles.wrap} testID="result">
-      <Header detail={detail} result={result} name={name} canEdit={canEdit} />
+      <Header detail={detail} result={result} name={name} canEdit={canEdit} from={from} toCare={reviews} />
       {/* A tester moves on from here: under the name, not below the whole result (a long scroll on a phone,
           and the photos and care notes that arrive later no longer move it while it is tapped). */}
       {canEdit ? <RoundNavigation detail={detail} /> : null}
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         <View style={[styles.column, isWide && styles.columnWide]}>
           <Flags flags={result.result.flags} />
+          {reviews && isWide ? carePanel : null}
           <ResultPhotos detail={detail} />
         </View>
         <View style={[styles.column, isWide && styles.columnWide]}>
@@ -70,7 +76,7 @@ export default function ResultScreen({ assessmentId }: { assessmentId: string })
             canOverride={can(membership.role, 'plan.override')}
             hold={care.data ? { block: care.data.care.block, clearance: care.data.care.clearance } : care.error ? 'unknown' : 'pending'}
           />
-          <ResultCarePanel assessmentId={detail.id} athleteId={detail.athlete.id} />
+          {reviews && isWide ? null : carePanel}
           {result.history.length > 0 ? (
             <View style={styles.history}>
               <Text variant="label">Earlier results</Text>
@@ -109,8 +115,17 @@ function RoundNavigation({ detail }: { detail: AssessmentDetail }) {
   );
 }
 
-/** Back to the assessment's round, above the athlete's name. */
-function BackToRound({ detail }: { detail: AssessmentDetail }) {
+/** Back where the reader came from, above the athlete's name: the review list, or the assessment's round. */
+function BackLink({ detail, from }: { detail: AssessmentDetail; from?: 'reviews' }) {
+  if (from === 'reviews') {
+    return (
+      <Link href="/reviews" style={styles.back} testID="back-to-reviews">
+        <Text variant="label" style={styles.backText}>
+          ← To review
+        </Text>
+      </Link>
+    );
+  }
   return (
     <Link href={`/screening/rounds/${detail.roundId}`} style={styles.back} testID="back-to-round">
       <Text variant="label" style={styles.backText}>
@@ -120,10 +135,37 @@ function BackToRound({ detail }: { detail: AssessmentDetail }) {
   );
 }
 
-function Header({ detail, result, name, canEdit }: { detail: AssessmentDetail; result: ResultView; name: string; canEdit: boolean }) {
+/** The engine's pain caution, first sentence ("Pain was reported during: …."), for the top of the page. */
+function painLine(result: ResultView): string | null {
+  const caution = result.result.plan.cautions.find((c) => c.id === 'pain-reported');
+  if (!caution) return null;
+  return /^[^.]*\./.exec(caution.text)?.[0] ?? caution.text;
+}
+
+function scrollToCare() {
+  if (typeof document !== 'undefined') document.getElementById(CARE_ANCHOR)?.scrollIntoView({ behavior: 'smooth', block: 'start' });
+}
+
+function Header({
+  detail,
+  result,
+  name,
+  canEdit,
+  from,
+  toCare,
+}: {
+  detail: AssessmentDetail;
+  result: ResultView;
+  name: string;
+  canEdit: boolean;
+  from?: 'reviews';
+  toCare: boolean;
+}) {
+  const { isWide } = useBreakpoints();
+  const pain = painLine(result);
   return (
     <View style={styles.head}>
-      <BackToRound detail={detail} />
+      <BackLink detail={detail} from={from} />
       <Text variant="small">Result · {formatDate(detail.screenedOn)}</Text>
       <Text variant="title" accessibilityRole="header">
         {name}
@@ -137,6 +179,16 @@ function Header({ detail, result, name, canEdit }: { detail: AssessmentDetail; r
         <Link href={`/screening/assessments/${detail.id}`} style={styles.action} testID="edit-assessment">
           <Text style={styles.actionText}>Edit the screen and submit again</Text>
         </Link>
+      ) : null}
+      {pain ? (
+        <Notice tone="caution" title="Pain reported" testID="result-pain">
+          {result.result.plan.status === 'clearance-needed'
+            ? `${pain} No loaded strength or landing work until a physiotherapist clears the athlete.`
+            : `${pain} See the clearance above for what is in force.`}
+        </Notice>
+      ) : null}
+      {toCare && !isWide ? (
+        <Button tone="quiet" label="Go to review, clearance and notes ↓" onPress={scrollToCare} testID="to-care" style={styles.toCare} />
       ) : null}
       <Notice>These results describe how the athlete moved on the day. They are not a diagnosis.</Notice>
     </View>
@@ -196,4 +248,5 @@ const styles = StyleSheet.create({
   columnWide: { flex: 1 },
   flags: { gap: space.md },
   history: { gap: space.xs },
+  toCare: { alignSelf: 'flex-start' },
 });

@@ -3,10 +3,10 @@ import { LazyResultScreen } from '@/features/screening/components/result/lazy-re
 import { Page } from '@/features/ui/components/page';
 
 export default function ResultRoute() {
-  const { id } = useLocalSearchParams<{ id: string }>();
+  const { id, from } = useLocalSearchParams<{ id: string; from?: string }>();
   return (
     <Page>
-      <LazyResultScreen assessmentId={String(id)} />
+      <LazyResultScreen assessmentId={String(id)} from={from === 'reviews' ? 'reviews' : undefined} />
     </Page>
   );
 }
