@@ -89,7 +89,30 @@ test('squad trends: load, filter, sort, CSV, charts', async ({ page }, info) => 
   const shown = ascending.map((n) => (n.includes(',') ? n.split(', ').reverse().join(' ') : n));
   expect(csvNames.sort()).toEqual(shown.sort());
 
-  await page.getByTestId('filter-flag-all').click();
+  // Filters that keep nobody say so and clear in one tap. A combination with no athlete in this squad,
+  // found from the API's rows (sex, maturity band, any or no flag).
+  const squads = (await (await page.request.get('/api/squads')).json()) as { squads: { id: string; name: string }[] };
+  const squadId = squads.squads.find((q) => q.name === 'Under-13 mixed')!.id;
+  const trends = (await (await page.request.get(`/api/squads/${squadId}/trends`)).json()) as {
+    athletes: { sex: string; maturityBand: string | null; latestFlags: Record<string, string[]> }[];
+  };
+  const combos = ['female', 'male'].flatMap((sex) => ['pre', 'circa', 'post', 'unknown'].flatMap((band) => ['any', 'none'].map((flag) => ({ sex, band, flag }))));
+  const empty = combos.find(
+    (c) =>
+      !trends.athletes.some(
+        (a) => a.sex === c.sex && (a.maturityBand ?? 'unknown') === c.band && (Object.values(a.latestFlags).flat().length > 0) === (c.flag === 'any'),
+      ),
+  );
+  expect(empty, 'some combination of filters keeps nobody in the demo squad').toBeTruthy();
+  await page.getByTestId(`filter-sex-${empty!.sex}`).click();
+  await page.getByTestId(`filter-band-${empty!.band}`).click();
+  await page.getByTestId(`filter-flag-${empty!.flag}`).click();
+  await expect(page.getByTestId('trends-no-match')).toBeVisible();
+  await expect(page.getByTestId('charts-filter-note')).toBeVisible();
+  await page.getByTestId('clear-filters').click();
+  await expect(page.getByTestId('trends-no-match')).toHaveCount(0);
+  expect(await shownCount(page)).toBe(all);
+
   if (info.project.name === 'phone') await page.getByTestId('toggle-filters').click();
   await page.screenshot({ path: `test-results/trends-${info.project.name}.png`, fullPage: true });
   await share.scrollIntoViewIfNeeded();

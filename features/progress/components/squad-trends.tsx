@@ -195,12 +195,28 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
       <Text variant="small" testID="row-count">
         {rows.length} of {data.athletes.length} athletes · counted on {formatDate(data.today)}
       </Text>
-      {isTabletUp ? <TrendsTable rows={rows} sort={sort} descending={descending} onSort={onSort} /> : <TrendsCards rows={rows} />}
+      {rows.length === 0 && active > 0 ? (
+        <Notice title="No athlete matches these filters" testID="trends-no-match">
+          <View style={styles.stack}>
+            <Text>Choose “All” in a filter, or clear them all.</Text>
+            <Button label="Clear the filters" tone="secondary" testID="clear-filters" onPress={() => setFilters({ sex: '', ageGroup: '', maturityBand: '', flag: '' })} />
+          </View>
+        </Notice>
+      ) : isTabletUp ? (
+        <TrendsTable rows={rows} sort={sort} descending={descending} onSort={onSort} />
+      ) : (
+        <TrendsCards rows={rows} />
+      )}
     </View>
   );
 
   const charts = (
     <View style={styles.stack}>
+      {active > 0 ? (
+        <Text variant="small" testID="charts-filter-note">
+          The flag shares and knee angles count the whole squad; the change per athlete shows the athletes the filters keep.
+        </Text>
+      ) : null}
       <FlagShareChart rounds={data.rounds} title="Share of the squad with each flag, per round" testID="flag-share-chart" />
       {kneeIds.length ? (
         <>
@@ -220,7 +236,9 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
                 <Chips label="From round" value={fromId} onChange={setFromId} options={screenedRounds.map((r) => ({ value: r.id, label: r.name }))} />
                 <Chips label="To round" value={toId} onChange={setToId} options={screenedRounds.map((r) => ({ value: r.id, label: r.name }))} />
               </View>
-              {from && to && from.id !== to.id ? (
+              {from && to && from.id !== to.id && rows.length === 0 ? (
+                <Text variant="small">No athlete matches the filters, so there is no change to draw.</Text>
+              ) : from && to && from.id !== to.id ? (
                 <ChangeChart
                   athletes={rows}
                   rounds={data.rounds}
