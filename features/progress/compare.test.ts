@@ -181,7 +181,13 @@ describe('plan time between screens (our choice: at least the plan re-screen int
 describe('compareScreens: a left-right comparison whose shorter side changed', () => {
   it('is still compared, as one measurement (our choice)', () => {
     const pair = ['knee-to-wall-left', 'knee-to-wall-right'] as const;
-    const earlier = screen('e', '2026-03-09', [], [], [{ ...m('knee-to-wall/knee-to-wall-lsi/left', 'knee-to-wall-lsi', 78, 'percent'), side: 'left', comparesTasks: pair }]);
+    const earlier = screen(
+      'e',
+      '2026-03-09',
+      [],
+      [],
+      [{ ...m('knee-to-wall/knee-to-wall-lsi/left', 'knee-to-wall-lsi', 78, 'percent'), side: 'left', comparesTasks: pair }],
+    );
     const later = screen('l', '2026-06-08', [], [], [{ ...m('knee-to-wall/knee-to-wall-lsi/right', 'knee-to-wall-lsi', 94, 'percent'), comparesTasks: pair }]);
     const c = compareScreens(earlier, later);
     expect(c.measurements.map((x) => [x.metric, x.earlier, x.later, x.change, x.verdict])).toEqual([['knee-to-wall-lsi', 78, 94, 16, 'no-published-figure']]);

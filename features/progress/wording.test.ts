@@ -67,7 +67,10 @@ describe('how long the plan had, in words (our choice)', () => {
 });
 
 describe('sessions since the newest screen (our choice)', () => {
-  const newest = (exercises: number) => ({ screenedOn: '2026-09-16', plan: { status: 'ready' as const, rescreenWeeks: 6, rescreenDate: '2026-10-28', exercises } });
+  const newest = (exercises: number) => ({
+    screenedOn: '2026-09-16',
+    plan: { status: 'ready' as const, rescreenWeeks: 6, rescreenDate: '2026-10-28', exercises },
+  });
   it('counts the sessions the athlete took part in since the newest screen, beside a plan with exercises', () => {
     expect(sessionsSinceSentence({ attended: 14, held: 18 }, newest(3), 'en-GB')).toBe(
       'Since the screen of 16 Sept 2026: took part in 14 of the 18 corrective sessions the squad recorded on the training sheet.',

@@ -123,7 +123,12 @@ export function coachSummary(c: ScreenComparison): { headline: string; lines: st
     judged.length === 0
       ? 'No measurement with a published error was taken at both screens'
       : `${realChanges.length} of ${judged.length} ${judged.length === 1 ? 'measurement' : 'measurements'} with a published error changed by more than it`;
-  const unjudgedPart = unjudged === 0 ? '' : unjudged === 1 ? '; 1 more has no published figure and is not judged' : `; ${unjudged} more have no published figure and are not judged`;
+  const unjudgedPart =
+    unjudged === 0
+      ? ''
+      : unjudged === 1
+        ? '; 1 more has no published figure and is not judged'
+        : `; ${unjudged} more have no published figure and are not judged`;
   const headline = `${judgedPart}${judged.length === 0 ? unjudgedPart.replace(' more ', ' ') : unjudgedPart}.`;
   return { headline, lines, realChanges, withinError };
 }
@@ -165,7 +170,8 @@ export function familySummary(c: ScreenComparison, sessions: ProgressResponse['s
   if (movement(f.new).length) out.push(`This time we also noticed ${familyList(movement(f.new))}. The coach has added exercises for it.`);
   if (growth(f.persisting)) out.push('Your child still seems to be in a growth spurt, so the coaches keep the training lighter for now.');
   if (growth(f.new)) out.push('Your child now seems to be in a growth spurt, so the coaches make the training lighter for now.');
-  if (growth(f.cleared)) out.push('The latest check no longer places your child in the fastest part of a growth spurt; the coaches adjust the training to match.');
+  if (growth(f.cleared))
+    out.push('The latest check no longer places your child in the fastest part of a growth spurt; the coaches adjust the training to match.');
   if (!f.cleared.length && !f.persisting.length && !f.new.length) out.push('Neither check showed anything we needed to work on.');
   if (!c.planTime.noPlanNeeded) {
     out.push(

@@ -63,8 +63,12 @@ describe('rescreenWords (our wording)', () => {
     expect(rescreenWords('2027-01-20', 6, '2026-12-05', 'en-GB')).toBe('On or after 20 Jan 2027 (6 weeks after this screen).');
   });
   it('a date gone by, or today: due since then, never "on or after" a past day', () => {
-    expect(rescreenWords('2026-07-20', 6, '2026-12-05', 'en-US')).toBe('Due since Jul 20, 2026 (6 weeks after this screen), unless the athlete has been screened again.');
-    expect(rescreenWords('2026-12-05', 1, '2026-12-05', 'en-US')).toBe('Due since Dec 5, 2026 (1 week after this screen), unless the athlete has been screened again.');
+    expect(rescreenWords('2026-07-20', 6, '2026-12-05', 'en-US')).toBe(
+      'Due since Jul 20, 2026 (6 weeks after this screen), unless the athlete has been screened again.',
+    );
+    expect(rescreenWords('2026-12-05', 1, '2026-12-05', 'en-US')).toBe(
+      'Due since Dec 5, 2026 (1 week after this screen), unless the athlete has been screened again.',
+    );
   });
   it('no date stored: the interval alone', () => {
     expect(rescreenWords(null, 8, '2026-12-05')).toBe('8 weeks after this screen.');

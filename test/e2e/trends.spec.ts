@@ -96,11 +96,13 @@ test('squad trends: load, filter, sort, CSV, charts', async ({ page }, info) => 
   const trends = (await (await page.request.get(`/api/squads/${squadId}/trends`)).json()) as {
     athletes: { sex: string; maturityBand: string | null; latestFlags: Record<string, string[]> }[];
   };
-  const combos = ['female', 'male'].flatMap((sex) => ['pre', 'circa', 'post', 'unknown'].flatMap((band) => ['any', 'none'].map((flag) => ({ sex, band, flag }))));
+  const combos = ['female', 'male'].flatMap((sex) =>
+    ['pre', 'circa', 'post', 'unknown'].flatMap((band) => ['any', 'none'].map((flag) => ({ sex, band, flag }))),
+  );
   const empty = combos.find(
     (c) =>
       !trends.athletes.some(
-        (a) => a.sex === c.sex && (a.maturityBand ?? 'unknown') === c.band && (Object.values(a.latestFlags).flat().length > 0) === (c.flag === 'any'),
+        (a) => a.sex === c.sex && (a.maturityBand ?? 'unknown') === c.band && Object.values(a.latestFlags).flat().length > 0 === (c.flag === 'any'),
       ),
   );
   expect(empty, 'some combination of filters keeps nobody in the demo squad').toBeTruthy();

@@ -40,7 +40,7 @@ export function NumbersTable({ caption, columns, rows, testID }: { caption: stri
 }
 
 const styles = StyleSheet.create({
-  toggle: { minHeight: TOUCH_MIN - 8, justifyContent: 'center', alignSelf: 'flex-start' },
+  toggle: { minHeight: TOUCH_MIN, justifyContent: 'center', alignSelf: 'flex-start' },
   toggleText: { color: colors.pine, textDecorationLine: 'underline' },
   table: { borderTopWidth: 1, borderColor: colors.line },
   // Visually hidden, still read by screen readers.

@@ -199,7 +199,12 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
         <Notice title="No athlete matches these filters" testID="trends-no-match">
           <View style={styles.stack}>
             <Text>Choose “All” in a filter, or clear them all.</Text>
-            <Button label="Clear the filters" tone="secondary" testID="clear-filters" onPress={() => setFilters({ sex: '', ageGroup: '', maturityBand: '', flag: '' })} />
+            <Button
+              label="Clear the filters"
+              tone="secondary"
+              testID="clear-filters"
+              onPress={() => setFilters({ sex: '', ageGroup: '', maturityBand: '', flag: '' })}
+            />
           </View>
         </Notice>
       ) : isTabletUp ? (

@@ -3,7 +3,7 @@ import { Link } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { PatternId } from '@/features/screening/engine';
 import { Text } from '@/features/ui/components/text';
-import { colors, fonts, radius, space } from '@/features/ui/theme';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { BAND_LABELS, BAND_SHORT, daysAgo, PATTERN_SHORT } from '../labels';
 import type { SortKey, TrendAthlete } from '../trends';
 import { formatDate } from '@/features/ui/format-date';
@@ -108,7 +108,7 @@ export function TrendsCards({ rows }: { rows: TrendAthlete[] }) {
       {rows.map((a) => (
         <View key={a.id} style={styles.card} testID="trends-row">
           <View style={styles.cardHead}>
-            <Link href={`/athletes/${a.id}`}>
+            <Link href={`/athletes/${a.id}`} style={styles.cardLink}>
               <Text variant="label" style={styles.name}>
                 {a.firstName} {a.lastName}
               </Text>
@@ -146,5 +146,7 @@ const styles = StyleSheet.create({
   due: { color: colors.brick, fontFamily: fonts.bold },
   cards: { gap: space.sm },
   card: { gap: 2, padding: space.md, borderWidth: 1, borderColor: colors.line, borderRadius: radius.md, backgroundColor: colors.surface },
-  cardHead: { flexDirection: 'row', justifyContent: 'space-between', flexWrap: 'wrap', gap: space.sm },
+  cardHead: { flexDirection: 'row', justifyContent: 'space-between', alignItems: 'center', flexWrap: 'wrap', gap: space.sm },
+  // The athlete's name is the card's way in: a full touch target on a phone.
+  cardLink: { minHeight: TOUCH_MIN, justifyContent: 'center', display: 'flex' },
 });

@@ -131,7 +131,9 @@ describe(`volume at every maturity stage (${FAIGENBAUM})`, () => {
     const s = split(r)!;
     expect(s.prescription.sets).toEqual({ min: 3, max: 3 });
     expect(s.prescription.dose).toMatchObject({ kind: 'reps', min: 12, max: 15, toNearFatigue: false });
-    expect((s.prescription.load as { note?: string }).note).toBe('short of fatigue: stop while two or three more clean repetitions would still be possible; full range of motion.');
+    expect((s.prescription.load as { note?: string }).note).toBe(
+      'short of fatigue: stop while two or three more clean repetitions would still be possible; full range of motion.',
+    );
     // 50-55% of 40 kg = 20-22 kg -> 20 kg to 20 kg in 2.5 kg steps (22.5 kg would be 56.25%).
     expect(s.prescription.load).toMatchObject({ kind: 'percent-1rm', minPercent: 50, maxPercent: 55, kg: { min: 20, max: 20 } });
     expect(r.plan.cautions.map((c) => c.id)).toContain('youth-volume');

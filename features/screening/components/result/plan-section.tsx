@@ -89,13 +89,13 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
         </Notice>
       ) : null}
       {result.reason ? (
-        <Notice title={`Version ${result.version}: worked out again after a physiotherapist's decision`} testID="plan-cleared">
+        <Notice title={`Version ${result.version}: worked out again after a physiotherapist’s decision`} testID="plan-cleared">
           {result.reason}
         </Notice>
       ) : null}
       {!adjustment && result.earlierAdjustment ? (
         <Notice tone="caution" title="Earlier adjustment not carried over" testID="plan-earlier-adjustment">
-          {`${result.earlierAdjustment.createdByName ?? 'A club member'} adjusted the plan of version ${result.earlierAdjustment.version} on ${formatDate(result.earlierAdjustment.createdAt)}. Version ${result.version} ${result.reason ? 'was worked out again after a physiotherapist's decision' : 'came from a new submission'} and starts again from the engine's proposal below: adjust it again if those changes still apply.`}
+          {`${result.earlierAdjustment.createdByName ?? 'A club member'} adjusted the plan of version ${result.earlierAdjustment.version} on ${formatDate(result.earlierAdjustment.createdAt)}. Version ${result.version} ${result.reason ? 'was worked out again after a physiotherapist’s decision' : 'came from a new submission'} and starts again from the engine's proposal below: adjust it again if those changes still apply.`}
         </Notice>
       ) : null}
       {clearance ? (
@@ -242,7 +242,9 @@ function HeldWork({
           <ExerciseCard exercise={ex} index={i} onHold />
         </View>
       ))}
-      {block.blocked && held.length === 0 && withheld.length === 0 ? <Text variant="small">Nothing in this plan is loaded strength or landing work.</Text> : null}
+      {block.blocked && held.length === 0 && withheld.length === 0 ? (
+        <Text variant="small">Nothing in this plan is loaded strength or landing work.</Text>
+      ) : null}
       {withheld.length > 0 ? (
         <View style={styles.withheld} testID="plan-withheld">
           <Text variant="label">Pain reported at this screen: held back by the engine</Text>
