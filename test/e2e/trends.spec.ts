@@ -136,10 +136,40 @@ test('athlete history: charts with threshold and error band, and the last two sc
   await signIn(page, 'coach@squadline.test');
   await page.getByTestId('home-trends-link').click();
   await chooseDemoSquad(page);
-  // An athlete whose screens raised flags, so a plan was in place between them.
+  // An athlete whose screens raised flags, so a plan was in place between them, screened on different
+  // days in the demo's rounds, with sessions recorded since (other browser tests may add same-day
+  // screens to some demo athletes: they are passed over).
+  const squads = (await (await page.request.get('/api/squads')).json()) as { squads: { id: string; name: string }[] };
+  const squadId = squads.squads.find((q) => q.name === 'Under-13 mixed')!.id;
+  const trends = (await (await page.request.get(`/api/squads/${squadId}/trends`)).json()) as {
+    athletes: { id: string; firstName: string; lastName: string; latestFlags: Record<string, string[]> }[];
+  };
+  let chosen: { firstName: string; lastName: string } | undefined;
+  for (const a of trends.athletes.filter((x) => Object.values(x.latestFlags).flat().length > 0)) {
+    const p = (await (await page.request.get(`/api/athletes/${a.id}/progress`)).json()) as {
+      comparison: { planTime: { days: number; noPlanNeeded: boolean } } | null;
+      sessionsSinceLatest: { held: number } | null;
+      screens: { plan: { exercises: number } }[];
+    };
+    if (
+      p.comparison &&
+      p.comparison.planTime.days >= 7 &&
+      !p.comparison.planTime.noPlanNeeded &&
+      (p.sessionsSinceLatest?.held ?? 0) > 0 &&
+      p.screens.at(-1)!.plan.exercises > 0
+    ) {
+      chosen = a;
+      break;
+    }
+  }
+  expect(chosen, 'a flagged demo athlete with two screens and sessions since').toBeTruthy();
   if (info.project.name === 'phone') await page.getByTestId('toggle-filters').click();
   await page.getByTestId('filter-flag-any').click();
-  await page.getByTestId('trends-row').first().locator('a').first().click();
+  await page
+    .getByTestId('trends-row')
+    .getByRole('link', { name: new RegExp(`^(${chosen!.firstName} ${chosen!.lastName}|${chosen!.lastName}, ${chosen!.firstName})$`) })
+    .first()
+    .click();
   const section = page.getByTestId('athlete-progress');
   await expect(section).toBeVisible();
   await expect(page.getByTestId('progress-comparison')).toBeVisible();
