@@ -257,7 +257,7 @@ export default function LandmarkEditor({ task, view, photo, value, racketHand, o
     <View style={styles.wrap} testID="landmark-editor">
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         <View style={[styles.photoColumn, isWide && styles.photoColumnWide]} onLayout={(e: LayoutChangeEvent) => setColumnWidth(e.nativeEvent.layout.width)}>
-          <View style={styles.prompt} testID="landmark-next" accessibilityLiveRegion="polite">
+          <View style={[styles.prompt, !isWide && Platform.OS === 'web' && styles.promptPinned]} testID="landmark-next" accessibilityLiveRegion="polite">
             {suggestedCount > 0 ? (
               <>
                 <Text variant="label">{`Check the ${suggestedCount} suggested points`}</Text>
@@ -465,6 +465,9 @@ const styles = StyleSheet.create({
     paddingVertical: space.sm,
     gap: 2,
   },
+  // On a phone the photo runs below the fold: the point to tap next stays in view while the page scrolls
+  // to it (web-only style keys).
+  promptPinned: { position: 'sticky', top: 0, zIndex: 2 } as object,
   orientation: { color: colors.pineDark },
   // Web-only style keys: the browser must not scroll or select text while a finger places a point.
   surface: { backgroundColor: '#222', overflow: 'hidden', borderRadius: radius.sm, touchAction: 'none', userSelect: 'none' } as object,
