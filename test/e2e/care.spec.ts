@@ -45,6 +45,10 @@ test('a physiotherapist reviews a screen, adds a note, previews the family e-mai
 test('on a phone, the review and clearance are one tap from the top of a result; on a wide screen beside the flags', async ({ page }, testInfo) => {
   await signIn(page, 'physio@squadline.test');
   await expect(page.getByTestId('home-physio')).toBeVisible();
+  // The home's squad cards lead somewhere: each squad's training sheet and trends.
+  const card = page.locator('[data-testid^="squad-card-"]').first();
+  await expect(card.getByRole('link', { name: 'Training sheet →' })).toBeVisible();
+  await expect(card.getByRole('link', { name: 'Squad trends →' })).toBeVisible();
   const list = (await (await page.request.get('/api/reviews')).json()) as { reviews: { assessmentId: string }[]; awaitingRelease: { assessmentId: string }[] };
   const any = list.awaitingRelease[0] ?? list.reviews[0];
   expect(any, 'the demo has screens for the physiotherapist').toBeTruthy();
