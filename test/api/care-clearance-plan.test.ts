@@ -193,7 +193,10 @@ describe('refer on', () => {
     const held = family.body.latest.summary as FamilySummary;
     expect(held.exercises.map((e) => e.name)).not.toEqual(expect.arrayContaining([loaded[0]]));
     expect(held.exercises.map((e) => e.name)).not.toEqual(expect.arrayContaining([landing[0]]));
-    expect(held.onHold).toBe('Loaded strength and landing work are on hold until a physiotherapist clears Kit.');
+    // Named: what the engine now holds back for the pain reported at this screen.
+    const withheldNames = (result.result.plan.withheld as { name: string }[]).map((w) => w.name);
+    expect(held.onHold).toBe(`${withheldNames.join(', ')}: on hold until a physiotherapist clears Kit for loaded strength and landing work.`);
+    expect(held.onHold).toContain(landing[0]);
     expect(held.clearance).toMatch(/^Phil Physio \(physiotherapist\) asked on .* to be seen by another health professional/);
     // The team's free-text detail never reaches the family.
     expect(JSON.stringify(family.body)).not.toContain('county clinic');
