@@ -42,6 +42,19 @@ describe('flags grouped by pattern and side', () => {
       if (g.tasks.some((t) => t.severity === 'concern')) expect(g.severity).toBe('concern');
     }
   });
+
+  it('says where each threshold was met: exactly the tasks whose flags met it (our choice)', () => {
+    const r = evaluateAssessment(randomAssessment(mulberry32(7)));
+    for (const g of groupFlags(r.flags)) {
+      expect(Object.keys(g.thresholdWhere).sort()).toEqual(g.thresholds.map((t) => t.rowId).sort());
+      for (const t of g.thresholds) {
+        const expected = g.tasks
+          .filter((task) => r.flags.find((f) => f.id === task.flagId)!.thresholdsMet.some((x) => x.rowId === t.rowId))
+          .map((task) => task.where);
+        expect(g.thresholdWhere[t.rowId]!.sort()).toEqual([...new Set(expected)].sort());
+      }
+    }
+  });
 });
 
 /** Every piece of text the result screen shows for flags. */

@@ -22,6 +22,8 @@ export type FlagGroup = {
   tasks: FlagEvidenceGroup[];
   /** Every threshold met, each once, deciding ones first. */
   thresholds: ThresholdRef[];
+  /** Where each threshold (by `rowId`) was met: the tasks or comparisons, in the order of `tasks`. */
+  thresholdWhere: Record<string, string[]>;
 };
 
 const SEVERITY_RANK: Record<Severity, number> = { watch: 1, concern: 2 };
@@ -44,12 +46,17 @@ export function groupFlags(flags: readonly Flag[]): FlagGroup[] {
     const key = `${f.pattern}/${f.side ?? 'none'}`;
     let g = groups.get(key);
     if (!g) {
-      g = { key, pattern: f.pattern, title: f.title, side: f.side, severity: f.severity, tasks: [], thresholds: [] };
+      g = { key, pattern: f.pattern, title: f.title, side: f.side, severity: f.severity, tasks: [], thresholds: [], thresholdWhere: {} };
       groups.set(key, g);
     }
     if (SEVERITY_RANK[f.severity] > SEVERITY_RANK[g.severity]) g.severity = f.severity;
     g.tasks.push({ where: flagWhere(f), flagId: f.id, severity: f.severity, evidence: f.evidence });
-    for (const t of f.thresholdsMet) if (!g.thresholds.some((x) => x.rowId === t.rowId)) g.thresholds.push(t);
+    const where = flagWhere(f);
+    for (const t of f.thresholdsMet) {
+      if (!g.thresholds.some((x) => x.rowId === t.rowId)) g.thresholds.push(t);
+      const at = (g.thresholdWhere[t.rowId] ??= []);
+      if (!at.includes(where)) at.push(where);
+    }
   }
   const out = [...groups.values()];
   for (const g of out) {

@@ -38,7 +38,12 @@ export function FlagCard({ group }: { group: FlagGroup }) {
       </View>
       {group.thresholds.map((t, i) => (
         // The same population note on several thresholds of one card is said once, on the first.
-        <ThresholdLine key={t.rowId} threshold={t} showPopulation={!group.thresholds.slice(0, i).some((x) => x.populationNote === t.populationNote)} />
+        <ThresholdLine
+          key={t.rowId}
+          threshold={t}
+          where={group.tasks.length > 1 ? (group.thresholdWhere[t.rowId] ?? []) : []}
+          showPopulation={!group.thresholds.slice(0, i).some((x) => x.populationNote === t.populationNote)}
+        />
       ))}
       <Pressable accessibilityRole="button" aria-expanded={open} onPress={() => setOpen((o) => !o)} style={styles.more} testID="flag-sources-toggle">
         <Text style={styles.moreText}>{open ? 'Hide sources ▲' : 'Sources ▼'}</Text>
@@ -66,12 +71,18 @@ export function FlagCard({ group }: { group: FlagGroup }) {
   );
 }
 
-function ThresholdLine({ threshold: t, showPopulation }: { threshold: ThresholdRef; showPopulation: boolean }) {
+/** One threshold met; on a card of several tasks, the tasks it was met in. */
+function ThresholdLine({ threshold: t, where, showPopulation }: { threshold: ThresholdRef; where: string[]; showPopulation: boolean }) {
   return (
     <View style={styles.threshold} testID="flag-threshold">
       <Text variant="small" style={styles.thresholdMain}>
         {thresholdText(t)} ({t.severity} level){citationsIn(t.source).length > 0 ? ` · ${shortSource(t.source)}` : ''}
       </Text>
+      {where.length ? (
+        <Text variant="small" testID="flag-threshold-where">
+          Met in: {where.join('; ')}
+        </Text>
+      ) : null}
       <Text variant="small" testID="flag-basis">
         {basisText(t)}
       </Text>
