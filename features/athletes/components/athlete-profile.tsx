@@ -116,5 +116,5 @@ const styles = StyleSheet.create({
   cardHead: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.md, flexWrap: 'wrap' },
   facts: { flexDirection: 'row', flexWrap: 'wrap', rowGap: space.md, columnGap: space.lg },
   fact: { gap: 2, flexGrow: 1, flexBasis: 88 },
-  factWide: { flexBasis: 220 },
+  factWide: { flexBasis: 260 },
 });

@@ -17,6 +17,34 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
   if (query.isPending) return <Text>Loading…</Text>;
   if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
   const { athlete, latest, comparison, sessionsSinceLatest, earlier, notes, photos } = query.data;
+  const photosCard =
+    photos.length > 0 ? (
+      <Card>
+        <Text variant="heading">Photos from the screen</Text>
+        <View style={styles.photos}>
+          {photos.map((p) => (
+            <Image key={p.id} source={{ uri: p.thumbUrl }} accessibilityLabel={p.taskTitle} style={styles.photo} />
+          ))}
+        </View>
+      </Card>
+    ) : null;
+  const notesCard = (
+    <Card testID="family-notes">
+      <Text variant="heading">Notes from the care team</Text>
+      {notes.length === 0 ? <Text variant="small">No notes for you yet.</Text> : null}
+      {notes.map((n) => (
+        <View key={n.id} style={styles.note}>
+          <Text variant="small">
+            {n.authorName ?? 'The club'} · {formatDate(n.createdAt)}
+          </Text>
+          <Text>{n.text}</Text>
+        </View>
+      ))}
+    </Card>
+  );
+  // On a wide screen the notes and photos sit under the plan, beside the summary (the page's two halves
+  // about the same length); on a phone they follow in reading order.
+  const beside = isWide && latest;
   return (
     <View style={styles.wrap} testID="family-view">
       <Text variant="title" accessibilityRole="header">
@@ -32,31 +60,13 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
           </View>
           <View style={[styles.wrap, isWide && styles.column]}>
             <Plan summary={latest.summary} sessions={sessionsSinceLatest} />
+            {beside ? notesCard : null}
+            {beside ? photosCard : null}
           </View>
         </View>
       )}
-      {photos.length > 0 ? (
-        <Card>
-          <Text variant="heading">Photos from the screen</Text>
-          <View style={styles.photos}>
-            {photos.map((p) => (
-              <Image key={p.id} source={{ uri: p.thumbUrl }} accessibilityLabel={p.taskTitle} style={styles.photo} />
-            ))}
-          </View>
-        </Card>
-      ) : null}
-      <Card testID="family-notes">
-        <Text variant="heading">Notes from the care team</Text>
-        {notes.length === 0 ? <Text variant="small">No notes for you yet.</Text> : null}
-        {notes.map((n) => (
-          <View key={n.id} style={styles.note}>
-            <Text variant="small">
-              {n.authorName ?? 'The club'} · {formatDate(n.createdAt)}
-            </Text>
-            <Text>{n.text}</Text>
-          </View>
-        ))}
-      </Card>
+      {beside ? null : photosCard}
+      {beside ? null : notesCard}
       {earlier.length > 0 ? <Earlier releases={earlier} /> : null}
     </View>
   );
