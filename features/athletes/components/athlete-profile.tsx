@@ -115,6 +115,6 @@ const styles = StyleSheet.create({
   colMain: { flexGrow: 2 },
   cardHead: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.md, flexWrap: 'wrap' },
   facts: { flexDirection: 'row', flexWrap: 'wrap', rowGap: space.md, columnGap: space.lg },
-  fact: { gap: 2, flexGrow: 1, flexBasis: 88 },
+  fact: { gap: 2, flexGrow: 1, flexBasis: 80 },
   factWide: { flexBasis: 260 },
 });
