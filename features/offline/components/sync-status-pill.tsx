@@ -75,7 +75,7 @@ function Details({ status, align, onClose }: { status: SyncStatus; align: 'left'
 const styles = StyleSheet.create({
   wrap: { position: 'relative', flexShrink: 1, zIndex: 20 },
   pill: {
-    minHeight: TOUCH_MIN - 8,
+    minHeight: TOUCH_MIN,
     flexDirection: 'row',
     alignItems: 'center',
     gap: space.xs,

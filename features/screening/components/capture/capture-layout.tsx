@@ -89,7 +89,7 @@ export function CaptureFrame() {
 export const captureStyles = StyleSheet.create({
   who: { flexDirection: 'row', alignItems: 'center', flexWrap: 'wrap', columnGap: space.sm, marginBottom: space.xs },
   headerTop: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: space.sm },
-  roundLink: { minHeight: 36, justifyContent: 'center', flexShrink: 1 },
+  roundLink: { minHeight: TOUCH_MIN, justifyContent: 'center', flexShrink: 1 },
   barButton: { flex: 1, minHeight: TOUCH_MIN + 8 },
   barPrimary: { flex: 2 },
 });
