@@ -9,6 +9,7 @@ import {
   rescreenOf,
   roundKneeAngles,
   shareOf,
+  shareSeries,
   sidedPatterns,
   sessionShare,
   sortAthletes,
@@ -150,6 +151,23 @@ describe('share of a round with a flag', () => {
   });
   it('is null for a round nobody was screened in', () => {
     expect(shareOf({ id: 'r', name: 'r', screenedOn: '2026-01-01', screened: 0, flagged: {} }, 'heels-lifting')).toBeNull();
+  });
+  it('flags with the same share sit side by side around the round, never on top of each other (our choice)', () => {
+    const rounds = [
+      { id: 'a', name: 'a', screenedOn: '2026-01-01', screened: 6, flagged: { 'dynamic-knee-valgus': 1, 'heels-lifting': 1 } },
+      { id: 'b', name: 'b', screenedOn: '2026-03-01', screened: 0, flagged: {} },
+      { id: 'c', name: 'c', screenedOn: '2026-05-01', screened: 6, flagged: { 'dynamic-knee-valgus': 1, 'heels-lifting': 1 } },
+    ];
+    const one = shareSeries(rounds, 'dynamic-knee-valgus', 0, 2);
+    const two = shareSeries(rounds, 'heels-lifting', 1, 2);
+    // Two flags: 0.06 apart, centred on each round; the round nobody was screened in has no point.
+    expect(one.map((d) => d.x)).toEqual([-0.03, 1.97]);
+    expect(two.map((d) => d.x)).toEqual([0.03, 2.03]);
+    expect(one.map((d) => d.y)).toEqual(two.map((d) => d.y));
+    // Many flags: spread over at most 0.4 of the gap between rounds.
+    const xs = Array.from({ length: 8 }, (_, k) => shareSeries(rounds, 'heels-lifting', k, 8)[0]!.x);
+    expect(Math.max(...xs) - Math.min(...xs)).toBeCloseTo(0.4, 10);
+    expect(shareSeries(rounds, 'heels-lifting', 0, 1).map((d) => d.x)).toEqual([0, 2]);
   });
 });
 

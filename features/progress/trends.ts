@@ -254,3 +254,14 @@ export function shareOf(round: TrendRound, pattern: PatternId): number | null {
   if (round.screened === 0) return null;
   return (round.flagged[pattern] ?? 0) / round.screened;
 }
+
+/**
+ * One flag's share per round. Each flag's points sit a little to the side of the round's date (at most
+ * 0.2 of the gap between rounds, in the legend's order), so that flags with the same share in a round
+ * stay visible side by side instead of hiding each other (our choice).
+ */
+export function shareSeries(rounds: readonly TrendRound[], pattern: PatternId, index: number, count: number): { x: number; y: number }[] {
+  const step = count > 1 ? Math.min(0.06, 0.4 / (count - 1)) : 0;
+  const offset = (index - (count - 1) / 2) * step;
+  return rounds.map((r, i) => ({ x: i + offset, y: shareOf(r, pattern) })).filter((d): d is { x: number; y: number } => d.y !== null);
+}

@@ -7,7 +7,7 @@ import { colors, radius, space } from '@/features/ui/theme';
 import { axisDateLabels, DATE_AXIS_RIGHT, labelledPoints } from '../axis-labels';
 import { ERROR_MARGINS, verdictFor } from '../compare';
 import { PATTERN_COLOURS, PATTERN_SHORT } from '../labels';
-import { athleteKneeSeries, roundKneeAngles, shareOf, type TrendAthlete, type TrendKneeAngles, type TrendRound } from '../trends';
+import { athleteKneeSeries, roundKneeAngles, shareOf, shareSeries, type TrendAthlete, type TrendKneeAngles, type TrendRound } from '../trends';
 import { AXIS_STYLE } from './history-chart';
 import { NumbersTable } from './numbers-table';
 
@@ -83,14 +83,12 @@ export function FlagShareChart({ rounds, title, testID }: { rounds: TrendRound[]
             <VictoryChart width={width} height={190} padding={ROUNDS_PADDING} domain={{ x: [-0.3, Math.max(1, rounds.length - 1) + 0.3], y: [0, 1] }}>
               {roundDateAxis(rounds, width)}
               <VictoryAxis dependentAxis offsetX={42} tickValues={[0, 0.25, 0.5, 0.75, 1]} tickFormat={(v: number) => `${v * 100}%`} style={AXIS_STYLE} />
-              {patterns.map((p) => {
-                const data = rounds.map((r, i) => ({ x: i, y: shareOf(r, p) })).filter((d): d is { x: number; y: number } => d.y !== null);
-                return <VictoryLine key={p} data={data} style={{ data: { stroke: PATTERN_COLOURS[p], strokeWidth: 2 } }} />;
-              })}
-              {patterns.map((p) => {
-                const data = rounds.map((r, i) => ({ x: i, y: shareOf(r, p) })).filter((d): d is { x: number; y: number } => d.y !== null);
-                return <VictoryScatter key={`${p}-dots`} data={data} size={3} style={{ data: { fill: PATTERN_COLOURS[p] } }} />;
-              })}
+              {patterns.map((p, k) => (
+                <VictoryLine key={p} data={shareSeries(rounds, p, k, patterns.length)} style={{ data: { stroke: PATTERN_COLOURS[p], strokeWidth: 2 } }} />
+              ))}
+              {patterns.map((p, k) => (
+                <VictoryScatter key={`${p}-dots`} data={shareSeries(rounds, p, k, patterns.length)} size={3} style={{ data: { fill: PATTERN_COLOURS[p] } }} />
+              ))}
             </VictoryChart>
             <View style={styles.legend}>
               {patterns.map((p) => (
