@@ -107,7 +107,7 @@ test("a parent reads their child's summary in plain words, with the plan and fam
   // Maya's page has the shared note; the team-only one never reaches the family.
   await page.goto('/');
   await page.getByTestId('child-card').filter({ hasText: 'Maya' }).getByTestId('child-summary-link').click();
-  await expect(page.getByTestId('family-notes')).toContainText('Keep the ankle exercises going');
+  await expect(page.getByTestId('family-notes')).toContainText('Maya is doing well and has nothing extra to do for now.');
   await expect(page.getByTestId('family-notes')).not.toContainText('heel soreness');
   // The count of sessions since the check stands only beside a plan with exercises (Maya's demo screen
   // found nothing extra to work on).

@@ -59,7 +59,7 @@ async function seedIn(db: Db, ids: Pick<DemoIds, 'clubId' | 'athleteIds'>, publi
     athleteId: maya.id,
     assessmentId: null,
     visibility: 'family',
-    text: 'Maya is doing well. Keep the ankle exercises going at home, a few minutes after school is enough.',
+    text: 'Maya is doing well and has nothing extra to do for now. Her usual warm-up before each session is enough.',
   });
   const team = await notes.create({
     athleteId: maya.id,
