@@ -8,6 +8,7 @@ import { useBreakpoints } from '@/features/ui/breakpoints';
 import { space } from '@/features/ui/theme';
 import { NumberField } from './number-field';
 import { MEASURE_FIRST } from './before-each-athlete';
+import { oneRepMaxWarning } from '@/features/screening/one-rep-max';
 
 type BodyKey = 'statureCm' | 'sittingHeightCm' | 'massKg';
 
@@ -62,6 +63,11 @@ export function BodyStep({ draft, update }: { draft: AssessmentDraft; update(cha
           validate={(n) => check(() => saveDraftSchema.validateSyncAt('draft.oneRepMaxKg', { draftVersion: 0, draft: { oneRepMaxKg: n } }))}
           onCommit={(n) => update((d) => ({ ...d, oneRepMaxKg: n }))}
         />
+        {oneRepMaxWarning(draft.oneRepMaxKg, body.massKg) ? (
+          <Notice tone="caution" title="Check the 1RM" testID="one-rep-max-warning">
+            {oneRepMaxWarning(draft.oneRepMaxKg, body.massKg)}
+          </Notice>
+        ) : null}
       </Card>
     </View>
   );

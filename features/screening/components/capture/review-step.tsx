@@ -3,6 +3,7 @@ import type { AssessmentDetail, AssessmentDraft, PhotoView } from '@/features/sc
 import { BATTERY } from '@/features/screening/engine/battery';
 import type { TaskId, View as PhotoSide } from '@/features/screening/engine';
 import { Notice } from '@/features/ui/components/notice';
+import { oneRepMaxWarning } from '@/features/screening/one-rep-max';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 
@@ -19,6 +20,7 @@ function bodySummary(draft: AssessmentDraft): string {
     b.statureCm != null ? `standing ${b.statureCm} cm` : null,
     b.sittingHeightCm != null ? `sitting ${b.sittingHeightCm} cm` : null,
     b.massKg != null ? `${b.massKg} kg` : null,
+    draft.oneRepMaxKg != null ? `split-squat 1RM ${draft.oneRepMaxKg} kg` : null,
   ].filter(Boolean);
   return parts.length ? parts.join(' · ') : 'Not measured';
 }
@@ -64,6 +66,11 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
         <View style={styles.rowText}>
           <Text variant="label">Body measurements</Text>
           <Text variant="small">{bodySummary(draft)}</Text>
+          {oneRepMaxWarning(draft.oneRepMaxKg, draft.body?.massKg) ? (
+            <Text variant="small" style={styles.warn} testID="review-one-rep-max-warning">
+              {oneRepMaxWarning(draft.oneRepMaxKg, draft.body?.massKg)}
+            </Text>
+          ) : null}
         </View>
       </Pressable>
       {rows.map(({ task, i, state, lines }) => (
@@ -108,6 +115,7 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
 
 const styles = StyleSheet.create({
   wrap: { gap: space.sm },
+  warn: { color: colors.amber, fontFamily: fonts.bold },
   row: {
     minHeight: TOUCH_MIN + 8,
     flexDirection: 'row',

@@ -10,6 +10,7 @@ import { shortSource } from '@/features/screening/engine/sources';
 import { rescreenWords, STAGE_LABELS } from '@/features/screening/labels';
 import { todayIso } from '@/features/athletes/age';
 import { TESTER_MARK } from '@/features/screening/plan-edits';
+import { oneRepMaxWarning } from '@/features/screening/one-rep-max';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
@@ -44,6 +45,8 @@ type Props = {
   assessmentId: string;
   result: ResultView;
   oneRepMaxKg: number | null | undefined;
+  /** The body mass measured at the screen, to question a 1RM far above it. */
+  massKg?: number | null;
   canAdjust: boolean;
   /** A head coach or physiotherapist: may go past a limit with a reason. */
   canOverride: boolean;
@@ -56,7 +59,7 @@ const UNKNOWN_HOLD: StrengthBlock = {
   words: "The physiotherapist's clearance could not be read: loaded strength and landing work are shown as on hold until it can.",
 };
 
-export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canOverride, hold }: Props) {
+export function PlanSection({ assessmentId, result, oneRepMaxKg, massKg, canAdjust, canOverride, hold }: Props) {
   const plan = result.result.plan;
   const adjustment = result.adjustment;
   const loading = loadingContextOf(result.result, oneRepMaxKg);
@@ -109,6 +112,16 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, canAdjust, canO
           ? `No growth estimate (${loading.unknownReason === 'age-outside-range' ? 'age outside the range of the maturity equations' : loading.unknownReason === 'measures-missing' ? 'body measures missing' : 'not estimated'}): the plan applies the cautious limits of the growth-spurt window, at most ${STAGE_LIMITS.unknown.maxPercentOneRepMax}% of 1RM, no sets to fatigue, landing volume halved.`
           : `At most ${STAGE_LIMITS[loading.stage].maxPercentOneRepMax}% of 1RM${STAGE_LIMITS[loading.stage].toNearFatigue ? '' : ', no sets to fatigue'}${STAGE_LIMITS[loading.stage].jumpVolumeFactor < 1 ? ', landing volume halved' : ''}. The plan editor keeps to the same limits.`}
       </Notice>
+      <Text variant="small" testID="plan-one-rep-max">
+        {oneRepMaxKg != null
+          ? `Split-squat 1RM on record: ${oneRepMaxKg} kg. Loads below are shares of it.`
+          : 'No split-squat 1RM on record: loaded exercises use bodyweight until one is estimated.'}
+      </Text>
+      {oneRepMaxWarning(oneRepMaxKg, massKg) ? (
+        <Notice tone="caution" title="Check the 1RM" testID="plan-one-rep-max-warning">
+          {oneRepMaxWarning(oneRepMaxKg, massKg)}
+        </Notice>
+      ) : null}
       {adjustment && !showProposal && adjustment.overrides?.length ? <Overrides adjustment={adjustment} /> : null}
       <View style={styles.source} testID="plan-source">
         {adjustment ? (

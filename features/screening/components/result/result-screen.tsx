@@ -72,6 +72,7 @@ export default function ResultScreen({ assessmentId, from }: { assessmentId: str
             assessmentId={detail.id}
             result={result}
             oneRepMaxKg={detail.draft.oneRepMaxKg}
+            massKg={detail.draft.body?.massKg}
             canAdjust={can(membership.role, 'plan.adjust')}
             canOverride={can(membership.role, 'plan.override')}
             hold={care.data ? { block: care.data.care.block, clearance: care.data.care.clearance } : care.error ? 'unknown' : 'pending'}
