@@ -65,7 +65,8 @@ export default function ResultScreen({ assessmentId, from }: { assessmentId: str
         <View style={[styles.column, isWide && styles.columnWide]}>
           <Flags flags={result.result.flags} />
           {reviews && isWide ? carePanel : null}
-          <ResultPhotos detail={detail} />
+          {/* On a phone the photos follow the plan: the plan is what the coach acts on. */}
+          {isWide ? <ResultPhotos detail={detail} /> : null}
         </View>
         <View style={[styles.column, isWide && styles.columnWide]}>
           <PlanSection
@@ -78,6 +79,7 @@ export default function ResultScreen({ assessmentId, from }: { assessmentId: str
             hold={care.data ? { block: care.data.care.block, clearance: care.data.care.clearance } : care.error ? 'unknown' : 'pending'}
           />
           {reviews && isWide ? null : carePanel}
+          {isWide ? null : <ResultPhotos detail={detail} />}
           {result.history.length > 0 ? (
             <View style={styles.history}>
               <Text variant="label">Earlier results</Text>
