@@ -33,6 +33,8 @@ export function MeasuringDesk({ roundId }: { roundId?: string }) {
   return <Desk roundId={roundId} />;
 }
 
+const CURRENT_ANCHOR = 'measure-current';
+
 function Desk({ roundId }: { roundId?: string }) {
   const { isWide } = useBreakpoints();
   const query = useMeasureQueueQuery({ roundId });
@@ -57,9 +59,14 @@ function Desk({ roundId }: { roundId?: string }) {
     if (current.photo.id !== currentId) setCurrentId(current.photo.id);
   }, [current, currentId]);
   const shownId = current?.photo.id;
+  const firstShown = useRef<string | undefined>(undefined);
   useEffect(() => {
     setMarks(current?.landmarks ?? {});
     setError(null);
+    // Another photo after a save or a skip: back to its name and the saved notice, not left at the bottom
+    // of the page where the buttons were (web; the first photo opens where the page starts).
+    if (firstShown.current === undefined) firstShown.current = shownId;
+    else if (shownId && typeof document !== 'undefined') document.getElementById(CURRENT_ANCHOR)?.scrollIntoView({ block: 'start' });
     // Only when another photo is shown: a refetch must not wipe points being placed.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [shownId]);
@@ -183,7 +190,7 @@ function Desk({ roundId }: { roundId?: string }) {
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         {isWide ? <View style={styles.side}>{list}</View> : null}
         <View style={styles.main}>
-          <View style={styles.current} testID="measure-current">
+          <View style={styles.current} testID="measure-current" nativeID={CURRENT_ANCHOR}>
             <Text variant="heading">{`${current.athlete.firstName} ${current.athlete.lastName}`}</Text>
             <Text>{`${itemTitle(current)} · ${current.round.name} (${current.round.squadName})`}</Text>
             <Text variant="small" testID="measure-position">{`Photo ${index + 1} of ${items.length}`}</Text>
@@ -205,7 +212,7 @@ function Desk({ roundId }: { roundId?: string }) {
             onChange={setMarks}
             shortcuts={isWide}
           />
-          <View style={styles.actions}>
+          <View style={[styles.actions, !isWide && Platform.OS === 'web' && styles.actionsPinned]}>
             <Button
               label={isWide ? 'Save, next photo (Enter)' : 'Save, next photo'}
               testID="measure-save-next"
@@ -233,6 +240,9 @@ const styles = StyleSheet.create({
   item: { minHeight: TOUCH_MIN, padding: space.sm, borderRadius: radius.md, borderWidth: 2, borderColor: colors.line, backgroundColor: colors.surface, gap: 2 },
   itemOn: { borderColor: colors.pine, backgroundColor: colors.pineSoft },
   actions: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
+  // On a phone the points list runs below the photo: saving stays one tap away at the foot of the screen
+  // (web-only style keys).
+  actionsPinned: { position: 'sticky', bottom: 0, zIndex: 3, backgroundColor: colors.paper, paddingVertical: space.sm } as object,
   primary: { flexGrow: 1 },
   link: { minHeight: TOUCH_MIN, justifyContent: 'center' },
   linkText: { color: colors.pine },
