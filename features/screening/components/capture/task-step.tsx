@@ -83,6 +83,17 @@ export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, on
           ))}
         </View>
       </Notice>
+      {/* Right under the safety words that ask for it, where no scrolling is needed to reach it. */}
+      {!skipped ? (
+        <TickBox
+          tone="caution"
+          label="Pain reported during this task"
+          hint="Stop the task. The plan will then ask for clearance by a physiotherapist or doctor before it starts."
+          checked={t.painReported === true}
+          onChange={(on) => onChange((d) => ({ ...d, painReported: on }))}
+          testID="task-pain"
+        />
+      ) : null}
       <View style={styles.look}>
         <Text variant="label">What to look at</Text>
         <Text>{task.lookFor}</Text>
@@ -115,16 +126,6 @@ export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, on
             </View>
           )}
           {!isWide && photoPanel}
-          {!skipped ? (
-            <TickBox
-              tone="caution"
-              label="Pain reported during this task"
-              hint="Stop the task. The plan will then ask for clearance by a physiotherapist or doctor before it starts."
-              checked={t.painReported === true}
-              onChange={(on) => onChange((d) => ({ ...d, painReported: on }))}
-              testID="task-pain"
-            />
-          ) : null}
           <TextField
             label="Notes"
             testID="task-notes"
