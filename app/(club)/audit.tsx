@@ -3,7 +3,7 @@ import { Page } from '@/features/ui/components/page';
 
 export default function AuditScreen() {
   return (
-    <Page>
+    <Page title="Audit trail">
       <AuditTrail />
     </Page>
   );

@@ -4,7 +4,7 @@ import { Text } from '@/features/ui/components/text';
 
 export default function CareSettingsScreen() {
   return (
-    <Page>
+    <Page title="Care settings">
       <Text variant="title" accessibilityRole="header">
         Care settings
       </Text>

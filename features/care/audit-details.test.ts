@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { auditActionInWords, auditDetailsInWords, auditSubjectInWords } from './audit-details';
+import { auditActionInWords, auditDateErrors, auditDetailsInWords, auditSubjectInWords } from './audit-details';
 
 // Our choice: what the on-screen trail shows of an event's details.
 describe('auditDetailsInWords', () => {
@@ -24,5 +24,19 @@ describe('audit actions and records in words', () => {
     expect(auditActionInWords('something-new')).toBe('something-new');
     expect(`${auditActionInWords('view')} ${auditSubjectInWords('assessment')}`).toBe('viewed screen');
     expect(auditSubjectInWords('unknown-kind')).toBe('unknown-kind');
+  });
+});
+
+describe('auditDateErrors (the filter days as typed)', () => {
+  it('passes empty and whole days, in order', () => {
+    expect(auditDateErrors('', '')).toEqual({});
+    expect(auditDateErrors('2026-12-01', '2026-12-05')).toEqual({});
+    expect(auditDateErrors('2026-12-05', '2026-12-05')).toEqual({});
+  });
+  it('names the field that cannot be sent yet', () => {
+    expect(auditDateErrors('2026-1', '')).toEqual({ from: 'Write the date as YYYY-MM-DD.' });
+    expect(auditDateErrors('2026-13-01', '')).toEqual({ from: 'This day does not exist in the calendar.' });
+    expect(auditDateErrors('', '2026-02-30')).toEqual({ to: 'This day does not exist in the calendar.' });
+    expect(auditDateErrors('2026-12-05', '2026-12-01')).toEqual({ to: 'The end is before the start.' });
   });
 });

@@ -1,3 +1,4 @@
+import { isCalendarDate } from '@/features/athletes/schemas';
 /**
  * An audit event's details in words for the trail on screen. Record ids (the CSV export keeps the full
  * record) and before/after copies of edited text are left out: an admin scanning the trail reads who did
@@ -87,3 +88,25 @@ const SUBJECT_WORDS: Record<string, string> = {
 
 export const auditActionInWords = (action: string) => ACTION_WORDS[action] ?? action;
 export const auditSubjectInWords = (kind: string) => SUBJECT_WORDS[kind] ?? kind;
+
+/**
+ * The audit filter's days as typed: a message per field that cannot be sent yet (not YYYY-MM-DD, no such
+ * day, or an end before the start), so the list keeps the last good filters meanwhile. Pure.
+ */
+export function auditDateErrors(from: string, to: string): { from?: string; to?: string } {
+  const out: { from?: string; to?: string } = {};
+  const one = (v: string) =>
+    !v
+      ? undefined
+      : !/^\d{4}-\d{2}-\d{2}$/.test(v)
+        ? 'Write the date as YYYY-MM-DD.'
+        : !isCalendarDate(v)
+          ? 'This day does not exist in the calendar.'
+          : undefined;
+  const f = one(from.trim());
+  const t = one(to.trim());
+  if (f) out.from = f;
+  if (t) out.to = t;
+  if (!f && !t && from.trim() && to.trim() && to.trim() < from.trim()) out.to = 'The end is before the start.';
+  return out;
+}

@@ -1,4 +1,5 @@
 import { boolean, mixed, number, object, string, type InferType } from 'yup';
+import { isCalendarDate } from '@/features/athletes/schemas';
 import { AUDIT_SUBJECTS, CLEARANCE_STATUSES, NOTE_VISIBILITIES, type AuditSubject } from './choices';
 
 // One schema per care-team input, used by the forms and by `validateBody` on the server. Pure.
@@ -59,18 +60,24 @@ export const careSettingsSchema = object({
 export type CareSettingsInput = InferType<typeof careSettingsSchema>;
 
 /** Filters of the audit trail (query string). */
+/** A filter day: YYYY-MM-DD and a real day of the calendar (2026-13-01 is a clear 400, never a 500). */
+const auditDay = () =>
+  string()
+    .matches(/^\d{4}-\d{2}-\d{2}$/, 'Write the date as YYYY-MM-DD.')
+    .test('calendar', 'This day does not exist in the calendar.', (v) => !v || !/^\d{4}-\d{2}-\d{2}$/.test(v) || isCalendarDate(v))
+    .optional();
+
 export const auditQuerySchema = object({
   subject: mixed<AuditSubject>()
     .oneOf([...AUDIT_SUBJECTS, undefined], 'Unknown kind of record.')
     .optional(),
   actorId: string().uuid('Unknown person.').optional(),
   athleteId: string().uuid('Unknown athlete.').optional(),
-  from: string()
-    .matches(/^\d{4}-\d{2}-\d{2}$/, 'Write the date as YYYY-MM-DD.')
-    .optional(),
-  to: string()
-    .matches(/^\d{4}-\d{2}-\d{2}$/, 'Write the date as YYYY-MM-DD.')
-    .optional(),
+  from: auditDay(),
+  to: auditDay().test('after-from', 'The end is before the start.', function (to) {
+    const from = (this.parent as { from?: string }).from;
+    return !to || !from || !isCalendarDate(to) || !isCalendarDate(from) || to >= from;
+  }),
   format: string().oneOf(['json', 'csv'], 'Format is json or csv.').optional(),
 });
 export type AuditQuery = InferType<typeof auditQuerySchema>;

@@ -8,7 +8,7 @@ import { badRequest } from '@/server/http/errors';
 import { fieldErrors } from '@/server/http/validate';
 import { listAudit } from './audit.repo';
 
-export const AUDIT_CSV_COLUMNS = ['time', 'person', 'action', 'record', 'record id', 'athlete', 'details'] as const;
+export const AUDIT_CSV_COLUMNS = ['time (UTC)', 'person', 'action', 'record', 'record id', 'athlete', 'details'] as const;
 
 /** The audit trail for admins: filters in the query string, `?format=csv` for the export. */
 export function auditRouter(db: Db) {

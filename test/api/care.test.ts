@@ -333,12 +333,25 @@ describe('audit trail', () => {
       true,
     );
     expect((await as.admin.get('/api/audit?subject=planet')).status).toBe(400);
+    // Dates that are no day of the calendar, or an end before the start: a 400 naming the field, never a 500.
+    for (const [q, field] of [
+      ['from=2026-13-01', 'from'],
+      ['to=2026-02-30', 'to'],
+      ['from=2026-1', 'from'],
+      ['from=2026-12-05&to=2026-12-01', 'to'],
+      ['format=csv&from=2026-13-01', 'from'],
+    ] as const) {
+      const bad = await as.admin.get(`/api/audit?${q}`);
+      expect(bad.status, q).toBe(400);
+      expect(Object.keys(bad.body.error.fields ?? {}), q).toEqual([field]);
+    }
+    expect((await as.admin.get('/api/audit?from=2026-01-01&to=2026-01-01')).status).toBe(200);
 
     const csv = await as.admin.get('/api/audit?format=csv&subject=email');
     expect(csv.status).toBe(200);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
     const lines = csv.text.trim().split('\n');
-    expect(lines[0]).toBe('time,person,action,record,record id,athlete,details');
+    expect(lines[0]).toBe('time (UTC),person,action,record,record id,athlete,details');
     expect(lines.length).toBeGreaterThan(1);
     expect(lines.slice(1).every((l) => l.includes('parent.a@riverside.test'))).toBe(true);
   });

@@ -139,10 +139,18 @@ test('an admin reads the audit trail, filters it and exports it as CSV', async (
   const rows = page.getByTestId('audit-row');
   for (let i = 0; i < Math.min(await rows.count(), 5); i++) await expect(rows.nth(i)).toContainText('clearance');
   await page.screenshot({ path: shots('audit', testInfo.project.name), fullPage: false });
+  // A day being typed, or no such day: said under the field, the list stays, the export waits.
+  const shown = await rows.count();
+  await page.getByTestId('audit-from').fill('2026-13-01');
+  await expect(page.getByText('This day does not exist in the calendar.')).toBeVisible();
+  await expect(page.getByTestId('audit-csv')).toBeDisabled();
+  expect(await rows.count()).toBe(shown);
+  await page.getByTestId('audit-from').fill('');
+  await expect(page.getByTestId('audit-csv')).toBeEnabled();
   const csv = await page.request.get('/api/audit?format=csv&subject=clearance');
   expect(csv.headers()['content-type']).toContain('text/csv');
   const lines = (await csv.text()).trim().split('\n');
-  expect(lines[0]).toBe('time,person,action,record,record id,athlete,details');
+  expect(lines[0]).toBe('time (UTC),person,action,record,record id,athlete,details');
   expect(lines.length).toBeGreaterThan(1);
 });
 

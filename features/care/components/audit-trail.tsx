@@ -11,7 +11,10 @@ import { auditSearch, useAuditQuery, type AuditFilters } from '../api/get-audit'
 import { AUDIT_SUBJECTS } from '../choices';
 import type { AuditRow } from '../types';
 import { Chips } from '@/features/ui/components/chips';
-import { auditActionInWords, auditDetailsInWords, auditSubjectInWords } from '../audit-details';
+import { auditActionInWords, auditDateErrors, auditDetailsInWords, auditSubjectInWords } from '../audit-details';
+import { can } from '@/features/access/permissions';
+import { useActiveClub } from '@/features/session/active-club';
+import { formatDateTime } from '@/features/ui/format-date';
 
 const SUBJECT_LABELS: Record<string, string> = {
   all: 'Everything',
@@ -28,10 +31,21 @@ const SUBJECT_OPTIONS = (['all', ...AUDIT_SUBJECTS] as const).map((s) => ({ valu
 
 /** Who viewed or changed what: filters, a table on wide screens, rows on phones, and the CSV export. */
 export function AuditTrail() {
+  const { role } = useActiveClub().membership;
+  if (!can(role, 'audit.read')) return <Notice tone="error">The audit trail is for the club's admins.</Notice>;
+  return <Trail />;
+}
+
+function Trail() {
   const [subject, setSubject] = useState<string>('all');
   const [from, setFrom] = useState('');
   const [to, setTo] = useState('');
-  const filters: AuditFilters = { subject: subject === 'all' ? undefined : subject, from: from || undefined, to: to || undefined };
+  // Days being typed are sent once they are whole days; meanwhile the list keeps the last good filters.
+  const dateErrors = auditDateErrors(from, to);
+  const datesOk = !dateErrors.from && !dateErrors.to;
+  const [sent, setSent] = useState({ from: '', to: '' });
+  if (datesOk && (sent.from !== from.trim() || sent.to !== to.trim())) setSent({ from: from.trim(), to: to.trim() });
+  const filters: AuditFilters = { subject: subject === 'all' ? undefined : subject, from: sent.from || undefined, to: sent.to || undefined };
   const query = useAuditQuery(filters);
   const { isWide } = useBreakpoints();
   const csvHref = `/api/audit${auditSearch(filters, 'csv')}`;
@@ -45,10 +59,10 @@ export function AuditTrail() {
         <Chips label="Kind of record" options={SUBJECT_OPTIONS} value={subject} onChange={setSubject} testID="audit-subject" />
         <View style={[styles.dates, isWide && styles.datesWide]}>
           <View style={styles.date}>
-            <TextField label="From (YYYY-MM-DD)" value={from} onChangeText={setFrom} testID="audit-from" autoCapitalize="none" />
+            <TextField label="From (YYYY-MM-DD)" value={from} onChangeText={setFrom} testID="audit-from" autoCapitalize="none" error={dateErrors.from} />
           </View>
           <View style={styles.date}>
-            <TextField label="To (YYYY-MM-DD)" value={to} onChangeText={setTo} testID="audit-to" autoCapitalize="none" />
+            <TextField label="To (YYYY-MM-DD)" value={to} onChangeText={setTo} testID="audit-to" autoCapitalize="none" error={dateErrors.to} />
           </View>
         </View>
         {Platform.OS === 'web' ? (
@@ -56,6 +70,7 @@ export function AuditTrail() {
             label="Export as CSV"
             tone="secondary"
             testID="audit-csv"
+            disabled={!datesOk}
             onPress={() => {
               window.location.assign(csvHref);
             }}
@@ -80,14 +95,15 @@ export function AuditTrail() {
             {query.data.events.map((e) => (isWide ? <WideRow key={e.id} e={e} /> : <PhoneRow key={e.id} e={e} />))}
           </View>
         )
-      ) : (
+      ) : query.error ? null : (
         <Text>Loading…</Text>
       )}
     </View>
   );
 }
 
-const when = (iso: string) => iso.slice(0, 16).replace('T', ' ');
+// In the reader's locale and time zone, as every other date of the app (the CSV keeps UTC, and says so).
+const when = (iso: string) => formatDateTime(iso);
 const details = auditDetailsInWords;
 
 function WideRow({ e }: { e: AuditRow }) {
