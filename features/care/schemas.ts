@@ -43,13 +43,20 @@ export type ClearanceInput = InferType<typeof clearanceSchema>;
 
 export const careSettingsSchema = object({
   autoReleaseDays: number()
+    .typeError('Enter a whole number of days, or leave it empty.')
     .integer('Whole days only.')
     .min(1, 'At least 1 day, or leave empty to release by hand only.')
     .max(90, 'At most 90 days.')
     .nullable()
     .default(null),
-  photoGraceDays: number().integer('Whole days only.').min(0, 'Zero or more days.').max(365, 'At most 365 days.').required('Enter a number of days.'),
+  photoGraceDays: number()
+    .typeError('Enter a whole number of days.')
+    .integer('Whole days only.')
+    .min(0, 'Zero or more days.')
+    .max(365, 'At most 365 days.')
+    .required('Enter a number of days.'),
   photoRetentionMonths: number()
+    .typeError('Enter a whole number of months.')
     .integer('Whole months only.')
     .min(1, 'At least 1 month.')
     .max(120, 'At most 120 months.')

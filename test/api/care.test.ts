@@ -95,6 +95,12 @@ describe('notes', () => {
       .put('/api/care-settings')
       .send({ autoReleaseDays: null, photoGraceDays: 30, photoRetentionMonths: 24, familyPhotos: false, testersReadTeamNotes: false });
     expect((await as.tester.get(`/api/notes/${ids.teamNote}`)).status).toBe(403);
+    // Words where a number belongs: a 400 in plain words for the field, not the validator's own.
+    const words = await as.admin
+      .put('/api/care-settings')
+      .send({ autoReleaseDays: 'two', photoGraceDays: 30, photoRetentionMonths: 24, familyPhotos: false, testersReadTeamNotes: false });
+    expect(words.status).toBe(400);
+    expect(words.body.error.fields).toEqual({ autoReleaseDays: 'Enter a whole number of days, or leave it empty.' });
     // Only admins change club settings.
     expect(
       (await as.coach.put('/api/care-settings').send({ photoGraceDays: 1, photoRetentionMonths: 1, familyPhotos: true, testersReadTeamNotes: true })).status,
