@@ -84,7 +84,7 @@ type CheckedRow = ReportRow & { row?: RosterRow; squadId?: string; guardianUserI
 const yesNo = (v: boolean | null | undefined) => (v === true ? 'yes' : v === false ? 'no' : 'not recorded');
 
 /** What importing `row` over `current` changes, in the words of the report. */
-function changesOf(current: AthleteView, row: RosterRow, squadName: string, guardianEmail: string | undefined): string[] {
+function changesOf(current: AthleteView, row: RosterRow, squadName: string, guardianEmail: string | undefined, guardianName?: string): string[] {
   const out: string[] = [];
   if (current.squadName?.toLowerCase() !== squadName.toLowerCase()) out.push(`squad: ${current.squadName ?? 'none'} → ${squadName}`);
   if (current.sex !== row.sex) out.push(`sex: ${current.sex} → ${row.sex}`);
@@ -96,7 +96,19 @@ function changesOf(current: AthleteView, row: RosterRow, squadName: string, guar
   if (current.consents.emailSummaries?.granted !== row.email_summaries_consent) {
     out.push(`e-mail summaries consent: ${yesNo(current.consents.emailSummaries?.granted)} → ${yesNo(row.email_summaries_consent)}`);
   }
-  if (guardianEmail) out.push(`parent account linked: ${guardianEmail}`);
+  if (guardianEmail) out.push(parentLinked(guardianEmail, guardianName));
+  return out;
+}
+
+const parentLinked = (email: string, name: string | undefined) => `parent account linked: ${name ? `${name} (${email})` : email}`;
+
+/**
+ * What importing `row` records for a child new to the club: the consents as the file gives them and the
+ * parent account it links, so that nobody is given a child's photos or access by a line read past.
+ */
+function recordedFor(row: RosterRow, guardianEmail: string | undefined, guardianName: string | undefined): string[] {
+  const out = [`photo consent: ${yesNo(row.photo_consent)}`, `e-mail summaries consent: ${yesNo(row.email_summaries_consent)}`];
+  if (guardianEmail) out.push(parentLinked(guardianEmail, guardianName));
   return out;
 }
 
@@ -158,7 +170,7 @@ async function checkRows(repo: AthletesRepo, raw: RawRow[]): Promise<CheckedRow[
             guardianUserId: member?.userId,
             existing,
             action: existing ? ('update' as const) : ('create' as const),
-            ...(existing ? { changes: changesOf(existing, row!, squadName!, email) } : {}),
+            changes: existing ? changesOf(existing, row!, squadName!, email, member?.displayName) : recordedFor(row!, email, member?.displayName),
           }
         : {}),
     });

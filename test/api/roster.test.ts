@@ -417,7 +417,15 @@ describe('CSV roster import', () => {
     const res = await upload(as.coach, csv);
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ okCount: 2, errorCount: 1 });
-    expect(res.body.rows[0]).toEqual({ line: 2, ok: true, action: 'create', errors: {}, values: expect.objectContaining({ first_name: 'Ada', sex: 'F' }) });
+    expect(res.body.rows[0]).toEqual({
+      line: 2,
+      ok: true,
+      action: 'create',
+      errors: {},
+      values: expect.objectContaining({ first_name: 'Ada', sex: 'F' }),
+      changes: expect.any(Array),
+    });
+    expect(res.body.rows[1].changes).toContain('photo consent: no');
     expect(res.body.rows[2]).toMatchObject({
       line: 4,
       ok: false,
@@ -474,6 +482,14 @@ describe('CSV roster import', () => {
       ],
       ROSTER_HEADER_LINE.toUpperCase().replace('SQUAD', ' Squad '),
     );
+    // The check says what each new line records before anything is written: the consents and the parent
+    // account it links, by name.
+    const checked = await upload(as.coach, csv);
+    expect(checked.status).toBe(200);
+    expect(checked.body.rows.map((r: { action: string; changes: string[] }) => [r.action, r.changes])).toEqual([
+      ['create', ['photo consent: yes', 'e-mail summaries consent: yes', 'parent account linked: Sol Parent (second.parent@riverside.test)']],
+      ['create', ['photo consent: no', 'e-mail summaries consent: no']],
+    ]);
     const res = await upload(as.coach, csv, true);
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ okCount: 2, errorCount: 0, created: 2 });

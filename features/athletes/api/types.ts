@@ -44,7 +44,7 @@ export type ImportReportRow = {
   values: Partial<Record<RosterColumn, string>>;
   /** For a line without errors: a new athlete, or one already in the club (same name and date of birth) to update. */
   action?: 'create' | 'update';
-  /** For an update: what the import changes, in plain words. */
+  /** An update: what the import changes; a new athlete: the consents recorded and the parent account linked. In plain words. */
   changes?: string[];
 };
 export type ImportReport = {

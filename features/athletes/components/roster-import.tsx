@@ -132,17 +132,30 @@ function Report({ report }: { report: ImportReport }) {
       {ready.length > 0 ? (
         <View style={styles.readyBox}>
           <Text variant="label">New ({ready.length})</Text>
+          <Text variant="small" testID="import-ready-totals">
+            {readyTotals(ready)}
+          </Text>
           {ready.slice(0, READY_SHOWN).map((row) => (
-            <Text key={row.line} variant="small" testID="import-ready-line">
-              Line {row.line}: {personOf(row)}
-              {row.values.squad ? ` · ${row.values.squad}` : ''}
-            </Text>
+            <View key={row.line} testID="import-ready-line">
+              <Text variant="small" style={styles.updateName}>
+                Line {row.line}: {personOf(row)}
+                {row.values.squad ? ` · ${row.values.squad}` : ''}
+              </Text>
+              {row.changes && row.changes.length > 0 ? <Text variant="small">{row.changes.join(' · ')}</Text> : null}
+            </View>
           ))}
           {ready.length > READY_SHOWN ? <Text variant="small">…and {ready.length - READY_SHOWN} more.</Text> : null}
         </View>
       ) : null}
     </View>
   );
+}
+
+/** Over every new line, shown or not: how many get photo consent and how many a parent account. */
+function readyTotals(rows: ImportReportRow[]): string {
+  const photos = rows.filter((r) => r.changes?.includes('photo consent: yes')).length;
+  const parents = rows.filter((r) => r.changes?.some((c) => c.startsWith('parent account linked'))).length;
+  return `Photo consent recorded as yes for ${photos} of ${rows.length}; a parent account linked for ${parents} of ${rows.length}.`;
 }
 
 function ProblemLine({ row }: { row: ImportReportRow }) {
