@@ -26,6 +26,8 @@ const LABELS: Record<string, string> = {
   kind: 'about',
   granted: 'answer',
   via: 'through',
+  guardian: 'parent account',
+  decidedOn: 'decided on',
 };
 
 /** Stored codes in the words the screens use for them. */
@@ -72,6 +74,8 @@ const ACTION_WORDS: Record<string, string> = {
   'plan.change': 'adjusted the plan of',
   'email.queued': 'sent',
   'photo.deleted': 'deleted',
+  'guardian.link': 'linked a parent account to',
+  'guardian.unlink': 'unlinked a parent account from',
 };
 
 /** The kind of record, in the words the screens use. */

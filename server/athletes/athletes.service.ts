@@ -58,7 +58,17 @@ export function athletesService(db: Db, scope: ClubScope) {
         await r.lockRoster();
         await activeSquadOrFail(r, input.squadId);
         await refuseDuplicate(r, input);
-        return r.create(input);
+        const created = await r.create(input);
+        await recordAudit(tx, {
+          clubId: scope.clubId,
+          actorId: scope.userId,
+          action: 'create',
+          subjectKind: 'athlete',
+          subjectId: created,
+          athleteId: created,
+          detail: { via: 'form' },
+        });
+        return created;
       });
       return detail(id);
     },
@@ -109,7 +119,17 @@ export function athletesService(db: Db, scope: ClubScope) {
         const message = `A later decision is on record (${inForce.granted ? 'yes' : 'no'}, decided ${inForce.decidedOn}). If the family has decided again since, record it with the day they did.`;
         throw new AppError(409, 'later_decision_on_record', message, { decidedOn: message });
       }
-      await repo.recordConsents([{ athleteId: id, kind: input.kind, granted: input.granted, decidedOn: input.decidedOn }]);
+      const [row] = await repo.recordConsents([{ athleteId: id, kind: input.kind, granted: input.granted, decidedOn: input.decidedOn }]);
+      // Which consent and which answer: a withdrawal never reads like a grant in the trail.
+      await recordAudit(db, {
+        clubId: scope.clubId,
+        actorId: scope.userId,
+        action: 'create',
+        subjectKind: 'consent',
+        subjectId: row!.id,
+        athleteId: id,
+        detail: { kind: input.kind, granted: input.granted, decidedOn: input.decidedOn },
+      });
       return { athlete: await detail(id), consents: await repo.consentHistory(id) };
     },
 
@@ -155,12 +175,31 @@ export function athletesService(db: Db, scope: ClubScope) {
         throw new AppError(400, 'not_a_parent', message, { email: message });
       }
       await repo.linkGuardians([{ athleteId: id, userId: member.userId }]);
+      await recordAudit(db, {
+        clubId: scope.clubId,
+        actorId: scope.userId,
+        action: 'guardian.link',
+        subjectKind: 'athlete',
+        subjectId: id,
+        athleteId: id,
+        detail: { guardian: member.displayName, guardianUserId: member.userId },
+      });
       return detail(id);
     },
 
     async unlinkGuardian(id: string, userId: string) {
       await mustGet(id);
+      const name = (await repo.guardians(id)).find((g) => g.userId === userId)?.displayName;
       if (!(await repo.unlinkGuardian(id, userId))) throw notFound('This guardian link');
+      await recordAudit(db, {
+        clubId: scope.clubId,
+        actorId: scope.userId,
+        action: 'guardian.unlink',
+        subjectKind: 'athlete',
+        subjectId: id,
+        athleteId: id,
+        detail: { guardian: name ?? null, guardianUserId: userId },
+      });
       return detail(id);
     },
 

@@ -1,3 +1,4 @@
+import { recordAudit, type AuditEntry } from '@/server/care/audit.repo';
 import { parse } from 'csv-parse/sync';
 import { ValidationError } from 'yup';
 import type { Db } from '@/db/client';
@@ -79,7 +80,7 @@ export function readRosterCsv(bytes: Buffer): RawRow[] {
   });
 }
 
-type CheckedRow = ReportRow & { row?: RosterRow; squadId?: string; guardianUserId?: string; existing?: AthleteView };
+type CheckedRow = ReportRow & { row?: RosterRow; squadId?: string; guardianUserId?: string; guardianName?: string; existing?: AthleteView };
 
 const yesNo = (v: boolean | null | undefined) => (v === true ? 'yes' : v === false ? 'no' : 'not recorded');
 
@@ -168,6 +169,7 @@ async function checkRows(repo: AthletesRepo, raw: RawRow[]): Promise<CheckedRow[
             row,
             squadId,
             guardianUserId: member?.userId,
+            guardianName: member?.displayName,
             existing,
             action: existing ? ('update' as const) : ('create' as const),
             changes: existing ? changesOf(existing, row!, squadName!, email, member?.displayName) : recordedFor(row!, email, member?.displayName),
@@ -225,7 +227,7 @@ export function rosterImport(db: Db, scope: ClubScope) {
         for (const { existing, row, squadId } of updates) {
           await repo.update(existing!.id, { sex: row.sex, racketHand: row.racket_hand, takeOffLeg: row.take_off_leg, squadId });
         }
-        await repo.recordConsents(
+        const updatedConsents = await repo.recordConsents(
           updates.flatMap(({ existing, row }) => [
             ...(existing!.consents.photos?.granted !== row.photo_consent
               ? [{ athleteId: existing!.id, kind: 'photos' as const, granted: row.photo_consent, decidedOn }]
@@ -235,9 +237,10 @@ export function rosterImport(db: Db, scope: ClubScope) {
               : []),
           ]),
         );
-        await repo.linkGuardians(
-          updates.flatMap(({ existing, guardianUserId }) => (guardianUserId ? [{ athleteId: existing!.id, userId: guardianUserId }] : [])),
+        const updatedLinks = updates.flatMap(({ existing, guardianUserId, guardianName }) =>
+          guardianUserId ? [{ athleteId: existing!.id, userId: guardianUserId, name: guardianName }] : [],
         );
+        await repo.linkGuardians(updatedLinks.map(({ athleteId, userId }) => ({ athleteId, userId })));
 
         const ready = all.filter((c) => !c.existing);
         const ids = await repo.createMany(
@@ -251,13 +254,50 @@ export function rosterImport(db: Db, scope: ClubScope) {
             squadId,
           })),
         );
-        await repo.recordConsents(
-          ready.flatMap(({ row }, i) => [
-            { athleteId: ids[i]!, kind: 'photos' as const, granted: row.photo_consent, decidedOn },
-            { athleteId: ids[i]!, kind: 'email_summaries' as const, granted: row.email_summaries_consent, decidedOn },
-          ]),
+        const newConsents = ready.flatMap(({ row }, i) => [
+          { athleteId: ids[i]!, kind: 'photos' as const, granted: row.photo_consent, decidedOn },
+          { athleteId: ids[i]!, kind: 'email_summaries' as const, granted: row.email_summaries_consent, decidedOn },
+        ]);
+        const createdConsents = await repo.recordConsents(newConsents);
+        const newLinks = ready.flatMap(({ guardianUserId, guardianName }, i) =>
+          guardianUserId ? [{ athleteId: ids[i]!, userId: guardianUserId, name: guardianName }] : [],
         );
-        await repo.linkGuardians(ready.flatMap(({ guardianUserId }, i) => (guardianUserId ? [{ athleteId: ids[i]!, userId: guardianUserId }] : [])));
+        await repo.linkGuardians(newLinks.map(({ athleteId, userId }) => ({ athleteId, userId })));
+
+        // The trail of the import, in its transaction: each athlete added, each consent with its answer,
+        // each parent account linked.
+        const consentsUpdated = updates.flatMap(({ existing, row }) => [
+          ...(existing!.consents.photos?.granted !== row.photo_consent ? [{ athleteId: existing!.id, kind: 'photos', granted: row.photo_consent }] : []),
+          ...(existing!.consents.emailSummaries?.granted !== row.email_summaries_consent
+            ? [{ athleteId: existing!.id, kind: 'email_summaries', granted: row.email_summaries_consent }]
+            : []),
+        ]);
+        const entry = (e: Omit<AuditEntry, 'clubId' | 'actorId'>): AuditEntry => ({ clubId: scope.clubId, actorId: scope.userId, ...e });
+        await recordAudit(
+          tx,
+          ...ids.map((id) => entry({ action: 'create', subjectKind: 'athlete', subjectId: id, athleteId: id, detail: { via: 'import' } })),
+          ...[
+            ...consentsUpdated.map((c, i) => ({ ...c, id: updatedConsents[i]!.id })),
+            ...newConsents.map((c, i) => ({ ...c, id: createdConsents[i]!.id })),
+          ].map((c) =>
+            entry({
+              action: 'create',
+              subjectKind: 'consent',
+              subjectId: c.id,
+              athleteId: c.athleteId,
+              detail: { kind: c.kind, granted: c.granted, decidedOn, via: 'import' },
+            }),
+          ),
+          ...[...updatedLinks, ...newLinks].map((l) =>
+            entry({
+              action: 'guardian.link',
+              subjectKind: 'athlete',
+              subjectId: l.athleteId,
+              athleteId: l.athleteId,
+              detail: { guardian: l.name ?? null, guardianUserId: l.userId, via: 'import' },
+            }),
+          ),
+        );
         return { report, created: ids, updated: updates.map((u) => u.existing!.id) };
       });
     },

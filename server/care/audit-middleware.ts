@@ -21,14 +21,15 @@ const ID = '([0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12})';
 
 /**
  * Routes of other capabilities whose views and changes belong in the audit trail. Matching here keeps
- * those routers untouched; the care routes record their own events where the change happens.
+ * those routers untouched; the care routes record their own events where the change happens, as do the
+ * roster's changes whose details matter (an athlete added, a consent with its answer, a parent linked or
+ * unlinked: `server/athletes/`).
  */
 const RULES: Rule[] = [
   { method: 'GET', pattern: new RegExp(`^/athletes/${ID}$`), subject: 'athlete', action: 'view' },
   { method: 'PATCH', pattern: new RegExp(`^/athletes/${ID}$`), subject: 'athlete', action: 'update' },
   { method: 'POST', pattern: new RegExp(`^/athletes/${ID}/(archive|restore)$`), subject: 'athlete', action: 'update' },
   { method: 'GET', pattern: new RegExp(`^/athletes/${ID}/consents$`), subject: 'consent', action: 'view' },
-  { method: 'POST', pattern: new RegExp(`^/athletes/${ID}/consents$`), subject: 'consent', action: 'create' },
   { method: 'GET', pattern: new RegExp(`^/assessments/${ID}$`), subject: 'assessment', action: 'view' },
   { method: 'POST', pattern: new RegExp(`^/assessments/${ID}/submit$`), subject: 'assessment', action: 'submit' },
   { method: 'PUT', pattern: new RegExp(`^/assessments/${ID}/plan$`), subject: 'assessment', action: 'plan.change' },

@@ -130,6 +130,10 @@ describe('athletes: create, edit, move, archive', () => {
       consents: { photos: null, emailSummaries: null },
     });
     ids.lotte = res.body.athlete.id;
+    const trail = await as.admin.get(`/api/audit?athleteId=${ids.lotte}&subject=athlete`);
+    expect(trail.body.events.map((e: { action: string; actorName: string; detail: unknown }) => [e.action, e.actorName, e.detail])).toEqual([
+      ['create', 'Cole Coach', { via: 'form' }],
+    ]);
   });
 
   it.each([
@@ -383,6 +387,14 @@ describe('guardians', () => {
     expect(unlinked.body.athlete.guardians).toHaveLength(1);
     expect((await second.get(`/api/athletes/${ids.child}`)).status).toBe(403);
     expect((await as.coach.delete(`/api/athletes/${ids.child}/guardians/${ids.secondParent}`)).status).toBe(404);
+
+    // Both are in the audit trail, by whom and which parent account; the refused second unlink is not.
+    const trail = await as.admin.get(`/api/audit?athleteId=${ids.child}`);
+    const links = (trail.body.events as { action: string; actorName: string; detail: Record<string, unknown> }[]).filter((e) => e.action.startsWith('guardian.'));
+    expect(links.map((e) => [e.action, e.actorName, e.detail.guardian])).toEqual([
+      ['guardian.unlink', 'Cole Coach', 'Sol Parent'],
+      ['guardian.link', 'Cole Coach', 'Sol Parent'],
+    ]);
   });
 
   it('asks for an invitation first when the e-mail is not a club member', async () => {
@@ -508,6 +520,21 @@ describe('CSV roster import', () => {
     });
     const second = await signedInAgent(app, 'second.parent@riverside.test');
     expect((await second.get(`/api/athletes/${elin.id}`)).status).toBe(200);
+    // The import's trail: Elin added, each consent with its answer, her parent account linked.
+    const trail = await as.admin.get(`/api/audit?athleteId=${elin.id}`);
+    const events = (trail.body.events as { subjectKind: string; action: string; actorName: string; detail: Record<string, unknown> }[]).map((e) => ({
+      what: `${e.subjectKind}:${e.action}`,
+      by: e.actorName,
+      detail: e.detail,
+    }));
+    expect(events).toEqual(
+      expect.arrayContaining([
+        { what: 'athlete:create', by: 'Cole Coach', detail: { via: 'import' } },
+        { what: 'consent:create', by: 'Cole Coach', detail: expect.objectContaining({ kind: 'photos', granted: true, via: 'import' }) },
+        { what: 'consent:create', by: 'Cole Coach', detail: expect.objectContaining({ kind: 'email_summaries', granted: true, via: 'import' }) },
+        { what: 'athlete:guardian.link', by: 'Cole Coach', detail: expect.objectContaining({ guardian: 'Sol Parent', via: 'import' }) },
+      ]),
+    );
     const history = await as.coach.get(`/api/athletes/${elin.id}/consents`);
     expect(history.body.consents.every((c: { recordedBy: string }) => c.recordedBy === 'Cole Coach')).toBe(true);
   });
