@@ -30,6 +30,7 @@ export const PERMISSIONS = {
   // Club and people
   'members.read': ROSTER_MANAGERS, // the people of the club and pending invitations
   'members.invite': ['admin'], // invite staff and parents
+  'members.manage': ['admin'], // change a member's role, remove a member, cancel an invitation
   'mailbox.read': ['admin'], // the local e-mail fake (development only)
   'audit.read': ['admin'], // the audit trail and its CSV export
   'club.settings': ['admin'], // club settings (retention, family photos, automatic release)

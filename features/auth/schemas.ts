@@ -64,3 +64,10 @@ export const changePasswordSchema = object({
   newPassword,
 });
 export type ChangePasswordInput = InferType<typeof changePasswordSchema>;
+
+/** A member's new role (People, admins only). */
+export const changeRoleSchema = object({
+  role: string<Role>()
+    .oneOf([...ROLES], 'Choose one of the roles.')
+    .required('Choose one of the roles.'),
+});

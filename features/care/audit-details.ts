@@ -5,6 +5,7 @@ import { isCalendarDate } from '@/features/athletes/schemas';
  * what to whom, not UUIDs. Our choice.
  */
 import { CLEARANCE_LABELS, NOTE_VISIBILITY_LABELS } from './choices';
+import { ROLE_LABELS } from '@/features/access/permissions';
 
 const LEFT_OUT = /(Id|Ids)$|^(replaces|previousText|before|after)$/;
 
@@ -28,6 +29,10 @@ const LABELS: Record<string, string> = {
   via: 'through',
   guardian: 'parent account',
   decidedOn: 'decided on',
+  name: 'name',
+  email: 'e-mail',
+  role: 'role',
+  from: 'from',
 };
 
 /** Stored codes in the words the screens use for them. */
@@ -36,6 +41,9 @@ const VALUE_WORDS: Record<string, Record<string, string>> = {
   visibility: NOTE_VISIBILITY_LABELS,
   visibilities: NOTE_VISIBILITY_LABELS,
   kind: { photos: 'photos', email_summaries: 'e-mail summaries' },
+  role: ROLE_LABELS,
+  from: ROLE_LABELS,
+  to: ROLE_LABELS,
 };
 
 function valueInWords(v: unknown, words: Record<string, string> = {}): string | null {
@@ -76,6 +84,9 @@ const ACTION_WORDS: Record<string, string> = {
   'photo.deleted': 'deleted',
   'guardian.link': 'linked a parent account to',
   'guardian.unlink': 'unlinked a parent account from',
+  'role.change': 'changed the role of',
+  remove: 'removed',
+  'invitation.cancel': 'cancelled the invitation of',
 };
 
 /** The kind of record, in the words the screens use. */
@@ -88,6 +99,7 @@ const SUBJECT_WORDS: Record<string, string> = {
   email: 'e-mail',
   photo: 'photo',
   settings: 'settings',
+  member: 'club member',
 };
 
 export const auditActionInWords = (action: string) => ACTION_WORDS[action] ?? action;

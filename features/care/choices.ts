@@ -16,5 +16,5 @@ export const CLEARANCE_LABELS: Record<ClearanceStatus, string> = {
 /** How long an author may still correct a note; afterwards it is kept as written (our choice). */
 export const NOTE_EDIT_WINDOW_MINUTES = 15;
 
-export const AUDIT_SUBJECTS = ['athlete', 'assessment', 'note', 'clearance', 'consent', 'email', 'photo', 'settings'] as const;
+export const AUDIT_SUBJECTS = ['athlete', 'assessment', 'note', 'clearance', 'consent', 'email', 'photo', 'settings', 'member'] as const;
 export type AuditSubject = (typeof AUDIT_SUBJECTS)[number];

@@ -4,8 +4,10 @@ import type { Role } from '@/features/access/permissions';
 
 export type Member = { userId: string; displayName: string; email: string; role: Role };
 /** `children`: whom a parent's invitation links when accepted (names). */
-export type PendingInvite = { email: string; role: Role; expiresAt: string; children: string[] };
+export type PendingInvite = { id: string; email: string; role: Role; expiresAt: string; children: string[] };
 /** GET /api/clubs/:clubId/members */
 export type MembersResponse = { members: Member[]; pending: PendingInvite[] };
 /** POST /api/clubs/:clubId/invitations */
 export type InviteResponse = { ok: true; email: string; role: Role; athleteIds?: string[] };
+/** PATCH /api/clubs/:clubId/members/:userId */
+export type ChangeRoleInput = { role: Role };

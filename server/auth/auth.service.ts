@@ -113,6 +113,13 @@ export function createAuthService({ db, auth, outbox, limits = DEFAULT_AUTH_LIMI
     if (existing) throw conflict('This person is already a member of the club.');
     const tokenHash = await placeholderHash();
     const row = await db.transaction(async (tx) => {
+      // One open invitation per address and club: a new one (another role, other children) replaces
+      // those sent before, whose links stop working.
+      const now = new Date();
+      await tx
+        .update(invitations)
+        .set({ expiresAt: now })
+        .where(and(eq(invitations.clubId, input.clubId), eq(invitations.email, input.email), isNull(invitations.acceptedAt), gt(invitations.expiresAt, now)));
       const [created] = await tx
         .insert(invitations)
         .values({

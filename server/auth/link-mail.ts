@@ -2,7 +2,10 @@ import { and, asc, eq, gt, isNull } from 'drizzle-orm';
 import type { Db } from '@/db/client';
 import { athletes, clubs, invitationAthletes, invitations, passwordResets, users } from '@/db/schema';
 import type { MailRef, OutgoingMail } from '@/server/mail/outbox';
+import { ROLE_LABELS } from '@/features/access/permissions';
 import { newToken, sessionIdFromToken } from './lucia';
+
+const withArticle = (words: string) => `${/^[aeiou]/.test(words) ? 'an' : 'a'} ${words}`;
 
 /** "Maya", "Maya and Theo", "Maya, Theo and Ava". */
 export function listNames(names: string[]): string {
@@ -24,10 +27,13 @@ export function linkMail(db: Db, publicUrl: string) {
       .update(invitations)
       .set({ tokenHash: await sessionIdFromToken(token) })
       .where(and(eq(invitations.id, id), isNull(invitations.acceptedAt), gt(invitations.expiresAt, new Date())))
-      .returning({ email: invitations.email, clubId: invitations.clubId });
+      .returning({ email: invitations.email, clubId: invitations.clubId, role: invitations.role, invitedBy: invitations.invitedBy });
     if (!row) return null;
     const [club] = await db.select({ name: clubs.name }).from(clubs).where(eq(clubs.id, row.clubId));
     const name = club?.name ?? 'your club';
+    // Who sends it and as what: two invitations to one address never read the same.
+    const [inviter] = row.invitedBy ? await db.select({ name: users.displayName }).from(users).where(eq(users.id, row.invitedBy)) : [];
+    const by = inviter?.name ?? 'An admin';
     // The children a parent's invitation links, named in the e-mail.
     const children = await db
       .select({ firstName: athletes.firstName, lastName: athletes.lastName })
@@ -42,8 +48,8 @@ export function linkMail(db: Db, publicUrl: string) {
       subject: children.length > 0 ? `Follow ${names} at ${name} on Squadline` : `You are invited to ${name} on Squadline`,
       text:
         (children.length > 0
-          ? `Hello,\n\n${name} invites you to follow ${names} on Squadline: what they do in screening and training, and why.\n\n`
-          : `Hello,\n\nYou have been invited to join ${name} on Squadline.\n\n`) +
+          ? `Hello,\n\n${by} of ${name} invites you to follow ${names} on Squadline: what they do in screening and training, and why.\n\n`
+          : `Hello,\n\n${by} has invited you to join ${name} on Squadline as ${withArticle(ROLE_LABELS[row.role].toLowerCase())}.\n\n`) +
         `Open this link to choose your password (it works once, for 7 days):\n${link}\n\n` +
         `If you did not expect this e-mail, you can ignore it.\n`,
       tag: { kind: 'invitation', clubId: row.clubId },

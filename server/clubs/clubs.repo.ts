@@ -1,6 +1,6 @@
-import { and, asc, eq, gt, isNull } from 'drizzle-orm';
+import { and, asc, eq, gt, inArray, isNull } from 'drizzle-orm';
 import type { Db } from '@/db/client';
-import { invitations, memberships, users } from '@/db/schema';
+import { athletes, guardianLinks, invitations, memberships, users, type Role } from '@/db/schema';
 import type { ClubScope } from '@/server/access/scope';
 
 /** The people of the scope's club: every query filters by `scope.clubId`. */
@@ -13,6 +13,39 @@ export function clubsRepo(db: Db, scope: ClubScope) {
         .innerJoin(users, eq(users.id, memberships.userId))
         .where(eq(memberships.clubId, scope.clubId))
         .orderBy(asc(users.displayName));
+    },
+
+    async member(userId: string) {
+      const [row] = await db
+        .select({ userId: users.id, displayName: users.displayName, email: users.email, role: memberships.role })
+        .from(memberships)
+        .innerJoin(users, eq(users.id, memberships.userId))
+        .where(and(eq(memberships.clubId, scope.clubId), eq(memberships.userId, userId)));
+      return row ?? null;
+    },
+
+    async setRole(userId: string, role: Role) {
+      await db
+        .update(memberships)
+        .set({ role })
+        .where(and(eq(memberships.clubId, scope.clubId), eq(memberships.userId, userId)));
+    },
+
+    /** The membership and, for a parent, their links to this club's children: nothing of the club stays reachable. */
+    async remove(userId: string) {
+      const children = db.select({ id: athletes.id }).from(athletes).where(eq(athletes.clubId, scope.clubId));
+      await db.delete(guardianLinks).where(and(eq(guardianLinks.userId, userId), inArray(guardianLinks.athleteId, children)));
+      await db.delete(memberships).where(and(eq(memberships.clubId, scope.clubId), eq(memberships.userId, userId)));
+    },
+
+    /** Ends an open invitation now (its link stops working); null when none is open with that id. */
+    async cancelInvitation(id: string, now = new Date()) {
+      const [row] = await db
+        .update(invitations)
+        .set({ expiresAt: now })
+        .where(and(eq(invitations.id, id), eq(invitations.clubId, scope.clubId), isNull(invitations.acceptedAt), gt(invitations.expiresAt, now)))
+        .returning({ email: invitations.email, role: invitations.role });
+      return row ?? null;
     },
 
     pendingInvitations(now = new Date()) {

@@ -390,7 +390,9 @@ describe('guardians', () => {
 
     // Both are in the audit trail, by whom and which parent account; the refused second unlink is not.
     const trail = await as.admin.get(`/api/audit?athleteId=${ids.child}`);
-    const links = (trail.body.events as { action: string; actorName: string; detail: Record<string, unknown> }[]).filter((e) => e.action.startsWith('guardian.'));
+    const links = (trail.body.events as { action: string; actorName: string; detail: Record<string, unknown> }[]).filter((e) =>
+      e.action.startsWith('guardian.'),
+    );
     expect(links.map((e) => [e.action, e.actorName, e.detail.guardian])).toEqual([
       ['guardian.unlink', 'Cole Coach', 'Sol Parent'],
       ['guardian.link', 'Cole Coach', 'Sol Parent'],

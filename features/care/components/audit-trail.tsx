@@ -26,13 +26,14 @@ const SUBJECT_LABELS: Record<string, string> = {
   email: 'E-mails',
   photo: 'Photos',
   settings: 'Settings',
+  member: 'Members',
 };
 const SUBJECT_OPTIONS = (['all', ...AUDIT_SUBJECTS] as const).map((s) => ({ value: s, label: SUBJECT_LABELS[s]! }));
 
 /** Who viewed or changed what: filters, a table on wide screens, rows on phones, and the CSV export. */
 export function AuditTrail() {
   const { role } = useActiveClub().membership;
-  if (!can(role, 'audit.read')) return <Notice tone="error">The audit trail is for the club's admins.</Notice>;
+  if (!can(role, 'audit.read')) return <Notice tone="error">The audit trail is for the club’s admins.</Notice>;
   return <Trail />;
 }
 

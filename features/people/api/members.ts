@@ -1,7 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/features/api/client';
 import type { InviteInput } from '@/features/auth/schemas';
-import type { InviteResponse, MembersResponse } from '@/features/people/contract';
+import type { ChangeRoleInput, InviteResponse, MembersResponse } from '@/features/people/contract';
 
 export const peopleKeys = { members: (clubId: string) => ['people', clubId, 'members'] as const };
 export const MEMBERS_STALE_MS = 30 * 1000;
@@ -22,3 +22,19 @@ export function useInviteMutation(clubId: string) {
     onSuccess: () => qc.invalidateQueries({ queryKey: membersQueryOptions(clubId).queryKey }),
   });
 }
+
+function useMembersChange<T>(clubId: string, send: (input: T) => Promise<unknown>) {
+  const qc = useQueryClient();
+  return useMutation({ mutationFn: send, onSuccess: () => qc.invalidateQueries({ queryKey: membersQueryOptions(clubId).queryKey }) });
+}
+
+export const useChangeRoleMutation = (clubId: string) =>
+  useMembersChange(clubId, ({ userId, role }: { userId: string } & ChangeRoleInput) =>
+    api<{ ok: true }>(`/clubs/${clubId}/members/${userId}`, { method: 'PATCH', json: { role } }),
+  );
+
+export const useRemoveMemberMutation = (clubId: string) =>
+  useMembersChange(clubId, (userId: string) => api<{ ok: true }>(`/clubs/${clubId}/members/${userId}`, { method: 'DELETE' }));
+
+export const useCancelInvitationMutation = (clubId: string) =>
+  useMembersChange(clubId, (invitationId: string) => api<{ ok: true }>(`/clubs/${clubId}/invitations/${invitationId}`, { method: 'DELETE' }));

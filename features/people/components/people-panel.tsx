@@ -3,7 +3,7 @@ import { Formik } from 'formik';
 import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { useAthletesQuery } from '@/features/athletes/api/get-athletes';
-import { ApiError, fieldErrorsOf } from '@/features/api/client';
+import { ApiError, fieldErrorsOf, messageOf } from '@/features/api/client';
 import { inviteSchema, MAX_INVITED_CHILDREN, ROLE_LABELS, ROLE_VALUES, type InviteInput } from '@/features/auth/schemas';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
@@ -13,10 +13,15 @@ import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
 import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
-import { useInviteMutation, useMembersQuery } from '../api/members';
+import { useCancelInvitationMutation, useChangeRoleMutation, useInviteMutation, useMembersQuery, useRemoveMemberMutation } from '../api/members';
+import type { Member, PendingInvite } from '../contract';
+import type { Role } from '@/features/access/permissions';
+import { Chips } from '@/features/ui/components/chips';
+import { formatDate } from '@/features/ui/format-date';
 
 export function PeoplePanel() {
-  const { membership } = useActiveClub();
+  const { membership, me } = useActiveClub();
+  const manage = can(membership.role, 'members.manage');
   const { isWide } = useBreakpoints();
   const members = useMembersQuery(membership.clubId);
   return (
@@ -25,24 +30,13 @@ export function PeoplePanel() {
         <Text variant="heading">Members</Text>
         {members.error ? <Notice tone="error">{members.error.message}</Notice> : null}
         {members.data?.members.map((m) => (
-          <View key={m.userId} style={styles.row}>
-            <Text variant="label">{m.displayName}</Text>
-            <Text variant="small">
-              {ROLE_LABELS[m.role]} · {m.email}
-            </Text>
-          </View>
+          <MemberRow key={m.userId} member={m} manage={manage && m.userId !== me.user.id} clubId={membership.clubId} />
         ))}
         {members.data && members.data.pending.length > 0 ? (
           <>
             <Text variant="heading">Invited, not joined yet</Text>
             {members.data.pending.map((p) => (
-              <View key={p.email} style={styles.row} testID="pending-invite">
-                <Text variant="label">{p.email}</Text>
-                <Text variant="small">
-                  {ROLE_LABELS[p.role]}
-                  {p.children.length > 0 ? ` of ${p.children.join(', ')}` : ''}
-                </Text>
-              </View>
+              <PendingRow key={p.id} invite={p} manage={manage} clubId={membership.clubId} />
             ))}
           </>
         ) : null}
@@ -57,6 +51,84 @@ export function PeoplePanel() {
   );
 }
 
+/** A member, and for an admin (not on their own row) a change of role or removal, each confirmed. */
+function MemberRow({ member: m, manage, clubId }: { member: Member; manage: boolean; clubId: string }) {
+  const [mode, setMode] = useState<'idle' | 'role' | 'remove'>('idle');
+  const [role, setRole] = useState<Role>(m.role);
+  const change = useChangeRoleMutation(clubId);
+  const remove = useRemoveMemberMutation(clubId);
+  const error = change.error ?? remove.error;
+  return (
+    <View style={styles.row} testID={`member-${m.userId}`}>
+      <Text variant="label">{m.displayName}</Text>
+      <Text variant="small">
+        {ROLE_LABELS[m.role]} · {m.email}
+      </Text>
+      {error ? <Notice tone="error">{messageOf(error)}</Notice> : null}
+      {manage && mode === 'idle' ? (
+        <View style={styles.rowActions}>
+          <Button tone="quiet" label="Change role" testID="member-change-role" onPress={() => setMode('role')} />
+          <Button tone="quiet" label="Remove from the club" testID="member-remove" onPress={() => setMode('remove')} />
+        </View>
+      ) : null}
+      {mode === 'role' ? (
+        <View style={styles.form}>
+          <Chips
+            label={`New role for ${m.displayName}`}
+            value={role}
+            onChange={setRole}
+            options={ROLE_VALUES.map((r) => ({ value: r, label: ROLE_LABELS[r] }))}
+            testID="member-role"
+          />
+          <View style={styles.rowActions}>
+            <Button
+              label="Save the role"
+              testID="member-role-save"
+              busy={change.isPending}
+              onPress={() => change.mutate({ userId: m.userId, role }, { onSuccess: () => setMode('idle') })}
+            />
+            <Button tone="quiet" label="Cancel" onPress={() => setMode('idle')} />
+          </View>
+        </View>
+      ) : null}
+      {mode === 'remove' ? (
+        <View style={styles.form}>
+          <Text>
+            {`Remove ${m.displayName} from the club? They lose access at once${m.role === 'parent' ? ', and their links to the club’s children go too' : ''}. Their account stays; an admin can invite them again.`}
+          </Text>
+          <View style={styles.rowActions}>
+            <Button tone="danger" label="Yes, remove" testID="member-remove-confirm" busy={remove.isPending} onPress={() => remove.mutate(m.userId)} />
+            <Button tone="quiet" label="Keep" onPress={() => setMode('idle')} />
+          </View>
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
+/** An invitation not yet accepted; an admin can cancel it (its link stops working). */
+function PendingRow({ invite: p, manage, clubId }: { invite: PendingInvite; manage: boolean; clubId: string }) {
+  const [confirming, setConfirming] = useState(false);
+  const cancel = useCancelInvitationMutation(clubId);
+  return (
+    <View style={styles.row} testID="pending-invite">
+      <Text variant="label">{p.email}</Text>
+      <Text variant="small">
+        {ROLE_LABELS[p.role]}
+        {p.children.length > 0 ? ` of ${p.children.join(', ')}` : ''} · link valid until {formatDate(p.expiresAt)}
+      </Text>
+      {cancel.error ? <Notice tone="error">{messageOf(cancel.error)}</Notice> : null}
+      {manage && !confirming ? <Button tone="quiet" label="Cancel the invitation" testID="invite-cancel" onPress={() => setConfirming(true)} /> : null}
+      {confirming ? (
+        <View style={styles.rowActions}>
+          <Button tone="danger" label="Yes, cancel it" testID="invite-cancel-confirm" busy={cancel.isPending} onPress={() => cancel.mutate(p.id)} />
+          <Button tone="quiet" label="Keep it" onPress={() => setConfirming(false)} />
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
 function InviteForm({ clubId }: { clubId: string }) {
   const invite = useInviteMutation(clubId);
   return (
@@ -66,7 +138,8 @@ function InviteForm({ clubId }: { clubId: string }) {
       onSubmit={async (values, helpers) => {
         try {
           await invite.mutateAsync(inviteSchema.cast(values));
-          helpers.resetForm();
+          // Ready for the next person of the same role (a squad's parents, a team of testers).
+          helpers.resetForm({ values: { email: '', role: values.role, athleteIds: [] } });
         } catch (error) {
           const fields = fieldErrorsOf(error);
           if (fields) helpers.setErrors(fields);
@@ -176,6 +249,7 @@ const styles = StyleSheet.create({
   colsWide: { flexDirection: 'row', alignItems: 'flex-start' },
   col: { flex: 1 },
   row: { gap: 2, paddingVertical: space.xs, borderBottomWidth: 1, borderBottomColor: colors.line },
+  rowActions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   form: { gap: space.md },
   choices: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   choice: {
