@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { athleteSchema, consentSchema, isCalendarDate, rosterRowSchema } from './schemas';
+import { athleteSchema, consentSchema, isCalendarDate, rosterRowSchema, withDateDashes } from './schemas';
 
 const dobAged = (years: number) => `${new Date().getUTCFullYear() - years - 1}-11-15`;
 
@@ -83,5 +83,14 @@ describe('date of birth: juniors aged 6 to 19 today', () => {
 describe('consentSchema', () => {
   it('refuses a decision dated in the future', async () => {
     await expect(consentSchema.validate({ kind: 'photos', granted: true, decidedOn: '2999-01-01' })).rejects.toThrow(/future/);
+  });
+});
+
+describe('withDateDashes (a number pad without a dash)', () => {
+  it('writes eight digits as YYYY-MM-DD and leaves anything else as typed', () => {
+    expect(withDateDashes('20140309')).toBe('2014-03-09');
+    expect(withDateDashes('2014-03-09')).toBe('2014-03-09');
+    expect(withDateDashes('2014030')).toBe('2014030');
+    expect(withDateDashes('09/03/2014')).toBe('09/03/2014');
   });
 });

@@ -23,6 +23,15 @@ export const JUNIOR_AGE = { min: 6, max: 19 } as const;
 
 const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
 
+/**
+ * Eight digits typed in a row (a phone's number pad may have no dash) written as YYYY-MM-DD; anything else
+ * as it is. Pure.
+ */
+export function withDateDashes(value: string): string {
+  const digits = value.trim();
+  return /^\d{8}$/.test(digits) ? `${digits.slice(0, 4)}-${digits.slice(4, 6)}-${digits.slice(6)}` : value;
+}
+
 /** A real calendar day written YYYY-MM-DD (Date.parse alone accepts 2014-02-31 in some engines). */
 export function isCalendarDate(value: string): boolean {
   if (!ISO_DATE.test(value)) return false;

@@ -76,6 +76,48 @@ test('an invitation names the children it links; a parent without a linked child
   await second.context.close();
 });
 
+test('an admin cancels an invitation and removes a member who left, each after a confirmation', async ({ page, browser }, testInfo) => {
+  test.setTimeout(120_000);
+  await signIn(page, 'admin@squadline.test');
+  await expect(page.getByTestId('home-admin')).toBeVisible();
+  await openNav(page);
+  await page.getByRole('link', { name: 'People' }).click();
+
+  // An invitation sent to a wrong address: cancelled, its row goes; the form keeps the role chosen.
+  const wrong = `wrong-${testInfo.project.name}-${Date.now()}@squadline.test`;
+  await page.getByTestId('invite-email').fill(wrong);
+  await page.getByRole('radio', { name: 'Physiotherapist' }).click();
+  await page.getByTestId('invite-submit').click();
+  await expect(page.getByText('Invitation sent.')).toBeVisible();
+  await expect(page.getByRole('radio', { name: 'Physiotherapist' })).toBeChecked();
+  const row = page.getByTestId('pending-invite').filter({ hasText: wrong });
+  await expect(row).toContainText('Physiotherapist');
+  await row.getByTestId('invite-cancel').click();
+  await row.getByTestId('invite-cancel-confirm').click();
+  await expect(page.getByTestId('pending-invite').filter({ hasText: wrong })).toHaveCount(0);
+
+  // A tester who joined, then left the club: removed, after saying what that does.
+  const me = (await (await page.request.get('/api/me')).json()) as { memberships: { clubId: string; clubName: string }[] };
+  const club = me.memberships.find((m) => m.clubName === 'Harbourside Shuttle Club')!;
+  const leaving = `leaving-${testInfo.project.name}-${Date.now()}@squadline.test`;
+  expect((await page.request.post(`/api/clubs/${club.clubId}/invitations`, { data: { email: leaving, role: 'tester' } })).status()).toBe(201);
+  const name = `Lee Leaving ${testInfo.project.name}`;
+  const joined = await join(browser, page, await linkFromMailbox(page, leaving), name);
+  await joined.joinWith();
+  await expect(joined.p2.getByTestId('home-tester')).toBeVisible();
+  await page.reload();
+  const member = page.locator('[data-testid^="member-"]').filter({ hasText: name });
+  await member.getByTestId('member-remove').click();
+  await expect(member).toContainText('They lose access at once');
+  await page.screenshot({ path: testInfo.outputPath('remove-member.png'), fullPage: true });
+  await member.getByTestId('member-remove-confirm').click();
+  await expect(page.locator('[data-testid^="member-"]').filter({ hasText: name })).toHaveCount(0);
+  // Their next page finds no club any more.
+  await joined.p2.reload();
+  await expect(joined.p2.getByTestId('home-tester')).toHaveCount(0);
+  await joined.context.close();
+});
+
 test('every main screen has one main landmark, one top-level heading and its own title', async ({ page }) => {
   test.setTimeout(120_000);
   await signIn(page, 'coach@squadline.test');

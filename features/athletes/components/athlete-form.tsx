@@ -10,7 +10,18 @@ import { TextField } from '@/features/ui/components/text-field';
 import { space } from '@/features/ui/theme';
 import { useSquadsQuery } from '../api/get-squads';
 import type { Athlete } from '../api/types';
-import { athleteSchema, JUNIOR_AGE, SEX_LABELS, SEX_VALUES, SIDE_LABELS, SIDE_VALUES, type AthleteInput, type Sex, type Side } from '../schemas';
+import {
+  athleteSchema,
+  JUNIOR_AGE,
+  withDateDashes,
+  SEX_LABELS,
+  SEX_VALUES,
+  SIDE_LABELS,
+  SIDE_VALUES,
+  type AthleteInput,
+  type Sex,
+  type Side,
+} from '../schemas';
 import { Chips } from '@/features/ui/components/chips';
 
 type Values = {
@@ -99,10 +110,10 @@ export function AthleteForm({
               label="Date of birth"
               testID="athlete-date-of-birth"
               placeholder="YYYY-MM-DD"
-              hint={`Year-month-day, e.g. 2014-03-09. Athletes are ${JUNIOR_AGE.min} to ${JUNIOR_AGE.max} years old.`}
+              hint={`Year-month-day, e.g. 2014-03-09 (or 20140309). Athletes are ${JUNIOR_AGE.min} to ${JUNIOR_AGE.max} years old.`}
               inputMode="numeric"
               value={values.dateOfBirth}
-              onChangeText={handleChange('dateOfBirth')}
+              onChangeText={(v) => setFieldValue('dateOfBirth', withDateDashes(v))}
               onBlur={handleBlur('dateOfBirth')}
               error={show('dateOfBirth')}
             />
