@@ -106,6 +106,9 @@ test('a head coach imports a CSV: a line with an error first, then a clean file'
   await page.getByTestId('roster-file-input').setInputFiles(clean);
   await expect(page.getByTestId('import-summary')).toContainText('All 2 lines are ready');
   await expect(page.getByTestId('import-problem-line')).toHaveCount(0);
+  // Each new line says what it records: its consents (and a parent account, where the file names one).
+  await expect(page.getByTestId('import-ready-totals')).toContainText('of 2; a parent account linked for 0 of 2.');
+  await expect(page.getByTestId('import-ready-line').first()).toContainText('photo consent:');
   await page.getByTestId('import-commit').click();
   await expect(page.getByTestId('import-done')).toContainText('2 athletes imported');
 
@@ -136,8 +139,13 @@ test('a head coach imports a CSV: a line with an error first, then a clean file'
   for (const a of list.athletes.filter((x: { lastName: string }) => x.lastName === lastName)) {
     expect((await page.request.post(`/api/athletes/${a.id}/archive`)).status()).toBe(200);
   }
-  const squads = await (await page.request.get('/api/squads')).json();
-  const squad = squads.squads.find((s: { name: string }) => s.name === squadName);
-  expect((await page.request.post(`/api/squads/${squad.id}/archive`)).status()).toBe(200);
+  // The emptied squad is archived from its row, after a confirmation.
+  await page.goto('/athletes');
+  await page.getByTestId('manage-squads').click();
+  const row = page.getByTestId(`squad-row-${squadName}`);
+  await row.getByRole('button', { name: `Archive ${squadName}` }).click();
+  await expect(row).toContainText('its rounds and results are kept');
+  await row.getByTestId('squad-archive-confirm').click();
+  await expect(page.getByTestId(`squad-row-${squadName}`)).toHaveCount(0);
   fs.rmSync(dir, { recursive: true, force: true });
 });

@@ -20,6 +20,7 @@ export function GuardiansPanel({ athlete }: { athlete: Athlete }) {
   const { membership } = useActiveClub();
   const manage = can(membership.role, 'guardians.manage');
   const unlink = useUnlinkGuardianMutation(athlete.id);
+  const [confirming, setConfirming] = useState<string | null>(null);
   const guardians = athlete.guardians ?? [];
   return (
     <Card testID="guardians-panel">
@@ -32,14 +33,21 @@ export function GuardiansPanel({ athlete }: { athlete: Athlete }) {
             <Text variant="label">{g.displayName}</Text>
             <Text variant="small">{g.email}</Text>
           </View>
-          {manage ? (
-            <Button
-              label="Unlink"
-              tone="secondary"
-              accessibilityLabel={`Unlink ${g.displayName}`}
-              busy={unlink.isPending && unlink.variables === g.userId}
-              onPress={() => unlink.mutate(g.userId)}
-            />
+          {manage && confirming !== g.userId ? (
+            <Button label="Unlink" tone="secondary" accessibilityLabel={`Unlink ${g.displayName}`} onPress={() => setConfirming(g.userId)} />
+          ) : null}
+          {confirming === g.userId ? (
+            <View style={styles.confirm}>
+              <Text variant="small">{`${g.displayName} will no longer see ${athlete.firstName} in their account.`}</Text>
+              <Button
+                label="Yes, unlink"
+                tone="danger"
+                testID="guardian-unlink-confirm"
+                busy={unlink.isPending && unlink.variables === g.userId}
+                onPress={() => unlink.mutate(g.userId, { onSettled: () => setConfirming(null) })}
+              />
+              <Button label="Keep" tone="quiet" onPress={() => setConfirming(null)} />
+            </View>
           ) : null}
         </View>
       ))}
@@ -89,7 +97,16 @@ function LinkGuardian({ athleteId }: { athleteId: string }) {
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', alignItems: 'center', gap: space.md, paddingVertical: space.sm, borderBottomWidth: 1, borderBottomColor: colors.line },
+  row: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    gap: space.md,
+    paddingVertical: space.sm,
+    borderBottomWidth: 1,
+    borderBottomColor: colors.line,
+  },
+  confirm: { flexBasis: '100%', gap: space.sm },
   who: { flex: 1, gap: 2, minWidth: 0 },
   form: { gap: space.md },
 });

@@ -43,6 +43,7 @@ export function SquadManager() {
 
 function SquadRow({ squad }: { squad: SquadSummary }) {
   const [renaming, setRenaming] = useState(false);
+  const [confirming, setConfirming] = useState(false);
   const archive = useArchiveSquadMutation(squad.id);
   return (
     <View style={styles.row} testID={`squad-row-${squad.name}`}>
@@ -63,10 +64,16 @@ function SquadRow({ squad }: { squad: SquadSummary }) {
               tone="secondary"
               accessibilityLabel={`Archive ${squad.name}`}
               disabled={squad.athleteCount > 0}
-              busy={archive.isPending}
-              onPress={() => archive.mutate()}
+              onPress={() => setConfirming(true)}
             />
           </View>
+          {confirming ? (
+            <View style={styles.buttons}>
+              <Text variant="small">{`Archive ${squad.name}? It leaves the lists and the menus; its rounds and results are kept.`}</Text>
+              <Button label="Yes, archive it" tone="danger" testID="squad-archive-confirm" busy={archive.isPending} onPress={() => archive.mutate()} />
+              <Button label="Keep it" tone="quiet" onPress={() => setConfirming(false)} />
+            </View>
+          ) : null}
           {squad.athleteCount > 0 ? <Text variant="small">To archive it, move or archive its athletes first.</Text> : null}
           {archive.error ? <Notice tone="error">{archive.error.message}</Notice> : null}
         </>
