@@ -46,7 +46,7 @@ export function AthleteList() {
         </View>
         <Pressable
           accessibilityRole="checkbox"
-          accessibilityState={{ checked: showArchived }}
+          aria-checked={showArchived}
           testID="show-archived"
           onPress={() => setShowArchived((v) => !v)}
           style={styles.toggle}

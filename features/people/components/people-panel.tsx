@@ -166,7 +166,7 @@ function InviteForm({ clubId }: { clubId: string }) {
               <Pressable
                 key={r}
                 accessibilityRole="radio"
-                accessibilityState={{ checked: values.role === r }}
+                aria-checked={values.role === r}
                 onPress={() => {
                   setFieldValue('role', r);
                   if (r !== 'parent') setFieldValue('athleteIds', []);
