@@ -56,7 +56,7 @@ function AthleteFlags({ flags, testID }: { flags: RoundAthleteFlag[]; testID: st
 }
 
 /** Close (the roles that screen) or reopen (the head coach). */
-function RoundClosing({ id, closed }: { id: string; closed: boolean }) {
+function RoundClosing({ id, closed, unfinished }: { id: string; closed: boolean; unfinished: number }) {
   const { role } = useActiveClub().membership;
   const mutation = useSetRoundClosedMutation(id);
   const [confirming, setConfirming] = useState(false);
@@ -67,7 +67,13 @@ function RoundClosing({ id, closed }: { id: string; closed: boolean }) {
   }
   return (
     <View style={styles.closing}>
-      {!closed ? <Text>Close the round? Its screens can then be read but not changed, until a head coach reopens it.</Text> : null}
+      {!closed ? (
+        <Text>
+          {`Close the round? Its screens can then be read but not changed, until a head coach reopens it.${
+            unfinished > 0 ? ` ${unfinished === 1 ? '1 athlete is' : `${unfinished} athletes are`} not submitted yet and will stay that way.` : ''
+          }`}
+        </Text>
+      ) : null}
       <View style={styles.closingButtons}>
         <Button
           tone={closed ? 'secondary' : 'danger'}
@@ -189,7 +195,7 @@ export function RoundScreen({ id }: { id: string }) {
           ))}
         </View>
       </Card>
-      <RoundClosing id={r.id} closed={closed} />
+      <RoundClosing id={r.id} closed={closed} unfinished={Math.max(0, athletes.length - r.counts.submitted)} />
     </View>
   );
 }
