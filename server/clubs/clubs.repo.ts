@@ -1,10 +1,10 @@
 import { and, asc, eq, gt, inArray, isNull } from 'drizzle-orm';
-import type { Db } from '@/db/client';
+import type { Executor } from '@/server/screening/screening.repo';
 import { athletes, guardianLinks, invitations, memberships, users, type Role } from '@/db/schema';
 import type { ClubScope } from '@/server/access/scope';
 
 /** The people of the scope's club: every query filters by `scope.clubId`. */
-export function clubsRepo(db: Db, scope: ClubScope) {
+export function clubsRepo(db: Executor, scope: ClubScope) {
   return {
     members() {
       return db

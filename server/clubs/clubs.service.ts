@@ -5,6 +5,7 @@ import type { InviteResponse, MembersResponse } from '@/features/people/contract
 import type { ClubScope } from '@/server/access/scope';
 import type { AuthService } from '@/server/auth/auth.service';
 import { recordAudit } from '@/server/care/audit.repo';
+import type { Executor } from '@/server/screening/screening.repo';
 import { badRequest, notFound } from '@/server/http/errors';
 import { clubsRepo } from './clubs.repo';
 
@@ -18,6 +19,10 @@ export function clubsService(db: Db, authService: AuthService, scope: ClubScope)
     if (!member) throw notFound('This member');
     return member;
   }
+
+  /** One change to the club's people, in the audit trail (subject `member`), by the caller. */
+  const audit = (executor: Executor, action: string, subjectId: string, detail: Record<string, unknown>) =>
+    recordAudit(executor, { clubId: scope.clubId, actorId: scope.userId, action, subjectKind: 'member', subjectId, detail });
 
   return {
     async members(): Promise<MembersResponse> {
@@ -42,14 +47,7 @@ export function clubsService(db: Db, authService: AuthService, scope: ClubScope)
       const member = await mustBeOtherMember(userId, 'change your own role');
       if (member.role === role) return { ok: true as const };
       await repo.setRole(userId, role);
-      await recordAudit(db, {
-        clubId: scope.clubId,
-        actorId: scope.userId,
-        action: 'role.change',
-        subjectKind: 'member',
-        subjectId: userId,
-        detail: { name: member.displayName, from: member.role, to: role },
-      });
+      await audit(db, 'role.change', userId, { name: member.displayName, from: member.role, to: role });
       return { ok: true as const };
     },
 
@@ -61,15 +59,8 @@ export function clubsService(db: Db, authService: AuthService, scope: ClubScope)
     async remove(userId: string) {
       const member = await mustBeOtherMember(userId, 'remove yourself');
       await db.transaction(async (tx) => {
-        await clubsRepo(tx as unknown as Db, scope).remove(userId);
-        await recordAudit(tx, {
-          clubId: scope.clubId,
-          actorId: scope.userId,
-          action: 'remove',
-          subjectKind: 'member',
-          subjectId: userId,
-          detail: { name: member.displayName, role: member.role },
-        });
+        await clubsRepo(tx, scope).remove(userId);
+        await audit(tx, 'remove', userId, { name: member.displayName, role: member.role });
       });
       return { ok: true as const };
     },
@@ -78,14 +69,7 @@ export function clubsService(db: Db, authService: AuthService, scope: ClubScope)
     async cancelInvitation(id: string) {
       const row = await repo.cancelInvitation(id);
       if (!row) throw notFound('This invitation');
-      await recordAudit(db, {
-        clubId: scope.clubId,
-        actorId: scope.userId,
-        action: 'invitation.cancel',
-        subjectKind: 'member',
-        subjectId: id,
-        detail: { email: row.email, role: row.role },
-      });
+      await audit(db, 'invitation.cancel', id, { email: row.email, role: row.role });
       return { ok: true as const };
     },
 
