@@ -227,16 +227,15 @@ export function rosterImport(db: Db, scope: ClubScope) {
         for (const { existing, row, squadId } of updates) {
           await repo.update(existing!.id, { sex: row.sex, racketHand: row.racket_hand, takeOffLeg: row.take_off_leg, squadId });
         }
-        const updatedConsents = await repo.recordConsents(
-          updates.flatMap(({ existing, row }) => [
-            ...(existing!.consents.photos?.granted !== row.photo_consent
-              ? [{ athleteId: existing!.id, kind: 'photos' as const, granted: row.photo_consent, decidedOn }]
-              : []),
-            ...(existing!.consents.emailSummaries?.granted !== row.email_summaries_consent
-              ? [{ athleteId: existing!.id, kind: 'email_summaries' as const, granted: row.email_summaries_consent, decidedOn }]
-              : []),
-          ]),
-        );
+        const updateConsents = updates.flatMap(({ existing, row }) => [
+          ...(existing!.consents.photos?.granted !== row.photo_consent
+            ? [{ athleteId: existing!.id, kind: 'photos' as const, granted: row.photo_consent, decidedOn }]
+            : []),
+          ...(existing!.consents.emailSummaries?.granted !== row.email_summaries_consent
+            ? [{ athleteId: existing!.id, kind: 'email_summaries' as const, granted: row.email_summaries_consent, decidedOn }]
+            : []),
+        ]);
+        const updatedConsents = await repo.recordConsents(updateConsents);
         const updatedLinks = updates.flatMap(({ existing, guardianUserId, guardianName }) =>
           guardianUserId ? [{ athleteId: existing!.id, userId: guardianUserId, name: guardianName }] : [],
         );
@@ -266,18 +265,12 @@ export function rosterImport(db: Db, scope: ClubScope) {
 
         // The trail of the import, in its transaction: each athlete added, each consent with its answer,
         // each parent account linked.
-        const consentsUpdated = updates.flatMap(({ existing, row }) => [
-          ...(existing!.consents.photos?.granted !== row.photo_consent ? [{ athleteId: existing!.id, kind: 'photos', granted: row.photo_consent }] : []),
-          ...(existing!.consents.emailSummaries?.granted !== row.email_summaries_consent
-            ? [{ athleteId: existing!.id, kind: 'email_summaries', granted: row.email_summaries_consent }]
-            : []),
-        ]);
         const entry = (e: Omit<AuditEntry, 'clubId' | 'actorId'>): AuditEntry => ({ clubId: scope.clubId, actorId: scope.userId, ...e });
         await recordAudit(
           tx,
           ...ids.map((id) => entry({ action: 'create', subjectKind: 'athlete', subjectId: id, athleteId: id, detail: { via: 'import' } })),
           ...[
-            ...consentsUpdated.map((c, i) => ({ ...c, id: updatedConsents[i]!.id })),
+            ...updateConsents.map((c, i) => ({ ...c, id: updatedConsents[i]!.id })),
             ...newConsents.map((c, i) => ({ ...c, id: createdConsents[i]!.id })),
           ].map((c) =>
             entry({
