@@ -55,7 +55,9 @@ function Trail() {
       <Text variant="title" accessibilityRole="header">
         Audit trail
       </Text>
-      <Text variant="small">Who viewed or changed athletes, screens, notes, clearance, consent and the club’s members, which e-mails went out, and which photos were deleted.</Text>
+      <Text variant="small">
+        Who viewed or changed athletes, screens, notes, clearance, consent and the club’s members, which e-mails went out, and which photos were deleted.
+      </Text>
       <Card>
         <Chips label="Kind of record" options={SUBJECT_OPTIONS} value={subject} onChange={setSubject} testID="audit-subject" />
         <View style={[styles.dates, isWide && styles.datesWide]}>
