@@ -188,9 +188,10 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
         .where(and(eq(memberships.clubId, scope.clubId), inArray(users.email, emails)));
       return new Map(rows.map((r) => [r.email, { userId: r.userId, role: r.role, displayName: r.displayName }]));
     },
-    async linkGuardians(links: { athleteId: string; userId: string }[]) {
-      if (links.length === 0) return;
-      await db.insert(guardianLinks).values(links).onConflictDoNothing();
+    /** Links parents to children; returns the links that were new (one already there is left as it is). */
+    async linkGuardians(links: { athleteId: string; userId: string }[]): Promise<{ athleteId: string; userId: string }[]> {
+      if (links.length === 0) return [];
+      return db.insert(guardianLinks).values(links).onConflictDoNothing().returning({ athleteId: guardianLinks.athleteId, userId: guardianLinks.userId });
     },
     async unlinkGuardian(athleteId: string, userId: string): Promise<boolean> {
       // The athlete id was checked to be in scope by the caller; the link table has no club column.

@@ -174,16 +174,18 @@ export function athletesService(db: Db, scope: ClubScope) {
         const message = `This e-mail belongs to the club’s ${ROLE_LABELS[member.role].toLowerCase()}; only parent or guardian accounts can be linked to a child.`;
         throw new AppError(400, 'not_a_parent', message, { email: message });
       }
-      await repo.linkGuardians([{ athleteId: id, userId: member.userId }]);
-      await recordAudit(db, {
-        clubId: scope.clubId,
-        actorId: scope.userId,
-        action: 'guardian.link',
-        subjectKind: 'athlete',
-        subjectId: id,
-        athleteId: id,
-        detail: { guardian: member.displayName, guardianUserId: member.userId },
-      });
+      const linked = await repo.linkGuardians([{ athleteId: id, userId: member.userId }]);
+      // Linking an account already linked changes nothing, and is not recorded again.
+      if (linked.length > 0)
+        await recordAudit(db, {
+          clubId: scope.clubId,
+          actorId: scope.userId,
+          action: 'guardian.link',
+          subjectKind: 'athlete',
+          subjectId: id,
+          athleteId: id,
+          detail: { guardian: member.displayName, guardianUserId: member.userId },
+        });
       return detail(id);
     },
 

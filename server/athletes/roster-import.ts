@@ -239,7 +239,7 @@ export function rosterImport(db: Db, scope: ClubScope) {
         const updatedLinks = updates.flatMap(({ existing, guardianUserId, guardianName }) =>
           guardianUserId ? [{ athleteId: existing!.id, userId: guardianUserId, name: guardianName }] : [],
         );
-        await repo.linkGuardians(updatedLinks.map(({ athleteId, userId }) => ({ athleteId, userId })));
+        const linkedNow = await repo.linkGuardians(updatedLinks.map(({ athleteId, userId }) => ({ athleteId, userId })));
 
         const ready = all.filter((c) => !c.existing);
         const ids = await repo.createMany(
@@ -281,7 +281,8 @@ export function rosterImport(db: Db, scope: ClubScope) {
               detail: { kind: c.kind, granted: c.granted, decidedOn, via: 'import' },
             }),
           ),
-          ...[...updatedLinks, ...newLinks].map((l) =>
+          // Only links the import made: a line naming a parent already linked changes nothing.
+          ...[...updatedLinks.filter((l) => linkedNow.some((n) => n.athleteId === l.athleteId && n.userId === l.userId)), ...newLinks].map((l) =>
             entry({
               action: 'guardian.link',
               subjectKind: 'athlete',

@@ -377,6 +377,10 @@ describe('guardians', () => {
     const linked = await as.coach.post(`/api/athletes/${ids.child}/guardians`).send({ email: ' Second.Parent@Riverside.test ' });
     expect(linked.status).toBe(201);
     expect(linked.body.athlete.guardians.map((g: { displayName: string }) => g.displayName)).toEqual(['Pia Parent', 'Sol Parent']);
+    // Linked again: nothing changes, and the trail below holds one link, not two.
+    const twice = await as.coach.post(`/api/athletes/${ids.child}/guardians`).send({ email: 'second.parent@riverside.test' });
+    expect(twice.status).toBe(201);
+    expect(twice.body.athlete.guardians).toHaveLength(2);
     const seen = await second.get(`/api/athletes/${ids.child}`);
     expect(seen.status).toBe(200);
     // Parents do not see the other adults linked to the child.
