@@ -174,7 +174,7 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onNewPhot
           />
           <Button
             tone="secondary"
-            label={photo || item ? 'Choose another' : 'Choose photo'}
+            label="Choose photo"
             testID={`${testID}-library`}
             disabled={preparing}
             onPress={() => void choose('library')}
