@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { PAGE_HEADS } from '@/features/shell/page-heads';
-import { closedLine } from './round-lines';
+import { closedLine, STALE_ROUND_DAYS, staleRoundLine } from './round-lines';
 
 // A phone takes the largest text painted as the page's main content (Largest Contentful Paint). A round's
 // head line is painted from the HTML at once; the closed notice only after the JavaScript and the round,
@@ -15,5 +15,25 @@ describe("a closed round's notice stays smaller than the pre-rendered head line"
 
   it('the head line is long enough to stay the largest text', () => {
     expect(PAGE_HEADS.round.text.length).toBeGreaterThan(100);
+  });
+});
+
+describe('an open round dated well before today says so (our choice: after 14 days)', () => {
+  it('says the date and how long ago, and what to do', () => {
+    expect(STALE_ROUND_DAYS).toBe(14);
+    // 14 Sep to 5 Dec 2026: 16 (rest of Sep) + 31 + 30 + 5 = 82 days, counted by hand.
+    expect(staleRoundLine('2026-09-14', '2026-12-05', 'en-US')).toBe(
+      'Dated Sep 14, 2026, 82 days ago: screens here keep that date. Open a new round for today.',
+    );
+  });
+  it('is quiet for a round of the last two weeks, today or a date ahead', () => {
+    expect(staleRoundLine('2026-11-21', '2026-12-05')).toBeNull(); // 14 days
+    expect(staleRoundLine('2026-12-05', '2026-12-05')).toBeNull();
+    expect(staleRoundLine('2026-12-20', '2026-12-05')).toBeNull();
+    expect(staleRoundLine('2026-11-20', '2026-12-05')).not.toBeNull(); // 15 days
+  });
+  it('stays smaller than the pre-rendered head line, with the longest date', () => {
+    const line = staleRoundLine('2026-09-30', '2027-09-29', 'en-GB')!;
+    expect(line.length).toBeLessThanOrEqual((PAGE_HEADS.round.text.length * 2) / 3);
   });
 });

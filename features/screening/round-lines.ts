@@ -6,3 +6,17 @@ import { formatDate } from '@/features/ui/format-date';
  * text painted as the page's main content (round-lines.test.ts).
  */
 export const closedLine = (closedAt: string, by: string | null) => `Closed on ${formatDate(closedAt)}${by ? ` by ${by}` : ''}. A head coach can reopen it.`;
+
+/** After this many days, an open round's date is said before anyone screens in it (our choice). */
+export const STALE_ROUND_DAYS = 14;
+
+/**
+ * An open round dated well before today: screens taken in it keep the round's date (it counts for age,
+ * growth and the re-screen date), so a tester is told before screening today's athletes into an old
+ * round. Null for a recent round. Short, like the closed notice, so the head line stays the largest text.
+ */
+export function staleRoundLine(screenedOn: string, today: string, locale?: string): string | null {
+  const days = Math.round((Date.parse(`${today}T00:00:00Z`) - Date.parse(`${screenedOn}T00:00:00Z`)) / 86_400_000);
+  if (!(days > STALE_ROUND_DAYS)) return null;
+  return `Dated ${formatDate(screenedOn, { locale })}, ${days} days ago: screens here keep that date. Open a new round for today.`;
+}

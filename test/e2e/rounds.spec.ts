@@ -16,6 +16,9 @@ test('a round offers to start, lists flags by severity, and can be closed and re
   const name = `Spring ${testInfo.project.name} ${Date.now()}`;
   const created = await page.request.post('/api/rounds', { data: { squadId: squad.id, name, screenedOn: '2027-03-01' } });
   expect(created.status()).toBe(201);
+  const old = await page.request.post('/api/rounds', { data: { squadId: squad.id, name: `Old ${name}`, screenedOn: '2026-01-05' } });
+  expect(old.status()).toBe(201);
+  const oldId = ((await old.json()) as { round: { id: string } }).round.id;
   const round = (await created.json()) as { round: { id: string }; athletes: { assessmentId: string; athleteId: string }[] };
 
   await page.reload();
@@ -56,6 +59,15 @@ test('a round offers to start, lists flags by severity, and can be closed and re
   await page.goto(`/screening/rounds/${round.round.id}`);
   await expect(page.getByRole('heading', { name })).toBeVisible();
   expect(asked).toEqual([undefined]);
+  // Dated ahead of today: nothing said about its date. A round of the same squad dated months back and
+  // still open says its date before anyone screens in it.
+  await expect(page.getByTestId('round-stale')).toHaveCount(0);
+  await page.goto(`/screening/rounds/${oldId}`);
+  await expect(page.getByTestId('round-stale')).toContainText('screens here keep that date. Open a new round for today.');
+  // Closed again, so the demo's open rounds stay as they were.
+  expect((await page.request.post(`/api/rounds/${oldId}/close`)).status()).toBe(200);
+  await page.goto(`/screening/rounds/${round.round.id}`);
+  await expect(page.getByRole('heading', { name })).toBeVisible();
   const flags = page.getByTestId(`round-flags-${a.athleteId}`);
   await expect(flags).toContainText('▲▲ 1 Concern');
   await expect(flags).toContainText('Watch');

@@ -20,7 +20,8 @@ import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { RoundProgress } from './round-progress';
 import { PlainTag, SeverityTag, StatusTag } from './status-tag';
 import { formatDate } from '@/features/ui/format-date';
-import { closedLine } from '@/features/screening/round-lines';
+import { closedLine, staleRoundLine } from '@/features/screening/round-lines';
+import { todayIso } from '@/features/athletes/age';
 import { assessmentHref } from '@/features/screening/assessment-href';
 import { PAGE_HEADS } from '@/features/shell/page-heads';
 import { frameStyles } from '@/features/shell/components/shell-frame';
@@ -145,6 +146,10 @@ export function RoundScreen({ id }: { id: string }) {
       {closed ? (
         <Notice title="This round is closed" testID="round-closed">
           {closedLine(r.closedAt!, r.closedByName)}
+        </Notice>
+      ) : screensInClub && staleRoundLine(r.screenedOn, todayIso()) ? (
+        <Notice tone="caution" testID="round-stale">
+          {staleRoundLine(r.screenedOn, todayIso())}
         </Notice>
       ) : null}
       {screensInClub ? (
