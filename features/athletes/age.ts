@@ -16,3 +16,10 @@ export function ageInYears(dateOfBirth: string, onDate: string): number {
 }
 
 export const todayIso = () => new Date().toISOString().slice(0, 10);
+
+/** Whole days from one ISO date to another (dates only; time zones do not enter). */
+export function daysBetween(fromIso: string, toIso: string): number {
+  const a = Date.UTC(+fromIso.slice(0, 4), +fromIso.slice(5, 7) - 1, +fromIso.slice(8, 10));
+  const b = Date.UTC(+toIso.slice(0, 4), +toIso.slice(5, 7) - 1, +toIso.slice(8, 10));
+  return Math.round((b - a) / 86_400_000);
+}

@@ -6,6 +6,7 @@
  * or worse; it is "within error". Where no published error exists the verdict says so, and no direction
  * is given either.
  */
+import { daysBetween } from '@/features/athletes/age';
 import type { AssessmentResult, Flag, FlagSide, Measurement, MetricId, PatternId, TaskId } from '@/features/screening/engine';
 
 export const MUNRO_HERRINGTON_CAROLAN_2012 =
@@ -184,12 +185,8 @@ export function compareFlags(earlier: ScreenForComparison, later: ScreenForCompa
   return out;
 }
 
-/** Whole days from one ISO date to another (dates only; time zones do not enter). */
-export function daysBetween(fromIso: string, toIso: string): number {
-  const a = Date.UTC(+fromIso.slice(0, 4), +fromIso.slice(5, 7) - 1, +fromIso.slice(8, 10));
-  const b = Date.UTC(+toIso.slice(0, 4), +toIso.slice(5, 7) - 1, +toIso.slice(8, 10));
-  return Math.round((b - a) / 86_400_000);
-}
+// Whole days between two ISO dates: one function for the app, kept with the other date helpers.
+export { daysBetween };
 
 /**
  * Whether the earlier screen's plan had been in place long enough to expect a change: at least the plan's

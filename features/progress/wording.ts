@@ -123,13 +123,15 @@ export function coachSummary(c: ScreenComparison): { headline: string; lines: st
     judged.length === 0
       ? 'No measurement with a published error was taken at both screens'
       : `${realChanges.length} of ${judged.length} ${judged.length === 1 ? 'measurement' : 'measurements'} with a published error changed by more than it`;
+  // "1 more has" after a count of judged ones; "1 has" when none could be judged.
+  const more = judged.length === 0 ? '' : ' more';
   const unjudgedPart =
     unjudged === 0
       ? ''
       : unjudged === 1
-        ? '; 1 more has no published figure and is not judged'
-        : `; ${unjudged} more have no published figure and are not judged`;
-  const headline = `${judgedPart}${judged.length === 0 ? unjudgedPart.replace(' more ', ' ') : unjudgedPart}.`;
+        ? `; 1${more} has no published figure and is not judged`
+        : `; ${unjudged}${more} have no published figure and are not judged`;
+  const headline = `${judgedPart}${unjudgedPart}.`;
   return { headline, lines, realChanges, withinError };
 }
 

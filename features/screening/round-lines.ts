@@ -1,3 +1,4 @@
+import { daysBetween } from '@/features/athletes/age';
 import { formatDate } from '@/features/ui/format-date';
 
 /**
@@ -16,7 +17,7 @@ export const STALE_ROUND_DAYS = 14;
  * round. Null for a recent round. Short, like the closed notice, so the head line stays the largest text.
  */
 export function staleRoundLine(screenedOn: string, today: string, locale?: string): string | null {
-  const days = Math.round((Date.parse(`${today}T00:00:00Z`) - Date.parse(`${screenedOn}T00:00:00Z`)) / 86_400_000);
+  const days = daysBetween(screenedOn, today);
   if (!(days > STALE_ROUND_DAYS)) return null;
   return `Dated ${formatDate(screenedOn, { locale })}, ${days} days ago: screens here keep that date. Open a new round for today.`;
 }
