@@ -14,6 +14,7 @@ import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
+import { scrollToId } from '@/features/ui/scroll-to';
 import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 
 const VIEW_WORD = { front: 'front', side: 'side' } as const;
@@ -66,7 +67,7 @@ function Desk({ roundId }: { roundId?: string }) {
     // Another photo after a save or a skip: back to its name and the saved notice, not left at the bottom
     // of the page where the buttons were (web; the first photo opens where the page starts).
     if (firstShown.current === undefined) firstShown.current = shownId;
-    else if (shownId && typeof document !== 'undefined') document.getElementById(CURRENT_ANCHOR)?.scrollIntoView({ block: 'start' });
+    else if (shownId) scrollToId(CURRENT_ANCHOR);
     // Only when another photo is shown: a refetch must not wipe points being placed.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [shownId]);

@@ -13,6 +13,7 @@ import { nextUnscreened } from '@/features/screening/round-order';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
+import { scrollToId } from '@/features/ui/scroll-to';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
@@ -145,10 +146,6 @@ function painLine(result: ResultView): string | null {
   return /^[^.]*\./.exec(caution.text)?.[0] ?? caution.text;
 }
 
-function scrollToCare() {
-  if (typeof document !== 'undefined') document.getElementById(CARE_ANCHOR)?.scrollIntoView({ behavior: 'smooth', block: 'start' });
-}
-
 function Header({
   detail,
   result,
@@ -191,7 +188,7 @@ function Header({
         </Notice>
       ) : null}
       {toCare && !isWide ? (
-        <Button tone="quiet" label="Go to review, clearance and notes ↓" onPress={scrollToCare} testID="to-care" style={styles.toCare} />
+        <Button tone="quiet" label="Go to review, clearance and notes ↓" onPress={() => scrollToId(CARE_ANCHOR, true)} testID="to-care" style={styles.toCare} />
       ) : null}
       <Notice>These results describe how the athlete moved on the day. They are not a diagnosis.</Notice>
     </View>
