@@ -1,4 +1,5 @@
 import { can } from '@/features/access/permissions';
+import { Confirm } from '@/features/ui/components/confirm';
 import { Formik } from 'formik';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -37,17 +38,15 @@ export function GuardiansPanel({ athlete }: { athlete: Athlete }) {
             <Button label="Unlink" tone="secondary" accessibilityLabel={`Unlink ${g.displayName}`} onPress={() => setConfirming(g.userId)} />
           ) : null}
           {confirming === g.userId ? (
-            <View style={styles.confirm}>
-              <Text variant="small">{`${g.displayName} will no longer see ${athlete.firstName} in their account.`}</Text>
-              <Button
-                label="Yes, unlink"
-                tone="danger"
-                testID="guardian-unlink-confirm"
-                busy={unlink.isPending && unlink.variables === g.userId}
-                onPress={() => unlink.mutate(g.userId, { onSettled: () => setConfirming(null) })}
-              />
-              <Button label="Keep" tone="quiet" onPress={() => setConfirming(null)} />
-            </View>
+            <Confirm
+              text={`${g.displayName} will no longer see ${athlete.firstName} in their account.`}
+              confirmLabel="Yes, unlink"
+              cancelLabel="Keep"
+              testID="guardian-unlink-confirm"
+              busy={unlink.isPending && unlink.variables === g.userId}
+              onConfirm={() => unlink.mutate(g.userId, { onSettled: () => setConfirming(null) })}
+              onCancel={() => setConfirming(null)}
+            />
           ) : null}
         </View>
       ))}
@@ -106,7 +105,6 @@ const styles = StyleSheet.create({
     borderBottomWidth: 1,
     borderBottomColor: colors.line,
   },
-  confirm: { flexBasis: '100%', gap: space.sm },
   who: { flex: 1, gap: 2, minWidth: 0 },
   form: { gap: space.md },
 });

@@ -1,4 +1,5 @@
 import { can } from '@/features/access/permissions';
+import { Confirm } from '@/features/ui/components/confirm';
 import { Formik } from 'formik';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -68,11 +69,15 @@ function SquadRow({ squad }: { squad: SquadSummary }) {
             />
           </View>
           {confirming ? (
-            <View style={styles.buttons}>
-              <Text variant="small">{`Archive ${squad.name}? It leaves the lists and the menus; its rounds and results are kept.`}</Text>
-              <Button label="Yes, archive it" tone="danger" testID="squad-archive-confirm" busy={archive.isPending} onPress={() => archive.mutate()} />
-              <Button label="Keep it" tone="quiet" onPress={() => setConfirming(false)} />
-            </View>
+            <Confirm
+              text={`Archive ${squad.name}? It leaves the lists and the menus; its rounds and results are kept.`}
+              confirmLabel="Yes, archive it"
+              cancelLabel="Keep it"
+              testID="squad-archive-confirm"
+              busy={archive.isPending}
+              onConfirm={() => archive.mutate()}
+              onCancel={() => setConfirming(false)}
+            />
           ) : null}
           {squad.athleteCount > 0 ? <Text variant="small">To archive it, move or archive its athletes first.</Text> : null}
           {archive.error ? <Notice tone="error">{archive.error.message}</Notice> : null}

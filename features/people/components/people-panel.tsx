@@ -1,4 +1,5 @@
 import { can } from '@/features/access/permissions';
+import { Confirm } from '@/features/ui/components/confirm';
 import { Formik } from 'formik';
 import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
@@ -96,10 +97,14 @@ function MemberRow({ member: m, manage, clubId }: { member: Member; manage: bool
           <Text>
             {`Remove ${m.displayName} from the club? They lose access at once${m.role === 'parent' ? ', and their links to the club’s children go too' : ''}. Their account stays; an admin can invite them again.`}
           </Text>
-          <View style={styles.rowActions}>
-            <Button tone="danger" label="Yes, remove" testID="member-remove-confirm" busy={remove.isPending} onPress={() => remove.mutate(m.userId)} />
-            <Button tone="quiet" label="Keep" onPress={() => setMode('idle')} />
-          </View>
+          <Confirm
+            confirmLabel="Yes, remove"
+            cancelLabel="Keep"
+            testID="member-remove-confirm"
+            busy={remove.isPending}
+            onConfirm={() => remove.mutate(m.userId)}
+            onCancel={() => setMode('idle')}
+          />
         </View>
       ) : null}
     </View>
@@ -120,10 +125,14 @@ function PendingRow({ invite: p, manage, clubId }: { invite: PendingInvite; mana
       {cancel.error ? <Notice tone="error">{messageOf(cancel.error)}</Notice> : null}
       {manage && !confirming ? <Button tone="quiet" label="Cancel the invitation" testID="invite-cancel" onPress={() => setConfirming(true)} /> : null}
       {confirming ? (
-        <View style={styles.rowActions}>
-          <Button tone="danger" label="Yes, cancel it" testID="invite-cancel-confirm" busy={cancel.isPending} onPress={() => cancel.mutate(p.id)} />
-          <Button tone="quiet" label="Keep it" onPress={() => setConfirming(false)} />
-        </View>
+        <Confirm
+          confirmLabel="Yes, cancel it"
+          cancelLabel="Keep it"
+          testID="invite-cancel-confirm"
+          busy={cancel.isPending}
+          onConfirm={() => cancel.mutate(p.id)}
+          onCancel={() => setConfirming(false)}
+        />
       ) : null}
     </View>
   );
