@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { evaluateAssessment, THRESHOLDS, type AssessmentInput, type AssessmentResult } from './engine';
 import { mulberry32, randomAssessment } from './engine/random-assessment';
-import { groupFlags } from './flag-groups';
+import { groupFlags, thresholdWhereText } from './flag-groups';
 import { basisText, thresholdText, valueText } from './labels';
 import type { RoundAthlete } from './contract';
 import { nextUnscreened } from './round-order';
@@ -54,6 +54,15 @@ describe('flags grouped by pattern and side', () => {
         expect(g.thresholdWhere[t.rowId]!.sort()).toEqual([...new Set(expected)].sort());
       }
     }
+  });
+
+  it("names the tasks only where some of the card's tasks met the threshold (our choice)", () => {
+    expect(thresholdWhereText(['Single-leg squat, left'], 1)).toBeNull();
+    expect(thresholdWhereText(['Drop landing', 'Single-leg squat, left'], 2)).toBe('Met in both tasks');
+    expect(thresholdWhereText(['A', 'B', 'C'], 3)).toBe('Met in all 3 tasks');
+    expect(thresholdWhereText(['Drop landing'], 3)).toBe('Met in: Drop landing');
+    expect(thresholdWhereText(['Drop landing', 'Tuck jump'], 3)).toBe('Met in: Drop landing; Tuck jump');
+    expect(thresholdWhereText([], 3)).toBeNull();
   });
 });
 

@@ -65,3 +65,14 @@ export function groupFlags(flags: readonly Flag[]): FlagGroup[] {
   }
   return out.sort((a, b) => SEVERITY_RANK[b.severity] - SEVERITY_RANK[a.severity]);
 }
+
+/**
+ * The "Met in" line of one threshold on a card of several tasks: the tasks by name where only some
+ * met it, "Met in both tasks" / "Met in all 3 tasks" where every task on the card did (our choice:
+ * the list would repeat the card's tasks word for word). Null on a card of one task.
+ */
+export function thresholdWhereText(where: readonly string[], taskCount: number): string | null {
+  if (taskCount < 2 || where.length === 0) return null;
+  if (where.length >= taskCount) return taskCount === 2 ? 'Met in both tasks' : `Met in all ${taskCount} tasks`;
+  return `Met in: ${where.join('; ')}`;
+}

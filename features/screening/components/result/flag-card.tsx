@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { ThresholdRef } from '@/features/screening/engine';
 import { citationsIn, shortSource } from '@/features/screening/engine/sources';
-import type { FlagGroup } from '@/features/screening/flag-groups';
+import { thresholdWhereText, type FlagGroup } from '@/features/screening/flag-groups';
 import { basisText, sideLabel, thresholdText, valueText } from '@/features/screening/labels';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
@@ -41,7 +41,7 @@ export function FlagCard({ group }: { group: FlagGroup }) {
         <ThresholdLine
           key={t.rowId}
           threshold={t}
-          where={group.tasks.length > 1 ? (group.thresholdWhere[t.rowId] ?? []) : []}
+          where={thresholdWhereText(group.thresholdWhere[t.rowId] ?? [], new Set(group.tasks.map((x) => x.where)).size)}
           showPopulation={!group.thresholds.slice(0, i).some((x) => x.populationNote === t.populationNote)}
         />
       ))}
@@ -71,16 +71,16 @@ export function FlagCard({ group }: { group: FlagGroup }) {
   );
 }
 
-/** One threshold met; on a card of several tasks, the tasks it was met in. */
-function ThresholdLine({ threshold: t, where, showPopulation }: { threshold: ThresholdRef; where: string[]; showPopulation: boolean }) {
+/** One threshold met; on a card of several tasks, where it was met (`thresholdWhereText`). */
+function ThresholdLine({ threshold: t, where, showPopulation }: { threshold: ThresholdRef; where: string | null; showPopulation: boolean }) {
   return (
     <View style={styles.threshold} testID="flag-threshold">
       <Text variant="small" style={styles.thresholdMain}>
         {thresholdText(t)} ({t.severity} level){citationsIn(t.source).length > 0 ? ` · ${shortSource(t.source)}` : ''}
       </Text>
-      {where.length ? (
+      {where ? (
         <Text variant="small" testID="flag-threshold-where">
-          Met in: {where.join('; ')}
+          {where}
         </Text>
       ) : null}
       <Text variant="small" testID="flag-basis">
