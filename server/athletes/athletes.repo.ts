@@ -178,6 +178,15 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
         .where(inScope(eq(guardianLinks.athleteId, athleteId)))
         .orderBy(asc(users.displayName));
     },
+    /** Every parent link of the club's children, as `athleteId:userId`. */
+    async guardianLinkKeys(): Promise<Set<string>> {
+      const rows = await db
+        .select({ athleteId: guardianLinks.athleteId, userId: guardianLinks.userId })
+        .from(guardianLinks)
+        .innerJoin(athletes, eq(athletes.id, guardianLinks.athleteId))
+        .where(inScope());
+      return new Set(rows.map((r) => `${r.athleteId}:${r.userId}`));
+    },
     /** Members of this club by e-mail (lower-cased), with their role. */
     async membersByEmail(emails: string[]): Promise<Map<string, { userId: string; role: Role; displayName: string }>> {
       if (emails.length === 0) return new Map();

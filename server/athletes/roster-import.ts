@@ -84,8 +84,16 @@ type CheckedRow = ReportRow & { row?: RosterRow; squadId?: string; guardianUserI
 
 const yesNo = (v: boolean | null | undefined) => (v === true ? 'yes' : v === false ? 'no' : 'not recorded');
 
-/** What importing `row` over `current` changes, in the words of the report. */
-function changesOf(current: AthleteView, row: RosterRow, squadName: string, guardianEmail: string | undefined, guardianName?: string): string[] {
+/**
+ * What importing `row` over `current` changes, in the words of the report; a parent account the line
+ * names that is linked to the child already is no change.
+ */
+function changesOf(
+  current: AthleteView,
+  row: RosterRow,
+  squadName: string,
+  guardian: { email: string; name: string | undefined; alreadyLinked: boolean } | undefined,
+): string[] {
   const out: string[] = [];
   if (current.squadName?.toLowerCase() !== squadName.toLowerCase()) out.push(`squad: ${current.squadName ?? 'none'} → ${squadName}`);
   if (current.sex !== row.sex) out.push(`sex: ${current.sex} → ${row.sex}`);
@@ -97,7 +105,7 @@ function changesOf(current: AthleteView, row: RosterRow, squadName: string, guar
   if (current.consents.emailSummaries?.granted !== row.email_summaries_consent) {
     out.push(`e-mail summaries consent: ${yesNo(current.consents.emailSummaries?.granted)} → ${yesNo(row.email_summaries_consent)}`);
   }
-  if (guardianEmail) out.push(parentLinked(guardianEmail, guardianName));
+  if (guardian && !guardian.alreadyLinked) out.push(parentLinked(guardian.email, guardian.name));
   return out;
 }
 
@@ -119,6 +127,7 @@ async function checkRows(repo: AthletesRepo, raw: RawRow[]): Promise<CheckedRow[
   const known = new Map((await repo.list({ includeArchived: true })).map((a) => [identityKey(a.firstName, a.lastName, a.dateOfBirth), a]));
   const emails = raw.map((r) => r.values.guardian_email?.trim().toLowerCase()).filter((e): e is string => !!e);
   const members = await repo.membersByEmail([...new Set(emails)]);
+  const links = await repo.guardianLinkKeys();
   const seen = new Map<string, number>();
 
   const checked: CheckedRow[] = [];
@@ -172,7 +181,14 @@ async function checkRows(repo: AthletesRepo, raw: RawRow[]): Promise<CheckedRow[
             guardianName: member?.displayName,
             existing,
             action: existing ? ('update' as const) : ('create' as const),
-            changes: existing ? changesOf(existing, row!, squadName!, email, member?.displayName) : recordedFor(row!, email, member?.displayName),
+            changes: existing
+              ? changesOf(
+                  existing,
+                  row!,
+                  squadName!,
+                  email && member ? { email, name: member.displayName, alreadyLinked: links.has(`${existing.id}:${member.userId}`) } : undefined,
+                )
+              : recordedFor(row!, email, member?.displayName),
           }
         : {}),
     });

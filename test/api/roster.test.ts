@@ -567,6 +567,14 @@ describe('CSV roster import', () => {
     expect(res.body.rows[3].changes).toEqual([]);
     // The duplicate line keeps the whole file out.
     expect((await upload(as.coach, csv, true)).status).toBe(400);
+
+    // A parent account the line names is a change only where it is not linked to the child yet: Kit's
+    // own parent (linked by the fixture) is none, a second parent is listed by name.
+    const kit = { first_name: 'Kit', last_name: 'Parentson', date_of_birth: '2013-05-14' };
+    const ownParent = await upload(as.coach, makeRosterCsv([{ ...kit, guardian_email: 'parent@riverside.test' }]));
+    expect(ownParent.body.rows[0]).toMatchObject({ action: 'update', changes: [] });
+    const secondParent = await upload(as.coach, makeRosterCsv([{ ...kit, guardian_email: 'second.parent@riverside.test' }]));
+    expect(secondParent.body.rows[0]).toMatchObject({ action: 'update', changes: ['parent account linked: Sol Parent (second.parent@riverside.test)'] });
   });
 
   it('updates athletes already in the club on commit: their record, a new consent decision, nothing duplicated', async () => {
