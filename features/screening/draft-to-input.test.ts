@@ -67,6 +67,19 @@ describe('draftToInput', () => {
     expect(hasTaskData({ body: { statureCm: 150 }, tasks: {} })).toBe(false);
   });
 
+  it('sends a skipped task with pain reported, so that the plan asks for clearance (our choice: pain wins over a skip)', () => {
+    const draft: AssessmentDraft = {
+      body: {},
+      tasks: { 'drop-landing': { criteria: [], skipped: true, skipReason: 'sore knee', painReported: true } },
+    };
+    const input = draftToInput({ athlete, draft, screenedOn: '2026-09-14' });
+    expect(input.tasks).toEqual({ 'drop-landing': { criteria: [], painReported: true } });
+    expect(hasTaskData(draft)).toBe(true);
+    // The engine holds the loaded work and asks for clearance from that pain.
+    const result = evaluateAssessment({ ...input, oneRepMaxKg: 30 });
+    expect(result.plan.status).toBe('clearance-needed');
+  });
+
   it('drops empty landmark sets and a null distance', () => {
     const draft: AssessmentDraft = {
       body: {},

@@ -38,6 +38,8 @@ function taskInput(task: TaskDraft): TaskResultInput {
 /**
  * Every task present in the draft and not marked skipped is sent, even with no criterion ticked: an
  * empty list means "done, nothing seen". Notes, the skip reason and the tester's step stay in the draft.
+ * A task with pain reported is sent even if marked skipped (a draft saved before the capture screen
+ * took the skip back): pain must reach the plan, which then asks for clearance.
  */
 export function draftToInput({ athlete, draft, screenedOn }: DraftToInputArgs): AssessmentInput {
   const a: AthleteInput = { sex: athlete.sex, ageYears: athlete.ageYears };
@@ -49,7 +51,7 @@ export function draftToInput({ athlete, draft, screenedOn }: DraftToInputArgs): 
 
   const tasks: Partial<Record<TaskId, TaskResultInput>> = {};
   for (const [id, task] of Object.entries(draft.tasks ?? {}) as [TaskId, TaskDraft | undefined][]) {
-    if (!task || task.skipped) continue;
+    if (!task || !isSent(task)) continue;
     tasks[id] = taskInput(task);
   }
 
@@ -70,5 +72,7 @@ export function draftToInput({ athlete, draft, screenedOn }: DraftToInputArgs): 
 
 /** Whether the draft holds at least one task that would be sent to the engine. */
 export function hasTaskData(draft: AssessmentDraft): boolean {
-  return Object.values(draft.tasks ?? {}).some((t) => t !== undefined && !t.skipped);
+  return Object.values(draft.tasks ?? {}).some((t) => t !== undefined && isSent(t));
 }
+
+const isSent = (task: TaskDraft) => !task.skipped || task.painReported === true;

@@ -174,6 +174,12 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   await next(page, 'Task 9 of 9');
   await page.getByTestId('task-skip').click();
   await page.getByTestId('task-skip-reason').fill('Ran out of time on court 3.');
+  // Pain ticked on a skipped task takes the skip back (pain must reach the plan); the reason is kept.
+  await page.getByTestId('task-pain').click();
+  await expect(page.getByTestId('task-skip-reason')).toHaveCount(0);
+  await page.getByTestId('task-pain').click();
+  await page.getByTestId('task-skip').click();
+  await expect(page.getByTestId('task-skip-reason')).toHaveValue('Ran out of time on court 3.');
   await next(page, 'All 9 tasks');
   await expect(page.getByTestId('review-racket-side-lunge')).toContainText('Skipped: Ran out of time on court 3.');
 

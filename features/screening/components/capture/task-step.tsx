@@ -83,17 +83,16 @@ export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, on
           ))}
         </View>
       </Notice>
-      {/* Right under the safety words that ask for it, where no scrolling is needed to reach it. */}
-      {!skipped ? (
-        <TickBox
-          tone="caution"
-          label="Pain reported during this task"
-          hint="Stop the task. The plan will then ask for clearance by a physiotherapist or doctor before it starts."
-          checked={t.painReported === true}
-          onChange={(on) => onChange((d) => ({ ...d, painReported: on }))}
-          testID="task-pain"
-        />
-      ) : null}
+      {/* Right under the safety words that ask for it, where no scrolling is needed to reach it. Shown on a
+          skipped task too: pain ticked there takes the task back from "skipped", as pain always wins. */}
+      <TickBox
+        tone="caution"
+        label="Pain reported during this task"
+        hint="Stop the task. The plan will then ask for clearance by a physiotherapist or doctor before it starts."
+        checked={t.painReported === true}
+        onChange={(on) => onChange((d) => ({ ...d, painReported: on, ...(on ? { skipped: false } : {}) }))}
+        testID="task-pain"
+      />
       <View style={styles.look}>
         <Text variant="label">What to look at</Text>
         <Text>{task.lookFor}</Text>
@@ -151,6 +150,7 @@ export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, on
           {skipped ? (
             <TextField
               label="Why was it skipped?"
+              hint="If it hurt, tick “Pain reported” above instead: the plan then asks for clearance."
               testID="task-skip-reason"
               value={t.skipReason ?? ''}
               onChangeText={(text) => onChange((d) => ({ ...d, skipReason: text.slice(0, 500) }))}
