@@ -187,5 +187,24 @@ test('an admin invites someone and the e-mail arrives in the local mailbox', asy
   await p2.getByLabel('Choose a password').fill('a-very-long-password');
   await p2.getByRole('button', { name: 'Join the club' }).click();
   await expect(p2.getByTestId('home-tester')).toBeVisible();
+
+  // Signed in on a second device too; changing the password from "Your account" ends that session
+  // and keeps this one.
+  const laptop = await page.context().browser()!.newContext();
+  expect((await laptop.request.post(new URL('/api/auth/sign-in', link).href, { data: { email, password: 'a-very-long-password' } })).status()).toBe(200);
+  await openNav(p2);
+  await p2.getByTestId('account-link').click();
+  await expect(p2.getByTestId('account-details')).toContainText(email);
+  await expect(p2.getByTestId('account-details')).toContainText('Tester at');
+  await p2.getByTestId('current-password').fill('not-the-password');
+  await p2.getByTestId('new-password').fill('another-long-password');
+  await p2.getByTestId('change-password').click();
+  await expect(p2.getByText('This is not your current password.')).toBeVisible();
+  await p2.getByTestId('current-password').fill('a-very-long-password');
+  await p2.getByTestId('change-password').click();
+  await expect(p2.getByTestId('password-changed')).toBeVisible();
+  expect((await laptop.request.get(new URL('/api/me', link).href)).status()).toBe(401);
+  expect((await p2.request.get('/api/me')).status()).toBe(200);
+  await laptop.close();
   await invitee.close();
 });

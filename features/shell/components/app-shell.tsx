@@ -28,7 +28,7 @@ export function AppShell({ children }: { children: ReactNode }) {
       {!isWide && menuOpen ? (
         <View style={styles.sheet} role="navigation">
           <NavList onNavigate={() => setMenuOpen(false)} />
-          <AccountBox />
+          <AccountBox onNavigate={() => setMenuOpen(false)} />
         </View>
       ) : null}
       {/* Hidden, not unmounted, under the menu: unmounting the screens resets the router to the home
@@ -48,7 +48,7 @@ function SideBar({ syncs }: { syncs: boolean }) {
       {syncs ? <SyncStatusPill /> : null}
       <NavList onNavigate={() => undefined} />
       <View style={styles.grow} />
-      <AccountBox />
+      <AccountBox onNavigate={() => undefined} />
     </View>
   );
 }
@@ -90,7 +90,7 @@ function NavList({ onNavigate }: { onNavigate: () => void }) {
   );
 }
 
-function AccountBox() {
+function AccountBox({ onNavigate }: { onNavigate: () => void }) {
   const { me, membership, choose } = useActiveClub();
   const signOut = useSignOutMutation();
   const router = useRouter();
@@ -102,6 +102,9 @@ function AccountBox() {
       <Text variant="small">
         {ROLE_LABELS[membership.role]} · {membership.clubName}
       </Text>
+      <Link href="/account" onPress={onNavigate} style={styles.accountLink} testID="account-link">
+        <Text style={styles.accountLinkText}>Your account and password</Text>
+      </Link>
       {me.memberships.length > 1
         ? me.memberships
             .filter((m) => m.clubId !== membership.clubId)
@@ -124,5 +127,7 @@ const styles = StyleSheet.create({
   navActive: { backgroundColor: colors.pineSoft },
   navLabel: { fontFamily: fonts.bold, fontSize: 18, color: colors.ink },
   navLabelActive: { color: colors.pineDark },
+  accountLink: { minHeight: TOUCH_MIN, justifyContent: 'center', paddingVertical: space.sm },
+  accountLinkText: { color: colors.pineDark, textDecorationLine: 'underline' },
   account: { gap: space.sm, borderTopWidth: 1, borderTopColor: colors.line, paddingTop: space.lg },
 });
