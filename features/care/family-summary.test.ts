@@ -101,6 +101,29 @@ describe('buildFamilySummary', () => {
     expect(summary.onHold).toBe(`${withheld.join(', ')}: on hold until a physiotherapist clears Kit for loaded strength and landing work.`);
   });
 
+  it('says loaded strength and landing work is for club sessions with a coach, and only then adds the caution (our choice)', () => {
+    // The same girl with no pain: her plan keeps its loaded and landing work.
+    const noPain = { ...input, tasks: { 'two-leg-squat': { ...input.tasks['two-leg-squat']!, painReported: false } } };
+    const r = evaluateAssessment(noPain);
+    const s = buildFamilySummary({
+      firstName: 'Kit',
+      clubName: 'Riverside',
+      screenedOn: '2026-09-14',
+      result: r,
+      exercises: r.plan.exercises,
+      taskIds: Object.keys(noPain.tasks),
+      block: strengthBlock(r.plan, null, '2026-09-14T17:00:00.000Z'),
+      contactName: null,
+    });
+    const loaded = r.plan.exercises.filter((e) => e.phase === 'strength' || e.prescription.load.kind === 'percent-1rm' || e.isJump).map((e) => e.name);
+    expect(loaded.length).toBeGreaterThan(0);
+    expect(s.exercises.filter((e) => e.clubOnly).map((e) => e.name)).toEqual(loaded);
+    expect(s.cautions).toContain('Exercises with weights or landings are done at the club with a qualified coach watching, never alone at home.');
+    // With that work on hold, nothing listed is club-only and the caution is not said.
+    expect(summary.exercises.some((e) => e.clubOnly)).toBe(false);
+    expect(summary.cautions.some((c) => /weights or landings/.test(c))).toBe(false);
+  });
+
   it('carries the re-check date, a contact and the usual cautions', () => {
     expect(summary.recheckDate).toBe(result.plan.rescreenDate);
     expect(summary.contact).toBe('Questions? Speak to Phil Physio or the coaches at Riverside.');
@@ -117,7 +140,10 @@ describe("clearanceWords (our wording: who decided and when, never the team's fr
   it.each([
     ['cleared', 'Pat Lee (physiotherapist) cleared Ana to train as normal on 2 October 2026.'],
     ['modified', 'Pat Lee (physiotherapist) cleared Ana to train with some changes on 2 October 2026; the coaches will explain them.'],
-    ['referred', 'Pat Lee (physiotherapist) asked on 2 October 2026 for Ana to be seen by another health professional; loaded strength work waits until then.'],
+    [
+      'referred',
+      'Pat Lee (physiotherapist) asked on 2 October 2026 for Ana to be seen by another health professional; loaded strength and landing work wait until then.',
+    ],
   ] as const)('%s', (status, words) => {
     expect(clearanceWords({ status, detail: 'Knee clinic, Dr X', setByName: 'Pat Lee', setAt }, 'Ana')).toBe(words);
   });

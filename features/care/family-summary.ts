@@ -4,7 +4,7 @@ import { getTask, TASK_IDS, type AssessmentResult, type FlagSide, type PatternId
 import { doseText, perWeekText, setsText } from '@/features/screening/labels';
 import { formatDateInWords } from '@/features/ui/format-date';
 import type { ClearanceView, FamilySummary } from './types';
-import { splitByBlock, type StrengthBlock } from './strength-block';
+import { isHeldUntilCleared, splitByBlock, type StrengthBlock } from './strength-block';
 import { capitalise } from '@/features/ui/capitalise';
 
 /** What a parent reads for each pattern (our wording). */
@@ -21,9 +21,10 @@ export const PATTERN_FAMILY_WORDS: Record<PatternId, string> = {
 
 const SIDE_WORDS: Record<Exclude<FlagSide, null>, string> = { left: ' (left side)', right: ' (right side)', both: ' (both sides)' };
 
-export const FAMILY_CAUTIONS = (name: string) => [
+export const FAMILY_CAUTIONS = (name: string, clubOnly = false) => [
   `This summary describes how ${name} moved on the day of the screen. It is not a diagnosis.`,
   `If ${name} has pain, swelling, or a change in how they move, stop the exercises and see a physiotherapist or doctor.`,
+  ...(clubOnly ? [`Exercises with weights or landings are done at the club with a qualified coach watching, never alone at home.`] : []),
   'Follow the advice of your own health professionals over this plan, and the rules of your sport and country.',
 ];
 
@@ -86,6 +87,7 @@ export function buildFamilySummary(input: {
       cue: e.cue,
       howMuch: `${setsText(e.prescription.sets)} of ${doseText(e.prescription.dose)}`,
       howOften: perWeekText(e.prescription.perWeek),
+      ...(isHeldUntilCleared(e) ? { clubOnly: true } : {}),
     }));
   const maxPerWeek = Math.max(0, ...now.map((e) => e.prescription.perWeek));
   // What waits for a clearance, by name: what the hold sets apart here, and what the engine already left
@@ -115,7 +117,10 @@ export function buildFamilySummary(input: {
     contact: input.contactName
       ? `Questions? Speak to ${input.contactName} or the coaches at ${input.clubName}.`
       : `Questions? Speak to the coaches at ${input.clubName}.`,
-    cautions: FAMILY_CAUTIONS(firstName),
+    cautions: FAMILY_CAUTIONS(
+      firstName,
+      exercises.some((e) => e.clubOnly),
+    ),
   };
 }
 
@@ -134,6 +139,6 @@ export function clearanceWords(clearance: ClearanceView, firstName: string): str
     case 'modified':
       return `${who} cleared ${firstName} to train with some changes on ${day}; the coaches will explain them.`;
     case 'referred':
-      return `${who} asked on ${day} for ${firstName} to be seen by another health professional; loaded strength work waits until then.`;
+      return `${who} asked on ${day} for ${firstName} to be seen by another health professional; loaded strength and landing work wait until then.`;
   }
 }

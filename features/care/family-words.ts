@@ -23,3 +23,6 @@ export function sessionsSinceWords(firstName: string, screenedOn: string, sessio
     ? `Since the check of ${since}, the squad held 1 exercise session; ${firstName} ${attended ? 'took part' : 'was not there'}.`
     : `Since the check of ${since}, ${firstName} took part in ${attended} of the ${held} exercise sessions the squad held.`;
 }
+
+/** Said beside each loaded strength or landing exercise (our choice: the usual rule of supervised youth strength work). */
+export const CLUB_ONLY_WORDS = 'At club sessions only, with a coach watching: not at home.';

@@ -57,6 +57,8 @@ export type FamilyExercise = {
   cue: string;
   howMuch: string;
   howOften: string;
+  /** Loaded strength or landing work: at club sessions with a coach, never alone at home (absent on summaries released before). */
+  clubOnly?: boolean;
 };
 
 /** The plain-words family summary of one screen. No angles, no diagnosis words. */

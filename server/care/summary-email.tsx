@@ -1,4 +1,5 @@
 import { Body, Container, Head, Heading, Hr, Html, Link, Preview, render, Section, Text } from '@react-email/components';
+import { CLUB_ONLY_WORDS } from '@/features/care/family-words';
 import type { FamilySummary } from '@/features/care/types';
 import { formatDateInWords } from '@/features/ui/format-date';
 
@@ -50,7 +51,7 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName }
           <Section>
             <Heading as="h2" style={styles.h2}>{`What ${name} will work on`}</Heading>
             {summary.exercises.map((e) => (
-              <Text key={e.name} style={styles.text}>{`• ${e.name}: ${e.howMuch}, ${e.howOften}. ${e.purpose}`}</Text>
+              <Text key={e.name} style={styles.text}>{`• ${e.name}: ${e.howMuch}, ${e.howOften}.${e.clubOnly ? ` ${CLUB_ONLY_WORDS}` : ''} ${e.purpose}`}</Text>
             ))}
             {summary.onHold ? <Text style={styles.text}>{summary.onHold}</Text> : null}
             {summary.clearance ? <Text style={styles.text}>{summary.clearance}</Text> : null}

@@ -3,12 +3,12 @@ import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
-import { colors, radius, space } from '@/features/ui/theme';
+import { colors, fonts, radius, space } from '@/features/ui/theme';
 import { useFamilyViewQuery } from '../api/get-family-view';
 import type { FamilyComparison, FamilySummary, FamilyView as FamilyViewData, SummaryRelease } from '../types';
 import { formatDate } from '@/features/ui/format-date';
 import { todayIso } from '@/features/athletes/age';
-import { recheckWords, sessionsSinceWords } from '../family-words';
+import { CLUB_ONLY_WORDS, recheckWords, sessionsSinceWords } from '../family-words';
 
 /** A parent's page for one child: the latest released summary in plain words, the plan with how-to, family notes, earlier summaries. */
 export function FamilyView({ athleteId }: { athleteId: string }) {
@@ -137,6 +137,11 @@ function Plan({ summary, sessions }: { summary: FamilySummary; sessions: FamilyV
           <Text variant="small">
             {e.howMuch} · {e.howOften}
           </Text>
+          {e.clubOnly ? (
+            <Text variant="small" style={styles.clubOnly} testID="family-club-only">
+              {CLUB_ONLY_WORDS}
+            </Text>
+          ) : null}
           <Text>{e.purpose}</Text>
           <View style={styles.list}>
             {e.howTo.map((step, i) => (
@@ -180,6 +185,7 @@ function Earlier({ releases }: { releases: SummaryRelease[] }) {
 }
 
 const styles = StyleSheet.create({
+  clubOnly: { fontFamily: fonts.bold, color: colors.amber },
   wrap: { gap: space.lg },
   columns: { flexDirection: 'row', alignItems: 'flex-start' },
   column: { flex: 1 },
