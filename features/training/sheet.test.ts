@@ -107,6 +107,32 @@ describe('buildSheet', () => {
     expect(referred.exercises.find((e) => e.id === 'counterbalance-box-squat')!.entries[0]!.held).toBe(true);
   });
 
+  it("says a physiotherapist's changes in their words beside the athlete and marks their exercises, holding nothing (our choice)", () => {
+    const exercises = [planned('counterbalance-box-squat', 1), planned('side-lying-hip-abduction', 2)];
+    const plan = { status: 'ready' as const, growthSpurtAdjusted: false, rescreenDate: null, exercises };
+    const sheet = buildSheet(
+      SQUAD,
+      [
+        member('fay', 'Ford', { plan, clearance: { status: 'modified', setAt: '2026-11-25T08:00:00.000Z', detail: ' No drop landings for three weeks. ' } }),
+        member('gil', 'Gray', { plan, clearance: { status: 'cleared', setAt: '2026-11-25T08:00:00.000Z', detail: 'Fine to train.' } }),
+        member('hal', 'Hart', { plan, clearance: { status: 'modified', setAt: '2026-11-25T08:00:00.000Z', detail: '' } }),
+      ],
+      TODAY,
+    );
+    expect(sheet.athletes.map((a) => [a.name, a.physioChanges, a.hold])).toEqual([
+      ['FAY Ford', 'No drop landings for three weeks.', null],
+      ['GIL Gray', null, null],
+      ['HAL Hart', 'Ask the physiotherapist what changes.', null],
+    ]);
+    for (const e of sheet.exercises) {
+      expect(e.entries.map((x) => [x.name, x.physioChanges, x.held])).toEqual([
+        ['FAY Ford', true, false],
+        ['GIL Gray', false, false],
+        ['HAL Hart', true, false],
+      ]);
+    }
+  });
+
   it('lists members without a screen or without exercises, and counts re-screens due on the day', () => {
     const sheet = buildSheet(
       SQUAD,

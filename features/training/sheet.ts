@@ -25,8 +25,8 @@ export type SheetMember = {
   plan: Pick<Plan, 'status' | 'exercises' | 'growthSpurtAdjusted' | 'rescreenDate'> | null;
   /** The newest adjustment of that result, if any. */
   adjusted: { exercises: PlannedExercise[]; at: string; byName: string | null } | null;
-  /** The clearance in force (the newest), if any. */
-  clearance: { status: ClearanceStatus; setAt: string } | null;
+  /** The clearance in force (the newest), if any, with the physiotherapist's words. */
+  clearance: { status: ClearanceStatus; setAt: string; detail?: string } | null;
 };
 
 /** One athlete's line under an exercise. */
@@ -38,6 +38,8 @@ export type SheetEntry = {
   adjustments: string[];
   /** Loaded strength work held back for this athlete (see the athlete's `hold`). */
   held: boolean;
+  /** The athlete trains with a physiotherapist's changes (see the athlete's `physioChanges`). */
+  physioChanges: boolean;
 };
 
 export type SheetExercise = {
@@ -65,6 +67,11 @@ export type SheetAthlete = {
   growthSpurt: boolean;
   /** Why loaded strength work is held back, in plain words; null when nothing is. */
   hold: string | null;
+  /**
+   * The physiotherapist's changes in force ("train with changes"), in their words: the plan's exercises
+   * stay listed, and the coach checks each against these before the session. Null otherwise.
+   */
+  physioChanges: string | null;
   exerciseCount: number;
   rescreenDate: string | null;
   rescreenDue: boolean;
@@ -104,6 +111,7 @@ export function buildSheet(squad: TrainingSheet['squad'], members: readonly Shee
         adjustedByName: null,
         growthSpurt: false,
         hold: null,
+        physioChanges: null,
         exerciseCount: 0,
         rescreenDate: null,
         rescreenDue: true,
@@ -115,6 +123,7 @@ export function buildSheet(squad: TrainingSheet['squad'], members: readonly Shee
     const { held } = splitByBlock(exercises, block);
     const heldIds = new Set(held.map((e) => e.id));
     const rescreen = rescreenOf(m.screenedOn, m.plan.rescreenDate, today);
+    const physioChanges = m.clearance?.status === 'modified' ? m.clearance.detail?.trim() || 'Ask the physiotherapist what changes.' : null;
     athletes.push({
       id: m.id,
       name,
@@ -126,6 +135,7 @@ export function buildSheet(squad: TrainingSheet['squad'], members: readonly Shee
       adjustedByName: m.adjusted?.byName ?? null,
       growthSpurt: m.plan.growthSpurtAdjusted,
       hold: block.blocked ? block.words : null,
+      physioChanges,
       exerciseCount: exercises.length,
       rescreenDate: rescreen.date,
       rescreenDue: rescreen.due,
@@ -136,7 +146,14 @@ export function buildSheet(squad: TrainingSheet['squad'], members: readonly Shee
         group = { id: e.id, name: e.name, phase: e.phase, cue: e.cue, isJump: e.isJump, entries: [] };
         byExercise.set(e.id, group);
       }
-      group.entries.push({ athleteId: m.id, name, prescription: e.prescription, adjustments: e.adjustments, held: heldIds.has(e.id) });
+      group.entries.push({
+        athleteId: m.id,
+        name,
+        prescription: e.prescription,
+        adjustments: e.adjustments,
+        held: heldIds.has(e.id),
+        physioChanges: physioChanges !== null,
+      });
     }
   }
 

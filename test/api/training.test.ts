@@ -81,9 +81,9 @@ async function planOf(assessmentId: string): Promise<{ version: number; adjusted
 
 /** Each exercise's entry for one athlete, from the sheet: exercise id → [sets, held]. */
 function linesOf(s: TrainingSheet, athleteId: string) {
-  const out: Record<string, { sets: unknown; held: boolean }> = {};
+  const out: Record<string, { sets: unknown; held: boolean; physioChanges: boolean }> = {};
   for (const e of s.exercises) {
-    for (const x of e.entries) if (x.athleteId === athleteId) out[e.id] = { sets: x.prescription.sets, held: x.held };
+    for (const x of e.entries) if (x.athleteId === athleteId) out[e.id] = { sets: x.prescription.sets, held: x.held, physioChanges: x.physioChanges };
   }
   return out;
 }
@@ -112,7 +112,9 @@ describe('GET /api/squads/:id/training-sheet', () => {
 
     const after = await planOf(ids.anaScreen!);
     const s = await sheet(as.tester);
-    expect(linesOf(s, ids.ana!)).toEqual(Object.fromEntries(after.exercises.map((e) => [e.id, { sets: e.prescription.sets, held: false }])));
+    expect(linesOf(s, ids.ana!)).toEqual(
+      Object.fromEntries(after.exercises.map((e) => [e.id, { sets: e.prescription.sets, held: false, physioChanges: false }])),
+    );
     expect(Object.keys(linesOf(s, ids.ana!))).toEqual([first.id]);
     expect(s.athletes.find((a) => a.id === ids.ana)).toMatchObject({ source: 'adjusted', adjustedByName: 'Tess Tester', exerciseCount: 1 });
   });
@@ -141,6 +143,15 @@ describe('GET /api/squads/:id/training-sheet', () => {
     expect(deePlan.exercises.some((e) => !loaded.includes(e.id) && !landing.includes(e.id))).toBe(true);
     // No pain was reported at Dee's screen: the referral made no new result version.
     expect((await as.coach.get(`/api/assessments/${ids.deeScreen}`)).body.result.version).toBe(1);
+
+    // "Train with changes": nothing held, the physiotherapist's words beside Dee and her lines marked.
+    await as.physio.put(`/api/athletes/${ids.dee}/clearance`).send({ status: 'modified', detail: 'No drop landings for three weeks.' }).expect(200);
+    const changed = await sheet(as.coach);
+    const deeNow = changed.athletes.find((a) => a.id === ids.dee)!;
+    expect([deeNow.hold, deeNow.physioChanges]).toEqual([null, 'No drop landings for three weeks.']);
+    for (const line of Object.values(linesOf(changed, ids.dee!))) expect([line.held, line.physioChanges]).toEqual([false, true]);
+    expect(Object.values(linesOf(changed, ids.ben!)).every((line) => !line.physioChanges)).toBe(true);
+    await as.physio.put(`/api/athletes/${ids.dee}/clearance`).send({ status: 'referred', detail: 'Sports medicine clinic' }).expect(200);
   });
 
   it('groups every line once under its exercise, in session order', async () => {

@@ -85,6 +85,8 @@ function SheetBody({ data }: { data: TrainingSheet }) {
   const resultOf = useMemo(() => new Map(data.athletes.map((a) => [a.id, a])), [data.athletes]);
   const withPlan = data.athletes.filter((a) => a.state === 'plan').length;
   const held = data.athletes.filter((a) => a.hold);
+  const changed = data.athletes.filter((a) => a.physioChanges);
+  const growing = data.athletes.filter((a) => a.state === 'plan' && a.growthSpurt);
   const off = data.athletes.filter((a) => a.state !== 'plan');
   // Everyone whose re-screen date has come (the next round shows whether the plan worked), and those
   // never screened, said apart.
@@ -118,6 +120,11 @@ function SheetBody({ data }: { data: TrainingSheet }) {
       <Notice tone="caution" title="Before the session">
         Plans as they stand after each athlete’s newest screen. Warm up first; stop anything that hurts and tell a coach. Not a diagnosis.
       </Notice>
+      {growing.length ? (
+        <Text variant="small" testID="sheet-growth-spurt">
+          {`In the growth-spurt window, loads and landings already lowered: ${growing.map((a) => a.name).join(', ')}. Pain at the front of the knee, below the kneecap or at the heel: stop and refer.`}
+        </Text>
+      ) : null}
       {held.length ? (
         <Notice tone="caution" title={`Loaded and landing work on hold: ${held.length}`} testID="sheet-holds">
           {held.map((a) => (
@@ -125,6 +132,16 @@ function SheetBody({ data }: { data: TrainingSheet }) {
               <Text style={styles.strong}>{a.name}</Text>: {a.hold}
             </Text>
           ))}
+        </Notice>
+      ) : null}
+      {changed.length ? (
+        <Notice tone="caution" title={`Training with a physiotherapist's changes: ${changed.length}`} testID="sheet-physio-changes">
+          {changed.map((a) => (
+            <Text key={a.id}>
+              <Text style={styles.strong}>{a.name}</Text>: {a.physioChanges}
+            </Text>
+          ))}
+          <Text>Their exercises below are the plan&apos;s: check each against these changes before the session.</Text>
         </Notice>
       ) : null}
       <View {...PRINT_HIDE}>
@@ -179,6 +196,11 @@ function ExerciseCard({ exercise, resultOf }: { exercise: SheetExercise; resultO
             {g.entries.map((x) => (
               <View key={x.athleteId} accessibilityRole={'listitem' as never} testID={`sheet-entry-${exercise.id}-${x.athleteId}`}>
                 <AthleteName name={x.name} href={resultHref(resultOf.get(x.athleteId))} />
+                {x.physioChanges && !g.held ? (
+                  <Text variant="small" style={styles.adjustment}>
+                    Physio&apos;s changes: see above
+                  </Text>
+                ) : null}
               </View>
             ))}
           </View>
