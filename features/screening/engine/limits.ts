@@ -275,7 +275,7 @@ export function loadRuleText(spec: ExerciseSpec, prescription: Prescription): st
       step === null
         ? `one ${load.kg.incrementKg} kg step is more than 10% of ${load.kg.min} kg: add repetitions first, not load`
         : `about ${step} kg at a time`;
-    return `Add load only when every repetition of every set is clean, in steps of about ${steps} (${stepText}), never above ${load.kg.max} kg (${load.maxPercent}% of 1RM). Harder variation (${spec.progression.toLowerCase().replace(/\.$/, '')}): start again at ${load.kg.min} kg. Form breaks down: back to the easier variation. Steps of ${steps}: Faigenbaum et al. 2009 (from memory).`;
+    return `Add load only when every repetition of every set is clean, in steps of about ${steps} (${stepText}), never above ${load.kg.max} kg (${load.maxPercent}% of 1RM). Harder variation (${spec.progression.toLowerCase().replace(/\.$/, '')}): start again without added load and build back in the same steps, no heavier than ${load.kg.min} kg, since these loads are shares of the easier variation's 1RM (our choice). Form breaks down: back to the easier variation. Steps of ${steps}: Faigenbaum et al. 2009 (from memory).`;
   }
   return `Move to the harder variation only when every repetition of every set is clean, starting with the fewest sets and repetitions of the range; any added load starts light and grows in steps of about ${steps} (Faigenbaum et al. 2009, from memory). Form breaks down: back to the easier variation.`;
 }

@@ -141,7 +141,7 @@ function cautionsFor(flags: readonly Flag[], ctx: PlanContext, loading: LoadingC
   if (loading.stage === 'unknown') {
     out.push({
       id: 'growth-stage-unknown',
-      text: `Growth stage unknown: ${UNKNOWN_WORDS[loading.unknownReason ?? 'not-estimated']}. The plan applies the cautious limits of the growth-spurt window (at most ${STAGE_LIMITS.unknown.maxPercentOneRepMax}% of 1RM, at most ${YOUTH_VOLUME.maxSets} sets, no sets to fatigue, landing volume halved) until a growth estimate is made (our choice).`,
+      text: `Growth stage unknown: ${UNKNOWN_WORDS[loading.unknownReason ?? 'not-estimated']}. The plan applies the cautious limits of the growth-spurt window (at most ${STAGE_LIMITS.unknown.maxPercentOneRepMax}% of 1RM, at most ${YOUTH_VOLUME.maxSets} sets, no sets to fatigue, landing volume halved) until a growth estimate is made (our choice). Watch the knees: pain at the front of the knee, below the kneecap or at the heel is a reason to stop and refer.`,
       source: OUR_CHOICE,
     });
   } else if (loading.stage === 'pre') {
