@@ -7,8 +7,19 @@
 /** Above this many times the body mass, the 1RM is questioned (our choice). */
 export const ONE_REP_MAX_CHECK_RATIO = 1.5;
 
+/**
+ * Without a body mass to check against, a 1RM above this is questioned (our choice: 1.5 times 67 kg, a
+ * heavy 17-year-old; a slip of 300 for 30 would otherwise pass unseen).
+ */
+export const ONE_REP_MAX_CHECK_WITHOUT_MASS_KG = 100;
+
 export function oneRepMaxWarning(oneRepMaxKg: number | null | undefined, massKg: number | null | undefined): string | null {
-  if (oneRepMaxKg == null || massKg == null || massKg <= 0) return null;
+  if (oneRepMaxKg == null) return null;
+  if (massKg == null || massKg <= 0) {
+    return oneRepMaxKg > ONE_REP_MAX_CHECK_WITHOUT_MASS_KG
+      ? `A ${oneRepMaxKg} kg 1RM is more than most juniors lift, and no body mass is on record to check it against. Check that it is this athlete's split-squat 1RM, in kg, and enter the body mass, before any load is lifted: every loaded exercise is a share of it.`
+      : null;
+  }
   if (oneRepMaxKg <= ONE_REP_MAX_CHECK_RATIO * massKg) return null;
   return `A ${oneRepMaxKg} kg 1RM is more than ${ONE_REP_MAX_CHECK_RATIO} times the body mass (${massKg} kg). Check that it is this athlete's split-squat 1RM, in kg, before any load is lifted: every loaded exercise is a share of it.`;
 }
