@@ -11,6 +11,7 @@ import {
   type Prescription,
 } from '@/features/screening/engine';
 import { can } from '@/features/access/permissions';
+import { finalizeAdjustment, fromLibrary } from '@/features/screening/plan-edits';
 import type { Role } from '@/db/schema';
 import { badRequest, forbidden } from '@/server/http/errors';
 import { fieldErrors } from '@/server/http/validate';
@@ -31,8 +32,9 @@ const minMax = (min: number, max: number, what: string, integer = true) =>
     .test('ordered', `${what}: "from" must not be more than "to".`, (v) => !v || v.min <= v.max);
 
 // What the tester may change: which exercises, their order, and each one's dose and load. The
-// exercise's words (how-to, cues) always come from the library, so a stored plan cannot carry
-// text nobody wrote for it.
+// exercise's words (how-to, cues) always come from the library, and its tempo, the load's words and
+// the lines saying what changed from the engine's plan (`withServerWords`), so a stored plan cannot
+// carry text nobody wrote for it.
 const prescriptionSchema = object({
   sets: minMax(1, 10, 'Sets'),
   dose: mixed()
@@ -59,7 +61,10 @@ const prescriptionSchema = object({
         const kg = l.kg as Record<string, unknown> | null | undefined;
         const kgOk =
           kg === null ||
-          (typeof kg === 'object' && kg !== undefined && [kg.min, kg.max, kg.incrementKg].every((n) => typeof n === 'number' && n >= 0 && n <= 500));
+          (typeof kg === 'object' &&
+            kg !== undefined &&
+            [kg.min, kg.max, kg.incrementKg].every((n) => typeof n === 'number' && n >= 0 && n <= 500) &&
+            (kg.min as number) <= (kg.max as number));
         return pct(l.minPercent) && pct(l.maxPercent) && (l.minPercent as number) <= (l.maxPercent as number) && kgOk && typeof l.note === 'string';
       }
       return false;
@@ -135,4 +140,31 @@ export function enforceLimits(exercises: PlannedExercise[], input: PlanAdjustmen
     throw forbidden('Only a head coach or a physiotherapist may go past a youth or growth-spurt limit.');
   }
   return used;
+}
+
+/**
+ * The words of each exercise as the server writes them: tempo, the load's note, placement and shares of
+ * 1RM, and the lines saying what changed come from the engine's plan for this result (or, for an
+ * exercise added back, the library as the engine would plan it), never from the request; from the request
+ * only the numbers the editor changes (sets, dose, rest, sessions a week, the kg or the band). A load of
+ * another kind than the plan's is refused.
+ */
+export function withServerWords(exercises: PlannedExercise[], proposal: readonly PlannedExercise[], ctx: LoadingContext): PlannedExercise[] {
+  const fields: Record<string, string> = {};
+  const merged = exercises.map((e, i) => {
+    const spec = librarySpec(e.id)!;
+    const base = proposal.find((p) => p.id === e.id) ?? fromLibrary(spec, ctx, e.order);
+    const sent = e.prescription.load;
+    const was = base.prescription.load;
+    let load: Prescription['load'] = was;
+    if (sent.kind !== was.kind)
+      fields[`exercises[${i}].prescription.load`] =
+        `${spec.name}: the load stays ${was.kind === 'percent-1rm' ? 'a share of 1RM' : was.kind === 'band' ? 'a band' : 'body weight'}.`;
+    else if (sent.kind === 'percent-1rm' && was.kind === 'percent-1rm') load = { ...was, kg: sent.kg };
+    else if (sent.kind === 'band' && was.kind === 'band') load = { ...was, resistance: sent.resistance };
+    const prescription: Prescription = { ...e.prescription, tempo: base.prescription.tempo, load };
+    return { ...e, prescription, adjustments: base.adjustments, loadRule: loadRuleText(spec, prescription) };
+  });
+  if (Object.keys(fields).length > 0) throw badRequest('Some fields need attention.', fields);
+  return finalizeAdjustment(merged, [...proposal]);
 }

@@ -34,7 +34,7 @@ import { AppError, badRequest, conflict, notFound, staleVersion } from '@/server
 import type { PhotoStorage } from '@/server/storage/storage';
 import { validateDraft } from './draft-validation';
 import { processPhoto } from './photo-processing';
-import { enforceLimits, normaliseAdjustment } from './plan-adjustment';
+import { enforceLimits, normaliseAdjustment, withServerWords } from './plan-adjustment';
 import { screeningRepo, type Executor, type RoundRow, type ScreeningRepo } from './screening.repo';
 
 export type Evaluate = (input: AssessmentInput) => AssessmentResult;
@@ -392,7 +392,7 @@ export function screeningService(deps: ScreeningDeps) {
     },
 
     async adjustPlan(scope: ClubScope, id: string, input: PlanAdjustmentInput): Promise<ResultView> {
-      const exercises = normaliseAdjustment(input);
+      const sent = normaliseAdjustment(input);
       await db.transaction(async (tx) => {
         const repo = repoFor(scope, tx);
         // Locked so a re-submission cannot slip in between: the adjustment is for the result shown.
@@ -410,6 +410,7 @@ export function screeningService(deps: ScreeningDeps) {
         }
         // The limits the engine applied to this result, from what it stored (older results: rebuilt).
         const ctx = loadingContextOf(current.result, current.input.oneRepMaxKg, current.input.options?.loadIncrementKg);
+        const exercises = withServerWords(sent, current.result.plan.exercises, ctx);
         const overrides = enforceLimits(exercises, input, ctx, scope.role);
         await repo.addPlanAdjustment(current.id, exercises, input.note ?? '', overrides);
       });

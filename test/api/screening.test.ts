@@ -3,7 +3,16 @@ import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessmentResults, assessments, athletes } from '@/db/schema';
 import type { AssessmentDetail, AthleteAssessmentItem, ResultView, RoundDetail } from '@/features/screening/contract';
-import { EngineInputError, evaluateAssessment, EXERCISES, loadingContextOf, plannedFromLibrary, type AssessmentResult } from '@/features/screening/engine';
+import {
+  EngineInputError,
+  evaluateAssessment,
+  EXERCISES,
+  loadingContextOf,
+  plannedFromLibrary,
+  type AssessmentResult,
+  type Prescription,
+} from '@/features/screening/engine';
+import { setsText } from '@/features/screening/labels';
 import { makeAthlete, makeClub, makeSquad, makeTestApp, makeUser, signedInAgent } from '../fixtures/builders';
 import { memoryStorage, phonePhotoWithExif } from '../fixtures/photos';
 import { makeDraft, screeningAppWith, sessionCookie, valgusSquat } from '../fixtures/screening';
@@ -186,6 +195,52 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     expect(Object.keys(bad.body.error.fields)).toEqual(expect.arrayContaining(['exercises[0].id']));
     const none = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: [], basedOn: { resultVersion: 1, adjustedAt: view.adjustment!.createdAt } });
     expect(none.status).toBe(400);
+
+    // Tempo, the load's words and the "what changed" lines are the server's, whatever the request says;
+    // the change line is worked out from the engine's plan.
+    const basedOn = { resultVersion: 1, adjustedAt: view.adjustment!.createdAt };
+    const load = keep!.prescription.load;
+    const fewer = keep!.prescription.sets.max === 1 ? { min: 2, max: 2 } : { min: 1, max: 1 };
+    const forged = {
+      ...keep!,
+      prescription: {
+        ...keep!.prescription,
+        sets: fewer,
+        tempo: 'as fast as you can',
+        load: load.kind === 'bodyweight' ? { ...load, note: 'hold 30 kg dumbbells' } : load,
+      },
+      adjustments: ['Approved by the physiotherapist.'],
+    };
+    const words = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: [forged], basedOn });
+    expect(words.status, JSON.stringify(words.body)).toBe(200);
+    const stored = (words.body as ResultView).adjustment!.exercises[0]!;
+    expect(stored.prescription.tempo).toBe(keep!.prescription.tempo);
+    expect(stored.prescription.load).toEqual(keep!.prescription.load);
+    expect(stored.adjustments).toEqual([...keep!.adjustments, `Changed by the tester: ${setsText(fewer)} instead of ${setsText(keep!.prescription.sets)}.`]);
+  });
+
+  it('refuses a kg range whose "from" is above its "to", and a load of another kind than the plan\'s', async () => {
+    const round = await openRound('Kg order', '2026-09-21');
+    const id = assessmentOf(round, ids.mia);
+    await saveDraft(id, 0, makeDraft({ oneRepMaxKg: 40 }));
+    const result = (await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) })).body as ResultView;
+    const basedOn = { resultVersion: result.version, adjustedAt: null };
+    const loaded = result.result.plan.exercises.find((e) => e.prescription.load.kind === 'percent-1rm' && e.prescription.load.kg);
+    expect(loaded, 'the fixture plans a loaded exercise with a 1RM').toBeDefined();
+    const load = loaded!.prescription.load as Extract<Prescription['load'], { kind: 'percent-1rm' }>;
+    const reversed = {
+      ...loaded!,
+      prescription: { ...loaded!.prescription, load: { ...load, kg: { ...load.kg!, min: load.kg!.max + 10, max: load.kg!.min } } },
+    };
+    const res = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: [reversed], basedOn });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields)).toEqual(['exercises[0].prescription.load']);
+    const body = { ...loaded!, prescription: { ...loaded!.prescription, load: { kind: 'bodyweight' } } };
+    const other = await tester.put(`/api/assessments/${id}/plan`).send({ exercises: [body], basedOn });
+    expect(other.status).toBe(400);
+    expect(other.body.error.fields['exercises[0].prescription.load']).toMatch(/the load stays a share of 1RM/);
+    // Nothing was saved.
+    expect((await tester.get(`/api/assessments/${id}`)).body.result.adjustment).toBeNull();
   });
 
   it('enforces the youth limits on an adjusted plan: past a limit only a head coach or physiotherapist, with a reason, kept in the history', async () => {
