@@ -192,7 +192,8 @@ export function RoundScreen({ id }: { id: string }) {
                     {!a.photoConsent ? <PlainTag label="No photo consent" /> : null}
                     <AthleteClearanceBadge athleteId={a.athleteId} />
                   </View>
-                  {a.status === 'submitted' ? <AthleteFlags flags={a.flags} testID={`round-flags-${a.athleteId}`} /> : null}
+                  {/* A submit still on this phone has no result yet: no flag count (it read "No flags"). */}
+                  {a.status === 'submitted' && !a.waiting ? <AthleteFlags flags={a.flags} testID={`round-flags-${a.athleteId}`} /> : null}
                 </View>
                 <Text style={styles.chevron}>›</Text>
               </View>
