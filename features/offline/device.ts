@@ -43,6 +43,8 @@ export const outbox = new Outbox({
   storage: keep ? idbOutboxStorage : memoryOutboxStorage(),
   isOnline: () => connectivity.isOnline(),
   newKey: () => globalThis.crypto.randomUUID(),
+  // One tab sends at a time: every tab of the app shares the device's queue.
+  exclusive: globalThis.navigator?.locks ? (fn) => globalThis.navigator.locks.request('squadline-outbox', fn) : undefined,
   send: async (entry) => {
     const sender = senders.get(entry.kind);
     // Not loaded yet (the screens that register it load lazily): try again shortly.

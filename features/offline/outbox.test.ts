@@ -295,4 +295,49 @@ describe('Outbox', () => {
       expect(outbox.getState().entries.map((e) => `${e.kind}:${e.state}`)).toEqual(['draft:refused']);
     });
   });
+
+  it('two tabs on one queue send each entry once: one at a time, each turn reading the queue back (our choice)', async () => {
+    let online = false;
+    const storage = memoryStorage();
+    // A photo's blob leaves storage with its entry: a second send of it would be refused ("no longer on this phone").
+    const sentTimes = new Map<number, number>();
+    const send = async (e: OutboxEntry) => {
+      if (!storage.rows.has(e.seq)) throw fail(400, 'photo_missing');
+      sentTimes.set(e.seq, (sentTimes.get(e.seq) ?? 0) + 1);
+      await new Promise((r) => setTimeout(r, 10));
+    };
+    // The Web Locks stand-in: one holder at a time, the others queue.
+    let chain = Promise.resolve();
+    const exclusive = (fn: () => Promise<void>) => {
+      const turn = chain.then(fn);
+      chain = turn.catch(() => undefined);
+      return turn;
+    };
+    const tab = () => new Outbox({ storage, send, isOnline: () => online, newKey: () => crypto.randomUUID(), exclusive });
+    const a = tab();
+    a.setUser('u1');
+    await a.addDraft({ ...base, assessmentId: 'a1' });
+    await a.add({ ...base, kind: 'photo', assessmentId: 'a1' });
+    await a.add({ ...base, kind: 'submit', assessmentId: 'a1' });
+    // The second tab opened with the three waiting.
+    const b = tab();
+    b.setUser('u1');
+    await b.load();
+    expect(b.getState().entries).toHaveLength(3);
+    const waited = a.whenDone(3);
+    online = true;
+    a.kick();
+    b.kick();
+    await vi.runAllTimersAsync();
+    await waited;
+    expect([...sentTimes.entries()].sort()).toEqual([
+      [1, 1],
+      [2, 1],
+      [3, 1],
+    ]);
+    expect(storage.rows.size).toBe(0);
+    // Neither tab shows anything refused or waiting.
+    expect(a.getState().entries).toEqual([]);
+    expect(b.getState().entries).toEqual([]);
+  });
 });

@@ -79,6 +79,12 @@ export type OutboxDeps = {
   retryDelaysMs?: readonly number[];
   setTimer?: (fn: () => void, ms: number) => unknown;
   clearTimer?: (handle: unknown) => void;
+  /**
+   * Runs the sending one device-wide at a time (the browser's Web Locks across tabs). With it, each
+   * turn first reads the queue back from storage, so an entry another tab sent is not sent again (a
+   * photo sent by one tab read as "no longer on this phone" in the other).
+   */
+  exclusive?: (fn: () => Promise<void>) => Promise<void>;
 };
 
 export const RETRY_DELAYS_MS = [2_000, 4_000, 8_000, 15_000, 30_000, 60_000] as const;
@@ -107,6 +113,7 @@ export class Outbox {
   private sending: number | null = null;
   private lastError: OutboxError | null = null;
   private running = false;
+  private again = false;
   private timer: unknown = null;
   private attemptsInRow = 0;
   private loaded: Promise<void> | null = null;
@@ -263,46 +270,68 @@ export class Outbox {
   }
 
   private async run(): Promise<void> {
-    if (this.running) return;
+    // Asked again while running (an entry added as the last turn ended): one more turn after this one.
+    if (this.running) {
+      this.again = true;
+      return;
+    }
     this.running = true;
     try {
       await this.load();
-      while (this.user !== null && this.deps.isOnline()) {
-        const entry = this.next();
-        if (!entry) break;
-        this.sending = entry.seq;
-        this.lastError = null;
-        this.publish();
-        const current: OutboxEntry = { ...entry, attempts: entry.attempts + 1 };
-        await this.replace(current);
-        try {
-          await this.deps.send(current);
-          this.attemptsInRow = 0;
-          await this.deps.storage.remove(current.seq);
-          this.entries = this.entries.filter((e) => e.seq !== current.seq);
-          this.sending = null;
-          this.settle(current.seq);
-          this.emit({ type: 'sent', entry: current });
-          this.publish();
-        } catch (e) {
-          this.sending = null;
-          const error = toOutboxError(e);
-          // A 409 `request_in_progress`: the server is still running the first try of the same key.
-          if (isRetryable(error.status) || error.code === 'request_in_progress') {
-            this.lastError = error;
-            this.publish();
-            this.scheduleRetry();
-            return;
-          }
-          const refused: OutboxEntry = { ...current, state: 'refused', error };
-          await this.replace(refused);
-          this.settle(current.seq, error);
-          this.emit({ type: 'refused', entry: refused });
-          this.publish();
-        }
-      }
+      do {
+        this.again = false;
+        await (this.deps.exclusive ? this.deps.exclusive(() => this.drain()) : this.drain());
+      } while (this.again && this.timer === null);
     } finally {
       this.running = false;
+    }
+  }
+
+  /** Reads the queue back from storage: another tab may have sent (removed) or added entries. */
+  private async refresh(): Promise<void> {
+    const stored = (await this.deps.storage.all()).sort((a, b) => a.seq - b.seq);
+    const kept = new Set(stored.map((e) => e.seq));
+    // Gone from storage while waiting here: sent by another tab.
+    for (const e of this.entries) if (!kept.has(e.seq)) this.settle(e.seq);
+    this.entries = stored;
+    this.publish();
+  }
+
+  private async drain(): Promise<void> {
+    while (this.user !== null && this.deps.isOnline()) {
+      if (this.deps.exclusive) await this.refresh();
+      const entry = this.next();
+      if (!entry) break;
+      this.sending = entry.seq;
+      this.lastError = null;
+      this.publish();
+      const current: OutboxEntry = { ...entry, attempts: entry.attempts + 1 };
+      await this.replace(current);
+      try {
+        await this.deps.send(current);
+        this.attemptsInRow = 0;
+        await this.deps.storage.remove(current.seq);
+        this.entries = this.entries.filter((e) => e.seq !== current.seq);
+        this.sending = null;
+        this.settle(current.seq);
+        this.emit({ type: 'sent', entry: current });
+        this.publish();
+      } catch (e) {
+        this.sending = null;
+        const error = toOutboxError(e);
+        // A 409 `request_in_progress`: the server is still running the first try of the same key.
+        if (isRetryable(error.status) || error.code === 'request_in_progress') {
+          this.lastError = error;
+          this.publish();
+          this.scheduleRetry();
+          return;
+        }
+        const refused: OutboxEntry = { ...current, state: 'refused', error };
+        await this.replace(refused);
+        this.settle(current.seq, error);
+        this.emit({ type: 'refused', entry: refused });
+        this.publish();
+      }
     }
   }
 
