@@ -26,14 +26,20 @@ describe('an open round dated well before today says so (our choice: after 14 da
       'Dated Sep 14, 2026, 82 days ago: screens here keep that date. Open a new round for today.',
     );
   });
-  it('is quiet for a round of the last two weeks, today or a date ahead', () => {
+  it('is quiet for a round of the last two weeks, today or tomorrow', () => {
     expect(staleRoundLine('2026-11-21', '2026-12-05')).toBeNull(); // 14 days
     expect(staleRoundLine('2026-12-05', '2026-12-05')).toBeNull();
-    expect(staleRoundLine('2026-12-20', '2026-12-05')).toBeNull();
+    expect(staleRoundLine('2026-12-06', '2026-12-05')).toBeNull(); // a day of slack for time zones, as the server
     expect(staleRoundLine('2026-11-20', '2026-12-05')).not.toBeNull(); // 15 days
+  });
+  it('says a round planned for a later day takes screens from that day (the server refuses them before)', () => {
+    expect(staleRoundLine('2026-12-20', '2026-12-05', 'en-US')).toBe('Planned for Dec 20, 2026, in 15 days: screens can be submitted from then.');
+    expect(staleRoundLine('2026-12-07', '2026-12-05')).toMatch(/in 2 days/);
   });
   it('stays smaller than the pre-rendered head line, with the longest date', () => {
     const line = staleRoundLine('2026-09-30', '2027-09-29', 'en-GB')!;
     expect(line.length).toBeLessThanOrEqual((PAGE_HEADS.round.text.length * 2) / 3);
+    const ahead = staleRoundLine('2027-09-29', '2026-09-30', 'en-GB')!;
+    expect(ahead.length).toBeLessThanOrEqual((PAGE_HEADS.round.text.length * 2) / 3);
   });
 });

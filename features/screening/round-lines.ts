@@ -14,10 +14,12 @@ export const STALE_ROUND_DAYS = 14;
 /**
  * An open round dated well before today: screens taken in it keep the round's date (it counts for age,
  * growth and the re-screen date), so a tester is told before screening today's athletes into an old
- * round. Null for a recent round. Short, like the closed notice, so the head line stays the largest text.
+ * round; one planned for a later day takes no submitted screen before it. Null for a recent round. Short, like the closed notice, so the head line stays the largest text.
  */
 export function staleRoundLine(screenedOn: string, today: string, locale?: string): string | null {
   const days = daysBetween(screenedOn, today);
+  // Planned for a later day (one day of slack for time zones, as the server allows): screens wait for it.
+  if (days < -1) return `Planned for ${formatDate(screenedOn, { locale })}, in ${-days} days: screens can be submitted from then.`;
   if (!(days > STALE_ROUND_DAYS)) return null;
   return `Dated ${formatDate(screenedOn, { locale })}, ${days} days ago: screens here keep that date. Open a new round for today.`;
 }

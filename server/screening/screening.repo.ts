@@ -191,6 +191,16 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
     },
 
     /** When the assessment's round was closed, or null while it is open (or unknown). */
+    /** The round's day, for a submit: a screen keeps its round's date. */
+    async roundDayOf(assessmentId: string): Promise<string | null> {
+      const [row] = await db
+        .select({ screenedOn: rounds.screenedOn })
+        .from(assessments)
+        .innerJoin(rounds, eq(rounds.id, assessments.roundId))
+        .where(and(eq(assessments.clubId, clubId), eq(assessments.id, assessmentId)));
+      return row?.screenedOn ?? null;
+    },
+
     async roundClosedAtOf(assessmentId: string) {
       const [row] = await db
         .select({ closedAt: rounds.closedAt })

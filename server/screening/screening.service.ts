@@ -34,6 +34,7 @@ import { AppError, badRequest, conflict, notFound, staleVersion } from '@/server
 import type { PhotoStorage } from '@/server/storage/storage';
 import { validateDraft } from './draft-validation';
 import { processPhoto } from './photo-processing';
+import { formatDateInWords } from '@/features/ui/format-date';
 import { enforceLimits, normaliseAdjustment, withServerWords } from './plan-adjustment';
 import { screeningRepo, type Executor, type RoundRow, type ScreeningRepo } from './screening.repo';
 
@@ -382,6 +383,18 @@ export function screeningService(deps: ScreeningDeps) {
 
     async submit(scope: ClubScope, id: string, input: { draftVersion?: number } = {}): Promise<ResultView> {
       if (await repoFor(scope).roundClosedAtOf(id)) throw roundClosed();
+      // A screen takes its round's date: one submitted into a round planned for a later day would be
+      // dated ahead (ages, growth and "days since the last screen" counted from a day not yet come).
+      // One day of slack for time zones (our choice).
+      const day = await repoFor(scope).roundDayOf(id);
+      const latest = new Date(Date.now() + 24 * 3600 * 1000).toISOString().slice(0, 10);
+      if (day && day > latest) {
+        throw new AppError(
+          409,
+          'round_not_yet',
+          `This round is dated ${formatDateInWords(day)}: its screens can be submitted from that day. The draft is kept. To screen today, open a round for today.`,
+        );
+      }
       return submitAssessment(db, scope, id, { evaluate: deps.evaluate, draftVersion: input.draftVersion });
     },
 

@@ -219,6 +219,26 @@ describe('a whole screening: round, draft, photo, submit, result, re-submit', ()
     expect(stored.adjustments).toEqual([...keep!.adjustments, `Changed by the tester: ${setsText(fewer)} instead of ${setsText(keep!.prescription.sets)}.`]);
   });
 
+  it('refuses a submit into a round planned for a later day (409), keeping the draft', async () => {
+    const ahead = new Date(Date.now() + 30 * 24 * 3600 * 1000).toISOString().slice(0, 10);
+    const round = await openRound('Planned ahead', ahead);
+    const id = assessmentOf(round, ids.mia);
+    await saveDraft(id, 0);
+    const res = await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) });
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('round_not_yet');
+    expect(res.body.error.message).toMatch(/its screens can be submitted from that day\. The draft is kept/);
+    const detail = (await tester.get(`/api/assessments/${id}`)).body;
+    expect(detail).toMatchObject({ status: 'in_progress', result: null });
+    expect(detail.draft.tasks['two-leg-squat']).toBeDefined();
+    // Tomorrow is allowed: a phone's day may already be tomorrow in UTC terms.
+    const tomorrow = new Date(Date.now() + 24 * 3600 * 1000).toISOString().slice(0, 10);
+    const next = await openRound('Tomorrow', tomorrow);
+    const nid = assessmentOf(next, ids.mia);
+    await saveDraft(nid, 0);
+    expect((await tester.post(`/api/assessments/${nid}/submit`).send({ draftVersion: await versionOf(nid) })).status).toBe(200);
+  });
+
   it('refuses a kg range whose "from" is above its "to", and a load of another kind than the plan\'s', async () => {
     const round = await openRound('Kg order', '2026-09-21');
     const id = assessmentOf(round, ids.mia);
