@@ -118,6 +118,8 @@ export const assessmentResults = pgTable(
       .generatedAlwaysAs(sql`jsonb_path_query_array(result, '$.measurements[*] ? (@.metric == "fppa").value')`),
     maturityBand: text('maturity_band').generatedAlwaysAs(sql`result #>> '{maturity,band}'`),
     rescreenDate: text('rescreen_date').generatedAlwaysAs(sql`result #>> '{plan,rescreenDate}'`),
+    /** 'clearance-needed' when pain was reported (the plan waits for a clearance), else 'ready'. */
+    planStatus: text('plan_status').generatedAlwaysAs(sql`result #>> '{plan,status}'`),
   },
   (t) => [
     uniqueIndex('assessment_results_version_uq').on(t.assessmentId, t.version),

@@ -3,6 +3,7 @@ import {
   addDays,
   ageGroupOf,
   athleteKneeSeries,
+  clearanceWords,
   csvRows,
   filterAthletes,
   kneeMeasurementIds,
@@ -26,6 +27,7 @@ function athlete(overrides: Partial<TrendAthlete>): TrendAthlete {
     ageGroup: 'U13',
     maturityBand: null,
     clearance: null,
+    awaitingClearance: false,
     latestAssessmentId: null,
     lastScreenedOn: null,
     daysSinceLastScreen: null,
@@ -132,9 +134,18 @@ describe('filters, sorting and the CSV rows agree', () => {
   it('writes one CSV row per athlete after the header', () => {
     const csv = csvRows(filterAthletes(rows, { flag: 'any' }));
     expect(csv).toHaveLength(2);
-    expect(csv[1]!.slice(0, 7)).toEqual(['Abbott', 'Ana', 'female', 'U13', 'circa', '', 'dynamic-knee-valgus']);
+    // In the screen's words, not the stored codes.
+    expect(csv[1]!.slice(0, 7)).toEqual(['Abbott', 'Ana', 'female', 'U13', 'In growth spurt', '', 'Knee valgus']);
     expect(csv[1]!.slice(-2)).toEqual(['3', '4']);
     expect(csvRows([rows[2]!])[1]!.slice(-2)).toEqual(['', '']);
+  });
+
+  it('says a clearance in words, pain waiting for one first, and sorts those waiting first (our choice)', () => {
+    const waiting = athlete({ firstName: 'Eli', lastName: 'Eze', awaitingClearance: true });
+    const referred = athlete({ firstName: 'Fay', lastName: 'Fox', clearance: 'referred' });
+    expect([waiting, referred, rows[0]!].map(clearanceWords)).toEqual(['Pain reported: waiting for clearance', 'Refer on', null]);
+    expect(sortAthletes([rows[0]!, referred, waiting], 'clearance').map((a) => a.firstName)).toEqual(['Eli', 'Fay', 'Ana']);
+    expect(csvRows([waiting])[1]![5]).toBe('Pain reported: waiting for clearance');
   });
 });
 

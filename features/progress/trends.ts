@@ -5,7 +5,9 @@
  */
 import type { MaturityBand, PatternId, Sex } from '@/features/screening/engine';
 import { DEFAULT_RESCREEN_WEEKS } from '@/features/screening/engine/defaults';
+import { CLEARANCE_LABELS } from '@/features/care/choices';
 import { daysBetween } from './compare';
+import { BAND_LABELS, PATTERN_SHORT } from './labels';
 
 export type TrendRound = {
   id: string;
@@ -45,6 +47,11 @@ export type TrendAthlete = {
   maturityBand: MaturityBand | null;
   /** The care team's clearance, where the club records one; null otherwise. */
   clearance: string | null;
+  /**
+   * Pain was reported at the newest screen and no clearance has been recorded since: loaded and landing
+   * work wait (the training sheet's hold, `strengthBlock`).
+   */
+  awaitingClearance: boolean;
   latestAssessmentId: string | null;
   lastScreenedOn: string | null;
   daysSinceLastScreen: number | null;
@@ -189,7 +196,8 @@ function sortValue(a: TrendAthlete, key: SortKey): string | number {
     case 'rescreenDue':
       return a.rescreenDue ? 0 : 1;
     case 'clearance':
-      return a.clearance ?? '~';
+      // Waiting for a clearance first: loaded and landing work are on hold (our choice).
+      return a.awaitingClearance ? '!' : (a.clearance ?? '~');
     case 'sessions':
       // Lowest share first: who is missing the corrective work (our choice); nothing to count goes last.
       return sessionShare(a) ?? 2;
@@ -225,7 +233,16 @@ export const CSV_HEADER = [
   'sessions_since_screen_held',
 ] as const;
 
-/** The table as CSV rows (header first); values only, the CSV writer does the quoting. */
+const names = (patterns: PatternId[]) => patterns.map((p) => PATTERN_SHORT[p]).join('; ');
+
+/** Where the athlete stands with the care team, in the screen's words; null when nothing is recorded or waiting. */
+export function clearanceWords(a: Pick<TrendAthlete, 'clearance' | 'awaitingClearance'>): string | null {
+  if (a.awaitingClearance) return 'Pain reported: waiting for clearance';
+  if (!a.clearance) return null;
+  return (CLEARANCE_LABELS as Record<string, string>)[a.clearance] ?? a.clearance;
+}
+
+/** The table as CSV rows (header first), in the screen's words; values only, the CSV writer does the quoting. */
 export function csvRows(rows: readonly TrendAthlete[]): string[][] {
   return [
     [...CSV_HEADER],
@@ -234,11 +251,11 @@ export function csvRows(rows: readonly TrendAthlete[]): string[][] {
       a.firstName,
       a.sex,
       a.ageGroup,
-      a.maturityBand ?? '',
-      a.clearance ?? '',
-      a.latestFlags.left.join('; '),
-      a.latestFlags.right.join('; '),
-      [...a.latestFlags.both, ...a.latestFlags.unsided].join('; '),
+      a.maturityBand ? BAND_LABELS[a.maturityBand] : '',
+      clearanceWords(a) ?? '',
+      names(a.latestFlags.left),
+      names(a.latestFlags.right),
+      names([...a.latestFlags.both, ...a.latestFlags.unsided]),
       a.lastScreenedOn ?? '',
       a.daysSinceLastScreen === null ? '' : String(a.daysSinceLastScreen),
       a.rescreenDate ?? '',

@@ -21,7 +21,7 @@ export type SeasonRound = [
 /**
  * One current member of the squad with their newest submitted screen anywhere (or nulls):
  * [id, first name, last name, sex, date of birth, clearance, latest assessment id, screened on, flag ids,
- * flag sides, maturity band, re-screen date].
+ * flag sides, maturity band, re-screen date, sessions attended and held, awaiting a clearance].
  */
 export type SeasonAthlete = [
   id: string,
@@ -39,6 +39,8 @@ export type SeasonAthlete = [
   /** Sessions of the squad recorded after the newest screen, and those the athlete took part in. */
   sessionsAttended: number,
   sessionsHeld: number,
+  /** Pain was reported at the newest screen and no clearance has been recorded since its current result. */
+  awaitingClearance: boolean,
 ];
 export type Season = { squad: { id: string; name: string }; rounds: SeasonRound[]; athletes: SeasonAthlete[] };
 
@@ -167,13 +169,16 @@ export function progressRepo(db: Executor, scope: ClubScope) {
           (select coalesce(json_agg(json_build_array(m.id, m.first_name, m.last_name, m.sex, m.date_of_birth, c.status,
               l.assessment_id, l.screened_on, l.flag_ids, l.flag_sides, l.maturity_band, l.rescreen_date,
               (select count(*) from unnest(tk.days) d where d > l.screened_on)::int,
-              (select count(*) from recent r where r.held_on > l.screened_on)::int)
+              (select count(*) from recent r where r.held_on > l.screened_on)::int,
+              coalesce(ar.plan_status = 'clearance-needed' and (c.created_at is null or c.created_at < ar.created_at), false))
               order by m.last_name, m.first_name, m.id), '[]')
             from athletes m
             left join athlete_latest_screens l on l.athlete_id = m.id
             left join lateral (
-              select status from clearances where athlete_id = m.id and club_id = $2 order by created_at desc limit 1
+              select status, created_at from clearances where athlete_id = m.id and club_id = $2 order by created_at desc limit 1
             ) c on true
+            -- The newest screen's current result: only its small generated column and time are read.
+            left join assessment_results ar on ar.assessment_id = l.assessment_id and ar.is_current and ar.club_id = $2
             left join taken tk on tk.athlete_id = m.id
             where m.squad_id = $1 and m.club_id = $2 and m.archived_at is null) as athletes`,
         [squadId, clubId],

@@ -110,6 +110,7 @@ export function progressService(db: Executor, scope: ClubScope) {
           rescreenDate,
           attended,
           held,
+          awaitingClearance,
         ]) => {
           const rescreen = rescreenOf(lastScreenedOn, rescreenDate, today);
           return {
@@ -121,6 +122,7 @@ export function progressService(db: Executor, scope: ClubScope) {
             ageGroup: ageGroupOf(Math.floor(decimalAge(dateOfBirth, today))),
             maturityBand: (maturityBand as MaturityBand | null) ?? null,
             clearance,
+            awaitingClearance: awaitingClearance === true,
             latestAssessmentId,
             lastScreenedOn,
             daysSinceLastScreen: lastScreenedOn ? daysBetween(lastScreenedOn, today) : null,

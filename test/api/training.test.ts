@@ -260,6 +260,11 @@ describe('recording who took part in a session', () => {
     const res = await as.coach.get(`/api/squads/${ids.squad}/trends`);
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     const since = Object.fromEntries((res.body.athletes as { id: string; sessionsSinceScreen: unknown }[]).map((a) => [a.id, a.sessionsSinceScreen]));
+    // The same hold as the training sheet's: Ben reported pain and nobody has cleared him; Dee is referred on (a clearance, not waiting).
+    const waiting = Object.fromEntries(
+      (res.body.athletes as { id: string; awaitingClearance: boolean; clearance: string | null }[]).map((a) => [a.id, [a.awaitingClearance, a.clearance]]),
+    );
+    expect(waiting).toEqual({ [ids.ana!]: [false, null], [ids.ben!]: [true, null], [ids.cat!]: [false, null], [ids.dee!]: [false, 'referred'] });
     expect(since).toEqual({
       [ids.ana!]: { attended: 1, held: 3 },
       [ids.ben!]: { attended: 2, held: 3 },

@@ -1,19 +1,12 @@
-import { CLEARANCE_LABELS } from '@/features/care/choices';
 import { Link } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { PatternId } from '@/features/screening/engine';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { BAND_LABELS, BAND_SHORT, daysAgo, PATTERN_SHORT } from '../labels';
-import type { SortKey, TrendAthlete } from '../trends';
+import { clearanceWords, type SortKey, type TrendAthlete } from '../trends';
 import { formatDate } from '@/features/ui/format-date';
 import { capitalise } from '@/features/ui/capitalise';
-
-/** The clearance in the physiotherapist's words ("Train with changes"), not its stored code. */
-function clearanceText(value: string | null): string | null {
-  if (value === null) return null;
-  return (CLEARANCE_LABELS as Record<string, string>)[value] ?? value;
-}
 
 const list = (p: PatternId[]) => (p.length ? p.map((x) => PATTERN_SHORT[x]).join(', ') : '–');
 // In the table's narrow columns, one flag a line, each marked where it starts (a name may wrap; with
@@ -36,7 +29,7 @@ const COLUMNS: Col[] = [
   { key: 'flags', label: 'Flags left', flex: 1.4, cell: (a) => lines(a.latestFlags.left) },
   { key: null, label: 'Flags right', flex: 1.4, cell: (a) => lines(a.latestFlags.right) },
   { key: null, label: 'Other flags', flex: 1.4, cell: (a) => lines([...a.latestFlags.both, ...a.latestFlags.unsided]) },
-  { key: 'clearance', label: 'Clearance', flex: 1.1, cell: (a) => clearanceText(a.clearance) ?? '–' },
+  { key: 'clearance', label: 'Clearance', flex: 1.1, cell: (a) => clearanceWords(a) ?? '–' },
   {
     key: 'daysSinceLastScreen',
     label: 'Last screen',
@@ -118,7 +111,7 @@ export function TrendsCards({ rows }: { rows: TrendAthlete[] }) {
             </Text>
           </View>
           <Text variant="small">
-            {a.ageGroup} · {a.sex} · {BAND_LABELS[a.maturityBand ?? 'unknown']} · clearance: {clearanceText(a.clearance) ?? 'not recorded'}
+            {a.ageGroup} · {a.sex} · {BAND_LABELS[a.maturityBand ?? 'unknown']} · clearance: {clearanceWords(a) ?? 'not recorded'}
           </Text>
           <Text variant="small">Left: {list(a.latestFlags.left)}</Text>
           <Text variant="small">Right: {list(a.latestFlags.right)}</Text>

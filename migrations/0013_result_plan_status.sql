@@ -1,0 +1,1 @@
+ALTER TABLE "assessment_results" ADD COLUMN "plan_status" text GENERATED ALWAYS AS (result #>> '{plan,status}') STORED;
