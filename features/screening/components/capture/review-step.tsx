@@ -51,16 +51,24 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
           missing.push(`${task.title}: ${v.view} photo`);
         }
       }
-      if (t.painReported) lines.push('PAIN REPORTED');
     } else {
       missing.push(`${task.title}: not done`);
     }
     return { task, i, state, lines };
   });
-  const painTasks = rows.filter((r) => draft.tasks[r.task.id]?.painReported && !draft.tasks[r.task.id]?.skipped);
+  // As the engine is told (draftToInput): pain counts even on a task marked skipped.
+  const painTasks = rows.filter((r) => draft.tasks[r.task.id]?.painReported);
+  const painNotice =
+    painTasks.length > 0 ? (
+      <Notice tone="error" title="Pain was reported" testID="review-pain">
+        {`During: ${painTasks.map((r) => r.task.title).join(', ')}. The plan will ask for clearance by a physiotherapist or doctor before it starts.`}
+      </Notice>
+    ) : null;
 
   return (
     <View style={styles.wrap}>
+      {/* First, where the eye lands: pain decides what the plan may start with. */}
+      {painNotice}
       <Pressable accessibilityRole="button" onPress={() => goTo('body')} style={styles.row}>
         <Text style={styles.mark}>{bodySummary(draft) === 'Not measured' ? '○' : '✓'}</Text>
         <View style={styles.rowText}>
@@ -81,6 +89,11 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
               {i + 1}. {task.title}
             </Text>
             <Text variant="small">{state === 'todo' ? 'Not done yet' : lines.join(' · ')}</Text>
+            {draft.tasks[task.id]?.painReported ? (
+              <Text variant="small" style={styles.pain}>
+                Pain reported
+              </Text>
+            ) : null}
           </View>
         </Pressable>
       ))}
@@ -99,11 +112,6 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
           {`${toMeasure === 1 ? 'One photo has' : `${toMeasure} photos have`} no landmarks yet. Submit now: the result uses what you ticked and typed. The photos wait in the "To measure" list; once their points are placed there, the result is worked out again as a new version.`}
         </Notice>
       ) : null}
-      {painTasks.length > 0 ? (
-        <Notice tone="error" title="Pain was reported">
-          {`During: ${painTasks.map((r) => r.task.title).join(', ')}. The plan will ask for clearance by a physiotherapist or doctor before it starts.`}
-        </Notice>
-      ) : null}
       <Notice>
         {detail.status === 'submitted'
           ? 'This assessment was submitted before. Submitting again replaces its result; the earlier one stays in its history.'
@@ -116,6 +124,7 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
 const styles = StyleSheet.create({
   wrap: { gap: space.sm },
   warn: { color: colors.amber, fontFamily: fonts.bold },
+  pain: { color: colors.brick, fontFamily: fonts.bold },
   row: {
     minHeight: TOUCH_MIN + 8,
     flexDirection: 'row',
