@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import type { OutboxEntry, OutboxState } from './outbox';
-import { syncStatusOf, syncStatusText } from './sync-status';
+import { syncStatusDetail, syncStatusOf, syncStatusText } from './sync-status';
 
-const entry = (seq: number, state: OutboxEntry['state'] = 'waiting'): OutboxEntry => ({
+const entry = (seq: number, state: OutboxEntry['state'] = 'waiting', assessmentId = 'a'): OutboxEntry => ({
   seq,
   key: `k${seq}`,
   kind: 'draft',
-  assessmentId: 'a',
+  assessmentId,
   clubId: 'c',
   userId: 'u',
   createdAt: '',
@@ -30,5 +30,15 @@ describe('sync status', () => {
     [true, st([entry(1, 'refused'), entry(2)]), '1 refused'],
   ])('online %s with %j reads "%s"', (online, state, text) => {
     expect(syncStatusText(syncStatusOf(online, state))).toBe(text);
+  });
+
+  it("counts the athletes' screens the changes belong to, offline (our wording)", () => {
+    const three = st([entry(1), entry(2, 'waiting', 'b'), entry(3, 'waiting', 'b'), entry(4, 'waiting', 'c')]);
+    expect(syncStatusDetail(syncStatusOf(false, three))).toBe(
+      "No connection. 4 changes to 3 athletes' screens are kept on this phone and will be sent in order when the connection is back.",
+    );
+    expect(syncStatusDetail(syncStatusOf(false, st([entry(1)])))).toBe(
+      "No connection. 1 change to one athlete's screen is kept on this phone and will be sent in order when the connection is back.",
+    );
   });
 });

@@ -1,9 +1,9 @@
 // The one status shown on every screen: is this device online, and is everything on the server? Pure.
-import type { OutboxState } from './outbox';
+import { assessmentOf, type OutboxState } from './outbox';
 
 export type SyncStatus =
   | { kind: 'saved' }
-  | { kind: 'offline'; waiting: number }
+  | { kind: 'offline'; waiting: number; athletes: number }
   | { kind: 'syncing'; waiting: number }
   | { kind: 'online'; waiting: number; retrying: boolean }
   | { kind: 'attention'; refused: number; waiting: number };
@@ -11,7 +11,11 @@ export type SyncStatus =
 export function syncStatusOf(online: boolean, outbox: OutboxState): SyncStatus {
   const refused = outbox.entries.filter((e) => e.state === 'refused').length;
   const waiting = outbox.entries.length - refused;
-  if (!online) return { kind: 'offline', waiting: outbox.entries.length };
+  if (!online) {
+    // One athlete's screen is many changes (each save, each photo, the submit): the sentence counts both.
+    const athletes = new Set(outbox.entries.map(assessmentOf).filter((a) => a !== null)).size;
+    return { kind: 'offline', waiting: outbox.entries.length, athletes };
+  }
   if (refused > 0) return { kind: 'attention', refused, waiting };
   if (outbox.sending !== null) return { kind: 'syncing', waiting };
   if (waiting > 0) return { kind: 'online', waiting, retrying: outbox.lastError !== null };
@@ -19,6 +23,7 @@ export function syncStatusOf(online: boolean, outbox: OutboxState): SyncStatus {
 }
 
 const changes = (n: number) => (n === 1 ? '1 change' : `${n} changes`);
+const forAthletes = (n: number) => (n === 0 ? '' : n === 1 ? " to one athlete's screen" : ` to ${n} athletes' screens`);
 
 /** Short words for the status pill (it shares a phone's top bar with the menu). */
 export function syncStatusText(s: SyncStatus): string {
@@ -44,12 +49,12 @@ export function syncStatusDetail(s: SyncStatus): string {
     case 'offline':
       return s.waiting === 0
         ? 'No connection. You can keep screening: changes are kept on this phone and sent when the connection is back.'
-        : `No connection. ${changes(s.waiting)} ${s.waiting === 1 ? 'is' : 'are'} kept on this phone and will be sent in order when the connection is back.`;
+        : `No connection. ${changes(s.waiting)}${forAthletes(s.athletes)} ${s.waiting === 1 ? 'is' : 'are'} kept on this phone and will be sent in order when the connection is back.`;
     case 'syncing':
       return 'Sending what was done on this phone, oldest first.';
     case 'online':
       return s.retrying ? 'The last try did not get through. Trying again shortly.' : 'Waiting to send.';
     case 'attention':
-      return 'The server refused some changes. They are kept on this phone: open them to see why.';
+      return 'The server refused some changes. They are kept on this phone; each says why below.';
   }
 }

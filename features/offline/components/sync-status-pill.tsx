@@ -38,7 +38,7 @@ export function SyncStatusPill({ align = 'left' }: { align?: 'left' | 'right' })
         testID="sync-status"
       >
         <View style={[styles.dot, styles[`${tone}Dot`]]} />
-        <Text style={[styles.text, tone === 'bad' && styles.badText]} numberOfLines={1} testID="sync-status-text">
+        <Text style={[styles.text, tone === 'bad' && styles.badText]} numberOfLines={2} testID="sync-status-text">
           {syncStatusText(status)}
         </Text>
       </Pressable>

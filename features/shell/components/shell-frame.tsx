@@ -106,7 +106,8 @@ export const frameStyles = StyleSheet.create({
     borderColor: colors.pine,
   },
   menuText: { fontFamily: fonts.bold, color: colors.pine, fontSize: 17 },
-  brand: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  // Never squeezed by the sync pill beside it on a phone (the pill's words wrap instead).
+  brand: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexShrink: 0 },
   mark: { width: 18, height: 18, borderRadius: 3, backgroundColor: colors.pine, transform: [{ rotate: '45deg' }] },
   word: { fontFamily: fonts.bold, fontSize: 21, color: colors.pineDark },
   frameContent: { flex: 1, padding: space.lg, alignItems: 'center' },
