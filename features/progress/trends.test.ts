@@ -5,6 +5,7 @@ import {
   athleteKneeSeries,
   clearanceWords,
   csvRows,
+  screenedCaption,
   filterAthletes,
   kneeMeasurementIds,
   rescreenOf,
@@ -208,5 +209,15 @@ describe('knee angles sent once (our choice of layout)', () => {
     expect(athleteKneeSeries(k, 'z', 'single-leg-squat-right/fppa/right', 2)).toEqual([null, 22.6]);
     expect(athleteKneeSeries(k, 'y', 'drop-landing/fppa/left', 2)).toEqual([null, null]);
     expect(athleteKneeSeries(k, 'nobody', 'single-leg-squat-right/fppa/right', 2)).toEqual([null, null]);
+  });
+});
+
+describe('the flag-share chart says how many each share is of (our wording)', () => {
+  const round = (screenedOn: string, screened: number) => ({ id: screenedOn, name: screenedOn, screenedOn, screened, flagged: {} });
+  it('lists the screened count of each round with data, by date', () => {
+    expect(screenedCaption([round('2026-09-14', 12), round('2026-10-01', 0), round('2026-12-05', 2)], (d) => d.slice(5))).toBe(
+      'Screened per round: 09-14: 12 · 12-05: 2. Each share is of those screened in that round, so a round with few screened moves a lot.',
+    );
+    expect(screenedCaption([round('2026-10-01', 0)], (d) => d)).toBeNull();
   });
 });

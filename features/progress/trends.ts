@@ -282,3 +282,14 @@ export function shareSeries(rounds: readonly TrendRound[], pattern: PatternId, i
   const offset = (index - (count - 1) / 2) * step;
   return rounds.map((r, i) => ({ x: i + offset, y: shareOf(r, pattern) })).filter((d): d is { x: number; y: number } => d.y !== null);
 }
+
+/**
+ * How many were screened in each round with data, for the flag-share chart's caption: a share of 2
+ * screened reads like one of 12 on the chart (our wording). `dateText` formats a round's date.
+ */
+export function screenedCaption(rounds: readonly TrendRound[], dateText: (day: string) => string): string | null {
+  const withData = rounds.filter((r) => r.screened > 0);
+  if (withData.length === 0) return null;
+  const counts = withData.map((r) => `${dateText(r.screenedOn)}: ${r.screened}`).join(' · ');
+  return `Screened per round: ${counts}. Each share is of those screened in that round, so a round with few screened moves a lot.`;
+}

@@ -7,7 +7,8 @@ import { colors, radius, space } from '@/features/ui/theme';
 import { axisDateLabels, DATE_AXIS_RIGHT, labelledPoints } from '../axis-labels';
 import { ERROR_MARGINS, verdictFor } from '../compare';
 import { PATTERN_COLOURS, PATTERN_SHORT } from '../labels';
-import { athleteKneeSeries, roundKneeAngles, shareOf, shareSeries, type TrendAthlete, type TrendKneeAngles, type TrendRound } from '../trends';
+import { athleteKneeSeries, roundKneeAngles, screenedCaption, shareOf, shareSeries, type TrendAthlete, type TrendKneeAngles, type TrendRound } from '../trends';
+import { formatDate } from '@/features/ui/format-date';
 import { AXIS_STYLE } from './history-chart';
 import { NumbersTable } from './numbers-table';
 
@@ -98,6 +99,9 @@ export function FlagShareChart({ rounds, title, testID }: { rounds: TrendRound[]
                 </View>
               ))}
             </View>
+            <Text variant="small" testID="flag-share-screened">
+              {screenedCaption(rounds, (day) => formatDate(day))}
+            </Text>
           </View>
         )
       }
