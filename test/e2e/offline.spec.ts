@@ -102,6 +102,7 @@ test('a whole round screened with no connection syncs once, in order, without du
   const [first, second] = round.athletes.filter((a) => a.photoConsent).sort((a, b) => a.lastName.localeCompare(b.lastName));
   const open = round.athletes.length;
 
+  const { clearances } = (await (await page.request.get('/api/clearances')).json()) as { clearances: Record<string, { status: string }> };
   // Online: open the round once; the app keeps it, its athletes and their open drafts on the phone.
   await page.goto(`/screening/rounds/${round.round.id}`);
   await expect(page.getByTestId(`round-athlete-${first!.athleteId}`)).toBeVisible();
@@ -114,6 +115,10 @@ test('a whole round screened with no connection syncs once, in order, without du
   expect(reload?.fromServiceWorker()).toBe(true);
   await expect(page.getByTestId(`round-athlete-${first!.athleteId}`)).toBeVisible();
   await expect(page.getByTestId('sync-status-text')).toHaveText('Offline');
+  // The physiotherapist's decisions stay in view with no signal: a referral's badge (the demo has one in this squad).
+  const referred = round.athletes.find((a) => clearances[a.athleteId]?.status === 'referred');
+  expect(referred, 'an athlete of the squad referred on').toBeDefined();
+  await expect(page.getByTestId(`round-athlete-${referred!.athleteId}`).getByTestId('clearance-badge')).toContainText('Refer on');
 
   // First athlete: measurements, a ticked criterion and a front photo, then submit.
   await page.getByTestId(`round-athlete-${first!.athleteId}`).click();
