@@ -5,6 +5,7 @@ import {
   athleteKneeSeries,
   clearanceWords,
   csvRows,
+  defaultRoundPair,
   screenedCaption,
   filterAthletes,
   kneeMeasurementIds,
@@ -219,5 +220,18 @@ describe('the flag-share chart says how many each share is of (our wording)', ()
       'Screened per round: 09-14: 12 · 12-05: 2. Each share is of those screened in that round, so a round with few screened moves a lot.',
     );
     expect(screenedCaption([round('2026-10-01', 0)], (d) => d)).toBeNull();
+  });
+});
+
+describe('the change chart first compares the newest two well-filled rounds (our choice)', () => {
+  const round = (id: string, screened: number) => ({ id, name: id, screenedOn: '2026-01-01', screened, flagged: {} });
+  it('skips a round just started and a small extra one', () => {
+    expect(defaultRoundPair([round('sep', 12), round('nov', 9), round('extra', 3), round('dec', 2)])).toEqual({ from: 'sep', to: 'nov' });
+    expect(defaultRoundPair([round('sep', 12), round('nov', 9), round('dec', 6)])).toEqual({ from: 'nov', to: 'dec' });
+  });
+  it('falls back to the two newest with anyone screened, or nothing', () => {
+    expect(defaultRoundPair([round('sep', 12), round('dec', 2)])).toEqual({ from: 'sep', to: 'dec' });
+    expect(defaultRoundPair([round('sep', 12)])).toEqual({ from: '', to: 'sep' });
+    expect(defaultRoundPair([round('sep', 0)])).toEqual({ from: '', to: '' });
   });
 });

@@ -293,3 +293,17 @@ export function screenedCaption(rounds: readonly TrendRound[], dateText: (day: s
   const counts = withData.map((r) => `${dateText(r.screenedOn)}: ${r.screened}`).join(' · ');
   return `Screened per round: ${counts}. Each share is of those screened in that round, so a round with few screened moves a lot.`;
 }
+
+/**
+ * The two rounds the change chart compares first: the newest two in which at least half as many were
+ * screened as in the squad's fullest round, so a round just started (two screened) or a small extra
+ * round does not empty the chart; the two newest with anyone screened otherwise (our choice). Ids, ''
+ * where there is no such round.
+ */
+export function defaultRoundPair(rounds: readonly TrendRound[]): { from: string; to: string } {
+  const screened = rounds.filter((r) => r.screened > 0);
+  const most = Math.max(0, ...screened.map((r) => r.screened));
+  const full = screened.filter((r) => r.screened * 2 >= most);
+  const pick = full.length >= 2 ? full : screened;
+  return { from: pick.at(-2)?.id ?? '', to: pick.at(-1)?.id ?? '' };
+}

@@ -9,7 +9,16 @@ import { Text } from '@/features/ui/components/text';
 import { space } from '@/features/ui/theme';
 import { squadTrendsCsvUrl, useSquadTrendsQuery } from '../api/get-squad-trends';
 import { BAND_LABELS, kneeAngleName, PATTERN_SHORT } from '../labels';
-import { AGE_GROUPS, filterAthletes, kneeMeasurementIds, sortAthletes, type SortKey, type TrendFilters, type TrendsResponse } from '../trends';
+import {
+  AGE_GROUPS,
+  defaultRoundPair,
+  filterAthletes,
+  kneeMeasurementIds,
+  sortAthletes,
+  type SortKey,
+  type TrendFilters,
+  type TrendsResponse,
+} from '../trends';
 import { Chips } from '@/features/ui/components/chips';
 import { canPrint, downloadFile, printPage, PRINT_HIDE, PRINT_ROOT, usePrintStyles } from '@/features/ui/print';
 import { ChangeChart, FlagShareChart, KneeDistributionChart, patternsIn } from './trend-charts';
@@ -103,8 +112,8 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
   const kneeIds = useMemo(() => kneeMeasurementIds(data.kneeAngles), [data.kneeAngles]);
   const [kneeId, setKneeId] = useState(() => kneeIds.find((k) => k.startsWith('single-leg-squat-left')) ?? kneeIds[0] ?? '');
   const screenedRounds = data.rounds.filter((r) => r.screened > 0);
-  const [fromId, setFromId] = useState(screenedRounds.at(-2)?.id ?? '');
-  const [toId, setToId] = useState(screenedRounds.at(-1)?.id ?? '');
+  const [fromId, setFromId] = useState(() => defaultRoundPair(data.rounds).from);
+  const [toId, setToId] = useState(() => defaultRoundPair(data.rounds).to);
   const from = data.rounds.find((r) => r.id === fromId);
   const to = data.rounds.find((r) => r.id === toId);
 
