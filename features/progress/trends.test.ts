@@ -220,6 +220,11 @@ describe('the flag-share chart says how many each share is of (our wording)', ()
       'Screened per round: 09-14: 12 · 12-05: 2. Each share is of those screened in that round, so a round with few screened moves a lot.',
     );
     expect(screenedCaption([round('2026-10-01', 0)], (d) => d)).toBeNull();
+    // The newest eight at most.
+    const many = Array.from({ length: 10 }, (_, i) => round(`2026-10-${String(i + 10)}`, i + 1));
+    expect(screenedCaption(many, (d) => d.slice(8))).toBe(
+      'Screened in the latest 8 rounds: 12: 3 · 13: 4 · 14: 5 · 15: 6 · 16: 7 · 17: 8 · 18: 9 · 19: 10. Each share is of those screened in that round, so a round with few screened moves a lot.',
+    );
   });
 });
 

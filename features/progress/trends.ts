@@ -283,6 +283,9 @@ export function shareSeries(rounds: readonly TrendRound[], pattern: PatternId, i
   return rounds.map((r, i) => ({ x: i + offset, y: shareOf(r, pattern) })).filter((d): d is { x: number; y: number } => d.y !== null);
 }
 
+/** The flag-share chart's caption names at most this many rounds (our choice). */
+const CAPTION_ROUNDS = 8;
+
 /**
  * How many were screened in each round with data, for the flag-share chart's caption: a share of 2
  * screened reads like one of 12 on the chart (our wording). `dateText` formats a round's date.
@@ -290,8 +293,11 @@ export function shareSeries(rounds: readonly TrendRound[], pattern: PatternId, i
 export function screenedCaption(rounds: readonly TrendRound[], dateText: (day: string) => string): string | null {
   const withData = rounds.filter((r) => r.screened > 0);
   if (withData.length === 0) return null;
-  const counts = withData.map((r) => `${dateText(r.screenedOn)}: ${r.screened}`).join(' · ');
-  return `Screened per round: ${counts}. Each share is of those screened in that round, so a round with few screened moves a lot.`;
+  // The newest eight at most: a caption, not a table (the numbers table has every round).
+  const shown = withData.slice(-CAPTION_ROUNDS);
+  const counts = shown.map((r) => `${dateText(r.screenedOn)}: ${r.screened}`).join(' · ');
+  const which = withData.length > shown.length ? `Screened in the latest ${shown.length} rounds` : 'Screened per round';
+  return `${which}: ${counts}. Each share is of those screened in that round, so a round with few screened moves a lot.`;
 }
 
 /**

@@ -198,7 +198,7 @@ function ExerciseCard({ exercise, resultOf }: { exercise: SheetExercise; resultO
                 <AthleteName name={x.name} href={resultHref(resultOf.get(x.athleteId))} />
                 {x.physioChanges && !g.held ? (
                   <Text variant="small" style={styles.adjustment}>
-                    Physio&apos;s changes: see above
+                    Physio&apos;s changes: see the top of the sheet
                   </Text>
                 ) : null}
               </View>
