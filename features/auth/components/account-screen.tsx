@@ -13,7 +13,7 @@ export function AccountScreen() {
   const { isWide } = useBreakpoints();
   return (
     <View style={[styles.body, isWide && styles.bodyWide]}>
-      <Card style={styles.part} testID="account-details">
+      <Card style={[styles.part, isWide && styles.partWide]} testID="account-details">
         <Text variant="heading">You</Text>
         <Text variant="label">{me.user.displayName}</Text>
         <Text>{me.user.email}</Text>
@@ -23,7 +23,7 @@ export function AccountScreen() {
           </Text>
         ))}
       </Card>
-      <Card style={styles.part}>
+      <Card style={[styles.part, isWide && styles.partWide]}>
         <Text variant="heading">Password</Text>
         <ChangePasswordForm />
       </Card>
@@ -34,5 +34,7 @@ export function AccountScreen() {
 const styles = StyleSheet.create({
   body: { gap: space.lg },
   bodyWide: { flexDirection: 'row', alignItems: 'flex-start' },
-  part: { flex: 1, gap: space.sm },
+  part: { gap: space.sm },
+  // Side by side on a wide screen only: in a column, flex would share the height out and cut the form.
+  partWide: { flex: 1 },
 });
