@@ -256,6 +256,17 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
           {`${status.message} What you typed is kept on this phone.`}
         </Notice>
       ) : null}
+      {/* Above the list, where they are read before Submit (below it, a phone never showed them). */}
+      {!online && step === 'review' && !editing ? (
+        <Notice title="No connection" testID="submit-offline">
+          Submitting now keeps the submit on this phone. It is sent after the draft and photos when the connection is back; the result appears then.
+        </Notice>
+      ) : null}
+      {unfinishedUploads > 0 && step === 'review' && !editing ? (
+        <Notice tone="caution" title={unfinishedUploads === 1 ? 'A photo is not uploaded yet' : 'Photos not uploaded yet'} testID="uploads-unfinished">
+          {`${unfinishedUploads === 1 ? 'One photo is' : `${unfinishedUploads} photos are`} kept on this phone and not on the server yet. A submit waits for ${unfinishedUploads === 1 ? 'it' : 'them'}: they are sent first, in order.`}
+        </Notice>
+      ) : null}
       {editing && editingPhoto ? (
         <LazyLandmarkEditor
           key={`${editing.taskId}:${editing.view}:${editingPhoto.id}`}
@@ -281,16 +292,6 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
           onNewPhoto={(view) => onNewPhoto(task.id, view)}
           onPlaceLandmarks={(view) => setEditing({ taskId: task.id, view })}
         />
-      ) : null}
-      {unfinishedUploads > 0 && step === 'review' && !editing ? (
-        <Notice tone="caution" title="A photo is not uploaded yet" testID="uploads-unfinished">
-          {`${unfinishedUploads === 1 ? 'One photo is' : `${unfinishedUploads} photos are`} kept on this phone and not on the server yet. A submit waits for ${unfinishedUploads === 1 ? 'it' : 'them'}: they are sent first, in order.`}
-        </Notice>
-      ) : null}
-      {!online && step === 'review' && !editing ? (
-        <Notice title="No connection" testID="submit-offline">
-          Submitting now keeps the submit on this phone. It is sent after the draft and photos when the connection is back; the result appears then.
-        </Notice>
       ) : null}
       {submitError && step === 'review' ? (
         <Notice tone="error" title="Not submitted" testID="submit-error">
