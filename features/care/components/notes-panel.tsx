@@ -15,6 +15,7 @@ import { NOTE_EDIT_WINDOW_MINUTES, NOTE_VISIBILITY_LABELS, type NoteVisibility }
 import { noteSchema } from '../schemas';
 import type { NoteView } from '../types';
 import { Chips } from '@/features/ui/components/chips';
+import { formatDateTime } from '@/features/ui/format-date';
 
 const VISIBILITY_OPTIONS = (['team', 'family'] as const).map((v) => ({ value: v, label: NOTE_VISIBILITY_LABELS[v] }));
 
@@ -45,7 +46,7 @@ function NoteItem({ note }: { note: NoteView }) {
   return (
     <View style={[styles.note, note.visibility === 'family' ? styles.family : styles.team]} testID="note">
       <Text variant="small">
-        {NOTE_VISIBILITY_LABELS[note.visibility]} · {note.authorName ?? 'Former member'} · {note.createdAt.slice(0, 16).replace('T', ' ')}
+        {NOTE_VISIBILITY_LABELS[note.visibility]} · {note.authorName ?? 'Former member'} · {formatDateTime(note.createdAt)}
         {note.updatedAt !== note.createdAt ? ' · corrected' : ''}
       </Text>
       {editing ? (
