@@ -8,6 +8,12 @@ import { clearanceWords, type SortKey, type TrendAthlete } from '../trends';
 import { formatDate } from '@/features/ui/format-date';
 import { capitalise } from '@/features/ui/capitalise';
 
+/** "Due since Jul 20, 2026" (how long overdue), "Due" never screened, "from Jan 16, 2027" not yet. */
+function rescreenCell(a: TrendAthlete): string {
+  if (!a.rescreenDue) return `from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`;
+  return a.rescreenDate ? `Due since ${formatDate(a.rescreenDate)}` : 'Due';
+}
+
 const list = (p: PatternId[]) => (p.length ? p.map((x) => PATTERN_SHORT[x]).join(', ') : '–');
 // In the table's narrow columns, one flag a line, each marked where it starts (a name may wrap; with
 // commas, a comma after a wrapped name sat alone on a line). A narrow no-break space keeps the mark with
@@ -37,7 +43,7 @@ const COLUMNS: Col[] = [
     cell: (a) => (a.daysSinceLastScreen === null ? 'Never' : capitalise(daysAgo(a.daysSinceLastScreen))),
   },
   { key: 'sessions', label: 'Sessions since screen', flex: 1, cell: sessionsText },
-  { key: 'rescreenDue', label: 'Re-screen', flex: 0.8, cell: (a) => (a.rescreenDue ? 'Due' : `from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`) },
+  { key: 'rescreenDue', label: 'Re-screen', flex: 0.8, cell: (a) => rescreenCell(a) },
 ];
 
 type Props = { rows: TrendAthlete[]; sort: SortKey; descending: boolean; onSort: (key: SortKey) => void };
@@ -107,7 +113,7 @@ export function TrendsCards({ rows }: { rows: TrendAthlete[] }) {
               </Text>
             </Link>
             <Text variant="small" style={a.rescreenDue ? styles.due : undefined}>
-              {a.rescreenDue ? 'Re-screen due' : `Re-screen from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`}
+              {`Re-screen ${rescreenCell(a).replace(/^Due/, 'due')}`}
             </Text>
           </View>
           <Text variant="small">
