@@ -119,6 +119,14 @@ describe('filters, sorting and the CSV rows agree', () => {
     expect(filterAthletes(rows, filters).map((a) => a.firstName)).toEqual(names);
   });
 
+  it('counts movement flags only for "any", "none" and the flag sort: the growth-spurt window is a stage (our choice)', () => {
+    const growing = athlete({ firstName: 'Gus', lastName: 'Gray', latestFlags: { left: [], right: [], both: [], unsided: ['growth-spurt-window'] } });
+    expect(filterAthletes([growing], { flag: 'any' })).toEqual([]);
+    expect(filterAthletes([growing], { flag: 'none' })).toEqual([growing]);
+    expect(filterAthletes([growing], { flag: 'growth-spurt-window' })).toEqual([growing]);
+    expect(sortAthletes([rows[0]!, growing], 'flags').map((a) => a.firstName)).toEqual(['Gus', 'Ana']);
+  });
+
   it('sorts, never-screened last by days', () => {
     expect(sortAthletes(rows, 'daysSinceLastScreen').map((a) => a.firstName)).toEqual(['Ana', 'Ben', 'Cai']);
     expect(sortAthletes(rows, 'name', true).map((a) => a.firstName)).toEqual(['Cai', 'Ben', 'Ana']);

@@ -140,6 +140,11 @@ export function sidedPatterns(flagIds: readonly string[], flagSides: readonly (s
   return out;
 }
 
+/** The movement flags of an athlete: every pattern but the growth-spurt window. */
+export function movementPatterns(f: SidedPatterns): PatternId[] {
+  return allPatterns(f).filter((p) => p !== 'growth-spurt-window');
+}
+
 export function allPatterns(f: SidedPatterns): PatternId[] {
   return [...new Set([...f.left, ...f.right, ...f.both, ...f.unsided])];
 }
@@ -158,7 +163,9 @@ export function filterAthletes(rows: readonly TrendAthlete[], f: TrendFilters): 
     if (f.ageGroup && a.ageGroup !== f.ageGroup) return false;
     if (f.maturityBand && (a.maturityBand ?? 'unknown') !== f.maturityBand) return false;
     if (f.flag) {
-      const patterns = allPatterns(a.latestFlags);
+      // "Any" and "none" are about how the athlete moved: the growth-spurt window is a stage, with its
+      // own filters (the maturity band and its own flag), not a movement fault (our choice).
+      const patterns = f.flag === 'any' || f.flag === 'none' ? movementPatterns(a.latestFlags) : allPatterns(a.latestFlags);
       if (f.flag === 'any' && patterns.length === 0) return false;
       if (f.flag === 'none' && patterns.length > 0) return false;
       if (f.flag !== 'any' && f.flag !== 'none' && !patterns.includes(f.flag)) return false;
@@ -190,7 +197,7 @@ function sortValue(a: TrendAthlete, key: SortKey): string | number {
     case 'maturityBand':
       return a.maturityBand ? BAND_ORDER[a.maturityBand]! : 9;
     case 'flags':
-      return allPatterns(a.latestFlags).length;
+      return movementPatterns(a.latestFlags).length;
     case 'daysSinceLastScreen':
       return a.daysSinceLastScreen ?? Number.MAX_SAFE_INTEGER;
     case 'rescreenDue':

@@ -175,8 +175,8 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
           testID="filter-flag"
           options={[
             { value: '', label: 'All' },
-            { value: 'any', label: 'Any flag' },
-            { value: 'none', label: 'No flag' },
+            { value: 'any', label: 'Any movement flag' },
+            { value: 'none', label: 'No movement flag' },
             ...(Object.keys(PATTERN_SHORT) as PatternId[])
               .filter((p) => patterns.includes(p) || data.athletes.some((a) => Object.values(a.latestFlags).flat().includes(p)))
               .map((p) => ({ value: p, label: PATTERN_SHORT[p] })),
