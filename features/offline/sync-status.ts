@@ -1,5 +1,6 @@
 // The one status shown on every screen: is this device online, and is everything on the server? Pure.
-import { assessmentOf, type OutboxState } from './outbox';
+// Types only: this module is in every screen's first chunk, the outbox's code is not.
+import type { OutboxState } from './outbox';
 
 export type SyncStatus =
   | { kind: 'saved' }
@@ -13,7 +14,7 @@ export function syncStatusOf(online: boolean, outbox: OutboxState): SyncStatus {
   const waiting = outbox.entries.length - refused;
   if (!online) {
     // One athlete's screen is many changes (each save, each photo, the submit): the sentence counts both.
-    const athletes = new Set(outbox.entries.map(assessmentOf).filter((a) => a !== null)).size;
+    const athletes = new Set(outbox.entries.flatMap((e) => (e.kind === 'attendance' ? [] : [e.assessmentId]))).size;
     return { kind: 'offline', waiting: outbox.entries.length, athletes };
   }
   if (refused > 0) return { kind: 'attention', refused, waiting };
