@@ -54,4 +54,9 @@ describe('date labels tell two rounds of one month apart (our choice)', () => {
   it('keeps the year apart: the same month of two seasons is not a twin', () => {
     expect([...axisDateLabels(['2025-09-15', '2026-09-14'], [0, 1]).values()]).toEqual(['Sep ’25', 'Sep ’26']);
   });
+
+  it('labels rounds of one day once (our choice)', () => {
+    const dates = ['2026-09-14', '2026-11-30', '2026-11-30', '2026-11-30', '2026-12-05'];
+    expect([...axisDateLabels(dates, [0, 1, 2, 3, 4]).values()]).toEqual(['Sep ’26', 'Nov ’26', '', '', 'Dec ’26']);
+  });
 });

@@ -42,8 +42,15 @@ const dayMonth = (iso: string) => `${Number(iso.slice(8, 10))} ${MONTHS[Number(i
 export function axisDateLabels(dates: readonly string[], points: readonly number[]): Map<number, string> {
   const labels = new Map<number, string>();
   points.forEach((p, k) => {
+    // A round on the same day as the labelled point before it shares that label (our choice: three
+    // rounds of one day read "30 Nov" once, not three times).
+    const prev = points[k - 1];
+    if (prev !== undefined && dates[prev] !== undefined && dates[prev] === dates[p]) {
+      labels.set(p, '');
+      return;
+    }
     const month = dates[p]?.slice(0, 7);
-    const twin = [points[k - 1], points[k + 1]].some((q) => q !== undefined && dates[q]?.slice(0, 7) === month);
+    const twin = [points[k - 1], points[k + 1]].some((q) => q !== undefined && dates[q] !== dates[p] && dates[q]?.slice(0, 7) === month);
     labels.set(p, dates[p] === undefined ? '' : twin ? dayMonth(dates[p]) : shortDate(dates[p]));
   });
   return labels;
