@@ -3,6 +3,8 @@
 export const PRINT_HIDE = { dataSet: { print: 'hide' } } as object;
 /** Props that mark the one region that is printed (web: `data-print-root`). */
 export const PRINT_ROOT = { dataSet: { printRoot: 'true' } } as object;
+/** A block kept on one printed page (an exercise with its athletes' names). */
+export const PRINT_KEEP = { dataSet: { printKeep: 'true' } } as object;
 export function usePrintStyles(): void {}
 export function printPage(): void {}
 export const canPrint = false;

@@ -2,6 +2,8 @@ import { useEffect } from 'react';
 
 export const PRINT_HIDE = { dataSet: { print: 'hide' } } as object;
 export const PRINT_ROOT = { dataSet: { printRoot: 'true' } } as object;
+/** A block kept on one printed page (an exercise with its athletes' names). */
+export const PRINT_KEEP = { dataSet: { printKeep: 'true' } } as object;
 
 /**
  * Printable reports (the squad trends' one page, the training sheet): only the region marked PRINT_ROOT
@@ -20,6 +22,7 @@ const CSS = `
   [data-print-root] { position: absolute; left: 0; top: 0; width: 100%; }
   [data-print="hide"] { display: none !important; }
   [data-print-root] { font-size: 11px; }
+  [data-print-keep] { break-inside: avoid; page-break-inside: avoid; }
 }`;
 
 export function usePrintStyles(): void {

@@ -12,7 +12,7 @@ import { Chips } from '@/features/ui/components/chips';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { formatDate } from '@/features/ui/format-date';
-import { canPrint, printPage, PRINT_HIDE, PRINT_ROOT, usePrintStyles } from '@/features/ui/print';
+import { canPrint, printPage, PRINT_HIDE, PRINT_KEEP, PRINT_ROOT, usePrintStyles } from '@/features/ui/print';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { useTrainingSheetQuery } from '../api/get-training-sheet';
 import { SessionsCard } from './record-session';
@@ -150,7 +150,7 @@ function SheetBody({ data }: { data: TrainingSheet }) {
       {data.exercises.length === 0 ? <Notice>Nobody in this squad has an exercise to do yet.</Notice> : null}
       <View style={[styles.grid, isTabletUp && styles.gridTwo]}>
         {data.exercises.map((e) => (
-          <View key={e.id} style={[styles.cell, isTabletUp && styles.cellTwo, isWide && styles.cellThree]}>
+          <View key={e.id} style={[styles.cell, isTabletUp && styles.cellTwo, isWide && styles.cellThree]} {...PRINT_KEEP}>
             <ExerciseCard exercise={e} resultOf={resultOf} />
           </View>
         ))}
