@@ -191,23 +191,14 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
     },
 
     /** When the assessment's round was closed, or null while it is open (or unknown). */
-    /** The round's day, for a submit: a screen keeps its round's date. */
-    async roundDayOf(assessmentId: string): Promise<string | null> {
+    /** The assessment's round: whether it is closed, and its day (a screen keeps its round's date). */
+    async roundOf(assessmentId: string): Promise<{ closedAt: Date | null; screenedOn: string } | null> {
       const [row] = await db
-        .select({ screenedOn: rounds.screenedOn })
+        .select({ closedAt: rounds.closedAt, screenedOn: rounds.screenedOn })
         .from(assessments)
         .innerJoin(rounds, eq(rounds.id, assessments.roundId))
         .where(and(eq(assessments.clubId, clubId), eq(assessments.id, assessmentId)));
-      return row?.screenedOn ?? null;
-    },
-
-    async roundClosedAtOf(assessmentId: string) {
-      const [row] = await db
-        .select({ closedAt: rounds.closedAt })
-        .from(assessments)
-        .innerJoin(rounds, eq(rounds.id, assessments.roundId))
-        .where(and(eq(assessments.clubId, clubId), eq(assessments.id, assessmentId)));
-      return row?.closedAt ?? null;
+      return row ?? null;
     },
 
     /**

@@ -314,7 +314,7 @@ export function screeningService(deps: ScreeningDeps) {
     async saveDraft(scope: ClubScope, id: string, input: SaveDraftInput): Promise<{ draftVersion: number; status: AssessmentStatus }> {
       const repo = repoFor(scope);
       const draft = validateDraft(input.draft);
-      if (await repo.roundClosedAtOf(id)) throw roundClosed();
+      if ((await repo.roundOf(id))?.closedAt) throw roundClosed();
       const saved = await repo.saveDraft(id, input.draftVersion, draft);
       if (saved) return saved;
       const current = await repo.currentDraft(id);
@@ -382,11 +382,12 @@ export function screeningService(deps: ScreeningDeps) {
     },
 
     async submit(scope: ClubScope, id: string, input: { draftVersion?: number } = {}): Promise<ResultView> {
-      if (await repoFor(scope).roundClosedAtOf(id)) throw roundClosed();
+      const round = await repoFor(scope).roundOf(id);
+      if (round?.closedAt) throw roundClosed();
       // A screen takes its round's date: one submitted into a round planned for a later day would be
       // dated ahead (ages, growth and "days since the last screen" counted from a day not yet come).
       // One day of slack for time zones (our choice).
-      const day = await repoFor(scope).roundDayOf(id);
+      const day = round?.screenedOn;
       const latest = new Date(Date.now() + 24 * 3600 * 1000).toISOString().slice(0, 10);
       if (day && day > latest) {
         throw new AppError(
