@@ -8,6 +8,7 @@ import { athletes, consents, guardianLinks, memberships, squads, users, type Rol
 import { athleteFilter, type ClubScope } from '@/server/access/scope';
 import type { Athlete, ConsentView, SquadSummary } from '@/features/athletes/api/types';
 import { latestClearances } from '@/server/care/clearance.repo';
+import { can } from '@/features/access/permissions';
 
 /** The database or a transaction: repositories work inside either. */
 export type Executor = PgDatabase<NodePgQueryResultHKT, typeof schema>;
@@ -60,7 +61,14 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
         const c = latest.find((l) => l.athleteId === row.id && l.kind === kind);
         return c ? { granted: c.granted, decidedOn: c.decidedOn } : null;
       };
-      return { ...row, consents: { photos: find('photos'), emailSummaries: find('email_summaries') }, clearance: clearance.get(row.id) ?? null };
+      const decided = clearance.get(row.id) ?? null;
+      return {
+        ...row,
+        consents: { photos: find('photos'), emailSummaries: find('email_summaries') },
+        // The physiotherapist's words are for the team (they may name a clinic or a condition): a
+        // parent reads the decision only, and the family summary's own wording of it.
+        clearance: decided && !can(scope.role, 'roster.read') ? { ...decided, detail: '' } : decided,
+      };
     });
   }
 

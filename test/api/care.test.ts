@@ -159,6 +159,16 @@ describe('clearance', () => {
     const byName = Object.fromEntries(list.body.athletes.map((a: { firstName: string; clearance: unknown }) => [a.firstName, a.clearance]));
     expect(byName.Kit).toMatchObject({ status: 'referred' });
     expect(byName.Lou).toBeNull();
+
+    // The physiotherapist's words are for the team (they may name a clinic or a condition): a parent's
+    // responses carry the decision only, in the list and the profile (they carried the words).
+    const own = await as.parentA.get(`/api/athletes/${ids.kit}`);
+    expect(own.status).toBe(200);
+    expect(own.body.athlete.clearance).toMatchObject({ status: 'referred', detail: '' });
+    const ownList = await as.parentA.get('/api/athletes');
+    expect(ownList.body.athletes.find((a: { firstName: string }) => a.firstName === 'Kit').clearance).toMatchObject({ status: 'referred', detail: '' });
+    expect(JSON.stringify(own.body) + JSON.stringify(ownList.body)).not.toContain('county clinic');
+    expect(athlete.body.athlete.clearance.detail).toBe('Sports doctor at the county clinic');
   });
 });
 
