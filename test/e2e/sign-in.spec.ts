@@ -160,6 +160,10 @@ test("a parent cannot open another family's athlete", async ({ page, request }) 
   await expect(page.getByTestId('home-parent')).toBeVisible();
   await page.goto(`/athletes/${stranger.id}`);
   await expect(page.getByText('You can only see the athletes linked to you.')).toBeVisible();
+  // The staff's roster is not a parent's page: it says so and leads home.
+  await page.goto('/athletes');
+  await expect(page.getByTestId('roster-staff-only')).toContainText('your home page');
+  await expect(page.getByTestId('show-archived')).toHaveCount(0);
 });
 
 test('an admin invites someone and the e-mail arrives in the local mailbox', async ({ page }) => {
