@@ -76,7 +76,7 @@ function Summary({ summary, releasedAt }: { summary: FamilySummary; releasedAt: 
   return (
     <Card testID="family-summary">
       <Text variant="small">
-        Screen of {formatDate(summary.screenedOn)} · sent {formatDate(releasedAt)}
+        Screen of {formatDate(summary.screenedOn)} · shared with you {formatDate(releasedAt)}
       </Text>
       <Section title="What was checked" items={summary.checked} />
       <Section title="What we saw" items={summary.seen} />
@@ -172,7 +172,10 @@ function Earlier({ releases }: { releases: SummaryRelease[] }) {
       <Text variant="heading">Earlier summaries</Text>
       {releases.map((r) => (
         <View key={r.id} style={styles.list}>
-          <Text variant="label">Screen of {formatDate(r.summary.screenedOn)}</Text>
+          {/* A screen shared again (after a physiotherapist's decision) is listed with the day it was shared. */}
+          <Text variant="label">
+            Screen of {formatDate(r.summary.screenedOn)} · as shared {formatDate(r.releasedAt)}
+          </Text>
           {r.summary.seen.map((s) => (
             <Text key={s} variant="small">
               • {s}
