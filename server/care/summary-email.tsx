@@ -60,7 +60,18 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName }
           </Section>
           <Section>
             <Heading as="h2" style={styles.h2}>
-              See how to do each exercise
+              Please note
+            </Heading>
+            {/* At the size of the rest: what to do if it hurts is not small print. */}
+            {summary.cautions.map((c) => (
+              <Text key={c} style={styles.text}>
+                {c}
+              </Text>
+            ))}
+          </Section>
+          <Section>
+            <Heading as="h2" style={styles.h2}>
+              {summary.exercises.length > 0 ? 'See how to do each exercise' : `${name}'s page in Squadline`}
             </Heading>
             <Text style={styles.text}>
               <Link href={viewUrl} style={styles.link}>{`Open ${name}'s page in Squadline`}</Link>
@@ -68,11 +79,6 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName }
             <Text style={styles.text}>{summary.contact}</Text>
           </Section>
           <Hr />
-          {summary.cautions.map((c) => (
-            <Text key={c} style={styles.small}>
-              {c}
-            </Text>
-          ))}
           <Text style={styles.small}>
             {'You receive this because your club recorded your agreement to e-mailed summaries. '}
             <Link href={unsubscribeUrl} style={styles.link}>

@@ -89,6 +89,9 @@ describe('the family summary e-mail', () => {
     expect(toMum.text).toMatch(/Hello Mo Ames/);
     expect(toMum.text).toMatch(/what kit will work on/i);
     expect(toMum.text).toMatch(/not a diagnosis/);
+    // The cautions come under their own heading before the link and the sign-off, not as small print after them.
+    expect(toMum.text.indexOf('PLEASE NOTE') >= 0 ? toMum.text.indexOf('PLEASE NOTE') : toMum.text.indexOf('Please note')).toBeGreaterThan(-1);
+    expect(toMum.text.indexOf('not a diagnosis')).toBeLessThan(toMum.text.indexOf(`http://squadline.test/family/${ids.kit}`));
     expect(toMum.html).toContain('<html');
     expect(toMum.html).toMatch(/Hello Mo Ames/);
     expect(toMum.html).not.toMatch(/<img/i);
