@@ -170,7 +170,7 @@ export function progressRepo(db: Executor, scope: ClubScope) {
               l.assessment_id, l.screened_on, l.flag_ids, l.flag_sides, l.maturity_band, l.rescreen_date,
               (select count(*) from unnest(tk.days) d where d > l.screened_on)::int,
               (select count(*) from recent r where r.held_on > l.screened_on)::int,
-              coalesce(ar.plan_status = 'clearance-needed' and (c.created_at is null or c.created_at < ar.created_at), false))
+              coalesce(ar.plan_status = 'clearance-needed' and c.status is distinct from 'referred' and (c.created_at is null or c.created_at < ar.created_at), false))
               order by m.last_name, m.first_name, m.id), '[]')
             from athletes m
             left join athlete_latest_screens l on l.athlete_id = m.id

@@ -187,6 +187,10 @@ describe('refer on', () => {
     expect(cautions).toMatch(/Until a physiotherapist clears the athlete, no loaded strength work and no landing work/);
     const care = await as.tester.get(`/api/assessments/${ids.kitScreen}/care`);
     expect(care.body.care.block).toMatchObject({ blocked: true, reason: 'referred' });
+    // Squad trends say "Refer on", not "waiting for clearance", though version 4 (worked out after the
+    // referral) needs one: the referral is the decision in force.
+    const trends = await as.coach.get(`/api/squads/${ids.squad}/trends`);
+    expect(trends.body.athletes.find((a: { id: string }) => a.id === ids.kit)).toMatchObject({ clearance: 'referred', awaitingClearance: false });
     expect(care.body.care.reviewedByName).toBe('Phil Physio');
 
     const family = await as.parent.get(`/api/athletes/${ids.kit}/summary`);
