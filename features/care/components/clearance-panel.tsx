@@ -68,6 +68,7 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
           {form.values.status ? (
             <TextField
               label={DETAIL_LABEL[form.values.status]}
+              hint="Read by the club's coaches and testers (training sheet, athlete page), never by the family: the family reads the decision only."
               testID="clearance-detail"
               value={form.values.detail}
               onChangeText={form.handleChange('detail')}

@@ -51,7 +51,15 @@ function NoteItem({ note }: { note: NoteView }) {
       </Text>
       {editing ? (
         <View style={styles.form}>
-          <TextField label="Correct the note" value={text} onChangeText={setText} multiline error={edit.error ? messageOf(edit.error) : undefined} />
+          <TextField
+            label="Correct the note"
+            value={text}
+            onChangeText={setText}
+            multiline
+            numberOfLines={5}
+            style={styles.noteBox}
+            error={edit.error ? messageOf(edit.error) : undefined}
+          />
           <View style={styles.row}>
             <Button label="Save correction" busy={edit.isPending} onPress={() => edit.mutate({ id: note.id, text }, { onSuccess: () => setEditing(false) })} />
             <Button label="Cancel" tone="quiet" onPress={() => setEditing(false)} />
@@ -85,6 +93,8 @@ function NoteForm({ athleteId, assessmentId }: { athleteId: string; assessmentId
         label="New note"
         testID="note-text"
         multiline
+        numberOfLines={5}
+        style={styles.noteBox}
         value={form.values.text}
         onChangeText={form.handleChange('text')}
         error={form.submitCount > 0 && form.errors.text}
@@ -111,4 +121,6 @@ const styles = StyleSheet.create({
   family: { borderLeftColor: colors.pine },
   form: { gap: space.md },
   row: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
+  // Five lines or so: a note is proofread before a family reads it.
+  noteBox: { minHeight: 120, paddingVertical: 8, textAlignVertical: 'top' },
 });
