@@ -107,6 +107,12 @@ test('an admin cancels an invitation and removes a member who left, each after a
   await expect(joined.p2.getByTestId('home-tester')).toBeVisible();
   await page.reload();
   const member = page.locator('[data-testid^="member-"]').filter({ hasText: name });
+  // A change of role says what it does before it is saved, and cannot be saved unchanged.
+  await member.getByTestId('member-change-role').click();
+  await expect(member.getByTestId('member-role-save')).toBeDisabled();
+  await member.getByTestId('member-role-physio').click();
+  await expect(member.getByTestId('member-role-effect')).toContainText(`${name} becomes a physiotherapist at once`);
+  await member.getByRole('button', { name: 'Cancel' }).click();
   await member.getByTestId('member-remove').click();
   await expect(member).toContainText('They lose access at once');
   await page.screenshot({ path: testInfo.outputPath('remove-member.png'), fullPage: true });

@@ -31,7 +31,13 @@ export function PeoplePanel() {
         <Text variant="heading">Members</Text>
         {members.error ? <Notice tone="error">{members.error.message}</Notice> : null}
         {members.data?.members.map((m) => (
-          <MemberRow key={m.userId} member={m} manage={manage && m.userId !== me.user.id} clubId={membership.clubId} />
+          <MemberRow
+            key={m.userId}
+            member={m}
+            manage={manage && m.userId !== me.user.id}
+            clubId={membership.clubId}
+            onlyHeadCoach={m.role === 'head_coach' && members.data.members.filter((x) => x.role === 'head_coach').length === 1}
+          />
         ))}
         {members.data && members.data.pending.length > 0 ? (
           <>
@@ -53,7 +59,7 @@ export function PeoplePanel() {
 }
 
 /** A member, and for an admin (not on their own row) a change of role or removal, each confirmed. */
-function MemberRow({ member: m, manage, clubId }: { member: Member; manage: boolean; clubId: string }) {
+function MemberRow({ member: m, manage, clubId, onlyHeadCoach }: { member: Member; manage: boolean; clubId: string; onlyHeadCoach: boolean }) {
   const [mode, setMode] = useState<'idle' | 'role' | 'remove'>('idle');
   const [role, setRole] = useState<Role>(m.role);
   const change = useChangeRoleMutation(clubId);
@@ -81,10 +87,17 @@ function MemberRow({ member: m, manage, clubId }: { member: Member; manage: bool
             options={ROLE_VALUES.map((r) => ({ value: r, label: ROLE_LABELS[r] }))}
             testID="member-role"
           />
+          {role !== m.role ? (
+            <Text variant="small" testID="member-role-effect">
+              {`${m.displayName} becomes a ${ROLE_LABELS[role].toLowerCase()} at once, with what that role may open and do.`}
+              {onlyHeadCoach ? ' The club then has no head coach: nobody can reopen a closed round.' : ''}
+            </Text>
+          ) : null}
           <View style={styles.rowActions}>
             <Button
               label="Save the role"
               testID="member-role-save"
+              disabled={role === m.role}
               busy={change.isPending}
               onPress={() => change.mutate({ userId: m.userId, role }, { onSuccess: () => setMode('idle') })}
             />
