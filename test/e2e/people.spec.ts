@@ -45,12 +45,15 @@ test('an invitation names the children it links; a parent without a linked child
   const withChild = `parent-${testInfo.project.name}-${Date.now()}@squadline.test`;
   await page.getByTestId('invite-email').fill(withChild);
   await page.getByRole('radio', { name: 'Parent or guardian' }).click();
+  // Before a child is chosen the form says what that would mean; choosing one clears it.
+  await expect(page.getByTestId('invite-no-child')).toContainText('the parent will see nothing');
   await page.getByTestId('invite-child-filter').fill('Maya');
   await page
     .getByTestId('invite-children')
     .getByText(/Maya Okafor/)
     .click();
   await expect(page.getByTestId('invite-children')).toContainText('✓ Maya Okafor');
+  await expect(page.getByTestId('invite-no-child')).toHaveCount(0);
   await page.screenshot({ path: testInfo.outputPath('invite-parent.png'), fullPage: true });
   await page.getByTestId('invite-submit').click();
   await expect(page.getByText('Invitation sent.')).toBeVisible();

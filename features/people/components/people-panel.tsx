@@ -13,7 +13,7 @@ import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
-import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { useCancelInvitationMutation, useChangeRoleMutation, useInviteMutation, useMembersQuery, useRemoveMemberMutation } from '../api/members';
 import type { Member, PendingInvite } from '../contract';
 import type { Role } from '@/features/access/permissions';
@@ -261,6 +261,11 @@ function ChildPicker({ selected, onChange, error }: { selected: string[]; onChan
         </Pressable>
       ))}
       {words && matches.length === 0 ? <Text variant="small">No child of the club matches.</Text> : null}
+      {chosen.length === 0 && !error ? (
+        <Text variant="small" style={styles.caution} testID="invite-no-child">
+          No child chosen: the parent will see nothing until a child is linked to them from the child&apos;s page.
+        </Text>
+      ) : null}
       {error ? <Text style={{ color: colors.brick }}>{error}</Text> : null}
     </View>
   );
@@ -285,4 +290,5 @@ const styles = StyleSheet.create({
   },
   choiceOn: { borderColor: colors.pine, backgroundColor: colors.pine },
   choiceTextOn: { color: '#fff' },
+  caution: { color: colors.amber, fontFamily: fonts.bold },
 });
