@@ -8,6 +8,7 @@ describe('auditDetailsInWords', () => {
     [{ releaseId: 'a1', update: 'clearance', clearanceId: 'c1', replaces: 'r0', emailed: false }, 'changed by: clearance · e-mailed: no'],
     [{ count: 3, visibilities: ['team', 'family'] }, 'notes read: 3 · shared with: Team only, Shared with family'],
     [{ previousText: 'old words', before: { a: 1 }, after: { a: 2 } }, ''],
+    [{ previousText: 'old words', previousVisibility: 'family', visibility: 'team' }, 'was shared with: Shared with family · shared with: Team only'],
     [{ to: 'parent@example.test', subject: 'Summary', releaseId: 'x' }, 'to: parent@example.test · subject: Summary'],
     [{ somethingNew: 7, nested: { a: 1 } }, 'somethingNew: 7'],
     [{ kind: 'photos', granted: false, via: 'family page' }, 'about: photos · answer: no · through: family page'],

@@ -13,6 +13,7 @@ const LABELS: Record<string, string> = {
   status: 'decision',
   detail: 'note',
   visibility: 'shared with',
+  previousVisibility: 'was shared with',
   visibilities: 'shared with',
   count: 'notes read',
   reason: 'reason',
@@ -39,6 +40,7 @@ const LABELS: Record<string, string> = {
 const VALUE_WORDS: Record<string, Record<string, string>> = {
   status: CLEARANCE_LABELS,
   visibility: NOTE_VISIBILITY_LABELS,
+  previousVisibility: NOTE_VISIBILITY_LABELS,
   visibilities: NOTE_VISIBILITY_LABELS,
   kind: { photos: 'photos', email_summaries: 'e-mail summaries' },
   role: ROLE_LABELS,

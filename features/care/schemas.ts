@@ -19,7 +19,13 @@ export const noteSchema = object({
 });
 export type NoteInput = InferType<typeof noteSchema>;
 
-export const noteEditSchema = object({ text: noteText });
+/** A correction within the window: the text, and who may read it (a note shared by mistake is taken back). */
+export const noteEditSchema = object({
+  text: noteText,
+  visibility: string()
+    .oneOf([...NOTE_VISIBILITIES], 'Choose "team only" or "shared with family".')
+    .optional(),
+});
 export type NoteEditInput = InferType<typeof noteEditSchema>;
 
 export const clearanceSchema = object({

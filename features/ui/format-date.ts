@@ -55,3 +55,10 @@ export function formatDateTime(value: string, options: { locale?: string; timeZo
     ...(options.timeZone ? { timeZone: options.timeZone } : {}),
   }).format(d);
 }
+
+/** The time of day of a timestamp ("14:05"), in the user's locale and time zone. */
+export function formatTime(value: string, options: { locale?: string } = {}): string {
+  const d = new Date(value);
+  if (Number.isNaN(d.getTime())) return value;
+  return formatter(options.locale, { hour: '2-digit', minute: '2-digit' }).format(d);
+}

@@ -38,7 +38,14 @@ export function notesRepo(db: Executor, scope: ClubScope) {
     /** Locks the note's row so two saves by the author cannot race the edit window. */
     async lock(id: string) {
       const [row] = await db
-        .select({ id: careNotes.id, authorId: careNotes.authorId, createdAt: careNotes.createdAt, athleteId: careNotes.athleteId, text: careNotes.text })
+        .select({
+          id: careNotes.id,
+          authorId: careNotes.authorId,
+          createdAt: careNotes.createdAt,
+          athleteId: careNotes.athleteId,
+          text: careNotes.text,
+          visibility: careNotes.visibility,
+        })
         .from(careNotes)
         .where(and(eq(careNotes.clubId, scope.clubId), eq(careNotes.id, id)))
         .for('update');
@@ -51,10 +58,10 @@ export function notesRepo(db: Executor, scope: ClubScope) {
         .returning({ id: careNotes.id });
       return row!.id;
     },
-    async updateText(id: string, text: string) {
+    async updateText(id: string, text: string, visibility?: NoteVisibility) {
       await db
         .update(careNotes)
-        .set({ text })
+        .set({ text, ...(visibility ? { visibility } : {}) })
         .where(and(eq(careNotes.clubId, scope.clubId), eq(careNotes.id, id)));
     },
   };

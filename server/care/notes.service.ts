@@ -109,7 +109,8 @@ export function notesService(db: Db, scope: ClubScope) {
             `Notes can be corrected for ${NOTE_EDIT_WINDOW_MINUTES} minutes after writing; this one is now kept as written. Add a new note with the correction.`,
           );
         }
-        await r.updateText(id, input.text);
+        const visibility = input.visibility as NoteVisibility | undefined;
+        await r.updateText(id, input.text, visibility);
         await recordAudit(tx, {
           clubId: scope.clubId,
           actorId: scope.userId,
@@ -117,7 +118,10 @@ export function notesService(db: Db, scope: ClubScope) {
           subjectKind: 'note',
           subjectId: id,
           athleteId: note.athleteId,
-          detail: { previousText: note.text },
+          detail: {
+            previousText: note.text,
+            ...(visibility && visibility !== note.visibility ? { previousVisibility: note.visibility, visibility } : {}),
+          },
         });
       });
       return noteView((await repo.get(id))!, scope, now);

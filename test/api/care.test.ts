@@ -124,6 +124,26 @@ describe('notes', () => {
     expect(late.body.error.code).toBe('note_locked');
     const kept = await as.physio.get(`/api/notes/${ids.teamNote}`);
     expect(kept.body.note).toMatchObject({ text: 'Tender below the right kneecap after drop landings.', canEdit: false });
+
+    // A note shared with the family by mistake is taken back to the team within the window, and put
+    // back again: the parent stops and starts reading it; the trail keeps who could read it before.
+    const back = await as.physio
+      .patch(`/api/notes/${ids.familyNote}`)
+      .send({ text: 'Kit can keep playing; do the ankle exercises at home.', visibility: 'team' });
+    expect(back.status).toBe(200);
+    expect(back.body.note.visibility).toBe('team');
+    expect((await as.parentA.get(`/api/athletes/${ids.kit}/notes`)).body.notes).toEqual([]);
+    expect((await as.parentA.get(`/api/notes/${ids.familyNote}`)).status).toBe(403);
+    const trail = await as.admin.get(`/api/audit?athleteId=${ids.kit}&subject=note`);
+    expect(trail.body.events.map((e: { action: string; detail: Record<string, unknown> }) => e.detail)).toEqual(
+      expect.arrayContaining([expect.objectContaining({ previousVisibility: 'family', visibility: 'team' })]),
+    );
+    expect((await as.physio.patch(`/api/notes/${ids.familyNote}`).send({ text: 'x', visibility: 'everyone' })).status).toBe(400);
+    await as.physio
+      .patch(`/api/notes/${ids.familyNote}`)
+      .send({ text: 'Kit can keep playing; do the ankle exercises at home.', visibility: 'family' })
+      .expect(200);
+    expect((await as.parentA.get(`/api/athletes/${ids.kit}/notes`)).body.notes.map((n: { id: string }) => n.id)).toEqual([ids.familyNote]);
   });
 
   it('refuses bad input with the usual error shape and saves nothing', async () => {

@@ -2,6 +2,7 @@ import { queryOptions, useMutation, useQuery } from '@tanstack/react-query';
 import { api } from '@/features/api/client';
 import { useActiveClub } from '@/features/session/active-club';
 import type { NoteEditInput, NoteInput } from '../schemas';
+import type { NoteVisibility } from '../choices';
 import type { NoteView } from '../types';
 import { useCareChanged } from './invalidate';
 import { CARE_STALE_MS, careKeys } from './keys';
@@ -26,5 +27,8 @@ export function useAddNoteMutation(athleteId: string) {
 
 export function useEditNoteMutation() {
   const changed = useCareChanged();
-  return useMutation({ mutationFn: ({ id, text }: { id: string; text: string }) => editNote(id, { text }), onSuccess: changed });
+  return useMutation({
+    mutationFn: ({ id, text, visibility }: { id: string; text: string; visibility?: NoteVisibility }) => editNote(id, { text, visibility }),
+    onSuccess: changed,
+  });
 }

@@ -15,7 +15,7 @@ import { NOTE_EDIT_WINDOW_MINUTES, NOTE_VISIBILITY_LABELS, type NoteVisibility }
 import { noteSchema } from '../schemas';
 import type { NoteView } from '../types';
 import { Chips } from '@/features/ui/components/chips';
-import { formatDateTime } from '@/features/ui/format-date';
+import { formatDateTime, formatTime } from '@/features/ui/format-date';
 
 const VISIBILITY_OPTIONS = (['team', 'family'] as const).map((v) => ({ value: v, label: NOTE_VISIBILITY_LABELS[v] }));
 
@@ -42,6 +42,7 @@ export function NotesPanel({ athleteId, assessmentId }: { athleteId: string; ass
 function NoteItem({ note }: { note: NoteView }) {
   const [editing, setEditing] = useState(false);
   const [text, setText] = useState(note.text);
+  const [visibility, setVisibility] = useState<NoteVisibility>(note.visibility);
   const edit = useEditNoteMutation();
   return (
     <View style={[styles.note, note.visibility === 'family' ? styles.family : styles.team]} testID="note">
@@ -60,15 +61,30 @@ function NoteItem({ note }: { note: NoteView }) {
             style={styles.noteBox}
             error={edit.error ? messageOf(edit.error) : undefined}
           />
+          {/* Shared with the family by mistake: taken back to the team while it can still be corrected. */}
+          <Chips
+            variant="form"
+            label="Who may read it"
+            options={VISIBILITY_OPTIONS}
+            value={visibility}
+            onChange={setVisibility}
+            testID="note-edit-visibility"
+          />
           <View style={styles.row}>
-            <Button label="Save correction" busy={edit.isPending} onPress={() => edit.mutate({ id: note.id, text }, { onSuccess: () => setEditing(false) })} />
+            <Button
+              label="Save correction"
+              busy={edit.isPending}
+              onPress={() => edit.mutate({ id: note.id, text, visibility }, { onSuccess: () => setEditing(false) })}
+            />
             <Button label="Cancel" tone="quiet" onPress={() => setEditing(false)} />
           </View>
         </View>
       ) : (
         <Text>{note.text}</Text>
       )}
-      {note.canEdit && !editing ? <Button label={`Correct (until ${note.editableUntil.slice(11, 16)})`} tone="quiet" onPress={() => setEditing(true)} /> : null}
+      {note.canEdit && !editing ? (
+        <Button label={`Correct (until ${formatTime(note.editableUntil)})`} tone="quiet" onPress={() => setEditing(true)} testID="note-correct" />
+      ) : null}
     </View>
   );
 }
