@@ -22,7 +22,17 @@ test('a physiotherapist reviews a screen, adds a note, previews the family e-mai
   await page.getByTestId('note-text').fill('Watch the right knee on landings; re-check in six weeks.');
   await page.getByTestId('note-visibility').getByRole('radio', { name: 'Team only' }).click();
   await page.getByTestId('note-add').click();
-  await expect(page.getByTestId('note').filter({ hasText: 'Watch the right knee on landings' })).toBeVisible();
+  const note = page.getByTestId('note').filter({ hasText: 'Watch the right knee on landings' });
+  await expect(note).toBeVisible();
+  // Within the correction window, who may read it can change too (shared by mistake, taken back).
+  await note.getByTestId('note-correct').click();
+  await note.getByTestId('note-edit-visibility').getByRole('radio', { name: 'Shared with family' }).click();
+  await note.getByRole('button', { name: 'Save correction' }).click();
+  await expect(note).toContainText('Shared with family');
+  await note.getByTestId('note-correct').click();
+  await note.getByTestId('note-edit-visibility').getByRole('radio', { name: 'Team only' }).click();
+  await note.getByRole('button', { name: 'Save correction' }).click();
+  await expect(note).toContainText('Team only');
 
   await page.getByTestId('mark-reviewed').click();
   await expect(page.getByTestId('review-state')).toContainText('Reviewed by Sam Adeyemi');
