@@ -1,4 +1,5 @@
 import { stringify } from 'csv-stringify/sync';
+import { auditActionInWords, auditDetailsInWords, auditSubjectInWords } from '@/features/care/audit-details';
 import { Router } from 'express';
 import { ValidationError } from 'yup';
 import type { Db } from '@/db/client';
@@ -8,7 +9,8 @@ import { badRequest } from '@/server/http/errors';
 import { fieldErrors } from '@/server/http/validate';
 import { listAudit } from './audit.repo';
 
-export const AUDIT_CSV_COLUMNS = ['time (UTC)', 'person', 'action', 'record', 'record id', 'athlete', 'details'] as const;
+/** The stored codes and details as recorded, then the same event in the trail's words on screen. */
+export const AUDIT_CSV_COLUMNS = ['time (UTC)', 'person', 'action', 'record', 'record id', 'athlete', 'details', 'in words'] as const;
 
 /** The audit trail for admins: filters in the query string, `?format=csv` for the export. */
 export function auditRouter(db: Db) {
@@ -31,7 +33,16 @@ export function auditRouter(db: Db) {
       return;
     }
     const body = stringify(
-      rows.map((r) => [r.at, r.actorName ?? 'system', r.action, r.subjectKind, r.subjectId ?? '', r.athleteName ?? '', JSON.stringify(r.detail)]),
+      rows.map((r) => [
+        r.at,
+        r.actorName ?? 'system',
+        r.action,
+        r.subjectKind,
+        r.subjectId ?? '',
+        r.athleteName ?? '',
+        JSON.stringify(r.detail),
+        [`${auditActionInWords(r.action)} ${auditSubjectInWords(r.subjectKind)}`, auditDetailsInWords(r.detail)].filter(Boolean).join(': '),
+      ]),
       { header: true, columns: [...AUDIT_CSV_COLUMNS] },
     );
     res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': 'attachment; filename="squadline-audit.csv"' });

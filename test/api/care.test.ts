@@ -387,8 +387,11 @@ describe('audit trail', () => {
     expect(csv.status).toBe(200);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
     const lines = csv.text.trim().split('\n');
-    expect(lines[0]).toBe('time (UTC),person,action,record,record id,athlete,details');
+    expect(lines[0]).toBe('time (UTC),person,action,record,record id,athlete,details,in words');
     expect(lines.length).toBeGreaterThan(1);
     expect(lines.slice(1).every((l) => l.includes('parent.a@riverside.test'))).toBe(true);
+    // The last column says each event as the trail on screen does.
+    const clearanceCsv = await as.admin.get('/api/audit?format=csv&subject=clearance');
+    expect(clearanceCsv.text).toMatch(/decision: Refer on/);
   });
 });

@@ -160,7 +160,7 @@ test('an admin reads the audit trail, filters it and exports it as CSV', async (
   const csv = await page.request.get('/api/audit?format=csv&subject=clearance');
   expect(csv.headers()['content-type']).toContain('text/csv');
   const lines = (await csv.text()).trim().split('\n');
-  expect(lines[0]).toBe('time (UTC),person,action,record,record id,athlete,details');
+  expect(lines[0]).toBe('time (UTC),person,action,record,record id,athlete,details,in words');
   expect(lines.length).toBeGreaterThan(1);
 });
 
