@@ -224,7 +224,7 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
     </View>
   );
 
-  const charts = (
+  const shareChart = (
     <View style={styles.stack}>
       {active > 0 ? (
         <Text variant="small" testID="charts-filter-note">
@@ -232,56 +232,69 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
         </Text>
       ) : null}
       <FlagShareChart rounds={data.rounds} title="Share of the squad with each flag, per round" testID="flag-share-chart" />
-      {kneeIds.length ? (
-        <>
-          <View {...PRINT_HIDE}>
-            <Chips
-              label="Knee angle shown"
-              value={kneeId}
-              onChange={setKneeId}
-              testID="knee-choice"
-              options={kneeIds.map((k) => ({ value: k, label: kneeAngleName(k) }))}
-            />
-          </View>
-          <KneeDistributionChart rounds={data.rounds} kneeAngles={data.kneeAngles} measurementId={kneeId} name={kneeAngleName(kneeId)} />
-          {screenedRounds.length >= 2 ? (
-            <>
-              <View style={styles.stack} {...PRINT_HIDE}>
-                <Chips label="From round" value={fromId} onChange={setFromId} options={screenedRounds.map((r) => ({ value: r.id, label: r.name }))} />
-                <Chips label="To round" value={toId} onChange={setToId} options={screenedRounds.map((r) => ({ value: r.id, label: r.name }))} />
-              </View>
-              {from && to && from.id !== to.id && rows.length === 0 ? (
-                <Text variant="small">No athlete matches the filters, so there is no change to draw.</Text>
-              ) : from && to && from.id !== to.id ? (
-                <ChangeChart
-                  athletes={rows}
-                  rounds={data.rounds}
-                  kneeAngles={data.kneeAngles}
-                  from={from}
-                  to={to}
-                  measurementId={kneeId}
-                  name={kneeAngleName(kneeId)}
-                />
-              ) : null}
-            </>
-          ) : null}
-        </>
-      ) : null}
     </View>
   );
+  const kneeChoice = kneeIds.length ? (
+    <View {...PRINT_HIDE}>
+      <Chips
+        label="Knee angle shown"
+        value={kneeId}
+        onChange={setKneeId}
+        testID="knee-choice"
+        options={kneeIds.map((k) => ({ value: k, label: kneeAngleName(k) }))}
+      />
+    </View>
+  ) : null;
+  const distribution = kneeIds.length ? (
+    <KneeDistributionChart rounds={data.rounds} kneeAngles={data.kneeAngles} measurementId={kneeId} name={kneeAngleName(kneeId)} />
+  ) : null;
+  const change =
+    kneeIds.length && screenedRounds.length >= 2 ? (
+      <View style={styles.stack}>
+        <View style={styles.stack} {...PRINT_HIDE}>
+          <Chips label="From round" value={fromId} onChange={setFromId} options={screenedRounds.map((r) => ({ value: r.id, label: r.name }))} />
+          <Chips label="To round" value={toId} onChange={setToId} options={screenedRounds.map((r) => ({ value: r.id, label: r.name }))} />
+        </View>
+        {from && to && from.id !== to.id && rows.length === 0 ? (
+          <Text variant="small">No athlete matches the filters, so there is no change to draw.</Text>
+        ) : from && to && from.id !== to.id ? (
+          <ChangeChart
+            athletes={rows}
+            rounds={data.rounds}
+            kneeAngles={data.kneeAngles}
+            from={from}
+            to={to}
+            measurementId={kneeId}
+            name={kneeAngleName(kneeId)}
+          />
+        ) : null}
+      </View>
+    ) : null;
 
   return (
     <View style={styles.stack}>
       {controls}
       {isWide ? (
-        <View style={styles.row}>
-          <View style={styles.tableCol}>{table}</View>
-          <View style={styles.chartCol}>{charts}</View>
-        </View>
+        // The width used: the table beside the season's flag shares, then the knee angles' two charts
+        // side by side under both (they stacked in the narrow column, leaving the table's side empty).
+        <>
+          <View style={styles.row}>
+            <View style={styles.tableCol}>{table}</View>
+            <View style={styles.chartCol}>{shareChart}</View>
+          </View>
+          {kneeChoice}
+          <View style={styles.row}>
+            <View style={styles.flex}>{distribution}</View>
+            <View style={styles.flex}>{change}</View>
+          </View>
+        </>
       ) : (
         <>
           {table}
-          {charts}
+          {shareChart}
+          {kneeChoice}
+          {distribution}
+          {change}
         </>
       )}
       {compare}
