@@ -1,8 +1,22 @@
 /**
  * Brings the element with this id (a view's `nativeID` on the web) to the top of the screen. Does nothing
  * where there is no document (native), so callers need not ask.
+ *
+ * `settle`: for a page still drawing what sits above the element (charts loading in the background),
+ * the element is brought back to the top each time the drawing moves it, for a second and a half after
+ * the tap (our choice of time).
  */
-export function scrollToId(id: string, smooth = false): void {
+export function scrollToId(id: string, smooth = false, settle = false): void {
   if (typeof document === 'undefined') return;
-  document.getElementById(id)?.scrollIntoView({ block: 'start', ...(smooth ? { behavior: 'smooth' as const } : {}) });
+  const go = (behaviour: 'smooth' | 'auto') => document.getElementById(id)?.scrollIntoView({ block: 'start', behavior: behaviour });
+  go(smooth ? 'smooth' : 'auto');
+  if (!settle) return;
+  let checks = 0;
+  const timer = setInterval(() => {
+    checks += 1;
+    const top = document.getElementById(id)?.getBoundingClientRect().top;
+    // Moved away by something drawn above it (a smooth scroll still under way lands within the first checks).
+    if (top !== undefined && checks > 2 && Math.abs(top) > 120) go('auto');
+    if (checks >= 6) clearInterval(timer);
+  }, 250);
 }

@@ -257,3 +257,16 @@ test("the plan sets held-back work apart with the reason, and follows the physio
   await page.setContent(preview.html);
   await page.screenshot({ path: shots('summary-email-referred', project), fullPage: true });
 });
+
+test("an athlete's page shows the clearance in force at the top, and its clearance and notes are one tap away", async ({ page }) => {
+  await signIn(page, 'physio@squadline.test');
+  await expect(page.getByTestId('home-physio')).toBeVisible();
+  // A demo athlete referred on (the demo records one).
+  const { clearances } = (await (await page.request.get('/api/clearances')).json()) as { clearances: Record<string, { status: string }> };
+  const referred = Object.entries(clearances).find(([, c]) => c.status === 'referred')?.[0];
+  expect(referred, 'a demo athlete referred on').toBeDefined();
+  await page.goto(`/athletes/${referred}`);
+  await expect(page.getByTestId('clearance-badge').first()).toContainText('Refer on');
+  await page.getByTestId('to-athlete-care').click();
+  await expect(page.getByTestId('clearance-panel')).toBeInViewport();
+});

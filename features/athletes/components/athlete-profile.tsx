@@ -1,4 +1,7 @@
-import { can } from '@/features/access/permissions';
+import { can, isStaff } from '@/features/access/permissions';
+import { ATHLETE_CARE_ANCHOR } from '@/features/care/components/athlete-care';
+import { ClearanceBadge } from '@/features/care/components/clearance-badge';
+import { scrollToId } from '@/features/ui/scroll-to';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useActiveClub } from '@/features/session/active-club';
@@ -38,6 +41,7 @@ export function AthleteProfile({ id }: { id: string }) {
         </Text>
         <View style={styles.tags}>
           <Text variant="small">{a.squadName ?? 'No squad'}</Text>
+          <ClearanceBadge clearance={a.clearance} />
           {a.archived ? (
             <View style={styles.archivedTag} testID="archived-tag">
               <Text variant="small" style={styles.archivedText}>
@@ -46,6 +50,16 @@ export function AthleteProfile({ id }: { id: string }) {
             </View>
           ) : null}
         </View>
+        {isStaff(membership.role) ? (
+          // The physiotherapist's decision and the notes sit below the history's charts: one tap away.
+          <Button
+            tone="quiet"
+            label="Clearance and notes ↓"
+            onPress={() => scrollToId(ATHLETE_CARE_ANCHOR, true, true)}
+            testID="to-athlete-care"
+            style={styles.toCare}
+          />
+        ) : null}
       </View>
       <View style={[styles.cols, isTabletUp && styles.colsWide]}>
         <Card style={isTabletUp ? [styles.col, styles.colMain] : undefined}>
@@ -110,6 +124,7 @@ const styles = StyleSheet.create({
   archivedTag: { backgroundColor: colors.amberSoft, borderRadius: radius.sm, paddingHorizontal: space.sm, paddingVertical: 2 },
   archivedText: { color: colors.amber, fontFamily: fonts.bold },
   cols: { gap: space.lg },
+  toCare: { alignSelf: 'flex-start' },
   colsWide: { flexDirection: 'row', alignItems: 'flex-start' },
   col: { flexGrow: 1, flexBasis: 0, minWidth: 0 },
   colMain: { flexGrow: 2 },

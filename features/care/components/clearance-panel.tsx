@@ -77,6 +77,9 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
           ) : null}
           {form.status ? <Notice tone="error">{String(form.status)}</Notice> : null}
           <Button label="Record clearance" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="clearance-save" />
+          <Text variant="small" testID="clearance-effect">
+            The plan and the training sheet follow the decision at once. A summary already shared with the family is updated to say it, without a new e-mail.
+          </Text>
         </View>
       ) : null}
     </Card>
