@@ -82,7 +82,11 @@ function Release({ assessmentId, previewing, setPreviewing, release }: ReleasePr
   return (
     <View style={styles.actions} testID="release-panel">
       <Text variant="label">
-        {p.recipients.length === 0 ? 'No parent will get an e-mail.' : `E-mail to: ${p.recipients.map((r) => `${r.displayName} <${r.email}>`).join(', ')}`}
+        {p.recipients.length > 0
+          ? `E-mail to: ${p.recipients.map((r) => `${r.displayName} <${r.email}>`).join(', ')}`
+          : p.skipped.length > 0
+            ? 'No parent will get an e-mail (below, why).'
+            : 'No parent will get an e-mail: no parent account is linked to this athlete. The summary still shows in the app once a parent is linked.'}
       </Text>
       {p.skipped.map((s) => (
         <Text key={s.displayName} variant="small">
