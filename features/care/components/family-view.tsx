@@ -51,7 +51,7 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
         {athlete.firstName} {athlete.lastName}
       </Text>
       {!latest ? (
-        <Notice title="No summary yet">{`When ${athlete.firstName}'s next screen has been reviewed, its summary appears here.`}</Notice>
+        <Notice title="No summary yet">{`When ${athlete.firstName}'s next screen has been reviewed and shared with you, its summary appears here.`}</Notice>
       ) : (
         <View style={[styles.wrap, isWide && styles.columns]}>
           <View style={[styles.wrap, isWide && styles.column]}>
