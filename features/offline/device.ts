@@ -7,7 +7,7 @@ import { checkPhotoBudget, PHOTO_BUDGET_BYTES } from './budget';
 import { connectivity, notifyDeviceWipe, setDeviceSession } from './device-handle';
 import { deviceDrafts, deviceMeta, devicePhotos, hasIndexedDb, idbOutboxStorage, wipeDevice, type StoredPhoto } from './device-store';
 import { JsonCopies } from './json-copies';
-import { Outbox, type OutboxEntry, type OutboxKind, type OutboxStorage } from './outbox';
+import { Outbox, waitedOnPhone, type OutboxEntry, type OutboxKind, type OutboxStorage } from './outbox';
 
 export { deviceCache } from './device-store';
 
@@ -53,8 +53,43 @@ export const outbox = new Outbox({
   },
 });
 
+/** When the connection last came back (ms), for `waitedOnPhone`; null while it has not gone. */
+let backOnlineAt: number | null = null;
+let wasOnline = connectivity.isOnline();
 connectivity.subscribe(() => {
-  if (connectivity.isOnline()) outbox.kick();
+  const online = connectivity.isOnline();
+  if (online && !wasOnline) backOnlineAt = Date.now();
+  wasOnline = online;
+  if (online) outbox.kick();
+});
+
+/**
+ * Screens' submits that waited on this phone and have since reached the server, by assessment id: a
+ * round the tester goes back to says so once, with the names (they were sent while the tester was on
+ * another screen). Kept in memory for this visit; `forget` once said.
+ */
+let sentAfterWaiting: readonly string[] = [];
+const sentListeners = new Set<() => void>();
+const publishSent = (next: readonly string[]) => {
+  sentAfterWaiting = next;
+  sentListeners.forEach((l) => l());
+};
+export const sentSubmits = {
+  ids: (): readonly string[] => sentAfterWaiting,
+  forget(ids: readonly string[]): void {
+    publishSent(sentAfterWaiting.filter((id) => !ids.includes(id)));
+  },
+  subscribe(listener: () => void): () => void {
+    sentListeners.add(listener);
+    return () => {
+      sentListeners.delete(listener);
+    };
+  },
+};
+outbox.onEvent((e) => {
+  if (e.type === 'sent' && e.entry.kind === 'submit' && waitedOnPhone(e.entry, Date.now(), backOnlineAt) && !sentAfterWaiting.includes(e.entry.assessmentId)) {
+    publishSent([...sentAfterWaiting, e.entry.assessmentId]);
+  }
 });
 
 // A photo discarded from the queue leaves the device with it.
@@ -100,6 +135,7 @@ export async function wipeOnSignOut(): Promise<void> {
   notifyDeviceWipe();
   outbox.setUser(null);
   outbox.reset();
+  publishSent([]);
   setDeviceSession(null);
   forgetLegacyCopies();
   draftCopies.clear();

@@ -1,5 +1,5 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { Outbox, RETRY_DELAYS_MS, type OutboxEntry, type OutboxStorage } from './outbox';
+import { Outbox, RETRY_DELAYS_MS, waitedOnPhone, WAITED_MS, type OutboxEntry, type OutboxStorage } from './outbox';
 
 function memoryStorage(initial: OutboxEntry[] = []): OutboxStorage & { rows: Map<number, OutboxEntry> } {
   const rows = new Map<number, OutboxEntry>(initial.map((e) => [e.seq, e]));
@@ -339,5 +339,17 @@ describe('Outbox', () => {
     // Neither tab shows anything refused or waiting.
     expect(a.getState().entries).toEqual([]);
     expect(b.getState().entries).toEqual([]);
+  });
+
+  it('tells a change that waited on the phone from one that went straight out (our choice: made before the connection came back, more than one try, or 10 s)', () => {
+    const at = Date.parse('2026-12-05T10:00:00.000Z');
+    const created = '2026-12-05T10:00:00.000Z';
+    expect(WAITED_MS).toBe(10_000);
+    expect(waitedOnPhone({ attempts: 1, createdAt: created }, at + 2_000)).toBe(false);
+    expect(waitedOnPhone({ attempts: 1, createdAt: created }, at + 10_001)).toBe(true);
+    expect(waitedOnPhone({ attempts: 2, createdAt: created }, at + 500)).toBe(true);
+    // Made before the connection came back: it waited, however soon it went.
+    expect(waitedOnPhone({ attempts: 1, createdAt: created }, at + 2_000, at + 1_000)).toBe(true);
+    expect(waitedOnPhone({ attempts: 1, createdAt: created }, at + 2_000, at - 1_000)).toBe(false);
   });
 });

@@ -89,6 +89,19 @@ export type OutboxDeps = {
 
 export const RETRY_DELAYS_MS = [2_000, 4_000, 8_000, 15_000, 30_000, 60_000] as const;
 
+/** A change "waited on the phone" when it took more than one try or this long to be sent (our choice). */
+export const WAITED_MS = 10_000;
+
+/**
+ * Whether a change just sent had waited on the phone rather than going straight out: made before the
+ * connection last came back (`backOnlineAt`, ms; null when it never went), more than one try, or more
+ * than `WAITED_MS` on the phone. The screens then say it reached the server. Pure.
+ */
+export function waitedOnPhone(entry: Pick<OutboxEntry, 'attempts' | 'createdAt'>, sentAt: number, backOnlineAt: number | null = null): boolean {
+  const created = Date.parse(entry.createdAt);
+  return entry.attempts > 1 || (backOnlineAt !== null && created < backOnlineAt) || sentAt - created > WAITED_MS;
+}
+
 /**
  * A lost connection, a timeout, rate limiting or a server error: worth sending again later. So is 401:
  * the session ran out, and the change waits until the same person signs in again.

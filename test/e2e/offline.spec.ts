@@ -193,6 +193,12 @@ test('a whole round screened with no connection syncs once, in order, without du
   await page.screenshot({ path: `${SHOTS}/syncing-${testInfo.project.name}.png` });
   await expect(page.getByTestId('sync-status-text')).toHaveText('All saved', { timeout: 60_000 });
   await expect(page.getByTestId('save-status')).toHaveText('✓ Saved');
+  // Back in the round, it says which screen that waited on the phone reached the server, once.
+  await page.locator(`a[href="/screening/rounds/${round.round.id}"]`).first().click();
+  await expect(page.getByTestId('round-sent')).toContainText(`${first!.firstName} ${first!.lastName}`);
+  await page.screenshot({ path: `${SHOTS}/round-sent-${testInfo.project.name}.png` });
+  await page.getByTestId('round-sent-close').click();
+  await expect(page.getByTestId('round-sent')).toHaveCount(0);
 
   // The server holds exactly what was done: both drafts, three photos, one result.
   const a = await (await page.request.get(`/api/assessments/${first!.assessmentId}`)).json();

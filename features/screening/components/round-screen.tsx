@@ -1,10 +1,10 @@
 import { AthleteClearanceBadge } from '@/features/care/components/clearance-badge';
 import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
-import { useDeferredValue, useState } from 'react';
+import { useDeferredValue, useState, useSyncExternalStore } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useSetRoundClosedMutation } from '@/features/screening/api/close-round';
-import { useOutboxState } from '@/features/offline/device-handle';
+import { loadedDevice, useOutboxState } from '@/features/offline/device-handle';
 import { useRoundQuery } from '@/features/screening/api/get-round';
 import { useKeepRoundOnDevice } from '@/features/screening/hooks/use-keep-round';
 import { useActiveClub } from '@/features/session/active-club';
@@ -102,6 +102,7 @@ export function RoundScreen({ id }: { id: string }) {
   useKeepRoundOnDevice(data);
   // Submits made on this phone and not sent yet: the athlete is done here, the server has not heard.
   const queue = useOutboxState();
+  const sentAfterWaiting = useSentAfterWaiting();
   const waitingSubmit = new Set(queue.entries.flatMap((e) => (e.kind === 'submit' ? [e.assessmentId] : [])));
   // The back link and the head are drawn from the first render, where the pre-rendered frame has them
   // (PAGE_HEADS.round in features/shell/page-heads.ts), so nothing moves when the round arrives.
@@ -140,9 +141,23 @@ export function RoundScreen({ id }: { id: string }) {
     )
     .sort(byName);
   const next = screens ? (sorted.find((a) => a.status === 'in_progress') ?? sorted.find((a) => a.status === 'not_started')) : undefined;
+  const sentHere = athletes.filter((a) => sentAfterWaiting.includes(a.assessmentId));
   return (
     <View style={styles.wrap}>
       {head}
+      {sentHere.length > 0 ? (
+        <Notice title="Sent from this phone" testID="round-sent">
+          <Text>
+            {`${sentHere.map((a) => `${a.firstName} ${a.lastName}`).join(', ')}: ${sentHere.length === 1 ? 'the screen that waited on this phone is' : 'the screens that waited on this phone are'} on the server now, with ${sentHere.length === 1 ? 'its result' : 'their results'} below.`}
+          </Text>
+          <Button
+            tone="quiet"
+            label="Got it"
+            onPress={() => loadedDevice()?.sentSubmits.forget(sentHere.map((a) => a.assessmentId))}
+            testID="round-sent-close"
+          />
+        </Notice>
+      ) : null}
       {closed ? (
         <Notice title="This round is closed" testID="round-closed">
           {closedLine(r.closedAt!, r.closedByName)}
@@ -227,3 +242,12 @@ const styles = StyleSheet.create({
   closingButtons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   chevron: { fontFamily: fonts.bold, fontSize: 28, color: colors.inkMuted },
 });
+
+const NOTHING: readonly string[] = [];
+const noSubscription = () => () => undefined;
+
+/** Submits of this phone that waited (no connection) and have since reached the server (features/offline). */
+function useSentAfterWaiting(): readonly string[] {
+  const device = loadedDevice();
+  return useSyncExternalStore(device ? device.sentSubmits.subscribe : noSubscription, device ? device.sentSubmits.ids : () => NOTHING);
+}
