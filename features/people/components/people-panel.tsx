@@ -25,6 +25,7 @@ export function PeoplePanel() {
   const manage = can(membership.role, 'members.manage');
   const { isWide } = useBreakpoints();
   const members = useMembersQuery(membership.clubId);
+  const headCoaches = members.data?.members.filter((x) => x.role === 'head_coach').length ?? 0;
   return (
     <View style={[styles.cols, isWide && styles.colsWide]}>
       <Card style={isWide ? styles.col : undefined}>
@@ -36,7 +37,7 @@ export function PeoplePanel() {
             member={m}
             manage={manage && m.userId !== me.user.id}
             clubId={membership.clubId}
-            onlyHeadCoach={m.role === 'head_coach' && members.data.members.filter((x) => x.role === 'head_coach').length === 1}
+            onlyHeadCoach={m.role === 'head_coach' && headCoaches === 1}
           />
         ))}
         {members.data && members.data.pending.length > 0 ? (
