@@ -5,7 +5,7 @@ import { timestamps } from './columns';
 
 export const sexEnum = pgEnum('sex', ['female', 'male']);
 export const sideEnum = pgEnum('side', ['left', 'right']);
-export const consentKindEnum = pgEnum('consent_kind', ['photos', 'email_summaries']);
+export const consentKindEnum = pgEnum('consent_kind', ['photos', 'email_summaries', 'screening']);
 
 export const squads = pgTable(
   'squads',

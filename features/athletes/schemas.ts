@@ -6,7 +6,7 @@ import { ageInYears, todayIso } from './age';
 
 export const SEX_VALUES = ['female', 'male'] as const;
 export const SIDE_VALUES = ['left', 'right'] as const;
-export const CONSENT_KINDS = ['photos', 'email_summaries'] as const;
+export const CONSENT_KINDS = ['screening', 'photos', 'email_summaries'] as const;
 export type Sex = (typeof SEX_VALUES)[number];
 export type Side = (typeof SIDE_VALUES)[number];
 export type ConsentKind = (typeof CONSENT_KINDS)[number];
@@ -14,6 +14,8 @@ export type ConsentKind = (typeof CONSENT_KINDS)[number];
 export const SEX_LABELS: Record<Sex, string> = { female: 'Female', male: 'Male' };
 export const SIDE_LABELS: Record<Side, string> = { left: 'Left', right: 'Right' };
 export const CONSENT_LABELS: Record<ConsentKind, { title: string; yes: string; no: string }> = {
+  // Taking part at all: screens and the corrective exercises that follow them (our wording).
+  screening: { title: 'Screening and exercises', yes: 'Takes part in screens and corrective exercises', no: 'Does not take part' },
   photos: { title: 'Photos', yes: 'Photos may be taken', no: 'No photos' },
   email_summaries: { title: 'E-mail summaries', yes: 'Summaries may be e-mailed', no: 'No e-mails' },
 };
@@ -146,12 +148,13 @@ export const ROSTER_COLUMNS = [
   'photo_consent',
   'email_summaries_consent',
   'guardian_email',
+  'screening_consent',
 ] as const;
 export type RosterColumn = (typeof ROSTER_COLUMNS)[number];
 /** Columns that may be left out of the header altogether. */
-export const OPTIONAL_ROSTER_COLUMNS: readonly RosterColumn[] = ['guardian_email'];
+export const OPTIONAL_ROSTER_COLUMNS: readonly RosterColumn[] = ['guardian_email', 'screening_consent'];
 export const ROSTER_HEADER_LINE = ROSTER_COLUMNS.join(',');
-export const ROSTER_EXAMPLE_LINE = 'Mira,Castellano,2014-03-09,F,R,L,Under-13 mixed,yes,no,';
+export const ROSTER_EXAMPLE_LINE = 'Mira,Castellano,2014-03-09,F,R,L,Under-13 mixed,yes,no,,yes';
 
 /** Plain words for the report: which cell of the line is wrong. */
 export const ROSTER_COLUMN_LABELS: Record<RosterColumn | 'row', string> = {
@@ -165,6 +168,7 @@ export const ROSTER_COLUMN_LABELS: Record<RosterColumn | 'row', string> = {
   photo_consent: 'Photo consent',
   email_summaries_consent: 'E-mail summaries consent',
   guardian_email: 'Guardian e-mail',
+  screening_consent: 'Screening and exercises consent',
   row: 'This line',
 };
 
@@ -208,5 +212,7 @@ export const rosterRowSchema = object({
   photo_consent: yesNo('photo consent'),
   email_summaries_consent: yesNo('e-mail summaries consent'),
   guardian_email: email.transform((v: unknown) => (v === '' ? undefined : v)).optional(),
+  // Left out or left empty: no decision is recorded (the athlete is not screened until one is).
+  screening_consent: yesNo('screening and exercises consent').optional(),
 });
 export type RosterRow = InferType<typeof rosterRowSchema>;

@@ -42,7 +42,7 @@ const VALUE_WORDS: Record<string, Record<string, string>> = {
   visibility: NOTE_VISIBILITY_LABELS,
   previousVisibility: NOTE_VISIBILITY_LABELS,
   visibilities: NOTE_VISIBILITY_LABELS,
-  kind: { photos: 'photos', email_summaries: 'e-mail summaries' },
+  kind: { photos: 'photos', email_summaries: 'e-mail summaries', screening: 'screening and exercises' },
   role: ROLE_LABELS,
   from: ROLE_LABELS,
   to: ROLE_LABELS,

@@ -91,6 +91,8 @@ export type FamilyComparison = { earlierScreenedOn: string; laterScreenedOn: str
 
 export type FamilyView = {
   athlete: { id: string; firstName: string; lastName: string };
+  /** The family's decision in force about screening and corrective exercises; null when none is recorded. */
+  takingPart: { granted: boolean; decidedOn: string } | null;
   latest: SummaryRelease | null;
   /** Null until two screens of the child have been released to the family. */
   comparison: FamilyComparison | null;

@@ -222,6 +222,8 @@ export type RoundAthlete = {
   lastName: string;
   status: AssessmentStatus;
   photoConsent: boolean;
+  /** The family agreed to screening and corrective exercises (no decision on record: false). */
+  screeningConsent: boolean;
   flagCount: number | null;
   /** The current result's flags, most severe first (concern, then watch): what a coach scans the list for. */
   flags: RoundAthleteFlag[];
@@ -303,6 +305,8 @@ export type AssessmentDetail = {
     racketHand: 'left' | 'right';
     takeOffLeg: 'left' | 'right';
     photoConsent: boolean;
+    /** The family agreed to screening and corrective exercises: without it nothing is saved or submitted. */
+    screeningConsent: boolean;
   };
   photos: PhotoView[];
   result: ResultView | null;

@@ -106,13 +106,14 @@ describe('plain English on the result (our own rule for the wording)', () => {
 });
 
 describe('next athlete of the round', () => {
-  const a = (id: string, status: RoundAthlete['status']): RoundAthlete => ({
+  const a = (id: string, status: RoundAthlete['status'], screeningConsent = true): RoundAthlete => ({
     assessmentId: id,
     athleteId: `athlete-${id}`,
     firstName: id,
     lastName: 'X',
     status,
     photoConsent: true,
+    screeningConsent,
     flagCount: null,
     flags: [],
   });
@@ -122,6 +123,9 @@ describe('next athlete of the round', () => {
     ['wraps round to the start', [a('1', 'in_progress'), a('2', 'submitted'), a('3', 'submitted')], '3', '1'],
     ['skips the current one', [a('1', 'submitted'), a('2', 'in_progress')], '2', null],
     ['nobody left', [a('1', 'submitted'), a('2', 'submitted')], '1', null],
+    // our choice: nobody is screened without the family's agreement on record
+    ['passes over an athlete whose family has not agreed to screening', [a('1', 'submitted'), a('2', 'not_started', false), a('3', 'not_started')], '1', '3'],
+    ['nobody left who may be screened', [a('1', 'submitted'), a('2', 'in_progress', false)], '1', null],
   ] as const)('%s', (_n, athletes, current, expected) => {
     expect(nextUnscreened(athletes, current)?.assessmentId ?? null).toBe(expected);
   });

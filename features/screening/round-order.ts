@@ -8,5 +8,6 @@ import type { RoundAthlete } from './contract';
 export function nextUnscreened(athletes: readonly RoundAthlete[], currentAssessmentId: string): RoundAthlete | null {
   const i = athletes.findIndex((a) => a.assessmentId === currentAssessmentId);
   const ordered = i < 0 ? [...athletes] : [...athletes.slice(i + 1), ...athletes.slice(0, i)];
-  return ordered.find((a) => a.status !== 'submitted') ?? null;
+  // An athlete without the family's agreement to screening is never "next" (our rule).
+  return ordered.find((a) => a.status !== 'submitted' && a.screeningConsent) ?? null;
 }

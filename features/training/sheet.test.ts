@@ -25,6 +25,7 @@ function member(id: string, lastName: string, over: Partial<SheetMember> = {}): 
     plan: { status: 'ready', exercises: [], growthSpurtAdjusted: false, rescreenDate: '2027-01-15' },
     adjusted: null,
     clearance: null,
+    takingPart: true,
     ...over,
   };
 }
@@ -148,6 +149,27 @@ describe('buildSheet', () => {
       ['FAY Frost', 'no-screen', true],
       ['GUS Grey', 'no-exercises', true],
       ['HAL Hart', 'no-exercises', false],
+    ]);
+  });
+
+  // our choice: without the family's agreement to screening and exercises (withdrawn or never recorded)
+  // an athlete is on no exercise, whatever their newest screen proposed, and no re-screen is asked for.
+  it('leaves an athlete off every exercise while the family has not agreed to take part', () => {
+    const plan = { status: 'ready' as const, growthSpurtAdjusted: false, rescreenDate: '2026-11-01', exercises: [planned('side-lying-hip-abduction', 1)] };
+    const sheet = buildSheet(
+      SQUAD,
+      [
+        member('ida', 'Ives', { plan, takingPart: false }),
+        member('jo', 'Jones', { plan }),
+        member('kit', 'Kerr', { assessmentId: null, screenedOn: null, resultCreatedAt: null, plan: null, takingPart: false }),
+      ],
+      TODAY,
+    );
+    expect(sheet.exercises.map((e) => [e.id, e.entries.map((x) => x.name)])).toEqual([['side-lying-hip-abduction', ['JO Jones']]]);
+    expect(sheet.athletes.map((a) => [a.name, a.state, a.rescreenDue, a.exerciseCount])).toEqual([
+      ['IDA Ives', 'not-taking-part', false, 0],
+      ['JO Jones', 'plan', true, 1],
+      ['KIT Kerr', 'not-taking-part', false, 0],
     ]);
   });
 });

@@ -27,6 +27,8 @@ export type SheetMember = {
   adjusted: { exercises: PlannedExercise[]; at: string; byName: string | null } | null;
   /** The clearance in force (the newest), if any, with the physiotherapist's words. */
   clearance: { status: ClearanceStatus; setAt: string; detail?: string } | null;
+  /** The family agreed to screening and corrective exercises (no decision on record: false). */
+  takingPart: boolean;
 };
 
 /** One athlete's line under an exercise. */
@@ -51,7 +53,7 @@ export type SheetExercise = {
   entries: SheetEntry[];
 };
 
-export type SheetAthleteState = 'no-screen' | 'no-exercises' | 'plan';
+export type SheetAthleteState = 'not-taking-part' | 'no-screen' | 'no-exercises' | 'plan';
 
 export type SheetAthlete = {
   id: string;
@@ -99,13 +101,15 @@ export function buildSheet(squad: TrainingSheet['squad'], members: readonly Shee
 
   for (const m of members) {
     const name = nameOf(m);
-    if (!m.assessmentId || !m.plan || !m.resultCreatedAt) {
+    // Without the family's agreement (withdrawn, or never recorded) the athlete is on no exercise of the
+    // sheet, whatever an earlier screen proposed, and no re-screen is asked for (our rule).
+    if (!m.takingPart || !m.assessmentId || !m.plan || !m.resultCreatedAt) {
       athletes.push({
         id: m.id,
         name,
         assessmentId: null,
         screenedOn: null,
-        state: 'no-screen',
+        state: m.takingPart ? 'no-screen' : 'not-taking-part',
         source: null,
         adjustedAt: null,
         adjustedByName: null,
@@ -114,7 +118,7 @@ export function buildSheet(squad: TrainingSheet['squad'], members: readonly Shee
         physioChanges: null,
         exerciseCount: 0,
         rescreenDate: null,
-        rescreenDue: true,
+        rescreenDue: m.takingPart,
       });
       continue;
     }

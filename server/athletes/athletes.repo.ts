@@ -9,6 +9,7 @@ import { athleteFilter, type ClubScope } from '@/server/access/scope';
 import type { Athlete, ConsentView, SquadSummary } from '@/features/athletes/api/types';
 import { latestClearances } from '@/server/care/clearance.repo';
 import { can } from '@/features/access/permissions';
+import type { ConsentKind } from '@/features/athletes/schemas';
 
 /** The database or a transaction: repositories work inside either. */
 export type Executor = PgDatabase<NodePgQueryResultHKT, typeof schema>;
@@ -19,7 +20,7 @@ export type AthleteView = Omit<Athlete, 'guardians'>;
 export type GuardianView = { userId: string; displayName: string; email: string };
 export type ConsentRecordView = {
   id: string;
-  kind: 'photos' | 'email_summaries';
+  kind: ConsentKind;
   granted: boolean;
   decidedOn: string;
   recordedBy: string | null;
@@ -57,14 +58,14 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
       rows.map((r) => r.id),
     );
     return rows.map((row) => {
-      const find = (kind: 'photos' | 'email_summaries'): ConsentView => {
+      const find = (kind: ConsentKind): ConsentView => {
         const c = latest.find((l) => l.athleteId === row.id && l.kind === kind);
         return c ? { granted: c.granted, decidedOn: c.decidedOn } : null;
       };
       const decided = clearance.get(row.id) ?? null;
       return {
         ...row,
-        consents: { photos: find('photos'), emailSummaries: find('email_summaries') },
+        consents: { screening: find('screening'), photos: find('photos'), emailSummaries: find('email_summaries') },
         // The physiotherapist's words are for the team (they may name a clinic or a condition): a
         // parent reads the decision only, and the family summary's own wording of it.
         clearance: decided && !can(scope.role, 'roster.read') ? { ...decided, detail: '' } : decided,
@@ -168,7 +169,7 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
         .where(inScope(eq(consents.athleteId, athleteId)))
         .orderBy(desc(consents.createdAt), desc(consents.id));
     },
-    async recordConsents(rows: { athleteId: string; kind: 'photos' | 'email_summaries'; granted: boolean; decidedOn: string }[]) {
+    async recordConsents(rows: { athleteId: string; kind: ConsentKind; granted: boolean; decidedOn: string }[]) {
       if (rows.length === 0) return [];
       return db
         .insert(consents)

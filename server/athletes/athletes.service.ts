@@ -13,7 +13,8 @@ export const DUPLICATE_MESSAGE = 'An athlete with this name and date of birth is
 const DUPLICATE_ARCHIVED_MESSAGE = 'An archived athlete with this name and date of birth is in the club: restore them instead.';
 
 /** The athlete's decision in force of one kind (null: none recorded). */
-const consentInForce = (athlete: AthleteView, kind: ConsentInput['kind']) => (kind === 'photos' ? athlete.consents.photos : athlete.consents.emailSummaries);
+const consentInForce = (athlete: AthleteView, kind: ConsentInput['kind']) =>
+  kind === 'screening' ? athlete.consents.screening : kind === 'photos' ? athlete.consents.photos : athlete.consents.emailSummaries;
 
 export type AthleteDetail = AthleteView & { guardians?: GuardianView[] };
 

@@ -105,6 +105,10 @@ function changesOf(
   if (current.consents.emailSummaries?.granted !== row.email_summaries_consent) {
     out.push(`e-mail summaries consent: ${yesNo(current.consents.emailSummaries?.granted)} → ${yesNo(row.email_summaries_consent)}`);
   }
+  // An empty cell (or no column) leaves the decision in force as it is.
+  if (row.screening_consent !== undefined && current.consents.screening?.granted !== row.screening_consent) {
+    out.push(`screening and exercises consent: ${yesNo(current.consents.screening?.granted)} → ${yesNo(row.screening_consent)}`);
+  }
   if (guardian && !guardian.alreadyLinked) out.push(parentLinked(guardian.email, guardian.name));
   return out;
 }
@@ -116,7 +120,11 @@ const parentLinked = (email: string, name: string | undefined) => `parent accoun
  * parent account it links, so that nobody is given a child's photos or access by a line read past.
  */
 function recordedFor(row: RosterRow, guardianEmail: string | undefined, guardianName: string | undefined): string[] {
-  const out = [`photo consent: ${yesNo(row.photo_consent)}`, `e-mail summaries consent: ${yesNo(row.email_summaries_consent)}`];
+  const out = [
+    `screening and exercises consent: ${row.screening_consent === undefined ? 'not recorded (not screened until it is)' : yesNo(row.screening_consent)}`,
+    `photo consent: ${yesNo(row.photo_consent)}`,
+    `e-mail summaries consent: ${yesNo(row.email_summaries_consent)}`,
+  ];
   if (guardianEmail) out.push(parentLinked(guardianEmail, guardianName));
   return out;
 }
@@ -250,6 +258,9 @@ export function rosterImport(db: Db, scope: ClubScope) {
           ...(existing!.consents.emailSummaries?.granted !== row.email_summaries_consent
             ? [{ athleteId: existing!.id, kind: 'email_summaries' as const, granted: row.email_summaries_consent, decidedOn }]
             : []),
+          ...(row.screening_consent !== undefined && existing!.consents.screening?.granted !== row.screening_consent
+            ? [{ athleteId: existing!.id, kind: 'screening' as const, granted: row.screening_consent, decidedOn }]
+            : []),
         ]);
         const updatedConsents = await repo.recordConsents(updateConsents);
         const updatedLinks = updates.flatMap(({ existing, guardianUserId, guardianName }) =>
@@ -272,6 +283,7 @@ export function rosterImport(db: Db, scope: ClubScope) {
         const newConsents = ready.flatMap(({ row }, i) => [
           { athleteId: ids[i]!, kind: 'photos' as const, granted: row.photo_consent, decidedOn },
           { athleteId: ids[i]!, kind: 'email_summaries' as const, granted: row.email_summaries_consent, decidedOn },
+          ...(row.screening_consent === undefined ? [] : [{ athleteId: ids[i]!, kind: 'screening' as const, granted: row.screening_consent, decidedOn }]),
         ]);
         const createdConsents = await repo.recordConsents(newConsents);
         const newLinks = ready.flatMap(({ guardianUserId, guardianName }, i) =>

@@ -15,6 +15,7 @@ import type { ClubScope } from '@/server/access/scope';
 import { AppError, conflict, notFound } from '@/server/http/errors';
 import type { MailRef, Outbox } from '@/server/mail/outbox';
 import { screeningRepo, type Executor } from '@/server/screening/screening.repo';
+import { athletesRepo } from '@/server/athletes/athletes.repo';
 import { recordAudit } from './audit.repo';
 import { clearanceRepo } from './clearance.repo';
 import { notesService } from './notes.service';
@@ -169,7 +170,7 @@ export function summaryService(deps: SummaryDeps, scope: ClubScope) {
         careSettingsOf(db, scope.clubId),
         s.photoConsent(athleteId),
       ]);
-      const athlete = await athleteName(db, scope, athleteId);
+      const [athlete, consents] = await Promise.all([athleteName(db, scope, athleteId), athletesRepo(db, scope).get(athleteId)]);
       const latest = releases[0] ?? null;
       const photosAllowed = settings.familyPhotos && photoConsent === true;
       const photos =
@@ -199,6 +200,7 @@ export function summaryService(deps: SummaryDeps, scope: ClubScope) {
       ]);
       return {
         athlete,
+        takingPart: consents?.consents.screening ?? null,
         latest,
         comparison: familyComparison(releasedScreens, sessions),
         sessionsSinceLatest,

@@ -2,7 +2,7 @@ import { and, asc, desc, eq, isNull, sql, type SQL } from 'drizzle-orm';
 import { assessments, athletes, photos, rounds, squads } from '@/db/schema';
 import type { AssessmentDraft } from '@/features/screening/contract';
 import type { ClubScope } from '@/server/access/scope';
-import { photoConsentSql, type Executor } from '@/server/screening/screening.repo';
+import { photoConsentSql, screeningConsentSql, type Executor } from '@/server/screening/screening.repo';
 
 /** Every query filters by the scope's club; measuring is staff-only, so no parent athlete list here. */
 export function measuringRepo(db: Executor, scope: ClubScope) {
@@ -17,6 +17,8 @@ export function measuringRepo(db: Executor, scope: ClubScope) {
         eq(photos.clubId, clubId),
         isNull(photos.replacedAt),
         sql`${photoConsentSql} = true`,
+        // Nothing is measured for an athlete who does not take part (any more).
+        sql`${screeningConsentSql} = true`,
         filter.roundId ? eq(rounds.id, filter.roundId) : undefined,
         filter.squadId ? eq(rounds.squadId, filter.squadId) : undefined,
       ];
@@ -53,6 +55,8 @@ export function measuringRepo(db: Executor, scope: ClubScope) {
           status: assessments.status,
           draft: assessments.draft,
           photoConsent: photoConsentSql,
+          screeningConsent: screeningConsentSql,
+          athleteName: sql<string>`${athletes.firstName} || ' ' || ${athletes.lastName}`,
         })
         .from(photos)
         .innerJoin(assessments, eq(assessments.id, photos.assessmentId))

@@ -6,7 +6,7 @@ import type { ClubScope } from '@/server/access/scope';
 import { AppError, badRequest, conflict, notFound } from '@/server/http/errors';
 import { validateDraft } from '@/server/screening/draft-validation';
 import { screeningRepo } from '@/server/screening/screening.repo';
-import { photoView, submitAssessment } from '@/server/screening/screening.service';
+import { notTakingPart, photoView, submitAssessment } from '@/server/screening/screening.service';
 import { measuringRepo } from './measuring.repo';
 
 const isTaskId = (id: string): id is TaskId => (TASK_IDS as readonly string[]).includes(id);
@@ -79,6 +79,7 @@ export function measuringService({ db }: { db: Db }) {
         if (!row.photoConsent) {
           throw new AppError(403, 'no_photo_consent', 'The family has not agreed to photos, or has withdrawn it: this photo is hidden and cannot be measured.');
         }
+        if (!row.screeningConsent) throw notTakingPart(row.athleteName);
         if (row.photo.replacedAt) throw conflict('A newer photo replaced this one: measure the newer photo instead.');
         const taskId = row.photo.taskId;
         const view = row.photo.view;

@@ -11,15 +11,24 @@ import type { ClubScope } from '@/server/access/scope';
 export type Executor = PgDatabase<NodePgQueryResultHKT, typeof schema>;
 
 /**
- * The newest `photos` consent decision of the athlete in the current row; false when none was recorded.
- * Written with qualified names: drizzle leaves columns unqualified in a single-table query, where a bare
- * "id" inside the subquery would mean consents.id.
+ * The newest consent decision of one kind for the athlete in the current row; false when none was
+ * recorded. Written with qualified names: drizzle leaves columns unqualified in a single-table query,
+ * where a bare "id" inside the subquery would mean consents.id.
  */
-export const photoConsentSql = sql<boolean>`coalesce((
+const consentInForceSql = (kind: 'photos' | 'screening') => sql<boolean>`coalesce((
   select c.granted from consents c
-  where c.athlete_id = "athletes"."id" and c.kind = 'photos'
+  where c.athlete_id = "athletes"."id" and c.kind = ${sql.raw(`'${kind}'`)}
   order by c.created_at desc limit 1
 ), false)`;
+
+/** Photos may be taken and shown. */
+export const photoConsentSql = consentInForceSql('photos');
+
+/**
+ * The athlete takes part in screens and corrective exercises: the family said yes and has not withdrawn
+ * it. No decision on record counts as no (our choice: a minor is not screened on an assumption).
+ */
+export const screeningConsentSql = consentInForceSql('screening');
 
 /**
  * Every query filters by the scope's club. Screening is staff-only, so the scope never carries a
@@ -70,6 +79,7 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
     racketHand: athletes.racketHand,
     takeOffLeg: athletes.takeOffLeg,
     photoConsent: photoConsentSql,
+    screeningConsent: screeningConsentSql,
   };
 
   const resultColumns = {
@@ -110,6 +120,7 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
           lastName: athletes.lastName,
           status: assessments.status,
           photoConsent: photoConsentSql,
+          screeningConsent: screeningConsentSql,
           flagCount: sql<number | null>`jsonb_array_length(${assessmentResults.result} -> 'flags')`,
           flags: sql<{ severity: 'watch' | 'concern'; title: string; side: string }[] | null>`(
             select jsonb_agg(jsonb_build_object('severity', f ->> 'severity', 'title', f ->> 'title', 'side', f ->> 'side'))
@@ -192,11 +203,18 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
 
     /** When the assessment's round was closed, or null while it is open (or unknown). */
     /** The assessment's round: whether it is closed, and its day (a screen keeps its round's date). */
-    async roundOf(assessmentId: string): Promise<{ closedAt: Date | null; screenedOn: string } | null> {
+    /** The assessment's round, and whether its athlete takes part in screening (consent in force). */
+    async roundOf(assessmentId: string): Promise<{ closedAt: Date | null; screenedOn: string; screeningConsent: boolean; athleteName: string } | null> {
       const [row] = await db
-        .select({ closedAt: rounds.closedAt, screenedOn: rounds.screenedOn })
+        .select({
+          closedAt: rounds.closedAt,
+          screenedOn: rounds.screenedOn,
+          screeningConsent: screeningConsentSql,
+          athleteName: sql<string>`${athletes.firstName} || ' ' || ${athletes.lastName}`,
+        })
         .from(assessments)
         .innerJoin(rounds, eq(rounds.id, assessments.roundId))
+        .innerJoin(athletes, eq(athletes.id, assessments.athleteId))
         .where(and(eq(assessments.clubId, clubId), eq(assessments.id, assessmentId)));
       return row ?? null;
     },

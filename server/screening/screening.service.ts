@@ -241,6 +241,18 @@ export async function reevaluateAfterClearance(
   return { fromResultId: current.id, resultId };
 }
 
+/**
+ * The family has not agreed to the athlete taking part (or no decision is on record): nothing of a screen
+ * is saved, uploaded or submitted. What was saved before stays as it was.
+ */
+export function notTakingPart(name: string) {
+  return new AppError(
+    403,
+    'no_screening_consent',
+    `${name}'s family has not agreed to screening and corrective exercises, or no decision is on record: nothing of this screen can be saved. What was saved before is kept. Record the family's decision on the athlete's page first.`,
+  );
+}
+
 export function screeningService(deps: ScreeningDeps) {
   const { db, storage } = deps;
   const repoFor = (scope: ClubScope, executor: Executor = db) => screeningRepo(executor, scope);
@@ -304,6 +316,7 @@ export function screeningService(deps: ScreeningDeps) {
           racketHand: a.racketHand,
           takeOffLeg: a.takeOffLeg,
           photoConsent: a.photoConsent,
+          screeningConsent: a.screeningConsent,
         },
         // Withdrawn consent hides the photos already taken; landmarks and results stay.
         photos: a.photoConsent ? photos.map(photoView) : [],
@@ -314,7 +327,9 @@ export function screeningService(deps: ScreeningDeps) {
     async saveDraft(scope: ClubScope, id: string, input: SaveDraftInput): Promise<{ draftVersion: number; status: AssessmentStatus }> {
       const repo = repoFor(scope);
       const draft = validateDraft(input.draft);
-      if ((await repo.roundOf(id))?.closedAt) throw roundClosed();
+      const round = await repo.roundOf(id);
+      if (round?.closedAt) throw roundClosed();
+      if (round && !round.screeningConsent) throw notTakingPart(round.athleteName);
       const saved = await repo.saveDraft(id, input.draftVersion, draft);
       if (saved) return saved;
       const current = await repo.currentDraft(id);
@@ -327,6 +342,7 @@ export function screeningService(deps: ScreeningDeps) {
       const a = await repo.assessment(assessmentId);
       if (!a) throw notFound('The assessment');
       if (a.roundClosedAt) throw roundClosed();
+      if (!a.screeningConsent) throw notTakingPart(`${a.firstName} ${a.lastName}`);
 
       const fields: Record<string, string> = {};
       if (!upload.buffer || upload.buffer.length === 0) fields.photo = 'Choose a photo to upload (field "photo").';
@@ -384,6 +400,7 @@ export function screeningService(deps: ScreeningDeps) {
     async submit(scope: ClubScope, id: string, input: { draftVersion?: number } = {}): Promise<ResultView> {
       const round = await repoFor(scope).roundOf(id);
       if (round?.closedAt) throw roundClosed();
+      if (round && !round.screeningConsent) throw notTakingPart(round.athleteName);
       // A screen takes its round's date: one submitted into a round planned for a later day would be
       // dated ahead (ages, growth and "days since the last screen" counted from a day not yet come).
       // One day of slack for time zones (our choice).

@@ -31,7 +31,8 @@ export function trainingRepo(db: Executor, scope: ClubScope) {
                 'status', ar.result #> '{plan,status}', 'exercises', ar.result #> '{plan,exercises}',
                 'growthSpurtAdjusted', ar.result #> '{plan,growthSpurtAdjusted}', 'rescreenDate', ar.result #> '{plan,rescreenDate}') end,
               'adjusted', case when pa.exercises is null then null else json_build_object('exercises', pa.exercises, 'at', pa.created_at, 'byName', u.display_name) end,
-              'clearance', case when c.status is null then null else json_build_object('status', c.status, 'setAt', c.created_at, 'detail', c.detail) end
+              'clearance', case when c.status is null then null else json_build_object('status', c.status, 'setAt', c.created_at, 'detail', c.detail) end,
+              'takingPart', coalesce((select k.granted from consents k where k.athlete_id = m.id and k.kind = 'screening' order by k.created_at desc limit 1), false)
             ) order by m.last_name, m.first_name, m.id), '[]')
             from athletes m
             left join athlete_latest_screens l on l.athlete_id = m.id

@@ -264,7 +264,8 @@ describe('consent decisions', () => {
       [true, null],
     ]);
     const rows = await testDb.db.select().from(consents).where(eq(consents.athleteId, ids.child!));
-    expect(rows).toHaveLength(4);
+    // The fixture's photo and screening decisions, and the three recorded here.
+    expect(rows).toHaveLength(5);
   });
 
   it('refuses a decision dated before the one in force, which would overturn a later choice of the family', async () => {
@@ -505,8 +506,16 @@ describe('CSV roster import', () => {
     const checked = await upload(as.coach, csv);
     expect(checked.status).toBe(200);
     expect(checked.body.rows.map((r: { action: string; changes: string[] }) => [r.action, r.changes])).toEqual([
-      ['create', ['photo consent: yes', 'e-mail summaries consent: yes', 'parent account linked: Sol Parent (second.parent@riverside.test)']],
-      ['create', ['photo consent: no', 'e-mail summaries consent: no']],
+      [
+        'create',
+        [
+          'screening and exercises consent: yes',
+          'photo consent: yes',
+          'e-mail summaries consent: yes',
+          'parent account linked: Sol Parent (second.parent@riverside.test)',
+        ],
+      ],
+      ['create', ['screening and exercises consent: yes', 'photo consent: no', 'e-mail summaries consent: no']],
     ]);
     const res = await upload(as.coach, csv, true);
     expect(res.status).toBe(201);

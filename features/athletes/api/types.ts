@@ -14,7 +14,7 @@ export type Athlete = {
   racketHand: 'left' | 'right';
   takeOffLeg: 'left' | 'right';
   archived: boolean;
-  consents: { photos: ConsentView; emailSummaries: ConsentView };
+  consents: { screening: ConsentView; photos: ConsentView; emailSummaries: ConsentView };
   /** The physiotherapist's clearance in force (newest decision), or null when none was recorded. */
   clearance: { status: 'cleared' | 'modified' | 'referred'; detail: string; setByName: string | null; setAt: string } | null;
   /** Club staff only; parents do not see the other adults linked to a child. */

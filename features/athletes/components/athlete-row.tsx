@@ -9,6 +9,7 @@ import type { Athlete } from '../api/types';
 /** One athlete in their squad's group of the list (the group names the squad). */
 export function AthleteRow({ athlete }: { athlete: Athlete }) {
   const noPhotos = athlete.consents.photos?.granted !== true;
+  const notTakingPart = athlete.consents.screening?.granted !== true;
   return (
     <Link href={`/athletes/${athlete.id}`} style={styles.row} testID={`athlete-${athlete.id}`}>
       <View style={styles.inner}>
@@ -25,11 +26,22 @@ export function AthleteRow({ athlete }: { athlete: Athlete }) {
           <View style={[styles.tag, styles.archivedTag]}>
             <Text variant="small">Archived</Text>
           </View>
-        ) : noPhotos ? (
-          <View style={styles.tag}>
-            <Text variant="small" style={styles.tagText}>
-              No photo consent
-            </Text>
+        ) : notTakingPart || noPhotos ? (
+          <View style={styles.tags}>
+            {notTakingPart ? (
+              <View style={styles.tag}>
+                <Text variant="small" style={styles.tagText}>
+                  {athlete.consents.screening ? 'Not taking part' : 'No screening consent yet'}
+                </Text>
+              </View>
+            ) : null}
+            {noPhotos ? (
+              <View style={styles.tag}>
+                <Text variant="small" style={styles.tagText}>
+                  No photo consent
+                </Text>
+              </View>
+            ) : null}
           </View>
         ) : null}
       </View>
@@ -41,6 +53,7 @@ const styles = StyleSheet.create({
   row: { minHeight: TOUCH_MIN + 8, borderBottomWidth: 1, borderBottomColor: colors.line, paddingVertical: space.sm },
   inner: { flexDirection: 'row', alignItems: 'center', gap: space.md, width: '100%' },
   main: { flex: 1, gap: 2 },
+  tags: { gap: space.xs, alignItems: 'flex-end' },
   tag: { backgroundColor: colors.amberSoft, borderRadius: radius.sm, paddingHorizontal: space.sm, paddingVertical: 2 },
   tagText: { color: colors.amber },
   archivedTag: { backgroundColor: colors.line },

@@ -26,7 +26,7 @@ const answerOptions = [
 ] as const;
 
 function inForce(c: ConsentView, kind: ConsentKind) {
-  if (!c) return 'Not recorded yet';
+  if (!c) return kind === 'screening' ? 'Not recorded yet: not screened until it is' : 'Not recorded yet';
   return `${c.granted ? CONSENT_LABELS[kind].yes : CONSENT_LABELS[kind].no} (decided ${formatDate(c.decidedOn)})`;
 }
 
@@ -44,6 +44,13 @@ export function ConsentPanel({ athlete }: { athlete: Athlete }) {
         <Text variant="small">{`Your decisions about ${athlete.firstName}: each is recorded with today's date and your name, and you can change it here at any time.`}</Text>
       ) : null}
       <View style={styles.current}>
+        <Current
+          label={CONSENT_LABELS.screening.title}
+          value={inForce(athlete.consents.screening, 'screening')}
+          warn={athlete.consents.screening?.granted !== true}
+          testID="consent-screening"
+        />
+        {own ? <OwnDecision athlete={athlete} kind="screening" granted={athlete.consents.screening?.granted === true} /> : null}
         <Current
           label={CONSENT_LABELS.photos.title}
           value={inForce(athlete.consents.photos, 'photos')}
@@ -86,6 +93,21 @@ function Current({ label, value, warn = false, testID }: { label: string; value:
 
 /** What a parent's change means, in plain words, before they confirm it (our wording). */
 function ownDecisionWords(kind: ConsentKind, granted: boolean, name: string) {
+  if (kind === 'screening') {
+    return granted
+      ? {
+          ask: `Stop screens and exercises for ${name}`,
+          explain: `From today ${name} is not screened, and the corrective exercises come off the club's training sheet. The screens already done stay on record for the club's staff (and for you here); ask the club if you want them deleted. Tell ${name}'s coach too.`,
+          confirm: 'Yes, stop them',
+          keep: 'Keep taking part',
+        }
+      : {
+          ask: `Agree to ${name} taking part`,
+          explain: `Coaches may screen how ${name} moves (squats, single-leg squats, landings and an ankle test) a few times a season and give corrective exercises from the results, done at club sessions with a coach watching. You can stop this here at any time.`,
+          confirm: `Yes, ${name} takes part`,
+          keep: 'Not now',
+        };
+  }
   if (kind === 'photos') {
     return granted
       ? {
@@ -121,7 +143,7 @@ function OwnDecision({ athlete, kind, granted }: { athlete: Athlete; kind: Conse
   const record = useRecordOwnConsentMutation(athlete.id);
   const [confirming, setConfirming] = useState(false);
   const words = ownDecisionWords(kind, granted, athlete.firstName);
-  const id = kind === 'photos' ? 'photos' : 'email';
+  const id = kind === 'screening' ? 'screening' : kind === 'photos' ? 'photos' : 'email';
   if (!confirming) {
     return (
       <Button

@@ -194,6 +194,10 @@ function FileFormat() {
         <Column name="squad" text={squadNames ? `One of: ${squadNames}.` : 'The name of one of the club’s squads.'} />
         <Column name="photo_consent, email_summaries_consent" text="yes or no (y/n also work). Recorded as decided today." />
         <Column name="guardian_email" text="Optional: the e-mail of a parent account already in the club, to link." />
+        <Column
+          name="screening_consent"
+          text="Optional: yes or no, the family's agreement to screens and corrective exercises. Left empty, nothing is recorded: a new athlete is not screened until it is."
+        />
       </View>
       <Text variant="small">
         A child already in the club (same name and date of birth) is updated from the line: the report lists what changes before anything is saved. A child

@@ -1,3 +1,4 @@
+import { Link } from 'expo-router';
 import { Image, StyleSheet, View } from 'react-native';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
@@ -16,7 +17,7 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
   const { isWide } = useBreakpoints();
   if (query.isPending) return <Text>Loading…</Text>;
   if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
-  const { athlete, latest, comparison, sessionsSinceLatest, earlier, notes, photos } = query.data;
+  const { athlete, takingPart, latest, comparison, sessionsSinceLatest, earlier, notes, photos } = query.data;
   const photosCard =
     photos.length > 0 ? (
       <Card>
@@ -50,6 +51,7 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
       <Text variant="title" accessibilityRole="header">
         {athlete.firstName} {athlete.lastName}
       </Text>
+      {takingPart?.granted ? null : <NotTakingPart athlete={athlete} stoppedOn={takingPart?.decidedOn ?? null} hasPlan={!!latest} />}
       {!latest ? (
         <Notice title="No summary yet">{`When ${athlete.firstName}'s next screen has been reviewed and shared with you, its summary appears here.`}</Notice>
       ) : (
@@ -69,6 +71,27 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
       {beside ? null : notesCard}
       {earlier.length > 0 ? <Earlier releases={earlier} /> : null}
     </View>
+  );
+}
+
+/** The family has stopped screens and exercises, or never agreed: said first, with where to change it. */
+function NotTakingPart({ athlete, stoppedOn, hasPlan }: { athlete: FamilyViewData['athlete']; stoppedOn: string | null; hasPlan: boolean }) {
+  const name = athlete.firstName;
+  return (
+    <Notice
+      tone="caution"
+      title={stoppedOn ? `Screens and exercises stopped on ${formatDate(stoppedOn)}` : 'Screens and exercises: not agreed yet'}
+      testID="family-not-taking-part"
+    >
+      <Text>
+        {stoppedOn
+          ? `The club does not screen ${name} now${hasPlan ? ', and the exercises below are off the club’s training sheet' : ''}.`
+          : `The club has no agreement from you on record for ${name} to take part, so ${name} is not screened.`}
+      </Text>
+      <Link href={`/athletes/${athlete.id}`} style={styles.consentLink} testID="family-consent-link">
+        <Text variant="label">{`Change this on ${name}'s page →`}</Text>
+      </Link>
+    </Notice>
   );
 }
 
@@ -188,6 +211,7 @@ function Earlier({ releases }: { releases: SummaryRelease[] }) {
 }
 
 const styles = StyleSheet.create({
+  consentLink: { minHeight: 48, justifyContent: 'center', paddingVertical: space.sm },
   clubOnly: { fontFamily: fonts.bold, color: colors.amber },
   wrap: { gap: space.lg },
   columns: { flexDirection: 'row', alignItems: 'flex-start' },

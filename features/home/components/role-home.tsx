@@ -10,7 +10,7 @@ import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
-import { space } from '@/features/ui/theme';
+import { colors, fonts, space } from '@/features/ui/theme';
 import { HOME_INTROS, homeGreeting } from '../intros';
 import { SquadCards } from './squad-cards';
 
@@ -92,6 +92,10 @@ function ParentChildren() {
             <Text variant="small">
               {ageInYears(a.dateOfBirth, todayIso())} years · {a.squadName ?? 'No squad'}
             </Text>
+            <Text style={a.consents.screening?.granted ? undefined : styles.warn}>
+              Screens and exercises:{' '}
+              {a.consents.screening?.granted ? 'you agreed' : a.consents.screening ? 'stopped: not screened' : 'not agreed yet: not screened'}
+            </Text>
             <Text>Photos: {a.consents.photos?.granted ? 'you agreed that screening photos may be taken' : 'no photos are taken'}</Text>
             <Link href={`/family/${a.id}`} style={styles.link} testID="child-summary-link">
               <Text variant="label">{`${a.firstName}'s screen summary and exercises →`}</Text>
@@ -116,5 +120,6 @@ const styles = StyleSheet.create({
   link: { minHeight: 48, paddingVertical: space.md },
   linkGap: { marginRight: space.xl },
   row: { flexDirection: 'row', flexWrap: 'wrap' },
+  warn: { color: colors.amber, fontFamily: fonts.bold },
   childWide: { flexBasis: 320, flexGrow: 1, maxWidth: 560 },
 });

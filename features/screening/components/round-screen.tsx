@@ -140,7 +140,10 @@ export function RoundScreen({ id }: { id: string }) {
       waitingSubmit.has(a.assessmentId) && a.status !== 'submitted' ? { ...a, status: 'submitted' as const, waiting: true } : { ...a, waiting: false },
     )
     .sort(byName);
-  const next = screens ? (sorted.find((a) => a.status === 'in_progress') ?? sorted.find((a) => a.status === 'not_started')) : undefined;
+  // Nobody is screened without the family's agreement on record: such athletes are never "next".
+  const screenable = sorted.filter((a) => a.screeningConsent);
+  const next = screens ? (screenable.find((a) => a.status === 'in_progress') ?? screenable.find((a) => a.status === 'not_started')) : undefined;
+  const notTakingPart = athletes.filter((a) => !a.screeningConsent && a.status !== 'submitted');
   const sentHere = athletes.filter((a) => sentAfterWaiting.includes(a.assessmentId));
   return (
     <View style={styles.wrap}>
@@ -184,7 +187,16 @@ export function RoundScreen({ id }: { id: string }) {
           </View>
         </Link>
       ) : r.counts.submitted === athletes.length || screens ? (
-        <Notice title="Everyone is screened">Every athlete of this round has been submitted.</Notice>
+        <Notice title="Everyone is screened">
+          {notTakingPart.length > 0 ? 'Every athlete of this round who may be screened has been submitted.' : 'Every athlete of this round has been submitted.'}
+        </Notice>
+      ) : null}
+      {notTakingPart.length > 0 && screensInClub ? (
+        <Notice tone="caution" title="Not to be screened" testID="round-not-taking-part">
+          {`${notTakingPart.map((a) => `${a.firstName} ${a.lastName}`).join(', ')}: no family agreement to screening and exercises is on record. Leave ${
+            notTakingPart.length === 1 ? 'them' : 'them all'
+          } out; a head coach or the admin records the family's decision on the athlete's page.`}
+        </Notice>
       ) : null}
       <Card style={styles.list}>
         <Text variant="heading">Athletes ({athletes.length})</Text>
@@ -195,7 +207,7 @@ export function RoundScreen({ id }: { id: string }) {
               href={assessmentHref(a.waiting ? { ...a, status: 'in_progress' } : a, screens)}
               style={[styles.row, isTabletUp && styles.rowGrid]}
               testID={`round-athlete-${a.athleteId}`}
-              accessibilityLabel={`${a.firstName} ${a.lastName}, ${a.status.replace('_', ' ')}${a.photoConsent ? '' : ', no photo consent'}`}
+              accessibilityLabel={`${a.firstName} ${a.lastName}, ${a.status.replace('_', ' ')}${a.screeningConsent ? '' : ', no screening consent'}${a.photoConsent ? '' : ', no photo consent'}`}
             >
               <View style={styles.rowInner}>
                 <View style={styles.rowMain}>
@@ -203,8 +215,13 @@ export function RoundScreen({ id }: { id: string }) {
                     {a.firstName} {a.lastName}
                   </Text>
                   <View style={styles.tags}>
-                    {a.waiting ? <PlainTag tone="info" label="Submitted on this phone · waiting to send" /> : <StatusTag status={a.status} />}
-                    {!a.photoConsent ? <PlainTag label="No photo consent" /> : null}
+                    {a.waiting ? (
+                      <PlainTag tone="info" label="Submitted on this phone · waiting to send" />
+                    ) : !a.screeningConsent && a.status !== 'submitted' ? null : (
+                      <StatusTag status={a.status} />
+                    )}
+                    {!a.screeningConsent ? <PlainTag label="No screening consent: do not screen" /> : null}
+                    {!a.photoConsent && a.screeningConsent ? <PlainTag label="No photo consent" /> : null}
                     <AthleteClearanceBadge athleteId={a.athleteId} />
                   </View>
                   {/* A submit still on this phone has no result yet: no flag count (it read "No flags"). */}

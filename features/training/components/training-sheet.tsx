@@ -222,6 +222,7 @@ function AthleteName({ name, href }: { name: string; href: string | null }) {
 }
 
 const OFF_WORDS: Record<Exclude<SheetAthlete['state'], 'plan'>, string> = {
+  'not-taking-part': 'Not taking part: no family agreement to screening and exercises on record',
   'no-screen': 'Not screened yet',
   'no-exercises': 'No corrective exercise from their newest screen',
 };

@@ -22,7 +22,7 @@ import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
-import { colors, space } from '@/features/ui/theme';
+import { colors, space, TOUCH_MIN } from '@/features/ui/theme';
 import { LazyLandmarkEditor } from '../landmarks/lazy-landmark-editor';
 import { ProgressBar } from '../progress-bar';
 import { PlainTag } from '../status-tag';
@@ -69,7 +69,32 @@ function CaptureLoader({ id }: { id: string }) {
   if (!query.data || !draftState.ready) return <CaptureFrame />;
   // A closed round's screens are read, not changed: straight to the result (or its absence).
   if (query.data.roundClosedAt) return <Redirect href={`/screening/assessments/${id}/result`} />;
+  if (!query.data.athlete.screeningConsent) return <NotTakingPart detail={query.data} />;
   return <Capture detail={query.data} draftState={draftState} />;
+}
+
+/** No screen without the family's agreement on record: what to do instead, in plain words. */
+function NotTakingPart({ detail }: { detail: AssessmentDetail }) {
+  const { membership } = useActiveClub();
+  const name = `${detail.athlete.firstName} ${detail.athlete.lastName}`;
+  usePageTitle(`${name}: not to be screened`);
+  return (
+    <Centered>
+      <Notice tone="caution" title={`Do not screen ${name}`} testID="capture-not-taking-part">
+        {`No agreement from ${detail.athlete.firstName}'s family to screening and corrective exercises is on record (or they have withdrawn it), so nothing of this screen can be saved.${
+          detail.status === 'submitted' ? ' The screen done before stays as it was.' : ''
+        }`}
+      </Notice>
+      <Link href={`/screening/rounds/${detail.roundId}`} style={styles.notTakingPartLink} testID="capture-not-taking-part-back">
+        <Text variant="label">← Back to {detail.roundName}</Text>
+      </Link>
+      {can(membership.role, 'consent.manage') ? (
+        <Link href={`/athletes/${detail.athlete.id}`} style={styles.notTakingPartLink}>
+          <Text variant="label">{`Record the family's decision on ${detail.athlete.firstName}'s page →`}</Text>
+        </Link>
+      ) : null}
+    </Centered>
+  );
 }
 
 function Centered({ children }: { children: React.ReactNode }) {
@@ -303,6 +328,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
 }
 
 const styles = StyleSheet.create({
-  centered: { flex: 1, alignItems: 'center', justifyContent: 'center', padding: space.xl },
+  centered: { flex: 1, alignItems: 'center', justifyContent: 'center', padding: space.xl, gap: space.md },
+  notTakingPartLink: { minHeight: TOUCH_MIN, justifyContent: 'center', paddingVertical: space.sm },
   roundLinkText: { color: colors.pine },
 });
