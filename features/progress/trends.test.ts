@@ -30,6 +30,7 @@ function athlete(overrides: Partial<TrendAthlete>): TrendAthlete {
     maturityBand: null,
     clearance: null,
     awaitingClearance: false,
+    takingPart: true,
     latestAssessmentId: null,
     lastScreenedOn: null,
     daysSinceLastScreen: null,
@@ -156,6 +157,13 @@ describe('filters, sorting and the CSV rows agree', () => {
     expect([waiting, referred, rows[0]!].map(clearanceWords)).toEqual(['Pain reported: waiting for clearance', 'Refer on', null]);
     expect(sortAthletes([rows[0]!, referred, waiting], 'clearance').map((a) => a.firstName)).toEqual(['Eli', 'Fay', 'Ana']);
     expect(csvRows([waiting])[1]![5]).toBe('Pain reported: waiting for clearance');
+  });
+
+  // our choice: an athlete whose family has not agreed to take part is asked for no re-screen.
+  it('says "not taking part" in the re-screen column of the CSV', () => {
+    const out = athlete({ firstName: 'Gil', lastName: 'Gray', takingPart: false, rescreenDue: false });
+    expect(csvRows([out])[1]![12]).toBe('not taking part');
+    expect(csvRows([athlete({ rescreenDue: true })])[1]![12]).toBe('yes');
   });
 });
 

@@ -52,6 +52,8 @@ export type TrendAthlete = {
    * work wait (the training sheet's hold, `strengthBlock`).
    */
   awaitingClearance: boolean;
+  /** The family agreed to screening and exercises (none on record: false); without it no re-screen is due. */
+  takingPart: boolean;
   latestAssessmentId: string | null;
   lastScreenedOn: string | null;
   daysSinceLastScreen: number | null;
@@ -266,7 +268,7 @@ export function csvRows(rows: readonly TrendAthlete[]): string[][] {
       a.lastScreenedOn ?? '',
       a.daysSinceLastScreen === null ? '' : String(a.daysSinceLastScreen),
       a.rescreenDate ?? '',
-      a.rescreenDue ? 'yes' : 'no',
+      a.takingPart ? (a.rescreenDue ? 'yes' : 'no') : 'not taking part',
       a.sessionsSinceScreen ? String(a.sessionsSinceScreen.attended) : '',
       a.sessionsSinceScreen ? String(a.sessionsSinceScreen.held) : '',
     ]),

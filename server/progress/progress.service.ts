@@ -111,6 +111,7 @@ export function progressService(db: Executor, scope: ClubScope) {
           attended,
           held,
           awaitingClearance,
+          takingPart,
         ]) => {
           const rescreen = rescreenOf(lastScreenedOn, rescreenDate, today);
           return {
@@ -127,7 +128,9 @@ export function progressService(db: Executor, scope: ClubScope) {
             lastScreenedOn,
             daysSinceLastScreen: lastScreenedOn ? daysBetween(lastScreenedOn, today) : null,
             rescreenDate: rescreen.date,
-            rescreenDue: rescreen.due,
+            // No re-screen is asked of an athlete whose family has not agreed to take part (our rule).
+            rescreenDue: takingPart === true && rescreen.due,
+            takingPart: takingPart === true,
             latestFlags: sidedPatterns(flagIds ?? [], flagSides ?? []),
             sessionsSinceScreen: lastScreenedOn ? { attended, held } : null,
           };

@@ -156,6 +156,9 @@ describe('a family that withdraws from taking part', () => {
     const sheet = (await as.coach.get(`/api/squads/${ids.squad}/training-sheet`)).body as TrainingSheet;
     expect(sheet.athletes.find((a) => a.id === ids.omar)).toMatchObject({ state: 'not-taking-part', exerciseCount: 0, rescreenDue: false });
     expect(sheet.exercises.some((e) => e.entries.some((x) => x.athleteId === ids.omar))).toBe(false);
+    const trends = await as.coach.get(`/api/squads/${ids.squad}/trends`);
+    expect(trends.body.athletes.find((a: { id: string }) => a.id === ids.omar)).toMatchObject({ takingPart: false, rescreenDue: false });
+    expect(trends.body.athletes.find((a: { id: string }) => a.id === ids.nia)).toMatchObject({ takingPart: true });
     const again = (await as.tester.get(`/api/rounds/${round.round.id}`)).body as RoundDetail;
     expect(again.athletes.find((a) => a.athleteId === ids.omar)?.screeningConsent).toBe(false);
   });

@@ -103,6 +103,7 @@ test('no screen without the family’s agreement: the tester is told, the parent
   await expect(page.getByTestId('round-not-taking-part')).toContainText(`Wren ${surname}`);
   await expect(page.getByTestId(`round-athlete-${athleteId}`)).toContainText('No screening consent: do not screen');
   await expect(page.getByTestId('screen-next')).toHaveCount(0);
+  await expect(page.getByText('Everyone is screened')).toHaveCount(0);
   await page.screenshot({ path: testInfo.outputPath('round-not-taking-part.png'), fullPage: true });
   await page.getByTestId(`round-athlete-${athleteId}`).click();
   await expect(page.getByTestId('capture-not-taking-part')).toContainText('nothing of this screen can be saved');

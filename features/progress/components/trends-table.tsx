@@ -10,6 +10,7 @@ import { capitalise } from '@/features/ui/capitalise';
 
 /** "Due since Jul 20, 2026" (how long overdue), "Due" never screened, "from Jan 16, 2027" not yet. */
 function rescreenCell(a: TrendAthlete): string {
+  if (!a.takingPart) return 'Not taking part';
   if (!a.rescreenDue) return `from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`;
   return a.rescreenDate ? `Due since ${formatDate(a.rescreenDate)}` : 'Due';
 }
@@ -113,7 +114,7 @@ export function TrendsCards({ rows }: { rows: TrendAthlete[] }) {
               </Text>
             </Link>
             <Text variant="small" style={a.rescreenDue ? styles.due : undefined}>
-              {`Re-screen ${rescreenCell(a).replace(/^Due/, 'due')}`}
+              {a.takingPart ? `Re-screen ${rescreenCell(a).replace(/^Due/, 'due')}` : rescreenCell(a)}
             </Text>
           </View>
           <Text variant="small">

@@ -186,7 +186,7 @@ export function RoundScreen({ id }: { id: string }) {
             </Text>
           </View>
         </Link>
-      ) : r.counts.submitted === athletes.length || screens ? (
+      ) : r.counts.submitted === athletes.length || (screens && screenable.length > 0) ? (
         <Notice title="Everyone is screened">
           {notTakingPart.length > 0 ? 'Every athlete of this round who may be screened has been submitted.' : 'Every athlete of this round has been submitted.'}
         </Notice>
