@@ -129,6 +129,7 @@ export function basisText(t: Pick<ThresholdRef, 'sourceKind' | 'certainty'>): st
 export const STAGE_LABELS: Record<MaturityStage, string> = {
   pre: 'Before the growth spurt',
   circa: 'In the growth-spurt window',
+  near: 'Near the growth-spurt window',
   post: 'After the growth spurt',
   unknown: 'Growth stage unknown',
 };

@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { applyLimits, checkExercise, checkPlan, evaluateAssessment, EXERCISES, loadRangeKg, plannedFromLibrary, STAGE_LIMITS, YOUTH_VOLUME } from './index';
+import { loadingStage } from './limits';
 import { mulberry32, randomAssessment } from './random-assessment';
 import type { AssessmentInput, AthleteInput, LoadingContext, MaturityStage, PlannedExercise } from './types';
 
@@ -9,7 +10,7 @@ const FAIGENBAUM =
 const COMMON = 'common practice, no source';
 const OURS = 'our choice';
 
-const STAGES: readonly MaturityStage[] = ['pre', 'circa', 'post', 'unknown'];
+const STAGES: readonly MaturityStage[] = ['pre', 'near', 'circa', 'post', 'unknown'];
 const ctxFor = (stage: MaturityStage, over: Partial<LoadingContext> = {}): LoadingContext => ({
   stage,
   unknownReason: stage === 'unknown' ? 'measures-missing' : null,
@@ -158,6 +159,66 @@ describe(`volume at every maturity stage (${FAIGENBAUM})`, () => {
     // The harder variation's loads are not shares of this 1RM: back to no added load, never above the range's bottom (our choice).
     expect(split(r)!.loadRule).toMatch(/start again without added load and build back in the same steps, no heavier than 40 kg/);
     for (const e of r.plan.exercises) expect(e.loadRule).toMatch(/5-10%/);
+  });
+});
+
+// Within one standard error of the estimate of the growth-spurt window, the window's limits (our choice).
+// SEE from Moore SA, McKay HA, Macdonald H, et al. Enhancing a somatic maturity prediction model. Med Sci
+// Sports Exerc. 2015;47(8):1755-1764: 0.51 y for boys (checked). Offsets worked by
+// hand from the boys' equation, -8.128741 + 0.0070346 x age x sitting height:
+//   15.0 y, 89.4 cm: 0.0070346 x 1341 = 9.43340 -> +1.30 (post band; 1.30 <= 1 + 0.51: near)
+//   15.5 y, 90.0 cm: 0.0070346 x 1395 = 9.81327 -> +1.68 (post, clear of the error)
+//   12.0 y, 80.9 cm: 0.0070346 x 970.8 = 6.82919 -> -1.30 (pre band; near)
+//   12.0 y, 77.0 cm: 0.0070346 x 924 = 6.49997 -> -1.63 (pre, clear of the error)
+describe("near the growth-spurt window, within the estimate's standard error: the window's limits (our choice)", () => {
+  const boy = (ageYears: number, sittingHeightCm: number): AthleteInput => ({ sex: 'male', ageYears, sittingHeightCm });
+
+  it('loadingStage: the band, widened by one SEE at both edges, the edge itself included', () => {
+    const m = (offsetYears: number, band: 'pre' | 'circa' | 'post') => ({ offsetYears, band, standardErrorYears: 0.51 });
+    expect(loadingStage(m(1.51, 'post'))).toBe('near');
+    expect(loadingStage(m(1.52, 'post'))).toBe('post');
+    expect(loadingStage(m(-1.51, 'pre'))).toBe('near');
+    expect(loadingStage(m(-1.52, 'pre'))).toBe('pre');
+    expect(loadingStage(m(0.2, 'circa'))).toBe('circa');
+    expect(loadingStage(null)).toBe('unknown');
+  });
+
+  it('+1.30 y: banded "post", loaded as in the window (55% of 1RM, 3 sets, not to fatigue), and says why', () => {
+    const r = evaluateAssessment({ athlete: boy(15, 89.4), tasks: asymmetricAnkles, oneRepMaxKg: 80 });
+    expect(r.maturity?.band).toBe('post');
+    expect(r.maturity?.offsetYears).toBeCloseTo(1.3047, 3);
+    expect(r.plan.loading?.stage).toBe('near');
+    const s = split(r)!;
+    // 50-55% of 80 kg in 2.5 kg steps: 40-42.5 kg (the post band's 65% would allow 50 kg).
+    expect(s.prescription.load).toMatchObject({ maxPercent: 55, kg: { min: 40, max: 42.5 } });
+    expect(s.prescription.sets.max).toBe(3);
+    expect(s.prescription.dose).toMatchObject({ toNearFatigue: false });
+    const caution = r.plan.cautions.find((c) => c.id === 'growth-spurt-near');
+    expect(caution?.text).toMatch(/\(1\.3 years from peak height velocity\) is within its standard error \(about 0\.51 years\)/);
+    expect(caution?.text).toMatch(/below the kneecap or at the heel/);
+  });
+
+  it("+1.68 y: clear of the error, the post band's limits", () => {
+    const r = evaluateAssessment({ athlete: boy(15.5, 90), tasks: asymmetricAnkles, oneRepMaxKg: 80 });
+    expect(r.maturity?.offsetYears).toBeCloseTo(1.6845, 3);
+    expect(r.plan.loading?.stage).toBe('post');
+    expect(split(r)!.prescription.load).toMatchObject({ maxPercent: 65, kg: { min: 40, max: 50 } });
+    expect(r.plan.cautions.map((c) => c.id)).not.toContain('growth-spurt-near');
+  });
+
+  it('-1.30 y: banded "pre", landing volume halved as in the window; -1.63 y: the pre band\'s full landing volume', () => {
+    const near = evaluateAssessment({ athlete: boy(12, 80.9), tasks: asymmetricAnkles, oneRepMaxKg: 40 });
+    expect(near.maturity?.band).toBe('pre');
+    expect(near.maturity?.offsetYears).toBeCloseTo(-1.2995, 3);
+    expect(near.plan.loading?.stage).toBe('near');
+    const clear = evaluateAssessment({ athlete: boy(12, 77), tasks: asymmetricAnkles, oneRepMaxKg: 40 });
+    expect(clear.maturity?.offsetYears).toBeCloseTo(-1.6288, 3);
+    expect(clear.plan.loading?.stage).toBe('pre');
+    const jump = EXERCISES.find((e) => e.isJump)!;
+    const halved = applyLimits(jump, ctxFor('near'));
+    expect(halved.prescription).toEqual(applyLimits(jump, ctxFor('circa')).prescription);
+    expect(halved.adjustments.join(' ')).toMatch(/near the growth-spurt window, within the estimate’s error/);
+    expect(applyLimits(jump, ctxFor('pre')).prescription).not.toEqual(halved.prescription);
   });
 });
 

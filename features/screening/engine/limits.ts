@@ -12,7 +12,18 @@
 import { EXERCISES } from './exercises';
 import { FAIGENBAUM_2009, LLOYD_2014, OUR_CHOICE, COMMON_PRACTICE } from './sources';
 import { LOAD_PROGRESSION, loadRangeKg, progressionStepKg, STRENGTH_ENDURANCE, withinPercentOfOneRepMax } from './strength';
-import type { AssessmentResult, Certainty, ExerciseSpec, LoadingContext, LoadRule, MaturityStage, PlannedExercise, Prescription, SourceKind } from './types';
+import type {
+  AssessmentResult,
+  Certainty,
+  ExerciseSpec,
+  LoadingContext,
+  LoadRule,
+  MaturityResult,
+  MaturityStage,
+  PlannedExercise,
+  Prescription,
+  SourceKind,
+} from './types';
 
 export interface LimitBasis {
   source: string;
@@ -94,6 +105,16 @@ export const STAGE_LIMITS: Readonly<Record<MaturityStage, StageLimits>> = {
     words: 'after the growth spurt, more than a year after peak height velocity',
     basis: STAGE_BASIS,
   },
+  // Banded before or after, but within one standard error of the estimate of the window: its limits.
+  near: {
+    maxPercentOneRepMax: 55,
+    toNearFatigue: false,
+    jumpVolumeFactor: 0.5,
+    maxSetsJump: 2,
+    strengthEnduranceVolume: false,
+    words: "near the growth-spurt window: the estimate's error reaches into it, so the window's limits apply",
+    basis: STAGE_BASIS,
+  },
   // No estimate: the most cautious limits, those of the growth-spurt window.
   unknown: {
     maxPercentOneRepMax: 55,
@@ -105,6 +126,18 @@ export const STAGE_LIMITS: Readonly<Record<MaturityStage, StageLimits>> = {
     basis: STAGE_BASIS,
   },
 };
+
+/**
+ * The stage the loading limits follow: the band, except that a pre or post estimate within one standard
+ * error of the window's edges (-1 and +1 year from peak height velocity) is 'near' and takes the window's
+ * limits. Our choice: the SEE is the authors' (Mirwald et al. 2002: 0.49-0.50 y; Moore et al. 2015:
+ * 0.51-0.52 y), and an athlete at +1.3 y may well be at +0.8 y, in the window.
+ */
+export function loadingStage(maturity: Pick<MaturityResult, 'band' | 'offsetYears' | 'standardErrorYears'> | null | undefined): MaturityStage {
+  if (!maturity) return 'unknown';
+  if (maturity.band !== 'circa' && Math.abs(maturity.offsetYears) <= 1 + maturity.standardErrorYears) return 'near';
+  return maturity.band;
+}
 
 /** The labelled deviation: strength-endurance volume after peak height velocity. */
 export const STRENGTH_ENDURANCE_DEVIATION = {
@@ -242,7 +275,13 @@ export function applyLimits(spec: ExerciseSpec, ctx: LoadingContext): { prescrip
   }
   if (spec.isJump && stage.jumpVolumeFactor < 1) {
     adjustments.push(
-      `Landing volume halved and at most ${stage.maxSetsJump} sets: ${ctx.stage === 'unknown' ? 'growth stage unknown, so the cautious limits apply' : 'growth-spurt window'} (our choice).`,
+      `Landing volume halved and at most ${stage.maxSetsJump} sets: ${
+        ctx.stage === 'unknown'
+          ? 'growth stage unknown, so the cautious limits apply'
+          : ctx.stage === 'near'
+            ? 'near the growth-spurt window, within the estimate’s error'
+            : 'growth-spurt window'
+      } (our choice).`,
     );
   } else if (sets.max !== base.sets.max || (dose.kind === 'reps' && base.dose.kind === 'reps' && dose.max !== base.dose.max)) {
     adjustments.push(
@@ -382,7 +421,7 @@ export function plannedFromLibrary(spec: ExerciseSpec, ctx: LoadingContext, orde
 export function loadingContextOf(result: Pick<AssessmentResult, 'plan' | 'maturity'>, oneRepMaxKg?: number | null, loadIncrementKg = 2.5): LoadingContext {
   if (result.plan.loading) return result.plan.loading;
   return {
-    stage: result.maturity?.band ?? 'unknown',
+    stage: loadingStage(result.maturity),
     unknownReason: result.maturity ? null : 'not-estimated',
     painUncleared: result.plan.status === 'clearance-needed',
     oneRepMaxKg: oneRepMaxKg ?? null,

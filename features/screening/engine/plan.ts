@@ -5,7 +5,7 @@
  * changes are our design.
  */
 import { EXERCISES, PHASE_ORDER } from './exercises';
-import { applyLimits, exerciseLimits, loadRuleText, STAGE_LIMITS, YOUTH_VOLUME } from './limits';
+import { applyLimits, exerciseLimits, loadingStage, loadRuleText, STAGE_LIMITS, YOUTH_VOLUME } from './limits';
 import {
   COMMON_PRACTICE,
   FAIGENBAUM_2009,
@@ -144,6 +144,12 @@ function cautionsFor(flags: readonly Flag[], ctx: PlanContext, loading: LoadingC
       text: `Growth stage unknown: ${UNKNOWN_WORDS[loading.unknownReason ?? 'not-estimated']}. The plan applies the cautious limits of the growth-spurt window (at most ${STAGE_LIMITS.unknown.maxPercentOneRepMax}% of 1RM, at most ${YOUTH_VOLUME.maxSets} sets, no sets to fatigue, landing volume halved) until a growth estimate is made (our choice). Watch the knees: pain at the front of the knee, below the kneecap or at the heel is a reason to stop and refer.`,
       source: OUR_CHOICE,
     });
+  } else if (loading.stage === 'near' && ctx.maturity) {
+    out.push({
+      id: 'growth-spurt-near',
+      text: `Near the growth-spurt window: the estimate (${ctx.maturity.offsetYears.toFixed(1)} years from peak height velocity) is within its standard error (about ${ctx.maturity.standardErrorYears} years) of the window, so the plan applies the window's limits (at most ${STAGE_LIMITS.near.maxPercentOneRepMax}% of 1RM, no sets to fatigue, landing volume halved) until a later screen places the athlete clearly outside it (our choice). Watch the knees: pain at the front of the knee, below the kneecap or at the heel is a reason to stop and refer.`,
+      source: OUR_CHOICE,
+    });
   } else if (loading.stage === 'pre') {
     out.push({
       id: 'youth-volume',
@@ -177,7 +183,7 @@ function cautionsFor(flags: readonly Flag[], ctx: PlanContext, loading: LoadingC
 
 export function loadingContextFor(ctx: PlanContext): LoadingContext {
   return {
-    stage: ctx.maturity?.band ?? 'unknown',
+    stage: loadingStage(ctx.maturity),
     unknownReason: ctx.maturity ? null : (ctx.unknownReason ?? 'not-estimated'),
     painUncleared: ctx.painTaskTitles.length > 0 && ctx.painCleared !== true,
     oneRepMaxKg: ctx.oneRepMaxKg ?? null,

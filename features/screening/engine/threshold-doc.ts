@@ -53,7 +53,7 @@ export function thresholdTableMarkdown(): string {
   }
   lines.push('', 'Loading limits by growth stage (`limits.ts`), for the engine plan, the plan editor and the plan route alike:', '');
   lines.push('| Stage | Max % of 1RM | Sets | Repetitions | Sets to fatigue | Landing volume | Basis |', '| --- | --- | --- | --- | --- | --- | --- |');
-  const stages: MaturityStage[] = ['pre', 'circa', 'post', 'unknown'];
+  const stages: MaturityStage[] = ['pre', 'near', 'circa', 'post', 'unknown'];
   for (const s of stages) {
     const l = STAGE_LIMITS[s];
     const sets = l.strengthEnduranceVolume ? `${YOUTH_VOLUME.maxSets} (${STRENGTH_ENDURANCE_DEVIATION.maxSets} for %1RM work)` : `${YOUTH_VOLUME.maxSets}`;

@@ -322,10 +322,12 @@ export interface Caution {
 }
 
 /**
- * Where the athlete stands for loading purposes: the maturity band, or 'unknown' when there is no
- * growth estimate (body measures missing, age outside the equations' range, estimate turned off).
+ * Where the athlete stands for loading purposes: the maturity band, 'near' when the band is pre or post
+ * but the estimate's standard error reaches into the growth-spurt window (`loadingStage`), or 'unknown'
+ * when there is no growth estimate (body measures missing, age outside the equations' range, estimate
+ * turned off).
  */
-export type MaturityStage = MaturityBand | 'unknown';
+export type MaturityStage = MaturityBand | 'near' | 'unknown';
 
 export type GrowthUnknownReason = 'measures-missing' | 'age-outside-range' | 'not-estimated';
 

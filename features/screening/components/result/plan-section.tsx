@@ -107,10 +107,14 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, massKg, canAdju
           {clearance.detail ? ` (“${clearance.detail}”)` : ''}.
         </Text>
       ) : null}
-      <Notice tone={loading.stage === 'unknown' ? 'caution' : 'info'} title={`${STAGE_LABELS[loading.stage]}: loading limits`} testID="plan-stage">
+      <Notice
+        tone={loading.stage === 'unknown' || loading.stage === 'near' ? 'caution' : 'info'}
+        title={`${STAGE_LABELS[loading.stage]}: loading limits`}
+        testID="plan-stage"
+      >
         {loading.stage === 'unknown'
           ? `No growth estimate (${loading.unknownReason === 'age-outside-range' ? 'age outside the range of the maturity equations' : loading.unknownReason === 'measures-missing' ? 'body measures missing' : 'not estimated'}): the plan applies the cautious limits of the growth-spurt window, at most ${STAGE_LIMITS.unknown.maxPercentOneRepMax}% of 1RM, no sets to fatigue, landing volume halved.`
-          : `At most ${STAGE_LIMITS[loading.stage].maxPercentOneRepMax}% of 1RM${STAGE_LIMITS[loading.stage].toNearFatigue ? '' : ', no sets to fatigue'}${STAGE_LIMITS[loading.stage].jumpVolumeFactor < 1 ? ', landing volume halved' : ''}. The plan editor keeps to the same limits.`}
+          : `${loading.stage === 'near' ? 'Within the growth estimate’s error of the window, so its limits apply: at most' : 'At most'} ${STAGE_LIMITS[loading.stage].maxPercentOneRepMax}% of 1RM${STAGE_LIMITS[loading.stage].toNearFatigue ? '' : ', no sets to fatigue'}${STAGE_LIMITS[loading.stage].jumpVolumeFactor < 1 ? ', landing volume halved' : ''}. The plan editor keeps to the same limits.`}
       </Notice>
       <Text variant="small" testID="plan-one-rep-max">
         {oneRepMaxKg != null
