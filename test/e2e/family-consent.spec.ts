@@ -16,6 +16,15 @@ async function tokenFromMailbox(page: Page, email: string): Promise<string> {
   return token!;
 }
 
+/** The test's athlete and squad archived again, so the demo club's squad list does not grow with every run. */
+async function tidyUp(page: Page, athleteId: string, squadId: string) {
+  await page.context().clearCookies();
+  await signIn(page, 'admin@squadline.test');
+  await expect(page.getByTestId('home-admin')).toBeVisible();
+  expect((await page.request.post(`/api/athletes/${athleteId}/archive`)).status()).toBe(200);
+  expect((await page.request.post(`/api/squads/${squadId}/archive`)).status()).toBe(200);
+}
+
 test('a parent stops and gives back photo consent from their child’s page', async ({ page }, testInfo) => {
   test.setTimeout(120_000);
   const project = testInfo.project.name;
@@ -69,6 +78,7 @@ test('a parent stops and gives back photo consent from their child’s page', as
   await expect(page.getByTestId('consent-photos')).toContainText('Photos may be taken');
   await page.goto('/');
   await expect(page.getByTestId('child-card')).toContainText('you agreed that screening photos may be taken');
+  await tidyUp(page, athleteId, squadId);
 });
 
 test('no screen without the family’s agreement: the tester is told, the parent agrees from the app', async ({ page }, testInfo) => {
@@ -114,7 +124,7 @@ test('no screen without the family’s agreement: the tester is told, the parent
   const joined = await page.request.post('/api/auth/invitations/accept', { data: { token, displayName: 'Ash Quill', password: 'a-very-long-password' } });
   expect(joined.status()).toBeLessThan(300);
   await page.goto('/');
-  await expect(page.getByTestId('child-card')).toContainText('Screens and exercises: not agreed yet: not screened');
+  await expect(page.getByTestId('child-card')).toContainText('Screens and exercises: not agreed yet (not screened)');
   await page.goto(`/family/${athleteId}`);
   await expect(page.getByTestId('family-not-taking-part')).toContainText('so Wren is not screened');
   await page.getByTestId('family-consent-link').click();
@@ -134,4 +144,5 @@ test('no screen without the family’s agreement: the tester is told, the parent
   await expect(page.getByTestId('round-not-taking-part')).toHaveCount(0);
   // Closed again so the demo club's open rounds do not grow with every run.
   expect((await page.request.post(`/api/rounds/${round.round.id}/close`)).status()).toBeLessThan(300);
+  await tidyUp(page, athleteId, squadId);
 });

@@ -51,7 +51,9 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
       <Text variant="title" accessibilityRole="header">
         {athlete.firstName} {athlete.lastName}
       </Text>
-      {takingPart?.granted ? null : <NotTakingPart athlete={athlete} stoppedOn={takingPart?.decidedOn ?? null} hasPlan={!!latest} />}
+      {takingPart?.granted ? null : (
+        <NotTakingPart athlete={athlete} stoppedOn={takingPart?.decidedOn ?? null} hasPlan={!!latest && latest.summary.exercises.length > 0} />
+      )}
       {!latest ? (
         <Notice title="No summary yet">{`When ${athlete.firstName}'s next screen has been reviewed and shared with you, its summary appears here.`}</Notice>
       ) : (
