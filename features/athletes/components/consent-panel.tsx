@@ -25,6 +25,13 @@ const answerOptions = [
   { value: 'no', label: 'No' },
 ] as const;
 
+/** Each kind as the athlete record names it, its test id, and whether its absence is shown as a warning. */
+const CONSENT_ROWS: { kind: ConsentKind; field: keyof Athlete['consents']; id: string; warn: boolean }[] = [
+  { kind: 'screening', field: 'screening', id: 'screening', warn: true },
+  { kind: 'photos', field: 'photos', id: 'photos', warn: true },
+  { kind: 'email_summaries', field: 'emailSummaries', id: 'email', warn: false },
+];
+
 function inForce(c: ConsentView, kind: ConsentKind) {
   if (!c) return kind === 'screening' ? 'Not recorded yet: not screened until it is' : 'Not recorded yet';
   return `${c.granted ? CONSENT_LABELS[kind].yes : CONSENT_LABELS[kind].no} (decided ${formatDate(c.decidedOn)})`;
@@ -44,22 +51,17 @@ export function ConsentPanel({ athlete }: { athlete: Athlete }) {
         <Text variant="small">{`Your decisions about ${athlete.firstName}: each is recorded with today's date and your name, and you can change it here at any time.`}</Text>
       ) : null}
       <View style={styles.current}>
-        <Current
-          label={CONSENT_LABELS.screening.title}
-          value={inForce(athlete.consents.screening, 'screening')}
-          warn={athlete.consents.screening?.granted !== true}
-          testID="consent-screening"
-        />
-        {own ? <OwnDecision athlete={athlete} kind="screening" granted={athlete.consents.screening?.granted === true} /> : null}
-        <Current
-          label={CONSENT_LABELS.photos.title}
-          value={inForce(athlete.consents.photos, 'photos')}
-          warn={athlete.consents.photos?.granted !== true}
-          testID="consent-photos"
-        />
-        {own ? <OwnDecision athlete={athlete} kind="photos" granted={athlete.consents.photos?.granted === true} /> : null}
-        <Current label={CONSENT_LABELS.email_summaries.title} value={inForce(athlete.consents.emailSummaries, 'email_summaries')} testID="consent-email" />
-        {own ? <OwnDecision athlete={athlete} kind="email_summaries" granted={athlete.consents.emailSummaries?.granted === true} /> : null}
+        {CONSENT_ROWS.map(({ kind, field, id, warn }) => (
+          <View key={kind} style={styles.current}>
+            <Current
+              label={CONSENT_LABELS[kind].title}
+              value={inForce(athlete.consents[field], kind)}
+              warn={warn && athlete.consents[field]?.granted !== true}
+              testID={`consent-${id}`}
+            />
+            {own ? <OwnDecision athlete={athlete} kind={kind} granted={athlete.consents[field]?.granted === true} /> : null}
+          </View>
+        ))}
       </View>
       {manage && !recording ? <Button label="Record a decision" tone="secondary" testID="consent-record" onPress={() => setRecording(true)} /> : null}
       {manage && recording ? <RecordDecision athleteId={athlete.id} onDone={() => setRecording(false)} /> : null}
@@ -143,7 +145,7 @@ function OwnDecision({ athlete, kind, granted }: { athlete: Athlete; kind: Conse
   const record = useRecordOwnConsentMutation(athlete.id);
   const [confirming, setConfirming] = useState(false);
   const words = ownDecisionWords(kind, granted, athlete.firstName);
-  const id = kind === 'screening' ? 'screening' : kind === 'photos' ? 'photos' : 'email';
+  const id = CONSENT_ROWS.find((r) => r.kind === kind)!.id;
   if (!confirming) {
     return (
       <Button

@@ -3,6 +3,7 @@ import { useRouter } from 'expo-router';
 import { useActiveClub } from '@/features/session/active-club';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
+import { Text } from '@/features/ui/components/text';
 import { useCreateAthleteMutation } from '../api/create-athlete';
 import { LazyAthleteForm } from './lazy-athlete-form';
 
@@ -16,6 +17,10 @@ export function NewAthlete() {
   }
   return (
     <Card>
+      <Text variant="small" testID="new-athlete-next">
+        Next, on the athlete&apos;s page: the family&apos;s decisions about taking part in screening and exercises, photos and e-mail summaries. Nobody is
+        screened until the family has agreed.
+      </Text>
       <LazyAthleteForm
         submitLabel="Add athlete"
         onCancel={() => router.back()}
