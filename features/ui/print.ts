@@ -6,6 +6,7 @@ export const PRINT_ROOT = { dataSet: { printRoot: 'true' } } as object;
 /** A block kept on one printed page (an exercise with its athletes' names). */
 export const PRINT_KEEP = { dataSet: { printKeep: 'true' } } as object;
 export function usePrintStyles(): void {}
+export function useFitToOnePage(): void {}
 export function printPage(): void {}
 export const canPrint = false;
 /** Opens a file download (native: hands the link to the system). */

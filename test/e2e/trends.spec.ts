@@ -129,6 +129,12 @@ test('squad trends: load, filter, sort, CSV, charts', async ({ page }, info) => 
   expect(printed.x).toBe(0);
   await page.screenshot({ path: `test-results/trends-print-${info.project.name}.png`, fullPage: true });
   await page.emulateMedia({ media: 'screen' });
+  // The report prints on one page: the browser's print announces itself (beforeprint), and the report is
+  // scaled to the page. Counted in the PDF Chromium makes of the page (its page objects).
+  await page.evaluate(() => window.dispatchEvent(new Event('beforeprint')));
+  const pdf = (await page.pdf({ preferCSSPageSize: true, printBackground: true })).toString('latin1');
+  expect(pdf.match(/\/Type\s*\/Page[^s]/g)).toHaveLength(1);
+  await page.evaluate(() => window.dispatchEvent(new Event('afterprint')));
 
   // The navigation leads here too.
   await openNav(page);

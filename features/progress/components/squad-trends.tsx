@@ -20,7 +20,7 @@ import {
   type TrendsResponse,
 } from '../trends';
 import { Chips } from '@/features/ui/components/chips';
-import { canPrint, downloadFile, printPage, PRINT_HIDE, PRINT_ROOT, usePrintStyles } from '@/features/ui/print';
+import { canPrint, downloadFile, printPage, PRINT_HIDE, PRINT_ROOT, useFitToOnePage, usePrintStyles } from '@/features/ui/print';
 import { ChangeChart, FlagShareChart, KneeDistributionChart, patternsIn } from './trend-charts';
 import { TrendsCards, TrendsTable } from './trends-table';
 import { formatDate } from '@/features/ui/format-date';
@@ -39,6 +39,7 @@ const SORT_LABELS: Record<SortKey, string> = {
 /** The squad over the season: filterable table beside the charts on wide screens, cards then charts on a phone. */
 export default function SquadTrends({ initialSquadId }: { initialSquadId?: string }) {
   usePrintStyles();
+  useFitToOnePage();
   const squads = useSquadsQuery();
   const [squadId, setSquadId] = useState<string | null>(initialSquadId ?? null);
   const [compareId, setCompareId] = useState<string>('');
