@@ -17,7 +17,8 @@ export function NumbersTable({ caption, columns, rows, testID }: { caption: stri
           {shown ? 'Hide numbers' : 'Show numbers'}
         </Text>
       </Pressable>
-      <View role="table" aria-label={caption} style={shown ? styles.table : styles.hidden} testID={testID}>
+      {/* Hidden, it stays off paper too (print unrolls every clipped box, and it ran on into a blank page). */}
+      <View role="table" aria-label={caption} style={shown ? styles.table : styles.hidden} testID={testID} {...(shown ? {} : PRINT_HIDE)}>
         <View role="row" style={styles.row}>
           {columns.map((c) => (
             <Text key={c} role="columnheader" variant="label" style={styles.cell}>

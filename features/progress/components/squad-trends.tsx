@@ -20,7 +20,19 @@ import {
   type TrendsResponse,
 } from '../trends';
 import { Chips } from '@/features/ui/components/chips';
-import { canPrint, downloadFile, printPage, PRINT_HIDE, PRINT_ROOT, useFitToOnePage, usePrintStyles } from '@/features/ui/print';
+import {
+  canPrint,
+  downloadFile,
+  printPage,
+  PRINT_FLOW,
+  PRINT_FLOW_PARENT,
+  PRINT_FULL,
+  PRINT_HIDE,
+  PRINT_ROOT,
+  PRINT_THIRD,
+  useFitToOnePage,
+  usePrintStyles,
+} from '@/features/ui/print';
 import { ChangeChart, FlagShareChart, KneeDistributionChart, patternsIn } from './trend-charts';
 import { TrendsCards, TrendsTable } from './trends-table';
 import { formatDate } from '@/features/ui/format-date';
@@ -273,20 +285,29 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
     ) : null;
 
   return (
-    <View style={styles.stack}>
+    <View style={styles.stack} {...PRINT_FLOW_PARENT}>
       {controls}
       {isWide ? (
         // The width used: the table beside the season's flag shares, then the knee angles' two charts
         // side by side under both (they stacked in the narrow column, leaving the table's side empty).
+        // On paper: the table across the page, the three charts in one row under it.
         <>
-          <View style={styles.row}>
-            <View style={styles.tableCol}>{table}</View>
-            <View style={styles.chartCol}>{shareChart}</View>
+          <View style={styles.row} {...PRINT_FLOW}>
+            <View style={styles.tableCol} {...PRINT_FULL}>
+              {table}
+            </View>
+            <View style={styles.chartCol} {...PRINT_THIRD}>
+              {shareChart}
+            </View>
           </View>
           {kneeChoice}
-          <View style={styles.row}>
-            <View style={styles.flex}>{distribution}</View>
-            <View style={styles.flex}>{change}</View>
+          <View style={styles.row} {...PRINT_FLOW}>
+            <View style={styles.flex} {...PRINT_THIRD}>
+              {distribution}
+            </View>
+            <View style={styles.flex} {...PRINT_THIRD}>
+              {change}
+            </View>
           </View>
         </>
       ) : (

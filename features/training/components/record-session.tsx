@@ -225,7 +225,7 @@ function RecordForm({
             >
               <Text style={[styles.box, on && styles.boxOn]}>{on ? '✓' : ' '}</Text>
               <Text style={styles.tickName}>{a.name}</Text>
-              {a.state !== 'plan' ? <Text variant="small">no plan</Text> : null}
+              {a.state !== 'plan' ? <Text variant="small">{a.state === 'not-taking-part' ? 'not taking part' : 'no plan'}</Text> : null}
             </Pressable>
           );
         })}
