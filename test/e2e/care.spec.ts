@@ -188,6 +188,9 @@ test("the plan sets held-back work apart with the reason, and follows the physio
   });
   expect(athlete.status()).toBe(201);
   const athleteId = ((await athlete.json()) as { athlete: { id: string } }).athlete.id;
+  // The family agrees to screening and exercises: nobody is screened without it.
+  const agreed = await page.request.post(`/api/athletes/${athleteId}/consents`, { data: { kind: 'screening', granted: true, decidedOn: '2026-11-01' } });
+  expect(agreed.status()).toBe(201);
   const round = await page.request.post('/api/rounds', { data: { squadId, name: `Clearance ${project}`, screenedOn: '2026-11-30' } });
   expect(round.status()).toBe(201);
   const assessmentId = ((await round.json()) as { athletes: { assessmentId: string }[] }).athletes[0]!.assessmentId;
