@@ -5,12 +5,7 @@ export const PRINT_HIDE = { dataSet: { print: 'hide' } } as object;
 export const PRINT_ROOT = { dataSet: { printRoot: 'true' } } as object;
 /** A block kept on one printed page (an exercise with its athletes' names). */
 export const PRINT_KEEP = { dataSet: { printKeep: 'true' } } as object;
-export const PRINT_FLOW_PARENT = { dataSet: { printFlowParent: 'true' } } as object;
-export const PRINT_FLOW = { dataSet: { printFlow: 'true' } } as object;
-export const PRINT_FULL = { dataSet: { printFull: 'true' } } as object;
-export const PRINT_THIRD = { dataSet: { printThird: 'true' } } as object;
 export function usePrintStyles(): void {}
-export function useFitToOnePage(): void {}
 export function printPage(): void {}
 export const canPrint = false;
 /** Opens a file download (native: hands the link to the system). */

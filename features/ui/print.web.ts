@@ -5,24 +5,6 @@ export const PRINT_ROOT = { dataSet: { printRoot: 'true' } } as object;
 /** A block kept on one printed page (an exercise with its athletes' names). */
 export const PRINT_KEEP = { dataSet: { printKeep: 'true' } } as object;
 /**
- * A one-page report's layout on paper: the rows marked PRINT_FLOW give up their own box, so that what they
- * hold flows in the marked parent (PRINT_FLOW_PARENT): PRINT_FULL blocks take the page's width, PRINT_THIRD
- * blocks share a line three by three (the squad trends' table, then its three charts in one row).
- */
-export const PRINT_FLOW_PARENT = { dataSet: { printFlowParent: 'true' } } as object;
-export const PRINT_FLOW = { dataSet: { printFlow: 'true' } } as object;
-export const PRINT_FULL = { dataSet: { printFull: 'true' } } as object;
-export const PRINT_THIRD = { dataSet: { printThird: 'true' } } as object;
-
-/** The paper layout's rules, applied in print and while the report is measured for it on screen. */
-const flowRules = (scope: string) => `
-  ${scope} [data-print-flow-parent] { flex-direction: row !important; flex-wrap: wrap !important; align-items: flex-start !important; }
-  ${scope} [data-print-flow] { display: contents !important; }
-  ${scope} [data-print-full] { flex: 0 0 100% !important; width: 100% !important; }
-  ${scope} [data-print-third] { flex: 1 1 30% !important; min-width: 0 !important; }
-  ${scope} [data-print-third] svg { max-width: 100%; height: auto; }`;
-
-/**
  * Printable reports (the squad trends' one page, the training sheet): only the region marked PRINT_ROOT
  * is printed, controls marked PRINT_HIDE are left out, scrolling containers are unrolled, on A4 landscape.
  */
@@ -44,73 +26,7 @@ const CSS = `
   [data-print="hide"] { display: none !important; }
   [data-print-root] { font-size: 11px; }
   [data-print-keep] { break-inside: avoid; page-break-inside: avoid; }
-  /* A one-page report (useFitToOnePage) is scaled to the page, and widened to fill it at that scale. */
-  [data-print-root][data-print-fit] { zoom: var(--print-zoom, 1); }
-  ${flowRules('[data-print-root]')}
-}
-${flowRules('[data-print-measure]')}
-/* While a one-page report is measured for print, what print leaves out is left out of the measure. */
-[data-print-measure] [data-print="hide"] { display: none !important; }`;
-
-/** The printable area of an A4 landscape page less the 10 mm margins, in CSS pixels (96 per inch). */
-export const PRINT_PAGE_PX = { width: Math.floor((277 / 25.4) * 96), height: Math.floor((190 / 25.4) * 96) };
-
-/**
- * The largest zoom (at most 1: never enlarged; at least 0.4, our floor for legible print) at which a report
- * fits one page. At zoom z the report is laid out at the page's width / z and printed z times its size, so
- * it fits when heightAt(width / z) x z stays within the page's height, with 3 % to spare for what the
- * measure on screen misses (our choice). The height falls as the width grows (text wraps less), so a
- * bisection finds the zoom to within 1 % in seven layouts.
- */
-export function fitZoom(heightAt: (width: number) => number, page = PRINT_PAGE_PX): number {
-  const fits = (z: number) => heightAt(page.width / z) * z <= page.height * 0.97;
-  if (fits(1)) return 1;
-  let lo = 0.4;
-  let hi = 1;
-  if (!fits(lo)) return lo;
-  for (let i = 0; i < 7; i++) {
-    const mid = (lo + hi) / 2;
-    if (fits(mid)) lo = mid;
-    else hi = mid;
-  }
-  return lo;
-}
-
-/**
- * Before printing, lays the page's print region out on screen as it will be on paper (PRINT_FLOW, without
- * the controls print leaves out) at the widths `fitZoom` tries, and scales it to fit one page (the squad
- * trends' one-page report).
- */
-export function useFitToOnePage(): void {
-  useEffect(() => {
-    const before = () => {
-      const root = document.querySelector<HTMLElement>('[data-print-root]');
-      if (!root) return;
-      const width = root.style.width;
-      root.dataset.printMeasure = 'true';
-      const zoom = fitZoom((w) => {
-        root.style.width = `${w}px`;
-        return root.getBoundingClientRect().height;
-      });
-      delete root.dataset.printMeasure;
-      root.style.width = width;
-      root.style.setProperty('--print-zoom', String(zoom));
-      root.dataset.printFit = 'true';
-    };
-    const after = () => {
-      const root = document.querySelector<HTMLElement>('[data-print-root]');
-      if (!root) return;
-      delete root.dataset.printFit;
-      root.style.removeProperty('--print-zoom');
-    };
-    window.addEventListener('beforeprint', before);
-    window.addEventListener('afterprint', after);
-    return () => {
-      window.removeEventListener('beforeprint', before);
-      window.removeEventListener('afterprint', after);
-    };
-  }, []);
-}
+}`;
 
 export function usePrintStyles(): void {
   useEffect(() => {

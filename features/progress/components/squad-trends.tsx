@@ -20,19 +20,8 @@ import {
   type TrendsResponse,
 } from '../trends';
 import { Chips } from '@/features/ui/components/chips';
-import {
-  canPrint,
-  downloadFile,
-  printPage,
-  PRINT_FLOW,
-  PRINT_FLOW_PARENT,
-  PRINT_FULL,
-  PRINT_HIDE,
-  PRINT_ROOT,
-  PRINT_THIRD,
-  useFitToOnePage,
-  usePrintStyles,
-} from '@/features/ui/print';
+import { canPrint, downloadFile, printPage, PRINT_HIDE, PRINT_ROOT, usePrintStyles } from '@/features/ui/print';
+import { PRINT_FLOW, PRINT_FLOW_PARENT, PRINT_FULL, PRINT_THIRD, useFitToOnePage } from '@/features/ui/print-fit';
 import { ChangeChart, FlagShareChart, KneeDistributionChart, patternsIn } from './trend-charts';
 import { TrendsCards, TrendsTable } from './trends-table';
 import { formatDate } from '@/features/ui/format-date';

@@ -2,7 +2,7 @@
 // classes of printed matter: trimmed sizes, A and B series); a CSS pixel is 1/96 inch (W3C, CSS Values
 // and Units Module Level 3, "absolute lengths"); the 10 mm margins and the 3 % to spare are our choice.
 import { describe, expect, it } from 'vitest';
-import { fitZoom, PRINT_PAGE_PX } from './print.web';
+import { fitZoom, PRINT_PAGE_PX } from './print-fit.web';
 
 describe('fitting a report on one A4 landscape page', () => {
   it('the printable area: (297 - 20) mm by (210 - 20) mm at 96 px per 25.4 mm', () => {
