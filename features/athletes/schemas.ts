@@ -15,7 +15,11 @@ export const SEX_LABELS: Record<Sex, string> = { female: 'Female', male: 'Male' 
 export const SIDE_LABELS: Record<Side, string> = { left: 'Left', right: 'Right' };
 export const CONSENT_LABELS: Record<ConsentKind, { title: string; yes: string; no: string }> = {
   // Taking part at all: screens and the corrective exercises that follow them (our wording).
-  screening: { title: 'Screening and exercises', yes: 'Takes part in screens and corrective exercises', no: 'Does not take part' },
+  screening: {
+    title: 'Screening and exercises',
+    yes: 'Takes part in screens and corrective exercises',
+    no: 'Family said no: not screened, no corrective exercises',
+  },
   photos: { title: 'Photos', yes: 'Photos may be taken', no: 'No photos' },
   email_summaries: { title: 'E-mail summaries', yes: 'Summaries may be e-mailed', no: 'No e-mails' },
 };

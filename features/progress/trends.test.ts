@@ -31,6 +31,7 @@ function athlete(overrides: Partial<TrendAthlete>): TrendAthlete {
     clearance: null,
     awaitingClearance: false,
     takingPart: true,
+    screeningRefused: false,
     latestAssessmentId: null,
     lastScreenedOn: null,
     daysSinceLastScreen: null,
@@ -95,6 +96,7 @@ describe('filters, sorting and the CSV rows agree', () => {
       maturityBand: 'circa',
       latestFlags: { left: ['dynamic-knee-valgus'], right: [], both: [], unsided: [] },
       daysSinceLastScreen: 20,
+      latestAssessmentId: 'a-ana',
       sessionsSinceScreen: { attended: 3, held: 4 },
     }),
     athlete({
@@ -104,6 +106,7 @@ describe('filters, sorting and the CSV rows agree', () => {
       ageGroup: 'U15',
       maturityBand: 'post',
       daysSinceLastScreen: 80,
+      latestAssessmentId: 'a-ben',
       sessionsSinceScreen: { attended: 5, held: 10 },
     }),
     athlete({ firstName: 'Cai', lastName: 'Cole', sex: 'female', maturityBand: null, daysSinceLastScreen: null }),
@@ -113,15 +116,21 @@ describe('filters, sorting and the CSV rows agree', () => {
     [{ ageGroup: 'U15' }, ['Ben']],
     [{ maturityBand: 'unknown' as const }, ['Cai']],
     [{ flag: 'any' as const }, ['Ana']],
-    [{ flag: 'none' as const }, ['Ben', 'Cai']],
+    // our choice: never screened (Cai) is not "no movement flag"
+    [{ flag: 'none' as const }, ['Ben']],
     [{ flag: 'dynamic-knee-valgus' as const }, ['Ana']],
-    [{ sex: 'female' as const, flag: 'none' as const }, ['Cai']],
+    [{ sex: 'female' as const, flag: 'none' as const }, []],
   ])('%o', (filters, names) => {
     expect(filterAthletes(rows, filters).map((a) => a.firstName)).toEqual(names);
   });
 
   it('counts movement flags only for "any", "none" and the flag sort: the growth-spurt window is a stage (our choice)', () => {
-    const growing = athlete({ firstName: 'Gus', lastName: 'Gray', latestFlags: { left: [], right: [], both: [], unsided: ['growth-spurt-window'] } });
+    const growing = athlete({
+      firstName: 'Gus',
+      lastName: 'Gray',
+      latestAssessmentId: 'a-gus',
+      latestFlags: { left: [], right: [], both: [], unsided: ['growth-spurt-window'] },
+    });
     expect(filterAthletes([growing], { flag: 'any' })).toEqual([]);
     expect(filterAthletes([growing], { flag: 'none' })).toEqual([growing]);
     expect(filterAthletes([growing], { flag: 'growth-spurt-window' })).toEqual([growing]);
@@ -160,9 +169,10 @@ describe('filters, sorting and the CSV rows agree', () => {
   });
 
   // our choice: an athlete whose family has not agreed to take part is asked for no re-screen.
-  it('says "not taking part" in the re-screen column of the CSV', () => {
-    const out = athlete({ firstName: 'Gil', lastName: 'Gray', takingPart: false, rescreenDue: false });
-    expect(csvRows([out])[1]![12]).toBe('not taking part');
+  it('says why there is no re-screen in the CSV: the family said no, or no decision yet', () => {
+    const out = athlete({ firstName: 'Gil', lastName: 'Gray', takingPart: false, screeningRefused: true, rescreenDue: false });
+    expect(csvRows([out])[1]![12]).toBe('family said no to screening');
+    expect(csvRows([athlete({ takingPart: false, rescreenDue: false })])[1]![12]).toBe('no screening consent yet');
     expect(csvRows([athlete({ rescreenDue: true })])[1]![12]).toBe('yes');
   });
 });

@@ -54,6 +54,8 @@ export type TrendAthlete = {
   awaitingClearance: boolean;
   /** The family agreed to screening and exercises (none on record: false); without it no re-screen is due. */
   takingPart: boolean;
+  /** The family's decision in force is a no (false where none is recorded). */
+  screeningRefused: boolean;
   latestAssessmentId: string | null;
   lastScreenedOn: string | null;
   daysSinceLastScreen: number | null;
@@ -169,7 +171,8 @@ export function filterAthletes(rows: readonly TrendAthlete[], f: TrendFilters): 
       // own filters (the maturity band and its own flag), not a movement fault (our choice).
       const patterns = f.flag === 'any' || f.flag === 'none' ? movementPatterns(a.latestFlags) : allPatterns(a.latestFlags);
       if (f.flag === 'any' && patterns.length === 0) return false;
-      if (f.flag === 'none' && patterns.length > 0) return false;
+      // "No movement flag" means screened and none raised: never screened is not "none" (our rule).
+      if (f.flag === 'none' && (patterns.length > 0 || a.latestAssessmentId === null)) return false;
       if (f.flag !== 'any' && f.flag !== 'none' && !patterns.includes(f.flag)) return false;
     }
     return true;
@@ -268,7 +271,7 @@ export function csvRows(rows: readonly TrendAthlete[]): string[][] {
       a.lastScreenedOn ?? '',
       a.daysSinceLastScreen === null ? '' : String(a.daysSinceLastScreen),
       a.rescreenDate ?? '',
-      a.takingPart ? (a.rescreenDue ? 'yes' : 'no') : 'not taking part',
+      a.takingPart ? (a.rescreenDue ? 'yes' : 'no') : a.screeningRefused ? 'family said no to screening' : 'no screening consent yet',
       a.sessionsSinceScreen ? String(a.sessionsSinceScreen.attended) : '',
       a.sessionsSinceScreen ? String(a.sessionsSinceScreen.held) : '',
     ]),

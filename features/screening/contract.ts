@@ -224,6 +224,8 @@ export type RoundAthlete = {
   photoConsent: boolean;
   /** The family agreed to screening and corrective exercises (no decision on record: false). */
   screeningConsent: boolean;
+  /** The family's decision in force is a no (false where none is recorded yet). */
+  screeningRefused: boolean;
   flagCount: number | null;
   /** The current result's flags, most severe first (concern, then watch): what a coach scans the list for. */
   flags: RoundAthleteFlag[];
@@ -307,6 +309,8 @@ export type AssessmentDetail = {
     photoConsent: boolean;
     /** The family agreed to screening and corrective exercises: without it nothing is saved or submitted. */
     screeningConsent: boolean;
+    /** The family's decision in force is a no (false where none is recorded yet). */
+    screeningRefused: boolean;
   };
   photos: PhotoView[];
   result: ResultView | null;

@@ -114,6 +114,7 @@ describe('next athlete of the round', () => {
     status,
     photoConsent: true,
     screeningConsent,
+    screeningRefused: false,
     flagCount: null,
     flags: [],
   });

@@ -26,6 +26,7 @@ function member(id: string, lastName: string, over: Partial<SheetMember> = {}): 
     adjusted: null,
     clearance: null,
     takingPart: true,
+    screeningRefused: false,
     ...over,
   };
 }
@@ -159,7 +160,7 @@ describe('buildSheet', () => {
     const sheet = buildSheet(
       SQUAD,
       [
-        member('ida', 'Ives', { plan, takingPart: false }),
+        member('ida', 'Ives', { plan, takingPart: false, screeningRefused: true }),
         member('jo', 'Jones', { plan }),
         member('kit', 'Kerr', { assessmentId: null, screenedOn: null, resultCreatedAt: null, plan: null, takingPart: false }),
       ],
@@ -167,9 +168,9 @@ describe('buildSheet', () => {
     );
     expect(sheet.exercises.map((e) => [e.id, e.entries.map((x) => x.name)])).toEqual([['side-lying-hip-abduction', ['JO Jones']]]);
     expect(sheet.athletes.map((a) => [a.name, a.state, a.rescreenDue, a.exerciseCount])).toEqual([
-      ['IDA Ives', 'not-taking-part', false, 0],
+      ['IDA Ives', 'consent-refused', false, 0],
       ['JO Jones', 'plan', true, 1],
-      ['KIT Kerr', 'not-taking-part', false, 0],
+      ['KIT Kerr', 'consent-missing', false, 0],
     ]);
   });
 });

@@ -29,6 +29,8 @@ export type SheetMember = {
   clearance: { status: ClearanceStatus; setAt: string; detail?: string } | null;
   /** The family agreed to screening and corrective exercises (no decision on record: false). */
   takingPart: boolean;
+  /** The family's decision in force is a no (false where none is recorded). */
+  screeningRefused: boolean;
 };
 
 /** One athlete's line under an exercise. */
@@ -53,7 +55,7 @@ export type SheetExercise = {
   entries: SheetEntry[];
 };
 
-export type SheetAthleteState = 'not-taking-part' | 'no-screen' | 'no-exercises' | 'plan';
+export type SheetAthleteState = 'consent-refused' | 'consent-missing' | 'no-screen' | 'no-exercises' | 'plan';
 
 export type SheetAthlete = {
   id: string;
@@ -109,7 +111,7 @@ export function buildSheet(squad: TrainingSheet['squad'], members: readonly Shee
         name,
         assessmentId: null,
         screenedOn: null,
-        state: m.takingPart ? 'no-screen' : 'not-taking-part',
+        state: m.takingPart ? 'no-screen' : m.screeningRefused ? 'consent-refused' : 'consent-missing',
         source: null,
         adjustedAt: null,
         adjustedByName: null,

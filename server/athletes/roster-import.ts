@@ -121,7 +121,9 @@ const parentLinked = (email: string, name: string | undefined) => `parent accoun
  */
 function recordedFor(row: RosterRow, guardianEmail: string | undefined, guardianName: string | undefined): string[] {
   const out = [
-    `screening and exercises consent: ${row.screening_consent === undefined ? 'not recorded (not screened until it is)' : yesNo(row.screening_consent)}`,
+    `screening and exercises consent: ${
+      row.screening_consent === undefined ? 'not recorded (not screened until it is)' : row.screening_consent ? 'yes' : 'no (not screened)'
+    }`,
     `photo consent: ${yesNo(row.photo_consent)}`,
     `e-mail summaries consent: ${yesNo(row.email_summaries_consent)}`,
   ];

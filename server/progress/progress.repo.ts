@@ -21,7 +21,7 @@ export type SeasonRound = [
 /**
  * One current member of the squad with their newest submitted screen anywhere (or nulls):
  * [id, first name, last name, sex, date of birth, clearance, latest assessment id, screened on, flag ids,
- * flag sides, maturity band, re-screen date, sessions attended and held, awaiting a clearance, taking part].
+ * flag sides, maturity band, re-screen date, sessions attended and held, awaiting a clearance, screening consent].
  */
 export type SeasonAthlete = [
   id: string,
@@ -41,8 +41,8 @@ export type SeasonAthlete = [
   sessionsHeld: number,
   /** Pain was reported at the newest screen and no clearance has been recorded since its current result. */
   awaitingClearance: boolean,
-  /** The family's agreement to screening and exercises is in force (none on record: false). */
-  takingPart: boolean,
+  /** The family's decision about screening and exercises in force: yes, no, or null when none is recorded. */
+  screeningConsent: boolean | null,
 ];
 export type Season = { squad: { id: string; name: string }; rounds: SeasonRound[]; athletes: SeasonAthlete[] };
 
@@ -173,7 +173,7 @@ export function progressRepo(db: Executor, scope: ClubScope) {
               (select count(*) from unnest(tk.days) d where d > l.screened_on)::int,
               (select count(*) from recent r where r.held_on > l.screened_on)::int,
               coalesce(ar.plan_status = 'clearance-needed' and c.status is distinct from 'referred' and (c.created_at is null or c.created_at < ar.created_at), false),
-              coalesce((select k.granted from consents k where k.athlete_id = m.id and k.kind = 'screening' order by k.created_at desc limit 1), false))
+              (select k.granted from consents k where k.athlete_id = m.id and k.kind = 'screening' order by k.created_at desc limit 1))
               order by m.last_name, m.first_name, m.id), '[]')
             from athletes m
             left join athlete_latest_screens l on l.athlete_id = m.id

@@ -111,8 +111,9 @@ export function progressService(db: Executor, scope: ClubScope) {
           attended,
           held,
           awaitingClearance,
-          takingPart,
+          screeningConsent,
         ]) => {
+          const takingPart = screeningConsent === true;
           const rescreen = rescreenOf(lastScreenedOn, rescreenDate, today);
           return {
             id,
@@ -129,8 +130,9 @@ export function progressService(db: Executor, scope: ClubScope) {
             daysSinceLastScreen: lastScreenedOn ? daysBetween(lastScreenedOn, today) : null,
             rescreenDate: rescreen.date,
             // No re-screen is asked of an athlete whose family has not agreed to take part (our rule).
-            rescreenDue: takingPart === true && rescreen.due,
-            takingPart: takingPart === true,
+            rescreenDue: takingPart && rescreen.due,
+            takingPart,
+            screeningRefused: screeningConsent === false,
             latestFlags: sidedPatterns(flagIds ?? [], flagSides ?? []),
             sessionsSinceScreen: lastScreenedOn ? { attended, held } : null,
           };

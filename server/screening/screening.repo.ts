@@ -30,6 +30,13 @@ export const photoConsentSql = consentInForceSql('photos');
  */
 export const screeningConsentSql = consentInForceSql('screening');
 
+/** The family's newest decision about screening is a no (false: a yes, or none recorded yet). */
+export const screeningRefusedSql = sql<boolean>`coalesce((
+  select not c.granted from consents c
+  where c.athlete_id = "athletes"."id" and c.kind = 'screening'
+  order by c.created_at desc limit 1
+), false)`;
+
 /**
  * Every query filters by the scope's club. Screening is staff-only, so the scope never carries a
  * parent's athlete list here; the router refuses parents before a repository is built.
@@ -80,6 +87,7 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
     takeOffLeg: athletes.takeOffLeg,
     photoConsent: photoConsentSql,
     screeningConsent: screeningConsentSql,
+    screeningRefused: screeningRefusedSql,
   };
 
   const resultColumns = {
@@ -121,6 +129,7 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
           status: assessments.status,
           photoConsent: photoConsentSql,
           screeningConsent: screeningConsentSql,
+          screeningRefused: screeningRefusedSql,
           flagCount: sql<number | null>`jsonb_array_length(${assessmentResults.result} -> 'flags')`,
           flags: sql<{ severity: 'watch' | 'concern'; title: string; side: string }[] | null>`(
             select jsonb_agg(jsonb_build_object('severity', f ->> 'severity', 'title', f ->> 'title', 'side', f ->> 'side'))

@@ -317,6 +317,7 @@ export function screeningService(deps: ScreeningDeps) {
           takeOffLeg: a.takeOffLeg,
           photoConsent: a.photoConsent,
           screeningConsent: a.screeningConsent,
+          screeningRefused: a.screeningRefused,
         },
         // Withdrawn consent hides the photos already taken; landmarks and results stay.
         photos: a.photoConsent ? photos.map(photoView) : [],

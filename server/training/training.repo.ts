@@ -4,7 +4,7 @@ import { athletes, trainingAttendance, trainingSessions, users } from '@/db/sche
 import type { RecordSessionInput, SessionView } from '@/features/training/schemas';
 import type { SheetMember } from '@/features/training/sheet';
 import type { ClubScope } from '@/server/access/scope';
-import type { Executor } from '@/server/screening/screening.repo';
+import { screeningConsentSql, type Executor } from '@/server/screening/screening.repo';
 
 type Head = { squad: { id: string; name: string } | null; members: SheetMember[] };
 export type SheetHead = { squad: { id: string; name: string }; members: SheetMember[] };
@@ -32,7 +32,8 @@ export function trainingRepo(db: Executor, scope: ClubScope) {
                 'growthSpurtAdjusted', ar.result #> '{plan,growthSpurtAdjusted}', 'rescreenDate', ar.result #> '{plan,rescreenDate}') end,
               'adjusted', case when pa.exercises is null then null else json_build_object('exercises', pa.exercises, 'at', pa.created_at, 'byName', u.display_name) end,
               'clearance', case when c.status is null then null else json_build_object('status', c.status, 'setAt', c.created_at, 'detail', c.detail) end,
-              'takingPart', coalesce((select k.granted from consents k where k.athlete_id = m.id and k.kind = 'screening' order by k.created_at desc limit 1), false)
+              'takingPart', coalesce(sc.granted, false),
+              'screeningRefused', coalesce(not sc.granted, false)
             ) order by m.last_name, m.first_name, m.id), '[]')
             from athletes m
             left join athlete_latest_screens l on l.athlete_id = m.id
@@ -42,6 +43,9 @@ export function trainingRepo(db: Executor, scope: ClubScope) {
               where result_id = ar.id order by created_at desc, id desc limit 1
             ) pa on true
             left join users u on u.id = pa.created_by
+            left join lateral (
+              select granted from consents where athlete_id = m.id and kind = 'screening' order by created_at desc limit 1
+            ) sc on true
             left join lateral (
               select status, created_at, detail from clearances where athlete_id = m.id and club_id = $2 order by created_at desc limit 1
             ) c on true
@@ -74,6 +78,16 @@ export function sessionsRepo(db: Db, scope: ClubScope) {
         .from(athletes)
         .where(and(eq(athletes.clubId, clubId), eq(athletes.squadId, squadId), isNull(athletes.archivedAt), inArray(athletes.id, [...athleteIds])));
       return new Set(rows.map((r) => r.id));
+    },
+
+    /** Those among `athleteIds` whose family has not agreed to screening and corrective exercises, by name. */
+    async withoutConsent(athleteIds: readonly string[]): Promise<string[]> {
+      if (athleteIds.length === 0) return [];
+      const rows = await db
+        .select({ name: sql<string>`${athletes.firstName} || ' ' || ${athletes.lastName}` })
+        .from(athletes)
+        .where(and(eq(athletes.clubId, clubId), inArray(athletes.id, [...athleteIds]), sql`not ${screeningConsentSql}`));
+      return rows.map((r) => r.name);
     },
 
     /** Writes the day's session and its attendance in one transaction; `created` when the day was new. */

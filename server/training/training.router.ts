@@ -36,6 +36,13 @@ export function trainingRouter(db: Db) {
     if (input.athleteIds.some((id) => !members.has(id))) {
       throw badRequest('Some fields need attention.', { athleteIds: 'Some of these athletes are not in this squad any more: open the sheet again.' });
     }
+    // Nobody is recorded as doing corrective exercises their family has not agreed to (our rule).
+    const refused = await repo.withoutConsent(input.athleteIds);
+    if (refused.length) {
+      throw badRequest('Some fields need attention.', {
+        athleteIds: `No agreement from the family to corrective exercises is in force for ${refused.join(', ')}: leave them out.`,
+      });
+    }
     const { id, created } = await repo.record(squadId, input);
     const [session] = await repo.latest(squadId, { onlyId: id });
     res.status(created ? 201 : 200).json({ session });

@@ -154,11 +154,21 @@ describe('a family that withdraws from taking part', () => {
     expect((await as.tester.get(`/api/assessments/${id}`)).body.result.version).toBe(resultVersion);
 
     const sheet = (await as.coach.get(`/api/squads/${ids.squad}/training-sheet`)).body as TrainingSheet;
-    expect(sheet.athletes.find((a) => a.id === ids.omar)).toMatchObject({ state: 'not-taking-part', exerciseCount: 0, rescreenDue: false });
+    expect(sheet.athletes.find((a) => a.id === ids.omar)).toMatchObject({ state: 'consent-refused', exerciseCount: 0, rescreenDue: false });
     expect(sheet.exercises.some((e) => e.entries.some((x) => x.athleteId === ids.omar))).toBe(false);
+    // Nobody is recorded as doing corrective exercises the family said no to; nothing of the session saved.
+    const session = await as.coach.post(`/api/squads/${ids.squad}/training-sessions`).send({ heldOn: today(), athleteIds: [ids.nia, ids.omar], note: '' });
+    expect(session.status).toBe(400);
+    expect(session.body.error.fields.athleteIds).toMatch(/for Omar Bell: leave them out/);
+    expect((await as.coach.get(`/api/squads/${ids.squad}/training-sessions`)).body.sessions).toEqual([]);
+    expect((await as.coach.post(`/api/squads/${ids.squad}/training-sessions`).send({ heldOn: today(), athleteIds: [ids.nia], note: '' })).status).toBe(201);
     const trends = await as.coach.get(`/api/squads/${ids.squad}/trends`);
-    expect(trends.body.athletes.find((a: { id: string }) => a.id === ids.omar)).toMatchObject({ takingPart: false, rescreenDue: false });
-    expect(trends.body.athletes.find((a: { id: string }) => a.id === ids.nia)).toMatchObject({ takingPart: true });
+    expect(trends.body.athletes.find((a: { id: string }) => a.id === ids.omar)).toMatchObject({
+      takingPart: false,
+      screeningRefused: true,
+      rescreenDue: false,
+    });
+    expect(trends.body.athletes.find((a: { id: string }) => a.id === ids.nia)).toMatchObject({ takingPart: true, screeningRefused: false });
     const again = (await as.tester.get(`/api/rounds/${round.round.id}`)).body as RoundDetail;
     expect(again.athletes.find((a) => a.athleteId === ids.omar)?.screeningConsent).toBe(false);
   });

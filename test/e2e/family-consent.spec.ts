@@ -111,7 +111,7 @@ test('no screen without the family’s agreement: the tester is told, the parent
   const round = (await opened.json()) as { round: { id: string }; athletes: { assessmentId: string }[] };
   await page.goto(`/screening/rounds/${round.round.id}`);
   await expect(page.getByTestId('round-not-taking-part')).toContainText(`Wren ${surname}`);
-  await expect(page.getByTestId(`round-athlete-${athleteId}`)).toContainText('No screening consent: do not screen');
+  await expect(page.getByTestId(`round-athlete-${athleteId}`)).toContainText('No screening consent yet: do not screen');
   await expect(page.getByTestId('screen-next')).toHaveCount(0);
   await expect(page.getByText('Everyone is screened')).toHaveCount(0);
   await page.screenshot({ path: testInfo.outputPath('round-not-taking-part.png'), fullPage: true });

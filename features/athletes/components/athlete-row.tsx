@@ -5,6 +5,7 @@ import { ClearanceBadge } from '@/features/care/components/clearance-badge';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import type { Athlete } from '../api/types';
+import { TAKING_PART_TAGS } from '../taking-part';
 
 /** One athlete in their squad's group of the list (the group names the squad). */
 export function AthleteRow({ athlete }: { athlete: Athlete }) {
@@ -31,7 +32,7 @@ export function AthleteRow({ athlete }: { athlete: Athlete }) {
             {notTakingPart ? (
               <View style={styles.tag}>
                 <Text variant="small" style={styles.tagText}>
-                  {athlete.consents.screening ? 'Not taking part' : 'No screening consent yet'}
+                  {TAKING_PART_TAGS[athlete.consents.screening ? 'refused' : 'unrecorded']}
                 </Text>
               </View>
             ) : null}

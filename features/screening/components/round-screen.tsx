@@ -25,6 +25,7 @@ import { todayIso } from '@/features/athletes/age';
 import { assessmentHref } from '@/features/screening/assessment-href';
 import { PAGE_HEADS } from '@/features/shell/page-heads';
 import { frameStyles } from '@/features/shell/components/shell-frame';
+import { TAKING_PART_TAGS, TAKING_PART_WORDS } from '@/features/athletes/taking-part';
 
 const byName = (a: RoundAthlete, b: RoundAthlete) => a.lastName.localeCompare(b.lastName) || a.firstName.localeCompare(b.firstName);
 
@@ -53,6 +54,34 @@ function AthleteFlags({ flags, testID }: { flags: RoundAthleteFlag[]; testID: st
         {shown.length > 3 ? ` · and ${shown.length - 3} more` : ''}
       </Text>
     </View>
+  );
+}
+
+/**
+ * Who is not screened in this round and why: the family said no (nothing to do), or no decision is
+ * recorded yet (those who record consent get a link to each athlete's page to record it).
+ */
+function NotToScreen({ athletes }: { athletes: RoundAthlete[] }) {
+  const records = can(useActiveClub().membership.role, 'consent.manage');
+  const refused = athletes.filter((a) => a.screeningRefused);
+  const unrecorded = athletes.filter((a) => !a.screeningRefused);
+  const names = (list: RoundAthlete[]) => list.map((a) => `${a.firstName} ${a.lastName}`).join(', ');
+  return (
+    <Notice tone="caution" title="Not to be screened" testID="round-not-taking-part">
+      {refused.length ? <Text>{`${names(refused)}: ${TAKING_PART_WORDS.refused}. Leave ${refused.length === 1 ? 'them' : 'them all'} out.`}</Text> : null}
+      {unrecorded.length ? (
+        <Text>{`${names(unrecorded)}: ${TAKING_PART_WORDS.unrecorded}. ${
+          records ? 'Record it on the athlete’s page, then screen.' : 'A head coach or the admin records it on the athlete’s page.'
+        }`}</Text>
+      ) : null}
+      {records
+        ? unrecorded.map((a) => (
+            <Link key={a.athleteId} href={`/athletes/${a.athleteId}`} style={styles.consentLink} testID={`round-record-consent-${a.athleteId}`}>
+              <Text variant="label" style={styles.consentLinkText}>{`Record ${a.firstName}'s consent →`}</Text>
+            </Link>
+          ))
+        : null}
+    </Notice>
   );
 }
 
@@ -191,13 +220,7 @@ export function RoundScreen({ id }: { id: string }) {
           {notTakingPart.length > 0 ? 'Every athlete of this round who may be screened has been submitted.' : 'Every athlete of this round has been submitted.'}
         </Notice>
       ) : null}
-      {notTakingPart.length > 0 && screensInClub ? (
-        <Notice tone="caution" title="Not to be screened" testID="round-not-taking-part">
-          {`${notTakingPart.map((a) => `${a.firstName} ${a.lastName}`).join(', ')}: no family agreement to screening and exercises is on record. Leave ${
-            notTakingPart.length === 1 ? 'them' : 'them all'
-          } out; a head coach or the admin records the family's decision on the athlete's page.`}
-        </Notice>
-      ) : null}
+      {notTakingPart.length > 0 && screensInClub ? <NotToScreen athletes={notTakingPart} /> : null}
       <Card style={styles.list}>
         <Text variant="heading">Athletes ({athletes.length})</Text>
         <View style={isTabletUp ? styles.grid : undefined}>
@@ -207,7 +230,7 @@ export function RoundScreen({ id }: { id: string }) {
               href={assessmentHref(a.waiting ? { ...a, status: 'in_progress' } : a, screens)}
               style={[styles.row, isTabletUp && styles.rowGrid]}
               testID={`round-athlete-${a.athleteId}`}
-              accessibilityLabel={`${a.firstName} ${a.lastName}, ${a.status.replace('_', ' ')}${a.screeningConsent ? '' : ', no screening consent'}${a.photoConsent ? '' : ', no photo consent'}`}
+              accessibilityLabel={`${a.firstName} ${a.lastName}, ${a.status.replace('_', ' ')}${a.screeningConsent ? '' : `, ${TAKING_PART_TAGS[a.screeningRefused ? 'refused' : 'unrecorded']}`}${a.photoConsent ? '' : ', no photo consent'}`}
             >
               <View style={styles.rowInner}>
                 <View style={styles.rowMain}>
@@ -220,7 +243,7 @@ export function RoundScreen({ id }: { id: string }) {
                     ) : !a.screeningConsent && a.status !== 'submitted' ? null : (
                       <StatusTag status={a.status} />
                     )}
-                    {!a.screeningConsent ? <PlainTag label="No screening consent: do not screen" /> : null}
+                    {!a.screeningConsent ? <PlainTag label={`${TAKING_PART_TAGS[a.screeningRefused ? 'refused' : 'unrecorded']}: do not screen`} /> : null}
                     {!a.photoConsent && a.screeningConsent ? <PlainTag label="No photo consent" /> : null}
                     <AthleteClearanceBadge athleteId={a.athleteId} />
                   </View>
@@ -233,7 +256,7 @@ export function RoundScreen({ id }: { id: string }) {
           ))}
         </View>
       </Card>
-      <RoundClosing id={r.id} closed={closed} unfinished={Math.max(0, athletes.length - r.counts.submitted)} />
+      <RoundClosing id={r.id} closed={closed} unfinished={athletes.filter((a) => a.screeningConsent && a.status !== 'submitted').length} />
     </View>
   );
 }
@@ -255,6 +278,8 @@ const styles = StyleSheet.create({
   tags: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   flags: { gap: 2 },
   closing: { gap: space.sm },
+  consentLink: { minHeight: TOUCH_MIN, justifyContent: 'center' },
+  consentLinkText: { color: colors.pine },
   closeButton: { alignSelf: 'flex-start' },
   closingButtons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   chevron: { fontFamily: fonts.bold, fontSize: 28, color: colors.inkMuted },

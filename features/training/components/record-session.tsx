@@ -153,13 +153,16 @@ function RecordForm({
   const { isTabletUp } = useBreakpoints();
   const record = useRecordSessionMutation(sheet.squad.id);
   const days = recentDays();
+  // Those whose family has not agreed to corrective exercises are never recorded as having done them.
+  const eligible = sheet.athletes.filter((a) => a.state !== 'consent-refused' && a.state !== 'consent-missing');
+  const notEligible = sheet.athletes.filter((a) => !eligible.includes(a));
   // A day already recorded starts from what was recorded (on this phone if not sent yet); a new day from
   // everyone with a plan.
   const recordOf = (day: string) => [...waiting].reverse().find((e) => e.record.heldOn === day)?.record ?? sessions.find((s) => s.heldOn === day);
   const startFor = (day: string) => {
     const earlier = recordOf(day);
     return earlier
-      ? { athleteIds: earlier.athleteIds.filter((id) => sheet.athletes.some((a) => a.id === id)), note: earlier.note }
+      ? { athleteIds: earlier.athleteIds.filter((id) => eligible.some((a) => a.id === id)), note: earlier.note }
       : { athleteIds: sheet.athletes.filter((a) => a.state === 'plan').map((a) => a.id), note: '' };
   };
   const form = useFormik({
@@ -181,7 +184,7 @@ function RecordForm({
   const toggle = (id: string) =>
     form.setFieldValue(
       'athleteIds',
-      sheet.athletes.filter((a) => (a.id === id ? !ticked.has(id) : ticked.has(a.id))).map((a) => a.id),
+      eligible.filter((a) => (a.id === id ? !ticked.has(id) : ticked.has(a.id))).map((a) => a.id),
     );
   const recorded = !!recordOf(form.values.heldOn);
 
@@ -197,7 +200,7 @@ function RecordForm({
         testID="sheet-record-day"
       />
       {recorded ? <Text variant="small">This day is already recorded: saving replaces who took part.</Text> : null}
-      <Text variant="label">{`Who took part: ${ticked.size} of ${sheet.athletes.length}`}</Text>
+      <Text variant="label">{`Who took part: ${ticked.size} of ${eligible.length}`}</Text>
       <View style={styles.row}>
         <Button
           label="Tick all"
@@ -205,14 +208,14 @@ function RecordForm({
           onPress={() =>
             form.setFieldValue(
               'athleteIds',
-              sheet.athletes.map((a) => a.id),
+              eligible.map((a) => a.id),
             )
           }
         />
         <Button label="Untick all" tone="quiet" onPress={() => form.setFieldValue('athleteIds', [])} />
       </View>
       <View style={[styles.ticks, isTabletUp && styles.ticksWide]}>
-        {sheet.athletes.map((a) => {
+        {eligible.map((a) => {
           const on = ticked.has(a.id);
           return (
             <Pressable
@@ -225,11 +228,16 @@ function RecordForm({
             >
               <Text style={[styles.box, on && styles.boxOn]}>{on ? '✓' : ' '}</Text>
               <Text style={styles.tickName}>{a.name}</Text>
-              {a.state !== 'plan' ? <Text variant="small">{a.state === 'not-taking-part' ? 'not taking part' : 'no plan'}</Text> : null}
+              {a.state !== 'plan' ? <Text variant="small">no plan</Text> : null}
             </Pressable>
           );
         })}
       </View>
+      {notEligible.length ? (
+        <Text variant="small" testID="sheet-record-not-eligible">
+          {`Not in corrective work, so not listed: ${notEligible.map((a) => `${a.name} (${a.state === 'consent-refused' ? 'family said no' : 'no consent yet'})`).join(', ')}.`}
+        </Text>
+      ) : null}
       {form.submitCount > 0 && typeof form.errors.athleteIds === 'string' ? <Text style={styles.error}>{form.errors.athleteIds}</Text> : null}
       {form.submitCount > 0 && form.errors.heldOn ? <Text style={styles.error}>{form.errors.heldOn}</Text> : null}
       <TextField

@@ -92,6 +92,8 @@ function SheetBody({ data }: { data: TrainingSheet }) {
   // never screened, said apart.
   const due = data.athletes.filter((a) => a.state !== 'no-screen' && a.rescreenDue);
   const neverScreened = data.athletes.filter((a) => a.state === 'no-screen');
+  // Said at the top too (the "not on the sheet" card comes after every exercise): on no exercise today.
+  const noConsent = data.athletes.filter((a) => a.state === 'consent-refused' || a.state === 'consent-missing');
   // At the top beside the count on a wide screen; at the end on a phone, where the plans come first.
   const printButton = canPrint ? (
     <View {...PRINT_HIDE} style={styles.actions}>
@@ -107,11 +109,14 @@ function SheetBody({ data }: { data: TrainingSheet }) {
         </Text>
         {isTabletUp ? printButton : null}
       </View>
-      {due.length || neverScreened.length ? (
+      {due.length || neverScreened.length || noConsent.length ? (
         <Text variant="small" testID="sheet-due">
           {[
             due.length ? `Due a re-screen: ${due.map((a) => a.name).join(', ')}.` : '',
             neverScreened.length ? `Not screened yet: ${neverScreened.map((a) => a.name).join(', ')}.` : '',
+            noConsent.length
+              ? `No corrective exercises without the family's agreement: ${noConsent.map((a) => `${a.name} (${a.state === 'consent-refused' ? 'said no' : 'not recorded yet'})`).join(', ')}.`
+              : '',
           ]
             .filter(Boolean)
             .join(' ')}
@@ -222,7 +227,8 @@ function AthleteName({ name, href }: { name: string; href: string | null }) {
 }
 
 const OFF_WORDS: Record<Exclude<SheetAthlete['state'], 'plan'>, string> = {
-  'not-taking-part': 'Not taking part: no family agreement to screening and exercises on record',
+  'consent-refused': 'The family said no to screening and corrective exercises: none for them',
+  'consent-missing': 'No decision from the family about screening and corrective exercises is recorded yet: none until it is',
   'no-screen': 'Not screened yet',
   'no-exercises': 'No corrective exercise from their newest screen',
 };

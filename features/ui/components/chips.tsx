@@ -66,6 +66,8 @@ const styles = StyleSheet.create({
   formRow: { gap: space.sm },
   chip: {
     minHeight: TOUCH_MIN,
+    minWidth: TOUCH_MIN,
+    alignItems: 'center',
     paddingHorizontal: space.md,
     justifyContent: 'center',
     borderRadius: radius.lg,

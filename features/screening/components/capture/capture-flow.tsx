@@ -24,6 +24,8 @@ import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, space, TOUCH_MIN } from '@/features/ui/theme';
 import { LazyLandmarkEditor } from '../landmarks/lazy-landmark-editor';
+import { TAKING_PART_WORDS } from '@/features/athletes/taking-part';
+import { capitalise } from '@/features/ui/capitalise';
 import { ProgressBar } from '../progress-bar';
 import { PlainTag } from '../status-tag';
 import { BodyStep } from './body-step';
@@ -81,16 +83,18 @@ function NotTakingPart({ detail }: { detail: AssessmentDetail }) {
   return (
     <Centered>
       <Notice tone="caution" title={`Do not screen ${name}`} testID="capture-not-taking-part">
-        {`No agreement from ${detail.athlete.firstName}'s family to screening and corrective exercises is on record (or they have withdrawn it), so nothing of this screen can be saved.${
+        {`${capitalise(TAKING_PART_WORDS[detail.athlete.screeningRefused ? 'refused' : 'unrecorded'])}, so nothing of this screen can be saved.${
           detail.status === 'submitted' ? ' The screen done before stays as it was.' : ''
         }`}
       </Notice>
       <Link href={`/screening/rounds/${detail.roundId}`} style={styles.notTakingPartLink} testID="capture-not-taking-part-back">
-        <Text variant="label">← Back to {detail.roundName}</Text>
+        <Text variant="label" style={styles.roundLinkText}>
+          ← Back to {detail.roundName}
+        </Text>
       </Link>
-      {can(membership.role, 'consent.manage') ? (
+      {can(membership.role, 'consent.manage') && !detail.athlete.screeningRefused ? (
         <Link href={`/athletes/${detail.athlete.id}`} style={styles.notTakingPartLink}>
-          <Text variant="label">{`Record the family's decision on ${detail.athlete.firstName}'s page →`}</Text>
+          <Text variant="label" style={styles.roundLinkText}>{`Record ${detail.athlete.firstName}'s consent →`}</Text>
         </Link>
       ) : null}
     </Centered>
