@@ -5,36 +5,12 @@ export const PRINT_ROOT = { dataSet: { printRoot: 'true' } } as object;
 /** A block kept on one printed page (an exercise with its athletes' names). */
 export const PRINT_KEEP = { dataSet: { printKeep: 'true' } } as object;
 /**
- * Printable reports (the squad trends' one page, the training sheet): only the region marked PRINT_ROOT
- * is printed, controls marked PRINT_HIDE are left out, scrolling containers are unrolled, on A4 landscape.
+ * Installs the print rules (features/ui/print-css.web.ts), loaded on their own when a printable report
+ * opens: they are not part of every screen's first chunk.
  */
-const CSS = `
-@media print {
-  @page { size: A4 landscape; margin: 10mm; }
-  html, body, #root, #root * { overflow: visible !important; }
-  body * { visibility: hidden; }
-  [data-print-root], [data-print-root] * { visibility: visible; }
-  /* Every view is position: relative on the web, and the screen's stack moves its pages with a transform;
-     the report's ancestors give both up so that it starts at the page's left edge, not beside the hidden
-     side navigation. */
-  #root *:has([data-print-root]) { position: static !important; transform: none !important; will-change: auto !important; contain: none !important; filter: none !important; }
-  [data-print-root] { position: absolute; left: 0; top: 0; width: 100%; }
-  /* What is not printed takes no room either: hidden but laid out, it ran on into blank pages. */
-  #root *:has([data-print-root]) > :not(:has([data-print-root])):not([data-print-root]) { display: none !important; }
-  body > :not(#root) { display: none !important; }
-  html, body, #root { height: auto !important; min-height: 0 !important; }
-  [data-print="hide"] { display: none !important; }
-  [data-print-root] { font-size: 11px; }
-  [data-print-keep] { break-inside: avoid; page-break-inside: avoid; }
-}`;
-
 export function usePrintStyles(): void {
   useEffect(() => {
-    if (document.getElementById('squadline-print-css')) return;
-    const style = document.createElement('style');
-    style.id = 'squadline-print-css';
-    style.textContent = CSS;
-    document.head.appendChild(style);
+    void import('./print-css').then((m) => m.installPrintCss());
   }, []);
 }
 
