@@ -10,7 +10,8 @@ import { capitalise } from '@/features/ui/capitalise';
 
 /** "Due since Jul 20, 2026" (how long overdue), "Due" never screened, "from Jan 16, 2027" not yet. */
 function rescreenCell(a: TrendAthlete): string {
-  if (!a.takingPart) return a.screeningRefused ? 'Family said no to screening' : 'No screening consent yet';
+  // Short: the column is narrow (the CSV and the athlete's page say it in full).
+  if (!a.takingPart) return a.screeningRefused ? 'Family said no' : 'No consent yet';
   if (!a.rescreenDue) return `from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`;
   return a.rescreenDate ? `Due since ${formatDate(a.rescreenDate)}` : 'Due';
 }
