@@ -52,7 +52,8 @@ const loadNow = () =>
 const loadAtStart = loadNow();
 
 async function seedClub() {
-  // One statement per table: a club, 20 squads of 100, 2,000 athletes with photo consent, a head coach
+  // One statement per table: a club, 20 squads of 100, 2,000 athletes whose families agreed to screening
+  // and to photos (nothing of a screen is saved without the first), a head coach
   // signing in with the demo password (its hash is copied from a demo account).
   await db.query(`
     with club as (insert into clubs (name) values ('Bench Racket Club') returning id),
@@ -65,7 +66,8 @@ async function seedClub() {
              (case when g % 7 = 0 then 'left' else 'right' end)::side, (case when g % 3 = 0 then 'right' else 'left' end)::side
       from numbered s, generate_series(1, ${ATHLETES / SQUADS}) g0, lateral (select s.n * ${ATHLETES / SQUADS} + g0 as g) x
       returning id)
-    insert into consents (athlete_id, kind, granted, decided_on) select id, 'photos', true, date '2026-09-01' from ath`);
+    insert into consents (athlete_id, kind, granted, decided_on)
+      select id, k::consent_kind, true, date '2026-09-01' from ath, unnest(array['photos', 'screening']) k`);
   await db.query(`
     with u as (insert into users (email, display_name, password_hash)
                select 'coach@bench.test', 'Bench Coach', password_hash from users where email = 'tester@squadline.test' returning id)
