@@ -4,3 +4,6 @@ export const PRINT_FLOW = { dataSet: { printFlow: 'true' } } as object;
 export const PRINT_FULL = { dataSet: { printFull: 'true' } } as object;
 export const PRINT_THIRD = { dataSet: { printThird: 'true' } } as object;
 export function useFitToOnePage(): void {}
+export function usePrinting(): boolean {
+  return false;
+}

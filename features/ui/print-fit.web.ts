@@ -1,4 +1,5 @@
-import { useEffect } from 'react';
+import { useEffect, useState } from 'react';
+import { flushSync } from 'react-dom';
 
 // A one-page report on paper (the squad trends'): its layout, and the scale that fits it to the page.
 // Apart from print.web.ts, which every screen's first chunk carries, so that only the report loads it.
@@ -95,4 +96,24 @@ export function useFitToOnePage(): void {
       window.removeEventListener('afterprint', after);
     };
   }, []);
+}
+
+/**
+ * True while the page is being printed: a phone's layout (cards, one column) is drawn again in the wide
+ * layout, at once (flushSync) so that the measure that follows (`useFitToOnePage`, whose listener a parent
+ * registers later) sees it. Used by a child of the report.
+ */
+export function usePrinting(): boolean {
+  const [printing, setPrinting] = useState(false);
+  useEffect(() => {
+    const before = () => flushSync(() => setPrinting(true));
+    const after = () => setPrinting(false);
+    window.addEventListener('beforeprint', before);
+    window.addEventListener('afterprint', after);
+    return () => {
+      window.removeEventListener('beforeprint', before);
+      window.removeEventListener('afterprint', after);
+    };
+  }, []);
+  return printing;
 }

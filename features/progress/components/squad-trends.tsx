@@ -21,7 +21,7 @@ import {
 } from '../trends';
 import { Chips } from '@/features/ui/components/chips';
 import { canPrint, downloadFile, printPage, PRINT_HIDE, PRINT_ROOT, usePrintStyles } from '@/features/ui/print';
-import { PRINT_FLOW, PRINT_FLOW_PARENT, PRINT_FULL, PRINT_THIRD, useFitToOnePage } from '@/features/ui/print-fit';
+import { PRINT_FLOW, PRINT_FLOW_PARENT, PRINT_FULL, PRINT_THIRD, useFitToOnePage, usePrinting } from '@/features/ui/print-fit';
 import { ChangeChart, FlagShareChart, KneeDistributionChart, patternsIn } from './trend-charts';
 import { TrendsCards, TrendsTable } from './trends-table';
 import { formatDate } from '@/features/ui/format-date';
@@ -104,7 +104,11 @@ function TwoSquads({ a, b }: { a: TrendsResponse; b: TrendsResponse }) {
 }
 
 function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.ReactNode }) {
-  const { isWide, isTabletUp } = useBreakpoints();
+  // Printed from a phone, the report takes the wide layout (the table, not the cards) for the page.
+  const printing = usePrinting();
+  const breakpoints = useBreakpoints();
+  const isWide = breakpoints.isWide || printing;
+  const isTabletUp = breakpoints.isTabletUp || printing;
   const [filters, setFilters] = useState<Required<TrendFilters>>({ sex: '', ageGroup: '', maturityBand: '', flag: '' });
   const [sort, setSort] = useState<SortKey>('name');
   const [descending, setDescending] = useState(false);
