@@ -22,7 +22,7 @@ import {
 import { Chips } from '@/features/ui/components/chips';
 import { canPrint, downloadFile, printPage, PRINT_HIDE, PRINT_ROOT, usePrintStyles } from '@/features/ui/print';
 import { PRINT_FLOW, PRINT_FLOW_PARENT, PRINT_FULL, PRINT_THIRD, useFitToOnePage, usePrinting } from '@/features/ui/print-fit';
-import { ChangeChart, FlagShareChart, KneeDistributionChart, patternsIn } from './trend-charts';
+import { ChangeChart, ChartPrintWidth, FlagShareChart, KneeDistributionChart, patternsIn } from './trend-charts';
 import { TrendsCards, TrendsTable } from './trends-table';
 import { formatDate } from '@/features/ui/format-date';
 
@@ -278,46 +278,48 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
     ) : null;
 
   return (
-    <View style={styles.stack} {...PRINT_FLOW_PARENT}>
-      {controls}
-      {isWide ? (
-        // The width used: the table beside the season's flag shares, then the knee angles' two charts
-        // side by side under both (they stacked in the narrow column, leaving the table's side empty).
-        // On paper: the table across the page, the three charts in one row under it.
-        <>
-          <View style={styles.row} {...PRINT_FLOW}>
-            <View style={styles.tableCol} {...PRINT_FULL}>
-              {table}
+    <ChartPrintWidth.Provider value={printing ? 340 : 0}>
+      <View style={styles.stack} {...PRINT_FLOW_PARENT}>
+        {controls}
+        {isWide ? (
+          // The width used: the table beside the season's flag shares, then the knee angles' two charts
+          // side by side under both (they stacked in the narrow column, leaving the table's side empty).
+          // On paper: the table across the page, the three charts in one row under it.
+          <>
+            <View style={styles.row} {...PRINT_FLOW}>
+              <View style={styles.tableCol} {...PRINT_FULL}>
+                {table}
+              </View>
+              <View style={styles.chartCol} {...PRINT_THIRD}>
+                {shareChart}
+              </View>
             </View>
-            <View style={styles.chartCol} {...PRINT_THIRD}>
-              {shareChart}
+            {kneeChoice}
+            <View style={styles.row} {...PRINT_FLOW}>
+              <View style={styles.flex} {...PRINT_THIRD}>
+                {distribution}
+              </View>
+              <View style={styles.flex} {...PRINT_THIRD}>
+                {change}
+              </View>
             </View>
-          </View>
-          {kneeChoice}
-          <View style={styles.row} {...PRINT_FLOW}>
-            <View style={styles.flex} {...PRINT_THIRD}>
-              {distribution}
-            </View>
-            <View style={styles.flex} {...PRINT_THIRD}>
-              {change}
-            </View>
-          </View>
-        </>
-      ) : (
-        <>
-          {table}
-          {shareChart}
-          {kneeChoice}
-          {distribution}
-          {change}
-        </>
-      )}
-      {compare}
-      <Text variant="small">
-        Flags use adult norms (Herrington and Munro 2010) applied to juniors; a change counts only beyond the smallest detectable difference of Munro,
-        Herrington and Carolan 2012. Screening is not a diagnosis: refer pain to a physiotherapist or doctor.
-      </Text>
-    </View>
+          </>
+        ) : (
+          <>
+            {table}
+            {shareChart}
+            {kneeChoice}
+            {distribution}
+            {change}
+          </>
+        )}
+        {compare}
+        <Text variant="small">
+          Flags use adult norms (Herrington and Munro 2010) applied to juniors; a change counts only beyond the smallest detectable difference of Munro,
+          Herrington and Carolan 2012. Screening is not a diagnosis: refer pain to a physiotherapist or doctor.
+        </Text>
+      </View>
+    </ChartPrintWidth.Provider>
   );
 }
 

@@ -1,4 +1,4 @@
-import { useState, type ReactNode } from 'react';
+import { createContext, useContext, useState, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { VictoryArea, VictoryAxis, VictoryBar, VictoryChart, VictoryLine, VictoryScatter } from 'victory-native';
 import type { PatternId } from '@/features/screening/engine';
@@ -15,6 +15,13 @@ import { NumbersTable } from './numbers-table';
 const pct = (n: number | null) => (n === null ? '–' : `${Math.round(n * 100)}%`);
 const r1 = (n: number) => Math.round(n * 10) / 10;
 
+/**
+ * The width a chart is drawn at before its own layout is known, while printing: a phone's report drawn
+ * again in the wide layout for the page mounts its charts anew, and the page is taken before they
+ * measure themselves (they printed empty). 0: wait for the layout, as on screen.
+ */
+export const ChartPrintWidth = createContext(0);
+
 function ChartFrame({
   title,
   note,
@@ -28,7 +35,9 @@ function ChartFrame({
   table: ReactNode;
   testID?: string;
 }) {
-  const [width, setWidth] = useState(0);
+  const [measured, setWidth] = useState(0);
+  const printWidth = useContext(ChartPrintWidth);
+  const width = measured || printWidth;
   return (
     <View style={styles.frame} testID={testID}>
       <Text variant="label">{title}</Text>
