@@ -132,9 +132,13 @@ test('squad trends: load, filter, sort, CSV, charts', async ({ page }, info) => 
   // The report prints on one page: the browser's print announces itself (beforeprint), and the report is
   // scaled to the page. Counted in the PDF Chromium makes of the page (its page objects).
   await page.evaluate(() => window.dispatchEvent(new Event('beforeprint')));
+  // On a phone too, the page gets the table (not the cards) and the charts are drawn.
+  await expect(page.getByTestId('trends-table')).toBeVisible();
+  await expect(page.getByTestId('flag-share-chart').locator('svg').first()).toBeAttached();
   const pdf = (await page.pdf({ preferCSSPageSize: true, printBackground: true })).toString('latin1');
   expect(pdf.match(/\/Type\s*\/Page[^s]/g)).toHaveLength(1);
   await page.evaluate(() => window.dispatchEvent(new Event('afterprint')));
+  if (info.project.name === 'phone') await expect(page.getByTestId('trends-table')).toHaveCount(0);
 
   // The navigation leads here too.
   await openNav(page);
