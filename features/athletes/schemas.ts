@@ -10,6 +10,8 @@ export const CONSENT_KINDS = ['screening', 'photos', 'email_summaries'] as const
 export type Sex = (typeof SEX_VALUES)[number];
 export type Side = (typeof SIDE_VALUES)[number];
 export type ConsentKind = (typeof CONSENT_KINDS)[number];
+/** Where each kind's decision in force sits on an athlete record (`Athlete['consents']`). */
+export const CONSENT_FIELDS = { screening: 'screening', photos: 'photos', email_summaries: 'emailSummaries' } as const satisfies Record<ConsentKind, string>;
 
 export const SEX_LABELS: Record<Sex, string> = { female: 'Female', male: 'Male' };
 export const SIDE_LABELS: Record<Side, string> = { left: 'Left', right: 'Right' };

@@ -5,10 +5,6 @@
  */
 export type TakingPart = 'yes' | 'refused' | 'unrecorded';
 
-export function takingPartOf(consent: boolean, refused: boolean): TakingPart {
-  return consent ? 'yes' : refused ? 'refused' : 'unrecorded';
-}
-
 /** Short tags for lists (rounds, the roster). */
 export const TAKING_PART_TAGS: Record<Exclude<TakingPart, 'yes'>, string> = {
   refused: 'Family said no to screening',

@@ -6,6 +6,7 @@
 import type { MaturityBand, PatternId, Sex } from '@/features/screening/engine';
 import { DEFAULT_RESCREEN_WEEKS } from '@/features/screening/engine/defaults';
 import { CLEARANCE_LABELS } from '@/features/care/choices';
+import { TAKING_PART_TAGS } from '@/features/athletes/taking-part';
 import { daysBetween } from './compare';
 import { BAND_LABELS, PATTERN_SHORT } from './labels';
 
@@ -271,7 +272,7 @@ export function csvRows(rows: readonly TrendAthlete[]): string[][] {
       a.lastScreenedOn ?? '',
       a.daysSinceLastScreen === null ? '' : String(a.daysSinceLastScreen),
       a.rescreenDate ?? '',
-      a.takingPart ? (a.rescreenDue ? 'yes' : 'no') : a.screeningRefused ? 'family said no to screening' : 'no screening consent yet',
+      a.takingPart ? (a.rescreenDue ? 'yes' : 'no') : TAKING_PART_TAGS[a.screeningRefused ? 'refused' : 'unrecorded'].toLowerCase(),
       a.sessionsSinceScreen ? String(a.sessionsSinceScreen.attended) : '',
       a.sessionsSinceScreen ? String(a.sessionsSinceScreen.held) : '',
     ]),

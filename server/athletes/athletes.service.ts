@@ -3,7 +3,15 @@ import type { Db } from '@/db/client';
 import { athletes } from '@/db/schema';
 import { can, ROLE_LABELS } from '@/features/access/permissions';
 import { todayIso } from '@/features/athletes/age';
-import type { AthleteInput, AthletePatchInput, ConsentInput, GuardianInput, OwnConsentInput, SquadInput } from '@/features/athletes/schemas';
+import {
+  CONSENT_FIELDS,
+  type AthleteInput,
+  type AthletePatchInput,
+  type ConsentInput,
+  type GuardianInput,
+  type OwnConsentInput,
+  type SquadInput,
+} from '@/features/athletes/schemas';
 import type { ClubScope } from '@/server/access/scope';
 import { recordAudit } from '@/server/care/audit.repo';
 import { AppError, badRequest, conflict, forbidden, notFound } from '@/server/http/errors';
@@ -13,8 +21,7 @@ export const DUPLICATE_MESSAGE = 'An athlete with this name and date of birth is
 const DUPLICATE_ARCHIVED_MESSAGE = 'An archived athlete with this name and date of birth is in the club: restore them instead.';
 
 /** The athlete's decision in force of one kind (null: none recorded). */
-const consentInForce = (athlete: AthleteView, kind: ConsentInput['kind']) =>
-  kind === 'screening' ? athlete.consents.screening : kind === 'photos' ? athlete.consents.photos : athlete.consents.emailSummaries;
+const consentInForce = (athlete: AthleteView, kind: ConsentInput['kind']) => athlete.consents[CONSENT_FIELDS[kind]];
 
 export type AthleteDetail = AthleteView & { guardians?: GuardianView[] };
 

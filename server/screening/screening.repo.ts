@@ -15,8 +15,8 @@ export type Executor = PgDatabase<NodePgQueryResultHKT, typeof schema>;
  * recorded. Written with qualified names: drizzle leaves columns unqualified in a single-table query,
  * where a bare "id" inside the subquery would mean consents.id.
  */
-const consentInForceSql = (kind: 'photos' | 'screening') => sql<boolean>`coalesce((
-  select c.granted from consents c
+const consentInForceSql = (kind: 'photos' | 'screening', answer: 'c.granted' | 'not c.granted' = 'c.granted') => sql<boolean>`coalesce((
+  select ${sql.raw(answer)} from consents c
   where c.athlete_id = "athletes"."id" and c.kind = ${sql.raw(`'${kind}'`)}
   order by c.created_at desc limit 1
 ), false)`;
@@ -31,11 +31,7 @@ export const photoConsentSql = consentInForceSql('photos');
 export const screeningConsentSql = consentInForceSql('screening');
 
 /** The family's newest decision about screening is a no (false: a yes, or none recorded yet). */
-export const screeningRefusedSql = sql<boolean>`coalesce((
-  select not c.granted from consents c
-  where c.athlete_id = "athletes"."id" and c.kind = 'screening'
-  order by c.created_at desc limit 1
-), false)`;
+export const screeningRefusedSql = consentInForceSql('screening', 'not c.granted');
 
 /**
  * Every query filters by the scope's club. Screening is staff-only, so the scope never carries a

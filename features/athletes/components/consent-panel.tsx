@@ -15,7 +15,7 @@ import { useConsentsQuery } from '../api/get-consents';
 import { useRecordConsentMutation } from '../api/record-consent';
 import { useRecordOwnConsentMutation } from '../api/record-own-consent';
 import type { Athlete, ConsentView } from '../api/types';
-import { CONSENT_KINDS, CONSENT_LABELS, consentSchema, type ConsentInput, type ConsentKind } from '../schemas';
+import { CONSENT_FIELDS, CONSENT_KINDS, CONSENT_LABELS, consentSchema, type ConsentInput, type ConsentKind } from '../schemas';
 import { Chips } from '@/features/ui/components/chips';
 import { formatDate } from '@/features/ui/format-date';
 
@@ -26,10 +26,10 @@ const answerOptions = [
 ] as const;
 
 /** Each kind as the athlete record names it, its test id, and whether its absence is shown as a warning. */
-const CONSENT_ROWS: { kind: ConsentKind; field: keyof Athlete['consents']; id: string; warn: boolean }[] = [
-  { kind: 'screening', field: 'screening', id: 'screening', warn: true },
-  { kind: 'photos', field: 'photos', id: 'photos', warn: true },
-  { kind: 'email_summaries', field: 'emailSummaries', id: 'email', warn: false },
+const CONSENT_ROWS: { kind: ConsentKind; id: string; warn: boolean }[] = [
+  { kind: 'screening', id: 'screening', warn: true },
+  { kind: 'photos', id: 'photos', warn: true },
+  { kind: 'email_summaries', id: 'email', warn: false },
 ];
 
 function inForce(c: ConsentView, kind: ConsentKind) {
@@ -51,15 +51,15 @@ export function ConsentPanel({ athlete }: { athlete: Athlete }) {
         <Text variant="small">{`Your decisions about ${athlete.firstName}: each is recorded with today's date and your name, and you can change it here at any time.`}</Text>
       ) : null}
       <View style={styles.current}>
-        {CONSENT_ROWS.map(({ kind, field, id, warn }) => (
+        {CONSENT_ROWS.map(({ kind, id, warn }) => (
           <View key={kind} style={styles.current}>
             <Current
               label={CONSENT_LABELS[kind].title}
-              value={inForce(athlete.consents[field], kind)}
-              warn={warn && athlete.consents[field]?.granted !== true}
+              value={inForce(athlete.consents[CONSENT_FIELDS[kind]], kind)}
+              warn={warn && athlete.consents[CONSENT_FIELDS[kind]]?.granted !== true}
               testID={`consent-${id}`}
             />
-            {own ? <OwnDecision athlete={athlete} kind={kind} granted={athlete.consents[field]?.granted === true} /> : null}
+            {own ? <OwnDecision athlete={athlete} kind={kind} granted={athlete.consents[CONSENT_FIELDS[kind]]?.granted === true} /> : null}
           </View>
         ))}
       </View>
