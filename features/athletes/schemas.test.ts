@@ -32,6 +32,10 @@ describe('rosterRowSchema: spreadsheet shorthands (Squadline’s own import form
     ['email_summaries_consent', 'FALSE', false],
     ['guardian_email', ' Parent@Example.TEST ', 'parent@example.test'],
     ['guardian_email', '', undefined],
+    ['screening_consent', 'y', true],
+    ['screening_consent', 'NO', false],
+    // Empty: no decision recorded (the athlete is not screened until one is).
+    ['screening_consent', '', undefined],
   ])('%s "%s" reads as %j', async (column, cell, expected) => {
     const row = await rosterRowSchema.validate(line({ [column]: cell }));
     expect(row[column as keyof typeof row]).toEqual(expected);
@@ -42,6 +46,7 @@ describe('rosterRowSchema: spreadsheet shorthands (Squadline’s own import form
     ['racket_hand', 'both', /L or R/],
     ['photo_consent', 'maybe', /yes or no/],
     ['photo_consent', '', /yes or no/],
+    ['screening_consent', 'maybe', /yes or no for the screening and exercises consent/],
     ['date_of_birth', '2014/03/09', /YYYY-MM-DD/],
     ['squad', ' ', /squads/],
   ])('%s "%s" is refused', async (column, cell, message) => {
