@@ -1,6 +1,6 @@
 import { expect, test } from './fixtures';
 import path from 'node:path';
-import { openNav, signIn, uniqueSurname } from './helpers';
+import { openNav, signIn, tidyUp, uniqueSurname } from './helpers';
 
 // Both projects run at once against one demo database: each takes a different screen from the review list.
 const shots = (name: string, project: string) => path.join(__dirname, '..', '..', 'test-results', 'care', `${name}-${project}.png`);
@@ -259,6 +259,7 @@ test("the plan sets held-back work apart with the reason, and follows the physio
   expect(preview.html).not.toContain('district clinic');
   await page.setContent(preview.html);
   await page.screenshot({ path: shots('summary-email-referred', project), fullPage: true });
+  await tidyUp(page, athleteId, squadId);
 });
 
 test("an athlete's page shows the clearance in force at the top, and its clearance and notes are one tap away", async ({ page }) => {

@@ -1,6 +1,6 @@
 import { type Page } from '@playwright/test';
 import { expect, test } from './fixtures';
-import { signIn, uniqueSurname } from './helpers';
+import { signIn, tidyUp, uniqueSurname } from './helpers';
 
 // A parent changes their own consent from their child's page: what it means is said before they confirm,
 // the decision is dated today and carries their name. Own squad, child and parent per project, so the
@@ -14,15 +14,6 @@ async function tokenFromMailbox(page: Page, email: string): Promise<string> {
     expect(token).toBeTruthy();
   }).toPass({ timeout: 20_000 });
   return token!;
-}
-
-/** The test's athlete and squad archived again, so the demo club's squad list does not grow with every run. */
-async function tidyUp(page: Page, athleteId: string, squadId: string) {
-  await page.context().clearCookies();
-  await signIn(page, 'admin@squadline.test');
-  await expect(page.getByTestId('home-admin')).toBeVisible();
-  expect((await page.request.post(`/api/athletes/${athleteId}/archive`)).status()).toBe(200);
-  expect((await page.request.post(`/api/squads/${squadId}/archive`)).status()).toBe(200);
 }
 
 test('a parent stops and gives back photo consent from their child’s page', async ({ page }, testInfo) => {

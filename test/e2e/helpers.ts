@@ -27,3 +27,12 @@ export function uniqueSurname(prefix: string, project: string): string {
   const tag = letters(Date.now() % 26 ** 6) + letters(Math.floor(Math.random() * 26 ** 3));
   return `${prefix}${project === 'phone' ? 'p' : 'w'}${tag}`;
 }
+
+/** A test's own athlete and squad archived again (as the admin), so the demo club's lists do not grow with every run. */
+export async function tidyUp(page: Page, athleteId: string, squadId: string) {
+  await page.context().clearCookies();
+  await signIn(page, 'admin@squadline.test');
+  await expect(page.getByTestId('home-admin')).toBeVisible();
+  expect((await page.request.post(`/api/athletes/${athleteId}/archive`)).status()).toBe(200);
+  expect((await page.request.post(`/api/squads/${squadId}/archive`)).status()).toBe(200);
+}

@@ -4,7 +4,7 @@ import { isStaff } from '@/features/access/permissions';
 import { useActiveClub } from '@/features/session/active-club';
 import { Text } from '@/features/ui/components/text';
 import { space } from '@/features/ui/theme';
-import { LazyClearancePanel, LazyNotesPanel } from './lazy-care-panels';
+import { LazyCarePanels } from './lazy-care-panels';
 
 /** Where the athlete page's "Clearance and notes" link leads (below the charts). */
 export const ATHLETE_CARE_ANCHOR = 'athlete-care';
@@ -21,8 +21,7 @@ export function AthleteCare({ athleteId }: { athleteId: string }) {
   }
   return (
     <View nativeID={ATHLETE_CARE_ANCHOR} style={styles.care}>
-      <LazyClearancePanel athleteId={athleteId} />
-      <LazyNotesPanel athleteId={athleteId} />
+      <LazyCarePanels athleteId={athleteId} />
     </View>
   );
 }

@@ -1,4 +1,4 @@
-import { lazy, Suspense, type ComponentProps } from 'react';
+import { lazy, Suspense } from 'react';
 
 const Clearance = lazy(() => import('./clearance-panel').then((m) => ({ default: m.ClearancePanel })));
 const Notes = lazy(() => import('./notes-panel').then((m) => ({ default: m.NotesPanel })));
@@ -8,19 +8,15 @@ const Notes = lazy(() => import('./notes-panel').then((m) => ({ default: m.Notes
  * page and the result screen both show them, and a module two screens share would otherwise be loaded by
  * every page. Both screens take them from here, so each panel is one chunk of its own. They sit below the
  * screen's own content and fetch their data when mounted, so the wait adds little.
+ *
+ * One boundary for both: with one each, the notes could arrive first and the clearance then push them
+ * down under a finger already on the note form.
  */
-export function LazyClearancePanel(props: ComponentProps<typeof Clearance>) {
+export function LazyCarePanels({ athleteId, assessmentId }: { athleteId: string; assessmentId?: string }) {
   return (
     <Suspense fallback={null}>
-      <Clearance {...props} />
-    </Suspense>
-  );
-}
-
-export function LazyNotesPanel(props: ComponentProps<typeof Notes>) {
-  return (
-    <Suspense fallback={null}>
-      <Notes {...props} />
+      <Clearance athleteId={athleteId} />
+      <Notes athleteId={athleteId} assessmentId={assessmentId} />
     </Suspense>
   );
 }

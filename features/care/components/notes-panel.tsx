@@ -30,11 +30,13 @@ export function NotesPanel({ athleteId, assessmentId }: { athleteId: string; ass
         Notes
       </Text>
       {notes.error ? <Notice tone="error">{notes.error.message}</Notice> : null}
+      {notes.isPending ? <Text variant="small">Loading notes…</Text> : null}
       {notes.data?.notes.length === 0 ? <Text variant="small">No notes yet.</Text> : null}
       {notes.data?.notes.map((n) => (
         <NoteItem key={n.id} note={n} />
       ))}
-      {canWrite ? <NoteForm athleteId={athleteId} assessmentId={assessmentId} /> : null}
+      {/* The form waits for the list: drawn before it, it jumped down under a finger about to choose who may read the note. */}
+      {canWrite && !notes.isPending ? <NoteForm athleteId={athleteId} assessmentId={assessmentId} /> : null}
     </Card>
   );
 }

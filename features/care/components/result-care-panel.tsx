@@ -9,7 +9,7 @@ import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
 import { useAssessmentCareQuery, useMarkReviewedMutation, useReleaseMutation, useReleasePreviewQuery } from '../api/assessment-care';
-import { LazyClearancePanel, LazyNotesPanel } from './lazy-care-panels';
+import { LazyCarePanels } from './lazy-care-panels';
 import { formatDate } from '@/features/ui/format-date';
 
 /**
@@ -45,8 +45,7 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
           <Release assessmentId={assessmentId} previewing={previewing} setPreviewing={setPreviewing} release={release} />
         ) : null}
       </Card>
-      <LazyClearancePanel athleteId={athleteId} />
-      <LazyNotesPanel athleteId={athleteId} assessmentId={assessmentId} />
+      <LazyCarePanels athleteId={athleteId} assessmentId={assessmentId} />
     </View>
   );
 }
