@@ -72,6 +72,10 @@ export function useFitToOnePage(): void {
     const before = () => {
       const root = document.querySelector<HTMLElement>('[data-print-root]');
       if (!root) return;
+      // A zoom left from an earlier print would scale what is measured (a browser may announce one print
+      // twice, or print again without saying it ended).
+      delete root.dataset.printFit;
+      root.style.removeProperty('--print-zoom');
       const width = root.style.width;
       root.dataset.printMeasure = 'true';
       const zoom = fitZoom((w) => {

@@ -223,7 +223,7 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
           </View>
         </Notice>
       ) : isTabletUp ? (
-        <TrendsTable rows={rows} sort={sort} descending={descending} onSort={onSort} />
+        <TrendsTable rows={rows} sort={sort} descending={descending} onSort={onSort} onPaper={printing} />
       ) : (
         <TrendsCards rows={rows} />
       )}

@@ -6,6 +6,7 @@ import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { BAND_LABELS, BAND_SHORT, daysAgo, PATTERN_SHORT } from '../labels';
 import { clearanceWords, type SortKey, type TrendAthlete } from '../trends';
 import { formatDate } from '@/features/ui/format-date';
+import { PRINT_KEEP } from '@/features/ui/print';
 import { capitalise } from '@/features/ui/capitalise';
 
 /** "Due since Jul 20, 2026" (how long overdue), "Due" never screened, "from Jan 16, 2027" not yet. */
@@ -29,14 +30,14 @@ function sessionsText(a: TrendAthlete): string {
   return s.held === 0 ? 'None recorded' : `${s.attended} of ${s.held}`;
 }
 
-type Col = { key: SortKey | null; label: string; flex: number; cell: (a: TrendAthlete) => string };
+type Col = { key: SortKey | null; label: string; flex: number; cell: (a: TrendAthlete, onPaper: boolean) => string };
 const COLUMNS: Col[] = [
   { key: 'name', label: 'Athlete', flex: 1.1, cell: (a) => `${a.lastName}, ${a.firstName}` },
   { key: 'ageGroup', label: 'Age', flex: 0.6, cell: (a) => `${a.ageGroup} · ${a.sex === 'female' ? 'F' : 'M'}` },
   { key: 'maturityBand', label: 'Maturity', flex: 0.9, cell: (a) => BAND_SHORT[a.maturityBand ?? 'unknown'] },
-  { key: 'flags', label: 'Flags left', flex: 1.4, cell: (a) => lines(a.latestFlags.left) },
-  { key: null, label: 'Flags right', flex: 1.4, cell: (a) => lines(a.latestFlags.right) },
-  { key: null, label: 'Other flags', flex: 1.4, cell: (a) => lines([...a.latestFlags.both, ...a.latestFlags.unsided]) },
+  { key: 'flags', label: 'Flags left', flex: 1.4, cell: (a, onPaper) => (onPaper ? list : lines)(a.latestFlags.left) },
+  { key: null, label: 'Flags right', flex: 1.4, cell: (a, onPaper) => (onPaper ? list : lines)(a.latestFlags.right) },
+  { key: null, label: 'Other flags', flex: 1.4, cell: (a, onPaper) => (onPaper ? list : lines)([...a.latestFlags.both, ...a.latestFlags.unsided]) },
   { key: 'clearance', label: 'Clearance', flex: 1.1, cell: (a) => clearanceWords(a) ?? '–' },
   {
     key: 'daysSinceLastScreen',
@@ -48,10 +49,21 @@ const COLUMNS: Col[] = [
   { key: 'rescreenDue', label: 'Re-screen', flex: 0.8, cell: (a) => rescreenCell(a) },
 ];
 
-type Props = { rows: TrendAthlete[]; sort: SortKey; descending: boolean; onSort: (key: SortKey) => void };
+type Props = {
+  rows: TrendAthlete[];
+  sort: SortKey;
+  descending: boolean;
+  onSort: (key: SortKey) => void;
+  /**
+   * Laid out for the one-page report: rows as low as their text (no touch height) and the flags in a line,
+   * since the page is laid out wider than any screen before it is scaled down (40 athletes ran onto three
+   * pages with a flag a line).
+   */
+  onPaper?: boolean;
+};
 
 /** Wide screens: one row per athlete, every column sortable from its header. */
-export function TrendsTable({ rows, sort, descending, onSort }: Props) {
+export function TrendsTable({ rows, sort, descending, onSort, onPaper = false }: Props) {
   return (
     <View role="table" aria-label="Squad table" style={styles.table} testID="trends-table">
       <View role="row" style={[styles.row, styles.headRow]}>
@@ -80,18 +92,18 @@ export function TrendsTable({ rows, sort, descending, onSort }: Props) {
         )}
       </View>
       {rows.map((a) => (
-        <View key={a.id} role="row" style={styles.row} testID="trends-row">
+        <View key={a.id} role="row" style={[styles.row, onPaper && styles.paperRow]} testID="trends-row" {...PRINT_KEEP}>
           {COLUMNS.map((c, i) => (
-            <View key={c.label} role="cell" style={[styles.cell, { flex: c.flex }]}>
+            <View key={c.label} role="cell" style={[styles.cell, onPaper && styles.paperCell, { flex: c.flex }]}>
               {i === 0 ? (
                 <Link href={`/athletes/${a.id}`}>
                   <Text variant="small" style={styles.name}>
-                    {c.cell(a)}
+                    {c.cell(a, onPaper)}
                   </Text>
                 </Link>
               ) : (
                 <Text variant="small" style={c.key === 'rescreenDue' && a.rescreenDue ? styles.due : styles.value}>
-                  {c.cell(a)}
+                  {c.cell(a, onPaper)}
                 </Text>
               )}
             </View>
@@ -141,6 +153,8 @@ const styles = StyleSheet.create({
   row: { flexDirection: 'row', borderBottomWidth: 1, borderColor: colors.line, minHeight: 40, alignItems: 'center' },
   headRow: { backgroundColor: colors.paper },
   cell: { paddingHorizontal: space.xs, paddingVertical: space.xs, minWidth: 0 },
+  paperRow: { minHeight: 0 },
+  paperCell: { paddingVertical: 2 },
   head: { fontSize: 13 },
   name: { color: colors.pine, fontFamily: fonts.bold },
   value: { color: colors.ink },
