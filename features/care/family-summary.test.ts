@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { evaluateAssessment, type AssessmentInput, type TaskId } from '@/features/screening/engine';
-import { buildFamilySummary, clearanceWords, PATTERN_FAMILY_WORDS } from './family-summary';
+import { EXERCISES } from '@/features/screening/engine/exercises';
+import { buildFamilySummary, clearanceWords, EXERCISE_FAMILY_WHY, PATTERN_FAMILY_WORDS } from './family-summary';
 import { strengthBlock } from './strength-block';
 
 // A girl of 12 whose right knee caves in during the two-leg squat (frontal-plane projection angle about
@@ -132,6 +133,23 @@ describe('buildFamilySummary', () => {
 
   it('has family words for every pattern the engine can flag', () => {
     for (const words of Object.values(PATTERN_FAMILY_WORDS)) expect(words).not.toMatch(/valgus|dorsiflexion|pelvic drop/i);
+  });
+
+  // Our wording: each exercise says why in everyday words, and which of the things seen it was chosen for.
+  it('says why each exercise is there in family words, for every exercise of the library and no other', () => {
+    expect(Object.keys(EXERCISE_FAMILY_WHY).sort()).toEqual(EXERCISES.map((e) => e.id).sort());
+    for (const why of Object.values(EXERCISE_FAMILY_WHY)) expect(why).not.toMatch(/valgus|dorsiflexion|pelvi|glute|abduct|trunk|groove/i);
+    for (const e of summary.exercises) {
+      const planned = result.plan.exercises.find((p) => p.name === e.name)!;
+      expect(e.purpose).toBe(EXERCISE_FAMILY_WHY[planned.id]);
+    }
+  });
+
+  it('links each exercise to what was seen, in the words of "what we saw", never to the growth phase', () => {
+    const forKnee = summary.exercises.filter((e) => result.plan.exercises.find((p) => p.name === e.name)!.patterns.includes('dynamic-knee-valgus'));
+    expect(forKnee.length).toBeGreaterThan(0);
+    for (const e of forKnee) expect(e.forWhat).toContain('Chosen for what we saw: the knee moved inward during the movement');
+    for (const e of summary.exercises) expect(e.forWhat ?? '').not.toContain('fast-growing');
   });
 });
 

@@ -19,6 +19,31 @@ export const PATTERN_FAMILY_WORDS: Record<PatternId, string> = {
   'growth-spurt-window': 'a fast-growing phase seems to be under way, so training is kept lighter for now',
 };
 
+/**
+ * Why each exercise of the library is there, for a parent (our wording): what it helps with in everyday
+ * words, where the library's purpose is written for coaches. An exercise not listed keeps its own purpose.
+ */
+export const EXERCISE_FAMILY_WHY: Record<string, string> = {
+  'wall-ankle-rocks': 'Helps the ankle bend further forward with the heel on the ground, which lets the knee travel over the foot.',
+  'slow-heel-drops': 'Makes the calf stronger over its whole length, so the ankle can bend well while carrying weight.',
+  'side-lying-hip-abduction': 'Strengthens the muscles at the side of the hip, which keep the hips level and the knee pointing the right way.',
+  'banded-lateral-walk': 'Works the same side-hip muscles standing up, the way they work when moving around the court.',
+  'single-leg-glute-bridge': 'Builds strength in the hip one leg at a time, so both sides become more even.',
+  'side-plank-from-knees': 'Teaches the body and hips to hold a straight line, which helps stop the hips dipping.',
+  'dowel-hip-hinge': 'Teaches how to bend at the hips while keeping the back long and steady.',
+  'single-leg-reach': 'Practises keeping the hips and knee steady on one leg while the body moves, as in court footwork.',
+  'snap-down-and-stick': 'Practises landing softly with the knees in line, without the force of a full jump.',
+  'mini-band-squat': 'Practises squatting with the knees staying in line with the feet; the light band reminds the knees not to drift inward.',
+  'counterbalance-box-squat': 'Helps reach a full squat with the chest up; a light weight held in front helps with balance.',
+  'split-squat-endurance': 'Builds leg strength and stamina one leg at a time, in the lunge position used on court.',
+};
+
+/** "Chosen for what we saw: ..." from the patterns an exercise works on (the growth phase is not something seen to work on). */
+function forWhat(patterns: readonly PatternId[]): { forWhat?: string } {
+  const seen = [...new Set(patterns)].filter((p) => p !== 'growth-spurt-window');
+  return seen.length ? { forWhat: `Chosen for what we saw: ${seen.map((p) => PATTERN_FAMILY_WORDS[p]).join('; ')}.` } : {};
+}
+
 const SIDE_WORDS: Record<Exclude<FlagSide, null>, string> = { left: ' (left side)', right: ' (right side)', both: ' (both sides)' };
 
 export const FAMILY_CAUTIONS = (name: string, clubOnly = false) => [
@@ -82,7 +107,9 @@ export function buildFamilySummary(input: {
     .sort((a, b) => a.order - b.order)
     .map((e) => ({
       name: e.name,
-      purpose: e.purpose,
+      purpose: EXERCISE_FAMILY_WHY[e.id] ?? e.purpose,
+      // What was seen that it works on, in the words of "What we saw" (the engine lists the patterns).
+      ...forWhat(e.patterns),
       howTo: [...e.howTo],
       cue: e.cue,
       howMuch: `${setsText(e.prescription.sets)} of ${doseText(e.prescription.dose)}`,

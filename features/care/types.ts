@@ -53,6 +53,8 @@ export type ReviewState = {
 export type FamilyExercise = {
   name: string;
   purpose: string;
+  /** What seen at the screen the exercise works on, in family words (absent on summaries released before, or where the plan names none). */
+  forWhat?: string;
   howTo: string[];
   cue: string;
   howMuch: string;

@@ -1,13 +1,27 @@
 import { Body, Container, Head, Heading, Hr, Html, Link, Preview, render, Section, Text } from '@react-email/components';
 import { CLUB_ONLY_WORDS } from '@/features/care/family-words';
 import type { FamilySummary } from '@/features/care/types';
+import { todayIso } from '@/features/athletes/age';
 import { formatDateInWords } from '@/features/ui/format-date';
 
 /**
  * The family-summary e-mail: one React Email template rendered to its HTML part and, through the same
  * renderer's plain-text mode, to its text part. No images (nothing to block, nothing that tracks).
  */
-type Props = { summary: FamilySummary; viewUrl: string; unsubscribeUrl: string; recipientName: string };
+type Props = {
+  summary: FamilySummary;
+  viewUrl: string;
+  unsubscribeUrl: string;
+  recipientName: string;
+  /** The day the e-mail is written (YYYY-MM-DD; today by default): a next check before it is due now, not a date gone by. */
+  today?: string;
+};
+
+/** The next check, for the e-mail (words for dates: the reader's locale is not known). Our wording, as the family page's. */
+export function recheckLine(recheckDate: string, today: string): string {
+  const when = formatDateInWords(recheckDate);
+  return recheckDate < today ? `Next check: due now (it was planned for around ${when}); the coaches will arrange it.` : `Next check: around ${when}.`;
+}
 
 const styles = {
   body: { backgroundColor: '#f4f6f5', fontFamily: 'Helvetica, Arial, sans-serif', color: '#1d2a24', margin: 0, padding: '16px 0' },
@@ -19,7 +33,7 @@ const styles = {
   link: { color: '#0b6b4f', textDecoration: 'underline' },
 };
 
-export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName }: Props) {
+export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName, today }: Props) {
   const name = summary.athleteFirstName;
   return (
     <Html lang="en">
@@ -51,12 +65,12 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName }
           <Section>
             <Heading as="h2" style={styles.h2}>{`What ${name} will work on`}</Heading>
             {summary.exercises.map((e) => (
-              <Text key={e.name} style={styles.text}>{`• ${e.name}: ${e.howMuch}, ${e.howOften}.${e.clubOnly ? ` ${CLUB_ONLY_WORDS}` : ''} ${e.purpose}`}</Text>
+              <Text key={e.name} style={styles.text}>{`• ${e.name}: ${e.howMuch}, ${e.howOften}.${e.clubOnly ? ` ${CLUB_ONLY_WORDS}` : ''} ${e.purpose}${e.forWhat ? ` ${e.forWhat}` : ''}`}</Text>
             ))}
             {summary.onHold ? <Text style={styles.text}>{summary.onHold}</Text> : null}
             {summary.clearance ? <Text style={styles.text}>{summary.clearance}</Text> : null}
             <Text style={styles.text}>{summary.howOften}</Text>
-            {summary.recheckDate ? <Text style={styles.text}>{`Next check: around ${formatDateInWords(summary.recheckDate)}.`}</Text> : null}
+            {summary.recheckDate ? <Text style={styles.text}>{recheckLine(summary.recheckDate, today ?? todayIso())}</Text> : null}
           </Section>
           <Section>
             <Heading as="h2" style={styles.h2}>

@@ -19,7 +19,8 @@ export function ClearanceBadge({ clearance }: { clearance: ClearanceView }) {
       accessibilityLabel={`Clearance: ${label}${clearance.detail ? `, ${clearance.detail}` : ''}`}
     >
       <Text variant="small" style={styles.text} numberOfLines={1}>
-        {tone === 'stop' ? '✕ ' : tone === 'caution' ? '⚠ ' : '✓ '}
+        {/* Referred on: an arrow out, not a cross (read as a tag's "remove"). */}
+        {tone === 'stop' ? '↗ ' : tone === 'caution' ? '⚠ ' : '✓ '}
         {label}
       </Text>
     </View>

@@ -158,7 +158,10 @@ function Plan({ summary, sessions }: { summary: FamilySummary; sessions: FamilyV
       ) : null}
       {summary.exercises.map((e) => (
         <View key={e.name} style={styles.exercise} testID="family-exercise">
-          <Text variant="label">{e.name}</Text>
+          {/* Above its description in size too: the name is what a parent scans the list for. */}
+          <Text variant="label" style={styles.exerciseName} accessibilityRole="header" aria-level={3}>
+            {e.name}
+          </Text>
           <Text variant="small">
             {e.howMuch} · {e.howOften}
           </Text>
@@ -168,6 +171,11 @@ function Plan({ summary, sessions }: { summary: FamilySummary; sessions: FamilyV
             </Text>
           ) : null}
           <Text>{e.purpose}</Text>
+          {e.forWhat ? (
+            <Text variant="small" testID="family-exercise-for">
+              {e.forWhat}
+            </Text>
+          ) : null}
           <View style={styles.list}>
             {e.howTo.map((step, i) => (
               <Text key={step}>{`${i + 1}. ${step}`}</Text>
@@ -213,6 +221,7 @@ function Earlier({ releases }: { releases: SummaryRelease[] }) {
 }
 
 const styles = StyleSheet.create({
+  exerciseName: { fontSize: 18, lineHeight: 24 },
   consentLink: { minHeight: 48, justifyContent: 'center', paddingVertical: space.sm },
   clubOnly: { fontFamily: fonts.bold, color: colors.amber },
   wrap: { gap: space.lg },

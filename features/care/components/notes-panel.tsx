@@ -85,7 +85,7 @@ function NoteItem({ note }: { note: NoteView }) {
         <Text>{note.text}</Text>
       )}
       {note.canEdit && !editing ? (
-        <Button label={`Correct (until ${formatTime(note.editableUntil)})`} tone="quiet" onPress={() => setEditing(true)} testID="note-correct" />
+        <Button label={`Edit this note (until ${formatTime(note.editableUntil)})`} tone="quiet" onPress={() => setEditing(true)} testID="note-correct" />
       ) : null}
     </View>
   );

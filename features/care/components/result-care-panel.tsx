@@ -10,6 +10,7 @@ import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
 import { useAssessmentCareQuery, useMarkReviewedMutation, useReleaseMutation, useReleasePreviewQuery } from '../api/assessment-care';
 import { LazyCarePanels } from './lazy-care-panels';
+import type { ReleasePreview } from '../types';
 import { formatDate } from '@/features/ui/format-date';
 
 /**
@@ -70,10 +71,7 @@ type ReleaseProps = {
 
 function Release({ assessmentId, previewing, setPreviewing, release }: ReleaseProps) {
   const preview = useReleasePreviewQuery(assessmentId, previewing && !release.isSuccess);
-  if (release.isSuccess) {
-    const sent = release.data.release.recipients;
-    return <Notice title="Sent">{`The summary is in the family view${sent ? ` and ${sent} e-mail(s) are on their way` : ''}.`}</Notice>;
-  }
+  if (release.isSuccess) return <Released sent={release.data.release.recipients} preview={preview.data?.preview} />;
   if (!previewing) return <Button label="Preview the family summary" tone="secondary" onPress={() => setPreviewing(true)} testID="release-preview" />;
   if (preview.isPending) return <Text>Preparing the preview…</Text>;
   if (preview.error) return <Notice tone="error">{preview.error.message}</Notice>;
@@ -105,6 +103,26 @@ function Release({ assessmentId, previewing, setPreviewing, release }: ReleasePr
   );
 }
 
+/**
+ * What the release did, in full: who can read it and who was e-mailed. With no parent linked, "Sent" had
+ * told a physiotherapist the family was informed when nobody was (the preview had said so, above).
+ */
+function Released({ sent, preview }: { sent: number; preview: ReleasePreview | undefined }) {
+  if (sent > 0) return <Notice title="Released">{`The summary is in the family view and ${sent === 1 ? 'one e-mail is' : `${sent} e-mails are`} on their way.`}</Notice>;
+  if (preview && preview.skipped.length > 0) {
+    return (
+      <Notice title="Released, no e-mail sent">
+        {`The summary is in the family view for ${preview.skipped.map((s) => s.displayName).join(', ')}; no e-mail went out (no e-mail consent recorded).`}
+      </Notice>
+    );
+  }
+  return (
+    <Notice tone="caution" title="Released, but no family can read it yet">
+      No parent account is linked to this athlete, so nobody has been told. The summary shows in the family view once the club links a parent.
+    </Notice>
+  );
+}
+
 const styles = StyleSheet.create({
   wrap: { gap: space.lg },
   actions: { gap: space.sm },
@@ -115,8 +133,8 @@ const styles = StyleSheet.create({
     borderRadius: radius.md,
     padding: space.md,
     backgroundColor: colors.paper,
-    maxHeight: 420,
-    overflow: 'scroll',
+    // In full, not in a box of its own that scrolls: on a phone only its first lines showed, and the
+    // clearance and the next check (what a physiotherapist checks before release) needed a scroll inside it.
   },
   previewText: { fontSize: 15, lineHeight: 21 },
 });
