@@ -29,7 +29,13 @@ describe('the next check in the family e-mail', () => {
       contact: 'Questions? Speak to the coaches at Riverside Juniors.',
       cautions: ['This summary describes how Nia moved on the day of the screen. It is not a diagnosis.'],
     } satisfies FamilySummary;
-    const mail = await renderSummaryEmail({ summary, viewUrl: 'http://localhost/f', unsubscribeUrl: 'http://localhost/u', recipientName: 'Ada', today: '2026-12-05' });
+    const mail = await renderSummaryEmail({
+      summary,
+      viewUrl: 'http://localhost/f',
+      unsubscribeUrl: 'http://localhost/u',
+      recipientName: 'Ada',
+      today: '2026-12-05',
+    });
     expect(mail.text).toContain('Next check: due now (it was planned for around 26 October 2026)');
     expect(mail.html).toContain('due now (it was planned for around 26 October 2026)');
   });

@@ -65,7 +65,10 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName, 
           <Section>
             <Heading as="h2" style={styles.h2}>{`What ${name} will work on`}</Heading>
             {summary.exercises.map((e) => (
-              <Text key={e.name} style={styles.text}>{`• ${e.name}: ${e.howMuch}, ${e.howOften}.${e.clubOnly ? ` ${CLUB_ONLY_WORDS}` : ''} ${e.purpose}${e.forWhat ? ` ${e.forWhat}` : ''}`}</Text>
+              <Text
+                key={e.name}
+                style={styles.text}
+              >{`• ${e.name}: ${e.howMuch}, ${e.howOften}.${e.clubOnly ? ` ${CLUB_ONLY_WORDS}` : ''} ${e.purpose}${e.forWhat ? ` ${e.forWhat}` : ''}`}</Text>
             ))}
             {summary.onHold ? <Text style={styles.text}>{summary.onHold}</Text> : null}
             {summary.clearance ? <Text style={styles.text}>{summary.clearance}</Text> : null}

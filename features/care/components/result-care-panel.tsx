@@ -108,7 +108,8 @@ function Release({ assessmentId, previewing, setPreviewing, release }: ReleasePr
  * told a physiotherapist the family was informed when nobody was (the preview had said so, above).
  */
 function Released({ sent, preview }: { sent: number; preview: ReleasePreview | undefined }) {
-  if (sent > 0) return <Notice title="Released">{`The summary is in the family view and ${sent === 1 ? 'one e-mail is' : `${sent} e-mails are`} on their way.`}</Notice>;
+  if (sent > 0)
+    return <Notice title="Released">{`The summary is in the family view and ${sent === 1 ? 'one e-mail is' : `${sent} e-mails are`} on their way.`}</Notice>;
   if (preview && preview.skipped.length > 0) {
     return (
       <Notice title="Released, no e-mail sent">
