@@ -239,16 +239,20 @@ describe('compareScreens and its wording', () => {
     const s = coachSummary(c);
     const all = [s.headline, ...s.lines, ...s.realChanges, ...s.withinError].join(' ');
     expect(all).not.toMatch(/\b(better|worse|improv)/i);
-    expect(s.headline).toBe('1 of 2 measurements with a published error changed by more than it; 1 more has no published figure and is not judged.');
+    expect(s.headline).toBe(
+      '1 of 2 measurements changed beyond their published re-test error; 1 more has no published error figure and is shown without a verdict.',
+    );
     expect(s.realChanges[0]).toContain('18.4° → 6.2°, down 12.2°, more than the 8.93° a re-test can differ by');
     expect(s.withinError[0]).toContain('not a change we can tell from measuring error');
   });
 
   it('staff headline in whole words when one or none of the measurements can be judged (our wording)', () => {
     const only = (...verdicts: string[]) => coachSummary({ ...c, measurements: c.measurements.filter((m) => verdicts.includes(m.verdict)) }).headline;
-    expect(only('real-change')).toBe('1 of 1 measurement with a published error changed by more than it.');
-    expect(only('no-published-figure')).toBe('No measurement with a published error was taken at both screens; 1 has no published figure and is not judged.');
-    expect(only()).toBe('No measurement with a published error was taken at both screens.');
+    expect(only('real-change')).toBe('1 of 1 measurement changed beyond its published re-test error.');
+    expect(only('no-published-figure')).toBe(
+      'No measurement with a published re-test error was taken at both screens; 1 has no published error figure and is shown without a verdict.',
+    );
+    expect(only()).toBe('No measurement with a published re-test error was taken at both screens.');
   });
 
   it('family wording: no angles, distances or trade terms', () => {

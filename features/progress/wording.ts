@@ -121,16 +121,18 @@ export function coachSummary(c: ScreenComparison): { headline: string; lines: st
   const unjudged = c.measurements.length - judged.length;
   const judgedPart =
     judged.length === 0
-      ? 'No measurement with a published error was taken at both screens'
-      : `${realChanges.length} of ${judged.length} ${judged.length === 1 ? 'measurement' : 'measurements'} with a published error changed by more than it`;
+      ? 'No measurement with a published re-test error was taken at both screens'
+      : judged.length === 1
+        ? `${realChanges.length} of 1 measurement changed beyond its published re-test error`
+        : `${realChanges.length} of ${judged.length} measurements changed beyond their published re-test error`;
   // "1 more has" after a count of judged ones; "1 has" when none could be judged.
   const more = judged.length === 0 ? '' : ' more';
   const unjudgedPart =
     unjudged === 0
       ? ''
       : unjudged === 1
-        ? `; 1${more} has no published figure and is not judged`
-        : `; ${unjudged}${more} have no published figure and are not judged`;
+        ? `; 1${more} has no published error figure and is shown without a verdict`
+        : `; ${unjudged}${more} have no published error figure and are shown without a verdict`;
   const headline = `${judgedPart}${unjudgedPart}.`;
   return { headline, lines, realChanges, withinError };
 }

@@ -43,8 +43,8 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
       ))}
     </Card>
   );
-  // On a wide screen the notes and photos sit under the plan, beside the summary (the page's two halves
-  // about the same length); on a phone they follow in reading order.
+  // On a wide screen the notes, photos and earlier summaries sit under the plan, beside the summary (the
+  // page's two halves about the same length); on a phone they follow in reading order.
   const beside = isWide && latest;
   return (
     <View style={styles.wrap} testID="family-view">
@@ -66,12 +66,19 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
             <Plan summary={latest.summary} sessions={sessionsSinceLatest} />
             {beside ? notesCard : null}
             {beside ? photosCard : null}
+            {beside && earlier.length > 0 ? <Earlier releases={earlier} /> : null}
           </View>
         </View>
       )}
       {beside ? null : photosCard}
       {beside ? null : notesCard}
-      {earlier.length > 0 ? <Earlier releases={earlier} /> : null}
+      {!beside && earlier.length > 0 ? <Earlier releases={earlier} /> : null}
+      {/* Where a parent changes what they agreed to, whatever the page above says. */}
+      {takingPart?.granted ? (
+        <Link href={`/athletes/${athlete.id}`} style={styles.consentLink} testID="family-details-link">
+          <Text variant="label">{`${athlete.firstName}'s details and your consent decisions →`}</Text>
+        </Link>
+      ) : null}
     </View>
   );
 }

@@ -36,7 +36,11 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
 
   return (
     <View style={styles.wrap} testID="history-chart">
-      <Text variant="label">{series.title}</Text>
+      {/* The unit by the title: the axis carries numbers only (a unit on every tick did not fit its 40 px). */}
+      <Text variant="label">
+        {series.title}
+        {series.title.includes(series.unit) ? '' : ` (${series.unit})`}
+      </Text>
       <View onLayout={(e) => setWidth(Math.round(e.nativeEvent.layout.width))} accessibilityLabel={`Chart: ${series.title}. ${summary}.`} style={styles.chart}>
         {width > 0 ? (
           <VictoryChart width={width} height={170} padding={{ top: 10, bottom: 28, left: 40, right: DATE_AXIS_RIGHT }} domain={{ x: [minX, maxX], y: domainY }}>
