@@ -137,6 +137,15 @@ describe('filters, sorting and the CSV rows agree', () => {
     expect(sortAthletes([rows[0]!, growing], 'flags').map((a) => a.firstName)).toEqual(['Gus', 'Ana']);
   });
 
+  it('sorts re-screens the longest overdue first, then the next due, then those not to be screened (our choice)', () => {
+    const due = (firstName: string, rescreenDate: string | null) => athlete({ firstName, rescreenDue: true, rescreenDate });
+    const later = athlete({ firstName: 'Lia', rescreenDue: false, rescreenDate: '2027-02-01' });
+    const sooner = athlete({ firstName: 'Kai', rescreenDue: false, rescreenDate: '2027-01-11' });
+    const out = athlete({ firstName: 'Ona', takingPart: false, rescreenDue: false, rescreenDate: null });
+    const rows = [later, out, due('Cas', '2026-10-26'), sooner, due('Gal', '2026-07-20'), due('New', null)];
+    expect(sortAthletes(rows, 'rescreenDue').map((a) => a.firstName)).toEqual(['New', 'Gal', 'Cas', 'Kai', 'Lia', 'Ona']);
+  });
+
   it('sorts, never-screened last by days', () => {
     expect(sortAthletes(rows, 'daysSinceLastScreen').map((a) => a.firstName)).toEqual(['Ana', 'Ben', 'Cai']);
     expect(sortAthletes(rows, 'name', true).map((a) => a.firstName)).toEqual(['Cai', 'Ben', 'Ana']);

@@ -207,7 +207,10 @@ function sortValue(a: TrendAthlete, key: SortKey): string | number {
     case 'daysSinceLastScreen':
       return a.daysSinceLastScreen ?? Number.MAX_SAFE_INTEGER;
     case 'rescreenDue':
-      return a.rescreenDue ? 0 : 1;
+      // Due first, the longest overdue first (never screened before any date), then the next due; those
+      // not to be screened last (our choice). ISO dates sort as strings.
+      if (!a.takingPart) return '2';
+      return a.rescreenDue ? `0 ${a.rescreenDate ?? ''}` : `1 ${a.rescreenDate ?? '~'}`;
     case 'clearance':
       // Waiting for a clearance first: loaded and landing work are on hold (our choice).
       return a.awaitingClearance ? '!' : (a.clearance ?? '~');

@@ -8,6 +8,9 @@ import type { MeasureItem } from '@/features/measuring/contract';
 import { LazyLandmarkEditor } from '@/features/screening/components/landmarks/lazy-landmark-editor';
 import type { LandmarkSet } from '@/features/screening/contract';
 import { getTask } from '@/features/screening/engine/battery';
+import { getLandmark } from '@/features/screening/engine/landmarks';
+import type { LandmarkId } from '@/features/screening/engine/types';
+import { swappedFrontPair } from '@/features/screening/engine/validate';
 import { can } from '@/features/access/permissions';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
@@ -87,6 +90,13 @@ function Desk({ roundId }: { roundId?: string }) {
     if (!current || save.isPending) return;
     const id = current.photo.id;
     setError(null);
+    setSaved(null);
+    // Said here, in words, before anything is sent: the server's refusal named landmark ids.
+    const swapped = current.view === 'front' ? swappedFrontPair(marks) : null;
+    if (swapped) {
+      setError(swappedWords(swapped));
+      return;
+    }
     try {
       if (Object.keys(marks).length > 0) {
         const res = await save.mutateAsync({ photoId: id, landmarks: marks });
@@ -198,11 +208,6 @@ function Desk({ roundId }: { roundId?: string }) {
             {isWide ? <Text variant="small">Enter saves and opens the next photo · ← → move between photos without saving</Text> : null}
           </View>
           {saved ? <Notice testID="measure-saved">{saved}</Notice> : null}
-          {error ? (
-            <Notice tone="error" title="Not saved" testID="measure-error">
-              {`${error} The points are kept here: adjust them and save again.`}
-            </Notice>
-          ) : null}
           <LazyLandmarkEditor
             key={current.photo.id}
             task={getTask(current.taskId)}
@@ -214,6 +219,14 @@ function Desk({ roundId }: { roundId?: string }) {
             shortcuts={isWide}
           />
           <View style={[styles.actions, !isWide && Platform.OS === 'web' && styles.actionsPinned]}>
+            {/* Beside the button that was pressed: at the top of the page it was out of sight on a phone. */}
+            {error ? (
+              <View style={styles.errorRow}>
+                <Notice tone="error" title="Not saved" testID="measure-error">
+                  {`${error} The points are kept here: adjust them and save again.`}
+                </Notice>
+              </View>
+            ) : null}
             <Button
               label={isWide ? 'Save, next photo (Enter)' : 'Save, next photo'}
               testID="measure-save-next"
@@ -229,7 +242,13 @@ function Desk({ roundId }: { roundId?: string }) {
   );
 }
 
+/** A front pair placed the wrong way round, in the landmarks' own names. */
+function swappedWords([right, left]: readonly [LandmarkId, LandmarkId]): string {
+  return `${getLandmark(right).label} and ${getLandmark(left).label} are the wrong way round: facing the camera, the athlete's right is on the photo's left. Drag them to their sides.`;
+}
+
 const styles = StyleSheet.create({
+  errorRow: { flexBasis: '100%' },
   wrap: { gap: space.lg },
   header: { gap: space.xs },
   columns: { gap: space.lg },

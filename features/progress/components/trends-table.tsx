@@ -45,7 +45,7 @@ const COLUMNS: Col[] = [
     flex: 0.8,
     cell: (a) => (a.daysSinceLastScreen === null ? 'Never' : capitalise(daysAgo(a.daysSinceLastScreen))),
   },
-  { key: 'sessions', label: 'Sessions since screen', flex: 1, cell: sessionsText },
+  { key: 'sessions', label: 'Sessions attended since screen', flex: 1, cell: sessionsText },
   { key: 'rescreenDue', label: 'Re-screen', flex: 0.8, cell: (a) => rescreenCell(a) },
 ];
 

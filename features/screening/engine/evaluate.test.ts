@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { rateSingleLegSquat } from './measurements';
-import { EngineInputError, ENGINE_VERSION, evaluateAssessment, getTask } from './index';
+import { EngineInputError, ENGINE_VERSION, evaluateAssessment, getTask, swappedFrontPair } from './index';
 import type { AssessmentInput, AthleteInput, Point, TaskResultInput } from './types';
 
 const COMMON = 'common practice, no source';
@@ -498,5 +498,24 @@ describe('evaluateAssessment: impossible input', () => {
       expect((e as EngineInputError).field).toBe(field);
       expect((e as EngineInputError).message.startsWith(field)).toBe(true);
     }
+  });
+});
+
+// Our rule (camera facing the athlete: their right on the image's left; common practice, no source for the
+// convention): the same check the engine refuses on is offered to screens, so they can say it first.
+describe('swappedFrontPair', () => {
+  it('names the first front pair placed the wrong way round or on top of each other, and nothing otherwise', () => {
+    expect(swappedFrontPair({ 'right-hip': p(400, 700), 'left-hip': p(560, 700) })).toBeNull();
+    expect(swappedFrontPair({ 'right-hip': p(560, 700), 'left-hip': p(400, 700) })).toEqual(['right-hip', 'left-hip']);
+    expect(swappedFrontPair({ 'right-asis': p(480, 650), 'left-asis': p(480, 652) })).toEqual(['right-asis', 'left-asis']);
+    // One of a pair alone cannot be the wrong way round.
+    expect(swappedFrontPair({ 'right-asis': p(900, 650) })).toBeNull();
+  });
+
+  it('is what the engine refuses: a swapped pair is an input error on the right-side point', () => {
+    const input = makeAssessment({
+      tasks: { 'two-leg-squat': { criteria: [], photos: { front: { landmarks: { 'right-asis': p(560, 650), 'left-asis': p(400, 650) } } } } },
+    });
+    expect(() => evaluateAssessment(input)).toThrow(/right-asis must be on the image's left of left-asis/);
   });
 });

@@ -49,6 +49,6 @@ export { citationsIn, shortSource, SHORT_CITATIONS } from './sources';
 export { EXERCISES } from './exercises';
 export { PATTERN_TITLES } from './flags';
 export { MAX_EXERCISES, GROWTH_SPURT_ADJUSTMENT } from './plan';
-export { DEFAULT_RESCREEN_WEEKS, DEFAULT_LOAD_INCREMENT_KG, DEFAULT_MATURITY_METHOD } from './validate';
+export { DEFAULT_RESCREEN_WEEKS, DEFAULT_LOAD_INCREMENT_KG, DEFAULT_MATURITY_METHOD, swappedFrontPair } from './validate';
 
 export type * from './types';

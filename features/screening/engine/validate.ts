@@ -95,24 +95,34 @@ function validateLandmarks(path: string, spec: TaskSpec, view: View, photo: unkn
     const q = isValidPoint(point) ? point : checkPoint(`${path}.landmarks.${id}`, point);
     out[id] = { x: q.x, y: q.y };
   }
-  if (view === 'front') {
-    // Camera facing the athlete: the athlete's right is on the image's left.
-    // A pair the other way round was labelled mirrored, which would flip every sign.
-    for (const [right, left] of [
-      ['right-hip', 'left-hip'],
-      ['right-asis', 'left-asis'],
-    ] as const) {
-      const r = out[right];
-      const l = out[left];
-      if (r && l && !(r.x < l.x)) {
-        throw new EngineInputError(
-          `${path}.landmarks.${right}`,
-          `${right} must be on the image's left of ${left}: in a front view the athlete's right appears on the image's left`,
-        );
-      }
-    }
+  const swapped = view === 'front' ? swappedFrontPair(out) : null;
+  if (swapped) {
+    const [right, left] = swapped;
+    throw new EngineInputError(
+      `${path}.landmarks.${right}`,
+      `${right} must be on the image's left of ${left}: in a front view the athlete's right appears on the image's left`,
+    );
   }
   return out;
+}
+
+const FRONT_PAIRS = [
+  ['right-hip', 'left-hip'],
+  ['right-asis', 'left-asis'],
+] as const satisfies readonly (readonly [LandmarkId, LandmarkId])[];
+
+/**
+ * In a front photo (camera facing the athlete) the athlete's right is on the image's left. The first pair
+ * placed the other way round (or one on top of the other), or null: such a pair was labelled mirrored,
+ * which would flip every sign. Exported so that a screen can say so before anything is sent.
+ */
+export function swappedFrontPair(marks: Landmarks): readonly [LandmarkId, LandmarkId] | null {
+  for (const pair of FRONT_PAIRS) {
+    const r = marks[pair[0]];
+    const l = marks[pair[1]];
+    if (r && l && !(r.x < l.x)) return pair;
+  }
+  return null;
 }
 
 function validateTask(id: TaskId, raw: unknown): NormalizedTask {

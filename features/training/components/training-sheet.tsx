@@ -201,9 +201,11 @@ function ExerciseCard({ exercise, resultOf }: { exercise: SheetExercise; resultO
             {g.entries.map((x) => (
               <View key={x.athleteId} accessibilityRole={'listitem' as never} testID={`sheet-entry-${exercise.id}-${x.athleteId}`}>
                 <AthleteName name={x.name} href={resultHref(resultOf.get(x.athleteId))} />
+                {/* The physiotherapist's words under the name, under every exercise: "see the top of the sheet"
+                    left a child listed for landings the physio had stopped, with nothing beside the name. */}
                 {x.physioChanges && !g.held ? (
-                  <Text variant="small" style={styles.adjustment}>
-                    Physio&apos;s changes: see the top of the sheet
+                  <Text variant="small" style={styles.physio} testID="sheet-entry-physio">
+                    {`⚠ Physio's changes, check before this exercise: ${x.physioChanges}`}
                   </Text>
                 ) : null}
               </View>
@@ -254,6 +256,7 @@ function NotOnSheet({ athletes }: { athletes: SheetAthlete[] }) {
 }
 
 const styles = StyleSheet.create({
+  physio: { color: colors.ink, fontFamily: fonts.bold },
   wrap: { gap: space.lg },
   body: { gap: space.lg },
   actions: { flexDirection: 'row' },

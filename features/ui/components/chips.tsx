@@ -61,7 +61,9 @@ export function Chips<T extends string>({
 }
 
 const styles = StyleSheet.create({
-  group: { gap: space.xs },
+  // Never wider than where it sits: side by side with other rows (the squad trends' filters on a wide
+  // screen) its chips ran past the page's edge instead of wrapping.
+  group: { gap: space.xs, maxWidth: '100%' },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
   formRow: { gap: space.sm },
   chip: {

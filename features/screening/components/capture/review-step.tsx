@@ -32,14 +32,20 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
   const rows = BATTERY.map((task, i) => {
     const t = draft.tasks[task.id];
     const lines: string[] = [];
-    let state: 'todo' | 'done' | 'skipped' = 'todo';
+    let state: 'todo' | 'done' | 'partial' | 'skipped' = 'todo';
     if (t?.skipped) {
       state = 'skipped';
       lines.push(`Skipped${t.skipReason ? `: ${t.skipReason}` : ''}`);
     } else if (t) {
       state = 'done';
       lines.push(t.criteria.length === 0 ? 'Nothing ticked' : `${t.criteria.length} ticked`);
-      if (task.distance) lines.push(t.distanceCm != null ? `${t.distanceCm} cm` : 'no distance');
+      if (task.distance) {
+        lines.push(t.distanceCm != null ? `${t.distanceCm} cm` : 'no distance');
+        if (t.distanceCm == null) {
+          state = 'partial';
+          missing.push(`${task.title}: distance`);
+        }
+      }
       for (const v of task.views) {
         if (!detail.athlete.photoConsent) continue;
         const photo = photoFor(task.id, v.view);
@@ -48,6 +54,7 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
         if (photo) lines.push(placed === 0 ? `${v.view} photo, landmarks later` : `${v.view} photo, ${placed}/${v.landmarks.length} points`);
         else if (v.required) {
           lines.push(`no ${v.view} photo`);
+          state = 'partial';
           missing.push(`${task.title}: ${v.view} photo`);
         }
       }
@@ -69,6 +76,17 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
     <View style={styles.wrap}>
       {/* First, where the eye lands: pain decides what the plan may start with. */}
       {painNotice}
+      {/* Above the rows, where it is seen: under ten rows it sat behind the bottom bar. */}
+      {missing.length > 0 ? (
+        <Notice tone="caution" title="Not everything is captured" testID="review-missing">
+          <View style={styles.list}>
+            <Text>You can still submit: what is missing is left out of the result.</Text>
+            {missing.map((m) => (
+              <Text key={m}>• {m}</Text>
+            ))}
+          </View>
+        </Notice>
+      ) : null}
       <Pressable accessibilityRole="button" onPress={() => goTo('body')} style={styles.row}>
         <Text style={styles.mark}>{bodySummary(draft) === 'Not measured' ? '○' : '✓'}</Text>
         <View style={styles.rowText}>
@@ -83,7 +101,8 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
       </Pressable>
       {rows.map(({ task, i, state, lines }) => (
         <Pressable key={task.id} accessibilityRole="button" onPress={() => goTo(task.id)} style={styles.row} testID={`review-${task.id}`}>
-          <Text style={styles.mark}>{state === 'done' ? '✓' : state === 'skipped' ? '–' : '○'}</Text>
+          {/* A task with a gap is not ticked off: "!" in amber, as the notice above lists it. */}
+          <Text style={[styles.mark, state === 'partial' && styles.partial]}>{MARKS[state]}</Text>
           <View style={styles.rowText}>
             <Text variant="label">
               {i + 1}. {task.title}
@@ -97,16 +116,6 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
           </View>
         </Pressable>
       ))}
-      {missing.length > 0 ? (
-        <Notice tone="caution" title="Not everything is captured">
-          <View style={styles.list}>
-            <Text>You can still submit: what is missing is left out of the result.</Text>
-            {missing.map((m) => (
-              <Text key={m}>• {m}</Text>
-            ))}
-          </View>
-        </Notice>
-      ) : null}
       {toMeasure > 0 ? (
         <Notice title="Landmarks can wait" testID="review-to-measure">
           {`${toMeasure === 1 ? 'One photo has' : `${toMeasure} photos have`} no landmarks yet. Submit now: the result uses what you ticked and typed. The photos wait in the "To measure" list; once their points are placed there, the result is worked out again as a new version.`}
@@ -121,7 +130,10 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
   );
 }
 
+const MARKS = { done: '✓', partial: '!', skipped: '–', todo: '○' } as const;
+
 const styles = StyleSheet.create({
+  partial: { color: colors.amber, fontFamily: fonts.bold },
   wrap: { gap: space.sm },
   warn: { color: colors.amber, fontFamily: fonts.bold },
   pain: { color: colors.brick, fontFamily: fonts.bold },
