@@ -6,6 +6,7 @@ import {
   clearanceWords,
   csvRows,
   defaultRoundPair,
+  fullRounds,
   screenedCaption,
   filterAthletes,
   kneeMeasurementIds,
@@ -245,6 +246,21 @@ describe('knee angles sent once (our choice of layout)', () => {
     expect(athleteKneeSeries(k, 'z', 'single-leg-squat-right/fppa/right', 2)).toEqual([null, 22.6]);
     expect(athleteKneeSeries(k, 'y', 'drop-landing/fppa/left', 2)).toEqual([null, null]);
     expect(athleteKneeSeries(k, 'nobody', 'single-leg-squat-right/fppa/right', 2)).toEqual([null, null]);
+  });
+});
+
+describe('the flag-share chart draws the rounds most of the squad took part in (our choice)', () => {
+  const round = (id: string, screened: number) => ({ id, name: id, screenedOn: '2026-09-14', screened, flagged: {} });
+  it('leaves out rounds with fewer than half as many screened as the fullest, and counts them', () => {
+    // Fullest 12: 6 is half (kept), 5 and 1 are not; a round with nobody screened is neither drawn nor counted.
+    const out = fullRounds([round('a', 12), round('b', 1), round('c', 6), round('d', 0), round('e', 5), round('f', 11)]);
+    expect(out.rounds.map((r) => r.id)).toEqual(['a', 'c', 'f']);
+    expect(out.leftOut).toBe(2);
+  });
+  it('draws every round with anyone screened when fewer than two are that full', () => {
+    const out = fullRounds([round('a', 12), round('b', 2), round('c', 0)]);
+    expect(out.rounds.map((r) => r.id)).toEqual(['a', 'b']);
+    expect(out.leftOut).toBe(0);
   });
 });
 

@@ -323,9 +323,19 @@ export function screenedCaption(rounds: readonly TrendRound[], dateText: (day: s
  * where there is no such round.
  */
 export function defaultRoundPair(rounds: readonly TrendRound[]): { from: string; to: string } {
+  const pick = fullRounds(rounds).rounds;
+  return { from: pick.at(-2)?.id ?? '', to: pick.at(-1)?.id ?? '' };
+}
+
+/**
+ * The rounds in which at least half as many were screened as in the squad's fullest round, in order, and
+ * how many rounds with anyone screened that leaves out; every round with anyone screened where fewer than
+ * two are that full (our choice). A share of one or two screened swings between 0 and 100 % and hid the
+ * season's line on the flag-share chart; the numbers table keeps every round.
+ */
+export function fullRounds<R extends TrendRound>(rounds: readonly R[]): { rounds: R[]; leftOut: number } {
   const screened = rounds.filter((r) => r.screened > 0);
   const most = Math.max(0, ...screened.map((r) => r.screened));
   const full = screened.filter((r) => r.screened * 2 >= most);
-  const pick = full.length >= 2 ? full : screened;
-  return { from: pick.at(-2)?.id ?? '', to: pick.at(-1)?.id ?? '' };
+  return full.length >= 2 ? { rounds: full, leftOut: screened.length - full.length } : { rounds: screened, leftOut: 0 };
 }

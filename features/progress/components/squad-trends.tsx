@@ -1,5 +1,7 @@
+import { useRouter } from 'expo-router';
 import { useEffect, useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { defaultSquadId, rememberedSquad, rememberSquad } from '@/features/athletes/squad-choice';
 import { useSquadsQuery } from '@/features/athletes/api/get-squads';
 import type { MaturityBand, PatternId, Sex } from '@/features/screening/engine';
 import { useBreakpoints } from '@/features/ui/breakpoints';
@@ -44,9 +46,16 @@ export default function SquadTrends({ initialSquadId }: { initialSquadId?: strin
   const squads = useSquadsQuery();
   const [squadId, setSquadId] = useState<string | null>(initialSquadId ?? null);
   const [compareId, setCompareId] = useState<string>('');
+  const router = useRouter();
   useEffect(() => {
-    if (!squadId && squads.data?.squads[0]) setSquadId(squads.data.squads[0].id);
+    if (!squadId && squads.data) setSquadId(defaultSquadId(squads.data.squads, rememberedSquad()));
   }, [squadId, squads.data]);
+  const chooseSquad = (v: string) => {
+    setSquadId(v);
+    rememberSquad(v);
+    // In the address too: a reload or a shared link opens the same squad.
+    router.setParams({ squad: v });
+  };
   const trends = useSquadTrendsQuery(squadId);
   const other = useSquadTrendsQuery(compareId || null);
 
@@ -61,7 +70,7 @@ export default function SquadTrends({ initialSquadId }: { initialSquadId?: strin
         Squad trends{trends.data ? `: ${trends.data.squad.name}` : ''}
       </Text>
       <View {...PRINT_HIDE}>
-        <Chips label="Squad" options={squadOptions} value={squadId ?? ''} onChange={(v) => setSquadId(v)} testID="squad-choice" />
+        <Chips label="Squad" options={squadOptions} value={squadId ?? ''} onChange={chooseSquad} testID="squad-choice" />
       </View>
       {trends.error ? <Notice tone="error">{trends.error.message}</Notice> : null}
       {trends.isPending ? <Text>Loading the season…</Text> : null}

@@ -7,7 +7,17 @@ import { colors, radius, space } from '@/features/ui/theme';
 import { axisDateLabels, DATE_AXIS_RIGHT, labelledPoints } from '../axis-labels';
 import { ERROR_MARGINS, verdictFor } from '../compare';
 import { PATTERN_COLOURS, PATTERN_SHORT } from '../labels';
-import { athleteKneeSeries, roundKneeAngles, screenedCaption, shareOf, shareSeries, type TrendAthlete, type TrendKneeAngles, type TrendRound } from '../trends';
+import {
+  athleteKneeSeries,
+  fullRounds,
+  roundKneeAngles,
+  screenedCaption,
+  shareOf,
+  shareSeries,
+  type TrendAthlete,
+  type TrendKneeAngles,
+  type TrendRound,
+} from '../trends';
 import { formatDate } from '@/features/ui/format-date';
 import { AXIS_STYLE } from './history-chart';
 import { NumbersTable } from './numbers-table';
@@ -70,9 +80,11 @@ export function patternsIn(rounds: readonly TrendRound[]): PatternId[] {
 }
 
 /** Share of the screened squad with each flag, per round. */
-export function FlagShareChart({ rounds, title, testID }: { rounds: TrendRound[]; title: string; testID?: string }) {
-  const patterns = patternsIn(rounds);
-  const withData = rounds.filter((r) => r.screened > 0);
+export function FlagShareChart({ rounds: all, title, testID }: { rounds: TrendRound[]; title: string; testID?: string }) {
+  // Drawn for the rounds most of the squad took part in; the numbers table has them all.
+  const { rounds, leftOut } = fullRounds(all);
+  const patterns = patternsIn(all);
+  const withData = rounds;
   return (
     <ChartFrame
       title={title}
@@ -81,7 +93,7 @@ export function FlagShareChart({ rounds, title, testID }: { rounds: TrendRound[]
         <NumbersTable
           caption={`${title}: share of screened athletes with each flag`}
           columns={['Round', 'Screened', ...patterns.map((p) => PATTERN_SHORT[p])]}
-          rows={rounds.map((r) => [r.name, r.screened, ...patterns.map((p) => pct(shareOf(r, p)))])}
+          rows={all.map((r) => [r.name, r.screened, ...patterns.map((p) => pct(shareOf(r, p)))])}
         />
       }
     >
@@ -111,6 +123,11 @@ export function FlagShareChart({ rounds, title, testID }: { rounds: TrendRound[]
             <Text variant="small" testID="flag-share-screened">
               {screenedCaption(rounds, (day) => formatDate(day))}
             </Text>
+            {leftOut > 0 ? (
+              <Text variant="small" testID="flag-share-left-out">
+                {`Not drawn: ${leftOut === 1 ? '1 round' : `${leftOut} rounds`} with fewer than half as many screened as the fullest round (in the numbers table).`}
+              </Text>
+            ) : null}
           </View>
         )
       }

@@ -3,6 +3,8 @@ import { useDeferredValue } from 'react';
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { isOpenRound, isUntouchedRound, useClubRoundsQuery } from '@/features/screening/api/get-rounds';
+import { can } from '@/features/access/permissions';
+import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
 import { Text } from '@/features/ui/components/text';
@@ -25,6 +27,9 @@ export function OpenRounds() {
   const isPending = useDeferredValue(live.isPending);
   const error = live.error;
   const { isTabletUp } = useBreakpoints();
+  // The head coach's; a tester's home stays on the rounds.
+  const role = useActiveClub().membership.role;
+  const showTrends = role === 'head_coach' && can(role, 'trends.read');
   if (error) return <RoundsUnavailable error={error} />;
   // Squads and rounds together: a squad card drawn before its rounds arrive would say "No open round"
   // and then grow, pushing everything below it.
@@ -69,6 +74,12 @@ export function OpenRounds() {
                   <Text style={styles.secondaryText}>Training sheet →</Text>
                 </Link>
               </View>
+            ) : null}
+            {showTrends ? (
+              // The head coach's way to the squad's season (flags, re-screens due), from the squad itself.
+              <Link href={`/trends?squad=${squad.id}`} style={styles.secondary} testID={`squad-trends-${squad.id}`}>
+                <Text style={styles.secondaryText}>Squad trends →</Text>
+              </Link>
             ) : null}
           </Card>
         );
