@@ -1,3 +1,4 @@
+import { useIsMutating } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { loadedDevice, useOnline, useOutboxState } from './device-handle';
 import { syncStatusOf, type SyncStatus } from './sync-status';
@@ -8,7 +9,8 @@ export { useOnline, useOutboxState };
 export function useSyncStatus(): SyncStatus {
   const online = useOnline();
   const state = useOutboxState();
-  return syncStatusOf(online, state);
+  const sending = useIsMutating() > 0;
+  return syncStatusOf(online, state, sending);
 }
 
 /** Bytes of photos kept on the device, re-read whenever the queue changes. */

@@ -32,6 +32,14 @@ describe('sync status', () => {
     expect(syncStatusText(syncStatusOf(online, state))).toBe(text);
   });
 
+  // Our wording: a change sent straight to the server (a photo, a note) is not "saved" until it has arrived.
+  it('says "Saving…" while a change is on its way and nothing waits, and what waits or is refused first', () => {
+    expect(syncStatusText(syncStatusOf(true, st([]), true))).toBe('Saving…');
+    expect(syncStatusDetail(syncStatusOf(true, st([]), true))).toBe('Sending a change to the server.');
+    expect(syncStatusText(syncStatusOf(true, st([entry(1)]), true))).toBe('Online · 1 waiting');
+    expect(syncStatusText(syncStatusOf(false, st([]), true))).toBe('Offline');
+  });
+
   it("counts the athletes' screens the changes belong to, offline (our wording)", () => {
     const three = st([entry(1), entry(2, 'waiting', 'b'), entry(3, 'waiting', 'b'), entry(4, 'waiting', 'c')]);
     expect(syncStatusDetail(syncStatusOf(false, three))).toBe(

@@ -4,12 +4,14 @@ import type { OutboxState } from './outbox';
 
 export type SyncStatus =
   | { kind: 'saved' }
+  | { kind: 'sending' }
   | { kind: 'offline'; waiting: number; athletes: number }
   | { kind: 'syncing'; waiting: number }
   | { kind: 'online'; waiting: number; retrying: boolean }
   | { kind: 'attention'; refused: number; waiting: number };
 
-export function syncStatusOf(online: boolean, outbox: OutboxState): SyncStatus {
+/** `sending`: a request that changes something is on its way (straight to the server, not through the outbox). */
+export function syncStatusOf(online: boolean, outbox: OutboxState, sending = false): SyncStatus {
   const refused = outbox.entries.filter((e) => e.state === 'refused').length;
   const waiting = outbox.entries.length - refused;
   if (!online) {
@@ -20,6 +22,8 @@ export function syncStatusOf(online: boolean, outbox: OutboxState): SyncStatus {
   if (refused > 0) return { kind: 'attention', refused, waiting };
   if (outbox.sending !== null) return { kind: 'syncing', waiting };
   if (waiting > 0) return { kind: 'online', waiting, retrying: outbox.lastError !== null };
+  // Not "All saved" while a photo or a save is still on its way: the screen said "Saving…" beside it.
+  if (sending) return { kind: 'sending' };
   return { kind: 'saved' };
 }
 
@@ -31,6 +35,8 @@ export function syncStatusText(s: SyncStatus): string {
   switch (s.kind) {
     case 'saved':
       return 'All saved';
+    case 'sending':
+      return 'Saving…';
     case 'offline':
       return s.waiting === 0 ? 'Offline' : `Offline · ${s.waiting} waiting`;
     case 'syncing':
@@ -47,6 +53,8 @@ export function syncStatusDetail(s: SyncStatus): string {
   switch (s.kind) {
     case 'saved':
       return 'The server has everything done on this phone.';
+    case 'sending':
+      return 'Sending a change to the server.';
     case 'offline':
       return s.waiting === 0
         ? 'No connection. You can keep screening: changes are kept on this phone and sent when the connection is back.'

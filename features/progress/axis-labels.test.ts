@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { axisDateLabels, labelledPoints } from './axis-labels';
+import { axisDateLabels, labelledPoints, changeTicks } from './axis-labels';
 
 // Our choice (no source): labels at least 52 px apart, the first and the last always labelled.
 const gaps = (points: number[], count: number, width: number) => points.slice(1).map((p, i) => ((p - points[i]!) / (count - 1)) * width);
@@ -58,5 +58,15 @@ describe('date labels tell two rounds of one month apart (our choice)', () => {
   it('labels rounds of one day once (our choice)', () => {
     const dates = ['2026-09-14', '2026-11-30', '2026-11-30', '2026-11-30', '2026-12-05'];
     expect([...axisDateLabels(dates, [0, 1, 2, 3, 4]).values()]).toEqual(['Sep ’26', 'Nov ’26', '', '', 'Dec ’26']);
+  });
+});
+
+// Our choice: the change chart's axis always shows 0, with a round step.
+describe('changeTicks', () => {
+  it('runs from -max to +max through 0 in steps of 5, 10 or 20 degrees', () => {
+    expect(changeTicks(10.9)).toEqual([-10, -5, 0, 5, 10]);
+    expect(changeTicks(14)).toEqual([-10, 0, 10]);
+    expect(changeTicks(41)).toEqual([-40, -20, 0, 20, 40]);
+    expect(changeTicks(4)).toEqual([0]);
   });
 });

@@ -55,3 +55,10 @@ export function axisDateLabels(dates: readonly string[], points: readonly number
   });
   return labels;
 }
+
+/** Ticks for a change axis from -max to +max: 0 always, and a round step (5°, 10° or 20°). */
+export function changeTicks(maxAbs: number): number[] {
+  const step = maxAbs <= 12 ? 5 : maxAbs <= 30 ? 10 : 20;
+  const n = Math.floor(maxAbs / step);
+  return Array.from({ length: 2 * n + 1 }, (_, i) => (i - n) * step);
+}

@@ -13,6 +13,7 @@ const KIND_WORD: Record<OutboxKind, string> = { draft: 'Draft save', photo: 'Pho
 
 const TONE: Record<SyncStatus['kind'], 'ok' | 'busy' | 'off' | 'bad'> = {
   saved: 'ok',
+  sending: 'busy',
   syncing: 'busy',
   online: 'busy',
   offline: 'off',

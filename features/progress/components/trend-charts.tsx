@@ -4,7 +4,7 @@ import { VictoryArea, VictoryAxis, VictoryBar, VictoryChart, VictoryLine, Victor
 import type { PatternId } from '@/features/screening/engine';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
-import { axisDateLabels, DATE_AXIS_RIGHT, labelledPoints } from '../axis-labels';
+import { axisDateLabels, changeTicks, DATE_AXIS_RIGHT, labelledPoints } from '../axis-labels';
 import { ERROR_MARGINS, verdictFor } from '../compare';
 import { PATTERN_COLOURS, PATTERN_SHORT } from '../labels';
 import {
@@ -228,7 +228,7 @@ export function ChangeChart({
   return (
     <ChartFrame
       title={`Change per athlete, ${from.name} → ${to.name}: ${name}`}
-      note={`Shaded: ±${margin.value}° smallest detectable difference (Munro, Herrington and Carolan 2012). A bar inside it is not a change we can tell from measuring error.`}
+      note={`Bars to the right of 0°: the knee angle grew (the knee travelled further inward); to the left: it fell. Shaded: ±${margin.value}° smallest detectable difference (Munro, Herrington and Carolan 2012). A bar inside it is not a change we can tell from measuring error.`}
       testID="change-chart"
       table={
         <NumbersTable
@@ -258,7 +258,13 @@ export function ChangeChart({
             />
             {/* Names at the left edge, not where the change is zero (the bars would cover them). */}
             <VictoryAxis tickValues={rows.map((_, i) => i + 1)} tickFormat={(i: number) => rows[i - 1]?.name ?? ''} offsetX={80} style={AXIS_STYLE} />
-            <VictoryAxis dependentAxis offsetY={30} tickFormat={(v: number) => `${v}°`} style={AXIS_STYLE} />
+            <VictoryAxis
+              dependentAxis
+              offsetY={30}
+              tickValues={changeTicks(maxAbs)}
+              tickFormat={(v: number) => `${v > 0 ? '+' : ''}${v}°`}
+              style={AXIS_STYLE}
+            />
             <VictoryBar
               data={rows.map((r, i) => ({ x: i + 1, y: r.change, verdict: r.verdict }))}
               barWidth={12}

@@ -33,7 +33,7 @@ function distanceError(n: number | null): string | null {
   }
 }
 
-/** One task of the battery: safety first, what to watch, tick what was seen, photos, distance, pain, notes. */
+/** One task of the battery: safety and pain first, what to watch, then the distance, photos (beside on a wide screen) and ticks, notes. */
 export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, onPlaceLandmarks }: Props) {
   const { isWide } = useBreakpoints();
   const [showHow, setShowHow] = useState(false);
@@ -115,6 +115,9 @@ export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, on
               onCommit={(n) => onChange((d) => ({ ...d, distanceCm: n }))}
             />
           ) : null}
+          {/* On a phone the camera comes before the ticks: the photo is taken at the lowest point of the
+              movement, the ticks after it (below them it was two screens down on every task). */}
+          {!isWide && photoPanel}
           {skipped ? null : (
             <View style={styles.section} accessibilityRole="list">
               <Text variant="label">Tick what you saw</Text>
@@ -124,7 +127,6 @@ export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, on
               ))}
             </View>
           )}
-          {!isWide && photoPanel}
           <TextField
             label="Notes"
             testID="task-notes"

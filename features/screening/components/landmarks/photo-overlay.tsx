@@ -32,7 +32,15 @@ const ACTIVE = '#FF7A1A';
 const SUGGESTED = '#FF7A1A';
 
 /** The athlete's right side is on the image's left: its names go on the outer (left) side of the points. */
-const labelOnLeft = (id: LandmarkId) => id.startsWith('right-');
+/**
+ * Where a point's name is written, in screen pixels from the point (times `u`) and its anchor: the
+ * athlete's right-side points (the photo's left) to the left, the mid-hips below (beside it, it ran into
+ * the left front hip bone's name at the pelvis), the rest to the right.
+ */
+function labelAt(id: LandmarkId, gap: number): { dx: number; dy: number; anchor: 'start' | 'end' | 'middle' } {
+  if (id === 'mid-hip') return { dx: 0, dy: gap + 10, anchor: 'middle' };
+  return id.startsWith('right-') ? { dx: -gap, dy: 4.5, anchor: 'end' } : { dx: gap, dy: 4.5, anchor: 'start' };
+}
 
 /** A photo with its landmarks, the lines between them and the angles, drawn in the photo's own pixels. */
 export function PhotoOverlay({ href, photoWidth, photoHeight, displayWidth, displayHeight, viewBox, marks, suggested, overlay, activeId, testID }: Props) {
@@ -71,15 +79,15 @@ export function PhotoOverlay({ href, photoWidth, photoHeight, displayWidth, disp
             {[true, false].map((outline) => (
               <SvgText
                 key={outline ? 'outline' : 'fill'}
-                x={labelOnLeft(id) ? p.x - 13 * u : p.x + 13 * u}
-                y={p.y + 4.5 * u}
+                x={p.x + labelAt(id, 13).dx * u}
+                y={p.y + labelAt(id, 13).dy * u}
                 fontSize={12 * u}
                 fontFamily={fonts.bold}
                 fontWeight="700"
                 fill={outline ? OUTLINE : '#fff'}
                 stroke={outline ? OUTLINE : undefined}
                 strokeWidth={outline ? 3.5 * u : undefined}
-                textAnchor={labelOnLeft(id) ? 'end' : 'start'}
+                textAnchor={labelAt(id, 0).anchor}
               >
                 {LANDMARK_SHORT[id]}
               </SvgText>
@@ -96,15 +104,15 @@ export function PhotoOverlay({ href, photoWidth, photoHeight, displayWidth, disp
             {[true, false].map((outline) => (
               <SvgText
                 key={outline ? 'outline' : 'fill'}
-                x={labelOnLeft(id) ? p.x - 15 * u : p.x + 15 * u}
-                y={p.y + 4.5 * u}
+                x={p.x + labelAt(id, 15).dx * u}
+                y={p.y + labelAt(id, 15).dy * u}
                 fontSize={12 * u}
                 fontFamily={fonts.bold}
                 fontWeight="700"
                 fill={outline ? OUTLINE : SUGGESTED}
                 stroke={outline ? OUTLINE : undefined}
                 strokeWidth={outline ? 3.5 * u : undefined}
-                textAnchor={labelOnLeft(id) ? 'end' : 'start'}
+                textAnchor={labelAt(id, 0).anchor}
               >
                 {`${LANDMARK_SHORT[id]}?`}
               </SvgText>
