@@ -1,3 +1,4 @@
+import { Link } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { can } from '@/features/access/permissions';
@@ -41,6 +42,14 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
           {c.reviewedAt ? `Reviewed by ${c.reviewedByName ?? 'a former member'} on ${formatDate(c.reviewedAt)}.` : 'Not reviewed yet.'}{' '}
           {c.releasedAt ? `Shared with the family on ${formatDate(c.releasedAt)}.` : 'Not shared with the family yet.'}
         </Text>
+        {c.releasedAt || release.isSuccess ? (
+          // What the family received, as they read it (the newest shared screen's summary).
+          <Link href={`/family/${athleteId}`} style={styles.link} testID="open-family-view">
+            <Text variant="label" style={styles.linkText}>
+              See the summary as the family reads it →
+            </Text>
+          </Link>
+        ) : null}
         {!c.reviewedAt && can(membership.role, 'review.mark') ? <MarkReviewed assessmentId={assessmentId} /> : null}
         {(release.isSuccess || (c.reviewedAt && !c.releasedAt)) && can(membership.role, 'summary.release') ? (
           <Release assessmentId={assessmentId} previewing={previewing} setPreviewing={setPreviewing} release={release} />
@@ -125,6 +134,8 @@ function Released({ sent, preview }: { sent: number; preview: ReleasePreview | u
 }
 
 const styles = StyleSheet.create({
+  link: { minHeight: 48, justifyContent: 'center', display: 'flex' },
+  linkText: { color: colors.pine },
   wrap: { gap: space.lg },
   actions: { gap: space.sm },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
