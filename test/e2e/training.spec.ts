@@ -8,7 +8,7 @@ import { openNav, signIn } from './helpers';
 
 type Sheet = {
   squad: { id: string; name: string };
-  athletes: { id: string; name: string; state: string; hold: string | null; rescreenDue: boolean }[];
+  athletes: { id: string; name: string; state: string; hold: string | null; physioChanges: string | null; rescreenDue: boolean }[];
   exercises: { id: string; name: string; entries: { athleteId: string; name: string; held: boolean }[] }[];
 };
 
@@ -55,6 +55,13 @@ test('training sheet: a squad by exercise, holds first, names open results, prin
   }
   const withPlan = sheet.athletes.filter((a) => a.state === 'plan').length;
   await expect(page.getByTestId('sheet-count')).toContainText(`${withPlan} of ${sheet.athletes.length}`);
+  // The physiotherapist's changes are given in their words under the name at each of the athlete's exercises.
+  const changed = sheet.athletes.find((a) => a.physioChanges);
+  if (changed) {
+    const lines = page.locator(`[data-testid$="-${changed.id}"]`).getByTestId('sheet-entry-physio');
+    await expect(lines.first()).toContainText(changed.physioChanges!);
+    expect(await lines.count()).toBe(sheet.exercises.filter((e) => e.entries.some((x) => x.athleteId === changed.id && !x.held)).length);
+  }
   const holds = sheet.athletes.filter((a) => a.hold);
   if (holds.length) await expect(page.getByTestId('sheet-holds')).toContainText(holds[0]!.name);
   else await expect(page.getByTestId('sheet-holds')).toHaveCount(0);

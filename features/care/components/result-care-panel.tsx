@@ -42,6 +42,10 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
           {c.reviewedAt ? `Reviewed by ${c.reviewedByName ?? 'a former member'} on ${formatDate(c.reviewedAt)}.` : 'Not reviewed yet.'}{' '}
           {c.releasedAt ? `Shared with the family on ${formatDate(c.releasedAt)}.` : 'Not shared with the family yet.'}
         </Text>
+        {!c.reviewedAt && can(membership.role, 'review.mark') ? <MarkReviewed assessmentId={assessmentId} /> : null}
+        {(release.isSuccess || (c.reviewedAt && !c.releasedAt)) && can(membership.role, 'summary.release') ? (
+          <Release assessmentId={assessmentId} previewing={previewing} setPreviewing={setPreviewing} release={release} />
+        ) : null}
         {c.releasedAt || release.isSuccess ? (
           // What the family received, as they read it (the newest shared screen's summary).
           <Link href={`/family/${athleteId}`} style={styles.link} testID="open-family-view">
@@ -49,10 +53,6 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
               See the summary as the family reads it →
             </Text>
           </Link>
-        ) : null}
-        {!c.reviewedAt && can(membership.role, 'review.mark') ? <MarkReviewed assessmentId={assessmentId} /> : null}
-        {(release.isSuccess || (c.reviewedAt && !c.releasedAt)) && can(membership.role, 'summary.release') ? (
-          <Release assessmentId={assessmentId} previewing={previewing} setPreviewing={setPreviewing} release={release} />
         ) : null}
       </Card>
       <LazyCarePanels athleteId={athleteId} assessmentId={assessmentId} />
@@ -134,7 +134,7 @@ function Released({ sent, preview }: { sent: number; preview: ReleasePreview | u
 }
 
 const styles = StyleSheet.create({
-  link: { minHeight: 48, justifyContent: 'center', display: 'flex' },
+  link: { minHeight: 48, justifyContent: 'center', display: 'flex', alignSelf: 'flex-start' },
   linkText: { color: colors.pine },
   wrap: { gap: space.lg },
   actions: { gap: space.sm },

@@ -201,13 +201,18 @@ function ExerciseCard({ exercise, resultOf }: { exercise: SheetExercise; resultO
           )}
           <View accessibilityRole="list" style={styles.names}>
             {g.entries.map((x) => (
-              <View key={x.athleteId} accessibilityRole={'listitem' as never} testID={`sheet-entry-${exercise.id}-${x.athleteId}`}>
+              <View
+                key={x.athleteId}
+                accessibilityRole={'listitem' as never}
+                testID={`sheet-entry-${exercise.id}-${x.athleteId}`}
+                style={x.physioChanges && !g.held ? styles.entryWide : undefined}
+              >
                 <AthleteName name={x.name} href={resultHref(resultOf.get(x.athleteId))} />
                 {/* The physiotherapist's words under the name, under every exercise: "see the top of the sheet"
                     left a child listed for landings the physio had stopped, with nothing beside the name. */}
                 {x.physioChanges && !g.held ? (
                   <Text variant="small" style={styles.physio} testID="sheet-entry-physio">
-                    {`⚠ Physio's changes, check before this exercise: ${x.physioChanges}`}
+                    {`⚠ Physio's changes, check before this exercise: ${resultOf.get(x.athleteId)?.physioChanges ?? 'ask the physiotherapist what changes.'}`}
                   </Text>
                 ) : null}
               </View>
@@ -273,6 +278,8 @@ const styles = StyleSheet.create({
   entry: { borderTopWidth: 1, borderTopColor: colors.line, paddingBottom: space.sm, gap: 2 },
   group: { borderTopWidth: 1, borderTopColor: colors.line, marginTop: space.sm, paddingTop: space.sm, gap: 2 },
   names: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg },
+  // A name with the physiotherapist's words takes a line of its own, the words wrapping under it.
+  entryWide: { flexBasis: '100%' },
   // 24 px of line and 12 above and below: a 48 px target for a thumb.
   name: { fontFamily: fonts.bold, fontSize: 17, lineHeight: 24, paddingVertical: (TOUCH_MIN - 24) / 2, color: colors.pine, textDecorationLine: 'underline' },
   strong: { fontFamily: fonts.bold },
