@@ -5,12 +5,10 @@ import { messageOf } from '@/features/api/client';
 import { useMeasureQueueQuery } from '@/features/measuring/api/get-queue';
 import { useSaveLandmarksMutation } from '@/features/measuring/api/save-landmarks';
 import type { MeasureItem } from '@/features/measuring/contract';
+import { refusalWords } from '@/features/measuring/refusal-words';
 import { LazyLandmarkEditor } from '@/features/screening/components/landmarks/lazy-landmark-editor';
 import type { LandmarkSet } from '@/features/screening/contract';
 import { getTask } from '@/features/screening/engine/battery';
-import { getLandmark } from '@/features/screening/engine/landmarks';
-import type { LandmarkId } from '@/features/screening/engine/types';
-import { swappedFrontPair } from '@/features/screening/engine/validate';
 import { can } from '@/features/access/permissions';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
@@ -91,12 +89,6 @@ function Desk({ roundId }: { roundId?: string }) {
     const id = current.photo.id;
     setError(null);
     setSaved(null);
-    // Said here, in words, before anything is sent: the server's refusal named landmark ids.
-    const swapped = current.view === 'front' ? swappedFrontPair(marks) : null;
-    if (swapped) {
-      setError(swappedWords(swapped));
-      return;
-    }
     try {
       if (Object.keys(marks).length > 0) {
         const res = await save.mutateAsync({ photoId: id, landmarks: marks });
@@ -109,7 +101,7 @@ function Desk({ roundId }: { roundId?: string }) {
       passed.current.add(id);
       setCurrentId(followingOf(id));
     } catch (e) {
-      setError(messageOf(e));
+      setError(refusalWords(messageOf(e)));
     }
   };
 
@@ -240,11 +232,6 @@ function Desk({ roundId }: { roundId?: string }) {
       </View>
     </View>
   );
-}
-
-/** A front pair placed the wrong way round, in the landmarks' own names. */
-function swappedWords([right, left]: readonly [LandmarkId, LandmarkId]): string {
-  return `${getLandmark(right).label} and ${getLandmark(left).label} are the wrong way round: facing the camera, the athlete's right is on the photo's left. Drag them to their sides.`;
 }
 
 const styles = StyleSheet.create({

@@ -1,8 +1,7 @@
 import { useRouter } from 'expo-router';
 import { useEffect, useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
-import { defaultSquadId, rememberedSquad, rememberSquad } from '@/features/athletes/squad-choice';
-import { useSquadsQuery } from '@/features/athletes/api/get-squads';
+import { biggestSquadId, useSquadsQuery } from '@/features/athletes/api/get-squads';
 import type { MaturityBand, PatternId, Sex } from '@/features/screening/engine';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
@@ -48,11 +47,10 @@ export default function SquadTrends({ initialSquadId }: { initialSquadId?: strin
   const [compareId, setCompareId] = useState<string>('');
   const router = useRouter();
   useEffect(() => {
-    if (!squadId && squads.data) setSquadId(defaultSquadId(squads.data.squads, rememberedSquad()));
+    if (!squadId && squads.data) setSquadId(biggestSquadId(squads.data.squads));
   }, [squadId, squads.data]);
   const chooseSquad = (v: string) => {
     setSquadId(v);
-    rememberSquad(v);
     // In the address too: a reload or a shared link opens the same squad.
     router.setParams({ squad: v });
   };

@@ -2,8 +2,7 @@ import { Link, useRouter } from 'expo-router';
 import { useEffect, useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { can } from '@/features/access/permissions';
-import { defaultSquadId, rememberedSquad, rememberSquad } from '@/features/athletes/squad-choice';
-import { useSquadsQuery } from '@/features/athletes/api/get-squads';
+import { biggestSquadId, useSquadsQuery } from '@/features/athletes/api/get-squads';
 import { useActiveClub } from '@/features/session/active-club';
 import { PHASE_WORDS } from '@/features/screening/labels';
 import { useBreakpoints } from '@/features/ui/breakpoints';
@@ -32,7 +31,7 @@ export function TrainingSheetScreen({ initialSquadId }: { initialSquadId?: strin
   const squads = useSquadsQuery();
   const [squadId, setSquadId] = useState<string | null>(initialSquadId ?? null);
   useEffect(() => {
-    if (!squadId && squads.data) setSquadId(defaultSquadId(squads.data.squads, rememberedSquad()));
+    if (!squadId && squads.data) setSquadId(biggestSquadId(squads.data.squads));
   }, [squadId, squads.data]);
   const sheet = useTrainingSheetQuery(squadId);
 
@@ -66,7 +65,6 @@ export function TrainingSheetScreen({ initialSquadId }: { initialSquadId?: strin
             value={squadId ?? ''}
             onChange={(v) => {
               setSquadId(v);
-              rememberSquad(v);
               // In the address too, so a sheet kept open on the gym's tablet comes back to the same squad.
               router.setParams({ squad: v });
             }}
