@@ -37,6 +37,23 @@ export function MeasuringDesk({ roundId }: { roundId?: string }) {
 
 const CURRENT_ANCHOR = 'measure-current';
 
+const PASSED_KEY = 'squadline.measure.passed';
+function readPassed(): Set<string> {
+  try {
+    const kept: unknown = JSON.parse(globalThis.sessionStorage?.getItem(PASSED_KEY) ?? '[]');
+    return new Set(Array.isArray(kept) ? kept.filter((x): x is string => typeof x === 'string') : []);
+  } catch {
+    return new Set();
+  }
+}
+function keepPassed(ids: Set<string>): void {
+  try {
+    globalThis.sessionStorage?.setItem(PASSED_KEY, JSON.stringify([...ids].slice(-500)));
+  } catch {
+    // No storage: the skips last for this visit only.
+  }
+}
+
 function Desk({ roundId }: { roundId?: string }) {
   const { isWide } = useBreakpoints();
   const query = useMeasureQueueQuery({ roundId });
@@ -46,13 +63,18 @@ function Desk({ roundId }: { roundId?: string }) {
   const [marks, setMarks] = useState<LandmarkSet>({});
   const [error, setError] = useState<string | null>(null);
   const [saved, setSaved] = useState<string | null>(null);
-  // Photos moved past in this visit (skipped, or saved with points still missing): the list goes on after them.
-  const passed = useRef(new Set<string>());
+  // Photos moved past in this visit (skipped, or saved with points still missing): the list goes on after
+  // them, and a reload of the tab starts after them too (kept for the tab's life; a skipped photo came first
+  // again after a reload).
+  const passed = useRef<Set<string>>(readPassed());
+  const pass = (id: string) => {
+    passed.current.add(id);
+    keepPassed(passed.current);
+  };
 
-  const index = Math.max(
-    0,
-    items.findIndex((i) => i.photo.id === currentId),
-  );
+  const shownAt = items.findIndex((i) => i.photo.id === currentId);
+  const firstNotPassed = items.findIndex((i) => !passed.current.has(i.photo.id));
+  const index = Math.max(0, shownAt !== -1 ? shownAt : currentId === null ? firstNotPassed : 0);
   const current: MeasureItem | undefined = items[index];
 
   // Start on the first photo, and keep the points in step with the photo shown.
@@ -98,7 +120,7 @@ function Desk({ roundId }: { roundId?: string }) {
             : `Saved for ${current.athlete.firstName}.`,
         );
       }
-      passed.current.add(id);
+      pass(id);
       setCurrentId(followingOf(id));
     } catch (e) {
       setError(refusalWords(messageOf(e)));
@@ -107,7 +129,7 @@ function Desk({ roundId }: { roundId?: string }) {
 
   const skip = (by: 1 | -1) => {
     if (!current) return;
-    passed.current.add(current.photo.id);
+    pass(current.photo.id);
     goTo(index + by);
   };
 
