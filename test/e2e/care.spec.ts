@@ -44,7 +44,9 @@ test('a physiotherapist reviews a screen, adds a note, previews the family e-mai
   await page.getByTestId('release-panel').scrollIntoViewIfNeeded();
   await page.screenshot({ path: shots('release-preview', testInfo.project.name) });
   await page.getByTestId('release-confirm').click();
-  await expect(page.getByText(/The summary is in the family view/)).toBeVisible();
+  // Released, saying who can read it: the family view, or nobody yet where no parent is linked.
+  await expect(page.getByTestId('released')).toContainText(/The summary is in the family view|No parent account is linked/);
+  await expect(page.getByTestId('open-family-view')).toBeVisible();
 
   // Back to the list the physiotherapist came from, where the screen has moved on.
   await page.getByTestId('back-to-reviews').click();

@@ -58,7 +58,7 @@ test('training sheet: a squad by exercise, holds first, names open results, prin
   // The physiotherapist's changes are given in their words under the name at each of the athlete's exercises.
   const changed = sheet.athletes.find((a) => a.physioChanges);
   if (changed) {
-    const lines = page.locator(`[data-testid$="-${changed.id}"]`).getByTestId('sheet-entry-physio');
+    const lines = page.locator(`[data-testid$="-${changed.id}"]`).getByTestId('sheet-physio-line');
     await expect(lines.first()).toContainText(changed.physioChanges!);
     expect(await lines.count()).toBe(sheet.exercises.filter((e) => e.entries.some((x) => x.athleteId === changed.id && !x.held)).length);
   }

@@ -118,16 +118,21 @@ function Release({ assessmentId, previewing, setPreviewing, release }: ReleasePr
  */
 function Released({ sent, preview }: { sent: number; preview: ReleasePreview | undefined }) {
   if (sent > 0)
-    return <Notice title="Released">{`The summary is in the family view and ${sent === 1 ? 'one e-mail is' : `${sent} e-mails are`} on their way.`}</Notice>;
+    return (
+      <Notice
+        title="Released"
+        testID="released"
+      >{`The summary is in the family view and ${sent === 1 ? 'one e-mail is' : `${sent} e-mails are`} on their way.`}</Notice>
+    );
   if (preview && preview.skipped.length > 0) {
     return (
-      <Notice title="Released, no e-mail sent">
+      <Notice title="Released, no e-mail sent" testID="released">
         {`The summary is in the family view for ${preview.skipped.map((s) => s.displayName).join(', ')}; no e-mail went out (no e-mail consent recorded).`}
       </Notice>
     );
   }
   return (
-    <Notice tone="caution" title="Released, but no family can read it yet">
+    <Notice tone="caution" title="Released, but no family can read it yet" testID="released">
       No parent account is linked to this athlete, so nobody has been told. The summary shows in the family view once the club links a parent.
     </Notice>
   );

@@ -209,7 +209,7 @@ function ExerciseCard({ exercise, resultOf }: { exercise: SheetExercise; resultO
                 {/* The physiotherapist's words under the name, under every exercise: "see the top of the sheet"
                     left a child listed for landings the physio had stopped, with nothing beside the name. */}
                 {x.physioChanges && !g.held ? (
-                  <Text variant="small" style={styles.physio} testID="sheet-entry-physio">
+                  <Text variant="small" style={styles.physio} testID="sheet-physio-line">
                     {`⚠ Physio's changes, check before this exercise: ${resultOf.get(x.athleteId)?.physioChanges ?? 'ask the physiotherapist what changes.'}`}
                   </Text>
                 ) : null}
