@@ -64,7 +64,7 @@ export function ConsentPanel({ athlete }: { athlete: Athlete }) {
         ))}
       </View>
       {manage && !recording ? <Button label="Record a decision" tone="secondary" testID="consent-record" onPress={() => setRecording(true)} /> : null}
-      {manage && recording ? <RecordDecision athleteId={athlete.id} onDone={() => setRecording(false)} /> : null}
+      {manage && recording ? <RecordDecision athleteId={athlete.id} name={athlete.firstName} onDone={() => setRecording(false)} /> : null}
       <Text variant="label">History</Text>
       {history.error ? <Notice tone="error">{history.error.message}</Notice> : null}
       {history.data?.consents.length === 0 ? <Text variant="small">No decision recorded yet.</Text> : null}
@@ -180,7 +180,24 @@ function OwnDecision({ athlete, kind, granted }: { athlete: Athlete; kind: Conse
 
 type Values = { kind: ConsentKind | ''; granted: 'yes' | 'no' | ''; decidedOn: string };
 
-function RecordDecision({ athleteId, onDone }: { athleteId: string; onDone: () => void }) {
+/** What a decision recorded by the club does, said before it is saved (our wording; the parent's own buttons say it in theirs). */
+function recordedEffect(kind: ConsentKind, granted: boolean, name: string): string {
+  if (kind === 'screening') {
+    return granted
+      ? `${name} may be screened and given corrective exercises at club sessions.`
+      : `From when it is saved, ${name} is not screened and comes off the training sheet's corrective exercises. Screens already done stay on record.`;
+  }
+  if (kind === 'photos') {
+    return granted
+      ? `Photos of ${name} may be taken at screens, seen by the club's screening and care staff (and the family, if the club shares screen photos).`
+      : `No photos of ${name} are taken at screens. Photos already taken are hidden at once and deleted after the club's waiting period.`;
+  }
+  return granted
+    ? `Released summaries are also e-mailed to the parents linked to ${name}.`
+    : `Summaries are no longer e-mailed to ${name}'s parents; they still read them when they sign in.`;
+}
+
+function RecordDecision({ athleteId, name, onDone }: { athleteId: string; name: string; onDone: () => void }) {
   const record = useRecordConsentMutation(athleteId);
   const [failure, setFailure] = useState<string | null>(null);
   const toInput = (v: Values) => ({ kind: v.kind, granted: v.granted === '' ? undefined : v.granted === 'yes', decidedOn: v.decidedOn });
@@ -232,6 +249,11 @@ function RecordDecision({ athleteId, onDone }: { athleteId: string; onDone: () =
             onChange={(v) => setFieldValue('granted', v)}
             error={submitCount > 0 && errors.granted}
           />
+          {values.kind && values.granted ? (
+            <Text variant="small" testID="consent-effect">
+              {recordedEffect(values.kind, values.granted === 'yes', name)}
+            </Text>
+          ) : null}
           <TextField
             label="Decided on"
             testID="consent-date"

@@ -50,31 +50,27 @@ export function GuardiansPanel({ athlete }: { athlete: Athlete }) {
           ) : null}
         </View>
       ))}
-      {manage ? <LinkGuardian athleteId={athlete.id} /> : null}
+      {manage ? <LinkGuardian athleteId={athlete.id} name={athlete.firstName} /> : null}
     </Card>
   );
 }
 
-function LinkGuardian({ athleteId }: { athleteId: string }) {
+function LinkGuardian({ athleteId, name }: { athleteId: string; name: string }) {
   const link = useLinkGuardianMutation(athleteId);
   const [failure, setFailure] = useState<string | null>(null);
+  // The e-mail checked and waiting for the admin's confirmation: one typo would open a child's record to
+  // another family, so what the link gives is said before it is made.
+  const [pending, setPending] = useState<string | null>(null);
   return (
     <Formik<GuardianInput>
       initialValues={{ email: '' }}
       validationSchema={guardianSchema}
-      onSubmit={async (values, helpers) => {
+      onSubmit={(values) => {
         setFailure(null);
-        try {
-          await link.mutateAsync(guardianSchema.cast(values));
-          helpers.resetForm();
-        } catch (error) {
-          const fields = fieldErrorsOf(error);
-          if (fields) helpers.setErrors(fields);
-          else setFailure(messageOf(error));
-        }
+        setPending(guardianSchema.cast(values).email);
       }}
     >
-      {({ values, errors, touched, handleChange, handleBlur, handleSubmit, isSubmitting }) => (
+      {({ values, errors, touched, handleChange, handleBlur, handleSubmit, setErrors, resetForm }) => (
         <View style={styles.form}>
           {failure ? <Notice tone="error">{failure}</Notice> : null}
           <TextField
@@ -84,11 +80,42 @@ function LinkGuardian({ athleteId }: { athleteId: string }) {
             autoCapitalize="none"
             inputMode="email"
             value={values.email}
-            onChangeText={handleChange('email')}
+            onChangeText={(text) => {
+              setPending(null);
+              handleChange('email')(text);
+            }}
             onBlur={handleBlur('email')}
             error={touched.email && errors.email}
           />
-          <Button label="Link parent" tone="secondary" testID="guardian-link" busy={isSubmitting} onPress={() => handleSubmit()} />
+          {pending ? (
+            <Confirm
+              text={`Link ${pending} to ${name}? The account then sees ${name}'s shared summaries, family notes and consent decisions, and can change the family's own decisions. Check the address letter by letter.`}
+              confirmLabel="Yes, link"
+              cancelLabel="Not yet"
+              testID="guardian-link-confirm"
+              busy={link.isPending}
+              onConfirm={() =>
+                link.mutate(
+                  { email: pending },
+                  {
+                    onSuccess: () => {
+                      setPending(null);
+                      resetForm();
+                    },
+                    onError: (error) => {
+                      setPending(null);
+                      const fields = fieldErrorsOf(error);
+                      if (fields) setErrors(fields);
+                      else setFailure(messageOf(error));
+                    },
+                  },
+                )
+              }
+              onCancel={() => setPending(null)}
+            />
+          ) : (
+            <Button label="Link parent" tone="secondary" testID="guardian-link" onPress={() => handleSubmit()} />
+          )}
         </View>
       )}
     </Formik>

@@ -59,6 +59,18 @@ export function PeoplePanel() {
   );
 }
 
+/**
+ * What a role opens, in plain words, said before a role is changed (from the access table in
+ * features/access/permissions.ts; our wording): a parent made a tester sees every child's screens.
+ */
+export const ROLE_REACH: Record<Role, string> = {
+  admin: "every athlete's record, consent and screens with their photos, the club's people, settings and audit trail",
+  head_coach: "every squad's athletes, screens with their photos, results, team notes, trends and training sheets",
+  tester: "every squad's athletes and screens with their photos, results and training sheets",
+  physio: "every squad's athletes, screens with their photos, results, team notes, reviews and clearances",
+  parent: 'only what is shared about the children linked to them',
+};
+
 /** A member, and for an admin (not on their own row) a change of role or removal, each confirmed. */
 function MemberRow({ member: m, manage, clubId, onlyHeadCoach }: { member: Member; manage: boolean; clubId: string; onlyHeadCoach: boolean }) {
   const [mode, setMode] = useState<'idle' | 'role' | 'remove'>('idle');
@@ -90,7 +102,7 @@ function MemberRow({ member: m, manage, clubId, onlyHeadCoach }: { member: Membe
           />
           {role !== m.role ? (
             <Text variant="small" testID="member-role-effect">
-              {`${m.displayName} becomes a ${ROLE_LABELS[role].toLowerCase()} at once, with what that role may open and do.`}
+              {`${m.displayName} becomes a ${ROLE_LABELS[role].toLowerCase()} at once and can then open ${ROLE_REACH[role]}.`}
               {onlyHeadCoach ? ' The club then has no head coach: nobody can reopen a closed round.' : ''}
             </Text>
           ) : null}

@@ -155,11 +155,11 @@ export function KneeDistributionChart({
   name: string;
 }) {
   const sorted = rounds.map((_, i) => roundKneeAngles(kneeAngles, measurementId, i));
-  const points = sorted.flatMap((list, i) => list.map((v) => ({ x: i, y: v })));
-  const medians = sorted
-    .map((list, i) => ({ i, q: quartiles(list) }))
-    .filter((m) => m.q !== null)
-    .map((m) => ({ x: m.i, y: m.q!.median }));
+  // Drawn for the rounds with this angle only, side by side: rounds without it (not measured, nobody
+  // screened) took their places on the axis and pushed the season into its left edge.
+  const drawn = sorted.map((list, i) => ({ round: rounds[i]!, list })).filter((d) => d.list.length > 0);
+  const points = drawn.flatMap((d, x) => d.list.map((v) => ({ x, y: v })));
+  const medians = drawn.map((d, x) => ({ x, y: quartiles(d.list)!.median }));
   return (
     <ChartFrame
       title={`Knee angle from the front per round: ${name}`}
@@ -180,8 +180,11 @@ export function KneeDistributionChart({
         points.length === 0 ? (
           <Text variant="small">No knee angle of this task yet.</Text>
         ) : (
-          <VictoryChart width={width} height={190} padding={ROUNDS_PADDING} domain={{ x: [-0.5, Math.max(1, rounds.length - 1) + 0.5] }}>
-            {roundDateAxis(rounds, width)}
+          <VictoryChart width={width} height={190} padding={ROUNDS_PADDING} domain={{ x: [-0.5, Math.max(1, drawn.length - 1) + 0.5] }}>
+            {roundDateAxis(
+              drawn.map((d) => d.round),
+              width,
+            )}
             <VictoryAxis dependentAxis offsetX={42} tickFormat={(v: number) => `${v}°`} style={AXIS_STYLE} />
             <VictoryScatter data={points} size={3} style={{ data: { fill: colors.pine, opacity: 0.55 } }} />
             <VictoryScatter data={medians} symbol="minus" size={6} style={{ data: { fill: colors.ink, stroke: colors.ink, strokeWidth: 3 } }} />

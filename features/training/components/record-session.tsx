@@ -186,7 +186,10 @@ function RecordForm({
       'athleteIds',
       eligible.filter((a) => (a.id === id ? !ticked.has(id) : ticked.has(a.id))).map((a) => a.id),
     );
-  const recorded = !!recordOf(form.values.heldOn);
+  const earlier = recordOf(form.values.heldOn);
+  const recorded = !!earlier;
+  // Who recorded the day, when the server has it: replacing a colleague's record is said with their name.
+  const recordedBy = earlier && 'recordedByName' in earlier ? earlier.recordedByName : null;
 
   return (
     <View style={styles.form} testID="sheet-record-form">
@@ -199,7 +202,11 @@ function RecordForm({
         }}
         testID="sheet-record-day"
       />
-      {recorded ? <Text variant="small">This day is already recorded: saving replaces who took part.</Text> : null}
+      {recorded ? (
+        <Text variant="small" testID="sheet-record-replaces">
+          {`This day is already recorded${recordedBy ? ` by ${recordedBy}` : ''} (${earlier!.athleteIds.length} took part): saving replaces who took part.`}
+        </Text>
+      ) : null}
       <Text variant="label">{`Who took part: ${ticked.size} of ${eligible.length}`}</Text>
       <View style={styles.row}>
         <Button
@@ -229,6 +236,12 @@ function RecordForm({
               <Text style={[styles.box, on && styles.boxOn]}>{on ? '✓' : ' '}</Text>
               <Text style={styles.tickName}>{a.name}</Text>
               {a.state !== 'plan' ? <Text variant="small">no plan</Text> : null}
+              {/* What the sheet says at the top, beside the name: taking part is not doing everything. */}
+              {a.hold ? (
+                <Text variant="small">loaded and landing work on hold</Text>
+              ) : a.physioChanges ? (
+                <Text variant="small">physio&apos;s changes</Text>
+              ) : null}
             </Pressable>
           );
         })}
