@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Flag, Measurement, MetricId, TaskId } from '@/features/screening/engine';
 import { compareFlags, compareMeasurement, compareScreens, daysBetween, ERROR_MARGINS, planTimeBetween, type ScreenForComparison } from './compare';
-import { coachSummary, familySummary } from './wording';
+import { barelyCleared, coachSummary, familySummary } from './wording';
 
 const MUNRO2012 =
   'Munro A, Herrington L, Carolan M. Reliability of 2-dimensional video assessment of frontal-plane dynamic knee valgus during common athletic screening tasks. J Sport Rehabil. 2012;21(1):7-11';
@@ -244,6 +244,33 @@ describe('compareScreens and its wording', () => {
     );
     expect(s.realChanges[0]).toContain('18.4° → 6.2°, down 12.2°, more than the 8.93° a re-test can differ by');
     expect(s.withinError[0]).toContain('not a change we can tell from measuring error');
+  });
+
+  // Our rule: a flag that went while its own measurement moved by less than the re-test error is said to be
+  // barely cleared. Knee-to-wall 8.7 -> 10.4 cm: 1.7 cm, inside the 1.9 cm error used here (made-up figure
+  // for the check, not a published one).
+  it("says which cleared flags moved by less than their measurement's re-test error", () => {
+    const ankle = flag('limited-ankle-dorsiflexion/knee-to-wall-right/right', 'limited-ankle-dorsiflexion', 'knee-to-wall-right', 'right');
+    const e = screen(
+      'e',
+      '2026-03-09',
+      ['knee-to-wall-right'],
+      [ankle],
+      [m('knee-to-wall-right/knee-to-wall/right', 'knee-to-wall', 8.7, 'cm', 'knee-to-wall-right')],
+    );
+    const l = screen(
+      'l',
+      '2026-06-08',
+      ['knee-to-wall-right'],
+      [],
+      [m('knee-to-wall-right/knee-to-wall/right', 'knee-to-wall', 10.4, 'cm', 'knee-to-wall-right')],
+    );
+    const cmp = compareScreens(e, l);
+    const within = { ...cmp, measurements: cmp.measurements.map((x) => ({ ...x, errorMargin: 1.9, verdict: 'within-error' as const })) };
+    expect(barelyCleared(within).map((f) => f.id)).toEqual([ankle.id]);
+    expect(coachSummary(within).lines.some((x) => x.startsWith("Of these, cleared by less than the measurement's re-test error"))).toBe(true);
+    // The valgus flag above cleared with a real change of its own angle: not barely.
+    expect(barelyCleared(c)).toEqual([]);
   });
 
   it('staff headline in whole words when one or none of the measurements can be judged (our wording)', () => {

@@ -106,11 +106,32 @@ function changeSentence(m: MeasurementChange): string {
   return `${m.label}: ${span}; no published measurement error, so the change is not judged.`;
 }
 
+/** The measurement each pattern is flagged from, where one is (our mapping of the engine's rules). */
+const FLAG_METRIC: Partial<Record<PatternId, string>> = {
+  'dynamic-knee-valgus': 'fppa',
+  'limited-ankle-dorsiflexion': 'knee-to-wall',
+  'contralateral-pelvic-drop': 'pelvic-obliquity',
+};
+
+/**
+ * Cleared flags whose own measurement (same task and side) moved by less than its published re-test
+ * error: the flag went, but the number may simply have crossed the threshold by chance (our rule).
+ */
+export function barelyCleared(c: ScreenComparison): ScreenComparison['flags']['cleared'] {
+  return c.flags.cleared.filter((fl) =>
+    c.measurements.some(
+      (m) => m.verdict === 'within-error' && m.metric === FLAG_METRIC[fl.pattern] && m.taskId === fl.taskId && (m.side === fl.side || fl.side === 'both'),
+    ),
+  );
+}
+
 /** The staff comparison: flags first (what the coach acts on), then the measurements with a figure. */
 export function coachSummary(c: ScreenComparison): { headline: string; lines: string[]; realChanges: string[]; withinError: string[] } {
   const lines: string[] = [];
   const f = c.flags;
   for (const g of flagGroups(f.cleared)) lines.push(`No longer flagged: ${g}.`);
+  const barely = barelyCleared(c);
+  if (barely.length) lines.push(`Of these, cleared by less than the measurement's re-test error, so it may return: ${flagGroups(barely).join('; ')}.`);
   for (const g of flagGroups(f.persisting)) lines.push(`Still flagged: ${g}.`);
   for (const g of flagGroups(f.new)) lines.push(`Newly flagged: ${g}.`);
   for (const g of flagGroups(f.notRetested)) lines.push(`Not re-tested (task not done again): ${g}.`);

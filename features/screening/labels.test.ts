@@ -50,9 +50,20 @@ describe('labels', () => {
     expect(loadText({ kind: 'bodyweight', note: 'a light plate held forward as a counterbalance' })).toBe(
       'Bodyweight. A light plate held forward as a counterbalance',
     );
+    // Without a 1RM, bodyweight first and the share after it (our wording); the engine's own "No 1RM
+    // recorded" sentence at the end of its note is said this way instead.
     expect(loadText({ kind: 'percent-1rm', minPercent: 50, maxPercent: 55, kg: null, note: 'close to fatigue; full range.' })).toBe(
-      '50-55% of 1RM. Close to fatigue; full range.',
+      'Bodyweight until a 1RM has been estimated (from a submaximal set, under qualified supervision); then 50-55% of 1RM. Close to fatigue; full range.',
     );
+    expect(
+      loadText({
+        kind: 'percent-1rm',
+        minPercent: 50,
+        maxPercent: 55,
+        kg: null,
+        note: 'Slow. No 1RM recorded: use bodyweight until a 1RM has been estimated from a submaximal set under qualified supervision.',
+      }),
+    ).toBe('Bodyweight until a 1RM has been estimated (from a submaximal set, under qualified supervision); then 50-55% of 1RM. Slow.');
     expect(restText(60)).toBe('60 s rest');
     expect(restText(120)).toBe('2 min rest');
   });

@@ -84,8 +84,11 @@ export function loadText(load: LoadRule): string {
       return `${load.resistance === 'light' ? 'Light' : 'Medium'} band, ${load.placement}`;
     case 'percent-1rm': {
       const pct = `${load.minPercent}-${load.maxPercent}% of 1RM`;
-      const note = capitalise(load.note);
-      return load.kg ? `${pct}: ${range(load.kg.min, load.kg.max)} kg (in ${load.kg.incrementKg} kg steps). ${note}` : `${pct}. ${note}`;
+      if (load.kg) return `${pct}: ${range(load.kg.min, load.kg.max)} kg (in ${load.kg.incrementKg} kg steps). ${capitalise(load.note)}`;
+      // No 1RM: bodyweight comes first, the share after it. Led by the share, a coach read a load to put on
+      // a child with no 1RM (the engine's note ends by saying so; it is said here instead).
+      const note = capitalise(load.note.replace(/\s*No 1RM recorded:.*$/, ''));
+      return `Bodyweight until a 1RM has been estimated (from a submaximal set, under qualified supervision); then ${pct}. ${note}`;
     }
   }
 }

@@ -19,9 +19,12 @@ export function ReviewsTeaser() {
       <Text style={styles.status}>
         {waiting === null
           ? 'Checking for pain reports and clearances…'
-          : urgent > 0
-            ? `${urgent} with pain reported or clearance needed.`
-            : 'None with pain reported or clearance needed.'}
+          : waiting === 0
+            ? 'Screens submitted by the testers appear here.'
+            : urgent > 0
+              ? `${urgent} of them with pain reported or clearance needed.`
+              : // Of the screens to review: an athlete already referred on is in the list, not in this count.
+                'None of them with pain reported or clearance needed.'}
       </Text>
       <Link href="/reviews" style={styles.link} testID="open-reviews">
         <Text variant="label">Open the review list →</Text>

@@ -36,6 +36,7 @@ export function MeasuringDesk({ roundId }: { roundId?: string }) {
 }
 
 const CURRENT_ANCHOR = 'measure-current';
+const ERROR_ANCHOR = 'measure-error';
 
 const PASSED_KEY = 'squadline.measure.passed';
 function readPassed(): Set<string> {
@@ -63,6 +64,9 @@ function Desk({ roundId }: { roundId?: string }) {
   const [marks, setMarks] = useState<LandmarkSet>({});
   const [error, setError] = useState<string | null>(null);
   const [saved, setSaved] = useState<string | null>(null);
+  // Points placed and not saved yet, per photo: moving to another photo (a skip, an arrow key, the list)
+  // and back finds them again instead of the saved ones (they were dropped without a word).
+  const drafts = useRef(new Map<string, LandmarkSet>());
   // Photos moved past in this visit (skipped, or saved with points still missing): the list goes on after
   // them, and a reload of the tab starts after them too (kept for the tab's life; a skipped photo came first
   // again after a reload).
@@ -85,7 +89,7 @@ function Desk({ roundId }: { roundId?: string }) {
   const shownId = current?.photo.id;
   const firstShown = useRef<string | undefined>(undefined);
   useEffect(() => {
-    setMarks(current?.landmarks ?? {});
+    setMarks((shownId ? drafts.current.get(shownId) : undefined) ?? current?.landmarks ?? {});
     setError(null);
     // Another photo after a save or a skip: back to its name and the saved notice, not left at the bottom
     // of the page where the buttons were (web; the first photo opens where the page starts).
@@ -114,10 +118,15 @@ function Desk({ roundId }: { roundId?: string }) {
     try {
       if (Object.keys(marks).length > 0) {
         const res = await save.mutateAsync({ photoId: id, landmarks: marks });
+        drafts.current.delete(id);
+        const placed = Object.values(marks).filter(Boolean).length;
+        const needed = getTask(current.taskId).views.find((v) => v.view === current.view)?.landmarks.length ?? placed;
         setSaved(
           res.resultVersion
             ? `Saved. ${current.athlete.firstName}'s result was worked out again (version ${res.resultVersion}).`
-            : `Saved for ${current.athlete.firstName}.`,
+            : placed < needed
+              ? `Saved ${placed} of ${needed} points for ${current.athlete.firstName}: the result is worked out again once all are placed.`
+              : `Saved for ${current.athlete.firstName}.`,
         );
       }
       pass(id);
@@ -130,8 +139,19 @@ function Desk({ roundId }: { roundId?: string }) {
   const skip = (by: 1 | -1) => {
     if (!current) return;
     pass(current.photo.id);
+    setSaved(
+      drafts.current.has(current.photo.id)
+        ? `Not saved: the points placed on ${current.athlete.firstName}'s ${itemTitle(current).toLowerCase()} wait on this page until you come back to it.`
+        : null,
+    );
     goTo(index + by);
   };
+
+  // A refused save said where the eyes are: on a wide screen the buttons (and the notice by them) can sit
+  // below the fold.
+  useEffect(() => {
+    if (error && isWide) scrollToId(ERROR_ANCHOR, true);
+  }, [error, isWide]);
 
   // Desk keys: Enter saves and moves on; arrows move between photos. The editor handles its own keys.
   const deskKeys = useRef<(e: KeyboardEvent) => void>(() => undefined);
@@ -227,15 +247,20 @@ function Desk({ roundId }: { roundId?: string }) {
             task={getTask(current.taskId)}
             view={current.view}
             photo={current.photo}
-            value={current.landmarks}
+            value={drafts.current.get(current.photo.id) ?? current.landmarks}
             racketHand={current.athlete.racketHand}
-            onChange={setMarks}
+            onChange={(next) => {
+              setMarks(next);
+              // Kept only when it differs from what is saved (the editor reports its first value too).
+              if (JSON.stringify(next) !== JSON.stringify(current.landmarks ?? {})) drafts.current.set(current.photo.id, next);
+              else drafts.current.delete(current.photo.id);
+            }}
             shortcuts={isWide}
           />
           <View style={[styles.actions, !isWide && Platform.OS === 'web' && styles.actionsPinned]}>
             {/* Beside the button that was pressed: at the top of the page it was out of sight on a phone. */}
             {error ? (
-              <View style={styles.errorRow}>
+              <View style={styles.errorRow} nativeID={ERROR_ANCHOR}>
                 <Notice tone="error" title="Not saved" testID="measure-error">
                   {`${error} The points are kept here: adjust them and save again.`}
                 </Notice>

@@ -14,7 +14,7 @@ describe('overlayFor', () => {
     const fppa = o.angles.find((a) => a.id === 'fppa-right-knee');
     // Thigh (10, 100) and shank (-10, 100): 2 x atan(10/100) = 11.42 degrees.
     expect(fppa?.value).toBeCloseTo(11.42, 2);
-    expect(fppa?.short).toBe('R 11°');
+    expect(fppa?.short).toBe('R 11.4°');
     expect(o.lines.map((l) => l.style)).toEqual(['limb', 'limb', 'reference']);
   });
 

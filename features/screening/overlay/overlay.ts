@@ -48,7 +48,8 @@ function leg(out: Overlay, marks: LandmarkSet, ids: readonly [LandmarkId, Landma
     id: `fppa-${ids[1]}`,
     anchor: knee,
     placement: side === 'right' && ids[1] === 'right-knee' ? 'left' : 'right',
-    short: `${LETTER[side]} ${round(v)}`,
+    // One decimal, as the value below the photo: rounded, 12.8° read "13°" beside a "flagged above 13°".
+    short: `${LETTER[side]} ${deg(v)}`,
     label: `${name} knee angle from the front (FPPA)`,
     value: v,
     text: `${deg(v)}${v > 0 ? ', knee inside the hip-ankle line (valgus)' : v < 0 ? ', knee outside the hip-ankle line (varus)' : ', straight'}`,

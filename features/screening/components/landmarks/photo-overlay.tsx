@@ -31,15 +31,16 @@ const POINT = '#19A47A';
 const ACTIVE = '#FF7A1A';
 const SUGGESTED = '#FF7A1A';
 
-/** The athlete's right side is on the image's left: its names go on the outer (left) side of the points. */
 /**
  * Where a point's name is written, in screen pixels from the point (times `u`) and its anchor: the
- * athlete's right-side points (the photo's left) to the left, the mid-hips below (beside it, it ran into
- * the left front hip bone's name at the pelvis), the rest to the right.
+ * athlete's right-side points (the photo's left) to the left, the rest to the right, the front hip bones'
+ * raised and the mid-hips' below (at the pelvis the four names ran into each other).
  */
 function labelAt(id: LandmarkId, gap: number): { dx: number; dy: number; anchor: 'start' | 'end' | 'middle' } {
   if (id === 'mid-hip') return { dx: 0, dy: gap + 10, anchor: 'middle' };
-  return id.startsWith('right-') ? { dx: -gap, dy: 4.5, anchor: 'end' } : { dx: gap, dy: 4.5, anchor: 'start' };
+  // The front hip bones sit just above the hip centres: their names go above them, the hips' level.
+  const dy = id.endsWith('-asis') ? -gap : 4.5;
+  return id.startsWith('right-') ? { dx: -gap, dy, anchor: 'end' } : { dx: gap, dy, anchor: 'start' };
 }
 
 /** A photo with its landmarks, the lines between them and the angles, drawn in the photo's own pixels. */

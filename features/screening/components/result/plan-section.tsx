@@ -114,7 +114,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, massKg, canAdju
       >
         {loading.stage === 'unknown'
           ? `No growth estimate (${loading.unknownReason === 'age-outside-range' ? 'age outside the range of the maturity equations' : loading.unknownReason === 'measures-missing' ? 'body measures missing' : 'not estimated'}): the plan applies the cautious limits of the growth-spurt window, at most ${STAGE_LIMITS.unknown.maxPercentOneRepMax}% of 1RM, no sets to fatigue, landing volume halved.`
-          : `${loading.stage === 'near' ? 'Within the growth estimate’s error of the window, so its limits apply: at most' : 'At most'} ${STAGE_LIMITS[loading.stage].maxPercentOneRepMax}% of 1RM${STAGE_LIMITS[loading.stage].toNearFatigue ? '' : ', no sets to fatigue'}${STAGE_LIMITS[loading.stage].jumpVolumeFactor < 1 ? ', landing volume halved' : ''}. The plan editor keeps to the same limits.`}
+          : `${loading.stage === 'near' ? 'Within the growth estimate’s error of the window, so its limits apply: at most' : 'At most'} ${STAGE_LIMITS[loading.stage].maxPercentOneRepMax}% of 1RM${STAGE_LIMITS[loading.stage].toNearFatigue ? '' : ', no sets to fatigue'}${STAGE_LIMITS[loading.stage].jumpVolumeFactor < 1 ? ', landing volume halved' : ''}. The plan editor checks changes against the same limits: only a physiotherapist or head coach can go past one, with a written reason.`}
       </Notice>
       <Text variant="small" testID="plan-one-rep-max">
         {oneRepMaxKg != null

@@ -171,6 +171,10 @@ function Header({
         {name}
       </Text>
       <AthleteClearanceBadge athleteId={detail.athlete.id} />
+      {/* The athlete's earlier screens, charts and comparison: one tap from any of their results. */}
+      <Link href={`/athletes/${detail.athlete.id}`} style={styles.back} testID="to-athlete-history">
+        <Text variant="label" style={styles.backText}>{`${detail.athlete.firstName}'s history and earlier screens →`}</Text>
+      </Link>
       <Text variant="small">
         {result.reason ? 'Worked out again' : 'Submitted'} {formatDate(result.createdAt)}
         {result.createdByName ? ` by ${result.createdByName}` : ''} · version {result.version} · engine {result.engineVersion}
