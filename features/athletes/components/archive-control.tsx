@@ -27,7 +27,10 @@ export function ArchiveControl({ athlete }: { athlete: Athlete }) {
     );
   }
   return (
-    <Notice tone={archive ? 'caution' : 'info'} title={archive ? `Archive ${athlete.firstName}?` : `Restore ${athlete.firstName}?`}>
+    <Notice
+      tone={archive ? 'caution' : 'info'}
+      title={archive ? `Archive ${athlete.firstName} ${athlete.lastName}?` : `Restore ${athlete.firstName} ${athlete.lastName}?`}
+    >
       <Text>
         {archive
           ? `${athlete.firstName} leaves the squad lists and new screening rounds. Nothing is deleted: earlier results stay, and you can restore ${athlete.firstName} at any time.`

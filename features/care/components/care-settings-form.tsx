@@ -76,7 +76,7 @@ function Form({ settings }: { settings: CareSettingsView }) {
       <Text variant="heading">Family summaries, photos and notes</Text>
       <TextField
         label="Send family summaries automatically after (days)"
-        hint="Only reviewed screens go out by themselves. Leave empty to release by hand only."
+        hint="Counted from the day the screen was submitted. Only reviewed screens go out by themselves. Leave empty to release by hand only."
         keyboardType="number-pad"
         value={form.values.autoReleaseDays}
         onChangeText={form.handleChange('autoReleaseDays')}
@@ -84,6 +84,7 @@ function Form({ settings }: { settings: CareSettingsView }) {
       />
       <TextField
         label="Delete photos after photo consent is withdrawn (days)"
+        hint="Counted from the day the withdrawal is recorded; the photos are hidden at once."
         keyboardType="number-pad"
         value={form.values.photoGraceDays}
         onChangeText={form.handleChange('photoGraceDays')}
@@ -91,6 +92,7 @@ function Form({ settings }: { settings: CareSettingsView }) {
       />
       <TextField
         label="Keep photos for (months)"
+        hint="Counted from the day each photo was taken; older photos are deleted."
         keyboardType="number-pad"
         value={form.values.photoRetentionMonths}
         onChangeText={form.handleChange('photoRetentionMonths')}
@@ -110,6 +112,7 @@ function Form({ settings }: { settings: CareSettingsView }) {
         value={form.values.testersReadTeamNotes as 'yes' | 'no'}
         onChange={(v) => form.setFieldValue('testersReadTeamNotes', v)}
       />
+      <Text variant="small">Team-only notes can hold health details from the physiotherapist: say yes only if your testers need them to screen safely.</Text>
       {form.status ? <Text>{String(form.status)}</Text> : null}
       <Button label="Save settings" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="care-settings-save" />
     </Card>
