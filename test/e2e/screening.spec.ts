@@ -128,7 +128,7 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   const angles = page.getByTestId('live-angles');
   await expect(angles).toContainText('Right knee angle from the front (FPPA)');
   await expect(angles).toContainText('(valgus)');
-  await expect(surface.locator('text').filter({ hasText: /^R \d+°$/ })).toHaveCount(1);
+  await expect(surface.locator('text').filter({ hasText: /^R \d+\.\d°$/ })).toHaveCount(1);
   await expect(angles).toContainText('0.0° from vertical');
   // Drag the middle of the hips sideways: the trunk lean follows live; undo puts it back.
   const box = (await surface.boundingBox())!;
