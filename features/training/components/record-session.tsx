@@ -238,7 +238,7 @@ function RecordForm({
               {a.state !== 'plan' ? <Text variant="small">no plan</Text> : null}
               {/* What the sheet says at the top, beside the name: taking part is not doing everything. */}
               {a.hold ? (
-                <Text variant="small">loaded and landing work on hold</Text>
+                <Text variant="small">loads, landings on hold</Text>
               ) : a.physioChanges ? (
                 <Text variant="small">physio&apos;s changes</Text>
               ) : null}
