@@ -13,6 +13,7 @@ import { Text } from '@/features/ui/components/text';
 import { colors, fonts, space } from '@/features/ui/theme';
 import { HOME_INTROS, homeGreeting } from '../intros';
 import { SquadCards } from './squad-cards';
+import { consentGapLines } from '../consent-gaps';
 
 export function RoleHome() {
   const { membership, me } = useActiveClub();
@@ -59,9 +60,33 @@ export function RoleHome() {
         // The squads with their open screening rounds and a way straight back in.
         <OpenRounds />
       ) : (
-        <SquadCards />
+        <>
+          {membership.role === 'admin' ? <ConsentGaps /> : null}
+          <SquadCards />
+        </>
       )}
     </View>
+  );
+}
+
+/** The admin's to-do: the families' decisions not recorded yet, and the way to record them. */
+function ConsentGaps() {
+  const athletes = useAthletesQuery();
+  if (!athletes.data) return null;
+  const lines = consentGapLines(athletes.data.athletes);
+  if (!lines.length) return null;
+  return (
+    <Card testID="consent-gaps">
+      <Text variant="heading">Families&apos; decisions</Text>
+      {lines.map((l) => (
+        <Text key={l}>{l}</Text>
+      ))}
+      {athletes.data.athletes.some((a) => !a.archived && (!a.consents.screening || !a.consents.photos)) ? (
+        <Link href="/athletes" style={styles.link}>
+          <Text variant="label">Record them from each athlete&apos;s page →</Text>
+        </Link>
+      ) : null}
+    </Card>
   );
 }
 
