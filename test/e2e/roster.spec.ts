@@ -52,7 +52,7 @@ test('a head coach adds an athlete, records a photo consent and archives them', 
   await expect(page.getByTestId('consent-history')).toContainText('Recorded by Dan Mercer');
 
   await page.getByTestId('athlete-archive').click();
-  await expect(page.getByText(`Archive Runa?`)).toBeVisible();
+  await expect(page.getByText(`Archive Runa ${lastName}?`)).toBeVisible();
   await page.getByTestId('athlete-archive-confirm').click();
   await expect(page.getByTestId('archived-tag')).toBeVisible();
   await expect(page.getByTestId('athlete-restore')).toBeVisible();
