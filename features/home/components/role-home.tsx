@@ -61,8 +61,9 @@ export function RoleHome() {
         <OpenRounds />
       ) : (
         <>
-          {membership.role === 'admin' ? <ConsentGaps /> : null}
           <SquadCards />
+          {/* Below the squads: arriving with the athletes list, above them it would push the cards down. */}
+          {membership.role === 'admin' ? <ConsentGaps /> : null}
         </>
       )}
     </View>
