@@ -110,6 +110,13 @@ export async function main(hooks: ServerHooks = {}) {
     }
   });
 
+  // Idle keep-alive connections are kept longer than Node's 5 s default: a client that reuses one just as
+  // the server closes it gets a reset connection (seen as ECONNRESET by the browser tests' API client
+  // after a pause). 65 s, above the 60 s idle time of the usual proxies and load balancers, with the
+  // headers' timeout above it as Node asks (common practice, no source).
+  server.keepAliveTimeout = 65_000;
+  server.headersTimeout = 66_000;
+
   // Graceful shutdown: stop accepting, let the requests in flight finish (an upload writes its files
   // and its row, or removes the files again) for up to SHUTDOWN_GRACE_MS, then close what is left.
   const graceMs = Number(process.env.SHUTDOWN_GRACE_MS ?? 10_000);
