@@ -1,4 +1,4 @@
-import { formatDate } from '@/features/ui/format-date';
+import { formatDate, formatDateInWords } from '@/features/ui/format-date';
 
 /**
  * When the next check is, for a parent (our wording): the date in their locale, and once it has passed,
@@ -8,6 +8,12 @@ export function recheckWords(recheckDate: string | null, today: string, locale?:
   if (!recheckDate) return 'The coaches will tell you.';
   const when = formatDate(recheckDate, { locale });
   return recheckDate < today ? `It was planned for around ${when} and is due now: the coaches will arrange it.` : `Around ${when}.`;
+}
+
+/** The same for the e-mail, with the date in words (the reader's locale is not known). */
+export function recheckLine(recheckDate: string, today: string): string {
+  const when = formatDateInWords(recheckDate);
+  return recheckDate < today ? `Next check: due now (it was planned for around ${when}); the coaches will arrange it.` : `Next check: around ${when}.`;
 }
 
 /**

@@ -4,6 +4,7 @@
  */
 import type { FlagSide, PatternId, TaskId } from '@/features/screening/engine';
 import { getTask } from '@/features/screening/engine/battery';
+import { THRESHOLDS } from '@/features/screening/engine/thresholds';
 import type { FlagRef, MeasurementChange, ScreenComparison } from './compare';
 import type { ProgressResponse, ProgressScreen } from './progress-types';
 import { formatDate } from '@/features/ui/format-date';
@@ -106,12 +107,8 @@ function changeSentence(m: MeasurementChange): string {
   return `${m.label}: ${span}; no published measurement error, so the change is not judged.`;
 }
 
-/** The measurement each pattern is flagged from, where one is (our mapping of the engine's rules). */
-const FLAG_METRIC: Partial<Record<PatternId, string>> = {
-  'dynamic-knee-valgus': 'fppa',
-  'limited-ankle-dorsiflexion': 'knee-to-wall',
-  'contralateral-pelvic-drop': 'pelvic-obliquity',
-};
+/** Whether the engine flags a pattern from this metric (a row of its threshold table says so). */
+const flaggedFrom = (pattern: PatternId, metric: string) => THRESHOLDS.some((t) => t.pattern === pattern && t.metric === metric);
 
 /**
  * Cleared flags whose own measurement (same task and side) moved by less than its published re-test
@@ -120,7 +117,7 @@ const FLAG_METRIC: Partial<Record<PatternId, string>> = {
 export function barelyCleared(c: ScreenComparison): ScreenComparison['flags']['cleared'] {
   return c.flags.cleared.filter((fl) =>
     c.measurements.some(
-      (m) => m.verdict === 'within-error' && m.metric === FLAG_METRIC[fl.pattern] && m.taskId === fl.taskId && (m.side === fl.side || fl.side === 'both'),
+      (m) => m.verdict === 'within-error' && flaggedFrom(fl.pattern, m.metric) && m.taskId === fl.taskId && (m.side === fl.side || fl.side === 'both'),
     ),
   );
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { recheckLine, renderSummaryEmail } from './summary-email';
+import { recheckLine } from '@/features/care/family-words';
+import { renderSummaryEmail } from './summary-email';
 import type { FamilySummary } from '@/features/care/types';
 
 // The next check in the family e-mail: a date that has gone by by the time the e-mail is written is said to

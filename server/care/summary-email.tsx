@@ -1,5 +1,5 @@
 import { Body, Container, Head, Heading, Hr, Html, Link, Preview, render, Section, Text } from '@react-email/components';
-import { CLUB_ONLY_WORDS } from '@/features/care/family-words';
+import { CLUB_ONLY_WORDS, recheckLine } from '@/features/care/family-words';
 import type { FamilySummary } from '@/features/care/types';
 import { todayIso } from '@/features/athletes/age';
 import { formatDateInWords } from '@/features/ui/format-date';
@@ -16,12 +16,6 @@ type Props = {
   /** The day the e-mail is written (YYYY-MM-DD; today by default): a next check before it is due now, not a date gone by. */
   today?: string;
 };
-
-/** The next check, for the e-mail (words for dates: the reader's locale is not known). Our wording, as the family page's. */
-export function recheckLine(recheckDate: string, today: string): string {
-  const when = formatDateInWords(recheckDate);
-  return recheckDate < today ? `Next check: due now (it was planned for around ${when}); the coaches will arrange it.` : `Next check: around ${when}.`;
-}
 
 const styles = {
   body: { backgroundColor: '#f4f6f5', fontFamily: 'Helvetica, Arial, sans-serif', color: '#1d2a24', margin: 0, padding: '16px 0' },

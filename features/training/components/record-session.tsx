@@ -18,7 +18,10 @@ import { formatDate } from '@/features/ui/format-date';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { useRecordSessionMutation, useSessionsQuery, type RecordOutcome } from '../api/sessions';
 import { recordSessionSchema, type SessionView } from '../schemas';
-import type { TrainingSheet } from '../sheet';
+import type { SheetAthlete, TrainingSheet } from '../sheet';
+
+/** The family has not agreed (said no, or nothing recorded): on no exercise, never recorded as taking part. */
+export const withoutConsent = (a: Pick<SheetAthlete, 'state'>) => a.state === 'consent-refused' || a.state === 'consent-missing';
 
 const DAY_MS = 24 * 3600 * 1000;
 /** Today, yesterday and the day before, on the phone's calendar: a session is recorded that day or soon after (our choice). */
@@ -154,7 +157,7 @@ function RecordForm({
   const record = useRecordSessionMutation(sheet.squad.id);
   const days = recentDays();
   // Those whose family has not agreed to corrective exercises are never recorded as having done them.
-  const eligible = sheet.athletes.filter((a) => a.state !== 'consent-refused' && a.state !== 'consent-missing');
+  const eligible = sheet.athletes.filter((a) => !withoutConsent(a));
   const notEligible = sheet.athletes.filter((a) => !eligible.includes(a));
   // A day already recorded starts from what was recorded (on this phone if not sent yet); a new day from
   // everyone with a plan.

@@ -15,7 +15,7 @@ import { formatDate } from '@/features/ui/format-date';
 import { canPrint, printPage, PRINT_HIDE, PRINT_KEEP, PRINT_ROOT, usePrintStyles } from '@/features/ui/print';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { useTrainingSheetQuery } from '../api/get-training-sheet';
-import { SessionsCard } from './record-session';
+import { SessionsCard, withoutConsent } from './record-session';
 import { doseGroups, sharedDetail } from '../lines';
 import type { SheetAthlete, SheetExercise, TrainingSheet } from '../sheet';
 
@@ -93,7 +93,7 @@ function SheetBody({ data }: { data: TrainingSheet }) {
   const due = data.athletes.filter((a) => a.state !== 'no-screen' && a.rescreenDue);
   const neverScreened = data.athletes.filter((a) => a.state === 'no-screen');
   // Said at the top too (the "not on the sheet" card comes after every exercise): on no exercise today.
-  const noConsent = data.athletes.filter((a) => a.state === 'consent-refused' || a.state === 'consent-missing');
+  const noConsent = data.athletes.filter(withoutConsent);
   // At the top beside the count on a wide screen; at the end on a phone, where the plans come first.
   const printButton = canPrint ? (
     <View {...PRINT_HIDE} style={styles.actions}>
