@@ -113,15 +113,19 @@ const consentKind = string()
   .required('Choose what the decision is about.');
 const consentGranted = boolean().typeError('Choose yes or no.').required('Choose yes or no.');
 
-export const consentSchema = object({
-  kind: consentKind,
-  granted: consentGranted,
-  decidedOn: isoDate('date of the decision').test('not-future', 'The decision cannot be dated in the future.', (v) => {
+/** The day a family's decision was given: a calendar day, not in the future. */
+const decisionDate = (what: string) =>
+  isoDate(what).test('not-future', 'The decision cannot be dated in the future.', (v) => {
     if (!v || !isCalendarDate(v)) return true;
     // One day of slack: the phone's day may already be tomorrow in UTC terms, or not yet.
     const tomorrow = new Date(Date.now() + 24 * 3600 * 1000).toISOString().slice(0, 10);
     return v <= tomorrow;
-  }),
+  });
+
+export const consentSchema = object({
+  kind: consentKind,
+  granted: consentGranted,
+  decidedOn: decisionDate('date of the decision'),
 });
 export type ConsentInput = InferType<typeof consentSchema>;
 
@@ -155,12 +159,13 @@ export const ROSTER_COLUMNS = [
   'email_summaries_consent',
   'guardian_email',
   'screening_consent',
+  'consents_decided_on',
 ] as const;
 export type RosterColumn = (typeof ROSTER_COLUMNS)[number];
 /** Columns that may be left out of the header altogether. */
-export const OPTIONAL_ROSTER_COLUMNS: readonly RosterColumn[] = ['guardian_email', 'screening_consent'];
+export const OPTIONAL_ROSTER_COLUMNS: readonly RosterColumn[] = ['guardian_email', 'screening_consent', 'consents_decided_on'];
 export const ROSTER_HEADER_LINE = ROSTER_COLUMNS.join(',');
-export const ROSTER_EXAMPLE_LINE = 'Mira,Castellano,2014-03-09,F,R,L,Under-13 mixed,yes,no,,yes';
+export const ROSTER_EXAMPLE_LINE = 'Mira,Castellano,2014-03-09,F,R,L,Under-13 mixed,yes,no,,yes,2026-09-05';
 
 /** Plain words for the report: which cell of the line is wrong. */
 export const ROSTER_COLUMN_LABELS: Record<RosterColumn | 'row', string> = {
@@ -175,6 +180,7 @@ export const ROSTER_COLUMN_LABELS: Record<RosterColumn | 'row', string> = {
   email_summaries_consent: 'E-mail summaries consent',
   guardian_email: 'Guardian e-mail',
   screening_consent: 'Screening and exercises consent',
+  consents_decided_on: 'Date of the decisions',
   row: 'This line',
 };
 
@@ -220,5 +226,14 @@ export const rosterRowSchema = object({
   guardian_email: email.transform((v: unknown) => (v === '' ? undefined : v)).optional(),
   // Left out or left empty: no decision is recorded (the athlete is not screened until one is).
   screening_consent: yesNo('screening and exercises consent').optional(),
+  // The day the family gave the line's consent answers (a paper form signed before the import); left out
+  // or empty, they are dated the day of the import.
+  consents_decided_on: decisionDate('date of the decisions')
+    .transform((v: unknown) => (v === '' ? undefined : v))
+    .notRequired()
+    .test('after-birth', 'The decisions are dated before the date of birth.', function check(v) {
+      const born: unknown = this.parent?.date_of_birth;
+      return !v || typeof born !== 'string' || !isCalendarDate(v) || !isCalendarDate(born) || v >= born;
+    }),
 });
 export type RosterRow = InferType<typeof rosterRowSchema>;

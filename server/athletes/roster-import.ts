@@ -109,9 +109,15 @@ function changesOf(
   if (row.screening_consent !== undefined && current.consents.screening?.granted !== row.screening_consent) {
     out.push(`screening and exercises consent: ${yesNo(current.consents.screening?.granted)} → ${yesNo(row.screening_consent)}`);
   }
+  if (out.some((line) => line.includes('consent:'))) out.push(datedOn(row));
   if (guardian && !guardian.alreadyLinked) out.push(parentLinked(guardian.email, guardian.name));
   return out;
 }
+
+/** The day the line's consent answers are recorded as given: the file's date, or the day of the import. */
+const decidedOnOf = (row: RosterRow): string => row.consents_decided_on ?? todayIso();
+const datedOn = (row: RosterRow) =>
+  row.consents_decided_on ? `consent answers dated ${row.consents_decided_on} (from the file)` : 'consent answers dated today (no date in the file)';
 
 const parentLinked = (email: string, name: string | undefined) => `parent account linked: ${name ? `${name} (${email})` : email}`;
 
@@ -126,9 +132,26 @@ function recordedFor(row: RosterRow, guardianEmail: string | undefined, guardian
     }`,
     `photo consent: ${yesNo(row.photo_consent)}`,
     `e-mail summaries consent: ${yesNo(row.email_summaries_consent)}`,
+    datedOn(row),
   ];
   if (guardianEmail) out.push(parentLinked(guardianEmail, guardianName));
   return out;
+}
+
+/**
+ * A consent answer of the line that would change a decision dated after the line's: refused, as one
+ * decision at a time is (a paper form signed in September does not undo a withdrawal made in November).
+ */
+function laterDecisionOnRecord(current: AthleteView, row: RosterRow): string | undefined {
+  const decidedOn = decidedOnOf(row);
+  const asked = [
+    { label: 'photo consent', inForce: current.consents.photos, granted: row.photo_consent },
+    { label: 'e-mail summaries consent', inForce: current.consents.emailSummaries, granted: row.email_summaries_consent },
+    { label: 'screening and exercises consent', inForce: current.consents.screening, granted: row.screening_consent },
+  ];
+  const later = asked.find((a) => a.granted !== undefined && a.inForce && a.inForce.granted !== a.granted && a.inForce.decidedOn > decidedOn);
+  if (!later?.inForce) return undefined;
+  return `A later decision is on record for the ${later.label} (${later.inForce.granted ? 'yes' : 'no'}, decided ${later.inForce.decidedOn}), after ${decidedOn}: it stands. Write the answer on record in this line, or, if the family has decided again since, the day they did.`;
 }
 
 /** Checks each line against the form's rules and the club's data; writes nothing. */
@@ -175,6 +198,8 @@ async function checkRows(repo: AthletesRepo, raw: RawRow[]): Promise<CheckedRow[
         errors.row = 'An archived athlete with this name and date of birth is in the club: restore them first, then import again.';
       } else existing = known.get(key);
       if (earlier === undefined) seen.set(key, line);
+      const later = existing ? laterDecisionOnRecord(existing, row) : undefined;
+      if (later) errors.consents_decided_on = later;
     }
 
     const ok = Object.keys(errors).length === 0;
@@ -245,7 +270,6 @@ export function rosterImport(db: Db, scope: ClubScope) {
         const report = toReport(checked);
         if (report.errorCount > 0) return { report, created: [], updated: [] };
         const all = checked as (CheckedRow & { row: RosterRow; squadId: string })[];
-        const decidedOn = todayIso();
 
         // Athletes already in the club: their record follows the line; a consent answer that differs
         // from the one in force is recorded as a new decision (the history keeps the old one).
@@ -253,17 +277,20 @@ export function rosterImport(db: Db, scope: ClubScope) {
         for (const { existing, row, squadId } of updates) {
           await repo.update(existing!.id, { sex: row.sex, racketHand: row.racket_hand, takeOffLeg: row.take_off_leg, squadId });
         }
-        const updateConsents = updates.flatMap(({ existing, row }) => [
-          ...(existing!.consents.photos?.granted !== row.photo_consent
-            ? [{ athleteId: existing!.id, kind: 'photos' as const, granted: row.photo_consent, decidedOn }]
-            : []),
-          ...(existing!.consents.emailSummaries?.granted !== row.email_summaries_consent
-            ? [{ athleteId: existing!.id, kind: 'email_summaries' as const, granted: row.email_summaries_consent, decidedOn }]
-            : []),
-          ...(row.screening_consent !== undefined && existing!.consents.screening?.granted !== row.screening_consent
-            ? [{ athleteId: existing!.id, kind: 'screening' as const, granted: row.screening_consent, decidedOn }]
-            : []),
-        ]);
+        const updateConsents = updates.flatMap(({ existing, row }) => {
+          const decidedOn = decidedOnOf(row);
+          return [
+            ...(existing!.consents.photos?.granted !== row.photo_consent
+              ? [{ athleteId: existing!.id, kind: 'photos' as const, granted: row.photo_consent, decidedOn }]
+              : []),
+            ...(existing!.consents.emailSummaries?.granted !== row.email_summaries_consent
+              ? [{ athleteId: existing!.id, kind: 'email_summaries' as const, granted: row.email_summaries_consent, decidedOn }]
+              : []),
+            ...(row.screening_consent !== undefined && existing!.consents.screening?.granted !== row.screening_consent
+              ? [{ athleteId: existing!.id, kind: 'screening' as const, granted: row.screening_consent, decidedOn }]
+              : []),
+          ];
+        });
         const updatedConsents = await repo.recordConsents(updateConsents);
         const updatedLinks = updates.flatMap(({ existing, guardianUserId, guardianName }) =>
           guardianUserId ? [{ athleteId: existing!.id, userId: guardianUserId, name: guardianName }] : [],
@@ -282,11 +309,14 @@ export function rosterImport(db: Db, scope: ClubScope) {
             squadId,
           })),
         );
-        const newConsents = ready.flatMap(({ row }, i) => [
-          { athleteId: ids[i]!, kind: 'photos' as const, granted: row.photo_consent, decidedOn },
-          { athleteId: ids[i]!, kind: 'email_summaries' as const, granted: row.email_summaries_consent, decidedOn },
-          ...(row.screening_consent === undefined ? [] : [{ athleteId: ids[i]!, kind: 'screening' as const, granted: row.screening_consent, decidedOn }]),
-        ]);
+        const newConsents = ready.flatMap(({ row }, i) => {
+          const decidedOn = decidedOnOf(row);
+          return [
+            { athleteId: ids[i]!, kind: 'photos' as const, granted: row.photo_consent, decidedOn },
+            { athleteId: ids[i]!, kind: 'email_summaries' as const, granted: row.email_summaries_consent, decidedOn },
+            ...(row.screening_consent === undefined ? [] : [{ athleteId: ids[i]!, kind: 'screening' as const, granted: row.screening_consent, decidedOn }]),
+          ];
+        });
         const createdConsents = await repo.recordConsents(newConsents);
         const newLinks = ready.flatMap(({ guardianUserId, guardianName }, i) =>
           guardianUserId ? [{ athleteId: ids[i]!, userId: guardianUserId, name: guardianName }] : [],
@@ -308,7 +338,7 @@ export function rosterImport(db: Db, scope: ClubScope) {
               subjectKind: 'consent',
               subjectId: c.id,
               athleteId: c.athleteId,
-              detail: { kind: c.kind, granted: c.granted, decidedOn, via: 'import' },
+              detail: { kind: c.kind, granted: c.granted, decidedOn: c.decidedOn, via: 'import' },
             }),
           ),
           // Only links the import made: a line naming a parent already linked changes nothing.

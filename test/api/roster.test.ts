@@ -512,10 +512,14 @@ describe('CSV roster import', () => {
           'screening and exercises consent: yes',
           'photo consent: yes',
           'e-mail summaries consent: yes',
+          'consent answers dated today (no date in the file)',
           'parent account linked: Sol Parent (second.parent@riverside.test)',
         ],
       ],
-      ['create', ['screening and exercises consent: yes', 'photo consent: no', 'e-mail summaries consent: no']],
+      [
+        'create',
+        ['screening and exercises consent: yes', 'photo consent: no', 'e-mail summaries consent: no', 'consent answers dated today (no date in the file)'],
+      ],
     ]);
     const res = await upload(as.coach, csv, true);
     expect(res.status).toBe(201);
@@ -571,7 +575,11 @@ describe('CSV roster import', () => {
     ]);
     expect(res.body).toMatchObject({ okCount: 3, errorCount: 1, createCount: 1, updateCount: 2 });
     expect(res.body.rows[1].errors.row).toBe('Same name and date of birth as line 2.');
-    expect(res.body.rows[2].changes).toEqual(['squad: Under-13 → Under-15', 'e-mail summaries consent: yes → no']);
+    expect(res.body.rows[2].changes).toEqual([
+      'squad: Under-13 → Under-15',
+      'e-mail summaries consent: yes → no',
+      'consent answers dated today (no date in the file)',
+    ]);
     // Kit's line matches what earlier tests left: an update that changes nothing.
     expect(res.body.rows[3].changes).toEqual([]);
     // The duplicate line keeps the whole file out.

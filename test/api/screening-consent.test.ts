@@ -213,3 +213,86 @@ describe('the roster import’s optional screening_consent column', () => {
     expect(dry.body.rows[0]).toMatchObject({ action: 'update', changes: [] });
   });
 });
+
+// The day a family gave their answers on paper is the day on record (our choice): an import in December
+// of forms signed in September must not date them December, and a form older than a decision the family
+// made since (a withdrawal in the app, say) must not undo it.
+describe('the roster import’s optional consents_decided_on column', () => {
+  const upload = (csv: string, commit = false) =>
+    as.coach
+      .post(`/api/athletes/import${commit ? '?commit=true' : ''}`)
+      .attach('file', Buffer.from(csv, 'utf8'), { filename: 'roster.csv', contentType: 'text/csv' });
+  const daysAgo = (n: number) => new Date(Date.now() - n * 24 * 3600 * 1000).toISOString().slice(0, 10);
+  const athleteNamed = async (firstName: string) =>
+    ((await as.coach.get('/api/athletes')).body.athletes as { id: string; firstName: string; dateOfBirth: string; consents: Record<string, unknown> }[]).find(
+      (a) => a.firstName === firstName,
+    )!;
+
+  it('dates every answer of a new athlete’s line by the file’s day, in the report, the record and the trail', async () => {
+    const signed = daysAgo(40);
+    const csv = makeRosterCsv([
+      { first_name: 'Tove', last_name: 'Dane', photo_consent: 'yes', email_summaries_consent: 'no', screening_consent: 'yes', consents_decided_on: signed },
+    ]);
+    const dry = await upload(csv);
+    expect(dry.status).toBe(200);
+    expect(dry.body.rows[0].changes).toContain(`consent answers dated ${signed} (from the file)`);
+    expect((await upload(csv, true)).status).toBe(201);
+    const tove = await athleteNamed('Tove');
+    expect(tove.consents).toEqual({
+      screening: { granted: true, decidedOn: signed },
+      photos: { granted: true, decidedOn: signed },
+      emailSummaries: { granted: false, decidedOn: signed },
+    });
+    const trail = await testDb.db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.athleteId, tove.id), eq(auditEvents.subjectKind, 'consent')));
+    expect(trail.map((e) => (e.detail as { decidedOn: string }).decidedOn)).toEqual([signed, signed, signed]);
+  });
+
+  it('dates them today when the cell is empty, and says so', async () => {
+    const csv = makeRosterCsv([{ first_name: 'Ulla', last_name: 'Dane', consents_decided_on: '' }]);
+    const dry = await upload(csv);
+    expect(dry.body.rows[0].changes).toContain('consent answers dated today (no date in the file)');
+    expect((await upload(csv, true)).status).toBe(201);
+    expect((await athleteNamed('Ulla')).consents.photos).toEqual({ granted: true, decidedOn: today() });
+  });
+
+  it('refuses a day in the future, before the date of birth or not in the calendar, and writes nothing', async () => {
+    const csv = makeRosterCsv([
+      { first_name: 'Vera', last_name: 'Dane', consents_decided_on: daysAgo(-5) },
+      { first_name: 'Wim', last_name: 'Dane', date_of_birth: '2014-06-01', consents_decided_on: '2014-05-31' },
+      { first_name: 'Xan', last_name: 'Dane', consents_decided_on: '2026-02-30' },
+    ]);
+    const res = await upload(csv, true);
+    expect(res.status).toBe(400);
+    expect(res.body.rows.map((r: { errors: Record<string, string> }) => r.errors.consents_decided_on)).toEqual([
+      'The decision cannot be dated in the future.',
+      'The decisions are dated before the date of birth.',
+      'This day does not exist in the calendar.',
+    ]);
+    expect(await athleteNamed('Vera')).toBeUndefined();
+  });
+
+  it('refuses an answer dated before a different decision on record, and takes it dated after', async () => {
+    // The family withdrew photo consent ten days ago; a form signed forty days ago says yes.
+    expect((await upload(makeRosterCsv([{ first_name: 'Yara', last_name: 'Dane', consents_decided_on: daysAgo(60) }]), true)).status).toBe(201);
+    const yara = await athleteNamed('Yara');
+    const withdrawn = daysAgo(10);
+    expect((await as.coach.post(`/api/athletes/${yara.id}/consents`).send({ kind: 'photos', granted: false, decidedOn: withdrawn })).status).toBe(201);
+    const line = { first_name: 'Yara', last_name: 'Dane', date_of_birth: yara.dateOfBirth, photo_consent: 'yes' };
+    const old = await upload(makeRosterCsv([{ ...line, consents_decided_on: daysAgo(40) }]), true);
+    expect(old.status).toBe(400);
+    expect(old.body.rows[0].errors.consents_decided_on).toBe(
+      `A later decision is on record for the photo consent (no, decided ${withdrawn}), after ${daysAgo(40)}: it stands. Write the answer on record in this line, or, if the family has decided again since, the day they did.`,
+    );
+    expect((await athleteNamed('Yara')).consents.photos).toEqual({ granted: false, decidedOn: withdrawn });
+    // The same answer as the one on record, on an old form, changes nothing and is no error.
+    const same = await upload(makeRosterCsv([{ ...line, photo_consent: 'no', consents_decided_on: daysAgo(40) }]));
+    expect(same.body.rows[0]).toMatchObject({ ok: true, changes: [] });
+    const since = daysAgo(2);
+    const again = await upload(makeRosterCsv([{ ...line, consents_decided_on: since }]), true);
+    expect(again.status).toBe(201);
+    expect((await athleteNamed('Yara')).consents.photos).toEqual({ granted: true, decidedOn: since });
+  });
+});

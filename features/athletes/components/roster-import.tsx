@@ -194,11 +194,15 @@ function FileFormat() {
         <Column name="sex" text="F or M (female or male)." />
         <Column name="racket_hand, take_off_leg" text="L or R (left or right)." />
         <Column name="squad" text={squadNames ? `One of: ${squadNames}.` : 'The name of one of the club’s squads.'} />
-        <Column name="photo_consent, email_summaries_consent" text="yes or no (y/n also work). Recorded as decided today." />
+        <Column name="photo_consent, email_summaries_consent" text="yes or no (y/n also work)." />
         <Column name="guardian_email" text="Optional: the e-mail of a parent account already in the club, to link." />
         <Column
           name="screening_consent"
           text="Optional: yes or no, the family's agreement to screens and corrective exercises. Left empty, nothing is recorded: a new athlete is not screened until it is."
+        />
+        <Column
+          name="consents_decided_on"
+          text="Optional: the day the family gave these answers (year-month-day, e.g. the date on their signed form). Left empty, they are dated today."
         />
       </View>
       <Text variant="small">
