@@ -178,6 +178,42 @@ describe('filters, sorting and the CSV rows agree', () => {
     expect(csvRows([waiting])[1]![5]).toBe('Pain reported: waiting for clearance');
   });
 
+  // our choice: a row's knee angles come from one screen, the newest with any; an older value is not mixed in.
+  it('ends each row with the knee angles of the athlete’s newest measured round, and names that round', () => {
+    const [ana, ben, cai] = rows as [TrendAthlete, TrendAthlete, TrendAthlete];
+    const rounds = [
+      { id: 'r1', name: 'Pre-season', screenedOn: '2026-09-01', screened: 2, flagged: {} },
+      { id: 'r2', name: 'Mid-season', screenedOn: '2026-11-10', screened: 1, flagged: {} },
+    ];
+    const L = 'single-leg-squat-left/fppa/left';
+    const R = 'single-leg-squat-right/fppa/right';
+    // Ana: both knees in round 1, only the left in round 2. Ben: round 1 only. Cai: never measured.
+    const kneeAngles = {
+      athleteIds: [ana.id, ben.id],
+      values: {
+        [L]: [
+          [14.2, 6],
+          [9.8, null],
+        ],
+        [R]: [
+          [11, 7.5],
+          [null, null],
+        ],
+      },
+    };
+    const csv = csvRows([ana, ben, cai], { kneeAngles, rounds });
+    expect(csv[0]!.slice(-3)).toEqual([
+      'knee_angles_from_round',
+      'knee_angle_deg_single_leg_squat_left_left_knee',
+      'knee_angle_deg_single_leg_squat_right_right_knee',
+    ]);
+    // Ana's right knee was not measured in round 2: empty, not round 1's 11.0.
+    expect(csv[1]!.slice(-3)).toEqual(['Mid-season (2026-11-10)', '9.8', '']);
+    expect(csv[2]!.slice(-3)).toEqual(['Pre-season (2026-09-01)', '6.0', '7.5']);
+    expect(csv[3]!.slice(-3)).toEqual(['', '', '']);
+    expect(csv.every((row) => row.length === csv[0]!.length)).toBe(true);
+  });
+
   // our choice: an athlete whose family has not agreed to take part is asked for no re-screen.
   it('says why there is no re-screen in the CSV: the family said no, or no decision yet', () => {
     const out = athlete({ firstName: 'Gil', lastName: 'Gray', takingPart: false, screeningRefused: true, rescreenDue: false });

@@ -258,10 +258,40 @@ export function clearanceWords(a: Pick<TrendAthlete, 'clearance' | 'awaitingClea
   return (CLEARANCE_LABELS as Record<string, string>)[a.clearance] ?? a.clearance;
 }
 
-/** The table as CSV rows (header first), in the screen's words; values only, the CSV writer does the quoting. */
-export function csvRows(rows: readonly TrendAthlete[]): string[][] {
+/** 'single-leg-squat-left/fppa/left' -> 'knee_angle_deg_single_leg_squat_left_left_knee': a spreadsheet's column name. */
+export function kneeColumnName(measurementId: string): string {
+  const [scope = '', , side] = measurementId.split('/');
+  return `knee_angle_deg_${scope.replace(/[^a-z0-9]+/gi, '_').toLowerCase()}${side ? `_${side}_knee` : ''}`;
+}
+
+/**
+ * The knee angles of the newest round in which the athlete has any knee angle: that round's name and
+ * date, and one value per measurement (empty where not measured in that round). A value from an older
+ * round is never mixed in (our choice: one row of the CSV reads as one screen).
+ */
+export function newestKneeAngles(k: TrendKneeAngles, rounds: readonly TrendRound[], athleteId: string, ids: readonly string[]) {
+  const series = ids.map((id) => athleteKneeSeries(k, athleteId, id, rounds.length));
+  for (let r = rounds.length - 1; r >= 0; r--) {
+    if (series.some((values) => values[r] !== null)) return { round: rounds[r]!, values: series.map((values) => values[r] ?? null) };
+  }
+  return null;
+}
+
+/**
+ * The table as CSV rows (header first), in the screen's words; values only, the CSV writer does the
+ * quoting. With the season's knee angles, each row ends with the athlete's newest ones (degrees, as measured)
+ * and the round they come from.
+ */
+export function csvRows(rows: readonly TrendAthlete[], season?: { kneeAngles: TrendKneeAngles; rounds: readonly TrendRound[] }): string[][] {
+  const ids = season ? kneeMeasurementIds(season.kneeAngles) : [];
+  const knee = (a: TrendAthlete): string[] => {
+    if (!season) return [];
+    const newest = newestKneeAngles(season.kneeAngles, season.rounds, a.id, ids);
+    if (!newest) return ['', ...ids.map(() => '')];
+    return [`${newest.round.name} (${newest.round.screenedOn})`, ...newest.values.map((v) => (v === null ? '' : v.toFixed(1)))];
+  };
   return [
-    [...CSV_HEADER],
+    [...CSV_HEADER, ...(season ? ['knee_angles_from_round', ...ids.map(kneeColumnName)] : [])],
     ...rows.map((a) => [
       a.lastName,
       a.firstName,
@@ -278,6 +308,7 @@ export function csvRows(rows: readonly TrendAthlete[]): string[][] {
       a.takingPart ? (a.rescreenDue ? 'yes' : 'no') : TAKING_PART_TAGS[a.screeningRefused ? 'refused' : 'unrecorded'].toLowerCase(),
       a.sessionsSinceScreen ? String(a.sessionsSinceScreen.attended) : '',
       a.sessionsSinceScreen ? String(a.sessionsSinceScreen.held) : '',
+      ...knee(a),
     ]),
   ];
 }

@@ -53,7 +53,7 @@ export function progressRouter(db: Db) {
       const name = trends.squad.name.replace(/[^A-Za-z0-9-]+/g, '-').replace(/^-|-$/g, '') || 'squad';
       res.setHeader('Content-Type', 'text/csv; charset=utf-8');
       res.setHeader('Content-Disposition', `attachment; filename="${name}-trends-${trends.today}.csv"`);
-      res.send(stringify(csvRows(trends.athletes)));
+      res.send(stringify(csvRows(trends.athletes, trends)));
       return;
     }
     res.json(trends);

@@ -251,12 +251,13 @@ describe('GET /api/squads/:id/trends', () => {
     expect(csv.headers['content-disposition']).toMatch(/attachment; filename="Under-13-Girls-trends-\d{4}-\d{2}-\d{2}\.csv"/);
     const lines = csv.text.trim().split('\n');
     expect(lines[0]).toBe(
-      'last_name,first_name,sex,age_group,maturity_band,clearance,flags_left,flags_right,flags_both_or_unsided,last_screened_on,days_since_last_screen,rescreen_date,rescreen_due,sessions_since_screen_taken_part,sessions_since_screen_held',
+      'last_name,first_name,sex,age_group,maturity_band,clearance,flags_left,flags_right,flags_both_or_unsided,last_screened_on,days_since_last_screen,rescreen_date,rescreen_due,sessions_since_screen_taken_part,sessions_since_screen_held,knee_angles_from_round,knee_angle_deg_single_leg_squat_right_right_knee',
     );
     expect(lines.slice(1)).toEqual([
-      `Abbott,Ana,female,U13,,,,,,${round2On},20,${addDays(round2On, 42)},no,0,0`,
-      // No session recorded for this squad: none since either screen.
-      `Cole,Cai,female,U13,,,,,,${round1On},100,${addDays(round1On, 42)},yes,0,0`,
+      // No session recorded for this squad: none since either screen. Knee angles worked out above
+      // (dx=20: 11.4212 deg; dx=0: 0 deg), at 0.1 deg, from the athlete's newest round.
+      `Abbott,Ana,female,U13,,,,,,${round2On},20,${addDays(round2On, 42)},no,0,0,Mid-season (${round2On}),11.4`,
+      `Cole,Cai,female,U13,,,,,,${round1On},100,${addDays(round1On, 42)},yes,0,0,Pre-season (${round1On}),0.0`,
     ]);
   });
 

@@ -278,11 +278,12 @@ describe('recording who took part in a session', () => {
     const csv = await as.coach.get(`/api/squads/${ids.squad}/trends?format=csv`);
     expect(csv.status).toBe(200);
     const lines = csv.text.trim().split(/\r?\n/);
-    expect(lines[0]!.split(',').slice(-2)).toEqual(['sessions_since_screen_taken_part', 'sessions_since_screen_held']);
-    const ana = lines.find((l) => l.startsWith('Ames,Ana,'))!;
-    expect(ana.split(',').slice(-2)).toEqual(['1', '3']);
-    const cat = lines.find((l) => l.startsWith('Cole,Cat,'))!;
-    expect(cat.split(',').slice(-2)).toEqual(['', '']);
+    const header = lines[0]!.split(',');
+    const column = (name: string) => header.indexOf(name);
+    expect(column('sessions_since_screen_held')).toBe(column('sessions_since_screen_taken_part') + 1);
+    const sessions = (line: string) => line.split(',').slice(column('sessions_since_screen_taken_part'), column('sessions_since_screen_held') + 1);
+    expect(sessions(lines.find((l) => l.startsWith('Ames,Ana,'))!)).toEqual(['1', '3']);
+    expect(sessions(lines.find((l) => l.startsWith('Cole,Cat,'))!)).toEqual(['', '']);
   });
 
   it("lists each squad's last session and how many took part with the squads (the homes' squad cards)", async () => {
