@@ -55,7 +55,11 @@ test("a coach places one photo's points at the desk in at most 12 actions, and t
   await expect(page.getByTestId('measure-position')).toHaveText('Photo 1 of 2');
   const surface = page.getByTestId('landmark-surface');
   await expect(surface).toBeVisible();
-  if (wide) await expect(page.getByTestId('measure-list')).toBeVisible();
+  if (wide) {
+    // The list names the round its photos come from (the queue may span rounds and squads).
+    await expect(page.getByTestId('measure-list')).toBeVisible();
+    await expect(page.getByTestId(`measure-round-${roundId}`)).toContainText(/Desk wide \d+ · Under-13 mixed · .*2026/);
+  }
 
   // The counted part: every point of the front photo, then save and move on.
   let actions = 0;

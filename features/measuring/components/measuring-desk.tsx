@@ -1,5 +1,5 @@
 import { Link, Redirect } from 'expo-router';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { Fragment, useEffect, useMemo, useRef, useState } from 'react';
 import { Platform, Pressable, StyleSheet, View } from 'react-native';
 import { messageOf } from '@/features/api/client';
 import { useMeasureQueueQuery } from '@/features/measuring/api/get-queue';
@@ -13,6 +13,7 @@ import { can } from '@/features/access/permissions';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
+import { formatDate } from '@/features/ui/format-date';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { scrollToId } from '@/features/ui/scroll-to';
@@ -212,18 +213,27 @@ function Desk({ roundId }: { roundId?: string }) {
     <View style={styles.list} accessibilityRole="list" testID="measure-list">
       {items.map((i, n) => {
         const on = i.photo.id === current.photo.id;
+        // The queue runs newest round first: each round's photos under its name, squad and day.
+        const roundHead =
+          n === 0 || items[n - 1]!.round.id !== i.round.id ? (
+            <Text variant="small" style={styles.roundHead} testID={`measure-round-${i.round.id}`}>
+              {`${i.round.name} · ${i.round.squadName} · ${formatDate(i.round.screenedOn)}`}
+            </Text>
+          ) : null;
         return (
-          <Pressable
-            key={i.photo.id}
-            accessibilityRole="button"
-            aria-current={on}
-            testID={`measure-item-${i.photo.id}`}
-            onPress={() => goTo(n)}
-            style={[styles.item, on && styles.itemOn]}
-          >
-            <Text variant="label">{`${i.athlete.firstName} ${i.athlete.lastName}`}</Text>
-            <Text variant="small">{`${itemTitle(i)} · ${i.placed} of ${i.needed} points`}</Text>
-          </Pressable>
+          <Fragment key={i.photo.id}>
+            {roundHead}
+            <Pressable
+              accessibilityRole="button"
+              aria-current={on}
+              testID={`measure-item-${i.photo.id}`}
+              onPress={() => goTo(n)}
+              style={[styles.item, on && styles.itemOn]}
+            >
+              <Text variant="label">{`${i.athlete.firstName} ${i.athlete.lastName}`}</Text>
+              <Text variant="small">{`${itemTitle(i)} · ${i.placed} of ${i.needed} points`}</Text>
+            </Pressable>
+          </Fragment>
         );
       })}
     </View>
@@ -291,6 +301,7 @@ const styles = StyleSheet.create({
   main: { flex: 1, gap: space.md },
   current: { gap: 2 },
   list: { gap: space.xs },
+  roundHead: { marginTop: space.sm, fontWeight: '600', color: colors.inkMuted },
   item: { minHeight: TOUCH_MIN, padding: space.sm, borderRadius: radius.md, borderWidth: 2, borderColor: colors.line, backgroundColor: colors.surface, gap: 2 },
   itemOn: { borderColor: colors.pine, backgroundColor: colors.pineSoft },
   actions: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
