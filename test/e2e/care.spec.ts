@@ -274,5 +274,16 @@ test("an athlete's page shows the clearance in force at the top, and its clearan
   await page.goto(`/athletes/${referred}`);
   await expect(page.getByTestId('clearance-badge').first()).toContainText('Refer on');
   await page.getByTestId('to-athlete-care').click();
-  await expect(page.getByTestId('clearance-panel')).toBeInViewport();
+  const panel = page.getByTestId('clearance-panel');
+  await expect(panel).toBeInViewport();
+  // Saving with nothing chosen asks for a decision; the field a choice then shows is not in error
+  // before it has been filled in and saved, and nothing is recorded on the way.
+  await page.getByTestId('clearance-save').click();
+  await expect(panel).toContainText('Choose train as normal, train with changes or refer on.');
+  await page.getByTestId('clearance-status').getByRole('radio', { name: 'Train with changes' }).click();
+  await expect(page.getByTestId('clearance-detail')).toBeVisible();
+  await expect(panel).not.toContainText('Say what to change.');
+  await page.getByTestId('clearance-save').click();
+  await expect(panel).toContainText('Say what to change.');
+  await expect(page.getByTestId('clearance-badge').first()).toContainText('Refer on');
 });

@@ -61,7 +61,11 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
             label="New decision"
             options={OPTIONS}
             value={form.values.status}
-            onChange={(v) => form.setFieldValue('status', v)}
+            onChange={(v) => {
+              form.setFieldValue('status', v);
+              // A new choice shows its own field afresh: no error for a field the user has not yet seen.
+              void form.setFieldTouched('detail', false, false);
+            }}
             testID="clearance-status"
             error={form.submitCount > 0 && form.errors.status}
           />
@@ -72,7 +76,7 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
               testID="clearance-detail"
               value={form.values.detail}
               onChangeText={form.handleChange('detail')}
-              error={form.submitCount > 0 && form.errors.detail}
+              error={form.submitCount > 0 && form.touched.detail && form.errors.detail}
             />
           ) : null}
           {form.status ? <Notice tone="error">{String(form.status)}</Notice> : null}
