@@ -90,9 +90,13 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
   const squadOfClub = (...extra: (SQL | undefined)[]) => and(eq(squads.clubId, scope.clubId), ...extra);
 
   return {
-    async list(options: { squadId?: string; includeArchived?: boolean } = {}) {
+    async list(options: { squadId?: string; includeArchived?: boolean } = {}): Promise<AthleteView[]> {
+      // Staff see how many parent accounts are linked to each child (a child with none has no family
+      // reading the club's summaries); parents do not learn of the other adults linked.
+      const staff = can(scope.role, 'guardians.read');
+      const guardianCount = sql<number>`(select count(*)::int from ${guardianLinks} where ${guardianLinks.athleteId} = ${athletes.id})`;
       const rows = await db
-        .select(columns)
+        .select({ ...columns, ...(staff ? { guardianCount } : {}) })
         .from(athletes)
         .leftJoin(squads, eq(squads.id, athletes.squadId))
         .where(inScope(options.squadId ? eq(athletes.squadId, options.squadId) : undefined, options.includeArchived ? undefined : isNull(athletes.archivedAt)))

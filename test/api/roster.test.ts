@@ -382,6 +382,14 @@ describe('guardians', () => {
     const twice = await as.coach.post(`/api/athletes/${ids.child}/guardians`).send({ email: 'second.parent@riverside.test' });
     expect(twice.status).toBe(201);
     expect(twice.body.athlete.guardians).toHaveLength(2);
+    // The list gives staff the number of parent accounts linked to each child (for the admin's home and
+    // the "No parent linked" tag); a parent's list says nothing of the other adults.
+    const countOf = (body: { athletes: { id: string; guardianCount?: number }[] }) => body.athletes.find((a) => a.id === ids.child)?.guardianCount;
+    expect(countOf((await as.coach.get('/api/athletes')).body)).toBe(2);
+    expect(countOf((await as.tester.get('/api/athletes')).body)).toBe(2);
+    const ownList = (await second.get('/api/athletes')).body;
+    expect(ownList.athletes.map((a: { id: string }) => a.id)).toEqual([ids.child]);
+    expect(countOf(ownList)).toBeUndefined();
     const seen = await second.get(`/api/athletes/${ids.child}`);
     expect(seen.status).toBe(200);
     // Parents do not see the other adults linked to the child.
@@ -390,6 +398,7 @@ describe('guardians', () => {
     const unlinked = await as.coach.delete(`/api/athletes/${ids.child}/guardians/${ids.secondParent}`);
     expect(unlinked.status).toBe(200);
     expect(unlinked.body.athlete.guardians).toHaveLength(1);
+    expect(countOf((await as.coach.get('/api/athletes')).body)).toBe(1);
     expect((await second.get(`/api/athletes/${ids.child}`)).status).toBe(403);
     expect((await as.coach.delete(`/api/athletes/${ids.child}/guardians/${ids.secondParent}`)).status).toBe(404);
 

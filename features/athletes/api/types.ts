@@ -19,6 +19,8 @@ export type Athlete = {
   clearance: { status: 'cleared' | 'modified' | 'referred'; detail: string; setByName: string | null; setAt: string } | null;
   /** Club staff only; parents do not see the other adults linked to a child. */
   guardians?: Guardian[];
+  /** In the list, for club staff only: how many parent accounts are linked to the child. */
+  guardianCount?: number;
 };
 export type SquadSummary = {
   id: string;

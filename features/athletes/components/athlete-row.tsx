@@ -1,7 +1,9 @@
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { ageInYears, todayIso } from '@/features/athletes/age';
+import { can } from '@/features/access/permissions';
 import { ClearanceBadge } from '@/features/care/components/clearance-badge';
+import { useActiveClub } from '@/features/session/active-club';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import type { Athlete } from '../api/types';
@@ -9,8 +11,11 @@ import { TAKING_PART_TAGS } from '../taking-part';
 
 /** One athlete in their squad's group of the list (the group names the squad). */
 export function AthleteRow({ athlete }: { athlete: Athlete }) {
+  const { membership } = useActiveClub();
   const noPhotos = athlete.consents.photos?.granted !== true;
   const notTakingPart = athlete.consents.screening?.granted !== true;
+  // For those who link parents (a tester's list stays on what matters courtside).
+  const noParent = athlete.guardianCount === 0 && can(membership.role, 'guardians.manage');
   return (
     <Link href={`/athletes/${athlete.id}`} style={styles.row} testID={`athlete-${athlete.id}`}>
       <View style={styles.inner}>
@@ -27,7 +32,7 @@ export function AthleteRow({ athlete }: { athlete: Athlete }) {
           <View style={[styles.tag, styles.archivedTag]}>
             <Text variant="small">Archived</Text>
           </View>
-        ) : notTakingPart || noPhotos ? (
+        ) : notTakingPart || noPhotos || noParent ? (
           <View style={styles.tags}>
             {notTakingPart ? (
               <View style={styles.tag}>
@@ -41,6 +46,11 @@ export function AthleteRow({ athlete }: { athlete: Athlete }) {
                 <Text variant="small" style={styles.tagText}>
                   No photo consent
                 </Text>
+              </View>
+            ) : null}
+            {noParent ? (
+              <View style={[styles.tag, styles.plainTag]}>
+                <Text variant="small">No parent linked</Text>
               </View>
             ) : null}
           </View>
@@ -58,4 +68,5 @@ const styles = StyleSheet.create({
   tag: { backgroundColor: colors.amberSoft, borderRadius: radius.sm, paddingHorizontal: space.sm, paddingVertical: 2 },
   tagText: { color: colors.amber },
   archivedTag: { backgroundColor: colors.line },
+  plainTag: { backgroundColor: colors.line },
 });

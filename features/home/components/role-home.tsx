@@ -13,7 +13,7 @@ import { Text } from '@/features/ui/components/text';
 import { colors, fonts, space } from '@/features/ui/theme';
 import { HOME_INTROS, homeGreeting } from '../intros';
 import { SquadCards } from './squad-cards';
-import { consentGapLines } from '../consent-gaps';
+import { consentGapLines, hasConsentGaps } from '../consent-gaps';
 
 export function RoleHome() {
   const { membership, me } = useActiveClub();
@@ -78,11 +78,11 @@ function ConsentGaps() {
   if (!lines.length) return null;
   return (
     <Card testID="consent-gaps">
-      <Text variant="heading">Families&apos; decisions</Text>
+      <Text variant="heading">Families</Text>
       {lines.map((l) => (
         <Text key={l}>{l}</Text>
       ))}
-      {athletes.data.athletes.some((a) => !a.archived && (!a.consents.screening || !a.consents.photos)) ? (
+      {hasConsentGaps(athletes.data.athletes) ? (
         <Link href="/athletes" style={styles.link}>
           <Text variant="label">Record them from each athlete&apos;s page →</Text>
         </Link>
