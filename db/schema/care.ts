@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { boolean, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { users } from './auth';
 import { athletes } from './athletes';
@@ -59,6 +60,11 @@ export const clearances = pgTable(
       .references(() => athletes.id, { onDelete: 'restrict' }),
     status: clearanceStatusEnum('status').notNull(),
     detail: text('detail').notNull().default(''),
+    /** "Train with changes": the kinds of work held back ('loaded', 'landing'); empty otherwise. */
+    holds: text('holds')
+      .array()
+      .notNull()
+      .default(sql`'{}'::text[]`),
     setBy: uuid('set_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true, mode: 'date' }).notNull().defaultNow(),
   },

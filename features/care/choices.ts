@@ -13,6 +13,21 @@ export const CLEARANCE_LABELS: Record<ClearanceStatus, string> = {
   referred: 'Refer on',
 };
 
+/**
+ * What "train with changes" may hold back, the same two kinds "refer on" and unreleased pain hold
+ * (`strength-block.ts`): ticked, the plan and the training sheet set that work apart until a new
+ * clearance (our choice). Anything else the physiotherapist says in words.
+ */
+export const CLEARANCE_HOLDS = ['loaded', 'landing'] as const;
+export type ClearanceHold = (typeof CLEARANCE_HOLDS)[number];
+
+/** "Loaded strength work", "Jump and landing work", or both, as the subject of a sentence. */
+export function holdsWords(holds: readonly ClearanceHold[]): string {
+  const loaded = holds.includes('loaded');
+  const landing = holds.includes('landing');
+  return loaded && landing ? 'Loaded strength work and landing work' : loaded ? 'Loaded strength work' : 'Jump and landing work';
+}
+
 /** How long an author may still correct a note; afterwards it is kept as written (our choice). */
 export const NOTE_EDIT_WINDOW_MINUTES = 15;
 

@@ -163,12 +163,23 @@ describe("clearanceWords (our wording: who decided and when, never the team's fr
       'Pat Lee (physiotherapist) asked on 2 October 2026 for Ana to be seen by another health professional; loaded strength and landing work wait until then.',
     ],
   ] as const)('%s', (status, words) => {
-    expect(clearanceWords({ status, detail: 'Knee clinic, Dr X', setByName: 'Pat Lee', setAt }, 'Ana')).toBe(words);
+    expect(clearanceWords({ status, detail: 'Knee clinic, Dr X', holds: [], setByName: 'Pat Lee', setAt }, 'Ana')).toBe(words);
+  });
+
+  it('says what "train with changes" holds back, never the detail', () => {
+    const modified = (holds: ('loaded' | 'landing')[]) =>
+      clearanceWords({ status: 'modified', detail: 'Patellar tendon, clinic X', holds, setByName: 'Pat Lee', setAt }, 'Ana');
+    expect(modified(['landing'])).toBe(
+      'Pat Lee (physiotherapist) cleared Ana to train with some changes on 2 October 2026: jump and landing work waits for now, and the coaches will explain any other change.',
+    );
+    expect(modified(['loaded', 'landing'])).toBe(
+      'Pat Lee (physiotherapist) cleared Ana to train with some changes on 2 October 2026: loaded strength work and landing work wait for now, and the coaches will explain any other change.',
+    );
   });
 
   it('says nothing without a decision, and names no one when the author left', () => {
     expect(clearanceWords(null, 'Ana')).toBeNull();
-    expect(clearanceWords({ status: 'cleared', detail: '', setByName: null, setAt }, 'Ana')).toBe(
+    expect(clearanceWords({ status: 'cleared', detail: '', holds: [], setByName: null, setAt }, 'Ana')).toBe(
       'A physiotherapist cleared Ana to train as normal on 2 October 2026.',
     );
   });

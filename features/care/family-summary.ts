@@ -4,7 +4,7 @@ import { getTask, TASK_IDS, type AssessmentResult, type FlagSide, type PatternId
 import { doseText, perWeekText, setsText } from '@/features/screening/labels';
 import { formatDateInWords } from '@/features/ui/format-date';
 import type { ClearanceView, FamilySummary } from './types';
-import { isHeldUntilCleared, splitByBlock, type StrengthBlock } from './strength-block';
+import { holdsWords, isHeldUntilCleared, splitByBlock, type StrengthBlock } from './strength-block';
 import { capitalise } from '@/features/ui/capitalise';
 
 /** What a parent reads for each pattern (our wording). */
@@ -120,12 +120,16 @@ export function buildFamilySummary(input: {
   // What waits for a clearance, by name: what the hold sets apart here, and what the engine already left
   // out of the plan because pain was reported.
   const heldNames = [...new Set([...held.map((e) => e.name), ...(result.plan.withheld ?? []).map((w) => w.name)])];
-  const onHold =
-    input.block.blocked && heldNames.length > 0
-      ? `${heldNames.join(', ')}: on hold until a physiotherapist clears ${firstName} for loaded strength and landing work.`
-      : input.block.blocked
-        ? `Loaded strength and landing work are on hold until a physiotherapist clears ${firstName}.`
-        : null;
+  const byChanges = input.block.blocked && input.block.reason === 'changes';
+  const onHold = !input.block.blocked
+    ? null
+    : byChanges
+      ? heldNames.length > 0
+        ? `${heldNames.join(', ')}: on hold on the physiotherapist's advice, until they say ${firstName} can start again.`
+        : `${holdsWords(input.block.holds)} ${input.block.holds.length > 1 ? 'are' : 'is'} on hold on the physiotherapist's advice.`
+      : heldNames.length > 0
+        ? `${heldNames.join(', ')}: on hold until a physiotherapist clears ${firstName} for loaded strength and landing work.`
+        : `Loaded strength and landing work are on hold until a physiotherapist clears ${firstName}.`;
 
   return {
     athleteFirstName: firstName,
@@ -164,7 +168,9 @@ export function clearanceWords(clearance: ClearanceView, firstName: string): str
     case 'cleared':
       return `${who} cleared ${firstName} to train as normal on ${day}.`;
     case 'modified':
-      return `${who} cleared ${firstName} to train with some changes on ${day}; the coaches will explain them.`;
+      return clearance.holds?.length
+        ? `${who} cleared ${firstName} to train with some changes on ${day}: ${holdsWords(clearance.holds).toLowerCase()} ${clearance.holds.length > 1 ? 'wait' : 'waits'} for now, and the coaches will explain any other change.`
+        : `${who} cleared ${firstName} to train with some changes on ${day}; the coaches will explain them.`;
     case 'referred':
       return `${who} asked on ${day} for ${firstName} to be seen by another health professional; loaded strength and landing work wait until then.`;
   }

@@ -1,6 +1,5 @@
-import { boolean, mixed, number, object, string, type InferType } from 'yup';
-import { isCalendarDate } from '@/features/athletes/schemas';
-import { AUDIT_SUBJECTS, CLEARANCE_STATUSES, NOTE_VISIBILITIES, type AuditSubject } from './choices';
+import { array, boolean, number, object, string, type InferType } from 'yup';
+import { CLEARANCE_HOLDS, CLEARANCE_STATUSES, NOTE_VISIBILITIES } from './choices';
 
 // One schema per care-team input, used by the forms and by `validateBody` on the server. Pure.
 // The choices and their labels live in `choices.ts`, so a screen that only shows a clearance does not
@@ -32,13 +31,25 @@ export const clearanceSchema = object({
   status: string()
     .oneOf([...CLEARANCE_STATUSES], 'Choose train as normal, train with changes or refer on.')
     .required('Choose train as normal, train with changes or refer on.'),
+  // Only with "train with changes" ("refer on" holds both kinds already; "train as normal" none).
+  holds: array(
+    string()
+      .oneOf([...CLEARANCE_HOLDS], 'Choose loaded strength work or jump and landing work.')
+      .required(),
+  )
+    .default([])
+    .when('status', {
+      is: (status: unknown) => status !== 'modified',
+      then: (s) => s.max(0, 'Only "train with changes" holds back part of the work.'),
+    }),
   detail: string()
     .trim()
     .max(1000, 'Keep this under 1000 characters.')
     .default('')
-    .when('status', {
-      is: 'modified',
-      then: (s) => s.required('Say what to change.'),
+    .when(['status', 'holds'], {
+      // A hold ticked says part of the change; the words may then add to it.
+      is: (status: unknown, holds: unknown) => status === 'modified' && !(Array.isArray(holds) && holds.length > 0),
+      then: (s) => s.required('Tick what to hold back, or say what to change.'),
     })
     .when('status', {
       is: 'referred',
@@ -71,26 +82,3 @@ export const careSettingsSchema = object({
   testersReadTeamNotes: boolean().required(),
 });
 export type CareSettingsInput = InferType<typeof careSettingsSchema>;
-
-/** Filters of the audit trail (query string). */
-/** A filter day: YYYY-MM-DD and a real day of the calendar (2026-13-01 is a clear 400, never a 500). */
-const auditDay = () =>
-  string()
-    .matches(/^\d{4}-\d{2}-\d{2}$/, 'Write the date as YYYY-MM-DD.')
-    .test('calendar', 'This day does not exist in the calendar.', (v) => !v || !/^\d{4}-\d{2}-\d{2}$/.test(v) || isCalendarDate(v))
-    .optional();
-
-export const auditQuerySchema = object({
-  subject: mixed<AuditSubject>()
-    .oneOf([...AUDIT_SUBJECTS, undefined], 'Unknown kind of record.')
-    .optional(),
-  actorId: string().uuid('Unknown person.').optional(),
-  athleteId: string().uuid('Unknown athlete.').optional(),
-  from: auditDay(),
-  to: auditDay().test('after-from', 'The end is before the start.', function (to) {
-    const from = (this.parent as { from?: string }).from;
-    return !to || !from || !isCalendarDate(to) || !isCalendarDate(from) || to >= from;
-  }),
-  format: string().oneOf(['json', 'csv'], 'Format is json or csv.').optional(),
-});
-export type AuditQuery = InferType<typeof auditQuerySchema>;

@@ -46,6 +46,28 @@ describe('splitByBlock', () => {
     expect(split.held.map((e) => e.name)).toEqual(['split squat', 'step-up', 'snap-down']);
   });
 
+  // our choice: "train with changes" holds back only what the physiotherapist ticked, until a new clearance.
+  it('"train with changes" holds back the kinds ticked, and nothing when none is', () => {
+    const all = [bodyweight, loaded, strengthPhase, landing];
+    const changes = (holds: ('loaded' | 'landing')[]) => strengthBlock(ready, { status: 'modified', setAt: '2026-09-15T00:00:00.000Z', holds }, RESULT_AT);
+    const landingOnly = changes(['landing']);
+    expect(landingOnly).toMatchObject({ blocked: true, reason: 'changes', holds: ['landing'] });
+    expect(landingOnly.blocked && landingOnly.words).toBe(
+      "Jump and landing work is on hold: the physiotherapist's changes. It starts again once a physiotherapist records a new clearance.",
+    );
+    expect(splitByBlock(all, landingOnly).held.map((e) => e.name)).toEqual(['snap-down']);
+    expect(splitByBlock(all, changes(['loaded'])).held.map((e) => e.name)).toEqual(['split squat', 'step-up']);
+    expect(splitByBlock(all, changes(['loaded', 'landing'])).now.map((e) => e.name)).toEqual(['bridge']);
+    expect(changes([])).toEqual({ blocked: false });
+    // Pain reported and not cleared since the result: both kinds wait, whatever an older decision ticked.
+    expect(strengthBlock(needsClearance, { status: 'modified', setAt: '2026-09-01T00:00:00.000Z', holds: ['landing'] }, RESULT_AT)).toMatchObject({
+      reason: 'clearance-needed',
+      holds: ['loaded', 'landing'],
+    });
+    // A ticked hold on an older decision left on a later "train as normal" does nothing.
+    expect(strengthBlock(ready, { status: 'cleared', setAt: '2026-09-15T00:00:00.000Z', holds: ['landing'] }, RESULT_AT)).toEqual({ blocked: false });
+  });
+
   it('a referral holds landing work too: a child referred for pain after jumps does no landings', () => {
     const split = splitByBlock([bodyweight, landing], strengthBlock(ready, { status: 'referred', setAt: '2026-09-15T00:00:00.000Z' }, RESULT_AT));
     expect(split.now.map((e) => e.name)).toEqual(['bridge']);

@@ -1,9 +1,11 @@
 // Response shapes of the care-team API, shared by the server and the screens. Pure.
-import type { ClearanceStatus, NoteVisibility } from './choices';
+import type { ClearanceHold, ClearanceStatus, NoteVisibility } from './choices';
 
 export type ClearanceView = {
   status: ClearanceStatus;
   detail: string;
+  /** "Train with changes": the kinds of work held back until a new clearance (empty otherwise). */
+  holds: ClearanceHold[];
   setByName: string | null;
   setAt: string;
 } | null;

@@ -7,8 +7,8 @@
  * current result when someone adjusted it, otherwise the engine's proposal. Loaded strength work is held
  * back by the same rule as on the result screen (`strengthBlock`: pain not yet cleared, or referred on).
  */
-import { splitByBlock, strengthBlock } from '@/features/care/strength-block';
-import type { ClearanceStatus } from '@/features/care/choices';
+import { holdsWords, splitByBlock, strengthBlock } from '@/features/care/strength-block';
+import type { ClearanceHold, ClearanceStatus } from '@/features/care/choices';
 import { rescreenOf } from '@/features/progress/trends';
 import { PHASE_ORDER } from '@/features/screening/engine/exercises';
 import type { Phase, Plan, PlannedExercise, Prescription } from '@/features/screening/engine/types';
@@ -26,7 +26,7 @@ export type SheetMember = {
   /** The newest adjustment of that result, if any. */
   adjusted: { exercises: PlannedExercise[]; at: string; byName: string | null } | null;
   /** The clearance in force (the newest), if any, with the physiotherapist's words. */
-  clearance: { status: ClearanceStatus; setAt: string; detail?: string } | null;
+  clearance: { status: ClearanceStatus; setAt: string; detail?: string; holds?: readonly ClearanceHold[] } | null;
   /** The family agreed to screening and corrective exercises (no decision on record: false). */
   takingPart: boolean;
   /** The family's decision in force is a no (false where none is recorded). */
@@ -129,7 +129,11 @@ export function buildSheet(squad: TrainingSheet['squad'], members: readonly Shee
     const { held } = splitByBlock(exercises, block);
     const heldIds = new Set(held.map((e) => e.id));
     const rescreen = rescreenOf(m.screenedOn, m.plan.rescreenDate, today);
-    const physioChanges = m.clearance?.status === 'modified' ? m.clearance.detail?.trim() || 'Ask the physiotherapist what changes.' : null;
+    const ticked = m.clearance?.holds ?? [];
+    const physioChanges =
+      m.clearance?.status === 'modified'
+        ? m.clearance.detail?.trim() || (ticked.length ? `${holdsWords(ticked)} on hold.` : 'Ask the physiotherapist what changes.')
+        : null;
     athletes.push({
       id: m.id,
       name,

@@ -3,7 +3,7 @@ import { auditActionInWords, auditDetailsInWords, auditSubjectInWords } from '@/
 import { Router } from 'express';
 import { ValidationError } from 'yup';
 import type { Db } from '@/db/client';
-import { auditQuerySchema, type AuditQuery } from '@/features/care/schemas';
+import { auditQuerySchema, type AuditQuery } from './audit-query';
 import { accessGuards, callerClub, scopeOf } from '@/server/access/guard';
 import { badRequest } from '@/server/http/errors';
 import { fieldErrors } from '@/server/http/validate';

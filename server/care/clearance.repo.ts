@@ -1,9 +1,12 @@
 import { and, desc, eq, inArray } from 'drizzle-orm';
 import { clearances, users } from '@/db/schema';
-import type { ClearanceStatus } from '@/features/care/choices';
+import { CLEARANCE_HOLDS, type ClearanceHold, type ClearanceStatus } from '@/features/care/choices';
 import type { ClearanceView } from '@/features/care/types';
 import type { ClubScope } from '@/server/access/scope';
 import type { Executor } from '@/server/screening/screening.repo';
+
+/** The stored holds in the choices' order, unknown words dropped. */
+const holdsOf = (stored: readonly string[]): ClearanceHold[] => CLEARANCE_HOLDS.filter((h) => stored.includes(h));
 
 /** The clearance in force for each athlete (newest decision), keyed by athlete id. */
 export async function latestClearances(db: Executor, athleteIds: readonly string[]): Promise<Map<string, NonNullable<ClearanceView>>> {
@@ -13,6 +16,7 @@ export async function latestClearances(db: Executor, athleteIds: readonly string
       athleteId: clearances.athleteId,
       status: clearances.status,
       detail: clearances.detail,
+      holds: clearances.holds,
       setByName: users.displayName,
       createdAt: clearances.createdAt,
     })
@@ -20,7 +24,9 @@ export async function latestClearances(db: Executor, athleteIds: readonly string
     .leftJoin(users, eq(users.id, clearances.setBy))
     .where(inArray(clearances.athleteId, [...athleteIds]))
     .orderBy(clearances.athleteId, desc(clearances.createdAt), desc(clearances.id));
-  return new Map(rows.map((r) => [r.athleteId, { status: r.status, detail: r.detail, setByName: r.setByName, setAt: r.createdAt.toISOString() }]));
+  return new Map(
+    rows.map((r) => [r.athleteId, { status: r.status, detail: r.detail, holds: holdsOf(r.holds), setByName: r.setByName, setAt: r.createdAt.toISOString() }]),
+  );
 }
 
 export function clearanceRepo(db: Executor, scope: ClubScope) {
@@ -30,17 +36,31 @@ export function clearanceRepo(db: Executor, scope: ClubScope) {
     },
     async history(athleteId: string) {
       const rows = await db
-        .select({ id: clearances.id, status: clearances.status, detail: clearances.detail, setByName: users.displayName, createdAt: clearances.createdAt })
+        .select({
+          id: clearances.id,
+          status: clearances.status,
+          detail: clearances.detail,
+          holds: clearances.holds,
+          setByName: users.displayName,
+          createdAt: clearances.createdAt,
+        })
         .from(clearances)
         .leftJoin(users, eq(users.id, clearances.setBy))
         .where(and(eq(clearances.clubId, scope.clubId), eq(clearances.athleteId, athleteId)))
         .orderBy(desc(clearances.createdAt), desc(clearances.id));
-      return rows.map((r) => ({ id: r.id, status: r.status, detail: r.detail, setByName: r.setByName, setAt: r.createdAt.toISOString() }));
+      return rows.map((r) => ({
+        id: r.id,
+        status: r.status,
+        detail: r.detail,
+        holds: holdsOf(r.holds),
+        setByName: r.setByName,
+        setAt: r.createdAt.toISOString(),
+      }));
     },
-    async add(athleteId: string, status: ClearanceStatus, detail: string) {
+    async add(athleteId: string, status: ClearanceStatus, detail: string, holds: readonly ClearanceHold[] = []) {
       const [row] = await db
         .insert(clearances)
-        .values({ clubId: scope.clubId, athleteId, status, detail, setBy: scope.userId })
+        .values({ clubId: scope.clubId, athleteId, status, detail, holds: status === 'modified' ? [...new Set(holds)] : [], setBy: scope.userId })
         .returning({ id: clearances.id });
       return row!.id;
     },

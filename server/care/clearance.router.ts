@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import type { Db } from '@/db/client';
-import type { ClearanceStatus } from '@/features/care/choices';
+import { CLEARANCE_HOLDS, type ClearanceHold, type ClearanceStatus } from '@/features/care/choices';
 import { clearanceSchema } from '@/features/care/schemas';
 import { and, eq, isNull } from 'drizzle-orm';
 import { athletes } from '@/db/schema';
@@ -19,10 +19,11 @@ export function clearanceRouter(db: Db) {
   router.put('/athletes/:id/clearance', guard('clearance.set', on('athlete')), validateBody(clearanceSchema), async (req, res) => {
     const scope = scopeOf(res);
     const athleteId = id(res);
-    const body = req.body as { status: ClearanceStatus; detail: string };
-    const detail = body.status === 'cleared' ? (body.detail ?? '') : body.detail;
+    const body = req.body as { status: ClearanceStatus; detail: string; holds: ClearanceHold[] };
+    const detail = body.detail ?? '';
+    const holds = body.status === 'modified' ? CLEARANCE_HOLDS.filter((h) => body.holds.includes(h)) : [];
     await db.transaction(async (tx) => {
-      const clearanceId = await clearanceRepo(tx, scope).add(athleteId, body.status, detail);
+      const clearanceId = await clearanceRepo(tx, scope).add(athleteId, body.status, detail, holds);
       await recordAudit(tx, {
         clubId: scope.clubId,
         actorId: scope.userId,
@@ -30,7 +31,7 @@ export function clearanceRouter(db: Db) {
         subjectKind: 'clearance',
         subjectId: clearanceId,
         athleteId,
-        detail: { status: body.status, detail },
+        detail: { status: body.status, detail, ...(holds.length ? { holds } : {}) },
       });
       // The plan follows the decision: held-back work comes back (a new result version) or goes on hold.
       await applyClearance(tx, scope, athleteId, clearanceId, body.status);

@@ -31,7 +31,7 @@ export function trainingRepo(db: Executor, scope: ClubScope) {
                 'status', ar.result #> '{plan,status}', 'exercises', ar.result #> '{plan,exercises}',
                 'growthSpurtAdjusted', ar.result #> '{plan,growthSpurtAdjusted}', 'rescreenDate', ar.result #> '{plan,rescreenDate}') end,
               'adjusted', case when pa.exercises is null then null else json_build_object('exercises', pa.exercises, 'at', pa.created_at, 'byName', u.display_name) end,
-              'clearance', case when c.status is null then null else json_build_object('status', c.status, 'setAt', c.created_at, 'detail', c.detail) end,
+              'clearance', case when c.status is null then null else json_build_object('status', c.status, 'setAt', c.created_at, 'detail', c.detail, 'holds', c.holds) end,
               'takingPart', coalesce(sc.granted, false),
               'screeningRefused', coalesce(not sc.granted, false)
             ) order by m.last_name, m.first_name, m.id), '[]')
@@ -47,7 +47,7 @@ export function trainingRepo(db: Executor, scope: ClubScope) {
               select granted from consents where athlete_id = m.id and kind = 'screening' order by created_at desc limit 1
             ) sc on true
             left join lateral (
-              select status, created_at, detail from clearances where athlete_id = m.id and club_id = $2 order by created_at desc limit 1
+              select status, created_at, detail, holds from clearances where athlete_id = m.id and club_id = $2 order by created_at desc limit 1
             ) c on true
             where m.squad_id = $1 and m.club_id = $2 and m.archived_at is null) as members`,
         [squadId, scope.clubId],

@@ -225,6 +225,84 @@ describe('refer on', () => {
   });
 });
 
+// our choice: "train with changes" sets apart only the kinds of work the physiotherapist ticks, in the
+// plan, the training sheet and the family's view alike, until a new clearance; the rest is said in words.
+describe('train with changes, holding jump and landing work', () => {
+  it('sets landing work apart everywhere, keeps the rest, and tells the family what waits without the team’s words', async () => {
+    const before = (await as.coach.get(`/api/assessments/${ids.kitScreen}`)).body.result.result.plan.exercises as PlannedExercise[];
+    const landing = before.filter((e) => e.isJump).map((e) => e.name);
+    const loaded = loadedNames(before);
+    expect(landing.length).toBeGreaterThan(0);
+    expect(loaded.length).toBeGreaterThan(0);
+
+    // Refused, nothing recorded: holds with another decision, an unknown hold, changes said in no way.
+    const inForce = (await as.physio.get(`/api/athletes/${ids.kit}/clearance`)).body.clearance;
+    const refused = [
+      { status: 'cleared', holds: ['landing'] },
+      { status: 'referred', detail: 'Clinic', holds: ['loaded'] },
+      { status: 'modified', holds: ['sprinting'] },
+      { status: 'modified', holds: [], detail: ' ' },
+    ];
+    for (const body of refused) {
+      const res = await as.physio.put(`/api/athletes/${ids.kit}/clearance`).send(body);
+      expect(res.status, JSON.stringify(body)).toBe(400);
+    }
+    const silent = await as.physio.put(`/api/athletes/${ids.kit}/clearance`).send({ status: 'modified', holds: [] });
+    expect(silent.body.error.fields.detail).toBe('Tick what to hold back, or say what to change.');
+    expect((await as.physio.get(`/api/athletes/${ids.kit}/clearance`)).body.clearance).toEqual(inForce);
+
+    const set = await as.physio
+      .put(`/api/athletes/${ids.kit}/clearance`)
+      .send({ status: 'modified', holds: ['landing'], detail: 'Patellar tendon: see notes' });
+    expect(set.status).toBe(200);
+    expect(set.body.clearance).toMatchObject({ status: 'modified', holds: ['landing'] });
+
+    const care = (await as.tester.get(`/api/assessments/${ids.kitScreen}/care`)).body.care;
+    expect(care.block).toMatchObject({ blocked: true, reason: 'changes', holds: ['landing'] });
+    expect(care.block.words).toBe(
+      "Jump and landing work is on hold: the physiotherapist's changes. It starts again once a physiotherapist records a new clearance.",
+    );
+
+    const sheet = (await as.coach.get(`/api/squads/${ids.squad}/training-sheet`)).body as {
+      athletes: { id: string; hold: string | null; physioChanges: string | null }[];
+      exercises: { name: string; entries: { athleteId: string; held: boolean }[] }[];
+    };
+    expect(sheet.athletes.find((a) => a.id === ids.kit)).toMatchObject({ hold: care.block.words, physioChanges: 'Patellar tendon: see notes' });
+    const kitHeld = sheet.exercises.flatMap((e) => e.entries.filter((x) => x.athleteId === ids.kit).map((x) => [e.name, x.held] as const));
+    expect(
+      kitHeld
+        .filter(([, held]) => held)
+        .map(([name]) => name)
+        .sort(),
+    ).toEqual([...landing].sort());
+    expect(kitHeld.filter(([name]) => loaded.includes(name)).every(([, held]) => !held)).toBe(true);
+
+    const family = (await as.parent.get(`/api/athletes/${ids.kit}/summary`)).body.latest.summary as FamilySummary;
+    expect(family.exercises.map((e) => e.name)).not.toEqual(expect.arrayContaining([landing[0]]));
+    expect(family.exercises.map((e) => e.name)).toEqual(expect.arrayContaining(loaded));
+    expect(family.onHold).toBe(`${landing.join(', ')}: on hold on the physiotherapist's advice, until they say Kit can start again.`);
+    expect(family.clearance).toMatch(
+      /cleared Kit to train with some changes on .*: jump and landing work waits for now, and the coaches will explain any other change\.$/,
+    );
+    expect(JSON.stringify(family)).not.toContain('Patellar');
+
+    const [entry] = await testDb.db
+      .select({ detail: auditEvents.detail })
+      .from(auditEvents)
+      .where(and(eq(auditEvents.athleteId, ids.kit!), eq(auditEvents.subjectKind, 'clearance'), eq(auditEvents.action, 'set')))
+      .orderBy(sql`${auditEvents.createdAt} desc`)
+      .limit(1);
+    expect(entry!.detail).toEqual({ status: 'modified', detail: 'Patellar tendon: see notes', holds: ['landing'] });
+
+    // A new clearance lifts it.
+    expect((await as.physio.put(`/api/athletes/${ids.kit}/clearance`).send({ status: 'cleared' })).status).toBe(200);
+    expect((await as.tester.get(`/api/assessments/${ids.kitScreen}/care`)).body.care.block).toEqual({ blocked: false });
+    const lifted = (await as.parent.get(`/api/athletes/${ids.kit}/summary`)).body.latest.summary as FamilySummary;
+    expect(lifted.onHold).toBeNull();
+    expect(lifted.exercises.map((e) => e.name)).toEqual(expect.arrayContaining(landing));
+  });
+});
+
 describe('a clearance given before the screen', () => {
   it('does not clear pain reported at a later screen; the summary e-mail sent after the clearance has the loaded work back', async () => {
     expect((await as.physio.put(`/api/athletes/${ids.lou}/clearance`).send({ status: 'cleared' })).status).toBe(200);

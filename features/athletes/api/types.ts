@@ -1,3 +1,4 @@
+import type { ClearanceView } from '@/features/care/types';
 import type { ConsentKind, RosterColumn } from '../schemas';
 
 export type ConsentView = { granted: boolean; decidedOn: string } | null;
@@ -16,7 +17,7 @@ export type Athlete = {
   archived: boolean;
   consents: { screening: ConsentView; photos: ConsentView; emailSummaries: ConsentView };
   /** The physiotherapist's clearance in force (newest decision), or null when none was recorded. */
-  clearance: { status: 'cleared' | 'modified' | 'referred'; detail: string; setByName: string | null; setAt: string } | null;
+  clearance: ClearanceView;
   /** Club staff only; parents do not see the other adults linked to a child. */
   guardians?: Guardian[];
   /** In the list, for club staff only: how many parent accounts are linked to the child. */

@@ -11,7 +11,7 @@ import { TextField } from '@/features/ui/components/text-field';
 import { space } from '@/features/ui/theme';
 import { useClearanceOf } from '../api/get-clearances';
 import { useSetClearanceMutation } from '../api/set-clearance';
-import { CLEARANCE_LABELS, CLEARANCE_STATUSES, type ClearanceStatus } from '../choices';
+import { CLEARANCE_LABELS, CLEARANCE_STATUSES, holdsWords, type ClearanceHold, type ClearanceStatus } from '../choices';
 import { clearanceSchema } from '../schemas';
 import { ClearanceBadge } from './clearance-badge';
 import { Chips } from '@/features/ui/components/chips';
@@ -19,6 +19,20 @@ import { formatDate } from '@/features/ui/format-date';
 
 const OPTIONS = CLEARANCE_STATUSES.map((s) => ({ value: s, label: CLEARANCE_LABELS[s] }));
 const DETAIL_LABEL: Record<ClearanceStatus, string> = { cleared: 'Remarks (optional)', modified: 'What to change', referred: 'Referred to whom' };
+/** The two holds as one choice of four (a tick box each would be one more control to load for two boxes). */
+const HOLD_CHOICES = { none: [], loaded: ['loaded'], landing: ['landing'], both: ['loaded', 'landing'] } as const satisfies Record<
+  string,
+  readonly ClearanceHold[]
+>;
+type HoldChoice = keyof typeof HOLD_CHOICES;
+const HOLD_OPTIONS: { value: HoldChoice; label: string }[] = [
+  { value: 'none', label: 'Nothing: said in words' },
+  { value: 'loaded', label: 'Loaded strength work' },
+  { value: 'landing', label: 'Jumps and landings' },
+  { value: 'both', label: 'Both' },
+];
+const holdChoiceOf = (holds: readonly ClearanceHold[]): HoldChoice =>
+  holds.includes('loaded') ? (holds.includes('landing') ? 'both' : 'loaded') : holds.includes('landing') ? 'landing' : 'none';
 
 /** The clearance in force, and for a physiotherapist the form to record a new decision. */
 export function ClearancePanel({ athleteId }: { athleteId: string }) {
@@ -27,7 +41,7 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
   const set = useSetClearanceMutation(athleteId);
   const canSet = can(membership.role, 'clearance.set');
   const form = useFormik({
-    initialValues: { status: '' as ClearanceStatus | '', detail: '' },
+    initialValues: { status: '' as ClearanceStatus | '', detail: '', holds: [] as ClearanceHold[] },
     validationSchema: clearanceSchema,
     onSubmit: async (values, helpers) => {
       try {
@@ -46,6 +60,9 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
       {clearance ? (
         <View style={styles.current}>
           <ClearanceBadge clearance={clearance} />
+          {clearance.holds.length ? (
+            <Text testID="clearance-holds">{`On hold until a new clearance: ${holdsWords(clearance.holds).toLowerCase()}.`}</Text>
+          ) : null}
           {clearance.detail ? <Text>{clearance.detail}</Text> : null}
           <Text variant="small">
             {clearance.setByName ?? 'Former member'} · {formatDate(clearance.setAt)}
@@ -63,15 +80,29 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
             value={form.values.status}
             onChange={(v) => {
               form.setFieldValue('status', v);
+              if (v !== 'modified') form.setFieldValue('holds', []);
               // A new choice shows its own field afresh: no error for a field the user has not yet seen.
               void form.setFieldTouched('detail', false, false);
             }}
             testID="clearance-status"
             error={form.submitCount > 0 && form.errors.status}
           />
+          {form.values.status === 'modified' ? (
+            <Chips
+              variant="form"
+              label="What waits until a new clearance"
+              options={HOLD_OPTIONS}
+              value={holdChoiceOf(form.values.holds)}
+              onChange={(v) => form.setFieldValue('holds', HOLD_CHOICES[v])}
+              testID="clearance-holds-choice"
+            />
+          ) : null}
           {form.values.status ? (
             <TextField
-              label={DETAIL_LABEL[form.values.status]}
+              label={form.values.status === 'modified' && form.values.holds.length ? 'Other changes (optional)' : DETAIL_LABEL[form.values.status]}
+              multiline
+              numberOfLines={3}
+              style={styles.detail}
               hint="Read by the club's coaches and testers (training sheet, athlete page), never by the family: the family reads the decision only."
               testID="clearance-detail"
               value={form.values.detail}
@@ -82,7 +113,8 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
           {form.status ? <Notice tone="error">{String(form.status)}</Notice> : null}
           <Button label="Record clearance" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="clearance-save" />
           <Text variant="small" testID="clearance-effect">
-            The plan and the training sheet follow the decision at once. A summary already shared with the family is updated to say it, without a new e-mail.
+            The plan and the training sheet follow the decision at once: what is ticked above is set apart there; other changes are shown in your words. A
+            summary already shared with the family is updated to say it, without a new e-mail.
           </Text>
         </View>
       ) : null}
@@ -93,4 +125,5 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
 const styles = StyleSheet.create({
   current: { gap: space.xs },
   form: { gap: space.md },
+  detail: { minHeight: 88, textAlignVertical: 'top' },
 });

@@ -54,6 +54,12 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
       {takingPart?.granted ? null : (
         <NotTakingPart athlete={athlete} stoppedOn={takingPart?.decidedOn ?? null} hasPlan={!!latest && latest.summary.exercises.length > 0} />
       )}
+      {/* First after the name: the decision a parent acts on (what waits, who to see), not a card away. */}
+      {latest?.summary.clearance ? (
+        <Notice title="Physiotherapist's decision" testID="family-clearance">
+          {`${latest.summary.clearance} Any question: ask the person under “Who to ask” below.`}
+        </Notice>
+      ) : null}
       {!latest ? (
         <Notice title="No summary yet">{`When ${athlete.firstName}'s next screen has been reviewed and shared with you, its summary appears here.`}</Notice>
       ) : (
@@ -156,11 +162,6 @@ function Plan({ summary, sessions }: { summary: FamilySummary; sessions: FamilyV
       {summary.onHold ? (
         <Notice tone="error" title="On hold for now">
           {summary.onHold}
-        </Notice>
-      ) : null}
-      {summary.clearance ? (
-        <Notice title="Physiotherapist's decision" testID="family-clearance">
-          {summary.clearance}
         </Notice>
       ) : null}
       {summary.exercises.map((e) => (

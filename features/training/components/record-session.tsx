@@ -240,7 +240,11 @@ function RecordForm({
               <Text style={styles.tickName}>{a.name}</Text>
               {a.state !== 'plan' ? <Text variant="small">no plan</Text> : null}
               {/* What the sheet says at the top, beside the name: taking part is not doing everything. */}
-              {a.hold ? <Text variant="small">loads, landings on hold</Text> : a.physioChanges ? <Text variant="small">physio&apos;s changes</Text> : null}
+              {a.hold ? (
+                <Text variant="small">{a.physioChanges ? "physio's changes, work on hold" : 'loads, landings on hold'}</Text>
+              ) : a.physioChanges ? (
+                <Text variant="small">physio&apos;s changes</Text>
+              ) : null}
             </Pressable>
           );
         })}

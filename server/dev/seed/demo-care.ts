@@ -69,7 +69,7 @@ async function seedIn(db: Db, ids: Pick<DemoIds, 'clubId' | 'athleteIds'>, publi
   });
   const clearances = clearanceRepo(db, scope);
   const others = ids.athleteIds.filter((id) => !okafor.some((o) => o.id === id));
-  const modified = await clearances.add(others[2]!, 'modified', 'No drop landings for three weeks; everything else as planned.');
+  const modified = await clearances.add(others[2]!, 'modified', 'No drop landings for three weeks; everything else as planned.', ['landing']);
   const referred = await clearances.add(others[7]!, 'referred', 'Sports physician at the district clinic, for knee pain after jumps.');
   const cleared = await clearances.add(maya.id, 'cleared', '');
   await recordAudit(
@@ -83,7 +83,7 @@ async function seedIn(db: Db, ids: Pick<DemoIds, 'clubId' | 'athleteIds'>, publi
       subjectKind: 'clearance',
       subjectId: modified,
       athleteId: others[2]!,
-      detail: { status: 'modified' },
+      detail: { status: 'modified', holds: ['landing'] },
     },
     {
       clubId: ids.clubId,

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { CLEARANCE_LABELS } from '@/features/care/choices';
-import { splitByBlock, type StrengthBlock } from '@/features/care/strength-block';
+import { holdsWords, splitByBlock, type StrengthBlock } from '@/features/care/strength-block';
 import type { ClearanceView } from '@/features/care/types';
 import type { PlanAdjustmentView, ResultView } from '@/features/screening/contract';
 import type { PlannedExercise } from '@/features/screening/engine';
@@ -18,6 +18,7 @@ import { colors, fonts, radius, space } from '@/features/ui/theme';
 import { ExerciseCard } from './exercise-card';
 import { PlanEditor } from './plan-editor';
 import { formatDate } from '@/features/ui/format-date';
+import { scrollToId } from '@/features/ui/scroll-to';
 
 /** "Dropped: …; added: …; re-dosed: …" against the engine's proposal. */
 function changeSummary(adjusted: PlannedExercise[], proposal: PlannedExercise[]): string {
@@ -53,9 +54,12 @@ type Props = {
   hold: PlanHold;
 };
 
+const PLAN_TOP = 'plan-top';
+
 const UNKNOWN_HOLD: StrengthBlock = {
   blocked: true,
   reason: 'clearance-needed',
+  holds: ['loaded', 'landing'],
   words: "The physiotherapist's clearance could not be read: loaded strength and landing work are shown as on hold until it can.",
 };
 
@@ -74,7 +78,7 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, massKg, canAdju
   const { now, held } = splitByBlock(shown, block);
 
   return (
-    <View style={styles.wrap} testID="plan">
+    <View style={styles.wrap} testID="plan" nativeID={PLAN_TOP}>
       <Text variant="heading" accessibilityRole="header" aria-level={2}>
         Corrective plan
       </Text>
@@ -181,6 +185,9 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, massKg, canAdju
               onPress={() => {
                 setShowProposal(false);
                 setEditing(true);
+                // The button sits under the list; the editor opens in its place: its first exercise, not
+                // its last buttons, should meet the eye.
+                setTimeout(() => scrollToId(PLAN_TOP), 0);
               }}
             />
           ) : null}
@@ -239,11 +246,15 @@ function HeldWork({
   withheld: { id: string; name: string; reason: string }[];
 }) {
   if (held.length === 0 && withheld.length === 0 && !block.blocked) return null;
+  const who = `${clearance?.setByName ?? 'a physiotherapist'}`;
+  const when = clearance ? formatDate(clearance.setAt) : 'a recent date';
   const reason = !block.blocked
     ? null
     : block.reason === 'referred'
-      ? `Refer on: ${clearance?.setByName ?? 'a physiotherapist'} referred the athlete on ${clearance ? formatDate(clearance.setAt) : 'a recent date'}${clearance?.detail ? ` (${clearance.detail})` : ''}. Loaded strength work and landing work wait until a physiotherapist clears the athlete.`
-      : block.words;
+      ? `Refer on: ${who} referred the athlete on ${when}${clearance?.detail ? ` (${clearance.detail})` : ''}. Loaded strength work and landing work wait until a physiotherapist clears the athlete.`
+      : block.reason === 'changes'
+        ? `Train with changes: set by ${who} on ${when}${clearance?.detail ? ` (${clearance.detail})` : ''}. ${block.words}`
+        : `Clearance needed: ${block.words}`;
   return (
     <View style={styles.held} testID="plan-held">
       <Text variant="heading" style={styles.heldTitle}>
@@ -251,7 +262,7 @@ function HeldWork({
       </Text>
       {reason ? (
         <Text testID="plan-held-reason" style={styles.heldReason}>
-          {block.blocked && block.reason === 'referred' ? reason : `Clearance needed: ${reason}`}
+          {reason}
         </Text>
       ) : null}
       {held.map((ex, i) => (
@@ -260,7 +271,11 @@ function HeldWork({
         </View>
       ))}
       {block.blocked && held.length === 0 && withheld.length === 0 ? (
-        <Text variant="small">Nothing in this plan is loaded strength or landing work.</Text>
+        <Text variant="small">
+          {block.holds.length > 1
+            ? 'Nothing in this plan is loaded strength or landing work.'
+            : `Nothing in this plan is ${holdsWords(block.holds).toLowerCase()}.`}
+        </Text>
       ) : null}
       {withheld.length > 0 ? (
         <View style={styles.withheld} testID="plan-withheld">

@@ -1,0 +1,1 @@
+ALTER TABLE "clearances" ADD COLUMN "holds" text[] DEFAULT '{}'::text[] NOT NULL;
