@@ -1,58 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { athleteSchema, consentSchema, isCalendarDate, rosterRowSchema, withDateDashes } from './schemas';
+import { athleteSchema, consentSchema, isCalendarDate, withDateDashes } from './schemas';
 
 const dobAged = (years: number) => `${new Date().getUTCFullYear() - years - 1}-11-15`;
-
-const line = (overrides: Record<string, string> = {}) => ({
-  first_name: 'Ines',
-  last_name: 'Marlow',
-  date_of_birth: dobAged(11),
-  sex: 'F',
-  racket_hand: 'R',
-  take_off_leg: 'L',
-  squad: 'Under-13',
-  photo_consent: 'yes',
-  email_summaries_consent: 'no',
-  guardian_email: '',
-  ...overrides,
-});
-
-describe('rosterRowSchema: spreadsheet shorthands (Squadline’s own import format)', () => {
-  it.each([
-    ['sex', 'F', 'female'],
-    ['sex', ' male ', 'male'],
-    ['sex', 'm', 'male'],
-    ['racket_hand', 'l', 'left'],
-    ['racket_hand', 'RIGHT', 'right'],
-    ['take_off_leg', 'R', 'right'],
-    ['photo_consent', 'Y', true],
-    ['photo_consent', 'true', true],
-    ['photo_consent', 'No', false],
-    ['email_summaries_consent', 'n', false],
-    ['email_summaries_consent', 'FALSE', false],
-    ['guardian_email', ' Parent@Example.TEST ', 'parent@example.test'],
-    ['guardian_email', '', undefined],
-    ['screening_consent', 'y', true],
-    ['screening_consent', 'NO', false],
-    // Empty: no decision recorded (the athlete is not screened until one is).
-    ['screening_consent', '', undefined],
-  ])('%s "%s" reads as %j', async (column, cell, expected) => {
-    const row = await rosterRowSchema.validate(line({ [column]: cell }));
-    expect(row[column as keyof typeof row]).toEqual(expected);
-  });
-
-  it.each([
-    ['sex', 'x', /F or M/],
-    ['racket_hand', 'both', /L or R/],
-    ['photo_consent', 'maybe', /yes or no/],
-    ['photo_consent', '', /yes or no/],
-    ['screening_consent', 'maybe', /yes or no for the screening and exercises consent/],
-    ['date_of_birth', '2014/03/09', /YYYY-MM-DD/],
-    ['squad', ' ', /squads/],
-  ])('%s "%s" is refused', async (column, cell, message) => {
-    await expect(rosterRowSchema.validate(line({ [column]: cell }))).rejects.toThrow(message);
-  });
-});
 
 describe('date of birth: juniors aged 6 to 19 today', () => {
   it.each([

@@ -56,9 +56,9 @@ export const isoDate = (what: string) =>
     // Nobody on a junior roster was born, or decided anything, before 1900: a typing error (our choice).
     .test('since-1900', 'Check the year: dates before 1900 are not accepted.', (v) => !v || !ISO_DATE.test(v) || v >= '1900-01-01');
 
-const name = (what: string) => string().trim().required(`Enter the ${what}.`).max(60, `Keep the ${what} under 60 characters.`);
+export const name = (what: string) => string().trim().required(`Enter the ${what}.`).max(60, `Keep the ${what} under 60 characters.`);
 
-const dateOfBirth = isoDate('date of birth').test('junior-age', function check(value) {
+export const dateOfBirth = isoDate('date of birth').test('junior-age', function check(value) {
   if (!value || !isCalendarDate(value)) return true;
   const today = todayIso();
   if (value > today) return this.createError({ message: 'The date of birth is in the future.' });
@@ -79,7 +79,7 @@ const side = (what: string) =>
     .oneOf([...SIDE_VALUES], `Choose the ${what}.`)
     .required(`Choose the ${what}.`);
 const squadId = string().trim().required('Choose a squad.').uuid('Choose a squad.');
-const email = string().trim().lowercase().email('Enter a valid e-mail address.');
+export const email = string().trim().lowercase().email('Enter a valid e-mail address.');
 
 // ---------------------------------------------------------------------------------------------------
 // Athletes
@@ -114,7 +114,7 @@ const consentKind = string()
 const consentGranted = boolean().typeError('Choose yes or no.').required('Choose yes or no.');
 
 /** The day a family's decision was given: a calendar day, not in the future. */
-const decisionDate = (what: string) =>
+export const decisionDate = (what: string) =>
   isoDate(what).test('not-future', 'The decision cannot be dated in the future.', (v) => {
     if (!v || !isCalendarDate(v)) return true;
     // One day of slack: the phone's day may already be tomorrow in UTC terms, or not yet.
@@ -183,57 +183,3 @@ export const ROSTER_COLUMN_LABELS: Record<RosterColumn | 'row', string> = {
   consents_decided_on: 'Date of the decisions',
   row: 'This line',
 };
-
-const SEX_ALIASES: Record<string, Sex> = { f: 'female', female: 'female', m: 'male', male: 'male' };
-const SIDE_ALIASES: Record<string, Side> = { l: 'left', left: 'left', r: 'right', right: 'right' };
-const YES = new Set(['yes', 'y', 'true']);
-const NO = new Set(['no', 'n', 'false']);
-
-const alias =
-  <T extends string>(map: Record<string, T>) =>
-  (value: unknown) =>
-    typeof value === 'string' ? (map[value.trim().toLowerCase()] ?? value.trim()) : value;
-
-const yesNo = (what: string) =>
-  boolean()
-    .transform((_value, original: unknown) => {
-      if (typeof original !== 'string') return original;
-      const v = original.trim().toLowerCase();
-      return YES.has(v) ? true : NO.has(v) ? false : v === '' ? undefined : original;
-    })
-    .typeError(`Write yes or no for the ${what}.`)
-    .required(`Write yes or no for the ${what}.`);
-
-export const rosterRowSchema = object({
-  first_name: name('first name'),
-  last_name: name('last name'),
-  date_of_birth: dateOfBirth,
-  sex: string()
-    .transform(alias(SEX_ALIASES))
-    .oneOf([...SEX_VALUES], 'Write F or M (or female, male).')
-    .required('Write F or M (or female, male).'),
-  racket_hand: string()
-    .transform(alias(SIDE_ALIASES))
-    .oneOf([...SIDE_VALUES], 'Write L or R (or left, right).')
-    .required('Write L or R (or left, right).'),
-  take_off_leg: string()
-    .transform(alias(SIDE_ALIASES))
-    .oneOf([...SIDE_VALUES], 'Write L or R (or left, right).')
-    .required('Write L or R (or left, right).'),
-  squad: string().trim().required('Name one of the club’s squads.'),
-  photo_consent: yesNo('photo consent'),
-  email_summaries_consent: yesNo('e-mail summaries consent'),
-  guardian_email: email.transform((v: unknown) => (v === '' ? undefined : v)).optional(),
-  // Left out or left empty: no decision is recorded (the athlete is not screened until one is).
-  screening_consent: yesNo('screening and exercises consent').optional(),
-  // The day the family gave the line's consent answers (a paper form signed before the import); left out
-  // or empty, they are dated the day of the import.
-  consents_decided_on: decisionDate('date of the decisions')
-    .transform((v: unknown) => (v === '' ? undefined : v))
-    .notRequired()
-    .test('after-birth', 'The decisions are dated before the date of birth.', function check(v) {
-      const born: unknown = this.parent?.date_of_birth;
-      return !v || typeof born !== 'string' || !isCalendarDate(v) || !isCalendarDate(born) || v >= born;
-    }),
-});
-export type RosterRow = InferType<typeof rosterRowSchema>;

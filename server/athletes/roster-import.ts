@@ -4,7 +4,8 @@ import { ValidationError } from 'yup';
 import type { Db } from '@/db/client';
 import { todayIso } from '@/features/athletes/age';
 import { ROLE_LABELS } from '@/features/access/permissions';
-import { OPTIONAL_ROSTER_COLUMNS, ROSTER_COLUMNS, ROSTER_HEADER_LINE, rosterRowSchema, type RosterColumn, type RosterRow } from '@/features/athletes/schemas';
+import { OPTIONAL_ROSTER_COLUMNS, ROSTER_COLUMNS, ROSTER_HEADER_LINE, type RosterColumn } from '@/features/athletes/schemas';
+import { rosterRowSchema, type RosterRow } from './roster-row';
 import type { ClubScope } from '@/server/access/scope';
 import { badRequest } from '@/server/http/errors';
 import { fieldErrors } from '@/server/http/validate';
@@ -150,8 +151,16 @@ function laterDecisionOnRecord(current: AthleteView, row: RosterRow): string | u
     { label: 'screening and exercises consent', inForce: current.consents.screening, granted: row.screening_consent },
   ];
   const later = asked.find((a) => a.granted !== undefined && a.inForce && a.inForce.granted !== a.granted && a.inForce.decidedOn > decidedOn);
-  if (!later?.inForce) return undefined;
-  return `A later decision is on record for the ${later.label} (${later.inForce.granted ? 'yes' : 'no'}, decided ${later.inForce.decidedOn}), after ${decidedOn}: it stands. Write the answer on record in this line, or, if the family has decided again since, the day they did.`;
+  if (later?.inForce) {
+    return `A later decision is on record for the ${later.label} (${later.inForce.granted ? 'yes' : 'no'}, decided ${later.inForce.decidedOn}), after ${decidedOn}: it stands. Write the answer on record in this line, or, if the family has decided again since, the day they did.`;
+  }
+  // A "no" on record turned into a "yes" by a file: only with the day the family agreed again, after the
+  // "no" (an old spreadsheet imported again must not undo a withdrawal; our rule).
+  const undone = asked.find((a) => a.granted === true && a.inForce?.granted === false);
+  if (undone?.inForce && !(row.consents_decided_on && row.consents_decided_on > undone.inForce.decidedOn)) {
+    return `The family's “no” to the ${undone.label} (decided ${undone.inForce.decidedOn}) would become a yes. Write the day they agreed again, after ${undone.inForce.decidedOn}, in this column, or keep “no” in the line; a yes can also be recorded on the athlete's page.`;
+  }
+  return undefined;
 }
 
 /** Checks each line against the form's rules and the club's data; writes nothing. */

@@ -290,6 +290,14 @@ describe('the roster import’s optional consents_decided_on column', () => {
     // The same answer as the one on record, on an old form, changes nothing and is no error.
     const same = await upload(makeRosterCsv([{ ...line, photo_consent: 'no', consents_decided_on: daysAgo(40) }]));
     expect(same.body.rows[0]).toMatchObject({ ok: true, changes: [] });
+    // The same "yes" with no date in the file (an old spreadsheet imported again): a "no" is not undone
+    // without the day the family agreed again.
+    const undated = await upload(makeRosterCsv([{ ...line, consents_decided_on: '' }]), true);
+    expect(undated.status).toBe(400);
+    expect(undated.body.rows[0].errors.consents_decided_on).toBe(
+      `The family's “no” to the photo consent (decided ${withdrawn}) would become a yes. Write the day they agreed again, after ${withdrawn}, in this column, or keep “no” in the line; a yes can also be recorded on the athlete's page.`,
+    );
+    expect((await athleteNamed('Yara')).consents.photos).toEqual({ granted: false, decidedOn: withdrawn });
     const since = daysAgo(2);
     const again = await upload(makeRosterCsv([{ ...line, consents_decided_on: since }]), true);
     expect(again.status).toBe(201);

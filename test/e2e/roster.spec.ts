@@ -119,12 +119,16 @@ test('a head coach imports a CSV: a line with an error first, then a clean file'
   await expect(updates).toHaveCount(1);
   await expect(updates).toContainText(`Line 2: Alva ${lastName}`);
   await expect(updates).toContainText('photo consent: yes → no');
+  // A consent answer changed by the file stands out from the other changes.
+  await expect(updates.getByTestId('import-consent-change')).toHaveText(/^⚠ photo consent: yes → no · consent answers dated today/);
   await expect(page.getByTestId('import-commit')).toHaveText('Import 1 new, update 1');
   await page.screenshot({ path: testInfo.outputPath('import-update-report.png'), fullPage: true });
   const before = await (await page.request.get('/api/athletes')).json();
   expect(before.athletes.filter((x: { lastName: string }) => x.lastName === lastName)).toHaveLength(2);
   await page.getByTestId('import-commit').click();
   await expect(page.getByTestId('import-done')).toContainText('1 new athlete imported, 1 updated');
+  // Brought into view: the button sat under the report, at the foot of a phone's screen.
+  await expect(page.getByTestId('import-done')).toBeInViewport();
   const after = await (await page.request.get('/api/athletes')).json();
   const ours = after.athletes.filter((x: { lastName: string }) => x.lastName === lastName);
   expect(ours).toHaveLength(3);

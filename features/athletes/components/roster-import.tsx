@@ -1,6 +1,6 @@
 import { plural } from '@/features/ui/plural';
 import { Link } from 'expo-router';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { ApiError } from '@/features/api/client';
 import { useBreakpoints } from '@/features/ui/breakpoints';
@@ -8,6 +8,7 @@ import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
+import { scrollToId } from '@/features/ui/scroll-to';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { useSquadsQuery } from '../api/get-squads';
 import { useCheckRosterMutation, useImportRosterMutation, type RosterFile } from '../api/import-roster';
@@ -40,15 +41,20 @@ export function RosterImport() {
   };
   const report = check.data;
   const done = commit.data;
+  // The button sat under a long report: on a phone the result would be above the screen's top.
+  useEffect(() => {
+    if (done) scrollToId(DONE_ANCHOR);
+  }, [done]);
 
   return (
     <View style={[styles.cols, isWide && styles.colsWide]}>
-      <Card style={isWide ? styles.mainCol : undefined}>
+      <Card style={isWide ? styles.mainCol : undefined} nativeID={DONE_ANCHOR}>
         <Text variant="heading">Check and import</Text>
         {done ? (
           <Notice title={importedTitle(done)} testID="import-done">
             <Text>
-              They are in their squads now, with their consent answers recorded as of today (a changed answer is added to the athlete&apos;s consent history).
+              They are in their squads now, with their consent answers dated as the report said (a changed answer is added to the athlete&apos;s consent
+              history).
             </Text>
             <Link href="/athletes" style={styles.link}>
               <Text variant="label">See the athletes →</Text>
@@ -72,7 +78,11 @@ export function RosterImport() {
         {commit.error ? <Notice tone="error">{commit.error.message}</Notice> : null}
         {report && !check.isPending && !done ? <Report report={report} /> : null}
         {report && !check.isPending && !done && report.errorCount === 0 ? (
-          <Button label={importLabel(report)} testID="import-commit" busy={commit.isPending} onPress={runImport} />
+          toWrite(report) ? (
+            <Button label={importLabel(report)} testID="import-commit" busy={commit.isPending} onPress={runImport} />
+          ) : (
+            <Text testID="import-nothing">Nothing in this file differs from the club&apos;s records: there is nothing to import.</Text>
+          )
         ) : null}
       </Card>
       <View style={isWide ? styles.sideCol : undefined}>
@@ -82,19 +92,26 @@ export function RosterImport() {
   );
 }
 
+const DONE_ANCHOR = 'roster-import-top';
+
+/** Lines that add a child, and lines of children already in the club that change something. */
+function toWrite(r: ImportReport): { creates: number; updates: number } | null {
+  const creates = r.rows.filter((x) => x.ok && x.action === 'create').length;
+  const updates = r.rows.filter((x) => x.ok && x.action === 'update' && (x.changes?.length ?? 0) > 0).length;
+  return creates + updates > 0 ? { creates, updates } : null;
+}
+
 function importLabel(r: ImportReport): string {
-  const updates = r.updateCount ?? 0;
-  const creates = r.createCount ?? r.okCount - updates;
+  const { creates, updates } = toWrite(r) ?? { creates: 0, updates: 0 };
   if (updates === 0) return `Import ${plural(creates, 'athlete', 'athletes')}`;
   if (creates === 0) return `Update ${plural(updates, 'athlete', 'athletes')}`;
   return `Import ${creates} new, update ${updates}`;
 }
 
 function importedTitle(r: ImportReport): string {
-  const created = r.created ?? r.createCount ?? r.okCount;
-  const updated = r.updated ?? 0;
-  if (updated === 0) return `${plural(created, 'athlete', 'athletes')} imported`;
-  return `${plural(created, 'new athlete', 'new athletes')} imported, ${updated} updated`;
+  const { creates, updates } = toWrite(r) ?? { creates: 0, updates: 0 };
+  if (updates === 0) return `${plural(creates, 'athlete', 'athletes')} imported`;
+  return `${plural(creates, 'new athlete', 'new athletes')} imported, ${updates} updated`;
 }
 
 function Report({ report }: { report: ImportReport }) {
@@ -124,7 +141,21 @@ function Report({ report }: { report: ImportReport }) {
               <Text variant="small" style={styles.updateName}>
                 Line {row.line}: {personOf(row)}
               </Text>
-              <Text variant="small">{row.changes && row.changes.length > 0 ? row.changes.join(' · ') : 'Nothing changes.'}</Text>
+              {row.changes && row.changes.length > 0 ? (
+                <>
+                  {/* A consent answer changed by a file is what an admin must not read past. */}
+                  {row.changes.some(isConsentChange) ? (
+                    <Text variant="small" style={styles.consentChange} testID="import-consent-change">
+                      {`⚠ ${row.changes.filter(isConsentChange).join(' · ')}`}
+                    </Text>
+                  ) : null}
+                  {row.changes.some((c) => !isConsentChange(c)) ? (
+                    <Text variant="small">{row.changes.filter((c) => !isConsentChange(c)).join(' · ')}</Text>
+                  ) : null}
+                </>
+              ) : (
+                <Text variant="small">Nothing changes.</Text>
+              )}
             </View>
           ))}
         </View>
@@ -150,6 +181,9 @@ function Report({ report }: { report: ImportReport }) {
     </View>
   );
 }
+
+/** A changed consent answer, or the day the answers are dated, in an update's list of changes. */
+const isConsentChange = (change: string) => change.includes('consent:') || change.startsWith('consent answers dated');
 
 /** Over every new line, shown or not: how many get photo consent and how many a parent account. */
 function readyTotals(rows: ImportReportRow[]): string {
@@ -224,6 +258,7 @@ function Column({ name, text }: { name: string; text: string }) {
 
 const styles = StyleSheet.create({
   cols: { gap: space.lg },
+  consentChange: { fontFamily: fonts.bold, color: colors.amber },
   colsWide: { flexDirection: 'row', alignItems: 'flex-start' },
   sideCol: { flexGrow: 2, flexBasis: 0, minWidth: 0 },
   mainCol: { flexGrow: 3, flexBasis: 0, minWidth: 0 },
