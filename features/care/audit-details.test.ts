@@ -5,6 +5,7 @@ import { auditActionInWords, auditDateErrors, auditDetailsInWords, auditSubjectI
 describe('auditDetailsInWords', () => {
   it.each([
     [{ status: 'modified', detail: 'No deep squats for two weeks' }, 'decision: Train with changes · note: No deep squats for two weeks'],
+    [{ status: 'modified', detail: '', holds: ['loaded', 'landing'] }, 'decision: Train with changes · on hold: loaded strength work, jump and landing work'],
     [{ releaseId: 'a1', update: 'clearance', clearanceId: 'c1', replaces: 'r0', emailed: false }, 'changed by: clearance · e-mailed: no'],
     [{ count: 3, visibilities: ['team', 'family'] }, 'notes read: 3 · shared with: Team only, Shared with family'],
     [{ previousText: 'old words', before: { a: 1 }, after: { a: 2 } }, ''],
@@ -13,6 +14,11 @@ describe('auditDetailsInWords', () => {
     [{ somethingNew: 7, nested: { a: 1 } }, 'somethingNew: 7'],
     [{ kind: 'photos', granted: false, via: 'family page' }, 'about: photos · answer: no · through: family page'],
     [{ kind: 'email_summaries', via: 'unsubscribe link' }, 'about: e-mail summaries · through: unsubscribe link'],
+    [{ fields: ['racketHand', 'squadId'] }, 'fields: racket hand, squad'],
+    [
+      { email: 'gran@example.test', role: 'parent', children: ['Kit Ames', 'Lou Berg'] },
+      'e-mail: gran@example.test · role: Parent or guardian · children: Kit Ames, Lou Berg',
+    ],
   ])('%j reads "%s"', (detail, words) => {
     expect(auditDetailsInWords(detail)).toBe(words);
   });
@@ -22,6 +28,7 @@ describe('audit actions and records in words', () => {
   it('names every action the server records, and shows an unknown code as stored', () => {
     expect(auditActionInWords('view')).toBe('viewed');
     expect(auditActionInWords('plan.change')).toBe('adjusted the plan of');
+    expect(['invite', 'archive', 'restore'].map(auditActionInWords)).toEqual(['invited', 'archived', 'restored']);
     expect(auditActionInWords('something-new')).toBe('something-new');
     expect(`${auditActionInWords('view')} ${auditSubjectInWords('assessment')}`).toBe('viewed screen');
     expect(auditSubjectInWords('unknown-kind')).toBe('unknown-kind');

@@ -34,15 +34,28 @@ const LABELS: Record<string, string> = {
   email: 'e-mail',
   role: 'role',
   from: 'from',
+  holds: 'on hold',
+  fields: 'fields',
+  children: 'children',
 };
 
 /** Stored codes in the words the screens use for them. */
 const VALUE_WORDS: Record<string, Record<string, string>> = {
   status: CLEARANCE_LABELS,
+  holds: { loaded: 'loaded strength work', landing: 'jump and landing work' },
   visibility: NOTE_VISIBILITY_LABELS,
   previousVisibility: NOTE_VISIBILITY_LABELS,
   visibilities: NOTE_VISIBILITY_LABELS,
   kind: { photos: 'photos', email_summaries: 'e-mail summaries', screening: 'screening and exercises' },
+  fields: {
+    firstName: 'first name',
+    lastName: 'last name',
+    dateOfBirth: 'date of birth',
+    sex: 'sex',
+    racketHand: 'racket hand',
+    takeOffLeg: 'take-off leg',
+    squadId: 'squad',
+  },
   role: ROLE_LABELS,
   from: ROLE_LABELS,
   to: ROLE_LABELS,
@@ -89,6 +102,9 @@ const ACTION_WORDS: Record<string, string> = {
   'role.change': 'changed the role of',
   remove: 'removed',
   'invitation.cancel': 'cancelled the invitation of',
+  invite: 'invited',
+  archive: 'archived',
+  restore: 'restored',
 };
 
 /** The kind of record, in the words the screens use. */

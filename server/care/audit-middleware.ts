@@ -28,7 +28,8 @@ const ID = '([0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12})';
 const RULES: Rule[] = [
   { method: 'GET', pattern: new RegExp(`^/athletes/${ID}$`), subject: 'athlete', action: 'view' },
   { method: 'PATCH', pattern: new RegExp(`^/athletes/${ID}$`), subject: 'athlete', action: 'update' },
-  { method: 'POST', pattern: new RegExp(`^/athletes/${ID}/(archive|restore)$`), subject: 'athlete', action: 'update' },
+  { method: 'POST', pattern: new RegExp(`^/athletes/${ID}/archive$`), subject: 'athlete', action: 'archive' },
+  { method: 'POST', pattern: new RegExp(`^/athletes/${ID}/restore$`), subject: 'athlete', action: 'restore' },
   { method: 'GET', pattern: new RegExp(`^/athletes/${ID}/consents$`), subject: 'consent', action: 'view' },
   { method: 'GET', pattern: new RegExp(`^/assessments/${ID}$`), subject: 'assessment', action: 'view' },
   { method: 'POST', pattern: new RegExp(`^/assessments/${ID}/submit$`), subject: 'assessment', action: 'submit' },
@@ -59,6 +60,8 @@ export function auditTrailMiddleware(db: Db): RequestHandler {
           subjectKind: rule.subject,
           subjectId: id,
           athleteId: home.athleteId,
+          // An edit names the fields sent (their values are on the athlete's page).
+          ...(rule.action === 'update' && req.body && typeof req.body === 'object' ? { detail: { fields: Object.keys(req.body as object) } } : {}),
         });
       })().catch((err: unknown) => req.log?.error({ err }, 'audit record failed'));
     });

@@ -1,4 +1,4 @@
-import { and, desc, eq, gte, lt, sql, type SQL } from 'drizzle-orm';
+import { and, desc, eq, gte, lt, ne, sql, type SQL } from 'drizzle-orm';
 import { athletes, auditEvents, users } from '@/db/schema';
 import type { AuditSubject } from '@/features/care/choices';
 import type { AuditRow } from '@/features/care/types';
@@ -32,7 +32,7 @@ export async function recordAudit(db: Executor, ...entries: AuditEntry[]) {
   );
 }
 
-export type AuditFilters = { subject?: AuditSubject; actorId?: string; athleteId?: string; from?: string; to?: string };
+export type AuditFilters = { subject?: AuditSubject; actorId?: string; athleteId?: string; from?: string; to?: string; changes?: string };
 
 export const AUDIT_PAGE_LIMIT = 500;
 
@@ -42,6 +42,7 @@ export async function listAudit(db: Executor, clubId: string, filters: AuditFilt
   if (filters.subject) where.push(eq(auditEvents.subjectKind, filters.subject));
   if (filters.actorId) where.push(eq(auditEvents.actorId, filters.actorId));
   if (filters.athleteId) where.push(eq(auditEvents.athleteId, filters.athleteId));
+  if (filters.changes === 'true') where.push(ne(auditEvents.action, 'view'));
   if (filters.from) where.push(gte(auditEvents.createdAt, new Date(`${filters.from}T00:00:00Z`)));
   // "to" is inclusive of that whole day.
   if (filters.to) where.push(lt(auditEvents.createdAt, sql`(${filters.to}::date + 1)::timestamptz`));

@@ -74,7 +74,9 @@ export function clubsService(db: Db, authService: AuthService, scope: ClubScope)
     },
 
     async invite({ email, role, athleteIds }: InviteInput): Promise<InviteResponse> {
-      await authService.invite({ clubId: scope.clubId, email, role: role as Role, invitedBy: scope.userId, athleteIds });
+      const sent = await authService.invite({ clubId: scope.clubId, email, role: role as Role, invitedBy: scope.userId, athleteIds });
+      // In the trail with the children it names: the e-mail carries their names to that address.
+      await audit(db, 'invite', sent.id, { email, role, ...(sent.children.length ? { children: sent.children } : {}) });
       return { ok: true, email, role: role as Role, athleteIds };
     },
   };

@@ -342,6 +342,20 @@ describe('audit trail', () => {
     });
   });
 
+  it('says an archive and a restore as such, and which fields an edit changed', async () => {
+    expect((await as.admin.post(`/api/athletes/${ids.lou}/archive`)).status).toBe(200);
+    expect((await as.admin.post(`/api/athletes/${ids.lou}/restore`)).status).toBe(200);
+    expect((await as.admin.patch(`/api/athletes/${ids.lou}`).send({ racketHand: 'left' })).status).toBe(200);
+    await vi.waitFor(async () => {
+      const events = (await as.admin.get(`/api/audit?athleteId=${ids.lou}&subject=athlete&changes=true`)).body.events as { action: string; detail: unknown }[];
+      expect(events.slice(0, 3).map((e) => [e.action, e.detail])).toEqual([
+        ['update', { fields: ['racketHand'] }],
+        ['restore', {}],
+        ['archive', {}],
+      ]);
+    });
+  });
+
   it('is readable by admins only, filterable, and exported as CSV', async () => {
     expect((await as.coach.get('/api/audit')).status).toBe(403);
     expect((await as.parentA.get('/api/audit')).status).toBe(403);
@@ -368,6 +382,12 @@ describe('audit trail', () => {
     expect(byPhysio.body.events.every((e: { actorName: string; athleteName: string }) => e.actorName === 'Phil Physio' && e.athleteName === 'Kit Ames')).toBe(
       true,
     );
+    // Changes only: the views left out, everything else kept.
+    const changes = (await as.admin.get('/api/audit?changes=true')).body.events as { action: string }[];
+    expect(changes.length).toBeGreaterThan(0);
+    expect(changes.some((e) => e.action === 'view')).toBe(false);
+    expect(changes).toHaveLength(all.body.events.filter((e: { action: string }) => e.action !== 'view').length);
+    expect((await as.admin.get('/api/audit?changes=maybe')).status).toBe(400);
     expect((await as.admin.get('/api/audit?subject=planet')).status).toBe(400);
     // Dates that are no day of the calendar, or an end before the start: a 400 naming the field, never a 500.
     for (const [q, field] of [

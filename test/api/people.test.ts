@@ -107,13 +107,20 @@ describe('members', () => {
     expect((await admin.delete(`/api/clubs/${ids.club}/members/${ids.parent}`)).status).toBe(404);
   });
 
-  it('puts every step in the audit trail, with names and roles', async () => {
+  it('puts every step in the audit trail, with names and roles, and each invitation with the children it names', async () => {
+    // The e-mail of a parent's invitation names the children: the trail keeps to whom they went.
+    expect(
+      (await admin.post(`/api/clubs/${ids.club}/invitations`).send({ email: 'gran@riverside.test', role: 'parent', athleteIds: [ids.child] })).status,
+    ).toBe(201);
     const trail = await admin.get('/api/audit?subject=member');
     const rows = (trail.body.events as { action: string; actorName: string; detail: Record<string, unknown> }[]).map((e) => [e.action, e.actorName, e.detail]);
     expect(rows).toEqual([
+      ['invite', 'Ada Admin', { email: 'gran@riverside.test', role: 'parent', children: [expect.stringMatching(/^Kit \S/)] }],
       ['remove', 'Ada Admin', { name: 'Pia Parent', role: 'parent' }],
       ['role.change', 'Ada Admin', { name: 'Tess Tester', from: 'tester', to: 'physio' }],
       ['invitation.cancel', 'Ada Admin', { email: 'new@riverside.test', role: 'head_coach' }],
+      ['invite', 'Ada Admin', { email: 'new@riverside.test', role: 'head_coach' }],
+      ['invite', 'Ada Admin', { email: 'new@riverside.test', role: 'tester' }],
     ]);
   });
 });

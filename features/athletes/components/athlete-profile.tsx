@@ -1,3 +1,4 @@
+import { Link } from 'expo-router';
 import { can, isStaff } from '@/features/access/permissions';
 import { ATHLETE_CARE_ANCHOR } from '@/features/care/components/athlete-care';
 import { ClearanceBadge } from '@/features/care/components/clearance-badge';
@@ -11,7 +12,7 @@ import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
-import { colors, fonts, radius, space } from '@/features/ui/theme';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { ageInYears, todayIso } from '../age';
 import { useAthleteQuery } from '../api/get-athlete';
 import type { Athlete } from '../api/types';
@@ -74,6 +75,11 @@ export function AthleteProfile({ id }: { id: string }) {
             <Text variant="heading">Squad and status</Text>
             {!a.archived ? <MoveSquad athlete={a} /> : null}
             <ArchiveControl athlete={a} />
+            {can(membership.role, 'audit.read') ? (
+              <Link href={`/audit?athleteId=${a.id}`} style={styles.trailLink} testID="athlete-audit-link">
+                <Text variant="label">{`Who viewed or changed ${a.firstName}'s records →`}</Text>
+              </Link>
+            ) : null}
           </Card>
         ) : null}
       </View>
@@ -125,6 +131,7 @@ const styles = StyleSheet.create({
   archivedText: { color: colors.amber, fontFamily: fonts.bold },
   cols: { gap: space.lg },
   toCare: { alignSelf: 'flex-start' },
+  trailLink: { minHeight: TOUCH_MIN, paddingVertical: space.md },
   colsWide: { flexDirection: 'row', alignItems: 'flex-start' },
   col: { flexGrow: 1, flexBasis: 0, minWidth: 0 },
   colMain: { flexGrow: 2 },

@@ -4,7 +4,7 @@ import { useActiveClub } from '@/features/session/active-club';
 import type { AuditRow } from '../types';
 import { CARE_STALE_MS, careKeys } from './keys';
 
-export type AuditFilters = { subject?: string; from?: string; to?: string; athleteId?: string; actorId?: string };
+export type AuditFilters = { subject?: string; from?: string; to?: string; athleteId?: string; actorId?: string; changes?: 'true' };
 
 export const auditSearch = (filters: AuditFilters, format?: 'csv') => {
   const params = new URLSearchParams();

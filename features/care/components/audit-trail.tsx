@@ -1,3 +1,4 @@
+import { useLocalSearchParams } from 'expo-router';
 import { useState } from 'react';
 import { Platform, StyleSheet, View } from 'react-native';
 import { useBreakpoints } from '@/features/ui/breakpoints';
@@ -37,8 +38,18 @@ export function AuditTrail() {
   return <Trail />;
 }
 
+const SHOW_OPTIONS = [
+  { value: 'changes', label: 'Changes only' },
+  { value: 'all', label: 'Views and changes' },
+] as const;
+
 function Trail() {
   const [subject, setSubject] = useState<string>('all');
+  // Changes first: one visit to a child's page records three or four views, which buried who changed what.
+  const [show, setShow] = useState<'changes' | 'all'>('changes');
+  // From an athlete's page: that athlete's records only, until cleared.
+  const params = useLocalSearchParams<{ athleteId?: string }>();
+  const [athleteId, setAthleteId] = useState(typeof params.athleteId === 'string' ? params.athleteId : '');
   const [from, setFrom] = useState('');
   const [to, setTo] = useState('');
   // Days being typed are sent once they are whole days; meanwhile the list keeps the last good filters.
@@ -46,8 +57,15 @@ function Trail() {
   const datesOk = !dateErrors.from && !dateErrors.to;
   const [sent, setSent] = useState({ from: '', to: '' });
   if (datesOk && (sent.from !== from.trim() || sent.to !== to.trim())) setSent({ from: from.trim(), to: to.trim() });
-  const filters: AuditFilters = { subject: subject === 'all' ? undefined : subject, from: sent.from || undefined, to: sent.to || undefined };
+  const filters: AuditFilters = {
+    subject: subject === 'all' ? undefined : subject,
+    from: sent.from || undefined,
+    to: sent.to || undefined,
+    athleteId: athleteId || undefined,
+    changes: show === 'changes' ? 'true' : undefined,
+  };
   const query = useAuditQuery(filters);
+  const athleteName = query.data?.events.find((e) => e.athleteName)?.athleteName ?? 'one athlete';
   const { isWide } = useBreakpoints();
   const csvHref = `/api/audit${auditSearch(filters, 'csv')}`;
   return (
@@ -59,6 +77,13 @@ function Trail() {
         Who viewed or changed athletes, screens, notes, clearance, consent and the club’s members, which e-mails went out, and which photos were deleted.
       </Text>
       <Card>
+        {athleteId ? (
+          <View style={styles.only} testID="audit-athlete">
+            <Text>{`Only the records of ${athleteName}.`}</Text>
+            <Button label="Show every athlete" tone="quiet" testID="audit-athlete-clear" onPress={() => setAthleteId('')} />
+          </View>
+        ) : null}
+        <Chips label="Show" options={SHOW_OPTIONS} value={show} onChange={setShow} testID="audit-show" />
         <Chips label="Kind of record" options={SUBJECT_OPTIONS} value={subject} onChange={setSubject} testID="audit-subject" />
         <View style={[styles.dates, isWide && styles.datesWide]}>
           <View style={styles.date}>
@@ -135,6 +160,7 @@ function PhoneRow({ e }: { e: AuditRow }) {
 const COLS = [{ flex: 1.3 }, { flex: 1.2 }, { flex: 1 }, { flex: 0.9 }, { flex: 1.2 }, { flex: 2.6 }];
 
 const styles = StyleSheet.create({
+  only: { gap: space.xs },
   wrap: { gap: space.lg },
   dates: { gap: space.md },
   datesWide: { flexDirection: 'row' },
