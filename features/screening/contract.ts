@@ -233,7 +233,15 @@ export type RoundAthlete = {
 
 export type RoundAthleteFlag = { severity: Flag['severity']; title: string; side: Flag['side'] };
 
-export type RoundDetail = { round: RoundSummary; athletes: RoundAthlete[] };
+export type RoundDetail = {
+  round: RoundSummary;
+  athletes: RoundAthlete[];
+  /**
+   * An open round: athletes in its squad now who have no screen in it (they joined the squad after it
+   * began), name order; empty for a closed round. Absent from rounds kept on a device before it existed.
+   */
+  newcomers?: { athleteId: string; firstName: string; lastName: string }[];
+};
 
 export type PhotoView = {
   id: string;

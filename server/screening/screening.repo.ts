@@ -139,6 +139,34 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
         .orderBy(asc(athletes.lastName), asc(athletes.firstName), asc(athletes.id));
     },
 
+    /**
+     * Athletes of the round's squad now (not archived) who have no assessment in the round: they joined
+     * the squad after it began. Name order.
+     */
+    roundNewcomers(roundId: string, squadId: string) {
+      return db
+        .select({ athleteId: athletes.id, firstName: athletes.firstName, lastName: athletes.lastName })
+        .from(athletes)
+        .where(
+          and(
+            eq(athletes.clubId, clubId),
+            eq(athletes.squadId, squadId),
+            isNull(athletes.archivedAt),
+            sql`not exists (select 1 from ${assessments} where ${assessments.roundId} = ${roundId} and ${assessments.athleteId} = ${athletes.id})`,
+          ),
+        )
+        .orderBy(asc(athletes.lastName), asc(athletes.firstName), asc(athletes.id));
+    },
+
+    /** A not-started assessment in the round for each athlete given (one already there is left as it is). */
+    async addToRound(roundId: string, athleteIds: readonly string[]) {
+      if (athleteIds.length === 0) return;
+      await db
+        .insert(assessments)
+        .values(athleteIds.map((athleteId) => ({ clubId, roundId, athleteId })))
+        .onConflictDoNothing({ target: [assessments.roundId, assessments.athleteId] });
+    },
+
     /** Creates the round with one not-started assessment per athlete of the squad still on the roster. */
     async createRound(values: { squadId: string; name: string; screenedOn: string }) {
       const [round] = await db

@@ -42,6 +42,10 @@ export function screeningRouter(deps: ScreeningDeps & { uploads?: UploadSlots })
     res.json(await service.setRoundClosed(scopeOf(res), recordIdOf(res), true));
   });
 
+  router.post('/rounds/:id/newcomers', guard('screening.write', on('round')), async (_req, res) => {
+    res.json(await service.addNewcomers(scopeOf(res), recordIdOf(res)));
+  });
+
   router.post('/rounds/:id/reopen', guard('round.reopen', on('round')), async (_req, res) => {
     res.json(await service.setRoundClosed(scopeOf(res), recordIdOf(res), false));
   });

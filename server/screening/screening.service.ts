@@ -262,9 +262,12 @@ export function screeningService(deps: ScreeningDeps) {
     const round = await repo.round(id);
     if (!round) throw notFound('The round');
     const athletes = await repo.roundAthletes(id);
+    // Who joined the squad since the round began, for an open round: they can be brought in.
+    const newcomers = round.closedAt ? [] : await repo.roundNewcomers(id, round.squadId);
     return {
       round: roundSummary(round),
       athletes: athletes.map((a) => ({ ...a, flags: bySeverity(a.flags as RoundAthleteFlag[] | null) })),
+      newcomers,
     };
   }
 
@@ -418,6 +421,24 @@ export function screeningService(deps: ScreeningDeps) {
     },
 
     /** Closing ends the session's screening; reopening (head coach, checked by the router) allows it again. */
+    /**
+     * Brings the squad's newcomers into an open round: a not-started screen each (a closed round is a
+     * 409: reopen it first). Nothing else of the round changes.
+     */
+    async addNewcomers(scope: ClubScope, id: string): Promise<RoundDetail> {
+      await db.transaction(async (tx) => {
+        const repo = repoFor(scope, tx);
+        const round = await repo.round(id);
+        if (!round) throw notFound('The round');
+        if (round.closedAt) throw conflict('This round is closed: reopen it before adding athletes.');
+        await repo.addToRound(
+          id,
+          (await repo.roundNewcomers(id, round.squadId)).map((a) => a.athleteId),
+        );
+      });
+      return roundDetail(scope, id);
+    },
+
     async setRoundClosed(scope: ClubScope, id: string, closed: boolean): Promise<RoundDetail> {
       if (!(await repoFor(scope).setRoundClosed(id, closed ? new Date() : null))) throw notFound('The round');
       return roundDetail(scope, id);

@@ -19,6 +19,7 @@ let outsider: Agent;
 let roundId: string;
 let screened: string;
 let other: string;
+let clubId: string;
 
 beforeAll(async () => {
   testDb = await createTestDb();
@@ -26,6 +27,7 @@ beforeAll(async () => {
   const db = testDb.db;
   const club = await makeClub(db, 'Riverside');
   const hill = await makeClub(db, 'Hillside');
+  clubId = club.id;
   const squad = await makeSquad(db, club.id);
   await makeUser(db, { email: 'tester@riverside.test', clubId: club.id, role: 'tester' });
   await makeUser(db, { email: 'coach@riverside.test', displayName: 'Cora Head', clubId: club.id, role: 'head_coach' });
@@ -113,5 +115,51 @@ describe('closing and reopening a round', () => {
     const res = (await tester.get(`/api/rounds/${roundId}`)).body as RoundDetail;
     expect(res.round.closedByName).toBe('Cora Head');
     expect((await tester.post('/api/rounds/00000000-0000-0000-0000-000000000000/close')).status).toBe(404);
+  });
+});
+
+// our choice: a child who joins the squad after a round began is brought into it on request, not by
+// itself (the tester sees who and decides); a closed round takes nobody.
+describe('athletes who joined the squad after the round began', () => {
+  it('are named by an open round, brought in with a not-started screen each, and refused by a closed one', async () => {
+    const db = testDb.db;
+    const squad = await makeSquad(db, clubId, 'Under-15');
+    const first = await makeAthlete(db, { clubId, squadId: squad.id, firstName: 'Cai', lastName: 'Dunn' });
+    const round = (await tester.post('/api/rounds').send({ squadId: squad.id, name: 'Winter', screenedOn: '2026-12-01' })).body as RoundDetail;
+    expect(round.newcomers).toEqual([]);
+    const otto = await makeAthlete(db, { clubId, squadId: squad.id, firstName: 'Otto', lastName: 'Lind', sex: 'male' });
+    const ines = await makeAthlete(db, { clubId, squadId: squad.id, firstName: 'Ines', lastName: 'Varga' });
+    const gone = await makeAthlete(db, { clubId, squadId: squad.id, firstName: 'Gil', lastName: 'Amos' });
+    expect((await admin.post(`/api/athletes/${gone.id}/archive`)).status).toBe(200);
+
+    const before = (await tester.get(`/api/rounds/${round.round.id}`)).body as RoundDetail;
+    expect(before.athletes.map((a) => a.athleteId)).toEqual([first.id]);
+    // Name order; the archived athlete is not asked for.
+    expect(before.newcomers!.map((a) => `${a.firstName} ${a.lastName}`)).toEqual(['Otto Lind', 'Ines Varga']);
+
+    expect((await outsider.post(`/api/rounds/${round.round.id}/newcomers`)).status).toBe(403);
+    const added = await tester.post(`/api/rounds/${round.round.id}/newcomers`);
+    expect(added.status).toBe(200);
+    const after = added.body as RoundDetail;
+    expect(after.newcomers).toEqual([]);
+    expect(after.athletes.map((a) => [a.firstName, a.status])).toEqual([
+      ['Cai', 'not_started'],
+      ['Otto', 'not_started'],
+      ['Ines', 'not_started'],
+    ]);
+    expect(after.round.counts).toMatchObject({ not_started: 3 });
+    // Asked again: nothing doubles.
+    expect(((await tester.post(`/api/rounds/${round.round.id}/newcomers`)).body as RoundDetail).athletes).toHaveLength(3);
+    expect(after.athletes.find((a) => a.athleteId === otto.id)).toBeDefined();
+    expect(after.athletes.find((a) => a.athleteId === ines.id)).toBeDefined();
+
+    await makeAthlete(db, { clubId, squadId: squad.id, firstName: 'Lou', lastName: 'Late' });
+    expect((await tester.post(`/api/rounds/${round.round.id}/close`)).status).toBe(200);
+    const closed = (await tester.get(`/api/rounds/${round.round.id}`)).body as RoundDetail;
+    expect(closed.newcomers).toEqual([]);
+    const refused = await tester.post(`/api/rounds/${round.round.id}/newcomers`);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toBe('This round is closed: reopen it before adding athletes.');
+    expect(((await tester.get(`/api/rounds/${round.round.id}`)).body as RoundDetail).athletes).toHaveLength(3);
   });
 });

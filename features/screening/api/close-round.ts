@@ -17,3 +17,15 @@ export function useSetRoundClosedMutation(id: string) {
     onSuccess: () => qc.invalidateQueries({ queryKey: screeningKeys.club(membership.clubId) }),
   });
 }
+
+/** Brings the athletes who joined the squad since the round began into it (an open round). */
+export const addRoundNewcomers = (id: string) => api<RoundDetail>(`/rounds/${encodeURIComponent(id)}/newcomers`, { method: 'POST' });
+
+export function useAddNewcomersMutation(id: string) {
+  const qc = useQueryClient();
+  const { membership } = useActiveClub();
+  return useMutation({
+    mutationFn: () => addRoundNewcomers(id),
+    onSuccess: () => qc.invalidateQueries({ queryKey: screeningKeys.club(membership.clubId) }),
+  });
+}

@@ -3,12 +3,12 @@ import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
 import { useDeferredValue, useState, useSyncExternalStore } from 'react';
 import { StyleSheet, View } from 'react-native';
-import { useSetRoundClosedMutation } from '@/features/screening/api/close-round';
+import { useAddNewcomersMutation, useSetRoundClosedMutation } from '@/features/screening/api/close-round';
 import { loadedDevice, useOutboxState } from '@/features/offline/device-handle';
 import { useRoundQuery } from '@/features/screening/api/get-round';
 import { useKeepRoundOnDevice } from '@/features/screening/hooks/use-keep-round';
 import { useActiveClub } from '@/features/session/active-club';
-import type { RoundAthlete, RoundAthleteFlag } from '@/features/screening/contract';
+import type { RoundAthlete, RoundAthleteFlag, RoundDetail } from '@/features/screening/contract';
 import { messageOf } from '@/features/api/client';
 import { Button } from '@/features/ui/components/button';
 import { usePageTitle } from '@/features/ui/page-title';
@@ -120,6 +120,25 @@ function RoundClosing({ id, closed, unfinished }: { id: string; closed: boolean;
 }
 
 /** One round: its athletes with their progress, big rows to tap, and the next athlete to screen. */
+/** Athletes who joined the squad after the round began: named, and brought in with one tap. */
+function Newcomers({ roundId, squadName, newcomers }: { roundId: string; squadName: string; newcomers: NonNullable<RoundDetail['newcomers']> }) {
+  const add = useAddNewcomersMutation(roundId);
+  const names = newcomers.map((a) => `${a.firstName} ${a.lastName}`).join(', ');
+  return (
+    <Notice title={`New in ${squadName} since this round began`} testID="round-newcomers">
+      <Text>{`${names}: not in this round yet.`}</Text>
+      {add.error ? <Text role="alert">{add.error.message}</Text> : null}
+      <Button
+        tone="secondary"
+        label={newcomers.length === 1 ? `Add ${newcomers[0]!.firstName} to this round` : `Add these ${newcomers.length} to this round`}
+        busy={add.isPending}
+        onPress={() => add.mutate()}
+        testID="round-add-newcomers"
+      />
+    </Notice>
+  );
+}
+
 export function RoundScreen({ id }: { id: string }) {
   const round = useRoundQuery(id);
   // Drawn in the background when the round arrives (as the round list and the homes are): drawn at
@@ -220,6 +239,7 @@ export function RoundScreen({ id }: { id: string }) {
           {notTakingPart.length > 0 ? 'Every athlete of this round who may be screened has been submitted.' : 'Every athlete of this round has been submitted.'}
         </Notice>
       ) : null}
+      {screens && data.newcomers?.length ? <Newcomers roundId={r.id} squadName={r.squadName} newcomers={data.newcomers} /> : null}
       {notTakingPart.length > 0 && screensInClub ? <NotToScreen athletes={notTakingPart} /> : null}
       <Card style={styles.list}>
         <Text variant="heading">Athletes ({athletes.length})</Text>
