@@ -47,9 +47,9 @@ export const clearanceSchema = object({
     .max(1000, 'Keep this under 1000 characters.')
     .default('')
     .when(['status', 'holds'], {
-      // A hold ticked says part of the change; the words may then add to it.
+      // A hold chosen says part of the change; the words may then add to it.
       is: (status: unknown, holds: unknown) => status === 'modified' && !(Array.isArray(holds) && holds.length > 0),
-      then: (s) => s.required('Tick what to hold back, or say what to change.'),
+      then: (s) => s.required('Choose what waits, or say what to change.'),
     })
     .when('status', {
       is: 'referred',

@@ -248,7 +248,7 @@ describe('train with changes, holding jump and landing work', () => {
       expect(res.status, JSON.stringify(body)).toBe(400);
     }
     const silent = await as.physio.put(`/api/athletes/${ids.kit}/clearance`).send({ status: 'modified', holds: [] });
-    expect(silent.body.error.fields.detail).toBe('Tick what to hold back, or say what to change.');
+    expect(silent.body.error.fields.detail).toBe('Choose what waits, or say what to change.');
     expect((await as.physio.get(`/api/athletes/${ids.kit}/clearance`)).body.clearance).toEqual(inForce);
 
     const set = await as.physio

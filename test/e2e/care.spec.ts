@@ -261,6 +261,23 @@ test("the plan sets held-back work apart with the reason, and follows the physio
   expect(preview.html).not.toContain('district clinic');
   await page.setContent(preview.html);
   await page.screenshot({ path: shots('summary-email-referred', project), fullPage: true });
+
+  // "Train with changes" holding jumps and landings, chosen on the page: the loaded work comes back, the
+  // landing work waits, set apart with who decided and why.
+  await page.goto(`/screening/assessments/${assessmentId}/result`);
+  const panel = page.getByTestId('clearance-panel');
+  await panel.getByTestId('clearance-status').getByRole('radio', { name: 'Train with changes' }).click();
+  await panel.getByTestId('clearance-holds-choice').getByRole('radio', { name: 'Jumps and landings' }).click();
+  await expect(panel.getByTestId('clearance-detail')).toBeVisible();
+  await panel.getByTestId('clearance-save').click();
+  await expect(panel.getByTestId('clearance-holds')).toHaveText('On hold until a new clearance: jump and landing work.');
+  const changes = page.getByTestId('plan-held');
+  await expect(changes.getByTestId('plan-held-reason')).toContainText('Train with changes: set by Sam Adeyemi');
+  await expect(changes.getByTestId('plan-held-reason')).toContainText('Jump and landing work is on hold');
+  await expect(changes.getByTestId('plan-held-exercise').first()).toBeVisible();
+  await expect(page.getByTestId('plan').locator('[data-testid="exercise-split-squat-endurance"]')).toHaveCount(1);
+  await changes.getByTestId('plan-held-reason').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: shots('plan-held-changes', project) });
   await tidyUp(page, athleteId, squadId);
 });
 
@@ -282,8 +299,8 @@ test("an athlete's page shows the clearance in force at the top, and its clearan
   await expect(panel).toContainText('Choose train as normal, train with changes or refer on.');
   await page.getByTestId('clearance-status').getByRole('radio', { name: 'Train with changes' }).click();
   await expect(page.getByTestId('clearance-detail')).toBeVisible();
-  await expect(panel).not.toContainText('Say what to change.');
+  await expect(panel).not.toContainText('Choose what waits, or say what to change.');
   await page.getByTestId('clearance-save').click();
-  await expect(panel).toContainText('Say what to change.');
+  await expect(panel).toContainText('Choose what waits, or say what to change.');
   await expect(page.getByTestId('clearance-badge').first()).toContainText('Refer on');
 });

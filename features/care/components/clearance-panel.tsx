@@ -113,8 +113,8 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
           {form.status ? <Notice tone="error">{String(form.status)}</Notice> : null}
           <Button label="Record clearance" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="clearance-save" />
           <Text variant="small" testID="clearance-effect">
-            The plan and the training sheet follow the decision at once: what is ticked above is set apart there; other changes are shown in your words. A
-            summary already shared with the family is updated to say it, without a new e-mail.
+            The plan and the training sheet follow the decision at once: work held back waits there; other changes are shown in your words. A summary already
+            shared with the family is updated to say it, without a new e-mail.
           </Text>
         </View>
       ) : null}
