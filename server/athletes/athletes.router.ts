@@ -10,6 +10,7 @@ import { athletesService } from './athletes.service';
 import { requireUuid } from '@/server/http/ids';
 import { rosterImportRouter } from './roster-import.router';
 import { squadsRouter } from './squads.router';
+import { careSettingsOf } from '@/server/care/settings.repo';
 
 /**
  * Squads, athletes, consent decisions, guardian links and the CSV roster import. Admins and head
@@ -61,7 +62,10 @@ export function athletesRouter(db: Db) {
   });
 
   router.get('/athletes/:id/consents', guard('consent.read', on('athlete')), async (_req, res) => {
-    res.json({ consents: await service(res).consentHistory(recordIdOf(res)) });
+    const consents = await service(res).consentHistory(recordIdOf(res));
+    // How long the club keeps photos, so that the family reads days and months rather than "the club's period".
+    const settings = await careSettingsOf(db, scopeOf(res).clubId);
+    res.json({ consents, photoTerms: { graceDays: settings.photoGraceDays, retentionMonths: settings.photoRetentionMonths } });
   });
   router.post('/athletes/:id/consents', guard('consent.manage', on('athlete')), validateBody(consentSchema), async (req, res) => {
     res.status(201).json(await service(res).recordConsent(recordIdOf(res), req.body));

@@ -691,3 +691,18 @@ describe('CSV roster import', () => {
     expect((await upload(as.admin, makeRosterCsv([{}])).query({ commit: 'yes' })).status).toBe(400);
   });
 });
+
+describe('photo periods beside the consent history', () => {
+  // our choice: a family reads "deleted 30 days later", not "after the club's waiting period".
+  it("gives the club's photo periods with the history, to the parent too, and follows the club's settings", async () => {
+    const read = async (agent: Agent) => (await agent.get(`/api/athletes/${ids.child}/consents`)).body.photoTerms;
+    // The defaults until an admin saves the club's care settings.
+    expect(await read(as.parent)).toEqual({ graceDays: 30, retentionMonths: 24 });
+    const saved = await as.admin
+      .put('/api/care-settings')
+      .send({ autoReleaseDays: null, photoGraceDays: 14, photoRetentionMonths: 12, familyPhotos: false, testersReadTeamNotes: false });
+    expect(saved.status).toBe(200);
+    expect(await read(as.parent)).toEqual({ graceDays: 14, retentionMonths: 12 });
+    expect(await read(as.coach)).toEqual({ graceDays: 14, retentionMonths: 12 });
+  });
+});

@@ -11,7 +11,8 @@ import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
 import { colors, fonts, radius, space } from '@/features/ui/theme';
 import { todayIso } from '../age';
-import { useConsentsQuery } from '../api/get-consents';
+import { useConsentsQuery, type PhotoTerms } from '../api/get-consents';
+import { plural } from '@/features/ui/plural';
 import { useRecordConsentMutation } from '../api/record-consent';
 import { useRecordOwnConsentMutation } from '../api/record-own-consent';
 import type { Athlete, ConsentView } from '../api/types';
@@ -48,7 +49,7 @@ export function ConsentPanel({ athlete }: { athlete: Athlete }) {
     <Card testID="consent-panel">
       <Text variant="heading">Consent</Text>
       {own ? (
-        <Text variant="small">{`Your decisions about ${athlete.firstName}: each is recorded with today's date and your name, and you can change it here at any time.`}</Text>
+        <Text variant="small">{`Your decisions about ${athlete.firstName}: each is recorded with today's date and your name, and you can change it here at any time. Answers the club took from a paper form carry the name of the club member who recorded them.`}</Text>
       ) : null}
       <View style={styles.current}>
         {CONSENT_ROWS.map(({ kind, id, warn }) => (
@@ -94,7 +95,15 @@ function Current({ label, value, warn = false, testID }: { label: string; value:
 }
 
 /** What a parent's change means, in plain words, before they confirm it (our wording). */
-function ownDecisionWords(kind: ConsentKind, granted: boolean, name: string) {
+/** The club's photo periods in words ("30 days later"), or its words for them when not known yet. */
+const deletedLater = (terms: PhotoTerms | undefined) =>
+  terms ? `deleted ${plural(terms.graceDays, 'day', 'days')} later (the club's waiting period)` : "deleted after the club's waiting period";
+const keptFor = (terms: PhotoTerms | undefined) =>
+  terms
+    ? `deleted ${plural(terms.retentionMonths, 'month', 'months')} after the screen (the club's retention period)`
+    : "deleted after the club's retention period";
+
+function ownDecisionWords(kind: ConsentKind, granted: boolean, name: string, terms?: PhotoTerms) {
   if (kind === 'screening') {
     return granted
       ? {
@@ -114,13 +123,13 @@ function ownDecisionWords(kind: ConsentKind, granted: boolean, name: string) {
     return granted
       ? {
           ask: `Stop photos of ${name}`,
-          explain: `From today no photos of ${name} are taken at screens. Photos already taken are hidden at once and deleted after the club's waiting period. The screens already done and the exercises stay.`,
+          explain: `From today no photos of ${name} are taken at screens. Photos already taken are hidden at once and ${deletedLater(terms)}. The screens already done and the exercises stay.`,
           confirm: 'Yes, stop photos',
           keep: 'Keep photos',
         }
       : {
           ask: `Agree to photos of ${name}`,
-          explain: `Coaches may photograph ${name}'s movements at screens to measure them more precisely. Only the club's screening and care staff see them (and you, if the club shares screen photos with families), and they are deleted after the club's retention period.`,
+          explain: `Coaches may photograph ${name}'s movements at screens to measure them more precisely. Only the club's screening and care staff see them (and you, if the club shares screen photos with families), and they are ${keptFor(terms)}.`,
           confirm: 'Yes, agree to photos',
           keep: 'Not now',
         };
@@ -144,7 +153,7 @@ function ownDecisionWords(kind: ConsentKind, granted: boolean, name: string) {
 function OwnDecision({ athlete, kind, granted }: { athlete: Athlete; kind: ConsentKind; granted: boolean }) {
   const record = useRecordOwnConsentMutation(athlete.id);
   const [confirming, setConfirming] = useState(false);
-  const words = ownDecisionWords(kind, granted, athlete.firstName);
+  const words = ownDecisionWords(kind, granted, athlete.firstName, useConsentsQuery(athlete.id).data?.photoTerms);
   const id = CONSENT_ROWS.find((r) => r.kind === kind)!.id;
   if (!confirming) {
     return (
@@ -181,7 +190,7 @@ function OwnDecision({ athlete, kind, granted }: { athlete: Athlete; kind: Conse
 type Values = { kind: ConsentKind | ''; granted: 'yes' | 'no' | ''; decidedOn: string };
 
 /** What a decision recorded by the club does, said before it is saved (our wording; the parent's own buttons say it in theirs). */
-function recordedEffect(kind: ConsentKind, granted: boolean, name: string): string {
+function recordedEffect(kind: ConsentKind, granted: boolean, name: string, terms?: PhotoTerms): string {
   if (kind === 'screening') {
     return granted
       ? `${name} may be screened and given corrective exercises at club sessions.`
@@ -190,7 +199,7 @@ function recordedEffect(kind: ConsentKind, granted: boolean, name: string): stri
   if (kind === 'photos') {
     return granted
       ? `Photos of ${name} may be taken at screens, seen by the club's screening and care staff (and the family, if the club shares screen photos).`
-      : `No photos of ${name} are taken at screens. Photos already taken are hidden at once and deleted after the club's waiting period.`;
+      : `No photos of ${name} are taken at screens. Photos already taken are hidden at once and ${deletedLater(terms)}.`;
   }
   return granted
     ? `Released summaries are also e-mailed to the parents linked to ${name}.`
@@ -199,6 +208,7 @@ function recordedEffect(kind: ConsentKind, granted: boolean, name: string): stri
 
 function RecordDecision({ athleteId, name, onDone }: { athleteId: string; name: string; onDone: () => void }) {
   const record = useRecordConsentMutation(athleteId);
+  const terms = useConsentsQuery(athleteId).data?.photoTerms;
   const [failure, setFailure] = useState<string | null>(null);
   const toInput = (v: Values) => ({ kind: v.kind, granted: v.granted === '' ? undefined : v.granted === 'yes', decidedOn: v.decidedOn });
   return (
@@ -251,7 +261,7 @@ function RecordDecision({ athleteId, name, onDone }: { athleteId: string; name: 
           />
           {values.kind && values.granted ? (
             <Text variant="small" testID="consent-effect">
-              {recordedEffect(values.kind, values.granted === 'yes', name)}
+              {recordedEffect(values.kind, values.granted === 'yes', name, terms)}
             </Text>
           ) : null}
           <TextField
