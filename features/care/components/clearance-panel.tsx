@@ -26,7 +26,7 @@ const HOLD_CHOICES = { none: [], loaded: ['loaded'], landing: ['landing'], both:
 >;
 type HoldChoice = keyof typeof HOLD_CHOICES;
 const HOLD_OPTIONS: { value: HoldChoice; label: string }[] = [
-  { value: 'none', label: 'Nothing: said in words' },
+  { value: 'none', label: 'Nothing held back' },
   { value: 'loaded', label: 'Loaded strength work' },
   { value: 'landing', label: 'Jumps and landings' },
   { value: 'both', label: 'Both' },

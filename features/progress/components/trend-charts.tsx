@@ -216,12 +216,17 @@ export function ChangeChart({
   const margin = ERROR_MARGINS.fppa!;
   const fromIndex = rounds.indexOf(from);
   const toIndex = rounds.indexOf(to);
+  // Athletes of the table without this angle in both rounds: named under the chart, not left out silently.
+  const notDrawn: string[] = [];
   const rows = athletes
     .map((a) => {
       const series = athleteKneeSeries(kneeAngles, a.id, measurementId, rounds.length);
       const before = series[fromIndex];
       const after = series[toIndex];
-      if (before === undefined || before === null || after === undefined || after === null) return null;
+      if (before === undefined || before === null || after === undefined || after === null) {
+        notDrawn.push(`${a.firstName} ${a.lastName.slice(0, 1)}.`);
+        return null;
+      }
       const change = Math.round((after - before) * 100) / 100;
       return { name: `${a.firstName} ${a.lastName.slice(0, 1)}.`, before, after, change, verdict: verdictFor(change, margin.value) };
     })
@@ -231,7 +236,7 @@ export function ChangeChart({
   return (
     <ChartFrame
       title={`Change per athlete, ${from.name} → ${to.name}: ${name}`}
-      note={`Bars to the right of 0°: the knee angle grew (the knee travelled further inward); to the left: it fell. Shaded: ±${margin.value}° smallest detectable difference (Munro, Herrington and Carolan 2012). A bar inside it is not a change we can tell from measuring error.`}
+      note={`Bars to the right of 0°: the knee angle grew (the knee travelled further inward); to the left: it fell. Shaded: ±${margin.value}° smallest detectable difference (Munro, Herrington and Carolan 2012). A bar inside it is not a change we can tell from measuring error.${notDrawn.length ? ` Not drawn, without this angle in both rounds: ${notDrawn.join(', ')}.` : ''}`}
       testID="change-chart"
       table={
         <NumbersTable

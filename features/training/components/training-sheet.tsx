@@ -131,7 +131,7 @@ function SheetBody({ data }: { data: TrainingSheet }) {
         </Text>
       ) : null}
       {held.length ? (
-        <Notice tone="caution" title={`Loaded and landing work on hold: ${held.length}`} testID="sheet-holds">
+        <Notice tone="caution" title={`Work on hold: ${held.length}`} testID="sheet-holds">
           {held.map((a) => (
             <Text key={a.id}>
               <Text style={styles.strong}>{a.name}</Text>: {a.hold}
@@ -146,7 +146,7 @@ function SheetBody({ data }: { data: TrainingSheet }) {
               <Text style={styles.strong}>{a.name}</Text>: {a.physioChanges}
             </Text>
           ))}
-          <Text>Their exercises below are the plan&apos;s: check each against these changes before the session.</Text>
+          <Text>Work the physiotherapist held back is set apart below; check the rest of their exercises against these words before the session.</Text>
         </Notice>
       ) : null}
       <View {...PRINT_HIDE}>
