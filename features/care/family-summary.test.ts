@@ -131,6 +131,12 @@ describe('buildFamilySummary', () => {
     expect(summary.cautions[0]).toMatch(/not a diagnosis/);
   });
 
+  // our choice: a family should not read "3 times a week" as homework for the child alone.
+  it('says where the exercises are done, and to ask the coach before doing any at home', () => {
+    expect(summary.exercises.length).toBeGreaterThan(0);
+    expect(summary.howOften).toMatch(/; each exercise says how often\. They are done at club sessions with a coach; ask the coach before doing any at home\.$/);
+  });
+
   it('has family words for every pattern the engine can flag', () => {
     for (const words of Object.values(PATTERN_FAMILY_WORDS)) expect(words).not.toMatch(/valgus|dorsiflexion|pelvic drop/i);
   });

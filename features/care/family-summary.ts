@@ -143,7 +143,7 @@ export function buildFamilySummary(input: {
     howOften:
       exercises.length === 0
         ? `Nothing extra to work on for now: ${firstName} keeps training as usual.`
-        : `Up to ${perWeekText(maxPerWeek)}; each exercise says how often.`,
+        : `Up to ${perWeekText(maxPerWeek)}; each exercise says how often. They are done at club sessions with a coach; ask the coach before doing any at home.`,
     recheckDate: result.plan.rescreenDate,
     contact: input.contactName
       ? `Questions? Speak to ${input.contactName} or the coaches at ${input.clubName}.`
