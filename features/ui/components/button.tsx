@@ -34,6 +34,8 @@ const styles = StyleSheet.create({
   base: {
     minHeight: TOUCH_MIN,
     paddingHorizontal: space.lg,
+    // A label on two lines keeps clear of the border (a long one wraps on a phone).
+    paddingVertical: space.sm,
     borderRadius: radius.md,
     alignItems: 'center',
     justifyContent: 'center',
