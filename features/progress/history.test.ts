@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Measurement } from '@/features/screening/engine';
 import { ERROR_MARGINS } from './compare';
-import { historySeries, thresholdFor } from './history';
+import { concernFor, historySeries, thresholdFor } from './history';
 import type { ProgressResponse, ProgressScreen } from './progress-types';
 
 const HM2010 = 'Herrington L, Munro A. Phys Ther Sport. 2010;11(2):56-59';
@@ -17,6 +17,21 @@ describe('thresholdFor: the watch line drawn on each chart', () => {
     ['knee-to-wall', 'knee-to-wall-left/knee-to-wall/left', 'male', 10, 'below', 'common practice, no source'],
   ] as const)('%s %s (%s): %s, flagged %s (%s)', (metric, id, sex, value, when, _source) => {
     expect(thresholdFor(metric, id, sex)).toMatchObject({ value, flagWhen: when });
+  });
+});
+
+describe('concernFor: the concern line beside the watch line', () => {
+  // Worked by hand: the engine's concern line for knee angles is the upper end of the normal range
+  // (Herrington L, Munro A. Phys Ther Sport. 2010;11(2):56-59) plus 1.96 x 2.72 deg = 5.3312 deg, the 95 %
+  // margin of one measurement from the standard error of measurement (Munro A, Herrington L, Carolan M.
+  // J Sport Rehabil. 2012;21(1):7-11); pelvic drop 10 deg is our choice.
+  it.each([
+    ['fppa', 'single-leg-squat-left/fppa/left', 'female', 17.33], // 12 + 5.3312
+    ['fppa', 'drop-landing/fppa/right', 'female', 18.33], // 13 + 5.3312
+    ['fppa', 'single-leg-squat-right/fppa/right', 'male', 14.33], // 9 + 5.3312
+    ['pelvic-obliquity', 'single-leg-stance-left/pelvic-obliquity/left', 'female', 10],
+  ] as const)('%s %s (%s): %s', (metric, id, sex, value) => {
+    expect(concernFor(metric, id, sex)).toEqual({ value });
   });
 });
 

@@ -17,6 +17,8 @@ export type HistorySeries = {
   points: HistoryPoint[];
   /** The watch threshold for this athlete (sex, task), or null where none applies. */
   threshold: { value: number; flagWhen: 'above' | 'below'; source: string } | null;
+  /** The concern threshold beyond it, where the engine has one (absent in series made before it was drawn). */
+  concern?: { value: number } | null;
   /**
    * The published error around the earlier of the last two screens (or the only one): a later point inside
    * the band is no change we can tell from measuring error.
@@ -27,18 +29,26 @@ export type HistorySeries = {
 /** The measurements charted over time, in the order shown. */
 export const CHARTED_METRICS: readonly MetricId[] = ['fppa', 'pelvic-obliquity', 'knee-to-wall', 'knee-to-wall-lsi'];
 
-export function thresholdFor(metric: MetricId, measurementId: string, sex: Sex): HistorySeries['threshold'] {
+export function thresholdFor(metric: MetricId, measurementId: string, sex: Sex, severity: 'watch' | 'concern' = 'watch'): HistorySeries['threshold'] {
   const scope = measurementId.split('/')[0];
   const row = THRESHOLDS.find(
     (r) =>
       r.metric === metric &&
-      r.severity === 'watch' &&
+      r.severity === severity &&
       (r.comparison === 'greater-than' || r.comparison === 'less-than' || r.comparison === 'at-least' || r.comparison === 'at-most') &&
       (r.population.sex === 'any' || r.population.sex === sex) &&
       (r.appliesTo === 'all' || (r.appliesTo as readonly string[]).includes(scope ?? '')),
   );
   if (!row) return null;
   return { value: row.value, flagWhen: row.comparison === 'greater-than' || row.comparison === 'at-least' ? 'above' : 'below', source: row.source };
+}
+
+/** The concern line: drawn only beside a watch line on the same side of it (our choice: one scale, two lines). */
+export function concernFor(metric: MetricId, measurementId: string, sex: Sex): HistorySeries['concern'] {
+  const watch = thresholdFor(metric, measurementId, sex);
+  const concern = thresholdFor(metric, measurementId, sex, 'concern');
+  if (!watch || !concern || concern.flagWhen !== watch.flagWhen) return null;
+  return { value: concern.value };
 }
 
 function bandFor(points: HistoryPoint[], margin: ErrorMargin | undefined): HistorySeries['band'] {
@@ -64,6 +74,7 @@ export function historySeries(progress: ProgressResponse): HistorySeries[] {
           unit: UNIT_TEXT[m.unit] ?? m.unit,
           points: [],
           threshold: thresholdFor(m.metric, m.id, progress.athlete.sex),
+          concern: concernFor(m.metric, m.id, progress.athlete.sex),
           band: null,
         };
         byId.set(key, s);

@@ -23,6 +23,7 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
   const maxX = Math.max(...xs) + 0.4;
   const ys = series.points.map((p) => p.value);
   if (series.threshold) ys.push(series.threshold.value);
+  if (series.concern) ys.push(series.concern.value);
   if (series.band) ys.push(series.band.low, series.band.high);
   const pad = Math.max(1, (Math.max(...ys) - Math.min(...ys)) * 0.1);
   const domainY: [number, number] = [Math.min(...ys) - pad, Math.max(...ys) + pad];
@@ -62,6 +63,15 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
                 style={{ data: { stroke: colors.brick, strokeDasharray: '5,4', strokeWidth: 1.5 } }}
               />
             ) : null}
+            {series.concern ? (
+              <VictoryLine
+                data={[
+                  { x: minX, y: series.concern.value },
+                  { x: maxX, y: series.concern.value },
+                ]}
+                style={{ data: { stroke: colors.brick, strokeDasharray: '1,3', strokeWidth: 2.5 } }}
+              />
+            ) : null}
             <VictoryLine data={series.points.map((p) => ({ x: p.index, y: p.value }))} style={{ data: { stroke: colors.ink, strokeWidth: 2 } }} />
             <VictoryScatter data={series.points.map((p) => ({ x: p.index, y: p.value }))} size={4} style={{ data: { fill: colors.pine } }} />
             {/* Axes last and pinned to the chart's edges (not where the other value is zero), so the band never covers them;
@@ -84,6 +94,15 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
               - - -
             </Text>{' '}
             flagged {series.threshold.flagWhen} {series.threshold.value}
+            {series.unit === '°' ? '°' : ` ${series.unit}`}
+          </Text>
+        ) : null}
+        {series.concern && series.threshold ? (
+          <Text variant="small" testID="history-concern-key">
+            <Text variant="small" style={{ color: colors.brick }}>
+              · · ·
+            </Text>{' '}
+            concern {series.threshold.flagWhen} {series.concern.value}
             {series.unit === '°' ? '°' : ` ${series.unit}`}
           </Text>
         ) : null}
