@@ -1,10 +1,10 @@
 import { randomUUID } from 'node:crypto';
-import { and, asc, desc, eq, inArray, isNull, ne, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, gt, inArray, isNull, ne, sql, type SQL } from 'drizzle-orm';
 import type { NodePgQueryResultHKT } from 'drizzle-orm/node-postgres';
 import type { PgDatabase } from 'drizzle-orm/pg-core';
 import type { Db } from '@/db/client';
 import type * as schema from '@/db/schema';
-import { athletes, consents, guardianLinks, memberships, squads, users, type Role } from '@/db/schema';
+import { athletes, consents, guardianLinks, invitationAthletes, invitations, memberships, squads, users, type Role } from '@/db/schema';
 import { athleteFilter, type ClubScope } from '@/server/access/scope';
 import type { Athlete, ConsentView, SquadSummary } from '@/features/athletes/api/types';
 import { latestClearances } from '@/server/care/clearance.repo';
@@ -209,6 +209,32 @@ export function athletesRepo(db: Executor | Db, scope: ClubScope) {
         .innerJoin(users, eq(users.id, memberships.userId))
         .where(and(eq(memberships.clubId, scope.clubId), inArray(users.email, emails)));
       return new Map(rows.map((r) => [r.email, { userId: r.userId, role: r.role, displayName: r.displayName }]));
+    },
+    /** The club's open invitations (not accepted, not expired) to these addresses, with the children they name. */
+    async openInvitations(filter: { email?: string; athleteId?: string }): Promise<{ email: string; sentAt: string; athleteIds: string[] }[]> {
+      const rows = await db
+        .select({ id: invitations.id, email: invitations.email, createdAt: invitations.createdAt, athleteId: invitationAthletes.athleteId })
+        .from(invitations)
+        .leftJoin(invitationAthletes, eq(invitationAthletes.invitationId, invitations.id))
+        .where(
+          and(
+            eq(invitations.clubId, scope.clubId),
+            isNull(invitations.acceptedAt),
+            gt(invitations.expiresAt, new Date()),
+            filter.email ? eq(invitations.email, filter.email) : undefined,
+            filter.athleteId
+              ? sql`exists (select 1 from ${invitationAthletes} ia where ia.invitation_id = ${invitations.id} and ia.athlete_id = ${filter.athleteId})`
+              : undefined,
+          ),
+        )
+        .orderBy(asc(invitations.createdAt));
+      const byId = new Map<string, { email: string; sentAt: string; athleteIds: string[] }>();
+      for (const r of rows) {
+        const entry = byId.get(r.id) ?? { email: r.email, sentAt: r.createdAt.toISOString(), athleteIds: [] };
+        if (r.athleteId) entry.athleteIds.push(r.athleteId);
+        byId.set(r.id, entry);
+      }
+      return [...byId.values()];
     },
     /** Links parents to children; returns the links that were new (one already there is left as it is). */
     async linkGuardians(links: { athleteId: string; userId: string }[]): Promise<{ athleteId: string; userId: string }[]> {

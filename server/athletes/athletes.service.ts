@@ -1,3 +1,4 @@
+import { formatDateInWords } from '@/features/ui/format-date';
 import { eq } from 'drizzle-orm';
 import type { Db } from '@/db/client';
 import { athletes } from '@/db/schema';
@@ -23,7 +24,7 @@ const DUPLICATE_ARCHIVED_MESSAGE = 'An archived athlete with this name and date 
 /** The athlete's decision in force of one kind (null: none recorded). */
 const consentInForce = (athlete: AthleteView, kind: ConsentInput['kind']) => athlete.consents[CONSENT_FIELDS[kind]];
 
-export type AthleteDetail = AthleteView & { guardians?: GuardianView[] };
+export type AthleteDetail = AthleteView & { guardians?: GuardianView[]; invitedGuardians?: { email: string; sentAt: string }[] };
 
 /** Rules of the roster, on top of a repository built from the caller's scope. */
 export function athletesService(db: Db, scope: ClubScope) {
@@ -40,7 +41,9 @@ export function athletesService(db: Db, scope: ClubScope) {
     const athlete = await mustGet(id);
     // Parents see their child, not the other adults linked to them.
     if (!can(scope.role, 'guardians.read')) return athlete;
-    return { ...athlete, guardians: await repo.guardians(id) };
+    // Invited as this child's parent and not joined yet: shown beside the links, so nobody invites twice.
+    const invited = (await repo.openInvitations({ athleteId: id })).map(({ email, sentAt }) => ({ email, sentAt }));
+    return { ...athlete, guardians: await repo.guardians(id), invitedGuardians: invited };
   }
 
   async function activeSquadOrFail(r: AthletesRepo, squadId: string) {
@@ -175,7 +178,14 @@ export function athletesService(db: Db, scope: ClubScope) {
       await mustGet(id);
       const member = (await repo.membersByEmail([input.email])).get(input.email);
       if (!member) {
-        const message = 'No one with this e-mail is in the club yet. Invite them from People as a parent or guardian first, then link them here.';
+        // Invited and not joined yet: say so, rather than ask for an invitation already sent.
+        const [open] = await repo.openInvitations({ email: input.email });
+        const sent = open ? formatDateInWords(open.sentAt.slice(0, 10)) : '';
+        const message = !open
+          ? 'No one with this e-mail is in the club yet. Invite them from People as a parent or guardian first, then link them here.'
+          : open.athleteIds.includes(id)
+            ? `${input.email} was invited on ${sent} as a parent of this child and has not accepted yet: they are linked as soon as they accept.`
+            : `${input.email} was invited on ${sent} and has not accepted yet. Link them here once they have, or cancel that invitation in People and send one that names this child.`;
         throw new AppError(400, 'not_a_member', message, { email: message });
       }
       if (member.role !== 'parent') {

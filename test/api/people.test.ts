@@ -124,3 +124,28 @@ describe('members', () => {
     ]);
   });
 });
+
+// our choice: an invitation not accepted yet is shown where parents are linked, and named when someone
+// tries to link that address, so that nobody invites a parent twice or is told to invite them.
+describe('a parent invited and not joined yet', () => {
+  it("is shown on the child's page, and named when someone tries to link the address", async () => {
+    const child = (await admin.get(`/api/athletes/${ids.child}`)).body.athlete;
+    expect(child.invitedGuardians).toEqual([{ email: 'gran@riverside.test', sentAt: expect.stringMatching(/^\d{4}-\d{2}-\d{2}T/) }]);
+    const named = await admin.post(`/api/athletes/${ids.child}/guardians`).send({ email: 'gran@riverside.test' });
+    expect(named.status).toBe(400);
+    expect(named.body.error.fields.email).toMatch(
+      /^gran@riverside\.test was invited on \d{1,2} \w+ \d{4} as a parent of this child and has not accepted yet: they are linked as soon as they accept\.$/,
+    );
+    expect((await admin.post(`/api/clubs/${ids.club}/invitations`).send({ email: 'uncle@riverside.test', role: 'parent' })).status).toBe(201);
+    const other = await admin.post(`/api/athletes/${ids.child}/guardians`).send({ email: 'uncle@riverside.test' });
+    expect(other.status).toBe(400);
+    expect(other.body.error.fields.email).toMatch(
+      /has not accepted yet\. Link them here once they have, or cancel that invitation in People and send one that names this child\.$/,
+    );
+    // Not invited at all: asked to invite them first.
+    const stranger = await admin.post(`/api/athletes/${ids.child}/guardians`).send({ email: 'nobody@riverside.test' });
+    expect(stranger.body.error.fields.email).toMatch(/^No one with this e-mail is in the club yet/);
+    // Nothing was linked on the way.
+    expect((await admin.get(`/api/athletes/${ids.child}`)).body.athlete.guardians).toEqual([]);
+  });
+});

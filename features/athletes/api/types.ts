@@ -20,6 +20,8 @@ export type Athlete = {
   clearance: ClearanceView;
   /** Club staff only; parents do not see the other adults linked to a child. */
   guardians?: Guardian[];
+  /** Club staff only: addresses invited as this child's parent that have not accepted yet. */
+  invitedGuardians?: { email: string; sentAt: string }[];
   /** In the list, for club staff only: how many parent accounts are linked to the child. */
   guardianCount?: number;
 };

@@ -9,6 +9,7 @@ import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
+import { formatDate } from '@/features/ui/format-date';
 import { TextField } from '@/features/ui/components/text-field';
 import { colors, space } from '@/features/ui/theme';
 import { useLinkGuardianMutation } from '../api/link-guardian';
@@ -27,6 +28,11 @@ export function GuardiansPanel({ athlete }: { athlete: Athlete }) {
     <Card testID="guardians-panel">
       <Text variant="heading">Parents and guardians</Text>
       {guardians.length === 0 ? <Text variant="small">No parent or guardian is linked yet.</Text> : null}
+      {(athlete.invitedGuardians ?? []).map((i) => (
+        <Text key={i.email} variant="small" testID="guardian-invited">
+          {`Invited on ${formatDate(i.sentAt)}, not joined yet: ${i.email}. Linked to ${athlete.firstName} when they accept.`}
+        </Text>
+      ))}
       {unlink.error ? <Notice tone="error">{unlink.error.message}</Notice> : null}
       {guardians.map((g) => (
         <View key={g.userId} style={styles.row}>
