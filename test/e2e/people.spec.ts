@@ -56,6 +56,9 @@ test('an invitation names the children it links; a parent without a linked child
   await expect(page.getByTestId('invite-no-child')).toHaveCount(0);
   await page.screenshot({ path: testInfo.outputPath('invite-parent.png'), fullPage: true });
   await page.getByTestId('invite-submit').click();
+  // The e-mail names the child: the address is checked first.
+  await expect(page.getByText(`The e-mail to ${withChild} names Maya Okafor.`)).toBeVisible();
+  await page.getByTestId('invite-send-confirm').click();
   await expect(page.getByText('Invitation sent.')).toBeVisible();
   await expect(page.getByTestId('pending-invite').filter({ hasText: withChild })).toContainText('Parent or guardian of Maya Okafor');
   const link = await linkFromMailbox(page, withChild);

@@ -101,6 +101,8 @@ test('a head coach imports a CSV: a line with an error first, then a clean file'
   await expect(problem).toHaveCount(1);
   await expect(problem).toContainText(`Line 3: Bo ${lastName}`);
   await expect(problem).toContainText('Date of birth: Write the date as YYYY-MM-DD');
+  // The cell as the file has it, to find it in the spreadsheet.
+  await expect(problem).toContainText('The file has “09/03/2014”.');
   await expect(page.getByTestId('import-commit')).toHaveCount(0);
 
   await page.getByTestId('roster-file-input').setInputFiles(clean);

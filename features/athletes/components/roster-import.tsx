@@ -203,6 +203,8 @@ function ProblemLine({ row }: { row: ImportReportRow }) {
       {Object.entries(row.errors).map(([field, message]) => (
         <Text key={field} style={styles.problemText}>
           <Text style={styles.problemField}>{ROSTER_COLUMN_LABELS[field as RosterColumn] ?? field}:</Text> {message}
+          {/* What the cell holds, to find it in a long spreadsheet. */}
+          {row.values[field as RosterColumn]?.trim() ? ` The file has “${row.values[field as RosterColumn]!.trim()}”.` : ''}
         </Text>
       ))}
     </View>

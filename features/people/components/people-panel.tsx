@@ -166,6 +166,14 @@ function PendingRow({ invite: p, manage, clubId }: { invite: PendingInvite; mana
 
 function InviteForm({ clubId }: { clubId: string }) {
   const invite = useInviteMutation(clubId);
+  // A parent's invitation names the children in its e-mail: the address is checked before it goes.
+  const [checking, setChecking] = useState(false);
+  const roster = useAthletesQuery();
+  const namesOf = (ids: string[]) =>
+    (roster.data?.athletes ?? [])
+      .filter((a) => ids.includes(a.id))
+      .map((a) => `${a.firstName} ${a.lastName}`)
+      .join(', ');
   return (
     <Formik<InviteInput>
       initialValues={{ email: '', role: 'tester', athleteIds: [] }}
@@ -220,7 +228,27 @@ function InviteForm({ clubId }: { clubId: string }) {
               error={typeof errors.athleteIds === 'string' ? errors.athleteIds : undefined}
             />
           ) : null}
-          <Button label="Send invitation" testID="invite-submit" busy={isSubmitting} onPress={() => handleSubmit()} />
+          {checking ? (
+            <Confirm
+              text={`The e-mail to ${values.email.trim()} names ${namesOf(values.athleteIds)}. Check the address letter by letter: a stranger would learn their names.`}
+              confirmLabel="Yes, send it"
+              cancelLabel="Check again"
+              testID="invite-send-confirm"
+              busy={isSubmitting}
+              onConfirm={() => {
+                setChecking(false);
+                handleSubmit();
+              }}
+              onCancel={() => setChecking(false)}
+            />
+          ) : (
+            <Button
+              label="Send invitation"
+              testID="invite-submit"
+              busy={isSubmitting}
+              onPress={() => (values.role === 'parent' && values.athleteIds.length > 0 && values.email.trim() ? setChecking(true) : handleSubmit())}
+            />
+          )}
         </View>
       )}
     </Formik>
