@@ -109,6 +109,19 @@ test('training sheet: a squad by exercise, holds first, names open results, prin
   expect(recorded!.athleteIds).not.toContain(left);
   await page.screenshot({ path: `test-results/training-recorded-${info.project.name}.png` });
 
+  // A day further back is typed; half a day saves nothing (not even against today).
+  await page.getByTestId('sheet-record-open').click();
+  await form.getByTestId('sheet-record-day').getByRole('radio', { name: 'Another day' }).click();
+  await form.getByTestId('sheet-record-other-day').fill('2026-11');
+  await form.getByTestId('sheet-record-save').click();
+  await expect(form).toContainText('Write the date as YYYY-MM-DD');
+  const again: unknown[] = await page.evaluate(
+    async (id) => ((await (await fetch(`/api/squads/${id}/training-sessions`)).json()) as { sessions: never[] }).sessions,
+    sheet.squad.id,
+  );
+  expect(again).toHaveLength(sessions.length);
+  await form.getByRole('button', { name: 'Cancel' }).click();
+
   // A name opens that athlete's result, where the full plan and how to do each exercise are.
   const first = sheet.exercises[0]!.entries[0]!;
   await page.getByTestId(`sheet-entry-${sheet.exercises[0]!.id}-${first.athleteId}`).getByRole('link', { name: first.name }).click();

@@ -18,6 +18,7 @@ import { formatDate } from '@/features/ui/format-date';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { useRecordSessionMutation, useSessionsQuery, type RecordOutcome } from '../api/sessions';
 import { recordSessionSchema, type SessionView } from '../schemas';
+import { isCalendarDate, withDateDashes } from '@/features/athletes/schemas';
 import type { SheetAthlete, TrainingSheet } from '../sheet';
 
 /** The family has not agreed (said no, or nothing recorded): on no exercise, never recorded as taking part. */
@@ -26,6 +27,8 @@ export const withoutConsent = (a: Pick<SheetAthlete, 'state'>) => a.state === 'c
 const DAY_MS = 24 * 3600 * 1000;
 /** Today, yesterday and the day before, on the phone's calendar: a session is recorded that day or soon after (our choice). */
 const recentDays = (now = Date.now()) => [0, 1, 2].map((back) => todayIsoLocal(new Date(now - back * DAY_MS)));
+/** The chip that opens a field for a day further back. */
+const OTHER_DAY = 'other';
 
 /** What the last save did: sent, or kept on this phone (the notice follows the record until it is sent). */
 type Saved = { how: RecordOutcome; heldOn: string; what: string };
@@ -156,6 +159,8 @@ function RecordForm({
   const { isTabletUp } = useBreakpoints();
   const record = useRecordSessionMutation(sheet.squad.id);
   const days = recentDays();
+  const [typing, setTyping] = useState(false);
+  const [typed, setTyped] = useState('');
   // Those whose family has not agreed to corrective exercises are never recorded as having done them.
   const eligible = sheet.athletes.filter((a) => !withoutConsent(a));
   const notEligible = sheet.athletes.filter((a) => !eligible.includes(a));
@@ -198,13 +203,33 @@ function RecordForm({
     <View style={styles.form} testID="sheet-record-form">
       <Chips
         label="Day of the session"
-        options={days.map((d, i) => ({ value: d, label: i === 0 ? 'Today' : i === 1 ? 'Yesterday' : formatDate(d) }))}
-        value={form.values.heldOn}
+        options={[
+          ...days.map((d, i) => ({ value: d, label: i === 0 ? 'Today' : i === 1 ? 'Yesterday' : formatDate(d) })),
+          { value: OTHER_DAY, label: 'Another day' },
+        ]}
+        value={typing ? OTHER_DAY : form.values.heldOn}
         onChange={(d) => {
-          void form.setValues({ heldOn: d, ...startFor(d) });
+          // Another day is typed: until it is a whole day, nothing is saved against a day not meant.
+          setTyping(d === OTHER_DAY);
+          const day = d === OTHER_DAY ? typed : d;
+          void form.setValues({ heldOn: day, ...(isCalendarDate(day) ? startFor(day) : { athleteIds: form.values.athleteIds, note: form.values.note }) });
         }}
         testID="sheet-record-day"
       />
+      {typing ? (
+        <TextField
+          label="Day of the session (YYYY-MM-DD)"
+          value={typed}
+          inputMode="numeric"
+          testID="sheet-record-other-day"
+          onChangeText={(t) => {
+            const day = withDateDashes(t);
+            setTyped(day);
+            void form.setValues({ heldOn: day, ...(isCalendarDate(day) ? startFor(day) : { athleteIds: form.values.athleteIds, note: form.values.note }) });
+          }}
+          error={form.submitCount > 0 && form.errors.heldOn}
+        />
+      ) : null}
       {recorded ? (
         <Text variant="small" testID="sheet-record-replaces">
           {`This day is already recorded${recordedBy ? ` by ${recordedBy}` : ''} (${earlier!.athleteIds.length} took part): saving replaces who took part.`}
@@ -255,7 +280,7 @@ function RecordForm({
         </Text>
       ) : null}
       {form.submitCount > 0 && typeof form.errors.athleteIds === 'string' ? <Text style={styles.error}>{form.errors.athleteIds}</Text> : null}
-      {form.submitCount > 0 && form.errors.heldOn ? <Text style={styles.error}>{form.errors.heldOn}</Text> : null}
+      {form.submitCount > 0 && form.errors.heldOn && !typing ? <Text style={styles.error}>{form.errors.heldOn}</Text> : null}
       <TextField
         label="Note (optional)"
         value={form.values.note}
