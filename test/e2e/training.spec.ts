@@ -115,11 +115,9 @@ test('training sheet: a squad by exercise, holds first, names open results, prin
   await form.getByTestId('sheet-record-other-day').fill('2026-11');
   await form.getByTestId('sheet-record-save').click();
   await expect(form).toContainText('Write the date as YYYY-MM-DD');
-  const again: unknown[] = await page.evaluate(
-    async (id) => ((await (await fetch(`/api/squads/${id}/training-sessions`)).json()) as { sessions: never[] }).sessions,
-    sheet.squad.id,
-  );
-  expect(again).toHaveLength(sessions.length);
+  // Still open with the error: a save would have closed it (the other project records on this squad at the
+  // same time, so counting its sessions would not tell).
+  await expect(form.getByTestId('sheet-record-other-day')).toBeVisible();
   await form.getByRole('button', { name: 'Cancel' }).click();
 
   // A name opens that athlete's result, where the full plan and how to do each exercise are.
