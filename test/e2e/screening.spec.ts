@@ -317,6 +317,12 @@ test('a result groups flags by pattern and side and shows the caution for an unk
   const firstMore = page.locator('[data-testid^="more-sets-"]').first();
   for (let i = 0; i < 4; i += 1) await firstMore.click();
   await expect(page.getByTestId('plan-editor-error')).toContainText('Only a head coach or a physiotherapist');
+
+  // No 1RM on record: the plan leads to the screen's first step, where one is entered.
+  await page.reload();
+  await page.getByTestId('plan-one-rep-max-enter').click();
+  await expect(page).toHaveURL(new RegExp(`/screening/assessments/${id}\\?step=body$`));
+  await expect(page.getByTestId('step-counter')).toHaveText('Before the tasks');
 });
 
 // A head coach may go past a limit, giving a reason: the plan then shows a caution and keeps it in its history.

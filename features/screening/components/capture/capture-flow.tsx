@@ -1,7 +1,7 @@
 import { AthleteClearanceBadge } from '@/features/care/components/clearance-badge';
 import { can } from '@/features/access/permissions';
 import { useQueryClient } from '@tanstack/react-query';
-import { Link, Redirect, useRouter } from 'expo-router';
+import { Link, Redirect, useLocalSearchParams, useRouter } from 'expo-router';
 import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import { StyleSheet, View, type ScrollView } from 'react-native';
 import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
@@ -113,7 +113,9 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
   const { membership } = useActiveClub();
   const [submitting, setSubmitting] = useState(false);
   const scroll = useRef<ScrollView>(null);
-  const [stepIndex, setStepIndex] = useState(() => Math.max(0, STEPS.indexOf(draft.step ?? 'body')));
+  // `?step=body` (from the result's "Enter an estimated 1RM"): the step asked for, not the one saved.
+  const { step: asked } = useLocalSearchParams<{ step?: string }>();
+  const [stepIndex, setStepIndex] = useState(() => Math.max(0, STEPS.indexOf(asked === 'body' ? 'body' : (draft.step ?? 'body'))));
   const [editing, setEditing] = useState<{ taskId: TaskId; view: PhotoSide } | null>(null);
   const [submitError, setSubmitError] = useState<string | null>(null);
   const photos = useMemo(() => photoIndex(detail.photos), [detail.photos]);

@@ -1,3 +1,4 @@
+import { Link } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { CLEARANCE_LABELS } from '@/features/care/choices';
@@ -14,7 +15,7 @@ import { oneRepMaxWarning } from '@/features/screening/one-rep-max';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
-import { colors, fonts, radius, space } from '@/features/ui/theme';
+import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { ExerciseCard } from './exercise-card';
 import { PlanEditor } from './plan-editor';
 import { formatDate } from '@/features/ui/format-date';
@@ -52,6 +53,8 @@ type Props = {
   /** A head coach or physiotherapist: may go past a limit with a reason. */
   canOverride: boolean;
   hold: PlanHold;
+  /** Where a 1RM is entered (the screen's first step), for those who may edit the screen. */
+  oneRepMaxHref?: string;
 };
 
 const PLAN_TOP = 'plan-top';
@@ -63,7 +66,7 @@ const UNKNOWN_HOLD: StrengthBlock = {
   words: "The physiotherapist's clearance could not be read: loaded strength and landing work are shown as on hold until it can.",
 };
 
-export function PlanSection({ assessmentId, result, oneRepMaxKg, massKg, canAdjust, canOverride, hold }: Props) {
+export function PlanSection({ assessmentId, result, oneRepMaxKg, massKg, canAdjust, canOverride, hold, oneRepMaxHref }: Props) {
   const plan = result.result.plan;
   const adjustment = result.adjustment;
   const loading = loadingContextOf(result.result, oneRepMaxKg);
@@ -125,6 +128,13 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, massKg, canAdju
           ? `Split-squat 1RM on record: ${oneRepMaxKg} kg. Loads below are shares of it.`
           : 'No split-squat 1RM on record: loaded exercises use bodyweight until one is estimated.'}
       </Text>
+      {oneRepMaxKg == null && oneRepMaxHref ? (
+        <Link href={oneRepMaxHref as never} style={styles.oneRepMaxLink} testID="plan-one-rep-max-enter">
+          <Text variant="label" style={styles.linkText}>
+            Enter an estimated 1RM (the screen&apos;s first step; loads then follow from it) →
+          </Text>
+        </Link>
+      ) : null}
       {oneRepMaxWarning(oneRepMaxKg, massKg) ? (
         <Notice tone="caution" title="Check the 1RM" testID="plan-one-rep-max-warning">
           {oneRepMaxWarning(oneRepMaxKg, massKg)}
@@ -308,6 +318,8 @@ function Overrides({ adjustment }: { adjustment: PlanAdjustmentView }) {
 }
 
 const styles = StyleSheet.create({
+  oneRepMaxLink: { minHeight: TOUCH_MIN, paddingVertical: space.sm },
+  linkText: { color: colors.pine },
   wrap: { gap: space.md },
   source: { gap: space.xs, padding: space.md, borderRadius: radius.md, backgroundColor: colors.pineSoft },
   sourceText: { fontFamily: fonts.bold, color: colors.pineDark },

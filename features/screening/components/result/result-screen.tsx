@@ -78,6 +78,7 @@ export default function ResultScreen({ assessmentId, from }: { assessmentId: str
             canAdjust={can(membership.role, 'plan.adjust')}
             canOverride={can(membership.role, 'plan.override')}
             hold={care.data ? { block: care.data.care.block, clearance: care.data.care.clearance } : care.error ? 'unknown' : 'pending'}
+            oneRepMaxHref={canEdit && !detail.roundClosedAt ? `/screening/assessments/${detail.id}?step=body` : undefined}
           />
           {reviews && isWide ? null : carePanel}
           {isWide ? null : <ResultPhotos detail={detail} />}
