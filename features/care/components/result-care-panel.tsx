@@ -8,6 +8,7 @@ import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
+import { scrollToId } from '@/features/ui/scroll-to';
 import { colors, radius, space } from '@/features/ui/theme';
 import { useAssessmentCareQuery, useMarkReviewedMutation, useReleaseMutation, useReleasePreviewQuery } from '../api/assessment-care';
 import { LazyCarePanels } from './lazy-care-panels';
@@ -78,6 +79,8 @@ type ReleaseProps = {
   release: ReturnType<typeof useReleaseMutation>;
 };
 
+const RELEASE_ACTIONS = 'release-actions';
+
 function Release({ assessmentId, previewing, setPreviewing, release }: ReleaseProps) {
   const preview = useReleasePreviewQuery(assessmentId, previewing && !release.isSuccess);
   if (release.isSuccess) return <Released sent={release.data.release.recipients} preview={preview.data?.preview} />;
@@ -100,11 +103,13 @@ function Release({ assessmentId, previewing, setPreviewing, release }: ReleasePr
         </Text>
       ))}
       <Text variant="small">Subject: {p.subject}</Text>
+      {/* The e-mail runs to a few screens on a phone: the decision is one tap away once read, or skimmed. */}
+      <Button label="To the release button ↓" tone="quiet" onPress={() => scrollToId(RELEASE_ACTIONS, true)} testID="release-jump" />
       <View style={styles.preview} testID="email-preview">
         <Text style={styles.previewText}>{p.text}</Text>
       </View>
       {release.error ? <Notice tone="error">{messageOf(release.error)}</Notice> : null}
-      <View style={styles.row}>
+      <View style={styles.row} nativeID={RELEASE_ACTIONS}>
         <Button label="Release to the family" busy={release.isPending} onPress={() => release.mutate()} testID="release-confirm" />
         <Button label="Not now" tone="quiet" onPress={() => setPreviewing(false)} />
       </View>
