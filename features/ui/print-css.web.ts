@@ -20,6 +20,10 @@ const CSS = `
   [data-print="hide"] { display: none !important; }
   [data-print-root] { font-size: 11px; }
   [data-print-keep] { break-inside: avoid; page-break-inside: avoid; }
+  /* Rows of cards left half a page blank wherever the next row did not fit: on paper the cards flow down
+     three columns instead, each whole, so a page fills. */
+  [data-print-columns] { display: block !important; column-count: 3; column-gap: 6mm; }
+  [data-print-columns] > * { display: block !important; width: auto !important; margin: 0 0 4mm 0 !important; }
 }`;
 
 export function installPrintCss(): void {

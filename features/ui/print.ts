@@ -5,6 +5,8 @@ export const PRINT_HIDE = { dataSet: { print: 'hide' } } as object;
 export const PRINT_ROOT = { dataSet: { printRoot: 'true' } } as object;
 /** A block kept on one printed page (an exercise with its athletes' names). */
 export const PRINT_KEEP = { dataSet: { printKeep: 'true' } } as object;
+/** Blocks that flow down three columns on paper, each kept whole (the training sheet's exercises). */
+export const PRINT_COLUMNS = { dataSet: { printColumns: 'true' } } as object;
 export function usePrintStyles(): void {}
 export function printPage(): void {}
 export const canPrint = false;

@@ -12,7 +12,7 @@ import { Chips } from '@/features/ui/components/chips';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { formatDate } from '@/features/ui/format-date';
-import { canPrint, printPage, PRINT_HIDE, PRINT_KEEP, PRINT_ROOT, usePrintStyles } from '@/features/ui/print';
+import { canPrint, printPage, PRINT_COLUMNS, PRINT_HIDE, PRINT_KEEP, PRINT_ROOT, usePrintStyles } from '@/features/ui/print';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { useTrainingSheetQuery } from '../api/get-training-sheet';
 import { SessionsCard, withoutConsent } from './record-session';
@@ -153,7 +153,7 @@ function SheetBody({ data }: { data: TrainingSheet }) {
         <SessionsCard sheet={data} canRecord={can(membership.role, 'training.record')} />
       </View>
       {data.exercises.length === 0 ? <Notice>Nobody in this squad has an exercise to do yet.</Notice> : null}
-      <View style={[styles.grid, isTabletUp && styles.gridTwo]}>
+      <View style={[styles.grid, isTabletUp && styles.gridTwo]} {...PRINT_COLUMNS}>
         {data.exercises.map((e) => (
           <View key={e.id} style={[styles.cell, isTabletUp && styles.cellTwo, isWide && styles.cellThree]} {...PRINT_KEEP}>
             <ExerciseCard exercise={e} resultOf={resultOf} />
