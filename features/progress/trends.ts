@@ -62,6 +62,8 @@ export type TrendAthlete = {
   daysSinceLastScreen: number | null;
   rescreenDate: string | null;
   rescreenDue: boolean;
+  /** An open round of the squad in which the athlete's screen is not submitted yet (its name), or null. */
+  openRound?: string | null;
   latestFlags: SidedPatterns;
   /**
    * The squad's corrective sessions recorded after the newest screen (`held`; our choice: not on the

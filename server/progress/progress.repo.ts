@@ -139,6 +139,24 @@ export function progressRepo(db: Executor, scope: ClubScope) {
     },
 
     /**
+     * The squad's open rounds in which a member's screen is not submitted yet: athlete id to the round's
+     * name (the newest round when there are several). One index range per open round.
+     */
+    async waitingInOpenRounds(squadId: string): Promise<Map<string, string>> {
+      const rows = await preparedRows<{ athlete_id: string; name: string }>(
+        db,
+        'progress_waiting_in_open_rounds',
+        `select distinct on (a.athlete_id) a.athlete_id, r.name
+          from rounds r
+          join assessments a on a.round_id = r.id and a.status <> 'submitted'
+          where r.squad_id = $1 and r.club_id = $2 and r.closed_at is null
+          order by a.athlete_id, r.screened_on desc, r.created_at desc`,
+        [squadId, clubId],
+      );
+      return new Map(rows.map((r) => [r.athlete_id, r.name]));
+    },
+
+    /**
      * A squad's season in one statement: the squad, its rounds with their summaries, and each current
      * member with their newest screen (wherever it was: an athlete may have changed squad), the
      * clearance in force and the squad's sessions since that screen (held, and taken part in), as one

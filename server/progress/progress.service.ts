@@ -65,6 +65,7 @@ export function progressService(db: Executor, scope: ClubScope) {
     async squadTrends(squadId: string, today: string, filters: TrendFilters = {}): Promise<TrendsResponse> {
       const season = await repo.season(squadId);
       if (!season) throw notFound('The squad');
+      const waiting = await repo.waitingInOpenRounds(squadId);
 
       const rounds: TrendRound[] = season.rounds.map(([id, name, screenedOn, screened, flagged]) => ({
         id,
@@ -131,6 +132,7 @@ export function progressService(db: Executor, scope: ClubScope) {
             rescreenDate: rescreen.date,
             // No re-screen is asked of an athlete whose family has not agreed to take part (our rule).
             rescreenDue: takingPart && rescreen.due,
+            openRound: waiting.get(id) ?? null,
             takingPart,
             screeningRefused: screeningConsent === false,
             latestFlags: sidedPatterns(flagIds ?? [], flagSides ?? []),

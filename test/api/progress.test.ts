@@ -268,6 +268,21 @@ describe('GET /api/squads/:id/trends', () => {
     await as.coach.get(`/api/squads/${ids.squad}/trends?format=xml`).expect(400);
   });
 
+  // our choice: a re-screen due for an athlete already waiting in an open round is planned, not forgotten.
+  it('names the open round a member waits in, until their screen there is submitted or the round closes', async () => {
+    const before = await as.coach.get(`/api/squads/${ids.squad}/trends`).expect(200);
+    // Both rounds of the seed are open, and every screen in them is submitted.
+    expect(before.body.athletes.map((a: { openRound: string | null }) => a.openRound)).toEqual([null, null, null]);
+    const round = await as.tester.post('/api/rounds').send({ squadId: ids.squad, name: 'Winter check', screenedOn: today }).expect(201);
+    const during = await as.coach.get(`/api/squads/${ids.squad}/trends`).expect(200);
+    const rows = Object.fromEntries(during.body.athletes.map((a: { firstName: string }) => [a.firstName, a]));
+    expect(rows.Cai).toMatchObject({ rescreenDue: true, openRound: 'Winter check' });
+    expect(rows.Ana).toMatchObject({ rescreenDue: false, openRound: 'Winter check' });
+    await as.tester.post(`/api/rounds/${round.body.round.id}/close`).expect(200);
+    const after = await as.coach.get(`/api/squads/${ids.squad}/trends`).expect(200);
+    expect(after.body.athletes.map((a: { openRound: string | null }) => a.openRound)).toEqual([null, null, null]);
+  });
+
   it('is for club staff of the squad club only', async () => {
     await as.physio.get(`/api/squads/${ids.squad}/trends`).expect(200);
     await as.tester.get(`/api/squads/${ids.squad}/trends`).expect(200);

@@ -9,13 +9,18 @@ import { formatDate } from '@/features/ui/format-date';
 import { PRINT_KEEP } from '@/features/ui/print';
 import { capitalise } from '@/features/ui/capitalise';
 
-/** "Due since Jul 20, 2026" (how long overdue), "Due" never screened, "from Jan 16, 2027" not yet. */
+/** "Due since Jul 20, 2026" (how long overdue), "Due · in Winter check" planned, "Due" never screened, "from Jan 16, 2027" not yet. */
 function rescreenCell(a: TrendAthlete): string {
   // Short: the column is narrow (the CSV and the athlete's page say it in full).
   if (!a.takingPart) return a.screeningRefused ? 'Family said no' : 'No consent yet';
   if (!a.rescreenDue) return `from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`;
+  // Already waiting in an open round: planned, not forgotten.
+  if (a.openRound) return `Due · in ${a.openRound}`;
   return a.rescreenDate ? `Due since ${formatDate(a.rescreenDate)}` : 'Due';
 }
+
+/** Red only for a re-screen due that no open round has planned yet. */
+const overdue = (a: TrendAthlete) => a.rescreenDue && !a.openRound;
 
 const list = (p: PatternId[]) => (p.length ? p.map((x) => PATTERN_SHORT[x]).join(', ') : '–');
 // In the table's narrow columns, one flag a line, each marked where it starts (a name may wrap; with
@@ -102,7 +107,7 @@ export function TrendsTable({ rows, sort, descending, onSort, onPaper = false }:
                   </Text>
                 </Link>
               ) : (
-                <Text variant="small" style={c.key === 'rescreenDue' && a.rescreenDue ? styles.due : styles.value}>
+                <Text variant="small" style={c.key === 'rescreenDue' && overdue(a) ? styles.due : styles.value}>
                   {c.cell(a, onPaper)}
                 </Text>
               )}
@@ -126,7 +131,7 @@ export function TrendsCards({ rows }: { rows: TrendAthlete[] }) {
                 {a.firstName} {a.lastName}
               </Text>
             </Link>
-            <Text variant="small" style={a.rescreenDue ? styles.due : undefined}>
+            <Text variant="small" style={overdue(a) ? styles.due : undefined}>
               {a.takingPart ? `Re-screen ${rescreenCell(a).replace(/^Due/, 'due')}` : rescreenCell(a)}
             </Text>
           </View>
