@@ -162,7 +162,7 @@ describe('buildFamilySummary', () => {
 describe("clearanceWords (our wording: who decided and when, never the team's free-text detail)", () => {
   const setAt = '2026-10-02T09:15:00.000Z';
   it.each([
-    ['cleared', 'Pat Lee (physiotherapist) cleared Ana to train as normal on 2 October 2026.'],
+    ['cleared', 'Pat Lee (physiotherapist) cleared Ana on 2 October 2026 to take part as planned, with nothing changed.'],
     ['modified', 'Pat Lee (physiotherapist) cleared Ana to train with some changes on 2 October 2026; the coaches will explain them.'],
     [
       'referred',
@@ -186,7 +186,7 @@ describe("clearanceWords (our wording: who decided and when, never the team's fr
   it('says nothing without a decision, and names no one when the author left', () => {
     expect(clearanceWords(null, 'Ana')).toBeNull();
     expect(clearanceWords({ status: 'cleared', detail: '', holds: [], setByName: null, setAt }, 'Ana')).toBe(
-      'A physiotherapist cleared Ana to train as normal on 2 October 2026.',
+      'A physiotherapist cleared Ana on 2 October 2026 to take part as planned, with nothing changed.',
     );
   });
 });

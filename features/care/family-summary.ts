@@ -166,7 +166,7 @@ export function clearanceWords(clearance: ClearanceView, firstName: string): str
   const day = formatDateInWords(clearance.setAt.slice(0, 10));
   switch (clearance.status) {
     case 'cleared':
-      return `${who} cleared ${firstName} to train as normal on ${day}.`;
+      return `${who} cleared ${firstName} on ${day} to take part as planned, with nothing changed.`;
     case 'modified':
       return clearance.holds?.length
         ? `${who} cleared ${firstName} to train with some changes on ${day}: ${holdsWords(clearance.holds).toLowerCase()} ${clearance.holds.length > 1 ? 'wait' : 'waits'} for now, and the coaches will explain any other change.`

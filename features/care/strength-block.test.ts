@@ -52,9 +52,7 @@ describe('splitByBlock', () => {
     const changes = (holds: ('loaded' | 'landing')[]) => strengthBlock(ready, { status: 'modified', setAt: '2026-09-15T00:00:00.000Z', holds }, RESULT_AT);
     const landingOnly = changes(['landing']);
     expect(landingOnly).toMatchObject({ blocked: true, reason: 'changes', holds: ['landing'] });
-    expect(landingOnly.blocked && landingOnly.words).toBe(
-      "Jump and landing work is on hold: the physiotherapist's changes. It starts again once a physiotherapist records a new clearance.",
-    );
+    expect(landingOnly.blocked && landingOnly.words).toBe("Jump and landing work is on hold on the physiotherapist's advice, until a new clearance.");
     expect(splitByBlock(all, landingOnly).held.map((e) => e.name)).toEqual(['snap-down']);
     expect(splitByBlock(all, changes(['loaded'])).held.map((e) => e.name)).toEqual(['split squat', 'step-up']);
     expect(splitByBlock(all, changes(['loaded', 'landing'])).now.map((e) => e.name)).toEqual(['bridge']);

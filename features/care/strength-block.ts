@@ -65,7 +65,7 @@ export function strengthBlock(
       blocked: true,
       reason: 'changes',
       holds,
-      words: `${subject} ${holds.length > 1 ? 'are' : 'is'} on hold: the physiotherapist's changes. ${holds.length > 1 ? 'They start' : 'It starts'} again once a physiotherapist records a new clearance.`,
+      words: `${subject} ${holds.length > 1 ? 'are' : 'is'} on hold on the physiotherapist's advice, until a new clearance.`,
     };
   }
   return { blocked: false };

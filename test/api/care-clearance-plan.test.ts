@@ -126,7 +126,7 @@ describe('pain reported, then cleared by a physiotherapist', () => {
     const latest = family.body.latest.summary as FamilySummary;
     expect(latest.onHold).toBeNull();
     expect(latest.exercises.map((e) => e.name)).toEqual(expect.arrayContaining(loaded));
-    expect(latest.clearance).toBe(`Phil Physio (physiotherapist) cleared Kit to train as normal on ${dayInWords}.`);
+    expect(latest.clearance).toBe(`Phil Physio (physiotherapist) cleared Kit on ${dayInWords} to take part as planned, with nothing changed.`);
     expect(family.body.earlier[0].summary.onHold).toMatch(/on hold/);
     expect(outbox.sent).toHaveLength(1);
 
@@ -260,7 +260,7 @@ describe('train with changes, holding jump and landing work', () => {
     const care = (await as.tester.get(`/api/assessments/${ids.kitScreen}/care`)).body.care;
     expect(care.block).toMatchObject({ blocked: true, reason: 'changes', holds: ['landing'] });
     expect(care.block.words).toBe(
-      "Jump and landing work is on hold: the physiotherapist's changes. It starts again once a physiotherapist records a new clearance.",
+      "Jump and landing work is on hold on the physiotherapist's advice, until a new clearance.",
     );
 
     const sheet = (await as.coach.get(`/api/squads/${ids.squad}/training-sheet`)).body as {
@@ -330,7 +330,7 @@ describe('a clearance given before the screen', () => {
     const mail = outbox.sent.at(-1)!;
     expect(mail.to).toBe('parent@quayside.test');
     for (const name of loaded) expect(mail.text).toContain(name);
-    expect(mail.text).toContain(`Phil Physio (physiotherapist) cleared Lou to train as normal on ${dayInWords}.`);
+    expect(mail.text).toContain(`Phil Physio (physiotherapist) cleared Lou on ${dayInWords} to take part as planned, with nothing changed.`);
     expect(mail.text).not.toMatch(/on hold/);
     expect(mail.html).toContain('cleared Lou to train as normal');
   });

@@ -272,7 +272,7 @@ test("the plan sets held-back work apart with the reason, and follows the physio
   await panel.getByTestId('clearance-save').click();
   await expect(panel.getByTestId('clearance-holds')).toHaveText('On hold until a new clearance: jump and landing work.');
   const changes = page.getByTestId('plan-held');
-  await expect(changes.getByTestId('plan-held-reason')).toContainText('Train with changes: set by Sam Adeyemi');
+  await expect(changes.getByTestId('plan-held-reason')).toContainText('Train with changes, set by Sam Adeyemi');
   await expect(changes.getByTestId('plan-held-reason')).toContainText('Jump and landing work is on hold');
   await expect(changes.getByTestId('plan-held-exercise').first()).toBeVisible();
   await expect(page.getByTestId('plan').locator('[data-testid="exercise-split-squat-endurance"]')).toHaveCount(1);

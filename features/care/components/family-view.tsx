@@ -8,6 +8,7 @@ import { colors, fonts, radius, space } from '@/features/ui/theme';
 import { useFamilyViewQuery } from '../api/get-family-view';
 import type { FamilyComparison, FamilySummary, FamilyView as FamilyViewData, SummaryRelease } from '../types';
 import { formatDate } from '@/features/ui/format-date';
+import { familyReleases } from '../family-releases';
 import { todayIso } from '@/features/athletes/age';
 import { CLUB_ONLY_WORDS, recheckWords, sessionsSinceWords } from '../family-words';
 
@@ -17,7 +18,8 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
   const { isWide } = useBreakpoints();
   if (query.isPending) return <Text>Loading…</Text>;
   if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
-  const { athlete, takingPart, latest, comparison, sessionsSinceLatest, earlier, notes, photos } = query.data;
+  const { athlete, takingPart, latest, comparison, sessionsSinceLatest, notes, photos } = query.data;
+  const { firstSharedAt, updatedAt, earlier } = familyReleases(latest, query.data.earlier);
   const photosCard =
     photos.length > 0 ? (
       <Card>
@@ -65,7 +67,7 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
       ) : (
         <View style={[styles.wrap, isWide && styles.columns]}>
           <View style={[styles.wrap, isWide && styles.column]}>
-            <Summary summary={latest.summary} releasedAt={latest.releasedAt} />
+            <Summary summary={latest.summary} releasedAt={firstSharedAt ?? latest.releasedAt} updatedAt={updatedAt} />
             {comparison ? <Comparison comparison={comparison} /> : null}
           </View>
           <View style={[styles.wrap, isWide && styles.column]}>
@@ -110,11 +112,12 @@ function NotTakingPart({ athlete, stoppedOn, hasPlan }: { athlete: FamilyViewDat
   );
 }
 
-function Summary({ summary, releasedAt }: { summary: FamilySummary; releasedAt: string }) {
+function Summary({ summary, releasedAt, updatedAt }: { summary: FamilySummary; releasedAt: string; updatedAt: string | null }) {
   return (
     <Card testID="family-summary">
-      <Text variant="small">
+      <Text variant="small" testID="family-shared">
         Screen of {formatDate(summary.screenedOn)} · shared with you {formatDate(releasedAt)}
+        {updatedAt ? ` · updated ${formatDate(updatedAt)} after the physiotherapist's decision` : ''}
       </Text>
       <Section title="What was checked" items={summary.checked} />
       <Section title="What we saw" items={summary.seen} />
@@ -158,6 +161,11 @@ function Plan({ summary, sessions }: { summary: FamilySummary; sessions: FamilyV
     <Card testID="family-plan">
       <Text variant="heading">{`What ${summary.athleteFirstName} will work on`}</Text>
       <Text>{summary.howOften}</Text>
+      {summary.exercises.length ? (
+        <Text variant="small" testID="family-sets-words">
+          A “rep” is one movement; a “set” is a run of reps done in a row, with a rest before the next set.
+        </Text>
+      ) : null}
       {done ? <Text testID="family-sessions">{done}</Text> : null}
       {summary.onHold ? (
         <Notice tone="error" title="On hold for now">
@@ -213,7 +221,7 @@ function Earlier({ releases }: { releases: SummaryRelease[] }) {
       <Text variant="heading">Earlier summaries</Text>
       {releases.map((r) => (
         <View key={r.id} style={styles.list}>
-          {/* A screen shared again (after a physiotherapist's decision) is listed with the day it was shared. */}
+          {/* Each earlier screen once, as it was last shared. */}
           <Text variant="label">
             Screen of {formatDate(r.summary.screenedOn)} · as shared {formatDate(r.releasedAt)}
           </Text>

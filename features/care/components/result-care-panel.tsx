@@ -41,7 +41,7 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
         </Text>
         <Text testID="review-state">
           {c.reviewedAt ? `Reviewed by ${c.reviewedByName ?? 'a former member'} on ${formatDate(c.reviewedAt)}.` : 'Not reviewed yet.'}{' '}
-          {c.releasedAt ? `Shared with the family on ${formatDate(c.releasedAt)}.` : 'Not shared with the family yet.'}
+          {c.releasedAt ? `Released for the family's page on ${formatDate(c.releasedAt)}.` : 'Not released to the family yet.'}
         </Text>
         {!c.reviewedAt && can(membership.role, 'review.mark') ? <MarkReviewed assessmentId={assessmentId} /> : null}
         {(release.isSuccess || (c.reviewedAt && !c.releasedAt)) && can(membership.role, 'summary.release') ? (

@@ -263,7 +263,7 @@ function HeldWork({
     : block.reason === 'referred'
       ? `Refer on: ${who} referred the athlete on ${when}${clearance?.detail ? ` (${clearance.detail})` : ''}. Loaded strength work and landing work wait until a physiotherapist clears the athlete.`
       : block.reason === 'changes'
-        ? `Train with changes: set by ${who} on ${when}${clearance?.detail ? ` (${clearance.detail})` : ''}. ${block.words}`
+        ? `Train with changes, set by ${who} on ${when}. ${block.words}${clearance?.detail ? ` Their words: “${clearance.detail}”` : ''}`
         : `Clearance needed: ${block.words}`;
   return (
     <View style={styles.held} testID="plan-held">
