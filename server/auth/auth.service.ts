@@ -136,7 +136,7 @@ export function createAuthService({ db, auth, outbox, limits = DEFAULT_AUTH_LIMI
     });
     // The link is made when the mail is sent (server/auth/link-mail.ts, which names the children): the queue holds no token.
     await outbox.enqueue({ template: 'invitation', id: row.id });
-    return { id: row.id, children: children.map((c) => `${c.firstName} ${c.lastName}`) };
+    return { id: row.id, children: children.map((c) => ({ id: c.id, name: `${c.firstName} ${c.lastName}` })) };
   }
 
   async function findOpenInvitation(token: string) {

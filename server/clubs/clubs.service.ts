@@ -75,8 +75,23 @@ export function clubsService(db: Db, authService: AuthService, scope: ClubScope)
 
     async invite({ email, role, athleteIds }: InviteInput): Promise<InviteResponse> {
       const sent = await authService.invite({ clubId: scope.clubId, email, role: role as Role, invitedBy: scope.userId, athleteIds });
-      // In the trail with the children it names: the e-mail carries their names to that address.
-      await audit(db, 'invite', sent.id, { email, role, ...(sent.children.length ? { children: sent.children } : {}) });
+      // In the trail with the children it names (the e-mail carries their names to that address), and in
+      // each named child's own trail.
+      const detail = { email, role, ...(sent.children.length ? { children: sent.children.map((c) => c.name) } : {}) };
+      if (sent.children.length === 0) await audit(db, 'invite', sent.id, detail);
+      else
+        await recordAudit(
+          db,
+          ...sent.children.map((c) => ({
+            clubId: scope.clubId,
+            actorId: scope.userId,
+            action: 'invite',
+            subjectKind: 'member' as const,
+            subjectId: sent.id,
+            athleteId: c.id,
+            detail,
+          })),
+        );
       return { ok: true, email, role: role as Role, athleteIds };
     },
   };

@@ -122,6 +122,9 @@ describe('members', () => {
       ['invite', 'Ada Admin', { email: 'new@riverside.test', role: 'head_coach' }],
       ['invite', 'Ada Admin', { email: 'new@riverside.test', role: 'tester' }],
     ]);
+    // And in the named child's own trail.
+    const childTrail = (await admin.get(`/api/audit?athleteId=${ids.child}&subject=member`)).body.events as { action: string; detail: { email: string } }[];
+    expect(childTrail.map((e) => [e.action, e.detail.email])).toEqual([['invite', 'gran@riverside.test']]);
   });
 });
 
