@@ -44,7 +44,7 @@ export function AthleteRow({ athlete }: { athlete: Athlete }) {
             {noPhotos ? (
               <View style={styles.tag}>
                 <Text variant="small" style={styles.tagText}>
-                  No photo consent
+                  {athlete.consents.photos ? 'No photo consent' : 'No photo decision yet'}
                 </Text>
               </View>
             ) : null}

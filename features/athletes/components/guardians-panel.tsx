@@ -56,12 +56,12 @@ export function GuardiansPanel({ athlete }: { athlete: Athlete }) {
           ) : null}
         </View>
       ))}
-      {manage ? <LinkGuardian athleteId={athlete.id} name={athlete.firstName} /> : null}
+      {manage ? <LinkGuardian athleteId={athlete.id} name={athlete.firstName} invited={(athlete.invitedGuardians ?? []).map((i) => i.email)} /> : null}
     </Card>
   );
 }
 
-function LinkGuardian({ athleteId, name }: { athleteId: string; name: string }) {
+function LinkGuardian({ athleteId, name, invited }: { athleteId: string; name: string; invited: string[] }) {
   const link = useLinkGuardianMutation(athleteId);
   const [failure, setFailure] = useState<string | null>(null);
   // The e-mail checked and waiting for the admin's confirmation: one typo would open a child's record to
@@ -71,9 +71,15 @@ function LinkGuardian({ athleteId, name }: { athleteId: string; name: string }) 
     <Formik<GuardianInput>
       initialValues={{ email: '' }}
       validationSchema={guardianSchema}
-      onSubmit={(values) => {
+      onSubmit={(values, helpers) => {
         setFailure(null);
-        setPending(guardianSchema.cast(values).email);
+        const email = guardianSchema.cast(values).email;
+        // Already invited for this child: accepting links them; nothing to confirm or send.
+        if (invited.includes(email)) {
+          helpers.setErrors({ email: `${email} is invited as ${name}'s parent (above): they are linked as soon as they accept.` });
+          return;
+        }
+        setPending(email);
       }}
     >
       {({ values, errors, touched, handleChange, handleBlur, handleSubmit, setErrors, resetForm }) => (

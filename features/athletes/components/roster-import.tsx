@@ -191,7 +191,7 @@ function readyTotals(rows: ImportReportRow[]): string {
   const parents = rows.filter((r) => r.changes?.some((c) => c.startsWith('parent account linked'))).length;
   // Who may be screened once imported: only those the file gives a yes.
   const screened = rows.filter((r) => r.changes?.includes('screening and exercises consent: yes')).length;
-  return `Screening and exercises agreed for ${screened} of ${rows.length} (the others are not screened until the family agrees); photo consent recorded as yes for ${photos} of ${rows.length}; a parent account linked for ${parents} of ${rows.length}.`;
+  return `Screening and exercises agreed for ${screened} of ${rows.length}${screened < rows.length ? ' (the others are not screened until the family agrees)' : ''}; photo consent recorded as yes for ${photos} of ${rows.length}; a parent account linked for ${parents} of ${rows.length}.`;
 }
 
 function ProblemLine({ row }: { row: ImportReportRow }) {
