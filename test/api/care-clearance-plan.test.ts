@@ -259,9 +259,7 @@ describe('train with changes, holding jump and landing work', () => {
 
     const care = (await as.tester.get(`/api/assessments/${ids.kitScreen}/care`)).body.care;
     expect(care.block).toMatchObject({ blocked: true, reason: 'changes', holds: ['landing'] });
-    expect(care.block.words).toBe(
-      "Jump and landing work is on hold on the physiotherapist's advice, until a new clearance.",
-    );
+    expect(care.block.words).toBe("Jump and landing work is on hold on the physiotherapist's advice, until a new clearance.");
 
     const sheet = (await as.coach.get(`/api/squads/${ids.squad}/training-sheet`)).body as {
       athletes: { id: string; hold: string | null; physioChanges: string | null }[];

@@ -182,6 +182,11 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   await expect(page.getByTestId('task-skip-reason')).toHaveValue('Ran out of time on court 3.');
   await next(page, 'All 9 tasks');
   await expect(page.getByTestId('review-racket-side-lunge')).toContainText('Skipped: Ran out of time on court 3.');
+  // A task opened from the review leads straight back to it.
+  await page.getByTestId('review-racket-side-lunge').click();
+  await expect(page.getByTestId('step-next')).toHaveText('Back to review');
+  await page.getByTestId('step-next').click();
+  await expect(page.getByTestId('step-counter')).toHaveText('All 9 tasks');
 
   // Submit: flags in plain words, the plan with its prescriptions.
   await page.getByTestId('submit-assessment').click();

@@ -142,11 +142,14 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
   const updateTask = (taskId: TaskId, change: (t: TaskDraft) => TaskDraft) =>
     update((d) => ({ ...d, tasks: { ...d.tasks, [taskId]: change(d.tasks[taskId] ?? { criteria: [] }) } }));
 
+  // A step opened from "Review and submit" goes straight back there (it took Next through every task).
+  const [fromReview, setFromReview] = useState(false);
   const next = () => {
     // Moving on from a task means it was done, even with nothing ticked ("nothing seen"). A submitted
     // assessment is only browsed: any save would put it back in progress.
     if (task && !draft.tasks[task.id] && detail.status !== 'submitted') updateTask(task.id, (t) => t);
-    goTo(STEPS[stepIndex + 1] ?? 'review');
+    setFromReview(false);
+    goTo(fromReview ? 'review' : (STEPS[stepIndex + 1] ?? 'review'));
   };
 
   // Points belong to the photo they were placed on: a new photo starts without them.
@@ -271,7 +274,12 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
                 style={[captureStyles.barButton, captureStyles.barPrimary]}
               />
             ) : (
-              <Button label="Next" testID="step-next" onPress={next} style={[captureStyles.barButton, captureStyles.barPrimary]} />
+              <Button
+                label={fromReview ? 'Back to review' : 'Next'}
+                testID="step-next"
+                onPress={next}
+                style={[captureStyles.barButton, captureStyles.barPrimary]}
+              />
             )}
           </>
         )
@@ -311,7 +319,15 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
       ) : step === 'body' ? (
         <BodyStep draft={draft} update={update} />
       ) : step === 'review' ? (
-        <ReviewStep detail={detail} draft={draft} photoFor={photoFor} goTo={goTo} />
+        <ReviewStep
+          detail={detail}
+          draft={draft}
+          photoFor={photoFor}
+          goTo={(target) => {
+            setFromReview(true);
+            goTo(target);
+          }}
+        />
       ) : task ? (
         <TaskStep
           key={task.id}
