@@ -15,7 +15,7 @@ function rescreenCell(a: TrendAthlete): string {
   if (!a.takingPart) return a.screeningRefused ? 'Family said no' : 'No consent yet';
   if (!a.rescreenDue) return `from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`;
   // Already waiting in an open round: planned, not forgotten.
-  if (a.openRound) return `Due · in ${a.openRound}`;
+  if (a.openRound) return `Due · in ${a.openRound.length > 16 ? `${a.openRound.slice(0, 15)}…` : a.openRound}`;
   return a.rescreenDate ? `Due since ${formatDate(a.rescreenDate)}` : 'Due';
 }
 
