@@ -330,7 +330,8 @@ describe('a clearance given before the screen', () => {
     for (const name of loaded) expect(mail.text).toContain(name);
     expect(mail.text).toContain(`Phil Physio (physiotherapist) cleared Lou on ${dayInWords} to take part as planned, with nothing changed.`);
     expect(mail.text).not.toMatch(/on hold/);
-    expect(mail.html).toContain('cleared Lou to train as normal');
+    expect(mail.html).toContain('cleared Lou on');
+    expect(mail.html).toContain('to take part as planned, with nothing changed');
   });
 });
 
