@@ -1,21 +1,9 @@
 import { describe, expect, it } from 'vitest';
+import { makeRosterLine } from '@/test/fixtures/roster';
 import { rosterRowSchema } from './roster-row';
 
-const dobAged = (years: number) => `${new Date().getUTCFullYear() - years - 1}-11-15`;
-
-const line = (overrides: Record<string, string> = {}) => ({
-  first_name: 'Ines',
-  last_name: 'Marlow',
-  date_of_birth: dobAged(11),
-  sex: 'F',
-  racket_hand: 'R',
-  take_off_leg: 'L',
-  squad: 'Under-13',
-  photo_consent: 'yes',
-  email_summaries_consent: 'no',
-  guardian_email: '',
-  ...overrides,
-});
+// One line as a spreadsheet writes it (the import tests' own line), the cell under test overridden.
+const line = (overrides: Record<string, string> = {}) => makeRosterLine(overrides);
 
 describe('rosterRowSchema: spreadsheet shorthands (Squadline’s own import format)', () => {
   it.each([

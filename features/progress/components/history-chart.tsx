@@ -54,24 +54,22 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
                 style={{ data: { fill: colors.pineSoft, stroke: 'none' } }}
               />
             ) : null}
-            {series.threshold ? (
-              <VictoryLine
-                data={[
-                  { x: minX, y: series.threshold.value },
-                  { x: maxX, y: series.threshold.value },
-                ]}
-                style={{ data: { stroke: colors.brick, strokeDasharray: '5,4', strokeWidth: 1.5 } }}
-              />
-            ) : null}
-            {series.concern ? (
-              <VictoryLine
-                data={[
-                  { x: minX, y: series.concern.value },
-                  { x: maxX, y: series.concern.value },
-                ]}
-                style={{ data: { stroke: colors.brick, strokeDasharray: '1,3', strokeWidth: 2.5 } }}
-              />
-            ) : null}
+            {/* The watch line dashed, the concern line dotted beyond it. */}
+            {[
+              { at: series.threshold?.value, dash: '5,4', width: 1.5 },
+              { at: series.concern?.value, dash: '1,3', width: 2.5 },
+            ].map((line) =>
+              line.at === undefined ? null : (
+                <VictoryLine
+                  key={line.dash}
+                  data={[
+                    { x: minX, y: line.at },
+                    { x: maxX, y: line.at },
+                  ]}
+                  style={{ data: { stroke: colors.brick, strokeDasharray: line.dash, strokeWidth: line.width } }}
+                />
+              ),
+            )}
             <VictoryLine data={series.points.map((p) => ({ x: p.index, y: p.value }))} style={{ data: { stroke: colors.ink, strokeWidth: 2 } }} />
             <VictoryScatter data={series.points.map((p) => ({ x: p.index, y: p.value }))} size={4} style={{ data: { fill: colors.pine } }} />
             {/* Axes last and pinned to the chart's edges (not where the other value is zero), so the band never covers them;
