@@ -271,6 +271,13 @@ test("the plan sets held-back work apart with the reason, and follows the physio
   await expect(panel.getByTestId('clearance-detail')).toBeVisible();
   await panel.getByTestId('clearance-save').click();
   await expect(panel.getByTestId('clearance-holds')).toHaveText('On hold until a new clearance: jump and landing work.');
+  await expect(panel.getByTestId('clearance-recorded')).toHaveText('Recorded: Train with changes.');
+  // Earlier decisions stay in sight; lifting the hold says what comes back before it is saved.
+  await expect(panel.getByTestId('clearance-earlier')).toContainText('Refer on');
+  await panel.getByTestId('clearance-status').getByRole('radio', { name: 'Train as normal' }).click();
+  await expect(panel.getByTestId('clearance-lifts')).toHaveText(
+    'This lifts what waits now: jump and landing work comes back to the plan and the training sheet.',
+  );
   const changes = page.getByTestId('plan-held');
   await expect(changes.getByTestId('plan-held-reason')).toContainText('Train with changes, set by Sam Adeyemi');
   await expect(changes.getByTestId('plan-held-reason')).toContainText('Jump and landing work is on hold');

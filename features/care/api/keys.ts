@@ -4,6 +4,7 @@ export const careKeys = {
   club: (clubId: string) => [...careKeys.root, clubId] as const,
   reviews: (clubId: string) => [...careKeys.club(clubId), 'reviews'] as const,
   clearances: (clubId: string) => [...careKeys.club(clubId), 'clearances'] as const,
+  clearanceHistory: (clubId: string, athleteId: string) => [...careKeys.club(clubId), 'clearance-history', athleteId] as const,
   notes: (clubId: string, athleteId: string) => [...careKeys.club(clubId), 'notes', athleteId] as const,
   assessment: (clubId: string, assessmentId: string) => [...careKeys.club(clubId), 'assessment', assessmentId] as const,
   preview: (clubId: string, assessmentId: string) => [...careKeys.assessment(clubId, assessmentId), 'preview'] as const,

@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { useFormik } from 'formik';
 import { StyleSheet, View } from 'react-native';
 import { can } from '@/features/access/permissions';
@@ -9,6 +10,7 @@ import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
 import { space } from '@/features/ui/theme';
+import { useClearanceHistory } from '../api/get-clearance-history';
 import { useClearanceOf } from '../api/get-clearances';
 import { useSetClearanceMutation } from '../api/set-clearance';
 import { CLEARANCE_LABELS, CLEARANCE_STATUSES, holdsWords, type ClearanceHold, type ClearanceStatus } from '../choices';
@@ -40,12 +42,17 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
   const clearance = useClearanceOf(athleteId);
   const set = useSetClearanceMutation(athleteId);
   const canSet = can(membership.role, 'clearance.set');
+  // Earlier decisions stay in sight (a hold lifted left no trace on the panel), and a new one is confirmed.
+  const history = useClearanceHistory(athleteId, canSet);
+  const [recorded, setRecorded] = useState<string | null>(null);
   const form = useFormik({
     initialValues: { status: '' as ClearanceStatus | '', detail: '', holds: [] as ClearanceHold[] },
     validationSchema: clearanceSchema,
     onSubmit: async (values, helpers) => {
       try {
-        await set.mutateAsync(await clearanceSchema.validate(values));
+        const sent = await clearanceSchema.validate(values);
+        await set.mutateAsync(sent);
+        setRecorded(`Recorded: ${CLEARANCE_LABELS[sent.status as ClearanceStatus]}.`);
         helpers.resetForm();
       } catch (error) {
         showServerError(error, helpers);
@@ -110,8 +117,24 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
               error={form.submitCount > 0 && form.touched.detail && form.errors.detail}
             />
           ) : null}
+          {form.values.status === 'cleared' && (clearance?.status === 'referred' || clearance?.holds.length) ? (
+            <Text variant="small" testID="clearance-lifts">
+              {`This lifts what waits now: ${clearance.status === 'referred' ? 'loaded strength work and landing work' : holdsWords(clearance.holds).toLowerCase()} come${clearance.status === 'referred' || clearance.holds.length > 1 ? '' : 's'} back to the plan and the training sheet.`}
+            </Text>
+          ) : null}
           {form.status ? <Notice tone="error">{String(form.status)}</Notice> : null}
+          {recorded && !form.dirty ? <Notice testID="clearance-recorded">{recorded}</Notice> : null}
           <Button label="Record clearance" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="clearance-save" />
+          {(history.data?.history.length ?? 0) > 1 ? (
+            <View style={styles.earlier} testID="clearance-earlier">
+              <Text variant="label">Earlier decisions</Text>
+              {history.data!.history.slice(1, 4).map((h) => (
+                <Text key={h.id} variant="small">
+                  {`${formatDate(h.setAt)} · ${CLEARANCE_LABELS[h.status]}${h.holds.length ? ` (${holdsWords(h.holds).toLowerCase()} on hold)` : ''} · ${h.setByName ?? 'Former member'}${h.detail ? `: “${h.detail}”` : ''}`}
+                </Text>
+              ))}
+            </View>
+          ) : null}
           <Text variant="small" testID="clearance-effect">
             The plan and the training sheet follow the decision at once: work held back waits there; other changes are shown in your words. A summary already
             shared with the family is updated to say it, without a new e-mail.
@@ -125,5 +148,6 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
 const styles = StyleSheet.create({
   current: { gap: space.xs },
   form: { gap: space.md },
+  earlier: { gap: 2 },
   detail: { minHeight: 88, textAlignVertical: 'top' },
 });
