@@ -155,3 +155,18 @@ test('a head coach imports a CSV: a line with an error first, then a clean file'
   await expect(page.getByTestId(`squad-row-${squadName}`)).toHaveCount(0);
   fs.rmSync(dir, { recursive: true, force: true });
 });
+
+test("the admin's home leads to the athletes missing a family decision or a parent account, and only them", async ({ page }) => {
+  await signIn(page, 'admin@squadline.test');
+  await expect(page.getByTestId('home-admin')).toBeVisible();
+  await page.getByTestId('consent-gaps-who').click();
+  await expect(page.getByTestId('athletes-gaps-only')).toBeVisible();
+  const rows = page.locator('a[data-testid^="athlete-"][href^="/athletes/"]');
+  await expect(rows.first()).toBeVisible();
+  const shown = await rows.count();
+  // Each row shown says what is missing (other tests add athletes at the same time, so rows are read, not counted).
+  for (let i = 0; i < shown; i++) await expect(rows.nth(i)).toContainText(/No parent linked|No photo decision yet|No screening consent yet/);
+  await page.getByTestId('athletes-show-all').click();
+  await expect(page.getByTestId('athletes-gaps-only')).toHaveCount(0);
+  expect(await rows.count()).toBeGreaterThanOrEqual(shown);
+});

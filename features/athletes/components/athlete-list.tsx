@@ -1,9 +1,10 @@
 import { can } from '@/features/access/permissions';
-import { Link } from 'expo-router';
+import { Link, useLocalSearchParams } from 'expo-router';
 import { useMemo, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
+import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
@@ -19,17 +20,22 @@ export function AthleteList() {
   const [showArchived, setShowArchived] = useState(false);
   const athletes = useAthletesQuery({ includeArchived: showArchived });
   const [filter, setFilter] = useState('');
+  // From the admin's home ("See who"): only those missing a family decision or a parent account.
+  const params = useLocalSearchParams<{ needs?: string }>();
+  const [gapsOnly, setGapsOnly] = useState(params.needs === 'family');
   const { isWide, isTabletUp } = useBreakpoints();
   const groups = useMemo(() => {
     const needle = filter.trim().toLowerCase();
     const map = new Map<string, Athlete[]>();
     for (const a of athletes.data?.athletes ?? []) {
       if (needle && !`${a.firstName} ${a.lastName}`.toLowerCase().includes(needle)) continue;
+      // The admin home's count (features/home/consent-gaps.ts), kept here to stay out of the shared chunk.
+      if (gapsOnly && (a.archived || (a.consents.screening && a.consents.photos && a.guardianCount !== 0))) continue;
       const key = a.squadName ?? 'No squad';
       map.set(key, [...(map.get(key) ?? []), a]);
     }
     return [...map.entries()].sort(([a], [b]) => a.localeCompare(b));
-  }, [athletes.data, filter]);
+  }, [athletes.data, filter, gapsOnly]);
 
   return (
     <View style={styles.wrap}>
@@ -55,6 +61,12 @@ export function AthleteList() {
           <Text>Show archived athletes</Text>
         </Pressable>
       </View>
+      {gapsOnly ? (
+        <Notice testID="athletes-gaps-only">
+          <Text>Only the athletes missing a screening or photo decision, or a linked parent account.</Text>
+          <Button label="Show every athlete" tone="quiet" onPress={() => setGapsOnly(false)} testID="athletes-show-all" />
+        </Notice>
+      ) : null}
       {athletes.error ? <Notice tone="error">{athletes.error.message}</Notice> : null}
       {athletes.isPending ? <Text>Loading athletes…</Text> : null}
       {athletes.data && groups.length === 0 ? <Text>{filter ? `No athlete matches “${filter}”.` : 'No athletes yet.'}</Text> : null}

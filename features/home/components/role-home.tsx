@@ -83,8 +83,8 @@ function ConsentGaps() {
         <Text key={l}>{l}</Text>
       ))}
       {hasConsentGaps(athletes.data.athletes) ? (
-        <Link href="/athletes" style={styles.link}>
-          <Text variant="label">Record them from each athlete&apos;s page →</Text>
+        <Link href="/athletes?needs=family" style={styles.link} testID="consent-gaps-who">
+          <Text variant="label">See who, and record them from each athlete&apos;s page →</Text>
         </Link>
       ) : null}
     </Card>
