@@ -121,12 +121,22 @@ function RoundClosing({ id, closed, unfinished }: { id: string; closed: boolean;
 
 /** One round: its athletes with their progress, big rows to tap, and the next athlete to screen. */
 /** Athletes who joined the squad after the round began: named, and brought in with one tap. */
-function Newcomers({ roundId, squadName, newcomers }: { roundId: string; squadName: string; newcomers: NonNullable<RoundDetail['newcomers']> }) {
+function Newcomers({
+  roundId,
+  squadName,
+  screenedOn,
+  newcomers,
+}: {
+  roundId: string;
+  squadName: string;
+  screenedOn: string;
+  newcomers: NonNullable<RoundDetail['newcomers']>;
+}) {
   const add = useAddNewcomersMutation(roundId);
   const names = newcomers.map((a) => `${a.firstName} ${a.lastName}`).join(', ');
   return (
     <Notice title={`New in ${squadName} since this round began`} testID="round-newcomers">
-      <Text>{`${names}: not in this round yet.`}</Text>
+      <Text>{`${names}: not in this round yet. Their screens would carry the round's day (${formatDate(screenedOn)}); screened on a later day, they belong in a new round.`}</Text>
       {add.error ? <Text role="alert">{add.error.message}</Text> : null}
       <Button
         tone="secondary"
@@ -239,7 +249,7 @@ export function RoundScreen({ id }: { id: string }) {
           {notTakingPart.length > 0 ? 'Every athlete of this round who may be screened has been submitted.' : 'Every athlete of this round has been submitted.'}
         </Notice>
       ) : null}
-      {screens && data.newcomers?.length ? <Newcomers roundId={r.id} squadName={r.squadName} newcomers={data.newcomers} /> : null}
+      {screens && data.newcomers?.length ? <Newcomers roundId={r.id} squadName={r.squadName} screenedOn={r.screenedOn} newcomers={data.newcomers} /> : null}
       {notTakingPart.length > 0 && screensInClub ? <NotToScreen athletes={notTakingPart} /> : null}
       <Card style={styles.list}>
         <Text variant="heading">Athletes ({athletes.length})</Text>
