@@ -47,11 +47,13 @@ test('a parent stops and gives back photo consent from their child’s page', as
   await expect(page.getByTestId('child-card')).toContainText('you agreed that screening photos may be taken');
   await page.getByTestId('child-details-link').click();
   await expect(page.getByTestId('consent-photos')).toContainText('Photos may be taken');
+  // How long photos are kept, in the club's months (the demo keeps the default 24).
+  await expect(page.getByTestId('consent-photo-terms')).toHaveText("Photos are deleted 24 months after the screen (the club's retention period).");
   // Parents are not offered the staff form with its chosen date.
   await expect(page.getByTestId('consent-record')).toHaveCount(0);
 
   await page.getByTestId('own-consent-photos').click();
-  await expect(page.getByTestId('own-consent-photos-confirm')).toContainText('Photos already taken are hidden at once');
+  await expect(page.getByTestId('own-consent-photos-confirm')).toContainText('Photos already taken are hidden at once and deleted 30 days later');
   await page.screenshot({ path: testInfo.outputPath('parent-stops-photos.png'), fullPage: true });
   await page.getByTestId('own-consent-photos-yes').click();
   await expect(page.getByTestId('consent-photos')).toContainText('No photos');

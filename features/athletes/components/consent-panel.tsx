@@ -60,6 +60,9 @@ export function ConsentPanel({ athlete }: { athlete: Athlete }) {
               warn={warn && athlete.consents[CONSENT_FIELDS[kind]]?.granted !== true}
               testID={`consent-${id}`}
             />
+            {kind === 'photos' && athlete.consents.photos?.granted && history.data?.photoTerms ? (
+              <Text variant="small" testID="consent-photo-terms">{`Photos are ${keptFor(history.data.photoTerms)}.`}</Text>
+            ) : null}
             {own ? <OwnDecision athlete={athlete} kind={kind} granted={athlete.consents[CONSENT_FIELDS[kind]]?.granted === true} /> : null}
           </View>
         ))}
