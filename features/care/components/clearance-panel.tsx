@@ -40,6 +40,8 @@ const holdChoiceOf = (holds: readonly ClearanceHold[]): HoldChoice =>
 export function ClearancePanel({ athleteId }: { athleteId: string }) {
   const { membership } = useActiveClub();
   const clearance = useClearanceOf(athleteId);
+  // A clearance kept on a device before holds existed has none.
+  const held = clearance?.holds ?? [];
   const set = useSetClearanceMutation(athleteId);
   const canSet = can(membership.role, 'clearance.set');
   // Earlier decisions stay in sight (a hold lifted left no trace on the panel), and a new one is confirmed.
@@ -67,9 +69,7 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
       {clearance ? (
         <View style={styles.current}>
           <ClearanceBadge clearance={clearance} />
-          {clearance.holds.length ? (
-            <Text testID="clearance-holds">{`On hold until a new clearance: ${holdsWords(clearance.holds).toLowerCase()}.`}</Text>
-          ) : null}
+          {held.length ? <Text testID="clearance-holds">{`On hold until a new clearance: ${holdsWords(held).toLowerCase()}.`}</Text> : null}
           {clearance.detail ? <Text>{clearance.detail}</Text> : null}
           <Text variant="small">
             {clearance.setByName ?? 'Former member'} · {formatDate(clearance.setAt)}
@@ -117,9 +117,9 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
               error={form.submitCount > 0 && form.touched.detail && form.errors.detail}
             />
           ) : null}
-          {form.values.status === 'cleared' && (clearance?.status === 'referred' || clearance?.holds.length) ? (
+          {form.values.status === 'cleared' && clearance && (clearance.status === 'referred' || held.length > 0) ? (
             <Text variant="small" testID="clearance-lifts">
-              {`This lifts what waits now: ${clearance.status === 'referred' ? 'loaded strength work and landing work' : holdsWords(clearance.holds).toLowerCase()} come${clearance.status === 'referred' || clearance.holds.length > 1 ? '' : 's'} back to the plan and the training sheet.`}
+              {`This lifts what waits now: ${clearance.status === 'referred' ? 'loaded strength work and landing work' : holdsWords(held).toLowerCase()} come${clearance.status === 'referred' || held.length > 1 ? '' : 's'} back to the plan and the training sheet.`}
             </Text>
           ) : null}
           {form.status ? <Notice tone="error">{String(form.status)}</Notice> : null}
@@ -130,7 +130,7 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
               <Text variant="label">Earlier decisions</Text>
               {history.data!.history.slice(1, 4).map((h) => (
                 <Text key={h.id} variant="small">
-                  {`${formatDate(h.setAt)} · ${CLEARANCE_LABELS[h.status]}${h.holds.length ? ` (${holdsWords(h.holds).toLowerCase()} on hold)` : ''} · ${h.setByName ?? 'Former member'}${h.detail ? `: “${h.detail}”` : ''}`}
+                  {`${formatDate(h.setAt)} · ${CLEARANCE_LABELS[h.status]}${h.holds?.length ? ` (${holdsWords(h.holds).toLowerCase()} on hold)` : ''} · ${h.setByName ?? 'Former member'}${h.detail ? `: “${h.detail}”` : ''}`}
                 </Text>
               ))}
             </View>
