@@ -6,13 +6,24 @@ import type { ClubScope } from '@/server/access/scope';
 /** The people of the scope's club: every query filters by `scope.clubId`. */
 export function clubsRepo(db: Executor, scope: ClubScope) {
   return {
-    members() {
-      return db
+    async members() {
+      const rows = await db
         .select({ userId: users.id, displayName: users.displayName, email: users.email, role: memberships.role })
         .from(memberships)
         .innerJoin(users, eq(users.id, memberships.userId))
         .where(eq(memberships.clubId, scope.clubId))
         .orderBy(asc(users.displayName));
+      // The club's children each parent account is linked to (names), so two parents of the same name are told apart.
+      const links = await db
+        .select({ userId: guardianLinks.userId, firstName: athletes.firstName, lastName: athletes.lastName })
+        .from(guardianLinks)
+        .innerJoin(athletes, eq(athletes.id, guardianLinks.athleteId))
+        .where(and(eq(athletes.clubId, scope.clubId), isNull(athletes.archivedAt)))
+        .orderBy(asc(athletes.firstName), asc(athletes.lastName));
+      return rows.map((m) => ({
+        ...m,
+        ...(m.role === 'parent' ? { children: links.filter((l) => l.userId === m.userId).map((l) => `${l.firstName} ${l.lastName}`) } : {}),
+      }));
     },
 
     async member(userId: string) {

@@ -386,6 +386,10 @@ describe('guardians', () => {
     // the "No parent linked" tag); a parent's list says nothing of the other adults.
     const countOf = (body: { athletes: { id: string; guardianCount?: number }[] }) => body.athletes.find((a) => a.id === ids.child)?.guardianCount;
     expect(countOf((await as.coach.get('/api/athletes')).body)).toBe(2);
+    // People names the children each parent account is linked to (two parents of one name are told apart).
+    const people = (await as.admin.get(`/api/clubs/${ids.club}/members`)).body.members as { displayName: string; role: string; children?: string[] }[];
+    expect(people.find((m) => m.displayName === 'Sol Parent')?.children).toEqual(['Kit Parentson']);
+    expect(people.find((m) => m.role === 'tester')?.children).toBeUndefined();
     expect(countOf((await as.tester.get('/api/athletes')).body)).toBe(2);
     const ownList = (await second.get('/api/athletes')).body;
     expect(ownList.athletes.map((a: { id: string }) => a.id)).toEqual([ids.child]);

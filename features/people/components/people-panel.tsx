@@ -84,6 +84,11 @@ function MemberRow({ member: m, manage, clubId, onlyHeadCoach }: { member: Membe
       <Text variant="small">
         {ROLE_LABELS[m.role]} · {m.email}
       </Text>
+      {m.children ? (
+        <Text variant="small" testID="member-children">
+          {m.children.length ? `Linked to ${m.children.join(', ')}` : 'Not linked to any child yet'}
+        </Text>
+      ) : null}
       {error ? <Notice tone="error">{messageOf(error)}</Notice> : null}
       {manage && mode === 'idle' ? (
         <View style={styles.rowActions}>
