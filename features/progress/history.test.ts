@@ -81,6 +81,10 @@ describe('historySeries', () => {
     expect(series.map((s) => s.key)).toEqual(['single-leg-squat-left/fppa/left', 'knee-to-wall/knee-to-wall-lsi/left', 'maturity-offset']);
     expect(series[0]!.points.map((p) => p.value)).toEqual([20, 15, 10]);
     expect(series[2]!.points.map((p) => p.value)).toEqual([-0.8, -0.4, 0.1]);
+    // The growth-spurt window shaded on the maturity chart only: -1 to +1 year, the engine's "circa" band
+    // (common practice, no source).
+    expect(series[2]!.window).toEqual({ low: -1, high: 1 });
+    expect(series[0]!.window).toBeUndefined();
   });
 
   it('draws the error band around the earlier of the last two screens (Munro 2012: 8.93 deg)', () => {

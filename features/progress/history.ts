@@ -19,6 +19,8 @@ export type HistorySeries = {
   threshold: { value: number; flagWhen: 'above' | 'below'; source: string } | null;
   /** The concern threshold beyond it, where the engine has one (absent in series made before it was drawn). */
   concern?: { value: number } | null;
+  /** The maturity offset's growth-spurt window, shaded (the engine's "circa" band: -1 to +1 year from PHV). */
+  window?: { low: number; high: number } | null;
   /**
    * The published error around the earlier of the last two screens (or the only one): a later point inside
    * the band is no change we can tell from measuring error.
@@ -102,6 +104,8 @@ export function historySeries(progress: ProgressResponse): HistorySeries[] {
       threshold: null,
       // The equations' standard error is not a re-test error: no band.
       band: null,
+      // Where the loads and landings are lowered (maturityBand, common practice, no source).
+      window: { low: -1, high: 1 },
     });
   }
   return series;

@@ -25,6 +25,8 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
   if (series.threshold) ys.push(series.threshold.value);
   if (series.concern) ys.push(series.concern.value);
   if (series.band) ys.push(series.band.low, series.band.high);
+  // The window and its edges in sight (a season's offsets from -1.0 to -0.4 hid where it begins).
+  if (series.window) ys.push(series.window.low, series.window.high);
   const pad = Math.max(1, (Math.max(...ys) - Math.min(...ys)) * 0.1);
   const domainY: [number, number] = [Math.min(...ys) - pad, Math.max(...ys) + pad];
   const picked = width > 0 ? labelledPoints(xs.length, width - 40 - DATE_AXIS_RIGHT) : [];
@@ -45,6 +47,15 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
       <View onLayout={(e) => setWidth(Math.round(e.nativeEvent.layout.width))} accessibilityLabel={`Chart: ${series.title}. ${summary}.`} style={styles.chart}>
         {width > 0 ? (
           <VictoryChart width={width} height={170} padding={{ top: 10, bottom: 28, left: 40, right: DATE_AXIS_RIGHT }} domain={{ x: [minX, maxX], y: domainY }}>
+            {series.window ? (
+              <VictoryArea
+                data={[
+                  { x: minX, y: series.window.high, y0: series.window.low },
+                  { x: maxX, y: series.window.high, y0: series.window.low },
+                ]}
+                style={{ data: { fill: colors.amberSoft, stroke: 'none' } }}
+              />
+            ) : null}
             {series.band ? (
               <VictoryArea
                 data={[
@@ -104,6 +115,14 @@ export function HistoryChart({ series }: { series: HistorySeries }) {
             {series.unit === '°' ? '°' : ` ${series.unit}`}
           </Text>
         ) : null}
+        {series.window ? (
+          <Text variant="small" testID="history-window-key">
+            <Text variant="small" style={styles.windowKey}>
+              {'   '}
+            </Text>{' '}
+            the growth-spurt window, {series.window.low} to +{series.window.high} year: loads and landings are lowered there
+          </Text>
+        ) : null}
         {series.band ? (
           <Text variant="small">
             <Text variant="small" style={styles.bandKey}>
@@ -130,4 +149,5 @@ const styles = StyleSheet.create({
   chart: { width: '100%', minHeight: 170 },
   legend: { gap: 2 },
   bandKey: { backgroundColor: colors.pineSoft },
+  windowKey: { backgroundColor: colors.amberSoft },
 });
