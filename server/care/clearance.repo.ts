@@ -57,12 +57,14 @@ export function clearanceRepo(db: Executor, scope: ClubScope) {
         setAt: r.createdAt.toISOString(),
       }));
     },
-    async add(athleteId: string, status: ClearanceStatus, detail: string, holds: readonly ClearanceHold[] = []) {
+    /** Records a decision; holds only with "train with changes", known ones once each. Returns the row's id and the holds stored. */
+    async add(athleteId: string, status: ClearanceStatus, detail: string, holds: readonly string[] = []) {
+      const stored = status === 'modified' ? holdsOf(holds) : [];
       const [row] = await db
         .insert(clearances)
-        .values({ clubId: scope.clubId, athleteId, status, detail, holds: status === 'modified' ? [...new Set(holds)] : [], setBy: scope.userId })
+        .values({ clubId: scope.clubId, athleteId, status, detail, holds: stored, setBy: scope.userId })
         .returning({ id: clearances.id });
-      return row!.id;
+      return { id: row!.id, holds: stored };
     },
   };
 }

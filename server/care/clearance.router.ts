@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import type { Db } from '@/db/client';
-import { CLEARANCE_HOLDS, type ClearanceHold, type ClearanceStatus } from '@/features/care/choices';
+import type { ClearanceHold, ClearanceStatus } from '@/features/care/choices';
 import { clearanceSchema } from '@/features/care/schemas';
 import { and, eq, isNull } from 'drizzle-orm';
 import { athletes } from '@/db/schema';
@@ -21,9 +21,8 @@ export function clearanceRouter(db: Db) {
     const athleteId = id(res);
     const body = req.body as { status: ClearanceStatus; detail: string; holds: ClearanceHold[] };
     const detail = body.detail ?? '';
-    const holds = body.status === 'modified' ? CLEARANCE_HOLDS.filter((h) => body.holds.includes(h)) : [];
     await db.transaction(async (tx) => {
-      const clearanceId = await clearanceRepo(tx, scope).add(athleteId, body.status, detail, holds);
+      const { id: clearanceId, holds } = await clearanceRepo(tx, scope).add(athleteId, body.status, detail, body.holds);
       await recordAudit(tx, {
         clubId: scope.clubId,
         actorId: scope.userId,

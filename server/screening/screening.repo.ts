@@ -53,6 +53,34 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
     submitted: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'submitted')::int`,
   };
 
+  /**
+   * Athletes of the round's squad now (not archived) who have no assessment in the round: they joined
+   * the squad after it began. Name order.
+   */
+  function roundNewcomers(roundId: string, squadId: string) {
+    return db
+      .select({ athleteId: athletes.id, firstName: athletes.firstName, lastName: athletes.lastName })
+      .from(athletes)
+      .where(
+        and(
+          eq(athletes.clubId, clubId),
+          eq(athletes.squadId, squadId),
+          isNull(athletes.archivedAt),
+          sql`not exists (select 1 from ${assessments} where ${assessments.roundId} = ${roundId} and ${assessments.athleteId} = ${athletes.id})`,
+        ),
+      )
+      .orderBy(asc(athletes.lastName), asc(athletes.firstName), asc(athletes.id));
+  }
+
+  /** A not-started assessment in the round for each athlete given (one already there is left as it is). */
+  async function addToRound(roundId: string, athleteIds: readonly string[]) {
+    if (athleteIds.length === 0) return;
+    await db
+      .insert(assessments)
+      .values(athleteIds.map((athleteId) => ({ clubId, roundId, athleteId })))
+      .onConflictDoNothing({ target: [assessments.roundId, assessments.athleteId] });
+  }
+
   function roundSummaries(where: SQL | undefined) {
     return db
       .select(roundColumns)
@@ -98,6 +126,9 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
   };
 
   return {
+    roundNewcomers,
+    addToRound,
+
     async squad(id: string) {
       const [row] = await db
         .select({ id: squads.id, name: squads.name, archivedAt: squads.archivedAt })
@@ -139,47 +170,17 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
         .orderBy(asc(athletes.lastName), asc(athletes.firstName), asc(athletes.id));
     },
 
-    /**
-     * Athletes of the round's squad now (not archived) who have no assessment in the round: they joined
-     * the squad after it began. Name order.
-     */
-    roundNewcomers(roundId: string, squadId: string) {
-      return db
-        .select({ athleteId: athletes.id, firstName: athletes.firstName, lastName: athletes.lastName })
-        .from(athletes)
-        .where(
-          and(
-            eq(athletes.clubId, clubId),
-            eq(athletes.squadId, squadId),
-            isNull(athletes.archivedAt),
-            sql`not exists (select 1 from ${assessments} where ${assessments.roundId} = ${roundId} and ${assessments.athleteId} = ${athletes.id})`,
-          ),
-        )
-        .orderBy(asc(athletes.lastName), asc(athletes.firstName), asc(athletes.id));
-    },
-
-    /** A not-started assessment in the round for each athlete given (one already there is left as it is). */
-    async addToRound(roundId: string, athleteIds: readonly string[]) {
-      if (athleteIds.length === 0) return;
-      await db
-        .insert(assessments)
-        .values(athleteIds.map((athleteId) => ({ clubId, roundId, athleteId })))
-        .onConflictDoNothing({ target: [assessments.roundId, assessments.athleteId] });
-    },
-
     /** Creates the round with one not-started assessment per athlete of the squad still on the roster. */
     async createRound(values: { squadId: string; name: string; screenedOn: string }) {
       const [round] = await db
         .insert(rounds)
         .values({ clubId, squadId: values.squadId, name: values.name, screenedOn: values.screenedOn, createdBy: scope.userId })
         .returning({ id: rounds.id });
-      const roster = await db
-        .select({ id: athletes.id })
-        .from(athletes)
-        .where(and(eq(athletes.clubId, clubId), eq(athletes.squadId, values.squadId), isNull(athletes.archivedAt)));
-      if (roster.length > 0) {
-        await db.insert(assessments).values(roster.map((a) => ({ clubId, roundId: round!.id, athleteId: a.id })));
-      }
+      // A new round's athletes: everyone of the squad still on the roster, all "new" to it.
+      await addToRound(
+        round!.id,
+        (await roundNewcomers(round!.id, values.squadId)).map((a) => a.athleteId),
+      );
       return round!.id;
     },
 

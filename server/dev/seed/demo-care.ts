@@ -69,9 +69,9 @@ async function seedIn(db: Db, ids: Pick<DemoIds, 'clubId' | 'athleteIds'>, publi
   });
   const clearances = clearanceRepo(db, scope);
   const others = ids.athleteIds.filter((id) => !okafor.some((o) => o.id === id));
-  const modified = await clearances.add(others[2]!, 'modified', 'No drop landings for three weeks; everything else as planned.', ['landing']);
-  const referred = await clearances.add(others[7]!, 'referred', 'Sports physician at the district clinic, for knee pain after jumps.');
-  const cleared = await clearances.add(maya.id, 'cleared', '');
+  const { id: modified } = await clearances.add(others[2]!, 'modified', 'No drop landings for three weeks; everything else as planned.', ['landing']);
+  const { id: referred } = await clearances.add(others[7]!, 'referred', 'Sports physician at the district clinic, for knee pain after jumps.');
+  const { id: cleared } = await clearances.add(maya.id, 'cleared', '');
   await recordAudit(
     db,
     { clubId: ids.clubId, actorId: physio!.id, action: 'create', subjectKind: 'note', subjectId: shared, athleteId: maya.id, detail: { visibility: 'family' } },
