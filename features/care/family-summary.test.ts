@@ -134,7 +134,42 @@ describe('buildFamilySummary', () => {
   // our choice: a family should not read "3 times a week" as homework for the child alone.
   it('says where the exercises are done, and to ask the coach before doing any at home', () => {
     expect(summary.exercises.length).toBeGreaterThan(0);
-    expect(summary.howOften).toMatch(/; each exercise says how often\. They are done at club sessions with a coach; ask the coach before doing any at home\.$/);
+    expect(summary.howOften).toMatch(
+      /^Each exercise says how often \(up to \d times a week\)\. The coaches fit them into club sessions; ask them before doing any at home\.$/,
+    );
+  });
+
+  // our choice: the family learns that their child said something hurt, and in which movement; while no
+  // physiotherapist has cleared the athlete, what remains is done only where it causes no pain.
+  it('says that something hurt, in which movement, and that the rest is done pain-free until a physiotherapist has seen them', () => {
+    const withPain = buildFamilySummary({
+      firstName: 'Kit',
+      clubName: 'Riverside',
+      screenedOn: '2026-09-14',
+      result,
+      exercises: result.plan.exercises,
+      taskIds: Object.keys(input.tasks),
+      block: strengthBlock(result.plan, null, '2026-09-14T17:00:00.000Z'),
+      contactName: null,
+      painTaskIds: ['two-leg-squat'],
+    });
+    expect(withPain.pain).toBe(
+      'At the screen, Kit said something hurt during: Two-leg full squat. Until a physiotherapist has seen Kit, the exercises below are done only where they cause no pain.',
+    );
+    const cleared = { status: 'cleared' as const, detail: '', holds: [], setAt: '2026-09-20T10:00:00.000Z', setByName: 'Phil Physio' };
+    const afterClearance = buildFamilySummary({
+      firstName: 'Kit',
+      clubName: 'Riverside',
+      screenedOn: '2026-09-14',
+      result,
+      exercises: result.plan.exercises,
+      taskIds: Object.keys(input.tasks),
+      block: strengthBlock(result.plan, cleared, '2026-09-14T17:00:00.000Z'),
+      contactName: null,
+      painTaskIds: ['two-leg-squat'],
+    });
+    expect(afterClearance.pain).toBe('At the screen, Kit said something hurt during: Two-leg full squat.');
+    expect(summary.pain).toBeNull();
   });
 
   it('has family words for every pattern the engine can flag', () => {

@@ -53,6 +53,28 @@ export const FAMILY_CAUTIONS = (name: string, clubOnly = false) => [
   'Follow the advice of your own health professionals over this plan, and the rules of your sport and country.',
 ];
 
+/** Task titles in the order the screen runs them (the stored input lists them in the database's key order), once each. */
+function taskTitles(ids: readonly string[]): string[] {
+  const runOrder = (id: string) => {
+    const i = TASK_IDS.indexOf(id as never);
+    return i === -1 ? TASK_IDS.length : i;
+  };
+  return [
+    ...new Set(
+      [...ids]
+        .sort((a, b) => runOrder(a) - runOrder(b))
+        .map((id) => {
+          try {
+            return getTask(id as never).title;
+          } catch {
+            return null;
+          }
+        })
+        .filter((t): t is string => t !== null),
+    ),
+  ];
+}
+
 export function buildFamilySummary(input: {
   firstName: string;
   clubName: string;
@@ -65,27 +87,11 @@ export function buildFamilySummary(input: {
   /** The physiotherapist's decision in force, if any: the family reads who decided and when. */
   clearance?: ClearanceView;
   contactName: string | null;
+  /** Tasks in which the athlete reported pain at this screen (ids). */
+  painTaskIds?: readonly string[];
 }): FamilySummary {
   const { firstName, result } = input;
-  // In the order the screen runs them (the stored input lists them in the database's key order).
-  const runOrder = (id: string) => {
-    const i = TASK_IDS.indexOf(id as never);
-    return i === -1 ? TASK_IDS.length : i;
-  };
-  const checked = [
-    ...new Set(
-      [...input.taskIds]
-        .sort((a, b) => runOrder(a) - runOrder(b))
-        .map((id) => {
-          try {
-            return getTask(id as never).title;
-          } catch {
-            return null;
-          }
-        })
-        .filter((t): t is string => t !== null),
-    ),
-  ];
+  const checked = taskTitles(input.taskIds);
 
   // One line per pattern, in the order the flags come, with every side it was seen on: a knee that moved
   // inward on the left in one task and on the right in another reads "(both sides)", once (our choice).
@@ -131,6 +137,17 @@ export function buildFamilySummary(input: {
         ? `${heldNames.join(', ')}: on hold until a physiotherapist clears ${firstName} for loaded strength and landing work.`
         : `Loaded strength and landing work are on hold until a physiotherapist clears ${firstName}.`;
 
+  // A family is told that their child said something hurt, and in which movement (our choice: a parent
+  // learning it from a list of exercises on hold, or not at all, was the alternative).
+  const painTitles = taskTitles(input.painTaskIds ?? []);
+  const pain =
+    painTitles.length === 0
+      ? null
+      : `At the screen, ${firstName} said something hurt during: ${painTitles.join(', ')}.` +
+        (input.block.blocked && input.block.reason === 'clearance-needed'
+          ? ` Until a physiotherapist has seen ${firstName}, the exercises below are done only where they cause no pain.`
+          : '');
+
   return {
     athleteFirstName: firstName,
     clubName: input.clubName,
@@ -138,12 +155,13 @@ export function buildFamilySummary(input: {
     checked,
     seen,
     exercises,
+    pain,
     onHold,
     clearance: clearanceWords(input.clearance ?? null, firstName),
     howOften:
       exercises.length === 0
         ? `Nothing extra to work on for now: ${firstName} keeps training as usual.`
-        : `Up to ${perWeekText(maxPerWeek)}; each exercise says how often. They are done at club sessions with a coach; ask the coach before doing any at home.`,
+        : `Each exercise says how often (up to ${perWeekText(maxPerWeek)}). The coaches fit them into club sessions; ask them before doing any at home.`,
     recheckDate: result.plan.rescreenDate,
     contact: input.contactName
       ? `Questions? Speak to ${input.contactName} or the coaches at ${input.clubName}.`

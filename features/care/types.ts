@@ -73,6 +73,8 @@ export type FamilySummary = {
   checked: string[];
   seen: string[];
   exercises: FamilyExercise[];
+  /** That the athlete said something hurt at the screen, and in which movements; null or absent (summaries released before) when not. */
+  pain?: string | null;
   /** Loaded strength work held back until a physiotherapist clears it, in plain words; null when nothing is held back. */
   onHold: string | null;
   /** Who cleared (or referred on) the athlete and when, in plain words; null when no decision is recorded. Absent in summaries released before it existed. */

@@ -107,7 +107,8 @@ export async function applyClearance(tx: Executor, scope: ClubScope, athleteId: 
     const sameScreen = current.id === latest.resultId || replaced.get(latest.resultId) === current.id;
     const before = latest.summary as typeof summary;
     const changed =
-      JSON.stringify([before.exercises, before.onHold, before.clearance ?? null]) !== JSON.stringify([summary.exercises, summary.onHold, summary.clearance]);
+      JSON.stringify([before.exercises, before.pain ?? null, before.onHold, before.clearance ?? null]) !==
+      JSON.stringify([summary.exercises, summary.pain, summary.onHold, summary.clearance]);
     if (sameScreen && changed) {
       const row = await summaryRepo(tx, scope).addRelease({
         assessmentId: latest.assessmentId,

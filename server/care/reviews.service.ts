@@ -48,9 +48,13 @@ export function reviewsService(db: Db, scope: ClubScope) {
           releasedAt: null,
         };
       });
+      // A screen waiting for a physiotherapist's decision stays among those to review, and urgent, after it
+      // is marked reviewed, until a clearance (or a referral) is recorded (our choice: marking it reviewed
+      // had moved a child who reported pain under every screen with no flag).
+      const waits = (i: ReviewItem) => i.clearanceNeeded && i.clearance?.status !== 'referred';
       return {
-        reviews: items.filter((i) => !i.reviewedAt).sort(reviewOrder),
-        awaitingRelease: items.filter((i) => i.reviewedAt).sort(reviewOrder),
+        reviews: items.filter((i) => !i.reviewedAt || waits(i)).sort(reviewOrder),
+        awaitingRelease: items.filter((i) => i.reviewedAt && !waits(i)).sort(reviewOrder),
       };
     },
 

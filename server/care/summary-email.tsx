@@ -64,6 +64,7 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName, 
                 style={styles.text}
               >{`• ${e.name}: ${e.howMuch}, ${e.howOften}.${e.clubOnly ? ` ${CLUB_ONLY_WORDS}` : ''} ${e.purpose}${e.forWhat ? ` ${e.forWhat}` : ''}`}</Text>
             ))}
+            {summary.pain ? <Text style={styles.text}>{summary.pain}</Text> : null}
             {summary.onHold ? <Text style={styles.text}>{summary.onHold}</Text> : null}
             {summary.clearance ? <Text style={styles.text}>{summary.clearance}</Text> : null}
             <Text style={styles.text}>{summary.howOften}</Text>

@@ -57,6 +57,9 @@ export async function currentSummary(db: Executor, scope: ClubScope, assessmentI
     block: strengthBlock(current.result.plan, clearance, current.createdAt.toISOString()),
     clearance,
     contactName: state.review?.byName ?? null,
+    painTaskIds: Object.entries(current.input.tasks)
+      .filter(([, t]) => t?.painReported === true)
+      .map(([id]) => id),
   });
   return { a, state, current, summary };
 }

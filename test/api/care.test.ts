@@ -235,6 +235,30 @@ describe('review list, review mark and release', () => {
     expect((await as.parentA.get(`/api/assessments/${ids.kitScreen}/care`)).status).toBe(403);
   });
 
+  // our choice: a screen with pain reported and no decision stays among those to review, and urgent, when it
+  // is marked reviewed, until a physiotherapist records a clearance; the family reads that something hurt.
+  it('keeps a reviewed screen waiting for a clearance among those to review until a decision is recorded', async () => {
+    const mo = await makeAthlete(testDb.db, { clubId: ids.club!, squadId: ids.squad!, firstName: 'Mo', lastName: 'Cray' });
+    const screen = await makeSubmittedScreen(testDb.db, { clubId: ids.club!, squadId: ids.squad!, athleteId: mo.id, userId: ids.tester!, draft: painDraft() });
+    expect((await as.physio.post(`/api/assessments/${screen.assessmentId}/review`)).status).toBe(200);
+    const reviewed = await as.physio.get('/api/reviews');
+    const row = reviewed.body.reviews.find((r: { firstName: string }) => r.firstName === 'Mo');
+    expect(row).toMatchObject({ painReported: true, clearanceNeeded: true, clearance: null });
+    expect(row.reviewedAt).not.toBeNull();
+    expect(reviewed.body.reviews[0].firstName).toBe('Mo');
+    expect(reviewed.body.awaitingRelease.map((r: { firstName: string }) => r.firstName)).not.toContain('Mo');
+
+    const preview = await as.physio.get(`/api/assessments/${screen.assessmentId}/release-preview`);
+    expect(preview.body.preview.text).toMatch(
+      /At the screen, Mo said something hurt during: [^.]+\. Until a physiotherapist has seen Mo, the exercises below are done only where they cause no pain\./,
+    );
+
+    expect((await as.physio.put(`/api/athletes/${mo.id}/clearance`).send({ status: 'cleared', detail: '' })).status).toBe(200);
+    const decided = await as.physio.get('/api/reviews');
+    expect(decided.body.reviews.map((r: { firstName: string }) => r.firstName)).not.toContain('Mo');
+    expect(decided.body.awaitingRelease.map((r: { firstName: string }) => r.firstName)).toContain('Mo');
+  });
+
   it('releases only a reviewed screen, by a physiotherapist or head coach, and e-mails parents with consent only', async () => {
     const notReviewed = await as.coach.post(`/api/assessments/${ids.louScreen}/release`);
     expect(notReviewed.status).toBe(409);

@@ -167,6 +167,11 @@ function Plan({ summary, sessions }: { summary: FamilySummary; sessions: FamilyV
         </Text>
       ) : null}
       {done ? <Text testID="family-sessions">{done}</Text> : null}
+      {summary.pain ? (
+        <Notice tone="error" title="Something hurt" testID="family-pain">
+          {summary.pain}
+        </Notice>
+      ) : null}
       {summary.onHold ? (
         <Notice tone="error" title="On hold for now">
           {summary.onHold}

@@ -69,6 +69,9 @@ function ReviewRow({ item, wide }: { item: ReviewItem; wide: boolean }) {
           <View style={styles.tags}>
             {item.painReported ? <Tag tone="stop" label="Pain reported" /> : null}
             {item.clearanceNeeded && !item.painReported ? <Tag tone="stop" label="Clearance needed" /> : null}
+            {item.reviewedAt && item.clearanceNeeded && item.clearance?.status !== 'referred' ? (
+              <Tag tone="stop" label="Reviewed · no decision recorded yet" />
+            ) : null}
             <Tag
               tone={item.concernCount > 0 ? 'caution' : 'info'}
               label={
