@@ -37,6 +37,11 @@ export type AssessmentDraft = {
   tasks: Partial<Record<TaskId, TaskDraft>>;
   /** Split-squat 1RM in kg, when known, for the strength-endurance loads. */
   oneRepMaxKg?: number | null;
+  /**
+   * The 1RM the tester confirmed after the check against body mass questioned it (`oneRepMaxWarning`);
+   * a questioned 1RM is used for loads only while this equals it.
+   */
+  oneRepMaxCheckedKg?: number | null;
   /** Where the tester was, to resume on another phone: 'body' or a task id. */
   step?: string;
 };
@@ -133,6 +138,7 @@ export const saveDraftSchema = object({
     body: bodySchema.default({}),
     tasks: mixed<Record<string, unknown>>().default({}),
     oneRepMaxKg: optionalNumber(...BODY_LIMITS.oneRepMaxKg, '1RM (kg)'),
+    oneRepMaxCheckedKg: optionalNumber(...BODY_LIMITS.oneRepMaxKg, 'Confirmed 1RM (kg)'),
     step: string().max(64),
   })
     // Without this, yup fills a missing draft with {} and the save would wipe the tester's work.

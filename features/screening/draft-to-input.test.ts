@@ -52,6 +52,12 @@ describe('draftToInput', () => {
     expect('oneRepMaxKg' in input).toBe(false);
   });
 
+  it('sends a 1RM the check questions only once the tester has confirmed it (our choice)', () => {
+    const draft: AssessmentDraft = { body: { massKg: 40 }, tasks: {}, oneRepMaxKg: 90 };
+    expect('oneRepMaxKg' in draftToInput({ athlete, draft, screenedOn: '2026-09-14' })).toBe(false);
+    expect(draftToInput({ athlete, draft: { ...draft, oneRepMaxCheckedKg: 90 }, screenedOn: '2026-09-14' }).oneRepMaxKg).toBe(90);
+  });
+
   it('leaves skipped tasks out and keeps tasks done with nothing seen', () => {
     const draft: AssessmentDraft = {
       body: {},

@@ -2,6 +2,7 @@
 // capture screen may call it to show live results from the same numbers.
 import type { AssessmentDraft, LandmarkSet, TaskDraft } from '@/features/screening/contract';
 import { MATURITY_AGE_RANGE } from '@/features/screening/engine/maturity';
+import { usableOneRepMax } from './one-rep-max';
 import type { AssessmentInput, AthleteInput, LandmarkId, PhotoInput, Point, Sex, Side, TaskId, TaskResultInput } from '@/features/screening/engine';
 
 export type DraftToInputArgs = {
@@ -66,7 +67,8 @@ export function draftToInput({ athlete, draft, screenedOn }: DraftToInputArgs): 
       ...(athlete.ageYears < range.min || athlete.ageYears > range.max ? { maturityMethod: 'none' as const } : {}),
     },
   };
-  if (measured(draft.oneRepMaxKg)) input.oneRepMaxKg = draft.oneRepMaxKg;
+  const oneRepMax = usableOneRepMax(draft);
+  if (measured(oneRepMax)) input.oneRepMaxKg = oneRepMax;
   return input;
 }
 

@@ -7,6 +7,9 @@ describe('labels', () => {
     [8, 'cm', '8 cm'],
     [1, 'criteria', '1 ticked criterion'],
     [2, 'grades', '2 grades'],
+    // our choice: a maturity offset of -0.03 years reads "0.0 years", not "-0.0".
+    [-0.03, 'years', '0.0 years'],
+    [-0.05, 'years', '-0.1 years'],
   ] as const)('valueText(%s, %s)', (v, unit, expected) => {
     expect(valueText(v, unit)).toBe(expected);
   });

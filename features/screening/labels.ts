@@ -29,7 +29,8 @@ export function sideLabel(side: FlagSide): string | null {
 
 /** A value in words; `decimals` 2 for thresholds (18.33°), 1 for measurements (34.5°). */
 export function valueText(value: number, unit: Unit, decimals: 1 | 2 = 1): string {
-  const n = Number.isInteger(value) ? String(value) : decimals === 2 ? String(Math.round(value * 100) / 100) : value.toFixed(1);
+  // A value that rounds to nought reads "0.0", never "-0.0".
+  const n = Number.isInteger(value) ? String(value) : decimals === 2 ? String(Math.round(value * 100) / 100) : value.toFixed(1).replace(/^-(0\.0)$/, '$1');
   switch (unit) {
     case 'deg':
       return `${n}°`;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ONE_REP_MAX_CHECK_RATIO, ONE_REP_MAX_CHECK_WITHOUT_MASS_KG, oneRepMaxWarning } from './one-rep-max';
+import { ONE_REP_MAX_CHECK_RATIO, ONE_REP_MAX_CHECK_WITHOUT_MASS_KG, oneRepMaxWarning, usableOneRepMax } from './one-rep-max';
 
 describe('oneRepMaxWarning (our choice: question a 1RM above 1.5 times the body mass)', () => {
   it('is quiet up to 1.5 times the body mass, or without a 1RM', () => {
@@ -24,5 +24,25 @@ describe('oneRepMaxWarning (our choice: question a 1RM above 1.5 times the body 
       "A 200 kg 1RM is more than 1.5 times the body mass (38 kg). Check that it is this athlete's split-squat 1RM, in kg, before any load is lifted: every loaded exercise is a share of it.",
     );
     expect(oneRepMaxWarning(57.5, 38)).toMatch(/^A 57.5 kg 1RM is more than 1.5 times/);
+  });
+});
+
+// our choice: a questioned 1RM sets no load until the tester confirms that very value; loads then use
+// bodyweight, as with no 1RM.
+describe('usableOneRepMax', () => {
+  it('uses a 1RM the check does not question', () => {
+    expect(usableOneRepMax({ oneRepMaxKg: 30, body: { massKg: 41 } })).toBe(30);
+    expect(usableOneRepMax({ oneRepMaxKg: null, body: { massKg: 41 } })).toBeNull();
+    expect(usableOneRepMax({ body: {} })).toBeNull();
+  });
+  it('leaves out a questioned 1RM until that value is confirmed', () => {
+    // 90 kg for a 40 kg child: above 1.5 x 40 = 60 kg.
+    expect(usableOneRepMax({ oneRepMaxKg: 90, body: { massKg: 40 } })).toBeNull();
+    expect(usableOneRepMax({ oneRepMaxKg: 90, oneRepMaxCheckedKg: 90, body: { massKg: 40 } })).toBe(90);
+    // Confirmed, then changed: the new value is questioned again.
+    expect(usableOneRepMax({ oneRepMaxKg: 95, oneRepMaxCheckedKg: 90, body: { massKg: 40 } })).toBeNull();
+    // Without a body mass, above 100 kg.
+    expect(usableOneRepMax({ oneRepMaxKg: 120, body: {} })).toBeNull();
+    expect(usableOneRepMax({ oneRepMaxKg: 120, oneRepMaxCheckedKg: 120, body: {} })).toBe(120);
   });
 });

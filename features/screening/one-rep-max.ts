@@ -13,6 +13,18 @@ export const ONE_REP_MAX_CHECK_RATIO = 1.5;
  */
 export const ONE_REP_MAX_CHECK_WITHOUT_MASS_KG = 100;
 
+/**
+ * The 1RM that loads are worked from: the one typed, unless the check questions it and the tester has not
+ * confirmed that very value (our choice: a slip of 90 for 30 had set every load of a 40 kg child's plan
+ * after a warning alone). Without it the plan uses bodyweight, as with no 1RM.
+ */
+export function usableOneRepMax(draft: { oneRepMaxKg?: number | null; oneRepMaxCheckedKg?: number | null; body?: { massKg?: number | null } }): number | null {
+  const kg = draft.oneRepMaxKg;
+  if (kg == null || !Number.isFinite(kg)) return null;
+  if (oneRepMaxWarning(kg, draft.body?.massKg) && draft.oneRepMaxCheckedKg !== kg) return null;
+  return kg;
+}
+
 export function oneRepMaxWarning(oneRepMaxKg: number | null | undefined, massKg: number | null | undefined): string | null {
   if (oneRepMaxKg == null) return null;
   if (massKg == null || massKg <= 0) {

@@ -1,5 +1,5 @@
-import { and, desc, eq, inArray } from 'drizzle-orm';
-import { clearances, users } from '@/db/schema';
+import { and, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { assessmentResults, assessments, athletes, clearances, rounds, users } from '@/db/schema';
 import { CLEARANCE_HOLDS, type ClearanceHold, type ClearanceStatus } from '@/features/care/choices';
 import type { ClearanceView } from '@/features/care/types';
 import type { ClubScope } from '@/server/access/scope';
@@ -26,6 +26,41 @@ export async function latestClearances(db: Executor, athleteIds: readonly string
     .orderBy(clearances.athleteId, desc(clearances.createdAt), desc(clearances.id));
   return new Map(
     rows.map((r) => [r.athleteId, { status: r.status, detail: r.detail, holds: holdsOf(r.holds), setByName: r.setByName, setAt: r.createdAt.toISOString() }]),
+  );
+}
+
+/**
+ * Athletes of the club whose newest submitted screen reported pain and whose plan still waits for a
+ * physiotherapist (no clearance recorded since that result, none referring them on): the day of that screen
+ * and the tasks in which it hurt. The same rule as `strengthBlock`'s "clearance-needed".
+ */
+export async function painWaiting(db: Executor, clubId: string): Promise<Record<string, { screenedOn: string; taskIds: string[] }>> {
+  const newest = await db
+    .selectDistinctOn([assessments.athleteId], {
+      athleteId: assessments.athleteId,
+      screenedOn: rounds.screenedOn,
+      status: sql<string | null>`${assessmentResults.result} #>> '{plan,status}'`,
+      createdAt: assessmentResults.createdAt,
+      taskIds: sql<string[]>`jsonb_path_query_array(${assessmentResults.input}, '$.tasks.keyvalue() ? (@.value.painReported == true).key')`,
+    })
+    .from(assessments)
+    .innerJoin(rounds, eq(rounds.id, assessments.roundId))
+    .innerJoin(athletes, eq(athletes.id, assessments.athleteId))
+    .innerJoin(assessmentResults, and(eq(assessmentResults.assessmentId, assessments.id), eq(assessmentResults.isCurrent, true)))
+    .where(and(eq(assessments.clubId, clubId), eq(assessments.status, 'submitted'), isNull(athletes.archivedAt)))
+    .orderBy(assessments.athleteId, desc(rounds.screenedOn), desc(assessmentResults.createdAt));
+  const waiting = newest.filter((r) => r.status === 'clearance-needed');
+  const decided = await latestClearances(
+    db,
+    waiting.map((r) => r.athleteId),
+  );
+  return Object.fromEntries(
+    waiting
+      .filter((r) => {
+        const c = decided.get(r.athleteId);
+        return !c || (c.status !== 'referred' && c.setAt < r.createdAt.toISOString());
+      })
+      .map((r) => [r.athleteId, { screenedOn: r.screenedOn, taskIds: r.taskIds }]),
   );
 }
 

@@ -7,7 +7,7 @@ import { athletes } from '@/db/schema';
 import { accessGuards, callerClub, on, scopeOf } from '@/server/access/guard';
 import { validateBody } from '@/server/http/validate';
 import { recordAudit } from './audit.repo';
-import { clearanceRepo, latestClearances } from './clearance.repo';
+import { clearanceRepo, latestClearances, painWaiting } from './clearance.repo';
 import { applyClearance } from './clearance.service';
 
 /** Clearance per athlete: set by a physiotherapist, every decision kept. */
@@ -38,7 +38,9 @@ export function clearanceRouter(db: Db) {
     res.json({ clearance: await clearanceRepo(db, scope).current(athleteId) });
   });
 
-  // The clearance in force for every athlete of the club, for the badge beside names in staff screens.
+  // The clearance in force for every athlete of the club, for the badge beside names in staff screens, and
+  // those whose newest screen reported pain with no decision since (`painWaiting`), for the stop notice in
+  // capture, the round list and the athlete page.
   router.get('/clearances', guard('roster.read', callerClub), async (_req, res) => {
     const scope = scopeOf(res);
     const rows = await db
@@ -52,6 +54,7 @@ export function clearanceRouter(db: Db) {
           rows.map((r) => r.id),
         ),
       ),
+      painWaiting: await painWaiting(db, scope.clubId),
     });
   });
 

@@ -253,7 +253,14 @@ describe('review list, review mark and release', () => {
       /At the screen, Mo said something hurt during: [^.]+\. Until a physiotherapist has seen Mo, the exercises below are done only where they cause no pain\./,
     );
 
+    // The stop notices of capture, the round list and the athlete page read it from the clearances' answer;
+    // an athlete referred on (Kit) is held by the referral, not listed here.
+    const waiting = await as.tester.get('/api/clearances');
+    expect(waiting.body.painWaiting[mo.id]).toEqual({ screenedOn: expect.stringMatching(/^\d{4}-\d{2}-\d{2}$/), taskIds: ['two-leg-squat'] });
+    expect(waiting.body.painWaiting[ids.kit!]).toBeUndefined();
+
     expect((await as.physio.put(`/api/athletes/${mo.id}/clearance`).send({ status: 'cleared', detail: '' })).status).toBe(200);
+    expect((await as.tester.get('/api/clearances')).body.painWaiting[mo.id]).toBeUndefined();
     const decided = await as.physio.get('/api/reviews');
     expect(decided.body.reviews.map((r: { firstName: string }) => r.firstName)).not.toContain('Mo');
     expect(decided.body.awaitingRelease.map((r: { firstName: string }) => r.firstName)).toContain('Mo');

@@ -86,6 +86,9 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   // question goes.
   await page.getByTestId('body-one-rep-max').fill('200');
   await expect(page.getByTestId('one-rep-max-warning')).toContainText('A 200 kg 1RM is more than 1.5 times the body mass (41 kg)');
+  // Not used for loads until confirmed (our choice).
+  await expect(page.getByTestId('one-rep-max-confirm')).toContainText('I checked it: work loads out from 200 kg');
+  await expect(page.getByTestId('one-rep-max-confirm')).toHaveAttribute('aria-checked', 'false');
   await page.getByTestId('body-one-rep-max').fill('');
   await expect(page.getByTestId('one-rep-max-warning')).toHaveCount(0);
   await expectSaved(page);

@@ -55,11 +55,14 @@ test('training sheet: a squad by exercise, holds first, names open results, prin
   }
   const withPlan = sheet.athletes.filter((a) => a.state === 'plan').length;
   await expect(page.getByTestId('sheet-count')).toContainText(`${withPlan} of ${sheet.athletes.length}`);
-  // The physiotherapist's changes are given in their words under the name at each of the athlete's exercises.
+  // The physiotherapist's changes: their words once at the top, a mark under the name at each of the
+  // athlete's exercises.
   const changed = sheet.athletes.find((a) => a.physioChanges);
   if (changed) {
+    await expect(page.getByTestId('sheet-physio-changes')).toContainText(changed.physioChanges!);
     const lines = page.locator(`[data-testid$="-${changed.id}"]`).getByTestId('sheet-physio-line');
-    await expect(lines.first()).toContainText(changed.physioChanges!);
+    await expect(lines.first()).toContainText('check the top of the sheet');
+    await expect(lines.first()).not.toContainText(changed.physioChanges!);
     expect(await lines.count()).toBe(sheet.exercises.filter((e) => e.entries.some((x) => x.athleteId === changed.id && !x.held)).length);
   }
   const holds = sheet.athletes.filter((a) => a.hold);

@@ -2,6 +2,7 @@ import { Link } from 'expo-router';
 import { can, isStaff } from '@/features/access/permissions';
 import { ATHLETE_CARE_ANCHOR } from '@/features/care/components/athlete-care';
 import { ClearanceBadge } from '@/features/care/components/clearance-badge';
+import { usePainWaitingOf } from '@/features/care/api/get-clearances';
 import { scrollToId } from '@/features/ui/scroll-to';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -51,6 +52,7 @@ export function AthleteProfile({ id }: { id: string }) {
             </View>
           ) : null}
         </View>
+        {isStaff(membership.role) ? <HoldLine athlete={a} /> : null}
         {isStaff(membership.role) ? (
           // The physiotherapist's decision and the notes sit below the history's charts: one tap away.
           <Button
@@ -85,6 +87,29 @@ export function AthleteProfile({ id }: { id: string }) {
       </View>
     </View>
   );
+}
+
+/**
+ * At the top of the page, where a coach checking one child reads it first: pain reported at the newest
+ * screen with no physiotherapist's decision since, or a referral (the panel with the words is further down).
+ */
+function HoldLine({ athlete: a }: { athlete: Athlete }) {
+  const pain = usePainWaitingOf(a.id);
+  if (pain) {
+    return (
+      <Notice tone="error" title="Pain reported, no physiotherapist's decision yet" testID="athlete-hold">
+        {`At the screen of ${formatDate(pain.screenedOn)}. No loaded strength work and no landing work until a physiotherapist clears ${a.firstName}.`}
+      </Notice>
+    );
+  }
+  if (a.clearance?.status === 'referred') {
+    return (
+      <Notice tone="error" title="Referred on" testID="athlete-hold">
+        {`${a.clearance.setByName ?? 'A physiotherapist'} referred ${a.firstName} on, on ${formatDate(a.clearance.setAt.slice(0, 10))}. No loaded strength work and no landing work until a physiotherapist clears them.`}
+      </Notice>
+    );
+  }
+  return null;
 }
 
 function EditDetails({ athlete, onDone }: { athlete: Athlete; onDone: () => void }) {

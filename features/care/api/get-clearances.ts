@@ -6,7 +6,10 @@ import { useActiveClub } from '@/features/session/active-club';
 import type { ClearanceView } from '../types';
 import { CARE_STALE_MS, careKeys } from './keys';
 
-export const getClearances = () => api<{ clearances: Record<string, NonNullable<ClearanceView>> }>('/clearances');
+/** Pain reported at the athlete's newest screen, no physiotherapist's decision since: that screen's day and the tasks that hurt. */
+export type PainWaiting = { screenedOn: string; taskIds: string[] };
+
+export const getClearances = () => api<{ clearances: Record<string, NonNullable<ClearanceView>>; painWaiting?: Record<string, PainWaiting> }>('/clearances');
 
 /** Where the club's clearances are kept on the device (features/offline's cache; removed at sign-out). */
 export const CLEARANCES_KEPT_KEY = 'care.clearances';
@@ -28,4 +31,11 @@ export function useClearanceOf(athleteId: string, enabled = true): ClearanceView
   const { membership } = useActiveClub();
   const query = useQuery({ ...clearancesQueryOptions(membership.clubId, membership.role), enabled: enabled && membership.role !== 'parent' });
   return query.data?.clearances[athleteId] ?? null;
+}
+
+/** Pain waiting for a physiotherapist at the athlete's newest screen, from the same answer; null when none. */
+export function usePainWaitingOf(athleteId: string, enabled = true): PainWaiting | null {
+  const { membership } = useActiveClub();
+  const query = useQuery({ ...clearancesQueryOptions(membership.clubId, membership.role), enabled: enabled && membership.role !== 'parent' });
+  return query.data?.painWaiting?.[athleteId] ?? null;
 }

@@ -1,7 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space } from '@/features/ui/theme';
-import { useClearanceOf } from '../api/get-clearances';
+import { useClearanceOf, usePainWaitingOf } from '../api/get-clearances';
 import { CLEARANCE_LABELS } from '../choices';
 import type { ClearanceView } from '../types';
 
@@ -27,9 +27,24 @@ export function ClearanceBadge({ clearance }: { clearance: ClearanceView }) {
   );
 }
 
-/** The badge for screens that list athletes without their clearance (rounds, capture, result). */
+/**
+ * The badge for screens that list athletes without their clearance (rounds, capture, result), and a stop
+ * tag while pain reported at the newest screen waits for a physiotherapist's decision.
+ */
 export function AthleteClearanceBadge({ athleteId }: { athleteId: string }) {
-  return <ClearanceBadge clearance={useClearanceOf(athleteId)} />;
+  const pain = usePainWaitingOf(athleteId);
+  return (
+    <>
+      {pain ? (
+        <View style={[styles.tag, styles.stop]} testID="pain-waiting-badge">
+          <Text variant="small" style={styles.text} numberOfLines={1}>
+            ✋ Pain: no physio decision yet
+          </Text>
+        </View>
+      ) : null}
+      <ClearanceBadge clearance={useClearanceOf(athleteId)} />
+    </>
+  );
 }
 
 const styles = StyleSheet.create({

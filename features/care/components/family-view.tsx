@@ -1,4 +1,6 @@
-import { Link } from 'expo-router';
+import { Link, useRouter } from 'expo-router';
+import { useActiveClub } from '@/features/session/active-club';
+import { Button } from '@/features/ui/components/button';
 import { Image, StyleSheet, View } from 'react-native';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
@@ -16,6 +18,8 @@ import { CLUB_ONLY_WORDS, recheckWords, sessionsSinceWords } from '../family-wor
 export function FamilyView({ athleteId }: { athleteId: string }) {
   const query = useFamilyViewQuery(athleteId);
   const { isWide } = useBreakpoints();
+  const { membership } = useActiveClub();
+  const router = useRouter();
   if (query.isPending) return <Text>Loading…</Text>;
   if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
   const { athlete, takingPart, latest, comparison, sessionsSinceLatest, notes, photos } = query.data;
@@ -50,6 +54,15 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
   const beside = isWide && latest;
   return (
     <View style={styles.wrap} testID="family-view">
+      {/* Staff open this page from a result to check what went out: said, with the way back. */}
+      {membership.role !== 'parent' ? (
+        <Notice title="What the family reads" testID="family-preview-banner">
+          <View style={styles.banner}>
+            <Text>{`${athlete.firstName}'s page as a linked parent sees it: "you" is the parent.`}</Text>
+            {router.canGoBack() ? <Button label="← Back" tone="quiet" onPress={() => router.back()} testID="family-preview-back" /> : null}
+          </View>
+        </Notice>
+      ) : null}
       <Text variant="title" accessibilityRole="header">
         {athlete.firstName} {athlete.lastName}
       </Text>
@@ -242,6 +255,7 @@ function Earlier({ releases }: { releases: SummaryRelease[] }) {
 }
 
 const styles = StyleSheet.create({
+  banner: { gap: space.xs, alignItems: 'flex-start' },
   exerciseName: { fontSize: 18, lineHeight: 24 },
   consentLink: { minHeight: 48, justifyContent: 'center', paddingVertical: space.sm },
   clubOnly: { fontFamily: fonts.bold, color: colors.amber },

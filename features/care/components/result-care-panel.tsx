@@ -1,5 +1,5 @@
 import { Link } from 'expo-router';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { can } from '@/features/access/permissions';
 import { messageOf } from '@/features/api/client';
@@ -12,6 +12,7 @@ import { scrollToId } from '@/features/ui/scroll-to';
 import { colors, radius, space } from '@/features/ui/theme';
 import { useAssessmentCareQuery, useMarkReviewedMutation, useReleaseMutation, useReleasePreviewQuery } from '../api/assessment-care';
 import { LazyCarePanels } from './lazy-care-panels';
+import { useReviewsQuery } from '../api/get-reviews';
 import type { ReleasePreview } from '../types';
 import { formatDate } from '@/features/ui/format-date';
 
@@ -47,6 +48,7 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
         {(release.isSuccess || (c.reviewedAt && !c.releasedAt)) && can(membership.role, 'summary.release') ? (
           <Release assessmentId={assessmentId} previewing={previewing} setPreviewing={setPreviewing} release={release} />
         ) : null}
+        {c.reviewedAt && can(membership.role, 'review.read') ? <NextToReview assessmentId={assessmentId} /> : null}
         {c.releasedAt || release.isSuccess ? (
           // What the family received, as they read it (the newest shared screen's summary).
           <Link href={`/family/${athleteId}`} style={styles.link} testID="open-family-view">
@@ -58,6 +60,19 @@ export function ResultCarePanel({ assessmentId, athleteId }: { assessmentId: str
       </Card>
       <LazyCarePanels athleteId={athleteId} assessmentId={assessmentId} />
     </View>
+  );
+}
+
+/** Once this screen is reviewed, the next one waiting (most urgent first), or the list: no trip back to find it. */
+function NextToReview({ assessmentId }: { assessmentId: string }) {
+  const reviews = useReviewsQuery();
+  const next = reviews.data?.reviews.find((r) => r.assessmentId !== assessmentId);
+  return (
+    <Link href={next ? `/screening/assessments/${next.assessmentId}/result?from=reviews` : '/reviews'} style={styles.link} testID="next-to-review">
+      <Text variant="label" style={styles.linkText}>
+        {next ? `Next to review: ${next.firstName} ${next.lastName} →` : 'Back to the review list →'}
+      </Text>
+    </Link>
   );
 }
 
@@ -121,7 +136,20 @@ function Release({ assessmentId, previewing, setPreviewing, release }: ReleasePr
  * What the release did, in full: who can read it and who was e-mailed. With no parent linked, "Sent" had
  * told a physiotherapist the family was informed when nobody was (the preview had said so, above).
  */
-function Released({ sent, preview }: { sent: number; preview: ReleasePreview | undefined }) {
+function Released(props: { sent: number; preview: ReleasePreview | undefined }) {
+  // The preview above it folds away as it appears: brought into view, or it was read by nobody (it sat
+  // above the top of a phone's screen).
+  useEffect(() => scrollToId(RELEASED), []);
+  return (
+    <View nativeID={RELEASED}>
+      <ReleasedWords {...props} />
+    </View>
+  );
+}
+
+const RELEASED = 'release-done';
+
+function ReleasedWords({ sent, preview }: { sent: number; preview: ReleasePreview | undefined }) {
   if (sent > 0)
     return (
       <Notice

@@ -5,6 +5,7 @@ import { can } from '@/features/access/permissions';
 import { biggestSquadId, useSquadsQuery } from '@/features/athletes/api/get-squads';
 import { useActiveClub } from '@/features/session/active-club';
 import { PHASE_WORDS } from '@/features/screening/labels';
+import { STAGE_LIMITS } from '@/features/screening/engine/limits';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
@@ -127,7 +128,7 @@ function SheetBody({ data }: { data: TrainingSheet }) {
       </Notice>
       {growing.length ? (
         <Text variant="small" testID="sheet-growth-spurt">
-          {`In the growth-spurt window, loads and landings already lowered: ${growing.map((a) => a.name).join(', ')}. Pain at the front of the knee, below the kneecap or at the heel: stop and refer.`}
+          {`In the growth-spurt window: ${growing.map((a) => a.name).join(', ')}. Their plans already hold loads at ${STAGE_LIMITS.circa.maxPercentOneRepMax}% of 1RM at most, with no sets to fatigue, and landing volume halved. Pain at the front of the knee, below the kneecap or at the heel: stop and refer.`}
         </Text>
       ) : null}
       {held.length ? (
@@ -206,11 +207,12 @@ function ExerciseCard({ exercise, resultOf }: { exercise: SheetExercise; resultO
                 style={x.physioChanges && !g.held ? styles.entryWide : undefined}
               >
                 <AthleteName name={x.name} href={resultHref(resultOf.get(x.athleteId))} />
-                {/* The physiotherapist's words under the name, under every exercise: "see the top of the sheet"
-                    left a child listed for landings the physio had stopped, with nothing beside the name. */}
+                {/* A mark under the name at every exercise, the physiotherapist's words once at the top: work
+                    they hold back is set apart by the holds, and their words (which may be clinical) were
+                    repeated at each exercise of a sheet that is printed courtside (our choice). */}
                 {x.physioChanges && !g.held ? (
                   <Text variant="small" style={styles.physio} testID="sheet-physio-line">
-                    {`⚠ Physio's changes, check before this exercise: ${resultOf.get(x.athleteId)?.physioChanges ?? 'ask the physiotherapist what changes.'}`}
+                    {"⚠ Physio's changes: check the top of the sheet before this exercise"}
                   </Text>
                 ) : null}
               </View>

@@ -7,6 +7,7 @@ import { Text } from '@/features/ui/components/text';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { space } from '@/features/ui/theme';
 import { NumberField } from './number-field';
+import { TickBox } from '../tick-box';
 import { MEASURE_FIRST } from './before-each-athlete';
 import { oneRepMaxWarning } from '@/features/screening/one-rep-max';
 
@@ -37,7 +38,7 @@ export function BodyStep({ draft, update }: { draft: AssessmentDraft; update(cha
   );
   return (
     <View style={styles.wrap}>
-      <Notice title="Measure first">
+      <Notice title="Before you measure" testID="measure-first">
         {MEASURE_FIRST.map((line) => (
           <Text key={line}>• {line}</Text>
         ))}
@@ -65,7 +66,16 @@ export function BodyStep({ draft, update }: { draft: AssessmentDraft; update(cha
         />
         {oneRepMaxWarning(draft.oneRepMaxKg, body.massKg) ? (
           <Notice tone="caution" title="Check the 1RM" testID="one-rep-max-warning">
-            {oneRepMaxWarning(draft.oneRepMaxKg, body.massKg)}
+            <View style={styles.check}>
+              <Text>{oneRepMaxWarning(draft.oneRepMaxKg, body.massKg)}</Text>
+              <TickBox
+                label={`I checked it: work loads out from ${draft.oneRepMaxKg} kg`}
+                hint="Until this is ticked the plan uses bodyweight, as with no 1RM."
+                checked={draft.oneRepMaxCheckedKg != null && draft.oneRepMaxCheckedKg === draft.oneRepMaxKg}
+                onChange={(on) => update((d) => ({ ...d, oneRepMaxCheckedKg: on ? (d.oneRepMaxKg ?? null) : null }))}
+                testID="one-rep-max-confirm"
+              />
+            </View>
           </Notice>
         ) : null}
       </Card>
@@ -77,4 +87,5 @@ const styles = StyleSheet.create({
   wrap: { gap: space.lg },
   grid: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg },
   cell: { flexBasis: 220, flexGrow: 1 },
+  check: { gap: space.sm },
 });

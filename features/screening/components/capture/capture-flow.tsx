@@ -6,6 +6,7 @@ import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'reac
 import { StyleSheet, View, type ScrollView } from 'react-native';
 import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
 import { screeningKeys } from '@/features/screening/api/keys';
+import { careKeys } from '@/features/care/api/keys';
 import { connectivity, outbox } from '@/features/offline/device-handle';
 import { queueSubmit } from '@/features/screening/api/submit-assessment';
 import { queueDraftSave } from '@/features/screening/draft/registry';
@@ -33,6 +34,7 @@ import { CaptureFrame, CaptureLayout, captureStyles } from './capture-layout';
 import { ReviewStep } from './review-step';
 import { SaveStatusBadge } from './save-status';
 import { TaskStep } from './task-step';
+import { CaptureHoldNotice } from './hold-notice';
 
 const STEPS: readonly string[] = ['body', ...BATTERY.map((t) => t.id), 'review'];
 const TASK_COUNT = BATTERY.length;
@@ -186,6 +188,8 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
         return;
       }
       void qc.invalidateQueries({ queryKey: screeningKeys.club(membership.clubId) });
+      // Pain reported (or no longer) at this screen changes who waits for a physiotherapist.
+      void qc.invalidateQueries({ queryKey: careKeys.clearances(membership.clubId) });
       router.replace(`/screening/assessments/${detail.id}/result`);
     } catch (e) {
       setSubmitError(e instanceof Error ? e.message : typeof e === 'object' && e && 'message' in e ? String(e.message) : String(e));
@@ -317,7 +321,10 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
           onChange={(next: LandmarkSet) => updateTask(editing.taskId, (t) => ({ ...t, landmarks: { ...t.landmarks, [editing.view]: next } }))}
         />
       ) : step === 'body' ? (
-        <BodyStep draft={draft} update={update} />
+        <>
+          <CaptureHoldNotice athleteId={detail.athlete.id} firstName={detail.athlete.firstName} taskId={null} />
+          <BodyStep draft={draft} update={update} />
+        </>
       ) : step === 'review' ? (
         <ReviewStep
           detail={detail}
@@ -329,16 +336,27 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
           }}
         />
       ) : task ? (
-        <TaskStep
-          key={task.id}
-          task={task}
-          value={draft.tasks[task.id]}
-          onChange={(change) => updateTask(task.id, change)}
-          detail={detail}
-          photos={{ front: photoFor(task.id, 'front'), side: photoFor(task.id, 'side') }}
-          onNewPhoto={(view) => onNewPhoto(task.id, view)}
-          onPlaceLandmarks={(view) => setEditing({ taskId: task.id, view })}
-        />
+        <>
+          {detail.status !== 'submitted' ? (
+            <CaptureHoldNotice
+              athleteId={detail.athlete.id}
+              firstName={detail.athlete.firstName}
+              taskId={task.id}
+              task={draft.tasks[task.id]}
+              onSkip={(reason) => updateTask(task.id, (t) => ({ ...t, skipped: true, skipReason: reason }))}
+            />
+          ) : null}
+          <TaskStep
+            key={task.id}
+            task={task}
+            value={draft.tasks[task.id]}
+            onChange={(change) => updateTask(task.id, change)}
+            detail={detail}
+            photos={{ front: photoFor(task.id, 'front'), side: photoFor(task.id, 'side') }}
+            onNewPhoto={(view) => onNewPhoto(task.id, view)}
+            onPlaceLandmarks={(view) => setEditing({ taskId: task.id, view })}
+          />
+        </>
       ) : null}
       {submitError && step === 'review' ? (
         <Notice tone="error" title="Not submitted" testID="submit-error">

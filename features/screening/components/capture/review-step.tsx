@@ -3,7 +3,7 @@ import type { AssessmentDetail, AssessmentDraft, PhotoView } from '@/features/sc
 import { BATTERY } from '@/features/screening/engine/battery';
 import type { TaskId, View as PhotoSide } from '@/features/screening/engine';
 import { Notice } from '@/features/ui/components/notice';
-import { oneRepMaxWarning } from '@/features/screening/one-rep-max';
+import { oneRepMaxWarning, usableOneRepMax } from '@/features/screening/one-rep-max';
 import { Text } from '@/features/ui/components/text';
 import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 
@@ -47,7 +47,8 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
         }
       }
       for (const v of task.views) {
-        if (!detail.athlete.photoConsent) continue;
+        // No photo without consent, nor of a task stopped because it hurt.
+        if (!detail.athlete.photoConsent || t.painReported) continue;
         const photo = photoFor(task.id, v.view);
         const placed = Object.values(t.landmarks?.[v.view] ?? {}).filter(Boolean).length;
         if (photo && placed === 0) toMeasure += 1;
@@ -94,7 +95,9 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
           <Text variant="small">{bodySummary(draft)}</Text>
           {oneRepMaxWarning(draft.oneRepMaxKg, draft.body?.massKg) ? (
             <Text variant="small" style={styles.warn} testID="review-one-rep-max-warning">
-              {oneRepMaxWarning(draft.oneRepMaxKg, draft.body?.massKg)}
+              {usableOneRepMax(draft) == null
+                ? `Not confirmed: the plan will use bodyweight, not ${draft.oneRepMaxKg} kg. ${oneRepMaxWarning(draft.oneRepMaxKg, draft.body?.massKg)}`
+                : `Confirmed by you after the check: loads are worked out from ${draft.oneRepMaxKg} kg.`}
             </Text>
           ) : null}
         </View>

@@ -50,8 +50,14 @@ export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, on
   const toggle = (id: string, on: boolean) =>
     onChange((d) => ({ ...d, criteria: on ? [...d.criteria.filter((c) => c !== id), id] : d.criteria.filter((c) => c !== id) }));
 
+  // A task that hurt is stopped: no photo is asked for (our choice: a photo slot still open was a nudge to
+  // run it again).
   const photoPanel =
-    task.views.length > 0 && !skipped && !detail.athlete.photoConsent ? (
+    task.views.length > 0 && t.painReported === true ? (
+      <Notice title="No photo" testID="photos-pain">
+        The task stopped when it hurt: no photo is needed. Tick what you saw before it stopped.
+      </Notice>
+    ) : task.views.length > 0 && !skipped && !detail.athlete.photoConsent ? (
       <Notice tone="caution" title="No photo consent" testID="photos-no-consent">
         {`No photo consent is recorded for ${detail.athlete.firstName}, so no photo is taken. Tick what you see; the angles are left out.`}
       </Notice>

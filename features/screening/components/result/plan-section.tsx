@@ -47,6 +47,8 @@ type Props = {
   assessmentId: string;
   result: ResultView;
   oneRepMaxKg: number | null | undefined;
+  /** A 1RM typed at the screen that the check against body mass questioned and nobody confirmed: not used. */
+  questionedOneRepMaxKg?: number | null;
   /** The body mass measured at the screen, to question a 1RM far above it. */
   massKg?: number | null;
   canAdjust: boolean;
@@ -66,7 +68,7 @@ const UNKNOWN_HOLD: StrengthBlock = {
   words: "The physiotherapist's clearance could not be read: loaded strength and landing work are shown as on hold until it can.",
 };
 
-export function PlanSection({ assessmentId, result, oneRepMaxKg, massKg, canAdjust, canOverride, hold, oneRepMaxHref }: Props) {
+export function PlanSection({ assessmentId, result, oneRepMaxKg, questionedOneRepMaxKg, massKg, canAdjust, canOverride, hold, oneRepMaxHref }: Props) {
   const plan = result.result.plan;
   const adjustment = result.adjustment;
   const loading = loadingContextOf(result.result, oneRepMaxKg);
@@ -126,18 +128,22 @@ export function PlanSection({ assessmentId, result, oneRepMaxKg, massKg, canAdju
       <Text variant="small" testID="plan-one-rep-max">
         {oneRepMaxKg != null
           ? `Split-squat 1RM on record: ${oneRepMaxKg} kg. Loads below are shares of it.`
-          : 'No split-squat 1RM on record: loaded exercises use bodyweight until one is estimated.'}
+          : questionedOneRepMaxKg != null
+            ? `A split-squat 1RM of ${questionedOneRepMaxKg} kg was typed but not confirmed after the check against body mass: loaded exercises use bodyweight until it is confirmed.`
+            : 'No split-squat 1RM on record: loaded exercises use bodyweight until one is estimated.'}
       </Text>
       {oneRepMaxKg == null && oneRepMaxHref ? (
         <Link href={oneRepMaxHref as never} style={styles.oneRepMaxLink} testID="plan-one-rep-max-enter">
           <Text variant="label" style={styles.linkText}>
-            Enter an estimated 1RM (the screen&apos;s first step; loads then follow from it) →
+            {questionedOneRepMaxKg != null
+              ? 'Check and confirm the 1RM (the screen’s first step) →'
+              : 'Enter an estimated 1RM (the screen’s first step; loads then follow from it) →'}
           </Text>
         </Link>
       ) : null}
-      {oneRepMaxWarning(oneRepMaxKg, massKg) ? (
+      {oneRepMaxWarning(oneRepMaxKg ?? questionedOneRepMaxKg, massKg) ? (
         <Notice tone="caution" title="Check the 1RM" testID="plan-one-rep-max-warning">
-          {oneRepMaxWarning(oneRepMaxKg, massKg)}
+          {oneRepMaxWarning(oneRepMaxKg ?? questionedOneRepMaxKg, massKg)}
         </Notice>
       ) : null}
       {adjustment && !showProposal && adjustment.overrides?.length ? <Overrides adjustment={adjustment} /> : null}

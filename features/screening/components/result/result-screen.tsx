@@ -12,6 +12,7 @@ import { groupFlags } from '@/features/screening/flag-groups';
 import { nextUnscreened } from '@/features/screening/round-order';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
+import { usableOneRepMax } from '@/features/screening/one-rep-max';
 import { Button } from '@/features/ui/components/button';
 import { scrollToId } from '@/features/ui/scroll-to';
 import { Notice } from '@/features/ui/components/notice';
@@ -73,7 +74,8 @@ export default function ResultScreen({ assessmentId, from }: { assessmentId: str
           <PlanSection
             assessmentId={detail.id}
             result={result}
-            oneRepMaxKg={detail.draft.oneRepMaxKg}
+            oneRepMaxKg={usableOneRepMax(detail.draft)}
+            questionedOneRepMaxKg={usableOneRepMax(detail.draft) == null ? detail.draft.oneRepMaxKg : null}
             massKg={detail.draft.body?.massKg}
             canAdjust={can(membership.role, 'plan.adjust')}
             canOverride={can(membership.role, 'plan.override')}
@@ -162,7 +164,6 @@ function Header({
   from?: 'reviews';
   toCare: boolean;
 }) {
-  const { isWide } = useBreakpoints();
   const pain = painLine(result);
   return (
     <View style={styles.head}>
@@ -192,7 +193,7 @@ function Header({
             : `${pain} See the clearance above for what is in force.`}
         </Notice>
       ) : null}
-      {toCare && !isWide ? (
+      {toCare ? (
         <Button tone="quiet" label="Go to review, clearance and notes ↓" onPress={() => scrollToId(CARE_ANCHOR, true)} testID="to-care" style={styles.toCare} />
       ) : null}
       <Notice>These results describe how the athlete moved on the day. They are not a diagnosis.</Notice>
