@@ -48,7 +48,12 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
     screenedOn: rounds.screenedOn,
     closedAt: rounds.closedAt,
     closedByName: sql<string | null>`(select u.display_name from users u where u.id = ${rounds.closedBy})`,
-    notStarted: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'not_started')::int`,
+    // Not started and allowed to start: an athlete whose family has not agreed to screening is not counted
+    // as work left in the round (our choice: "0 of 13" for a squad of which 12 may be screened never
+    // reached its end).
+    notStarted: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'not_started' and coalesce((
+      select c.granted from consents c where c.athlete_id = ${assessments.athleteId} and c.kind = 'screening'
+      order by c.created_at desc limit 1), false))::int`,
     inProgress: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'in_progress')::int`,
     submitted: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'submitted')::int`,
   };

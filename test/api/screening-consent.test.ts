@@ -79,6 +79,9 @@ describe('an athlete with no decision about taking part on record', () => {
 
     const row = await draftRow(id);
     expect([row.status, row.draftVersion]).toEqual(['not_started', 0]);
+    // Not counted as work left in the round: one to start (Omar), not two.
+    const listed = (await as.tester.get('/api/rounds')).body.rounds.find((r: { id: string }) => r.id === round.round.id);
+    expect(listed.counts).toEqual({ not_started: 1, in_progress: 0, submitted: 0 });
   });
 
   it('can be screened once a head coach records the family’s yes', async () => {

@@ -374,3 +374,39 @@ test('pain reported: the plan holds back loaded work and lists what the athlete 
   await clearance.scrollIntoViewIfNeeded();
   await page.screenshot({ path: testInfo.outputPath(`plan-pain-${testInfo.project.name}.png`) });
 });
+
+// our choice: an athlete referred on (the demo's Tove Lund) is not taken through the landing task; capture
+// says so before the first measure and on the task, with one tap to skip it with the reason kept, and the
+// athlete's page says it at the top.
+test('capture and the athlete page stop the landing task for an athlete referred on', async ({ page }, testInfo) => {
+  await signIn(page, 'tester@squadline.test');
+  await expect(page.getByTestId('home-tester')).toBeVisible();
+  const squads = (await (await page.request.get('/api/squads')).json()) as { squads: { id: string; name: string }[] };
+  const squad = squads.squads.find((s) => s.name === 'Under-13 mixed')!;
+  const created = await page.request.post('/api/rounds', {
+    data: { squadId: squad.id, name: `Hold ${testInfo.project.name} ${Date.now()}`, screenedOn: '2026-09-14' },
+  });
+  expect(created.status()).toBe(201);
+  const round = (await created.json()) as { athletes: { assessmentId: string; athleteId: string; firstName: string }[] };
+  const tove = round.athletes.find((a) => a.firstName === 'Tove')!;
+  await page.goto(`/screening/assessments/${tove.assessmentId}`);
+  await expect(page.getByTestId('step-title')).toHaveText('Body measurements');
+  await expect(page.getByTestId('capture-hold')).toContainText('Skip the drop landing');
+  await expect(page.getByTestId('capture-hold')).toContainText('referred Tove on');
+  // Through the tasks to the landing: no stop on a task that is not a landing.
+  for (let i = 1; i <= 9; i += 1) {
+    await page.getByTestId('step-next').click();
+    await expect(page.getByTestId('step-counter')).toHaveText(`Task ${i} of 9`);
+    if ((await page.getByTestId('step-title').textContent()) === 'Drop landing from a low box') break;
+    await expect(page.getByTestId('capture-hold')).toHaveCount(0);
+  }
+  await expect(page.getByTestId('step-title')).toHaveText('Drop landing from a low box');
+  await expect(page.getByTestId('capture-hold')).toContainText('Do not run this task with Tove');
+  await page.getByTestId('capture-hold-skip').click();
+  await expect(page.getByTestId('task-skip')).toHaveAttribute('aria-checked', 'true');
+  await expect(page.getByTestId('task-skip-reason')).toHaveValue(/^On hold: .* referred Tove on/);
+  await page.screenshot({ path: testInfo.outputPath('capture-hold.png') });
+
+  await page.goto(`/athletes/${tove.athleteId}`);
+  await expect(page.getByTestId('athlete-hold')).toContainText('Referred on');
+});

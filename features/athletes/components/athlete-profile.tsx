@@ -105,7 +105,7 @@ function HoldLine({ athlete: a }: { athlete: Athlete }) {
   if (a.clearance?.status === 'referred') {
     return (
       <Notice tone="error" title="Referred on" testID="athlete-hold">
-        {`${a.clearance.setByName ?? 'A physiotherapist'} referred ${a.firstName} on, on ${formatDate(a.clearance.setAt.slice(0, 10))}. No loaded strength work and no landing work until a physiotherapist clears them.`}
+        {`${a.clearance.setByName ?? 'A physiotherapist'} referred ${a.firstName} on (${formatDate(a.clearance.setAt.slice(0, 10))}). No loaded strength work and no landing work until a physiotherapist clears them.`}
       </Notice>
     );
   }

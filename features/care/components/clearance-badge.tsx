@@ -38,7 +38,7 @@ export function AthleteClearanceBadge({ athleteId }: { athleteId: string }) {
       {pain ? (
         <View style={[styles.tag, styles.stop]} testID="pain-waiting-badge">
           <Text variant="small" style={styles.text} numberOfLines={1}>
-            ✋ Pain: no physio decision yet
+            Pain: no physio decision yet
           </Text>
         </View>
       ) : null}

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { useFormik } from 'formik';
+import { useKeptForm } from '../kept-form';
 import { StyleSheet, View } from 'react-native';
 import { can } from '@/features/access/permissions';
 import { showServerError } from '@/features/api/client';
@@ -47,8 +48,9 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
   // Earlier decisions stay in sight (a hold lifted left no trace on the panel), and a new one is confirmed.
   const history = useClearanceHistory(athleteId, canSet);
   const [recorded, setRecorded] = useState<string | null>(null);
+  const initialValues = { status: '' as ClearanceStatus | '', detail: '', holds: [] as ClearanceHold[] };
   const form = useFormik({
-    initialValues: { status: '' as ClearanceStatus | '', detail: '', holds: [] as ClearanceHold[] },
+    initialValues,
     validationSchema: clearanceSchema,
     onSubmit: async (values, helpers) => {
       try {
@@ -61,6 +63,7 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
       }
     },
   });
+  useKeptForm(`clearance.${athleteId}`, form.values, initialValues, (v) => void form.setValues(v));
   return (
     <Card testID="clearance-panel">
       <Text variant="heading" accessibilityRole="header" aria-level={2}>

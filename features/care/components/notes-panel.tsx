@@ -1,5 +1,6 @@
 import { useFormik } from 'formik';
 import { useState } from 'react';
+import { useKeptForm } from '../kept-form';
 import { StyleSheet, View } from 'react-native';
 import { can } from '@/features/access/permissions';
 import { messageOf, showServerError } from '@/features/api/client';
@@ -9,7 +10,7 @@ import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
-import { colors, space } from '@/features/ui/theme';
+import { colors, radius, space } from '@/features/ui/theme';
 import { useAddNoteMutation, useEditNoteMutation, useNotesQuery } from '../api/notes';
 import { NOTE_EDIT_WINDOW_MINUTES, NOTE_VISIBILITY_LABELS, type NoteVisibility } from '../choices';
 import { noteSchema } from '../schemas';
@@ -48,6 +49,14 @@ function NoteItem({ note }: { note: NoteView }) {
   const edit = useEditNoteMutation();
   return (
     <View style={[styles.note, note.visibility === 'family' ? styles.family : styles.team]} testID="note">
+      {/* Told apart at a glance: a note shared by mistake is found while it can still be taken back. */}
+      {note.visibility === 'family' ? (
+        <View style={styles.familyTag} testID="note-family-tag">
+          <Text variant="small" style={styles.familyTagText}>
+            The family can read this
+          </Text>
+        </View>
+      ) : null}
       <Text variant="small">
         {NOTE_VISIBILITY_LABELS[note.visibility]} · {note.authorName ?? 'Former member'} · {formatDateTime(note.createdAt)}
         {note.updatedAt !== note.createdAt ? ' · corrected' : ''}
@@ -93,8 +102,9 @@ function NoteItem({ note }: { note: NoteView }) {
 
 function NoteForm({ athleteId, assessmentId }: { athleteId: string; assessmentId?: string }) {
   const add = useAddNoteMutation(athleteId);
+  const initialValues = { text: '', visibility: '' as NoteVisibility | '', assessmentId };
   const form = useFormik({
-    initialValues: { text: '', visibility: '' as NoteVisibility | '', assessmentId },
+    initialValues,
     validationSchema: noteSchema,
     onSubmit: async (values, helpers) => {
       try {
@@ -105,6 +115,7 @@ function NoteForm({ athleteId, assessmentId }: { athleteId: string; assessmentId
       }
     },
   });
+  useKeptForm(`note.${athleteId}.${assessmentId ?? 'athlete'}`, form.values, initialValues, (v) => void form.setValues(v));
   return (
     <View style={styles.form}>
       <TextField
@@ -136,7 +147,9 @@ function NoteForm({ athleteId, assessmentId }: { athleteId: string; assessmentId
 const styles = StyleSheet.create({
   note: { gap: space.xs, paddingLeft: space.md, borderLeftWidth: 4, paddingVertical: space.xs },
   team: { borderLeftColor: colors.inkMuted },
-  family: { borderLeftColor: colors.pine },
+  family: { borderLeftColor: colors.pine, backgroundColor: colors.pineSoft, paddingRight: space.sm },
+  familyTag: { alignSelf: 'flex-start', backgroundColor: colors.pine, borderRadius: radius.sm, paddingHorizontal: space.sm, paddingVertical: 2 },
+  familyTagText: { color: '#fff', fontWeight: '700' },
   form: { gap: space.md },
   row: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
   // Five lines or so: a note is proofread before a family reads it.

@@ -18,7 +18,7 @@ export const LANDING_TASK: TaskId = 'drop-landing';
 export function landingHoldReason(firstName: string, clearance: ReturnType<typeof useClearanceOf>, pain: ReturnType<typeof usePainWaitingOf>): string | null {
   if (pain) return `pain was reported at the screen of ${formatDate(pain.screenedOn)} and no physiotherapist has decided since`;
   if (clearance?.status === 'referred')
-    return `${clearance.setByName ?? 'a physiotherapist'} referred ${firstName} on, on ${formatDate(clearance.setAt.slice(0, 10))}`;
+    return `${clearance.setByName ?? 'a physiotherapist'} referred ${firstName} on (${formatDate(clearance.setAt.slice(0, 10))})`;
   if (clearance?.status === 'modified' && clearance.holds.includes('landing')) return `the physiotherapist holds landing work back until a new clearance`;
   return null;
 }
