@@ -1,4 +1,5 @@
 import { useEffect, useRef } from 'react';
+import { KEPT_FORM_PREFIX as PREFIX, keptFormStore as store } from './kept-form-keys';
 
 /**
  * A half-written note or clearance survives leaving the page (a physiotherapist called away between
@@ -6,10 +7,6 @@ import { useEffect, useRef } from 'react';
  * `care.kept.<key>` until they are saved or emptied, and are removed at sign-out (`forgetKeptForms`).
  * Session storage, not the device's: gone when the tab closes (our choice, for words about a child).
  */
-const PREFIX = 'care.kept.';
-
-const store = (): Storage | undefined => (typeof globalThis.sessionStorage === 'undefined' ? undefined : globalThis.sessionStorage);
-
 export function useKeptForm<V extends object>(key: string, values: V, initial: V, restore: (values: V) => void) {
   const restored = useRef(false);
   useEffect(() => {
@@ -32,11 +29,4 @@ export function useKeptForm<V extends object>(key: string, values: V, initial: V
     // `initial` is the form's constant start.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [key, json]);
-}
-
-/** At sign-out: nobody else on this phone reads what the last person was writing. */
-export function forgetKeptForms() {
-  const s = store();
-  if (!s) return;
-  for (const k of Object.keys(s)) if (k.startsWith(PREFIX)) s.removeItem(k);
 }

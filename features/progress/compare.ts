@@ -77,6 +77,8 @@ export type FlagRef = {
   taskId: TaskId | null;
   side: FlagSide;
   severity: Flag['severity'];
+  /** A left-right comparison: the pair of tasks compared (absent otherwise). */
+  comparesTasks?: readonly [TaskId, TaskId];
 };
 export type PersistingFlag = FlagRef & { earlierSeverity: Flag['severity'] };
 
@@ -160,7 +162,15 @@ export function compareMeasurement(earlier: Measurement, later: Measurement): Me
 }
 
 function flagRef(f: ComparedFlag): FlagRef {
-  return { id: f.id, pattern: f.pattern, title: f.title, taskId: f.taskId, side: f.side, severity: f.severity };
+  return {
+    id: f.id,
+    pattern: f.pattern,
+    title: f.title,
+    taskId: f.taskId,
+    side: f.side,
+    severity: f.severity,
+    ...(f.comparesTasks ? { comparesTasks: f.comparesTasks } : {}),
+  };
 }
 
 /** Whether a flag's task (or both tasks of a pair) was done in the later screen. */

@@ -31,6 +31,19 @@ describe('flags in words, one entry per pattern (our choice)', () => {
     expect(flagGroups([flag('heels-lifting', 'Heels lifting', 'two-leg-squat', null)])).toEqual(['Heels lifting: two-leg full squat']);
     expect(flagGroups([])).toEqual([]);
   });
+
+  it('names the pair a left-right difference compares, so that two of them are told apart', () => {
+    const asym = (a: FlagRef['taskId'], b: FlagRef['taskId']): FlagRef => ({
+      ...flag('left-right-asymmetry', 'Left-right difference (asymmetry)', null, null),
+      comparesTasks: [a!, b!],
+    });
+    expect(flagGroups([asym('single-leg-squat-left', 'single-leg-squat-right')])).toEqual([
+      'Left-right difference (asymmetry): single-leg squat, left against right',
+    ]);
+    expect(flagGroups([asym('knee-to-wall-left', 'knee-to-wall-right')])).toEqual([
+      'Left-right difference (asymmetry): knee-to-wall lunge, left against right',
+    ]);
+  });
 });
 
 describe('sessions between two screens in words (our choice)', () => {

@@ -15,6 +15,10 @@ export function formatValue(value: number, unit: MeasurementChange['unit']): str
   return `${Math.round(value * 100) / 100}${UNIT[unit]}`;
 }
 
+function pairName(taskId: TaskId): string {
+  return `${(taskName(taskId) ?? taskId).replace(/, (left|right) (leg|ankle)$/, '')}, left against right`;
+}
+
 function taskName(taskId: TaskId | null): string | null {
   if (!taskId) return null;
   try {
@@ -40,7 +44,9 @@ export function flagGroups(flags: readonly FlagRef[]): string[] {
   const byTitle = new Map<string, Map<string, Set<FlagSide>>>();
   for (const f of flags) {
     const tasks = byTitle.get(f.title) ?? byTitle.set(f.title, new Map()).get(f.title)!;
-    const task = taskName(f.taskId) ?? '';
+    // A left-right difference names the pair it compares ("single-leg squat, left against right"): two of
+    // them, one cleared and one new, read as the same flag in both lines.
+    const task = taskName(f.taskId) ?? (f.comparesTasks ? pairName(f.comparesTasks[0]) : '');
     (tasks.get(task) ?? tasks.set(task, new Set()).get(task)!).add(f.side);
   }
   return [...byTitle].map(([title, tasks]) => {

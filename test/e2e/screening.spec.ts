@@ -78,7 +78,13 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   // Body measurements, with an error beside the field for a slip of the finger.
   await page.getByTestId('body-stature').fill('1520');
   await expect(page.getByText('Standing height (cm) must be at most 220.')).toBeVisible();
+  // Next does not move on past text that is not kept, and says which field (our choice).
+  await page.getByTestId('step-next').click();
+  await expect(page.getByTestId('step-invalid')).toContainText('Fix or clear first: Standing height (cm)');
+  await expect(page.getByTestId('step-title')).toHaveText('Body measurements');
+  await expect(page.getByTestId('body-stature')).toHaveValue('1520');
   await page.getByTestId('body-stature').fill('152');
+  await expect(page.getByTestId('step-invalid')).toHaveCount(0);
   await page.getByTestId('body-sitting').fill('79,5');
   await page.getByTestId('body-mass').fill('41');
   await expectSaved(page);

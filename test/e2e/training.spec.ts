@@ -118,6 +118,8 @@ test('training sheet: a squad by exercise, holds first, names open results, prin
   await form.getByTestId('sheet-record-other-day').fill('2026-11');
   await form.getByTestId('sheet-record-save').click();
   await expect(form).toContainText('Write the date as YYYY-MM-DD');
+  // Said beside the button too, where the thumb is.
+  await expect(form.getByTestId('sheet-record-not-saved')).toContainText('Not saved: Write the date as YYYY-MM-DD');
   // Still open with the error: a save would have closed it (the other project records on this squad at the
   // same time, so counting its sessions would not tell).
   await expect(form.getByTestId('sheet-record-other-day')).toBeVisible();

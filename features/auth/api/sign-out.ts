@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/features/api/client';
 import { rememberSignOut } from '../return-to';
 import { authKeys } from './keys';
-import { forgetKeptForms } from '@/features/care/kept-form';
+import { forgetKeptForms } from '@/features/care/kept-form-keys';
 
 export const signOut = () => api<void>('/auth/sign-out', { method: 'POST' });
 

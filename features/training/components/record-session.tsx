@@ -289,6 +289,12 @@ function RecordForm({
         testID="sheet-record-note"
       />
       {form.status ? <Notice tone="error">{String(form.status)}</Notice> : null}
+      {/* Beside the button that was tapped: the day's error sits at the top of a long list on a phone. */}
+      {form.submitCount > 0 && (form.errors.heldOn || form.errors.athleteIds || form.errors.note) ? (
+        <Text style={styles.error} testID="sheet-record-not-saved">
+          {`Not saved: ${String(form.errors.heldOn ?? form.errors.athleteIds ?? form.errors.note)}`}
+        </Text>
+      ) : null}
       <View style={styles.row}>
         <Button label="Save" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="sheet-record-save" />
         <Button label="Cancel" tone="quiet" onPress={onCancel} />

@@ -5,7 +5,6 @@ import { can } from '@/features/access/permissions';
 import { biggestSquadId, useSquadsQuery } from '@/features/athletes/api/get-squads';
 import { useActiveClub } from '@/features/session/active-club';
 import { PHASE_WORDS } from '@/features/screening/labels';
-import { STAGE_LIMITS } from '@/features/screening/engine/limits';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
@@ -128,7 +127,7 @@ function SheetBody({ data }: { data: TrainingSheet }) {
       </Notice>
       {growing.length ? (
         <Text variant="small" testID="sheet-growth-spurt">
-          {`In the growth-spurt window: ${growing.map((a) => a.name).join(', ')}. Their plans already hold loads at ${STAGE_LIMITS.circa.maxPercentOneRepMax}% of 1RM at most, with no sets to fatigue, and landing volume halved. Pain at the front of the knee, below the kneecap or at the heel: stop and refer.`}
+          {`In the growth-spurt window: ${growing.map((a) => a.name).join(', ')}. Their plans already cap loads, leave out sets to fatigue and halve landing volume. Pain at the front of the knee, below the kneecap or at the heel: stop and refer.`}
         </Text>
       ) : null}
       {held.length ? (

@@ -61,7 +61,10 @@ export function BodyStep({ draft, update }: { draft: AssessmentDraft; update(cha
           hint="Only from a submaximal test under qualified supervision. Leave empty if unknown: the plan then uses bodyweight."
           testID="body-one-rep-max"
           value={draft.oneRepMaxKg}
-          validate={(n) => check(() => saveDraftSchema.validateSyncAt('draft.oneRepMaxKg', { draftVersion: 0, draft: { oneRepMaxKg: n } }))}
+          validate={(n) => {
+            const message = check(() => saveDraftSchema.validateSyncAt('draft.oneRepMaxKg', { draftVersion: 0, draft: { oneRepMaxKg: n } }));
+            return message ? `${message} Leave it empty if it is not known.` : null;
+          }}
           onCommit={(n) => update((d) => ({ ...d, oneRepMaxKg: n }))}
         />
         {oneRepMaxWarning(draft.oneRepMaxKg, body.massKg) ? (

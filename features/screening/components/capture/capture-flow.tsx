@@ -2,7 +2,7 @@ import { AthleteClearanceBadge } from '@/features/care/components/clearance-badg
 import { can } from '@/features/access/permissions';
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, Redirect, useLocalSearchParams, useRouter } from 'expo-router';
-import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import { StyleSheet, View, type ScrollView } from 'react-native';
 import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
 import { screeningKeys } from '@/features/screening/api/keys';
@@ -35,6 +35,7 @@ import { ReviewStep } from './review-step';
 import { SaveStatusBadge } from './save-status';
 import { TaskStep } from './task-step';
 import { CaptureHoldNotice } from './hold-notice';
+import { InvalidFieldsContext } from './invalid-fields';
 
 const STEPS: readonly string[] = ['body', ...BATTERY.map((t) => t.id), 'review'];
 const TASK_COUNT = BATTERY.length;
@@ -146,7 +147,19 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
 
   // A step opened from "Review and submit" goes straight back there (it took Next through every task).
   const [fromReview, setFromReview] = useState(false);
+  // Fields of this step holding text that is not kept: Next stops and names them (InvalidFieldsContext).
+  const invalid = useRef(new Map<string, string>());
+  const [stopped, setStopped] = useState<string[] | null>(null);
+  const report = useCallback((fieldId: string, label: string | null) => {
+    if (label) invalid.current.set(fieldId, label);
+    else invalid.current.delete(fieldId);
+    if (invalid.current.size === 0) setStopped(null);
+  }, []);
   const next = () => {
+    if (invalid.current.size > 0) {
+      setStopped([...new Set(invalid.current.values())]);
+      return;
+    }
     // Moving on from a task means it was done, even with nothing ticked ("nothing seen"). A submitted
     // assessment is only browsed: any save would put it back in progress.
     if (task && !draft.tasks[task.id] && detail.status !== 'submitted') updateTask(task.id, (t) => t);
@@ -227,143 +240,152 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
   const editingPhoto = editing ? photoFor(editing.taskId, editing.view) : undefined;
 
   return (
-    <CaptureLayout
-      scrollRef={scroll}
-      wide={isTabletUp}
-      header={
-        <>
-          <View style={captureStyles.headerTop}>
-            <Link href={`/screening/rounds/${detail.roundId}`} style={captureStyles.roundLink}>
-              <Text variant="small" style={styles.roundLinkText}>
-                ← {detail.roundName}
-              </Text>
-            </Link>
-            <SaveStatusBadge status={status} />
-          </View>
-          <Text variant="heading" accessibilityRole="header" testID="step-title">
-            {title}
-          </Text>
-          <View style={captureStyles.who}>
-            <Text variant="label" testID="capture-athlete">
-              {athleteName}
-            </Text>
-            <Text variant="small" testID="step-counter">
-              {counter}
-            </Text>
-            {!detail.athlete.photoConsent ? <PlainTag label="No photo consent" /> : null}
-            <AthleteClearanceBadge athleteId={detail.athlete.id} />
-          </View>
-          <ProgressBar fraction={stepIndex / (STEPS.length - 1)} label={counter} />
-        </>
-      }
-      bar={
-        editing ? (
-          <Button label="Done: back to the task" testID="landmarks-done" onPress={() => setEditing(null)} style={captureStyles.barButton} />
-        ) : (
+    <InvalidFieldsContext.Provider value={report}>
+      <CaptureLayout
+        scrollRef={scroll}
+        wide={isTabletUp}
+        aboveBar={
+          stopped && !editing ? (
+            <Notice tone="error" title="Not moved on" testID="step-invalid">
+              {`Fix or clear first: ${stopped.join(', ')}. What is typed there now is not kept.`}
+            </Notice>
+          ) : null
+        }
+        header={
           <>
-            <Button
-              tone="secondary"
-              label="Back"
-              testID="step-back"
-              disabled={stepIndex === 0}
-              onPress={() => goTo(STEPS[stepIndex - 1] ?? 'body')}
-              style={captureStyles.barButton}
-            />
-            {step === 'review' ? (
-              <Button
-                label={detail.status === 'submitted' ? 'Submit again' : 'Submit'}
-                testID="submit-assessment"
-                busy={submitting}
-                onPress={() => void onSubmit()}
-                style={[captureStyles.barButton, captureStyles.barPrimary]}
-              />
-            ) : (
-              <Button
-                label={fromReview ? 'Back to review' : 'Next'}
-                testID="step-next"
-                onPress={next}
-                style={[captureStyles.barButton, captureStyles.barPrimary]}
-              />
-            )}
+            <View style={captureStyles.headerTop}>
+              <Link href={`/screening/rounds/${detail.roundId}`} style={captureStyles.roundLink}>
+                <Text variant="small" style={styles.roundLinkText}>
+                  ← {detail.roundName}
+                </Text>
+              </Link>
+              <SaveStatusBadge status={status} />
+            </View>
+            <Text variant="heading" accessibilityRole="header" testID="step-title">
+              {title}
+            </Text>
+            <View style={captureStyles.who}>
+              <Text variant="label" testID="capture-athlete">
+                {athleteName}
+              </Text>
+              <Text variant="small" testID="step-counter">
+                {counter}
+              </Text>
+              {!detail.athlete.photoConsent ? <PlainTag label="No photo consent" /> : null}
+              <AthleteClearanceBadge athleteId={detail.athlete.id} />
+            </View>
+            <ProgressBar fraction={stepIndex / (STEPS.length - 1)} label={counter} />
           </>
-        )
-      }
-    >
-      {mergedFromServer ? (
-        <Notice title="Merged with a newer save">
-          This assessment was also saved on another phone. Both are kept: where the same field was changed, your edits on this phone win.
-        </Notice>
-      ) : null}
-      {status.kind === 'refused' ? (
-        <Notice tone="error" title="Not saved" testID="save-refused">
-          {`${status.message} What you typed is kept on this phone.`}
-        </Notice>
-      ) : null}
-      {/* Above the list, where they are read before Submit (below it, a phone never showed them). */}
-      {!online && step === 'review' && !editing ? (
-        <Notice title="No connection" testID="submit-offline">
-          Submitting now keeps the submit on this phone. It is sent after the draft and photos when the connection is back; the result appears then.
-        </Notice>
-      ) : null}
-      {unfinishedUploads > 0 && step === 'review' && !editing ? (
-        <Notice tone="caution" title={unfinishedUploads === 1 ? 'A photo is not uploaded yet' : 'Photos not uploaded yet'} testID="uploads-unfinished">
-          {`${unfinishedUploads === 1 ? 'One photo is' : `${unfinishedUploads} photos are`} kept on this phone and not on the server yet. A submit waits for ${unfinishedUploads === 1 ? 'it' : 'them'}: they are sent first, in order.`}
-        </Notice>
-      ) : null}
-      {editing && editingPhoto ? (
-        <LazyLandmarkEditor
-          key={`${editing.taskId}:${editing.view}:${editingPhoto.id}`}
-          task={getTask(editing.taskId)}
-          view={editing.view}
-          photo={editingPhoto}
-          value={draft.tasks[editing.taskId]?.landmarks?.[editing.view] ?? {}}
-          racketHand={detail.athlete.racketHand}
-          onChange={(next: LandmarkSet) => updateTask(editing.taskId, (t) => ({ ...t, landmarks: { ...t.landmarks, [editing.view]: next } }))}
-        />
-      ) : step === 'body' ? (
-        <>
-          <CaptureHoldNotice athleteId={detail.athlete.id} firstName={detail.athlete.firstName} taskId={null} />
-          <BodyStep draft={draft} update={update} />
-        </>
-      ) : step === 'review' ? (
-        <ReviewStep
-          detail={detail}
-          draft={draft}
-          photoFor={photoFor}
-          goTo={(target) => {
-            setFromReview(true);
-            goTo(target);
-          }}
-        />
-      ) : task ? (
-        <>
-          {detail.status !== 'submitted' ? (
-            <CaptureHoldNotice
-              athleteId={detail.athlete.id}
-              firstName={detail.athlete.firstName}
-              taskId={task.id}
-              task={draft.tasks[task.id]}
-              onSkip={(reason) => updateTask(task.id, (t) => ({ ...t, skipped: true, skipReason: reason }))}
-            />
-          ) : null}
-          <TaskStep
-            key={task.id}
-            task={task}
-            value={draft.tasks[task.id]}
-            onChange={(change) => updateTask(task.id, change)}
-            detail={detail}
-            photos={{ front: photoFor(task.id, 'front'), side: photoFor(task.id, 'side') }}
-            onNewPhoto={(view) => onNewPhoto(task.id, view)}
-            onPlaceLandmarks={(view) => setEditing({ taskId: task.id, view })}
+        }
+        bar={
+          editing ? (
+            <Button label="Done: back to the task" testID="landmarks-done" onPress={() => setEditing(null)} style={captureStyles.barButton} />
+          ) : (
+            <>
+              <Button
+                tone="secondary"
+                label="Back"
+                testID="step-back"
+                disabled={stepIndex === 0}
+                onPress={() => goTo(STEPS[stepIndex - 1] ?? 'body')}
+                style={captureStyles.barButton}
+              />
+              {step === 'review' ? (
+                <Button
+                  label={detail.status === 'submitted' ? 'Submit again' : 'Submit'}
+                  testID="submit-assessment"
+                  busy={submitting}
+                  onPress={() => void onSubmit()}
+                  style={[captureStyles.barButton, captureStyles.barPrimary]}
+                />
+              ) : (
+                <Button
+                  label={fromReview ? 'Back to review' : 'Next'}
+                  testID="step-next"
+                  onPress={next}
+                  style={[captureStyles.barButton, captureStyles.barPrimary]}
+                />
+              )}
+            </>
+          )
+        }
+      >
+        {mergedFromServer ? (
+          <Notice title="Merged with a newer save">
+            This assessment was also saved on another phone. Both are kept: where the same field was changed, your edits on this phone win.
+          </Notice>
+        ) : null}
+        {status.kind === 'refused' ? (
+          <Notice tone="error" title="Not saved" testID="save-refused">
+            {`${status.message} What you typed is kept on this phone.`}
+          </Notice>
+        ) : null}
+        {/* Above the list, where they are read before Submit (below it, a phone never showed them). */}
+        {!online && step === 'review' && !editing ? (
+          <Notice title="No connection" testID="submit-offline">
+            Submitting now keeps the submit on this phone. It is sent after the draft and photos when the connection is back; the result appears then.
+          </Notice>
+        ) : null}
+        {unfinishedUploads > 0 && step === 'review' && !editing ? (
+          <Notice tone="caution" title={unfinishedUploads === 1 ? 'A photo is not uploaded yet' : 'Photos not uploaded yet'} testID="uploads-unfinished">
+            {`${unfinishedUploads === 1 ? 'One photo is' : `${unfinishedUploads} photos are`} kept on this phone and not on the server yet. A submit waits for ${unfinishedUploads === 1 ? 'it' : 'them'}: they are sent first, in order.`}
+          </Notice>
+        ) : null}
+        {editing && editingPhoto ? (
+          <LazyLandmarkEditor
+            key={`${editing.taskId}:${editing.view}:${editingPhoto.id}`}
+            task={getTask(editing.taskId)}
+            view={editing.view}
+            photo={editingPhoto}
+            value={draft.tasks[editing.taskId]?.landmarks?.[editing.view] ?? {}}
+            racketHand={detail.athlete.racketHand}
+            onChange={(next: LandmarkSet) => updateTask(editing.taskId, (t) => ({ ...t, landmarks: { ...t.landmarks, [editing.view]: next } }))}
           />
-        </>
-      ) : null}
-      {submitError && step === 'review' ? (
-        <Notice tone="error" title="Not submitted" testID="submit-error">
-          {submitError}
-        </Notice>
-      ) : null}
-    </CaptureLayout>
+        ) : step === 'body' ? (
+          <>
+            <CaptureHoldNotice athleteId={detail.athlete.id} firstName={detail.athlete.firstName} taskId={null} />
+            <BodyStep draft={draft} update={update} />
+          </>
+        ) : step === 'review' ? (
+          <ReviewStep
+            detail={detail}
+            draft={draft}
+            photoFor={photoFor}
+            goTo={(target) => {
+              setFromReview(true);
+              goTo(target);
+            }}
+          />
+        ) : task ? (
+          <>
+            {detail.status !== 'submitted' ? (
+              <CaptureHoldNotice
+                athleteId={detail.athlete.id}
+                firstName={detail.athlete.firstName}
+                taskId={task.id}
+                task={draft.tasks[task.id]}
+                onSkip={(reason) => updateTask(task.id, (t) => ({ ...t, skipped: true, skipReason: reason }))}
+              />
+            ) : null}
+            <TaskStep
+              key={task.id}
+              task={task}
+              value={draft.tasks[task.id]}
+              onChange={(change) => updateTask(task.id, change)}
+              detail={detail}
+              photos={{ front: photoFor(task.id, 'front'), side: photoFor(task.id, 'side') }}
+              onNewPhoto={(view) => onNewPhoto(task.id, view)}
+              onPlaceLandmarks={(view) => setEditing({ taskId: task.id, view })}
+            />
+          </>
+        ) : null}
+        {submitError && step === 'review' ? (
+          <Notice tone="error" title="Not submitted" testID="submit-error">
+            {submitError}
+          </Notice>
+        ) : null}
+      </CaptureLayout>
+    </InvalidFieldsContext.Provider>
   );
 }
 

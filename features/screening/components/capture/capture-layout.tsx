@@ -12,6 +12,8 @@ type LayoutProps = {
   header: ReactNode;
   children: ReactNode;
   bar: ReactNode;
+  /** A line above Back and Next (why Next did not move on), where the thumb is. */
+  aboveBar?: ReactNode;
   scrollRef?: Ref<ScrollView>;
   /** Wider side margins from a tablet up; the frame leaves it off, its markup must not depend on the width. */
   wide?: boolean;
@@ -22,7 +24,7 @@ type LayoutProps = {
  * and Next at the bottom within thumb reach. One component for the screen and for its frame before the
  * data (CaptureFrame), so nothing moves when the assessment arrives.
  */
-export function CaptureLayout({ header, children, bar, scrollRef, wide = false }: LayoutProps) {
+export function CaptureLayout({ header, children, bar, aboveBar, scrollRef, wide = false }: LayoutProps) {
   return (
     <View style={styles.root}>
       <View style={styles.header}>
@@ -37,6 +39,7 @@ export function CaptureLayout({ header, children, bar, scrollRef, wide = false }
         <View style={[styles.column, styles.body]}>{children}</View>
       </ScrollView>
       <View style={styles.bar}>
+        {aboveBar ? <View style={[styles.column, styles.aboveBar]}>{aboveBar}</View> : null}
         <View style={[styles.column, styles.barInner]}>{bar}</View>
       </View>
     </View>
@@ -95,6 +98,7 @@ export const captureStyles = StyleSheet.create({
 });
 
 const styles = StyleSheet.create({
+  aboveBar: { paddingBottom: space.sm },
   root: { flex: 1, backgroundColor: colors.paper },
   column: { width: '100%', maxWidth: CONTENT_MAX_WIDTH, alignSelf: 'center' },
   header: { backgroundColor: colors.surface, borderBottomWidth: 1, borderBottomColor: colors.line, paddingHorizontal: space.lg, paddingVertical: space.sm },

@@ -1,4 +1,5 @@
-import { useEffect, useState } from 'react';
+import { useContext, useEffect, useId, useRef, useState } from 'react';
+import { InvalidFieldsContext } from './invalid-fields';
 import { TextField } from '@/features/ui/components/text-field';
 
 type Props = {
@@ -6,7 +7,11 @@ type Props = {
   value: number | null | undefined;
   /** Checks a candidate value; returns the message to show beside the field, or null. */
   validate(value: number | null): string | null;
-  /** Called with every valid value (null when emptied); invalid text stays in the field with its error. */
+  /**
+   * Called with every valid value, and with null when emptied or when the text is not a valid value (the
+   * draft then holds nothing rather than the last valid prefix typed: "500" had kept 50); the invalid text
+   * stays in the field with its error, and the capture step is told (InvalidFieldsContext).
+   */
   onCommit(value: number | null): void;
   hint?: string;
   testID?: string;
@@ -23,8 +28,18 @@ function parse(raw: string): number | null {
 export function NumberField({ label, value, validate, onCommit, hint, testID, placeholder }: Props) {
   const [raw, setRaw] = useState(value == null ? '' : String(value));
   const [error, setError] = useState<string | null>(null);
-  // A newer value from elsewhere (a merge with another phone's save) replaces the text.
+  const report = useContext(InvalidFieldsContext);
+  const id = useId();
   useEffect(() => {
+    report?.(id, error ? label : null);
+  }, [report, id, error, label]);
+  useEffect(() => () => report?.(id, null), [report, id]);
+  // A newer value from elsewhere (a merge with another phone's save) replaces the text; the value this
+  // field wrote itself (null for text that is not kept) leaves the text as typed.
+  const written = useRef<number | null>(value ?? null);
+  useEffect(() => {
+    if ((value ?? null) === written.current) return;
+    written.current = value ?? null;
     setRaw((current) => (parse(current) === (value ?? null) ? current : value == null ? '' : String(value)));
   }, [value]);
   return (
@@ -42,7 +57,8 @@ export function NumberField({ label, value, validate, onCommit, hint, testID, pl
         const n = parse(text);
         const message = Number.isNaN(n) ? `${label} must be a number.` : validate(n);
         setError(message);
-        if (!message) onCommit(n);
+        written.current = message ? null : n;
+        onCommit(written.current);
       }}
     />
   );

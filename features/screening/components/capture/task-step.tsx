@@ -24,12 +24,13 @@ type Props = {
   onPlaceLandmarks(view: PhotoSide): void;
 };
 
-function distanceError(n: number | null): string | null {
+/** The contract's check of a distance, said with the field's own label ("Big toe to wall (cm) must be ..."). */
+function distanceError(n: number | null, label: string): string | null {
   try {
     taskDraftSchema.validateSyncAt('distanceCm', { distanceCm: n });
     return null;
   } catch (e) {
-    return e instanceof ValidationError ? e.message : 'Check this value.';
+    return e instanceof ValidationError ? e.message.replace(/^Distance \(cm\)/, label) : 'Check this value.';
   }
 }
 
@@ -117,7 +118,7 @@ export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, on
               hint={task.distance.hint}
               testID="task-distance"
               value={t.distanceCm}
-              validate={distanceError}
+              validate={(n) => distanceError(n, task.distance!.label)}
               onCommit={(n) => onChange((d) => ({ ...d, distanceCm: n }))}
             />
           ) : null}

@@ -1,0 +1,8 @@
+import { createContext } from 'react';
+
+/**
+ * Number fields of a capture step say when they hold text that is not kept (out of range, not a number):
+ * `report(id, label)` while it is so, `report(id, null)` once fixed, emptied or gone. Capture then stops
+ * Next and says which, instead of moving on with the value silently left out (our choice).
+ */
+export const InvalidFieldsContext = createContext<((id: string, label: string | null) => void) | null>(null);
