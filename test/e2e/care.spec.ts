@@ -23,10 +23,12 @@ test('a physiotherapist reviews a screen, adds a note, previews the family e-mai
   await expect(page.getByTestId('result')).toBeVisible();
   await expect(page.getByTestId('review-state')).toContainText('Not reviewed yet');
 
-  await page.getByTestId('note-text').fill('Watch the right knee on landings; re-check in six weeks.');
+  // Its own words per run: a screen opened by an earlier run (a database kept between runs) has that run's note.
+  const words = `Watch the right knee on landings; re-check in six weeks (${testInfo.project.name} ${Date.now()}).`;
+  await page.getByTestId('note-text').fill(words);
   await page.getByTestId('note-visibility').getByRole('radio', { name: 'Team only' }).click();
   await page.getByTestId('note-add').click();
-  const note = page.getByTestId('note').filter({ hasText: 'Watch the right knee on landings' });
+  const note = page.getByTestId('note').filter({ hasText: words });
   await expect(note).toBeVisible();
   // Within the correction window, who may read it can change too (shared by mistake, taken back).
   await note.getByTestId('note-correct').click();
