@@ -154,7 +154,7 @@ describe('buildFamilySummary', () => {
       painTaskIds: ['two-leg-squat'],
     });
     expect(withPain.pain).toBe(
-      'At the screen, Kit said something hurt during: Two-leg full squat. Until a physiotherapist has seen Kit, the exercises below are done only where they cause no pain.',
+      'At the screen, Kit said something hurt during: Two-leg full squat. Until a physiotherapist has seen Kit, the exercises of this plan are done only where they cause no pain.',
     );
     const cleared = { status: 'cleared' as const, detail: '', holds: [], setAt: '2026-09-20T10:00:00.000Z', setByName: 'Phil Physio' };
     const afterClearance = buildFamilySummary({

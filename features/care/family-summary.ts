@@ -145,7 +145,7 @@ export function buildFamilySummary(input: {
       ? null
       : `At the screen, ${firstName} said something hurt during: ${painTitles.join(', ')}.` +
         (input.block.blocked && input.block.reason === 'clearance-needed'
-          ? ` Until a physiotherapist has seen ${firstName}, the exercises below are done only where they cause no pain.`
+          ? ` Until a physiotherapist has seen ${firstName}, the exercises of this plan are done only where they cause no pain.`
           : '');
 
   return {

@@ -58,13 +58,14 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName, 
           </Section>
           <Section>
             <Heading as="h2" style={styles.h2}>{`What ${name} will work on`}</Heading>
+            {/* First: what the family most needs to know, before the list. */}
+            {summary.pain ? <Text style={styles.text}>{summary.pain}</Text> : null}
             {summary.exercises.map((e) => (
               <Text
                 key={e.name}
                 style={styles.text}
               >{`• ${e.name}: ${e.howMuch}, ${e.howOften}.${e.clubOnly ? ` ${CLUB_ONLY_WORDS}` : ''} ${e.purpose}${e.forWhat ? ` ${e.forWhat}` : ''}`}</Text>
             ))}
-            {summary.pain ? <Text style={styles.text}>{summary.pain}</Text> : null}
             {summary.onHold ? <Text style={styles.text}>{summary.onHold}</Text> : null}
             {summary.clearance ? <Text style={styles.text}>{summary.clearance}</Text> : null}
             <Text style={styles.text}>{summary.howOften}</Text>

@@ -250,7 +250,7 @@ describe('review list, review mark and release', () => {
 
     const preview = await as.physio.get(`/api/assessments/${screen.assessmentId}/release-preview`);
     expect(preview.body.preview.text).toMatch(
-      /At the screen, Mo said something hurt during: [^.]+\. Until a physiotherapist has seen Mo, the exercises below are done only where they cause no pain\./,
+      /At the screen, Mo said something hurt during: [^.]+\. Until a physiotherapist has seen Mo, the exercises of this plan are done only where they cause no pain\./,
     );
 
     // The stop notices of capture, the round list and the athlete page read it from the clearances' answer;

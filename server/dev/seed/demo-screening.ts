@@ -28,6 +28,11 @@ export const DEMO_OPEN_ROUND = { name: 'Winter check', screenedOn: '2026-12-01' 
 /** In each squad's newest past round, these athletes (by roster position) are not finished yet. */
 const NEWEST_IN_PROGRESS = [8];
 const NEWEST_NOT_STARTED = [9, 10, 11];
+/**
+ * In the second squad's newest past round, the athlete at this roster position said the drop landing hurt,
+ * and no physiotherapist has seen them since: the demo's one screen waiting for a clearance.
+ */
+const NEWEST_PAIN = 5;
 
 type Tendency = 'valgus-improving' | 'valgus-persisting' | 'pelvic-drop-persisting' | 'pelvic-drop-cleared' | 'stiff-ankles' | 'trunk-lean' | 'clean';
 
@@ -312,6 +317,10 @@ export async function seedDemoScreening(db: Db, ids: Pick<DemoIds, 'clubId' | 's
           // Drawn for everyone, so an athlete's numbers do not depend on who else was screened.
           const draft = demoDraft(a, profiles[i]!, round, rand, ageYears);
           if (newest && NEWEST_NOT_STARTED.includes(i)) continue;
+          if (newest && s === 1 && i === NEWEST_PAIN) {
+            const { skipped: _skipped, skipReason: _reason, ...landing } = draft.tasks['drop-landing'] ?? { criteria: [] };
+            draft.tasks['drop-landing'] = { ...landing, painReported: true };
+          }
           if (newest && NEWEST_IN_PROGRESS.includes(i)) {
             await tester.saveDraft(assessmentId, 0, validateDraft(partOf(draft)));
             continue;
