@@ -135,7 +135,7 @@ describe('filters, sorting and the CSV rows agree', () => {
     expect(filterAthletes([growing], { flag: 'any' })).toEqual([]);
     expect(filterAthletes([growing], { flag: 'none' })).toEqual([growing]);
     expect(filterAthletes([growing], { flag: 'growth-spurt-window' })).toEqual([growing]);
-    expect(sortAthletes([rows[0]!, growing], 'flags').map((a) => a.firstName)).toEqual(['Gus', 'Ana']);
+    expect(sortAthletes([rows[0]!, growing], 'flags').map((a) => a.firstName)).toEqual(['Ana', 'Gus']);
   });
 
   it('sorts re-screens the longest overdue first, then the next due, then those not to be screened (our choice)', () => {
@@ -150,7 +150,8 @@ describe('filters, sorting and the CSV rows agree', () => {
   it('sorts, never-screened last by days', () => {
     expect(sortAthletes(rows, 'daysSinceLastScreen').map((a) => a.firstName)).toEqual(['Ana', 'Ben', 'Cai']);
     expect(sortAthletes(rows, 'name', true).map((a) => a.firstName)).toEqual(['Cai', 'Ben', 'Ana']);
-    expect(sortAthletes(rows, 'flags', true)[0]!.firstName).toBe('Ana');
+    // Most flags first (our choice); the other way round on a second tap.
+    expect(sortAthletes(rows, 'flags')[0]!.firstName).toBe('Ana');
   });
 
   it('sorts by the share of sessions taken part in since the screen, lowest first, nothing to count last (our choice)', () => {
@@ -175,6 +176,10 @@ describe('filters, sorting and the CSV rows agree', () => {
     const referred = athlete({ firstName: 'Fay', lastName: 'Fox', clearance: 'referred' });
     expect([waiting, referred, rows[0]!].map(clearanceWords)).toEqual(['Pain reported: waiting for clearance', 'Refer on', null]);
     expect(sortAthletes([rows[0]!, referred, waiting], 'clearance').map((a) => a.firstName)).toEqual(['Eli', 'Fay', 'Ana']);
+    // Then by how much is held back: referred on, with changes, cleared, no decision.
+    const modified = athlete({ firstName: 'Gil', lastName: 'Gao', clearance: 'modified' });
+    const cleared = athlete({ firstName: 'Hal', lastName: 'Ho', clearance: 'cleared' });
+    expect(sortAthletes([cleared, rows[0]!, modified, referred, waiting], 'clearance').map((a) => a.firstName)).toEqual(['Eli', 'Fay', 'Gil', 'Hal', 'Ana']);
     expect(csvRows([waiting])[1]![5]).toBe('Pain reported: waiting for clearance');
   });
 

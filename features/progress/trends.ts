@@ -195,6 +195,7 @@ export function sessionShare(a: Pick<TrendAthlete, 'sessionsSinceScreen'>): numb
 }
 
 const BAND_ORDER: Record<string, number> = { pre: 0, circa: 1, post: 2 };
+const CLEARANCE_ORDER: Record<string, number> = { referred: 1, modified: 2, cleared: 3 };
 
 function sortValue(a: TrendAthlete, key: SortKey): string | number {
   switch (key) {
@@ -205,7 +206,8 @@ function sortValue(a: TrendAthlete, key: SortKey): string | number {
     case 'maturityBand':
       return a.maturityBand ? BAND_ORDER[a.maturityBand]! : 9;
     case 'flags':
-      return movementPatterns(a.latestFlags).length;
+      // Most flags first (our choice: the first tap answers "who needs work most").
+      return -movementPatterns(a.latestFlags).length;
     case 'daysSinceLastScreen':
       return a.daysSinceLastScreen ?? Number.MAX_SAFE_INTEGER;
     case 'rescreenDue':
@@ -214,8 +216,9 @@ function sortValue(a: TrendAthlete, key: SortKey): string | number {
       if (!a.takingPart) return '2';
       return a.rescreenDue ? `0 ${a.rescreenDate ?? ''}` : `1 ${a.rescreenDate ?? '~'}`;
     case 'clearance':
-      // Waiting for a clearance first: loaded and landing work are on hold (our choice).
-      return a.awaitingClearance ? '!' : (a.clearance ?? '~');
+      // The most held back first: pain waiting for a clearance, referred on, training with changes, cleared,
+      // then no decision (our choice).
+      return a.awaitingClearance ? 0 : a.clearance ? (CLEARANCE_ORDER[a.clearance] ?? 8) : 9;
     case 'sessions':
       // Lowest share first: who is missing the corrective work (our choice); nothing to count goes last.
       return sessionShare(a) ?? 2;

@@ -48,11 +48,15 @@ export function progressRouter(db: Db) {
   router.get('/squads/:id/trends', guard('trends.read', on('squad')), async (req, res) => {
     const format = req.query.format ?? 'json';
     if (format !== 'json' && format !== 'csv') throw badRequest('Unknown format.', { format: 'Choose json or csv.' });
-    const trends = await progressService(db, scopeOf(res)).squadTrends(idOf(res), todayIso(), filtersOf(req.query));
+    const filters = filtersOf(req.query);
+    const trends = await progressService(db, scopeOf(res)).squadTrends(idOf(res), todayIso(), filters);
     if (format === 'csv') {
-      const name = trends.squad.name.replace(/[^A-Za-z0-9-]+/g, '-').replace(/^-|-$/g, '') || 'squad';
+      const safe = (s: string) => s.replace(/[^A-Za-z0-9-]+/g, '-').replace(/^-|-$/g, '');
+      const name = safe(trends.squad.name) || 'squad';
+      // A filtered table says so in its name, and does not replace the whole squad's file (our choice).
+      const narrowed = FILTER_KEYS.filter((k) => filters[k]).map((k) => safe(String(filters[k])));
       res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-      res.setHeader('Content-Disposition', `attachment; filename="${name}-trends-${trends.today}.csv"`);
+      res.setHeader('Content-Disposition', `attachment; filename="${name}-trends-${trends.today}${narrowed.length ? `-only-${narrowed.join('-')}` : ''}.csv"`);
       res.send(stringify(csvRows(trends.athletes, trends)));
       return;
     }

@@ -248,7 +248,10 @@ describe('GET /api/squads/:id/trends', () => {
     expect(flagged.body.athletes.map((a: { firstName: string }) => a.firstName)).toEqual(['Bea']);
     const csv = await as.coach.get(`/api/squads/${ids.squad}/trends?format=csv&flag=none`).expect(200);
     expect(csv.headers['content-type']).toMatch(/^text\/csv/);
-    expect(csv.headers['content-disposition']).toMatch(/attachment; filename="Under-13-Girls-trends-\d{4}-\d{2}-\d{2}\.csv"/);
+    // The filter in the file's name (our choice): it does not replace the whole squad's file.
+    expect(csv.headers['content-disposition']).toMatch(/attachment; filename="Under-13-Girls-trends-\d{4}-\d{2}-\d{2}-only-none\.csv"/);
+    const whole = await as.coach.get(`/api/squads/${ids.squad}/trends?format=csv`).expect(200);
+    expect(whole.headers['content-disposition']).toMatch(/attachment; filename="Under-13-Girls-trends-\d{4}-\d{2}-\d{2}\.csv"/);
     const lines = csv.text.trim().split('\n');
     expect(lines[0]).toBe(
       'last_name,first_name,sex,age_group,maturity_band,clearance,flags_left,flags_right,flags_both_or_unsided,last_screened_on,days_since_last_screen,rescreen_date,rescreen_due,sessions_since_screen_taken_part,sessions_since_screen_held,knee_angles_from_round,knee_angle_deg_single_leg_squat_right_right_knee',

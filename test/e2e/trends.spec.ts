@@ -81,7 +81,7 @@ test('squad trends: load, filter, sort, CSV, charts', async ({ page }, info) => 
 
   // CSV of the filtered table: the same athletes, one line each after the header.
   const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('download-csv').click()]);
-  expect(download.suggestedFilename()).toMatch(/-trends-\d{4}-\d{2}-\d{2}\.csv$/);
+  expect(download.suggestedFilename()).toMatch(/-trends-\d{4}-\d{2}-\d{2}-only-[A-Za-z0-9-]+\.csv$/);
   const csv = fs
     .readFileSync((await download.path())!, 'utf8')
     .trim()

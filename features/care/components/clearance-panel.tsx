@@ -38,6 +38,8 @@ const holdChoiceOf = (holds: readonly ClearanceHold[]): HoldChoice =>
   holds.includes('loaded') ? (holds.includes('landing') ? 'both' : 'loaded') : holds.includes('landing') ? 'landing' : 'none';
 
 /** The clearance in force, and for a physiotherapist the form to record a new decision. */
+const DETAIL_HINT = "Read by the club's coaches and testers (training sheet, athlete page), never by the family: the family reads the decision only.";
+
 export function ClearancePanel({ athleteId }: { athleteId: string }) {
   const { membership } = useActiveClub();
   const clearance = useClearanceOf(athleteId);
@@ -113,11 +115,16 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
               multiline
               numberOfLines={3}
               style={styles.detail}
-              hint="Read by the club's coaches and testers (training sheet, athlete page), never by the family: the family reads the decision only."
+              hint={`${DETAIL_HINT}${form.values.detail.length > 800 ? ` ${form.values.detail.length} of 1000 characters.` : ''}`}
               testID="clearance-detail"
               value={form.values.detail}
               onChangeText={form.handleChange('detail')}
-              error={form.submitCount > 0 && form.touched.detail && form.errors.detail}
+              // The error keeps the hint's words: who reads this matters most when it is long.
+              error={
+                form.submitCount > 0 && form.touched.detail && form.errors.detail
+                  ? `${form.errors.detail} (${form.values.detail.length} now.) ${DETAIL_HINT}`
+                  : false
+              }
             />
           ) : null}
           {form.values.status === 'cleared' && clearance && (clearance.status === 'referred' || held.length > 0) ? (

@@ -9,14 +9,17 @@ import { formatDate } from '@/features/ui/format-date';
 import { PRINT_KEEP } from '@/features/ui/print';
 import { capitalise } from '@/features/ui/capitalise';
 
-/** "Due since Jul 20, 2026" (how long overdue), "Due · in Winter check" planned, "Due" never screened, "from Jan 16, 2027" not yet. */
+/**
+ * "Due since Jul 20, 2026" (how long overdue), "Due since Jul 20, 2026 · planned" when waiting in an open
+ * round (the round's name did not fit the column), "Due" never screened, "from Jan 16, 2027" not yet.
+ */
 function rescreenCell(a: TrendAthlete): string {
   // Short: the column is narrow (the CSV and the athlete's page say it in full).
   if (!a.takingPart) return a.screeningRefused ? 'Family said no' : 'No consent yet';
   if (!a.rescreenDue) return `from ${a.rescreenDate ? formatDate(a.rescreenDate) : '–'}`;
   // Already waiting in an open round: planned, not forgotten.
-  if (a.openRound) return `Due · in ${a.openRound.length > 16 ? `${a.openRound.slice(0, 15)}…` : a.openRound}`;
-  return a.rescreenDate ? `Due since ${formatDate(a.rescreenDate)}` : 'Due';
+  const due = a.rescreenDate ? `Due since ${formatDate(a.rescreenDate)}` : 'Due';
+  return a.openRound ? `${due} · planned` : due;
 }
 
 /** Red only for a re-screen due that no open round has planned yet. */

@@ -36,6 +36,8 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
     if (t?.skipped) {
       state = 'skipped';
       lines.push(`Skipped${t.skipReason ? `: ${t.skipReason}` : ''}`);
+      // The task asks for the reason, for the record: its absence is listed with what is missing.
+      if (!t.skipReason?.trim()) missing.push(`${task.title}: why it was skipped`);
     } else if (t) {
       state = 'done';
       lines.push(t.criteria.length === 0 ? 'Nothing ticked' : `${t.criteria.length} ticked`);
