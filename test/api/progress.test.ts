@@ -264,6 +264,33 @@ describe('GET /api/squads/:id/trends', () => {
     ]);
   });
 
+  // our choice: the home's numbers are the trends table summed (features/progress/watch.ts).
+  it("sums each squad's trends for the head coach's home, and refuses families", async () => {
+    const trends = (await as.coach.get(`/api/squads/${ids.squad}/trends`).expect(200)).body as {
+      athletes: { firstName: string; clearance: string | null; rescreenDue: boolean }[];
+    };
+    // Worked from the table above: Bea trains with changes; Cai's re-screen is due, Ana's is not; nobody
+    // waits for a clearance, is referred or in the growth-spurt window; no open round plans a re-screen.
+    expect(trends.athletes.map((a) => [a.firstName, a.clearance, a.rescreenDue])).toEqual([
+      ['Ana', null, false],
+      ['Bea', 'modified', expect.any(Boolean)],
+      ['Cai', null, true],
+    ]);
+    const watch = await as.coach.get('/api/trends/watch').expect(200);
+    const mine = watch.body.squads.find((w: { squadId: string }) => w.squadId === ids.squad);
+    expect(mine).toEqual({
+      squadId: ids.squad,
+      name: 'Under 13 Girls',
+      painWaiting: 0,
+      referred: 0,
+      withChanges: 1,
+      growthSpurt: 0,
+      rescreenDue: trends.athletes.filter((a) => a.rescreenDue).length,
+      rescreenPlanned: 0,
+    });
+    await as.parent.get('/api/trends/watch').expect(403);
+  });
+
   it('refuses unknown filters and formats with a 400 naming the field', async () => {
     const bad = await as.coach.get(`/api/squads/${ids.squad}/trends?sex=other&flag=x`).expect(400);
     expect(bad.body.error.code).toBe('invalid_input');

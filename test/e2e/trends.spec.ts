@@ -197,3 +197,28 @@ test('athlete history: charts with threshold and error band, and the last two sc
   await chart.scrollIntoViewIfNeeded();
   await page.screenshot({ path: `test-results/athlete-chart-${info.project.name}.png` });
 });
+
+// our choice: the head coach's home says, per squad, what to act on (the trends table summed), with the
+// way to that squad's trends. The demo's second squad has one athlete whose pain waits for a physiotherapist.
+test("the head coach's home says what to act on in each squad, as the trends table counts it", async ({ page }, info) => {
+  await signIn(page, 'coach@squadline.test');
+  await expect(page.getByTestId('home-head_coach')).toBeVisible();
+  const watch = (await (await page.request.get('/api/trends/watch')).json()) as {
+    squads: { squadId: string; name: string; painWaiting: number; referred: number }[];
+  };
+  expect(watch.squads.length).toBeGreaterThan(0);
+  await expect(page.getByTestId('squad-watch')).toBeVisible();
+  for (const w of watch.squads) {
+    const card = page.getByTestId(`squad-watch-${w.squadId}`);
+    if (w.painWaiting) await expect(card).toContainText(`${w.painWaiting} with pain reported, waiting for a physiotherapist`);
+    if (w.referred) await expect(card).toContainText(`${w.referred} referred on`);
+    // The numbers are the trends table's.
+    const trends = (await (await page.request.get(`/api/squads/${w.squadId}/trends`)).json()) as { athletes: { awaitingClearance: boolean }[] };
+    expect(trends.athletes.filter((a) => a.awaitingClearance).length).toBe(w.painWaiting);
+  }
+  expect(watch.squads.some((w) => w.painWaiting > 0)).toBe(true);
+  const first = watch.squads[0]!;
+  await page.getByTestId(`squad-watch-${first.squadId}`).getByRole('link').click();
+  await expect(page).toHaveURL(new RegExp(`/trends\\?squad=${first.squadId}`));
+  await page.screenshot({ path: info.outputPath('trends-from-home.png') });
+});

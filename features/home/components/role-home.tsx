@@ -5,6 +5,7 @@ import { ageInYears, todayIso } from '@/features/athletes/age';
 import { useAthletesQuery } from '@/features/athletes/api/get-athletes';
 import { ReviewsTeaser } from '@/features/care/components/reviews-teaser';
 import { OpenRounds } from '@/features/screening/components/open-rounds';
+import { LazySquadWatch } from '@/features/progress/components/lazy-squad-watch';
 import { useActiveClub } from '@/features/session/active-club';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
@@ -57,8 +58,12 @@ export function RoleHome() {
           <SquadCards />
         </>
       ) : membership.role === 'tester' || membership.role === 'head_coach' ? (
-        // The squads with their open screening rounds and a way straight back in.
-        <OpenRounds />
+        // The squads with their open screening rounds and a way straight back in; for the head coach, below
+        // them (arriving later, it moves nothing above), what to act on in each squad.
+        <>
+          <OpenRounds />
+          {membership.role === 'head_coach' ? <LazySquadWatch /> : null}
+        </>
       ) : (
         <>
           <SquadCards />

@@ -5,6 +5,7 @@ export const progressKeys = {
   club: (clubId: string) => [...progressKeys.root, clubId] as const,
   athlete: (clubId: string, athleteId: string) => [...progressKeys.club(clubId), 'athlete', athleteId] as const,
   trends: (clubId: string, squadId: string) => [...progressKeys.club(clubId), 'trends', squadId] as const,
+  watch: (clubId: string) => [...progressKeys.club(clubId), 'watch'] as const,
 };
 /** Screens arrive a few times a season: a minute is fresh enough. */
 export const PROGRESS_STALE_MS = 60 * 1000;

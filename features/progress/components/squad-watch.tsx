@@ -1,0 +1,53 @@
+import { useQuery } from '@tanstack/react-query';
+import { Link } from 'expo-router';
+import { StyleSheet, View } from 'react-native';
+import { api } from '@/features/api/client';
+import { useActiveClub } from '@/features/session/active-club';
+import { Card } from '@/features/ui/components/card';
+import { Text } from '@/features/ui/components/text';
+import { colors, space, TOUCH_MIN } from '@/features/ui/theme';
+import { progressKeys, PROGRESS_STALE_MS } from '../api/keys';
+import { watchLines, type SquadWatch } from '../watch';
+
+/**
+ * The head coach's home, below the rounds: each squad in a few lines (pain waiting, referrals, the
+ * physiotherapist's changes, the growth-spurt window, re-screens due), with the way to its trends.
+ */
+export function SquadWatchCard() {
+  const { membership } = useActiveClub();
+  const query = useQuery({
+    queryKey: progressKeys.watch(membership.clubId),
+    queryFn: () => api<{ squads: SquadWatch[] }>('/trends/watch'),
+    staleTime: PROGRESS_STALE_MS,
+  });
+  if (!query.data || query.data.squads.length === 0) return null;
+  return (
+    <Card testID="squad-watch">
+      <Text variant="heading">What to act on</Text>
+      {query.data.squads.map((w) => {
+        const lines = watchLines(w);
+        return (
+          <View key={w.squadId} style={styles.squad} testID={`squad-watch-${w.squadId}`}>
+            <Text variant="label">{w.name}</Text>
+            {lines.length === 0 ? <Text variant="small">Nothing waiting: no pain undecided, no referral, no re-screen due.</Text> : null}
+            {lines.map((l) => (
+              <Text key={l.text} style={l.stop ? styles.stop : undefined}>
+                {`• ${l.text}`}
+              </Text>
+            ))}
+            <Link href={`/trends?squad=${w.squadId}`} style={styles.link}>
+              <Text variant="label" style={styles.linkText}>{`${w.name}: trends and who →`}</Text>
+            </Link>
+          </View>
+        );
+      })}
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  squad: { gap: space.xs, paddingTop: space.sm },
+  stop: { color: colors.brick, fontWeight: '700' },
+  link: { minHeight: TOUCH_MIN, justifyContent: 'center', display: 'flex' },
+  linkText: { color: colors.pine },
+});
