@@ -54,14 +54,25 @@ export function AthleteProfile({ id }: { id: string }) {
         </View>
         {isStaff(membership.role) ? <HoldLine athlete={a} /> : null}
         {isStaff(membership.role) ? (
-          // The physiotherapist's decision and the notes sit below the history's charts: one tap away.
-          <Button
-            tone="quiet"
-            label="Clearance and notes ↓"
-            onPress={() => scrollToId(ATHLETE_CARE_ANCHOR, true, true)}
-            testID="to-athlete-care"
-            style={styles.toCare}
-          />
+          // The physiotherapist's decision, the notes and the list of screenings sit below the history's
+          // charts: one tap away. (The screenings' anchor is written out: importing it from the screening
+          // feature would bring that module into this page's first download.)
+          <View style={styles.jumps}>
+            <Button
+              tone="quiet"
+              label="Clearance and notes ↓"
+              onPress={() => scrollToId(ATHLETE_CARE_ANCHOR, true, true)}
+              testID="to-athlete-care"
+              style={styles.toCare}
+            />
+            <Button
+              tone="quiet"
+              label="Screenings ↓"
+              onPress={() => scrollToId('athlete-screenings', true, true)}
+              testID="to-athlete-screenings"
+              style={styles.toCare}
+            />
+          </View>
         ) : null}
       </View>
       <View style={[styles.cols, isTabletUp && styles.colsWide]}>
@@ -156,6 +167,7 @@ const styles = StyleSheet.create({
   archivedText: { color: colors.amber, fontFamily: fonts.bold },
   cols: { gap: space.lg },
   toCare: { alignSelf: 'flex-start' },
+  jumps: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.md },
   trailLink: { minHeight: TOUCH_MIN, paddingVertical: space.md },
   colsWide: { flexDirection: 'row', alignItems: 'flex-start' },
   col: { flexGrow: 1, flexBasis: 0, minWidth: 0 },

@@ -3,6 +3,7 @@ import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { api } from '@/features/api/client';
 import { useActiveClub } from '@/features/session/active-club';
+import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Card } from '@/features/ui/components/card';
 import { Text } from '@/features/ui/components/text';
 import { colors, space, TOUCH_MIN } from '@/features/ui/theme';
@@ -15,6 +16,7 @@ import { watchLines, type SquadWatch } from '../watch';
  */
 export function SquadWatchCard() {
   const { membership } = useActiveClub();
+  const { isTabletUp } = useBreakpoints();
   const query = useQuery({
     queryKey: progressKeys.watch(membership.clubId),
     queryFn: () => api<{ squads: SquadWatch[] }>('/trends/watch'),
@@ -24,29 +26,34 @@ export function SquadWatchCard() {
   return (
     <Card testID="squad-watch">
       <Text variant="heading">What to act on</Text>
-      {query.data.squads.map((w) => {
-        const lines = watchLines(w);
-        return (
-          <View key={w.squadId} style={styles.squad} testID={`squad-watch-${w.squadId}`}>
-            <Text variant="label">{w.name}</Text>
-            {lines.length === 0 ? <Text variant="small">Nothing waiting: no pain undecided, no referral, no re-screen due.</Text> : null}
-            {lines.map((l) => (
-              <Text key={l.text} style={l.stop ? styles.stop : undefined}>
-                {`• ${l.text}`}
-              </Text>
-            ))}
-            <Link href={`/trends?squad=${w.squadId}`} style={styles.link}>
-              <Text variant="label" style={styles.linkText}>{`${w.name}: trends and who →`}</Text>
-            </Link>
-          </View>
-        );
-      })}
+      {/* Squads side by side on a wide screen, as the round cards above them. */}
+      <View style={isTabletUp ? styles.grid : undefined}>
+        {query.data.squads.map((w) => {
+          const lines = watchLines(w);
+          return (
+            <View key={w.squadId} style={[styles.squad, isTabletUp && styles.cell]} testID={`squad-watch-${w.squadId}`}>
+              <Text variant="label">{w.name}</Text>
+              {lines.length === 0 ? <Text variant="small">Nothing waiting: no pain undecided, no referral, no re-screen due.</Text> : null}
+              {lines.map((l) => (
+                <Text key={l.text} style={l.stop ? styles.stop : undefined}>
+                  {`• ${l.text}`}
+                </Text>
+              ))}
+              <Link href={`/trends?squad=${w.squadId}`} style={styles.link}>
+                <Text variant="label" style={styles.linkText}>{`${w.name}: trends and who →`}</Text>
+              </Link>
+            </View>
+          );
+        })}
+      </View>
     </Card>
   );
 }
 
 const styles = StyleSheet.create({
   squad: { gap: space.xs, paddingTop: space.sm },
+  grid: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg },
+  cell: { flexBasis: 280, flexGrow: 1, flexShrink: 1 },
   stop: { color: colors.brick, fontWeight: '700' },
   link: { minHeight: TOUCH_MIN, justifyContent: 'center', display: 'flex' },
   linkText: { color: colors.pine },

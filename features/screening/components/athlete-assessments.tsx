@@ -1,10 +1,12 @@
 import { can } from '@/features/access/permissions';
 import { Link } from 'expo-router';
+import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useAthleteAssessmentsQuery } from '@/features/screening/api/get-athlete-assessments';
 import type { AthleteAssessmentItem } from '@/features/screening/contract';
 import type { Flag } from '@/features/screening/engine';
 import { useActiveClub } from '@/features/session/active-club';
+import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
@@ -47,20 +49,35 @@ export function AthleteAssessments({ athleteId }: { athleteId: string }) {
   return <AssessmentList athleteId={athleteId} screens={can(membership.role, 'screening.write')} />;
 }
 
+/** Where "Screenings ↓" under the athlete's name leads. */
+export const ATHLETE_SCREENINGS_ANCHOR = 'athlete-screenings';
+
 function AssessmentList({ athleteId, screens }: { athleteId: string; screens: boolean }) {
   const query = useAthleteAssessmentsQuery(athleteId);
+  const [showAll, setShowAll] = useState(false);
+  const all = query.data?.assessments.slice().sort(newestFirst) ?? [];
+  // Rounds the athlete is in but not screened yet say little each: one line, opened on a tap (they buried
+  // the screens that were done).
+  const notStarted = all.filter((a) => a.status === 'not_started');
+  const shown = showAll ? all : all.filter((a) => a.status !== 'not_started');
   return (
-    <Card testID="athlete-assessments">
-      <Text variant="heading" accessibilityRole="header" aria-level={2}>
-        Screenings
-      </Text>
-      {query.isPending ? <Text>Loading screenings…</Text> : null}
-      {query.error ? <Notice tone="error">{query.error.message}</Notice> : null}
-      {query.data?.assessments.length === 0 ? <Text>No screening yet.</Text> : null}
-      {query.data?.assessments
-        .slice()
-        .sort(newestFirst)
-        .map((a) => {
+    <View nativeID={ATHLETE_SCREENINGS_ANCHOR}>
+      <Card testID="athlete-assessments">
+        <Text variant="heading" accessibilityRole="header" aria-level={2}>
+          Screenings
+        </Text>
+        {query.isPending ? <Text>Loading screenings…</Text> : null}
+        {query.error ? <Notice tone="error">{query.error.message}</Notice> : null}
+        {query.data?.assessments.length === 0 ? <Text>No screening yet.</Text> : null}
+        {notStarted.length > 0 && !showAll ? (
+          <Button
+            tone="quiet"
+            label={`Also in ${notStarted.length} ${notStarted.length === 1 ? 'round' : 'rounds'} not started yet: show ${notStarted.length === 1 ? 'it' : 'them'}`}
+            onPress={() => setShowAll(true)}
+            testID="athlete-assessments-not-started"
+          />
+        ) : null}
+        {shown.map((a) => {
           const inner = (
             <View style={styles.inner}>
               <View style={styles.head}>
@@ -100,7 +117,8 @@ function AssessmentList({ athleteId, screens }: { athleteId: string; screens: bo
             </Link>
           );
         })}
-    </Card>
+      </Card>
+    </View>
   );
 }
 
