@@ -149,6 +149,8 @@ test('a whole round screened with no connection syncs once, in order, without du
   await page.getByTestId('submit-assessment').click();
   await expect(page).toHaveURL(new RegExp(`/screening/rounds/${round.round.id}$`));
   await expect(page.getByTestId(`round-athlete-${first!.athleteId}`)).toContainText('Submitted on this phone · waiting to send');
+  // The round's count says it the same way, not "in progress".
+  await expect(page.getByText(/1 submitted on this phone, waiting to send/)).toBeVisible();
 
   // Second athlete: measurements and two photos, not submitted.
   await page.getByTestId(`round-athlete-${second!.athleteId}`).click();

@@ -177,7 +177,12 @@ export function RoundScreen({ id }: { id: string }) {
           {data ? data.round.name : PAGE_HEADS.round.title}
         </Text>
         <Text>{PAGE_HEADS.round.text}</Text>
-        {data ? <RoundProgress round={data.round} /> : null}
+        {data ? (
+          <RoundProgress
+            round={data.round}
+            waiting={data.athletes.filter((a) => waitingSubmit.has(a.assessmentId) && a.status !== 'submitted').map((a) => a.status)}
+          />
+        ) : null}
       </View>
     </>
   );

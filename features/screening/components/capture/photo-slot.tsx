@@ -8,6 +8,7 @@ import { pickPhoto } from '@/features/screening/photos/pick-photo';
 import { scalePhoto } from '@/features/screening/photos/scale-photo';
 import { slotOf } from '@/features/screening/photos/upload-queue';
 import { uploadQueue } from '@/features/screening/photos/upload-registry';
+import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
@@ -43,6 +44,7 @@ const VIEW_WORD = { front: 'Front', side: 'Side' } as const;
 /** One photo of a task: take or choose it, see it upload, retry, then place its landmarks. */
 export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onNewPhoto, onPlaceLandmarks, armed = false, onPicked }: Props) {
   const slot = slotOf(taskId, spec.view);
+  const { isTabletUp } = useBreakpoints();
   const item = useUploadItem(assessmentId, slot);
   const [preparing, setPreparing] = useState(false);
   const [pickError, setPickError] = useState<string | null>(null);
@@ -110,7 +112,12 @@ export function PhotoSlot({ assessmentId, taskId, spec, photo, placed, onNewPhot
       {shown ? (
         <Image
           source={{ uri: shown.uri }}
-          style={[styles.preview, { aspectRatio: shown.w / Math.max(shown.h, 1) }, (uploading || waiting || failed) && styles.previewPending]}
+          style={[
+            styles.preview,
+            { aspectRatio: shown.w / Math.max(shown.h, 1) },
+            !isTabletUp && styles.previewPhone,
+            (uploading || waiting || failed) && styles.previewPending,
+          ]}
           resizeMode="contain"
           accessibilityLabel={`${title} of the task`}
         />
@@ -191,6 +198,9 @@ const styles = StyleSheet.create({
   slot: { gap: space.sm, padding: space.md, borderRadius: radius.md, borderWidth: 1, borderColor: colors.line, backgroundColor: colors.surface },
   slotArmed: { borderWidth: 3, borderColor: colors.pine },
   preview: { width: '100%', maxHeight: 320, borderRadius: radius.sm, backgroundColor: '#222' },
+  // On a phone a taken photo is a check that it is there and sharp, not where points are placed: half the
+  // height keeps the ticks below it about a screen nearer (our choice).
+  previewPhone: { maxHeight: 160 },
   previewPending: { opacity: 0.6 },
   progress: { gap: space.xs },
   actions: { gap: space.sm },
