@@ -267,7 +267,9 @@ function Desk({ roundId }: { roundId?: string }) {
             }}
             shortcuts={isWide}
           />
-          <View style={[styles.actions, !isWide && Platform.OS === 'web' && styles.actionsPinned]}>
+          {/* Kept in sight at the bottom of the window at every width: at 1440x900 the photo ran below the
+              fold and the button with it. */}
+          <View style={[styles.actions, Platform.OS === 'web' && styles.actionsPinned]}>
             {/* Beside the button that was pressed: at the top of the page it was out of sight on a phone. */}
             {error ? (
               <View style={styles.errorRow} nativeID={ERROR_ANCHOR}>
