@@ -106,7 +106,13 @@ export function FlagShareChart({ rounds: all, title, testID }: { rounds: TrendRo
               {roundDateAxis(rounds, width)}
               <VictoryAxis dependentAxis offsetX={42} tickValues={[0, 0.25, 0.5, 0.75, 1]} tickFormat={(v: number) => `${v * 100}%`} style={AXIS_STYLE} />
               {patterns.map((p, k) => (
-                <VictoryLine key={p} data={shareSeries(rounds, p, k, patterns.length)} style={{ data: { stroke: PATTERN_COLOURS[p], strokeWidth: 2 } }} />
+                <VictoryLine
+                  key={p}
+                  data={shareSeries(rounds, p, k, patterns.length)}
+                  // The growth-spurt window is a stage of growing, not a movement fault: dashed, and said so
+                  // in the key (its rise over a season is children growing, not the work failing).
+                  style={{ data: { stroke: PATTERN_COLOURS[p], strokeWidth: 2, ...(p === 'growth-spurt-window' ? { strokeDasharray: '5,4' } : {}) } }}
+                />
               ))}
               {patterns.map((p, k) => (
                 <VictoryScatter key={`${p}-dots`} data={shareSeries(rounds, p, k, patterns.length)} size={3} style={{ data: { fill: PATTERN_COLOURS[p] } }} />
@@ -116,7 +122,7 @@ export function FlagShareChart({ rounds: all, title, testID }: { rounds: TrendRo
               {patterns.map((p) => (
                 <View key={p} style={styles.legendItem}>
                   <View style={[styles.swatch, { backgroundColor: PATTERN_COLOURS[p] }]} />
-                  <Text variant="small">{PATTERN_SHORT[p]}</Text>
+                  <Text variant="small">{p === 'growth-spurt-window' ? `${PATTERN_SHORT[p]} (a stage of growth, dashed)` : PATTERN_SHORT[p]}</Text>
                 </View>
               ))}
             </View>
