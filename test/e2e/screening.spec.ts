@@ -247,6 +247,9 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   const ours = history.locator('[data-testid^="athlete-assessment-"]').filter({ hasText: roundName });
   await expect(ours).toContainText('Submitted');
   await expect(ours).toContainText(/Watch|Concern/);
+  // Rounds not started yet are folded into one line; opened, every round is listed, newest first.
+  const folded = history.getByTestId('athlete-assessments-not-started');
+  if (await folded.isVisible()) await folded.click();
   await expect(history).toContainText('Autumn check');
   const items = await history.locator('[data-testid^="athlete-assessment-"]').allInnerTexts();
   expect(items.findIndex((t) => t.includes(roundName))).toBeLessThan(items.findIndex((t) => t.includes('Autumn check')));

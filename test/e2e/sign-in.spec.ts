@@ -21,7 +21,7 @@ for (const { email, role, heading } of ROLES) {
       await expect(page.getByTestId('child-card')).toHaveCount(2);
       await expect(page.getByText('Maya Okafor')).toBeVisible();
     } else {
-      await expect(page.getByText('Under-13 mixed')).toBeVisible();
+      await expect(page.getByText('Under-13 mixed', { exact: true }).first()).toBeVisible();
     }
     // Signing out returns to sign-in, and the home is then out of reach.
     await openNav(page);
