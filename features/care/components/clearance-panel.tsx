@@ -132,6 +132,13 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
               {`This lifts what waits now: ${clearance.status === 'referred' ? 'loaded strength work and landing work' : holdsWords(held).toLowerCase()} come${clearance.status === 'referred' || held.length > 1 ? '' : 's'} back to the plan and the training sheet.`}
             </Text>
           ) : null}
+          {form.values.status === 'referred' ? (
+            // What the family reads of a referral, before it is saved: the decision, not the words above.
+            <Text variant="small" testID="clearance-referral-family">
+              The family&apos;s page will say that you asked for the athlete to be seen by another health professional, with your name and the day, and that
+              loaded and landing work wait; not to whom or why. No e-mail goes out: to tell them more, add a note shared with the family below, or call them.
+            </Text>
+          ) : null}
           {form.status ? <Notice tone="error">{String(form.status)}</Notice> : null}
           {recorded && !form.dirty ? <Notice testID="clearance-recorded">{recorded}</Notice> : null}
           <Button label="Record clearance" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="clearance-save" />
