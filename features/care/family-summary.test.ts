@@ -32,16 +32,19 @@ const input: AssessmentInput = {
 
 describe('buildFamilySummary', () => {
   const result = evaluateAssessment(input);
-  const summary = buildFamilySummary({
-    firstName: 'Kit',
-    clubName: 'Riverside',
-    screenedOn: '2026-09-14',
-    result,
-    exercises: result.plan.exercises,
-    taskIds: Object.keys(input.tasks),
-    block: strengthBlock(result.plan, null, '2026-09-14T17:00:00.000Z'),
-    contactName: 'Phil Physio',
-  });
+  const build = (extra: Partial<Parameters<typeof buildFamilySummary>[0]> = {}) =>
+    buildFamilySummary({
+      firstName: 'Kit',
+      clubName: 'Riverside',
+      screenedOn: '2026-09-14',
+      result,
+      exercises: result.plan.exercises,
+      taskIds: Object.keys(input.tasks),
+      block: strengthBlock(result.plan, null, '2026-09-14T17:00:00.000Z'),
+      contactName: 'Phil Physio',
+      ...extra,
+    });
+  const summary = build();
 
   it('says what was checked and seen in plain words, without numbers of angles or trade terms', () => {
     expect(summary.checked).toEqual(['Two-leg full squat']);
@@ -142,32 +145,11 @@ describe('buildFamilySummary', () => {
   // our choice: the family learns that their child said something hurt, and in which movement; while no
   // physiotherapist has cleared the athlete, what remains is done only where it causes no pain.
   it('says that something hurt, in which movement, and that the rest is done pain-free until a physiotherapist has seen them', () => {
-    const withPain = buildFamilySummary({
-      firstName: 'Kit',
-      clubName: 'Riverside',
-      screenedOn: '2026-09-14',
-      result,
-      exercises: result.plan.exercises,
-      taskIds: Object.keys(input.tasks),
-      block: strengthBlock(result.plan, null, '2026-09-14T17:00:00.000Z'),
-      contactName: null,
-      painTaskIds: ['two-leg-squat'],
-    });
-    expect(withPain.pain).toBe(
+    expect(build({ painTaskIds: ['two-leg-squat'] }).pain).toBe(
       'At the screen, Kit said something hurt during: Two-leg full squat. Until a physiotherapist has seen Kit, the exercises of this plan are done only where they cause no pain.',
     );
     const cleared = { status: 'cleared' as const, detail: '', holds: [], setAt: '2026-09-20T10:00:00.000Z', setByName: 'Phil Physio' };
-    const afterClearance = buildFamilySummary({
-      firstName: 'Kit',
-      clubName: 'Riverside',
-      screenedOn: '2026-09-14',
-      result,
-      exercises: result.plan.exercises,
-      taskIds: Object.keys(input.tasks),
-      block: strengthBlock(result.plan, cleared, '2026-09-14T17:00:00.000Z'),
-      contactName: null,
-      painTaskIds: ['two-leg-squat'],
-    });
+    const afterClearance = build({ painTaskIds: ['two-leg-squat'], block: strengthBlock(result.plan, cleared, '2026-09-14T17:00:00.000Z') });
     expect(afterClearance.pain).toBe('At the screen, Kit said something hurt during: Two-leg full squat.');
     expect(summary.pain).toBeNull();
   });

@@ -19,6 +19,7 @@ import {
   sortAthletes,
   type TrendAthlete,
 } from './trends';
+import { watchLines, watchOf } from './watch';
 
 function athlete(overrides: Partial<TrendAthlete>): TrendAthlete {
   return {
@@ -330,5 +331,32 @@ describe('the change chart first compares the newest two well-filled rounds (our
     expect(defaultRoundPair([round('sep', 12), round('dec', 2)])).toEqual({ from: 'sep', to: 'dec' });
     expect(defaultRoundPair([round('sep', 12)])).toEqual({ from: '', to: 'sep' });
     expect(defaultRoundPair([round('sep', 0)])).toEqual({ from: '', to: '' });
+  });
+});
+
+// our choice: what a head coach acts on first, counted in the trends table's own terms.
+describe('watchOf', () => {
+  it('counts pain waiting, referrals, changes, the growth-spurt window and re-screens due or planned', () => {
+    const w = watchOf('s1', 'Under-13', [
+      athlete({ firstName: 'A', awaitingClearance: true, clearance: 'referred', maturityBand: 'circa', rescreenDue: false }),
+      athlete({ firstName: 'B', clearance: 'referred', rescreenDue: false }),
+      athlete({ firstName: 'C', clearance: 'modified', rescreenDue: true }),
+      athlete({ firstName: 'D', maturityBand: 'circa', rescreenDue: true, openRound: 'Winter check' }),
+      athlete({ firstName: 'E', rescreenDue: true, takingPart: false }),
+      athlete({ firstName: 'F', clearance: 'cleared', maturityBand: 'post', rescreenDue: false }),
+    ]);
+    // A waits for a decision on new pain (counted there, not again as referred); E may not be screened.
+    expect(w).toEqual({ squadId: 's1', name: 'Under-13', painWaiting: 1, referred: 1, withChanges: 1, growthSpurt: 2, rescreenDue: 1, rescreenPlanned: 1 });
+    expect(watchLines(w).map((l) => l.text)).toEqual([
+      '1 with pain reported, waiting for a physiotherapist',
+      '1 referred on by the physiotherapist',
+      "1 training with the physiotherapist's changes",
+      '2 in the growth-spurt window: loads capped, landings halved',
+      '2 due a re-screen (1 already in an open round)',
+    ]);
+  });
+
+  it('says nothing for a squad with nothing waiting', () => {
+    expect(watchLines(watchOf('s2', 'Under-15', [athlete({ rescreenDue: false })]))).toEqual([]);
   });
 });
