@@ -9,6 +9,7 @@ import { forgetPhoto, outbox, photoBlob, registerSender } from '@/features/offli
 import type { ScreeningEntry } from '@/features/offline/outbox';
 import { getAssessment } from '@/features/screening/api/get-assessment';
 import { assessmentKeptKey, roundKeptKey, screeningKeys } from '@/features/screening/api/keys';
+import { careKeys } from '@/features/care/api/keys';
 import { saveDraft, serverDraftFromConflict } from '@/features/screening/api/save-draft';
 import { submitAssessment } from '@/features/screening/api/submit-assessment';
 import { uploadPhoto } from '@/features/screening/api/upload-photo';
@@ -76,6 +77,8 @@ async function sendSubmit(entry: ScreeningEntry, qc: QueryClient) {
     }));
   }
   void qc.invalidateQueries({ queryKey: screeningKeys.club(entry.clubId) });
+  // Pain reported (or not) at this screen changes who waits for a physiotherapist (the stop tags).
+  void qc.invalidateQueries({ queryKey: careKeys.clearances(entry.clubId) });
 }
 
 async function updateKeptSubmitted(assessmentId: string, result: AssessmentDetail['result']): Promise<AssessmentDetail | null> {

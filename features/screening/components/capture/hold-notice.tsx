@@ -2,6 +2,7 @@ import { StyleSheet, View } from 'react-native';
 import { useClearanceOf, usePainWaitingOf } from '@/features/care/api/get-clearances';
 import type { TaskDraft } from '@/features/screening/contract';
 import type { TaskId } from '@/features/screening/engine';
+import { getTask } from '@/features/screening/engine/battery';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
@@ -24,8 +25,29 @@ export function landingHoldReason(firstName: string, clearance: ReturnType<typeo
 }
 
 /**
- * Courtside, where it is read before the athlete moves: on the body step, that the landing task is to be
- * skipped and why; on the landing task itself, not to run it, with one tap to skip it with the reason.
+ * The tasks not to run with this athlete today: the landing task while landing work waits (pain undecided,
+ * a referral, landings held), and every task that hurt at the screen whose pain still waits for a
+ * physiotherapist (our choice: running again what hurt, before anyone has looked, is what the pain box
+ * stops).
+ */
+export function heldTasks(clearance: ReturnType<typeof useClearanceOf>, pain: ReturnType<typeof usePainWaitingOf>, firstName: string): TaskId[] {
+  const out = new Set<TaskId>();
+  if (landingHoldReason(firstName, clearance, pain)) out.add(LANDING_TASK);
+  for (const id of pain?.taskIds ?? []) out.add(id as TaskId);
+  return [...out];
+}
+
+const titleOf = (id: TaskId) => {
+  try {
+    return getTask(id).title;
+  } catch {
+    return id;
+  }
+};
+
+/**
+ * Courtside, where it is read before the athlete moves: on the body step, which tasks to skip and why; on
+ * such a task itself, not to run it, with one tap to skip it with the reason.
  */
 export function CaptureHoldNotice({
   athleteId,
@@ -41,24 +63,28 @@ export function CaptureHoldNotice({
   task?: TaskDraft;
   onSkip?: (reason: string) => void;
 }) {
-  const reason = landingHoldReason(firstName, useClearanceOf(athleteId), usePainWaitingOf(athleteId));
-  if (!reason || (taskId !== null && taskId !== LANDING_TASK)) return null;
+  const clearance = useClearanceOf(athleteId);
+  const pain = usePainWaitingOf(athleteId);
+  const reason = landingHoldReason(firstName, clearance, pain);
+  const held = heldTasks(clearance, pain, firstName);
+  if (!reason || held.length === 0 || (taskId !== null && !held.includes(taskId))) return null;
   if (taskId === null) {
     return (
-      <Notice tone="error" title={`${firstName}: no landing task today`} testID="capture-hold">
-        {`Skip the drop landing: ${reason}. Stop any task that hurts.`}
+      <Notice tone="error" title={`${firstName}: tasks to skip today`} testID="capture-hold">
+        {`Skip ${held.map(titleOf).join(', ')}: ${reason}. Stop any task that hurts.`}
       </Notice>
     );
   }
-  const skipReason = `On hold: ${reason}.`;
+  const hurtHere = pain?.taskIds.includes(taskId) === true;
+  const why = hurtHere ? `it hurt at the screen of ${formatDate(pain!.screenedOn)}, and no physiotherapist has decided since` : reason;
   return (
     <Notice tone="error" title={`Do not run this task with ${firstName}`} testID="capture-hold">
       <View style={styles.body}>
-        <Text>{`Landing work waits: ${reason}.`}</Text>
+        <Text>{hurtHere ? `Not today: ${why}.` : `Landing work waits: ${why}.`}</Text>
         {task?.painReported ? null : task?.skipped ? (
           <Text variant="small">Skipped, with the reason kept.</Text>
         ) : onSkip ? (
-          <Button label="Skip it: on hold" tone="secondary" testID="capture-hold-skip" onPress={() => onSkip(skipReason)} />
+          <Button label="Skip it: on hold" tone="secondary" testID="capture-hold-skip" onPress={() => onSkip(`On hold: ${why}.`)} />
         ) : null}
       </View>
     </Notice>
