@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNull, ne, sql } from 'drizzle-orm';
 import { assessmentResults, assessments, athletes, clearances, rounds, users } from '@/db/schema';
 import { CLEARANCE_HOLDS, type ClearanceHold, type ClearanceStatus } from '@/features/care/choices';
 import type { ClearanceView } from '@/features/care/types';
@@ -30,24 +30,38 @@ export async function latestClearances(db: Executor, athleteIds: readonly string
 }
 
 /**
- * Athletes of the club whose newest submitted screen reported pain and whose plan still waits for a
- * physiotherapist (no clearance recorded since that result, none referring them on): the day of that screen
- * and the tasks in which it hurt. The same rule as `strengthBlock`'s "clearance-needed".
+ * Athletes of the club whose newest submitted screen reported pain, or carried pain from an earlier one
+ * (`options.earlierPain`), and whose plan still waits for a physiotherapist (no clearance recorded since
+ * that result, none referring them on): the day the pain was reported and the tasks in which it hurt. The
+ * same rule as `strengthBlock`'s "clearance-needed". `only` narrows it to one athlete, leaving one
+ * assessment out (the one being submitted).
  */
-export async function painWaiting(db: Executor, clubId: string): Promise<Record<string, { screenedOn: string; taskIds: string[] }>> {
+export async function painWaiting(
+  db: Executor,
+  clubId: string,
+  only?: { athleteId: string; exceptAssessmentId: string },
+): Promise<Record<string, { screenedOn: string; taskIds: string[] }>> {
   const newest = await db
     .selectDistinctOn([assessments.athleteId], {
       athleteId: assessments.athleteId,
-      screenedOn: rounds.screenedOn,
+      screenedOn: sql<string>`coalesce(${assessmentResults.input} #>> '{options,earlierPain,day}', ${rounds.screenedOn}::text)`,
       status: sql<string | null>`${assessmentResults.result} #>> '{plan,status}'`,
       createdAt: assessmentResults.createdAt,
-      taskIds: sql<string[]>`jsonb_path_query_array(${assessmentResults.input}, '$.tasks.keyvalue() ? (@.value.painReported == true).key')`,
+      taskIds: sql<string[]>`jsonb_path_query_array(${assessmentResults.input}, '$.tasks.keyvalue() ? (@.value.painReported == true).key')
+        || coalesce(${assessmentResults.input} #> '{options,earlierPain,taskIds}', '[]'::jsonb)`,
     })
     .from(assessments)
     .innerJoin(rounds, eq(rounds.id, assessments.roundId))
     .innerJoin(athletes, eq(athletes.id, assessments.athleteId))
     .innerJoin(assessmentResults, and(eq(assessmentResults.assessmentId, assessments.id), eq(assessmentResults.isCurrent, true)))
-    .where(and(eq(assessments.clubId, clubId), eq(assessments.status, 'submitted'), isNull(athletes.archivedAt)))
+    .where(
+      and(
+        eq(assessments.clubId, clubId),
+        eq(assessments.status, 'submitted'),
+        isNull(athletes.archivedAt),
+        only ? and(eq(assessments.athleteId, only.athleteId), ne(assessments.id, only.exceptAssessmentId)) : undefined,
+      ),
+    )
     .orderBy(assessments.athleteId, desc(rounds.screenedOn), desc(assessmentResults.createdAt));
   const waiting = newest.filter((r) => r.status === 'clearance-needed');
   const decided = await latestClearances(
@@ -60,7 +74,7 @@ export async function painWaiting(db: Executor, clubId: string): Promise<Record<
         const c = decided.get(r.athleteId);
         return !c || (c.status !== 'referred' && c.setAt < r.createdAt.toISOString());
       })
-      .map((r) => [r.athleteId, { screenedOn: r.screenedOn, taskIds: r.taskIds }]),
+      .map((r) => [r.athleteId, { screenedOn: r.screenedOn, taskIds: [...new Set(r.taskIds)] }]),
   );
 }
 

@@ -37,6 +37,7 @@ import { processPhoto } from './photo-processing';
 import { formatDateInWords } from '@/features/ui/format-date';
 import { enforceLimits, normaliseAdjustment, withServerWords } from './plan-adjustment';
 import { screeningRepo, type Executor, type RoundRow, type ScreeningRepo } from './screening.repo';
+import { painWaiting } from '@/server/care/clearance.repo';
 
 export type Evaluate = (input: AssessmentInput) => AssessmentResult;
 
@@ -190,6 +191,12 @@ export async function submitAssessment(
       throw badRequest(`The round's date (${a.screenedOn}) is before the athlete's date of birth (${a.dateOfBirth}): check both.`);
     }
     const input = draftToInput({ athlete: { sex: a.sex, ageYears, racketHand: a.racketHand }, draft: a.draft, screenedOn: a.screenedOn });
+    // Pain at the athlete's newest other screen that no physiotherapist has cleared since is carried: a
+    // screen with no pain reported is not a clearance (our choice).
+    const earlier = (await painWaiting(tx, scope.clubId, { athleteId: a.athleteId, exceptAssessmentId: assessmentId }))[a.athleteId];
+    if (earlier && earlier.taskIds.length > 0) {
+      input.options = { ...input.options, earlierPain: { day: earlier.screenedOn, taskIds: earlier.taskIds as TaskId[] } };
+    }
     // A physiotherapist's clearance given since this screen's first submission still counts when it is
     // submitted again (its pain was reported before the clearance).
     if (await repo.painClearedSinceFirstResult(assessmentId, a.athleteId)) input.options = { ...input.options, painCleared: true };

@@ -266,6 +266,39 @@ describe('review list, review mark and release', () => {
     expect(decided.body.awaitingRelease.map((r: { firstName: string }) => r.firstName)).toContain('Mo');
   });
 
+  // our choice: a later screen with no pain reported is not a clearance; the pain waits until a decision.
+  it('carries pain nobody has cleared into the next screen, until a physiotherapist decides', async () => {
+    const pia = await makeAthlete(testDb.db, { clubId: ids.club!, squadId: ids.squad!, firstName: 'Pia', lastName: 'Dale' });
+    const first = await makeSubmittedScreen(testDb.db, {
+      clubId: ids.club!,
+      squadId: ids.squad!,
+      athleteId: pia.id,
+      userId: ids.tester!,
+      draft: painDraft(),
+      screenedOn: '2026-09-14',
+    });
+    expect(first.result.result.plan.status).toBe('clearance-needed');
+    const later = await makeSubmittedScreen(testDb.db, {
+      clubId: ids.club!,
+      squadId: ids.squad!,
+      athleteId: pia.id,
+      userId: ids.tester!,
+      screenedOn: '2026-11-02',
+    });
+    expect(later.result.result.plan.status).toBe('clearance-needed');
+    expect(later.result.result.plan.cautions.find((c) => c.id === 'pain-reported')?.text).toMatch(
+      /^Pain was reported during: Two-leg full squat \(at the screen of 2026-09-14\)\./,
+    );
+    // The stop notices name the screen where it hurt and its task.
+    const waiting = await as.tester.get('/api/clearances');
+    expect(waiting.body.painWaiting[pia.id]).toEqual({ screenedOn: '2026-09-14', taskIds: ['two-leg-squat'] });
+
+    expect((await as.physio.put(`/api/athletes/${pia.id}/clearance`).send({ status: 'cleared', detail: '' })).status).toBe(200);
+    const after = await as.tester.get(`/api/assessments/${later.assessmentId}`);
+    expect(after.body.result.result.plan.status).toBe('ready');
+    expect((await as.tester.get('/api/clearances')).body.painWaiting[pia.id]).toBeUndefined();
+  });
+
   it('releases only a reviewed screen, by a physiotherapist or head coach, and e-mails parents with consent only', async () => {
     const notReviewed = await as.coach.post(`/api/assessments/${ids.louScreen}/release`);
     expect(notReviewed.status).toBe(409);

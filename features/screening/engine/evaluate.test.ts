@@ -427,6 +427,19 @@ describe('evaluateAssessment: plan', () => {
     expect(pain?.text).toMatch(/physiotherapist or doctor/);
   });
 
+  // our choice: a later screen with no pain reported is not a clearance.
+  it('pain at an earlier screen that nobody has cleared holds the plan too, naming the task and its day, until cleared', () => {
+    const clean = makeAssessment({ tasks: { 'two-leg-squat': { criteria: [] } } });
+    expect(evaluateAssessment(clean).plan.status).toBe('ready');
+    const carried = evaluateAssessment({ ...clean, options: { earlierPain: { day: '2026-09-16', taskIds: ['drop-landing'] } } });
+    expect(carried.plan.status).toBe('clearance-needed');
+    expect(carried.plan.cautions.find((c) => c.id === 'pain-reported')?.text).toMatch(
+      /^Pain was reported during: Drop landing from a low box \(at the screen of 2026-09-16\)\./,
+    );
+    const cleared = evaluateAssessment({ ...clean, options: { earlierPain: { day: '2026-09-16', taskIds: ['drop-landing'] }, painCleared: true } });
+    expect(cleared.plan.status).toBe('ready');
+  });
+
   it('always carries the youth resistance-training caution with its sources (Faigenbaum 2009; Lloyd 2014)', () => {
     const r = evaluateAssessment(everything);
     const c = r.plan.cautions.find((x) => x.id === 'youth-resistance-training');
@@ -489,6 +502,12 @@ describe('evaluateAssessment: impossible input', () => {
     ['zero 1RM', makeAssessment({ oneRepMaxKg: 0 }), 'oneRepMaxKg'],
     ['pain clearance not a yes/no', makeAssessment({ options: { painCleared: 'yes' as unknown as boolean } }), 'options.painCleared'],
     ['impossible date', makeAssessment({ options: { today: '2025-02-30' } }), 'options.today'],
+    ['earlier pain without a day', makeAssessment({ options: { earlierPain: { day: 'soon', taskIds: ['drop-landing'] } } }), 'options.earlierPain.day'],
+    [
+      'earlier pain in an unknown task',
+      makeAssessment({ options: { earlierPain: { day: '2026-09-16', taskIds: ['star-jump' as 'drop-landing'] } } }),
+      'options.earlierPain.taskIds',
+    ],
     ['zero re-screen weeks', makeAssessment({ options: { rescreenWeeks: 0 } }), 'options.rescreenWeeks'],
   ])('%s', (_n, input, field) => {
     expect(() => evaluateAssessment(input)).toThrow(EngineInputError);

@@ -74,7 +74,8 @@ export function evaluateAssessment(input: AssessmentInput): AssessmentResult {
   const ratings = rateTasks(n);
   const measurements = [...measureTasks(n, ratings), ...(maturity ? maturityMeasurements(maturity) : [])];
   const flags = detectFlags(measurements, observationsOf(n), n.athlete.sex);
-  const painTaskTitles = [...n.tasks.values()].filter((t) => t.painReported).map((t) => t.spec.title);
+  // Pain at this screen, and pain at an earlier one that no physiotherapist has cleared since.
+  const painTaskTitles = [...[...n.tasks.values()].filter((t) => t.painReported).map((t) => t.spec.title), ...n.earlierPainTitles];
   const plan = buildPlan(flags, {
     oneRepMaxKg: n.oneRepMaxKg,
     loadIncrementKg: n.loadIncrementKg,

@@ -158,6 +158,12 @@ export interface AssessmentOptions {
    * plan holds back loaded strength and landing work. Default false.
    */
   painCleared?: boolean;
+  /**
+   * Pain reported at an earlier screen (its day and tasks) that no physiotherapist has cleared since: the
+   * plan holds back loaded strength and landing work as for pain reported at this screen, until
+   * `painCleared` (our choice: a later screen with no pain reported is not a clearance).
+   */
+  earlierPain?: { day: string; taskIds: TaskId[] };
 }
 
 export interface AssessmentInput {

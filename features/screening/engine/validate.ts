@@ -34,6 +34,8 @@ export interface NormalizedAssessment {
   maturityMethod: MaturityMethod | 'none';
   loadIncrementKg: number;
   painCleared: boolean;
+  /** Titles of the tasks that hurt at an earlier, uncleared screen, each with its day. */
+  earlierPainTitles: string[];
 }
 
 const MS_PER_DAY = 86_400_000;
@@ -243,5 +245,18 @@ export function validateAssessment(input: AssessmentInput): NormalizedAssessment
     throw new EngineInputError('options.painCleared', `must be true or false, got ${String(painCleared)}`);
   }
 
-  return { athlete, tasks, oneRepMaxKg, rescreenWeeks, todayDay, maturityMethod: method, loadIncrementKg, painCleared };
+  const earlierPainTitles: string[] = [];
+  const earlier = options['earlierPain'];
+  if (earlier !== undefined) {
+    if (!isRecord(earlier)) throw new EngineInputError('options.earlierPain', 'must be an object with day and taskIds');
+    const day = formatIsoDay(parseIsoDay('options.earlierPain.day', earlier['day']));
+    const ids = earlier['taskIds'];
+    if (!Array.isArray(ids) || ids.length === 0) throw new EngineInputError('options.earlierPain.taskIds', 'must be a non-empty list of task ids');
+    for (const id of ids) {
+      if (typeof id !== 'string' || !isTaskId(id)) throw new EngineInputError('options.earlierPain.taskIds', `${String(id)} is not a known task id`);
+      earlierPainTitles.push(`${getTask(id).title} (at the screen of ${day})`);
+    }
+  }
+
+  return { athlete, tasks, oneRepMaxKg, rescreenWeeks, todayDay, maturityMethod: method, loadIncrementKg, painCleared, earlierPainTitles };
 }

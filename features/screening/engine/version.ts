@@ -3,4 +3,4 @@
  * produced it. Bump the minor version when a threshold, criterion or exercise
  * changes, the major version when ids or the result shape change.
  */
-export const ENGINE_VERSION = '1.4.0';
+export const ENGINE_VERSION = '1.5.0';

@@ -34,7 +34,8 @@ import { CaptureFrame, CaptureLayout, captureStyles } from './capture-layout';
 import { ReviewStep } from './review-step';
 import { SaveStatusBadge } from './save-status';
 import { TaskStep } from './task-step';
-import { CaptureHoldNotice } from './hold-notice';
+import { CaptureHoldNotice, heldTasks } from './hold-notice';
+import { useClearanceOf, usePainWaitingOf } from '@/features/care/api/get-clearances';
 import { InvalidFieldsContext } from './invalid-fields';
 
 const STEPS: readonly string[] = ['body', ...BATTERY.map((t) => t.id), 'review'];
@@ -127,6 +128,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
   const step = STEPS[stepIndex] ?? 'body';
   const task = step !== 'body' && step !== 'review' ? getTask(step as TaskId) : null;
   const athleteName = `${detail.athlete.firstName} ${detail.athlete.lastName}`;
+  const heldToday = heldTasks(useClearanceOf(detail.athlete.id), usePainWaitingOf(detail.athlete.id), detail.athlete.firstName);
   usePageTitle(`Screening ${athleteName}`);
 
   useEffect(() => {
@@ -350,6 +352,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
           <ReviewStep
             detail={detail}
             draft={draft}
+            held={detail.status === 'submitted' ? [] : heldToday}
             photoFor={photoFor}
             goTo={(target) => {
               setFromReview(true);

@@ -9,6 +9,8 @@ import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 
 type Props = {
   detail: AssessmentDetail;
+  /** Tasks not to run with this athlete today (capture's stop notices): said as such, never asked for. */
+  held?: readonly TaskId[];
   draft: AssessmentDraft;
   photoFor(taskId: TaskId, view: PhotoSide): PhotoView | undefined;
   goTo(step: string): void;
@@ -26,7 +28,7 @@ function bodySummary(draft: AssessmentDraft): string {
 }
 
 /** What was captured, what is missing, then submit (the button is in the bottom bar). */
-export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
+export function ReviewStep({ detail, draft, photoFor, goTo, held = [] }: Props) {
   const missing: string[] = [];
   let toMeasure = 0;
   const rows = BATTERY.map((task, i) => {
@@ -38,6 +40,11 @@ export function ReviewStep({ detail, draft, photoFor, goTo }: Props) {
       lines.push(`Skipped${t.skipReason ? `: ${t.skipReason}` : ''}`);
       // The task asks for the reason, for the record: its absence is listed with what is missing.
       if (!t.skipReason?.trim()) missing.push(`${task.title}: why it was skipped`);
+    } else if (held.includes(task.id) && !t?.painReported) {
+      // Run anyway or passed with Next: not a gap to fill but a task to skip with its reason.
+      state = 'partial';
+      lines.push('On hold today: skip it');
+      missing.push(`${task.title}: on hold today, skip it (its stop says why)`);
     } else if (t) {
       state = 'done';
       lines.push(t.criteria.length === 0 ? 'Nothing ticked' : `${t.criteria.length} ticked`);
