@@ -1,6 +1,6 @@
-import { stringify } from 'csv-stringify/sync';
 import { auditActionInWords, auditDetailsInWords, auditSubjectInWords } from '@/features/care/audit-details';
 import { Router } from 'express';
+import { safeCsv } from '@/server/http/csv';
 import { ValidationError } from 'yup';
 import type { Db } from '@/db/client';
 import { auditQuerySchema, type AuditQuery } from './audit-query';
@@ -32,7 +32,7 @@ export function auditRouter(db: Db) {
       res.json({ events: rows });
       return;
     }
-    const body = stringify(
+    const body = safeCsv(
       rows.map((r) => [
         r.at,
         r.actorName ?? 'system',

@@ -1,4 +1,3 @@
-import { stringify } from 'csv-stringify/sync';
 import { Router } from 'express';
 import type { Db } from '@/db/client';
 import { todayIso } from '@/features/athletes/age';
@@ -9,6 +8,7 @@ import { asc, eq } from 'drizzle-orm';
 import { squads } from '@/db/schema';
 import { watchOf, type SquadWatch } from '@/features/progress/watch';
 import { badRequest } from '@/server/http/errors';
+import { safeCsv } from '@/server/http/csv';
 import { progressService } from './progress.service';
 
 const ALLOWED: Record<(typeof FILTER_KEYS)[number], readonly string[]> = {
@@ -73,7 +73,7 @@ export function progressRouter(db: Db) {
       const narrowed = FILTER_KEYS.filter((k) => filters[k]).map((k) => safe(String(filters[k])));
       res.setHeader('Content-Type', 'text/csv; charset=utf-8');
       res.setHeader('Content-Disposition', `attachment; filename="${name}-trends-${trends.today}${narrowed.length ? `-only-${narrowed.join('-')}` : ''}.csv"`);
-      res.send(stringify(csvRows(trends.athletes, trends)));
+      res.send(safeCsv(csvRows(trends.athletes, trends)));
       return;
     }
     res.json(trends);
