@@ -316,3 +316,23 @@ test("an athlete's page shows the clearance in force at the top, and its clearan
   await expect(panel).toContainText('Choose what waits, or say what to change.');
   await expect(page.getByTestId('clearance-badge').first()).toContainText('Refer on');
 });
+
+// our choice: a photo period is never saved as nought from an emptied field, and a shorter one (which
+// deletes photos for good) is said and confirmed first.
+test('care settings refuse an emptied photo period and confirm a shorter one before saving', async ({ page }) => {
+  await signIn(page, 'admin@squadline.test');
+  await expect(page.getByTestId('home-admin')).toBeVisible();
+  const before = (await (await page.request.get('/api/care-settings')).json()) as { settings: { photoGraceDays: number; photoRetentionMonths: number } };
+  await page.goto('/care-settings');
+  await page.getByTestId('care-settings-grace').fill('');
+  await page.getByTestId('care-settings-save').click();
+  await expect(page.getByText('Enter a number of days.')).toBeVisible();
+  await page.getByTestId('care-settings-grace').fill(String(before.settings.photoGraceDays));
+  await page.getByTestId('care-settings-months').fill('2');
+  await page.getByTestId('care-settings-save').click();
+  await expect(page.getByText(`photos kept 2 months instead of ${before.settings.photoRetentionMonths}`)).toBeVisible();
+  await page.getByRole('button', { name: 'Check again' }).click();
+  // Nothing saved.
+  const after = (await (await page.request.get('/api/care-settings')).json()) as { settings: { photoGraceDays: number; photoRetentionMonths: number } };
+  expect(after.settings).toMatchObject({ photoGraceDays: before.settings.photoGraceDays, photoRetentionMonths: before.settings.photoRetentionMonths });
+});

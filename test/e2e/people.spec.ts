@@ -94,6 +94,9 @@ test('an admin cancels an invitation and removes a member who left, each after a
   await page.getByTestId('invite-email').fill(wrong);
   await page.getByRole('radio', { name: 'Physiotherapist' }).click();
   await page.getByTestId('invite-submit').click();
+  // A staff role opens every child's records: said, and confirmed, before it goes.
+  await expect(page.getByText(`${wrong} joins as a physiotherapist and can then open every squad's athletes`)).toBeVisible();
+  await page.getByTestId('invite-send-confirm').click();
   await expect(page.getByText('Invitation sent.')).toBeVisible();
   await expect(page.getByRole('radio', { name: 'Physiotherapist' })).toBeChecked();
   const row = page.getByTestId('pending-invite').filter({ hasText: wrong });

@@ -173,7 +173,12 @@ test('an admin invites someone and the e-mail arrives in the local mailbox', asy
   await page.getByRole('link', { name: 'People' }).click();
   const email = `new-tester-${Date.now()}@squadline.test`;
   await page.getByTestId('invite-email').fill(email);
+  // No role is chosen in advance (our choice): sent without one, the form asks for it.
   await page.getByTestId('invite-submit').click();
+  await expect(page.getByText('Choose a role.')).toBeVisible();
+  await page.getByRole('radio', { name: 'Tester' }).click();
+  await page.getByTestId('invite-submit').click();
+  await page.getByTestId('invite-send-confirm').click();
   await expect(page.getByText('Invitation sent.')).toBeVisible();
   await openNav(page);
   await page.getByRole('link', { name: 'Mailbox (local)' }).click();

@@ -6,6 +6,7 @@ import { fieldErrorsOf, messageOf } from '@/features/api/client';
 import { useBreakpoints } from '@/features/ui/breakpoints';
 import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
+import { Confirm } from '@/features/ui/components/confirm';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
@@ -55,8 +56,9 @@ function Form({ settings }: { settings: CareSettingsView }) {
         const input = await careSettingsSchema.validate(
           {
             autoReleaseDays: values.autoReleaseDays.trim() === '' ? null : Number(values.autoReleaseDays),
-            photoGraceDays: Number(values.photoGraceDays),
-            photoRetentionMonths: Number(values.photoRetentionMonths),
+            // An emptied field is an error, never a nought: 0 days of grace deleted withdrawn photos at once.
+            photoGraceDays: values.photoGraceDays.trim() === '' ? undefined : Number(values.photoGraceDays),
+            photoRetentionMonths: values.photoRetentionMonths.trim() === '' ? undefined : Number(values.photoRetentionMonths),
             familyPhotos: values.familyPhotos === 'yes',
             testersReadTeamNotes: values.testersReadTeamNotes === 'yes',
           },
@@ -71,6 +73,18 @@ function Form({ settings }: { settings: CareSettingsView }) {
       }
     },
   });
+  const [confirming, setConfirming] = useState(false);
+  const typed = (v: string) => (v.trim() === '' ? null : Number(v));
+  const grace = typed(form.values.photoGraceDays);
+  const months = typed(form.values.photoRetentionMonths);
+  const shorter = [
+    grace !== null && Number.isInteger(grace) && grace < settings.photoGraceDays
+      ? `photos of a withdrawn consent deleted after ${grace} days instead of ${settings.photoGraceDays}`
+      : null,
+    months !== null && Number.isInteger(months) && months >= 1 && months < settings.photoRetentionMonths
+      ? `photos kept ${months} months instead of ${settings.photoRetentionMonths}, so those older than ${months} months go`
+      : null,
+  ].filter((s): s is string => s !== null);
   return (
     <Card testID="care-settings">
       <Text variant="heading">Family summaries, photos and notes</Text>
@@ -87,6 +101,7 @@ function Form({ settings }: { settings: CareSettingsView }) {
         hint="Counted from the day the withdrawal is recorded; the photos are hidden at once."
         keyboardType="number-pad"
         value={form.values.photoGraceDays}
+        testID="care-settings-grace"
         onChangeText={form.handleChange('photoGraceDays')}
         error={form.errors.photoGraceDays}
       />
@@ -95,6 +110,7 @@ function Form({ settings }: { settings: CareSettingsView }) {
         hint="Counted from the day each photo was taken; older photos are deleted."
         keyboardType="number-pad"
         value={form.values.photoRetentionMonths}
+        testID="care-settings-months"
         onChangeText={form.handleChange('photoRetentionMonths')}
         error={form.errors.photoRetentionMonths}
       />
@@ -114,7 +130,28 @@ function Form({ settings }: { settings: CareSettingsView }) {
       />
       <Text variant="small">Team-only notes can hold health details from the physiotherapist: say yes only if your testers need them to screen safely.</Text>
       {form.status ? <Text>{String(form.status)}</Text> : null}
-      <Button label="Save settings" busy={form.isSubmitting} onPress={() => form.handleSubmit()} testID="care-settings-save" />
+      {confirming ? (
+        <Confirm
+          text={`Shorter periods delete photos sooner, and deleted photos cannot be brought back: ${shorter.join('; ')}. The nightly job applies it from tonight.`}
+          confirmLabel="Yes, save the shorter periods"
+          cancelLabel="Check again"
+          testID="care-settings-shorter-confirm"
+          busy={form.isSubmitting}
+          onConfirm={() => {
+            setConfirming(false);
+            form.handleSubmit();
+          }}
+          onCancel={() => setConfirming(false)}
+        />
+      ) : (
+        <Button
+          label="Save settings"
+          busy={form.isSubmitting}
+          // A shorter period deletes photos for good: said and confirmed first (our choice).
+          onPress={() => (shorter.length > 0 ? setConfirming(true) : form.handleSubmit())}
+          testID="care-settings-save"
+        />
+      )}
     </Card>
   );
 }

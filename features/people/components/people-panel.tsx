@@ -181,7 +181,9 @@ function InviteForm({ clubId }: { clubId: string }) {
       .join(', ');
   return (
     <Formik<InviteInput>
-      initialValues={{ email: '', role: 'tester', athleteIds: [] }}
+      // No role chosen in advance (our choice: a parent's address sent with the first role ready, tester,
+      // opened every child's screens).
+      initialValues={{ email: '', role: '' as InviteInput['role'], athleteIds: [] }}
       validationSchema={inviteSchema}
       onSubmit={async (values, helpers) => {
         try {
@@ -225,7 +227,7 @@ function InviteForm({ clubId }: { clubId: string }) {
               </Pressable>
             ))}
           </View>
-          {errors.role ? <Text style={{ color: colors.brick }}>{errors.role}</Text> : null}
+          {touched.role && errors.role ? <Text style={{ color: colors.brick }}>{errors.role}</Text> : null}
           {values.role === 'parent' ? (
             <ChildPicker
               selected={values.athleteIds}
@@ -235,7 +237,11 @@ function InviteForm({ clubId }: { clubId: string }) {
           ) : null}
           {checking ? (
             <Confirm
-              text={`The e-mail to ${values.email.trim()} names ${namesOf(values.athleteIds)}. Check the address letter by letter: a stranger would learn their names.`}
+              text={
+                values.role === 'parent'
+                  ? `The e-mail to ${values.email.trim()} names ${namesOf(values.athleteIds)}. Check the address letter by letter: a stranger would learn their names.`
+                  : `${values.email.trim()} joins as a ${ROLE_LABELS[values.role as Role].toLowerCase()} and can then open ${ROLE_REACH[values.role as Role]}. Check the address and the role.`
+              }
               confirmLabel="Yes, send it"
               cancelLabel="Check again"
               testID="invite-send-confirm"
@@ -251,7 +257,11 @@ function InviteForm({ clubId }: { clubId: string }) {
               label="Send invitation"
               testID="invite-submit"
               busy={isSubmitting}
-              onPress={() => (values.role === 'parent' && values.athleteIds.length > 0 && values.email.trim() ? setChecking(true) : handleSubmit())}
+              onPress={() =>
+                // Every invitation with a role and an address is checked before it goes: a parent's names
+                // children, a staff role opens every child's records.
+                values.email.trim() && values.role && (values.role !== 'parent' || values.athleteIds.length > 0) ? setChecking(true) : handleSubmit()
+              }
             />
           )}
         </View>
