@@ -1,9 +1,9 @@
-import { formatDateInWords } from '@/features/ui/format-date';
 import { eq } from 'drizzle-orm';
 import type { Db } from '@/db/client';
 import { athletes } from '@/db/schema';
 import { can, ROLE_LABELS } from '@/features/access/permissions';
 import { todayIso } from '@/features/athletes/age';
+import { formatDateInWords } from '@/features/ui/format-date';
 import {
   CONSENT_FIELDS,
   type AthleteInput,
@@ -123,11 +123,17 @@ export function athletesService(db: Db, scope: ClubScope) {
 
     async recordConsent(id: string, input: ConsentInput) {
       const athlete = await mustGet(id);
+      // A family cannot have decided before the child was born (the roster import refuses it too).
+      if (input.decidedOn < athlete.dateOfBirth) {
+        throw badRequest('Check the day of the decision.', {
+          decidedOn: `The day of the decision (${formatDateInWords(input.decidedOn)}) is before ${athlete.firstName}'s date of birth (${formatDateInWords(athlete.dateOfBirth)}).`,
+        });
+      }
       // The newest recorded decision is in force: one dated before the decision in force would overturn a
       // later choice of the family (a parent's "no" in the app, then an old paper "yes" typed in). Our rule.
       const inForce = consentInForce(athlete, input.kind);
       if (inForce && input.decidedOn < inForce.decidedOn) {
-        const message = `A later decision is on record (${inForce.granted ? 'yes' : 'no'}, decided ${inForce.decidedOn}). If the family has decided again since, record it with the day they did.`;
+        const message = `A later decision is on record (${inForce.granted ? 'yes' : 'no'}, decided ${formatDateInWords(inForce.decidedOn)}). If the family has decided again since, record it with the day they did.`;
         throw new AppError(409, 'later_decision_on_record', message, { decidedOn: message });
       }
       const [row] = await repo.recordConsents([{ athleteId: id, kind: input.kind, granted: input.granted, decidedOn: input.decidedOn }]);

@@ -273,7 +273,12 @@ describe('consent decisions', () => {
     // In force: the admin's "yes" decided 2026-11-20 (the test above).
     const res = await as.admin.post(`/api/athletes/${ids.child}/consents`).send({ kind: 'photos', granted: false, decidedOn: '2026-11-19' });
     expect(res.status).toBe(409);
-    expect(res.body.error.fields.decidedOn).toMatch(/A later decision is on record \(yes, decided 2026-11-20\)/);
+    expect(res.body.error.fields.decidedOn).toMatch(/A later decision is on record \(yes, decided 20 November 2026\)/);
+    expect(await testDb.db.select().from(consents).where(eq(consents.athleteId, ids.child!))).toHaveLength(before);
+    // Nor can the family have decided before the child was born (our choice): a 400 naming the day.
+    const unborn = await as.admin.post(`/api/athletes/${ids.child}/consents`).send({ kind: 'photos', granted: true, decidedOn: '2000-01-01' });
+    expect(unborn.status).toBe(400);
+    expect(unborn.body.error.fields.decidedOn).toMatch(/^The day of the decision \(1 January 2000\) is before .+'s date of birth/);
     expect(await testDb.db.select().from(consents).where(eq(consents.athleteId, ids.child!))).toHaveLength(before);
     // The same day as the one in force is a later decision of that day: recorded.
     const same = await as.admin.post(`/api/athletes/${ids.child}/consents`).send({ kind: 'photos', granted: true, decidedOn: '2026-11-20' });

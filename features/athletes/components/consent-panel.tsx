@@ -132,7 +132,7 @@ function ownDecisionWords(kind: ConsentKind, granted: boolean, name: string, ter
         }
       : {
           ask: `Agree to photos of ${name}`,
-          explain: `Coaches may photograph ${name}'s movements at screens to measure them more precisely. Only the club's screening and care staff see them (and you, if the club shares screen photos with families), and they are ${keptFor(terms)}.`,
+          explain: `Coaches may photograph ${name}'s movements at screens to measure them more precisely. Only the club's screening and care staff see them (and you, if the club shares screen photos with families), and they are ${keptFor(terms)}. Photos hidden after an earlier stop and not deleted yet are shown again to the same people.`,
           confirm: 'Yes, agree to photos',
           keep: 'Not now',
         };
@@ -140,13 +140,13 @@ function ownDecisionWords(kind: ConsentKind, granted: boolean, name: string, ter
   return granted
     ? {
         ask: 'Stop e-mail summaries',
-        explain: `Summaries of ${name}'s screens are no longer e-mailed. You can still read them here when you sign in.`,
+        explain: `Summaries of ${name}'s screens are no longer e-mailed, to you or to any other parent or guardian linked to ${name}: the choice is one for the family. You can still read them here, and turn e-mails back on here.`,
         confirm: 'Yes, stop e-mails',
         keep: 'Keep e-mails',
       }
     : {
-        ask: 'E-mail me the summaries',
-        explain: `When a summary of ${name}'s screen is sent to the family, it also comes by e-mail to the parents and guardians linked to ${name}.`,
+        ask: 'E-mail the summaries',
+        explain: `When a summary of ${name}'s screen is sent to the family, it also comes by e-mail to every parent and guardian linked to ${name}: the choice is one for the family.`,
         confirm: 'Yes, e-mail them',
         keep: 'Not now',
       };

@@ -17,7 +17,7 @@ export function UnsubscribeScreen({ token }: { token: string }) {
   return (
     <View testID="unsubscribed">
       <Notice title="No more summary e-mails">
-        {`We recorded that you do not want e-mailed summaries about ${mutation.data.athleteFirstName}. The club can record a new decision if you change your mind. Summaries stay readable in Squadline.`}
+        {`We recorded that you do not want e-mailed summaries about ${mutation.data.athleteFirstName}. If you change your mind, turn them back on from ${mutation.data.athleteFirstName}'s page in Squadline, or ask the club. Summaries stay readable in Squadline.`}
       </Notice>
     </View>
   );

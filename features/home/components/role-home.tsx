@@ -125,9 +125,9 @@ function ParentChildren() {
             </Text>
             <Text style={a.consents.screening?.granted ? undefined : styles.warn}>
               Screens and exercises:{' '}
-              {a.consents.screening?.granted ? 'you agreed' : a.consents.screening ? 'stopped (not screened)' : 'not agreed yet (not screened)'}
+              {a.consents.screening?.granted ? 'agreed' : a.consents.screening ? 'stopped (not screened)' : 'not agreed yet (not screened)'}
             </Text>
-            <Text>Photos: {a.consents.photos?.granted ? 'you agreed that screening photos may be taken' : 'no photos are taken'}</Text>
+            <Text>Photos: {a.consents.photos?.granted ? 'agreed: screening photos may be taken' : 'no photos are taken'}</Text>
             <Link href={`/family/${a.id}`} style={styles.link} testID="child-summary-link">
               <Text variant="label">{`${a.firstName}'s screen summary and exercises →`}</Text>
             </Link>
