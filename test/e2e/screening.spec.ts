@@ -340,6 +340,8 @@ test('a result groups flags by pattern and side and shows the caution for an unk
   await page.getByTestId('plan-one-rep-max-enter').click();
   await expect(page).toHaveURL(new RegExp(`/screening/assessments/${id}\\?step=body$`));
   await expect(page.getByTestId('step-counter')).toHaveText('Before the tasks');
+  // Next goes straight back to review and submit (it took Next through every task).
+  await expect(page.getByTestId('step-next')).toHaveText('Back to review');
 });
 
 // A head coach may go past a limit, giving a reason: the plan then shows a caution and keeps it in its history.

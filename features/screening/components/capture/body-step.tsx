@@ -73,7 +73,11 @@ export function BodyStep({ draft, update }: { draft: AssessmentDraft; update(cha
               <Text>{oneRepMaxWarning(draft.oneRepMaxKg, body.massKg)}</Text>
               <TickBox
                 label={`I checked it: work loads out from ${draft.oneRepMaxKg} kg`}
-                hint="Until this is ticked the plan uses bodyweight, as with no 1RM."
+                hint={
+                  draft.oneRepMaxCheckedKg != null && draft.oneRepMaxCheckedKg === draft.oneRepMaxKg
+                    ? `Ticked: loads are worked out from ${draft.oneRepMaxKg} kg once the screen is submitted.`
+                    : 'Until this is ticked the plan uses bodyweight, as with no 1RM.'
+                }
                 checked={draft.oneRepMaxCheckedKg != null && draft.oneRepMaxCheckedKg === draft.oneRepMaxKg}
                 onChange={(on) => update((d) => ({ ...d, oneRepMaxCheckedKg: on ? (d.oneRepMaxKg ?? null) : null }))}
                 testID="one-rep-max-confirm"

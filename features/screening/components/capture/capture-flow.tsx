@@ -148,18 +148,28 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
     update((d) => ({ ...d, tasks: { ...d.tasks, [taskId]: change(d.tasks[taskId] ?? { criteria: [] }) } }));
 
   // A step opened from "Review and submit" goes straight back there (it took Next through every task).
-  const [fromReview, setFromReview] = useState(false);
+  // Opened from the result's 1RM link: Next goes straight back to review and submit, the 1RM in view.
+  const [fromReview, setFromReview] = useState(asked === 'body');
+  useEffect(() => {
+    if (asked !== 'body' || typeof document === 'undefined') return;
+    const t = setTimeout(() => document.querySelector('[data-testid="body-one-rep-max"]')?.scrollIntoView({ block: 'center' }), 300);
+    return () => clearTimeout(t);
+  }, [asked]);
   // Fields of this step holding text that is not kept: Next stops and names them (InvalidFieldsContext).
-  const invalid = useRef(new Map<string, string>());
+  const invalid = useRef(new Map<string, { label: string; testID?: string }>());
   const [stopped, setStopped] = useState<string[] | null>(null);
-  const report = useCallback((fieldId: string, label: string | null) => {
-    if (label) invalid.current.set(fieldId, label);
+  const report = useCallback((fieldId: string, label: string | null, testID?: string) => {
+    if (label) invalid.current.set(fieldId, { label, testID });
     else invalid.current.delete(fieldId);
     if (invalid.current.size === 0) setStopped(null);
   }, []);
   const next = () => {
     if (invalid.current.size > 0) {
-      setStopped([...new Set(invalid.current.values())]);
+      const fields = [...invalid.current.values()];
+      setStopped([...new Set(fields.map((f) => f.label))]);
+      // The first such field is brought into view (on a phone it was below the fold). Web only.
+      const first = fields.find((f) => f.testID)?.testID;
+      if (first && typeof document !== 'undefined') document.querySelector(`[data-testid="${first}"]`)?.scrollIntoView({ block: 'center', behavior: 'smooth' });
       return;
     }
     // Moving on from a task means it was done, even with nothing ticked ("nothing seen"). A submitted

@@ -31,8 +31,8 @@ export function NumberField({ label, value, validate, onCommit, hint, testID, pl
   const report = useContext(InvalidFieldsContext);
   const id = useId();
   useEffect(() => {
-    report?.(id, error ? label : null);
-  }, [report, id, error, label]);
+    report?.(id, error ? label : null, testID);
+  }, [report, id, error, label, testID]);
   useEffect(() => () => report?.(id, null), [report, id]);
   // A newer value from elsewhere (a merge with another phone's save) replaces the text; the value this
   // field wrote itself (null for text that is not kept) leaves the text as typed.

@@ -6,8 +6,8 @@ import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { useAssessmentQuery } from '@/features/screening/api/get-assessment';
 import { useRoundQuery } from '@/features/screening/api/get-round';
-import type { AssessmentDetail, ResultView } from '@/features/screening/contract';
-import type { Flag } from '@/features/screening/engine';
+import type { AssessmentDetail, PhotoView, ResultView } from '@/features/screening/contract';
+import type { Flag, TaskId } from '@/features/screening/engine';
 import { groupFlags } from '@/features/screening/flag-groups';
 import { nextUnscreened } from '@/features/screening/round-order';
 import { useActiveClub } from '@/features/session/active-club';
@@ -65,7 +65,7 @@ export default function ResultScreen({ assessmentId, from }: { assessmentId: str
       {canEdit ? <RoundNavigation detail={detail} /> : null}
       <View style={[styles.columns, isWide && styles.columnsWide]}>
         <View style={[styles.column, isWide && styles.columnWide]}>
-          <Flags flags={result.result.flags} />
+          <Flags flags={result.result.flags} note={anglesNote(detail)} />
           {reviews && isWide ? carePanel : null}
           {/* On a phone the photos follow the plan: the plan is what the coach acts on. */}
           {isWide ? <ResultPhotos detail={detail} /> : null}
@@ -201,7 +201,27 @@ function Header({
   );
 }
 
-function Flags({ flags }: { flags: Flag[] }) {
+/**
+ * What the flags could not look at yet, said under their count (our choice: a result with its photos still
+ * unmeasured read as final): no photo consent, or photos with no points placed yet.
+ */
+function anglesNote(detail: AssessmentDetail): string | null {
+  if (!detail.athlete.photoConsent) return 'No photo consent: no angle was measured; these flags come from what the tester ticked.';
+  const newest = new Map<string, PhotoView>();
+  for (const p of detail.photos) {
+    const key = `${p.taskId}:${p.view}`;
+    const known = newest.get(key);
+    if (!known || known.createdAt < p.createdAt) newest.set(key, p);
+  }
+  const unmeasured = [...newest.values()].filter(
+    (p) => Object.values(detail.draft.tasks[p.taskId as TaskId]?.landmarks?.[p.view] ?? {}).filter(Boolean).length === 0,
+  ).length;
+  return unmeasured > 0
+    ? `${unmeasured} ${unmeasured === 1 ? 'photo has' : 'photos have'} no points placed yet: flags from their angles are added once ${unmeasured === 1 ? 'it is' : 'they are'} measured (To measure).`
+    : null;
+}
+
+function Flags({ flags, note }: { flags: Flag[]; note?: string | null }) {
   const groups = groupFlags(flags);
   const concerns = groups.filter((g) => g.severity === 'concern').length;
   return (
@@ -214,6 +234,11 @@ function Flags({ flags }: { flags: Flag[] }) {
           ? 'No flags: nothing seen or measured crossed a threshold.'
           : `${groups.length} ${groups.length === 1 ? 'flag' : 'flags'}${concerns ? `, ${concerns} of concern` : ''}. “Watch” means keep an eye on it; “Concern” means work on it now. Each flag lists the tasks that showed it.`}
       </Text>
+      {note ? (
+        <Text variant="small" style={styles.anglesNote} testID="flags-angles-note">
+          {note}
+        </Text>
+      ) : null}
       {groups.map((g) => (
         <FlagCard key={g.key} group={g} />
       ))}
@@ -223,6 +248,7 @@ function Flags({ flags }: { flags: Flag[] }) {
 
 const styles = StyleSheet.create({
   wrap: { gap: space.lg },
+  anglesNote: { fontFamily: fonts.bold },
   head: { gap: space.xs },
   back: { minHeight: TOUCH_MIN, justifyContent: 'center' },
   backText: { color: colors.pine },
