@@ -402,7 +402,7 @@ test('capture and the athlete page stop the landing task for an athlete referred
   const tove = round.athletes.find((a) => a.firstName === 'Tove')!;
   await page.goto(`/screening/assessments/${tove.assessmentId}`);
   await expect(page.getByTestId('step-title')).toHaveText('Body measurements');
-  await expect(page.getByTestId('capture-hold')).toContainText('Skip Drop landing from a low box');
+  await expect(page.getByTestId('capture-hold')).toContainText('Skip the drop landing from a low box');
   await expect(page.getByTestId('capture-hold')).toContainText('referred Tove on');
   // Through the tasks to the landing: no stop on a task that is not a landing.
   for (let i = 1; i <= 9; i += 1) {

@@ -71,7 +71,7 @@ export function CaptureHoldNotice({
   if (taskId === null) {
     return (
       <Notice tone="error" title={`${firstName}: tasks to skip today`} testID="capture-hold">
-        {`Skip ${held.map(titleOf).join(', ')}: ${reason}. Stop any task that hurts.`}
+        {`Skip the ${held.map((id) => titleOf(id).replace(/^./, (c) => c.toLowerCase())).join(', the ')}: ${reason}. Stop any task that hurts.`}
       </Notice>
     );
   }
