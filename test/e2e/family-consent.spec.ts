@@ -44,7 +44,7 @@ test('a parent stops and gives back photo consent from their child’s page', as
   const joined = await page.request.post('/api/auth/invitations/accept', { data: { token, displayName: 'Noor Marlow', password: 'a-very-long-password' } });
   expect(joined.status()).toBeLessThan(300);
   await page.goto('/');
-  await expect(page.getByTestId('child-card')).toContainText('agreed: screening photos may be taken');
+  await expect(page.getByTestId('child-card')).toContainText('agreed, screening photos may be taken');
   await page.getByTestId('child-details-link').click();
   await expect(page.getByTestId('consent-photos')).toContainText('Photos may be taken');
   // How long photos are kept, in the club's months (the demo keeps the default 24).
@@ -70,7 +70,7 @@ test('a parent stops and gives back photo consent from their child’s page', as
   await page.getByTestId('own-consent-photos-yes').click();
   await expect(page.getByTestId('consent-photos')).toContainText('Photos may be taken');
   await page.goto('/');
-  await expect(page.getByTestId('child-card')).toContainText('agreed: screening photos may be taken');
+  await expect(page.getByTestId('child-card')).toContainText('agreed, screening photos may be taken');
   await tidyUp(page, athleteId, squadId);
 });
 

@@ -127,7 +127,7 @@ function ParentChildren() {
               Screens and exercises:{' '}
               {a.consents.screening?.granted ? 'agreed' : a.consents.screening ? 'stopped (not screened)' : 'not agreed yet (not screened)'}
             </Text>
-            <Text>Photos: {a.consents.photos?.granted ? 'agreed: screening photos may be taken' : 'no photos are taken'}</Text>
+            <Text>Photos: {a.consents.photos?.granted ? 'agreed, screening photos may be taken' : 'no photos are taken'}</Text>
             <Link href={`/family/${a.id}`} style={styles.link} testID="child-summary-link">
               <Text variant="label">{`${a.firstName}'s screen summary and exercises →`}</Text>
             </Link>
