@@ -7,6 +7,8 @@ import { clearanceRepo } from '@/server/care/clearance.repo';
 import { notesRepo } from '@/server/care/notes.repo';
 import { reviewsRepo } from '@/server/care/reviews.repo';
 import { releaseSummary } from '@/server/care/summary.service';
+import { applyClearance } from '@/server/care/clearance.service';
+import type { Executor } from '@/server/screening/screening.repo';
 import type { Outbox } from '@/server/mail/outbox';
 import type { DemoIds } from './demo';
 
@@ -72,6 +74,11 @@ async function seedIn(db: Db, ids: Pick<DemoIds, 'clubId' | 'athleteIds'>, publi
   const { id: modified } = await clearances.add(others[2]!, 'modified', 'No drop landings for three weeks; everything else as planned.', ['landing']);
   const { id: referred } = await clearances.add(others[7]!, 'referred', 'Sports physician at the district clinic, for knee pain after jumps.');
   const { id: cleared } = await clearances.add(maya.id, 'cleared', '');
+  // As the route does: the plans and the family's page follow each decision (Maya's released summary is
+  // shared again, without e-mail, saying who cleared her and when).
+  await applyClearance(db as Executor, scope, others[2]!, modified, 'modified');
+  await applyClearance(db as Executor, scope, others[7]!, referred, 'referred');
+  await applyClearance(db as Executor, scope, maya.id, cleared, 'cleared');
   await recordAudit(
     db,
     { clubId: ids.clubId, actorId: physio!.id, action: 'create', subjectKind: 'note', subjectId: shared, athleteId: maya.id, detail: { visibility: 'family' } },
