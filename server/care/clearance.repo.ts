@@ -1,6 +1,7 @@
 import { and, desc, eq, inArray, isNull, ne, sql } from 'drizzle-orm';
 import { assessmentResults, assessments, athletes, clearances, rounds, users } from '@/db/schema';
 import { CLEARANCE_HOLDS, type ClearanceHold, type ClearanceStatus } from '@/features/care/choices';
+import { strengthBlock } from '@/features/care/strength-block';
 import type { ClearanceView } from '@/features/care/types';
 import type { ClubScope } from '@/server/access/scope';
 import type { Executor } from '@/server/screening/screening.repo';
@@ -71,8 +72,8 @@ export async function painWaiting(
   return Object.fromEntries(
     waiting
       .filter((r) => {
-        const c = decided.get(r.athleteId);
-        return !c || (c.status !== 'referred' && c.setAt < r.createdAt.toISOString());
+        const block = strengthBlock({ status: 'clearance-needed' }, decided.get(r.athleteId) ?? null, r.createdAt.toISOString());
+        return block.blocked && block.reason === 'clearance-needed';
       })
       .map((r) => [r.athleteId, { screenedOn: r.screenedOn, taskIds: [...new Set(r.taskIds)] }]),
   );

@@ -1,7 +1,8 @@
 import type { ScreenForComparison } from '@/features/progress/compare';
 import type { AssessmentResult } from '@/features/screening/engine';
 import { preparedRows } from '@/db/client';
-import type { RoundKneeAngles } from '@/db/schema';
+import { asc, eq } from 'drizzle-orm';
+import { squads, type RoundKneeAngles } from '@/db/schema';
 import type { ClubScope } from '@/server/access/scope';
 import type { Executor } from '@/server/screening/screening.repo';
 
@@ -136,6 +137,11 @@ export function progressRepo(db: Executor, scope: ClubScope) {
         [athleteId, clubId, after, before],
       );
       return row ?? { attended: 0, held: 0 };
+    },
+
+    /** The club's squads, by name. */
+    squadsOfClub() {
+      return db.select({ id: squads.id, name: squads.name }).from(squads).where(eq(squads.clubId, clubId)).orderBy(asc(squads.name));
     },
 
     /**

@@ -4,9 +4,6 @@ import { todayIso } from '@/features/athletes/age';
 import { csvRows, FILTER_KEYS, type TrendFilters } from '@/features/progress/trends';
 import { PATTERN_TITLES } from '@/features/screening/engine';
 import { accessGuards, callerClub, on, scopeOf, type Locals } from '@/server/access/guard';
-import { asc, eq } from 'drizzle-orm';
-import { squads } from '@/db/schema';
-import { watchOf, type SquadWatch } from '@/features/progress/watch';
 import { badRequest } from '@/server/http/errors';
 import { safeCsv } from '@/server/http/csv';
 import { progressService } from './progress.service';
@@ -51,14 +48,7 @@ export function progressRouter(db: Db) {
   // Every squad of the club in a few numbers (the head coach's home): each squad's trends table summed
   // by `watchOf`, so they are the trends page's own numbers.
   router.get('/trends/watch', guard('trends.read', callerClub), async (_req, res) => {
-    const scope = scopeOf(res);
-    const service = progressService(db, scope);
-    const today = todayIso();
-    const list = await db.select({ id: squads.id, name: squads.name }).from(squads).where(eq(squads.clubId, scope.clubId)).orderBy(asc(squads.name));
-    const squadsWatched: SquadWatch[] = [];
-    // One after another: a club has a handful of squads, and each season is one statement.
-    for (const s of list) squadsWatched.push(watchOf(s.id, s.name, (await service.squadTrends(s.id, today)).athletes));
-    res.json({ squads: squadsWatched });
+    res.json({ squads: await progressService(db, scopeOf(res)).squadsWatch(todayIso()) });
   });
 
   router.get('/squads/:id/trends', guard('trends.read', on('squad')), async (req, res) => {

@@ -18,6 +18,7 @@ import type { ClubScope } from '@/server/access/scope';
 import { notFound } from '@/server/http/errors';
 import type { Executor } from '@/server/screening/screening.repo';
 import { progressRepo, type HistoryRow } from './progress.repo';
+import { watchOf, type SquadWatch } from '@/features/progress/watch';
 
 export function progressService(db: Executor, scope: ClubScope) {
   const repo = progressRepo(db, scope);
@@ -62,6 +63,14 @@ export function progressService(db: Executor, scope: ClubScope) {
     },
 
     /** The squad's rounds with flag counts and knee angles, and one row per current athlete. */
+    /** Every squad of the club, each squad's trends table summed by `watchOf` (the head coach's home). */
+    async squadsWatch(today: string): Promise<SquadWatch[]> {
+      const out: SquadWatch[] = [];
+      // One after another: a club has a handful of squads, and each season is one statement.
+      for (const s of await repo.squadsOfClub()) out.push(watchOf(s.id, s.name, (await this.squadTrends(s.id, today)).athletes));
+      return out;
+    },
+
     async squadTrends(squadId: string, today: string, filters: TrendFilters = {}): Promise<TrendsResponse> {
       const season = await repo.season(squadId);
       if (!season) throw notFound('The squad');

@@ -15,9 +15,13 @@ export type Executor = PgDatabase<NodePgQueryResultHKT, typeof schema>;
  * recorded. Written with qualified names: drizzle leaves columns unqualified in a single-table query,
  * where a bare "id" inside the subquery would mean consents.id.
  */
-const consentInForceSql = (kind: 'photos' | 'screening', answer: 'c.granted' | 'not c.granted' = 'c.granted') => sql<boolean>`coalesce((
+const consentInForceSql = (
+  kind: 'photos' | 'screening',
+  answer: 'c.granted' | 'not c.granted' = 'c.granted',
+  athleteId: SQL = sql.raw('"athletes"."id"'),
+) => sql<boolean>`coalesce((
   select ${sql.raw(answer)} from consents c
-  where c.athlete_id = "athletes"."id" and c.kind = ${sql.raw(`'${kind}'`)}
+  where c.athlete_id = ${athleteId} and c.kind = ${sql.raw(`'${kind}'`)}
   order by c.created_at desc limit 1
 ), false)`;
 
@@ -51,9 +55,7 @@ export function screeningRepo(db: Executor, scope: ClubScope) {
     // Not started and allowed to start: an athlete whose family has not agreed to screening is not counted
     // as work left in the round (our choice: "0 of 13" for a squad of which 12 may be screened never
     // reached its end).
-    notStarted: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'not_started' and coalesce((
-      select c.granted from consents c where c.athlete_id = ${assessments.athleteId} and c.kind = 'screening'
-      order by c.created_at desc limit 1), false))::int`,
+    notStarted: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'not_started' and ${consentInForceSql('screening', 'c.granted', sql`${assessments.athleteId}`)})::int`,
     inProgress: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'in_progress')::int`,
     submitted: sql<number>`count(${assessments.id}) filter (where ${assessments.status} = 'submitted')::int`,
   };

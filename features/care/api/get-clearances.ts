@@ -26,16 +26,18 @@ export const clearancesQueryOptions = (clubId: string, role: Role) =>
     staleTime: CARE_STALE_MS,
   });
 
-/** The clearance in force for one athlete, from the club's map (one request for a whole list). */
-export function useClearanceOf(athleteId: string, enabled = true): ClearanceView {
+/** The club's clearances answer (one request for a whole list); nothing for parents. */
+function useClubClearances(enabled: boolean) {
   const { membership } = useActiveClub();
-  const query = useQuery({ ...clearancesQueryOptions(membership.clubId, membership.role), enabled: enabled && membership.role !== 'parent' });
-  return query.data?.clearances[athleteId] ?? null;
+  return useQuery({ ...clearancesQueryOptions(membership.clubId, membership.role), enabled: enabled && membership.role !== 'parent' }).data;
+}
+
+/** The clearance in force for one athlete, from the club's map. */
+export function useClearanceOf(athleteId: string, enabled = true): ClearanceView {
+  return useClubClearances(enabled)?.clearances[athleteId] ?? null;
 }
 
 /** Pain waiting for a physiotherapist at the athlete's newest screen, from the same answer; null when none. */
 export function usePainWaitingOf(athleteId: string, enabled = true): PainWaiting | null {
-  const { membership } = useActiveClub();
-  const query = useQuery({ ...clearancesQueryOptions(membership.clubId, membership.role), enabled: enabled && membership.role !== 'parent' });
-  return query.data?.painWaiting?.[athleteId] ?? null;
+  return useClubClearances(enabled)?.painWaiting?.[athleteId] ?? null;
 }

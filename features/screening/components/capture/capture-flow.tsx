@@ -41,6 +41,12 @@ import { InvalidFieldsContext } from './invalid-fields';
 const STEPS: readonly string[] = ['body', ...BATTERY.map((t) => t.id), 'review'];
 const TASK_COUNT = BATTERY.length;
 
+/** The field with this test id in the middle of the screen (web; nothing where there is no document). */
+function bringIntoView(testID: string) {
+  if (typeof document === 'undefined') return;
+  document.querySelector(`[data-testid="${testID}"]`)?.scrollIntoView({ block: 'center', behavior: 'smooth' });
+}
+
 /** The newest photo of each task and view. */
 function photoIndex(photos: PhotoView[]): Map<string, PhotoView> {
   const map = new Map<string, PhotoView>();
@@ -152,7 +158,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
   const [fromReview, setFromReview] = useState(asked === 'body');
   useEffect(() => {
     if (asked !== 'body' || typeof document === 'undefined') return;
-    const t = setTimeout(() => document.querySelector('[data-testid="body-one-rep-max"]')?.scrollIntoView({ block: 'center' }), 300);
+    const t = setTimeout(() => bringIntoView('body-one-rep-max'), 300);
     return () => clearTimeout(t);
   }, [asked]);
   // Fields of this step holding text that is not kept: Next stops and names them (InvalidFieldsContext).
@@ -169,7 +175,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
       setStopped([...new Set(fields.map((f) => f.label))]);
       // The first such field is brought into view (on a phone it was below the fold). Web only.
       const first = fields.find((f) => f.testID)?.testID;
-      if (first && typeof document !== 'undefined') document.querySelector(`[data-testid="${first}"]`)?.scrollIntoView({ block: 'center', behavior: 'smooth' });
+      if (first) bringIntoView(first);
       return;
     }
     // Moving on from a task means it was done, even with nothing ticked ("nothing seen"). A submitted
