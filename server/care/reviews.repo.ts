@@ -10,7 +10,8 @@ export function reviewsRepo(db: Executor, scope: ClubScope) {
   return {
     /**
      * Each athlete's newest submitted screen whose current result is not yet released (reviewed or not),
-     * of athletes still on the roster. An older screen superseded by a newer one leaves the list.
+     * or whose plan still waits for a clearance (released or not), of athletes still on the roster. An
+     * older screen superseded by a newer one leaves the list.
      */
     async openScreens() {
       const rows = await db
@@ -42,7 +43,7 @@ export function reviewsRepo(db: Executor, scope: ClubScope) {
         const seen = newest.get(r.athleteId);
         if (!seen || r.screenedOn >= seen.screenedOn) newest.set(r.athleteId, r);
       }
-      return [...newest.values()].filter((r) => r.releasedAt === null);
+      return [...newest.values()].filter((r) => r.releasedAt === null || (r.result as { plan?: { status?: string } }).plan?.status === 'clearance-needed');
     },
 
     /** Review and release state of the current result of one assessment. */

@@ -45,16 +45,17 @@ export function reviewsService(db: Db, scope: ClubScope) {
           concernCount: groups.filter((g) => g.severity === 'concern').length,
           clearance: clearance.get(r.athleteId) ?? null,
           reviewedAt: r.reviewedAt ? new Date(r.reviewedAt).toISOString() : null,
-          releasedAt: null,
+          releasedAt: r.releasedAt ? new Date(r.releasedAt).toISOString() : null,
         };
       });
       // A screen waiting for a physiotherapist's decision stays among those to review, and urgent, after it
-      // is marked reviewed, until a clearance (or a referral) is recorded (our choice: marking it reviewed
-      // had moved a child who reported pain under every screen with no flag).
+      // is marked reviewed or released, until a clearance (or a referral) is recorded (our choice: marking
+      // it reviewed had moved a child who reported pain under every screen with no flag, and releasing it
+      // had taken it off the list).
       const waits = (i: ReviewItem) => i.clearanceNeeded && i.clearance?.status !== 'referred';
       return {
-        reviews: items.filter((i) => !i.reviewedAt || waits(i)).sort(reviewOrder),
-        awaitingRelease: items.filter((i) => i.reviewedAt && !waits(i)).sort(reviewOrder),
+        reviews: items.filter((i) => waits(i) || (!i.reviewedAt && !i.releasedAt)).sort(reviewOrder),
+        awaitingRelease: items.filter((i) => i.reviewedAt && !i.releasedAt && !waits(i)).sort(reviewOrder),
       };
     },
 

@@ -266,6 +266,21 @@ describe('review list, review mark and release', () => {
     expect(decided.body.awaitingRelease.map((r: { firstName: string }) => r.firstName)).toContain('Mo');
   });
 
+  // our choice: releasing the family's summary is not a decision either; the screen stays to review.
+  it('keeps a released screen waiting for a clearance among those to review until a decision is recorded', async () => {
+    const ned = await makeAthlete(testDb.db, { clubId: ids.club!, squadId: ids.squad!, firstName: 'Ned', lastName: 'Ray' });
+    const screen = await makeSubmittedScreen(testDb.db, { clubId: ids.club!, squadId: ids.squad!, athleteId: ned.id, userId: ids.tester!, draft: painDraft() });
+    expect((await as.physio.post(`/api/assessments/${screen.assessmentId}/review`)).status).toBe(200);
+    expect((await as.physio.post(`/api/assessments/${screen.assessmentId}/release`)).status).toBe(201);
+    const released = (await as.physio.get('/api/reviews')).body;
+    const row = released.reviews.find((r: { firstName: string }) => r.firstName === 'Ned');
+    expect(row).toMatchObject({ painReported: true, clearanceNeeded: true, clearance: null });
+    expect(row.releasedAt).not.toBeNull();
+    expect((await as.physio.put(`/api/athletes/${ned.id}/clearance`).send({ status: 'cleared', detail: '' })).status).toBe(200);
+    const decided = (await as.physio.get('/api/reviews')).body;
+    expect([...decided.reviews, ...decided.awaitingRelease].map((r: { firstName: string }) => r.firstName)).not.toContain('Ned');
+  });
+
   // our choice: a later screen with no pain reported is not a clearance; the pain waits until a decision.
   it('carries pain nobody has cleared into the next screen, until a physiotherapist decides', async () => {
     const pia = await makeAthlete(testDb.db, { clubId: ids.club!, squadId: ids.squad!, firstName: 'Pia', lastName: 'Dale' });
