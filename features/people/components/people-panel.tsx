@@ -227,6 +227,13 @@ function InviteForm({ clubId }: { clubId: string }) {
               </Pressable>
             ))}
           </View>
+          {values.role ? (
+            // Said as the role is picked, not only in the last confirmation: who can open what decides the role.
+            <Text
+              variant="small"
+              testID="invite-role-reach"
+            >{`A ${ROLE_LABELS[values.role as Role].toLowerCase()} can open ${ROLE_REACH[values.role as Role]}.`}</Text>
+          ) : null}
           {touched.role && errors.role ? <Text style={{ color: colors.brick }}>{errors.role}</Text> : null}
           {values.role === 'parent' ? (
             <ChildPicker
