@@ -1,9 +1,9 @@
-import { can } from '@/features/access/permissions';
+import { can, ROLE_LABELS } from '@/features/access/permissions';
 import { Confirm } from '@/features/ui/components/confirm';
 import { Formik } from 'formik';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
-import { fieldErrorsOf, messageOf } from '@/features/api/client';
+import { api, fieldErrorsOf, messageOf } from '@/features/api/client';
 import { useActiveClub } from '@/features/session/active-club';
 import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
@@ -12,6 +12,8 @@ import { Text } from '@/features/ui/components/text';
 import { formatDate } from '@/features/ui/format-date';
 import { TextField } from '@/features/ui/components/text-field';
 import { colors, space } from '@/features/ui/theme';
+import { useQuery } from '@tanstack/react-query';
+import type { MembersResponse } from '@/features/people/contract';
 import { useLinkGuardianMutation } from '../api/link-guardian';
 import type { Athlete } from '../api/types';
 import { useUnlinkGuardianMutation } from '../api/unlink-guardian';
@@ -56,17 +58,35 @@ export function GuardiansPanel({ athlete }: { athlete: Athlete }) {
           ) : null}
         </View>
       ))}
-      {manage ? <LinkGuardian athleteId={athlete.id} name={athlete.firstName} invited={(athlete.invitedGuardians ?? []).map((i) => i.email)} /> : null}
+      {manage ? (
+        <LinkGuardian
+          clubId={membership.clubId}
+          athleteId={athlete.id}
+          name={athlete.firstName}
+          linked={guardians.map((g) => g.userId)}
+          invited={(athlete.invitedGuardians ?? []).map((i) => i.email)}
+        />
+      ) : null}
     </Card>
   );
 }
 
-function LinkGuardian({ athleteId, name, invited }: { athleteId: string; name: string; invited: string[] }) {
+function LinkGuardian({ clubId, athleteId, name, linked, invited }: { clubId: string; athleteId: string; name: string; linked: string[]; invited: string[] }) {
   const link = useLinkGuardianMutation(athleteId);
+  // The club's people (the roles that link parents read them): the confirmation names the account's holder,
+  // so a typo that hits another family's address shows as the wrong name, not only as letters.
+  // Asked here rather than through People's query module: a module two lazy screens import is loaded by
+  // the sign-in page with the shared chunk (see README, first-chunk budget).
+  const members = useQuery({
+    queryKey: ['athletes', clubId, 'club-people'],
+    queryFn: () => api<MembersResponse>(`/clubs/${clubId}/members`),
+    staleTime: 30_000,
+  });
   const [failure, setFailure] = useState<string | null>(null);
   // The e-mail checked and waiting for the admin's confirmation: one typo would open a child's record to
   // another family, so what the link gives is said before it is made.
   const [pending, setPending] = useState<string | null>(null);
+  const holder = pending ? members.data?.members.find((m) => m.email.toLowerCase() === pending.toLowerCase()) : undefined;
   return (
     <Formik<GuardianInput>
       initialValues={{ email: '' }}
@@ -77,6 +97,17 @@ function LinkGuardian({ athleteId, name, invited }: { athleteId: string; name: s
         // Already invited for this child: accepting links them; nothing to confirm or send.
         if (invited.includes(email)) {
           helpers.setErrors({ email: `${email} is invited as ${name}'s parent (above): they are linked as soon as they accept.` });
+          return;
+        }
+        const member = members.data?.members.find((m) => m.email.toLowerCase() === email.toLowerCase());
+        if (member && linked.includes(member.userId)) {
+          helpers.setErrors({ email: `${member.displayName} (${email}) is already linked to ${name}.` });
+          return;
+        }
+        if (member && member.role !== 'parent') {
+          helpers.setErrors({
+            email: `This e-mail belongs to ${member.displayName}, the club’s ${ROLE_LABELS[member.role].toLowerCase()}; only parent or guardian accounts can be linked to a child.`,
+          });
           return;
         }
         setPending(email);
@@ -101,7 +132,7 @@ function LinkGuardian({ athleteId, name, invited }: { athleteId: string; name: s
           />
           {pending ? (
             <Confirm
-              text={`Link ${pending} to ${name}? The account then sees ${name}'s shared summaries, family notes and consent decisions, and can change the family's own decisions. Check the address letter by letter.`}
+              text={`Link ${holder ? `${holder.displayName} (${pending})` : pending} to ${name}? The account then sees ${name}'s shared summaries, family notes and consent decisions, and can change the family's own decisions. Check the address letter by letter.`}
               confirmLabel="Yes, link"
               cancelLabel="Not yet"
               testID="guardian-link-confirm"
