@@ -12,6 +12,8 @@ import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { RoundsUnavailable } from './kept-rounds';
 import { RoundProgress } from './round-progress';
 import { formatDate } from '@/features/ui/format-date';
+import { courtsideSquads } from '../courtside-order';
+import { todayIsoLocal } from '../labels';
 
 const SHOWN_PER_SQUAD = 2;
 
@@ -34,10 +36,10 @@ export function OpenRounds() {
   // Squads and rounds together: a squad card drawn before its rounds arrive would say "No open round"
   // and then grow, pushing everything below it.
   if (isPending) return <Text>Loading squads…</Text>;
+  const today = todayIsoLocal();
   return (
     <View style={[styles.grid, isTabletUp && styles.gridWide]} testID="open-rounds">
-      {bySquad.map(({ squad, rounds }) => {
-        const open = rounds.filter(isOpenRound);
+      {courtsideSquads(bySquad, isOpenRound, today).map(({ squad, open }) => {
         return (
           <Card key={squad.id} style={isTabletUp ? styles.cardWide : undefined}>
             <Text variant="heading">{squad.name}</Text>
@@ -50,7 +52,7 @@ export function OpenRounds() {
               open.slice(0, SHOWN_PER_SQUAD).map((r) => (
                 <View key={r.id} style={styles.round}>
                   <Text variant="label">
-                    {r.name} · {formatDate(r.screenedOn)}
+                    {r.name} · {r.screenedOn === today ? `today, ${formatDate(r.screenedOn)}` : formatDate(r.screenedOn)}
                   </Text>
                   <RoundProgress round={r} />
                   <Link href={`/screening/rounds/${r.id}`} style={styles.primary} testID={`continue-round-${r.id}`}>
