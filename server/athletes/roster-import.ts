@@ -3,6 +3,7 @@ import { parse } from 'csv-parse/sync';
 import { ValidationError } from 'yup';
 import type { Db } from '@/db/client';
 import { todayIso } from '@/features/athletes/age';
+import { ageGroupCheck } from '@/features/athletes/age-group';
 import { ROLE_LABELS } from '@/features/access/permissions';
 import { OPTIONAL_ROSTER_COLUMNS, ROSTER_COLUMNS, ROSTER_HEADER_LINE, type RosterColumn } from '@/features/athletes/schemas';
 import { rosterRowSchema, type RosterRow } from './roster-row';
@@ -24,6 +25,8 @@ export type ReportRow = {
   action?: 'create' | 'update';
   /** For an update: what the import changes, in plain words (empty: nothing differs). */
   changes?: string[];
+  /** For a line without errors: what to look at before importing, never a refusal (a child older than the squad's name says). */
+  checks?: string[];
 };
 export type ImportReport = { rows: ReportRow[]; okCount: number; errorCount: number; createCount: number; updateCount: number };
 
@@ -212,6 +215,7 @@ async function checkRows(repo: AthletesRepo, raw: RawRow[]): Promise<CheckedRow[
     }
 
     const ok = Object.keys(errors).length === 0;
+    const ageCheck = ok && row && squadName ? ageGroupCheck(squadName, row.date_of_birth, todayIso()) : null;
     checked.push({
       line,
       ok,
@@ -233,6 +237,7 @@ async function checkRows(repo: AthletesRepo, raw: RawRow[]): Promise<CheckedRow[
                   email && member ? { email, name: member.displayName, alreadyLinked: links.has(`${existing.id}:${member.userId}`) } : undefined,
                 )
               : recordedFor(row!, email, member?.displayName),
+            ...(ageCheck ? { checks: [ageCheck] } : {}),
           }
         : {}),
     });
@@ -247,13 +252,14 @@ function inColumnOrder(errors: Record<string, string>): Record<string, string> {
 }
 
 function toReport(checked: CheckedRow[]): ImportReport {
-  const rows: ReportRow[] = checked.map(({ line, ok, errors, values, action, changes }) => ({
+  const rows: ReportRow[] = checked.map(({ line, ok, errors, values, action, changes, checks }) => ({
     line,
     ok,
     errors,
     values,
     ...(action ? { action } : {}),
     ...(changes ? { changes } : {}),
+    ...(checks ? { checks } : {}),
   }));
   const okCount = rows.filter((r) => r.ok).length;
   const updateCount = rows.filter((r) => r.action === 'update').length;

@@ -477,6 +477,21 @@ describe('CSV roster import', () => {
     expect(await athleteCount(ids.club!)).toBe(before);
   });
 
+  it('asks for a second look at a child older than the squad name says, without refusing the line', async () => {
+    // Our choice: named only a full year past the squad's age (features/athletes/age-group.ts).
+    const csv = makeRosterCsv([
+      { first_name: 'Olly', last_name: 'Older', date_of_birth: bornYearsAgo(14), squad: 'Under-13' },
+      { first_name: 'Tia', last_name: 'Thirteen', date_of_birth: bornYearsAgo(13), squad: 'Under-13' },
+      { first_name: 'Una', last_name: 'Fourteen', date_of_birth: bornYearsAgo(14), squad: 'Under-15' },
+    ]);
+    const res = await upload(as.coach, csv);
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ okCount: 3, errorCount: 0 });
+    expect(res.body.rows[0].checks).toEqual(['14 years old today, older than “Under-13” suggests: check the squad.']);
+    expect(res.body.rows[1].checks).toBeUndefined();
+    expect(res.body.rows[2].checks).toBeUndefined();
+  });
+
   it('refuses to commit a file with errors and writes nothing', async () => {
     const before = await athleteCount(ids.club!);
     const csv = makeRosterCsv([

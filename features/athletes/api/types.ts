@@ -51,6 +51,8 @@ export type ImportReportRow = {
   action?: 'create' | 'update';
   /** An update: what the import changes; a new athlete: the consents recorded and the parent account linked. In plain words. */
   changes?: string[];
+  /** A line without errors: what to look at before importing (a child older than the squad's name says); never a refusal. */
+  checks?: string[];
 };
 export type ImportReport = {
   rows: ImportReportRow[];

@@ -23,6 +23,8 @@ import {
   type Side,
 } from '../schemas';
 import { Chips } from '@/features/ui/components/chips';
+import { todayIso } from '../age';
+import { ageGroupCheck } from '../age-group';
 
 type Values = {
   firstName: string;
@@ -164,6 +166,7 @@ export function AthleteForm({
               error={show('squadId')}
             />
             {squads.isPending ? <Text variant="small">Loading squads…</Text> : null}
+            <AgeGroupCheck squadName={squads.data?.squads.find((s) => s.id === values.squadId)?.name} dateOfBirth={values.dateOfBirth} />
             <View style={[styles.actions, isTabletUp && styles.actionsWide]}>
               <Button label={submitLabel} testID="athlete-save" busy={isSubmitting} onPress={() => handleSubmit()} />
               {onCancel ? <Button label="Cancel" tone="secondary" onPress={onCancel} disabled={isSubmitting} /> : null}
@@ -183,3 +186,14 @@ const styles = StyleSheet.create({
   actions: { gap: space.sm },
   actionsWide: { flexDirection: 'row' },
 });
+
+/** A child older than the chosen squad's name says: a second look, not a refusal (the same words as the import's). */
+function AgeGroupCheck({ squadName, dateOfBirth }: { squadName: string | undefined; dateOfBirth: string }) {
+  if (!squadName || !/^\d{4}-\d{2}-\d{2}$/.test(dateOfBirth)) return null;
+  const check = ageGroupCheck(squadName, dateOfBirth, todayIso());
+  return check ? (
+    <Notice tone="caution" testID="athlete-age-group-check">
+      {check}
+    </Notice>
+  ) : null;
+}

@@ -118,6 +118,9 @@ function Report({ report }: { report: ImportReport }) {
   const bad = report.rows.filter((r) => !r.ok);
   const ready = report.rows.filter((r) => r.ok && r.action !== 'update');
   const updates = report.rows.filter((r) => r.ok && r.action === 'update');
+  const toCheck = report.rows.filter((r) => r.ok && (r.checks?.length ?? 0) > 0);
+  // The first lines, and past them every line to look at again.
+  const shownReady = [...ready.slice(0, READY_SHOWN), ...ready.slice(READY_SHOWN).filter((r) => (r.checks?.length ?? 0) > 0)];
   const total = report.rows.length;
   return (
     <View style={styles.report} testID="import-report">
@@ -127,7 +130,9 @@ function Report({ report }: { report: ImportReport }) {
         </Notice>
       ) : (
         <Notice title={`All ${total} lines are ready`} testID="import-summary">
-          Check the names below, then import.
+          {toCheck.length > 0
+            ? `Check the names below, then import. ${toCheck.length === 1 ? 'One line asks' : `${toCheck.length} lines ask`} for a second look (marked ⚠): the import does not stop for ${toCheck.length === 1 ? 'it' : 'them'}.`
+            : 'Check the names below, then import.'}
         </Notice>
       )}
       {bad.map((row) => (
@@ -156,6 +161,7 @@ function Report({ report }: { report: ImportReport }) {
               ) : (
                 <Text variant="small">Nothing changes.</Text>
               )}
+              <Checks row={row} />
             </View>
           ))}
         </View>
@@ -166,19 +172,31 @@ function Report({ report }: { report: ImportReport }) {
           <Text variant="small" testID="import-ready-totals">
             {readyTotals(ready)}
           </Text>
-          {ready.slice(0, READY_SHOWN).map((row) => (
+          {/* Lines to look at again are listed even past the first few. */}
+          {shownReady.map((row) => (
             <View key={row.line} testID="import-ready-line">
               <Text variant="small" style={styles.updateName}>
                 Line {row.line}: {personOf(row)}
                 {row.values.squad ? ` · ${row.values.squad}` : ''}
               </Text>
               {row.changes && row.changes.length > 0 ? <Text variant="small">{row.changes.join(' · ')}</Text> : null}
+              <Checks row={row} />
             </View>
           ))}
-          {ready.length > READY_SHOWN ? <Text variant="small">…and {ready.length - READY_SHOWN} more.</Text> : null}
+          {ready.length > shownReady.length ? <Text variant="small">…and {ready.length - shownReady.length} more.</Text> : null}
         </View>
       ) : null}
     </View>
+  );
+}
+
+/** What a ready line asks to look at again (a child older than the squad's name says). */
+function Checks({ row }: { row: ImportReportRow }) {
+  if (!row.checks?.length) return null;
+  return (
+    <Text variant="small" style={styles.consentChange} testID="import-check">
+      {`⚠ ${row.checks.join(' · ')}`}
+    </Text>
   );
 }
 
