@@ -42,6 +42,12 @@ export type AssessmentDraft = {
    * a questioned 1RM is used for loads only while this equals it.
    */
   oneRepMaxCheckedKg?: number | null;
+  /**
+   * Asked before anything is measured: the athlete says something hurts today. The screen then stops
+   * there (our choice: a child in pain is not screened; a physiotherapist or doctor sees them first), and
+   * it cannot be submitted while this is ticked.
+   */
+  hurtsToday?: boolean | null;
   /** Where the tester was, to resume on another phone: 'body' or a task id. */
   step?: string;
 };
@@ -139,6 +145,7 @@ export const saveDraftSchema = object({
     tasks: mixed<Record<string, unknown>>().default({}),
     oneRepMaxKg: optionalNumber(...BODY_LIMITS.oneRepMaxKg, '1RM (kg)'),
     oneRepMaxCheckedKg: optionalNumber(...BODY_LIMITS.oneRepMaxKg, 'Confirmed 1RM (kg)'),
+    hurtsToday: boolean().strict().nullable().typeError('hurtsToday must be true or false.'),
     step: string().max(64),
   })
     // Without this, yup fills a missing draft with {} and the save would wipe the tester's work.

@@ -68,6 +68,7 @@ export function validateDraft(input: SaveDraftInput['draft']): AssessmentDraft {
   const draft: AssessmentDraft = { body: input.body ?? {}, tasks };
   if (input.oneRepMaxKg !== undefined) draft.oneRepMaxKg = input.oneRepMaxKg;
   if (input.oneRepMaxCheckedKg !== undefined) draft.oneRepMaxCheckedKg = input.oneRepMaxCheckedKg;
+  if (input.hurtsToday !== undefined) draft.hurtsToday = input.hurtsToday;
   if (input.step !== undefined) draft.step = input.step;
   return draft;
 }

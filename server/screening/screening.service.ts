@@ -184,6 +184,11 @@ export async function submitAssessment(
         'draft.tasks': 'Record at least one task.',
       });
     }
+    if (a.draft.hurtsToday === true) {
+      throw badRequest('“Something hurts today” is ticked: a child in pain is not screened today. Untick it only if it was ticked by mistake.', {
+        'draft.hurtsToday': 'Something hurts today: no screen today.',
+      });
+    }
     let ageYears: number;
     try {
       ageYears = decimalAge(a.dateOfBirth, a.screenedOn);

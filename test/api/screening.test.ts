@@ -421,6 +421,29 @@ describe('submitting', () => {
     expect(res.body.error.message).toMatch(/nothing to submit/i);
   });
 
+  // Our choice: a child who says something hurts before the screen is not screened that day.
+  it('refuses a screen with “something hurts today” ticked, keeping the draft, and submits once it is unticked', async () => {
+    const round = await openRound('Hurts today', '2026-09-17');
+    const id = assessmentOf(round, ids.mia);
+    await saveDraft(id, 0, { body: {}, hurtsToday: true, tasks: { 'two-leg-squat': { criteria: [] } } });
+    const refused = await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.fields).toEqual({ 'draft.hurtsToday': 'Something hurts today: no screen today.' });
+    const [kept] = await testDb.db.select().from(assessments).where(eq(assessments.id, id));
+    expect(kept!.status).not.toBe('submitted');
+    expect((kept!.draft as { hurtsToday?: boolean }).hurtsToday).toBe(true);
+    await saveDraft(id, await versionOf(id), { body: {}, hurtsToday: null, tasks: { 'two-leg-squat': { criteria: [] } } });
+    expect((await tester.post(`/api/assessments/${id}/submit`).send({ draftVersion: await versionOf(id) })).status).toBe(200);
+  });
+
+  it('refuses a “something hurts today” that is not true or false', async () => {
+    const round = await openRound('Hurts today, bad', '2026-09-18');
+    const id = assessmentOf(round, ids.mia);
+    const res = await tester.put(`/api/assessments/${id}`).send({ draftVersion: 0, draft: { body: {}, tasks: {}, hurtsToday: 'yes' } });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields)).toContain('draft.hurtsToday');
+  });
+
   it("answers 400 with the engine's message and the draft field for impossible landmarks", async () => {
     const round = await openRound('Mirrored', '2026-09-17');
     const id = assessmentOf(round, ids.mia);

@@ -421,3 +421,48 @@ test('capture and the athlete page stop the landing task for an athlete referred
   await page.goto(`/athletes/${tove.athleteId}`);
   await expect(page.getByTestId('athlete-hold')).toContainText('Referred on');
 });
+
+// our choice (with the usual rule of stopping on pain): pain ticked on a task holds the landing task that
+// follows in the same screen, and every other task after it asks first whether anything hurts now.
+test('pain ticked during a screen stops the landing task after it and asks before each later task', async ({ page }, testInfo) => {
+  await signIn(page, 'tester@squadline.test');
+  await expect(page.getByTestId('home-tester')).toBeVisible();
+  const squads = (await (await page.request.get('/api/squads')).json()) as { squads: { id: string; name: string }[] };
+  const squad = squads.squads.find((s) => s.name === 'Under-13 mixed')!;
+  const created = await page.request.post('/api/rounds', {
+    data: { squadId: squad.id, name: `Pain today ${testInfo.project.name} ${Date.now()}`, screenedOn: '2026-09-14' },
+  });
+  expect(created.status()).toBe(201);
+  const round = (await created.json()) as { athletes: { assessmentId: string; firstName: string }[] };
+  const emil = round.athletes.find((a) => a.firstName === 'Emil')!;
+  await page.goto(`/screening/assessments/${emil.assessmentId}`);
+  await expect(page.getByTestId('step-title')).toHaveText('Body measurements');
+  await expect(page.getByTestId('capture-hold')).toHaveCount(0);
+  // Asked first: something that hurts before the screen stops it there, with the way back to the round.
+  await page.getByTestId('body-hurts-today').click();
+  await expect(page.getByTestId('body-hurts-stop')).toContainText('Do not screen Emil today');
+  await expect(page.getByTestId('step-next')).toHaveCount(0);
+  await expect(page.getByTestId('step-hurts-back')).toBeVisible();
+  await page.getByTestId('body-hurts-today').click();
+  await expect(page.getByTestId('body-hurts-stop')).toHaveCount(0);
+  await next(page, 'Task 1 of 9');
+  await expect(page.getByTestId('capture-pain-today')).toHaveCount(0);
+  await next(page, 'Task 2 of 9');
+  await page.getByTestId('task-pain').click();
+  // The task that hurt says nothing about itself; the next one asks first.
+  await expect(page.getByTestId('capture-pain-today')).toHaveCount(0);
+  await next(page, 'Task 3 of 9');
+  await expect(page.getByTestId('capture-pain-today')).toContainText('Ask Emil whether anything hurts now');
+  await next(page, 'Task 4 of 9');
+  await expect(page.getByTestId('step-title')).toHaveText('Drop landing from a low box');
+  await expect(page.getByTestId('capture-pain-today')).toContainText('Do not run this task with Emil');
+  await page.getByTestId('capture-pain-today-skip').click();
+  await expect(page.getByTestId('task-skip')).toHaveAttribute('aria-checked', 'true');
+  await expect(page.getByTestId('task-skip-reason')).toHaveValue(/^On hold: pain was reported today during the single-leg squat/i);
+  await page.screenshot({ path: testInfo.outputPath(`capture-pain-today-${testInfo.project.name}.png`) });
+  // The review lists the landing as skipped with its reason, not as a gap.
+  for (let i = 5; i <= 9; i += 1) await next(page, `Task ${i} of 9`);
+  await next(page, 'All 9 tasks');
+  await expect(page.getByTestId('review-drop-landing')).toContainText('Skipped: On hold: pain was reported today');
+  await expect(page.getByTestId('review-pain')).toContainText('Single-leg squat');
+});

@@ -1,3 +1,4 @@
+import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { ValidationError } from 'yup';
 import { BODY_LIMITS, bodySchema, saveDraftSchema, type AssessmentDraft } from '@/features/screening/contract';
@@ -5,7 +6,7 @@ import { Card } from '@/features/ui/components/card';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { useBreakpoints } from '@/features/ui/breakpoints';
-import { space } from '@/features/ui/theme';
+import { colors, space, TOUCH_MIN } from '@/features/ui/theme';
 import { NumberField } from './number-field';
 import { TickBox } from '../tick-box';
 import { MEASURE_FIRST } from './before-each-athlete';
@@ -23,7 +24,17 @@ function check(fn: () => void): string | null {
 }
 
 /** Standing height, sitting height and body mass, checked with the contract's bodySchema as they are typed. */
-export function BodyStep({ draft, update }: { draft: AssessmentDraft; update(change: (d: AssessmentDraft) => AssessmentDraft): void }) {
+export function BodyStep({
+  draft,
+  update,
+  firstName,
+  athleteId,
+}: {
+  draft: AssessmentDraft;
+  update(change: (d: AssessmentDraft) => AssessmentDraft): void;
+  firstName: string;
+  athleteId: string;
+}) {
   const { isTabletUp } = useBreakpoints();
   const body = draft.body ?? {};
   const field = (key: BodyKey, label: string, hint: string, testID: string) => (
@@ -38,6 +49,26 @@ export function BodyStep({ draft, update }: { draft: AssessmentDraft; update(cha
   );
   return (
     <View style={styles.wrap}>
+      {/* Asked first, before anything is measured or run: a child in pain is not screened today. */}
+      <Card>
+        <TickBox
+          label="Something hurts today"
+          hint={`Ask ${firstName} before anything else. Tick only if they say something hurts.`}
+          checked={draft.hurtsToday === true}
+          onChange={(on) => update((d) => ({ ...d, hurtsToday: on ? true : null }))}
+          testID="body-hurts-today"
+        />
+        {draft.hurtsToday === true ? (
+          <Notice tone="error" title={`Do not screen ${firstName} today`} testID="body-hurts-stop">
+            <View style={styles.check}>
+              <Text>{`Stop here: nothing is measured or run while something hurts. Tell the head coach and the family; a physiotherapist or doctor should see ${firstName} before the next screen.`}</Text>
+              <Link href={`/athletes/${athleteId}`} style={styles.link} testID="body-hurts-note">
+                <Text variant="label" style={styles.linkText}>{`Write what hurts in a note on ${firstName}'s page →`}</Text>
+              </Link>
+            </View>
+          </Notice>
+        ) : null}
+      </Card>
       <Notice title="Before you measure" testID="measure-first">
         {MEASURE_FIRST.map((line) => (
           <Text key={line}>• {line}</Text>
@@ -95,4 +126,6 @@ const styles = StyleSheet.create({
   grid: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg },
   cell: { flexBasis: 220, flexGrow: 1 },
   check: { gap: space.sm },
+  link: { minHeight: TOUCH_MIN, paddingVertical: space.sm },
+  linkText: { color: colors.pine },
 });

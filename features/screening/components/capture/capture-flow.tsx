@@ -35,6 +35,7 @@ import { ReviewStep } from './review-step';
 import { SaveStatusBadge } from './save-status';
 import { TaskStep } from './task-step';
 import { CaptureHoldNotice, heldTasks } from './hold-notice';
+import { heldWithPainToday } from './pain-today';
 import { useClearanceOf, usePainWaitingOf } from '@/features/care/api/get-clearances';
 import { InvalidFieldsContext } from './invalid-fields';
 
@@ -316,6 +317,14 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
                   onPress={() => void onSubmit()}
                   style={[captureStyles.barButton, captureStyles.barPrimary]}
                 />
+              ) : step === 'body' && draft.hurtsToday === true && detail.status !== 'submitted' ? (
+                // Not screened today: the way on is back to the round, for the next athlete.
+                <Button
+                  label="Next athlete: back to the round"
+                  testID="step-hurts-back"
+                  onPress={() => router.push(`/screening/rounds/${detail.roundId}`)}
+                  style={[captureStyles.barButton, captureStyles.barPrimary]}
+                />
               ) : (
                 <Button
                   label={fromReview ? 'Back to review' : 'Next'}
@@ -362,13 +371,13 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
         ) : step === 'body' ? (
           <>
             <CaptureHoldNotice athleteId={detail.athlete.id} firstName={detail.athlete.firstName} taskId={null} />
-            <BodyStep draft={draft} update={update} />
+            <BodyStep draft={draft} update={update} firstName={detail.athlete.firstName} athleteId={detail.athlete.id} />
           </>
         ) : step === 'review' ? (
           <ReviewStep
             detail={detail}
             draft={draft}
-            held={detail.status === 'submitted' ? [] : heldToday}
+            held={detail.status === 'submitted' ? [] : heldWithPainToday(heldToday, draft.tasks)}
             photoFor={photoFor}
             goTo={(target) => {
               setFromReview(true);
@@ -383,6 +392,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
                 firstName={detail.athlete.firstName}
                 taskId={task.id}
                 task={draft.tasks[task.id]}
+                tasks={draft.tasks}
                 onSkip={(reason) => updateTask(task.id, (t) => ({ ...t, skipped: true, skipReason: reason }))}
               />
             ) : null}

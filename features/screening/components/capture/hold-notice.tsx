@@ -3,14 +3,12 @@ import { useClearanceOf, usePainWaitingOf } from '@/features/care/api/get-cleara
 import type { TaskDraft } from '@/features/screening/contract';
 import type { TaskId } from '@/features/screening/engine';
 import { getTask } from '@/features/screening/engine/battery';
+import { LANDING_TASK, painEarlierToday } from './pain-today';
 import { Button } from '@/features/ui/components/button';
 import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { formatDate } from '@/features/ui/format-date';
 import { space } from '@/features/ui/theme';
-
-/** The battery's landing task: the one a hold on landing work keeps an athlete from (our choice). */
-export const LANDING_TASK: TaskId = 'drop-landing';
 
 /**
  * Why landing work waits for this athlete, in a line for the tester, or null: pain reported at the newest
@@ -54,6 +52,7 @@ export function CaptureHoldNotice({
   firstName,
   taskId,
   task,
+  tasks,
   onSkip,
 }: {
   athleteId: string;
@@ -61,13 +60,22 @@ export function CaptureHoldNotice({
   /** null on the body step. */
   taskId: TaskId | null;
   task?: TaskDraft;
+  /** This screen's tasks so far: pain ticked on one holds what follows (PainTodayNotice). */
+  tasks?: Partial<Record<TaskId, TaskDraft>>;
   onSkip?: (reason: string) => void;
 }) {
   const clearance = useClearanceOf(athleteId);
   const pain = usePainWaitingOf(athleteId);
   const reason = landingHoldReason(firstName, clearance, pain);
   const held = heldTasks(clearance, pain, firstName);
-  if (!reason || held.length === 0 || (taskId !== null && !held.includes(taskId))) return null;
+  const earlierHold = !!reason && held.length > 0 && (taskId === null || held.includes(taskId));
+  const hurtToday = taskId !== null && tasks ? painEarlierToday(tasks, taskId) : [];
+  if (!earlierHold) {
+    return hurtToday.length > 0 && taskId !== null ? (
+      <PainTodayNotice firstName={firstName} taskId={taskId} hurt={hurtToday} task={task} onSkip={onSkip} />
+    ) : null;
+  }
+  if (!reason) return null;
   if (taskId === null) {
     return (
       <Notice tone="error" title={`${firstName}: tasks to skip today`} testID="capture-hold">
@@ -86,6 +94,55 @@ export function CaptureHoldNotice({
         ) : onSkip ? (
           <Button label="Skip it: on hold" tone="secondary" testID="capture-hold-skip" onPress={() => onSkip(`On hold: ${why}.`)} />
         ) : null}
+      </View>
+    </Notice>
+  );
+}
+
+/**
+ * Pain ticked earlier in this screen: the landing task is not run (the plan will hold landing work until a
+ * physiotherapist decides); any other task only if the athlete says nothing hurts now, stopped at once if
+ * it does (our choice, with the usual rule of stopping a screen on pain).
+ */
+function PainTodayNotice({
+  firstName,
+  taskId,
+  hurt,
+  task,
+  onSkip,
+}: {
+  firstName: string;
+  taskId: TaskId;
+  hurt: TaskId[];
+  task?: TaskDraft;
+  onSkip?: (reason: string) => void;
+}) {
+  const during = hurt.map((id) => titleOf(id).replace(/^./, (c) => c.toLowerCase())).join(', the ');
+  const landing = taskId === LANDING_TASK;
+  const why = `pain was reported today during the ${during}`;
+  const action = task?.painReported ? null : task?.skipped ? (
+    <Text variant="small">Skipped, with the reason kept.</Text>
+  ) : onSkip ? (
+    <Button
+      label={landing ? 'Skip it: on hold' : 'Skip it'}
+      tone="secondary"
+      testID="capture-pain-today-skip"
+      onPress={() => onSkip(landing ? `On hold: ${why}.` : `Not run: ${why}.`)}
+    />
+  ) : null;
+  return (
+    <Notice
+      tone={landing ? 'error' : 'caution'}
+      title={landing ? `Do not run this task with ${firstName}` : `${firstName} said something hurt`}
+      testID="capture-pain-today"
+    >
+      <View style={styles.body}>
+        <Text>
+          {landing
+            ? `Landing work waits: ${why}, and the plan holds landings until a physiotherapist decides.`
+            : `Pain was reported during the ${during}. Ask ${firstName} whether anything hurts now: run this task only if nothing does, and stop at once if it hurts. Otherwise skip it.`}
+        </Text>
+        {action}
       </View>
     </Notice>
   );
