@@ -165,13 +165,14 @@ function RecordForm({
   const eligible = sheet.athletes.filter((a) => !withoutConsent(a));
   const notEligible = sheet.athletes.filter((a) => !eligible.includes(a));
   // A day already recorded starts from what was recorded (on this phone if not sent yet); a new day from
-  // everyone with a plan.
+  // everyone with a plan whose work is not on hold (our choice: a child waiting for a physiotherapist after
+  // pain, or referred on, is ticked only by someone who saw them take part in what they may still do).
   const recordOf = (day: string) => [...waiting].reverse().find((e) => e.record.heldOn === day)?.record ?? sessions.find((s) => s.heldOn === day);
   const startFor = (day: string) => {
     const earlier = recordOf(day);
     return earlier
       ? { athleteIds: earlier.athleteIds.filter((id) => eligible.some((a) => a.id === id)), note: earlier.note }
-      : { athleteIds: sheet.athletes.filter((a) => a.state === 'plan').map((a) => a.id), note: '' };
+      : { athleteIds: sheet.athletes.filter((a) => a.state === 'plan' && !a.hold).map((a) => a.id), note: '' };
   };
   const form = useFormik({
     initialValues: { heldOn: days[0]!, ...startFor(days[0]!) },
@@ -274,6 +275,14 @@ function RecordForm({
           );
         })}
       </View>
+      {!recorded && eligible.some((a) => a.state === 'plan' && a.hold) ? (
+        <Text variant="small" testID="sheet-record-held-unticked">
+          {`Not ticked to start with, their work being on hold: ${eligible
+            .filter((a) => a.state === 'plan' && a.hold)
+            .map((a) => a.name)
+            .join(', ')}. Tick them only if they took part in what they may still do.`}
+        </Text>
+      ) : null}
       {notEligible.length ? (
         <Text variant="small" testID="sheet-record-not-eligible">
           {`Not in corrective work, so not listed: ${notEligible.map((a) => `${a.name} (${a.state === 'consent-refused' ? 'family said no' : 'no consent yet'})`).join(', ')}.`}
