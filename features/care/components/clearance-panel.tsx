@@ -12,7 +12,7 @@ import { Text } from '@/features/ui/components/text';
 import { TextField } from '@/features/ui/components/text-field';
 import { space } from '@/features/ui/theme';
 import { useClearanceHistory } from '../api/get-clearance-history';
-import { useClearanceOf } from '../api/get-clearances';
+import { useClearanceOf, usePainWaitingOf } from '../api/get-clearances';
 import { useSetClearanceMutation } from '../api/set-clearance';
 import { CLEARANCE_LABELS, CLEARANCE_STATUSES, holdsWords, type ClearanceHold, type ClearanceStatus } from '../choices';
 import { clearanceSchema } from '../schemas';
@@ -50,11 +50,18 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
   // Earlier decisions stay in sight (a hold lifted left no trace on the panel), and a new one is confirmed.
   const history = useClearanceHistory(athleteId, canSet);
   const [recorded, setRecorded] = useState<string | null>(null);
-  const initialValues = { status: '' as ClearanceStatus | '', detail: '', holds: [] as ClearanceHold[] };
+  const pain = usePainWaitingOf(athleteId);
+  // What waits is chosen, never preset (our choice): "nothing held back" shown chosen had let one tap on
+  // "Record clearance" bring landing and loaded work back for a child who reported pain.
+  const initialValues = { status: '' as ClearanceStatus | '', detail: '', holds: [] as ClearanceHold[], holdChoice: '' as HoldChoice | '' };
   const form = useFormik({
     initialValues,
     validationSchema: clearanceSchema,
-    onSubmit: async (values, helpers) => {
+    onSubmit: async ({ holdChoice, ...values }, helpers) => {
+      if (values.status === 'modified' && holdChoice === '') {
+        helpers.setFieldError('holdChoice', 'Choose what waits until a new clearance, or "Nothing held back".');
+        return;
+      }
       try {
         const sent = await clearanceSchema.validate(values);
         await set.mutateAsync(sent);
@@ -92,7 +99,7 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
             value={form.values.status}
             onChange={(v) => {
               form.setFieldValue('status', v);
-              if (v !== 'modified') form.setFieldValue('holds', []);
+              if (v !== 'modified') void form.setValues({ ...form.values, status: v, holds: [], holdChoice: '' });
               // A new choice shows its own field afresh: no error for a field the user has not yet seen.
               void form.setFieldTouched('detail', false, false);
             }}
@@ -104,10 +111,24 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
               variant="form"
               label="What waits until a new clearance"
               options={HOLD_OPTIONS}
-              value={holdChoiceOf(form.values.holds)}
-              onChange={(v) => form.setFieldValue('holds', HOLD_CHOICES[v])}
+              value={form.values.holdChoice || (form.values.holds.length ? holdChoiceOf(form.values.holds) : '')}
+              onChange={(v) => void form.setValues({ ...form.values, holds: [...HOLD_CHOICES[v]], holdChoice: v })}
               testID="clearance-holds-choice"
+              error={form.errors.holdChoice}
             />
+          ) : null}
+          {pain &&
+          ((form.values.status === 'modified' && form.values.holdChoice !== '' && form.values.holdChoice !== 'both') || form.values.status === 'cleared') ? (
+            // Said before it is saved: what comes back for a child whose pain waits for this decision.
+            <Notice tone="caution" testID="clearance-pain-lifts">
+              {`Pain was reported at the screen of ${formatDate(pain.screenedOn)}. Once this is recorded, ${
+                form.values.status === 'cleared' || form.values.holdChoice === 'none'
+                  ? 'loaded strength work and jump and landing work come back'
+                  : form.values.holdChoice === 'loaded'
+                    ? 'jump and landing work comes back'
+                    : 'loaded strength work comes back'
+              } to the plan and the training sheet.`}
+            </Notice>
           ) : null}
           {form.values.status ? (
             <TextField
