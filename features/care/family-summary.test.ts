@@ -180,7 +180,7 @@ describe("clearanceWords (our wording: who decided and when, never the team's fr
   const setAt = '2026-10-02T09:15:00.000Z';
   it.each([
     ['cleared', 'Pat Lee (physiotherapist) cleared Ana on 2 October 2026 to take part as planned, with nothing changed.'],
-    ['modified', 'Pat Lee (physiotherapist) cleared Ana to train with some changes on 2 October 2026; the coaches will explain them.'],
+    ['modified', 'Pat Lee (physiotherapist) decided on 2 October 2026 that Ana can keep training, with some changes; the coaches will explain them.'],
     [
       'referred',
       'Pat Lee (physiotherapist) asked on 2 October 2026 for Ana to be seen by another health professional; loaded strength and landing work wait until then.',
@@ -193,10 +193,10 @@ describe("clearanceWords (our wording: who decided and when, never the team's fr
     const modified = (holds: ('loaded' | 'landing')[]) =>
       clearanceWords({ status: 'modified', detail: 'Patellar tendon, clinic X', holds, setByName: 'Pat Lee', setAt }, 'Ana');
     expect(modified(['landing'])).toBe(
-      'Pat Lee (physiotherapist) cleared Ana to train with some changes on 2 October 2026: jump and landing work waits for now, and the coaches will explain any other change.',
+      'Pat Lee (physiotherapist) decided on 2 October 2026 that Ana can keep training, with some changes: jump and landing work waits for now, and the coaches will explain any other change.',
     );
     expect(modified(['loaded', 'landing'])).toBe(
-      'Pat Lee (physiotherapist) cleared Ana to train with some changes on 2 October 2026: loaded strength work and landing work wait for now, and the coaches will explain any other change.',
+      'Pat Lee (physiotherapist) decided on 2 October 2026 that Ana can keep training, with some changes: loaded strength work and landing work wait for now, and the coaches will explain any other change.',
     );
   });
 

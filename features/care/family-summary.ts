@@ -187,8 +187,9 @@ export function clearanceWords(clearance: ClearanceView, firstName: string): str
       return `${who} cleared ${firstName} on ${day} to take part as planned, with nothing changed.`;
     case 'modified':
       return clearance.holds?.length
-        ? `${who} cleared ${firstName} to train with some changes on ${day}: ${holdsWords(clearance.holds).toLowerCase()} ${clearance.holds.length > 1 ? 'wait' : 'waits'} for now, and the coaches will explain any other change.`
-        : `${who} cleared ${firstName} to train with some changes on ${day}; the coaches will explain them.`;
+        ? // "Decided", not "cleared": to a parent "cleared" reads as all well, beside work that waits.
+          `${who} decided on ${day} that ${firstName} can keep training, with some changes: ${holdsWords(clearance.holds).toLowerCase()} ${clearance.holds.length > 1 ? 'wait' : 'waits'} for now, and the coaches will explain any other change.`
+        : `${who} decided on ${day} that ${firstName} can keep training, with some changes; the coaches will explain them.`;
     case 'referred':
       return `${who} asked on ${day} for ${firstName} to be seen by another health professional; loaded strength and landing work wait until then.`;
   }

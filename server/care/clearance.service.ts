@@ -1,6 +1,6 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
 import { assessmentResults, assessmentReviews, summaryReleases } from '@/db/schema';
-import { CLEARANCE_LABELS, type ClearanceStatus } from '@/features/care/choices';
+import { CLEARANCE_LABELS, holdsWords, type ClearanceStatus } from '@/features/care/choices';
 import type { ClearanceView } from '@/features/care/types';
 import { EngineInputError } from '@/features/screening/engine';
 import type { ClubScope } from '@/server/access/scope';
@@ -17,7 +17,11 @@ export function clearanceReason(clearance: NonNullable<ClearanceView>): string {
   const who = `${clearance.setByName ?? 'a physiotherapist'} set the clearance to “${CLEARANCE_LABELS[clearance.status]}” on ${formatDateInWords(clearance.setAt.slice(0, 10))}`;
   return clearance.status === 'referred'
     ? `Worked out again after ${who}: the pain reported at this screen holds back loaded strength and landing work again until a physiotherapist clears the athlete.`
-    : `Worked out again after ${who}: the pain reported at this screen no longer holds back loaded strength and landing work.`;
+    : clearance.status === 'modified' && (clearance.holds?.length ?? 0) > 0
+      ? // The pain no longer holds the work by itself; what the decision holds still waits (said, not left to a
+        // box further down to contradict).
+        `Worked out again after ${who}: the physiotherapist's decision now sets what waits: ${holdsWords(clearance.holds!).toLowerCase()} on hold until a new clearance.`
+      : `Worked out again after ${who}: the pain reported at this screen no longer holds back loaded strength and landing work.`;
 }
 
 /**

@@ -97,7 +97,7 @@ describe('pain reported, then cleared by a physiotherapist', () => {
     expect(loaded.length).toBeGreaterThan(0);
     expect(result.history).toEqual([expect.objectContaining({ version: 1, reason: null })]);
     // The engine's caution now says the athlete was cleared.
-    expect(result.result.plan.cautions.map((c: { text: string }) => c.text).join(' ')).toMatch(/A physiotherapist has cleared the athlete/);
+    expect(result.result.plan.cautions.map((c: { text: string }) => c.text).join(' ')).toMatch(/A physiotherapist has since decided how the athlete trains/);
 
     // Version 1 is stored exactly as it was made.
     const rows = await testDb.db
@@ -183,7 +183,7 @@ describe('refer on', () => {
     expect((result.result.plan.exercises as PlannedExercise[]).filter((e) => e.isJump)).toEqual([]);
     expect(result.result.plan.withheld.map((w: { name: string }) => w.name)).toEqual(expect.arrayContaining([...loaded, ...landing]));
     const cautions = result.result.plan.cautions.map((c: { text: string }) => c.text).join(' ');
-    expect(cautions).not.toMatch(/A physiotherapist has cleared the athlete/);
+    expect(cautions).not.toMatch(/A physiotherapist has since decided how the athlete trains/);
     expect(cautions).toMatch(/Until a physiotherapist clears the athlete, no loaded strength work and no landing work/);
     const care = await as.tester.get(`/api/assessments/${ids.kitScreen}/care`);
     expect(care.body.care.block).toMatchObject({ blocked: true, reason: 'referred' });
@@ -214,7 +214,7 @@ describe('refer on', () => {
     const back = (await as.parent.get(`/api/athletes/${ids.kit}/summary`)).body.latest.summary as FamilySummary;
     expect(back.onHold).toBeNull();
     expect(back.exercises.map((e) => e.name)).toEqual(expect.arrayContaining([...loaded, ...landing]));
-    expect(back.clearance).toMatch(/cleared Kit to train with some changes/);
+    expect(back.clearance).toMatch(/that Kit can keep training, with some changes/);
     expect(JSON.stringify(back)).not.toContain('drop landings for two weeks');
     const after = (await as.coach.get(`/api/assessments/${ids.kitScreen}`)).body.result;
     expect(after.version).toBe(5);
@@ -280,7 +280,7 @@ describe('train with changes, holding jump and landing work', () => {
     expect(family.exercises.map((e) => e.name)).toEqual(expect.arrayContaining(loaded));
     expect(family.onHold).toBe(`${landing.join(', ')}: on hold on the physiotherapist's advice, until they say Kit can start again.`);
     expect(family.clearance).toMatch(
-      /cleared Kit to train with some changes on .*: jump and landing work waits for now, and the coaches will explain any other change\.$/,
+      /decided on .* that Kit can keep training, with some changes: jump and landing work waits for now, and the coaches will explain any other change\.$/,
     );
     expect(JSON.stringify(family)).not.toContain('Patellar');
 

@@ -134,7 +134,7 @@ function cautionsFor(flags: readonly Flag[], ctx: PlanContext, loading: LoadingC
       id: 'pain-reported',
       text: loading.painUncleared
         ? `Pain was reported during: ${ctx.painTaskTitles.join(', ')}. Refer the athlete to a physiotherapist or doctor. Until a physiotherapist clears the athlete, no loaded strength work and no landing work: only the exercises listed here, and only where they are pain-free. Follow their advice over this plan.`
-        : `Pain was reported during: ${ctx.painTaskTitles.join(', ')}. A physiotherapist has cleared the athlete; follow their advice over this plan.`,
+        : `Pain was reported during: ${ctx.painTaskTitles.join(', ')}. A physiotherapist has since decided how the athlete trains (their decision is shown with the athlete's name); follow their advice over this plan.`,
       source: null,
     });
   }

@@ -190,7 +190,7 @@ function Header({
         <Notice tone="caution" title="Pain reported" testID="result-pain">
           {result.result.plan.status === 'clearance-needed'
             ? `${pain} No loaded strength or landing work until a physiotherapist clears the athlete.`
-            : `${pain} See the clearance above for what is in force.`}
+            : `${pain} The physiotherapist's decision in force is shown beside the name, above.`}
         </Notice>
       ) : null}
       {toCare ? (
