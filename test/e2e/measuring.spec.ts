@@ -102,4 +102,10 @@ test("a coach places one photo's points at the desk in at most 12 actions, and t
     await expect(page.getByTestId('zoom-2')).toHaveAttribute('aria-checked', 'true');
   }
   await page.screenshot({ path: testInfo.outputPath('desk-side.png') });
+
+  // Past the last photo: the end of the list is said, with a way round again (Skip had done nothing).
+  await page.getByTestId('measure-skip').click();
+  await expect(page.getByTestId('measure-round-done')).toContainText('You have been through every photo. 1 still waits');
+  await page.getByTestId('measure-again').click();
+  await expect(page.getByTestId('measure-current')).toContainText('Two-leg full squat, side photo');
 });

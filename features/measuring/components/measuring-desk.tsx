@@ -65,6 +65,9 @@ function Desk({ roundId }: { roundId?: string }) {
   const [marks, setMarks] = useState<LandmarkSet>({});
   const [error, setError] = useState<string | null>(null);
   const [saved, setSaved] = useState<string | null>(null);
+  // Every photo of the list moved past in this visit: said, with a way to go round again (the last photo's
+  // Skip and an empty Save did nothing, as if the buttons were dead).
+  const [roundDone, setRoundDone] = useState(false);
   // Points placed and not saved yet, per photo: moving to another photo (a skip, an arrow key, the list)
   // and back finds them again instead of the saved ones (they were dropped without a word).
   const drafts = useRef(new Map<string, LandmarkSet>());
@@ -129,9 +132,13 @@ function Desk({ roundId }: { roundId?: string }) {
               ? `Saved ${placed} of ${needed} points for ${current.athlete.firstName}: the result is worked out again once all are placed.`
               : `Saved for ${current.athlete.firstName}.`,
         );
+      } else {
+        setSaved(`No point placed on ${current.athlete.firstName}'s ${itemTitle(current).toLowerCase()}: it stays in the list to measure.`);
       }
       pass(id);
-      setCurrentId(followingOf(id));
+      const following = followingOf(id);
+      if (following === null) setRoundDone(true);
+      else setCurrentId(following);
     } catch (e) {
       setError(refusalWords(messageOf(e)));
     }
@@ -145,7 +152,16 @@ function Desk({ roundId }: { roundId?: string }) {
         ? `Not saved: the points placed on ${current.athlete.firstName}'s ${itemTitle(current).toLowerCase()} wait on this page until you come back to it.`
         : null,
     );
-    goTo(index + by);
+    if (by === 1 && followingOf(current.photo.id) === null) setRoundDone(true);
+    else goTo(index + by);
+  };
+
+  const goRoundAgain = () => {
+    passed.current.clear();
+    keepPassed(passed.current);
+    setRoundDone(false);
+    setSaved(null);
+    setCurrentId(items[0]?.photo.id ?? null);
   };
 
   // A refused save said where the eyes are: on a wide screen the buttons (and the notice by them) can sit
@@ -193,6 +209,24 @@ function Desk({ roundId }: { roundId?: string }) {
       </Text>
     </View>
   );
+
+  if (current && roundDone) {
+    return (
+      <View style={styles.wrap}>
+        {header}
+        {saved ? <Notice testID="measure-saved">{saved}</Notice> : null}
+        <Notice title="End of the list" testID="measure-round-done">
+          {`You have been through every photo. ${items.length} ${items.length === 1 ? 'still waits' : 'still wait'} for ${items.length === 1 ? 'its' : 'their'} points: skipped, or saved with points missing.`}
+        </Notice>
+        <View style={styles.actions}>
+          <Button label="Go through them again" testID="measure-again" onPress={goRoundAgain} style={styles.primary} />
+        </View>
+        <Link href={roundId ? `/screening/rounds/${roundId}` : '/screening'} style={styles.link}>
+          <Text style={styles.linkText}>{roundId ? '← Back to the round' : '← Screening rounds'}</Text>
+        </Link>
+      </View>
+    );
+  }
 
   if (!current) {
     return (
