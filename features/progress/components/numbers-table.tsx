@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
 import { Text } from '@/features/ui/components/text';
 import { colors, space, TOUCH_MIN } from '@/features/ui/theme';
 import { PRINT_HIDE } from '@/features/ui/print';
@@ -18,24 +18,28 @@ export function NumbersTable({ caption, columns, rows, testID }: { caption: stri
         </Text>
       </Pressable>
       {/* Hidden, it stays off paper too (print unrolls every clipped box, and it ran on into a blank page). */}
-      <View role="table" aria-label={caption} style={shown ? styles.table : styles.hidden} testID={testID} {...(shown ? {} : PRINT_HIDE)}>
-        <View role="row" style={styles.row}>
-          {columns.map((c) => (
-            <Text key={c} role="columnheader" variant="label" style={styles.cell}>
-              {c}
-            </Text>
-          ))}
-        </View>
-        {rows.map((r, i) => (
-          <View key={i} role="row" style={styles.row}>
-            {r.map((v, j) => (
-              <Text key={j} role="cell" variant="small" style={styles.cell}>
-                {String(v)}
+      {/* Cells of one width per column, so that each figure stands under its heading whatever the words;
+          a table wider than the card scrolls sideways instead of running past its edge. */}
+      <ScrollView horizontal style={shown ? undefined : styles.hidden} {...(shown ? {} : PRINT_HIDE)}>
+        <View role="table" aria-label={caption} style={shown ? styles.table : undefined} testID={testID}>
+          <View role="row" style={styles.row}>
+            {columns.map((c, j) => (
+              <Text key={c} role="columnheader" variant="label" style={[styles.cell, j === 0 && styles.first]}>
+                {c}
               </Text>
             ))}
           </View>
-        ))}
-      </View>
+          {rows.map((r, i) => (
+            <View key={i} role="row" style={styles.row}>
+              {r.map((v, j) => (
+                <Text key={j} role="cell" variant="small" style={[styles.cell, j === 0 && styles.first]}>
+                  {String(v)}
+                </Text>
+              ))}
+            </View>
+          ))}
+        </View>
+      </ScrollView>
     </View>
   );
 }
@@ -47,5 +51,6 @@ const styles = StyleSheet.create({
   // Visually hidden, still read by screen readers.
   hidden: { position: 'absolute', width: 1, height: 1, overflow: 'hidden', opacity: 0 },
   row: { flexDirection: 'row', borderBottomWidth: 1, borderColor: colors.line, paddingVertical: 2 },
-  cell: { flex: 1, paddingHorizontal: space.xs },
+  cell: { width: 96, flexShrink: 0, paddingHorizontal: space.xs },
+  first: { width: 136 },
 });
