@@ -56,3 +56,21 @@ export function daysAgo(days: number): string {
   if (days === 1) return 'yesterday';
   return `${days} days ago`;
 }
+
+/**
+ * The filters in force, in the page's words ("in growth spurt", "female"), for the line above the table,
+ * the printed report and the CSV's file name: a filtered table says what it was filtered to.
+ */
+export function filterWords(f: {
+  sex?: string;
+  ageGroup?: string;
+  maturityBand?: MaturityBand | 'unknown' | '';
+  flag?: PatternId | 'any' | 'none' | '';
+}): string[] {
+  const out: string[] = [];
+  if (f.sex) out.push(f.sex === 'female' ? 'female' : f.sex === 'male' ? 'male' : f.sex);
+  if (f.ageGroup) out.push(f.ageGroup);
+  if (f.maturityBand) out.push(BAND_LABELS[f.maturityBand].toLowerCase());
+  if (f.flag) out.push(f.flag === 'any' ? 'any movement flag' : f.flag === 'none' ? 'no movement flag' : `${PATTERN_SHORT[f.flag].toLowerCase()} flagged`);
+  return out;
+}

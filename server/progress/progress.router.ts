@@ -2,6 +2,7 @@ import { Router } from 'express';
 import type { Db } from '@/db/client';
 import { todayIso } from '@/features/athletes/age';
 import { csvRows, FILTER_KEYS, type TrendFilters } from '@/features/progress/trends';
+import { filterWords } from '@/features/progress/labels';
 import { PATTERN_TITLES } from '@/features/screening/engine';
 import { accessGuards, callerClub, on, scopeOf, type Locals } from '@/server/access/guard';
 import { badRequest } from '@/server/http/errors';
@@ -60,7 +61,7 @@ export function progressRouter(db: Db) {
       const safe = (s: string) => s.replace(/[^A-Za-z0-9-]+/g, '-').replace(/^-|-$/g, '');
       const name = safe(trends.squad.name) || 'squad';
       // A filtered table says so in its name, and does not replace the whole squad's file (our choice).
-      const narrowed = FILTER_KEYS.filter((k) => filters[k]).map((k) => safe(String(filters[k])));
+      const narrowed = filterWords(filters).map(safe);
       res.setHeader('Content-Type', 'text/csv; charset=utf-8');
       res.setHeader('Content-Disposition', `attachment; filename="${name}-trends-${trends.today}${narrowed.length ? `-only-${narrowed.join('-')}` : ''}.csv"`);
       res.send(safeCsv(csvRows(trends.athletes, trends)));

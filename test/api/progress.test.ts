@@ -249,7 +249,7 @@ describe('GET /api/squads/:id/trends', () => {
     const csv = await as.coach.get(`/api/squads/${ids.squad}/trends?format=csv&flag=none`).expect(200);
     expect(csv.headers['content-type']).toMatch(/^text\/csv/);
     // The filter in the file's name (our choice): it does not replace the whole squad's file.
-    expect(csv.headers['content-disposition']).toMatch(/attachment; filename="Under-13-Girls-trends-\d{4}-\d{2}-\d{2}-only-none\.csv"/);
+    expect(csv.headers['content-disposition']).toMatch(/attachment; filename="Under-13-Girls-trends-\d{4}-\d{2}-\d{2}-only-no-movement-flag\.csv"/);
     const whole = await as.coach.get(`/api/squads/${ids.squad}/trends?format=csv`).expect(200);
     expect(whole.headers['content-disposition']).toMatch(/attachment; filename="Under-13-Girls-trends-\d{4}-\d{2}-\d{2}\.csv"/);
     const lines = csv.text.trim().split('\n');

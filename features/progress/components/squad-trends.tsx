@@ -9,7 +9,7 @@ import { Notice } from '@/features/ui/components/notice';
 import { Text } from '@/features/ui/components/text';
 import { space } from '@/features/ui/theme';
 import { squadTrendsCsvUrl, useSquadTrendsQuery } from '../api/get-squad-trends';
-import { BAND_LABELS, kneeAngleName, PATTERN_SHORT } from '../labels';
+import { BAND_LABELS, filterWords, kneeAngleName, PATTERN_SHORT } from '../labels';
 import {
   AGE_GROUPS,
   defaultRoundPair,
@@ -215,7 +215,8 @@ function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.Re
   const table = (
     <View style={styles.stack}>
       <Text variant="small" testID="row-count">
-        {rows.length} of {data.athletes.length} athletes · counted on {formatDate(data.today)}
+        {rows.length} of {data.athletes.length} athletes
+        {active > 0 ? ` · only ${filterWords(filters).join(', ')}` : ''} · counted on {formatDate(data.today)}
       </Text>
       {rows.length === 0 && active > 0 ? (
         <Notice title="No athlete matches these filters" testID="trends-no-match">
