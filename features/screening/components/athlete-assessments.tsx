@@ -4,7 +4,6 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { useAthleteAssessmentsQuery } from '@/features/screening/api/get-athlete-assessments';
 import type { AthleteAssessmentItem } from '@/features/screening/contract';
-import type { Flag } from '@/features/screening/engine';
 import { useActiveClub } from '@/features/session/active-club';
 import { Button } from '@/features/ui/components/button';
 import { Card } from '@/features/ui/components/card';
@@ -14,30 +13,7 @@ import { colors, fonts, radius, space, TOUCH_MIN } from '@/features/ui/theme';
 import { assessmentHref } from '@/features/screening/assessment-href';
 import { SeverityTag, StatusTag } from './status-tag';
 import { formatDate } from '@/features/ui/format-date';
-
-type FlagGroup = { key: string; flag: Flag; sides: Set<string>; count: number };
-
-/** One line per pattern and severity: the same pattern seen in several tasks is one finding here. */
-export function groupFlags(flags: Flag[]): FlagGroup[] {
-  const groups = new Map<string, FlagGroup>();
-  for (const f of flags) {
-    const key = `${f.pattern}|${f.severity}`;
-    const g = groups.get(key) ?? { key, flag: f, sides: new Set<string>(), count: 0 };
-    if (f.side === 'both') {
-      g.sides.add('left');
-      g.sides.add('right');
-    } else if (f.side) g.sides.add(f.side);
-    g.count += 1;
-    groups.set(key, g);
-  }
-  return [...groups.values()].sort((a, b) => (a.flag.severity === b.flag.severity ? 0 : a.flag.severity === 'concern' ? -1 : 1));
-}
-
-function sidesText(sides: Set<string>): string {
-  if (sides.size === 2) return 'both sides';
-  if (sides.size === 1) return `${[...sides][0]} side`;
-  return '';
-}
+import { groupFlags, sidesText } from '@/features/screening/flag-lines';
 
 const newestFirst = (a: AthleteAssessmentItem, b: AthleteAssessmentItem) =>
   b.screenedOn.localeCompare(a.screenedOn) || (b.submittedAt ?? '').localeCompare(a.submittedAt ?? '');
