@@ -18,6 +18,7 @@ export async function deviceBacked<T>(key: string, scope: string, fetcher: () =>
   if (connectivity.isOnline()) {
     try {
       const data = await fetcher();
+      connectivity.setReachable(true);
       const where = keep(data);
       if (where)
         await store()
@@ -26,6 +27,8 @@ export async function deviceBacked<T>(key: string, scope: string, fetcher: () =>
       return data;
     } catch (e) {
       if (!(e instanceof ApiError) || e.status !== 0) throw e;
+      // No answer at all: the device is offline whatever the browser says (device.ts probes until back).
+      if (e.code === 'offline') connectivity.setReachable(false);
     }
   }
   const kept = await store()

@@ -2,7 +2,7 @@
 // singletons the screens use. Features register how each kind of change is sent (`registerSender`), so
 // this folder knows nothing of screening. Loaded only through `loadDevice()` (device-handle.ts): screens
 // import the handle, never this module, so the store stays out of the chunk every page loads.
-import { ApiError } from '@/features/api/client';
+import { ApiError, apiUrl } from '@/features/api/client';
 import { checkPhotoBudget, PHOTO_BUDGET_BYTES } from './budget';
 import { connectivity, notifyDeviceWipe, setDeviceSession } from './device-handle';
 import { deviceDrafts, deviceMeta, devicePhotos, hasIndexedDb, idbOutboxStorage, wipeDevice, type StoredPhoto } from './device-store';
@@ -49,9 +49,43 @@ export const outbox = new Outbox({
     const sender = senders.get(entry.kind);
     // Not loaded yet (the screens that register it load lazily): try again shortly.
     if (!sender) throw new ApiError(0, 'not_ready', 'Getting ready to send.');
-    await sender(entry);
+    try {
+      await sender(entry);
+    } catch (e) {
+      // No answer at all: offline, whatever the browser says; any answer, even a refusal, is a connection.
+      connectivity.setReachable(e instanceof ApiError && e.status === 0 && e.code === 'offline' ? false : true);
+      throw e;
+    }
+    connectivity.setReachable(true);
   },
 });
+
+/**
+ * While the server could not be reached and the browser still says it is online (a hall's Wi-Fi with no
+ * way out), asks the health route every few seconds (our choice: 5 s) and once the browser says it is
+ * back, so that the status and the outbox follow the connection when it returns.
+ */
+const PROBE_MS = 5_000;
+let probe: ReturnType<typeof setInterval> | null = null;
+const tryReach = () =>
+  void fetch(apiUrl('/health'), { cache: 'no-store', credentials: 'include' }).then(
+    () => connectivity.setReachable(true),
+    () => undefined,
+  );
+const followReach = () => {
+  const browserOnline = typeof navigator === 'undefined' || navigator.onLine !== false;
+  const stuck = browserOnline && !connectivity.isOnline();
+  if (stuck && probe === null) {
+    tryReach();
+    probe = setInterval(tryReach, PROBE_MS);
+  } else if (!stuck && probe !== null) {
+    clearInterval(probe);
+    probe = null;
+  }
+};
+connectivity.subscribe(followReach);
+// Found unreachable before this module loaded (a kept round read first): probe from now.
+followReach();
 
 /** When the connection last came back (ms), for `waitedOnPhone`; null while it has not gone. */
 let backOnlineAt: number | null = null;
