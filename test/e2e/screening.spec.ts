@@ -83,6 +83,8 @@ test('a tester screens an athlete from a new round to the result, and it all sur
   await expect(page.getByTestId('step-invalid')).toContainText('Fix or clear first: Standing height (cm)');
   await expect(page.getByTestId('step-title')).toHaveText('Body measurements');
   await expect(page.getByTestId('body-stature')).toHaveValue('1520');
+  // The save badge does not say "saved" beside it.
+  await expect(page.getByTestId('save-status')).toHaveText('1 field not kept');
   await page.getByTestId('body-stature').fill('152');
   await expect(page.getByTestId('step-invalid')).toHaveCount(0);
   await page.getByTestId('body-sitting').fill('79,5');
@@ -329,11 +331,12 @@ test('a result groups flags by pattern and side and shows the caution for an unk
   await page.screenshot({ path: testInfo.outputPath(`result-plan-${testInfo.project.name}.png`), fullPage: false });
   await page.screenshot({ path: testInfo.outputPath(`result-full-${testInfo.project.name}.png`), fullPage: true });
 
-  // A tester cannot go past a limit in the plan editor: four sets is refused with the reason.
+  // A tester cannot go past a limit in the plan editor: at the youth limit "+ set" stops, said beside it.
   await page.getByTestId('plan-adjust').click();
   const firstMore = page.locator('[data-testid^="more-sets-"]').first();
-  for (let i = 0; i < 4; i += 1) await firstMore.click();
-  await expect(page.getByTestId('plan-editor-error')).toContainText('Only a head coach or a physiotherapist');
+  for (let i = 0; i < 4 && (await firstMore.isEnabled()); i += 1) await firstMore.click();
+  await expect(firstMore).toBeDisabled();
+  await expect(page.locator('[data-testid^="at-limit-sets-"]').first()).toHaveText('Most sets allowed for this athlete.');
 
   // No 1RM on record: the plan leads to the screen's first step, where one is entered.
   await page.reload();

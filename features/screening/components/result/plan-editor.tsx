@@ -93,6 +93,11 @@ export function PlanEditor({ assessmentId, start, startNote, startOverrides, bas
     <View style={styles.wrap} testID="plan-editor">
       {list.map((ex, i) => {
         const own = breaches.filter((b) => b.exerciseId === ex.id);
+        // At a limit a tester may not pass: said at the button, which stays pressed-looking no more (the
+        // refusal was shown by the Save button, a screen further down).
+        const blocked = (next: PlannedExercise) => !canOverride && next !== ex && goesPastLimit(ex, next, loading);
+        const heavierBlocked = blocked(shiftLoad(ex, 1));
+        const moreSetsBlocked = blocked(shiftSets(ex, 1));
         return (
           <View key={ex.id} style={[styles.item, own.length > 0 && styles.itemPast]} testID={`edit-exercise-${ex.id}`}>
             <Text variant="label">
@@ -106,9 +111,15 @@ export function PlanEditor({ assessmentId, start, startNote, startOverrides, bas
                 label="+ set"
                 accessibilityLabel={`One set more for ${ex.name}`}
                 testID={`more-sets-${ex.id}`}
+                disabled={moreSetsBlocked}
                 onPress={() => change(i, shiftSets(ex, 1))}
               />
             </View>
+            {moreSetsBlocked ? (
+              <Text variant="small" testID={`at-limit-sets-${ex.id}`}>
+                Most sets allowed for this athlete.
+              </Text>
+            ) : null}
             <Text variant="small">Load: {loadText(ex.prescription.load)}</Text>
             {canShiftLoad(ex) ? (
               <View style={styles.row}>
@@ -118,9 +129,15 @@ export function PlanEditor({ assessmentId, start, startNote, startOverrides, bas
                   label="Heavier"
                   accessibilityLabel={`Heavier load for ${ex.name}`}
                   testID={`heavier-${ex.id}`}
+                  disabled={heavierBlocked}
                   onPress={() => change(i, shiftLoad(ex, 1))}
                 />
               </View>
+            ) : null}
+            {canShiftLoad(ex) && heavierBlocked ? (
+              <Text variant="small" testID={`at-limit-load-${ex.id}`}>
+                Heaviest load allowed for this athlete: the youth and growth-spurt limits stop it here.
+              </Text>
             ) : null}
             {own.map((b) => (
               <View key={breachKey(b)} style={styles.breach} testID={`breach-${ex.id}-${b.limit}`}>
