@@ -153,7 +153,18 @@ export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, on
             }
             checked={skipped}
             disabled={t.painReported === true && !skipped}
-            onChange={(on) => onChange((d) => ({ ...d, skipped: on }))}
+            onChange={(on) => {
+              onChange((d) => ({ ...d, skipped: on }));
+              // The reason's field opens below the fold on a phone, under the step's bar: brought to the
+              // middle of the screen and focused, so that the reason is not passed by (web only).
+              if (on && !t.skipReason?.trim() && typeof document !== 'undefined') {
+                setTimeout(() => {
+                  const field = document.querySelector<HTMLElement>('[data-testid="task-skip-reason"]');
+                  field?.scrollIntoView({ block: 'center', behavior: 'smooth' });
+                  field?.focus({ preventScroll: true });
+                }, 50);
+              }
+            }}
             testID="task-skip"
           />
           {skipped ? (
