@@ -165,9 +165,12 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
   // Fields of this step holding text that is not kept: Next stops and names them (InvalidFieldsContext).
   const invalid = useRef(new Map<string, { label: string; testID?: string }>());
   const [stopped, setStopped] = useState<string[] | null>(null);
+  // How many, for the save badge: "saved" beside a value that is not kept read as if it were.
+  const [notKept, setNotKept] = useState(0);
   const report = useCallback((fieldId: string, label: string | null, testID?: string) => {
     if (label) invalid.current.set(fieldId, { label, testID });
     else invalid.current.delete(fieldId);
+    setNotKept(invalid.current.size);
     if (invalid.current.size === 0) setStopped(null);
   }, []);
   const next = () => {
@@ -278,7 +281,7 @@ function Capture({ detail, draftState }: { detail: AssessmentDetail; draftState:
                   ← {detail.roundName}
                 </Text>
               </Link>
-              <SaveStatusBadge status={status} />
+              <SaveStatusBadge status={status} notKept={notKept} />
             </View>
             <Text variant="heading" accessibilityRole="header" testID="step-title">
               {title}

@@ -20,11 +20,13 @@ export function saveStatusText(status: SaveStatus): string {
 }
 
 /** Always visible while capturing: whether the server has everything typed. */
-export function SaveStatusBadge({ status }: { status: SaveStatus }) {
-  const bad = status.kind === 'retrying' || status.kind === 'refused';
+export function SaveStatusBadge({ status, notKept = 0 }: { status: SaveStatus; notKept?: number }) {
+  const bad = status.kind === 'retrying' || status.kind === 'refused' || notKept > 0;
+  // Fields holding text out of range are not saved: said here too, where "saved" is read.
+  const text = notKept > 0 ? `${notKept === 1 ? '1 field' : `${notKept} fields`} not kept` : saveStatusText(status);
   return (
     <View style={[styles.badge, bad ? styles.bad : status.kind === 'saved' ? styles.ok : styles.busy]} accessibilityLiveRegion="polite" testID="save-status">
-      <Text style={[styles.text, bad && styles.badText]}>{saveStatusText(status)}</Text>
+      <Text style={[styles.text, bad && styles.badText]}>{text}</Text>
     </View>
   );
 }
