@@ -2,7 +2,7 @@ import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 import { ageInYears, todayIso } from '@/features/athletes/age';
 import { can } from '@/features/access/permissions';
-import { ClearanceBadge } from '@/features/care/components/clearance-badge';
+import { ClearanceBadge, PainWaitingTag } from '@/features/care/components/clearance-badge';
 import { useActiveClub } from '@/features/session/active-club';
 import { Text } from '@/features/ui/components/text';
 import { colors, radius, space, TOUCH_MIN } from '@/features/ui/theme';
@@ -26,6 +26,8 @@ export function AthleteRow({ athlete }: { athlete: Athlete }) {
           <Text variant="small">
             {ageInYears(athlete.dateOfBirth, todayIso())} y · {athlete.sex === 'female' ? 'F' : 'M'} · racket {athlete.racketHand}
           </Text>
+          {/* Pain waiting for a physiotherapist is named in the list too (it looked like a child with nothing to note). */}
+          <PainWaitingTag athleteId={athlete.id} />
           <ClearanceBadge clearance={athlete.clearance} />
         </View>
         {athlete.archived ? (

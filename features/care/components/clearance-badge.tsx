@@ -32,19 +32,24 @@ export function ClearanceBadge({ clearance }: { clearance: ClearanceView }) {
  * tag while pain reported at the newest screen waits for a physiotherapist's decision.
  */
 export function AthleteClearanceBadge({ athleteId }: { athleteId: string }) {
-  const pain = usePainWaitingOf(athleteId);
   return (
     <>
-      {pain ? (
-        <View style={[styles.tag, styles.stop]} testID="pain-waiting-badge">
-          <Text variant="small" style={styles.text} numberOfLines={1}>
-            Pain: no physio decision yet
-          </Text>
-        </View>
-      ) : null}
+      <PainWaitingTag athleteId={athleteId} />
       <ClearanceBadge clearance={useClearanceOf(athleteId)} />
     </>
   );
+}
+
+/** Pain reported at the athlete's newest screen with no physiotherapist's decision since; nothing otherwise. */
+export function PainWaitingTag({ athleteId }: { athleteId: string }) {
+  const pain = usePainWaitingOf(athleteId);
+  return pain ? (
+    <View style={[styles.tag, styles.stop]} testID="pain-waiting-badge">
+      <Text variant="small" style={styles.text} numberOfLines={1}>
+        Pain: no physio decision yet
+      </Text>
+    </View>
+  ) : null;
 }
 
 const styles = StyleSheet.create({
