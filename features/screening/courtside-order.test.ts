@@ -17,7 +17,7 @@ const squad = (id: string) => ({ id, name: id, athleteCount: 4 }) as never;
 const isOpen = (r: RoundSummary) => r.counts.not_started > 0;
 
 describe('courtside order of open rounds', () => {
-  it("puts today's round first, then earlier days newest first, then later days soonest first", () => {
+  it("puts today's round first, then the coming days soonest first, then earlier days newest first", () => {
     const rounds = [
       round('next-week', 's', '2026-12-12'),
       round('tomorrow', 's', '2026-12-06'),
@@ -25,7 +25,7 @@ describe('courtside order of open rounds', () => {
       round('today', 's', '2026-12-05'),
       round('last-week', 's', '2026-11-28'),
     ];
-    expect(courtsideRounds(rounds, '2026-12-05').map((r) => r.id)).toEqual(['today', 'last-week', 'old', 'tomorrow', 'next-week']);
+    expect(courtsideRounds(rounds, '2026-12-05').map((r) => r.id)).toEqual(['today', 'tomorrow', 'next-week', 'last-week', 'old']);
   });
 
   it('puts the squad screening today first and keeps the club order among the others', () => {
@@ -38,7 +38,7 @@ describe('courtside order of open rounds', () => {
       { squad: squad('F'), rounds: [round('f-recent', 'F', '2026-12-01')] },
     ];
     const ordered = courtsideSquads(bySquad, isOpen, '2026-12-05');
-    expect(ordered.map((s) => s.squad.id)).toEqual(['D', 'F', 'C', 'B', 'A', 'E']);
+    expect(ordered.map((s) => s.squad.id)).toEqual(['D', 'B', 'F', 'C', 'A', 'E']);
     expect(ordered[0]!.open.map((r) => r.id)).toEqual(['d-today', 'd-old']);
     // A round with everyone submitted is not open: squad A shows no open round.
     expect(ordered.find((s) => s.squad.id === 'A')!.open).toEqual([]);

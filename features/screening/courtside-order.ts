@@ -2,18 +2,21 @@ import type { SquadWithRounds } from '@/features/screening/api/get-rounds';
 import type { RoundSummary } from '@/features/screening/contract';
 
 /**
- * The order a tester meets the open rounds on their home (our choice): today's round first, then the
- * rounds already begun on earlier days, newest first, then rounds planned for a later day, soonest first.
- * Squads follow their first round: a squad screening today comes first, so the card a tester needs in the
- * hall is the first on the phone. Squads with no open round keep the club's order, after the others.
+ * The order a tester meets the open rounds on their home (our choice): today's round first, then rounds
+ * planned for the coming days, soonest first, then rounds left open from earlier days, newest first (the
+ * leftovers, not the work at hand). Squads follow their first round: a squad screening today comes first,
+ * so the card a tester needs in the hall is the first on the phone. Squads with no open round keep the
+ * club's order, after the others.
  */
+const rankOf = (day: string, today: string) => (day === today ? 0 : day > today ? 1 : 2);
+
 export function courtsideRounds(open: RoundSummary[], today: string): RoundSummary[] {
-  const rank = (r: RoundSummary) => (r.screenedOn === today ? 0 : r.screenedOn < today ? 1 : 2);
   return [...open].sort((a, b) => {
-    const byRank = rank(a) - rank(b);
+    const ra = rankOf(a.screenedOn, today);
+    const byRank = ra - rankOf(b.screenedOn, today);
     if (byRank !== 0) return byRank;
-    // Earlier days newest first; later days soonest first.
-    return rank(a) === 2 ? a.screenedOn.localeCompare(b.screenedOn) : b.screenedOn.localeCompare(a.screenedOn);
+    // Coming days soonest first; earlier days newest first.
+    return ra === 1 ? a.screenedOn.localeCompare(b.screenedOn) : b.screenedOn.localeCompare(a.screenedOn);
   });
 }
 
@@ -23,16 +26,15 @@ export function courtsideSquads(bySquad: SquadWithRounds[], isOpen: (r: RoundSum
   const withOpen = bySquad.map((s, index) => ({ ...s, open: courtsideRounds(s.rounds.filter(isOpen), today), index }));
   const key = (s: (typeof withOpen)[number]) => {
     const first = s.open[0];
-    if (!first) return { rank: 3, day: '' };
-    return { rank: first.screenedOn === today ? 0 : first.screenedOn < today ? 1 : 2, day: first.screenedOn };
+    return first ? { rank: rankOf(first.screenedOn, today), day: first.screenedOn } : { rank: 3, day: '' };
   };
   return withOpen
     .sort((a, b) => {
       const ka = key(a);
       const kb = key(b);
       if (ka.rank !== kb.rank) return ka.rank - kb.rank;
-      if (ka.rank === 1 && ka.day !== kb.day) return kb.day.localeCompare(ka.day);
-      if (ka.rank === 2 && ka.day !== kb.day) return ka.day.localeCompare(kb.day);
+      if (ka.rank === 1 && ka.day !== kb.day) return ka.day.localeCompare(kb.day);
+      if (ka.rank === 2 && ka.day !== kb.day) return kb.day.localeCompare(ka.day);
       return a.index - b.index;
     })
     .map(({ index: _index, ...s }) => s);

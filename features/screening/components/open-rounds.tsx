@@ -49,14 +49,16 @@ export function OpenRounds() {
                 <Text style={styles.secondaryText}>No open round. Open one →</Text>
               </Link>
             ) : (
-              open.slice(0, SHOWN_PER_SQUAD).map((r) => (
+              // One big button per squad, for the round that comes first (today's); an older round's way in
+              // is a plain link, so the two are not mistaken for each other.
+              open.slice(0, SHOWN_PER_SQUAD).map((r, k) => (
                 <View key={r.id} style={styles.round}>
                   <Text variant="label">
                     {r.name} · {r.screenedOn === today ? `today, ${formatDate(r.screenedOn)}` : formatDate(r.screenedOn)}
                   </Text>
                   <RoundProgress round={r} />
-                  <Link href={`/screening/rounds/${r.id}`} style={styles.primary} testID={`continue-round-${r.id}`}>
-                    <Text style={styles.primaryText}>{isUntouchedRound(r) ? 'Start screening' : 'Continue screening'}</Text>
+                  <Link href={`/screening/rounds/${r.id}`} style={k ? styles.secondary : styles.primary} testID={`continue-round-${r.id}`}>
+                    <Text style={k ? styles.secondaryText : styles.primaryText}>{isUntouchedRound(r) ? 'Start screening' : 'Continue screening'}</Text>
                   </Link>
                 </View>
               ))
