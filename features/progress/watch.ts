@@ -1,6 +1,6 @@
 // A squad's season reduced to what a head coach acts on first. Pure: the server sums each squad's trends
 // table (squadTrends) with it, so the home's numbers are the trends page's numbers.
-import type { TrendAthlete } from './trends';
+import type { SortKey, TrendAthlete } from './trends';
 
 export type SquadWatch = {
   squadId: string;
@@ -35,16 +35,18 @@ export function watchOf(squadId: string, name: string, athletes: readonly TrendA
 }
 
 /** One squad's numbers in words, the most held back first; only what is not nought (our wording). */
-export function watchLines(w: SquadWatch): { text: string; stop: boolean }[] {
-  const lines: { text: string; stop: boolean }[] = [];
-  if (w.painWaiting) lines.push({ text: `${w.painWaiting} with pain reported, waiting for a physiotherapist`, stop: true });
-  if (w.referred) lines.push({ text: `${w.referred} referred on by the physiotherapist`, stop: true });
-  if (w.withChanges) lines.push({ text: `${w.withChanges} training with the physiotherapist's changes`, stop: false });
-  if (w.growthSpurt) lines.push({ text: `${w.growthSpurt} in the growth-spurt window: loads capped, landings halved`, stop: false });
+export function watchLines(w: SquadWatch): { text: string; stop: boolean; open: { sort?: SortKey; band?: 'circa' } }[] {
+  // `open`: how the squad's trends table opens from the line, to show who (our choice).
+  const lines: { text: string; stop: boolean; open: { sort?: SortKey; band?: 'circa' } }[] = [];
+  if (w.painWaiting) lines.push({ text: `${w.painWaiting} with pain reported, waiting for a physiotherapist`, stop: true, open: { sort: 'clearance' } });
+  if (w.referred) lines.push({ text: `${w.referred} referred on by the physiotherapist`, stop: true, open: { sort: 'clearance' } });
+  if (w.withChanges) lines.push({ text: `${w.withChanges} training with the physiotherapist's changes`, stop: false, open: { sort: 'clearance' } });
+  if (w.growthSpurt) lines.push({ text: `${w.growthSpurt} in the growth-spurt window: loads capped, landings halved`, stop: false, open: { band: 'circa' } });
   if (w.rescreenDue || w.rescreenPlanned)
     lines.push({
       text: `${w.rescreenDue + w.rescreenPlanned} due a re-screen${w.rescreenPlanned ? ` (${w.rescreenPlanned} already in an open round)` : ''}`,
       stop: false,
+      open: { sort: 'rescreenDue' },
     });
   return lines;
 }

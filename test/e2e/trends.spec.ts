@@ -216,8 +216,20 @@ test("the head coach's home says what to act on in each squad, as the trends tab
     const trends = (await (await page.request.get(`/api/squads/${w.squadId}/trends`)).json()) as { athletes: { awaitingClearance: boolean }[] };
     expect(trends.athletes.filter((a) => a.awaitingClearance).length).toBe(w.painWaiting);
   }
+  // A line opens the squad's table sorted to show who (the demo refers one athlete on).
+  const withReferral = watch.squads.find((w) => w.referred > 0)!;
+  await page
+    .getByTestId(`squad-watch-${withReferral.squadId}`)
+    .getByRole('link', { name: /referred on/ })
+    .click();
+  await expect(page).toHaveURL(new RegExp(`/trends\\?squad=${withReferral.squadId}&sort=clearance`));
+  await expect(page.getByTestId('row-count')).toBeVisible();
+  await page.goBack();
   const first = watch.squads[0]!;
-  await page.getByTestId(`squad-watch-${first.squadId}`).getByRole('link').click();
+  await page
+    .getByTestId(`squad-watch-${first.squadId}`)
+    .getByRole('link', { name: /trends and who/ })
+    .click();
   await expect(page).toHaveURL(new RegExp(`/trends\\?squad=${first.squadId}`));
   await page.screenshot({ path: info.outputPath('trends-from-home.png') });
 });

@@ -19,10 +19,10 @@ export function LazyAthleteProgress({ athleteId }: { athleteId: string }) {
 }
 
 /** The squad trends view and its charts. */
-export function LazySquadTrends({ initialSquadId }: { initialSquadId?: string }) {
+export function LazySquadTrends({ initialSquadId, start }: { initialSquadId?: string; start?: { sort?: string; band?: string } }) {
   return (
     <Suspense fallback={<Text>Loading squad trends…</Text>}>
-      <TrendsScreen initialSquadId={initialSquadId} />
+      <TrendsScreen initialSquadId={initialSquadId} start={start} />
     </Suspense>
   );
 }

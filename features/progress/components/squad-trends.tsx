@@ -39,7 +39,10 @@ const SORT_LABELS: Record<SortKey, string> = {
 };
 
 /** The squad over the season: filterable table beside the charts on wide screens, cards then charts on a phone. */
-export default function SquadTrends({ initialSquadId }: { initialSquadId?: string }) {
+/** Where a link asks the table to start: a sort, a maturity band (unknown values are ignored). */
+export type TrendsStart = { sort?: string; band?: string };
+
+export default function SquadTrends({ initialSquadId, start }: { initialSquadId?: string; start?: TrendsStart }) {
   usePrintStyles();
   useFitToOnePage();
   const squads = useSquadsQuery();
@@ -76,6 +79,7 @@ export default function SquadTrends({ initialSquadId }: { initialSquadId?: strin
         <TrendsBody
           key={trends.data.squad.id}
           data={trends.data}
+          start={trends.data.squad.id === initialSquadId ? start : undefined}
           compare={
             <View style={styles.compare}>
               <View {...PRINT_HIDE}>
@@ -110,14 +114,19 @@ function TwoSquads({ a, b }: { a: TrendsResponse; b: TrendsResponse }) {
   );
 }
 
-function TrendsBody({ data, compare }: { data: TrendsResponse; compare: React.ReactNode }) {
+function TrendsBody({ data, compare, start }: { data: TrendsResponse; compare: React.ReactNode; start?: TrendsStart }) {
   // Printed from a phone, the report takes the wide layout (the table, not the cards) for the page.
   const printing = usePrinting();
   const breakpoints = useBreakpoints();
   const isWide = breakpoints.isWide || printing;
   const isTabletUp = breakpoints.isTabletUp || printing;
-  const [filters, setFilters] = useState<Required<TrendFilters>>({ sex: '', ageGroup: '', maturityBand: '', flag: '' });
-  const [sort, setSort] = useState<SortKey>('name');
+  const [filters, setFilters] = useState<Required<TrendFilters>>(() => ({
+    sex: '',
+    ageGroup: '',
+    maturityBand: start?.band && start.band in BAND_LABELS ? (start.band as MaturityBand | 'unknown') : '',
+    flag: '',
+  }));
+  const [sort, setSort] = useState<SortKey>(() => (start?.sort && start.sort in SORT_LABELS ? (start.sort as SortKey) : 'name'));
   const [descending, setDescending] = useState(false);
   const [showFilters, setShowFilters] = useState(false);
   const rows = useMemo(() => sortAthletes(filterAthletes(data.athletes, filters), sort, descending), [data.athletes, filters, sort, descending]);

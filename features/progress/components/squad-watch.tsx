@@ -34,10 +34,15 @@ export function SquadWatchCard() {
             <View key={w.squadId} style={[styles.squad, isTabletUp && styles.cell]} testID={`squad-watch-${w.squadId}`}>
               <Text variant="label">{w.name}</Text>
               {lines.length === 0 ? <Text variant="small">Nothing waiting: no pain undecided, no referral, no re-screen due.</Text> : null}
+              {/* Each line opens the squad's table sorted or filtered to show who. */}
               {lines.map((l) => (
-                <Text key={l.text} style={l.stop ? styles.stop : undefined}>
-                  {`• ${l.text}`}
-                </Text>
+                <Link
+                  key={l.text}
+                  href={`/trends?squad=${w.squadId}${l.open.sort ? `&sort=${l.open.sort}` : ''}${l.open.band ? `&band=${l.open.band}` : ''}`}
+                  style={styles.line}
+                >
+                  <Text style={l.stop ? styles.stop : styles.lineText}>{`• ${l.text} →`}</Text>
+                </Link>
               ))}
               <Link href={`/trends?squad=${w.squadId}`} style={styles.link}>
                 <Text variant="label" style={styles.linkText}>{`${w.name}: trends and who →`}</Text>
@@ -54,7 +59,9 @@ const styles = StyleSheet.create({
   squad: { gap: space.xs, paddingTop: space.sm },
   grid: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg },
   cell: { flexBasis: 280, flexGrow: 1, flexShrink: 1 },
-  stop: { color: colors.brick, fontWeight: '700' },
+  stop: { color: colors.brick, fontWeight: '700', textDecorationLine: 'underline' },
+  lineText: { color: colors.ink, textDecorationLine: 'underline' },
+  line: { minHeight: TOUCH_MIN, justifyContent: 'center', display: 'flex' },
   link: { minHeight: TOUCH_MIN, justifyContent: 'center', display: 'flex' },
   linkText: { color: colors.pine },
 });

@@ -43,9 +43,9 @@ const COLUMNS: Col[] = [
   { key: 'name', label: 'Athlete', flex: 1.1, cell: (a) => `${a.lastName}, ${a.firstName}` },
   { key: 'ageGroup', label: 'Age', flex: 0.6, cell: (a) => `${a.ageGroup} · ${a.sex === 'female' ? 'F' : 'M'}` },
   { key: 'maturityBand', label: 'Maturity', flex: 0.9, cell: (a) => BAND_SHORT[a.maturityBand ?? 'unknown'] },
-  { key: 'flags', label: 'Flags left', flex: 1.4, cell: (a, onPaper) => (onPaper ? list : lines)(a.latestFlags.left) },
-  { key: null, label: 'Flags right', flex: 1.4, cell: (a, onPaper) => (onPaper ? list : lines)(a.latestFlags.right) },
-  { key: null, label: 'Other flags', flex: 1.4, cell: (a, onPaper) => (onPaper ? list : lines)([...a.latestFlags.both, ...a.latestFlags.unsided]) },
+  { key: 'flags', label: 'Flags left', flex: 1.3, cell: (a, onPaper) => (onPaper ? list : lines)(a.latestFlags.left) },
+  { key: null, label: 'Flags right', flex: 1.3, cell: (a, onPaper) => (onPaper ? list : lines)(a.latestFlags.right) },
+  { key: null, label: 'Other flags', flex: 1.3, cell: (a, onPaper) => (onPaper ? list : lines)([...a.latestFlags.both, ...a.latestFlags.unsided]) },
   { key: 'clearance', label: 'Clearance', flex: 1.1, cell: (a) => clearanceWords(a) ?? '–' },
   {
     key: 'daysSinceLastScreen',
@@ -53,8 +53,9 @@ const COLUMNS: Col[] = [
     flex: 0.8,
     cell: (a) => (a.daysSinceLastScreen === null ? 'Never' : capitalise(daysAgo(a.daysSinceLastScreen))),
   },
-  { key: 'sessions', label: 'Sessions attended since screen', flex: 1, cell: sessionsText },
-  { key: 'rescreenDue', label: 'Re-screen', flex: 0.8, cell: (a) => rescreenCell(a) },
+  { key: 'sessions', label: 'Sessions attended since screen', flex: 0.9, cell: sessionsText },
+  // Wide enough at 1440 px for "planned" whole (at 0.8 it broke as "planne / d").
+  { key: 'rescreenDue', label: 'Re-screen', flex: 1.1, cell: (a) => rescreenCell(a) },
 ];
 
 type Props = {
