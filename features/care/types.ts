@@ -113,6 +113,8 @@ export type FamilyView = {
   /** Empty unless the club lets parents see their own child's photos and photo consent is in force. */
   photos: FamilyPhoto[];
   photosAllowed: boolean;
+  /** The club's setting: whether families see their own child's screening photos at all. */
+  clubSharesPhotos: boolean;
 };
 
 export type ReleasePreview = {

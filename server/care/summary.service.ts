@@ -211,6 +211,7 @@ export function summaryService(deps: SummaryDeps, scope: ClubScope) {
         notes,
         photos,
         photosAllowed,
+        clubSharesPhotos: settings.familyPhotos,
       };
     },
   };

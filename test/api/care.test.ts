@@ -357,6 +357,8 @@ describe('the family view', () => {
     expect(summary.exercises[0].howTo.length).toBeGreaterThan(0);
     expect(res.body.notes.map((n: { visibility: string }) => n.visibility)).toEqual(['family']);
     expect(res.body.photos).toEqual([]);
+    // The club's setting, so that the page can say why no photo shows (set to no earlier in this file).
+    expect(res.body.clubSharesPhotos).toBe(false);
     const body = JSON.stringify(res.body);
     expect(body).not.toMatch(/°|fppa|valgus|measurements/i);
 

@@ -43,7 +43,8 @@ export function AthleteProfile({ id }: { id: string }) {
         </Text>
         <View style={styles.tags}>
           <Text variant="small">{a.squadName ?? 'No squad'}</Text>
-          <ClearanceBadge clearance={a.clearance} />
+          {/* Staff words ("⚠ Train with changes"); a family reads the decision in plain words on the child's summary page. */}
+          {isStaff(membership.role) ? <ClearanceBadge clearance={a.clearance} /> : null}
           {a.archived ? (
             <View style={styles.archivedTag} testID="archived-tag">
               <Text variant="small" style={styles.archivedText}>

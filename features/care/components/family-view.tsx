@@ -24,17 +24,21 @@ export function FamilyView({ athleteId }: { athleteId: string }) {
   if (query.error) return <Notice tone="error">{query.error.message}</Notice>;
   const { athlete, takingPart, latest, comparison, sessionsSinceLatest, notes, photos } = query.data;
   const { firstSharedAt, updatedAt, earlier } = familyReleases(latest, query.data.earlier);
-  const photosCard =
-    photos.length > 0 ? (
-      <Card>
-        <Text variant="heading">Photos from the screen</Text>
-        <View style={styles.photos}>
-          {photos.map((p) => (
-            <Image key={p.id} source={{ uri: p.thumbUrl }} accessibilityLabel={p.taskTitle} style={styles.photo} />
-          ))}
-        </View>
-      </Card>
-    ) : null;
+  const photosCard = !query.data.clubSharesPhotos ? (
+    // Said, so that "photos: agreed" on the consent page does not leave a parent looking for them.
+    <Text variant="small" testID="family-photos-kept">
+      The club keeps screening photos for the coaches and the physiotherapist: it does not show them on families&apos; pages.
+    </Text>
+  ) : photos.length > 0 ? (
+    <Card>
+      <Text variant="heading">Photos from the screen</Text>
+      <View style={styles.photos}>
+        {photos.map((p) => (
+          <Image key={p.id} source={{ uri: p.thumbUrl }} accessibilityLabel={p.taskTitle} style={styles.photo} />
+        ))}
+      </View>
+    </Card>
+  ) : null;
   const notesCard = (
     <Card testID="family-notes">
       <Text variant="heading">Notes from the care team</Text>
