@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import { ValidationError } from 'yup';
 import type { AssessmentDetail, PhotoView, TaskDraft } from '@/features/screening/contract';
@@ -35,9 +35,32 @@ function distanceError(n: number | null, label: string): string | null {
 }
 
 /** One task of the battery: safety and pain first, what to watch, then the distance, photos (beside on a wide screen) and ticks, notes. */
+/** The tasks whose guidance this tab has shown in full (session storage, our choice: a round screens a
+ * dozen athletes through the same tasks, and the guidance read twelve times was two swipes a task). */
+const GUIDED_KEY = 'squadline.capture.guided';
+function guidedTasks(): string[] {
+  try {
+    const seen: unknown = JSON.parse(globalThis.sessionStorage?.getItem(GUIDED_KEY) ?? '[]');
+    return Array.isArray(seen) ? seen.filter((x): x is string => typeof x === 'string') : [];
+  } catch {
+    return [];
+  }
+}
+function markGuided(taskId: string): void {
+  try {
+    const list = guidedTasks();
+    if (!list.includes(taskId)) globalThis.sessionStorage?.setItem(GUIDED_KEY, JSON.stringify([...list, taskId]));
+  } catch {
+    // No storage: shown in full every time.
+  }
+}
+
 export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, onPlaceLandmarks }: Props) {
   const { isWide } = useBreakpoints();
   const [showHow, setShowHow] = useState(false);
+  // Shown in full the first time in this tab; afterwards folded under one line (the safety and pain box stay).
+  const [folded] = useState(() => !isWide && guidedTasks().includes(task.id));
+  useEffect(() => markGuided(task.id), [task.id]);
   // Burst: once a photo is picked, the task's next slot without a photo opens by itself.
   const [armed, setArmed] = useState<PhotoSide | null>(null);
   const armAfter = (view: PhotoSide) => {
@@ -95,16 +118,20 @@ export function TaskStep({ task, value, onChange, detail, photos, onNewPhoto, on
       <TickBox
         tone="caution"
         label="Pain reported during this task"
-        hint="Stop the task. The plan will then ask for clearance by a physiotherapist or doctor before it starts."
+        hint={folded ? undefined : 'Stop the task. The plan will then ask for clearance by a physiotherapist or doctor before it starts.'}
         checked={t.painReported === true}
         onChange={(on) => onChange((d) => ({ ...d, painReported: on, ...(on ? { skipped: false } : {}) }))}
         testID="task-pain"
       />
       <View style={styles.look}>
-        <Text variant="label">What to look at</Text>
-        <Text>{task.lookFor}</Text>
-        <Pressable accessibilityRole="button" aria-expanded={showHow} onPress={() => setShowHow((s) => !s)} style={styles.howToggle}>
-          <Text style={styles.howToggleText}>{showHow ? 'Hide how to run it ▲' : 'How to run it ▼'}</Text>
+        {folded && !showHow ? null : (
+          <>
+            <Text variant="label">What to look at</Text>
+            <Text>{task.lookFor}</Text>
+          </>
+        )}
+        <Pressable accessibilityRole="button" aria-expanded={showHow} onPress={() => setShowHow((s) => !s)} style={styles.howToggle} testID="task-how">
+          <Text style={styles.howToggleText}>{showHow ? 'Hide how to run it ▲' : folded ? 'What to look at, how to run it ▼' : 'How to run it ▼'}</Text>
         </Pressable>
         {showHow ? <Text>{task.instructions}</Text> : null}
       </View>
