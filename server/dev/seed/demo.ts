@@ -66,9 +66,9 @@ export async function seedDemo(db: Db): Promise<DemoIds> {
           // Two families have not (yet) agreed to photos: the product must show that clearly.
           const photos = !(s === 0 && i === 5) && !(s === 1 && i === 8);
           await tx.insert(consents).values([
-            { athleteId: athlete!.id, kind: 'screening', granted: true, decidedOn: '2026-08-28', recordedBy: adminId },
-            { athleteId: athlete!.id, kind: 'photos', granted: photos, decidedOn: '2026-08-28', recordedBy: adminId },
-            { athleteId: athlete!.id, kind: 'email_summaries', granted: true, decidedOn: '2026-08-28', recordedBy: adminId },
+            { athleteId: athlete!.id, kind: 'screening', granted: true, decidedOn: '2026-02-27', recordedBy: adminId },
+            { athleteId: athlete!.id, kind: 'photos', granted: photos, decidedOn: '2026-02-27', recordedBy: adminId },
+            { athleteId: athlete!.id, kind: 'email_summaries', granted: true, decidedOn: '2026-02-27', recordedBy: adminId },
           ]);
           if (lastName === 'Okafor') {
             await tx.insert(guardianLinks).values({ athleteId: athlete!.id, userId: userIds['parent@squadline.test']! });
