@@ -205,7 +205,7 @@ function Desk({ roundId }: { roundId?: string }) {
       <Text testID="measure-count">
         {items.length === 0
           ? 'Every photo has its points.'
-          : `${items.length} ${items.length === 1 ? 'photo is' : 'photos are'} waiting for their points${roundId ? ' in this round' : ' across the club'}.`}
+          : `${items.length} ${items.length === 1 ? 'photo is waiting for its' : 'photos are waiting for their'} points${roundId ? ' in this round' : ' across the club'}.`}
       </Text>
     </View>
   );

@@ -61,7 +61,8 @@ const styles = StyleSheet.create({
   cell: { flexBasis: 280, flexGrow: 1, flexShrink: 1 },
   stop: { color: colors.brick, fontWeight: '700', textDecorationLine: 'underline' },
   lineText: { color: colors.ink, textDecorationLine: 'underline' },
-  line: { minHeight: TOUCH_MIN, justifyContent: 'center', display: 'flex' },
+  // A column: a link is a flex row on the web, and centring it put each line in the middle of the card.
+  line: { minHeight: TOUCH_MIN, justifyContent: 'center', display: 'flex', flexDirection: 'column', alignItems: 'flex-start' },
   link: { minHeight: TOUCH_MIN, justifyContent: 'center', display: 'flex' },
   linkText: { color: colors.pine },
 });

@@ -13,7 +13,7 @@ export const BEFORE_EACH_ATHLETE = {
 
 /** The measuring notice of the body step, one line each so that it reads at a glance. */
 export const MEASURE_FIRST = [
-  'Ask whether anything hurts today, and warm up first.',
+  'Warm up first.',
   'Shoes off. Measure twice and type the mean.',
   'Sitting height: from the seat to the top of the head.',
   'These values estimate where the athlete is in their growth spurt.',
