@@ -347,8 +347,9 @@ const styles = StyleSheet.create({
   flex: { flex: 1, minWidth: 0 },
   // Two thirds for the table: at 1440 px its flag columns then hold "dorsiflexion" whole (with 3:2
   // they broke it, and "Asymmetry", mid-word); the charts keep a phone's width.
-  // The table has ten columns: a little more than two thirds of the width, so no header breaks inside a word.
-  tableCol: { flex: 2.3, minWidth: 0 },
+  // The table has ten columns: nearly three quarters of the width, so that no header or flag name breaks
+  // inside a word at 1440 px ("Asymmetry", "Clearance" broke at 2.3).
+  tableCol: { flex: 2.7, minWidth: 0 },
   chartCol: { flex: 1, minWidth: 0, gap: space.md },
   filters: { gap: space.sm },
   filtersWide: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.xl, rowGap: space.sm, alignItems: 'flex-end' },

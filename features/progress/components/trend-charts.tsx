@@ -122,7 +122,9 @@ export function FlagShareChart({ rounds: all, title, testID }: { rounds: TrendRo
               {patterns.map((p) => (
                 <View key={p} style={styles.legendItem}>
                   <View style={[styles.swatch, { backgroundColor: PATTERN_COLOURS[p] }]} />
-                  <Text variant="small">{p === 'growth-spurt-window' ? `${PATTERN_SHORT[p]} (a stage of growth, dashed)` : PATTERN_SHORT[p]}</Text>
+                  <Text variant="small" style={styles.legendText}>
+                    {p === 'growth-spurt-window' ? `${PATTERN_SHORT[p]} (a stage of growth, dashed)` : PATTERN_SHORT[p]}
+                  </Text>
                 </View>
               ))}
             </View>
@@ -295,6 +297,8 @@ const styles = StyleSheet.create({
   frame: { gap: space.xs, padding: space.md, borderWidth: 1, borderColor: colors.line, borderRadius: radius.md, backgroundColor: colors.surface },
   chart: { width: '100%', minHeight: 120 },
   legend: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
-  legendItem: { flexDirection: 'row', alignItems: 'center', gap: 4 },
+  // A long item wraps inside the card instead of running past its edge.
+  legendItem: { flexDirection: 'row', alignItems: 'center', gap: 4, maxWidth: '100%' },
+  legendText: { flexShrink: 1 },
   swatch: { width: 12, height: 12, borderRadius: 2 },
 });

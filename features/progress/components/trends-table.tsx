@@ -40,22 +40,22 @@ function sessionsText(a: TrendAthlete): string {
 
 type Col = { key: SortKey | null; label: string; flex: number; cell: (a: TrendAthlete, onPaper: boolean) => string };
 const COLUMNS: Col[] = [
-  { key: 'name', label: 'Athlete', flex: 1.1, cell: (a) => `${a.lastName}, ${a.firstName}` },
+  { key: 'name', label: 'Athlete', flex: 1, cell: (a) => `${a.lastName}, ${a.firstName}` },
   { key: 'ageGroup', label: 'Age', flex: 0.6, cell: (a) => `${a.ageGroup} · ${a.sex === 'female' ? 'F' : 'M'}` },
-  { key: 'maturityBand', label: 'Maturity', flex: 0.9, cell: (a) => BAND_SHORT[a.maturityBand ?? 'unknown'] },
-  { key: 'flags', label: 'Flags left', flex: 1.3, cell: (a, onPaper) => (onPaper ? list : lines)(a.latestFlags.left) },
-  { key: null, label: 'Flags right', flex: 1.3, cell: (a, onPaper) => (onPaper ? list : lines)(a.latestFlags.right) },
-  { key: null, label: 'Other flags', flex: 1.3, cell: (a, onPaper) => (onPaper ? list : lines)([...a.latestFlags.both, ...a.latestFlags.unsided]) },
-  { key: 'clearance', label: 'Clearance', flex: 1.1, cell: (a) => clearanceWords(a) ?? '–' },
+  { key: 'maturityBand', label: 'Maturity', flex: 0.85, cell: (a) => BAND_SHORT[a.maturityBand ?? 'unknown'] },
+  { key: 'flags', label: 'Flags left', flex: 1.35, cell: (a, onPaper) => (onPaper ? list : lines)(a.latestFlags.left) },
+  { key: null, label: 'Flags right', flex: 1.35, cell: (a, onPaper) => (onPaper ? list : lines)(a.latestFlags.right) },
+  { key: null, label: 'Other flags', flex: 1.35, cell: (a, onPaper) => (onPaper ? list : lines)([...a.latestFlags.both, ...a.latestFlags.unsided]) },
+  { key: 'clearance', label: 'Clearance', flex: 1.15, cell: (a) => clearanceWords(a) ?? '–' },
   {
     key: 'daysSinceLastScreen',
     label: 'Last screen',
     flex: 0.8,
     cell: (a) => (a.daysSinceLastScreen === null ? 'Never' : capitalise(daysAgo(a.daysSinceLastScreen))),
   },
-  { key: 'sessions', label: 'Sessions attended since screen', flex: 0.9, cell: sessionsText },
+  { key: 'sessions', label: 'Sessions since screen', flex: 0.9, cell: sessionsText },
   // Wide enough at 1440 px for "planned" whole (at 0.8 it broke as "planne / d").
-  { key: 'rescreenDue', label: 'Re-screen', flex: 1.1, cell: (a) => rescreenCell(a) },
+  { key: 'rescreenDue', label: 'Re-screen', flex: 1.05, cell: (a) => rescreenCell(a) },
 ];
 
 type Props = {
