@@ -258,6 +258,17 @@ test('a tester screens an athlete from a new round to the result, and it all sur
 });
 
 /** Opens a round for the under-13s through the API and submits one athlete's screen with no body measures. */
+/** Signed in as the tester, a new round of the demo's Under-13 squad (dated in the autumn, like its screens). */
+async function testerRound(page: Page, name: string) {
+  await signIn(page, 'tester@squadline.test');
+  await expect(page.getByTestId('home-tester')).toBeVisible();
+  const squads = (await (await page.request.get('/api/squads')).json()) as { squads: { id: string; name: string }[] };
+  const squad = squads.squads.find((s) => s.name === 'Under-13 mixed')!;
+  const created = await page.request.post('/api/rounds', { data: { squadId: squad.id, name, screenedOn: '2026-09-14' } });
+  expect(created.status()).toBe(201);
+  return (await created.json()) as { athletes: { assessmentId: string; athleteId: string; firstName: string }[] };
+}
+
 async function submitWithoutBodyMeasures(page: Page, roundPrefix: string, painReported = false): Promise<string> {
   const rounds = (await (await page.request.get('/api/rounds')).json()) as { rounds: { squadId: string; squadName: string }[] };
   const squadId = rounds.rounds.find((r) => r.squadName.startsWith('Under-13'))!.squadId;
@@ -393,15 +404,7 @@ test('pain reported: the plan holds back loaded work and lists what the athlete 
 // says so before the first measure and on the task, with one tap to skip it with the reason kept, and the
 // athlete's page says it at the top.
 test('capture and the athlete page stop the landing task for an athlete referred on', async ({ page }, testInfo) => {
-  await signIn(page, 'tester@squadline.test');
-  await expect(page.getByTestId('home-tester')).toBeVisible();
-  const squads = (await (await page.request.get('/api/squads')).json()) as { squads: { id: string; name: string }[] };
-  const squad = squads.squads.find((s) => s.name === 'Under-13 mixed')!;
-  const created = await page.request.post('/api/rounds', {
-    data: { squadId: squad.id, name: `Hold ${testInfo.project.name} ${Date.now()}`, screenedOn: '2026-09-14' },
-  });
-  expect(created.status()).toBe(201);
-  const round = (await created.json()) as { athletes: { assessmentId: string; athleteId: string; firstName: string }[] };
+  const round = await testerRound(page, `Hold ${testInfo.project.name} ${Date.now()}`);
   const tove = round.athletes.find((a) => a.firstName === 'Tove')!;
   await page.goto(`/screening/assessments/${tove.assessmentId}`);
   await expect(page.getByTestId('step-title')).toHaveText('Body measurements');
@@ -428,15 +431,7 @@ test('capture and the athlete page stop the landing task for an athlete referred
 // our choice (with the usual rule of stopping on pain): pain ticked on a task holds the landing task that
 // follows in the same screen, and every other task after it asks first whether anything hurts now.
 test('pain ticked during a screen stops the landing task after it and asks before each later task', async ({ page }, testInfo) => {
-  await signIn(page, 'tester@squadline.test');
-  await expect(page.getByTestId('home-tester')).toBeVisible();
-  const squads = (await (await page.request.get('/api/squads')).json()) as { squads: { id: string; name: string }[] };
-  const squad = squads.squads.find((s) => s.name === 'Under-13 mixed')!;
-  const created = await page.request.post('/api/rounds', {
-    data: { squadId: squad.id, name: `Pain today ${testInfo.project.name} ${Date.now()}`, screenedOn: '2026-09-14' },
-  });
-  expect(created.status()).toBe(201);
-  const round = (await created.json()) as { athletes: { assessmentId: string; firstName: string }[] };
+  const round = await testerRound(page, `Pain today ${testInfo.project.name} ${Date.now()}`);
   const emil = round.athletes.find((a) => a.firstName === 'Emil')!;
   await page.goto(`/screening/assessments/${emil.assessmentId}`);
   await expect(page.getByTestId('step-title')).toHaveText('Body measurements');
