@@ -13,6 +13,8 @@ type Props = {
   viewUrl: string;
   unsubscribeUrl: string;
   recipientName: string;
+  /** Notes the care team shares with the family about the child (their words stay on the page). */
+  familyNotes?: number;
   /** The day the e-mail is written (YYYY-MM-DD; today by default): a next check before it is due now, not a date gone by. */
   today?: string;
 };
@@ -27,7 +29,7 @@ const styles = {
   link: { color: '#0b6b4f', textDecoration: 'underline' },
 };
 
-export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName, today }: Props) {
+export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName, familyNotes = 0, today }: Props) {
   const name = summary.athleteFirstName;
   return (
     <Html lang="en">
@@ -86,6 +88,15 @@ export function SummaryEmail({ summary, viewUrl, unsubscribeUrl, recipientName, 
             <Heading as="h2" style={styles.h2}>
               {summary.exercises.length > 0 ? 'See how to do each exercise' : `${name}'s page in Squadline`}
             </Heading>
+            {familyNotes > 0 ? (
+              // Said, not copied: a note's words stay behind the sign-in (the physiotherapist's advice was
+              // missed by a parent who read only the e-mail).
+              <Text style={styles.text}>
+                {familyNotes === 1
+                  ? `The care team left you a note about ${name}: read it on ${name}'s page.`
+                  : `The care team left you ${familyNotes} notes about ${name}: read them on ${name}'s page.`}
+              </Text>
+            ) : null}
             <Text style={styles.text}>
               <Link href={viewUrl} style={styles.link}>{`Open ${name}'s page in Squadline`}</Link>
             </Text>

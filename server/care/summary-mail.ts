@@ -5,7 +5,7 @@ import { summaryEmails, summaryReleases, users } from '@/db/schema';
 import type { FamilySummary } from '@/features/care/types';
 import type { OutgoingMail } from '@/server/mail/mailer';
 import { renderSummaryEmail } from './summary-email';
-import { emailConsentInForce } from './summary.repo';
+import { emailConsentInForce, familyNoteCount } from './summary.repo';
 import { familyUrl, hashToken, oneClickUrl, unsubscribePageUrl } from './summary.service';
 
 /**
@@ -35,11 +35,13 @@ export function summaryMail(db: Db, publicUrl: string) {
     const [release] = await db.select({ summary: summaryReleases.summary }).from(summaryReleases).where(eq(summaryReleases.id, row.releaseId));
     if (!release) return null;
     const [user] = row.userId ? await db.select({ displayName: users.displayName }).from(users).where(eq(users.id, row.userId)) : [];
+    const familyNotes = await familyNoteCount(db, row.athleteId);
     const rendered = await renderSummaryEmail({
       summary: release.summary as FamilySummary,
       viewUrl: familyUrl(publicUrl, row.athleteId),
       unsubscribeUrl: unsubscribePageUrl(publicUrl, token),
       recipientName: user?.displayName ?? 'parent or guardian',
+      familyNotes,
     });
     return {
       to: row.email,

@@ -1,8 +1,9 @@
-import { and, asc, desc, eq, isNull, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, isNull, sql } from 'drizzle-orm';
 import {
   assessmentResults,
   assessments,
   athletes,
+  careNotes,
   consents,
   guardianLinks,
   memberships,
@@ -113,4 +114,13 @@ export function summaryRepo(db: Executor, scope: ClubScope) {
         .orderBy(asc(photos.taskId), asc(photos.view));
     },
   };
+}
+
+/** How many notes the care team shares with the child's family (the e-mail says there are some). */
+export async function familyNoteCount(db: Executor, athleteId: string): Promise<number> {
+  const [row] = await db
+    .select({ n: count() })
+    .from(careNotes)
+    .where(and(eq(careNotes.athleteId, athleteId), eq(careNotes.visibility, 'family')));
+  return row?.n ?? 0;
 }

@@ -22,7 +22,7 @@ import { notesService } from './notes.service';
 import { reviewsRepo } from './reviews.repo';
 import { careSettingsOf } from './settings.repo';
 import { renderSummaryEmail } from './summary-email';
-import { summaryRepo, type Recipient } from './summary.repo';
+import { familyNoteCount, summaryRepo, type Recipient } from './summary.repo';
 
 export type SummaryDeps = { db: Db; outbox: Outbox; publicUrl: string };
 
@@ -155,6 +155,7 @@ export function summaryService(deps: SummaryDeps, scope: ClubScope) {
         viewUrl: familyUrl(publicUrl, a.athleteId),
         unsubscribeUrl: `${publicUrl}/unsubscribe?token=preview`,
         recipientName: recipients[0]?.displayName ?? 'parent or guardian',
+        familyNotes: await familyNoteCount(db, a.athleteId),
       });
       return { ...rendered, recipients: recipients.map((r) => ({ displayName: r.displayName, email: r.email })), skipped };
     },

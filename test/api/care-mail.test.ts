@@ -71,6 +71,9 @@ describe('the family summary e-mail', () => {
   it('reaches each linked parent with consent, with both parts, no image, and a working unsubscribe', async () => {
     const kitScreen = await reviewedScreen(ids.kit!);
     const louScreen = await reviewedScreen(ids.lou!);
+    // A note shared with Kit's family: the e-mail says there is one, without its words.
+    const note = await physio.post(`/api/athletes/${ids.kit}/notes`).send({ text: 'Please keep jumps light this month.', visibility: 'family' });
+    expect(note.status).toBe(201);
     expect((await physio.post(`/api/assessments/${kitScreen}/release`)).status).toBe(201);
     expect((await physio.post(`/api/assessments/${louScreen}/release`)).status).toBe(201);
 
@@ -89,6 +92,8 @@ describe('the family summary e-mail', () => {
     expect(toMum.text).toMatch(/Hello Mo Ames/);
     expect(toMum.text).toMatch(/what kit will work on/i);
     expect(toMum.text).toMatch(/not a diagnosis/);
+    expect(toMum.text).toContain("The care team left you a note about Kit: read it on Kit's page.");
+    expect(toMum.text).not.toContain('keep jumps light');
     // The cautions come under their own heading before the link and the sign-off, not as small print after them.
     expect(toMum.text.indexOf('PLEASE NOTE') >= 0 ? toMum.text.indexOf('PLEASE NOTE') : toMum.text.indexOf('Please note')).toBeGreaterThan(-1);
     expect(toMum.text.indexOf('not a diagnosis')).toBeLessThan(toMum.text.indexOf(`http://squadline.test/family/${ids.kit}`));
