@@ -53,7 +53,7 @@ export const outbox = new Outbox({
       await sender(entry);
     } catch (e) {
       // No answer at all: offline, whatever the browser says; any answer, even a refusal, is a connection.
-      connectivity.setReachable(e instanceof ApiError && e.status === 0 && e.code === 'offline' ? false : true);
+      connectivity.setReachable(!(e instanceof ApiError && e.status === 0 && e.code === 'offline'));
       throw e;
     }
     connectivity.setReachable(true);

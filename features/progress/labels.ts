@@ -68,7 +68,7 @@ export function filterWords(f: {
   flag?: PatternId | 'any' | 'none' | '';
 }): string[] {
   const out: string[] = [];
-  if (f.sex) out.push(f.sex === 'female' ? 'female' : f.sex === 'male' ? 'male' : f.sex);
+  if (f.sex) out.push(f.sex);
   if (f.ageGroup) out.push(f.ageGroup);
   if (f.maturityBand) out.push(BAND_LABELS[f.maturityBand].toLowerCase());
   if (f.flag) out.push(f.flag === 'any' ? 'any movement flag' : f.flag === 'none' ? 'no movement flag' : `${PATTERN_SHORT[f.flag].toLowerCase()} flagged`);

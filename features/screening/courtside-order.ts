@@ -10,32 +10,28 @@ import type { RoundSummary } from '@/features/screening/contract';
  */
 const rankOf = (day: string, today: string) => (day === today ? 0 : day > today ? 1 : 2);
 
+/** Which of two days comes first in that order. */
+const byCourtside = (a: string, b: string, today: string) => {
+  const ra = rankOf(a, today);
+  const byRank = ra - rankOf(b, today);
+  if (byRank !== 0) return byRank;
+  // Coming days soonest first; earlier days newest first.
+  return ra === 1 ? a.localeCompare(b) : b.localeCompare(a);
+};
+
 export function courtsideRounds(open: RoundSummary[], today: string): RoundSummary[] {
-  return [...open].sort((a, b) => {
-    const ra = rankOf(a.screenedOn, today);
-    const byRank = ra - rankOf(b.screenedOn, today);
-    if (byRank !== 0) return byRank;
-    // Coming days soonest first; earlier days newest first.
-    return ra === 1 ? a.screenedOn.localeCompare(b.screenedOn) : b.screenedOn.localeCompare(a.screenedOn);
-  });
+  return [...open].sort((a, b) => byCourtside(a.screenedOn, b.screenedOn, today));
 }
 
 export type CourtsideSquad = SquadWithRounds & { open: RoundSummary[] };
 
 export function courtsideSquads(bySquad: SquadWithRounds[], isOpen: (r: RoundSummary) => boolean, today: string): CourtsideSquad[] {
   const withOpen = bySquad.map((s, index) => ({ ...s, open: courtsideRounds(s.rounds.filter(isOpen), today), index }));
-  const key = (s: (typeof withOpen)[number]) => {
-    const first = s.open[0];
-    return first ? { rank: rankOf(first.screenedOn, today), day: first.screenedOn } : { rank: 3, day: '' };
-  };
   return withOpen
     .sort((a, b) => {
-      const ka = key(a);
-      const kb = key(b);
-      if (ka.rank !== kb.rank) return ka.rank - kb.rank;
-      if (ka.rank === 1 && ka.day !== kb.day) return ka.day.localeCompare(kb.day);
-      if (ka.rank === 2 && ka.day !== kb.day) return kb.day.localeCompare(ka.day);
-      return a.index - b.index;
+      const [fa, fb] = [a.open[0], b.open[0]];
+      if (!fa || !fb) return fa ? -1 : fb ? 1 : a.index - b.index;
+      return byCourtside(fa.screenedOn, fb.screenedOn, today) || a.index - b.index;
     })
     .map(({ index: _index, ...s }) => s);
 }

@@ -12,6 +12,7 @@ import { useSquadsQuery } from '../api/get-squads';
 import type { Athlete } from '../api/types';
 import {
   athleteSchema,
+  isCalendarDate,
   JUNIOR_AGE,
   withDateDashes,
   SEX_LABELS,
@@ -189,7 +190,7 @@ const styles = StyleSheet.create({
 
 /** A child older than the chosen squad's name says: a second look, not a refusal (the same words as the import's). */
 function AgeGroupCheck({ squadName, dateOfBirth }: { squadName: string | undefined; dateOfBirth: string }) {
-  if (!squadName || !/^\d{4}-\d{2}-\d{2}$/.test(dateOfBirth)) return null;
+  if (!squadName || !isCalendarDate(dateOfBirth)) return null;
   const check = ageGroupCheck(squadName, dateOfBirth, todayIso());
   return check ? (
     <Notice tone="caution" testID="athlete-age-group-check">

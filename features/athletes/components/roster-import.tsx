@@ -118,9 +118,9 @@ function Report({ report }: { report: ImportReport }) {
   const bad = report.rows.filter((r) => !r.ok);
   const ready = report.rows.filter((r) => r.ok && r.action !== 'update');
   const updates = report.rows.filter((r) => r.ok && r.action === 'update');
-  const toCheck = report.rows.filter((r) => r.ok && (r.checks?.length ?? 0) > 0);
+  const toCheck = report.rows.filter((r) => r.ok && hasChecks(r));
   // The first lines, and past them every line to look at again.
-  const shownReady = [...ready.slice(0, READY_SHOWN), ...ready.slice(READY_SHOWN).filter((r) => (r.checks?.length ?? 0) > 0)];
+  const shownReady = [...ready.slice(0, READY_SHOWN), ...ready.slice(READY_SHOWN).filter(hasChecks)];
   const total = report.rows.length;
   return (
     <View style={styles.report} testID="import-report">
@@ -189,6 +189,8 @@ function Report({ report }: { report: ImportReport }) {
     </View>
   );
 }
+
+const hasChecks = (row: ImportReportRow) => (row.checks?.length ?? 0) > 0;
 
 /** What a ready line asks to look at again (a child older than the squad's name says). */
 function Checks({ row }: { row: ImportReportRow }) {

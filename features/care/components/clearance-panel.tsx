@@ -14,7 +14,7 @@ import { space } from '@/features/ui/theme';
 import { useClearanceHistory } from '../api/get-clearance-history';
 import { useClearanceOf, usePainWaitingOf } from '../api/get-clearances';
 import { useSetClearanceMutation } from '../api/set-clearance';
-import { CLEARANCE_LABELS, CLEARANCE_STATUSES, holdsWords, type ClearanceHold, type ClearanceStatus } from '../choices';
+import { CLEARANCE_HOLDS, CLEARANCE_LABELS, CLEARANCE_STATUSES, holdsWords, type ClearanceHold, type ClearanceStatus } from '../choices';
 import { clearanceSchema } from '../schemas';
 import { ClearanceBadge } from './clearance-badge';
 import { Chips } from '@/features/ui/components/chips';
@@ -36,6 +36,12 @@ const HOLD_OPTIONS: { value: HoldChoice; label: string }[] = [
 ];
 const holdChoiceOf = (holds: readonly ClearanceHold[]): HoldChoice =>
   holds.includes('loaded') ? (holds.includes('landing') ? 'both' : 'loaded') : holds.includes('landing') ? 'landing' : 'none';
+
+/** What a decision holding `held` brings back, in the words the panel already uses for holds. */
+function comeBackWords(held: readonly ClearanceHold[]): string {
+  const back = CLEARANCE_HOLDS.filter((h) => !held.includes(h));
+  return `${holdsWords(back).toLowerCase()} come${back.length > 1 ? '' : 's'} back`;
+}
 
 /** The clearance in force, and for a physiotherapist the form to record a new decision. */
 const DETAIL_HINT = "Read by the club's coaches and testers (training sheet, athlete page), never by the family: the family reads the decision only.";
@@ -121,13 +127,9 @@ export function ClearancePanel({ athleteId }: { athleteId: string }) {
           ((form.values.status === 'modified' && form.values.holdChoice !== '' && form.values.holdChoice !== 'both') || form.values.status === 'cleared') ? (
             // Said before it is saved: what comes back for a child whose pain waits for this decision.
             <Notice tone="caution" testID="clearance-pain-lifts">
-              {`Pain was reported at the screen of ${formatDate(pain.screenedOn)}. Once this is recorded, ${
-                form.values.status === 'cleared' || form.values.holdChoice === 'none'
-                  ? 'loaded strength work and jump and landing work come back'
-                  : form.values.holdChoice === 'loaded'
-                    ? 'jump and landing work comes back'
-                    : 'loaded strength work comes back'
-              } to the plan and the training sheet.`}
+              {`Pain was reported at the screen of ${formatDate(pain.screenedOn)}. Once this is recorded, ${comeBackWords(
+                form.values.status === 'cleared' ? [] : HOLD_CHOICES[form.values.holdChoice || 'none'],
+              )} to the plan and the training sheet.`}
             </Notice>
           ) : null}
           {form.values.status ? (

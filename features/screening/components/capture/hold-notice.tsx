@@ -79,7 +79,7 @@ export function CaptureHoldNotice({
   if (taskId === null) {
     return (
       <Notice tone="error" title={`${firstName}: tasks to skip today`} testID="capture-hold">
-        {`Skip the ${held.map((id) => titleOf(id).replace(/^./, (c) => c.toLowerCase())).join(', the ')}: ${reason}. Stop any task that hurts.`}
+        {`Skip the ${held.map(lowerTitle).join(', the ')}: ${reason}. Stop any task that hurts.`}
       </Notice>
     );
   }
@@ -89,11 +89,7 @@ export function CaptureHoldNotice({
     <Notice tone="error" title={`Do not run this task with ${firstName}`} testID="capture-hold">
       <View style={styles.body}>
         <Text>{hurtHere ? `Not today: ${why}.` : `Landing work waits: ${why}.`}</Text>
-        {task?.painReported ? null : task?.skipped ? (
-          <Text variant="small">Skipped, with the reason kept.</Text>
-        ) : onSkip ? (
-          <Button label="Skip it: on hold" tone="secondary" testID="capture-hold-skip" onPress={() => onSkip(`On hold: ${why}.`)} />
-        ) : null}
+        <SkipAction task={task} onSkip={onSkip} label="Skip it: on hold" reason={`On hold: ${why}.`} testID="capture-hold-skip" />
       </View>
     </Notice>
   );
@@ -117,19 +113,9 @@ function PainTodayNotice({
   task?: TaskDraft;
   onSkip?: (reason: string) => void;
 }) {
-  const during = hurt.map((id) => titleOf(id).replace(/^./, (c) => c.toLowerCase())).join(', the ');
+  const during = hurt.map(lowerTitle).join(', the ');
   const landing = taskId === LANDING_TASK;
   const why = `pain was reported today during the ${during}`;
-  const action = task?.painReported ? null : task?.skipped ? (
-    <Text variant="small">Skipped, with the reason kept.</Text>
-  ) : onSkip ? (
-    <Button
-      label={landing ? 'Skip it: on hold' : 'Skip it'}
-      tone="secondary"
-      testID="capture-pain-today-skip"
-      onPress={() => onSkip(landing ? `On hold: ${why}.` : `Not run: ${why}.`)}
-    />
-  ) : null;
   return (
     <Notice
       tone={landing ? 'error' : 'caution'}
@@ -142,10 +128,38 @@ function PainTodayNotice({
             ? `Landing work waits: ${why}, and the plan holds landings until a physiotherapist decides.`
             : `Pain was reported during the ${during}. Ask ${firstName} whether anything hurts now: run this task only if nothing does, and stop at once if it hurts. Otherwise skip it.`}
         </Text>
-        {action}
+        <SkipAction
+          task={task}
+          onSkip={onSkip}
+          label={landing ? 'Skip it: on hold' : 'Skip it'}
+          reason={landing ? `On hold: ${why}.` : `Not run: ${why}.`}
+          testID="capture-pain-today-skip"
+        />
       </View>
     </Notice>
   );
+}
+
+/** A task's title inside a sentence ("the drop landing from a low box"). */
+const lowerTitle = (id: TaskId) => titleOf(id).replace(/^./, (c) => c.toLowerCase());
+
+/** The one tap that skips a held task with its reason; said once it is skipped; nothing on a task that hurt. */
+function SkipAction({
+  task,
+  onSkip,
+  label,
+  reason,
+  testID,
+}: {
+  task?: TaskDraft;
+  onSkip?: (reason: string) => void;
+  label: string;
+  reason: string;
+  testID: string;
+}) {
+  if (task?.painReported) return null;
+  if (task?.skipped) return <Text variant="small">Skipped, with the reason kept.</Text>;
+  return onSkip ? <Button label={label} tone="secondary" testID={testID} onPress={() => onSkip(reason)} /> : null;
 }
 
 const styles = StyleSheet.create({
