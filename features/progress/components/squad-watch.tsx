@@ -39,7 +39,7 @@ export function SquadWatchCard() {
                 <Link
                   key={l.text}
                   href={`/trends?squad=${w.squadId}${l.open.sort ? `&sort=${l.open.sort}` : ''}${l.open.band ? `&band=${l.open.band}` : ''}`}
-                  style={styles.line}
+                  style={styles.link}
                 >
                   <Text style={l.stop ? styles.stop : styles.lineText}>{`• ${l.text} →`}</Text>
                 </Link>
@@ -62,7 +62,6 @@ const styles = StyleSheet.create({
   stop: { color: colors.brick, fontWeight: '700', textDecorationLine: 'underline' },
   lineText: { color: colors.ink, textDecorationLine: 'underline' },
   // A column: a link is a flex row on the web, and centring it put each line in the middle of the card.
-  line: { minHeight: TOUCH_MIN, justifyContent: 'center', display: 'flex', flexDirection: 'column', alignItems: 'flex-start' },
-  link: { minHeight: TOUCH_MIN, justifyContent: 'center', display: 'flex' },
+  link: { minHeight: TOUCH_MIN, justifyContent: 'center', display: 'flex', flexDirection: 'column', alignItems: 'flex-start' },
   linkText: { color: colors.pine },
 });
